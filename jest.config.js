@@ -1,0 +1,40 @@
+// One runner for the whole repository (see DEVELOPERS.md): each project below is one layer.
+const tsJest = ['ts-jest', { tsconfig: '<rootDir>/tsconfig.spec.json' }];
+
+/** @type {import('jest').Config} */
+module.exports = {
+  reporters: ['default', '<rootDir>/test/support/summary-reporter.js'],
+  projects: [
+    {
+      displayName: 'unit',
+      testEnvironment: 'node',
+      testMatch: ['<rootDir>/test/shared/**/*.spec.ts', '<rootDir>/test/scripts/**/*.spec.ts'],
+      transform: { '^.+\\.ts$': tsJest },
+    },
+    {
+      displayName: 'api',
+      testEnvironment: 'node',
+      testMatch: ['<rootDir>/test/server/**/*.spec.ts'],
+      transform: { '^.+\\.ts$': tsJest },
+      globalSetup: '<rootDir>/test/support/api-global-setup.ts',
+    },
+    {
+      displayName: 'client',
+      preset: 'jest-preset-angular',
+      testEnvironment: 'jsdom',
+      setupFilesAfterEnv: ['<rootDir>/test/support/client-setup.ts'],
+      testMatch: ['<rootDir>/src/**/*.spec.ts'],
+      transform: {
+        '^.+\\.(ts|js|mjs|html|svg)$': ['jest-preset-angular', { tsconfig: '<rootDir>/tsconfig.spec.json', stringifyContentPathRegex: '\\.(html|svg)$' }],
+      },
+      transformIgnorePatterns: ['node_modules/(?!.*\\.mjs$)'],
+    },
+    {
+      displayName: 'e2e',
+      testEnvironment: 'node',
+      testMatch: ['<rootDir>/test/e2e/**/*.spec.ts'],
+      transform: { '^.+\\.ts$': tsJest },
+      globalSetup: '<rootDir>/test/support/api-global-setup.ts',
+    },
+  ],
+};

@@ -1,0 +1,21 @@
+#!/usr/bin/env bash
+# `npm test`: a throw-away MariaDB, a fresh client build, then every jest project; ends "N passed, N failed".
+set -uo pipefail
+cd "$(dirname "$0")/.."
+source scripts/lib.sh
+
+ensure_debian_packages with-browser
+ensure_node_modules
+
+dir=".data/test-$$"
+export DB_NAME=torquetrail_test DB_USER=torquetrail_test DB_PASSWORD=test-only
+db_start "$dir" "$(free_port)"
+export DB_HOST=127.0.0.1 DB_PORT
+trap 'db_stop; rm -rf "$dir"' EXIT
+db_ensure_schema "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
+
+log "building the client for the end-to-end tests"
+npx ng build --configuration production >/dev/null || die "client build failed"
+
+export NODE_ENV=test
+npx jest --ci "$@"

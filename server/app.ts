@@ -1,0 +1,56 @@
+import path from 'node:path';
+import fs from 'node:fs';
+import express, { type Express } from 'express';
+import type { Sequelize } from 'sequelize';
+import type { Config } from './config';
+import { securityHeaders } from './http/security-headers';
+import { sessionMiddleware, absoluteSessionLimit } from './auth/session';
+import { createPassport } from './auth/passport';
+import { csrfProtection } from './auth/csrf';
+import { authRouter } from './auth/auth.router';
+import { attachAbility } from './authz/actor';
+import { requireSignIn } from './authz/require-sign-in';
+import { usersRouter } from './users/users.router';
+import { projectsRouter } from './projects/projects.router';
+import { auditRouter } from './audit/audit.router';
+import { dashboardRouter } from './dashboard/dashboard.router';
+import { apiNotFound, errorHandler } from './errors/error-handler';
+
+export interface AppDeps {
+  sequelize: Sequelize;
+  config: Config;
+}
+
+/** Builds the Express app (API and, when built, the client) without listening. */
+export function createApp({ sequelize, config }: AppDeps): Express {
+  const app = express();
+  const passport = createPassport();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.TRUST_PROXY);
+
+  app.use(securityHeaders(config));
+  app.use('/api', express.json({ limit: '1mb' }));
+  app.use('/api', sessionMiddleware(sequelize, config), absoluteSessionLimit(config));
+  app.use('/api', passport.session(), attachAbility);
+  app.use('/api', csrfProtection);
+
+  app.use('/api', authRouter(sequelize, passport, config));
+  app.use('/api/users', requireSignIn, usersRouter(sequelize));
+  app.use('/api/projects', requireSignIn, projectsRouter(sequelize));
+  app.use('/api/audit', requireSignIn, auditRouter());
+  app.use('/api/dashboard', requireSignIn, dashboardRouter());
+  app.use('/api', apiNotFound);
+
+  serveClient(app, config);
+  app.use(errorHandler);
+  return app;
+}
+
+function serveClient(app: Express, config: Config): void {
+  const dist = path.resolve(__dirname, '..', config.CLIENT_DIST);
+  const index = path.join(dist, 'index.html');
+  if (!fs.existsSync(index)) return;
+  app.use(express.static(dist, { index: false, maxAge: '1h' }));
+  // Client-side routes all load the same page; the Angular router takes it from there.
+  app.get('/{*splat}', (_req, res) => res.sendFile(index, { maxAge: 0 }));
+}

@@ -1,0 +1,78 @@
+import type { Sequelize, Transaction } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
+import canonicalize from 'canonicalize';
+import { AuditEvent } from '../db/models';
+import { chainHash, GENESIS_HASH, type ChainedContent } from './audit-chain';
+
+export interface Actor {
+  id: number | null;
+  name: string;
+  ip?: string | null;
+}
+
+export interface AuditEntry {
+  action: string;
+  entityType: string;
+  entityId?: string | number | null;
+  payload?: unknown;
+  diff?: string | null;
+}
+
+/**
+ * Appends one event to the hash-chained audit trail. The chain head row is locked for the
+ * length of the transaction, so concurrent appends from several app instances line up one
+ * behind the other and every row's `prevHash` is the row before it. Pass the caller's
+ * transaction so the audit entry commits (or rolls back) with the change it records.
+ */
+export async function appendAudit(
+  sequelize: Sequelize, actor: Actor, entry: AuditEntry, transaction?: Transaction,
+): Promise<void> {
+  const run = async (t: Transaction) => {
+    const [head] = await sequelize.query<{ last_hash: string; now: Date }>(
+      'SELECT last_hash, UTC_TIMESTAMP(3) AS now FROM audit_chain_head WHERE id = 1 FOR UPDATE',
+      { type: QueryTypes.SELECT, transaction: t },
+    );
+    const content: ChainedContent = {
+      occurredAt: new Date(head.now).toISOString(),
+      actorId: actor.id,
+      actorName: actor.name,
+      action: entry.action,
+      entityType: entry.entityType,
+      entityId: entry.entityId == null ? null : String(entry.entityId),
+      payload: canonicalize(entry.payload ?? {}) ?? '{}',
+      diff: entry.diff ?? null,
+      ip: actor.ip ?? null,
+    };
+    const hash = chainHash(head.last_hash, content);
+    const row = await AuditEvent.create(
+      { ...content, occurredAt: new Date(content.occurredAt), prevHash: head.last_hash, hash },
+      { transaction: t },
+    );
+    await sequelize.query('UPDATE audit_chain_head SET last_id = ?, last_hash = ? WHERE id = 1', {
+      replacements: [row.id, hash], transaction: t,
+    });
+  };
+  if (transaction) return run(transaction);
+  return sequelize.transaction(run);
+}
+
+/** Walks the whole chain in id order and reports the first row whose hash or link does not match. */
+export async function verifyAuditChain(): Promise<{ ok: boolean; checked: number; brokenAt?: number }> {
+  let prev = GENESIS_HASH;
+  let checked = 0;
+  let lastId = 0;
+  for (;;) {
+    const rows = await AuditEvent.findAll({ where: { id: { [Op.gt]: lastId } }, order: [['id', 'ASC']], limit: 1000 });
+    if (rows.length === 0) return { ok: true, checked };
+    for (const r of rows) {
+      const content: ChainedContent = {
+        occurredAt: r.occurredAt.toISOString(), actorId: r.actorId, actorName: r.actorName, action: r.action,
+        entityType: r.entityType, entityId: r.entityId, payload: r.payload, diff: r.diff, ip: r.ip,
+      };
+      if (r.prevHash !== prev || chainHash(prev, content) !== r.hash) return { ok: false, checked, brokenAt: r.id };
+      prev = r.hash;
+      lastId = r.id;
+      checked++;
+    }
+  }
+}

@@ -1,0 +1,60 @@
+import { Router, type Request } from 'express';
+import type { AppPassport as Passport } from './passport';
+import type { Sequelize } from 'sequelize';
+import { defineRulesFor } from '../../shared/authz/app-ability';
+import { changePasswordSchema, loginSchema, type SessionUser } from '../../shared/schemas/auth.schema';
+import type { Config } from '../config';
+import { AppError } from '../errors/app-error';
+import { validate } from '../http/validate';
+import { requireSignIn } from '../authz/require-sign-in';
+import { actorOf, signedInActor } from '../authz/actor';
+import { AuthService } from './auth.service';
+import { csrfToken } from './csrf';
+import { loginRateLimit } from './login-rate-limit';
+
+function sessionBody(req: Request, user: SessionUser | null) {
+  return { user, rules: defineRulesFor(user), csrfToken: csrfToken(req, true) };
+}
+
+function authenticate(passport: Passport, req: Request): Promise<{ user: SessionUser | false; info?: { message?: string } }> {
+  return new Promise((resolve, reject) => {
+    passport.authenticate('local', (err: unknown, user: SessionUser | false, info?: { message?: string }) =>
+      err ? reject(err) : resolve({ user, info }))(req);
+  });
+}
+
+export function authRouter(sequelize: Sequelize, passport: Passport, config: Config): Router {
+  const router = Router();
+  const service = new AuthService(sequelize);
+
+  router.get('/session', (req, res) => {
+    res.json(sessionBody(req, req.user ?? null));
+  });
+
+  router.post('/auth/login', loginRateLimit(config), validate({ body: loginSchema }), async (req, res) => {
+    const { user, info } = await authenticate(passport, req);
+    if (!user) {
+      await service.recordFailedSignIn(req.body.username, req.ip, info?.message ?? 'unknown user');
+      throw new AppError('sign_in_failed', 401, 'Username or password is not correct');
+    }
+    // passport ≥ 0.6 regenerates the session on login, so a planted session id is useless.
+    await new Promise<void>((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
+    req.session.startedAt = Date.now();
+    await service.recordSignIn(signedInActor(req));
+    res.json(sessionBody(req, user));
+  });
+
+  router.post('/auth/logout', async (req, res) => {
+    if (req.user) await service.recordSignOut(actorOf(req));
+    await new Promise<void>((resolve, reject) => req.logout((err) => (err ? reject(err) : resolve())));
+    await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
+    res.status(204).end();
+  });
+
+  router.post('/auth/password', requireSignIn, validate({ body: changePasswordSchema }), async (req, res) => {
+    await service.changePassword(req.ability, signedInActor(req), req.body.currentPassword, req.body.newPassword);
+    res.status(204).end();
+  });
+
+  return router;
+}

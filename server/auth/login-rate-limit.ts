@@ -1,0 +1,26 @@
+import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
+import type { RequestHandler } from 'express';
+import type { Config } from '../config';
+
+/**
+ * Limits sign-in attempts per account and address, so guessing one account's password from
+ * one place is slow while other people behind the same address can still sign in.
+ */
+export function loginRateLimit(config: Config): RequestHandler {
+  return rateLimit({
+    windowMs: config.LOGIN_RATE_WINDOW_MINUTES * 60_000,
+    limit: config.LOGIN_RATE_LIMIT,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => {
+      const username = typeof req.body?.username === 'string' ? req.body.username.trim().toLowerCase() : '';
+      return `${ipKeyGenerator(req.ip ?? '')}|${username}`;
+    },
+    handler: (_req, res) => {
+      res.status(429).json({
+        code: 'rate_limited',
+        message: `Too many sign-in attempts; wait ${config.LOGIN_RATE_WINDOW_MINUTES} minutes and try again`,
+      });
+    },
+  });
+}

@@ -1,0 +1,42 @@
+import {
+  Model, DataTypes, type Sequelize, type InferAttributes, type InferCreationAttributes, type CreationOptional,
+} from 'sequelize';
+
+/**
+ * One row per event, append-only (database triggers refuse UPDATE and DELETE). Rows are chained:
+ * `hash` = SHA-256 over the previous row's hash and this row's canonical content.
+ */
+export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreationAttributes<AuditEvent>> {
+  declare id: CreationOptional<number>;
+  declare occurredAt: Date;
+  declare actorId: number | null;
+  declare actorName: string;
+  declare action: string;
+  declare entityType: string;
+  declare entityId: string | null;
+  declare payload: string;
+  declare diff: string | null;
+  declare ip: string | null;
+  declare prevHash: string;
+  declare hash: string;
+
+  static initModel(sequelize: Sequelize): void {
+    AuditEvent.init(
+      {
+        id: { type: DataTypes.BIGINT.UNSIGNED, autoIncrement: true, primaryKey: true },
+        occurredAt: { type: DataTypes.DATE(3), allowNull: false },
+        actorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        actorName: { type: DataTypes.STRING(120), allowNull: false },
+        action: { type: DataTypes.STRING(64), allowNull: false },
+        entityType: { type: DataTypes.STRING(32), allowNull: false },
+        entityId: { type: DataTypes.STRING(64), allowNull: true },
+        payload: { type: DataTypes.TEXT('long'), allowNull: false },
+        diff: { type: DataTypes.TEXT('long'), allowNull: true },
+        ip: { type: DataTypes.STRING(64), allowNull: true },
+        prevHash: { type: DataTypes.CHAR(64), allowNull: false },
+        hash: { type: DataTypes.CHAR(64), allowNull: false, unique: true },
+      },
+      { sequelize, tableName: 'audit_events', underscored: true, timestamps: false },
+    );
+  }
+}

@@ -1,0 +1,39 @@
+// Loads the demo data once: `tsx server/db/seed.ts`. A database that already has users is left alone.
+import { loadConfig } from '../config';
+import { createSequelize } from '.';
+import { Project, User, UserRole } from './models';
+import { hashPassword } from '../auth/password';
+import { appendAudit } from '../audit/audit.service';
+import { DEMO_PASSWORD, DEMO_PROJECTS, DEMO_USERS } from './demo-data';
+
+const SYSTEM = { id: null, name: 'demo data loader', ip: null };
+
+async function main(): Promise<void> {
+  const sequelize = createSequelize(loadConfig());
+  try {
+    if ((await User.count()) > 0) {
+      console.log('demo data already present; nothing loaded');
+      return;
+    }
+    const passwordHash = await hashPassword(DEMO_PASSWORD);
+    await sequelize.transaction(async (transaction) => {
+      for (const u of DEMO_USERS) {
+        const user = await User.create({ username: u.username, displayName: u.displayName, email: u.email, passwordHash }, { transaction });
+        await UserRole.bulkCreate(u.roles.map((role) => ({ userId: user.id, role })), { transaction });
+        await appendAudit(sequelize, SYSTEM, { action: 'user.created', entityType: 'User', entityId: user.id, payload: { ...u } }, transaction);
+      }
+      for (const p of DEMO_PROJECTS) {
+        const project = await Project.create({ ...p, createdBy: null }, { transaction });
+        await appendAudit(sequelize, SYSTEM, { action: 'project.created', entityType: 'Project', entityId: project.id, payload: p }, transaction);
+      }
+    });
+    console.log(`demo data loaded: ${DEMO_USERS.length} users, ${DEMO_PROJECTS.length} projects`);
+  } finally {
+    await sequelize.close();
+  }
+}
+
+main().catch((err) => {
+  console.error(`loading demo data failed: ${err instanceof Error ? err.message : String(err)}`);
+  process.exit(1);
+});

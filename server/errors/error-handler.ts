@@ -1,0 +1,48 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { ForbiddenError } from '@casl/ability';
+import { UniqueConstraintError, ValidationError, OptimisticLockError } from 'sequelize';
+import { AppError } from './app-error';
+import { logger } from '../logger';
+
+/** JSON 404 for unknown API routes, so clients never receive the app's HTML for a typo. */
+export const apiNotFound: RequestHandler = (req, res) => {
+  res.status(404).json({ code: 'not_found', message: `No API route ${req.method} ${req.originalUrl}` });
+};
+
+function toAppError(err: unknown): AppError | undefined {
+  if (err instanceof AppError) return err;
+  if (err instanceof ForbiddenError) {
+    return new AppError('forbidden', 403, err.message || 'You are not allowed to do this');
+  }
+  if (err instanceof UniqueConstraintError) {
+    const fields = Object.keys(err.fields ?? {});
+    const fieldErrors = Object.fromEntries(fields.map((f) => [f, ['is already taken']]));
+    return new AppError('conflict', 409, `${fields.join(', ') || 'value'} is already taken`, { fieldErrors });
+  }
+  if (err instanceof OptimisticLockError) {
+    return AppError.conflict('Someone else changed this record; reload to see their version');
+  }
+  if (err instanceof ValidationError) {
+    const fieldErrors: Record<string, string[]> = {};
+    for (const item of err.errors) (fieldErrors[item.path ?? 'record'] ??= []).push(item.message);
+    return AppError.validation(fieldErrors);
+  }
+  // body-parser marks malformed JSON and oversized bodies with a status and `expose`.
+  const e = err as { status?: number; expose?: boolean; type?: string; code?: string; message?: string };
+  if (e && typeof e.status === 'number' && e.status < 500 && e.expose) {
+    const message = e.type === 'entity.parse.failed' ? 'Request body is not valid JSON' : (e.message ?? 'Bad request');
+    return new AppError(e.code ?? e.type ?? 'bad_request', e.status, message);
+  }
+  return undefined;
+}
+
+export const errorHandler: ErrorRequestHandler = (err, req, res, next) => {
+  if (res.headersSent) return next(err);
+  const known = toAppError(err);
+  if (known) {
+    res.status(known.status).json({ code: known.code, message: known.message, ...known.details });
+    return;
+  }
+  logger.error({ err, method: req.method, url: req.originalUrl }, 'unhandled error');
+  res.status(500).json({ code: 'internal', message: 'Something went wrong on the server; it has been logged.' });
+};

@@ -1,0 +1,37 @@
+import type { RequestHandler } from 'express';
+import type { z } from 'zod';
+import { AppError, type FieldErrors } from '../errors/app-error';
+
+type Part = 'body' | 'params' | 'query';
+type Schemas = Partial<Record<Part, z.ZodType>>;
+
+export function zodFieldErrors(error: z.ZodError, prefix = ''): FieldErrors {
+  const out: FieldErrors = {};
+  for (const issue of error.issues) {
+    const path = issue.path.reduce<string>(
+      (acc, key) => (typeof key === 'number' ? `${acc}[${key}]` : acc ? `${acc}.${String(key)}` : String(key)),
+      prefix,
+    );
+    (out[path] ??= []).push(issue.message);
+  }
+  return out;
+}
+
+/**
+ * Validates request parts against the shared zod schemas and replaces them with the parsed
+ * values (Express 5 makes `req.query` a getter, so the parsed query goes to `res.locals.query`).
+ */
+export function validate(schemas: Schemas): RequestHandler {
+  return (req, res, next) => {
+    const errors: FieldErrors = {};
+    for (const part of Object.keys(schemas) as Part[]) {
+      const result = schemas[part]!.safeParse(req[part] ?? {});
+      if (!result.success) Object.assign(errors, zodFieldErrors(result.error, part === 'body' ? '' : part));
+      else if (part === 'query') res.locals.query = result.data;
+      else if (part === 'params') Object.assign(req.params, result.data);
+      else req.body = result.data;
+    }
+    if (Object.keys(errors).length > 0) return next(AppError.validation(errors));
+    next();
+  };
+}

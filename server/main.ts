@@ -1,0 +1,36 @@
+import type { Server } from 'node:http';
+import { loadConfig } from './config';
+import { createSequelize } from './db';
+import { createApp } from './app';
+import { logger } from './logger';
+
+async function main(): Promise<void> {
+  const config = loadConfig();
+  const sequelize = createSequelize(config);
+  try {
+    await sequelize.authenticate();
+  } catch (err) {
+    logger.fatal({ err }, `cannot reach MariaDB at ${config.DB_HOST}:${config.DB_PORT}`);
+    process.exit(1);
+  }
+  const app = createApp({ sequelize, config });
+  const server: Server = app.listen(config.PORT, config.HOST, () => {
+    const address = server.address();
+    const port = typeof address === 'object' && address ? address.port : config.PORT;
+    logger.info({ port }, 'Torquetrail is listening');
+    if (process.send) process.send({ ready: true, port });
+  });
+
+  const shutdown = (signal: string) => {
+    logger.info({ signal }, 'shutting down');
+    server.close(() => void sequelize.close().finally(() => process.exit(0)));
+    setTimeout(() => process.exit(0), 5000).unref();
+  };
+  process.on('SIGTERM', () => shutdown('SIGTERM'));
+  process.on('SIGINT', () => shutdown('SIGINT'));
+  process.on('unhandledRejection', (err) => {
+    logger.error({ err }, 'unhandled rejection');
+  });
+}
+
+void main();

@@ -1,0 +1,65 @@
+import { ForbiddenError, subject } from '@casl/ability';
+import { Op, type Sequelize } from 'sequelize';
+import type { AppAbility } from '../../shared/authz/app-ability';
+import type { Page, PageQuery } from '../../shared/schemas/common.schema';
+import type { CreateProjectRequest, ProjectDto, UpdateProjectRequest } from '../../shared/schemas/project.schema';
+import { Project } from '../db/models';
+import { AppError } from '../errors/app-error';
+import { accessibleWhere } from '../authz/accessible-where';
+import { appendAudit, type Actor } from '../audit/audit.service';
+
+export function toProjectDto(p: Project): ProjectDto {
+  return {
+    id: p.id, code: p.code, name: p.name, client: p.client, description: p.description,
+    revisionScheme: p.revisionScheme, status: p.status, createdAt: p.createdAt.toISOString(), version: p.version,
+  };
+}
+
+/** Projects group calcs; admins create and archive them, everyone signed in reads the active ones. */
+export class ProjectsService {
+  constructor(private readonly sequelize: Sequelize) {}
+
+  async list(ability: AppAbility, query: PageQuery): Promise<Page<ProjectDto>> {
+    const where = accessibleWhere(ability, 'read', 'Project');
+    const search = query.q ? { [Op.or]: [{ code: { [Op.like]: `%${query.q}%` } }, { name: { [Op.like]: `%${query.q}%` } }] } : {};
+    const { rows, count } = await Project.findAndCountAll({
+      where: { [Op.and]: [where, search] }, order: [['code', 'ASC']], offset: query.page * query.size, limit: query.size,
+    });
+    return { items: rows.map(toProjectDto), total: count, page: query.page, size: query.size };
+  }
+
+  async get(ability: AppAbility, id: number): Promise<ProjectDto> {
+    const project = await Project.findByPk(id);
+    if (!project) throw AppError.notFound(`Project ${id}`);
+    ForbiddenError.from(ability).throwUnlessCan('read', subject('Project', toProjectDto(project)));
+    return toProjectDto(project);
+  }
+
+  async create(ability: AppAbility, actor: Actor, dto: CreateProjectRequest): Promise<ProjectDto> {
+    ForbiddenError.from(ability).throwUnlessCan('create', 'Project');
+    if (await Project.findOne({ where: { code: dto.code } })) {
+      throw new AppError('conflict', 409, `Project code ${dto.code} is already in use`, { fieldErrors: { code: ['is already in use'] } });
+    }
+    return this.sequelize.transaction(async (transaction) => {
+      const project = await Project.create({ ...dto, createdBy: actor.id }, { transaction });
+      await appendAudit(this.sequelize, actor, { action: 'project.created', entityType: 'Project', entityId: project.id, payload: dto }, transaction);
+      return toProjectDto(project);
+    });
+  }
+
+  async update(ability: AppAbility, actor: Actor, id: number, dto: UpdateProjectRequest): Promise<ProjectDto> {
+    return this.sequelize.transaction(async (transaction) => {
+      const project = await Project.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+      if (!project) throw AppError.notFound(`Project ${id}`);
+      ForbiddenError.from(ability).throwUnlessCan('update', subject('Project', toProjectDto(project)));
+      if (project.version !== dto.version) throw AppError.conflict(`Project ${project.code} was changed by someone else; reload and try again`);
+      const { version: _v, ...changes } = dto;
+      const before = toProjectDto(project);
+      project.set(changes);
+      await project.save({ transaction });
+      const after = toProjectDto(project);
+      await appendAudit(this.sequelize, actor, { action: 'project.updated', entityType: 'Project', entityId: id, payload: { before, after } }, transaction);
+      return after;
+    });
+  }
+}

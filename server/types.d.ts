@@ -1,0 +1,22 @@
+import type { AppAbility } from '../shared/authz/app-ability';
+import type { SessionUser } from '../shared/schemas/auth.schema';
+
+declare global {
+  namespace Express {
+    // The signed-in person as passport restores them from the session.
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type
+    interface User extends SessionUser {}
+    interface Request {
+      ability: AppAbility;
+    }
+  }
+}
+
+declare module 'express-session' {
+  interface SessionData {
+    startedAt: number;
+    csrfToken: string;
+  }
+}
+
+export {};

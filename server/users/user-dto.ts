@@ -1,0 +1,17 @@
+import type { User } from '../db/models';
+import type { SessionUser } from '../../shared/schemas/auth.schema';
+import type { UserDto } from '../../shared/schemas/user.schema';
+
+export function toSessionUser(user: User): SessionUser {
+  return { id: user.id, username: user.username, displayName: user.displayName, email: user.email, roles: user.roles };
+}
+
+export function toUserDto(user: User): UserDto {
+  return {
+    ...toSessionUser(user),
+    active: user.active,
+    lastSignInAt: user.lastSignInAt ? user.lastSignInAt.toISOString() : null,
+    createdAt: user.createdAt.toISOString(),
+    version: user.version,
+  };
+}

@@ -1,0 +1,98 @@
+import { AbilityBuilder, PureAbility, fieldPatternMatcher, type RawRuleOf, type ForcedSubject } from '@casl/ability';
+import {
+  createFactory, $eq, $ne, $in, $nin, $lt, $lte, $gt, $gte,
+  eq, ne, within, nin, lt, lte, gt, gte,
+} from '@ucast/mongo2js';
+import type { Role } from './roles';
+
+export const ACTIONS = [
+  'read', 'create', 'update', 'deactivate', 'assignRoles', 'changePassword',
+  'submit', 'check', 'return', 'approve', 'sign', 'audit', 'publish', 'impact',
+] as const;
+export const SUBJECTS = [
+  'User', 'Project', 'Calc', 'Revision', 'RuleSet', 'AuditEvent', 'SentMail', 'all',
+] as const;
+export type Action = (typeof ACTIONS)[number];
+export type SubjectName = (typeof SUBJECTS)[number];
+type Subjects = SubjectName | ForcedSubject<Exclude<SubjectName, 'all'>>;
+
+/**
+ * Conditions are limited to operators that translate one-to-one into SQL, so every rule
+ * the client sees can also filter a database query on the server (see accessible-where.ts).
+ */
+export const RESTRICTED_OPERATORS = ['$eq', '$ne', '$in', '$nin', '$lt', '$lte', '$gt', '$gte'] as const;
+type Op = (typeof RESTRICTED_OPERATORS)[number];
+type Scalar = string | number | boolean | null;
+export type RestrictedConditions = Record<string, Scalar | Partial<Record<Op, Scalar | Scalar[]>>>;
+
+const conditionsMatcher = createFactory(
+  { $eq, $ne, $in, $nin, $lt, $lte, $gt, $gte },
+  { eq, ne, in: within, nin, lt, lte, gt, gte },
+) as unknown as (conditions: RestrictedConditions) => (object: object) => boolean;
+
+export type AppAbility = PureAbility<[Action, Subjects], RestrictedConditions>;
+export type AppRawRule = RawRuleOf<AppAbility>;
+
+/** What the rules need to know about the signed-in person. */
+export interface AbilityUser {
+  id: number;
+  roles: readonly Role[];
+}
+
+type Builder = AbilityBuilder<AppAbility>;
+
+const RULES_BY_ROLE: Record<Role, (user: AbilityUser, b: Builder) => void> = {
+  author(user, { can }) {
+    can('read', ['Project', 'Calc', 'Revision', 'RuleSet']);
+    can('create', 'Calc');
+    can(['update', 'submit'], 'Revision', { authorId: user.id, status: { $in: ['draft', 'returned'] } });
+    can('sign', 'Revision', { authorId: user.id, status: { $in: ['draft', 'returned'] } });
+  },
+  checker(user, { can }) {
+    can('read', ['Project', 'Calc', 'Revision', 'RuleSet']);
+    // Independence: never your own work. Editors of earlier revisions are excluded by the workflow service.
+    can(['check', 'return', 'sign'], 'Revision', { status: 'in_check', authorId: { $ne: user.id } });
+  },
+  approver(user, { can }) {
+    can('read', ['Project', 'Calc', 'Revision', 'RuleSet']);
+    can(['approve', 'return', 'sign'], 'Revision', {
+      status: 'checked', authorId: { $ne: user.id }, checkerId: { $ne: user.id },
+    });
+  },
+  compliance(_user, { can }) {
+    can('read', ['Project', 'Calc', 'Revision', 'RuleSet', 'AuditEvent']);
+    can(['create', 'update'], 'RuleSet', { status: 'draft' });
+    can(['publish', 'impact'], 'RuleSet');
+    can('audit', 'all');
+  },
+  admin(_user, { can }) {
+    // Admins manage people and projects; field lists keep passwords out of their reach.
+    can('read', ['User', 'Project', 'AuditEvent', 'SentMail']);
+    can('create', ['User', 'Project']);
+    can('update', 'User', ['displayName', 'email', 'roles', 'active']);
+    can(['deactivate', 'assignRoles'], 'User');
+    can('update', 'Project');
+  },
+};
+
+/** The one place permissions are defined; the server enforces them and the client mirrors them. */
+export function defineRulesFor(user: AbilityUser | null | undefined): AppRawRule[] {
+  const builder = new AbilityBuilder<AppAbility>(PureAbility);
+  if (!user) return builder.rules;
+  builder.can('read', 'User', { id: user.id });
+  builder.can('changePassword', 'User', { id: user.id });
+  builder.can('read', 'Project', { status: 'active' });
+  for (const role of user.roles) {
+    const define = RULES_BY_ROLE[role];
+    if (!define) throw new Error(`Unknown role "${String(role)}"`);
+    define(user, builder);
+  }
+  return builder.rules;
+}
+
+export function createAppAbility(rules: AppRawRule[] = []): AppAbility {
+  return new PureAbility<[Action, Subjects], RestrictedConditions>(rules, {
+    conditionsMatcher: conditionsMatcher as never,
+    fieldMatcher: fieldPatternMatcher,
+  });
+}

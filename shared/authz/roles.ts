@@ -1,0 +1,19 @@
+/** The roles of a design office. A person may hold several; separation of duties applies per calc. */
+export const ROLES = ['author', 'checker', 'approver', 'compliance', 'admin'] as const;
+export type Role = (typeof ROLES)[number];
+
+export const ROLE_LABELS: Record<Role, string> = {
+  author: 'Author',
+  checker: 'Checker',
+  approver: 'Approver',
+  compliance: 'Compliance',
+  admin: 'Administrator',
+};
+
+export const ROLE_DUTIES: Record<Role, string> = {
+  author: 'Builds shaft calcs, runs the checks, answers findings, submits for check',
+  checker: 'Reviews calcs independently, raises findings, returns or signs as checked',
+  approver: 'Reviews checked calcs and signs them as approved for release',
+  compliance: 'Owns the design standards and their versions; audits the record',
+  admin: 'Manages user accounts, roles and projects',
+};

@@ -21,7 +21,7 @@ module.exports = {
     {
       displayName: 'client',
       preset: 'jest-preset-angular',
-      testEnvironment: 'jsdom',
+      testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
       setupFilesAfterEnv: ['<rootDir>/test/support/client-setup.ts'],
       testMatch: ['<rootDir>/src/**/*.spec.ts'],
       transform: {

@@ -1,0 +1,48 @@
+import request from 'supertest';
+import type { Express } from 'express';
+import type { Sequelize } from 'sequelize';
+import { randomUUID } from 'node:crypto';
+import { loadConfig, type Config } from '../../server/config';
+import { createSequelize } from '../../server/db';
+import { createApp } from '../../server/app';
+import { User, UserRole } from '../../server/db/models';
+import { hashPassword } from '../../server/auth/password';
+import type { Role } from '../../shared/authz/roles';
+
+export const TEST_PASSWORD = 'correct horse battery staple';
+let cachedHash: Promise<string> | undefined;
+
+/** A real app on the real test database; one per test file. */
+export function startTestApp(overrides: Partial<Config> = {}): { app: Express; sequelize: Sequelize; config: Config } {
+  const config = Object.freeze({ ...loadConfig(), ...overrides });
+  const sequelize = createSequelize(config);
+  return { app: createApp({ sequelize, config }), sequelize, config };
+}
+
+/** Inserts a user with the given roles; usernames are unique per call so tests never collide. */
+export async function createTestUser(roles: Role[], prefix = roles.join('-') || 'nobody') {
+  cachedHash ??= hashPassword(TEST_PASSWORD);
+  const username = `${prefix}-${randomUUID().slice(0, 8)}`.toLowerCase();
+  const user = await User.create({ username, displayName: `Test ${prefix}`, email: `${username}@example.test`, passwordHash: await cachedHash });
+  await UserRole.bulkCreate(roles.map((role) => ({ userId: user.id, role })));
+  return { id: user.id, username };
+}
+
+/** A supertest agent that keeps cookies and sends the CSRF token on writes, like the browser client. */
+export async function signedInAgent(app: Express, username: string, password = TEST_PASSWORD) {
+  const agent = request.agent(app);
+  let token = (await agent.get('/api/session')).body.csrfToken as string;
+  const login = await agent.post('/api/auth/login').set('x-csrf-token', token).send({ username, password });
+  if (login.status !== 200) throw new Error(`sign-in of ${username} failed: ${login.status} ${JSON.stringify(login.body)}`);
+  token = login.body.csrfToken;
+  return {
+    agent,
+    login,
+    get csrf() { return token; },
+    get: (url: string) => agent.get(url),
+    post: (url: string, body?: object) => agent.post(url).set('x-csrf-token', token).send(body),
+    patch: (url: string, body?: object) => agent.patch(url).set('x-csrf-token', token).send(body),
+    put: (url: string, body?: object) => agent.put(url).set('x-csrf-token', token).send(body),
+    delete: (url: string) => agent.delete(url).set('x-csrf-token', token),
+  };
+}

@@ -1,0 +1,43 @@
+import { governingIndex } from './check-features';
+import type { Model, Seg } from './model';
+import type { FeatureInput } from './schema';
+import { sectionProps } from './section';
+import { locate } from './shaft-geometry';
+import { KEYSEAT_R_OVER_D } from './table-7-1';
+
+/** Dimensions that set a feature's factors and nominal stresses (internal mm). */
+export interface FeatureGeometry {
+  seg: Seg;
+  /** Larger diameter at a shoulder, null elsewhere. */
+  D: number | null;
+  /** Diameter of the section that carries the nominal stress. */
+  d: number;
+  di: number;
+  /** Notch radius for the notch sensitivity. */
+  r: number;
+  Z: number;
+  Zp: number;
+}
+
+/**
+ * Nominal sections follow the basis of each published factor: the smaller diameter at a shoulder,
+ * the root (net) diameter at a ring groove, the full (gross) section at keyseats and cross holes.
+ */
+export function featureGeometry(model: Model, ft: FeatureInput): FeatureGeometry {
+  const len = model.k.length;
+  const loc = locate(ft.at * len, model.bounds);
+  const seg = model.segs[governingIndex(loc, model.segs)];
+  const base = { seg, D: null, d: seg.od, di: seg.id, Z: seg.Z, Zp: seg.Zp };
+  switch (ft.type) {
+    case 'shoulder-fillet':
+      return { ...base, D: Math.max(model.segs[loc.left].od, model.segs[loc.right].od), r: ft.r * len };
+    case 'keyseat':
+      return { ...base, r: ft.r === undefined ? KEYSEAT_R_OVER_D * seg.od : ft.r * len };
+    case 'ring-groove': {
+      const root = seg.od - 2 * ft.depth * len;
+      return { ...base, d: root, r: ft.r * len, ...sectionProps(root, seg.id) };
+    }
+    case 'cross-hole':
+      return { ...base, r: (ft.diameter * len) / 2 };
+  }
+}

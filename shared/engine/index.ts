@@ -1,0 +1,21 @@
+/*
+ * Torquetrail calculation engine: plain TypeScript with no framework or Node imports, so the
+ * server, the browser and the command line run the same code.
+ */
+export { ENGINE_VERSION, CAUTION } from './version';
+export {
+  calcInputSchema, type CalcInput, type MaterialInput, type SegmentInput, type TorqueInput,
+  type FeatureInput, type BendingInput, type FatigueInput,
+} from './schema';
+export { validateCalcInput, CalcInputError, type ValidationResult } from './validate';
+export type { CalcIssue } from './issue-messages';
+export { evaluateShaft, evaluateValidInput } from './evaluate';
+export { twistBetween } from './twist';
+export { torqueFromPower } from './power';
+export { toSI, fromSI, toBase, fromBase, UNIT_LABELS, type UnitSystem, type Quantity } from './units';
+export type {
+  CalcResult, SegmentResult, FeatureResult, TorquePiece, ResolvedTorque, Endurance, Extreme,
+  FieldInfo, StressSet, KeyCheck, FeatureMethods, StaticStress,
+} from './result';
+export type { SafetyByCriterion } from './fatigue-criteria';
+export { formatNumber } from './number-format';

@@ -1,0 +1,21 @@
+import { ENDURANCE_METHOD } from './endurance';
+import { NEUBER_METHOD } from './notch-sensitivity';
+import { POWER_METHOD } from './power';
+import { J_FORMULA } from './section';
+import { TRESCA_FORMULA, VON_MISES_FORMULA } from './combined';
+
+/** The methods behind the whole result, for the report's method list (per-feature factors name their own). */
+export const METHODS: Readonly<Record<string, string>> = Object.freeze({
+  section: `${J_FORMULA}; τ(ρ) = T·ρ/J; γ = τ/G`,
+  twist: 'φ = Σ Tᵢ·Lᵢ/(Gᵢ·Jᵢ) over the pieces of the torque diagram',
+  torqueDiagram: 'internal torque = Σ external torques left of the section; a torque at a station acts to its right',
+  bending: 'moments linear between the entered stations, held constant beyond the first and last entry',
+  power: POWER_METHOD,
+  notchSensitivity: NEUBER_METHOD,
+  endurance: ENDURANCE_METHOD,
+  staticVonMises: VON_MISES_FORMULA,
+  staticTresca: TRESCA_FORMULA,
+  fatigue: 'DE-Goodman, DE-ASME-elliptic, DE-Gerber, DE-Soderberg on von Mises σ′a, σ′m (Shigley 9th §7-4); kc = 1 as stresses are combined',
+  segmentStresses: 'plain section, no stress concentration; worst of the piece ends and bending stations',
+  featureStresses: 'Kf, Kfs on nominal stresses at the station; the larger torque side where it jumps',
+});

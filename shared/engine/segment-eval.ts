@@ -1,0 +1,67 @@
+import { momentAt } from './bending-diagram';
+import { enduranceOut } from './endurance';
+import { fatigueSafety } from './fatigue-criteria';
+import type { Model, Seg } from './model';
+import type { Endurance, SegmentResult } from './result';
+import type { Piece } from './torque-diagram';
+import { FatigueTracker, StaticTracker } from './trackers';
+
+const DEG = 180 / Math.PI;
+
+/*
+ * Stresses on the plain section of a segment (no stress concentration: features carry that).
+ * Torque is constant on a piece and the moment linear between entries, and every criterion is a
+ * convex function of them, so the worst point is at a piece end or a bending station: only those
+ * are scanned.
+ */
+function scanSegment(model: Model, seg: Seg, pieces: readonly Piece[], se: Endurance | null) {
+  const stat = new StaticTracker();
+  const fat = se ? new FatigueTracker() : null;
+  const consider = (x: number, p: Piece): void => {
+    const { Ma, Mm } = momentAt(model.moments, x);
+    const sa = Ma / seg.Z;
+    const sm = Mm / seg.Z;
+    const ta = p.Ta / seg.Zp;
+    const tm = Math.abs(p.T) / seg.Zp;
+    stat.consider(x, sa + sm, ta + tm, Ma, Mm);
+    if (fat && se) fat.consider(x, fatigueSafety(Math.sqrt(sa * sa + 3 * ta * ta), Math.sqrt(sm * sm + 3 * tm * tm), se.Se, seg.mat.Su, seg.mat.Sy));
+  };
+  for (const p of pieces) {
+    if (p.segment !== seg.index) continue;
+    consider(p.start, p);
+    for (const m of model.moments) if (m.at > p.start && m.at < p.end) consider(m.at, p);
+    consider(p.end, p);
+  }
+  return { stat, fat };
+}
+
+/** Results of one segment in the calc's units; `se` is its endurance limit in MPa, or null. */
+export function evaluateSegment(model: Model, seg: Seg, pieces: readonly Piece[], se: Endurance | null,
+  hasKeyseat: boolean): SegmentResult {
+  const k = model.k;
+  let T = 0;
+  let twist = 0;
+  for (const p of pieces) {
+    if (p.segment !== seg.index) continue;
+    twist += p.rate * (p.end - p.start);
+    if (Math.abs(p.T) > Math.abs(T)) T = p.T;
+  }
+  const tauMax = (Math.abs(T) * seg.od) / 2 / seg.J;
+  const { stat, fat } = scanSegment(model, seg, pieces, se);
+  const label = model.input.segments[seg.index].label;
+  return {
+    index: seg.index, ...(label ? { label } : {}), start: seg.start / k.length, end: seg.end / k.length,
+    length: seg.length / k.length, od: seg.od / k.length, id: seg.id / k.length, isHollow: seg.id > 0,
+    material: seg.mat.name, G: seg.mat.G / k.modulus, Sy: seg.mat.Sy / k.stress, Su: seg.mat.Su / k.stress,
+    J: seg.J / k.J, Zp: seg.Zp / k.Zp, T: T / k.torque, tauMax: tauMax / k.stress,
+    tauInner: (Math.abs(T) * seg.id) / 2 / seg.J / k.stress, gamma: tauMax / seg.mat.G,
+    twist: twist * DEG, twistPerLength: Math.abs(T) / (seg.mat.G * seg.J) / k.twistPerLength, hasKeyseat,
+    governingAt: stat.at / k.length, Ma: stat.Ma / k.torque, Mm: stat.Mm / k.torque,
+    sigmaVonMises: stat.sigmaVonMises / k.stress, tauTresca: stat.tauTresca / k.stress,
+    yieldSafety: stat.yieldSafety(seg.mat.Sy), yieldSafetyTresca: stat.yieldSafetyTresca(seg.mat.Sy),
+    endurance: se ? enduranceOut(se, k.stress) : null,
+    fatigueSafety: fat ? { ...fat.safety } : null,
+    fatigueAt: fat ? { goodman: fat.at.goodman / k.length, asmeElliptic: fat.at.asmeElliptic / k.length,
+      gerber: fat.at.gerber / k.length, soderberg: fat.at.soderberg / k.length } : null,
+  };
+}

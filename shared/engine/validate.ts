@@ -1,0 +1,39 @@
+import { checkFeatures } from './check-features';
+import { checkGeometry } from './check-geometry';
+import { checkLoads } from './check-loads';
+import { toCalcIssues, type CalcIssue } from './issue-messages';
+import { calcInputSchema, type CalcInput } from './schema';
+import type { UnitSystem } from './units';
+
+export type ValidationResult = { ok: true; value: CalcInput } | { ok: false; issues: CalcIssue[] };
+
+/** Thrown by evaluateShaft on invalid input; `issues` name each field path and the reason. */
+export class CalcInputError extends Error {
+  readonly issues: CalcIssue[];
+
+  constructor(issues: CalcIssue[]) {
+    super(`invalid calc input: ${issues.map((i) => `${i.path}: ${i.message}`).join('; ')}`);
+    this.name = 'CalcInputError';
+    this.issues = issues;
+  }
+}
+
+function systemOf(input: unknown): UnitSystem | null {
+  const units = input && typeof input === 'object' ? (input as { units?: unknown }).units : undefined;
+  return units === 'SI' || units === 'US' ? units : null;
+}
+
+/**
+ * Checks a calc input against the v1 schema, then the rules between fields (inner below outer
+ * diameter, stations on the shaft, balanced torques, fillet within its step, sources for entered
+ * factors). Never throws; every issue names its field path, the value with its unit and the reason.
+ */
+export function validateCalcInput(input: unknown): ValidationResult {
+  if (input === null || typeof input !== 'object' || Array.isArray(input)) {
+    return { ok: false, issues: [{ path: '(input)', message: 'a calc input must be a JSON object' }] };
+  }
+  const parsed = calcInputSchema.safeParse(input, { reportInput: true });
+  if (!parsed.success) return { ok: false, issues: toCalcIssues(parsed.error.issues, systemOf(input)) };
+  const issues = [...checkGeometry(parsed.data), ...checkLoads(parsed.data), ...checkFeatures(parsed.data)];
+  return issues.length ? { ok: false, issues } : { ok: true, value: parsed.data };
+}

@@ -19,3 +19,5 @@ export type {
 } from './result';
 export type { SafetyByCriterion } from './fatigue-criteria';
 export { formatNumber } from './number-format';
+export { formatResultTable } from './result-table';
+export { calcInputJsonSchemaText } from './json-schema';

@@ -31,7 +31,7 @@ export function authRouter(sequelize: Sequelize, passport: Passport, config: Con
     res.json(sessionBody(req, req.user ?? null));
   });
 
-  router.post('/auth/login', loginRateLimit(config), validate({ body: loginSchema }), async (req, res) => {
+  router.post('/auth/login', loginRateLimit(sequelize, config), validate({ body: loginSchema }), async (req, res) => {
     const { user, info } = await authenticate(passport, req);
     if (!user) {
       await service.recordFailedSignIn(req.body.username, req.ip, info?.message ?? 'unknown user');

@@ -1,13 +1,17 @@
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
 import type { RequestHandler } from 'express';
+import type { Sequelize } from 'sequelize';
 import type { Config } from '../config';
+import { MariaDbRateLimitStore } from './rate-limit-store';
 
 /**
  * Limits sign-in attempts per account and address, so guessing one account's password from
- * one place is slow while other people behind the same address can still sign in.
+ * one place is slow while other people behind the same address can still sign in. The count
+ * lives in MariaDB, so several app instances enforce one limit together.
  */
-export function loginRateLimit(config: Config): RequestHandler {
+export function loginRateLimit(sequelize: Sequelize, config: Config): RequestHandler {
   return rateLimit({
+    store: new MariaDbRateLimitStore(sequelize, { prefix: 'login:' }),
     windowMs: config.LOGIN_RATE_WINDOW_MINUTES * 60_000,
     limit: config.LOGIN_RATE_LIMIT,
     standardHeaders: 'draft-8',

@@ -1,0 +1,92 @@
+import { createHash } from 'node:crypto';
+import { QueryTypes, type Sequelize } from 'sequelize';
+import type { ClientRateLimitInfo, Options, Store } from 'express-rate-limit';
+
+const MAX_KEY_LENGTH = 191;
+const SWEEP_EVERY = 100;
+
+// The upsert restarts an expired window in place; `hits` is assigned before `reset_at`, so both
+// IF()s still see the old `reset_at` (MariaDB evaluates the assignments left to right).
+const UPSERT = `INSERT INTO rate_limit_hits (rate_key, hits, reset_at)
+  VALUES (:key, 1, UTC_TIMESTAMP(3) + INTERVAL :windowUs MICROSECOND)
+  ON DUPLICATE KEY UPDATE
+    hits = IF(reset_at <= UTC_TIMESTAMP(3), 1, hits + 1),
+    reset_at = IF(reset_at <= UTC_TIMESTAMP(3), VALUES(reset_at), reset_at)`;
+const SELECT = 'SELECT hits, reset_at FROM rate_limit_hits WHERE rate_key = :key';
+const SELECT_LIVE = `${SELECT} AND reset_at > UTC_TIMESTAMP(3)`;
+const DECREMENT = `UPDATE rate_limit_hits SET hits = IF(hits > 0, hits - 1, 0)
+  WHERE rate_key = :key AND reset_at > UTC_TIMESTAMP(3)`;
+
+interface Row {
+  hits: number;
+  reset_at: Date | string;
+}
+
+/**
+ * An express-rate-limit store on MariaDB, so the count holds across app instances and restarts
+ * (the built-in memory store counts per process). Windows are measured on the database clock,
+ * so instances with drifting clocks still agree on when a window ends.
+ */
+export class MariaDbRateLimitStore implements Store {
+  readonly localKeys = false;
+  readonly prefix: string;
+  #windowMs = 60_000;
+  #sinceSweep = 0;
+
+  constructor(private readonly sequelize: Sequelize, options: { prefix?: string } = {}) {
+    this.prefix = options.prefix ?? 'rl:';
+  }
+
+  init(options: Options): void {
+    this.#windowMs = options.windowMs;
+  }
+
+  async get(key: string): Promise<ClientRateLimitInfo | undefined> {
+    const [row] = await this.sequelize.query<Row>(SELECT_LIVE, { type: QueryTypes.SELECT, replacements: { key: this.#key(key) } });
+    return row ? toInfo(row) : undefined;
+  }
+
+  /** Counts one hit; the row lock taken by the upsert makes the read that follows our own. */
+  async increment(key: string): Promise<ClientRateLimitInfo> {
+    await this.#sweepSometimes();
+    const replacements = { key: this.#key(key), windowUs: Math.round(this.#windowMs * 1000) };
+    return this.sequelize.transaction(async (transaction) => {
+      await this.sequelize.query(UPSERT, { replacements, transaction });
+      const [row] = await this.sequelize.query<Row>(SELECT, { type: QueryTypes.SELECT, replacements, transaction });
+      return toInfo(row);
+    });
+  }
+
+  async decrement(key: string): Promise<void> {
+    await this.sequelize.query(DECREMENT, { replacements: { key: this.#key(key) } });
+  }
+
+  async resetKey(key: string): Promise<void> {
+    await this.sequelize.query('DELETE FROM rate_limit_hits WHERE rate_key = :key', { replacements: { key: this.#key(key) } });
+  }
+
+  async resetAll(): Promise<void> {
+    await this.sequelize.query('DELETE FROM rate_limit_hits WHERE rate_key LIKE :pattern', {
+      replacements: { pattern: `${this.prefix.replace(/[\\%_]/g, '\\$&')}%` },
+    });
+  }
+
+  // Keys arrive before the body is validated, so an attacker controls their length: hash long ones.
+  #key(key: string): string {
+    const full = `${this.prefix}${key}`;
+    if (full.length <= MAX_KEY_LENGTH) return full;
+    return `${this.prefix}sha256:${createHash('sha256').update(key).digest('hex')}`;
+  }
+
+  // Expired rows are harmless (the upsert restarts them) but would pile up; clear them now and then.
+  async #sweepSometimes(): Promise<void> {
+    if (++this.#sinceSweep < SWEEP_EVERY) return;
+    this.#sinceSweep = 0;
+    await this.sequelize.query('DELETE FROM rate_limit_hits WHERE reset_at < UTC_TIMESTAMP(3) LIMIT 1000');
+  }
+}
+
+function toInfo(row: Row): ClientRateLimitInfo {
+  const resetTime = row.reset_at instanceof Date ? row.reset_at : new Date(`${row.reset_at.replace(' ', 'T')}Z`);
+  return { totalHits: Number(row.hits), resetTime };
+}

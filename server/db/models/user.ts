@@ -45,7 +45,9 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         version: true,
         // The hash never leaves the data layer unless a caller asks for it by scope.
         defaultScope: { attributes: { exclude: ['passwordHash'] } },
-        scopes: { withPassword: { attributes: { include: ['passwordHash'] } } },
+        // An empty scope replaces the default one, so every column comes back once; `include`
+        // here would list password_hash twice, which the mariadb driver rejects.
+        scopes: { withPassword: {} },
       },
     );
   }

@@ -5,14 +5,22 @@ import { AppError, type FieldErrors } from '../errors/app-error';
 type Part = 'body' | 'params' | 'query';
 type Schemas = Partial<Record<Part, z.ZodType>>;
 
+function pathOf(path: readonly PropertyKey[], prefix: string): string {
+  return path.reduce<string>(
+    (acc, key) => (typeof key === 'number' ? `${acc}[${key}]` : acc ? `${acc}.${String(key)}` : String(key)),
+    prefix,
+  );
+}
+
 export function zodFieldErrors(error: z.ZodError, prefix = ''): FieldErrors {
   const out: FieldErrors = {};
   for (const issue of error.issues) {
-    const path = issue.path.reduce<string>(
-      (acc, key) => (typeof key === 'number' ? `${acc}[${key}]` : acc ? `${acc}.${String(key)}` : String(key)),
-      prefix,
-    );
-    (out[path] ??= []).push(issue.message);
+    // A strict schema reports unknown fields as one issue on their parent; name each field instead.
+    if (issue.code === 'unrecognized_keys') {
+      for (const key of issue.keys) (out[pathOf([...issue.path, key], prefix)] ??= []).push('is not an accepted field');
+      continue;
+    }
+    (out[pathOf(issue.path, prefix)] ??= []).push(issue.message);
   }
   return out;
 }

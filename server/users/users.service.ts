@@ -54,8 +54,10 @@ export class UsersService {
   async update(ability: AppAbility, actor: Actor, id: number, dto: UpdateUserRequest): Promise<UserDto> {
     await this.sequelize.transaction(async (transaction) => {
       const user = await this.load(id, transaction);
-      if (user.version !== dto.version) throw AppError.conflict(`User ${user.username} was changed by someone else; reload and try again`);
       const before = toUserDto(user);
+      // Checked before the version and even when no field is given, so a bare `{ version }` is no back door.
+      ForbiddenError.from(ability).throwUnlessCan('update', subject('User', before));
+      if (user.version !== dto.version) throw AppError.conflict(`User ${user.username} was changed by someone else; reload and try again`);
       const fields = (['displayName', 'email', 'roles'] as const).filter((f) => dto[f] !== undefined);
       for (const field of fields) ForbiddenError.from(ability).throwUnlessCan('update', subject('User', before), field);
       if (dto.roles) await this.replaceRoles(ability, user, dto.roles, transaction);

@@ -5,7 +5,7 @@ import { randomUUID } from 'node:crypto';
 import { loadConfig, type Config } from '../../server/config';
 import { createSequelize } from '../../server/db';
 import { createApp } from '../../server/app';
-import { User, UserRole } from '../../server/db/models';
+import { Project, User, UserRole } from '../../server/db/models';
 import { hashPassword } from '../../server/auth/password';
 import type { Role } from '../../shared/authz/roles';
 
@@ -45,4 +45,36 @@ export async function signedInAgent(app: Express, username: string, password = T
     put: (url: string, body?: object) => agent.put(url).set('x-csrf-token', token).send(body),
     delete: (url: string) => agent.delete(url).set('x-csrf-token', token),
   };
+}
+
+/** A unique project code (capitals, digits, dashes) so tests never collide on the unique index. */
+export function uniqueCode(prefix = 'T'): string {
+  return `${prefix}-${randomUUID().slice(0, 8)}`.toUpperCase();
+}
+
+/** Inserts a project directly, for tests that need one to exist without going through an admin. */
+export async function createTestProject(overrides: Partial<{ code: string; name: string; status: 'active' | 'archived' }> = {}) {
+  const project = await Project.create({ code: uniqueCode(), name: 'Test drive shaft', createdBy: null, ...overrides });
+  return { id: project.id, code: project.code, version: project.version };
+}
+
+/** A test user of the given roles, already signed in. */
+export async function signedInAs(app: Express, roles: Role[], prefix?: string) {
+  const user = await createTestUser(roles, prefix);
+  return { user, session: await signedInAgent(app, user.username) };
+}
+
+/** An anonymous agent holding a valid CSRF token, so its writes reach the sign-in check (401). */
+export async function anonymousAgent(app: Express) {
+  const agent = request.agent(app);
+  const token = (await agent.get('/api/session')).body.csrfToken as string;
+  return { agent, token };
+}
+
+/** The `name=value` part of the session cookie a response set, for replaying it elsewhere. */
+export function sessionCookieOf(res: { headers: Record<string, unknown> }): string {
+  const cookies = (res.headers['set-cookie'] as string[] | undefined) ?? [];
+  const cookie = cookies.find((c) => c.startsWith('tt.sid='));
+  if (!cookie) throw new Error('response set no session cookie');
+  return cookie.split(';')[0];
 }

@@ -1,8 +1,9 @@
 import session from 'express-session';
 import connectSessionSequelize from 'connect-session-sequelize';
 import type { RequestHandler } from 'express';
-import type { Sequelize } from 'sequelize';
+import { Op, type Sequelize } from 'sequelize';
 import type { Config } from '../config';
+import { Session } from '../db/models';
 
 export const SESSION_COOKIE = 'tt.sid';
 
@@ -22,6 +23,13 @@ export function sessionMiddleware(sequelize: Sequelize, config: Config): Request
       data: defaults.data, expires: defaults.expires, userId: s.passport?.user ?? null,
     }),
   });
+  // The package's get() ignores `expires` until its sweep runs, so a replayed cookie would outlive
+  // the idle limit (and `rolling` would then renew it). Only rows still in date count.
+  store.get = (sid, callback) => {
+    Session.findOne({ where: { sid, expires: { [Op.gt]: new Date() } } })
+      .then((row) => (row?.data ? JSON.parse(row.data) : null))
+      .then((data) => callback(null, data), callback);
+  };
   return session({
     name: SESSION_COOKIE,
     secret: config.SESSION_SECRET,
@@ -39,7 +47,8 @@ export function absoluteSessionLimit(config: Config): RequestHandler {
   return (req, _res, next) => {
     const started = req.session?.startedAt;
     if (started && Date.now() - started > limitMs) {
-      req.session.destroy(() => next());
+      // regenerate, not destroy: passport and the CSRF check need a (fresh, empty) session to follow.
+      req.session.regenerate((err) => next(err));
       return;
     }
     next();

@@ -1,0 +1,93 @@
+import request from 'supertest';
+import { Session } from '../../server/db/models';
+import { sessionCookieOf, signedInAs, startTestApp } from '../support/api-harness';
+
+// A tiny idle limit (0.02 min = 1.2 s) so the test can watch a session lapse without a long wait.
+const quick = startTestApp({ SESSION_IDLE_MINUTES: 0.02 });
+const short = startTestApp({ SESSION_ABSOLUTE_HOURS: 0.5 });
+const standard = startTestApp();
+afterAll(async () => {
+  for (const instance of [quick, short, standard]) await instance.sequelize.close();
+});
+
+const HOUR = 3_600_000;
+
+async function sessionRowOf(userId: number) {
+  const row = await Session.findOne({ where: { userId } });
+  if (!row) throw new Error(`no session row for user ${userId}`);
+  return row;
+}
+
+async function backdateStart(userId: number, msAgo: number): Promise<void> {
+  const row = await sessionRowOf(userId);
+  const data = JSON.parse(row.data!);
+  await row.update({ data: JSON.stringify({ ...data, startedAt: Date.now() - msAgo }) });
+}
+
+describe('idle timeout', () => {
+  it('when the idle limit is 1.2 s, then the cookie and the session row expire about 1.2 s after the answer', async () => {
+    const sent = Date.now();
+    const { user, session } = await signedInAs(quick.app, ['author']);
+    const received = Date.now();
+
+    const expires = Date.parse(/Expires=([^;]+)/.exec(session.login.headers['set-cookie'][0])![1]);
+    const row = await sessionRowOf(user.id);
+
+    // Expires= has whole seconds, so the bounds allow one second either way.
+    expect(expires).toBeGreaterThanOrEqual(sent + 1200 - 1000);
+    expect(expires).toBeLessThanOrEqual(received + 1200 + 1000);
+    expect(row.expires!.getTime()).toBeLessThanOrEqual(received + 1200);
+  });
+
+  it('when the default idle limit applies, then the cookie lasts 30 minutes from each answer', async () => {
+    const { session } = await signedInAs(standard.app, ['author']);
+    const res = await session.get('/api/session');
+    const expires = Date.parse(/Expires=([^;]+)/.exec(res.headers['set-cookie'][0])![1]);
+    expect(Math.abs(expires - (Date.now() + 30 * 60_000))).toBeLessThan(5_000);
+  });
+
+  it('when the idle limit has passed, then replaying the old cookie gets 401', async () => {
+    const { session } = await signedInAs(quick.app, ['author']);
+    const cookie = sessionCookieOf(session.login);
+
+    await new Promise((resolve) => setTimeout(resolve, 1_500));
+    const res = await request(quick.app).get('/api/projects').set('Cookie', cookie);
+
+    expect(res.status).toBe(401);
+  });
+
+  it('when the session row has expired, then its cookie no longer signs anyone in', async () => {
+    const { user, session } = await signedInAs(standard.app, ['author']);
+    const cookie = sessionCookieOf(session.login);
+    await (await sessionRowOf(user.id)).update({ expires: new Date(Date.now() - 1_000) });
+
+    const res = await request(standard.app).get('/api/session').set('Cookie', cookie);
+
+    expect(res.body.user).toBeNull();
+  });
+});
+
+describe('absolute limit', () => {
+  it('when the session started 11 hours ago, then it is still good (the limit is 12)', async () => {
+    const { user, session } = await signedInAs(standard.app, ['author']);
+    await backdateStart(user.id, 11 * HOUR);
+    expect((await session.get('/api/projects')).status).toBe(200);
+  });
+
+  it('when the session started 13 hours ago, then the next request gets 401 and the row is gone', async () => {
+    const { user, session } = await signedInAs(standard.app, ['author']);
+    const { sid } = await sessionRowOf(user.id);
+    await backdateStart(user.id, 13 * HOUR);
+
+    const res = await session.get('/api/projects');
+
+    expect(res.status).toBe(401);
+    expect(await Session.findByPk(sid)).toBeNull();
+  });
+
+  it('when the absolute limit is configured shorter, then it is honoured', async () => {
+    const { user, session } = await signedInAs(short.app, ['author']);
+    await backdateStart(user.id, 0.6 * HOUR);
+    expect((await session.get('/api/projects')).status).toBe(401);
+  });
+});

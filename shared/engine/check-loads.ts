@@ -55,7 +55,9 @@ export function checkLoads(input: CalcInput): CalcIssue[] {
   }
   const seen = new Set<number>();
   (input.bending ?? []).forEach((b, i) => {
-    if (seen.has(b.at)) out.push({ path: `bending[${i}].at`, message: `a second bending entry at station ${f(b.at)}` });
+    if (seen.has(b.at)) {
+      out.push({ path: `bending[${i}].at`, message: `a second bending entry at station ${f(b.at)} ${UNIT_LABELS[input.units].length}` });
+    }
     seen.add(b.at);
   });
   return out;

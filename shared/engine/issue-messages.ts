@@ -47,7 +47,8 @@ function optionsOf(issue: core.$ZodIssueInvalidUnion): readonly unknown[] {
 }
 
 function typeMessage(issue: core.$ZodIssueInvalidType, name: string, unit: string): string {
-  const expected = issue.expected === 'number' ? `a number${unit ? ` in${unit}` : ''}` : `a ${issue.expected}`;
+  const expected = issue.expected === 'number' ? `a number${unit ? ` in${unit}` : ''}`
+    : issue.expected === 'array' ? 'a list' : issue.expected === 'object' ? 'an object' : `a ${issue.expected}`;
   if (issue.input === undefined) return `${name} is missing (${expected})`;
   return `${name} must be ${expected}, got ${describeInput(issue.input, '')}`;
 }
@@ -55,7 +56,7 @@ function typeMessage(issue: core.$ZodIssueInvalidType, name: string, unit: strin
 function boundMessage(issue: core.$ZodIssueTooSmall | core.$ZodIssueTooBig, name: string, unit: string): string {
   const small = issue.code === 'too_small';
   const limit = Number(small ? issue.minimum : issue.maximum);
-  if (issue.origin === 'array') return `${name} needs ${small ? 'at least' : 'at most'} ${limit} entries`;
+  if (issue.origin === 'array') return `${name} needs ${small ? 'at least' : 'at most'} ${limit} ${limit === 1 ? 'entry' : 'entries'}`;
   if (issue.origin === 'string') return `${name} must be ${small ? 'at least' : 'at most'} ${limit} characters`;
   const words = small ? (issue.inclusive ? 'at least' : 'greater than') : (issue.inclusive ? 'at most' : 'less than');
   return `${name} must be ${words} ${formatNumber(limit)}${unit}, got ${describeInput(issue.input, unit)}`;

@@ -1,0 +1,66 @@
+import { spawnSync } from 'node:child_process';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+
+// The batch command, run as a user would (npx tsx scripts/calc.ts). Each spawn costs about a second.
+const ROOT = join(__dirname, '..', '..');
+const FIXTURES = 'test/fixtures/calcs';
+
+function calc(args: string[], input?: string) {
+  const r = spawnSync('npx', ['tsx', 'scripts/calc.ts', ...args], { cwd: ROOT, input, encoding: 'utf8', timeout: 60_000 });
+  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+
+describe('calc command', () => {
+  it('when given a valid file, then it prints only the result JSON and exits 0', () => {
+    const r = calc([`${FIXTURES}/solid-si.json`]);
+    expect(r.status).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.segments[0].tauMax).toBeCloseTo(40.74367, 5); // REFERENCES.md check value 4
+    expect(out.engineVersion).toMatch(/^\d+\.\d+\.\d+$/);
+    expect(r.stderr).toBe('');
+  });
+
+  it('when reading standard input ("-"), then it evaluates it the same way', () => {
+    const r = calc(['-'], readFileSync(join(ROOT, FIXTURES, 'hollow-si.json'), 'utf8'));
+    expect(r.status).toBe(0);
+    expect(JSON.parse(r.stdout).segments[0].tauInner).toBeCloseTo(19.5883, 4); // check value 5
+  });
+
+  it('when the input is invalid, then it exits 2 with "path: reason" on stderr and nothing on stdout', () => {
+    const r = calc([`${FIXTURES}/invalid/id-not-smaller.json`]);
+    expect(r.status).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr).toBe('segments[1].id: inner diameter 52 mm is not smaller than outer diameter 50 mm\n');
+  });
+
+  it('when the text is not JSON, then it exits 2 without a stack trace', () => {
+    const r = calc(['-'], '{ "units": ');
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/^\(input\): not valid JSON/);
+    expect(r.stderr).not.toMatch(/\n\s+at /);
+  });
+
+  it('when asked for a table, then it prints aligned columns and the engineering caution', () => {
+    const r = calc([`${FIXTURES}/five-segment-fatigue.json`, '--format', 'table']);
+    expect(r.status).toBe(0);
+    expect(r.stdout).toMatch(/never replace, the judgement of a qualified engineer; local codes and licensed practice govern/);
+    expect(r.stdout).toMatch(/Segments[\s\S]*Features[\s\S]*keyseat[\s\S]*Whole shaft/);
+  });
+
+  it('when given a folder, then it evaluates every file and reports each invalid one by name', () => {
+    const ok = calc([FIXTURES]);
+    expect(ok.status).toBe(0);
+    expect(JSON.parse(ok.stdout).map((o: { file: string }) => o.file)).toEqual(
+      ['five-segment-fatigue.json', 'hollow-si.json', 'solid-si.json', 'stepped-us.json']);
+    const bad = calc([`${FIXTURES}/invalid`]);
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toMatch(/^unbalanced\.json: torques: external torques do not balance/m);
+    expect(bad.stderr).toMatch(/^station-off\.json: torques\[1\]\.at: station 600 mm is off the shaft/m);
+  });
+
+  it('when the file does not exist or an option is unknown, then it exits 1 with a one-line message', () => {
+    expect(calc(['no-such.json'])).toMatchObject({ status: 1, stderr: 'cannot read no-such.json: no such file or folder\n' });
+    expect(calc([`${FIXTURES}/solid-si.json`, '--format', 'xml']).status).toBe(1);
+  });
+});

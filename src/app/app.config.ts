@@ -1,0 +1,23 @@
+import { ApplicationConfig, ErrorHandler, inject, provideAppInitializer, provideBrowserGlobalErrorListeners } from '@angular/core';
+import { provideRouter, withComponentInputBinding, withInMemoryScrolling } from '@angular/router';
+import { provideHttpClient, withFetch, withInterceptors } from '@angular/common/http';
+import { MAT_FORM_FIELD_DEFAULT_OPTIONS } from '@angular/material/form-field';
+import { routes } from './app.routes';
+import { csrfInterceptor } from './core/http/csrf-interceptor';
+import { errorInterceptor } from './core/http/error-interceptor';
+import { AppErrorHandler } from './core/errors/app-error-handler';
+import { provideAbility } from './core/authz/ability.providers';
+import { SessionStore } from './core/auth/session-store';
+
+export const appConfig: ApplicationConfig = {
+  providers: [
+    provideBrowserGlobalErrorListeners(),
+    provideRouter(routes, withComponentInputBinding(), withInMemoryScrolling({ scrollPositionRestoration: 'top' })),
+    provideHttpClient(withFetch(), withInterceptors([csrfInterceptor, errorInterceptor])),
+    provideAbility(),
+    { provide: ErrorHandler, useClass: AppErrorHandler },
+    { provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline', subscriptSizing: 'dynamic' } },
+    // Knowing who is signed in before the first route renders avoids a flash of the sign-in page.
+    provideAppInitializer(() => inject(SessionStore).load()),
+  ],
+};

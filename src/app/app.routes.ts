@@ -1,0 +1,39 @@
+import { Routes } from '@angular/router';
+import { abilityGuard, anonymousGuard, signedInGuard } from './core/auth/auth-guard';
+
+export const routes: Routes = [
+  {
+    path: 'sign-in',
+    canActivate: [anonymousGuard],
+    title: 'Sign in · Torquetrail',
+    loadComponent: () => import('./features/sign-in/sign-in'),
+  },
+  {
+    path: '',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./core/shell/shell'),
+    children: [
+      { path: '', pathMatch: 'full', title: 'Overview · Torquetrail', loadComponent: () => import('./features/dashboard/dashboard') },
+      {
+        path: 'projects',
+        title: 'Projects · Torquetrail',
+        canActivate: [abilityGuard('read', 'Project')],
+        loadComponent: () => import('./features/projects/projects-page'),
+      },
+      {
+        path: 'audit',
+        title: 'Audit trail · Torquetrail',
+        canActivate: [abilityGuard('read', 'AuditEvent')],
+        loadComponent: () => import('./features/audit/audit-page'),
+      },
+      {
+        path: 'admin/users',
+        title: 'People and roles · Torquetrail',
+        canActivate: [abilityGuard('create', 'User')],
+        loadComponent: () => import('./features/admin/users/users-page'),
+      },
+      { path: 'account', title: 'Your account · Torquetrail', loadComponent: () => import('./features/account/account-page') },
+    ],
+  },
+  { path: '**', redirectTo: '' },
+];

@@ -1,0 +1,17 @@
+import type { Action, SubjectName } from '../../../../shared/authz/app-ability';
+
+export interface NavItem {
+  path: string;
+  label: string;
+  icon: string;
+  /** Shown only to people who may do this; the server enforces it regardless. */
+  needs?: [Action, SubjectName];
+  exact?: boolean;
+}
+
+export const NAV_ITEMS: NavItem[] = [
+  { path: '/', label: 'Overview', icon: 'space_dashboard', exact: true },
+  { path: '/projects', label: 'Projects', icon: 'folder_open', needs: ['read', 'Project'] },
+  { path: '/audit', label: 'Audit trail', icon: 'fact_check', needs: ['read', 'AuditEvent'] },
+  { path: '/admin/users', label: 'People and roles', icon: 'group', needs: ['create', 'User'] },
+];

@@ -1,0 +1,23 @@
+import { Injectable, inject, type Signal } from '@angular/core';
+import { HttpClient, httpResource } from '@angular/common/http';
+import { firstValueFrom } from 'rxjs';
+import type { Page } from '../../../../shared/schemas/common.schema';
+import type { AuditChainStatus, AuditEventDto } from '../../../../shared/schemas/audit.schema';
+
+export interface AuditListParams { page: number; size: number; entityType: string }
+
+@Injectable({ providedIn: 'root' })
+export class AuditApi {
+  private readonly http = inject(HttpClient);
+
+  list(params: Signal<AuditListParams>) {
+    return httpResource<Page<AuditEventDto>>(() => ({
+      url: '/api/audit',
+      params: { page: params().page, size: params().size, ...(params().entityType ? { entityType: params().entityType } : {}) },
+    }));
+  }
+
+  verifyChain(): Promise<AuditChainStatus> {
+    return firstValueFrom(this.http.get<AuditChainStatus>('/api/audit/verify'));
+  }
+}

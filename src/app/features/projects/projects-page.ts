@@ -1,0 +1,54 @@
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { DatePipe } from '@angular/common';
+import { MatTableModule } from '@angular/material/table';
+import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatDialog } from '@angular/material/dialog';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { AbilityServiceSignal } from '@casl/angular';
+import type { AppAbility } from '../../../../shared/authz/app-ability';
+import type { ProjectDto } from '../../../../shared/schemas/project.schema';
+import { toHttpFailure } from '../../core/errors/http-failure';
+import { EmptyState } from '../../ui/empty-state';
+import { ProjectsApi, type ProjectListParams } from './projects-api';
+import { ProjectDialog } from './project-dialog';
+
+@Component({
+  selector: 'tt-projects-page',
+  imports: [DatePipe, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, EmptyState],
+  templateUrl: './projects-page.html',
+  styleUrl: './projects-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export default class ProjectsPage {
+  private readonly dialog = inject(MatDialog);
+  private readonly ability = inject<AbilityServiceSignal<AppAbility>>(AbilityServiceSignal);
+
+  protected readonly params = signal<ProjectListParams>({ page: 0, size: 25, q: '' });
+  protected readonly projects = inject(ProjectsApi).list(this.params);
+  protected readonly rows = computed(() => this.projects.value()?.items ?? []);
+  protected readonly total = computed(() => this.projects.value()?.total ?? 0);
+  protected readonly error = computed(() => (this.projects.error() ? toHttpFailure(this.projects.error()).message : null));
+  protected readonly canCreate = computed(() => this.ability.can('create', 'Project'));
+  protected readonly canEdit = computed(() => this.ability.can('update', 'Project'));
+  protected readonly columns = computed(() => [
+    'code', 'name', 'client', 'revisionScheme', 'status', 'createdAt', ...(this.canEdit() ? ['actions'] : []),
+  ]);
+
+  protected search(q: string): void {
+    this.params.update((p) => ({ ...p, q: q.trim(), page: 0 }));
+  }
+
+  protected changePage(event: PageEvent): void {
+    this.params.update((p) => ({ ...p, page: event.pageIndex, size: event.pageSize }));
+  }
+
+  protected openEditor(project: ProjectDto | null): void {
+    this.dialog.open(ProjectDialog, { data: project, autoFocus: 'first-tabbable' }).afterClosed().subscribe((saved) => {
+      if (saved) this.projects.reload();
+    });
+  }
+}

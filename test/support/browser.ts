@@ -1,0 +1,63 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import type { AddressInfo } from 'node:net';
+import type { Server } from 'node:http';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { startTestApp } from './api-harness';
+
+export const SCREENSHOT_DIR = path.resolve(__dirname, '../../artifacts/screenshots');
+
+// Debian's chromium, started the way this machine allows: no sandbox as root, no background network.
+const CHROMIUM_ARGS = [
+  '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+  '--disable-background-networking', '--disable-component-update', '--disable-sync',
+];
+
+/** The real app on a free loopback port, plus a fresh Chromium profile. */
+export async function startBrowserSession() {
+  const { app, sequelize } = startTestApp();
+  const server: Server = await new Promise((resolve) => {
+    const s = app.listen(0, '127.0.0.1', () => resolve(s));
+  });
+  const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'tt-chromium-'));
+  const context: BrowserContext = await chromium.launchPersistentContext(profile, {
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    args: CHROMIUM_ARGS,
+    viewport: { width: 1360, height: 860 },
+    baseURL: baseUrl,
+  });
+  const outsideRequests: string[] = [];
+  context.on('request', (req) => {
+    const url = new URL(req.url());
+    if (!['data:', 'blob:'].includes(url.protocol) && url.hostname !== '127.0.0.1') outsideRequests.push(req.url());
+  });
+  fs.mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  return {
+    baseUrl,
+    context,
+    outsideRequests,
+    screenshot: (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`), fullPage: true }),
+    async close() {
+      await context.close();
+      await new Promise((resolve) => server.close(resolve));
+      await sequelize.close();
+      fs.rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Runs axe-core in the page and returns the serious and critical violations. */
+export async function accessibilityViolations(page: Page) {
+  const source = fs.readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
+  // Evaluated over the DevTools protocol: the app's CSP (rightly) refuses injected script tags.
+  await page.evaluate(source);
+  const result = await page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
+    return axe.run(document, { resultTypes: ['violations'] });
+  });
+  return result.violations
+    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+    .map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join(', ')}`);
+}

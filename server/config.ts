@@ -26,6 +26,8 @@ const envSchema = z.object({
   LOGIN_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(15),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   CLIENT_DIST: z.string().default('dist/torquetrail/browser'),
+  // Shown in the top bar; the default is the invented demo company.
+  ORG_NAME: z.string().max(80).default('Kestrel Fen Drives'),
 });
 
 export type Config = Readonly<z.infer<typeof envSchema>>;

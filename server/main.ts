@@ -18,6 +18,10 @@ async function main(): Promise<void> {
     const address = server.address();
     const port = typeof address === 'object' && address ? address.port : config.PORT;
     logger.info({ port }, 'Torquetrail is listening');
+    if (config.NODE_ENV !== 'test') {
+      process.stdout.write(`\nTorquetrail is running at http://${config.HOST}:${port}/  (Ctrl-C stops it)\n` +
+        'Results support, never replace, a qualified engineer\'s judgement; local codes and licensed practice govern.\n\n');
+    }
     if (process.send) process.send({ ready: true, port });
   });
 

@@ -12,8 +12,8 @@ import { AuthService } from './auth.service';
 import { csrfToken } from './csrf';
 import { loginRateLimit } from './login-rate-limit';
 
-function sessionBody(req: Request, user: SessionUser | null) {
-  return { user, rules: defineRulesFor(user), csrfToken: csrfToken(req, true) };
+function sessionBody(req: Request, user: SessionUser | null, config: Config) {
+  return { user, rules: defineRulesFor(user), csrfToken: csrfToken(req, true), organisation: config.ORG_NAME };
 }
 
 function authenticate(passport: Passport, req: Request): Promise<{ user: SessionUser | false; info?: { message?: string } }> {
@@ -28,7 +28,7 @@ export function authRouter(sequelize: Sequelize, passport: Passport, config: Con
   const service = new AuthService(sequelize);
 
   router.get('/session', (req, res) => {
-    res.json(sessionBody(req, req.user ?? null));
+    res.json(sessionBody(req, req.user ?? null, config));
   });
 
   router.post('/auth/login', loginRateLimit(sequelize, config), validate({ body: loginSchema }), async (req, res) => {
@@ -41,7 +41,7 @@ export function authRouter(sequelize: Sequelize, passport: Passport, config: Con
     await new Promise<void>((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
     req.session.startedAt = Date.now();
     await service.recordSignIn(signedInActor(req));
-    res.json(sessionBody(req, user));
+    res.json(sessionBody(req, user, config));
   });
 
   router.post('/auth/logout', async (req, res) => {

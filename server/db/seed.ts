@@ -8,11 +8,18 @@ import { DEMO_PASSWORD, DEMO_PROJECTS, DEMO_USERS } from './demo-data';
 
 const SYSTEM = { id: null, name: 'demo data loader', ip: null };
 
+function printAccounts(): void {
+  console.log(`\nDemo accounts (password for all: ${DEMO_PASSWORD}):`);
+  for (const u of DEMO_USERS) console.log(`  ${u.username.padEnd(11)} ${u.displayName.padEnd(18)} ${u.roles.join(' + ')}`);
+  console.log('');
+}
+
 async function main(): Promise<void> {
   const sequelize = createSequelize(loadConfig());
   try {
     if ((await User.count()) > 0) {
       console.log('demo data already present; nothing loaded');
+      printAccounts();
       return;
     }
     const passwordHash = await hashPassword(DEMO_PASSWORD);
@@ -28,6 +35,7 @@ async function main(): Promise<void> {
       }
     });
     console.log(`demo data loaded: ${DEMO_USERS.length} users, ${DEMO_PROJECTS.length} projects`);
+    printAccounts();
   } finally {
     await sequelize.close();
   }

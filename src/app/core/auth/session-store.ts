@@ -9,6 +9,7 @@ interface SessionResponse {
   user: SessionUser | null;
   rules: AppRawRule[];
   csrfToken: string;
+  organisation?: string;
 }
 
 /**
@@ -24,6 +25,7 @@ export class SessionStore {
   readonly user = computed(() => this.state().user);
   readonly isSignedIn = computed(() => this.state().user !== null);
   readonly csrfToken = computed(() => this.state().csrfToken);
+  readonly organisation = computed(() => this.state().organisation ?? '');
 
   async load(): Promise<void> {
     try {
@@ -51,7 +53,7 @@ export class SessionStore {
 
   /** Called when the server says the session has ended (401 on a signed-in page). */
   expire(): void {
-    this.apply({ user: null, rules: [], csrfToken: this.csrfToken() });
+    this.apply({ ...this.state(), user: null, rules: [] });
   }
 
   private apply(response: SessionResponse): void {

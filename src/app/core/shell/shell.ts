@@ -24,6 +24,7 @@ export default class Shell {
   private readonly ability = inject<AbilityServiceSignal<AppAbility>>(AbilityServiceSignal);
 
   protected readonly user = this.session.user;
+  protected readonly organisation = this.session.organisation;
   protected readonly roleLabels = computed(() => (this.user()?.roles ?? []).map((r) => ROLE_LABELS[r]));
   protected readonly initials = computed(() =>
     (this.user()?.displayName ?? '?').split(/\s+/).map((p) => p[0]).slice(0, 2).join('').toUpperCase());

@@ -19,6 +19,10 @@ export interface FeatureGeometry {
   Zp: number;
 }
 
+function geometry(seg: Seg, D: number | null, d: number, r: number, Z: number, Zp: number): FeatureGeometry {
+  return { seg, D, d, di: seg.id, r, Z, Zp };
+}
+
 /**
  * Nominal sections follow the basis of each published factor: the smaller diameter at a shoulder,
  * the root (net) diameter at a ring groove, the full (gross) section at keyseats and cross holes.
@@ -27,17 +31,19 @@ export function featureGeometry(model: Model, ft: FeatureInput): FeatureGeometry
   const len = model.k.length;
   const loc = locate(ft.at * len, model.bounds);
   const seg = model.segs[governingIndex(loc, model.segs)];
-  const base = { seg, D: null, d: seg.od, di: seg.id, Z: seg.Z, Zp: seg.Zp };
   switch (ft.type) {
-    case 'shoulder-fillet':
-      return { ...base, D: Math.max(model.segs[loc.left].od, model.segs[loc.right].od), r: ft.r * len };
+    case 'shoulder-fillet': {
+      const D = Math.max(model.segs[loc.left].od, model.segs[loc.right].od);
+      return geometry(seg, D, seg.od, ft.r * len, seg.Z, seg.Zp);
+    }
     case 'keyseat':
-      return { ...base, r: ft.r === undefined ? KEYSEAT_R_OVER_D * seg.od : ft.r * len };
+      return geometry(seg, null, seg.od, ft.r === undefined ? KEYSEAT_R_OVER_D * seg.od : ft.r * len, seg.Z, seg.Zp);
     case 'ring-groove': {
       const root = seg.od - 2 * ft.depth * len;
-      return { ...base, d: root, r: ft.r * len, ...sectionProps(root, seg.id) };
+      const net = sectionProps(root, seg.id);
+      return geometry(seg, null, root, ft.r * len, net.Z, net.Zp);
     }
     case 'cross-hole':
-      return { ...base, r: (ft.diameter * len) / 2 };
+      return geometry(seg, null, seg.od, (ft.diameter * len) / 2, seg.Z, seg.Zp);
   }
 }

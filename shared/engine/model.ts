@@ -63,7 +63,8 @@ export function buildModel(input: CalcInput): Model {
     const od = s.od * k.length;
     const id = s.id * k.length;
     const mat = s.material ? toMat(s.material, `segments[${i}].material`, k) : shared;
-    return { index: i, start: bounds[i], end: bounds[i + 1], length: bounds[i + 1] - bounds[i], od, id, mat, ...sectionProps(od, id) };
+    const { J, Zp, Z } = sectionProps(od, id);
+    return { index: i, start: bounds[i], end: bounds[i + 1], length: bounds[i + 1] - bounds[i], od, id, mat, J, Zp, Z };
   });
   const torques = input.torques.map((t, i): ExtTorque => ({
     index: i, at: t.at * k.length, T: entryTorque(t, input.units) * k.torque, Ta: (t.Ta ?? 0) * k.torque, isFromPower: !('T' in t),

@@ -33,7 +33,7 @@ export interface StaticStress {
 }
 
 export interface SegmentResult extends StaticStress {
-  index: number; label?: string; start: number; end: number; length: number;
+  index: number; label: string | undefined; start: number; end: number; length: number;
   od: number; id: number; isHollow: boolean; material: string; G: number; Sy: number; Su: number;
   J: number; Zp: number;
   /** Internal torque of largest magnitude on the segment (sign per the torque-diagram convention). */
@@ -66,7 +66,7 @@ export interface FeatureMethods {
 }
 
 export interface FeatureResult extends StaticStress {
-  index: number; type: string; label?: string; at: number; segment: number;
+  index: number; type: string; label: string | undefined; at: number; segment: number;
   /** Diameters used: D larger and d smaller at a shoulder; d the section diameter elsewhere. */
   D: number | null; d: number; di: number;
   /** Notch radius used for q (capped at 4 mm for the Neuber constant). */

@@ -12,7 +12,9 @@ export const J_FORMULA = 'J = π·(do⁴ − di⁴)/32 (π·d⁴/32 when solid)'
 export const ZP_FORMULA = 'Zp = J/c, c = do/2';
 
 export function polarMoment(od: number, id: number): number {
-  return (Math.PI * (od ** 4 - id ** 4)) / 32;
+  const o2 = od * od;
+  const i2 = id * id;
+  return (Math.PI * (o2 * o2 - i2 * i2)) / 32;
 }
 
 export function sectionProps(od: number, id: number): SectionProps {

@@ -8,31 +8,39 @@ import { FatigueTracker, StaticTracker } from './trackers';
 
 const DEG = 180 / Math.PI;
 
+interface Scan {
+  stat: StaticTracker;
+  fat: FatigueTracker | null;
+}
+
+// One candidate point: nominal stresses of the plain section from M(x) and the piece's torque.
+function considerPoint(model: Model, seg: Seg, se: Endurance | null, scan: Scan, x: number, p: Piece): void {
+  const { Ma, Mm } = momentAt(model.moments, x);
+  const sa = Ma / seg.Z;
+  const sm = Mm / seg.Z;
+  const ta = p.Ta / seg.Zp;
+  const tm = Math.abs(p.T) / seg.Zp;
+  scan.stat.consider(x, sa + sm, ta + tm, Ma, Mm);
+  if (scan.fat && se) {
+    scan.fat.consider(x, fatigueSafety(Math.sqrt(sa * sa + 3 * ta * ta), Math.sqrt(sm * sm + 3 * tm * tm), se.Se, seg.mat.Su, seg.mat.Sy));
+  }
+}
+
 /*
  * Stresses on the plain section of a segment (no stress concentration: features carry that).
  * Torque is constant on a piece and the moment linear between entries, and every criterion is a
  * convex function of them, so the worst point is at a piece end or a bending station: only those
  * are scanned.
  */
-function scanSegment(model: Model, seg: Seg, pieces: readonly Piece[], se: Endurance | null) {
-  const stat = new StaticTracker();
-  const fat = se ? new FatigueTracker() : null;
-  const consider = (x: number, p: Piece): void => {
-    const { Ma, Mm } = momentAt(model.moments, x);
-    const sa = Ma / seg.Z;
-    const sm = Mm / seg.Z;
-    const ta = p.Ta / seg.Zp;
-    const tm = Math.abs(p.T) / seg.Zp;
-    stat.consider(x, sa + sm, ta + tm, Ma, Mm);
-    if (fat && se) fat.consider(x, fatigueSafety(Math.sqrt(sa * sa + 3 * ta * ta), Math.sqrt(sm * sm + 3 * tm * tm), se.Se, seg.mat.Su, seg.mat.Sy));
-  };
+function scanSegment(model: Model, seg: Seg, pieces: readonly Piece[], se: Endurance | null): Scan {
+  const scan: Scan = { stat: new StaticTracker(), fat: se ? new FatigueTracker() : null };
   for (const p of pieces) {
     if (p.segment !== seg.index) continue;
-    consider(p.start, p);
-    for (const m of model.moments) if (m.at > p.start && m.at < p.end) consider(m.at, p);
-    consider(p.end, p);
+    considerPoint(model, seg, se, scan, p.start, p);
+    for (const m of model.moments) if (m.at > p.start && m.at < p.end) considerPoint(model, seg, se, scan, m.at, p);
+    considerPoint(model, seg, se, scan, p.end, p);
   }
-  return { stat, fat };
+  return scan;
 }
 
 /** Results of one segment in the calc's units; `se` is its endurance limit in MPa, or null. */
@@ -50,7 +58,7 @@ export function evaluateSegment(model: Model, seg: Seg, pieces: readonly Piece[]
   const { stat, fat } = scanSegment(model, seg, pieces, se);
   const label = model.input.segments[seg.index].label;
   return {
-    index: seg.index, ...(label ? { label } : {}), start: seg.start / k.length, end: seg.end / k.length,
+    index: seg.index, label, start: seg.start / k.length, end: seg.end / k.length,
     length: seg.length / k.length, od: seg.od / k.length, id: seg.id / k.length, isHollow: seg.id > 0,
     material: seg.mat.name, G: seg.mat.G / k.modulus, Sy: seg.mat.Sy / k.stress, Su: seg.mat.Su / k.stress,
     J: seg.J / k.J, Zp: seg.Zp / k.Zp, T: T / k.torque, tauMax: tauMax / k.stress,
@@ -60,7 +68,7 @@ export function evaluateSegment(model: Model, seg: Seg, pieces: readonly Piece[]
     sigmaVonMises: stat.sigmaVonMises / k.stress, tauTresca: stat.tauTresca / k.stress,
     yieldSafety: stat.yieldSafety(seg.mat.Sy), yieldSafetyTresca: stat.yieldSafetyTresca(seg.mat.Sy),
     endurance: se ? enduranceOut(se, k.stress) : null,
-    fatigueSafety: fat ? { ...fat.safety } : null,
+    fatigueSafety: fat ? fat.safety : null,
     fatigueAt: fat ? { goodman: fat.at.goodman / k.length, asmeElliptic: fat.at.asmeElliptic / k.length,
       gerber: fat.at.gerber / k.length, soderberg: fat.at.soderberg / k.length } : null,
   };

@@ -32,8 +32,13 @@ export function validateCalcInput(input: unknown): ValidationResult {
   if (input === null || typeof input !== 'object' || Array.isArray(input)) {
     return { ok: false, issues: [{ path: '(input)', message: 'a calc input must be a JSON object' }] };
   }
-  const parsed = calcInputSchema.safeParse(input, { reportInput: true });
-  if (!parsed.success) return { ok: false, issues: toCalcIssues(parsed.error.issues, systemOf(input)) };
+  // Parse without options first: zod's compiled fast path only runs without a context, and valid
+  // input is the common case. Only a failure is parsed again with its inputs kept for the messages.
+  const parsed = calcInputSchema.safeParse(input);
+  if (!parsed.success) {
+    const detailed = calcInputSchema.safeParse(input, { reportInput: true });
+    return { ok: false, issues: toCalcIssues(detailed.error?.issues ?? parsed.error.issues, systemOf(input)) };
+  }
   const issues = [...checkGeometry(parsed.data), ...checkLoads(parsed.data), ...checkFeatures(parsed.data)];
   return issues.length ? { ok: false, issues } : { ok: true, value: parsed.data };
 }

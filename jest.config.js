@@ -3,7 +3,6 @@ const tsJest = ['ts-jest', { tsconfig: '<rootDir>/tsconfig.spec.json' }];
 
 /** @type {import('jest').Config} */
 module.exports = {
-  reporters: ['default', '<rootDir>/test/support/summary-reporter.js'],
   projects: [
     {
       displayName: 'unit',

@@ -18,4 +18,13 @@ log "building the client for the end-to-end tests"
 npx ng build --configuration production >/dev/null || die "client build failed"
 
 export NODE_ENV=test
-npx jest --ci "$@"
+results="$dir/jest-results.json"
+npx jest --ci --json --outputFile="$results" "$@"
+status=$?
+# The promised closing line, printed last so nothing follows it.
+if [ -f "$results" ]; then
+  node -e 'const r=require(process.argv[1]);const f=r.numFailedTests+r.numRuntimeErrorTestSuites;console.log(`\n${r.numPassedTests} passed, ${f} failed`)' "$(pwd)/$results"
+else
+  echo; echo "0 passed, 1 failed"
+fi
+exit $status

@@ -6,9 +6,8 @@ export const ENDURANCE_METHOD = 'Se = ka·kb·kc·kd·ke·kf·Se′ (Shigley 9th
   + 'unless entered; ka Table 6-2 (MPa coefficients); kb Eq. 6-20 mm form on the outer diameter; ke Table 6-5';
 
 /**
- * Marin-modified endurance limit (MPa) of a rotating round section of outer diameter dMm.
- * kb uses the mm form of Eq. 6-20 in both unit systems, so an SI and a US calc of one shaft agree;
- * the printed inch form differs from it by under 0.3 %.
+ * Marin-modified endurance limit (MPa) at outer diameter dMm. kb takes the mm form of Eq. 6-20 in
+ * both unit systems so SI and US calcs of one shaft agree (the inch form differs by < 0.3 %).
  */
 export function enduranceLimit(mat: Mat, dMm: number, f: FatigueSettings): Endurance {
   const SePrime = f.SePrime ?? unmodifiedEndurance(mat.Su);
@@ -18,7 +17,6 @@ export function enduranceLimit(mat: Mat, dMm: number, f: FatigueSettings): Endur
   return { SePrime, ka, kb, kc: f.kc, kd: f.kd, ke: f.ke, kf: f.kf, Se };
 }
 
-/** The same endurance data in the calc's stress unit (stressPerUnit = MPa per display unit). */
 export function enduranceOut(e: Endurance, stressPerUnit: number): Endurance {
   return { ...e, SePrime: e.SePrime / stressPerUnit, Se: e.Se / stressPerUnit };
 }

@@ -19,7 +19,7 @@ const SPECS: Spec[] = [
   ['T', 'torque', 'internal torque = Σ external torques left of the section (right-hand rule about +x)'],
   ['Tm', 'torque', 'midrange torque |T| at the station'], ['Ta', 'torque', 'alternating torque amplitude'],
   ['Ma', 'torque', 'alternating bending moment, linear between entries'], ['Mm', 'torque', 'midrange bending moment'],
-  ['tauMax', 'stress', 'τmax = |T|·c/J, c = do/2'], ['tauInner', 'stress', 'τ = |T|·(di/2)/J'],
+  ['tauMax', 'stress', 'τmax = |T|·c/J, c = do/2'], ['tauMaxAt', 'length', 'start of the stretch carrying τmax'], ['tauInner', 'stress', 'τ = |T|·(di/2)/J'],
   ['gamma', '1', 'γ = τmax/G (shear strain, rad)'],
   ['twist', 'angle', 'φ = Σ T·L/(G·J), signed with T'], ['twistTotal', 'angle', 'φ = Σ Tᵢ·Lᵢ/(Gᵢ·Jᵢ), left end to right end'],
   ['twistPerLength', 'twistPerLength', '|T|max/(G·J)'], ['twistStart', 'angle', 'accumulated twist from the left end'],

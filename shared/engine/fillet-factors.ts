@@ -5,7 +5,6 @@
  */
 type FitRow = readonly [Dd: number, A: number, b: number];
 
-/** Norton bending rows, ascending in D/d. */
 export const NORTON_BENDING: readonly FitRow[] = [
   [1.01, 0.91938, -0.17032], [1.02, 0.96048, -0.17711], [1.03, 0.98061, -0.18381],
   [1.05, 0.98137, -0.19653], [1.07, 0.97527, -0.20958], [1.1, 0.9512, -0.23757],
@@ -13,7 +12,6 @@ export const NORTON_BENDING: readonly FitRow[] = [
   [3, 0.89334, -0.3086], [6, 0.87868, -0.33243],
 ];
 
-/** Norton torsion rows, ascending in D/d. */
 export const NORTON_TORSION: readonly FitRow[] = [
   [1.09, 0.90337, -0.12692], [1.2, 0.83425, -0.21649], [1.33, 0.84897, -0.23161], [2, 0.86331, -0.23865],
 ];
@@ -27,10 +25,7 @@ export interface FitValue {
   isClamped: boolean;
 }
 
-/**
- * Norton fit at D/d and r/d: each bracketing row gives A·(r/d)^b and the two are interpolated
- * linearly in D/d. Outside the rows the nearest row is used and `isClamped` is set (never extrapolated).
- */
+/** Norton fit, rows (ascending D/d) interpolated linearly in D/d; beyond them the nearest row, flagged. */
 export function nortonFit(rows: readonly FitRow[], Dd: number, rd: number): FitValue {
   const first = rows[0];
   const last = rows[rows.length - 1];

@@ -34,7 +34,7 @@ export function surfaceFactor(surface: Surface, sutMpa: number, table: SurfaceTa
   return a * sutMpa ** b;
 }
 
-/** Size factor kb for rotating round bars in bending or torsion, mm form of Eq. 6-20. */
+/** kb for rotating round bars in bending or torsion, mm form of Eq. 6-20. */
 export function sizeFactor(dMm: number): number {
   return dMm <= 51 ? 1.24 * dMm ** -0.107 : 1.51 * dMm ** -0.157;
 }
@@ -44,10 +44,7 @@ export function sizeFactorInch(dIn: number): number {
   return dIn <= 2 ? 0.879 * dIn ** -0.107 : 0.91 * dIn ** -0.157;
 }
 
-/**
- * Temperature factor kd by the polynomial of Shigley 9th Eq. 6-27 (from memory), with the
- * temperature in °C converted to °F; outside 70–1000 °F the nearest end is used.
- */
+/** kd by the Eq. 6-27 polynomial in °F (from memory); outside 70–1000 °F the nearest end is used. */
 export function temperatureFactor(tempC: number): number {
   const tf = Math.min(Math.max(tempC * 1.8 + 32, TEMPERATURE_RANGE_F[0]), TEMPERATURE_RANGE_F[1]);
   return 0.975 + tf * (0.432e-3 + tf * (-0.115e-5 + tf * (0.104e-8 - 0.595e-12 * tf)));

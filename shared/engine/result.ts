@@ -26,7 +26,6 @@ export interface Extreme {
 export interface StaticStress {
   /** Largest von Mises stress on the segment or at the feature (σ′max, Shigley Eq. 7-15). */
   sigmaVonMises: number;
-  /** Largest Tresca (maximum) shear stress. */
   tauTresca: number;
   yieldSafety: number | null;
   yieldSafetyTresca: number | null;
@@ -38,7 +37,10 @@ export interface SegmentResult extends StaticStress {
   J: number; Zp: number;
   /** Internal torque of largest magnitude on the segment (sign per the torque-diagram convention). */
   T: number;
-  tauMax: number; tauInner: number; gamma: number;
+  tauMax: number;
+  /** Start of the stretch where tauMax acts. */
+  tauMaxAt: number;
+  tauInner: number; gamma: number;
   /** Signed angle of twist of the segment, Σ T·L/(G·J) over its pieces. */
   twist: number;
   /** Largest twist rate on the segment, |T|max/(G·J). */

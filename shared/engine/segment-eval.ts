@@ -48,11 +48,12 @@ export function evaluateSegment(model: Model, seg: Seg, pieces: readonly Piece[]
   hasKeyseat: boolean): SegmentResult {
   const k = model.k;
   let T = 0;
+  let tauMaxAt = seg.start;
   let twist = 0;
   for (const p of pieces) {
     if (p.segment !== seg.index) continue;
     twist += p.rate * (p.end - p.start);
-    if (Math.abs(p.T) > Math.abs(T)) T = p.T;
+    if (Math.abs(p.T) > Math.abs(T)) [T, tauMaxAt] = [p.T, p.start];
   }
   const tauMax = (Math.abs(T) * seg.od) / 2 / seg.J;
   const { stat, fat } = scanSegment(model, seg, pieces, se);
@@ -61,7 +62,7 @@ export function evaluateSegment(model: Model, seg: Seg, pieces: readonly Piece[]
     index: seg.index, label, start: seg.start / k.length, end: seg.end / k.length,
     length: seg.length / k.length, od: seg.od / k.length, id: seg.id / k.length, isHollow: seg.id > 0,
     material: seg.mat.name, G: seg.mat.G / k.modulus, Sy: seg.mat.Sy / k.stress, Su: seg.mat.Su / k.stress,
-    J: seg.J / k.J, Zp: seg.Zp / k.Zp, T: T / k.torque, tauMax: tauMax / k.stress,
+    J: seg.J / k.J, Zp: seg.Zp / k.Zp, T: T / k.torque, tauMax: tauMax / k.stress, tauMaxAt: tauMaxAt / k.length,
     tauInner: (Math.abs(T) * seg.id) / 2 / seg.J / k.stress, gamma: tauMax / seg.mat.G,
     twist: twist * DEG, twistPerLength: Math.abs(T) / (seg.mat.G * seg.J) / k.twistPerLength, hasKeyseat,
     governingAt: stat.at / k.length, Ma: stat.Ma / k.torque, Mm: stat.Mm / k.torque,

@@ -25,7 +25,7 @@ export function summarize(segments: SegmentResult[], features: FeatureResult[]):
   let minYield: Extreme | null = null;
   for (const s of segments) {
     twistTotal += s.twist;
-    if (s.tauMax > maxShear.value) maxShear = { value: s.tauMax, at: s.start, segment: s.index };
+    if (s.tauMax > maxShear.value) maxShear = { value: s.tauMax, at: s.tauMaxAt, segment: s.index };
     minYield = lower(minYield, s.yieldSafety, s.governingAt, 'segment', s.index);
   }
   for (const f of features) minYield = lower(minYield, f.yieldSafety, f.at, 'feature', f.index);

@@ -1,7 +1,5 @@
-/**
- * Unit systems of a calc. The engine computes in one internal base (mm, N·mm, MPa, rad) and converts
- * at the edges, so an SI and a US input of the same shaft give the same physical answer.
- */
+// The engine computes in one internal base (mm, N·mm, MPa, rad) and converts only at the edges,
+// so SI and US inputs of the same shaft give the same physical answer.
 export type UnitSystem = 'SI' | 'US';
 
 export type Quantity =
@@ -47,7 +45,6 @@ export function toBase(value: number, quantity: Quantity, system: UnitSystem): n
   return value * BASE_PER_UNIT[system][quantity];
 }
 
-/** Inverse of toBase. Temperatures are in °C internally. */
 export function fromBase(value: number, quantity: Quantity, system: UnitSystem): number {
   if (quantity === 'temperature') return system === 'SI' ? value : value * 1.8 + 32;
   return value / BASE_PER_UNIT[system][quantity];

@@ -5,6 +5,7 @@ import { anonymousAgent, createTestUser, signedInAgent, signedInAs, startTestApp
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
 
+// A fresh agent with a CSRF token per attempt, as a browser has before its first sign-in.
 async function attemptSignIn(body: object) {
   const { agent, token } = await anonymousAgent(app);
   return agent.post('/api/auth/login').set('x-csrf-token', token).send(body);
@@ -30,6 +31,7 @@ describe('signing in', () => {
     expect(res.status).toBe(200);
   });
 
+  // One answer for all three, so it never tells anyone which usernames exist or are switched off.
   it('when the password is wrong or the username unknown or the account inactive, then all get the same 401', async () => {
     const user = await createTestUser(['author']);
     const inactive = await createTestUser(['author']);

@@ -17,6 +17,7 @@ describe('CSRF protection', () => {
     expect(res.body).toEqual(CSRF_REFUSAL);
   });
 
+  // Signing in regenerates the session (against session fixation), which retires the old token.
   it('when the token is the one from before sign-in, then it is stale and refused', async () => {
     const user = await createTestUser(['admin']);
     const { agent, token: before } = await anonymousAgent(app);

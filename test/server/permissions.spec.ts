@@ -26,6 +26,7 @@ const MATRIX: [string, Role[], Expected][] = [
   ['author + admin', ['author', 'admin'], { seesAllUsers: true, managesUsers: true, managesProjects: true, readsAudit: true }],
 ];
 
+// A forbidden answer must explain itself: the client shows the message as it comes.
 function expectAllowedOr403(res: Response, allowed: boolean, okStatus = 200): void {
   if (allowed) {
     expect(res.status).toBe(okStatus);
@@ -48,6 +49,7 @@ describe.each(MATRIX)('permission matrix: %s', (_label, roles, expected) => {
     ({ session: s, user: me } = await signedInAs(app, roles));
   });
 
+  // Everyone may read their own account (the profile page), so a non-admin's user list is just themselves.
   it(`when they list users, then they see ${expected.seesAllUsers ? 'everyone' : 'only themselves'}`, async () => {
     const other = await createTestUser(['checker']);
     const others = await s.get(`/api/users?q=${other.username}`);

@@ -17,6 +17,7 @@ async function attempt(app: Express, username: string, password = 'not the passw
   return agent.post('/api/auth/login').set('x-csrf-token', token).send({ username, password });
 }
 
+// Every test signs in as a fresh user: the counts live in MariaDB and outlast a test run.
 describe('login rate limit', () => {
   it('when an account has used up its attempts, then even the right password gets 429', async () => {
     const user = await createTestUser(['author']);

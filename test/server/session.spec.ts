@@ -67,6 +67,7 @@ describe('idle timeout', () => {
   });
 });
 
+// Backdating the row's start time tests the absolute limit without waiting for hours.
 describe('absolute limit', () => {
   it('when the session started 11 hours ago, then it is still good (the limit is 12)', async () => {
     const { user, session } = await signedInAs(standard.app, ['author']);

@@ -36,6 +36,7 @@ describe('creating users', () => {
   });
 });
 
+// Signatures and audit entries point at accounts forever; 405 says the method itself is not offered.
 describe('users are never deleted', () => {
   it('when an admin sends DELETE for a user, then it is refused and the user is still there', async () => {
     const { session: admin } = await signedInAs(app, ['admin']);
@@ -49,6 +50,7 @@ describe('users are never deleted', () => {
   });
 });
 
+// No admin route takes someone else's password: PATCH is strict and POST /api/auth/password acts on the caller only.
 describe("another person's password", () => {
   it.each(['password', 'newPassword', 'initialPassword', 'passwordHash'])(
     'when an admin PATCHes a user with a %s field, then it is a 400 naming that field and the password still works',
@@ -75,6 +77,7 @@ describe("another person's password", () => {
 });
 
 describe('deactivating users', () => {
+  // Sessions live in MariaDB and deactivation deletes the person's rows, on every app instance at once.
   it('when an admin deactivates a signed-in user, then their next request gets 401 and they cannot sign in', async () => {
     const { session: admin } = await signedInAs(app, ['admin']);
     const { user, session: target } = await signedInAs(app, ['author']);
@@ -133,6 +136,7 @@ describe('changing users', () => {
     expect((await User.findByPk(target.id))!.displayName).toBe('First Edit');
   });
 
+  // Regression: a PATCH without fields used to skip the permission check and bump the version.
   it('when a non-admin PATCHes another user with only a version, then it is 403 and nothing changes', async () => {
     const { session: author } = await signedInAs(app, ['author']);
     const target = await createTestUser(['checker']);

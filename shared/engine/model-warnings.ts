@@ -3,6 +3,7 @@ import { SIZE_RANGE_MM, TEMPERATURE_RANGE_F } from './marin';
 import type { Mat, Model } from './model';
 import { neuberInRange } from './notch-sensitivity';
 import { formatNumber as f } from './number-format';
+import { locate } from './shaft-geometry';
 import { fromBase, toBase } from './units';
 
 // Tabulated G may differ from E/(2(1+ν)) by about 1 % for steel (REFERENCES.md); 5 % suggests a typo.
@@ -47,9 +48,8 @@ function fatigueWarnings(model: Model, out: CalcIssue[]): void {
 function featureWarnings(model: Model, out: CalcIssue[]): void {
   (model.input.features ?? []).forEach((ft, i) => {
     if (ft.type !== 'shoulder-fillet' || (ft.Kt !== undefined && ft.Kts !== undefined)) return;
-    const touching = model.segs.filter((s) => Math.abs(s.start - ft.at * model.k.length) < 1e-6 * model.total
-      || Math.abs(s.end - ft.at * model.k.length) < 1e-6 * model.total);
-    if (touching.some((s) => s.id > 0)) {
+    const loc = locate(ft.at * model.k.length, model.bounds);
+    if (model.segs[loc.left].id > 0 || model.segs[loc.right].id > 0) {
       out.push({ path: `features[${i}]`, message: 'the fillet fits are for solid shafts; a hollow shoulder needs a chart value' });
     }
   });

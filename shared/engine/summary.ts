@@ -1,6 +1,5 @@
-import type { SafetyByCriterion } from './fatigue-criteria';
 import type { CalcResult, Extreme, FeatureResult, SegmentResult } from './result';
-import { CRITERIA } from './trackers';
+import type { Criterion } from './trackers';
 
 type Summary = Pick<CalcResult, 'twistTotal' | 'maxShear' | 'minYieldSafety' | 'minFatigueSafety'>;
 
@@ -8,14 +7,30 @@ function lower(cur: Extreme | null, value: number | null, at: number, where: Ext
   return value !== null && (cur === null || value < cur.value) ? { value, at, where, index } : cur;
 }
 
-function minFatigue(segments: SegmentResult[], features: FeatureResult[]): Summary['minFatigueSafety'] {
-  if (!segments.some((s) => s.fatigueSafety)) return null;
-  const out: Record<keyof SafetyByCriterion, Extreme | null> = { goodman: null, asmeElliptic: null, gerber: null, soderberg: null };
-  for (const c of CRITERIA) {
-    for (const s of segments) out[c] = lower(out[c], s.fatigueSafety?.[c] ?? null, s.fatigueAt?.[c] ?? s.start, 'segment', s.index);
-    for (const f of features) out[c] = lower(out[c], f.fatigueSafety?.[c] ?? null, f.at, 'feature', f.index);
+// One Extreme per criterion, built only once the lowest point is known (this runs on every keystroke).
+function lowestFor(c: Criterion, segments: SegmentResult[], features: FeatureResult[]): Extreme | null {
+  let best: number | null = null;
+  let where: Extreme['where'] = 'segment';
+  let index = 0;
+  for (const s of segments) {
+    const v = s.fatigueSafety ? s.fatigueSafety[c] : null;
+    if (v !== null && (best === null || v < best)) [best, where, index] = [v, 'segment', s.index];
   }
-  return out;
+  for (const f of features) {
+    const v = f.fatigueSafety ? f.fatigueSafety[c] : null;
+    if (v !== null && (best === null || v < best)) [best, where, index] = [v, 'feature', f.index];
+  }
+  if (best === null) return null;
+  const at = where === 'feature' ? features[index].at : segments[index].fatigueAt?.[c] ?? segments[index].start;
+  return { value: best, at, where, index };
+}
+
+function minFatigue(segments: SegmentResult[], features: FeatureResult[]): Summary['minFatigueSafety'] {
+  if (!segments.length || !segments[0].fatigueSafety) return null;
+  return {
+    goodman: lowestFor('goodman', segments, features), asmeElliptic: lowestFor('asmeElliptic', segments, features),
+    gerber: lowestFor('gerber', segments, features), soderberg: lowestFor('soderberg', segments, features),
+  };
 }
 
 /** Whole-shaft figures: end-to-end twist, the largest nominal shear and the lowest safety factors. */

@@ -59,6 +59,12 @@ describe('Peterson torsion polynomial (REFERENCES.md check value 11, tolerance 1
     expect(r.warnings).toEqual([expect.objectContaining({ path: 'features[0]', message: expect.stringMatching(/outside the Peterson/) })]);
   });
 
+  it('when either shoulder segment is hollow, then a warning says the fits are for solid shafts', () => {
+    const input = fillet(60, 50, 2.5);
+    input.segments[1].id = 30;
+    expect(evaluateShaft(input).warnings).toEqual([{ path: 'features[0]', message: expect.stringMatching(/solid shafts/) }]);
+  });
+
   it('when the author enters Kts with a source, then it replaces the computed one and the method says so', () => {
     const input = fillet(60, 50, 2.5);
     Object.assign(input.features[0], { Kts: 1.9, source: 'Peterson 3rd ed. Chart 3.12, read by hand' });

@@ -13,7 +13,7 @@ import { csrfToken } from './csrf';
 import { loginRateLimit } from './login-rate-limit';
 
 function sessionBody(req: Request, user: SessionUser | null, config: Config) {
-  return { user, rules: defineRulesFor(user), csrfToken: csrfToken(req, true), organisation: config.ORG_NAME };
+  return { user, rules: defineRulesFor(user), csrfToken: csrfToken(req, false), organisation: config.ORG_NAME };
 }
 
 function authenticate(passport: Passport, req: Request): Promise<{ user: SessionUser | false; info?: { message?: string } }> {

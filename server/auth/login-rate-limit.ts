@@ -14,6 +14,8 @@ export function loginRateLimit(sequelize: Sequelize, config: Config): RequestHan
     store: new MariaDbRateLimitStore(sequelize, { prefix: 'login:' }),
     windowMs: config.LOGIN_RATE_WINDOW_MINUTES * 60_000,
     limit: config.LOGIN_RATE_LIMIT,
+    // Only failed attempts count, so people who sign in often are never locked out by success.
+    skipSuccessfulRequests: true,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     keyGenerator: (req) => {

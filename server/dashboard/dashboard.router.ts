@@ -5,6 +5,7 @@ import type { AppAbility } from '../../shared/authz/app-ability';
 import { Project, User } from '../db/models';
 import { accessibleWhere } from '../authz/accessible-where';
 import { listAudit } from '../audit/audit.router';
+import { queuesOf } from './queues';
 
 /**
  * "What waits for me": the hand-overs addressed to this person. Calcs and rule-set versions
@@ -27,6 +28,9 @@ export function dashboardRouter(): Router {
   const router = Router();
   router.get('/', async (req, res) => {
     res.json(await dashboardFor(req.ability));
+  });
+  router.get('/queues', async (req, res) => {
+    res.json(await queuesOf(req.user!));
   });
   return router;
 }

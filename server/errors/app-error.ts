@@ -10,7 +10,7 @@ export class AppError extends Error {
     readonly code: string,
     readonly status: number,
     message: string,
-    readonly details?: { fieldErrors?: FieldErrors },
+    readonly details?: { fieldErrors?: FieldErrors; [extra: string]: unknown },
     readonly expose = status < 500,
     options?: { cause?: unknown },
   ) {

@@ -43,18 +43,18 @@ type Builder = AbilityBuilder<AppAbility>;
 
 const RULES_BY_ROLE: Record<Role, (user: AbilityUser, b: Builder) => void> = {
   author(user, { can }) {
-    can('read', ['Project', 'Calc', 'Revision', 'RuleSet']);
+    can('read', ['Calc', 'Revision', 'RuleSet']);
     can('create', 'Calc');
     can(['update', 'submit'], 'Revision', { authorId: user.id, status: { $in: ['draft', 'returned'] } });
     can('sign', 'Revision', { authorId: user.id, status: { $in: ['draft', 'returned'] } });
   },
   checker(user, { can }) {
-    can('read', ['Project', 'Calc', 'Revision', 'RuleSet']);
+    can('read', ['Calc', 'Revision', 'RuleSet']);
     // Independence: never your own work. Editors of earlier revisions are excluded by the workflow service.
     can(['check', 'return', 'sign'], 'Revision', { status: 'in_check', authorId: { $ne: user.id } });
   },
   approver(user, { can }) {
-    can('read', ['Project', 'Calc', 'Revision', 'RuleSet']);
+    can('read', ['Calc', 'Revision', 'RuleSet']);
     can(['approve', 'return', 'sign'], 'Revision', {
       status: 'checked', authorId: { $ne: user.id }, checkerId: { $ne: user.id },
     });
@@ -81,6 +81,7 @@ export function defineRulesFor(user: AbilityUser | null | undefined): AppRawRule
   if (!user) return builder.rules;
   builder.can('read', 'User', { id: user.id });
   builder.can('changePassword', 'User', { id: user.id });
+  // Archived projects stay visible to compliance and admins (audits, records), not in daily work.
   builder.can('read', 'Project', { status: 'active' });
   for (const role of user.roles) {
     const define = RULES_BY_ROLE[role];

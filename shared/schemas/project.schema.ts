@@ -16,7 +16,7 @@ export const createProjectSchema = z.object({
   client: z.string().trim().max(160, 'is at most 160 characters').default(''),
   description: z.string().trim().max(2000, 'is at most 2000 characters').default(''),
   revisionScheme: z.enum(REVISION_SCHEMES, { error: 'must be letters (A, B, C…) or numbers (0, 1, 2…)' }).default('letters'),
-});
+}).strict();
 export type CreateProjectRequest = z.infer<typeof createProjectSchema>;
 
 export const updateProjectSchema = createProjectSchema

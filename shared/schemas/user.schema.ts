@@ -18,7 +18,7 @@ export const createUserSchema = z.object({
   roles,
   // The admin sets a first password that the person changes; admins never see it again.
   initialPassword: newPasswordSchema,
-});
+}).strict();
 export type CreateUserRequest = z.infer<typeof createUserSchema>;
 
 export const updateUserSchema = z

@@ -1,0 +1,64 @@
+import type { CalcDto, FindingDto, ManualItemState, PersonRef, RevisionDto, RevisionSummary, SignatureDto } from '../../shared/schemas/calc-dto';
+import { Calc, Finding, Project, Revision, RuleSetRecord, Signature, User } from '../db/models';
+
+/** Associations every revision read needs, loaded in one query. */
+export const REVISION_INCLUDE = [
+  { model: RuleSetRecord, as: 'ruleSet', attributes: ['id', 'code', 'version', 'title', 'contentHash', 'document'] },
+  { model: User, as: 'author', attributes: ['id', 'displayName'] },
+  { model: User, as: 'checker', attributes: ['id', 'displayName'] },
+  { model: User, as: 'approver', attributes: ['id', 'displayName'] },
+];
+
+type Loaded = Revision & { ruleSet?: RuleSetRecord; author?: User; checker?: User | null; approver?: User | null };
+
+const person = (u: User | null | undefined): PersonRef | null => (u ? { id: u.id, name: u.displayName } : null);
+const iso = (d: Date | null | undefined) => (d ? d.toISOString() : null);
+
+export function toRevisionSummary(r: Loaded): RevisionSummary {
+  return {
+    id: r.id, seq: r.seq, label: r.label, status: r.status, verdict: r.verdict,
+    author: person(r.author) ?? { id: r.authorId, name: 'unknown' }, checker: person(r.checker), approver: person(r.approver),
+    ruleSet: { id: r.ruleSetId, code: r.ruleSet?.code ?? '', version: r.ruleSet?.version ?? 0, title: r.ruleSet?.title ?? '' },
+    reasonForChange: r.reasonForChange, updatedAt: r.updatedAt.toISOString(), approvedAt: iso(r.approvedAt),
+  };
+}
+
+export function toSignatureDto(s: Signature, currentHash: string | null): SignatureDto {
+  return {
+    id: s.id, printedName: s.printedName, role: s.role, meaning: s.meaning, signedAt: s.signedAt.toISOString(),
+    contentHash: s.contentHash, isValid: currentHash !== null && s.contentHash === currentHash,
+  };
+}
+
+export function toFindingDto(f: Finding, names: Map<number, string>): FindingDto {
+  const ref = (id: number | null) => (id == null ? null : { id, name: names.get(id) ?? 'unknown' });
+  return {
+    id: f.id, clauseRef: f.clauseRef, text: f.text, status: f.status, raisedBy: ref(f.raisedBy)!, createdAt: f.createdAt.toISOString(),
+    answer: f.answer, answeredBy: ref(f.answeredBy), answeredAt: iso(f.answeredAt), closedBy: ref(f.closedBy), closedAt: iso(f.closedAt),
+  };
+}
+
+export interface RevisionParts {
+  signatures: Signature[]; findings: Finding[]; names: Map<number, string>; editorIds: number[]; currentHash: string | null;
+  inputIssues: RevisionDto['inputIssues'];
+}
+
+export function toRevisionDto(r: Loaded, parts: RevisionParts): RevisionDto {
+  return {
+    ...toRevisionSummary(r), calcId: r.calcId, lockVersion: r.lockVersion,
+    input: JSON.parse(r.input), result: r.result ? JSON.parse(r.result) : null, checklist: r.checklist ? JSON.parse(r.checklist) : null,
+    inputIssues: parts.inputIssues, manualItems: JSON.parse(r.manualItems) as Record<string, ManualItemState>,
+    contentHash: r.contentHash, signatures: parts.signatures.map((s) => toSignatureDto(s, parts.currentHash)),
+    findings: parts.findings.map((f) => toFindingDto(f, parts.names)),
+    submittedAt: iso(r.submittedAt), checkedAt: iso(r.checkedAt), createdAt: r.createdAt.toISOString(), editorIds: parts.editorIds,
+  };
+}
+
+export function toCalcDto(calc: Calc & { Project?: Project }, revisions: Loaded[]): CalcDto {
+  const summaries = revisions.map(toRevisionSummary).sort((a, b) => a.seq - b.seq);
+  return {
+    id: calc.id, projectId: calc.projectId, projectCode: calc.Project?.code ?? '', projectName: calc.Project?.name ?? '',
+    number: calc.number, title: calc.title, partRef: calc.partRef, createdAt: calc.createdAt.toISOString(),
+    latest: summaries[summaries.length - 1], revisions: summaries,
+  };
+}

@@ -1,0 +1,39 @@
+import {
+  Model, DataTypes, type Sequelize, type InferAttributes, type InferCreationAttributes, type CreationOptional,
+} from 'sequelize';
+
+/** A checker's finding on a revision (or one checklist row), and the author's answer to it. */
+export class Finding extends Model<InferAttributes<Finding>, InferCreationAttributes<Finding>> {
+  declare id: CreationOptional<number>;
+  declare revisionId: number;
+  declare clauseRef: string | null;
+  declare text: string;
+  declare status: CreationOptional<'open' | 'answered' | 'closed'>;
+  declare raisedBy: number;
+  declare answer: CreationOptional<string | null>;
+  declare answeredBy: CreationOptional<number | null>;
+  declare answeredAt: CreationOptional<Date | null>;
+  declare closedBy: CreationOptional<number | null>;
+  declare closedAt: CreationOptional<Date | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize): void {
+    const user = { type: DataTypes.INTEGER.UNSIGNED, allowNull: true };
+    const when = { type: DataTypes.DATE(3), allowNull: true };
+    Finding.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        revisionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        clauseRef: { type: DataTypes.STRING(120), allowNull: true },
+        text: { type: DataTypes.TEXT, allowNull: false },
+        status: { type: DataTypes.ENUM('open', 'answered', 'closed'), allowNull: false, defaultValue: 'open' },
+        raisedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        answer: { type: DataTypes.TEXT, allowNull: true },
+        answeredBy: user, answeredAt: when, closedBy: user, closedAt: when,
+        createdAt: DataTypes.DATE(3), updatedAt: DataTypes.DATE(3),
+      },
+      { sequelize, tableName: 'findings', underscored: true },
+    );
+  }
+}

@@ -1,0 +1,33 @@
+import { Op, type Transaction } from 'sequelize';
+import type { Role } from '../../shared/authz/roles';
+import { MailOutbox, User, UserRole } from '../db/models';
+
+export interface HandOverMail {
+  event: string;
+  subject: string;
+  body: string;
+}
+
+/**
+ * Queues a hand-over mail in the caller's transaction: it is sent if and only if the hand-over
+ * commits, and a sender delivers it later, so a mail server outage never blocks the workflow.
+ */
+export async function enqueueMail(recipients: string[], mail: HandOverMail, transaction: Transaction): Promise<void> {
+  const unique = [...new Set(recipients.filter(Boolean))];
+  if (unique.length === 0) return;
+  const now = new Date();
+  await MailOutbox.bulkCreate(unique.map((recipient) => ({ ...mail, recipient, nextAttemptAt: now })), { transaction });
+}
+
+/** Active people holding a role, except those listed (e.g. the calc's own editors). */
+export async function emailsOfRole(role: Role, excludeIds: number[], transaction?: Transaction): Promise<string[]> {
+  const rows = await UserRole.findAll({ where: { role, userId: { [Op.notIn]: excludeIds.length ? excludeIds : [0] } }, transaction });
+  if (rows.length === 0) return [];
+  const users = await User.findAll({ where: { id: { [Op.in]: rows.map((r) => r.userId) }, active: true }, transaction });
+  return users.map((u) => u.email);
+}
+
+export async function emailOf(userId: number, transaction?: Transaction): Promise<string[]> {
+  const user = await User.findByPk(userId, { transaction });
+  return user && user.active ? [user.email] : [];
+}

@@ -1,0 +1,50 @@
+import type { RevisionState } from './revision.schema';
+
+export interface PersonRef { id: number; name: string }
+
+export interface SignatureDto {
+  id: number; printedName: string; role: string; meaning: 'authored' | 'checked' | 'approved';
+  signedAt: string; contentHash: string;
+  /** False once the revision's content no longer hashes to what was signed. */
+  isValid: boolean;
+}
+
+export interface FindingDto {
+  id: number; clauseRef: string | null; text: string; status: 'open' | 'answered' | 'closed';
+  raisedBy: PersonRef; createdAt: string;
+  answer: string | null; answeredBy: PersonRef | null; answeredAt: string | null;
+  closedBy: PersonRef | null; closedAt: string | null;
+}
+
+export interface ManualItemState { done: boolean; note: string; by: string | null; at: string | null }
+
+export interface InputIssue { path: string; message: string }
+
+export interface RevisionSummary {
+  id: number; seq: number; label: string; status: RevisionState; verdict: string | null;
+  author: PersonRef; checker: PersonRef | null; approver: PersonRef | null;
+  ruleSet: { id: number; code: string; version: number; title: string };
+  reasonForChange: string; updatedAt: string; approvedAt: string | null;
+}
+
+export interface RevisionDto extends RevisionSummary {
+  calcId: number; lockVersion: number;
+  input: Record<string, unknown>;
+  result: unknown | null;
+  checklist: unknown | null;
+  inputIssues: InputIssue[];
+  manualItems: Record<string, ManualItemState>;
+  contentHash: string | null;
+  signatures: SignatureDto[];
+  findings: FindingDto[];
+  submittedAt: string | null; checkedAt: string | null; createdAt: string;
+  /** People who ever edited this calc: none of them may check or approve it. */
+  editorIds: number[];
+}
+
+export interface CalcDto {
+  id: number; projectId: number; projectCode: string; projectName: string;
+  number: string; title: string; partRef: string; createdAt: string;
+  latest: RevisionSummary;
+  revisions: RevisionSummary[];
+}

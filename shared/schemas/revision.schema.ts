@@ -1,0 +1,80 @@
+import { z } from 'zod';
+
+export const REVISION_STATES = ['draft', 'in_check', 'returned', 'checked', 'approved', 'superseded', 'withdrawn'] as const;
+export type RevisionState = (typeof REVISION_STATES)[number];
+
+export const STATE_LABELS: Record<RevisionState, string> = {
+  draft: 'Draft', in_check: 'In check', returned: 'Returned', checked: 'Checked',
+  approved: 'Approved', superseded: 'Superseded', withdrawn: 'Withdrawn',
+};
+
+/** States in which the author may still change the content. */
+export const EDITABLE_STATES: readonly RevisionState[] = ['draft', 'returned'];
+
+const calcNumber = z.string({ error: 'is required' }).trim().min(2, 'must be at least 2 characters').max(40, 'is at most 40 characters')
+  .regex(/^[A-Za-z0-9][A-Za-z0-9./-]*$/, 'may use letters, digits, dot, slash and dash');
+
+/** The author's input is kept even while incomplete, so autosave never loses work; 256 kB is ample. */
+export const draftInputSchema = z.record(z.string(), z.unknown(), { error: 'must be a JSON object' })
+  .refine((v) => JSON.stringify(v).length <= 262_144, 'is larger than 256 kB');
+
+export const createCalcSchema = z.object({
+  projectId: z.number({ error: 'must be a number' }).int().positive(),
+  number: calcNumber,
+  title: z.string({ error: 'is required' }).trim().min(3, 'must be at least 3 characters').max(200, 'is at most 200 characters'),
+  partRef: z.string().trim().max(120, 'is at most 120 characters').default(''),
+  ruleSetId: z.number({ error: 'must be a number' }).int().positive(),
+  input: draftInputSchema,
+}).strict();
+export type CreateCalcRequest = z.infer<typeof createCalcSchema>;
+
+export const saveRevisionSchema = z.object({
+  input: draftInputSchema,
+  ruleSetId: z.number().int().positive().optional(),
+  lockVersion: z.number({ error: 'is required (the version you started from)' }).int().min(0),
+}).strict();
+export type SaveRevisionRequest = z.infer<typeof saveRevisionSchema>;
+
+export const signSchema = z.object({
+  password: z.string({ error: 'is required' }).min(1, 'is required').max(256),
+  meaning: z.enum(['authored', 'checked', 'approved'], { error: 'must be authored, checked or approved' }),
+  idempotencyKey: z.string({ error: 'is required' }).regex(/^[A-Za-z0-9-]{16,64}$/, 'must be 16–64 letters, digits or dashes'),
+  lockVersion: z.number({ error: 'is required' }).int().min(0),
+}).strict();
+export type SignRequest = z.infer<typeof signSchema>;
+
+export const returnSchema = z.object({
+  reason: z.string({ error: 'is required' }).trim().min(5, 'must say why, in at least 5 characters').max(4000),
+  lockVersion: z.number({ error: 'is required' }).int().min(0),
+}).strict();
+
+export const withdrawSchema = returnSchema;
+
+export const newRevisionSchema = z.object({
+  reasonForChange: z.string({ error: 'is required' }).trim().min(5, 'must say why, in at least 5 characters').max(4000),
+}).strict();
+
+export const findingSchema = z.object({
+  text: z.string({ error: 'is required' }).trim().min(3, 'must be at least 3 characters').max(4000),
+  clauseRef: z.string().trim().max(120).optional(),
+}).strict();
+
+export const answerSchema = z.object({
+  answer: z.string({ error: 'is required' }).trim().min(3, 'must be at least 3 characters').max(4000),
+}).strict();
+
+export const manualItemSchema = z.object({
+  done: z.boolean({ error: 'must be true or false' }),
+  note: z.string().trim().max(1000).default(''),
+}).strict();
+
+export const calcListQuerySchema = z.object({
+  projectId: z.coerce.number().int().positive().optional(),
+  status: z.enum(REVISION_STATES).optional(),
+  q: z.string().trim().max(100).optional(),
+  page: z.coerce.number().int().min(0).default(0),
+  size: z.coerce.number().int().min(1).max(200).default(25),
+  sort: z.enum(['number', 'title', 'updatedAt', 'status']).default('updatedAt'),
+  dir: z.enum(['asc', 'desc']).default('desc'),
+});
+export type CalcListQuery = z.infer<typeof calcListQuerySchema>;

@@ -40,15 +40,20 @@ describe('creating projects', () => {
 });
 
 describe('reading projects', () => {
-  // Archived projects stay on record: every role's rules read projects without a status condition.
-  it('when a project is archived, then it is still readable and shows as archived', async () => {
-    const { session: author } = await signedInAs(app, ['author']);
+  // Archived projects leave daily work but stay on record for compliance and admins.
+  it('when a project is archived, then authors no longer see it but compliance and admins still read it', async () => {
     const archived = await createTestProject({ status: 'archived' });
+    const { session: author } = await signedInAs(app, ['author']);
+    const { session: compliance } = await signedInAs(app, ['compliance']);
+    const { session: admin } = await signedInAs(app, ['admin']);
 
-    const res = await author.get(`/api/projects/${archived.id}`);
+    const [byAuthor, byCompliance, byAdmin] = await Promise.all([
+      author.get(`/api/projects/${archived.id}`), compliance.get(`/api/projects/${archived.id}`), admin.get(`/api/projects/${archived.id}`),
+    ]);
 
-    expect(res.status).toBe(200);
-    expect(res.body.status).toBe('archived');
+    expect(byAuthor.status).toBe(403);
+    expect(byCompliance.status).toBe(200);
+    expect(byAdmin.body.status).toBe('archived');
   });
 
   it('when the id is unknown, then it is a 404; when it is not a number, a 400', async () => {

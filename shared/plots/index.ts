@@ -1,0 +1,8 @@
+/*
+ * Plot geometry for Torquetrail: the shaft outline to scale and the diagrams along it, as plain
+ * shapes and series in the calc's units. No framework and no DOM, so the PDF report can reuse it.
+ */
+export type { Axis, Chart, LimitLine, PlacedLimit, Point, Series } from './plot-types';
+export { niceAxis, niceStep, valueRange } from './ticks';
+export { torquePlot, shearPlot, twistPlot } from './diagrams';
+export { shaftOutline, featureTag, type ShaftOutline, type OutlineSegment, type OutlineFeature, type OutlineRect, type MarkShape, type OutlineInput } from './outline';

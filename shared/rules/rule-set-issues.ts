@@ -68,8 +68,9 @@ export function toRuleSetIssues(issues: readonly core.$ZodIssue[], prefix: reado
       for (const key of issue.keys) out.push({ path: formatPath([...path, key]), message: `unknown field "${key}"` });
     } else if (issue.code === 'invalid_union' && issue.errors.length > 0) {
       const meant = meantBranch(issue);
+      const isMissing = issue.errors.every((b) => b.every((i) => i.path.length === 0 && i.code === 'invalid_type' && i.input === undefined));
       if (meant) out.push(...toRuleSetIssues(meant, path));
-      else out.push({ path: formatPath(path), message: unionMessage(path) });
+      else out.push({ path: formatPath(path), message: isMissing ? `is missing; it ${unionMessage(path)}` : unionMessage(path) });
     } else {
       out.push({ path: formatPath(path), message: single(issue, path) });
     }

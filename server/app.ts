@@ -15,6 +15,15 @@ import { projectsRouter } from './projects/projects.router';
 import { auditRouter } from './audit/audit.router';
 import { dashboardRouter } from './dashboard/dashboard.router';
 import { apiNotFound, errorHandler } from './errors/error-handler';
+import { calcsRouter } from './calcs/calcs.router';
+import { revisionsRouter, findingsRouter, type RevisionServices } from './revisions/revisions.router';
+import { CalcsService } from './calcs/calcs.service';
+import { LifecycleService } from './calcs/lifecycle.service';
+import { WorkflowService } from './workflow/workflow.service';
+import { ReviewService } from './workflow/review.service';
+import { ruleSetsRouter } from './rule-sets/rule-sets.router';
+import { RuleSetsService } from './rule-sets/rule-sets.service';
+import { ImpactService } from './rule-sets/impact.service';
 
 export interface AppDeps {
   sequelize: Sequelize;
@@ -39,6 +48,11 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   app.use('/api/projects', requireSignIn, projectsRouter(sequelize));
   app.use('/api/audit', requireSignIn, auditRouter());
   app.use('/api/dashboard', requireSignIn, dashboardRouter());
+  const services = calcServices(sequelize, config);
+  app.use('/api/calcs', requireSignIn, calcsRouter(services.calcs, services.lifecycle));
+  app.use('/api/revisions', requireSignIn, revisionsRouter(services));
+  app.use('/api/findings', requireSignIn, findingsRouter(services.review));
+  app.use('/api/rule-sets', requireSignIn, ruleSetsRouter(new RuleSetsService(sequelize), new ImpactService(sequelize)));
   app.use('/api', apiNotFound);
 
   serveClient(app, config);
@@ -53,4 +67,10 @@ function serveClient(app: Express, config: Config): void {
   app.use(express.static(dist, { index: false, maxAge: '1h' }));
   // Client-side routes all load the same page; the Angular router takes it from there.
   app.get('/{*splat}', (_req, res) => res.sendFile(index, { maxAge: 0 }));
+}
+
+function calcServices(sequelize: Sequelize, config: Config): RevisionServices {
+  const calcs = new CalcsService(sequelize);
+  const workflow = new WorkflowService(sequelize, config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}`);
+  return { calcs, workflow, lifecycle: new LifecycleService(sequelize, calcs), review: new ReviewService(sequelize, workflow) };
 }

@@ -5,6 +5,7 @@ import { Project, User, UserRole } from './models';
 import { hashPassword } from '../auth/password';
 import { appendAudit } from '../audit/audit.service';
 import { DEMO_PASSWORD, DEMO_PROJECTS, DEMO_USERS } from './demo-data';
+import { seedRuleSets } from '../rule-sets/seed-rule-sets';
 
 const SYSTEM = { id: null, name: 'demo data loader', ip: null };
 
@@ -17,6 +18,8 @@ function printAccounts(): void {
 async function main(): Promise<void> {
   const sequelize = createSequelize(loadConfig());
   try {
+    const standards = await seedRuleSets(sequelize);
+    if (standards > 0) console.log(`design standards loaded from rules/: ${standards}`);
     if ((await User.count()) > 0) {
       console.log('demo data already present; nothing loaded');
       printAccounts();

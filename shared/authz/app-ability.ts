@@ -1,7 +1,7 @@
 import { AbilityBuilder, PureAbility, fieldPatternMatcher, type RawRuleOf, type ForcedSubject } from '@casl/ability';
 import {
   createFactory, $eq, $ne, $in, $nin, $lt, $lte, $gt, $gte,
-  eq, ne, within, nin, lt, lte, gt, gte,
+  and, eq, ne, within, nin, lt, lte, gt, gte,
 } from '@ucast/mongo2js';
 import type { Role } from './roles';
 
@@ -27,7 +27,8 @@ export type RestrictedConditions = Record<string, Scalar | Partial<Record<Op, Sc
 
 const conditionsMatcher = createFactory(
   { $eq, $ne, $in, $nin, $lt, $lte, $gt, $gte },
-  { eq, ne, in: within, nin, lt, lte, gt, gte },
+  // `and` joins the fields of one condition object; it is implicit, not an operator rules may write.
+  { and, eq, ne, in: within, nin, lt, lte, gt, gte },
 ) as unknown as (conditions: RestrictedConditions) => (object: object) => boolean;
 
 export type AppAbility = PureAbility<[Action, Subjects], RestrictedConditions>;

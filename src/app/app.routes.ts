@@ -21,6 +21,18 @@ export const routes: Routes = [
         loadComponent: () => import('./features/projects/projects-page'),
       },
       {
+        path: 'projects/:id',
+        title: 'Project · Torquetrail',
+        canActivate: [abilityGuard('read', 'Project')],
+        loadComponent: () => import('./features/calcs/project-calcs/project-calcs'),
+      },
+      {
+        path: 'calcs/:id',
+        title: 'Calc · Torquetrail',
+        canActivate: [abilityGuard('read', 'Calc')],
+        loadComponent: () => import('./features/calcs/calc-page/calc-page'),
+      },
+      {
         path: 'audit',
         title: 'Audit trail · Torquetrail',
         canActivate: [abilityGuard('read', 'AuditEvent')],

@@ -49,7 +49,7 @@ describe('signing in through the real page', () => {
     const nav = page.getByRole('navigation', { name: 'Main' });
     for (const label of visible) await nav.getByRole('link', { name: label }).waitFor();
     for (const label of hidden) expect(await nav.getByRole('link', { name: label }).count()).toBe(0);
-    await page.getByText('Nothing is waiting for you').waitFor();
+    await page.getByRole('heading', { name: 'Waiting for you' }).waitFor();
     await session.screenshot(page, `dashboard-${roles.join('-')}`);
     expect(await accessibilityViolations(page)).toEqual([]);
     expect(session.outsideRequests).toEqual([]);

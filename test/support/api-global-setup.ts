@@ -3,6 +3,7 @@
 import { loadConfig } from '../../server/config';
 import { createSequelize } from '../../server/db';
 import { createMigrator } from '../../server/db/migrator';
+import { seedRuleSets } from '../../server/rule-sets/seed-rule-sets';
 
 export default async function globalSetup(): Promise<void> {
   const config = loadConfig();
@@ -12,6 +13,8 @@ export default async function globalSetup(): Promise<void> {
   const sequelize = createSequelize(config);
   try {
     await createMigrator(sequelize).up();
+    // The shipped design standards are reference data every calc needs.
+    await seedRuleSets(sequelize);
   } finally {
     await sequelize.close();
   }

@@ -11,10 +11,12 @@ import { SafetyNote } from '../../ui/safety-note';
 import { AuditActionLabelPipe } from '../../ui/audit-action-label';
 import { DashboardApi } from './dashboard-api';
 import { WAITING_HINTS } from './waiting-hints';
+import { QueueTable } from './queue-table';
+import { CalcsApi } from '../calcs/calcs-api';
 
 @Component({
   selector: 'tt-dashboard',
-  imports: [DatePipe, RouterLink, MatIconModule, MatProgressBarModule, EmptyState, SafetyNote, AuditActionLabelPipe],
+  imports: [DatePipe, RouterLink, MatIconModule, MatProgressBarModule, EmptyState, SafetyNote, AuditActionLabelPipe, QueueTable],
   templateUrl: './dashboard.html',
   styleUrl: './dashboard.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -22,6 +24,7 @@ import { WAITING_HINTS } from './waiting-hints';
 export default class Dashboard {
   private readonly session = inject(SessionStore);
   protected readonly overview = inject(DashboardApi).overview();
+  protected readonly queues = inject(CalcsApi).queues();
 
   protected readonly user = this.session.user;
   protected readonly firstName = computed(() => this.user()?.displayName.split(' ')[0] ?? '');

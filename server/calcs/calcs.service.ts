@@ -1,0 +1,108 @@
+import { ForbiddenError } from '@casl/ability';
+import type { Sequelize, Transaction } from 'sequelize';
+import type { AppAbility } from '../../shared/authz/app-ability';
+import type { CalcDto, RevisionDto } from '../../shared/schemas/calc-dto';
+import type { CreateCalcRequest, SaveRevisionRequest } from '../../shared/schemas/revision.schema';
+import { EDITABLE_STATES } from '../../shared/schemas/revision.schema';
+import { Calc, Project, Revision } from '../db/models';
+import { AppError } from '../errors/app-error';
+import { appendAudit, type Actor } from '../audit/audit.service';
+import { loadRuleSet } from '../rule-sets/rule-set-cache';
+import { REVISION_INCLUDE, toCalcDto } from './calc-mapping';
+import { assertCan, loadCalc, loadRevision, recordEditor } from './calc-access';
+import { computeRecord } from './revision-content';
+import { currentHashOf, readRevision } from './revision-read';
+import { jsonDiff } from './content-diff';
+import { revisionLabel } from './revision-label';
+
+/** Calcs and the content of their revisions. Workflow transitions live in server/workflow. */
+export class CalcsService {
+  constructor(private readonly sequelize: Sequelize) {}
+
+  async get(ability: AppAbility, id: number): Promise<CalcDto> {
+    ForbiddenError.from(ability).throwUnlessCan('read', 'Calc');
+    const calc = await Calc.findByPk(id, { include: [Project] });
+    if (!calc) throw AppError.notFound(`Calc ${id}`);
+    const revisions = await Revision.findAll({ where: { calcId: id }, include: REVISION_INCLUDE });
+    return toCalcDto(calc, revisions);
+  }
+
+  async create(ability: AppAbility, actor: Actor & { id: number }, dto: CreateCalcRequest): Promise<CalcDto> {
+    ForbiddenError.from(ability).setMessage('Only authors start calcs').throwUnlessCan('create', 'Calc');
+    const project = await Project.findByPk(dto.projectId);
+    if (!project || project.status !== 'active') {
+      throw new AppError('validation', 400, 'Choose an active project', { fieldErrors: { projectId: [project ? 'is archived' : 'does not exist'] } });
+    }
+    const { record, doc } = await loadRuleSet(dto.ruleSetId);
+    if (record.status !== 'effective') {
+      throw new AppError('validation', 400, `${record.code} v${record.version} is not in effect`, { fieldErrors: { ruleSetId: ['is not an effective version'] } });
+    }
+    if (await Calc.findOne({ where: { projectId: dto.projectId, number: dto.number } })) {
+      throw new AppError('conflict', 409, `Calc number ${dto.number} is already used in ${project.code}`, { fieldErrors: { number: ['is already used in this project'] } });
+    }
+    const computed = await computeRecord(dto.input, doc);
+    const calcId = await this.sequelize.transaction(async (transaction) => {
+      const calc = await Calc.create({ projectId: project.id, number: dto.number, title: dto.title, partRef: dto.partRef, createdBy: actor.id }, { transaction });
+      const revision = await Revision.create({
+        calcId: calc.id, seq: 0, label: revisionLabel(project.revisionScheme, 0), authorId: actor.id, ruleSetId: record.id,
+        input: JSON.stringify(dto.input), reasonForChange: 'First issue', manualItems: '{}', ...stored(computed),
+      }, { transaction });
+      await this.refreshHash(revision, transaction);
+      await recordEditor(calc.id, actor.id, transaction);
+      await appendAudit(this.sequelize, actor, {
+        action: 'calc.created', entityType: 'Calc', entityId: calc.id,
+        payload: { project: project.code, number: dto.number, title: dto.title, revision: revision.label, ruleSet: `${record.code} v${record.version}` },
+      }, transaction);
+      return calc.id;
+    });
+    return this.get(ability, calcId);
+  }
+
+  /** Saves the author's input. A stale `lockVersion` is a 409 carrying the stored version, never an overwrite. */
+  async save(ability: AppAbility, actor: Actor & { id: number }, revisionId: number, dto: SaveRevisionRequest): Promise<RevisionDto> {
+    await this.sequelize.transaction(async (transaction) => {
+      const revision = await loadRevision(revisionId, transaction);
+      if (!EDITABLE_STATES.includes(revision.status)) {
+        throw new AppError('read_only', 409, `Revision ${revision.label} is ${revision.status.replace('_', ' ')} and cannot be edited; start a new revision to change it`);
+      }
+      assertCan(ability, 'update', revision, 'Only the author of this revision can edit it');
+      if (revision.lockVersion !== dto.lockVersion) {
+        const current = await readRevision(ability, revisionId, transaction);
+        throw new AppError('conflict', 409, 'This revision was saved elsewhere since you opened it', { current });
+      }
+      const ruleSetId = dto.ruleSetId ?? revision.ruleSetId;
+      const { record, doc } = await loadRuleSet(ruleSetId, transaction);
+      if (ruleSetId !== revision.ruleSetId && record.status !== 'effective') {
+        throw new AppError('validation', 400, 'Only an effective standard can be chosen', { fieldErrors: { ruleSetId: ['is not an effective version'] } });
+      }
+      const computed = await computeRecord(dto.input, doc);
+      const diff = jsonDiff(JSON.parse(revision.input), dto.input, `${revision.label}@${revision.lockVersion}`, `${revision.label}@${revision.lockVersion + 1}`);
+      revision.set({ input: JSON.stringify(dto.input), ruleSetId, lockVersion: revision.lockVersion + 1, ...stored(computed) });
+      await revision.save({ transaction });
+      await revision.reload({ include: REVISION_INCLUDE, transaction });
+      await this.refreshHash(revision, transaction);
+      await recordEditor(revision.calcId, actor.id, transaction);
+      await appendAudit(this.sequelize, actor, {
+        action: 'revision.saved', entityType: 'Revision', entityId: revision.id,
+        payload: { calcId: revision.calcId, revision: revision.label, lockVersion: revision.lockVersion, verdict: revision.verdict, ruleSet: `${record.code} v${record.version}` },
+        diff,
+      }, transaction);
+    });
+    return readRevision(ability, revisionId);
+  }
+
+  async refreshHash(revision: Revision, transaction: Transaction): Promise<void> {
+    if (!revision.ruleSet) await revision.reload({ include: REVISION_INCLUDE, transaction });
+    revision.contentHash = await currentHashOf(revision, transaction);
+    await revision.save({ transaction });
+  }
+}
+
+function stored(c: Awaited<ReturnType<typeof computeRecord>>) {
+  return {
+    result: c.result ? JSON.stringify(c.result) : null,
+    checklist: c.checklist ? JSON.stringify(c.checklist) : null,
+    verdict: c.verdict,
+  };
+}
+

@@ -1,0 +1,50 @@
+import { createHash } from 'node:crypto';
+import canonicalize from 'canonicalize';
+import { ENGINE_VERSION, evaluateValidInput, validateCalcInput, type CalcInput, type CalcResult } from '../../shared/engine';
+import { applyRuleSetMethods, evaluateChecklist, type Checklist, type RuleSet } from '../../shared/rules';
+import type { InputIssue } from '../../shared/schemas/calc-dto';
+
+/** What the server stores as the record of truth for a revision's content. */
+export interface ComputedRecord {
+  result: CalcResult | null;
+  checklist: Checklist | null;
+  verdict: string | null;
+  inputIssues: InputIssue[];
+}
+
+/**
+ * Runs the shared engine and the rule set on the author's input. Incomplete or invalid input is
+ * kept (autosave never loses work) and reported as issues; only valid input gets a result.
+ */
+export async function computeRecord(input: unknown, ruleSet: RuleSet): Promise<ComputedRecord> {
+  const validated = validateCalcInput(input);
+  if (!validated.ok) return { result: null, checklist: null, verdict: null, inputIssues: validated.issues };
+  const effective: CalcInput = applyRuleSetMethods(validated.value, ruleSet);
+  try {
+    const result = evaluateValidInput(effective);
+    const checklist = await evaluateChecklist(effective, result, ruleSet);
+    return { result, checklist, verdict: checklist.verdict, inputIssues: [] };
+  } catch (err) {
+    const message = err instanceof Error ? err.message : String(err);
+    return { result: null, checklist: null, verdict: null, inputIssues: [{ path: '', message: `could not be evaluated: ${message}` }] };
+  }
+}
+
+export interface HashedContent {
+  calc: { project: string; number: string; title: string; partRef: string };
+  revision: string;
+  input: unknown;
+  result: unknown;
+  checklist: unknown;
+  engineVersion: string;
+  ruleSet: { code: string; version: number; contentHash: string };
+}
+
+/**
+ * SHA-256 over the RFC 8785 canonical JSON of exactly what a signature vouches for: inputs,
+ * results, engine version, the rule set's identity and content, and the checklist.
+ */
+export function contentHashOf(content: Omit<HashedContent, 'engineVersion'> & { engineVersion?: string }): string {
+  const full: HashedContent = { ...content, engineVersion: content.engineVersion ?? ENGINE_VERSION };
+  return createHash('sha256').update(canonicalize(full) ?? '').digest('hex');
+}

@@ -1,0 +1,41 @@
+import { ForbiddenError } from '@casl/ability';
+import { Op, type Transaction } from 'sequelize';
+import type { AppAbility } from '../../shared/authz/app-ability';
+import type { RevisionDto } from '../../shared/schemas/calc-dto';
+import { validateCalcInput } from '../../shared/engine';
+import { Calc, Finding, Project, Revision, Signature, User } from '../db/models';
+import { toRevisionDto } from './calc-mapping';
+import { editorIdsOf, loadRevision } from './calc-access';
+import { contentHashOf } from './revision-content';
+
+/** Recomputes the content hash from what is stored now, so tampering shows as a broken signature. */
+export async function currentHashOf(revision: Revision, transaction?: Transaction): Promise<string | null> {
+  if (!revision.result || !revision.checklist) return null;
+  const calc = await Calc.findByPk(revision.calcId, { include: [Project], transaction }) as Calc & { Project: Project };
+  const ruleSet = revision.ruleSet;
+  const result = JSON.parse(revision.result) as { engineVersion?: string };
+  return contentHashOf({
+    calc: { project: calc.Project.code, number: calc.number, title: calc.title, partRef: calc.partRef },
+    revision: revision.label, input: JSON.parse(revision.input), result, checklist: JSON.parse(revision.checklist),
+    engineVersion: result.engineVersion, ruleSet: { code: ruleSet?.code ?? '', version: ruleSet?.version ?? 0, contentHash: ruleSet?.contentHash ?? '' },
+  });
+}
+
+export async function readRevision(ability: AppAbility, id: number, transaction?: Transaction): Promise<RevisionDto> {
+  const revision = await loadRevision(id, transaction);
+  ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
+  const [signatures, findings, editorIds, currentHash] = await Promise.all([
+    Signature.findAll({ where: { revisionId: id }, order: [['signedAt', 'ASC']], transaction }),
+    Finding.findAll({ where: { revisionId: id }, order: [['id', 'ASC']], transaction }),
+    editorIdsOf(revision.calcId, transaction),
+    currentHashOf(revision, transaction),
+  ]);
+  const userIds = new Set(findings.flatMap((f) => [f.raisedBy, f.answeredBy, f.closedBy]).filter((v): v is number => v != null));
+  const users = userIds.size ? await User.findAll({ where: { id: { [Op.in]: [...userIds] } }, attributes: ['id', 'displayName'], transaction }) : [];
+  const validated = validateCalcInput(JSON.parse(revision.input));
+  return toRevisionDto(revision, {
+    signatures, findings, editorIds, currentHash,
+    names: new Map(users.map((u) => [u.id, u.displayName])),
+    inputIssues: validated.ok ? [] : validated.issues,
+  });
+}

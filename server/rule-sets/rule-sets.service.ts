@@ -1,0 +1,122 @@
+import { ForbiddenError, subject } from '@casl/ability';
+import { Op, type Sequelize, type Transaction } from 'sequelize';
+import { validateRuleSet } from '../../shared/rules';
+import type { AppAbility } from '../../shared/authz/app-ability';
+import type { RuleSetDto, RuleSetSummary } from '../../shared/schemas/rule-set.schema';
+import { RuleSetRecord, User } from '../db/models';
+import { AppError } from '../errors/app-error';
+import { appendAudit, type Actor } from '../audit/audit.service';
+import { verifyPassword } from '../auth/password';
+import { jsonDiff } from '../calcs/content-diff';
+import { documentHash, toRuleSetDto, toRuleSetSummary } from './rule-set-mapping';
+
+type Person = Actor & { id: number };
+
+/**
+ * Design standards as controlled documents. Compliance drafts a new version, proposes it with an
+ * effective date, and a second compliance user confirms it; effective and retired versions are frozen.
+ */
+export class RuleSetsService {
+  constructor(private readonly sequelize: Sequelize) {}
+
+  async list(ability: AppAbility): Promise<RuleSetSummary[]> {
+    ForbiddenError.from(ability).throwUnlessCan('read', 'RuleSet');
+    const rows = await RuleSetRecord.findAll({ order: [['code', 'ASC'], ['version', 'DESC']] });
+    const names = await namesOf(rows.flatMap((r) => [r.proposedBy, r.confirmedBy]));
+    return rows.map((r) => toRuleSetSummary(r, names));
+  }
+
+  async get(ability: AppAbility, id: number): Promise<RuleSetDto> {
+    ForbiddenError.from(ability).throwUnlessCan('read', 'RuleSet');
+    const record = await this.load(id);
+    return toRuleSetDto(record, await namesOf([record.proposedBy, record.confirmedBy]));
+  }
+
+  async createDraft(ability: AppAbility, actor: Person, fromId: number): Promise<RuleSetDto> {
+    ForbiddenError.from(ability).setMessage('Only compliance drafts design standards').throwUnlessCan('create', subject('RuleSet', { status: 'draft' }));
+    const id = await this.sequelize.transaction(async (transaction) => {
+      const from = await this.load(fromId, transaction);
+      const latest = await RuleSetRecord.max<number, RuleSetRecord>('version', { where: { code: from.code }, transaction });
+      const doc = { ...JSON.parse(from.document), version: latest + 1, status: 'draft', effectiveDate: null, changeSummary: '' };
+      const record = await RuleSetRecord.create({
+        code: from.code, version: latest + 1, title: from.title, effectiveDate: null, document: JSON.stringify(doc),
+        contentHash: documentHash(doc), createdBy: actor.id,
+      }, { transaction });
+      await appendAudit(this.sequelize, actor, { action: 'rule_set.drafted', entityType: 'RuleSet', entityId: record.id, payload: { code: from.code, version: latest + 1, from: from.version } }, transaction);
+      return record.id;
+    });
+    return this.get(ability, id);
+  }
+
+  async updateDraft(ability: AppAbility, actor: Person, id: number, document: Record<string, unknown>, lockVersion: number): Promise<RuleSetDto> {
+    await this.sequelize.transaction(async (transaction) => {
+      const record = await this.load(id, transaction, true);
+      this.assertDraft(ability, record, 'update');
+      if (record.lockVersion !== lockVersion) throw AppError.conflict('Someone else saved this draft since you opened it; reload to see their version');
+      // Identity fields belong to the record, not to what the editor sends.
+      const doc = { ...document, code: record.code, version: record.version, status: 'draft' };
+      const checked = validateRuleSet(doc);
+      if (!checked.ok) throw AppError.validation(Object.fromEntries(checked.issues.map((i) => [`document.${i.path}`, [i.message]])));
+      const diff = jsonDiff(JSON.parse(record.document), checked.value, `${record.code} v${record.version} (saved)`, `${record.code} v${record.version} (new)`);
+      record.set({ document: JSON.stringify(checked.value), title: String(checked.value.title), contentHash: documentHash(checked.value), proposedBy: null, effectiveDate: null });
+      await record.save({ transaction });
+      await appendAudit(this.sequelize, actor, { action: 'rule_set.saved', entityType: 'RuleSet', entityId: id, payload: { code: record.code, version: record.version }, diff }, transaction);
+    });
+    return this.get(ability, id);
+  }
+
+  async propose(ability: AppAbility, actor: Person, id: number, effectiveDate: string, lockVersion: number): Promise<RuleSetDto> {
+    await this.sequelize.transaction(async (transaction) => {
+      const record = await this.load(id, transaction, true);
+      this.assertDraft(ability, record, 'publish');
+      if (record.lockVersion !== lockVersion) throw AppError.conflict('The draft changed since you opened it; review it again');
+      record.set({ proposedBy: actor.id, effectiveDate });
+      await record.save({ transaction });
+      await appendAudit(this.sequelize, actor, { action: 'rule_set.proposed', entityType: 'RuleSet', entityId: id, payload: { code: record.code, version: record.version, effectiveDate } }, transaction);
+    });
+    return this.get(ability, id);
+  }
+
+  /** The second compliance signature: a different person, with their password, makes it effective. */
+  async confirm(ability: AppAbility, actor: Person, id: number, password: string, lockVersion: number): Promise<RuleSetDto> {
+    const user = await User.scope('withPassword').findByPk(actor.id);
+    if (!user || !(await verifyPassword(user.passwordHash, password))) {
+      throw new AppError('validation', 400, 'Password is not correct; nothing was confirmed', { fieldErrors: { password: ['is not correct'] } });
+    }
+    await this.sequelize.transaction(async (transaction) => {
+      const record = await this.load(id, transaction, true);
+      this.assertDraft(ability, record, 'publish');
+      if (record.lockVersion !== lockVersion) throw AppError.conflict('The draft changed since you opened it; review it again');
+      if (!record.proposedBy) throw AppError.conflict('Propose the version with an effective date first');
+      if (record.proposedBy === actor.id) throw new AppError('forbidden', 403, 'A second compliance user must confirm; you proposed this version');
+      const previous = await RuleSetRecord.findAll({ where: { code: record.code, status: 'effective', id: { [Op.ne]: id } }, transaction, lock: transaction.LOCK.UPDATE });
+      for (const p of previous) await p.update({ status: 'retired' }, { transaction });
+      const doc = { ...JSON.parse(record.document), status: 'effective', effectiveDate: record.effectiveDate };
+      record.set({ status: 'effective', confirmedBy: actor.id, document: JSON.stringify(doc), contentHash: documentHash(doc) });
+      await record.save({ transaction });
+      await appendAudit(this.sequelize, actor, {
+        action: 'rule_set.effective', entityType: 'RuleSet', entityId: id,
+        payload: { code: record.code, version: record.version, effectiveDate: record.effectiveDate, retired: previous.map((p) => p.version) },
+      }, transaction);
+    });
+    return this.get(ability, id);
+  }
+
+  private assertDraft(ability: AppAbility, record: RuleSetRecord, action: 'update' | 'publish'): void {
+    if (record.status !== 'draft') throw new AppError('read_only', 409, `${record.code} v${record.version} is ${record.status}; it never changes again`);
+    ForbiddenError.from(ability).setMessage('Only compliance edits and publishes design standards').throwUnlessCan(action, subject('RuleSet', { status: record.status }));
+  }
+
+  private async load(id: number, transaction?: Transaction, lock = false): Promise<RuleSetRecord> {
+    const record = await RuleSetRecord.findByPk(id, { transaction, lock: lock && transaction ? transaction.LOCK.UPDATE : undefined });
+    if (!record) throw AppError.notFound(`Design standard version ${id}`);
+    return record;
+  }
+}
+
+async function namesOf(ids: (number | null)[]): Promise<Map<number, string>> {
+  const wanted = [...new Set(ids.filter((v): v is number => v != null))];
+  if (wanted.length === 0) return new Map();
+  const users = await User.findAll({ where: { id: { [Op.in]: wanted } }, attributes: ['id', 'displayName'] });
+  return new Map(users.map((u) => [u.id, u.displayName]));
+}

@@ -1,0 +1,99 @@
+import type { Sequelize } from 'sequelize';
+import type { AppAbility } from '../../shared/authz/app-ability';
+import type { RevisionDto } from '../../shared/schemas/calc-dto';
+import { Finding } from '../db/models';
+import { AppError } from '../errors/app-error';
+import { appendAudit, type Actor } from '../audit/audit.service';
+import { assertCan, editorIdsOf, loadRevision } from '../calcs/calc-access';
+import { readRevision } from '../calcs/revision-read';
+import type { WorkflowService } from './workflow.service';
+
+type Reviewer = Actor & { id: number };
+
+/** The checker's and approver's side: findings, manual items, returning a calc to its author. */
+export class ReviewService {
+  constructor(private readonly sequelize: Sequelize, private readonly workflow: WorkflowService) {}
+
+  async raiseFinding(ability: AppAbility, actor: Reviewer, revisionId: number, text: string, clauseRef?: string): Promise<RevisionDto> {
+    await this.sequelize.transaction(async (transaction) => {
+      const revision = await loadRevision(revisionId, transaction);
+      assertCan(ability, 'return', revision, 'Only an independent checker or approver reviewing this revision can raise findings');
+      await this.assertIndependent(actor, revision.calcId, revision.authorId);
+      const finding = await Finding.create({ revisionId, text, clauseRef: clauseRef ?? null, raisedBy: actor.id }, { transaction });
+      await appendAudit(this.sequelize, actor, { action: 'finding.raised', entityType: 'Revision', entityId: revisionId, payload: { findingId: finding.id, clauseRef: clauseRef ?? null, text } }, transaction);
+    });
+    return readRevision(ability, revisionId);
+  }
+
+  async answerFinding(ability: AppAbility, actor: Reviewer, findingId: number, answer: string): Promise<RevisionDto> {
+    const revisionId = await this.sequelize.transaction(async (transaction) => {
+      const finding = await this.loadFinding(findingId);
+      const revision = await loadRevision(finding.revisionId, transaction);
+      assertCan(ability, 'update', revision, 'Only the author of a returned or draft revision answers its findings');
+      if (finding.status === 'closed') throw AppError.conflict('This finding is already closed');
+      Object.assign(finding, { answer, answeredBy: actor.id, answeredAt: new Date(), status: 'answered' });
+      await finding.save({ transaction });
+      await appendAudit(this.sequelize, actor, { action: 'finding.answered', entityType: 'Revision', entityId: revision.id, payload: { findingId, answer } }, transaction);
+      return revision.id;
+    });
+    return readRevision(ability, revisionId);
+  }
+
+  async closeFinding(ability: AppAbility, actor: Reviewer, findingId: number): Promise<RevisionDto> {
+    const revisionId = await this.sequelize.transaction(async (transaction) => {
+      const finding = await this.loadFinding(findingId);
+      const revision = await loadRevision(finding.revisionId, transaction);
+      assertCan(ability, 'return', revision, 'Only an independent checker or approver reviewing this revision can close findings');
+      await this.assertIndependent(actor, revision.calcId, revision.authorId);
+      if (finding.status !== 'answered') throw AppError.conflict('A finding is closed once its author has answered it');
+      Object.assign(finding, { status: 'closed', closedBy: actor.id, closedAt: new Date() });
+      await finding.save({ transaction });
+      await appendAudit(this.sequelize, actor, { action: 'finding.closed', entityType: 'Revision', entityId: revision.id, payload: { findingId } }, transaction);
+      return revision.id;
+    });
+    return readRevision(ability, revisionId);
+  }
+
+  /** Back to the author: the reason becomes an open finding they must answer before resubmitting. */
+  async returnToAuthor(ability: AppAbility, actor: Reviewer, revisionId: number, reason: string, lockVersion: number): Promise<RevisionDto> {
+    await this.sequelize.transaction(async (transaction) => {
+      const revision = await loadRevision(revisionId, transaction);
+      assertCan(ability, 'return', revision, 'Only an independent checker (in check) or approver (checked) can return this revision');
+      await this.assertIndependent(actor, revision.calcId, revision.authorId);
+      if (revision.lockVersion !== lockVersion) throw AppError.conflict('The revision changed since you opened it; reload it');
+      const from = revision.status;
+      revision.status = 'returned';
+      await revision.save({ transaction });
+      await Finding.create({ revisionId, text: reason, clauseRef: null, raisedBy: actor.id }, { transaction });
+      await appendAudit(this.sequelize, actor, { action: 'revision.returned', entityType: 'Revision', entityId: revisionId, payload: { calcId: revision.calcId, revision: revision.label, from, reason } }, transaction);
+      await this.workflow.mail('returned', revision, actor, transaction, reason);
+    });
+    return readRevision(ability, revisionId);
+  }
+
+  async setManualItem(ability: AppAbility, actor: Reviewer, revisionId: number, itemId: string, done: boolean, note: string): Promise<RevisionDto> {
+    await this.sequelize.transaction(async (transaction) => {
+      const revision = await loadRevision(revisionId, transaction);
+      assertCan(ability, 'check', revision, 'Manual checklist items are ticked by the independent checker while the calc is in check');
+      await this.assertIndependent(actor, revision.calcId, revision.authorId);
+      const items = JSON.parse(revision.manualItems) as Record<string, unknown>;
+      items[itemId] = { done, note, by: actor.name, at: new Date().toISOString() };
+      revision.manualItems = JSON.stringify(items);
+      await revision.save({ transaction });
+      await appendAudit(this.sequelize, actor, { action: 'revision.manual_item', entityType: 'Revision', entityId: revisionId, payload: { itemId, done, note } }, transaction);
+    });
+    return readRevision(ability, revisionId);
+  }
+
+  private async assertIndependent(actor: Reviewer, calcId: number, authorId: number): Promise<void> {
+    if (actor.id === authorId || (await editorIdsOf(calcId)).includes(actor.id)) {
+      throw new AppError('forbidden', 403, 'You edited this calc, so you cannot review it; independence requires someone else');
+    }
+  }
+
+  private async loadFinding(id: number): Promise<Finding> {
+    const finding = await Finding.findByPk(id);
+    if (!finding) throw AppError.notFound(`Finding ${id}`);
+    return finding;
+  }
+}

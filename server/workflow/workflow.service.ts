@@ -1,0 +1,107 @@
+import { QueryTypes, Op, type Sequelize, type Transaction } from 'sequelize';
+import type { AppAbility } from '../../shared/authz/app-ability';
+import type { Role } from '../../shared/authz/roles';
+import type { RevisionDto } from '../../shared/schemas/calc-dto';
+import type { SignRequest } from '../../shared/schemas/revision.schema';
+import { Calc, Finding, Project, Revision, Signature, User } from '../db/models';
+import { AppError } from '../errors/app-error';
+import { appendAudit, type Actor } from '../audit/audit.service';
+import { verifyPassword } from '../auth/password';
+import { editorIdsOf, loadRevision } from '../calcs/calc-access';
+import { currentHashOf, readRevision } from '../calcs/revision-read';
+import { parseRuleSet } from '../rule-sets/rule-set-cache';
+import { signingBlocker, type Meaning } from './independence';
+import { queueHandOverMail, type HandOverFacts } from './hand-over-mail';
+
+export interface Signer extends Actor { id: number; roles: readonly Role[] }
+
+const NEXT_STATE: Record<Meaning, Revision['status']> = { authored: 'in_check', checked: 'checked', approved: 'approved' };
+const EVENT: Record<Meaning, HandOverFacts['event']> = { authored: 'submitted', checked: 'checked', approved: 'approved' };
+
+/**
+ * Sign-off. Each signature is one transaction: lock the revision, re-check state, independence
+ * and content hash, insert the signature, the state change, the audit entry and the mail, commit.
+ */
+export class WorkflowService {
+  constructor(private readonly sequelize: Sequelize, private readonly baseUrl: string) {}
+
+  async sign(ability: AppAbility, signer: Signer, revisionId: number, dto: SignRequest): Promise<RevisionDto> {
+    await this.checkPassword(signer, revisionId, dto);
+    await this.sequelize.transaction(async (transaction) => {
+      const revision = await loadRevision(revisionId, transaction);
+      // A retried request with the same key has already done its work: answer as the first did.
+      const earlier = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey }, transaction });
+      if (earlier && earlier.revisionId === revisionId && earlier.userId === signer.id) return;
+      if (earlier) throw AppError.conflict('This signing request key was already used for another signature; reload and sign again');
+      if (revision.lockVersion !== dto.lockVersion) throw AppError.conflict('The revision changed since you opened it; review the new content before signing');
+      await this.assertMaySign(dto.meaning, signer, revision, transaction);
+      const hash = await currentHashOf(revision, transaction);
+      if (!hash || hash !== revision.contentHash) throw new AppError('integrity', 409, 'The stored content does not match its recorded hash; signing is refused and compliance should investigate');
+      const [{ now }] = await this.sequelize.query<{ now: Date }>('SELECT UTC_TIMESTAMP(3) AS now', { type: QueryTypes.SELECT, transaction });
+      await Signature.create({
+        revisionId, userId: signer.id, printedName: signer.name, role: roleFor(dto.meaning), meaning: dto.meaning,
+        signedAt: new Date(now), contentHash: hash, idempotencyKey: dto.idempotencyKey,
+      }, { transaction });
+      await this.advance(revision, dto.meaning, signer, new Date(now), transaction);
+      await appendAudit(this.sequelize, signer, {
+        action: `revision.signed_${dto.meaning}`, entityType: 'Revision', entityId: revisionId,
+        payload: { calcId: revision.calcId, revision: revision.label, meaning: dto.meaning, contentHash: hash, state: revision.status },
+      }, transaction);
+      await this.mail(EVENT[dto.meaning], revision, signer, transaction);
+    });
+    return readRevision(ability, revisionId);
+  }
+
+  private async checkPassword(signer: Signer, revisionId: number, dto: SignRequest): Promise<void> {
+    const user = await User.scope('withPassword').findByPk(signer.id);
+    if (user && (await verifyPassword(user.passwordHash, dto.password))) return;
+    await appendAudit(this.sequelize, signer, { action: 'revision.signature_refused', entityType: 'Revision', entityId: revisionId, payload: { meaning: dto.meaning, reason: 'wrong password' } });
+    throw new AppError('validation', 400, 'Password is not correct; nothing was signed', { fieldErrors: { password: ['is not correct'] } });
+  }
+
+  private async assertMaySign(meaning: Meaning, signer: Signer, revision: Revision, transaction: Transaction): Promise<void> {
+    const findings = await Finding.findAll({ where: { revisionId: revision.id }, transaction });
+    const manual = JSON.parse(revision.manualItems) as Record<string, { done: boolean }>;
+    const items = revision.ruleSet ? parseRuleSet(revision.ruleSet).manualItems ?? [] : [];
+    const blocker = signingBlocker(meaning, {
+      actor: signer,
+      revision: { status: revision.status, authorId: revision.authorId, checkerId: revision.checkerId, hasResult: revision.result !== null },
+      editorIds: await editorIdsOf(revision.calcId, transaction),
+      openFindings: findings.filter((f) => f.status === 'open').length,
+      unresolvedFindings: findings.filter((f) => f.status !== 'closed').length,
+      openManualItems: items.filter((i) => !manual[i.id]?.done).length,
+    });
+    if (blocker) throw new AppError('forbidden', 403, blocker);
+  }
+
+  private async advance(revision: Revision, meaning: Meaning, signer: Signer, at: Date, transaction: Transaction): Promise<void> {
+    revision.status = NEXT_STATE[meaning];
+    if (meaning === 'authored') revision.submittedAt = at;
+    if (meaning === 'checked') Object.assign(revision, { checkerId: signer.id, checkedAt: at });
+    if (meaning === 'approved') Object.assign(revision, { approverId: signer.id, approvedAt: at });
+    await revision.save({ transaction });
+    if (meaning === 'approved') await this.supersedeOlder(revision, signer, transaction);
+  }
+
+  /** Approving a revision supersedes every earlier approved revision of the same calc. */
+  private async supersedeOlder(revision: Revision, signer: Signer, transaction: Transaction): Promise<void> {
+    const older = await Revision.findAll({ where: { calcId: revision.calcId, status: 'approved', id: { [Op.ne]: revision.id } }, transaction, lock: transaction.LOCK.UPDATE });
+    for (const r of older) {
+      r.status = 'superseded';
+      await r.save({ transaction });
+      await appendAudit(this.sequelize, signer, { action: 'revision.superseded', entityType: 'Revision', entityId: r.id, payload: { calcId: r.calcId, revision: r.label, supersededBy: revision.label } }, transaction);
+    }
+  }
+
+  async mail(event: HandOverFacts['event'], revision: Revision, actor: Actor, transaction: Transaction, reason?: string): Promise<void> {
+    const calc = await Calc.findByPk(revision.calcId, { include: [Project], transaction }) as Calc & { Project: Project };
+    await queueHandOverMail({
+      event, calcId: calc.id, calcNumber: calc.number, calcTitle: calc.title, projectCode: calc.Project.code, revision: revision.label,
+      actorName: actor.name, authorId: revision.authorId, editorIds: await editorIdsOf(calc.id, transaction), reason, baseUrl: this.baseUrl,
+    }, transaction);
+  }
+}
+
+function roleFor(meaning: Meaning): Role {
+  return meaning === 'authored' ? 'author' : meaning === 'checked' ? 'checker' : 'approver';
+}

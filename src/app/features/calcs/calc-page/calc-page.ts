@@ -1,0 +1,117 @@
+import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, numberAttribute } from '@angular/core';
+import { DecimalPipe } from '@angular/common';
+import { Router, RouterLink } from '@angular/router';
+import { MatTabsModule } from '@angular/material/tabs';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatDialog } from '@angular/material/dialog';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import type { Checklist } from '../../../../../shared/rules';
+import type { CalcResult } from '../../../../../shared/engine';
+import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
+import { SessionStore } from '../../../core/auth/session-store';
+import { toHttpFailure } from '../../../core/errors/http-failure';
+import { SafetyNote } from '../../../ui/safety-note';
+import { StateBadge } from '../../../ui/state-badge';
+import { VerdictBadge } from '../../../ui/verdict-badge';
+import { ChecklistTable } from '../checklist/checklist-table';
+import { CalcsApi } from '../calcs-api';
+import { FindingsPanel } from './findings-panel';
+import { SignaturesPanel } from './signatures-panel';
+import { RevisionHistory } from './revision-history';
+import { planActions } from './revision-actions';
+import { SignDialog, type SignDialogData } from './sign-dialog';
+import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
+
+@Component({
+  selector: 'tt-calc-page',
+  imports: [DecimalPipe, RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatCheckboxModule, MatProgressBarModule,
+    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory],
+  templateUrl: './calc-page.html',
+  styleUrl: './calc-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export default class CalcPage {
+  private readonly api = inject(CalcsApi);
+  private readonly dialog = inject(MatDialog);
+  private readonly snackBar = inject(MatSnackBar);
+  private readonly router = inject(Router);
+  protected readonly me = inject(SessionStore).user;
+
+  readonly id = input.required({ transform: numberAttribute });
+  readonly rev = input<number | undefined, unknown>(undefined, { transform: (v) => (v == null ? undefined : Number(v)) });
+
+  protected readonly calc = this.api.calc(this.id);
+  protected readonly selectedId = linkedSignal(() => this.rev() ?? this.calc.value()?.latest.id);
+  protected readonly revision = this.api.revision(this.selectedId);
+  protected readonly current = linkedSignal<RevisionDto | undefined>(() => this.revision.value());
+  protected readonly isLatest = computed(() => this.current()?.id === this.calc.value()?.latest.id);
+  protected readonly plan = computed(() => (this.current() ? planActions(this.current()!, this.me(), this.isLatest()) : null));
+  protected readonly checklist = computed(() => (this.current()?.checklist ?? null) as Checklist | null);
+  protected readonly result = computed(() => (this.current()?.result ?? null) as CalcResult | null);
+  protected readonly manualRows = computed(() => {
+    const r = this.current();
+    return (this.checklist()?.manual ?? []).map((m) => ({ ...m, state: r?.manualItems[m.id] ?? null }));
+  });
+  protected readonly canTick = computed(() => !!this.plan()?.actions.has('sign-checked'));
+  protected readonly error = computed(() => {
+    const e = this.calc.error() ?? this.revision.error();
+    return e ? toHttpFailure(e).message : null;
+  });
+  protected readonly openFindings = computed(() => this.current()?.findings.filter((f) => f.status !== 'closed').length ?? 0);
+
+  protected select(revisionId: number): void {
+    void this.router.navigate([], { queryParams: { rev: revisionId }, replaceUrl: true });
+  }
+
+  protected updated(r: RevisionDto): void {
+    this.current.set(r);
+    this.calc.reload();
+  }
+
+  protected sign(meaning: SignDialogData['meaning']): void {
+    const revision = this.current()!;
+    const calcLabel = `${this.calc.value()?.number} rev ${revision.label}`;
+    this.dialog.open(SignDialog, { data: { revision, meaning, calcLabel } satisfies SignDialogData, width: '600px' })
+      .afterClosed().subscribe((signed?: RevisionDto) => {
+        if (!signed) return;
+        this.updated(signed);
+        this.snackBar.open(`Signed as ${meaning}. The revision is now ${signed.status.replace('_', ' ')}.`, 'OK', { duration: 6000 });
+      });
+  }
+
+  protected askReason(kind: 'return' | 'withdraw' | 'new-revision'): void {
+    const texts: Record<typeof kind, ReasonDialogData> = {
+      return: { title: 'Return to the author', label: 'What must change', hint: 'This becomes a finding the author must answer.', action: 'Return' },
+      withdraw: { title: 'Withdraw this revision', label: 'Reason for withdrawal', hint: 'Kept on the record.', action: 'Withdraw' },
+      'new-revision': { title: 'Start a new revision', label: 'Reason for change', hint: 'Printed on the report and kept on the record.', action: 'Start revision' },
+    };
+    this.dialog.open(ReasonDialog, { data: texts[kind] }).afterClosed().subscribe((reason?: string) => {
+      if (reason) void this.applyReason(kind, reason);
+    });
+  }
+
+  private async applyReason(kind: 'return' | 'withdraw' | 'new-revision', reason: string): Promise<void> {
+    const r = this.current()!;
+    try {
+      if (kind === 'new-revision') {
+        const created = await this.api.newRevision(r.calcId, reason);
+        await this.router.navigate(['/revisions', created.id, 'edit']);
+        return;
+      }
+      this.updated(kind === 'return' ? await this.api.returnToAuthor(r.id, reason, r.lockVersion) : await this.api.withdraw(r.id, reason, r.lockVersion));
+    } catch (error) {
+      this.snackBar.open(toHttpFailure(error).message, 'OK', { duration: 8000 });
+    }
+  }
+
+  protected async tick(itemId: string, done: boolean): Promise<void> {
+    try {
+      this.updated(await this.api.setManualItem(this.current()!.id, itemId, done));
+    } catch (error) {
+      this.snackBar.open(toHttpFailure(error).message, 'OK', { duration: 8000 });
+    }
+  }
+}

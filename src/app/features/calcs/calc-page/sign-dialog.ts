@@ -1,0 +1,57 @@
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
+import { SessionStore } from '../../../core/auth/session-store';
+import { toHttpFailure } from '../../../core/errors/http-failure';
+import { CalcsApi } from '../calcs-api';
+
+export interface SignDialogData { revision: RevisionDto; meaning: 'authored' | 'checked' | 'approved'; calcLabel: string }
+
+const STATEMENTS: Record<SignDialogData['meaning'], string> = {
+  authored: 'I prepared this revision, its inputs are as I intend them, and I submit it for independent check.',
+  checked: 'I checked this revision independently, item by item, and found it correct against the standard shown.',
+  approved: 'I reviewed this checked revision and approve it for release.',
+};
+
+/** Re-authentication for an e-signature: the signer's password, the meaning, and one idempotency key. */
+@Component({
+  selector: 'tt-sign-dialog',
+  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule],
+  templateUrl: './sign-dialog.html',
+  styleUrl: './sign-dialog.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class SignDialog {
+  private readonly api = inject(CalcsApi);
+  private readonly ref = inject(MatDialogRef<SignDialog, RevisionDto>);
+  protected readonly data = inject<SignDialogData>(MAT_DIALOG_DATA);
+  protected readonly me = inject(SessionStore).user;
+  protected readonly statement = STATEMENTS[this.data.meaning];
+  // One key per dialog: a double click or a retried request still yields exactly one signature.
+  private readonly idempotencyKey = crypto.randomUUID();
+  protected readonly form = inject(NonNullableFormBuilder).group({ password: ['', Validators.required] });
+  protected readonly problem = signal<string | null>(null);
+  protected readonly isSigning = signal(false);
+
+  protected async sign(): Promise<void> {
+    if (this.form.invalid || this.isSigning()) return this.form.markAllAsTouched();
+    this.isSigning.set(true);
+    this.problem.set(null);
+    try {
+      const signed = await this.api.sign(this.data.revision.id, {
+        password: this.form.getRawValue().password, meaning: this.data.meaning,
+        idempotencyKey: this.idempotencyKey, lockVersion: this.data.revision.lockVersion,
+      });
+      this.ref.close(signed);
+    } catch (error) {
+      this.problem.set(toHttpFailure(error).message);
+      this.form.reset();
+    } finally {
+      this.isSigning.set(false);
+    }
+  }
+}

@@ -1,0 +1,96 @@
+import { Injectable, inject, type Signal } from '@angular/core';
+import { HttpClient, httpResource } from '@angular/common/http';
+import { firstValueFrom } from 'rxjs';
+import type { Page } from '../../../../shared/schemas/common.schema';
+import type { CalcDto, RevisionDto } from '../../../../shared/schemas/calc-dto';
+import type { CreateCalcRequest, SaveRevisionRequest, SignRequest } from '../../../../shared/schemas/revision.schema';
+import type { QueueDto } from '../../../../shared/schemas/queue.schema';
+import type { RuleSetDto, RuleSetSummary } from '../../../../shared/schemas/rule-set.schema';
+
+export interface CalcListParams { projectId?: number; status?: string; q: string; page: number; size: number; sort: string; dir: 'asc' | 'desc' }
+
+/** Server state of calcs and revisions; pages read its resources and call its commands. */
+@Injectable({ providedIn: 'root' })
+export class CalcsApi {
+  private readonly http = inject(HttpClient);
+
+  list(params: Signal<CalcListParams>) {
+    return httpResource<Page<CalcDto>>(() => {
+      const p = params();
+      const query: Record<string, string | number> = { page: p.page, size: p.size, sort: p.sort, dir: p.dir };
+      if (p.projectId) query['projectId'] = p.projectId;
+      if (p.status) query['status'] = p.status;
+      if (p.q) query['q'] = p.q;
+      return { url: '/api/calcs', params: query };
+    });
+  }
+
+  calc(id: Signal<number>) {
+    return httpResource<CalcDto>(() => `/api/calcs/${id()}`);
+  }
+
+  revision(id: Signal<number | undefined>) {
+    return httpResource<RevisionDto>(() => (id() ? `/api/revisions/${id()}` : undefined));
+  }
+
+  queues() {
+    return httpResource<QueueDto[]>(() => '/api/dashboard/queues');
+  }
+
+  ruleSets() {
+    return httpResource<RuleSetSummary[]>(() => '/api/rule-sets');
+  }
+
+  getRuleSet(id: number): Promise<RuleSetDto> {
+    return firstValueFrom(this.http.get<RuleSetDto>(`/api/rule-sets/${id}`));
+  }
+
+  getRevision(id: number): Promise<RevisionDto> {
+    return firstValueFrom(this.http.get<RevisionDto>(`/api/revisions/${id}`));
+  }
+
+  create(dto: CreateCalcRequest): Promise<CalcDto> {
+    return firstValueFrom(this.http.post<CalcDto>('/api/calcs', dto));
+  }
+
+  /** Explicit, versioned save; a 409 carries the stored revision as `current`. */
+  save(id: number, dto: SaveRevisionRequest): Promise<RevisionDto> {
+    return firstValueFrom(this.http.put<RevisionDto>(`/api/revisions/${id}`, dto));
+  }
+
+  sign(id: number, dto: SignRequest): Promise<RevisionDto> {
+    return firstValueFrom(this.http.post<RevisionDto>(`/api/revisions/${id}/sign`, dto));
+  }
+
+  returnToAuthor(id: number, reason: string, lockVersion: number): Promise<RevisionDto> {
+    return firstValueFrom(this.http.post<RevisionDto>(`/api/revisions/${id}/return`, { reason, lockVersion }));
+  }
+
+  withdraw(id: number, reason: string, lockVersion: number): Promise<RevisionDto> {
+    return firstValueFrom(this.http.post<RevisionDto>(`/api/revisions/${id}/withdraw`, { reason, lockVersion }));
+  }
+
+  newRevision(calcId: number, reasonForChange: string): Promise<RevisionDto> {
+    return firstValueFrom(this.http.post<RevisionDto>(`/api/calcs/${calcId}/revisions`, { reasonForChange }));
+  }
+
+  raiseFinding(revisionId: number, text: string, clauseRef?: string): Promise<RevisionDto> {
+    return firstValueFrom(this.http.post<RevisionDto>(`/api/revisions/${revisionId}/findings`, { text, ...(clauseRef ? { clauseRef } : {}) }));
+  }
+
+  answerFinding(findingId: number, answer: string): Promise<RevisionDto> {
+    return firstValueFrom(this.http.post<RevisionDto>(`/api/findings/${findingId}/answer`, { answer }));
+  }
+
+  closeFinding(findingId: number): Promise<RevisionDto> {
+    return firstValueFrom(this.http.post<RevisionDto>(`/api/findings/${findingId}/close`, {}));
+  }
+
+  setManualItem(revisionId: number, itemId: string, done: boolean, note = ''): Promise<RevisionDto> {
+    return firstValueFrom(this.http.put<RevisionDto>(`/api/revisions/${revisionId}/manual-items/${itemId}`, { done, note }));
+  }
+
+  diff(calcId: number, from: number, to: number) {
+    return firstValueFrom(this.http.get<{ input: string | null; checklist: string | null }>(`/api/calcs/${calcId}/diff`, { params: { from, to } }));
+  }
+}

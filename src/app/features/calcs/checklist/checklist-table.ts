@@ -1,0 +1,32 @@
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { DecimalPipe } from '@angular/common';
+import { MatTableModule } from '@angular/material/table';
+import { MatTooltipModule } from '@angular/material/tooltip';
+import type { Checklist, ChecklistRow } from '../../../../../shared/rules';
+
+const STATUS_TEXT: Record<ChecklistRow['status'], string> = { pass: 'Pass', fail: 'Fail', 'not-applicable': 'n/a', error: 'Error' };
+
+/** One row per clause and location: status, actual against limit, utilisation, clause reference. */
+@Component({
+  selector: 'tt-checklist-table',
+  imports: [DecimalPipe, MatTableModule, MatTooltipModule],
+  templateUrl: './checklist-table.html',
+  styleUrl: './checklist-table.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ChecklistTable {
+  readonly checklist = input.required<Checklist>();
+  readonly showNotApplicable = input(false);
+  protected readonly rows = computed(() =>
+    this.checklist().rows.filter((r) => this.showNotApplicable() || r.status !== 'not-applicable'));
+  protected readonly hidden = computed(() => this.checklist().rows.length - this.rows().length);
+  protected readonly columns = ['clause', 'location', 'status', 'actual', 'limit', 'use', 'severity'];
+
+  protected statusLabel(row: ChecklistRow): string {
+    return STATUS_TEXT[row.status];
+  }
+
+  protected barWidth(row: ChecklistRow): number {
+    return Math.max(0, Math.min(100, (row.utilisation ?? 0) * 100));
+  }
+}

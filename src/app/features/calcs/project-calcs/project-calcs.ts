@@ -1,0 +1,71 @@
+import { ChangeDetectionStrategy, Component, computed, inject, input, numberAttribute, signal } from '@angular/core';
+import { DatePipe } from '@angular/common';
+import { Router, RouterLink } from '@angular/router';
+import { httpResource } from '@angular/common/http';
+import { MatTableModule } from '@angular/material/table';
+import { MatSortModule, type Sort } from '@angular/material/sort';
+import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatSelectModule } from '@angular/material/select';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatDialog } from '@angular/material/dialog';
+import { AbilityServiceSignal } from '@casl/angular';
+import type { AppAbility } from '../../../../../shared/authz/app-ability';
+import type { ProjectDto } from '../../../../../shared/schemas/project.schema';
+import { REVISION_STATES, STATE_LABELS } from '../../../../../shared/schemas/revision.schema';
+import { toHttpFailure } from '../../../core/errors/http-failure';
+import { EmptyState } from '../../../ui/empty-state';
+import { StateBadge } from '../../../ui/state-badge';
+import { VerdictBadge } from '../../../ui/verdict-badge';
+import { CalcsApi, type CalcListParams } from '../calcs-api';
+import { NewCalcDialog } from '../new-calc/new-calc-dialog';
+
+@Component({
+  selector: 'tt-project-calcs',
+  imports: [DatePipe, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatSelectModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, EmptyState, StateBadge, VerdictBadge],
+  templateUrl: './project-calcs.html',
+  styleUrl: './project-calcs.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export default class ProjectCalcs {
+  private readonly dialog = inject(MatDialog);
+  private readonly router = inject(Router);
+  private readonly ability = inject<AbilityServiceSignal<AppAbility>>(AbilityServiceSignal);
+  readonly id = input.required({ transform: numberAttribute });
+
+  protected readonly project = httpResource<ProjectDto>(() => `/api/projects/${this.id()}`);
+  protected readonly params = signal<Omit<CalcListParams, 'projectId'>>({ q: '', page: 0, size: 25, sort: 'updatedAt', dir: 'desc' });
+  protected readonly calcs = inject(CalcsApi).list(computed(() => ({ ...this.params(), projectId: this.id() })));
+  protected readonly rows = computed(() => this.calcs.value()?.items ?? []);
+  protected readonly total = computed(() => this.calcs.value()?.total ?? 0);
+  protected readonly error = computed(() => {
+    const e = this.project.error() ?? this.calcs.error();
+    return e ? toHttpFailure(e).message : null;
+  });
+  protected readonly canCreate = computed(() => this.ability.can('create', 'Calc') && this.project.value()?.status === 'active');
+  protected readonly states = REVISION_STATES.map((s) => ({ value: s, label: STATE_LABELS[s] }));
+  protected readonly columns = ['number', 'title', 'revision', 'status', 'verdict', 'author', 'updatedAt'];
+
+  protected filter(patch: Partial<CalcListParams>): void {
+    this.params.update((p) => ({ ...p, ...patch, page: 0 }));
+  }
+
+  protected sortBy(sort: Sort): void {
+    this.params.update((p) => ({ ...p, sort: sort.direction ? sort.active : 'updatedAt', dir: sort.direction || 'desc' }));
+  }
+
+  protected changePage(e: PageEvent): void {
+    this.params.update((p) => ({ ...p, page: e.pageIndex, size: e.pageSize }));
+  }
+
+  protected startCalc(): void {
+    this.dialog.open(NewCalcDialog, { data: this.project.value(), autoFocus: 'first-tabbable', width: '620px' })
+      .afterClosed().subscribe((created?: { calcId: number; revisionId: number }) => {
+        if (created) void this.router.navigate(['/revisions', created.revisionId, 'edit']);
+      });
+  }
+}
+

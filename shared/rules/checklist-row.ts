@@ -1,13 +1,15 @@
-import { formatNumber, fromSI, UNIT_LABELS, type UnitSystem } from '../engine';
-import type { ClauseOutcome } from './clause-outcome';
-import type { ChecklistRow, RowStatus } from './checklist-types';
-import { factSpec, type FactQuantity } from './fact-registry';
+import { fromSI, type UnitSystem } from '../engine';
+import { errorText, type ClauseOutcome } from './clause-outcome';
+import type { ChecklistRow } from './checklist-types';
 import type { Facts } from './facts';
 import type { Target } from './locations';
-import type { Clause, RuleSet } from './rule-set-schema';
+import type { PreparedClause, PreparedMeasure } from './prepared-rule-set';
+import { shortNumber } from './short-number';
 
 interface Measured {
-  actual: number | null; limit: number | null; unit: string; label: string; quantity: FactQuantity;
+  actual: number | null;
+  limit: number | null;
+  unit: string;
 }
 
 const has = (o: object, k: string): boolean => Object.prototype.hasOwnProperty.call(o, k);
@@ -18,74 +20,77 @@ function lookup(name: string, facts: Facts, params: Facts): number | null {
   return typeof v === 'number' && Number.isFinite(v) ? v : null;
 }
 
-/** Actual and limit of the clause's measure, converted from SI to the calc's units. */
-function measured(ruleSet: RuleSet, clause: Clause, t: Target, params: Facts, units: UnitSystem): Measured | null {
-  const m = clause.measure;
-  if (!m) return null;
-  const spec = factSpec(clause.scope, m.actual);
-  const quantity = spec?.quantity ?? '1';
-  const shown = (v: number | null): number | null => (v === null || units === 'SI' || quantity === '1' || quantity === 'angle' ? v : fromSI(v, quantity, units));
-  const unit = quantity === '1' ? '1' : UNIT_LABELS[units][quantity];
-  const label = (spec?.label ?? m.actual).replace('rule-set criterion', ruleSet.methods.fatigueCriterion);
-  return { actual: shown(lookup(m.actual, t.facts, params)), limit: shown(lookup(m.limit, t.facts, params)), unit, label, quantity };
+/** Actual and limit of the measure, converted from SI to the calc's units (throws on an unknown name). */
+function measured(m: PreparedMeasure, facts: Facts, params: Facts, units: UnitSystem): Measured {
+  const isPlain = units === 'SI' || m.quantity === '1' || m.quantity === 'angle';
+  const q = m.quantity as Exclude<PreparedMeasure['quantity'], '1'>;
+  const shown = (v: number | null): number | null => (v === null || isPlain ? v : fromSI(v, q, units));
+  return { actual: shown(lookup(m.actual, facts, params)), limit: shown(lookup(m.limit, facts, params)), unit: m.unit[units] };
 }
 
-function utilisationOf(clause: Clause, v: Measured): number | null {
+function utilisationOf(m: PreparedMeasure, v: Measured): number | null {
   if (v.actual === null || v.limit === null) return null;
-  const u = clause.measure!.sense === 'at-most' ? (v.limit > 0 ? v.actual / v.limit : null) : (v.actual > 0 ? v.limit / v.actual : null);
+  const u = m.isAtMost ? (v.limit > 0 ? v.actual / v.limit : null) : (v.actual > 0 ? v.limit / v.actual : null);
   return u !== null && Number.isFinite(u) ? u : null;
 }
 
-const num = (v: number, unit: string): string => `${formatNumber(v, 4)}${unit === '1' ? '' : ` ${unit}`}`;
+const withUnit = (v: number, unit: string): string => (unit === '1' ? shortNumber(v) : `${shortNumber(v)} ${unit}`);
 
-function measureText(clause: Clause, v: Measured, passes: boolean, u: number | null): string {
-  if (v.actual === null || v.limit === null) {
-    return `${v.label} is not available here (no load or no data); requirement ${passes ? 'met' : 'not met'}`;
-  }
-  const atMost = clause.measure!.sense === 'at-most';
-  const verb = atMost ? (passes ? 'is within the limit of' : 'exceeds the limit of') : (passes ? 'meets the minimum of' : 'is below the minimum of');
-  const util = u === null ? '' : ` (utilisation ${formatNumber(100 * u, 3)} %, ${atMost ? 'actual/limit' : 'limit/actual'})`;
-  return `${v.label} ${num(v.actual, v.unit)} ${verb} ${num(v.limit, v.unit)}${util}`;
+function measureText(m: PreparedMeasure, v: Measured, passes: boolean, u: number | null): string {
+  if (v.actual === null || v.limit === null) return `${m.label} is not available here (no load or no data); requirement ${passes ? 'met' : 'not met'}`;
+  const verb = m.isAtMost ? (passes ? 'is within the limit of' : 'exceeds the limit of') : (passes ? 'meets the minimum of' : 'is below the minimum of');
+  const util = u === null ? '' : ` (utilisation ${shortNumber(100 * u, 3)} %, ${m.isAtMost ? 'actual/limit' : 'limit/actual'})`;
+  return `${m.label} ${withUnit(v.actual, v.unit)} ${verb} ${withUnit(v.limit, v.unit)}${util}`;
 }
 
 // A check that passes while its own measure is past the limit means the clause is inconsistent.
-function contradicts(clause: Clause, v: Measured | null, passes: boolean): boolean {
-  if (!passes || !v || v.actual === null || v.limit === null) return false;
-  return clause.measure!.sense === 'at-most' ? v.actual > v.limit : v.actual < v.limit;
+function contradicts(m: PreparedMeasure, v: Measured, passes: boolean): boolean {
+  if (!passes || v.actual === null || v.limit === null) return false;
+  return m.isAtMost ? v.actual > v.limit : v.actual < v.limit;
 }
 
-function warningsFor(clause: Clause, t: Target): string[] {
+function steelWarning(p: PreparedClause, t: Target): string[] {
   const kind = t.facts.materialKind;
-  if (clause.materialScope === 'steel' && typeof kind === 'string' && kind !== 'steel') {
-    return [`clause ${clause.id} was written for steel; this location is ${kind}: its limit may not be valid for this material`];
+  if (p.clause.materialScope !== 'steel' || typeof kind !== 'string' || kind === 'steel') return [];
+  return [`clause ${p.clause.id} was written for steel; this location is ${kind}: its limit may not be valid for this material`];
+}
+
+function fill(row: ChecklistRow, m: PreparedMeasure, t: Target, params: Facts, units: UnitSystem, passes: boolean): void {
+  const v = measured(m, t.facts, params, units);
+  const u = utilisationOf(m, v);
+  row.actual = v.actual;
+  row.limit = v.limit;
+  row.unit = v.unit;
+  row.utilisation = u;
+  row.utilisationBasis = m.isAtMost ? 'actual/limit' : 'limit/actual';
+  row.message = measureText(m, v, passes, u);
+  if (contradicts(m, v, passes)) {
+    row.status = 'error';
+    row.message = `the check passed but the measure is past its limit (${row.message}): the clause's check and measure disagree`;
   }
-  return [];
 }
 
 /** One checklist row from a clause's outcome at one location. Never throws. */
-export function buildRow(ruleSet: RuleSet, clause: Clause, t: Target, outcome: ClauseOutcome, params: Facts, units: UnitSystem): ChecklistRow {
+export function buildRow(p: PreparedClause, t: Target, outcome: ClauseOutcome, params: Facts, units: UnitSystem): ChecklistRow {
   const row: ChecklistRow = {
-    clauseId: clause.id, clauseTitle: clause.title, reference: `${ruleSet.code} v${ruleSet.version} §${clause.id}`,
-    severity: clause.severity, status: 'not-applicable', location: t.location, actual: null, limit: null, unit: '',
-    utilisation: null, utilisationBasis: null, message: 'does not apply here', warnings: [],
+    clauseId: p.clause.id, clauseTitle: p.clause.title, reference: p.reference, severity: p.clause.severity, status: 'not-applicable',
+    location: t.location, actual: null, limit: null, unit: '', utilisation: null, utilisationBasis: null, message: 'does not apply here', warnings: [],
   };
-  if (outcome.error !== null) return { ...row, status: 'error', message: `could not be evaluated: ${outcome.error}` };
+  if (outcome.error !== null) {
+    row.status = 'error';
+    row.message = `could not be evaluated: ${outcome.error}`;
+    return row;
+  }
   if (!outcome.applies) return row;
-  row.warnings = warningsFor(clause, t);
-  let v: Measured | null;
-  try {
-    v = measured(ruleSet, clause, t, params, units);
-  } catch (err) {
-    return { ...row, status: 'error', message: `could not be evaluated: ${err instanceof Error ? err.message : String(err)}` };
-  }
   const passes = outcome.passes === true;
-  const status: RowStatus = passes ? 'pass' : 'fail';
-  if (!v) return { ...row, status, message: `requirement ${passes ? 'met' : 'not met'}: ${clause.title}` };
-  const u = utilisationOf(clause, v);
-  const filled = { ...row, status, actual: v.actual, limit: v.limit, unit: v.unit, utilisation: u,
-    utilisationBasis: clause.measure!.sense === 'at-most' ? 'actual/limit' as const : 'limit/actual' as const, message: measureText(clause, v, passes, u) };
-  if (contradicts(clause, v, passes)) {
-    return { ...filled, status: 'error', message: `the check passed but the measure is past its limit (${filled.message}): the clause's check and measure disagree` };
+  row.status = passes ? 'pass' : 'fail';
+  row.warnings = steelWarning(p, t);
+  row.message = `requirement ${passes ? 'met' : 'not met'}: ${p.clause.title}`;
+  if (!p.measure) return row;
+  try {
+    fill(row, p.measure, t, params, units, passes);
+  } catch (err) {
+    Object.assign(row, { status: 'error', actual: null, limit: null, unit: '', utilisation: null, utilisationBasis: null, message: `could not be evaluated: ${errorText(err)}` });
   }
-  return filled;
+  return row;
 }

@@ -4,27 +4,29 @@ import { buildRow } from './checklist-row';
 import type { Checklist, ChecklistRow, ManualState } from './checklist-types';
 import { compiledFor, outcomeSync } from './compiled-rule-set';
 import { runnerFor } from './engine-runner';
-import { locationFacts, parameterFacts } from './facts';
+import { locationFacts } from './facts';
 import { targetsOf, type Target } from './locations';
 import { manualRows, summarize } from './verdict';
 import { methodsUsed } from './rule-set-methods';
-import { SCOPES, type RuleSet } from './rule-set-schema';
+import { preparedFor } from './prepared-rule-set';
+import { SCOPES, type RuleSet, type Scope } from './rule-set-schema';
 
 /** Outcomes per clause index, then per location (the order of targetsOf). */
-type Outcomes = Map<number, ClauseOutcome[]>;
+type Outcomes = ClauseOutcome[][];
+type Targets = Record<Scope, Target[]>;
 
-function targetsByScope(input: CalcInput, result: CalcResult, ruleSet: RuleSet): Map<string, Target[]> {
+function targetsByScope(input: CalcInput, result: CalcResult, ruleSet: RuleSet): Targets {
   const facts = locationFacts(input, result, ruleSet);
-  return new Map(SCOPES.map((s) => [s, targetsOf(s, input, result, facts)]));
+  return { shaft: targetsOf('shaft', input, result, facts), segment: targetsOf('segment', input, result, facts), feature: targetsOf('feature', input, result, facts) };
 }
 
-function assemble(input: CalcInput, result: CalcResult, ruleSet: RuleSet, targets: Map<string, Target[]>,
+function assemble(input: CalcInput, result: CalcResult, ruleSet: RuleSet, targets: Targets,
   outcomes: Outcomes, manual: Record<string, ManualState> | undefined): Checklist {
-  const params = parameterFacts(ruleSet);
+  const { clauses, params } = preparedFor(ruleSet);
   const rows: ChecklistRow[] = [];
-  ruleSet.clauses.forEach((clause, i) => {
-    const list = outcomes.get(i) ?? [];
-    targets.get(clause.scope)!.forEach((t, k) => rows.push(buildRow(ruleSet, clause, t, list[k], params, input.units)));
+  clauses.forEach((p, i) => {
+    const list = outcomes[i];
+    targets[p.clause.scope].forEach((t, k) => rows.push(buildRow(p, t, list[k], params, input.units)));
   });
   const { used, issues } = methodsUsed(input, result, ruleSet);
   const { manual: manualList, notes } = manualRows(ruleSet, manual);
@@ -48,10 +50,10 @@ export async function evaluateChecklist(input: CalcInput, result: CalcResult, ru
   manual?: Record<string, ManualState>): Promise<Checklist> {
   const targets = targetsByScope(input, result, ruleSet);
   const runner = runnerFor(ruleSet);
-  const outcomes: Outcomes = new Map(ruleSet.clauses.map((_, i) => [i, []]));
+  const outcomes: Outcomes = ruleSet.clauses.map(() => []);
   for (const scope of SCOPES) {
-    for (const t of targets.get(scope)!) {
-      for (const [i, outcome] of await runner.evaluate(scope, t.facts)) outcomes.get(i)!.push(outcome);
+    for (const t of targets[scope]) {
+      for (const [i, outcome] of await runner.evaluate(scope, t.facts)) outcomes[i].push(outcome);
     }
   }
   return assemble(input, result, ruleSet, targets, outcomes, manual);
@@ -66,9 +68,6 @@ export function evaluateChecklistSync(input: CalcInput, result: CalcResult, rule
   manual?: Record<string, ManualState>): Checklist {
   const targets = targetsByScope(input, result, ruleSet);
   const compiled = compiledFor(ruleSet);
-  const outcomes: Outcomes = new Map();
-  ruleSet.clauses.forEach((clause, i) => {
-    outcomes.set(i, targets.get(clause.scope)!.map((t) => outcomeSync(compiled, i, t.facts)));
-  });
+  const outcomes: Outcomes = ruleSet.clauses.map((clause, i) => targets[clause.scope].map((t) => outcomeSync(compiled, i, t.facts)));
   return assemble(input, result, ruleSet, targets, outcomes, manual);
 }

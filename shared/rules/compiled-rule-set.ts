@@ -1,5 +1,6 @@
 import { errorText, failed, notApplicable, type ClauseOutcome } from './clause-outcome';
-import { parameterFacts, type Facts } from './facts';
+import type { Facts } from './facts';
+import { preparedFor } from './prepared-rule-set';
 import { RuleSetCache } from './rule-set-cache';
 import type { RuleSet } from './rule-set-schema';
 import { compileCondition, type Compiled } from './sync-evaluator';
@@ -21,7 +22,7 @@ function compileClause(clause: RuleSet['clauses'][number]): CompiledClause {
 
 const COMPILED = new RuleSetCache((ruleSet): CompiledRuleSet => ({
   clauses: ruleSet.clauses.map(compileClause),
-  params: parameterFacts(ruleSet),
+  params: preparedFor(ruleSet).params,
 }));
 
 /** The cached synchronous form of a rule set (compiled once per code + version and content). */

@@ -1,7 +1,8 @@
 import { Engine, Rule, type EngineResult, type RuleProperties, type TopLevelCondition } from 'json-rules-engine';
 import { errorText, failed, notApplicable, type ClauseOutcome } from './clause-outcome';
 import type { TopCondition } from './condition-schema';
-import { parameterFacts, type Facts } from './facts';
+import type { Facts } from './facts';
+import { preparedFor } from './prepared-rule-set';
 import { RuleSetCache } from './rule-set-cache';
 import { SCOPES, type RuleSet, type Scope } from './rule-set-schema';
 
@@ -44,7 +45,7 @@ export class RuleSetRunner {
   #tail: Promise<unknown> = Promise.resolve();
 
   constructor(private readonly ruleSet: RuleSet) {
-    this.#params = parameterFacts(ruleSet);
+    this.#params = preparedFor(ruleSet).params;
     for (const scope of SCOPES) {
       const clauses = ruleSet.clauses.flatMap((c, i) => (c.scope === scope ? [i] : []));
       const rules = clauses.flatMap((i) => this.#rulesOf(i));

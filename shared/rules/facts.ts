@@ -1,6 +1,6 @@
 import { toSI, type CalcInput, type CalcResult, type FeatureResult, type SafetyByCriterion, type SegmentResult } from '../engine';
-import { PARAM_PREFIX } from './condition-schema';
-import { ASME_PARAMS, type FactQuantity } from './fact-registry';
+import type { FactQuantity } from './fact-registry';
+import { preparedFor } from './prepared-rule-set';
 import type { FatigueCriterion, RuleSet } from './rule-set-schema';
 
 export type Facts = Record<string, unknown>;
@@ -22,13 +22,6 @@ function converter(units: CalcInput['units']): ToSI {
   return (v, q) => (q === '1' || q === 'angle' ? v : toSI(v, q, 'US'));
 }
 
-/** Rule-set parameters as facts named "param:<name>" (shared by both evaluators). */
-export function parameterFacts(ruleSet: RuleSet): Facts {
-  const out: Facts = {};
-  for (const p of ruleSet.parameters) out[PARAM_PREFIX + p.name] = p.value;
-  return out;
-}
-
 function materialKindOf(input: CalcInput, segment: number): string {
   return input.segments[segment]?.material?.kind ?? input.material.kind ?? 'steel';
 }
@@ -40,9 +33,8 @@ function materialKindOf(input: CalcInput, segment: number): string {
  * when a parameter is missing, so a clause that uses it reports "Undefined fact" instead of passing.
  */
 function allowableShear(ruleSet: RuleSet, Sy: number, Su: number, hasKeyseat: boolean): number | undefined {
-  const p = ASME_PARAMS.map((name) => ruleSet.parameters.find((x) => x.name === name)?.value);
-  if (!p.every((v): v is number => typeof v === 'number')) return undefined;
-  return Math.min(p[0] * Sy, p[1] * Su) * (hasKeyseat ? p[2] : 1);
+  const p = preparedFor(ruleSet).asme;
+  return p === null ? undefined : Math.min(p[0] * Sy, p[1] * Su) * (hasKeyseat ? p[2] : 1);
 }
 
 function segmentFacts(s: SegmentResult, input: CalcInput, ruleSet: RuleSet, si: ToSI): Facts {

@@ -1,7 +1,8 @@
-import { formatNumber, UNIT_LABELS, type CalcInput, type CalcResult } from '../engine';
+import { UNIT_LABELS, type CalcInput, type CalcResult } from '../engine';
 import type { RowLocation } from './checklist-types';
 import type { Facts, LocationFacts } from './facts';
 import type { Scope } from './rule-set-schema';
+import { shortNumber } from './short-number';
 
 export interface Target {
   location: RowLocation;
@@ -13,7 +14,7 @@ const quoted = (label: string | undefined): string => (label ? ` "${label}"` : '
 /** Every location a clause of the scope is evaluated at, with its facts. */
 export function targetsOf(scope: Scope, input: CalcInput, result: CalcResult, facts: LocationFacts): Target[] {
   const len = UNIT_LABELS[input.units].length;
-  const f = (v: number): string => formatNumber(v, 6);
+  const f = (v: number): string => shortNumber(v, 6);
   if (scope === 'shaft') return [{ location: { scope, index: null, at: null, label: 'whole shaft' }, facts: facts.shaft }];
   if (scope === 'segment') {
     return result.segments.map((s, i) => ({

@@ -34,7 +34,6 @@ export function manualRows(ruleSet: RuleSet, state: Record<string, ManualState> 
     const s = Object.prototype.hasOwnProperty.call(state, m.id) ? state[m.id] : undefined;
     return { id: m.id, text: m.text, requiresAttachment: m.requiresAttachment ?? null, done: s?.done === true, by: s?.by ?? null, note: s?.note ?? null };
   });
-  const known = new Set(ruleSet.manualItems.map((m) => m.id));
-  const notes = Object.keys(state).filter((id) => !known.has(id)).map((id) => `manual item "${id}" is not in ${ruleSet.code} v${ruleSet.version}; its state was ignored`);
+  const notes = Object.keys(state).filter((id) => !ruleSet.manualItems.some((m) => m.id === id)).map((id) => `manual item "${id}" is not in ${ruleSet.code} v${ruleSet.version}; its state was ignored`);
   return { manual, notes };
 }

@@ -16,6 +16,12 @@ type Outcomes = ClauseOutcome[][];
 type Targets = Record<Scope, Target[]>;
 
 function targetsByScope(input: CalcInput, result: CalcResult, ruleSet: RuleSet): Targets {
+  // A result of another calc would give facts of the wrong shaft: refuse it rather than guess.
+  const nf = (input.features ?? []).length;
+  if (result.segments.length !== input.segments.length || result.features.length !== nf || result.units !== input.units) {
+    throw new Error(`checklist: the result (${result.segments.length} segments, ${result.features.length} features, ${result.units}) `
+      + `is not of this input (${input.segments.length} segments, ${nf} features, ${input.units}); evaluate the input first`);
+  }
   const facts = locationFacts(input, result, ruleSet);
   return { shaft: targetsOf('shaft', input, result, facts), segment: targetsOf('segment', input, result, facts), feature: targetsOf('feature', input, result, facts) };
 }

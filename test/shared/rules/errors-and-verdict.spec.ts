@@ -87,3 +87,14 @@ describe('verdict, counts and manual items', () => {
     expect(bad).toEqual([]);
   });
 });
+
+describe('a result that belongs to another calc', () => {
+  it('when the result does not match the input, then both paths refuse it, saying why', async () => {
+    const { evaluateChecklist, evaluateChecklistSync } = await import('../../../shared/rules');
+    const { evaluateValidInput } = await import('../../../shared/engine');
+    const other = evaluateValidInput(loadCalc('solid-si.json'));
+    const input = loadCalc('five-segment-fatigue.json');
+    expect(() => evaluateChecklistSync(input, other, V3)).toThrow(/the result \(1 segments, 0 features, SI\) is not of this input \(5 segments, 3 features, SI\)/);
+    await expect(evaluateChecklist(input, other, V3)).rejects.toThrow(/is not of this input/);
+  });
+});

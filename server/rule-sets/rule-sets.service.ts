@@ -70,6 +70,9 @@ export class RuleSetsService {
       const record = await this.load(id, transaction, true);
       this.assertDraft(ability, record, 'publish');
       if (record.lockVersion !== lockVersion) throw AppError.conflict('The draft changed since you opened it; review it again');
+      // Only a complete, valid document can be proposed (a fresh draft still lacks its change summary).
+      const checked = validateRuleSet(JSON.parse(record.document));
+      if (!checked.ok) throw AppError.validation(Object.fromEntries(checked.issues.map((i) => [`document.${i.path}`, [i.message]])));
       record.set({ proposedBy: actor.id, effectiveDate });
       await record.save({ transaction });
       await appendAudit(this.sequelize, actor, { action: 'rule_set.proposed', entityType: 'RuleSet', entityId: id, payload: { code: record.code, version: record.version, effectiveDate } }, transaction);

@@ -33,6 +33,25 @@ export const routes: Routes = [
         loadComponent: () => import('./features/calcs/calc-page/calc-page'),
       },
       {
+        path: 'rule-sets',
+        title: 'Standards · Torquetrail',
+        canActivate: [abilityGuard('read', 'RuleSet')],
+        loadComponent: () => import('./features/rule-sets/rule-set-library'),
+      },
+      {
+        path: 'rule-sets/compare',
+        title: 'Compare standards · Torquetrail',
+        canActivate: [abilityGuard('read', 'RuleSet')],
+        loadComponent: () => import('./features/rule-sets/rule-set-compare'),
+      },
+      {
+        path: 'rule-sets/:id',
+        title: 'Standard · Torquetrail',
+        canActivate: [abilityGuard('read', 'RuleSet')],
+        loadComponent: () => import('./features/rule-sets/rule-set-view'),
+      },
+      { path: 'revisions/:id/edit', title: 'Calc editor · Torquetrail', canDeactivate: [(page: { confirmLeave(): boolean | Promise<boolean> }) => page.confirmLeave()], loadComponent: () => import('./features/calcs/editor/revision-editor') },
+      {
         path: 'audit',
         title: 'Audit trail · Torquetrail',
         canActivate: [abilityGuard('read', 'AuditEvent')],

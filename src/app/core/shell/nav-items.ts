@@ -12,6 +12,7 @@ export interface NavItem {
 export const NAV_ITEMS: NavItem[] = [
   { path: '/', label: 'Overview', icon: 'space_dashboard', exact: true },
   { path: '/projects', label: 'Projects', icon: 'folder_open', needs: ['read', 'Project'] },
+  { path: '/rule-sets', label: 'Standards', icon: 'menu_book', needs: ['read', 'RuleSet'] },
   { path: '/audit', label: 'Audit trail', icon: 'fact_check', needs: ['read', 'AuditEvent'] },
   { path: '/admin/users', label: 'People and roles', icon: 'group', needs: ['create', 'User'] },
 ];

@@ -32,12 +32,16 @@ export class FindingsPanel {
     this.draft.set('');
   }
 
+  protected answerOf(id: number): string {
+    return this.answers()[id] ?? '';
+  }
+
   protected setAnswer(id: number, text: string): void {
     this.answers.update((a) => ({ ...a, [id]: text }));
   }
 
   protected answer(id: number): Promise<void> {
-    return this.run(() => this.api.answerFinding(id, (this.answers()[id] ?? '').trim()));
+    return this.run(() => this.api.answerFinding(id, this.answerOf(id).trim()));
   }
 
   protected close(id: number): Promise<void> {

@@ -1,0 +1,98 @@
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, numberAttribute, signal } from '@angular/core';
+import { DatePipe } from '@angular/common';
+import { RouterLink } from '@angular/router';
+import { FormsModule, ReactiveFormsModule } from '@angular/forms';
+import { MatTabsModule } from '@angular/material/tabs';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { AbilityServiceSignal } from '@casl/angular';
+import { subject } from '@casl/ability';
+import { validateRuleSet, type RuleSet } from '../../../../shared/rules';
+import type { AppAbility } from '../../../../shared/authz/app-ability';
+import { toHttpFailure } from '../../core/errors/http-failure';
+import { RuleSetsApi } from './rule-sets-api';
+import { applyRuleSetForm, buildRuleSetForm, type RuleSetForm } from './rule-set-form';
+import { PublishPanel } from './publish-panel';
+import { TryItPanel } from './try-it-panel';
+import { ImpactPanel } from './impact-panel';
+
+/** One version of a standard: read by everyone, edited (as a draft) by compliance only. */
+@Component({
+  selector: 'tt-rule-set-view',
+  imports: [DatePipe, RouterLink, FormsModule, ReactiveFormsModule, MatTabsModule, MatButtonModule, MatIconModule, MatFormFieldModule,
+    MatInputModule, MatSelectModule, MatProgressBarModule, PublishPanel, TryItPanel, ImpactPanel],
+  templateUrl: './rule-set-view.html',
+  styleUrl: './rule-set-view.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export default class RuleSetView {
+  private readonly api = inject(RuleSetsApi);
+  private readonly snackBar = inject(MatSnackBar);
+  private readonly ability = inject<AbilityServiceSignal<AppAbility>>(AbilityServiceSignal);
+  readonly id = input.required({ transform: numberAttribute });
+  protected readonly version = this.api.one(this.id);
+  protected readonly doc = computed(() => this.version.value()?.document as RuleSet | undefined);
+  protected readonly canEdit = computed(() => this.version.value()?.status === 'draft' && this.ability.can('update', subject('RuleSet', { status: 'draft' })));
+  protected readonly canImpact = computed(() => this.ability.can('impact', 'RuleSet'));
+  protected readonly form = signal<RuleSetForm | null>(null);
+  protected readonly jsonText = signal('');
+  protected readonly jsonIssues = signal<string[]>([]);
+  protected readonly problems = signal<string[]>([]);
+  protected readonly isSaving = signal(false);
+
+  constructor() {
+    effect(() => {
+      const doc = this.doc();
+      if (!doc) return;
+      this.form.set(buildRuleSetForm(doc));
+      this.jsonText.set(JSON.stringify(doc, null, 2));
+      this.jsonIssues.set([]);
+    });
+  }
+
+  protected checkJson(): RuleSet | null {
+    let parsed: unknown;
+    try {
+      parsed = JSON.parse(this.jsonText());
+    } catch (e) {
+      this.jsonIssues.set([`The text is not valid JSON: ${(e as Error).message}`]);
+      return null;
+    }
+    const result = validateRuleSet(parsed);
+    this.jsonIssues.set(result.ok ? [] : result.issues.map((i) => `${i.path}: ${i.message}`));
+    return result.ok ? result.value : null;
+  }
+
+  protected saveForm(): Promise<void> {
+    return this.persist(applyRuleSetForm(this.doc()!, this.form()!));
+  }
+
+  protected async saveJson(): Promise<void> {
+    const doc = this.checkJson();
+    if (doc) await this.persist(doc);
+  }
+
+  private async persist(doc: RuleSet): Promise<void> {
+    this.isSaving.set(true);
+    this.problems.set([]);
+    try {
+      const saved = await this.api.save(this.id(), doc as unknown as Record<string, unknown>, this.version.value()!.lockVersion);
+      this.version.set(saved);
+      this.snackBar.open(`Draft v${saved.version} saved.`, 'OK', { duration: 4000 });
+    } catch (error) {
+      const f = toHttpFailure(error);
+      this.problems.set(Object.keys(f.fieldErrors).length ? Object.entries(f.fieldErrors).map(([k, v]) => `${k}: ${v.join('; ')}`) : [f.message]);
+    } finally {
+      this.isSaving.set(false);
+    }
+  }
+
+  protected reloaded(): void {
+    this.version.reload();
+  }
+}

@@ -60,20 +60,32 @@ function trial(input: CalcInput, ruleSet: RuleSet, index: number, od: number): T
   const segments = input.segments.map((s, i) => (i === index ? { ...s, od, id: (seg.id / seg.od) * od } : s));
   const checked = validateCalcInput({ ...input, segments });
   if (!checked.ok) {
-    const issue = checked.issues[0];
-    return { passes: false, governing: { clauseId: '', reference: '', clauseTitle: 'calc input invalid at this diameter', location: issue.path, status: 'error', utilisation: null, message: issue.message } };
+    const { path, message } = checked.issues[0];
+    return { passes: false, governing: { clauseId: '', reference: '', clauseTitle: 'calc input invalid at this diameter', location: path, status: 'error', utilisation: null, message } };
   }
   const effective = applyRuleSetMethods(checked.value, ruleSet);
   const result = evaluateValidInput(effective);
   const [start, end] = [result.segments[index].start, result.segments[index].end];
-  const rows = evaluateChecklistSync(effective, result, ruleSet).rows.filter((r) => r.severity === 'mandatory' && (r.location.scope === 'shaft'
-    || (r.location.scope === 'segment' && r.location.index === index)
-    || (r.location.scope === 'feature' && r.location.at !== null && r.location.at >= start && r.location.at <= end)));
+  const influenced = (r: ChecklistRow): boolean => r.location.scope === 'shaft' || (r.location.scope === 'segment' && r.location.index === index)
+    || (r.location.scope === 'feature' && r.location.at !== null && r.location.at >= start && r.location.at <= end);
+  const rows = evaluateChecklistSync(effective, result, ruleSet).rows.filter((r) => r.severity === 'mandatory' && influenced(r));
   return { passes: rows.every((r) => r.status === 'pass' || r.status === 'not-applicable'), governing: governingOf(rows) };
 }
 
 function scanGrid(lo: number, hi: number, n: number): number[] {
   return Array.from({ length: n }, (_, k) => lo * (hi / lo) ** (k / (n - 1)));
+}
+
+/** Bisection between a failing and a passing diameter; returns the passing end and its trial. */
+function bisect(run: (od: number) => Trial, fail: number, pass: number, at: Trial, tolerance: number): [number, Trial] {
+  let best = at;
+  while (pass - fail > tolerance * pass) {
+    const mid = (fail + pass) / 2;
+    const t = run(mid);
+    if (t.passes) [pass, best] = [mid, t];
+    else fail = mid;
+  }
+  return [pass, best];
 }
 
 function searchSegment(input: CalcInput, ruleSet: RuleSet, index: number, o: Required<MinimumDiameterOptions>): MinimumDiameter {
@@ -84,24 +96,21 @@ function searchSegment(input: CalcInput, ruleSet: RuleSet, index: number, o: Req
   const grid = scanGrid(range[0], range[1], o.scanPoints);
   // Scan first: utilisation need not fall monotonically with diameter (factors change with D/d).
   let k = 0;
-  let at: Trial = run(grid[0]);
+  let at = run(grid[0]);
   while (!at.passes && k < grid.length - 1) at = run(grid[++k]);
-  const base = { segment: index, label: seg.label ?? `segment ${index + 1}`, unit: UNIT_LABELS[input.units].length, current: seg.od, range, tolerance: o.tolerance };
+  const unit = UNIT_LABELS[input.units].length;
+  const base = { segment: index, label: seg.label ?? `segment ${index + 1}`, unit, current: seg.od, range, tolerance: o.tolerance };
   if (!at.passes) {
     return { ...base, status: 'none-in-range', minimum: null, inner: null, governing: at.governing, evaluations,
-      message: `no diameter within [${range[0].toPrecision(4)}, ${range[1].toPrecision(4)}] ${base.unit} passes every mandatory clause` };
+      message: `no diameter within [${range[0].toPrecision(4)}, ${range[1].toPrecision(4)}] ${unit} passes every mandatory clause` };
   }
-  let [fail, pass, best] = [k > 0 ? grid[k - 1] : 0, grid[k], at];
-  while (k > 0 && pass - fail > o.tolerance * pass) {
-    const mid = (fail + pass) / 2;
-    const t = run(mid);
-    if (t.passes) [pass, best] = [mid, t];
-    else fail = mid;
+  if (k === 0) {
+    return { ...base, status: 'lower-end-passes', minimum: grid[0], inner: (seg.id / seg.od) * grid[0], governing: at.governing, evaluations,
+      message: 'the lower end of the search range already passes; the minimum may be smaller' };
   }
-  const status = k === 0 ? 'lower-end-passes' : 'found';
-  const message = k === 0 ? 'the lower end of the search range already passes; the minimum may be smaller'
-    : `smallest passing outer diameter, within ${o.tolerance * 100} %; governed by ${best.governing?.reference ?? 'no clause'}`;
-  return { ...base, status, minimum: pass, inner: (seg.id / seg.od) * pass, governing: best.governing, evaluations, message };
+  const [minimum, best] = bisect(run, grid[k - 1], grid[k], at, o.tolerance);
+  return { ...base, status: 'found', minimum, inner: (seg.id / seg.od) * minimum, governing: best.governing, evaluations,
+    message: `smallest passing outer diameter, within ${o.tolerance * 100} %; governed by ${best.governing?.reference ?? 'no clause'}` };
 }
 
 /**

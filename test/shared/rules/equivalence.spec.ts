@@ -18,6 +18,13 @@ describe('sync evaluator ≡ json-rules-engine on the shipped standards', () => 
       expect(checklistSync(input, rs)).toEqual(await checklistAsync(input, rs));
     });
 
+  it('when many checklists run at once on one cached engine, then each equals its synchronous twin', async () => {
+    // json-rules-engine keeps one run status per Engine; overlapping runs must not skip rules.
+    const inputs = FIXTURES.flatMap((f) => [loadCalc(f), loadCalc(f)]);
+    const all = await Promise.all(inputs.map((input) => checklistAsync(input, V3)));
+    all.forEach((c, i) => expect(c).toEqual(checklistSync(inputs[i], V3)));
+  });
+
   const calcArb = fc.record({
     od: fc.double({ min: 15, max: 120, noNaN: true }), ratio: fc.constantFrom(0, 0.3, 0.6), T: fc.double({ min: 1, max: 4000, noNaN: true }),
     kind: fc.constantFrom('steel', 'aluminium'), Ma: fc.double({ min: 0, max: 2000, noNaN: true }), hasFatigue: fc.boolean(),

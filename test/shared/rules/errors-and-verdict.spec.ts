@@ -1,4 +1,5 @@
-import type { RuleSet } from '../../../shared/rules';
+import { evaluateValidInput } from '../../../shared/engine';
+import { applyRuleSetMethods, evaluateChecklist, evaluateChecklistSync, type RuleSet } from '../../../shared/rules';
 import { checklistAsync, checklistSync, loadCalc, only, rowsOf, shaft, V3 } from './rules-helpers';
 
 /** v3 with one clause's check replaced, bypassing validation (as a hand-edited database row could). */
@@ -58,8 +59,6 @@ describe('verdict, counts and manual items', () => {
   });
 
   it('when the checker ticks items, then their state is shown and unknown ids become notes', async () => {
-    const { evaluateChecklist, applyRuleSetMethods } = await import('../../../shared/rules');
-    const { evaluateValidInput } = await import('../../../shared/engine');
     const eff = applyRuleSetMethods(input, V3);
     const c = await evaluateChecklist(eff, evaluateValidInput(eff), V3, {
       'load-cases': { done: true, by: 'R. Checker', note: 'duty spec DS-7 rev B' }, 'no-such-item': { done: true } });
@@ -90,8 +89,6 @@ describe('verdict, counts and manual items', () => {
 
 describe('a result that belongs to another calc', () => {
   it('when the result does not match the input, then both paths refuse it, saying why', async () => {
-    const { evaluateChecklist, evaluateChecklistSync } = await import('../../../shared/rules');
-    const { evaluateValidInput } = await import('../../../shared/engine');
     const other = evaluateValidInput(loadCalc('solid-si.json'));
     const input = loadCalc('five-segment-fatigue.json');
     expect(() => evaluateChecklistSync(input, other, V3)).toThrow(/the result \(1 segments, 0 features, SI\) is not of this input \(5 segments, 3 features, SI\)/);

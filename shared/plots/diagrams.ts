@@ -66,3 +66,11 @@ export function twistPlot(result: CalcResult, limits: readonly LimitLine[] = [])
   const series: Series[] = [{ id: 'phi', label: 'Accumulated twist φ', points, shape: 'line', style: 'solid' }];
   return chart(result, 'Accumulated angle of twist', { label: 'φ', unit: result.fields['twistStart']?.unit ?? 'deg' }, series, limits);
 }
+
+/** Twist rate |T|/(G·J) along the shaft (a step per piece), where per-length twist limits are judged. */
+export function twistRatePlot(result: CalcResult, limits: readonly LimitLine[] = []): Chart {
+  const series: Series[] = [{
+    id: 'rate', label: 'Twist per length', points: steps(result, (p) => Math.abs(p.twistPerLength)), shape: 'step', style: 'solid',
+  }];
+  return chart(result, 'Twist per unit length', { label: 'dφ/dx', unit: result.fields['twistPerLength']?.unit ?? '' }, series, limits);
+}

@@ -4,5 +4,5 @@
  */
 export type { Axis, Chart, LimitLine, PlacedLimit, Point, Series } from './plot-types';
 export { niceAxis, niceStep, valueRange } from './ticks';
-export { torquePlot, shearPlot, twistPlot } from './diagrams';
+export { torquePlot, shearPlot, twistPlot, twistRatePlot } from './diagrams';
 export { shaftOutline, featureTag, type ShaftOutline, type OutlineSegment, type OutlineFeature, type OutlineRect, type MarkShape, type OutlineInput } from './outline';

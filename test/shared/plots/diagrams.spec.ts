@@ -1,5 +1,5 @@
 import { evaluateShaft, type CalcResult } from '../../../shared/engine';
-import { shearPlot, torquePlot, twistPlot } from '../../../shared/plots';
+import { shearPlot, torquePlot, twistPlot, twistRatePlot } from '../../../shared/plots';
 import { expectClose, loadFixture } from '../engine/check-helpers';
 
 const conveyor: CalcResult = evaluateShaft(loadFixture('five-segment-fatigue.json'));
@@ -75,5 +75,16 @@ describe('accumulated twist', () => {
     const pts = twistPlot(us).series[0].points;
     expectClose(pts[pts.length - 1][1], us.twistTotal, 1e-9);
     expect(twistPlot(us).xUnit).toBe('in');
+  });
+});
+
+describe('twist per unit length', () => {
+  it('when drawn, then each piece shows the magnitude of its twist rate, peaking at the segment maximum', () => {
+    const chart = twistRatePlot(conveyor, [{ value: 0.25, label: '0.25 deg/m' }]);
+    const ys = chart.series[0].points.map((p) => p[1]);
+    expect(Math.min(...ys)).toBeGreaterThanOrEqual(0);
+    expectClose(Math.max(...ys), Math.max(...conveyor.segments.map((s) => s.twistPerLength)), 1e-12);
+    expect(chart.yUnit).toBe('deg/m');
+    expect(chart.limits[0]).toMatchObject({ y: 0.25, x1: 0, x2: 410 });
   });
 });

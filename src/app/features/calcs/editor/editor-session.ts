@@ -1,0 +1,149 @@
+import { Injectable, effect, inject, signal, untracked, type Signal } from '@angular/core';
+import { firstValueFrom } from 'rxjs';
+import { MatDialog } from '@angular/material/dialog';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
+import type { EditorForm, EditorValue } from './editor-form';
+import { EditorStore, type SaveOutcome } from './editor-store';
+import { DraftStorage, type LocalDraft } from './draft-storage';
+import { canonical } from './editor-support';
+import { inputToValue, valueToInput } from './form-values';
+import { ConflictDialog, type ConflictChoice, type ConflictData } from './conflict-dialog';
+import { LeaveDialog } from './leave-dialog';
+
+export interface SessionHooks {
+  form: () => EditorForm;
+  replace: (v: EditorValue) => void;
+  canEdit: Signal<boolean>;
+  authorInput: Signal<Record<string, unknown>>;
+}
+
+/**
+ * One editing session of a revision: what was loaded (the baseline), the local copy kept on every
+ * change, the offer to restore it, and the explicit save with its conflict handling. Never overwrites
+ * the stored revision silently: a stale save comes back as a 409 and the author decides.
+ */
+@Injectable()
+export class EditorSession {
+  private readonly store = inject(EditorStore);
+  private readonly drafts = inject(DraftStorage);
+  private readonly dialog = inject(MatDialog);
+  private readonly snackBar = inject(MatSnackBar);
+  private readonly hooks = signal<SessionHooks | null>(null);
+  private revisionId = 0;
+
+  readonly isLoaded = signal(false);
+  /** Canonical input as stored on the server; anything else is an unsaved change. */
+  readonly baseline = signal('');
+  readonly restoreOffer = signal<LocalDraft | null>(null);
+  readonly pendingConflict = signal<{ mine: Record<string, unknown>; current: RevisionDto } | null>(null);
+  readonly saveError = signal<string | null>(null);
+  readonly localNote = signal<string | null>(null);
+
+  constructor() {
+    // Autosave to this browser on every (debounced) change once the stored revision is on screen.
+    effect(() => {
+      const input = this.hooks()?.authorInput();
+      if (input) untracked(() => this.keepLocalCopy(input));
+    });
+  }
+
+  attach(hooks: SessionHooks): void {
+    this.hooks.set(hooks);
+  }
+
+  private current(): Record<string, unknown> {
+    return valueToInput(this.hooks()!.form().getRawValue());
+  }
+
+  private showStored(revision: RevisionDto): void {
+    this.hooks()!.replace(inputToValue(revision.input));
+    this.baseline.set(canonical(this.current()));
+  }
+
+  async open(id: number): Promise<void> {
+    this.revisionId = id;
+    this.isLoaded.set(false);
+    await this.store.load(id);
+    const revision = this.store.revision();
+    if (!revision) return;
+    this.showStored(revision);
+    const draft = this.drafts.read(id);
+    const draftText = draft ? canonical(valueToInput(inputToValue(draft.input))) : null;
+    this.restoreOffer.set(draft && draftText !== this.baseline() ? draft : null);
+    this.isLoaded.set(true);
+  }
+
+  /** Writes the current input to localStorage; a copy equal to the stored revision is dropped instead. */
+  keepLocalCopy(input: Record<string, unknown> = this.current()): void {
+    // While a copy is offered for restore it must not be overwritten by what the form shows.
+    if (!this.isLoaded() || !this.hooks()?.canEdit() || this.restoreOffer()) return;
+    if (canonical(input) === this.baseline()) {
+      this.drafts.clear(this.revisionId);
+      return;
+    }
+    const ok = this.drafts.write(this.revisionId, { lockVersion: this.store.baseLockVersion(), savedAt: new Date().toISOString(), input });
+    this.localNote.set(ok ? null : 'This browser refused to keep a local copy (storage full or blocked): save soon.');
+  }
+
+  restore(): void {
+    const d = this.restoreOffer();
+    if (!d) return;
+    this.restoreOffer.set(null);
+    // The copy keeps the version it started from, so saving it over newer work gives a 409, not an overwrite.
+    this.store.baseLockVersion.set(d.lockVersion);
+    this.hooks()!.replace(inputToValue(d.input));
+  }
+
+  discardLocal(): void {
+    this.drafts.clear(this.revisionId);
+    this.restoreOffer.set(null);
+  }
+
+  hasUnsavedChanges(): boolean {
+    return this.isLoaded() && !!this.hooks()?.canEdit() && canonical(this.current()) !== this.baseline();
+  }
+
+  async save(): Promise<void> {
+    const mine = this.current();
+    await this.settle(await this.store.save(mine), mine);
+  }
+
+  private async settle(outcome: SaveOutcome, mine: Record<string, unknown>): Promise<void> {
+    this.saveError.set(null);
+    if (outcome.kind === 'failed') this.saveError.set(outcome.message);
+    if (outcome.kind === 'conflict') await this.resolve(mine, outcome.current);
+    if (outcome.kind !== 'saved') return;
+    this.pendingConflict.set(null);
+    this.baseline.set(canonical(mine));
+    this.drafts.clear(this.revisionId);
+    // Edits typed while the save was in flight are kept as a new local copy.
+    this.keepLocalCopy();
+    this.snackBar.open(`Saved revision ${outcome.revision.label} (version ${outcome.revision.lockVersion}).`, 'OK', { duration: 4000 });
+  }
+
+  private async resolve(mine: Record<string, unknown>, current: RevisionDto): Promise<void> {
+    this.pendingConflict.set({ mine, current });
+    const data: ConflictData = { mine, myBase: this.store.baseLockVersion(), theirs: current };
+    const ref = this.dialog.open<ConflictDialog, ConflictData, ConflictChoice>(ConflictDialog, { data, width: '920px', maxWidth: '96vw' });
+    const choice = await firstValueFrom(ref.afterClosed());
+    if (choice === 'keep-mine') await this.settle(await this.store.save(mine, current.lockVersion), mine);
+    if (choice === 'take-theirs') {
+      this.pendingConflict.set(null);
+      this.store.adopt(current);
+      this.showStored(current);
+      this.drafts.clear(this.revisionId);
+    }
+  }
+
+  reopenConflict(): void {
+    const c = this.pendingConflict();
+    if (c) void this.resolve(this.current(), c.current);
+  }
+
+  async confirmLeave(): Promise<boolean> {
+    if (!this.hasUnsavedChanges()) return true;
+    this.keepLocalCopy();
+    return (await firstValueFrom(this.dialog.open(LeaveDialog).afterClosed())) === true;
+  }
+}

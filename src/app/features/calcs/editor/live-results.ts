@@ -1,0 +1,42 @@
+import { ChangeDetectionStrategy, Component, DOCUMENT, computed, inject, input } from '@angular/core';
+import { MatIconModule } from '@angular/material/icon';
+import type { CalcIssue } from '../../../../../shared/engine';
+import { SafetyNote } from '../../../ui/safety-note';
+import { ChecklistPanel } from './checklist-panel';
+import { placeOf } from './issue-map';
+import type { ChecklistState, Evaluated } from './live-calc';
+import { PlotsPanel } from './plots-panel';
+import type { PlotLimits } from './plot-limits';
+import { ResultSummary } from './result-summary';
+import { ResultsTables } from './results-tables';
+import type { CriterionKey } from './result-format';
+
+/** Everything computed live from the input: issues, key figures, plots, result tables and the checklist. */
+@Component({
+  selector: 'tt-live-results',
+  imports: [MatIconModule, SafetyNote, ChecklistPanel, PlotsPanel, ResultSummary, ResultsTables],
+  templateUrl: './live-results.html',
+  styleUrl: './results.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class LiveResults {
+  private readonly document = inject(DOCUMENT);
+
+  readonly issues = input.required<readonly CalcIssue[]>();
+  readonly evaluated = input.required<Evaluated | null>();
+  readonly isStale = input.required<boolean>();
+  readonly checklist = input.required<ChecklistState>();
+  readonly ruleSetProblem = input<string | null>(null);
+  readonly limits = input<PlotLimits | undefined>(undefined);
+  readonly criterion = input<CriterionKey>('goodman');
+  readonly criterionName = input('DE-Goodman');
+
+  protected readonly listed = computed(() => this.issues().map((i) => ({ ...i, place: placeOf(i.path) })));
+
+  /** Takes the author to the field an issue names, where the same message is shown. */
+  protected focusField(path: string): void {
+    const el = this.document.querySelector<HTMLElement>(`[data-path="${CSS.escape(path)}"]`);
+    el?.focus();
+    el?.scrollIntoView({ block: 'center' });
+  }
+}

@@ -1,0 +1,62 @@
+import { formatNumber, fromBase, toBase, type CalcResult } from '../../../../../shared/engine';
+import type { LimitLine } from '../../../../../shared/plots';
+import type { Checklist, ChecklistRow, RuleSet } from '../../../../../shared/rules';
+
+export interface PlotLimits { shear: LimitLine[]; twist: LimitLine[]; twistRate: LimitLine[] }
+
+type Span = { from: number; to: number; value: number };
+
+/** Rows of clauses whose measure is `fact` in `scope`, with a numeric limit. */
+function rowsMeasuring(checklist: Checklist, ruleSet: RuleSet, scope: string, fact: string): ChecklistRow[] {
+  const ids = new Set(ruleSet.clauses.filter((c) => c.scope === scope && c.measure?.actual === fact).map((c) => c.id));
+  return checklist.rows.filter((r) => ids.has(r.clauseId) && r.limit !== null && Number.isFinite(r.limit));
+}
+
+// Neighbouring segments with the same limit read as one line, labelled once per value.
+function toLines(spans: Span[], label: (s: Span) => string): LimitLine[] {
+  const merged: Span[] = [];
+  for (const s of [...spans].sort((a, b) => a.from - b.from)) {
+    const last = merged[merged.length - 1];
+    if (last && Math.abs(last.to - s.from) < 1e-9 && Math.abs(last.value - s.value) <= 1e-9 * Math.abs(s.value)) last.to = s.to;
+    else merged.push({ ...s });
+  }
+  const labelled = new Set<string>();
+  return merged.map((s) => {
+    const key = formatNumber(s.value, 4);
+    const text = labelled.has(key) ? '' : label(s);
+    labelled.add(key);
+    return { value: s.value, from: s.from, to: s.to, label: text };
+  });
+}
+
+function segmentSpans(rows: ChecklistRow[], result: CalcResult, value: (row: ChecklistRow, seg: CalcResult['segments'][number]) => number): Span[] {
+  return rows.flatMap((r) => {
+    const seg = r.location.index === null ? undefined : result.segments[r.location.index];
+    return seg ? [{ from: seg.start, to: seg.end, value: value(r, seg) }] : [];
+  });
+}
+
+/**
+ * The rule set's limits that can be drawn as lines on the diagrams: allowable shear per segment, a total
+ * twist limit, and twist-per-length limits (a per-diameter limit is turned into a rate on each segment).
+ */
+export function plotLimits(checklist: Checklist | null, ruleSet: RuleSet | null, result: CalcResult): PlotLimits {
+  if (!checklist || !ruleSet) return { shear: [], twist: [], twistRate: [] };
+  const f = (v: number) => formatNumber(v, 3);
+  const tauRows = rowsMeasuring(checklist, ruleSet, 'segment', 'tauMax');
+  const shear = toLines(segmentSpans(tauRows, result, (r) => r.limit!), (s) => `§${tauRows[0].clauseId} allowable ${f(s.value)} ${tauRows[0].unit}`);
+  const sign = result.twistTotal < 0 ? -1 : 1;
+  const twist = rowsMeasuring(checklist, ruleSet, 'shaft', 'twistTotal')
+    .map((r) => ({ value: sign * r.limit!, label: `§${r.clauseId} ${f(r.limit!)} ${r.unit}` }));
+  const rateRows = rowsMeasuring(checklist, ruleSet, 'segment', 'twistPerLength');
+  const perDiaRows = rowsMeasuring(checklist, ruleSet, 'segment', 'twistPerDiameter');
+  const u = result.units;
+  // θ per diameter d becomes a rate θ/d in the calc's twist-rate unit (deg/m or deg/ft).
+  const perDiaRate = (r: ChecklistRow, seg: CalcResult['segments'][number]) =>
+    fromBase(toBase(r.limit!, 'angle', u) / toBase(seg.od, 'length', u), 'twistPerLength', u);
+  const twistRate = [
+    ...toLines(segmentSpans(rateRows, result, (r) => r.limit!), (s) => `§${rateRows[0].clauseId} ${f(s.value)} ${rateRows[0].unit}`),
+    ...toLines(segmentSpans(perDiaRows, result, perDiaRate), () => `§${perDiaRows[0].clauseId} ${f(perDiaRows[0].limit!)}° per diameter`),
+  ];
+  return { shear, twist, twistRate };
+}

@@ -1,0 +1,2 @@
+export { DiagramChart } from './diagram-chart';
+export { ShaftDrawing } from './shaft-drawing';

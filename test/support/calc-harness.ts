@@ -2,8 +2,11 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { randomUUID } from 'node:crypto';
 import type { Express } from 'express';
-import { RuleSetRecord } from '../../server/db/models';
-import { TEST_PASSWORD, createTestProject, signedInAs } from './api-harness';
+import { Op } from 'sequelize';
+import { AuditEvent, MailOutbox, Project, RuleSetRecord } from '../../server/db/models';
+import { documentHash } from '../../server/rule-sets/rule-set-mapping';
+import type { Role } from '../../shared/authz/roles';
+import { TEST_PASSWORD, createTestProject, signedInAs, uniqueCode } from './api-harness';
 
 /** The engine's five-segment fixture: a valid shaft with features and fatigue data. */
 export function fixtureInput(name = 'five-segment-fatigue'): Record<string, unknown> {
@@ -50,3 +53,108 @@ export async function tickAll(s: Session, id: number) {
   const r = await revisionOf(s, id);
   for (const item of r.checklist?.manual ?? []) await s.put(`/api/revisions/${id}/manual-items/${item.id}`, { done: true, note: '' });
 }
+
+// ---- Additions for the workflow, rule-set and audit specs ----
+
+export type Meaning = 'authored' | 'checked' | 'approved';
+type Person = Awaited<ReturnType<typeof signedInAs>>;
+
+/**
+ * A signed-in test person whose display name is unique, so a printed name on a signature can
+ * only have come from them. `label` is short and lower-case (it is part of the username).
+ */
+export async function person(app: Express, roles: Role[], label = roles.join('-')) {
+  const tag = `${label}-${randomUUID().slice(0, 4)}`;
+  const p = await signedInAs(app, roles, tag);
+  return { ...p, displayName: `Test ${tag}`, email: `${p.user.username}@example.test` };
+}
+
+let workflowStandard: Promise<{ id: number; code: string }> | undefined;
+
+/**
+ * The standard workflow specs check calcs against: KFD-ENG-014 v3's clauses and manual items under
+ * a test-only code, one per spec file, with no item requiring an attachment, so that the sign-off
+ * rules are tested on their own (attachments have their own specs).
+ */
+export function workflowStandardId(): Promise<number> {
+  workflowStandard ??= testStandard((doc) => {
+    doc.manualItems = (doc.manualItems as { requiresAttachment?: string }[]).map(({ requiresAttachment: _dropped, ...item }) => item);
+  });
+  return workflowStandard.then((s) => s.id);
+}
+
+/** A fresh calc written by `author`, in a new project of its own (revision scheme and standard as asked). */
+export async function createCalc(author: Session, opts: { input?: Record<string, unknown>; ruleSetId?: number; scheme?: 'letters' | 'numbers' } = {}) {
+  const project = await Project.create({ code: uniqueCode(), name: 'Test drive shaft', createdBy: null, revisionScheme: opts.scheme ?? 'letters' });
+  const res = await author.post('/api/calcs', {
+    projectId: project.id, number: `C-${randomUUID().slice(0, 6)}`, title: 'Test head shaft', partRef: 'DRG-1',
+    ruleSetId: opts.ruleSetId ?? (await workflowStandardId()), input: opts.input ?? fixtureInput(),
+  });
+  if (res.status !== 201) throw new Error(`calc create failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return { project: { id: project.id, code: project.code }, calc: res.body, calcId: res.body.id as number, revisionId: res.body.latest.id as number };
+}
+
+/** Fails loudly with the response body when a set-up step does not answer as expected. */
+export function expectStatus(res: { status: number; body: unknown }, status: number, step: string) {
+  if (res.status !== status) throw new Error(`${step}: expected ${status}, got ${res.status} ${JSON.stringify(res.body)}`);
+  return res;
+}
+
+export interface Team { author: Session; checker: Session; approver: Session }
+
+/** Set-up through the API: takes a draft (or returned) revision forward to `state` with the given team. */
+export async function advanceTo(state: 'in_check' | 'checked' | 'approved', team: Team, revisionId: number): Promise<void> {
+  expectStatus(await sign(team.author, revisionId, 'authored'), 200, 'submit');
+  if (state === 'in_check') return;
+  await tickAll(team.checker, revisionId);
+  expectStatus(await sign(team.checker, revisionId, 'checked'), 200, 'check');
+  if (state === 'checked') return;
+  expectStatus(await sign(team.approver, revisionId, 'approved'), 200, 'approve');
+}
+
+/** Audit rows of one entity, oldest first, read from the table (the API has no per-entity filter). */
+export async function auditOf(entityType: string, entityId: number, since = 0) {
+  const rows = await AuditEvent.findAll({ where: { entityType, entityId: String(entityId), id: { [Op.gt]: since } }, order: [['id', 'ASC']] });
+  return rows.map((r) => ({ id: r.id, action: r.action, actorId: r.actorId, actorName: r.actorName, payload: JSON.parse(r.payload), diff: r.diff }));
+}
+
+export async function lastAuditId(): Promise<number> {
+  return (await AuditEvent.max<number, AuditEvent>('id')) ?? 0;
+}
+
+/** Hand-over mails about one project (its code is unique and is in every subject). */
+export async function mailAbout(projectCode: string, event?: string) {
+  const rows = await MailOutbox.findAll({ where: { subject: { [Op.like]: `%${projectCode}%` }, ...(event ? { event } : {}) }, order: [['id', 'ASC']] });
+  return rows.map((r) => ({ event: r.event, recipient: r.recipient, subject: r.subject, body: r.body, status: r.status }));
+}
+
+/** The shipped KFD-ENG-014 v3 document, as compliance would start from. */
+export function standardDocument(): Record<string, unknown> {
+  const { $schema: _ignored, ...doc } = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../rules/kfd-eng-014-v3.json'), 'utf8'));
+  return doc;
+}
+
+/**
+ * A test-only design standard (a copy of KFD-ENG-014 v3 under a unique code) inserted as effective
+ * version 1, so that drafting, confirming and retiring versions never touches the shipped
+ * standards other specs rely on.
+ */
+export async function testStandard(change: (doc: Record<string, unknown>) => void = () => {}) {
+  const code = `TST-${randomUUID().slice(0, 8).toUpperCase()}`;
+  const doc = { ...standardDocument(), code, version: 1, status: 'effective', effectiveDate: '2025-01-01', title: `Test standard ${code}` };
+  change(doc);
+  const record = await RuleSetRecord.create({
+    code, version: 1, title: doc.title, status: 'effective', effectiveDate: '2025-01-01',
+    document: JSON.stringify(doc), contentHash: documentHash(doc), createdBy: null,
+  });
+  return { id: record.id, code };
+}
+
+/** Sets one numeric parameter of a rule-set document (a copy; the original is left alone). */
+export function withParameter(doc: Record<string, unknown>, name: string, value: number): Record<string, unknown> {
+  const parameters = (doc.parameters as { name: string; value: unknown }[]).map((p) => (p.name === name ? { ...p, value } : p));
+  if (!parameters.some((p) => p.name === name)) throw new Error(`no parameter ${name}`);
+  return { ...doc, parameters };
+}
+
+export type { Person };

@@ -6,6 +6,9 @@ import { hashPassword } from '../auth/password';
 import { appendAudit } from '../audit/audit.service';
 import { DEMO_PASSWORD, DEMO_PROJECTS, DEMO_USERS } from './demo-data';
 import { seedRuleSets } from '../rule-sets/seed-rule-sets';
+import { seedDemoCalcs } from './demo/demo-calcs';
+import { AttachmentsService } from '../attachments/attachments.service';
+import { ObjectStore } from '../attachments/object-store';
 
 const SYSTEM = { id: null, name: 'demo data loader', ip: null };
 
@@ -37,7 +40,10 @@ async function main(): Promise<void> {
         await appendAudit(sequelize, SYSTEM, { action: 'project.created', entityType: 'Project', entityId: project.id, payload: p }, transaction);
       }
     });
-    console.log(`demo data loaded: ${DEMO_USERS.length} users, ${DEMO_PROJECTS.length} projects`);
+    const config = loadConfig();
+    const attachments = new AttachmentsService(sequelize, new ObjectStore(config), config.ATTACHMENT_MAX_MB * 1024 * 1024);
+    await seedDemoCalcs(sequelize, config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}`, attachments);
+    console.log(`demo data loaded: ${DEMO_USERS.length} users, ${DEMO_PROJECTS.length} projects, calcs in every workflow state`);
     printAccounts();
   } finally {
     await sequelize.close();

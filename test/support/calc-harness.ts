@@ -95,7 +95,7 @@ export async function createCalc(author: Session, opts: { input?: Record<string,
 }
 
 /** Fails loudly with the response body when a set-up step does not answer as expected. */
-export function expectStatus(res: { status: number; body: unknown }, status: number, step: string) {
+export function expectStatus<T extends { status: number; body: unknown }>(res: T, status: number, step: string): T {
   if (res.status !== status) throw new Error(`${step}: expected ${status}, got ${res.status} ${JSON.stringify(res.body)}`);
   return res;
 }

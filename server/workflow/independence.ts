@@ -5,7 +5,7 @@ export type Meaning = 'authored' | 'checked' | 'approved';
 
 export interface SigningContext {
   actor: { id: number; roles: readonly Role[] };
-  revision: { status: RevisionState; authorId: number; checkerId: number | null; hasResult: boolean };
+  revision: { status: RevisionState; authorId: number; checkerId: number | null; hasResult: boolean; verdict: string | null };
   editorIds: readonly number[];
   openFindings: number;
   unresolvedFindings: number;
@@ -36,6 +36,8 @@ export function signingBlocker(meaning: Meaning, c: SigningContext): string | nu
   if (actor.id === revision.authorId || c.editorIds.includes(actor.id)) {
     return `You edited this calc, so you cannot sign it as ${meaning}; independence requires someone else`;
   }
+  // A calc that fails a mandatory clause goes back to its author; nobody vouches for it.
+  if (revision.verdict !== 'compliant') return `The calc does not meet its standard (${revision.verdict ?? 'not evaluated'}); return it to the author instead of signing it as ${meaning}`;
   if (meaning === 'checked' && c.openManualItems > 0) return `Tick the ${c.openManualItems} open manual checklist item(s) first`;
   if (meaning === 'checked' && c.openFindings > 0) return 'Open findings remain: return the calc to its author instead';
   if (meaning === 'approved') {

@@ -65,7 +65,7 @@ export class WorkflowService {
     const items = revision.ruleSet ? parseRuleSet(revision.ruleSet).manualItems ?? [] : [];
     const blocker = signingBlocker(meaning, {
       actor: signer,
-      revision: { status: revision.status, authorId: revision.authorId, checkerId: revision.checkerId, hasResult: revision.result !== null },
+      revision: { status: revision.status, authorId: revision.authorId, checkerId: revision.checkerId, hasResult: revision.result !== null, verdict: revision.verdict },
       editorIds: await editorIdsOf(revision.calcId, transaction),
       openFindings: findings.filter((f) => f.status === 'open').length,
       unresolvedFindings: findings.filter((f) => f.status !== 'closed').length,

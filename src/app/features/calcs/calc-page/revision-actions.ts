@@ -30,12 +30,16 @@ export function planActions(r: RevisionDto, me: SessionUser | null, isLatest: bo
       }
       return { actions, nextStep: authorStep(r, isAuthor, open) };
     case 'in_check':
-      if (has('checker') && !isEditor) actions.add('raise-finding').add('return').add('sign-checked');
+      if (has('checker') && !isEditor) {
+        actions.add('raise-finding').add('return');
+        if (r.verdict === 'compliant') actions.add('sign-checked');
+      }
+      if (r.verdict !== 'compliant' && actions.has('return')) return { actions, nextStep: 'The calc fails a mandatory clause of its standard: return it to the author with findings.' };
       return { actions, nextStep: has('checker') && isEditor ? 'Waiting for an independent checker. You edited this calc, so you cannot check it.' : 'Waiting for an independent check.' };
     case 'checked':
       if (has('approver') && !isEditor && r.checker?.id !== me.id) {
         actions.add('raise-finding').add('return');
-        if (unresolved === 0) actions.add('approve');
+        if (unresolved === 0 && r.verdict === 'compliant') actions.add('approve');
       }
       return { actions, nextStep: approverStep(r, me.id, isEditor, unresolved) };
     default:

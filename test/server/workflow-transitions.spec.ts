@@ -105,7 +105,7 @@ describe.each(ACTORS)('as %s', (who) => {
 });
 
 describe('what an allowed transition records', () => {
-  it('when each of the three signs, then each signature carries that person\'s printed name, role and meaning', async () => {
+  it('when each of the three signs, then each signature carries that person\'s printed name, role and meaning, and each step its own time', async () => {
     // Arrange
     const author = await person(app, ['author']);
     const checker = await person(app, ['checker']);
@@ -121,6 +121,8 @@ describe('what an allowed transition records', () => {
       [author.displayName, 'author', 'authored'], [checker.displayName, 'checker', 'checked'], [approver.displayName, 'approver', 'approved'],
     ]);
     expect([r.author.id, r.checker.id, r.approver.id]).toEqual([author.user.id, checker.user.id, approver.user.id]);
+    // Each step keeps its own time: signing later never overwrites when the calc was submitted.
+    expect([r.submittedAt, r.checkedAt, r.approvedAt]).toEqual(r.signatures.map((s: { signedAt: string }) => s.signedAt));
   });
 
   it.each([

@@ -19,8 +19,9 @@ export class Finding extends Model<InferAttributes<Finding>, InferCreationAttrib
   declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize): void {
-    const user = { type: DataTypes.INTEGER.UNSIGNED, allowNull: true };
-    const when = { type: DataTypes.DATE(3), allowNull: true };
+    // Fresh objects per attribute: Sequelize writes the column name into each definition, so a shared one maps two attributes to one column.
+    const user = () => ({ type: DataTypes.INTEGER.UNSIGNED, allowNull: true });
+    const when = () => ({ type: DataTypes.DATE(3), allowNull: true });
     Finding.init(
       {
         id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
@@ -30,7 +31,7 @@ export class Finding extends Model<InferAttributes<Finding>, InferCreationAttrib
         status: { type: DataTypes.ENUM('open', 'answered', 'closed'), allowNull: false, defaultValue: 'open' },
         raisedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         answer: { type: DataTypes.TEXT, allowNull: true },
-        answeredBy: user, answeredAt: when, closedBy: user, closedAt: when,
+        answeredBy: user(), answeredAt: when(), closedBy: user(), closedAt: when(),
         createdAt: DataTypes.DATE(3), updatedAt: DataTypes.DATE(3),
       },
       { sequelize, tableName: 'findings', underscored: true },

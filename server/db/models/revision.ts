@@ -40,7 +40,8 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
 
   static initModel(sequelize: Sequelize): void {
     const longText = (allowNull: boolean) => ({ type: DataTypes.TEXT('long'), allowNull });
-    const when = { type: DataTypes.DATE(3), allowNull: true };
+    // A fresh object per attribute: Sequelize writes the column name into each definition, so a shared one maps all three to one column.
+    const when = () => ({ type: DataTypes.DATE(3), allowNull: true });
     const userRef = (allowNull: boolean) => ({ type: DataTypes.INTEGER.UNSIGNED, allowNull });
     Revision.init(
       {
@@ -54,7 +55,7 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
         contentHash: { type: DataTypes.CHAR(64), allowNull: true },
         reasonForChange: { type: DataTypes.TEXT, allowNull: false },
         lockVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
-        submittedAt: when, checkedAt: when, approvedAt: when,
+        submittedAt: when(), checkedAt: when(), approvedAt: when(),
         createdAt: DataTypes.DATE(3), updatedAt: DataTypes.DATE(3),
       },
       { sequelize, tableName: 'revisions', underscored: true },

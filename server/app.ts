@@ -24,6 +24,7 @@ import { ReviewService } from './workflow/review.service';
 import { ruleSetsRouter } from './rule-sets/rule-sets.router';
 import { RuleSetsService } from './rule-sets/rule-sets.service';
 import { ImpactService } from './rule-sets/impact.service';
+import { recordsRouters } from './evidence/records-routers';
 
 export interface AppDeps {
   sequelize: Sequelize;
@@ -53,6 +54,7 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   app.use('/api/revisions', requireSignIn, revisionsRouter(services));
   app.use('/api/findings', requireSignIn, findingsRouter(services.review));
   app.use('/api/rule-sets', requireSignIn, ruleSetsRouter(new RuleSetsService(sequelize), new ImpactService(sequelize)));
+  for (const [path, router] of recordsRouters(sequelize, config)) app.use(path, requireSignIn, router);
   app.use('/api', apiNotFound);
 
   serveClient(app, config);

@@ -28,6 +28,29 @@ const envSchema = z.object({
   CLIENT_DIST: z.string().default('dist/torquetrail/browser'),
   // Shown in the top bar; the default is the invented demo company.
   ORG_NAME: z.string().max(80).default('Kestrel Fen Drives'),
+  // Hand-over mail: a local fake SMTP server in development and tests; a real relay is only these values.
+  SMTP_HOST: z.string().default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  SMTP_SECURE: z.stringbool().default(false),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  MAIL_FROM: z.string().min(3).default('Torquetrail <torquetrail@localhost>'),
+  MAIL_SENDER: z.stringbool().default(true),
+  MAIL_POLL_SECONDS: z.coerce.number().positive().default(2),
+  MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(10),
+  MAIL_BACKOFF_SECONDS: z.coerce.number().positive().default(30),
+  // The admin screen shows mail bodies; a deployment that must not expose them turns it off.
+  SENT_MAIL_SCREEN: z.stringbool().default(true),
+  // Attachments live in object storage through the S3 API; the defaults match scripts/fake-services.ts.
+  S3_ENDPOINT: z.url().default('http://127.0.0.1:4569'),
+  S3_REGION: z.string().default('us-east-1'),
+  S3_BUCKET: z.string().min(3).default('torquetrail-attachments'),
+  S3_ACCESS_KEY_ID: z.string().default('S3RVER'),
+  S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
+  S3_FORCE_PATH_STYLE: z.stringbool().default(true),
+  ATTACHMENT_MAX_MB: z.coerce.number().positive().max(500).default(20),
+  EVIDENCE_PACK_MAX_MB: z.coerce.number().positive().max(2000).default(200),
+  REPORT_FONT_DIR: z.string().default('/usr/share/fonts/truetype/dejavu'),
 });
 
 export type Config = Readonly<z.infer<typeof envSchema>>;

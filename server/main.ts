@@ -3,6 +3,7 @@ import { loadConfig } from './config';
 import { createSequelize } from './db';
 import { createApp } from './app';
 import { logger } from './logger';
+import { startMailSender } from './mail/start-sender';
 
 async function main(): Promise<void> {
   const config = loadConfig();
@@ -14,6 +15,7 @@ async function main(): Promise<void> {
     process.exit(1);
   }
   const app = createApp({ sequelize, config });
+  const mailSender = startMailSender(sequelize, config);
   const server: Server = app.listen(config.PORT, config.HOST, () => {
     const address = server.address();
     const port = typeof address === 'object' && address ? address.port : config.PORT;
@@ -27,7 +29,7 @@ async function main(): Promise<void> {
 
   const shutdown = (signal: string) => {
     logger.info({ signal }, 'shutting down');
-    server.close(() => void sequelize.close().finally(() => process.exit(0)));
+    server.close(() => void mailSender.stop().then(() => sequelize.close()).finally(() => process.exit(0)));
     setTimeout(() => process.exit(0), 5000).unref();
   };
   process.on('SIGTERM', () => shutdown('SIGTERM'));

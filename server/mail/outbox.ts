@@ -1,6 +1,7 @@
 import { Op, type Transaction } from 'sequelize';
 import type { Role } from '../../shared/authz/roles';
 import { MailOutbox, User, UserRole } from '../db/models';
+import { withoutOptedOut } from './preferences.service';
 
 export interface HandOverMail {
   event: string;
@@ -11,9 +12,10 @@ export interface HandOverMail {
 /**
  * Queues a hand-over mail in the caller's transaction: it is sent if and only if the hand-over
  * commits, and a sender delivers it later, so a mail server outage never blocks the workflow.
+ * People who opted out of this event (their mail preferences) are left out here.
  */
 export async function enqueueMail(recipients: string[], mail: HandOverMail, transaction: Transaction): Promise<void> {
-  const unique = [...new Set(recipients.filter(Boolean))];
+  const unique = await withoutOptedOut([...new Set(recipients.filter(Boolean))], mail.event, transaction);
   if (unique.length === 0) return;
   const now = new Date();
   await MailOutbox.bulkCreate(unique.map((recipient) => ({ ...mail, recipient, nextAttemptAt: now })), { transaction });

@@ -1,12 +1,14 @@
 import type { Sequelize } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { RevisionDto } from '../../shared/schemas/calc-dto';
-import { Finding } from '../db/models';
+import { Finding, type Revision } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { assertCan, editorIdsOf, loadRevision } from '../calcs/calc-access';
 import { readRevision } from '../calcs/revision-read';
 import type { WorkflowService } from './workflow.service';
+import { parseRuleSet } from '../rule-sets/rule-set-cache';
+import { assertAttachmentFor } from '../attachments/attachment-rules';
 
 type Reviewer = Actor & { id: number };
 
@@ -76,6 +78,8 @@ export class ReviewService {
       const revision = await loadRevision(revisionId, transaction);
       assertCan(ability, 'check', revision, 'Manual checklist items are ticked by the independent checker while the calc is in check');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
+      assertKnownItem(revision, itemId);
+      if (done) await assertAttachmentFor(revision, itemId, transaction);
       const items = JSON.parse(revision.manualItems) as Record<string, unknown>;
       items[itemId] = { done, note, by: actor.name, at: new Date().toISOString() };
       revision.manualItems = JSON.stringify(items);
@@ -96,4 +100,12 @@ export class ReviewService {
     if (!finding) throw AppError.notFound(`Finding ${id}`);
     return finding;
   }
+}
+
+/** Only the manual items the revision's rule set lists can be ticked; anything else would be a tick that checks nothing. */
+function assertKnownItem(revision: Revision, itemId: string): void {
+  const items = revision.ruleSet ? parseRuleSet(revision.ruleSet).manualItems ?? [] : [];
+  if (items.some((i) => i.id === itemId)) return;
+  const standard = revision.ruleSet ? `${revision.ruleSet.code} v${revision.ruleSet.version}` : 'the rule set';
+  throw new AppError('validation', 400, `"${itemId}" is not a manual item of ${standard}`, { fieldErrors: { 'params.itemId': [`is not a manual item of ${standard}`] } });
 }

@@ -7,6 +7,7 @@ import { AuditEvent, MailOutbox, Project, RuleSetRecord } from '../../server/db/
 import { documentHash } from '../../server/rule-sets/rule-set-mapping';
 import type { Role } from '../../shared/authz/roles';
 import { TEST_PASSWORD, createTestProject, signedInAs, uniqueCode } from './api-harness';
+import { attachRequiredFiles } from './attachment-harness';
 
 /** The engine's five-segment fixture: a valid shaft with features and fatigue data. */
 export function fixtureInput(name = 'five-segment-fatigue'): Record<string, unknown> {
@@ -51,6 +52,8 @@ export async function sign(s: Session, id: number, meaning: 'authored' | 'checke
 /** Ticks every manual checklist item as the given checker. */
 export async function tickAll(s: Session, id: number) {
   const r = await revisionOf(s, id);
+  // Items like "material certificate attached" can only be ticked once such a file is attached.
+  await attachRequiredFiles(id, r.checklist?.manual ?? []);
   for (const item of r.checklist?.manual ?? []) await s.put(`/api/revisions/${id}/manual-items/${item.id}`, { done: true, note: '' });
 }
 

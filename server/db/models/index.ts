@@ -10,10 +10,12 @@ import { Revision } from './revision';
 import { Finding } from './finding';
 import { Signature } from './signature';
 import { MailOutbox } from './mail-outbox';
+import { MailPreference } from './mail-preference';
+import { Attachment } from './attachment';
 
-export { User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox };
+export { User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment };
 
-const MODELS = [User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox];
+const MODELS = [User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment];
 
 /** Initialise every model once, then wire associations in one step. */
 export function initModels(sequelize: Sequelize): void {

@@ -1,0 +1,91 @@
+import { createHash } from 'node:crypto';
+import { ForbiddenError } from '@casl/ability';
+import type { Sequelize } from 'sequelize';
+import type { AppAbility } from '../../shared/authz/app-ability';
+import type { AttachmentDto, AttachmentListDto, UploadFields } from '../../shared/schemas/attachment.schema';
+import { EDITABLE_STATES } from '../../shared/schemas/revision.schema';
+import { Attachment, Revision } from '../db/models';
+import { AppError } from '../errors/app-error';
+import { appendAudit, type Actor } from '../audit/audit.service';
+import { loadRevision } from '../calcs/calc-access';
+import { ObjectStore } from './object-store';
+import { ACCEPTED_TYPE_NAMES, detectMediaType } from './content-type';
+import { READ_ONLY_STATES, cleanFileName, mayAddFiles, toAttachmentDto } from './attachment-access';
+
+export interface UploadedFile { buffer: Buffer; originalname: string }
+
+/** Drawings, certificates and supporting files of a revision: checked by content, stored by hash. */
+export class AttachmentsService {
+  constructor(private readonly sequelize: Sequelize, readonly store: ObjectStore, readonly maxBytes: number) {}
+
+  async list(ability: AppAbility, revisionId: number): Promise<AttachmentListDto> {
+    ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
+    const revision = await loadRevision(revisionId);
+    const rows = await Attachment.findAll({ where: { revisionId }, order: [['id', 'ASC']] });
+    return { items: rows.map(toAttachmentDto), canAdd: mayAddFiles(ability, revision), maxBytes: this.maxBytes, acceptedTypes: ACCEPTED_TYPE_NAMES };
+  }
+
+  async upload(ability: AppAbility, actor: Actor & { id: number }, revisionId: number, file: UploadedFile | undefined, fields: UploadFields): Promise<AttachmentDto> {
+    if (!file) throw AppError.validation({ file: ['is required: send the file as multipart form field "file"'] });
+    const mediaType = await detectMediaType(file.buffer);
+    const sha256 = createHash('sha256').update(file.buffer).digest('hex');
+    const key = ObjectStore.keyFor(sha256);
+    await this.assertMayAdd(ability, await loadRevision(revisionId));
+    // Bytes first: an orphaned blob after a failed insert is harmless, a row without bytes is not.
+    await this.store.putIfAbsent(key, file.buffer, mediaType);
+    const id = await this.sequelize.transaction(async (transaction) => {
+      const revision = await loadRevision(revisionId, transaction);
+      await this.assertMayAdd(ability, revision);
+      const row = await Attachment.create({
+        revisionId, kind: fields.kind, fileName: cleanFileName(file.originalname), mediaType, sizeBytes: file.buffer.length,
+        sha256, storageKey: key, note: fields.note, uploadedBy: actor.id, uploadedByName: actor.name,
+      }, { transaction });
+      await appendAudit(this.sequelize, actor, {
+        action: 'attachment.added', entityType: 'Revision', entityId: revisionId,
+        payload: { attachmentId: row.id, kind: row.kind, fileName: row.fileName, mediaType, sizeBytes: row.sizeBytes, sha256 },
+      }, transaction);
+      return row.id;
+    });
+    return toAttachmentDto((await Attachment.findByPk(id))!);
+  }
+
+  async download(ability: AppAbility, id: number): Promise<{ attachment: AttachmentDto; bytes: Buffer }> {
+    ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
+    const row = await Attachment.findByPk(id);
+    if (!row) throw AppError.notFound(`Attachment ${id}`);
+    return { attachment: toAttachmentDto(row), bytes: await this.store.get(row.storageKey) };
+  }
+
+  /** Only the uploader removes a file, and only before the revision is submitted. */
+  async remove(ability: AppAbility, actor: Actor & { id: number }, id: number): Promise<void> {
+    await this.sequelize.transaction(async (transaction) => {
+      const row = await Attachment.findByPk(id, { transaction });
+      if (!row) throw AppError.notFound(`Attachment ${id}`);
+      const revision = await loadRevision(row.revisionId, transaction);
+      if (READ_ONLY_STATES.includes(revision.status)) throw this.readOnly(revision, 'removed');
+      if (!EDITABLE_STATES.includes(revision.status)) throw AppError.conflict(`Files are removed only before submission; revision ${revision.label} is ${revision.status.replace('_', ' ')}`);
+      if (row.uploadedBy !== actor.id) throw new AppError('forbidden', 403, 'Only the person who attached a file can remove it');
+      await row.destroy({ transaction });
+      await appendAudit(this.sequelize, actor, {
+        action: 'attachment.removed', entityType: 'Revision', entityId: row.revisionId,
+        payload: { attachmentId: row.id, kind: row.kind, fileName: row.fileName, sha256: row.sha256 },
+      }, transaction);
+    });
+  }
+
+  async assertMayAddTo(ability: AppAbility, revisionId: number): Promise<void> {
+    await this.assertMayAdd(ability, await loadRevision(revisionId));
+  }
+
+  private async assertMayAdd(ability: AppAbility, revision: Revision): Promise<void> {
+    if (READ_ONLY_STATES.includes(revision.status)) throw this.readOnly(revision, 'added');
+    if (!mayAddFiles(ability, revision)) {
+      throw new AppError('forbidden', 403, 'Files are added by the author while editing, or by the independent checker or approver while reviewing');
+    }
+  }
+
+  private readOnly(revision: Revision, verb: string): AppError {
+    const state = revision.status.replace('_', ' ');
+    return new AppError('read_only', 409, `Revision ${revision.label} is ${state}; its attachments are read-only and none can be ${verb}. Start a new revision to change them.`);
+  }
+}

@@ -1,0 +1,52 @@
+import { createHash } from 'node:crypto';
+import canonicalize from 'canonicalize';
+import { CAUTION, ENGINE_VERSION } from '../../shared/engine';
+import type { RevisionDto } from '../../shared/schemas/calc-dto';
+import type { AttachmentDto } from '../../shared/schemas/attachment.schema';
+import type { HashedContent } from '../calcs/revision-content';
+import type { Calc, Project, RuleSetRecord } from '../db/models';
+
+export const RECORD_FORMAT = 'torquetrail-record/1';
+
+export const sha256 = (data: Buffer | string): string => createHash('sha256').update(data).digest('hex');
+
+/** The content hash as the server computes it: SHA-256 over RFC 8785 canonical JSON. */
+export const contentHash = (content: unknown): string => sha256(canonicalize(content) ?? '');
+
+/**
+ * Exactly what a revision's content hash covers. This must build the same object as
+ * currentHashOf in server/calcs/revision-read.ts; evidence.spec.ts fails if the two drift.
+ */
+export function hashedContent(calc: Calc & { Project: Project }, r: RevisionDto, ruleSet: RuleSetRecord | null): HashedContent {
+  const result = r.result as { engineVersion?: string } | null;
+  return {
+    calc: { project: calc.Project.code, number: calc.number, title: calc.title, partRef: calc.partRef },
+    revision: r.label, input: r.input, result, checklist: r.checklist,
+    engineVersion: result?.engineVersion ?? ENGINE_VERSION,
+    ruleSet: { code: ruleSet?.code ?? '', version: ruleSet?.version ?? 0, contentHash: ruleSet?.contentHash ?? '' },
+  };
+}
+
+export interface RecordAttachment { kind: string; fileName: string; mediaType: string; sizeBytes: number; sha256: string; path: string }
+
+/** The machine-readable record of one revision as it goes into an evidence pack. */
+export function recordJson(calc: Calc & { Project: Project }, r: RevisionDto, ruleSet: RuleSetRecord | null, attachments: { dto: AttachmentDto; path: string }[]) {
+  return {
+    format: RECORD_FORMAT,
+    calc: { id: calc.id, project: calc.Project.code, number: calc.number, title: calc.title, partRef: calc.partRef },
+    revision: {
+      id: r.id, label: r.label, state: r.status, verdict: r.verdict, reasonForChange: r.reasonForChange,
+      author: r.author.name, checker: r.checker?.name ?? null, approver: r.approver?.name ?? null,
+      createdAt: r.createdAt, submittedAt: r.submittedAt, checkedAt: r.checkedAt, approvedAt: r.approvedAt,
+    },
+    contentHash: r.contentHash,
+    content: r.contentHash ? hashedContent(calc, r, ruleSet) : null,
+    signatures: r.signatures.map((s) => ({ printedName: s.printedName, role: s.role, meaning: s.meaning, signedAt: s.signedAt, contentHash: s.contentHash })),
+    findings: r.findings,
+    manualItems: r.manualItems,
+    attachments: attachments.map(({ dto, path }): RecordAttachment => ({
+      kind: dto.kind, fileName: dto.fileName, mediaType: dto.mediaType, sizeBytes: dto.sizeBytes, sha256: dto.sha256, path,
+    })),
+    caution: CAUTION,
+  };
+}

@@ -1,0 +1,45 @@
+import { Op, type Transaction } from 'sequelize';
+import { MAIL_EVENTS, MAIL_EVENT_INFO, type MailEvent, type MailPreferenceDto } from '../../shared/schemas/mail.schema';
+import type { Role } from '../../shared/authz/roles';
+import { MailPreference, User } from '../db/models';
+import { appendAudit, type Actor } from '../audit/audit.service';
+import type { Sequelize } from 'sequelize';
+
+/** Each person's choice per mail event. Without a row, the mail is sent. */
+export async function preferencesOf(userId: number, roles: readonly Role[]): Promise<MailPreferenceDto[]> {
+  const rows = await MailPreference.findAll({ where: { userId } });
+  const chosen = new Map(rows.map((r) => [r.event, r.enabled]));
+  return MAIL_EVENTS.map((event) => ({
+    event, ...MAIL_EVENT_INFO[event], enabled: chosen.get(event) ?? true, appliesToYou: roles.includes(MAIL_EVENT_INFO[event].role),
+  })).map(({ role: _role, ...dto }) => dto);
+}
+
+export async function savePreferences(
+  sequelize: Sequelize, actor: Actor & { id: number }, roles: readonly Role[], choices: Partial<Record<MailEvent, boolean>>,
+): Promise<MailPreferenceDto[]> {
+  await sequelize.transaction(async (transaction) => {
+    for (const [event, enabled] of Object.entries(choices)) {
+      await MailPreference.upsert({ userId: actor.id, event, enabled: enabled === true }, { transaction });
+    }
+    await appendAudit(sequelize, actor, { action: 'user.mail_preferences', entityType: 'User', entityId: actor.id, payload: choices }, transaction);
+  });
+  return preferencesOf(actor.id, roles);
+}
+
+/**
+ * Drops addresses whose owners opted out of this event. An address is kept when no active
+ * person has it (an outside address) or when at least one of its owners still wants the mail.
+ */
+export async function withoutOptedOut(recipients: string[], event: string, transaction?: Transaction): Promise<string[]> {
+  if (recipients.length === 0) return recipients;
+  const owners = await User.findAll({ where: { email: { [Op.in]: recipients }, active: true }, attributes: ['id', 'email'], transaction });
+  if (owners.length === 0) return recipients;
+  const optedOut = await MailPreference.findAll({
+    where: { event, enabled: false, userId: { [Op.in]: owners.map((u) => u.id) } }, attributes: ['userId'], transaction,
+  });
+  const silent = new Set(optedOut.map((p) => p.userId));
+  return recipients.filter((address) => {
+    const ids = owners.filter((u) => u.email === address).map((u) => u.id);
+    return ids.length === 0 || ids.some((id) => !silent.has(id));
+  });
+}

@@ -1,0 +1,50 @@
+import { CAUTION, formatNumber } from '../../shared/engine';
+import type { ReportData } from './report-data';
+import { BOLD, CONTENT_WIDTH, COPPER, INK, PAGE, SANS } from './report-doc';
+import type { StateMark } from './page-furniture';
+import { drawTable } from './pdf-table';
+
+export const num = (v: number | null | undefined, digits = 4): string => (v === null || v === undefined || !Number.isFinite(v) ? '—' : formatNumber(v, digits));
+
+function boxed(doc: PDFKit.PDFDocument, title: string, text: string, colour: string): void {
+  const width = CONTENT_WIDTH - 20;
+  doc.font(SANS).fontSize(8.5);
+  const h = doc.heightOfString(text, { width }) + 24;
+  const y = doc.y;
+  doc.rect(PAGE.left, y, CONTENT_WIDTH, h).lineWidth(1).strokeColor(colour).stroke();
+  doc.rect(PAGE.left, y, 4, h).fill(colour);
+  doc.font(BOLD).fontSize(8.5).fillColor(colour).text(title, PAGE.left + 12, y + 6, { width });
+  doc.font(SANS).fontSize(8.5).fillColor(INK).text(text, PAGE.left + 12, y + 18, { width });
+  doc.x = PAGE.left;
+  doc.y = y + h + 8;
+}
+
+/** The notices every reader must see before any number: the caution, and what state this copy is in. */
+export function drawNotices(doc: PDFKit.PDFDocument, d: ReportData, mark: StateMark | null): void {
+  if (mark) {
+    boxed(doc, mark.text, `Revision ${d.revision.label} is ${d.revision.status.replace('_', ' ')}. Only an approved revision, verified against the record hash, may be used to make or release parts.`, mark.colour);
+  }
+  boxed(doc, 'Caution', `${CAUTION} This report records a calculation and its review; it does not certify a design.`, COPPER);
+}
+
+/** The few numbers a reviewer looks at first, each with its unit and where it comes from. */
+export function drawKeyResults(doc: PDFKit.PDFDocument, d: ReportData): void {
+  const r = d.result;
+  if (!r) return;
+  const f = (k: string) => r.fields[k] ?? { unit: '', formula: '' };
+  const at = (v: { at: number } | null) => (v ? `at ${num(v.at)} ${f('at').unit}` : 'no load');
+  const rows: string[][] = [
+    ['Largest shear stress τmax', num(r.maxShear.value), f('tauMax').unit, `segment ${r.maxShear.segment + 1}, from ${num(r.maxShear.at)} ${f('at').unit}`, f('tauMax').formula],
+    ['Twist end to end φ', num(r.twistTotal), f('twistTotal').unit, `over ${num(r.length)} ${f('length').unit}`, f('twistTotal').formula],
+    ['Lowest yield safety n_y', num(r.minYieldSafety?.value ?? null, 3), '–', at(r.minYieldSafety), f('yieldSafety').formula],
+  ];
+  const fatigue = r.minFatigueSafety;
+  if (fatigue) {
+    const names: [keyof typeof fatigue, string][] = [['goodman', 'DE-Goodman'], ['asmeElliptic', 'DE-ASME-elliptic'], ['gerber', 'DE-Gerber'], ['soderberg', 'DE-Soderberg']];
+    for (const [k, name] of names) rows.push([`Lowest fatigue safety, ${name}`, num(fatigue[k]?.value ?? null, 3), '–', at(fatigue[k]), f(k).formula]);
+  }
+  drawTable(doc, [
+    { header: 'Result', share: 0.25 }, { header: 'Value', share: 0.1, align: 'right', mono: true }, { header: 'Unit', share: 0.07 },
+    { header: 'Where', share: 0.18 }, { header: 'Method', share: 0.4 },
+  ], rows);
+}

@@ -1,0 +1,65 @@
+import { CAUTION } from '../../shared/engine';
+import type { RevisionState } from '../../shared/schemas/revision.schema';
+import { BOLD, COPPER, FAIL, INK, INK_SOFT, MONO, PAGE, RULE, SANS, WARN } from './report-doc';
+
+export interface StateMark { text: string; colour: string }
+
+/**
+ * Anything not approved is not for construction. Draft and returned revisions carry the
+ * strongest mark; released-then-replaced ones say so, so an old print is not mistaken for current.
+ */
+export function stateMark(state: RevisionState): StateMark | null {
+  switch (state) {
+    case 'draft': case 'returned': return { text: 'DRAFT · NOT FOR CONSTRUCTION', colour: FAIL };
+    case 'in_check': return { text: 'IN CHECK · NOT FOR CONSTRUCTION', colour: WARN };
+    case 'checked': return { text: 'AWAITING APPROVAL · NOT FOR CONSTRUCTION', colour: WARN };
+    case 'superseded': return { text: 'SUPERSEDED · DO NOT USE', colour: FAIL };
+    case 'withdrawn': return { text: 'WITHDRAWN · DO NOT USE', colour: FAIL };
+    case 'approved': return null;
+  }
+}
+
+export interface Furniture { organisation: string; reference: string; hash: string | null; mark: StateMark | null }
+
+function diagonalMark(doc: PDFKit.PDFDocument, mark: StateMark): void {
+  doc.save();
+  doc.rotate(-35, { origin: [PAGE.width / 2, PAGE.height / 2] });
+  doc.font(BOLD).fontSize(38).fillColor(mark.colour).fillOpacity(0.13);
+  doc.text(mark.text, 0, PAGE.height / 2 - 24, { width: PAGE.width, align: 'center', lineBreak: false });
+  doc.restore();
+  doc.fillOpacity(1);
+}
+
+function header(doc: PDFKit.PDFDocument, f: Furniture): void {
+  doc.font(BOLD).fontSize(8).fillColor(COPPER).text('TORQUETRAIL', PAGE.left, 30, { lineBreak: false, characterSpacing: 1.2 });
+  doc.font(SANS).fontSize(8).fillColor(INK_SOFT).text(`  ·  ${f.organisation}`, { lineBreak: false });
+  doc.font(BOLD).fontSize(8).fillColor(INK).text(f.reference, PAGE.left, 30, { width: PAGE.right - PAGE.left, align: 'right', lineBreak: false });
+  doc.moveTo(PAGE.left, 44).lineTo(PAGE.right, 44).lineWidth(0.8).strokeColor(INK).stroke();
+  if (f.mark) {
+    doc.font(BOLD).fontSize(7.5).fillColor(f.mark.colour).text(f.mark.text, PAGE.left, 48, { width: PAGE.right - PAGE.left, align: 'center', lineBreak: false });
+  }
+}
+
+function footer(doc: PDFKit.PDFDocument, f: Furniture, page: number, pages: number): void {
+  const y = PAGE.bottom + 10;
+  doc.moveTo(PAGE.left, y).lineTo(PAGE.right, y).lineWidth(0.5).strokeColor(RULE).stroke();
+  doc.font(SANS).fontSize(7).fillColor(INK_SOFT).text(CAUTION, PAGE.left, y + 5, { width: PAGE.right - PAGE.left - 70, lineBreak: true });
+  doc.font(BOLD).fontSize(7.5).fillColor(INK).text(`page ${page} of ${pages}`, PAGE.right - 70, y + 5, { width: 70, align: 'right', lineBreak: false });
+  const hash = f.hash ? `record hash ${f.hash}` : 'no record hash: the input has errors';
+  doc.font(MONO).fontSize(6.5).fillColor(INK_SOFT).text(hash, PAGE.left, y + 26, { width: PAGE.right - PAGE.left, lineBreak: false });
+}
+
+/** Draws the running header, footer and state mark on every buffered page. */
+export function drawFurniture(doc: PDFKit.PDFDocument, f: Furniture): void {
+  const range = doc.bufferedPageRange();
+  for (let i = range.start; i < range.start + range.count; i++) {
+    doc.switchToPage(i);
+    // Writing in the margins would make pdfkit start a new page; lift the margins while drawing.
+    const margins = { ...doc.page.margins };
+    doc.page.margins = { top: 0, bottom: 0, left: 0, right: 0 };
+    header(doc, f);
+    footer(doc, f, i - range.start + 1, range.count);
+    if (f.mark) diagonalMark(doc, f.mark);
+    doc.page.margins = margins;
+  }
+}

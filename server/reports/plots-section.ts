@@ -1,0 +1,40 @@
+import { shaftOutline, shearPlot, torquePlot, twistPlot, type LimitLine } from '../../shared/plots';
+import type { CalcResult } from '../../shared/engine';
+import type { Checklist, RuleSet } from '../../shared/rules';
+import type { ReportData } from './report-data';
+import { CONTENT_WIDTH, PAGE, ensureSpace, sectionHeading } from './report-doc';
+import { drawChart } from './chart-draw';
+import { drawOutline } from './outline-draw';
+
+/** Limits of clauses that measure `fact`, as lines over the segments they judge. */
+function limitsOf(checklist: Checklist | null, ruleSet: RuleSet, fact: string, result: CalcResult): LimitLine[] {
+  if (!checklist) return [];
+  const clauses = new Map(ruleSet.clauses.filter((c) => c.measure?.actual === fact).map((c) => [c.id, c]));
+  return checklist.rows.filter((r) => clauses.has(r.clauseId) && r.limit !== null && Number.isFinite(r.limit)).map((r, i) => {
+    const seg = r.location.index === null ? undefined : result.segments[r.location.index];
+    const sign = fact === 'twistTotal' && result.twistTotal < 0 ? -1 : 1;
+    return { value: sign * r.limit!, from: seg?.start, to: seg?.end, label: i === 0 ? `§${r.clauseId} limit` : '' };
+  });
+}
+
+/** Section: the outline to scale and the diagrams along it, from the same geometry as the editor. */
+export function drawPlots(doc: PDFKit.PDFDocument, d: ReportData, number: number): void {
+  const r = d.result;
+  if (!r) return;
+  sectionHeading(doc, number, 'Shaft and diagrams');
+  const input = d.input as { segments: { length: number; od: number; id: number; label?: string }[]; features?: never[] };
+  ensureSpace(doc, 150);
+  drawOutline(doc, shaftOutline({ segments: input.segments, features: input.features ?? [] }), { x: PAGE.left, y: doc.y, w: CONTENT_WIDTH, h: 140 }, r.fields['at']?.unit ?? '');
+  doc.y += 150;
+  const charts = [
+    torquePlot(r),
+    shearPlot(r, limitsOf(d.checklist, d.ruleSet, 'tauMax', r)),
+    twistPlot(r, limitsOf(d.checklist, d.ruleSet, 'twistTotal', r)),
+  ];
+  for (const chart of charts) {
+    ensureSpace(doc, 170);
+    drawChart(doc, chart, { x: PAGE.left, y: doc.y, w: CONTENT_WIDTH, h: 160 });
+    doc.y += 172;
+  }
+  doc.x = PAGE.left;
+}

@@ -1,0 +1,38 @@
+import { Router } from 'express';
+import { CAUTION } from '../../shared/engine';
+import { recordHashSchema, type PackVerification } from '../../shared/schemas/verify.schema';
+import { validate } from '../http/validate';
+import { AppError } from '../errors/app-error';
+import { singleUpload } from '../attachments/upload';
+import { readZip } from '../evidence/zip-reader';
+import { parse, verifyPackFiles, type PackRecord } from '../evidence/pack-verify';
+import { verifyRecordHash } from './verify.service';
+import { auditOnRecord, recordOnRecord, sealCheck } from './pack-online';
+
+/** Checks an uploaded evidence pack: on its own first, then against this server's records. */
+async function verifyPack(zip: Buffer, maxBytes: number): Promise<PackVerification> {
+  const files = readZip(zip, maxBytes * 4);
+  const { manifest, sealHash, checks } = verifyPackFiles(files);
+  if (manifest && sealHash) {
+    checks.push(await sealCheck(sealHash));
+    for (const f of manifest.files.filter((x) => x.path.endsWith('/record.json'))) {
+      checks.push(await recordOnRecord(f.path, parse<PackRecord>(files, f.path)));
+    }
+    const trail = parse<{ events?: { hash: string }[] }>(files, 'audit-trail.json');
+    checks.push(await auditOnRecord(Array.isArray(trail?.events) ? trail.events.map((e) => String(e.hash)) : []));
+  }
+  return { ok: checks.every((c) => c.ok), calc: manifest?.calc ?? null, checks, caution: CAUTION };
+}
+
+/** `/api/verify`: anyone signed in can check a record hash or an evidence pack. */
+export function verifyRouter(packMaxBytes: number): Router {
+  const router = Router();
+  router.post('/pack', singleUpload('file', packMaxBytes), async (req, res) => {
+    if (!req.file) throw AppError.validation({ file: ['is required: send the evidence pack (.zip) as form field "file"'] });
+    res.json(await verifyPack(req.file.buffer, packMaxBytes));
+  });
+  router.get('/:hash', validate({ params: recordHashSchema }), async (req, res) => {
+    res.json(await verifyRecordHash(String(req.params.hash)));
+  });
+  return router;
+}

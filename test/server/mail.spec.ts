@@ -1,0 +1,84 @@
+import { startTestApp } from '../support/api-harness';
+import { calcTeam, revisionOf, sign, tickAll } from '../support/calc-harness';
+import { startTestSmtp } from '../support/fake-servers';
+import { emailsOf, outboxFor, senderFor } from '../support/mail-harness';
+
+// Hand-over mail end to end: the workflow writes outbox rows, the sender delivers them over SMTP
+// to the fake server, and the test reads what arrived there.
+const { app, sequelize } = startTestApp();
+let smtp: Awaited<ReturnType<typeof startTestSmtp>>;
+beforeAll(async () => { smtp = await startTestSmtp(); });
+afterAll(async () => { await smtp.close(); await sequelize.close(); });
+jest.setTimeout(30_000);
+
+async function deliverTo(addresses: string[]) {
+  const { sender, close } = senderFor(sequelize, smtp.port);
+  const ids = (await outboxFor(addresses)).filter((r) => r.status === 'pending').map((r) => r.id);
+  await sender.runOnce({ ids });
+  close();
+  return smtp.messages.filter((m) => m.envelopeTo.some((to) => addresses.includes(to)));
+}
+
+async function returnAndResubmit(team: Awaited<ReturnType<typeof calcTeam>>) {
+  const { author, checker, revisionId } = team;
+  const r = await revisionOf(checker.session, revisionId);
+  await checker.session.post(`/api/revisions/${revisionId}/return`, { reason: 'Use the certified Sy for 1045 CD', lockVersion: r.lockVersion });
+  const finding = (await revisionOf(author.session, revisionId)).findings[0];
+  await author.session.post(`/api/findings/${finding.id}/answer`, { answer: 'Sy from the mill certificate, 530 MPa' });
+  const resubmitted = await sign(author.session, revisionId, 'authored');
+  await checker.session.post(`/api/findings/${finding.id}/close`, {});
+  return resubmitted;
+}
+
+describe('hand-over mail', () => {
+  it('when a calc is submitted, returned, resubmitted, checked and approved, then each mail reaches the right people', async () => {
+    const team = await calcTeam(app);
+    const [authorMail, checkerMail, approverMail] = await emailsOf(team.author.user.id, team.checker.user.id, team.approver.user.id);
+
+    expect((await sign(team.author.session, team.revisionId, 'authored')).status).toBe(200);
+    expect((await returnAndResubmit(team)).status).toBe(200);
+    await tickAll(team.checker.session, team.revisionId);
+    expect((await sign(team.checker.session, team.revisionId, 'checked')).status).toBe(200);
+    expect((await sign(team.approver.session, team.revisionId, 'approved')).status).toBe(200);
+    const received = await deliverTo([authorMail, checkerMail, approverMail]);
+
+    const subjectsTo = (to: string) => received.filter((m) => m.envelopeTo.includes(to)).map((m) => m.subject.split(':')[0]);
+    expect(subjectsTo(checkerMail)).toEqual(['Ready for check', 'Ready for check']);
+    expect(subjectsTo(authorMail)).toEqual(['Returned with findings', 'Approved']);
+    expect(subjectsTo(approverMail)).toEqual(['Ready for approval']);
+    const returned = received.find((m) => m.subject.startsWith('Returned'))!;
+    expect(returned.text).toContain(`/calcs/${team.calc.id}`);
+    expect(returned.text).toContain('Use the certified Sy');
+    expect(returned.text).toMatch(/Test checker/);
+    expect(returned.text).toMatch(/never replaces, the judgement of a qualified engineer/);
+    expect(returned.headers['message-id']).toMatch(/^<tt-outbox-\d+-\d+@kestrelfen\.example>$/);
+  });
+
+  it('when the author opts out of approval mail, then approving queues none for them but the others still get theirs', async () => {
+    const team = await calcTeam(app);
+    const [authorMail, approverMail] = await emailsOf(team.author.user.id, team.approver.user.id);
+    const saved = await team.author.session.put('/api/mail/preferences', { preferences: { approved: false } });
+    expect(saved.status).toBe(200);
+    expect(saved.body.find((p: { event: string }) => p.event === 'approved')).toEqual(expect.objectContaining({ enabled: false, appliesToYou: true }));
+
+    await sign(team.author.session, team.revisionId, 'authored');
+    await tickAll(team.checker.session, team.revisionId);
+    await sign(team.checker.session, team.revisionId, 'checked');
+    await sign(team.approver.session, team.revisionId, 'approved');
+
+    expect((await outboxFor([authorMail])).map((r) => r.event)).toEqual([]);
+    expect((await outboxFor([approverMail])).map((r) => r.event)).toEqual(['checked']);
+  });
+
+  it('when preferences name an unknown event or a non-boolean, then it is a 400 naming the field', async () => {
+    const { author } = await calcTeam(app);
+
+    const unknown = await author.session.put('/api/mail/preferences', { preferences: { gossip: true } });
+    const notBoolean = await author.session.put('/api/mail/preferences', { preferences: { approved: 'sometimes' } });
+
+    expect(unknown.status).toBe(400);
+    expect(JSON.stringify(unknown.body.fieldErrors)).toMatch(/gossip|not a mail event/);
+    expect(notBoolean.status).toBe(400);
+    expect(notBoolean.body.fieldErrors['preferences.approved']).toEqual(['must be true or false']);
+  });
+});

@@ -48,11 +48,11 @@ describe('raising findings', () => {
   });
 
   it.each([
-    ['the author', 'in_check', 'author'], ['a checker', 'draft', 'checker'], ['an approver', 'in_check', 'approver'],
-  ] as const)('when %s raises a finding on a %s revision, then it is refused with 403', async (_who, state, role) => {
+    ['the author', 'in check', 'author'], ['a checker', 'draft', 'checker'], ['an approver', 'in check', 'approver'],
+  ] as const)('when %s raises a finding while the revision is %s, then it is refused with 403', async (_who, state, role) => {
     // Arrange
     const t = await team();
-    if (state !== 'draft') await advanceTo(state, t.sessions, t.revisionId);
+    if (state !== 'draft') await advanceTo('in_check', t.sessions, t.revisionId);
 
     // Act
     const res = await t.sessions[role].post(`/api/revisions/${t.revisionId}/findings`, { text: 'Something is off' });

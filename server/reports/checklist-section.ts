@@ -13,7 +13,7 @@ function row(r: ChecklistRow): Cell[] {
   const status = STATUS[r.status];
   const isAdvisoryFail = r.severity === 'advisory' && r.status === 'fail';
   return [
-    r.reference, `${r.clauseTitle}${r.message ? ` — ${r.message}` : ''}`, r.location.label,
+    r.reference, r.status === 'fail' || r.status === 'error' ? `${r.clauseTitle} — ${r.message}` : r.clauseTitle, r.location.label,
     { text: status.text, color: isAdvisoryFail ? WARN : status.color, bold: true },
     r.severity === 'mandatory' ? 'M' : 'A', num(r.actual), num(r.limit), r.unit,
     r.utilisation === null ? '—' : `${(r.utilisation * 100).toFixed(0)} %`,
@@ -26,14 +26,14 @@ export function drawChecklist(doc: PDFKit.PDFDocument, d: ReportData, number: nu
   const c = d.checklist;
   if (!c) return paragraph(doc, 'No checklist: the input has errors.', { color: FAIL });
   const verdict = c.verdict === 'compliant' ? 'COMPLIANT' : 'NOT COMPLIANT';
-  paragraph(doc, `${verdict} against ${c.ruleSet.code} v${c.ruleSet.version} “${c.ruleSet.title}”: ${c.counts.pass} pass, ${c.counts.fail} fail, ${c.counts.error} error, ${c.counts.notApplicable} not applicable.`,
+  paragraph(doc, `${verdict} against ${c.ruleSet.code} v${c.ruleSet.version} “${c.ruleSet.title}”: ${c.counts.pass} pass, ${c.counts.fail} fail (${c.counts.advisoryFail} of them advisory), ${c.counts.error} error, ${c.counts.notApplicable} not applicable.`,
     { color: c.verdict === 'compliant' ? PASS : FAIL, font: 'TT-Sans-Bold' });
   for (const why of c.verdictReasons) paragraph(doc, `• ${why}`, { color: FAIL });
   for (const issue of c.methodIssues) paragraph(doc, `• Method: ${issue.path} ${issue.message}`, { color: FAIL });
   drawTable(doc, [
-    { header: 'Clause', share: 0.13 }, { header: 'Requirement', share: 0.27 }, { header: 'Where', share: 0.15 },
+    { header: 'Clause', share: 0.12 }, { header: 'Requirement', share: 0.27 }, { header: 'Where', share: 0.19 },
     { header: 'Result', share: 0.07 }, { header: 'M/A', share: 0.04 }, { header: 'Actual', share: 0.08, align: 'right', mono: true },
-    { header: 'Limit', share: 0.08, align: 'right', mono: true }, { header: 'Unit', share: 0.08 }, { header: 'Use', share: 0.1, align: 'right' },
+    { header: 'Limit', share: 0.08, align: 'right', mono: true }, { header: 'Unit', share: 0.08 }, { header: 'Use', share: 0.07, align: 'right' },
   ], c.rows.map(row), { size: 7 });
   paragraph(doc, 'M mandatory, A advisory. “Use” is utilisation: actual/limit for an upper limit, limit/actual for a minimum.', { color: INK_SOFT, size: 7.5 });
   subHeading(doc, "Checker's manual items");

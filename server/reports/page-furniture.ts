@@ -24,8 +24,9 @@ export interface Furniture { organisation: string; reference: string; hash: stri
 function diagonalMark(doc: PDFKit.PDFDocument, mark: StateMark): void {
   doc.save();
   doc.rotate(-35, { origin: [PAGE.width / 2, PAGE.height / 2] });
-  doc.font(BOLD).fontSize(38).fillColor(mark.colour).fillOpacity(0.13);
-  doc.text(mark.text, 0, PAGE.height / 2 - 24, { width: PAGE.width, align: 'center', lineBreak: false });
+  doc.font(BOLD).fontSize(34).fillColor(mark.colour).fillOpacity(0.12);
+  // The box is wider than the page so the rotated line never wraps; only the page shows.
+  doc.text(mark.text, -200, PAGE.height / 2 - 20, { width: PAGE.width + 400, align: 'center', lineBreak: false });
   doc.restore();
   doc.fillOpacity(1);
 }

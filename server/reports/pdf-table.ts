@@ -46,9 +46,11 @@ export function drawTable(doc: PDFKit.PDFDocument, columns: Column[], rows: Cell
   const size = options.size ?? 8;
   const header = columns.map((c) => c.header);
   const headerHeight = rowHeight(doc, columns, header, size, true);
+  // Drawing text moves doc.y; each row restores it from where the row started.
   const drawHeader = () => {
-    drawRow(doc, columns, header, doc.y, headerHeight, size, true);
-    doc.y += headerHeight;
+    const y = doc.y;
+    drawRow(doc, columns, header, y, headerHeight, size, true);
+    doc.y = y + headerHeight;
   };
   if (doc.y + headerHeight + 14 > PAGE.bottom) doc.addPage();
   drawHeader();
@@ -58,9 +60,10 @@ export function drawTable(doc: PDFKit.PDFDocument, columns: Column[], rows: Cell
       doc.addPage();
       drawHeader();
     }
-    if (index % 2 === 1) doc.rect(PAGE.left, doc.y, CONTENT_WIDTH, h).fill(BAND);
-    drawRow(doc, columns, cells, doc.y, h, size, false);
-    doc.y += h;
+    const y = doc.y;
+    if (index % 2 === 1) doc.rect(PAGE.left, y, CONTENT_WIDTH, h).fill(BAND);
+    drawRow(doc, columns, cells, y, h, size, false);
+    doc.y = y + h;
   });
   doc.x = PAGE.left;
   doc.y += 4;

@@ -24,8 +24,10 @@ export function drawPlots(doc: PDFKit.PDFDocument, d: ReportData, number: number
   sectionHeading(doc, number, 'Shaft and diagrams');
   const input = d.input as { segments: { length: number; od: number; id: number; label?: string }[]; features?: never[] };
   ensureSpace(doc, 150);
-  drawOutline(doc, shaftOutline({ segments: input.segments, features: input.features ?? [] }), { x: PAGE.left, y: doc.y, w: CONTENT_WIDTH, h: 140 }, r.fields['at']?.unit ?? '');
-  doc.y += 150;
+  // Text drawn at fixed positions moves doc.y, so each figure sets it from where the figure began.
+  const top = doc.y;
+  drawOutline(doc, shaftOutline({ segments: input.segments, features: input.features ?? [] }), { x: PAGE.left, y: top, w: CONTENT_WIDTH, h: 140 }, r.fields['at']?.unit ?? '');
+  doc.y = top + 150;
   const charts = [
     torquePlot(r),
     shearPlot(r, limitsOf(d.checklist, d.ruleSet, 'tauMax', r)),
@@ -33,8 +35,9 @@ export function drawPlots(doc: PDFKit.PDFDocument, d: ReportData, number: number
   ];
   for (const chart of charts) {
     ensureSpace(doc, 170);
-    drawChart(doc, chart, { x: PAGE.left, y: doc.y, w: CONTENT_WIDTH, h: 160 });
-    doc.y += 172;
+    const y = doc.y;
+    drawChart(doc, chart, { x: PAGE.left, y, w: CONTENT_WIDTH, h: 160 });
+    doc.y = y + 172;
   }
   doc.x = PAGE.left;
 }

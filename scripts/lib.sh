@@ -57,7 +57,7 @@ db_start() {
   echo "$port" >"$dir/port"
   /usr/sbin/mariadbd --no-defaults --user=root --datadir="$dir/data" --bind-address=127.0.0.1 --port="$port" \
     --socket="$DB_SOCKET" --pid-file="$DB_PID" --log-error="$dir/error.log" \
-    --innodb-buffer-pool-size=128M --innodb-log-file-size=48M --skip-name-resolve \
+    --innodb-buffer-pool-size=256M --innodb-log-file-size=96M --max-allowed-packet=64M --skip-name-resolve \
     --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci 2>>"$dir/error.log" &
   local i
   for i in $(seq 1 120); do

@@ -14,6 +14,7 @@ import { computeRecord } from './revision-content';
 import { currentHashOf, readRevision } from './revision-read';
 import { jsonDiff } from './content-diff';
 import { revisionLabel } from './revision-label';
+import { outcomeOf } from '../../shared/schemas/outcome';
 
 /** Calcs and the content of their revisions. Workflow transitions live in server/workflow. */
 export class CalcsService {
@@ -98,11 +99,12 @@ export class CalcsService {
   }
 }
 
-function stored(c: Awaited<ReturnType<typeof computeRecord>>) {
+export function stored(c: Awaited<ReturnType<typeof computeRecord>>) {
   return {
     result: c.result ? JSON.stringify(c.result) : null,
     checklist: c.checklist ? JSON.stringify(c.checklist) : null,
     verdict: c.verdict,
+    outcome: JSON.stringify(outcomeOf(c.checklist)),
   };
 }
 

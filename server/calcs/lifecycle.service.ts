@@ -10,7 +10,7 @@ import { computeRecord } from './revision-content';
 import { readRevision } from './revision-read';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { revisionLabel } from './revision-label';
-import type { CalcsService } from './calcs.service';
+import { stored, type CalcsService } from './calcs.service';
 
 /** Starting and ending revisions: a new revision after approval, or withdrawing a draft. */
 export class LifecycleService {
@@ -35,8 +35,7 @@ export class LifecycleService {
       const revision = await Revision.create({
         calcId, seq: latest.seq + 1, label: revisionLabel(project!.revisionScheme, latest.seq + 1), authorId: actor.id,
         ruleSetId: ruleSet.id, input: latest.input, reasonForChange, manualItems: '{}',
-        result: computed.result ? JSON.stringify(computed.result) : null,
-        checklist: computed.checklist ? JSON.stringify(computed.checklist) : null, verdict: computed.verdict,
+        ...stored(computed),
       }, { transaction });
       await this.calcs.refreshHash(revision, transaction);
       await recordEditor(calcId, actor.id, transaction);

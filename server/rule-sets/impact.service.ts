@@ -1,7 +1,8 @@
 import { ForbiddenError } from '@casl/ability';
 import { Op, type Sequelize } from 'sequelize';
-import { evaluateValidInput, validateCalcInput } from '../../shared/engine';
-import { applyRuleSetMethods, diffRuleSets, evaluateChecklist, evaluateChecklistSync, type Checklist, type RuleSet } from '../../shared/rules';
+import { evaluateValidInput, validateCalcInput, type CalcInput } from '../../shared/engine';
+import { applyRuleSetMethods, diffRuleSets, evaluateChecklist, evaluateChecklistSync, type RuleSet } from '../../shared/rules';
+import { outcomeOf, type OutcomeSummary } from '../../shared/schemas/outcome';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { ImpactReport, ImpactRow } from '../../shared/schemas/rule-set.schema';
 import { Calc, Project, Revision, RuleSetRecord } from '../db/models';
@@ -11,29 +12,20 @@ import { enqueueMail, emailsOfRole } from '../mail/outbox';
 import { loadRuleSet } from './rule-set-cache';
 import { readRevision } from '../calcs/revision-read';
 
-type Row = Checklist['rows'][number];
-const BATCH = 500;
+const BATCH = 1000;
 
-function mandatoryOutcome(checklist: Checklist | null): Map<string, { status: string; title: string; location: string }> {
-  const out = new Map<string, { status: string; title: string; location: string }>();
-  for (const row of (checklist?.rows ?? []) as Row[]) {
-    if (row.severity !== 'mandatory') continue;
-    const location = row.location?.label ?? `${row.location?.scope ?? ''} ${row.location?.index ?? ''}`.trim();
-    out.set(`${row.clauseId}|${location}`, { status: row.status, title: row.clauseTitle, location });
-  }
-  return out;
-}
-
-/** Clause rows whose mandatory outcome differs between the stored and the new checklist. */
-function changedClauses(before: Checklist | null, after: Checklist | null): ImpactRow['clauses'] {
-  const a = mandatoryOutcome(before);
-  const b = mandatoryOutcome(after);
-  const keys = new Set([...a.keys(), ...b.keys()]);
-  return [...keys].flatMap((key) => {
-    const x = a.get(key);
-    const y = b.get(key);
-    if ((x?.status ?? 'absent') === (y?.status ?? 'absent')) return [];
-    return [{ clauseId: key.split('|')[0], title: (y ?? x)!.title, location: (y ?? x)!.location, before: x?.status ?? 'absent', after: y?.status ?? 'absent' }];
+/**
+ * Mandatory rows that fail under one version but not under the other, each with its clause title
+ * (from the new version where it exists there). Keys are "clause|location|status".
+ */
+function changedClauses(before: OutcomeSummary, after: OutcomeSummary, doc: RuleSet): ImpactRow['clauses'] {
+  const strip = (key: string) => key.split('|').slice(0, 2).join('|');
+  const was = new Map(before.failing.map((k) => [strip(k), k.split('|')[2]]));
+  const now = new Map(after.failing.map((k) => [strip(k), k.split('|')[2]]));
+  const titles = new Map(doc.clauses.map((c) => [c.id, c.title]));
+  return [...new Set([...was.keys(), ...now.keys()])].filter((k) => was.has(k) !== now.has(k)).map((k) => {
+    const [clauseId, location] = k.split('|');
+    return { clauseId, location, title: titles.get(clauseId) ?? '(not in this version)', before: was.get(k) ?? 'pass', after: now.get(k) ?? 'pass' };
   });
 }
 
@@ -52,38 +44,46 @@ export class ImpactService {
     const rows: ImpactRow[] = [];
     let evaluated = 0;
     for (let lastId = 0; ;) {
+      // Only the input and the compact outcome are read: full results and checklists are large.
       const batch = await Revision.findAll({
+        attributes: ['id', 'calcId', 'label', 'input', 'verdict', 'outcome'],
         where: { status: 'approved', id: { [Op.gt]: lastId } },
-        include: [{ model: Calc, include: [Project] }], order: [['id', 'ASC']], limit: BATCH,
+        include: [{ model: Calc, attributes: ['id', 'number', 'title'], include: [{ model: Project, attributes: ['code'] }] }], order: [['id', 'ASC']], limit: BATCH,
       });
       if (batch.length === 0) break;
       lastId = batch[batch.length - 1].id;
       for (const revision of batch) {
         evaluated++;
-        const row = await this.compare(revision as Revision & { Calc: Calc & { Project: Project } }, doc);
+        const row = this.compare(revision as Revision & { Calc: Calc & { Project: Project } }, doc);
         if (row) rows.push(row);
       }
     }
     return { ruleSet: { id: record.id, code: record.code, version: record.version }, evaluated, changed: rows.length, rows, elapsedMs: Date.now() - started };
   }
 
-  private async compare(revision: Revision & { Calc: Calc & { Project: Project } }, doc: RuleSet): Promise<ImpactRow | null> {
-    const before = revision.checklist ? (JSON.parse(revision.checklist) as Checklist) : null;
-    let after: Checklist | null = null;
-    const validated = validateCalcInput(JSON.parse(revision.input));
-    if (validated.ok) {
-      const input = applyRuleSetMethods(validated.value, doc);
-      // The synchronous evaluator gives the same rows as json-rules-engine (tested in shared/rules) at bulk speed.
-      after = evaluateChecklistSync(input, evaluateValidInput(input), doc);
-    }
-    const clauses = changedClauses(before, after);
-    const verdictChanged = (before?.verdict ?? null) !== (after?.verdict ?? null);
-    if (!verdictChanged && clauses.length === 0) return null;
+  /** A row when the verdict changes; the clauses behind it are the mandatory rows that flip. */
+  private compare(revision: Revision & { Calc: Calc & { Project: Project } }, doc: RuleSet): ImpactRow | null {
+    const before: OutcomeSummary = revision.outcome ? JSON.parse(revision.outcome) : { verdict: revision.verdict, failing: [] };
+    // An approved revision's input passed validation when it was signed (signing needs a result),
+    // so the schema check is not repeated here; it is the costliest step per revision.
+    // The synchronous evaluator gives the same rows as json-rules-engine (tested in shared/rules) at bulk speed.
+    const after = this.evaluate(JSON.parse(revision.input), doc);
+    if (before.verdict === after.verdict) return null;
     const c = revision.Calc;
     return {
       calcId: c.id, revisionId: revision.id, projectCode: c.Project.code, number: c.number, title: c.title, revision: revision.label,
-      before: before?.verdict ?? null, after: after?.verdict ?? null, clauses,
+      before: before.verdict, after: after.verdict, clauses: changedClauses(before, after, doc),
     };
+  }
+
+  private evaluate(raw: unknown, doc: RuleSet): OutcomeSummary {
+    try {
+      const input = applyRuleSetMethods(raw as CalcInput, doc);
+      return outcomeOf(evaluateChecklistSync(input, evaluateValidInput(input), doc));
+    } catch {
+      // Only input a newer engine no longer accepts gets here: validate it to say so.
+      return { verdict: validateCalcInput(raw).ok ? 'error' : 'invalid-input', failing: [] };
+    }
   }
 
   async csv(ability: AppAbility, ruleSetId: number): Promise<string> {

@@ -25,6 +25,8 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
   declare checklist: string | null;
   declare manualItems: string;
   declare verdict: string | null;
+  /** Compact verdict and failing mandatory rows (shared/schemas/outcome.ts), for bulk comparison. */
+  declare outcome: CreationOptional<string | null>;
   declare contentHash: string | null;
   declare reasonForChange: string;
   declare lockVersion: CreationOptional<number>;
@@ -52,6 +54,7 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
         authorId: userRef(false), checkerId: userRef(true), approverId: userRef(true), ruleSetId: userRef(false),
         input: longText(false), result: longText(true), checklist: longText(true), manualItems: longText(false),
         verdict: { type: DataTypes.STRING(20), allowNull: true },
+        outcome: { type: DataTypes.TEXT, allowNull: true },
         contentHash: { type: DataTypes.CHAR(64), allowNull: true },
         reasonForChange: { type: DataTypes.TEXT, allowNull: false },
         lockVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },

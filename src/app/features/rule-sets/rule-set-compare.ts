@@ -25,6 +25,11 @@ export default class RuleSetCompare {
   protected readonly unchangedClauses = computed(() => (this.changes()?.clauses ?? []).filter((c) => c.change === 'unchanged').length);
   protected readonly error = computed(() => (this.diff.error() ? toHttpFailure(this.diff.error()).message : null));
 
+  /** Dimensionless parameters carry the unit "1", which reads as a stray digit: leave it out. */
+  protected withUnit(value: unknown, unit: string | undefined): string {
+    return unit && unit !== '1' ? `${this.show(value)} ${unit}` : this.show(value);
+  }
+
   protected show(v: unknown): string {
     return typeof v === 'string' ? v : JSON.stringify(v);
   }

@@ -1,0 +1,22 @@
+#!/usr/bin/env bash
+# `npm run bench`: engine and checklist throughput, then impact analysis in a throw-away MariaDB.
+# Prints figures; tests never depend on them.
+set -uo pipefail
+cd "$(dirname "$0")/.."
+source scripts/lib.sh
+ensure_debian_packages
+ensure_node_modules
+
+npx tsx scripts/bench.ts
+echo
+npx tsx scripts/bench-rules.ts
+echo
+dir=".data/bench-$$"
+export DB_NAME=torquetrail_bench DB_USER=torquetrail_bench DB_PASSWORD=bench-only LOG_LEVEL=silent
+db_start "$dir" "$(free_port)"
+export DB_HOST=127.0.0.1 DB_PORT
+trap 'db_stop; rm -rf "$dir"' EXIT
+db_ensure_schema "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
+npx tsx scripts/bench-impact.ts
+echo
+echo "Figures measure this machine at this moment; they support, never replace, engineering judgement of the product's fitness."

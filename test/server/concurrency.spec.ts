@@ -1,0 +1,100 @@
+import { startTestApp } from '../support/api-harness';
+import { auditOf, createCalc, person, revisionOf, type Session } from '../support/calc-harness';
+
+const { app, sequelize } = startTestApp();
+afterAll(() => sequelize.close());
+
+type Input = Record<string, unknown> & { title: string };
+
+/**
+ * One writer as the client behaves: save from what it last saw; on 409 take the `current`
+ * revision the server sent back, re-apply its own change to it and save again.
+ */
+async function writeUntilSaved(s: Session, revisionId: number, mark: string, seen: { input: Input; lockVersion: number }) {
+  let base = seen;
+  for (let attempt = 1; attempt <= 20; attempt++) {
+    const res = await s.put(`/api/revisions/${revisionId}`, { input: { ...base.input, title: `${base.input.title} ${mark}` }, lockVersion: base.lockVersion });
+    if (res.status === 200) return { attempts: attempt, lockVersion: res.body.lockVersion as number };
+    if (res.status !== 409 || !res.body.current) throw new Error(`save ${mark}: ${res.status} ${JSON.stringify(res.body)}`);
+    base = res.body.current;
+  }
+  throw new Error(`save ${mark} never got through`);
+}
+
+describe('two saves from the same version', () => {
+  it('when two saves start from the same lockVersion, then exactly one wins and the other gets 409 with the stored revision', async () => {
+    // Arrange
+    const author = await person(app, ['author']);
+    const { revisionId } = await createCalc(author.session);
+    const start = await revisionOf(author.session, revisionId);
+    const save = (title: string) => author.session.put(`/api/revisions/${revisionId}`, { input: { ...start.input, title }, lockVersion: start.lockVersion });
+
+    // Act
+    const results = await Promise.all([save('Edited in tab one'), save('Edited in tab two')]);
+
+    // Assert
+    const statuses = results.map((r) => r.status).sort();
+    expect(statuses).toEqual([200, 409]);
+    const winner = results.find((r) => r.status === 200)!;
+    const loser = results.find((r) => r.status === 409)!;
+    expect(loser.body.message).toBe('This revision was saved elsewhere since you opened it');
+    expect(loser.body.current).toEqual(expect.objectContaining({ id: revisionId, lockVersion: start.lockVersion + 1, input: winner.body.input }));
+    const stored = await revisionOf(author.session, revisionId);
+    expect([stored.lockVersion, stored.input.title]).toEqual([start.lockVersion + 1, winner.body.input.title]);
+  });
+});
+
+describe('many writers', () => {
+  it('when six writers save at once and rebase on each 409, then no save is lost and each has its own audited diff', async () => {
+    // Arrange
+    const N = 6;
+    const author = await person(app, ['author']);
+    const { revisionId } = await createCalc(author.session);
+    const start = await revisionOf(author.session, revisionId);
+    const marks = Array.from({ length: N }, (_v, i) => `[w${i}]`);
+
+    // Act
+    const outcomes = await Promise.all(marks.map((mark) => writeUntilSaved(author.session, revisionId, mark, start)));
+
+    // Assert
+    const stored = await revisionOf(author.session, revisionId);
+    expect(stored.lockVersion).toBe(start.lockVersion + N);
+    for (const mark of marks) expect(stored.input.title).toContain(mark);
+    expect(outcomes.map((o) => o.lockVersion).sort((a, b) => a - b)).toEqual(Array.from({ length: N }, (_v, i) => start.lockVersion + i + 1));
+    const saved = (await auditOf('Revision', revisionId)).filter((e) => e.action === 'revision.saved');
+    expect(saved).toHaveLength(N);
+    expect(saved.map((e) => e.payload.lockVersion)).toEqual(outcomes.map((o) => o.lockVersion).sort((a, b) => a - b));
+    for (const e of saved) expect(e.diff).toMatch(/^\+\s+"title": ".*\[w\d\]",?$/m);
+  });
+});
+
+describe('refusals that protect the stored revision', () => {
+  it('when a save has no lockVersion, then it is 400 naming lockVersion', async () => {
+    // Arrange
+    const author = await person(app, ['author']);
+    const { revisionId } = await createCalc(author.session);
+
+    // Act
+    const res = await author.session.put(`/api/revisions/${revisionId}`, { input: { title: 'No version' } });
+
+    // Assert
+    expect(res.status).toBe(400);
+    expect(res.body.fieldErrors).toEqual({ lockVersion: ['is required (the version you started from)'] });
+  });
+
+  it('when another author saves someone else\'s draft, then it is refused with 403 and the draft is unchanged', async () => {
+    // Arrange
+    const author = await person(app, ['author']);
+    const other = await person(app, ['author'], 'other');
+    const { revisionId } = await createCalc(author.session);
+    const before = await revisionOf(author.session, revisionId);
+
+    // Act
+    const res = await other.session.put(`/api/revisions/${revisionId}`, { input: { ...before.input, title: 'Not mine' }, lockVersion: before.lockVersion });
+
+    // Assert
+    expect(res.status).toBe(403);
+    expect(res.body.message).toBe('Only the author of this revision can edit it');
+    expect((await revisionOf(author.session, revisionId)).lockVersion).toBe(before.lockVersion);
+  });
+});

@@ -3,30 +3,36 @@
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { evaluateValidInput, formatResultTable, validateCalcInput, type CalcIssue, type CalcResult } from '../shared/engine';
+import type { Checklist, RuleSet } from '../shared/rules';
+import { RulesError, checklistFor, formatChecklist, loadRules, withMethods } from './calc-rules';
 
-const USAGE = 'usage: npm run --silent calc -- FILE.json|-|FOLDER [--format json|table]';
+const USAGE = 'usage: npm run --silent calc -- FILE.json|-|FOLDER [--format json|table] [--rules RULES.json|CODE|CODE@VERSION]';
 
-interface Outcome { file: string; result?: CalcResult; issues?: CalcIssue[] }
+interface Outcome { file: string; result?: CalcResult & { checklist?: Checklist; verdict?: string }; issues?: CalcIssue[] }
 
 class UsageError extends Error {}
 
-function parseArgs(argv: string[]): { target: string; format: 'json' | 'table' } {
+function parseArgs(argv: string[]): { target: string; format: 'json' | 'table'; rules?: string } {
   let format = 'json';
+  let rules: string | undefined;
   const rest: string[] = [];
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
     if (a === '--format') format = argv[++i] ?? '';
     else if (a.startsWith('--format=')) format = a.slice('--format='.length);
+    else if (a === '--rules') rules = argv[++i];
+    else if (a.startsWith('--rules=')) rules = a.slice('--rules='.length);
     else if (a === '--help' || a === '-h') throw new UsageError(USAGE);
     else if (a.startsWith('--')) throw new UsageError(`unknown option ${a}\n${USAGE}`);
     else rest.push(a);
   }
   if (format !== 'json' && format !== 'table') throw new UsageError(`--format must be json or table, got "${format}"`);
   if (rest.length !== 1) throw new UsageError(USAGE);
-  return { target: rest[0], format };
+  if (rules === '') throw new UsageError('--rules needs a file or a standard code');
+  return { target: rest[0], format, rules };
 }
 
-function evaluateText(file: string, text: string): Outcome {
+function evaluateText(file: string, text: string, ruleSet: RuleSet | null): Outcome {
   let data: unknown;
   try {
     data = JSON.parse(text);
@@ -34,7 +40,12 @@ function evaluateText(file: string, text: string): Outcome {
     return { file, issues: [{ path: '(input)', message: `not valid JSON: ${(e as Error).message}` }] };
   }
   const checked = validateCalcInput(data);
-  return checked.ok ? { file, result: evaluateValidInput(checked.value) } : { file, issues: checked.issues };
+  if (!checked.ok) return { file, issues: checked.issues };
+  const input = withMethods(checked.value, ruleSet);
+  const result = evaluateValidInput(input);
+  if (!ruleSet) return { file, result };
+  const checklist = checklistFor(input, result, ruleSet);
+  return { file, result: { ...result, checklist, verdict: checklist.verdict } };
 }
 
 function readTargets(target: string): { file: string; text: string }[] {
@@ -58,13 +69,14 @@ function render(outcomes: Outcome[], format: 'json' | 'table', isBatch: boolean)
     return `${JSON.stringify(body, null, 2)}\n`;
   }
   return outcomes.filter((o) => o.result)
-    .map((o) => `${isBatch ? `== ${basename(o.file)} ==\n` : ''}${formatResultTable(o.result!)}`).join('\n');
+    .map((o) => `${isBatch ? `== ${basename(o.file)} ==\n` : ''}${formatResultTable(o.result!)}${o.result!.checklist ? `\n${formatChecklist(o.result!.checklist)}\n` : ''}`).join('\n');
 }
 
-function main(argv: string[]): number {
-  const { target, format } = parseArgs(argv);
+async function main(argv: string[]): Promise<number> {
+  const { target, format, rules } = parseArgs(argv);
+  const ruleSet = rules ? await loadRules(rules) : null;
   const isBatch = target !== '-' && statSync(target, { throwIfNoEntry: false })?.isDirectory() === true;
-  const outcomes = readTargets(target).map((t) => evaluateText(t.file, t.text));
+  const outcomes = readTargets(target).map((t) => evaluateText(t.file, t.text, ruleSet));
   const invalid = outcomes.filter((o) => o.issues);
   for (const o of invalid) {
     for (const i of o.issues!) process.stderr.write(`${isBatch ? `${basename(o.file)}: ` : ''}${i.path}: ${i.message}\n`);
@@ -73,10 +85,9 @@ function main(argv: string[]): number {
   return invalid.length ? 2 : 0;
 }
 
-try {
-  process.exitCode = main(process.argv.slice(2));
-} catch (e) {
-  // Never a stack trace: usage and file problems are one line; anything else is reported briefly.
-  process.stderr.write(`${e instanceof UsageError ? '' : 'calc: '}${(e as Error).message}\n`);
-  process.exitCode = 1;
-}
+main(process.argv.slice(2)).then((code) => { process.exitCode = code; }, (e: unknown) => {
+  // Never a stack trace: usage, file and rule-set problems are one line each; anything else briefly.
+  const known = e instanceof UsageError || e instanceof RulesError;
+  process.stderr.write(`${known ? '' : 'calc: '}${(e as Error).message}\n`);
+  process.exitCode = e instanceof RulesError ? 2 : 1;
+});

@@ -17,10 +17,12 @@ function chart(result: CalcResult, title: string, y: { label: string; unit: stri
   const placed = placeLimits(limits, result.length);
   const [lo, hi] = valueRange([...series.flatMap((s) => s.points.map((p) => p[1])), ...placed.map((l) => l.y)], true);
   const pad = (hi - lo) * HEADROOM;
+  // The x axis ends where the shaft ends: a diagram drawn past the last segment would suggest more shaft.
+  const xAxis = niceAxis(0, result.length, 8);
+  const x = { ...xAxis, max: result.length, ticks: xAxis.ticks.filter((t) => t <= result.length * (1 + 1e-9)) };
   return {
     title, xLabel: 'Station', xUnit: result.fields['at']?.unit ?? '', yLabel: y.label, yUnit: y.unit,
-    x: niceAxis(0, result.length, 8), y: niceAxis(lo < 0 ? lo - pad : lo, hi > 0 ? hi + pad : hi, 5),
-    series, limits: placed,
+    x, y: niceAxis(lo < 0 ? lo - pad : lo, hi > 0 ? hi + pad : hi, 5), series, limits: placed,
   };
 }
 

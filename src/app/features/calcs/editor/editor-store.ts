@@ -28,10 +28,9 @@ export class EditorStore {
   /** lockVersion the current edits are based on; a save sends it and the server refuses a stale one. */
   readonly baseLockVersion = signal(0);
 
-  readonly calc = httpResource<CalcDto>(() => {
-    const r = this.stored();
-    return r ? `/api/calcs/${r.calcId}` : undefined;
-  });
+  // Keyed on the calc id alone, so a save (a new revision object) does not fetch the heading again.
+  private readonly calcId = computed(() => this.stored()?.calcId);
+  readonly calc = httpResource<CalcDto>(() => (this.calcId() ? `/api/calcs/${this.calcId()}` : undefined));
   readonly calcLabel = computed(() => (this.calc.hasValue() ? `${this.calc.value().number} · ${this.calc.value().title}` : ''));
 
   async load(id: number): Promise<void> {

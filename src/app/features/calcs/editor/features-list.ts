@@ -5,6 +5,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
+import { MatMenuModule } from '@angular/material/menu';
 import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine';
 import { featureTag } from '../../../../../shared/plots';
 import { featureGroup, type FeatureForm, type FeatureType } from './editor-form';
@@ -17,9 +18,9 @@ const L = (key: keyof FeatureForm, label: string, isOptional = false): Field => 
 /** The geometry each feature type needs (schema.ts); optional ones say so in their label. */
 const FIELDS: Record<FeatureType, Field[]> = {
   'shoulder-fillet': [L('r', 'Fillet radius r')],
-  keyseat: [L('r', 'Root radius r', true), L('width', 'Key width', true), L('height', 'Key height', true),
-    L('length', 'Key length', true), { key: 'keySy', label: 'Key material Sy', quantity: 'stress', isOptional: true }],
-  'ring-groove': [L('depth', 'Groove depth'), L('r', 'Root radius r'), L('width', 'Groove width', true)],
+  keyseat: [L('r', 'Root r', true), L('width', 'Key width', true), L('height', 'Key height', true),
+    L('length', 'Key length', true), { key: 'keySy', label: 'Key Sy', quantity: 'stress', isOptional: true }],
+  'ring-groove': [L('depth', 'Depth'), L('r', 'Root r'), L('width', 'Width', true)],
   'cross-hole': [L('diameter', 'Hole diameter')],
 };
 
@@ -30,7 +31,7 @@ export const FEATURE_NAMES: Record<FeatureType, string> = {
 /** Features at stations, each with the fields of its type and optional chart factors with their source. */
 @Component({
   selector: 'tt-features-list',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, MatMenuModule],
   templateUrl: './features-list.html',
   styleUrl: './editor-panels.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

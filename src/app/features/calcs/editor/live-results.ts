@@ -2,19 +2,17 @@ import { ChangeDetectionStrategy, Component, DOCUMENT, computed, inject, input }
 import { MatIconModule } from '@angular/material/icon';
 import type { CalcIssue } from '../../../../../shared/engine';
 import { SafetyNote } from '../../../ui/safety-note';
-import { ChecklistPanel } from './checklist-panel';
 import { placeOf } from './issue-map';
-import type { ChecklistState, Evaluated } from './live-calc';
+import type { Evaluated } from './live-calc';
 import { PlotsPanel } from './plots-panel';
 import type { PlotLimits } from './plot-limits';
 import { ResultSummary } from './result-summary';
-import { ResultsTables } from './results-tables';
 import type { CriterionKey } from './result-format';
 
-/** Everything computed live from the input: issues, key figures, plots, result tables and the checklist. */
+/** What is computed live from the input and read at a glance: issues, key figures and the plots. */
 @Component({
   selector: 'tt-live-results',
-  imports: [MatIconModule, SafetyNote, ChecklistPanel, PlotsPanel, ResultSummary, ResultsTables],
+  imports: [MatIconModule, SafetyNote, PlotsPanel, ResultSummary],
   templateUrl: './live-results.html',
   styleUrl: './results.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -25,8 +23,6 @@ export class LiveResults {
   readonly issues = input.required<readonly CalcIssue[]>();
   readonly evaluated = input.required<Evaluated | null>();
   readonly isStale = input.required<boolean>();
-  readonly checklist = input.required<ChecklistState>();
-  readonly ruleSetProblem = input<string | null>(null);
   readonly limits = input<PlotLimits | undefined>(undefined);
   readonly criterion = input<CriterionKey>('goodman');
   readonly criterionName = input('DE-Goodman');

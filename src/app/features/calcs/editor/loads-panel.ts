@@ -8,9 +8,9 @@ import { MatIconModule } from '@angular/material/icon';
 import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine';
 import { bendingGroup, torqueGroup, type BendingForm, type TorqueForm } from './editor-form';
 import type { IssueMap } from './issue-map';
-import { moveRow } from './row-moves';
 
-/** Load cases: external torques (or power at a speed) at stations, and bending moments for fatigue. */
+/** Load cases: external torques (or power at a speed) at stations, and bending moments for fatigue. Their
+ * order carries no meaning (stations do), so rows are added and removed but not reordered. */
 @Component({
   selector: 'tt-loads-panel',
   imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatButtonToggleModule, MatIconModule],
@@ -41,9 +41,5 @@ export class LoadsPanel {
 
   protected remove(list: FormArray, i: number): void {
     list.removeAt(i);
-  }
-
-  protected move(list: FormArray, i: number, step: -1 | 1): void {
-    moveRow(list, i, step);
   }
 }

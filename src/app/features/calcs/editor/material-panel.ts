@@ -15,6 +15,8 @@ const PROPS: [MaterialProperty, string, 'modulus' | 'stress' | null][] = [
   ['Sy', 'Yield strength Sy', 'stress'], ['Su', 'Ultimate strength Su', 'stress'],
 ];
 
+const SHORT: Record<MaterialProperty, string> = { E: 'E', G: 'G', nu: 'ν', Sy: 'Sy', Su: 'Su' };
+
 /** The calc material: picked from the sourced library or entered, with each value's origin shown. */
 @Component({
   selector: 'tt-material-panel',
@@ -38,7 +40,7 @@ export class MaterialPanel {
   protected readonly provenance = computed(() => {
     const e = this.entry();
     if (!e) return [];
-    return PROPS.map(([key, label, q]) => {
+    const rows = PROPS.map(([key, label, q]) => {
       const lib = valueIn(e, key, this.units());
       const typed = fromText(this.value()[key]);
       const sourced = e[key];
@@ -47,8 +49,15 @@ export class MaterialPanel {
       const origin = !sourced ? 'no sourced value: enter it with its source'
         : isSame ? `${sourced.source} · ${BASIS_LABELS[sourced.basis]}`
           : `entered by the author (library: ${convertedText(lib!)} ${unit}, ${BASIS_LABELS[sourced.basis]})`;
-      return { key, label, origin, isLibrary: isSame };
+      return { key: key as string, label: SHORT[key], origin, isLibrary: isSame };
     });
+    // Values with the same origin are listed together (E, G, ν: Table A-5 · typical value).
+    return rows.reduce<typeof rows>((out, r) => {
+      const last = out[out.length - 1];
+      if (last && last.origin === r.origin) out[out.length - 1] = { ...last, key: last.key + r.key, label: `${last.label}, ${r.label}` };
+      else out.push(r);
+      return out;
+    }, []);
   });
 
   protected issue(key: string): string | undefined {

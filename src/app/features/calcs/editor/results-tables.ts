@@ -20,7 +20,7 @@ export class ResultsTables {
 
   protected readonly fmt = fmt;
   protected readonly segmentColumns = ['seg', 'dia', 'J', 'T', 'tauMax', 'twist', 'twistPerLength', 'ny', 'nf'];
-  protected readonly featureColumns = ['tag', 'at', 'Kt', 'Kts', 'q', 'Kf', 'Kfs', 'ny', 'nf', 'method'];
+  protected readonly featureColumns = ['tag', 'at', 'Kt', 'Kts', 'q', 'Kf', 'Kfs', 'ny', 'nf'];
   protected readonly u = computed(() => {
     const r = this.result();
     return Object.fromEntries(['od', 'J', 'T', 'tauMax', 'twist', 'twistPerLength', 'at'].map((f) => [f, unitOf(r, f)]));

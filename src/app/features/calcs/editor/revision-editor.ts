@@ -31,6 +31,7 @@ import { LoadsPanel } from './loads-panel';
 import { FatiguePanel } from './fatigue-panel';
 import { NotesPanel } from './notes-panel';
 import { LiveResults } from './live-results';
+import { LiveDetails } from './live-details';
 
 /**
  * The author's calc editor. The form is replaced as a whole on load, restore, "take theirs" and unit
@@ -40,7 +41,7 @@ import { LiveResults } from './live-results';
 @Component({
   selector: 'tt-revision-editor',
   imports: [RouterLink, MatButtonModule, MatButtonToggleModule, MatIconModule, MatProgressBarModule, StateBadge,
-    MaterialPanel, SegmentsTable, FeaturesList, LoadsPanel, FatiguePanel, NotesPanel, LiveResults],
+    MaterialPanel, SegmentsTable, FeaturesList, LoadsPanel, FatiguePanel, NotesPanel, LiveResults, LiveDetails],
   templateUrl: './revision-editor.html',
   styleUrl: './revision-editor.scss',
   providers: [EditorStore, EditorSession, { provide: ErrorStateMatcher, useClass: EngineErrorState }],

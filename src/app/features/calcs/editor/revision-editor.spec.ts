@@ -1,0 +1,165 @@
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideRouter } from '@angular/router';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import type { HarnessLoader } from '@angular/cdk/testing';
+import { MatInputHarness } from '@angular/material/input/testing';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatFormFieldHarness } from '@angular/material/form-field/testing';
+import { MatTableHarness } from '@angular/material/table/testing';
+import { MatDialogHarness } from '@angular/material/dialog/testing';
+import { MATERIAL_ANIMATIONS } from '@angular/material/core';
+import { PureAbility } from '@casl/ability';
+import { createAppAbility, defineRulesFor } from '../../../../../shared/authz/app-ability';
+import { evaluateShaft, formatNumber } from '../../../../../shared/engine';
+import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
+import ruleSetDocument from '../../../../../rules/kfd-eng-014-v3.json';
+import RevisionEditor from './revision-editor';
+import { EDITOR_DEBOUNCE_MS } from './editor-support';
+
+// Under jsdom, jest resolves json-rules-engine's jsonpath-plus to its ESM browser build, which it cannot
+// load; its UMD build is the same code as CommonJS. (A moduleNameMapper in jest.config.js would be better.)
+jest.mock('jsonpath-plus', () => jest.requireActual('../../../../../node_modules/jsonpath-plus/dist/index-browser-umd.cjs'));
+
+// An invented two-step head shaft with a keyseat: small enough to read, complete enough to evaluate.
+const INPUT = {
+  units: 'SI', material: { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, Sy: 530, Su: 630, nu: 0.292 },
+  segments: [{ label: 'coupling seat', length: 100, od: 60, id: 0 }, { label: 'body', length: 300, od: 70, id: 0 }],
+  torques: [{ at: 50, T: 1500 }, { at: 350, T: -1500 }],
+  features: [{ type: 'keyseat', form: 'end-mill', at: 50 }], bending: [],
+};
+const ME = { id: 1, roles: ['author'] as const };
+
+function revision(over: Partial<RevisionDto> = {}): RevisionDto {
+  return {
+    id: 7, calcId: 3, seq: 0, label: 'A', status: 'draft', verdict: null, author: { id: ME.id, name: 'Morwenna Hale' },
+    checker: null, approver: null, ruleSet: { id: 2, code: 'KFD-ENG-014', version: 3, title: 'Shaft design' },
+    reasonForChange: 'first issue', updatedAt: '2026-12-01T10:00:00Z', approvedAt: null, lockVersion: 0,
+    input: JSON.parse(JSON.stringify(INPUT)), result: null, checklist: null, inputIssues: [], manualItems: {}, contentHash: null,
+    signatures: [], findings: [], submittedAt: null, checkedAt: null, createdAt: '2026-12-01T09:00:00Z', editorIds: [ME.id], ...over,
+  };
+}
+
+// Rendering the whole editor with Material takes a few seconds on a shared two-core machine.
+jest.setTimeout(30_000);
+
+let fixture: ComponentFixture<RevisionEditor>;
+let http: HttpTestingController;
+let loader: HarnessLoader;
+
+/** Lets promises and effects run (an event-loop turn, not a wait), then whenStable once nothing is in flight. */
+async function turn(): Promise<void> {
+  await new Promise((resolve) => setTimeout(resolve));
+  fixture.detectChanges();
+}
+
+async function settle(): Promise<void> {
+  await turn();
+  await fixture.whenStable();
+}
+
+/** Opens the editor on revision 7 and answers its reads (revision, rule set, calc heading). */
+async function open(stored = revision()): Promise<void> {
+  fixture = TestBed.createComponent(RevisionEditor);
+  fixture.componentRef.setInput('id', 7);
+  http = TestBed.inject(HttpTestingController);
+  loader = TestbedHarnessEnvironment.loader(fixture);
+  fixture.detectChanges();
+  http.expectOne('/api/revisions/7').flush(stored);
+  await turn();
+  http.expectOne('/api/rule-sets/2').flush({ document: ruleSetDocument });
+  await turn();
+  http.expectOne('/api/calcs/3').flush({ number: 'CV-7', title: 'Head shaft' });
+  await settle();
+}
+
+async function cell(column: string, row = 0): Promise<string> {
+  const table = await loader.getHarness(MatTableHarness.with({ selector: '[aria-label="Results per segment"]' }));
+  return (await table.getCellTextByColumnName())[column].text[row];
+}
+
+const segmentField = (path: string) => loader.getHarness(MatInputHarness.with({ selector: `[data-path="${path}"]` }));
+
+beforeEach(() => {
+  localStorage.clear();
+  TestBed.configureTestingModule({
+    providers: [
+      provideHttpClient(), provideHttpClientTesting(), provideRouter([]),
+      { provide: PureAbility, useValue: createAppAbility(defineRulesFor({ id: ME.id, roles: [...ME.roles] })) },
+      { provide: EDITOR_DEBOUNCE_MS, useValue: 0 },
+      // Dialogs close on an animation event jsdom never fires; without animations they close at once.
+      { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+    ],
+  });
+});
+
+afterEach(() => http?.verify());
+
+describe('the calc editor, live in the browser', () => {
+  it('when the author changes a segment diameter, then τmax in the results is recomputed by the shared engine', async () => {
+    await open();
+    const before = evaluateShaft(INPUT).segments[0].tauMax;
+    expect(await cell('tauMax')).toBe(formatNumber(before, 4));
+
+    await (await segmentField('segments[0].od')).setValue('75');
+    await settle();
+
+    const after = evaluateShaft({ ...INPUT, segments: [{ ...INPUT.segments[0], od: 75 }, INPUT.segments[1]] }).segments[0].tauMax;
+    expect(after).toBeLessThan(before);
+    expect(await cell('tauMax')).toBe(formatNumber(after, 4));
+  });
+
+  it('when an inner diameter is not below the outer one, then the engine message shows on that row\'s field', async () => {
+    await open();
+    await (await segmentField('segments[1].id')).setValue('80');
+    await settle();
+
+    const field = await loader.getHarness(MatFormFieldHarness.with({ selector: '[data-field="segments[1].id"]' }));
+    expect(await field.getTextErrors()).toEqual(['inner diameter 80 mm is not smaller than outer diameter 70 mm']);
+    expect(await field.isControlValid()).toBe(false);
+    expect(fixture.nativeElement.textContent).toContain('Results below are for the last valid input');
+    expect(fixture.nativeElement.textContent).not.toMatch(/NaN|Infinity/);
+  });
+});
+
+describe('saving and keeping work', () => {
+  it('when the save meets a newer stored version (409), then both versions are shown side by side and nothing is overwritten', async () => {
+    await open();
+    await (await segmentField('segments[0].length')).setValue('120');
+    await (await loader.getHarness(MatButtonHarness.with({ text: /Save revision/ }))).click();
+    const theirs = revision({ lockVersion: 1, input: { ...JSON.parse(JSON.stringify(INPUT)), notes: 'changed in another tab' } });
+    const put = http.expectOne({ method: 'PUT', url: '/api/revisions/7' });
+    expect(put.request.body.lockVersion).toBe(0);
+    put.flush({ code: 'conflict', message: 'saved elsewhere', current: theirs }, { status: 409, statusText: 'Conflict' });
+    await settle();
+
+    const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
+    const text = await (await dialog.host()).text();
+    expect(text).toContain('This revision was saved elsewhere');
+    expect(text).toMatch(/segments\[0\]\.length\s*120\s*100/);
+    expect(text).toContain('changed in another tab');
+
+    await (await dialog.getHarness(MatButtonHarness.with({ text: /Keep mine/ }))).click();
+    await turn();
+    const again = http.expectOne({ method: 'PUT', url: '/api/revisions/7' });
+    expect(again.request.body.lockVersion).toBe(1);
+    again.flush(revision({ lockVersion: 2, input: again.request.body.input }));
+    await settle();
+    expect(localStorage.length).toBe(0);
+  });
+
+  it('when the page is reloaded with unsaved edits, then the local copy is offered and restores them', async () => {
+    await open();
+    await (await segmentField('segments[1].od')).setValue('72');
+    await settle();
+    fixture.destroy();
+
+    await open();
+    expect(fixture.nativeElement.textContent).toContain('This browser kept unsaved changes');
+    expect(await (await segmentField('segments[1].od')).getValue()).toBe('70');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Restore my changes' }))).click();
+    await settle();
+    expect(await (await segmentField('segments[1].od')).getValue()).toBe('72');
+  });
+});

@@ -86,3 +86,46 @@ db_stop() {
   for i in $(seq 1 80); do kill -0 "$pid" 2>/dev/null || return 0; sleep 0.25; done
   kill -9 "$pid" 2>/dev/null || true
 }
+
+# port_in_use PORT — true when something listens on 127.0.0.1:PORT.
+port_in_use() {
+  node -e 'const s=require("net").connect(+process.argv[1],"127.0.0.1");s.on("connect",()=>process.exit(0));s.on("error",()=>process.exit(1))' "$1"
+}
+
+# fakes_start DIR — the fake SMTP server and s3rver (scripts/fake-services.ts) beside the app,
+# on SMTP_PORT and the port of S3_ENDPOINT, with their files in DIR. A pid file left by a killed
+# run is ignored when its process is gone (or is no longer ours).
+fakes_start() {
+  local dir="$1" pid
+  mkdir -p "$dir"
+  FAKES_PID="$dir/fakes.pid"
+  if [ -f "$FAKES_PID" ]; then
+    pid=$(cat "$FAKES_PID")
+    if kill -0 "$pid" 2>/dev/null && grep -q fake-services "/proc/$pid/cmdline" 2>/dev/null; then
+      log "fake mail and storage already running (pid $pid)"
+      return 0
+    fi
+    rm -f "$FAKES_PID"
+  fi
+  FAKE_DATA_DIR="$dir" node --import tsx scripts/fake-services.ts >"$dir/fakes.log" 2>&1 &
+  echo $! >"$FAKES_PID"
+  local i
+  for i in $(seq 1 120); do
+    grep -q 'fake services ready' "$dir/fakes.log" 2>/dev/null && return 0
+    kill -0 "$(cat "$FAKES_PID")" 2>/dev/null || break
+    sleep 0.25
+  done
+  tail -n 5 "$dir/fakes.log" >&2
+  die "the fake mail and storage services did not start (see $dir/fakes.log)"
+}
+
+fakes_stop() {
+  [ -n "${FAKES_PID:-}" ] && [ -f "$FAKES_PID" ] || return 0
+  local pid; pid=$(cat "$FAKES_PID")
+  if kill -0 "$pid" 2>/dev/null && grep -q fake-services "/proc/$pid/cmdline" 2>/dev/null; then
+    kill "$pid" 2>/dev/null
+    local i
+    for i in $(seq 1 40); do kill -0 "$pid" 2>/dev/null || break; sleep 0.25; done
+  fi
+  rm -f "$FAKES_PID"
+}

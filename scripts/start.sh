@@ -16,6 +16,15 @@ export DB_HOST=127.0.0.1 DB_PORT
 trap 'db_stop' EXIT
 db_ensure_schema "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
 
+# Mail goes to a local fake SMTP server and attachments to s3rver, unless the environment names
+# real ones. A busy default port (another checkout) moves to a free one for this run.
+export SMTP_HOST=${SMTP_HOST:-127.0.0.1} S3_BUCKET=${S3_BUCKET:-torquetrail-attachments}
+if [ -z "${SMTP_PORT:-}" ]; then SMTP_PORT=2525; port_in_use 2525 && SMTP_PORT=$(free_port); fi
+if [ -z "${S3_ENDPOINT:-}" ]; then s3_port=4569; port_in_use 4569 && s3_port=$(free_port); S3_ENDPOINT="http://127.0.0.1:$s3_port"; fi
+export SMTP_PORT S3_ENDPOINT
+fakes_start .data/fakes
+trap 'fakes_stop; db_stop' EXIT
+
 log "running migrations"
 npx tsx server/db/migrate.ts up
 log "loading demo data (first run only)"
@@ -29,5 +38,5 @@ export NODE_ENV=${NODE_ENV:-production}
 # Run the server as a child (not exec) so the EXIT trap stops MariaDB after Ctrl-C.
 node --import tsx server/main.ts &
 app=$!
-trap 'kill -TERM $app 2>/dev/null; wait $app 2>/dev/null; db_stop' INT TERM
+trap 'kill -TERM $app 2>/dev/null; wait $app 2>/dev/null; fakes_stop; db_stop' INT TERM
 wait $app || true

@@ -14,6 +14,12 @@ export DB_HOST=127.0.0.1 DB_PORT
 trap 'db_stop; rm -rf "$dir"' EXIT
 db_ensure_schema "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
 
+# Throw-away fake SMTP and S3 on free ports for anything that uses the configured ones. No server
+# process sends mail during tests: the mail specs drive the sender themselves.
+export SMTP_HOST=127.0.0.1 SMTP_PORT=$(free_port) S3_ENDPOINT="http://127.0.0.1:$(free_port)" S3_BUCKET=torquetrail-test MAIL_SENDER=false
+fakes_start "$dir/fakes"
+trap 'fakes_stop; db_stop; rm -rf "$dir"' EXIT
+
 log "building the client for the end-to-end tests"
 npx ng build --configuration production >/dev/null || die "client build failed"
 

@@ -9,6 +9,7 @@ import { Calc, Project, Revision, RuleSetRecord } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { enqueueMail, emailsOfRole } from '../mail/outbox';
+import { appLink } from '../mail/links';
 import { loadRuleSet } from './rule-set-cache';
 import { readRevision } from '../calcs/revision-read';
 
@@ -124,7 +125,7 @@ export class ImpactService {
       const list = report.rows.slice(0, 50).map((r) => `- ${r.projectCode} ${r.number} rev ${r.revision}: ${r.before} → ${r.after}`).join('\n');
       await enqueueMail(await emailsOfRole('compliance', [], transaction), {
         event: 'impact', subject: `${record.code} v${record.version} changes the verdict of ${report.changed} approved calc(s)`,
-        body: `${record.code} v${record.version} is now effective. Re-evaluated ${report.evaluated} approved calcs; ${report.changed} change:\n\n${list}\n\nTorquetrail supports, and never replaces, the judgement of a qualified engineer; local codes and licensed practice govern.`,
+        body: `${record.code} v${record.version} is now effective (confirmed by ${actor.name}). Re-evaluated ${report.evaluated} approved calcs; ${report.changed} change:\n\n${list}\n\nImpact report: ${appLink(`/rule-sets/${record.id}`)}\n\nTorquetrail supports, and never replaces, the judgement of a qualified engineer; local codes and licensed practice govern.`,
       }, transaction);
       await appendAudit(this.sequelize, actor, { action: 'rule_set.impact_notified', entityType: 'RuleSet', entityId: record.id, payload: { changed: report.changed, evaluated: report.evaluated } }, transaction);
     });

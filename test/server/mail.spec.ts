@@ -1,5 +1,5 @@
-import { startTestApp } from '../support/api-harness';
-import { calcTeam, revisionOf, sign, tickAll } from '../support/calc-harness';
+import { TEST_PASSWORD, startTestApp } from '../support/api-harness';
+import { advanceTo, calcTeam, createCalc, expectStatus, person, revisionOf, sign, testStandard, tickAll, withParameter } from '../support/calc-harness';
 import { startTestSmtp } from '../support/fake-servers';
 import { emailsOf, outboxFor, senderFor } from '../support/mail-harness';
 
@@ -80,5 +80,26 @@ describe('hand-over mail', () => {
     expect(JSON.stringify(unknown.body.fieldErrors)).toMatch(/gossip|not a mail event/);
     expect(notBoolean.status).toBe(400);
     expect(notBoolean.body.fieldErrors['preferences.approved']).toEqual(['must be true or false']);
+  });
+
+  it('when a new version of a standard makes an approved calc fail, then every compliance person is told, with who and a link', async () => {
+    const team = await calcTeam(app);
+    const standard = await testStandard();
+    const { revisionId } = await createCalc(team.author.session, { ruleSetId: standard.id });
+    await advanceTo('approved', { author: team.author.session, checker: team.checker.session, approver: team.approver.session }, revisionId);
+    const [drafter, confirmer] = [await person(app, ['compliance'], 'drafter'), await person(app, ['compliance'], 'confirmer')];
+    const draft = expectStatus(await drafter.session.post('/api/rule-sets', { fromId: standard.id }), 201, 'draft').body;
+    const stricter = { ...withParameter(draft.document, 'minYieldSafety', 50), changeSummary: 'Yield safety raised for a test' };
+    const saved = expectStatus(await drafter.session.put(`/api/rule-sets/${draft.id}`, { document: stricter, lockVersion: draft.lockVersion }), 200, 'save').body;
+    const proposed = expectStatus(await drafter.session.post(`/api/rule-sets/${draft.id}/propose`, { effectiveDate: '2026-01-01', lockVersion: saved.lockVersion }), 200, 'propose').body;
+
+    expectStatus(await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, { password: TEST_PASSWORD, lockVersion: proposed.lockVersion }), 200, 'confirm');
+    const received = await deliverTo([drafter.email, confirmer.email, (await emailsOf(team.author.user.id))[0]]);
+
+    const impact = received.filter((m) => m.headers['x-torquetrail-event'] === 'impact');
+    expect(impact.flatMap((m) => m.envelopeTo).sort()).toEqual([drafter.email, confirmer.email].sort());
+    expect(impact[0].subject).toMatch(new RegExp(`^${standard.code} v2 changes the verdict of \\d+ approved calc`));
+    expect(impact[0].text).toContain(`confirmed by ${confirmer.displayName}`);
+    expect(impact[0].text).toContain(`/rule-sets/${draft.id}`);
   });
 });

@@ -1,11 +1,11 @@
 import { Router } from 'express';
 import { ForbiddenError } from '@casl/ability';
-import { Op } from 'sequelize';
 import { auditQuerySchema, type AuditEventDto, type AuditQuery } from '../../shared/schemas/audit.schema';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import { AuditEvent } from '../db/models';
 import { validate } from '../http/validate';
 import { verifyAuditChain } from './audit.service';
+import { auditWhere } from './audit-filter';
 
 export function toAuditDto(e: AuditEvent): AuditEventDto {
   return {
@@ -16,11 +16,7 @@ export function toAuditDto(e: AuditEvent): AuditEventDto {
 
 export async function listAudit(ability: AppAbility, query: AuditQuery) {
   ForbiddenError.from(ability).throwUnlessCan('read', 'AuditEvent');
-  const where = {
-    ...(query.entityType ? { entityType: query.entityType } : {}),
-    ...(query.action ? { action: { [Op.like]: `${query.action}%` } } : {}),
-  };
-  const { rows, count } = await AuditEvent.findAndCountAll({ where, order: [['id', 'DESC']], offset: query.page * query.size, limit: query.size });
+  const { rows, count } = await AuditEvent.findAndCountAll({ where: auditWhere(query), order: [['id', 'DESC']], offset: query.page * query.size, limit: query.size });
   return { items: rows.map(toAuditDto), total: count, page: query.page, size: query.size };
 }
 

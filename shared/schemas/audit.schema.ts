@@ -1,10 +1,18 @@
 import { z } from 'zod';
 import { pageQuerySchema } from './common.schema';
 
+const id = z.coerce.number({ error: 'must be a number' }).int().positive().optional();
+const day = z.iso.date({ error: 'must be a date (YYYY-MM-DD)' }).optional();
+
 export const auditQuerySchema = pageQuerySchema.extend({
   entityType: z.string().trim().max(32).optional(),
   action: z.string().trim().max(64).optional(),
-});
+  projectId: id,
+  calcId: id,
+  userId: id,
+  from: day,
+  to: day,
+}).refine((q) => !q.from || !q.to || q.from <= q.to, { message: 'must not be after "to"', path: ['from'] });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;
 
 export interface AuditEventDto {

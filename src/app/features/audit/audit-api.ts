@@ -4,7 +4,9 @@ import { firstValueFrom } from 'rxjs';
 import type { Page } from '../../../../shared/schemas/common.schema';
 import type { AuditChainStatus, AuditEventDto } from '../../../../shared/schemas/audit.schema';
 
-export interface AuditListParams { page: number; size: number; entityType: string }
+export interface AuditListParams {
+  page: number; size: number; entityType: string; action: string; projectId: number | null; calcId: number | null; userId: number | null; from: string; to: string;
+}
 
 @Injectable({ providedIn: 'root' })
 export class AuditApi {
@@ -13,7 +15,7 @@ export class AuditApi {
   list(params: Signal<AuditListParams>) {
     return httpResource<Page<AuditEventDto>>(() => ({
       url: '/api/audit',
-      params: { page: params().page, size: params().size, ...(params().entityType ? { entityType: params().entityType } : {}) },
+      params: Object.fromEntries(Object.entries(params()).filter(([, v]) => v !== '' && v !== null)) as Record<string, string | number>,
     }));
   }
 

@@ -12,17 +12,21 @@ import { toHttpFailure } from '../../core/errors/http-failure';
 import { AuditActionLabelPipe } from '../../ui/audit-action-label';
 import { EmptyState } from '../../ui/empty-state';
 import { AuditApi, type AuditListParams } from './audit-api';
+import { ProjectsApi } from '../projects/projects-api';
+import { DiffView } from '../../ui/diff-view';
+import { MatInputModule } from '@angular/material/input';
 
 @Component({
   selector: 'tt-audit-page',
-  imports: [DatePipe, JsonPipe, SlicePipe, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatSelectModule, MatFormFieldModule, MatProgressBarModule, AuditActionLabelPipe, EmptyState],
+  imports: [DatePipe, JsonPipe, SlicePipe, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatSelectModule, MatFormFieldModule, MatProgressBarModule, AuditActionLabelPipe, EmptyState, DiffView, MatInputModule],
   templateUrl: './audit-page.html',
   styleUrl: './audit-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export default class AuditPage {
   private readonly api = inject(AuditApi);
-  protected readonly params = signal<AuditListParams>({ page: 0, size: 25, entityType: '' });
+  protected readonly params = signal<AuditListParams>({ page: 0, size: 25, entityType: '', action: '', projectId: null, calcId: null, userId: null, from: '', to: '' });
+  protected readonly projects = inject(ProjectsApi).list(signal({ page: 0, size: 200, q: '' }));
   protected readonly events = this.api.list(this.params);
   protected readonly rows = computed(() => this.events.value()?.items ?? []);
   protected readonly total = computed(() => this.events.value()?.total ?? 0);
@@ -32,10 +36,21 @@ export default class AuditPage {
   protected readonly chainError = signal<string | null>(null);
   protected readonly isVerifying = signal(false);
   protected readonly columns = ['id', 'occurredAt', 'actorName', 'action', 'entity', 'hash'];
-  protected readonly entityTypes = ['', 'User', 'Project'];
+  protected readonly entityTypes = ['', 'User', 'Project', 'Calc', 'Revision', 'RuleSet'];
+  protected readonly actions = [
+    { value: '', label: 'Any action' }, { value: 'auth.', label: 'Sign-in and passwords' }, { value: 'user.', label: 'Accounts and roles' },
+    { value: 'calc.', label: 'Calcs created' }, { value: 'revision.saved', label: 'Content saved' }, { value: 'revision.signed', label: 'Signatures' },
+    { value: 'revision.', label: 'Any revision event' }, { value: 'finding.', label: 'Findings' }, { value: 'rule_set.', label: 'Standards' },
+    { value: 'attachment.', label: 'Attachments' },
+  ];
 
-  protected filter(entityType: string): void {
-    this.params.update((p) => ({ ...p, entityType, page: 0 }));
+  protected filter(patch: Partial<AuditListParams>): void {
+    this.params.update((p) => ({ ...p, ...patch, page: 0 }));
+  }
+
+  protected idOrNull(text: string): number | null {
+    const n = Number(text);
+    return Number.isInteger(n) && n > 0 ? n : null;
   }
 
   protected changePage(event: PageEvent): void {

@@ -20,7 +20,10 @@ export function toText(value: unknown): string {
   return value === undefined || value === null ? '' : JSON.stringify(value);
 }
 
-/** A converted number shown to seven significant digits: enough to round-trip SI ↔ US exactly in practice. */
+/**
+ * A converted number to ten significant digits. Seven looked tidier but turned 28 mm into 27.99999 mm
+ * after a trip to inches and back; ten digits return every typed value exactly.
+ */
 export function convertedText(value: number): string {
-  return formatNumber(value, 7);
+  return formatNumber(value, 10);
 }

@@ -123,6 +123,16 @@ describe('the calc editor, live in the browser', () => {
   });
 });
 
+describe('who may edit', () => {
+  it('when the revision is approved, then every field is read-only, there is no save, and results still show', async () => {
+    await open(revision({ status: 'approved' }));
+    expect(await (await segmentField('segments[0].od')).isDisabled()).toBe(true);
+    expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: /Save revision/ }))).toEqual([]);
+    expect(fixture.nativeElement.textContent).toContain('Read-only: the revision is approved');
+    expect(await cell('tauMax')).toBe(formatNumber(evaluateShaft(INPUT).segments[0].tauMax, 4));
+  });
+});
+
 describe('saving and keeping work', () => {
   it('when the save meets a newer stored version (409), then both versions are shown side by side and nothing is overwritten', async () => {
     await open();

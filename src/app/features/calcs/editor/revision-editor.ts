@@ -22,7 +22,7 @@ import { applyIssues } from './apply-issues';
 import { liveCalc } from './live-calc';
 import { plotLimits } from './plot-limits';
 import { CRITERION_KEYS } from './result-format';
-import { convertValue } from './unit-convert';
+import { switchUnits, type Conversion } from './unit-convert';
 import { EditorSession } from './editor-session';
 import { MaterialPanel } from './material-panel';
 import { SegmentsTable } from './segments-table';
@@ -58,6 +58,7 @@ export default class RevisionEditor {
 
   protected readonly form = signal<EditorForm>(editorForm(inputToValue({})));
   protected readonly units = signal<UnitSystem>('SI');
+  private lastConversion: Conversion | null = null;
   private readonly value = toSignal(toObservable(this.form).pipe(
     switchMap((f) => f.valueChanges.pipe(startWith(null), map(() => f.getRawValue()))),
     this.debounceMs > 0 ? debounceTime(this.debounceMs) : identity,
@@ -104,7 +105,10 @@ export default class RevisionEditor {
   /** Converts every entered value to the other system (engine unit helpers), never just relabels it. */
   protected switchUnits(to: UnitSystem): void {
     const v = this.form().getRawValue();
-    if (v.units !== to) this.replaceForm(convertValue(v, to));
+    if (v.units === to) return;
+    const { value, conversion } = switchUnits(v, to, this.lastConversion);
+    this.lastConversion = conversion;
+    this.replaceForm(value);
   }
 
   protected warnBeforeUnload(event: BeforeUnloadEvent): void {

@@ -8,6 +8,7 @@ import { sessionMiddleware, absoluteSessionLimit } from './auth/session';
 import { createPassport } from './auth/passport';
 import { csrfProtection } from './auth/csrf';
 import { authRouter } from './auth/auth.router';
+import { secondFactorRouter } from './auth/second-factor.router';
 import { attachAbility } from './authz/actor';
 import { requireSignIn } from './authz/require-sign-in';
 import { usersRouter } from './users/users.router';
@@ -45,6 +46,7 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   app.use('/api', csrfProtection);
 
   app.use('/api', authRouter(sequelize, passport, config));
+  app.use('/api/auth/second-factor', requireSignIn, secondFactorRouter(sequelize));
   app.use('/api/users', requireSignIn, usersRouter(sequelize));
   app.use('/api/projects', requireSignIn, projectsRouter(sequelize));
   app.use('/api/audit', requireSignIn, auditRouter());

@@ -16,6 +16,8 @@ declare module 'express-session' {
   interface SessionData {
     startedAt: number;
     csrfToken: string;
+    /** A one-time-code secret shown to the user but not yet confirmed by a matching code. */
+    pendingTotp: string;
   }
 }
 

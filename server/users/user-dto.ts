@@ -10,6 +10,7 @@ export function toUserDto(user: User): UserDto {
   return {
     ...toSessionUser(user),
     active: user.active,
+    secondFactorRequired: user.totpRequired,
     lastSignInAt: user.lastSignInAt ? user.lastSignInAt.toISOString() : null,
     createdAt: user.createdAt.toISOString(),
     version: user.version,

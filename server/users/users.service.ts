@@ -58,10 +58,10 @@ export class UsersService {
       // Checked before the version and even when no field is given, so a bare `{ version }` is no back door.
       ForbiddenError.from(ability).throwUnlessCan('update', subject('User', before));
       if (user.version !== dto.version) throw AppError.conflict(`User ${user.username} was changed by someone else; reload and try again`);
-      const fields = (['displayName', 'email', 'roles'] as const).filter((f) => dto[f] !== undefined);
+      const fields = (['displayName', 'email', 'roles', 'secondFactorRequired'] as const).filter((f) => dto[f] !== undefined);
       for (const field of fields) ForbiddenError.from(ability).throwUnlessCan('update', subject('User', before), field);
       if (dto.roles) await this.replaceRoles(ability, user, dto.roles, transaction);
-      user.set({ displayName: dto.displayName ?? user.displayName, email: dto.email ?? user.email });
+      user.set({ displayName: dto.displayName ?? user.displayName, email: dto.email ?? user.email, totpRequired: dto.secondFactorRequired ?? user.totpRequired });
       user.changed('updatedAt', true);
       await user.save({ transaction });
       const after = { ...before, ...dto, roles: dto.roles ? [...dto.roles].sort() : before.roles };

@@ -7,6 +7,7 @@ import { Calc, Finding, Project, Revision, Signature, User } from '../db/models'
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { verifyPassword } from '../auth/password';
+import { assertSecondFactor } from '../auth/second-factor';
 import { editorIdsOf, loadRevision } from '../calcs/calc-access';
 import { currentHashOf, readRevision } from '../calcs/revision-read';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
@@ -54,7 +55,15 @@ export class WorkflowService {
 
   private async checkPassword(signer: Signer, revisionId: number, dto: SignRequest): Promise<void> {
     const user = await User.scope('withPassword').findByPk(signer.id);
-    if (user && (await verifyPassword(user.passwordHash, dto.password))) return;
+    if (user && (await verifyPassword(user.passwordHash, dto.password))) {
+      try {
+        assertSecondFactor(user, dto.oneTimeCode);
+        return;
+      } catch (err) {
+        await appendAudit(this.sequelize, signer, { action: 'revision.signature_refused', entityType: 'Revision', entityId: revisionId, payload: { meaning: dto.meaning, reason: 'one-time code missing or wrong' } });
+        throw err;
+      }
+    }
     await appendAudit(this.sequelize, signer, { action: 'revision.signature_refused', entityType: 'Revision', entityId: revisionId, payload: { meaning: dto.meaning, reason: 'wrong password' } });
     throw new AppError('validation', 400, 'Password is not correct; nothing was signed', { fieldErrors: { password: ['is not correct'] } });
   }

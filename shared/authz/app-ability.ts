@@ -70,7 +70,7 @@ const RULES_BY_ROLE: Record<Role, (user: AbilityUser, b: Builder) => void> = {
     // Admins manage people and projects; field lists keep passwords out of their reach.
     can('read', ['User', 'Project', 'AuditEvent', 'SentMail']);
     can('create', ['User', 'Project']);
-    can('update', 'User', ['displayName', 'email', 'roles', 'active']);
+    can('update', 'User', ['displayName', 'email', 'roles', 'active', 'secondFactorRequired']);
     can(['deactivate', 'assignRoles'], 'User');
     can('update', 'Project');
   },

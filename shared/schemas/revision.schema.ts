@@ -40,6 +40,7 @@ export const signSchema = z.object({
   meaning: z.enum(['authored', 'checked', 'approved'], { error: 'must be authored, checked or approved' }),
   idempotencyKey: z.string({ error: 'is required' }).regex(/^[A-Za-z0-9-]{16,64}$/, 'must be 16–64 letters, digits or dashes'),
   lockVersion: z.number({ error: 'is required' }).int().min(0),
+  oneTimeCode: z.string().trim().regex(/^\d{6}$/, 'must be the 6 digits your authenticator app shows').optional(),
 }).strict();
 export type SignRequest = z.infer<typeof signSchema>;
 

@@ -22,8 +22,8 @@ export const createUserSchema = z.object({
 export type CreateUserRequest = z.infer<typeof createUserSchema>;
 
 export const updateUserSchema = z
-  .object({ displayName, email, roles, version: z.number().int().min(0) })
-  .partial({ displayName: true, email: true, roles: true })
+  .object({ displayName, email, roles, secondFactorRequired: z.boolean({ error: 'must be true or false' }), version: z.number().int().min(0) })
+  .partial({ displayName: true, email: true, roles: true, secondFactorRequired: true })
   .strict();
 export type UpdateUserRequest = z.infer<typeof updateUserSchema>;
 
@@ -34,6 +34,8 @@ export interface UserDto {
   email: string;
   roles: z.infer<typeof roleSchema>[];
   active: boolean;
+  /** An administrator requires a one-time code from this person when they sign. */
+  secondFactorRequired: boolean;
   lastSignInAt: string | null;
   createdAt: string;
   version: number;

@@ -14,6 +14,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare active: CreationOptional<boolean>;
   declare lastSignInAt: CreationOptional<Date | null>;
   declare passwordChangedAt: CreationOptional<Date | null>;
+  declare totpSecret: CreationOptional<string | null>;
+  declare totpRequired: CreationOptional<boolean>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -34,6 +36,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
         lastSignInAt: { type: DataTypes.DATE(3), allowNull: true },
         passwordChangedAt: { type: DataTypes.DATE(3), allowNull: true },
+        totpSecret: { type: DataTypes.STRING(64), allowNull: true },
+        totpRequired: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
@@ -44,7 +48,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         underscored: true,
         version: true,
         // The hash never leaves the data layer unless a caller asks for it by scope.
-        defaultScope: { attributes: { exclude: ['passwordHash'] } },
+        defaultScope: { attributes: { exclude: ['passwordHash', 'totpSecret'] } },
         // An empty scope replaces the default one, so every column comes back once; `include`
         // here would list password_hash twice, which the mariadb driver rejects.
         scopes: { withPassword: {} },

@@ -32,6 +32,7 @@ export class UserDialog {
     initialPassword: ['', this.existing ? [] : [Validators.required, Validators.minLength(12)]],
   });
   protected readonly roles = signal<Set<Role>>(new Set(this.existing?.roles ?? []));
+  protected readonly requireCode = signal(this.existing?.secondFactorRequired ?? false);
   protected readonly problems = signal<string[]>([]);
   protected readonly isSaving = signal(false);
 
@@ -59,7 +60,7 @@ export class UserDialog {
     const roles = ROLES.filter((r) => this.roles().has(r));
     try {
       const saved = this.existing
-        ? await this.api.update(this.existing.id, { displayName, email, roles, version: this.existing.version })
+        ? await this.api.update(this.existing.id, { displayName, email, roles, secondFactorRequired: this.requireCode(), version: this.existing.version })
         : await this.api.create({ username, displayName, email, roles, initialPassword });
       this.ref.close(saved);
     } catch (error) {

@@ -1,4 +1,7 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { httpResource } from '@angular/common/http';
+import { RouterLink } from '@angular/router';
+import type { SecondFactorStatus } from '../../../../../shared/schemas/second-factor.schema';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatButtonModule } from '@angular/material/button';
@@ -20,7 +23,7 @@ const STATEMENTS: Record<SignDialogData['meaning'], string> = {
 /** Re-authentication for an e-signature: the signer's password, the meaning, and one idempotency key. */
 @Component({
   selector: 'tt-sign-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule],
+  imports: [ReactiveFormsModule, RouterLink, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule],
   templateUrl: './sign-dialog.html',
   styleUrl: './sign-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -33,7 +36,8 @@ export class SignDialog {
   protected readonly statement = STATEMENTS[this.data.meaning];
   // One key per dialog: a double click or a retried request still yields exactly one signature.
   private readonly idempotencyKey = crypto.randomUUID();
-  protected readonly form = inject(NonNullableFormBuilder).group({ password: ['', Validators.required] });
+  protected readonly form = inject(NonNullableFormBuilder).group({ password: ['', Validators.required], oneTimeCode: [''] });
+  protected readonly secondFactor = httpResource<SecondFactorStatus>(() => '/api/auth/second-factor');
   protected readonly problem = signal<string | null>(null);
   protected readonly isSigning = signal(false);
 
@@ -44,6 +48,7 @@ export class SignDialog {
     try {
       const signed = await this.api.sign(this.data.revision.id, {
         password: this.form.getRawValue().password, meaning: this.data.meaning,
+        ...(this.secondFactor.value()?.enrolled ? { oneTimeCode: this.form.getRawValue().oneTimeCode.trim() } : {}),
         idempotencyKey: this.idempotencyKey, lockVersion: this.data.revision.lockVersion,
       });
       this.ref.close(signed);

@@ -6,7 +6,7 @@ export const CHART_MARGIN = { top: 22, right: 18, bottom: 34, left: 62 } as cons
 
 export interface PixelTick { at: number; label: string }
 export interface PixelSeries { id: string; label: string; d: string; fill: string | null; isDashed: boolean }
-export interface PixelLimit { x1: number; x2: number; y: number; label: string; labelX: number; labelAnchor: 'start' | 'end' }
+export interface PixelLimit { x1: number; x2: number; y: number; label: string; labelX: number; labelY: number; labelAnchor: 'start' | 'end' }
 
 export interface ChartLayout {
   width: number; height: number;
@@ -50,7 +50,10 @@ export function layoutChart(chart: Chart, width: number, height: number): ChartL
     const [x1, x2] = [sx(l.x1), sx(l.x2)];
     // Labels sit at the right end of the line unless the line ends near the left of the frame.
     const atRight = x2 - plot.left > 140;
-    return { x1, x2, y: sy(l.y), label: l.label, labelX: atRight ? x2 - 4 : x1 + 4, labelAnchor: atRight ? 'end' : 'start' };
+    const y = sy(l.y);
+    // Above the line, unless that would touch the frame's top edge.
+    const labelY = y - plot.top < 16 ? y + 13 : y - 5;
+    return { x1, x2, y, label: l.label, labelX: atRight ? x2 - 4 : x1 + 4, labelY, labelAnchor: atRight ? 'end' : 'start' };
   });
   return {
     width, height, plot, zeroY: zero, series, limits,

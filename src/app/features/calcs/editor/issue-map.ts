@@ -33,6 +33,7 @@ export function placeOf(path: string): string {
   const head = path.split(/[.[]/)[0];
   const words: Record<string, string> = {
     material: 'Material', fatigue: 'Fatigue', torques: 'Torques', segments: 'Segments', units: 'Units', '(input)': 'Calc input',
+    notes: 'Notes', title: 'Heading', features: 'Features', bending: 'Bending moments',
   };
   return words[head] ?? head;
 }

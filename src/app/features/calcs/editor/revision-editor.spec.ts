@@ -118,6 +118,7 @@ describe('the calc editor, live in the browser', () => {
     const field = await loader.getHarness(MatFormFieldHarness.with({ selector: '[data-field="segments[1].id"]' }));
     expect(await field.getTextErrors()).toEqual(['inner diameter 80 mm is not smaller than outer diameter 70 mm']);
     expect(await field.isControlValid()).toBe(false);
+    expect(fixture.nativeElement.textContent).toContain('Inner ⌀: inner diameter 80 mm is not smaller than outer diameter 70 mm');
     expect(fixture.nativeElement.textContent).toContain('Results below are for the last valid input');
     expect(fixture.nativeElement.textContent).not.toMatch(/NaN|Infinity/);
   });

@@ -12,6 +12,7 @@ import { moveRow } from './row-moves';
 
 const FIELDS = ['length', 'od', 'id'] as const;
 const NAMES: Record<(typeof FIELDS)[number], string> = { length: 'length', od: 'outer diameter', id: 'inner diameter' };
+const LABELS: Record<string, string> = { length: 'Length', od: 'Outer ⌀', id: 'Inner ⌀', label: 'Label' };
 
 /** The shaft's segments from left to right: an editable table with add, remove and reorder. */
 @Component({
@@ -35,12 +36,15 @@ export class SegmentsTable {
     return this.issues()[`segments[${i}].${key}`];
   }
 
-  /** Messages about the row as a whole (a per-segment material, an unknown field). */
+  /**
+   * Every message about row i, written under the row across the table: a table cell is too narrow for
+   * "inner diameter 120 mm is not smaller than outer diameter 110 mm". The field itself turns red.
+   */
   protected rowIssues(i: number): string[] {
     const prefix = `segments[${i}]`;
     return Object.entries(this.issues())
-      .filter(([p]) => p === prefix || p.startsWith(`${prefix}.material`))
-      .map(([p, m]) => `${p.slice(prefix.length + 1) || 'segment'}: ${m}`);
+      .filter(([p]) => p === prefix || p.startsWith(`${prefix}.`))
+      .map(([p, m]) => `${LABELS[p.slice(prefix.length + 1)] ?? (p.slice(prefix.length + 1) || 'Segment')}: ${m}`);
   }
 
   protected add(): void {

@@ -42,13 +42,15 @@ export class ImpactService {
   private async run(ruleSetId: number): Promise<ImpactReport> {
     const started = Date.now();
     const { record, doc } = await loadRuleSet(ruleSetId);
+    // A version of a standard governs only the calcs checked against that standard, not every approved calc.
+    const versionIds = (await RuleSetRecord.findAll({ attributes: ['id'], where: { code: record.code } })).map((r) => r.id);
     const rows: ImpactRow[] = [];
     let evaluated = 0;
     for (let lastId = 0; ;) {
       // Only the input and the compact outcome are read: full results and checklists are large.
       const batch = await Revision.findAll({
         attributes: ['id', 'calcId', 'label', 'input', 'verdict', 'outcome'],
-        where: { status: 'approved', id: { [Op.gt]: lastId } },
+        where: { status: 'approved', ruleSetId: { [Op.in]: versionIds }, id: { [Op.gt]: lastId } },
         include: [{ model: Calc, attributes: ['id', 'number', 'title'], include: [{ model: Project, attributes: ['code'] }] }], order: [['id', 'ASC']], limit: BATCH,
       });
       if (batch.length === 0) break;

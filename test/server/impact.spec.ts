@@ -1,0 +1,140 @@
+import { Op } from 'sequelize';
+import { MailOutbox } from '../../server/db/models';
+import { startTestApp, TEST_PASSWORD } from '../support/api-harness';
+import {
+  advanceTo, auditOf, createCalc, expectStatus, person, testStandard, withParameter, workflowStandardId, type Team,
+} from '../support/calc-harness';
+
+const { app, sequelize } = startTestApp();
+afterAll(() => sequelize.close());
+// Approving calcs signs people in and signs with passwords (Argon2) on a shared two-core machine.
+jest.setTimeout(90_000);
+
+interface ImpactRowView { calcId: number; revision: string; before: string; after: string; clauses: { clauseId: string; before: string; after: string }[] }
+
+/**
+ * A test standard in effect with one approved calc that passes it, one calc of it still in draft,
+ * an approved calc under another standard, and a compliance draft of the next version that
+ * lowers the allowable shear stress (0.30·Sy → 0.03·Sy) so the approved calc would fail clause 4.1.
+ */
+async function stricterDraftWithCalcs(change = (doc: Record<string, unknown>) => withParameter(doc, 'asmeSyFraction', 0.03)) {
+  const standard = await testStandard();
+  const author = await person(app, ['author']);
+  const team: Team = { author: author.session, checker: (await person(app, ['checker'])).session, approver: (await person(app, ['approver'])).session };
+  const approved = await createCalc(author.session, { ruleSetId: standard.id });
+  await advanceTo('approved', team, approved.revisionId);
+  const draftCalc = await createCalc(author.session, { ruleSetId: standard.id });
+  const otherStandard = await createCalc(author.session, { ruleSetId: await workflowStandardId() });
+  await advanceTo('approved', team, otherStandard.revisionId);
+  const drafter = await person(app, ['compliance'], 'drafter');
+  const draft = expectStatus(await drafter.session.post('/api/rule-sets', { fromId: standard.id }), 201, 'draft').body;
+  const saved = expectStatus(await drafter.session.put(`/api/rule-sets/${draft.id}`, {
+    document: { ...change(draft.document), changeSummary: 'Allowable shear lowered for a test' }, lockVersion: draft.lockVersion,
+  }), 200, 'save').body;
+  return { standard, author, team, approved, draftCalc, otherStandard, drafter, draft: saved };
+}
+
+describe('impact analysis', () => {
+  it('when a stricter draft would fail an approved calc, then that calc is listed with the clause that changes, and no other calc is', async () => {
+    // Arrange
+    const s = await stricterDraftWithCalcs();
+
+    // Act
+    const res = await s.drafter.session.get(`/api/rule-sets/${s.draft.id}/impact`);
+
+    // Assert
+    expect(res.status).toBe(200);
+    expect(res.body.ruleSet).toEqual({ id: s.draft.id, code: s.standard.code, version: 2 });
+    expect(res.body.rows).toEqual([expect.objectContaining({
+      calcId: s.approved.calcId, revisionId: s.approved.revisionId, projectCode: s.approved.project.code, revision: 'A', before: 'compliant', after: 'not-compliant',
+    })]);
+    const row = res.body.rows[0] as ImpactRowView;
+    expect(row.clauses).toEqual(expect.arrayContaining([expect.objectContaining({ clauseId: '4.1', before: 'pass', after: 'fail' })]));
+    // Only approved calcs checked against this standard are re-evaluated: not drafts, not other standards.
+    expect([res.body.evaluated, res.body.changed]).toEqual([1, 1]);
+  });
+
+  it('when the impact is exported as CSV, then it has a header row and one row per calc whose verdict changes', async () => {
+    // Arrange
+    const s = await stricterDraftWithCalcs();
+
+    // Act
+    const res = await s.drafter.session.get(`/api/rule-sets/${s.draft.id}/impact.csv`);
+
+    // Assert
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/^text\/csv/);
+    expect(res.headers['content-disposition']).toMatch(new RegExp(`attachment; filename="?impact-${s.draft.id}\\.csv"?$`));
+    // A leading "#" line carries the summary and the caution; the table starts after it.
+    const [summary, header, ...rows] = res.text.split('\r\n');
+    expect(summary).toMatch(new RegExp(`^# Impact of ${s.standard.code} v2 on approved calcs; 1 evaluated, 1 change\\.`));
+    expect(header).toBe('"project","calc","title","revision","verdict before","verdict after","clauses that change"');
+    expect(rows).toHaveLength(1);
+    expect(rows[0]).toMatch(new RegExp(`^"${s.approved.project.code}","${s.approved.calc.number}","Test head shaft","A","compliant","not-compliant",".*4\\.1 .*pass→fail`));
+  });
+
+  it('when a draft changes nothing that matters, then no calc is listed and the CSV has its header only', async () => {
+    // Arrange
+    const s = await stricterDraftWithCalcs((doc) => doc);
+
+    // Act
+    const report = await s.drafter.session.get(`/api/rule-sets/${s.draft.id}/impact`);
+    const csv = await s.drafter.session.get(`/api/rule-sets/${s.draft.id}/impact.csv`);
+
+    // Assert
+    expect([report.body.evaluated, report.body.changed, report.body.rows]).toEqual([1, 0, []]);
+    expect(csv.text.split('\r\n')).toHaveLength(2);
+  });
+
+  it.each(['author', 'checker', 'approver', 'admin'] as const)('when someone with the %s role asks for the impact, then it is refused with 403', async (role) => {
+    // Arrange
+    const standard = await testStandard();
+    const someone = await person(app, [role]);
+
+    // Act
+    const res = await someone.session.get(`/api/rule-sets/${standard.id}/impact`);
+    const csv = await someone.session.get(`/api/rule-sets/${standard.id}/impact.csv`);
+
+    // Assert
+    expect([res.status, csv.status]).toEqual([403, 403]);
+    expect(res.body.message).toBe('Impact analysis is for compliance');
+  });
+});
+
+describe('impact when a version takes effect', () => {
+  async function confirm(s: Awaited<ReturnType<typeof stricterDraftWithCalcs>>) {
+    const p = expectStatus(await s.drafter.session.post(`/api/rule-sets/${s.draft.id}/propose`, { effectiveDate: '2027-01-01', lockVersion: s.draft.lockVersion }), 200, 'propose').body;
+    const confirmer = await person(app, ['compliance'], 'confirmer');
+    expectStatus(await confirmer.session.post(`/api/rule-sets/${s.draft.id}/confirm`, { password: TEST_PASSWORD, lockVersion: p.lockVersion }), 200, 'confirm');
+    return confirmer;
+  }
+  const impactMail = (code: string) => MailOutbox.findAll({ where: { event: 'impact', subject: { [Op.like]: `${code} v2 %` } } });
+
+  it('when a confirmed version changes the verdict of an approved calc, then every compliance user gets an impact mail and it is audited', async () => {
+    // Arrange
+    const s = await stricterDraftWithCalcs();
+
+    // Act
+    const confirmer = await confirm(s);
+
+    // Assert
+    const mails = await impactMail(s.standard.code);
+    expect(mails.map((m) => m.recipient)).toEqual(expect.arrayContaining([s.drafter.email, confirmer.email]));
+    expect(mails.map((m) => m.recipient)).not.toContain(s.author.email);
+    expect(mails[0].subject).toBe(`${s.standard.code} v2 changes the verdict of 1 approved calc(s)`);
+    expect(mails[0].body).toContain(`${s.approved.project.code} ${s.approved.calc.number} rev A: compliant → not-compliant`);
+    expect((await auditOf('RuleSet', s.draft.id)).map((e) => e.action)).toEqual(expect.arrayContaining(['rule_set.effective', 'rule_set.impact_notified']));
+  });
+
+  it('when a confirmed version changes no verdict, then no impact mail is queued', async () => {
+    // Arrange
+    const s = await stricterDraftWithCalcs((doc) => doc);
+
+    // Act
+    await confirm(s);
+
+    // Assert
+    expect(await impactMail(s.standard.code)).toEqual([]);
+    expect((await auditOf('RuleSet', s.draft.id)).map((e) => e.action)).not.toContain('rule_set.impact_notified');
+  });
+});

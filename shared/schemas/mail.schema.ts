@@ -6,7 +6,7 @@ export const MAIL_EVENTS = ['submitted', 'checked', 'returned', 'approved', 'imp
 export type MailEvent = (typeof MAIL_EVENTS)[number];
 
 export const MAIL_EVENT_INFO: Record<MailEvent, { label: string; description: string; role: Role }> = {
-  submitted: { label: 'Calc ready for check', description: 'An author in one of your projects submitted a calc for independent check.', role: 'checker' },
+  submitted: { label: 'Calc ready for check', description: 'An author submitted a calc for independent check.', role: 'checker' },
   checked: { label: 'Calc ready for approval', description: 'A checker signed a calc as checked and it waits for approval.', role: 'approver' },
   returned: { label: 'Your calc was returned', description: 'A checker or approver returned your calc with findings to answer.', role: 'author' },
   approved: { label: 'Your calc was approved', description: 'An approver released your calc.', role: 'author' },

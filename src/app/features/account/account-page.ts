@@ -9,10 +9,11 @@ import { ROLE_LABELS } from '../../../../shared/authz/roles';
 import { SessionStore } from '../../core/auth/session-store';
 import { toHttpFailure } from '../../core/errors/http-failure';
 import { applyServerErrors } from '../../ui/field-errors';
+import { MailPreferences } from './mail-preferences';
 
 @Component({
   selector: 'tt-account-page',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MailPreferences],
   templateUrl: './account-page.html',
   styleUrl: './account-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -21,6 +21,8 @@ import { CalcsApi } from '../calcs-api';
 import { FindingsPanel } from './findings-panel';
 import { SignaturesPanel } from './signatures-panel';
 import { RevisionHistory } from './revision-history';
+import { AttachmentsPanel } from './attachments-panel';
+import { RecordExports } from './record-exports';
 import { planActions } from './revision-actions';
 import { SignDialog, type SignDialogData } from './sign-dialog';
 import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
@@ -28,7 +30,7 @@ import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
 @Component({
   selector: 'tt-calc-page',
   imports: [DecimalPipe, RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatCheckboxModule, MatProgressBarModule,
-    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory],
+    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports],
   templateUrl: './calc-page.html',
   styleUrl: './calc-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

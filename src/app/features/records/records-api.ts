@@ -1,0 +1,35 @@
+import { Injectable, inject, type Signal } from '@angular/core';
+import { HttpClient, httpResource } from '@angular/common/http';
+import { firstValueFrom } from 'rxjs';
+import type { Page } from '../../../../shared/schemas/common.schema';
+import type { SentMailDto } from '../../../../shared/schemas/mail.schema';
+import type { PackVerification, VerifyResult } from '../../../../shared/schemas/verify.schema';
+
+export interface SentMailParams { page: number; size: number; status: '' | SentMailDto['status'] }
+
+/** Server state of the record pages: hash look-ups, pack checks and the sent-mail outbox. */
+@Injectable({ providedIn: 'root' })
+export class RecordsApi {
+  private readonly http = inject(HttpClient);
+
+  verify(hash: Signal<string | undefined>) {
+    return httpResource<VerifyResult>(() => (hash() ? `/api/verify/${encodeURIComponent(hash()!)}` : undefined));
+  }
+
+  verifyPack(file: File): Promise<PackVerification> {
+    const form = new FormData();
+    form.append('file', file, file.name);
+    return firstValueFrom(this.http.post<PackVerification>('/api/verify/pack', form));
+  }
+
+  sentMail(params: Signal<SentMailParams>) {
+    return httpResource<Page<SentMailDto>>(() => {
+      const { status, ...rest } = params();
+      return { url: '/api/mail/sent', params: status ? { ...rest, status } : rest };
+    });
+  }
+
+  sentMailOne(id: number): Promise<SentMailDto> {
+    return firstValueFrom(this.http.get<SentMailDto>(`/api/mail/sent/${id}`));
+  }
+}

@@ -1,0 +1,51 @@
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { DatePipe } from '@angular/common';
+import { MatTableModule } from '@angular/material/table';
+import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatSelectModule } from '@angular/material/select';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import type { SentMailDto } from '../../../../shared/schemas/mail.schema';
+import { toHttpFailure } from '../../core/errors/http-failure';
+import { EmptyState } from '../../ui/empty-state';
+import { RecordsApi, type SentMailParams } from './records-api';
+
+/** Admins read the mail outbox: what was sent, to whom, and what is still retrying or gave up. */
+@Component({
+  selector: 'tt-sent-mail-page',
+  imports: [DatePipe, MatTableModule, MatPaginatorModule, MatFormFieldModule, MatSelectModule, MatIconModule, MatProgressBarModule, EmptyState],
+  templateUrl: './sent-mail-page.html',
+  styleUrl: './sent-mail-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export default class SentMailPage {
+  private readonly api = inject(RecordsApi);
+  protected readonly params = signal<SentMailParams>({ page: 0, size: 25, status: '' });
+  protected readonly mail = this.api.sentMail(this.params);
+  protected readonly rows = computed(() => this.mail.value()?.items ?? []);
+  protected readonly total = computed(() => this.mail.value()?.total ?? 0);
+  protected readonly error = computed(() => (this.mail.error() ? toHttpFailure(this.mail.error()).message : null));
+  protected readonly opened = signal<SentMailDto | null>(null);
+  protected readonly openError = signal<string | null>(null);
+  protected readonly columns = ['id', 'createdAt', 'event', 'recipient', 'subject', 'status'];
+  protected readonly statuses = [{ value: '', label: 'Any status' }, { value: 'sent', label: 'Sent' }, { value: 'pending', label: 'Waiting or retrying' }, { value: 'failed', label: 'Gave up' }] as const;
+
+  protected filterStatus(status: SentMailParams['status']): void {
+    this.params.update((p) => ({ ...p, status, page: 0 }));
+  }
+
+  protected changePage(event: PageEvent): void {
+    this.params.update((p) => ({ ...p, page: event.pageIndex, size: event.pageSize }));
+  }
+
+  protected async open(row: SentMailDto): Promise<void> {
+    if (this.opened()?.id === row.id) return this.opened.set(null);
+    this.openError.set(null);
+    try {
+      this.opened.set(await this.api.sentMailOne(row.id));
+    } catch (error) {
+      this.openError.set(toHttpFailure(error).message);
+    }
+  }
+}

@@ -4,7 +4,7 @@ import { enqueueMail, emailOf, emailsOfRole } from '../mail/outbox';
 export interface HandOverFacts {
   event: 'submitted' | 'checked' | 'returned' | 'approved';
   calcId: number; calcNumber: string; calcTitle: string; projectCode: string; revision: string;
-  actorName: string; authorId: number; editorIds: number[]; reason?: string; baseUrl: string;
+  actorName: string; authorId: number; checkerId: number | null; editorIds: number[]; reason?: string; baseUrl: string;
 }
 
 const CAUTION = 'Torquetrail supports, and never replaces, the judgement of a qualified engineer; local codes and licensed practice govern.';
@@ -21,7 +21,8 @@ export async function queueHandOverMail(f: HandOverFacts, transaction: Transacti
         event: f.event, subject: `Ready for check: ${what}`, body: lines(`${f.actorName} submitted a calc for independent check.`, 'Open it to check:'),
       }, transaction);
     case 'checked':
-      return enqueueMail(await emailsOfRole('approver', f.editorIds, transaction), {
+      // The checker may hold the approver role too, but never approves what they checked.
+      return enqueueMail(await emailsOfRole('approver', [...f.editorIds, ...(f.checkerId ? [f.checkerId] : [])], transaction), {
         event: f.event, subject: `Ready for approval: ${what}`, body: lines(`${f.actorName} signed a calc as checked.`, 'Open it to review and approve:'),
       }, transaction);
     case 'returned':

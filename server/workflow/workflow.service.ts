@@ -106,7 +106,7 @@ export class WorkflowService {
     const calc = await Calc.findByPk(revision.calcId, { include: [Project], transaction }) as Calc & { Project: Project };
     await queueHandOverMail({
       event, calcId: calc.id, calcNumber: calc.number, calcTitle: calc.title, projectCode: calc.Project.code, revision: revision.label,
-      actorName: actor.name, authorId: revision.authorId, editorIds: await editorIdsOf(calc.id, transaction), reason, baseUrl: this.baseUrl,
+      actorName: actor.name, authorId: revision.authorId, checkerId: revision.checkerId, editorIds: await editorIdsOf(calc.id, transaction), reason, baseUrl: this.baseUrl,
     }, transaction);
   }
 }

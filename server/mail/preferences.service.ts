@@ -27,19 +27,20 @@ export async function savePreferences(
 }
 
 /**
- * Drops addresses whose owners opted out of this event. An address is kept when no active
- * person has it (an outside address) or when at least one of its owners still wants the mail.
+ * Drops addresses whose owners opted out of this event. Opt-outs are few, so they are read first
+ * and the common case costs one small query. An address shared with someone who still wants the
+ * mail is kept, and an outside address (no account) always is.
  */
 export async function withoutOptedOut(recipients: string[], event: string, transaction?: Transaction): Promise<string[]> {
   if (recipients.length === 0) return recipients;
-  const owners = await User.findAll({ where: { email: { [Op.in]: recipients }, active: true }, attributes: ['id', 'email'], transaction });
-  if (owners.length === 0) return recipients;
-  const optedOut = await MailPreference.findAll({
-    where: { event, enabled: false, userId: { [Op.in]: owners.map((u) => u.id) } }, attributes: ['userId'], transaction,
+  const optedOut = (await MailPreference.findAll({ where: { event, enabled: false }, attributes: ['userId'], transaction })).map((p) => p.userId);
+  if (optedOut.length === 0) return recipients;
+  const silent = await User.findAll({ where: { id: { [Op.in]: optedOut }, email: { [Op.in]: recipients } }, attributes: ['email'], transaction });
+  if (silent.length === 0) return recipients;
+  const silentEmails = [...new Set(silent.map((u) => u.email))];
+  const stillWanted = await User.findAll({
+    where: { email: { [Op.in]: silentEmails }, active: true, id: { [Op.notIn]: optedOut } }, attributes: ['email'], transaction,
   });
-  const silent = new Set(optedOut.map((p) => p.userId));
-  return recipients.filter((address) => {
-    const ids = owners.filter((u) => u.email === address).map((u) => u.id);
-    return ids.length === 0 || ids.some((id) => !silent.has(id));
-  });
+  const keep = new Set(stillWanted.map((u) => u.email));
+  return recipients.filter((address) => !silentEmails.includes(address) || keep.has(address));
 }

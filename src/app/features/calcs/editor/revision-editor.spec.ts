@@ -173,4 +173,15 @@ describe('saving and keeping work', () => {
     await settle();
     expect(await (await segmentField('segments[1].od')).getValue()).toBe('72');
   });
+
+  it('when the author leaves with unsaved changes, then the guard asks first; with none it lets them go', async () => {
+    await open();
+    expect(await fixture.componentInstance.confirmLeave()).toBe(true);
+    await (await segmentField('segments[0].label')).setValue('drive end');
+    const leaving = fixture.componentInstance.confirmLeave();
+    const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
+    expect(await dialog.getTitleText()).toBe('Leave without saving?');
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Stay and save' }))).click();
+    expect(await leaving).toBe(false);
+  });
 });

@@ -1,5 +1,5 @@
 import { startTestApp } from '../support/api-harness';
-import { auditOf, createCalc, person, revisionOf, type Session } from '../support/calc-harness';
+import { advanceTo, auditOf, createCalc, person, revisionOf, sign, tickAll, type Session } from '../support/calc-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
@@ -67,6 +67,27 @@ describe('many writers', () => {
     expect(saved).toHaveLength(N);
     expect(saved.map((e) => e.payload.lockVersion)).toEqual(outcomes.map((o) => o.lockVersion).sort((a, b) => a - b));
     for (const e of saved) expect(e.diff).toMatch(/^\+\s+"title": ".*\[w\d\]",?$/m);
+  });
+});
+
+describe('two signatures at once', () => {
+  it('when two independent checkers sign the same revision at once, then exactly one signature is recorded and the other is refused', async () => {
+    // Arrange
+    const author = await person(app, ['author']);
+    const [first, second] = [await person(app, ['checker']), await person(app, ['checker'])];
+    const { revisionId } = await createCalc(author.session);
+    await advanceTo('in_check', { author: author.session, checker: first.session, approver: first.session }, revisionId);
+    await tickAll(first.session, revisionId);
+
+    // Act
+    const results = await Promise.all([sign(first.session, revisionId, 'checked'), sign(second.session, revisionId, 'checked')]);
+
+    // Assert
+    expect(results.map((r) => r.status).sort()).toEqual([200, 403]);
+    expect(results.find((r) => r.status === 403)!.body.message).toMatch(/A checked revision cannot be signed as checked/);
+    const stored = await revisionOf(author.session, revisionId);
+    expect(stored.signatures.filter((s: { meaning: string }) => s.meaning === 'checked')).toHaveLength(1);
+    expect((await auditOf('Revision', revisionId)).filter((e) => e.action === 'revision.signed_checked')).toHaveLength(1);
   });
 });
 

@@ -161,3 +161,24 @@ export function withParameter(doc: Record<string, unknown>, name: string, value:
 }
 
 export type { Person };
+
+/** Saves a rule-set draft as a compliance user would. */
+export const saveStandard = (s: Session, id: number, document: Record<string, unknown>, lockVersion: number) =>
+  s.put(`/api/rule-sets/${id}`, { document, lockVersion });
+
+/** A test-only standard in effect (v1) and a compliance user's fresh draft of v2 from it. */
+export async function draftStandard(app: Express) {
+  const standard = await testStandard();
+  const drafter = await person(app, ['compliance'], 'drafter');
+  const draft = expectStatus(await drafter.session.post('/api/rule-sets', { fromId: standard.id }), 201, 'draft').body;
+  return { standard, drafter, draft };
+}
+
+/** That draft saved with a tighter twist limit and a change summary, proposed by its drafter: ready for a second person. */
+export async function proposeStandard(app: Express) {
+  const d = await draftStandard(app);
+  const document = { ...withParameter(d.draft.document, 'maxTwistPerDiameter', 0.04), changeSummary: 'Twist limit tightened to 0.04° per diameter' };
+  const saved = expectStatus(await saveStandard(d.drafter.session, d.draft.id, document, d.draft.lockVersion), 200, 'save').body;
+  const proposal = expectStatus(await d.drafter.session.post(`/api/rule-sets/${d.draft.id}/propose`, { effectiveDate: '2027-01-01', lockVersion: saved.lockVersion }), 200, 'propose').body;
+  return { ...d, proposal };
+}

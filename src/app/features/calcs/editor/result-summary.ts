@@ -44,7 +44,7 @@ export class ResultSummary {
     ];
     if (r.minFatigueSafety) {
       const e = r.minFatigueSafety[this.criterion()];
-      out.push({ label: `Lowest fatigue safety (${this.criterionName()})`, value: fmt(e?.value, 3), unit: '', where: this.where(e) });
+      out.push({ label: 'Lowest fatigue safety', value: fmt(e?.value, 3), unit: '', where: `${this.criterionName()}, ${this.where(e)}` });
     }
     return out;
   });

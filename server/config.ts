@@ -49,7 +49,7 @@ const envSchema = z.object({
   S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
   S3_FORCE_PATH_STYLE: z.stringbool().default(true),
   ATTACHMENT_MAX_MB: z.coerce.number().positive().max(500).default(20),
-  EVIDENCE_PACK_MAX_MB: z.coerce.number().positive().max(2000).default(200),
+  EVIDENCE_PACK_MAX_MB: z.coerce.number().positive().max(2000).default(100),
   REPORT_FONT_DIR: z.string().default('/usr/share/fonts/truetype/dejavu'),
 });
 

@@ -8,8 +8,7 @@ export function reportRouter(reports: ReportService, organisation: string, baseU
   const router = Router();
   router.get('/:id/report.pdf', validate({ params: idParamsSchema }), async (req, res) => {
     const { fileName, bytes } = await reports.pdf(req.ability, Number(req.params.id), { organisation, baseUrl, generatedBy: req.user!.displayName });
-    const disposition = req.query['inline'] === '1' ? 'inline' : 'attachment';
-    res.type('application/pdf').set({ 'Content-Disposition': `${disposition}; filename="${fileName}"`, 'Cache-Control': 'private, no-store' }).send(bytes);
+    res.type('application/pdf').attachment(fileName).set({ 'Cache-Control': 'private, no-store' }).send(bytes);
   });
   return router;
 }

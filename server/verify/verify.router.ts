@@ -11,7 +11,8 @@ import { auditOnRecord, recordOnRecord, sealCheck } from './pack-online';
 
 /** Checks an uploaded evidence pack: on its own first, then against this server's records. */
 async function verifyPack(zip: Buffer, maxBytes: number): Promise<PackVerification> {
-  const files = readZip(zip, maxBytes * 4);
+  // Packs hold PDFs and scans that barely compress; twice the upload limit is ample room to unpack.
+  const files = readZip(zip, maxBytes * 2);
   const { manifest, sealHash, checks } = verifyPackFiles(files);
   if (manifest && sealHash) {
     checks.push(await sealCheck(sealHash));

@@ -22,6 +22,8 @@ module.exports = {
       preset: 'jest-preset-angular',
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
       setupFilesAfterEnv: ['<rootDir>/test/support/client-setup.ts'],
+      // Under jsdom, json-rules-engine's jsonpath-plus resolves to its ESM browser build, which jest cannot load.
+      moduleNameMapper: { '^jsonpath-plus$': '<rootDir>/node_modules/jsonpath-plus/dist/index-browser-umd.cjs' },
       testMatch: ['<rootDir>/src/**/*.spec.ts'],
       transform: {
         '^.+\\.(ts|js|mjs|html|svg)$': ['jest-preset-angular', { tsconfig: '<rootDir>/tsconfig.spec.json', stringifyContentPathRegex: '\\.(html|svg)$' }],

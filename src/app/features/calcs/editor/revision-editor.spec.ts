@@ -18,10 +18,6 @@ import ruleSetDocument from '../../../../../rules/kfd-eng-014-v3.json';
 import RevisionEditor from './revision-editor';
 import { EDITOR_DEBOUNCE_MS } from './editor-support';
 
-// Under jsdom, jest resolves json-rules-engine's jsonpath-plus to its ESM browser build, which it cannot
-// load; its UMD build is the same code as CommonJS. (A moduleNameMapper in jest.config.js would be better.)
-jest.mock('jsonpath-plus', () => jest.requireActual('../../../../../node_modules/jsonpath-plus/dist/index-browser-umd.cjs'));
-
 // An invented two-step head shaft with a keyseat: small enough to read, complete enough to evaluate.
 const INPUT = {
   units: 'SI', material: { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, Sy: 530, Su: 630, nu: 0.292 },

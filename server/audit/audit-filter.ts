@@ -15,7 +15,8 @@ const revisionsOfProject = (projectId: number) =>
 export function auditWhere(q: AuditQuery): WhereOptions<AuditEvent> {
   const parts: WhereOptions<AuditEvent>[] = [];
   if (q.entityType) parts.push({ entityType: q.entityType });
-  if (q.action) parts.push({ action: { [Op.like]: `${q.action.replace(/[%_]/g, '')}%` } });
+  // A prefix match: LIKE wildcards in the text itself are escaped, so "auth.signed_in" means exactly that.
+  if (q.action) parts.push({ action: { [Op.like]: `${q.action.replace(/[\\%_]/g, '\\$&')}%` } });
   if (q.userId) parts.push({ actorId: q.userId });
   if (q.from) parts.push({ occurredAt: { [Op.gte]: new Date(`${q.from}T00:00:00Z`) } });
   if (q.to) parts.push({ occurredAt: { [Op.lt]: new Date(new Date(`${q.to}T00:00:00Z`).getTime() + 86_400_000) } });

@@ -95,8 +95,10 @@ export class ImpactService {
     const header = ['project', 'calc', 'title', 'revision', 'verdict before', 'verdict after', 'clauses that change'];
     const lines = report.rows.map((r) => [r.projectCode, r.number, r.title, r.revision, r.before, r.after,
       r.clauses.map((c) => `${c.clauseId} ${c.location}: ${c.before}→${c.after}`).join('; ')].map(quote).join(','));
-    return [`# Impact of ${report.ruleSet.code} v${report.ruleSet.version} on approved calcs; ${report.evaluated} evaluated, ${report.changed} change. Supports, never replaces, engineering judgement.`,
-      header.map(quote).join(','), ...lines].join('\r\n');
+    // Header first so spreadsheet tools read the columns; the summary and the caution close the file.
+    const summary = `${report.evaluated} approved revisions re-evaluated under ${report.ruleSet.code} v${report.ruleSet.version}; ${report.changed} change verdict`;
+    const caution = 'Results support, never replace, the judgement of a qualified engineer; local codes and licensed practice govern.';
+    return [header.map(quote).join(','), ...lines, '', quote(summary), quote(caution)].join('\r\n');
   }
 
   async diff(ability: AppAbility, fromId: number, toId: number) {

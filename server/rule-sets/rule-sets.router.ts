@@ -35,7 +35,8 @@ export function ruleSetsRouter(ruleSets: RuleSetsService, impact: ImpactService)
   });
   router.post('/:id/confirm', validate({ params: idParamsSchema, body: confirmSchema }), async (req, res) => {
     const confirmed = await ruleSets.confirm(req.ability, signedInActor(req), id(req.params), req.body.password, req.body.lockVersion);
-    await impact.notifyIfAffected(signedInActor(req), confirmed.id);
+    // Calcs are told about a version once it is in force; a version confirmed for a later date waits.
+    if (confirmed.status === 'effective') await impact.notifyIfAffected(signedInActor(req), confirmed.id);
     res.json(confirmed);
   });
   router.post('/:id/try', validate({ params: idParamsSchema, body: tryItSchema }), async (req, res) => {

@@ -21,6 +21,7 @@ export class RuleSetsService {
 
   async list(ability: AppAbility): Promise<RuleSetSummary[]> {
     ForbiddenError.from(ability).throwUnlessCan('read', 'RuleSet');
+    await this.promoteDue();
     const rows = await RuleSetRecord.findAll({ order: [['code', 'ASC'], ['version', 'DESC']] });
     const names = await namesOf(rows.flatMap((r) => [r.proposedBy, r.confirmedBy]));
     return rows.map((r) => toRuleSetSummary(r, names));
@@ -84,6 +85,7 @@ export class RuleSetsService {
   async confirm(ability: AppAbility, actor: Person, id: number, password: string, lockVersion: number): Promise<RuleSetDto> {
     const user = await User.scope('withPassword').findByPk(actor.id);
     if (!user || !(await verifyPassword(user.passwordHash, password))) {
+      await appendAudit(this.sequelize, actor, { action: 'rule_set.confirmation_refused', entityType: 'RuleSet', entityId: id, payload: { reason: 'wrong password' } });
       throw new AppError('validation', 400, 'Password is not correct; nothing was confirmed', { fieldErrors: { password: ['is not correct'] } });
     }
     await this.sequelize.transaction(async (transaction) => {
@@ -92,22 +94,43 @@ export class RuleSetsService {
       if (record.lockVersion !== lockVersion) throw AppError.conflict('The draft changed since you opened it; review it again');
       if (!record.proposedBy) throw AppError.conflict('Propose the version with an effective date first');
       if (record.proposedBy === actor.id) throw new AppError('forbidden', 403, 'A second compliance user must confirm; you proposed this version');
-      const previous = await RuleSetRecord.findAll({ where: { code: record.code, status: 'effective', id: { [Op.ne]: id } }, transaction, lock: transaction.LOCK.UPDATE });
-      for (const p of previous) await p.update({ status: 'retired' }, { transaction });
-      const doc = { ...JSON.parse(record.document), status: 'effective', effectiveDate: record.effectiveDate };
-      record.set({ status: 'effective', confirmedBy: actor.id, document: JSON.stringify(doc), contentHash: documentHash(doc) });
+      record.confirmedBy = actor.id;
       await record.save({ transaction });
-      await appendAudit(this.sequelize, actor, {
-        action: 'rule_set.effective', entityType: 'RuleSet', entityId: id,
-        payload: { code: record.code, version: record.version, effectiveDate: record.effectiveDate, retired: previous.map((p) => p.version) },
-      }, transaction);
+      await appendAudit(this.sequelize, actor, { action: 'rule_set.confirmed', entityType: 'RuleSet', entityId: id, payload: { code: record.code, version: record.version, effectiveDate: record.effectiveDate } }, transaction);
+      // A version confirmed for a later date waits, confirmed but not yet in force, until that day.
+      if (record.effectiveDate! <= todayUtc()) await this.makeEffective(record, actor, transaction);
     });
     return this.get(ability, id);
   }
 
+  /** Puts confirmed versions whose effective date has come into force; cheap, and idempotent. */
+  async promoteDue(): Promise<void> {
+    const due = await RuleSetRecord.findAll({ where: { status: 'draft', confirmedBy: { [Op.ne]: null }, effectiveDate: { [Op.lte]: todayUtc() } } });
+    for (const record of due) {
+      await this.sequelize.transaction(async (transaction) => {
+        const fresh = await this.load(record.id, transaction, true);
+        if (fresh.status === 'draft') await this.makeEffective(fresh, { id: null, name: 'effective-date clock', ip: null }, transaction);
+      });
+    }
+  }
+
+  private async makeEffective(record: RuleSetRecord, actor: Actor, transaction: Transaction): Promise<void> {
+    const previous = await RuleSetRecord.findAll({ where: { code: record.code, status: 'effective', id: { [Op.ne]: record.id } }, transaction, lock: transaction.LOCK.UPDATE });
+    for (const p of previous) await p.update({ status: 'retired' }, { transaction });
+    const doc = { ...JSON.parse(record.document), status: 'effective', effectiveDate: record.effectiveDate };
+    record.set({ status: 'effective', document: JSON.stringify(doc), contentHash: documentHash(doc) });
+    await record.save({ transaction });
+    await appendAudit(this.sequelize, actor, {
+      action: 'rule_set.effective', entityType: 'RuleSet', entityId: record.id,
+      payload: { code: record.code, version: record.version, effectiveDate: record.effectiveDate, retired: previous.map((p) => p.version) },
+    }, transaction);
+  }
+
   private assertDraft(ability: AppAbility, record: RuleSetRecord, action: 'update' | 'publish'): void {
+    // Who may act comes first (403); only then whether the version can still change (409).
+    ForbiddenError.from(ability).setMessage('Only compliance edits and publishes design standards').throwUnlessCan(action, subject('RuleSet', { status: 'draft' }));
     if (record.status !== 'draft') throw new AppError('read_only', 409, `${record.code} v${record.version} is ${record.status}; it never changes again`);
-    ForbiddenError.from(ability).setMessage('Only compliance edits and publishes design standards').throwUnlessCan(action, subject('RuleSet', { status: record.status }));
+    if (record.confirmedBy) throw new AppError('read_only', 409, `${record.code} v${record.version} is confirmed and waits for ${record.effectiveDate}; it no longer changes`);
   }
 
   private async load(id: number, transaction?: Transaction, lock = false): Promise<RuleSetRecord> {
@@ -115,6 +138,10 @@ export class RuleSetsService {
     if (!record) throw AppError.notFound(`Design standard version ${id}`);
     return record;
   }
+}
+
+function todayUtc(): string {
+  return new Date().toISOString().slice(0, 10);
 }
 
 async function namesOf(ids: (number | null)[]): Promise<Map<number, string>> {

@@ -65,10 +65,13 @@ describe('impact analysis', () => {
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     expect(res.headers['content-disposition']).toMatch(new RegExp(`attachment; filename="?impact-${s.draft.id}\\.csv"?$`));
-    // A leading "#" line carries the summary and the caution; the table starts after it.
-    const [summary, header, ...rows] = res.text.split('\r\n');
-    expect(summary).toMatch(new RegExp(`^# Impact of ${s.standard.code} v2 on approved calcs; 1 evaluated, 1 change\\.`));
+    // The header comes first; after a blank line, the summary and the caution close the file.
+    const [header, ...rest] = res.text.split('\r\n');
+    const rows = rest.slice(0, rest.indexOf(''));
+    const [summary, caution] = rest.slice(rest.indexOf('') + 1);
     expect(header).toBe('"project","calc","title","revision","verdict before","verdict after","clauses that change"');
+    expect(summary).toBe(`"1 approved revisions re-evaluated under ${s.standard.code} v2; 1 change verdict"`);
+    expect(caution).toMatch(/never replace, the judgement of a qualified engineer/);
     expect(rows).toHaveLength(1);
     expect(rows[0]).toMatch(new RegExp(`^"${s.approved.project.code}","${s.approved.calc.number}","Test head shaft","A","compliant","not-compliant",".*4\\.1 .*pass→fail`));
   });
@@ -83,7 +86,8 @@ describe('impact analysis', () => {
 
     // Assert
     expect([report.body.evaluated, report.body.changed, report.body.rows]).toEqual([1, 0, []]);
-    expect(csv.text.split('\r\n')).toHaveLength(2);
+    // Header, a blank separator, then the summary and the caution: no data rows.
+    expect(csv.text.split('\r\n')).toHaveLength(4);
   });
 
   it.each(['author', 'checker', 'approver', 'admin'] as const)('when someone with the %s role asks for the impact, then it is refused with 403', async (role) => {
@@ -103,7 +107,7 @@ describe('impact analysis', () => {
 
 describe('impact when a version takes effect', () => {
   async function confirm(s: Awaited<ReturnType<typeof stricterDraftWithCalcs>>) {
-    const p = expectStatus(await s.drafter.session.post(`/api/rule-sets/${s.draft.id}/propose`, { effectiveDate: '2027-01-01', lockVersion: s.draft.lockVersion }), 200, 'propose').body;
+    const p = expectStatus(await s.drafter.session.post(`/api/rule-sets/${s.draft.id}/propose`, { effectiveDate: '2026-11-01', lockVersion: s.draft.lockVersion }), 200, 'propose').body;
     const confirmer = await person(app, ['compliance'], 'confirmer');
     expectStatus(await confirmer.session.post(`/api/rule-sets/${s.draft.id}/confirm`, { password: TEST_PASSWORD, lockVersion: p.lockVersion }), 200, 'confirm');
     return confirmer;

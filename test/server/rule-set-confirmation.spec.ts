@@ -13,7 +13,7 @@ describe('proposing and confirming', () => {
   it.each([
     ['no effective date', {}, 'effectiveDate'],
     ['a date that is not a date', { effectiveDate: '2027-13-45' }, 'effectiveDate'],
-    ['no lockVersion', { effectiveDate: '2027-01-01' }, 'lockVersion'],
+    ['no lockVersion', { effectiveDate: '2026-11-01' }, 'lockVersion'],
   ])('when a draft is proposed with %s, then it is 400 naming the field', async (_what, body, field) => {
     // Arrange
     const { drafter, draft } = await draftStandard(app);
@@ -91,12 +91,12 @@ describe('proposing and confirming', () => {
     // Assert
     expect(res.status).toBe(200);
     expect(res.body).toEqual(expect.objectContaining({
-      status: 'effective', effectiveDate: '2027-01-01', proposedBy: drafter.displayName, confirmedBy: confirmer.displayName,
+      status: 'effective', effectiveDate: '2026-11-01', proposedBy: drafter.displayName, confirmedBy: confirmer.displayName,
     }));
-    expect(res.body.document).toEqual(expect.objectContaining({ status: 'effective', effectiveDate: '2027-01-01' }));
+    expect(res.body.document).toEqual(expect.objectContaining({ status: 'effective', effectiveDate: '2026-11-01' }));
     expect((await confirmer.session.get(`/api/rule-sets/${standard.id}`)).body.status).toBe('retired');
     expect((await auditOf('RuleSet', draft.id)).map((e) => [e.action, e.actorId])).toEqual([
-      ['rule_set.drafted', drafter.user.id], ['rule_set.saved', drafter.user.id], ['rule_set.proposed', drafter.user.id], ['rule_set.effective', confirmer.user.id],
+      ['rule_set.drafted', drafter.user.id], ['rule_set.saved', drafter.user.id], ['rule_set.proposed', drafter.user.id], ['rule_set.confirmed', confirmer.user.id], ['rule_set.effective', confirmer.user.id],
     ]);
     expect((await auditOf('RuleSet', draft.id)).at(-1)!.payload).toEqual(expect.objectContaining({ retired: [1] }));
   });
@@ -107,7 +107,7 @@ describe('proposing and confirming', () => {
     const author = await person(app, ['author']);
 
     // Act
-    const propose = await author.session.post(`/api/rule-sets/${draft.id}/propose`, { effectiveDate: '2027-01-01', lockVersion: proposal.lockVersion });
+    const propose = await author.session.post(`/api/rule-sets/${draft.id}/propose`, { effectiveDate: '2026-11-01', lockVersion: proposal.lockVersion });
     const confirm = await author.session.post(`/api/rule-sets/${draft.id}/confirm`, { password: TEST_PASSWORD, lockVersion: proposal.lockVersion });
 
     // Assert

@@ -35,10 +35,11 @@ let second: string;
 beforeAll(async () => {
   [first, second] = await Promise.all([startServer(), startServer()]);
 }, STARTUP_MS);
+// A loaded machine can take a few seconds to stop two processes; the default 5 s hook limit is too tight.
 afterAll(async () => {
   await Promise.all(children.map(stop));
   await sequelize.close();
-});
+}, STARTUP_MS);
 
 describe('sessions across server processes', () => {
   it('when someone signs in on one process, then the other process knows them and accepts their writes', async () => {

@@ -179,6 +179,6 @@ export async function proposeStandard(app: Express) {
   const d = await draftStandard(app);
   const document = { ...withParameter(d.draft.document, 'maxTwistPerDiameter', 0.04), changeSummary: 'Twist limit tightened to 0.04° per diameter' };
   const saved = expectStatus(await saveStandard(d.drafter.session, d.draft.id, document, d.draft.lockVersion), 200, 'save').body;
-  const proposal = expectStatus(await d.drafter.session.post(`/api/rule-sets/${d.draft.id}/propose`, { effectiveDate: '2027-01-01', lockVersion: saved.lockVersion }), 200, 'propose').body;
+  const proposal = expectStatus(await d.drafter.session.post(`/api/rule-sets/${d.draft.id}/propose`, { effectiveDate: '2026-11-01', lockVersion: saved.lockVersion }), 200, 'propose').body;
   return { ...d, proposal };
 }

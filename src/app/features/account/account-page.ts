@@ -9,11 +9,12 @@ import { ROLE_LABELS } from '../../../../shared/authz/roles';
 import { SessionStore } from '../../core/auth/session-store';
 import { toHttpFailure } from '../../core/errors/http-failure';
 import { applyServerErrors } from '../../ui/field-errors';
+import { SecondFactorPanel } from './second-factor-panel';
 import { MailPreferences } from './mail-preferences';
 
 @Component({
   selector: 'tt-account-page',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MailPreferences],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MailPreferences, SecondFactorPanel],
   templateUrl: './account-page.html',
   styleUrl: './account-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

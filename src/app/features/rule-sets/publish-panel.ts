@@ -25,7 +25,8 @@ import { RuleSetsApi } from './rule-sets-api';
       </li>
       <li>
         <h3>2. Confirm (a second compliance user)</h3>
-        @if (!version().proposedBy) { <p class="tt-muted">Waits for a proposal.</p> }
+        @if (version().confirmedBy) { <p>Confirmed by {{ version().confirmedBy }}; it comes into force on {{ version().effectiveDate }} and no longer changes.</p> }
+        @else if (!version().proposedBy) { <p class="tt-muted">Waits for a proposal.</p> }
         @else if (isProposer()) { <p class="tt-muted">You proposed this version, so someone else in compliance must confirm it.</p> }
         @else {
           <p>Confirming makes v{{ version().version }} effective and retires the version in force. Approved calcs it affects are reported to compliance by e-mail.</p>

@@ -37,7 +37,11 @@ export default class RuleSetView {
   readonly id = input.required({ transform: numberAttribute });
   protected readonly version = this.api.one(this.id);
   protected readonly doc = computed(() => this.version.value()?.document as RuleSet | undefined);
-  protected readonly canEdit = computed(() => this.version.value()?.status === 'draft' && this.ability.can('update', subject('RuleSet', { status: 'draft' })));
+  protected readonly canEdit = computed(() => {
+    const v = this.version.value();
+    return v?.status === 'draft' && !v.confirmedBy && this.ability.can('update', subject('RuleSet', { status: 'draft' }));
+  });
+  protected readonly canPublish = computed(() => this.version.value()?.status === 'draft' && this.ability.can('publish', 'RuleSet'));
   protected readonly canImpact = computed(() => this.ability.can('impact', 'RuleSet'));
   protected readonly form = signal<RuleSetForm | null>(null);
   protected readonly jsonText = signal('');

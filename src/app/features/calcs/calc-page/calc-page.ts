@@ -21,6 +21,7 @@ import { CalcsApi } from '../calcs-api';
 import { FindingsPanel } from './findings-panel';
 import { SignaturesPanel } from './signatures-panel';
 import { RevisionHistory } from './revision-history';
+import { MinimumDiameters } from './minimum-diameters';
 import { AttachmentsPanel } from './attachments-panel';
 import { RecordExports } from './record-exports';
 import { planActions } from './revision-actions';
@@ -30,7 +31,7 @@ import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
 @Component({
   selector: 'tt-calc-page',
   imports: [DecimalPipe, RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatCheckboxModule, MatProgressBarModule,
-    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports],
+    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports, MinimumDiameters],
   templateUrl: './calc-page.html',
   styleUrl: './calc-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

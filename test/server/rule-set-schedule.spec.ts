@@ -1,0 +1,42 @@
+import { startTestApp, TEST_PASSWORD } from '../support/api-harness';
+import { RuleSetRecord } from '../../server/db/models';
+import { RuleSetsService } from '../../server/rule-sets/rule-sets.service';
+import { person, testStandard } from '../support/calc-harness';
+
+const { app, sequelize } = startTestApp();
+afterAll(() => sequelize.close());
+
+async function proposeAndConfirm(effectiveDate: string) {
+  const standard = await testStandard();
+  const drafter = await person(app, ['compliance']);
+  const confirmer = await person(app, ['compliance']);
+  const draft = (await drafter.session.post('/api/rule-sets', { fromId: standard.id })).body;
+  const doc = { ...draft.document, changeSummary: 'Scheduling test: no technical change' };
+  const saved = (await drafter.session.put(`/api/rule-sets/${draft.id}`, { document: doc, lockVersion: draft.lockVersion })).body;
+  const proposed = (await drafter.session.post(`/api/rule-sets/${draft.id}/propose`, { effectiveDate, lockVersion: saved.lockVersion })).body;
+  const confirmed = await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, { password: TEST_PASSWORD, lockVersion: proposed.lockVersion });
+  return { standard, drafter, confirmed };
+}
+
+describe('design standards come into force on their effective date', () => {
+  it('when a version is confirmed for a later date, then it waits, frozen, and the version in force stays in force', async () => {
+    const { standard, drafter, confirmed } = await proposeAndConfirm('2999-01-01');
+
+    expect(confirmed.status).toBe(200);
+    expect(confirmed.body.status).toBe('draft');
+    expect(confirmed.body.confirmedBy).not.toBeNull();
+    expect((await RuleSetRecord.findByPk(standard.id))!.status).toBe('effective');
+    const edit = await drafter.session.put(`/api/rule-sets/${confirmed.body.id}`, { document: confirmed.body.document, lockVersion: confirmed.body.lockVersion });
+    expect(edit.status).toBe(409);
+  });
+
+  it('when its date has come, then it is put in force and the older version retired', async () => {
+    const { standard, confirmed } = await proposeAndConfirm('2999-01-01');
+    await RuleSetRecord.update({ effectiveDate: '2020-01-01' }, { where: { id: confirmed.body.id } });
+
+    await new RuleSetsService(sequelize).promoteDue();
+
+    expect((await RuleSetRecord.findByPk(confirmed.body.id))!.status).toBe('effective');
+    expect((await RuleSetRecord.findByPk(standard.id))!.status).toBe('retired');
+  });
+});

@@ -20,7 +20,14 @@ export class ChecklistTable {
   protected readonly rows = computed(() =>
     this.checklist().rows.filter((r) => this.showNotApplicable() || r.status !== 'not-applicable'));
   protected readonly hidden = computed(() => this.checklist().rows.length - this.rows().length);
-  protected readonly columns = ['clause', 'location', 'status', 'actual', 'limit', 'use', 'severity'];
+  // Severity shows as a tag beside advisory clauses; mandatory is the norm and needs no column.
+  protected readonly columns = ['clause', 'location', 'status', 'actual', 'limit', 'use'];
+
+  /** Rows come grouped by clause; the clause's name is printed once, on its first row. */
+  protected isFirstOfClause(index: number): boolean {
+    const rows = this.rows();
+    return index === 0 || rows[index - 1].clauseId !== rows[index].clauseId;
+  }
 
   protected statusLabel(row: ChecklistRow): string {
     return STATUS_TEXT[row.status];

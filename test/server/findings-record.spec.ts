@@ -1,5 +1,6 @@
 import { startTestApp } from '../support/api-harness';
-import { advanceTo, auditOf, createCalc, expectStatus, person, revisionOf, sign, tickAll, type Team } from '../support/calc-harness';
+import { advanceTo, auditOf, expectStatus, revisionOf, sign, tickAll } from '../support/calc-harness';
+import { returnedWithFindingOf } from '../support/findings-harness';
 
 // Findings once a calc moves on: approval waits for every finding to be closed, and findings with
 // their answers stay on the approved record. Raising, answering and closing are findings.spec.ts.
@@ -8,26 +9,7 @@ afterAll(() => sequelize.close());
 // Each step signs in or signs with a password (Argon2) on a shared two-core machine: allow whole workflows.
 jest.setTimeout(60_000);
 
-async function team() {
-  const author = await person(app, ['author']);
-  const checker = await person(app, ['checker']);
-  const approver = await person(app, ['approver']);
-  const { revisionId } = await createCalc(author.session);
-  const sessions: Team = { author: author.session, checker: checker.session, approver: approver.session };
-  return { author, checker, approver, revisionId, sessions };
-}
-
-const lockVersionOf = async (t: Team, id: number) => (await revisionOf(t.author, id)).lockVersion as number;
-
-/** In check, returned by the checker with a reason: one open finding waits for the author. */
-async function returnedWithFinding() {
-  const t = await team();
-  await advanceTo('in_check', t.sessions, t.revisionId);
-  const returned = expectStatus(await t.checker.session.post(`/api/revisions/${t.revisionId}/return`, {
-    reason: 'Name the chart behind the keyseat Kts', lockVersion: await lockVersionOf(t.sessions, t.revisionId),
-  }), 200, 'return');
-  return { ...t, findingId: returned.body.findings[0].id as number };
-}
+const returnedWithFinding = () => returnedWithFindingOf(app);
 
 describe('approval and the record', () => {
   it('when a finding is answered but not closed, then approval is refused until the approver closes it', async () => {

@@ -40,6 +40,19 @@ export interface HashedContent {
   ruleSet: { code: string; version: number; contentHash: string };
 }
 
+type CalcIdentity = { number: string; title: string; partRef: string; Project: { code: string } };
+type RuleSetIdentity = { code: string; version: number; contentHash: string } | null | undefined;
+
+/** Exactly what a revision's content hash covers; the one builder for signing, reading and packs. */
+export function hashedContentOf(calc: CalcIdentity, label: string, input: unknown, result: unknown, checklist: unknown, ruleSet: RuleSetIdentity): HashedContent {
+  return {
+    calc: { project: calc.Project.code, number: calc.number, title: calc.title, partRef: calc.partRef },
+    revision: label, input, result, checklist,
+    engineVersion: (result as { engineVersion?: string } | null)?.engineVersion ?? ENGINE_VERSION,
+    ruleSet: { code: ruleSet?.code ?? '', version: ruleSet?.version ?? 0, contentHash: ruleSet?.contentHash ?? '' },
+  };
+}
+
 /**
  * SHA-256 over the RFC 8785 canonical JSON of exactly what a signature vouches for: inputs,
  * results, engine version, the rule set's identity and content, and the checklist.

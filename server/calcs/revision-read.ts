@@ -6,19 +6,13 @@ import { validateCalcInput } from '../../shared/engine';
 import { Calc, Finding, Project, Revision, Signature, User } from '../db/models';
 import { toRevisionDto } from './calc-mapping';
 import { editorIdsOf, loadRevision } from './calc-access';
-import { contentHashOf } from './revision-content';
+import { contentHashOf, hashedContentOf } from './revision-content';
 
 /** Recomputes the content hash from what is stored now, so tampering shows as a broken signature. */
 export async function currentHashOf(revision: Revision, transaction?: Transaction): Promise<string | null> {
   if (!revision.result || !revision.checklist) return null;
   const calc = await Calc.findByPk(revision.calcId, { include: [Project], transaction }) as Calc & { Project: Project };
-  const ruleSet = revision.ruleSet;
-  const result = JSON.parse(revision.result) as { engineVersion?: string };
-  return contentHashOf({
-    calc: { project: calc.Project.code, number: calc.number, title: calc.title, partRef: calc.partRef },
-    revision: revision.label, input: JSON.parse(revision.input), result, checklist: JSON.parse(revision.checklist),
-    engineVersion: result.engineVersion, ruleSet: { code: ruleSet?.code ?? '', version: ruleSet?.version ?? 0, contentHash: ruleSet?.contentHash ?? '' },
-  });
+  return contentHashOf(hashedContentOf(calc, revision.label, JSON.parse(revision.input), JSON.parse(revision.result), JSON.parse(revision.checklist), revision.ruleSet));
 }
 
 export async function readRevision(ability: AppAbility, id: number, transaction?: Transaction): Promise<RevisionDto> {

@@ -1,9 +1,9 @@
 import { createHash } from 'node:crypto';
 import canonicalize from 'canonicalize';
-import { CAUTION, ENGINE_VERSION } from '../../shared/engine';
+import { CAUTION } from '../../shared/engine';
 import type { RevisionDto } from '../../shared/schemas/calc-dto';
 import type { AttachmentDto } from '../../shared/schemas/attachment.schema';
-import type { HashedContent } from '../calcs/revision-content';
+import { hashedContentOf, type HashedContent } from '../calcs/revision-content';
 import type { Calc, Project, RuleSetRecord } from '../db/models';
 
 export const RECORD_FORMAT = 'torquetrail-record/1';
@@ -13,18 +13,9 @@ export const sha256 = (data: Buffer | string): string => createHash('sha256').up
 /** The content hash as the server computes it: SHA-256 over RFC 8785 canonical JSON. */
 export const contentHash = (content: unknown): string => sha256(canonicalize(content) ?? '');
 
-/**
- * Exactly what a revision's content hash covers. This must build the same object as
- * currentHashOf in server/calcs/revision-read.ts; evidence.spec.ts fails if the two drift.
- */
+/** What a revision's content hash covers, built by the same function the server signs with. */
 export function hashedContent(calc: Calc & { Project: Project }, r: RevisionDto, ruleSet: RuleSetRecord | null): HashedContent {
-  const result = r.result as { engineVersion?: string } | null;
-  return {
-    calc: { project: calc.Project.code, number: calc.number, title: calc.title, partRef: calc.partRef },
-    revision: r.label, input: r.input, result, checklist: r.checklist,
-    engineVersion: result?.engineVersion ?? ENGINE_VERSION,
-    ruleSet: { code: ruleSet?.code ?? '', version: ruleSet?.version ?? 0, contentHash: ruleSet?.contentHash ?? '' },
-  };
+  return hashedContentOf(calc, r.label, r.input, r.result, r.checklist, ruleSet);
 }
 
 export interface RecordAttachment { kind: string; fileName: string; mediaType: string; sizeBytes: number; sha256: string; path: string }

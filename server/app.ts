@@ -55,7 +55,9 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   app.use('/api/calcs', requireSignIn, calcsRouter(services.calcs, services.lifecycle));
   app.use('/api/revisions', requireSignIn, revisionsRouter(services));
   app.use('/api/findings', requireSignIn, findingsRouter(services.review));
-  app.use('/api/rule-sets', requireSignIn, ruleSetsRouter(new RuleSetsService(sequelize), new ImpactService(sequelize)));
+  const impact = new ImpactService(sequelize);
+  const ruleSets = new RuleSetsService(sequelize, (actor, id) => impact.notifyIfAffected(actor, id));
+  app.use('/api/rule-sets', requireSignIn, ruleSetsRouter(ruleSets, impact));
   for (const [path, router] of recordsRouters(sequelize, config)) app.use(path, requireSignIn, router);
   app.use('/api', apiNotFound);
 

@@ -120,7 +120,7 @@ export class ImpactService {
   }
 
   /** After a version becomes effective: tell compliance when approved calcs would now change verdict. */
-  async notifyIfAffected(actor: Actor & { id: number }, ruleSetId: number): Promise<void> {
+  async notifyIfAffected(actor: Actor, ruleSetId: number): Promise<void> {
     const record = await RuleSetRecord.findByPk(ruleSetId);
     if (!record) return;
     const report = await this.run(record.id);
@@ -129,7 +129,7 @@ export class ImpactService {
       const list = report.rows.slice(0, 50).map((r) => `- ${r.projectCode} ${r.number} rev ${r.revision}: ${r.before} → ${r.after}`).join('\n');
       await enqueueMail(await emailsOfRole('compliance', [], transaction), {
         event: 'impact', subject: `${record.code} v${record.version} changes the verdict of ${report.changed} approved calc(s)`,
-        body: `${record.code} v${record.version} is now effective (confirmed by ${actor.name}). Re-evaluated ${report.evaluated} approved calcs; ${report.changed} change:\n\n${list}\n\nImpact report: ${appLink(`/rule-sets/${record.id}`)}\n\nTorquetrail supports, and never replaces, the judgement of a qualified engineer; local codes and licensed practice govern.`,
+        body: `${record.code} v${record.version} is now effective (${actor.id === null ? `in force from its effective date, ${record.effectiveDate}` : `confirmed by ${actor.name}`}). Re-evaluated ${report.evaluated} approved calcs; ${report.changed} change:\n\n${list}\n\nImpact report: ${appLink(`/rule-sets/${record.id}`)}\n\nTorquetrail supports, and never replaces, the judgement of a qualified engineer; local codes and licensed practice govern.`,
       }, transaction);
       await appendAudit(this.sequelize, actor, { action: 'rule_set.impact_notified', entityType: 'RuleSet', entityId: record.id, payload: { changed: report.changed, evaluated: report.evaluated } }, transaction);
     });

@@ -17,7 +17,8 @@ type Person = Actor & { id: number };
  * effective date, and a second compliance user confirms it; effective and retired versions are frozen.
  */
 export class RuleSetsService {
-  constructor(private readonly sequelize: Sequelize) {}
+  /** `onEffective` hears of every version that comes into force (impact mail to compliance). */
+  constructor(private readonly sequelize: Sequelize, private readonly onEffective?: (actor: Actor, id: number) => Promise<void>) {}
 
   async list(ability: AppAbility): Promise<RuleSetSummary[]> {
     ForbiddenError.from(ability).throwUnlessCan('read', 'RuleSet');
@@ -106,11 +107,15 @@ export class RuleSetsService {
   /** Puts confirmed versions whose effective date has come into force; cheap, and idempotent. */
   async promoteDue(): Promise<void> {
     const due = await RuleSetRecord.findAll({ where: { status: 'draft', confirmedBy: { [Op.ne]: null }, effectiveDate: { [Op.lte]: todayUtc() } } });
+    const clock: Actor = { id: null, name: 'effective-date clock', ip: null };
     for (const record of due) {
-      await this.sequelize.transaction(async (transaction) => {
+      const promoted = await this.sequelize.transaction(async (transaction) => {
         const fresh = await this.load(record.id, transaction, true);
-        if (fresh.status === 'draft') await this.makeEffective(fresh, { id: null, name: 'effective-date clock', ip: null }, transaction);
+        if (fresh.status !== 'draft') return false;
+        await this.makeEffective(fresh, clock, transaction);
+        return true;
       });
+      if (promoted) await this.onEffective?.(clock, record.id);
     }
   }
 

@@ -1,17 +1,26 @@
 import { Router } from 'express';
 import { Op } from 'sequelize';
-import type { DashboardDto } from '../../shared/schemas/dashboard.schema';
+import type { DashboardDto, WaitingItem } from '../../shared/schemas/dashboard.schema';
 import type { AppAbility } from '../../shared/authz/app-ability';
-import { Project, User } from '../db/models';
+import { Project, RuleSetRecord, User } from '../db/models';
 import { accessibleWhere } from '../authz/accessible-where';
 import { listAudit } from '../audit/audit.router';
 import { queuesOf } from './queues';
 
-/**
- * "What waits for me": the hand-overs addressed to this person. Calcs and rule-set versions
- * add their items here as those areas arrive; until then the list is honestly empty.
- */
-async function dashboardFor(ability: AppAbility): Promise<DashboardDto> {
+/** Draft standards someone else proposed, waiting for this compliance person's confirmation. */
+async function standardsToConfirm(ability: AppAbility, userId: number): Promise<WaitingItem[]> {
+  if (!ability.can('publish', 'RuleSet')) return [];
+  const rows = await RuleSetRecord.findAll({
+    where: { status: 'draft', proposedBy: { [Op.and]: [{ [Op.ne]: null }, { [Op.ne]: userId }] }, confirmedBy: null }, order: [['updatedAt', 'ASC']],
+  });
+  return rows.map((r) => ({
+    kind: 'Standard to confirm', title: `${r.code} v${r.version} — ${r.title}`,
+    detail: `proposed to take effect on ${r.effectiveDate}`, link: `/rule-sets/${r.id}`, since: r.updatedAt.toISOString(),
+  }));
+}
+
+/** The overview: counts, the latest audit entries for those who read them, and items beyond the calc queues. */
+async function dashboardFor(ability: AppAbility, userId: number): Promise<DashboardDto> {
   const activeProjects = await Project.count({ where: { [Op.and]: [accessibleWhere(ability, 'read', 'Project'), { status: 'active' }] } });
   const counts: DashboardDto['counts'] = { activeProjects };
   if (ability.can('create', 'User')) {
@@ -21,13 +30,13 @@ async function dashboardFor(ability: AppAbility): Promise<DashboardDto> {
   const recentActivity = ability.can('read', 'AuditEvent')
     ? (await listAudit(ability, { page: 0, size: 8 })).items
     : null;
-  return { waiting: [], counts, recentActivity };
+  return { waiting: await standardsToConfirm(ability, userId), counts, recentActivity };
 }
 
 export function dashboardRouter(): Router {
   const router = Router();
   router.get('/', async (req, res) => {
-    res.json(await dashboardFor(req.ability));
+    res.json(await dashboardFor(req.ability, req.user!.id));
   });
   router.get('/queues', async (req, res) => {
     res.json(await queuesOf(req.user!));

@@ -40,7 +40,7 @@ function orNull(v: number | null, k: number): number | null {
 function featureState(model: Model, index: number, pieces: readonly Piece[]): FeatureState {
   const ft = (model.input.features ?? [])[index];
   const g = featureGeometry(model, ft);
-  const fac = stressFactors(ft, g, `features[${index}]`, model.warnings);
+  const fac = stressFactors(ft, g, `features[${index}]`, model.warnings, model.input.methods?.filletKts ?? 'peterson');
   const q = notchSensitivity(g.seg.mat.Su, g.r, 'bending');
   const qs = notchSensitivity(g.seg.mat.Su, g.r, 'torsion');
   const Kf = fatigueFactor(fac.Kt, q);

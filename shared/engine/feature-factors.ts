@@ -15,12 +15,15 @@ export interface Factors {
 
 const entered = (source: string | undefined): string => `entered by the author; source: ${source ?? 'not given'}`;
 
-function filletFactors(g: FeatureGeometry, path: string, warn: CalcIssue[]): Factors {
+export type FilletKtsMethod = 'peterson' | 'norton';
+
+function filletFactors(g: FeatureGeometry, path: string, warn: CalcIssue[], ktsMethod: FilletKtsMethod): Factors {
   const D = g.D ?? g.d;
   const rd = g.r / g.d;
   const bend = nortonFit(NORTON_BENDING, D / g.d, rd);
   if (bend.isClamped) warn.push({ path, message: `D/d = ${f(D / g.d)} is outside the Norton bending rows 1.01–6; the nearest row gives Kt` });
   const tr = (D - g.d) / 2 / g.r;
+  if (ktsMethod === 'norton') return nortonTorsion(g, D, rd, path, warn, bend.value);
   if (petersonInRange(tr)) {
     return { Kt: bend.value, Kts: petersonTorsion(D, g.d, g.r), ktMethod: NORTON_BENDING_METHOD, ktsMethod: PETERSON_METHOD };
   }
@@ -32,15 +35,22 @@ function filletFactors(g: FeatureGeometry, path: string, warn: CalcIssue[]): Fac
   return { Kt: bend.value, Kts: tors.value, ktMethod: NORTON_BENDING_METHOD, ktsMethod: NORTON_TORSION_METHOD };
 }
 
+/** Norton's torsion fit, when a standard chooses it (or no longer only as the Peterson fallback). */
+function nortonTorsion(g: FeatureGeometry, D: number, rd: number, path: string, warn: CalcIssue[], Kt: number): Factors {
+  const tors = nortonFit(NORTON_TORSION, D / g.d, rd);
+  if (tors.isClamped) warn.push({ path, message: `D/d = ${f(D / g.d)} is outside the Norton torsion rows 1.09–2; the nearest row gives Kts` });
+  return { Kt, Kts: tors.value, ktMethod: NORTON_BENDING_METHOD, ktsMethod: NORTON_TORSION_METHOD };
+}
+
 function fromTable(entry: TableEntry): Factors {
   const method = tableMethod(entry);
   // A missing Kts (sled runner) is refused by validation unless entered, so 1 here is never reported.
   return { Kt: entry.Kt, Kts: entry.Kts ?? 1, ktMethod: method, ktsMethod: method };
 }
 
-function computed(ft: FeatureInput, g: FeatureGeometry, path: string, warn: CalcIssue[]): Factors {
+function computed(ft: FeatureInput, g: FeatureGeometry, path: string, warn: CalcIssue[], ktsMethod: FilletKtsMethod): Factors {
   switch (ft.type) {
-    case 'shoulder-fillet': return filletFactors(g, path, warn);
+    case 'shoulder-fillet': return filletFactors(g, path, warn, ktsMethod);
     case 'keyseat': return fromTable(ft.form === 'end-mill' ? TABLE_7_1.endMillKeyseat : TABLE_7_1.sledRunnerKeyseat);
     case 'ring-groove': return fromTable(TABLE_7_1.ringGroove);
     case 'cross-hole': return { Kt: 1, Kts: 1, ktMethod: '', ktsMethod: '' };
@@ -51,9 +61,9 @@ function computed(ft: FeatureInput, g: FeatureGeometry, path: string, warn: Calc
  * Kt and Kts of a feature with the method that gave each: the author's entered value (with its
  * source) wins; otherwise the default published method (REFERENCES.md) for the feature type.
  */
-export function stressFactors(ft: FeatureInput, g: FeatureGeometry, path: string, warn: CalcIssue[]): Factors {
+export function stressFactors(ft: FeatureInput, g: FeatureGeometry, path: string, warn: CalcIssue[], ktsMethod: FilletKtsMethod = 'peterson'): Factors {
   const bothEntered = ft.Kt !== undefined && ft.Kts !== undefined;
-  const c = bothEntered ? null : computed(ft, g, path, warn);
+  const c = bothEntered ? null : computed(ft, g, path, warn, ktsMethod);
   return {
     Kt: ft.Kt ?? c!.Kt, ktMethod: ft.Kt !== undefined ? entered(ft.source) : c!.ktMethod,
     Kts: ft.Kts ?? c!.Kts, ktsMethod: ft.Kts !== undefined ? entered(ft.source) : c!.ktsMethod,

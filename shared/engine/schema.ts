@@ -106,8 +106,14 @@ export const fatigueSchema = z.strictObject({
   SePrimeSource: source,
 });
 
+export const methodsSchema = z.strictObject({
+  filletKts: z.enum(['peterson', 'norton']).optional()
+    .meta({ description: 'Kts at shoulder fillets: Peterson torsion polynomial (default) or Norton torsion fit' }),
+}).meta({ description: 'Published methods chosen for this calc; a design standard may impose them' });
+
 export const calcInputSchema = z.strictObject({
   $schema: z.string().optional(),
+  methods: methodsSchema.optional(),
   title: label,
   notes: z.string().max(5000).optional(),
   units: z.enum(['SI', 'US']),

@@ -19,16 +19,18 @@ export interface MethodsUsed {
 }
 
 /**
- * The calc with the rule set's method choices imposed on it (Shigley Table 6-2 edition, Kf on
+ * The calc with the rule set's method choices imposed on it (the fillet Kts fit, Shigley Table 6-2 edition, Kf on
  * midrange stresses, reliability when the standard fixes one). Evaluate this, not the author's
  * input, so the result and its checklist record the methods the standard requires. Pure.
  */
 export function applyRuleSetMethods(input: CalcInput, ruleSet: RuleSet): CalcInput {
-  if (!input.fatigue) return input;
   const m = ruleSet.methods;
+  // The fillet Kts fit is the engine's to apply; "author" for Kt can only be checked, not imposed.
+  const withFillets: CalcInput = { ...input, methods: { ...input.methods, filletKts: m.filletKts } };
+  if (!input.fatigue) return withFillets;
   const fatigue = { ...input.fatigue, surfaceTable: m.surfaceTable, kfOnMidrange: m.kfOnMidrange };
   if (m.reliability !== undefined) fatigue.reliability = m.reliability;
-  return { ...input, fatigue };
+  return { ...withFillets, fatigue };
 }
 
 function filletIssue(index: number, what: 'Kt' | 'Kts', method: string, wanted: string): MethodIssue | null {

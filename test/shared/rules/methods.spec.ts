@@ -14,9 +14,19 @@ describe('the rule set chooses the methods', () => {
     expect(JSON.stringify(input)).toBe(before);
   });
 
-  it('when a calc has no fatigue data, then applying methods changes nothing', () => {
+  it('when a calc has no fatigue data, then only the fillet Kts fit is imposed', () => {
     const plain = shaft(50, 500);
-    expect(applyRuleSetMethods(plain, V3)).toBe(plain);
+    expect(applyRuleSetMethods(plain, V3)).toEqual({ ...plain, methods: { filletKts: V3.methods.filletKts } });
+  });
+
+  it('when a standard chooses the Norton torsion fit, then the engine uses it and no method issue remains', () => {
+    // Norton, Machine Design 2nd ed., App. E torsion rows; REFERENCES.md lists Norton as the alternative to Peterson.
+    const norton = { ...V3, methods: { ...V3.methods, filletKts: 'norton' as const } };
+    const applied = applyRuleSetMethods(input, norton);
+    const result = evaluateValidInput(applied);
+    const fillet = result.features.find((f) => f.type === 'shoulder-fillet')!;
+    expect(fillet.method.Kts).toMatch(/^Norton power-law fit Kts/);
+    expect(evaluateChecklistSync(applied, result, norton).methodIssues).toEqual([]);
   });
 
   it('when the calc was evaluated without the rule set methods, then methodIssues name each and block compliance', () => {

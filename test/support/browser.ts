@@ -28,6 +28,10 @@ export async function startBrowserSession() {
     viewport: { width: 1360, height: 860 },
     baseURL: baseUrl,
   });
+  // The API suite runs beside the browser tests; its audit-tampering checks hold the audit chain's lock
+  // while they walk the whole trail, so a write here may queue for a while. Patience, not timing, is tested.
+  context.setDefaultTimeout(120_000);
+  context.setDefaultNavigationTimeout(120_000);
   const outsideRequests: string[] = [];
   context.on('request', (req) => {
     const url = new URL(req.url());

@@ -21,3 +21,9 @@ export function toHttpFailure(error: unknown): HttpFailure {
   }
   return { status: 0, code: 'client_error', message: error instanceof Error ? error.message : String(error), fieldErrors: {} };
 }
+
+/** A failure as lines a person can read: one per field with its reasons, or the message alone. */
+export function failureLines(f: HttpFailure): string[] {
+  const fields = Object.entries(f.fieldErrors).map(([field, reasons]) => `${field}: ${reasons.join('; ')}`);
+  return fields.length ? fields : [f.message];
+}

@@ -6,7 +6,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { firstValueFrom } from 'rxjs';
 import type { SecondFactorEnrolment, SecondFactorStatus } from '../../../../shared/schemas/second-factor.schema';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { failureLines, toHttpFailure } from '../../core/errors/http-failure';
 
 /** Sets up a time-based one-time code (authenticator app) that every signature then asks for. */
 @Component({
@@ -66,7 +66,7 @@ export class SecondFactorPanel {
       await step();
     } catch (error) {
       const f = toHttpFailure(error);
-      this.problem.set(Object.values(f.fieldErrors)[0]?.[0] ?? f.message);
+      this.problem.set(failureLines(f)[0]);
     }
   }
 }

@@ -5,7 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import type { RuleSetDto } from '../../../../shared/schemas/rule-set.schema';
 import { SessionStore } from '../../core/auth/session-store';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { failureLines, toHttpFailure } from '../../core/errors/http-failure';
 import { RuleSetsApi } from './rule-sets-api';
 
 /** Two people make a version effective: one proposes it with a date, a second confirms with their password. */
@@ -73,7 +73,7 @@ export class PublishPanel {
       this.changed.emit();
     } catch (error) {
       const f = toHttpFailure(error);
-      this.problem.set(Object.keys(f.fieldErrors).length ? Object.entries(f.fieldErrors).map(([k, v]) => `${k}: ${v[0]}`).join('; ') : f.message);
+      this.problem.set(failureLines(f).join('; '));
     }
   }
 }

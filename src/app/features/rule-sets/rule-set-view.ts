@@ -14,7 +14,7 @@ import { AbilityServiceSignal } from '@casl/angular';
 import { subject } from '@casl/ability';
 import { validateRuleSet, type RuleSet } from '../../../../shared/rules';
 import type { AppAbility } from '../../../../shared/authz/app-ability';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { failureLines, toHttpFailure } from '../../core/errors/http-failure';
 import { RuleSetsApi } from './rule-sets-api';
 import { applyRuleSetForm, buildRuleSetForm, type RuleSetForm } from './rule-set-form';
 import { PublishPanel } from './publish-panel';
@@ -90,7 +90,7 @@ export default class RuleSetView {
       this.snackBar.open(`Draft v${saved.version} saved.`, 'OK', { duration: 4000 });
     } catch (error) {
       const f = toHttpFailure(error);
-      this.problems.set(Object.keys(f.fieldErrors).length ? Object.entries(f.fieldErrors).map(([k, v]) => `${k}: ${v.join('; ')}`) : [f.message]);
+      this.problems.set(failureLines(f));
     } finally {
       this.isSaving.set(false);
     }

@@ -2,7 +2,7 @@ import { Injectable, computed, inject, signal } from '@angular/core';
 import { HttpErrorResponse, httpResource } from '@angular/common/http';
 import { ruleSetSchema, type RuleSet } from '../../../../../shared/rules';
 import type { CalcDto, RevisionDto } from '../../../../../shared/schemas/calc-dto';
-import { toHttpFailure } from '../../../core/errors/http-failure';
+import { failureLines, toHttpFailure } from '../../../core/errors/http-failure';
 import { CalcsApi } from '../calcs-api';
 
 export type SaveOutcome =
@@ -74,7 +74,7 @@ export class EditorStore {
       const current = error instanceof HttpErrorResponse && error.status === 409 ? (error.error as { current?: RevisionDto })?.current : undefined;
       if (current) return { kind: 'conflict', current };
       const f = toHttpFailure(error);
-      const fields = Object.entries(f.fieldErrors).map(([k, v]) => `${k}: ${v.join('; ')}`);
+      const fields = Object.keys(f.fieldErrors).length ? failureLines(f) : [];
       return { kind: 'failed', message: [f.message, ...fields].join(' — ') };
     } finally {
       this.isSaving.set(false);

@@ -22,7 +22,8 @@ describe('torque from power and speed', () => {
     });
     expectClose(r.torques[0].T, 65.85722);
     expect(r.torques[0].isFromPower).toBe(true);
-    expectClose(r.segments[0].T, 65.85722);
+    // Internal torque: −Σ external torques left of the section (right-hand rule convention).
+    expectClose(r.segments[0].T, -65.85722);
   });
 });
 

@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { Engine } from 'json-rules-engine';
 import { validateCalcInput, type CalcInput } from '../../../shared/engine';
-import { compileCondition, OPERATORS, type Condition, type TopCondition } from '../../../shared/rules';
+import { compileCondition, OPERATORS, useLimitOperators, type Condition, type TopCondition } from '../../../shared/rules';
 import { checklistAsync, checklistSync, LIFT, loadCalc, V2, V3 } from './rules-helpers';
 
 /*
@@ -70,7 +70,7 @@ const factsArb = fc.record({
 const PARAMS = { 'param:p': 2, 'param:q': 'steel' };
 
 async function viaEngine(conditions: TopCondition, facts: Record<string, unknown>): Promise<string> {
-  const engine = new Engine([{ name: 'r', conditions: JSON.parse(JSON.stringify(conditions)), event: { type: 'x' } }], { allowUndefinedFacts: false });
+  const engine = useLimitOperators(new Engine([{ name: 'r', conditions: JSON.parse(JSON.stringify(conditions)), event: { type: 'x' } }], { allowUndefinedFacts: false }));
   for (const [k, v] of Object.entries(PARAMS)) engine.addFact(k, v);
   try {
     const r = await engine.run(facts);

@@ -34,7 +34,7 @@ interface Ctx { system: UnitSystem; out: CalcIssue[] }
 // Range ends read best as 1e-6 and 1e+10 rather than 0.000001 and 10000000000.
 function g(v: number): string {
   const a = Math.abs(v);
-  return a !== 0 && (a < 1e-3 || a >= 1e6) ? v.toExponential().replace('e+', 'e') : f(v);
+  return a !== 0 && (a < 1e-3 || a >= 1e6) ? Number(v.toPrecision(6)).toExponential().replace('e+', 'e') : f(v);
 }
 
 function check(value: number | undefined, kind: RangeKind, path: string, c: Ctx): void {
@@ -75,7 +75,7 @@ function powerTorque(input: CalcInput, i: number, c: Ctx): void {
   const [lo, hi] = PLAUSIBLE_RANGES[c.system].torque;
   if (T >= lo && T <= hi) return;
   const u = fieldOf(['T'], c.system).unit;
-  c.out.push({ path: `torques[${i}].speed`, message: `power ${f(t.power)}${fieldOf(['power'], c.system).unit} at ${f(t.speed)} rpm `
+  c.out.push({ path: `torques[${i}].speed`, message: `power ${g(t.power)}${fieldOf(['power'], c.system).unit} at ${f(t.speed)} rpm `
     + `means a torque of ${g(T)}${u}, outside ${g(lo)} to ${g(hi)}${u}: check the speed and the power` });
 }
 

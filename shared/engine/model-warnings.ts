@@ -6,7 +6,7 @@ import { formatNumber as f } from './number-format';
 import { locate } from './shaft-geometry';
 import { fromBase, toBase, UNIT_LABELS } from './units';
 
-// Tabulated G may differ from E/(2(1+ν)) by about 1 % for steel (REFERENCES.md); 5 % suggests a typo.
+// Tabulated G may differ from E/(2(1+ν)) by about 1 % for steel (docs/references.md); 5 % suggests a typo.
 const G_MISMATCH = 0.05;
 
 /*

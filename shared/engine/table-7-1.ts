@@ -1,7 +1,7 @@
 /*
  * First-iteration stress-concentration estimates for shaft design, Budynas & Nisbett, Shigley's
  * Mechanical Engineering Design, 9th ed., Table 7-1 (the 10th keeps it). Values marked so in
- * REFERENCES.md: end-mill keyseat and sharp fillet checked against a copy; the sled-runner Kt,
+ * docs/references.md: end-mill keyseat and sharp fillet checked against a copy; the sled-runner Kt,
  * the well-rounded fillet and the retaining-ring groove are recalled from memory. The table gives
  * no Kts for a sled-runner keyseat: the author must enter one (see check-features.ts).
  */

@@ -16,7 +16,7 @@ describe('calc command', () => {
     const r = calc([`${FIXTURES}/solid-si.json`]);
     expect(r.status).toBe(0);
     const out = JSON.parse(r.stdout);
-    expect(out.segments[0].tauMax).toBeCloseTo(40.74367, 5); // REFERENCES.md check value 4
+    expect(out.segments[0].tauMax).toBeCloseTo(40.74367, 5); // docs/references.md C-4
     expect(out.engineVersion).toMatch(/^\d+\.\d+\.\d+$/);
     expect(r.stderr).toBe('');
   });
@@ -24,7 +24,7 @@ describe('calc command', () => {
   it('when reading standard input ("-"), then it evaluates it the same way', () => {
     const r = calc(['-'], readFileSync(join(ROOT, FIXTURES, 'hollow-si.json'), 'utf8'));
     expect(r.status).toBe(0);
-    expect(JSON.parse(r.stdout).segments[0].tauInner).toBeCloseTo(19.5883, 4); // check value 5
+    expect(JSON.parse(r.stdout).segments[0].tauInner).toBeCloseTo(19.5883, 4); // docs/references.md C-5
   });
 
   it('when the input is invalid, then it exits 2 with "path: reason" on stderr and nothing on stdout', () => {

@@ -12,7 +12,7 @@ function fatigueShaft(fatigue: Record<string, unknown>, units: 'SI' | 'US' = 'SI
     torques: [{ at: 0, T: 100 }, { at: 100, T: -100 }], bending: [{ at: 50, Ma: 50 }], fatigue: { surface: 'ground', ...fatigue } });
 }
 
-describe('item 1: the cap of Se′ in each unit system (Shigley 9th Eq. 6-8, sourced; check value C-16)', () => {
+describe('item 1: the cap of Se′ in each unit system (Shigley 9th Eq. 6-8, sourced; docs/references.md C-16)', () => {
   it('when a US steel has Su = 220 kpsi, then Se′ is 100 kpsi, not 700 MPa converted (101.5 kpsi)', () => {
     expect(fatigueShaft({}, 'US', { E: 30, G: 11.5, Sy: 200, Su: 220 }).segments[0].endurance!.SePrime).toBeCloseTo(100, 12);
   });
@@ -83,7 +83,7 @@ describe('item 5: room temperature (Shigley 9th Table 6-4 starts at 20 °C with 
   });
 });
 
-describe('item 6: torque and twist follow the right-hand rule (check value C-17; convention common practice, no source)', () => {
+describe('item 6: torque and twist follow the right-hand rule (docs/references.md C-17; convention common practice, no source)', () => {
   // Three stations on a solid 40 mm shaft: −300 N·m at 0, +500 N·m at 200 mm, −200 N·m at 600 mm.
   const r = evaluateShaft({ units: 'SI', material: STEEL, segments: [{ length: 600, od: 40, id: 0 }],
     torques: [{ at: 0, T: -300 }, { at: 200, T: 500 }, { at: 600, T: -200 }] });

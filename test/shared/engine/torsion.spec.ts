@@ -1,10 +1,10 @@
 import { evaluateShaft, twistBetween } from '../../../shared/engine';
 import { expectClose, loadFixture, simpleShaft } from './check-helpers';
 
-// REFERENCES.md check values 4–7 [computed] from τmax = T·c/J and θ = T·L/(G·J), G = 79.3 GPa
+// docs/references.md C-4 to C-7 [computed] from τmax = T·c/J and θ = T·L/(G·J), G = 79.3 GPa
 // (Shigley 9th Table A-5 carbon steel [sourced]).
 describe('torsion of a uniform shaft', () => {
-  it('when a solid 50 mm shaft carries 1000 N·m over 1.2 m, then τmax, θ and θ/L match check values 4 and 6', () => {
+  it('when a solid 50 mm shaft carries 1000 N·m over 1.2 m, then τmax, θ and θ/L match docs/references.md C-4 and C-6', () => {
     const r = evaluateShaft(loadFixture('solid-si.json'));
     const s = r.segments[0];
     expectClose(s.J, 613592.3);
@@ -17,7 +17,7 @@ describe('torsion of a uniform shaft', () => {
     expect(s.tauInner).toBe(0);
   });
 
-  it('when a hollow 60/40 mm shaft carries the same, then τ outer/inner and θ match check values 5 and 7', () => {
+  it('when a hollow 60/40 mm shaft carries the same, then τ outer/inner and θ match docs/references.md C-5 and C-7', () => {
     const r = evaluateShaft(loadFixture('hollow-si.json'));
     const s = r.segments[0];
     expectClose(s.tauMax, 29.38245);
@@ -35,7 +35,7 @@ describe('torsion of a uniform shaft', () => {
 describe('torque diagram', () => {
   // Sign convention under test: internal torque = −Σ external torques left of the section (the torque
   // of the right part on the left part's cut face, along +x), so twist follows the right-hand rule.
-  // Common practice of mechanics of materials, no source; docs/references.md C-9.
+  // Common practice of mechanics of materials, no source (docs/references.md, "Sign convention for torque and twist").
   const stepped = {
     units: 'SI',
     material: { E: 207, G: 79.3, Sy: 530, Su: 630 },

@@ -25,9 +25,22 @@ function inputPathOf(resultPath: string): string {
   return m ? m[0] : resultPath.startsWith('torque') ? 'torques' : '(input)';
 }
 
+// Fast pass without paths (this runs on every evaluation, i.e. on every keystroke in the editor).
+function allFinite(value: unknown): boolean {
+  if (typeof value === 'number') return Number.isFinite(value);
+  if (value === null || typeof value !== 'object') return true;
+  if (Array.isArray(value)) {
+    for (const item of value) if (!allFinite(item)) return false;
+    return true;
+  }
+  for (const key in value) if (!allFinite((value as Record<string, unknown>)[key])) return false;
+  return true;
+}
+
+// Slow pass, only once something is known to be wrong: the path of the first bad number.
 function firstNonFinite(value: unknown, path: string): string | null {
-  if (typeof value === 'number') return Number.isFinite(value) ? null : path;
-  if (value === null || typeof value !== 'object') return null;
+  if (allFinite(value)) return null;
+  if (typeof value === 'number') return path;
   if (Array.isArray(value)) {
     for (let i = 0; i < value.length; i++) {
       const found = firstNonFinite(value[i], `${path}[${i}]`);
@@ -35,7 +48,7 @@ function firstNonFinite(value: unknown, path: string): string | null {
     }
     return null;
   }
-  for (const key in value) {
+  for (const key in value as object) {
     const found = firstNonFinite((value as Record<string, unknown>)[key], path ? `${path}.${key}` : key);
     if (found) return found;
   }
@@ -43,11 +56,16 @@ function firstNonFinite(value: unknown, path: string): string | null {
 }
 
 const ADVICE = 'the entered magnitudes are beyond what the engine can compute; check the values and their units';
+// Parts of a result that hold text only (units, formulas, messages): nothing to check there.
+const TEXT_ONLY = new Set(['fields', 'methods', 'caution', 'warnings', 'engineVersion', 'units']);
 
 /** Throws CalcInputError when any number in `result` is NaN or ±Infinity. */
 export function assertFiniteResult(result: object): void {
-  const at = firstNonFinite(result, '');
-  if (at) throw new CalcInputError([{ path: inputPathOf(at), message: `the result ${at} is not a finite number: ${ADVICE}` }]);
+  for (const key in result) {
+    if (TEXT_ONLY.has(key)) continue;
+    const at = firstNonFinite((result as Record<string, unknown>)[key], key);
+    if (at) throw new CalcInputError([{ path: inputPathOf(at), message: `the result ${at} is not a finite number: ${ADVICE}` }]);
+  }
 }
 
 /** Runs `compute`; a NonFiniteError inside becomes a CalcInputError on `path`. */

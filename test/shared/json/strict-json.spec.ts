@@ -1,7 +1,7 @@
 import { parseStrictJson } from '../../../shared/json/strict-json';
 
-// Issue 9, items 9 and 11: RFC 8259 says names within an object "SHOULD be unique" and leaves the
-// rest to the reader; refusing duplicates is common practice, no source. The BOM is U+FEFF.
+// Issue 9, items 9 and 11. Refusing duplicate keys and accepting a BOM (U+FEFF): common practice, no
+// source (docs/references.md, "Reading JSON", which notes what RFC 8259 leaves open).
 describe('parseStrictJson', () => {
   it('when a key appears twice, then it is refused with the path and both positions', () => {
     expect(parseStrictJson('{\n  "units": "SI",\n  "units": "US"\n}')).toEqual({ ok: false, issue: {

@@ -23,7 +23,7 @@ describe('item 1: the cap of Se′ in each unit system (Shigley 9th Eq. 6-8, sou
   });
 });
 
-describe('item 2: kc with the von Mises method (Shigley 9th §6-9 and §7-4: kc = 1 for combined loading, sourced)', () => {
+describe('item 2: kc with the von Mises method (Shigley 9th §6-9 and §7-4: kc = 1 for combined loading, from memory)', () => {
   it('when an author enters kc = 0.59, then a warning says torsion would be counted twice', () => {
     const r = fatigueShaft({ kc: 0.59 });
     expect(r.warnings).toContainEqual({ path: 'fatigue.kc', message: expect.stringMatching(/counted twice/) });

@@ -70,6 +70,12 @@ describe('accumulated twist', () => {
     conveyor.torqueDiagram.slice(1).forEach((p, i) => expect(pts[i + 1][1]).toBeCloseTo(p.twistStart, 12));
   });
 
+  it('when the shaft twists negatively (right-hand rule), then a magnitude limit is drawn on the negative side (common practice, no source)', () => {
+    const limits = twistPlot(conveyor, [{ value: 0.5, label: '0.5 deg' }]).limits;
+    expect(conveyor.twistTotal).toBeLessThan(0);
+    expect(limits.map((l) => l.y)).toEqual([-0.5]);
+  });
+
   it('when the calc is in US units, then the twist still ends at the engine total (deg/ft × in)', () => {
     const us = evaluateShaft(loadFixture('stepped-us.json'));
     const pts = twistPlot(us).series[0].points;

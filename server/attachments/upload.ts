@@ -14,8 +14,18 @@ export function singleUpload(field: string, maxBytes: number): RequestHandler {
     defParamCharset: 'utf8',
   }).single(field);
   return (req, res, next) => {
-    parse(req, res, (err: unknown) => next(err instanceof multer.MulterError ? toAppError(err, field, maxBytes) : err));
+    parse(req, res, (err: unknown) => next(err instanceof multer.MulterError ? toAppError(err, field, maxBytes) : err && unreadable(err, field)));
   };
+}
+
+/**
+ * Memory storage does no I/O of its own, so any other error comes from reading the body: busboy's
+ * "Malformed part header", "Unexpected end of form", a wrong boundary, a client that went away.
+ */
+function unreadable(err: unknown, field: string): AppError {
+  const reason = err instanceof Error ? err.message : String(err);
+  return new AppError('validation', 400, `${field}: the upload is not a readable multipart form (${reason}); nothing was stored`,
+    { fieldErrors: { [field]: [`is not a readable multipart upload (${reason})`] } });
 }
 
 function toAppError(err: multer.MulterError, field: string, maxBytes: number): AppError {

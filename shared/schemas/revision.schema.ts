@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { decimalId } from './common.schema';
 
 export const REVISION_STATES = ['draft', 'in_check', 'returned', 'checked', 'approved', 'superseded', 'withdrawn'] as const;
 export type RevisionState = (typeof REVISION_STATES)[number];
@@ -70,7 +71,7 @@ export const manualItemSchema = z.object({
 }).strict();
 
 export const calcListQuerySchema = z.object({
-  projectId: z.coerce.number().int().positive().optional(),
+  projectId: decimalId('a project id').optional(),
   status: z.enum(REVISION_STATES).optional(),
   q: z.string().trim().max(100).optional(),
   page: z.coerce.number().int().min(0).default(0),

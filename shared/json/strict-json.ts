@@ -1,0 +1,157 @@
+/*
+ * JSON as Torquetrail accepts it from outside (request bodies, evidence packs, stored documents).
+ * JSON.parse alone lets through what later code cannot hold: 1e309 becomes Infinity (and then a
+ * silent null in storage), "__proto__" keys break objects built from user keys, a lone UTF-16
+ * surrogate is stored as "?", a duplicate key silently drops a value, and 5,000 levels of nesting
+ * overflow the stack of the first recursive reader. Each of these is refused here with the path of
+ * the field, in the form zod uses (`segments[0].od`), so the client can point at it.
+ */
+
+export interface JsonLimits {
+  /** Levels of objects and arrays; Torquetrail's own documents need fewer than 10. */
+  maxDepth: number;
+  /** Values in the whole document (objects, arrays, strings, numbers, ...). */
+  maxNodes: number;
+}
+
+export const JSON_LIMITS: Readonly<JsonLimits> = { maxDepth: 32, maxNodes: 200_000 };
+
+export interface JsonProblem {
+  path: string;
+  message: string;
+}
+
+export type StrictJsonResult = { ok: true; value: unknown } | { ok: false; problem: JsonProblem };
+
+/** Keys that would reach an object's prototype when code builds objects from user keys. */
+const FORBIDDEN_KEYS = new Set(['__proto__', 'constructor', 'prototype']);
+const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
+
+export const keyPath = (parent: string, key: string): string => (parent ? `${parent}.${key}` : key);
+export const indexPath = (parent: string, index: number): string => `${parent}[${index}]`;
+
+/** True when the text holds a UTF-16 surrogate without its partner (not representable in UTF-8). */
+export function hasLoneSurrogate(text: string): boolean {
+  return LONE_SURROGATE.test(text);
+}
+
+function keyProblem(key: string, path: string): JsonProblem | null {
+  if (FORBIDDEN_KEYS.has(key)) return { path, message: 'is not an accepted field name' };
+  if (hasLoneSurrogate(key)) return { path, message: 'is a field name with invalid text (a lone surrogate); nothing was changed' };
+  return null;
+}
+
+function leafProblem(value: unknown, path: string): JsonProblem | null {
+  if (typeof value === 'number' && !Number.isFinite(value)) return { path, message: 'is a number beyond the range that can be stored (±1.8e308)' };
+  if (typeof value === 'string' && hasLoneSurrogate(value)) return { path, message: 'contains invalid text (a lone surrogate); nothing was changed' };
+  return null;
+}
+
+/**
+ * Checks an already-parsed value (a request body, a stored document) against the limits above.
+ * Iterative, so a document nested beyond any limit cannot overflow the stack while being checked.
+ */
+export function jsonValueProblem(value: unknown, limits: JsonLimits = JSON_LIMITS, root = ''): JsonProblem | null {
+  const stack: [unknown, string, number][] = [[value, root, 0]];
+  let nodes = 0;
+  while (stack.length > 0) {
+    const [v, path, depth] = stack.pop()!;
+    if (++nodes > limits.maxNodes) return { path: root, message: `holds more than ${limits.maxNodes} values` };
+    if (v === null || typeof v !== 'object') {
+      const problem = leafProblem(v, path);
+      if (problem) return problem;
+      continue;
+    }
+    if (depth >= limits.maxDepth) return { path, message: `is nested deeper than ${limits.maxDepth} levels` };
+    if (Array.isArray(v)) {
+      for (let i = v.length - 1; i >= 0; i--) stack.push([v[i], indexPath(path, i), depth + 1]);
+      continue;
+    }
+    const keys = Object.keys(v);
+    for (let i = keys.length - 1; i >= 0; i--) {
+      const p = keyPath(path, keys[i]);
+      const problem = keyProblem(keys[i], p);
+      if (problem) return problem;
+      stack.push([(v as Record<string, unknown>)[keys[i]], p, depth + 1]);
+    }
+  }
+  return null;
+}
+
+interface Frame { keys: Set<string> | null; path: string; index: number; key: string; expectKey: boolean }
+
+const childPath = (top: Frame | undefined): string =>
+  !top ? '' : top.keys ? keyPath(top.path, top.key) : indexPath(top.path, top.index);
+
+/**
+ * The path of the first key that appears twice in one object of `text`, which must already be
+ * valid JSON (JSON.parse keeps the last value and drops the first without a word).
+ */
+export function duplicateKeyPath(text: string): string | null {
+  const stack: Frame[] = [];
+  for (let i = 0; i < text.length; i++) {
+    const c = text[i];
+    const top = stack[stack.length - 1];
+    if (c === '"') {
+      let j = i + 1;
+      while (text[j] !== '"') j += text[j] === '\\' ? 2 : 1;
+      if (top?.keys && top.expectKey) {
+        const raw = text.slice(i, j + 1);
+        const key = raw.includes('\\') ? (JSON.parse(raw) as string) : raw.slice(1, -1);
+        if (top.keys.has(key)) return keyPath(top.path, key);
+        top.keys.add(key);
+        top.key = key;
+        top.expectKey = false;
+      }
+      i = j;
+    } else if (c === '{' || c === '[') {
+      stack.push({ keys: c === '{' ? new Set() : null, path: childPath(top), index: 0, key: '', expectKey: c === '{' });
+    } else if (c === '}' || c === ']') {
+      stack.pop();
+    } else if (c === ',' && top) {
+      if (top.keys) top.expectKey = true;
+      else top.index++;
+    }
+  }
+  return null;
+}
+
+/** Parses JSON text and applies every check above; a syntax error is a problem at the root. */
+export function parseStrictJson(text: string, limits: JsonLimits = JSON_LIMITS): StrictJsonResult {
+  let value: unknown;
+  try {
+    value = JSON.parse(text);
+  } catch {
+    return { ok: false, problem: { path: '', message: 'is not valid JSON' } };
+  }
+  const problem = jsonValueProblem(value, limits) ?? duplicatePathProblem(text);
+  return problem ? { ok: false, problem } : { ok: true, value };
+}
+
+function duplicatePathProblem(text: string): JsonProblem | null {
+  const path = duplicateKeyPath(text);
+  return path === null ? null : { path, message: 'appears twice in the same object' };
+}
+
+/** The path of the first Infinity or NaN in a value built by code (a result), or null. */
+export function nonFinitePath(value: unknown): string | null {
+  const stack: [unknown, string][] = [[value, '']];
+  while (stack.length > 0) {
+    const [v, path] = stack.pop()!;
+    if (typeof v === 'number' && !Number.isFinite(v)) return path;
+    if (v === null || typeof v !== 'object') continue;
+    if (Array.isArray(v)) for (let i = v.length - 1; i >= 0; i--) stack.push([v[i], indexPath(path, i)]);
+    else for (const [k, x] of Object.entries(v).reverse()) stack.push([x, keyPath(path, k)]);
+  }
+  return null;
+}
+
+/**
+ * JSON.stringify for what is stored: it would write Infinity and NaN as null, silently turning
+ * "cannot be computed" into "no value". Throws instead; callers check with nonFinitePath first.
+ */
+export function stringifyFinite(value: unknown): string {
+  const bad = nonFinitePath(value);
+  if (bad !== null) throw new Error(`refusing to store a non-finite number at ${bad || '(root)'}`);
+  return JSON.stringify(value);
+}

@@ -44,7 +44,9 @@ interface Fixtures { ids: Record<string, number>; userIds: number[]; projectId: 
 
 /** The stored rows the fixtures own, as one string: equal strings mean nothing changed. */
 async function snapshot(f: Fixtures): Promise<string> {
-  const q = (sql: string, replacements: unknown[]) => sequelize.query(sql, { type: QueryTypes.SELECT, replacements });
+  const q = (sql: string, replacements: unknown[]) => sequelize.query(sql, { type: QueryTypes.SELECT, replacements }).catch((e) => {
+    throw new Error(`snapshot query failed: ${sql}: ${e?.name} ${e?.message} ${e?.parent?.code} ${e?.parent?.sqlMessage}`);
+  });
   const revisionIds = '(SELECT r.id FROM revisions r JOIN calcs c ON c.id = r.calc_id WHERE c.project_id = ?)';
   const parts = await Promise.all([
     q('SELECT * FROM users WHERE id IN (?) ORDER BY id', [f.userIds]),

@@ -35,44 +35,49 @@ export function hasLoneSurrogate(text: string): boolean {
   return LONE_SURROGATE.test(text);
 }
 
-function keyProblem(key: string, path: string): JsonProblem | null {
-  if (FORBIDDEN_KEYS.has(key)) return { path, message: 'is not an accepted field name' };
-  if (hasLoneSurrogate(key)) return { path, message: 'is a field name with invalid text (a lone surrogate); nothing was changed' };
+function keyProblem(key: string): string | null {
+  if (FORBIDDEN_KEYS.has(key)) return 'is not an accepted field name';
+  if (hasLoneSurrogate(key)) return 'is a field name with invalid text (a lone surrogate); nothing was changed';
   return null;
 }
 
-function leafProblem(value: unknown, path: string): JsonProblem | null {
-  if (typeof value === 'number' && !Number.isFinite(value)) return { path, message: 'is a number beyond the range that can be stored (±1.8e308)' };
-  if (typeof value === 'string' && hasLoneSurrogate(value)) return { path, message: 'contains invalid text (a lone surrogate); nothing was changed' };
+function leafProblem(value: unknown): string | null {
+  if (typeof value === 'number' && !Number.isFinite(value)) return 'is a number beyond the range that can be stored (±1.8e308)';
+  if (typeof value === 'string' && hasLoneSurrogate(value)) return 'contains invalid text (a lone surrogate); nothing was changed';
   return null;
 }
+
+type Part = string | number;
+const pathText = (parts: readonly Part[], root: string): string =>
+  parts.reduce<string>((acc, k) => (typeof k === 'number' ? indexPath(acc, k) : keyPath(acc, k)), root);
 
 /**
  * Checks an already-parsed value (a request body, a stored document) against the limits above.
  * Iterative, so a document nested beyond any limit cannot overflow the stack while being checked.
+ * `parts` is the same path as `path`, as zod wants it for an issue.
  */
-export function jsonValueProblem(value: unknown, limits: JsonLimits = JSON_LIMITS, root = ''): JsonProblem | null {
-  const stack: [unknown, string, number][] = [[value, root, 0]];
+export function jsonValueProblem(value: unknown, limits: JsonLimits = JSON_LIMITS, root = ''): (JsonProblem & { parts: Part[] }) | null {
+  const stack: [unknown, Part[]][] = [[value, []]];
   let nodes = 0;
+  const problem = (parts: Part[], message: string) => ({ path: pathText(parts, root), parts, message });
   while (stack.length > 0) {
-    const [v, path, depth] = stack.pop()!;
-    if (++nodes > limits.maxNodes) return { path: root, message: `holds more than ${limits.maxNodes} values` };
+    const [v, parts] = stack.pop()!;
+    if (++nodes > limits.maxNodes) return problem([], `holds more than ${limits.maxNodes} values`);
     if (v === null || typeof v !== 'object') {
-      const problem = leafProblem(v, path);
-      if (problem) return problem;
+      const leaf = leafProblem(v);
+      if (leaf) return problem(parts, leaf);
       continue;
     }
-    if (depth >= limits.maxDepth) return { path, message: `is nested deeper than ${limits.maxDepth} levels` };
+    if (parts.length >= limits.maxDepth) return problem(parts, `is nested deeper than ${limits.maxDepth} levels`);
     if (Array.isArray(v)) {
-      for (let i = v.length - 1; i >= 0; i--) stack.push([v[i], indexPath(path, i), depth + 1]);
+      for (let i = v.length - 1; i >= 0; i--) stack.push([v[i], [...parts, i]]);
       continue;
     }
     const keys = Object.keys(v);
     for (let i = keys.length - 1; i >= 0; i--) {
-      const p = keyPath(path, keys[i]);
-      const problem = keyProblem(keys[i], p);
-      if (problem) return problem;
-      stack.push([(v as Record<string, unknown>)[keys[i]], p, depth + 1]);
+      const bad = keyProblem(keys[i]);
+      if (bad) return problem([...parts, keys[i]], bad);
+      stack.push([(v as Record<string, unknown>)[keys[i]], [...parts, keys[i]]]);
     }
   }
   return null;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { jsonValueProblem } from '../json/strict-json';
 
 /**
  * The one parser of record ids in paths and queries: decimal digits only. `Number()` would read
@@ -23,3 +24,15 @@ export interface Page<T> {
   page: number;
   size: number;
 }
+
+/**
+ * A JSON document stored as the user sent it (a draft calc input, a standard's text): an object
+ * of at most `maxKb` kB and `maxDepth` levels, with no value JSON cannot hold. The request edge
+ * applies looser limits to every body; these are the document's own, named at the field.
+ */
+export const jsonDocumentSchema = (maxKb: number, maxDepth: number) =>
+  z.record(z.string(), z.unknown(), { error: 'must be a JSON object' }).superRefine((doc, ctx) => {
+    const problem = jsonValueProblem(doc, { maxDepth, maxNodes: 100_000 });
+    if (problem) ctx.addIssue({ code: 'custom', message: problem.message, path: problem.parts });
+    else if (JSON.stringify(doc).length > maxKb * 1024) ctx.addIssue({ code: 'custom', message: `is larger than ${maxKb} kB` });
+  });

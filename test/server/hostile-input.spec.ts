@@ -88,6 +88,17 @@ describe('draft input at the edge', () => {
   });
 });
 
+describe('stored documents', () => {
+  it('when a draft input is within the body limits but deeper than a calc input can be, then the 400 names where', async () => {
+    const team = await calcTeam(app);
+    const r = await revisionOf(team.author.session, team.revisionId);
+    const res = await rawJson(team.author.session, 'put', `/api/revisions/${team.revisionId}`,
+      `{"lockVersion":${r.lockVersion},"input":{"notes":${'['.repeat(20)}${']'.repeat(20)}}}`);
+    expect(res.status).toBe(400);
+    expect(res.body.fieldErrors).toEqual({ [`input.notes${'[0]'.repeat(11)}`]: ['is nested deeper than 12 levels'] });
+  });
+});
+
 describe('text fields', () => {
   it('when finding text holds a lone surrogate, then it is a 400 naming text, and no finding is stored', async () => {
     const team = await calcTeam(app);
@@ -150,5 +161,17 @@ describe('paths and multipart bodies', () => {
       `--${boundary}\r\nContent-Disposition: form-data; name="kind"\r\n\r\ndrawing\r\n--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="a.pdf"\r\n\r\n%PDF-1.4`);
     expect(res.status).toBe(400);
     expect((await team.author.session.get(`/api/revisions/${team.revisionId}/attachments`)).body.items).toEqual([]);
+  });
+
+  it('when a multipart text field is not valid UTF-8, then it is a 400 naming that field, never stored altered', async () => {
+    const team = await calcTeam(app);
+    const body = Buffer.concat([
+      Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="kind"\r\n\r\ndrawing\r\n--${boundary}\r\nContent-Disposition: form-data; name="note"\r\n\r\nsheet `),
+      Buffer.from([0xed, 0xa0, 0x80]), // a UTF-16 surrogate written as if it were UTF-8
+      Buffer.from(`\r\n--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="a.pdf"\r\n\r\n%PDF-1.4 x\r\n--${boundary}--\r\n`),
+    ]);
+    const res = await team.author.session.agent.post(`/api/revisions/${team.revisionId}/attachments`).set('x-csrf-token', team.author.session.csrf)
+      .set('Content-Type', `multipart/form-data; boundary=${boundary}`).send(body);
+    expect([res.status, res.body.fieldErrors]).toEqual([400, { note: ['is not valid UTF-8 text; nothing was stored'] }]);
   });
 });

@@ -15,7 +15,7 @@ import { currentHashOf, readRevision } from './revision-read';
 import { jsonDiff } from './content-diff';
 import { revisionLabel } from './revision-label';
 import { outcomeOf } from '../../shared/schemas/outcome';
-import { stringifyFinite } from '../../shared/json/strict-json';
+import { stringifyFinite } from '../../shared/json/finite-json';
 
 /** Calcs and the content of their revisions. Workflow transitions live in server/workflow. */
 export class CalcsService {

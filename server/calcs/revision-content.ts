@@ -3,7 +3,7 @@ import canonicalize from 'canonicalize';
 import { ENGINE_VERSION, evaluateValidInput, validateCalcInput, type CalcInput, type CalcResult } from '../../shared/engine';
 import { applyRuleSetMethods, evaluateChecklist, type Checklist, type RuleSet } from '../../shared/rules';
 import type { InputIssue } from '../../shared/schemas/calc-dto';
-import { nonFinitePath } from '../../shared/json/strict-json';
+import { nonFinitePath } from '../../shared/json/finite-json';
 
 /** What the server stores as the record of truth for a revision's content. */
 export interface ComputedRecord {

@@ -1,6 +1,6 @@
 import { evaluateValidInput } from '../../shared/engine';
 import { applyRuleSetMethods, evaluateChecklist, evaluateChecklistSync, type RuleSet } from '../../shared/rules';
-import { nonFinitePath } from '../../shared/json/strict-json';
+import { nonFinitePath } from '../../shared/json/finite-json';
 import { computeRecord } from '../../server/calcs/revision-content';
 import { stored } from '../../server/calcs/calcs.service';
 import { loadRuleSet } from '../../server/rule-sets/rule-set-cache';

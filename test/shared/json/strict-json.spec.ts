@@ -1,5 +1,6 @@
 import fc from 'fast-check';
-import { duplicateKeyPath, jsonValueProblem, nonFinitePath, parseStrictJson, stringifyFinite } from '../../../shared/json/strict-json';
+import { duplicateKeyPath, jsonValueProblem, parseStrictJson } from '../../../shared/json/strict-json';
+import { nonFinitePath, stringifyFinite } from '../../../shared/json/finite-json';
 
 describe('parseStrictJson', () => {
   it('when JSON has no problem, then it parses exactly as JSON.parse does', () => {

@@ -5,8 +5,8 @@ import { jsonValueProblem } from '../json/strict-json';
  * The one parser of record ids in paths and queries: decimal digits only. `Number()` would read
  * `0x10` as 16, `1e3` as 1000 and ` 7` as 7, so the same record would answer to many addresses.
  */
-export const decimalId = (what = 'a record id') => z.string({ error: `must be ${what} in decimal digits` })
-  .regex(/^[1-9][0-9]{0,14}$/, `must be ${what} in decimal digits`).transform(Number);
+export const decimalId = (what = 'a number') => z.string({ error: `must be ${what}` })
+  .regex(/^[1-9][0-9]{0,14}$/, `must be ${what}`).transform(Number);
 
 /** A numeric route parameter such as `/api/users/:id`; anything else is a 400, not a lookup. */
 export const idParamsSchema = z.object({ id: decimalId() });

@@ -1,9 +1,9 @@
 /*
  * JSON as Torquetrail accepts it from outside (request bodies, evidence packs, stored documents).
  * JSON.parse alone lets through what later code cannot hold: 1e309 becomes Infinity (and then a
- * silent null in storage), "__proto__" keys break objects built from user keys, a lone UTF-16
- * surrogate is stored as "?", a duplicate key silently drops a value, and 5,000 levels of nesting
- * overflow the stack of the first recursive reader. Each of these is refused here with the path of
+ * silent null in storage), 1e-400 becomes 0, "__proto__" keys break objects built from user keys,
+ * a lone UTF-16 surrogate is stored as "?", a duplicate key silently drops a value, and 5,000
+ * levels of nesting overflow the stack of the first recursive reader. Each of these is refused here with the path of
  * the field, in the form zod uses (`segments[0].od`), so the client can point at it.
  */
 
@@ -88,11 +88,15 @@ interface Frame { keys: Set<string> | null; path: string; index: number; key: st
 const childPath = (top: Frame | undefined): string =>
   !top ? '' : top.keys ? keyPath(top.path, top.key) : indexPath(top.path, top.index);
 
+// A number token that reads as 0 though its digits are not all zero (1e-400) underflowed.
+const UNDERFLOW = /^-?[0-9.]*[1-9]/;
+
 /**
- * The path of the first key that appears twice in one object of `text`, which must already be
- * valid JSON (JSON.parse keeps the last value and drops the first without a word).
+ * The first problem only the text shows, in `text`, which must already be valid JSON: a key that
+ * appears twice in one object (JSON.parse keeps the last value and drops the first without a
+ * word), or a non-zero number too small to be held (JSON.parse reads 1e-400 as 0).
  */
-export function duplicateKeyPath(text: string): string | null {
+export function textProblem(text: string): JsonProblem | null {
   const stack: Frame[] = [];
   for (let i = 0; i < text.length; i++) {
     const c = text[i];
@@ -103,12 +107,18 @@ export function duplicateKeyPath(text: string): string | null {
       if (top?.keys && top.expectKey) {
         const raw = text.slice(i, j + 1);
         const key = raw.includes('\\') ? (JSON.parse(raw) as string) : raw.slice(1, -1);
-        if (top.keys.has(key)) return keyPath(top.path, key);
+        if (top.keys.has(key)) return { path: keyPath(top.path, key), message: 'appears twice in the same object' };
         top.keys.add(key);
         top.key = key;
         top.expectKey = false;
       }
       i = j;
+    } else if (c === '-' || (c >= '0' && c <= '9')) {
+      let j = i + 1;
+      while (j < text.length && /[0-9eE.+-]/.test(text[j])) j++;
+      const token = text.slice(i, j);
+      if (Number(token) === 0 && UNDERFLOW.test(token)) return { path: childPath(top), message: 'is a non-zero number too small to be stored (it would read as 0)' };
+      i = j - 1;
     } else if (c === '{' || c === '[') {
       stack.push({ keys: c === '{' ? new Set() : null, path: childPath(top), index: 0, key: '', expectKey: c === '{' });
     } else if (c === '}' || c === ']') {
@@ -121,6 +131,12 @@ export function duplicateKeyPath(text: string): string | null {
   return null;
 }
 
+/** The path of the first key that appears twice in one object of `text` (valid JSON), or null. */
+export function duplicateKeyPath(text: string): string | null {
+  const problem = textProblem(text);
+  return problem && problem.message.startsWith('appears twice') ? problem.path : null;
+}
+
 /** Parses JSON text and applies every check above; a syntax error is a problem at the root. */
 export function parseStrictJson(text: string, limits: JsonLimits = JSON_LIMITS): StrictJsonResult {
   let value: unknown;
@@ -129,11 +145,6 @@ export function parseStrictJson(text: string, limits: JsonLimits = JSON_LIMITS):
   } catch {
     return { ok: false, problem: { path: '', message: 'is not valid JSON' } };
   }
-  const problem = jsonValueProblem(value, limits) ?? duplicatePathProblem(text);
+  const problem = jsonValueProblem(value, limits) ?? textProblem(text);
   return problem ? { ok: false, problem } : { ok: true, value };
-}
-
-function duplicatePathProblem(text: string): JsonProblem | null {
-  const path = duplicateKeyPath(text);
-  return path === null ? null : { path, message: 'appears twice in the same object' };
 }

@@ -22,6 +22,9 @@ describe('parseStrictJson', () => {
     ['{"a":[{"k":1},{"k":1,"k":2}]}', 'a[1].k', /twice/],
     [`{"d":${'['.repeat(40)}${']'.repeat(40)}}`, `d${'[0]'.repeat(31)}`, /nested deeper than 32/],
     ['{"a":', '', /not valid JSON/],
+    ['{"a":[0,1e-400]}', 'a[1]', /too small/],
+    ['{"x":{"y":-2e-324}}', 'x.y', /too small/],
+    [`{"z":0.${'0'.repeat(400)}1}`, 'z', /too small/],
   ])('when the text is %s, then the problem is at %s', (text, path, message) => {
     const parsed = parseStrictJson(text);
     expect(parsed.ok).toBe(false);
@@ -35,6 +38,7 @@ describe('parseStrictJson', () => {
     expect(duplicateKeyPath('[{"a":1},{"a":2}]')).toBeNull();
     expect(duplicateKeyPath('{"a":"{\\"a\\":1,\\"a\\":2}","b":{"a":1}}')).toBeNull();
     expect(duplicateKeyPath('{"a\\u0062":1,"ab":2}')).toBe('ab');
+    expect(parseStrictJson('{"a":0e5,"b":-0.0,"c":5e-324,"d":[0,-0]}').ok).toBe(true);
   });
 
   it('when a document is 100,000 levels deep, then the check stops at the limit without overflowing the stack', () => {

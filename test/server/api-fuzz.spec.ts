@@ -42,6 +42,8 @@ const HOSTILE: Body[] = [
 
 interface Fixtures { ids: Record<string, number>; userIds: number[]; projectId: number; ruleSetDraftId: number }
 
+const byId = (rows: object[]) => [...rows].sort((a, b) => Number((a as { id: number }).id) - Number((b as { id: number }).id));
+
 /** The stored rows the fixtures own, as one string: equal strings mean nothing changed. */
 async function snapshot(f: Fixtures): Promise<string> {
   const q = (sql: string, replacements: unknown[]) => sequelize.query(sql, { type: QueryTypes.SELECT, replacements }).catch((e) => {
@@ -53,11 +55,12 @@ async function snapshot(f: Fixtures): Promise<string> {
     q('SELECT * FROM user_roles WHERE user_id IN (?) ORDER BY user_id, role', [f.userIds]),
     q('SELECT * FROM projects WHERE id = ?', [f.projectId]),
     q('SELECT * FROM calcs WHERE project_id = ? ORDER BY id', [f.projectId]),
-    q(`SELECT * FROM revisions WHERE id IN ${revisionIds} ORDER BY id`, [f.projectId]),
+    // Rows with long text are ordered here, not by the server (a filesort of long rows can run out of sort memory).
+    q(`SELECT * FROM revisions WHERE id IN ${revisionIds}`, [f.projectId]).then(byId),
     q(`SELECT * FROM findings WHERE revision_id IN ${revisionIds} ORDER BY id`, [f.projectId]),
     q(`SELECT * FROM signatures WHERE revision_id IN ${revisionIds} ORDER BY id`, [f.projectId]),
     q(`SELECT * FROM attachments WHERE revision_id IN ${revisionIds} ORDER BY id`, [f.projectId]),
-    q('SELECT * FROM rule_sets WHERE id = ? OR created_by IN (?) ORDER BY id', [f.ruleSetDraftId, f.userIds]),
+    q('SELECT * FROM rule_sets WHERE id = ? OR created_by IN (?)', [f.ruleSetDraftId, f.userIds]).then(byId),
     q('SELECT * FROM mail_preferences WHERE user_id IN (?) ORDER BY user_id', [f.userIds]),
     // A refused signature or sign-in is audited on purpose; anything else refused must leave no entry.
     q("SELECT COUNT(*) AS n, MAX(id) AS last FROM audit_events WHERE actor_id IN (?) AND action NOT LIKE '%refused' AND action NOT LIKE '%failed'", [f.userIds]),

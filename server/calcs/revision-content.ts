@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import canonicalize from 'canonicalize';
-import { ENGINE_VERSION, evaluateValidInput, validateCalcInput, type CalcInput, type CalcResult } from '../../shared/engine';
+import { CalcInputError, ENGINE_VERSION, evaluateValidInput, validateCalcInput, type CalcInput, type CalcResult } from '../../shared/engine';
 import { applyRuleSetMethods, evaluateChecklist, type Checklist, type RuleSet } from '../../shared/rules';
 import type { InputIssue } from '../../shared/schemas/calc-dto';
 import { nonFinitePath } from '../../shared/json/finite-json';
@@ -30,6 +30,8 @@ export async function computeRecord(input: unknown, ruleSet: RuleSet): Promise<C
     if (inChecklist !== null) return notComputable(`checklist.${inChecklist}`);
     return { result, checklist, verdict: checklist.verdict, inputIssues: [] };
   } catch (err) {
+    // The engine's own non-finite backstop names the input entry; keep its paths.
+    if (err instanceof CalcInputError) return { result: null, checklist: null, verdict: null, inputIssues: err.issues };
     const message = err instanceof Error ? err.message : String(err);
     return { result: null, checklist: null, verdict: null, inputIssues: [{ path: '', message: `could not be evaluated: ${message}` }] };
   }

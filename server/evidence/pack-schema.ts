@@ -65,7 +65,7 @@ export function readPackJson<T>(files: Map<string, Buffer>, name: string, schema
     return { ok: false, detail: 'is not UTF-8 text' };
   }
   const parsed = parseStrictJson(text);
-  if (!parsed.ok) return { ok: false, detail: `${parsed.problem.path || '(file)'} ${parsed.problem.message}` };
+  if (!parsed.ok) return { ok: false, detail: `${parsed.issue.path} ${parsed.issue.message}` };
   const checked = schema.safeParse(parsed.value);
   if (checked.success) return { ok: true, value: checked.data };
   const issue = checked.error.issues[0];

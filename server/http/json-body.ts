@@ -1,5 +1,5 @@
 import express, { type RequestHandler } from 'express';
-import { parseStrictJson } from '../../shared/json/strict-json';
+import { parseStrictJson, ROOT_PATH } from '../../shared/json/strict-json';
 import { AppError } from '../errors/app-error';
 
 const JSON_TYPES = ['application/json', 'application/*+json'];
@@ -40,8 +40,9 @@ export function jsonBody(limit: string): RequestHandler[] {
       req.body = parsed.value;
       return next();
     }
-    if (parsed.problem.message === 'is not valid JSON') throw new AppError('entity.parse.failed', 400, 'Request body is not valid JSON');
-    throw AppError.validation({ [parsed.problem.path]: [parsed.problem.message] });
+    if (parsed.issue.message.startsWith('not valid JSON')) throw new AppError('entity.parse.failed', 400, 'Request body is not valid JSON');
+    // Field errors name the body's own fields; the body as a whole is the empty path, as in validate.ts.
+    throw AppError.validation({ [parsed.issue.path === ROOT_PATH ? '' : parsed.issue.path]: [parsed.issue.message] });
   };
   return [raw, parse];
 }

@@ -1,11 +1,34 @@
+import { parse, type AnyNode } from '@humanwhocodes/momoa';
+
 /*
- * JSON as Torquetrail accepts it from outside (request bodies, evidence packs, stored documents).
- * JSON.parse alone lets through what later code cannot hold: 1e309 becomes Infinity (and then a
- * silent null in storage), 1e-400 becomes 0, "__proto__" keys break objects built from user keys,
- * a lone UTF-16 surrogate is stored as "?", a duplicate key silently drops a value, and 5,000
- * levels of nesting overflow the stack of the first recursive reader. Each of these is refused here with the path of
- * the field, in the form zod uses (`segments[0].od`), so the client can point at it.
+ * JSON as Torquetrail accepts it from outside: request bodies, evidence packs, calc files on the
+ * command line, stored documents. JSON.parse alone lets through what later code cannot hold:
+ * 1e309 becomes Infinity (and then a silent null in storage), 1e-400 becomes 0, "__proto__" keys
+ * break objects built from user keys, a lone UTF-16 surrogate is stored as "?", the last of two
+ * equal keys wins without a word (`"units": "SI"` then `"units": "US"`), and 5,000 levels of
+ * nesting overflow the stack of the first recursive reader. Each is refused here with the path of
+ * the field, in the form zod uses (`segments[0].od`); the UTF-8 byte-order mark many editors write
+ * is accepted. Plain TypeScript plus @humanwhocodes/momoa (a JSON syntax tree with positions):
+ * runs in the server, the browser and the command line.
  */
+export interface JsonIssue {
+  path: string;
+  message: string;
+}
+
+export type StrictJsonResult = { ok: true; value: unknown } | { ok: false; issue: JsonIssue };
+
+/** Path text for the root of a document in issues. */
+export const ROOT_PATH = '(input)';
+
+const BOM = '\uFEFF';
+
+// Characters a terminal or a form shows as nothing; a message names them instead (U+FEFF …).
+const INVISIBLE = /[\u0000-\u001f\u007f-\u00a0\u00ad\u200b-\u200f\u2028-\u202f\u2060\ufeff]/g;
+
+function visible(text: string): string {
+  return text.replace(INVISIBLE, (c) => `U+${c.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}`);
+}
 
 export interface JsonLimits {
   /** Levels of objects and arrays; Torquetrail's own documents need fewer than 10. */
@@ -16,12 +39,6 @@ export interface JsonLimits {
 
 export const JSON_LIMITS: Readonly<JsonLimits> = { maxDepth: 32, maxNodes: 200_000 };
 
-export interface JsonProblem {
-  path: string;
-  message: string;
-}
-
-export type StrictJsonResult = { ok: true; value: unknown } | { ok: false; problem: JsonProblem };
 
 /** Keys that would reach an object's prototype when code builds objects from user keys. */
 const FORBIDDEN_KEYS = new Set(['__proto__', 'constructor', 'prototype']);
@@ -56,7 +73,7 @@ const pathText = (parts: readonly Part[], root: string): string =>
  * Iterative, so a document nested beyond any limit cannot overflow the stack while being checked.
  * `parts` is the same path as `path`, as zod wants it for an issue.
  */
-export function jsonValueProblem(value: unknown, limits: JsonLimits = JSON_LIMITS, root = ''): (JsonProblem & { parts: Part[] }) | null {
+export function jsonValueProblem(value: unknown, limits: JsonLimits = JSON_LIMITS, root = ''): (JsonIssue & { parts: Part[] }) | null {
   const stack: [unknown, Part[]][] = [[value, []]];
   let nodes = 0;
   const problem = (parts: Part[], message: string) => ({ path: pathText(parts, root), parts, message });
@@ -83,68 +100,58 @@ export function jsonValueProblem(value: unknown, limits: JsonLimits = JSON_LIMIT
   return null;
 }
 
-interface Frame { keys: Set<string> | null; path: string; index: number; key: string; expectKey: boolean }
-
-const childPath = (top: Frame | undefined): string =>
-  !top ? '' : top.keys ? keyPath(top.path, top.key) : indexPath(top.path, top.index);
-
-// A number token that reads as 0 though its digits are not all zero (1e-400) underflowed.
+// A number that reads as 0 though a digit before its exponent is not zero (1e-400) underflowed.
 const UNDERFLOW = /^-?[0-9.]*[1-9]/;
 
-/**
- * The first problem only the text shows, in `text`, which must already be valid JSON: a key that
- * appears twice in one object (JSON.parse keeps the last value and drops the first without a
- * word), or a non-zero number too small to be held (JSON.parse reads 1e-400 as 0).
- */
-export function textProblem(text: string): JsonProblem | null {
-  const stack: Frame[] = [];
-  for (let i = 0; i < text.length; i++) {
-    const c = text[i];
-    const top = stack[stack.length - 1];
-    if (c === '"') {
-      let j = i + 1;
-      while (text[j] !== '"') j += text[j] === '\\' ? 2 : 1;
-      if (top?.keys && top.expectKey) {
-        const raw = text.slice(i, j + 1);
-        const key = raw.includes('\\') ? (JSON.parse(raw) as string) : raw.slice(1, -1);
-        if (top.keys.has(key)) return { path: keyPath(top.path, key), message: 'appears twice in the same object' };
-        top.keys.add(key);
-        top.key = key;
-        top.expectKey = false;
-      }
-      i = j;
-    } else if (c === '-' || (c >= '0' && c <= '9')) {
-      let j = i + 1;
-      while (j < text.length && /[0-9eE.+-]/.test(text[j])) j++;
-      const token = text.slice(i, j);
-      if (Number(token) === 0 && UNDERFLOW.test(token)) return { path: childPath(top), message: 'is a non-zero number too small to be stored (it would read as 0)' };
-      i = j - 1;
-    } else if (c === '{' || c === '[') {
-      stack.push({ keys: c === '{' ? new Set() : null, path: childPath(top), index: 0, key: '', expectKey: c === '{' });
-    } else if (c === '}' || c === ']') {
-      stack.pop();
-    } else if (c === ',' && top) {
-      if (top.keys) top.expectKey = true;
-      else top.index++;
+// Depth-first over the syntax tree, so the first problem in reading order is the one reported.
+// Only called once jsonValueProblem has capped the depth, so the recursion is bounded.
+function findInTree(node: AnyNode, path: (string | number)[], text: string): JsonIssue | null {
+  if (node.type === 'Number') {
+    const raw = text.slice(node.loc.start.offset, node.loc.end.offset);
+    return node.value === 0 && UNDERFLOW.test(raw) ? { path: pathOf(path), message: 'is a non-zero number too small to be stored (it would read as 0)' } : null;
+  }
+  if (node.type === 'Array') {
+    for (let i = 0; i < node.elements.length; i++) {
+      const found = findInTree(node.elements[i].value, [...path, i], text);
+      if (found) return found;
     }
+  }
+  if (node.type !== 'Object') return null;
+  const seen = new Map<string, string>();
+  for (const member of node.members) {
+    const key = member.name.type === 'String' ? member.name.value : member.name.name;
+    const { line, column } = member.name.loc.start;
+    const where = `line ${line}, column ${column}`;
+    const first = seen.get(key);
+    if (first !== undefined) {
+      return { path: pathOf([...path, key]), message: `the key "${visible(key)}" appears twice in one object (${first} and ${where}); `
+        + 'JSON readers would silently keep only the last one, so give each key once' };
+    }
+    seen.set(key, where);
+    const found = findInTree(member.value, [...path, key], text);
+    if (found) return found;
   }
   return null;
 }
 
-/** The path of the first key that appears twice in one object of `text` (valid JSON), or null. */
-export function duplicateKeyPath(text: string): string | null {
-  const problem = textProblem(text);
-  return problem && problem.message.startsWith('appears twice') ? problem.path : null;
-}
+const pathOf = (parts: readonly Part[]): string => pathText(parts, '') || ROOT_PATH;
 
-/** Parses JSON text and applies every check above; a syntax error is a problem at the root. */
+/**
+ * Parses JSON text like JSON.parse, but refuses what JSON.parse would silently change or what later
+ * code cannot hold (see above), within `limits`. Never throws: a problem comes back as
+ * `{ path, message }`, the root named "(input)", invisible characters named.
+ */
 export function parseStrictJson(text: string, limits: JsonLimits = JSON_LIMITS): StrictJsonResult {
+  const body = text.startsWith(BOM) ? text.slice(BOM.length) : text;
   let value: unknown;
   try {
-    value = JSON.parse(text);
-  } catch {
-    return { ok: false, problem: { path: '', message: 'is not valid JSON' } };
+    value = JSON.parse(body);
+  } catch (e) {
+    return { ok: false, issue: { path: ROOT_PATH, message: `not valid JSON: ${visible((e as Error).message)}` } };
   }
-  const problem = jsonValueProblem(value, limits) ?? textProblem(text);
-  return problem ? { ok: false, problem } : { ok: true, value };
+  const problem = jsonValueProblem(value, limits);
+  if (problem) return { ok: false, issue: { path: problem.path || ROOT_PATH, message: problem.message } };
+  if (value === null || typeof value !== 'object') return { ok: true, value };
+  const found = findInTree(parse(body, { mode: 'json' }).body, [], body);
+  return found ? { ok: false, issue: found } : { ok: true, value };
 }

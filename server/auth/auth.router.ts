@@ -40,6 +40,8 @@ export function authRouter(sequelize: Sequelize, passport: Passport, config: Con
     // passport ≥ 0.6 regenerates the session on login, so a planted session id is useless.
     await new Promise<void>((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
     req.session.startedAt = Date.now();
+    req.session.clientIp = req.ip ?? '';
+    req.session.userAgent = req.get('user-agent') ?? '';
     await service.recordSignIn(signedInActor(req));
     res.json(sessionBody(req, user, config));
   });
@@ -52,7 +54,8 @@ export function authRouter(sequelize: Sequelize, passport: Passport, config: Con
   });
 
   router.post('/auth/password', requireSignIn, validate({ body: changePasswordSchema }), async (req, res) => {
-    await service.changePassword(req.ability, signedInActor(req), req.body.currentPassword, req.body.newPassword);
+    // Every other session of the person ends with the old password; this one stays signed in.
+    await service.changePassword(req.ability, signedInActor(req), req.body.currentPassword, req.body.newPassword, req.sessionID);
     res.status(204).end();
   });
 

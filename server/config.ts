@@ -53,6 +53,12 @@ const envSchema = z.object({
   ATTACHMENT_MAX_MB: z.coerce.number().positive().max(500).default(20),
   EVIDENCE_PACK_MAX_MB: z.coerce.number().positive().max(2000).default(100),
   REPORT_FONT_DIR: z.string().default('/usr/share/fonts/truetype/dejavu'),
+  // Evidence-pack checks and report PDFs run in worker threads: how many at once, each worker's
+  // heap limit, and how many may wait before a 503. Unpacked pack bytes live outside the heap and
+  // are bounded per job by twice EVIDENCE_PACK_MAX_MB, so at most WORK_THREADS times that at once.
+  WORK_THREADS: z.coerce.number().int().min(1).max(16).default(2),
+  WORK_MEMORY_MB: z.coerce.number().int().min(64).max(4096).default(512),
+  WORK_QUEUE: z.coerce.number().int().min(0).max(1000).default(32),
 });
 
 /**

@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import { z } from 'zod';
 
 /**
@@ -56,7 +57,8 @@ const envSchema = z.object({
   // Evidence-pack checks and report PDFs run in worker threads: how many at once, each worker's
   // heap limit, and how many may wait before a 503. Unpacked pack bytes live outside the heap and
   // are bounded per job by twice EVIDENCE_PACK_MAX_MB, so at most WORK_THREADS times that at once.
-  WORK_THREADS: z.coerce.number().int().min(1).max(16).default(2),
+  // By default one core is left to the event loop.
+  WORK_THREADS: z.coerce.number().int().min(1).max(16).default(Math.min(4, Math.max(1, availableParallelism() - 1))),
   WORK_MEMORY_MB: z.coerce.number().int().min(64).max(4096).default(512),
   WORK_QUEUE: z.coerce.number().int().min(0).max(1000).default(32),
 });

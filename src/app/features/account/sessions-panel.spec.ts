@@ -5,6 +5,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import type { ActiveSessionDto } from '../../../../shared/schemas/session-list.schema';
 import { SessionsPanel } from './sessions-panel';
+import { browserLabel } from './browser-label';
 
 jest.setTimeout(30_000);
 
@@ -52,6 +53,12 @@ describe('sessions panel', () => {
     const buttons = await TestbedHarnessEnvironment.loader(fixture).getAllHarnesses(MatButtonHarness.with({ text: 'End session' }));
     expect(buttons).toHaveLength(1);
     expect(await (await buttons[0].host()).getAttribute('aria-label')).toBe('End the session of Phone browser from 192.0.2.44');
+  });
+
+  it('when a browser sends a full user-agent string, then a short name is shown with the full string on hover', () => {
+    expect(browserLabel('Mozilla/5.0 (Windows NT 10.0; Win64; x64; rv:133.0) Gecko/20100101 Firefox/133.0')).toBe('Firefox 133 on Windows');
+    expect(browserLabel('Mozilla/5.0 (X11; Linux x86_64) AppleWebKit/537.36 (KHTML, like Gecko) Chrome/131.0.0.0 Safari/537.36')).toBe('Chrome 131 on Linux');
+    expect(browserLabel(null)).toBe('Unknown browser');
   });
 
   it('when the other session is ended, then the server is asked to end it and the list reloads without it', async () => {

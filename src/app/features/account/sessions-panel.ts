@@ -4,6 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import type { ActiveSessionDto } from '../../../../shared/schemas/session-list.schema';
 import { toHttpFailure } from '../../core/errors/http-failure';
 import { SessionsApi } from './sessions-api';
+import { browserLabel } from './browser-label';
 
 /** Where you are signed in; end any session you do not recognise. A password change ends all but this one. */
 @Component({
@@ -18,7 +19,7 @@ import { SessionsApi } from './sessions-api';
       @for (s of rows(); track s.id) {
         <li [class.current]="s.current">
           <div class="what">
-            <strong>{{ s.userAgent || 'Unknown browser' }}</strong>
+            <strong [attr.title]="s.userAgent">{{ label(s) }}</strong>
             @if (s.current) { <span class="here">this session</span> }
           </div>
           <div class="tt-muted small">
@@ -26,7 +27,7 @@ import { SessionsApi } from './sessions-api';
           </div>
           @if (!s.current) {
             <button mat-stroked-button type="button" [disabled]="ending() === s.id" (click)="end(s)"
-                    [attr.aria-label]="'End the session of ' + (s.userAgent || 'an unknown browser') + ' from ' + (s.ip || 'an unknown address')">End session</button>
+                    [attr.aria-label]="'End the session of ' + label(s) + ' from ' + (s.ip || 'an unknown address')">End session</button>
           }
         </li>
       }
@@ -38,7 +39,7 @@ import { SessionsApi } from './sessions-api';
     .sessions { list-style: none; padding: 0; margin: 8px 0 0; display: grid; gap: 12px; }
     li { display: grid; gap: 4px; justify-items: start; }
     .what { display: flex; gap: 8px; align-items: baseline; overflow-wrap: anywhere; }
-    .here { font-size: 12px; padding: 0 6px; border-radius: 8px; background: var(--mat-sys-secondary-container); }
+    .here { flex: none; white-space: nowrap; font-size: 12px; padding: 0 6px; border-radius: 8px; background: var(--mat-sys-secondary-container); }
     .problem { color: var(--tt-fail); }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -49,6 +50,10 @@ export class SessionsPanel {
   protected readonly rows = computed(() => (this.sessions.hasValue() ? this.sessions.value() : []));
   protected readonly ending = signal<string | null>(null);
   protected readonly problem = signal<string | null>(null);
+
+  protected label(s: ActiveSessionDto): string {
+    return browserLabel(s.userAgent);
+  }
 
   /** Called after a password change, which ends the other sessions on the server. */
   reload(): void {

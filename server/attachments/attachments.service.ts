@@ -11,7 +11,7 @@ import { loadRevision } from '../calcs/calc-access';
 import { ObjectStore } from './object-store';
 import { ACCEPTED_TYPE_NAMES, detectMediaType } from './content-type';
 import { READ_ONLY_STATES, cleanFileName, mayAddFiles, toAttachmentDto } from './attachment-access';
-import { assertProjectOpen } from '../projects/project-open';
+import { assertProjectOpen, isProjectArchived } from '../projects/project-open';
 
 export interface UploadedFile { buffer: Buffer; originalname: string }
 
@@ -23,7 +23,7 @@ export class AttachmentsService {
     ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
     const revision = await loadRevision(revisionId);
     const rows = await Attachment.findAll({ where: { revisionId }, order: [['id', 'ASC']] });
-    return { items: rows.map(toAttachmentDto), canAdd: mayAddFiles(ability, revision), maxBytes: this.maxBytes, acceptedTypes: ACCEPTED_TYPE_NAMES };
+    return { items: rows.map(toAttachmentDto), canAdd: mayAddFiles(ability, revision) && !(await isProjectArchived(revision.calcId)), maxBytes: this.maxBytes, acceptedTypes: ACCEPTED_TYPE_NAMES };
   }
 
   async upload(ability: AppAbility, actor: Actor & { id: number }, revisionId: number, file: UploadedFile | undefined, fields: UploadFields): Promise<AttachmentDto> {

@@ -9,9 +9,17 @@ import { AppError } from '../errors/app-error';
  * before the archive is simply earlier than it.
  */
 export async function assertProjectOpen(calcId: number, transaction?: Transaction): Promise<void> {
-  const calc = await Calc.findByPk(calcId, { attributes: ['id', 'projectId'], include: [{ model: Project, attributes: ['id', 'code', 'status'] }], transaction });
-  const project = (calc as (Calc & { Project?: Project }) | null)?.Project;
+  const project = await projectOf(calcId, transaction);
   if (project?.status === 'archived') {
     throw new AppError('archived', 409, `Project ${project.code} is archived: its calcs are read-only. An administrator can reopen the project.`);
   }
+}
+
+export async function isProjectArchived(calcId: number): Promise<boolean> {
+  return (await projectOf(calcId))?.status === 'archived';
+}
+
+async function projectOf(calcId: number, transaction?: Transaction): Promise<Project | undefined> {
+  const calc = await Calc.findByPk(calcId, { attributes: ['id', 'projectId'], include: [{ model: Project, attributes: ['id', 'code', 'status'] }], transaction });
+  return (calc as (Calc & { Project?: Project }) | null)?.Project;
 }

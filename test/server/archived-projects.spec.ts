@@ -87,7 +87,10 @@ describe('an archived project is read-only', () => {
     const calc = expectStatus(await t.author.session.get(`/api/calcs/${calcId}`), 200, 'read calc');
     const list = expectStatus(await t.author.session.get(`/api/calcs?projectId=${calc.body.projectId}`), 200, 'list');
 
+    const files = expectStatus(await t.author.session.get(`/api/revisions/${t.revisionId}/attachments`), 200, 'attachments');
+
     expect(calc.body.projectArchived).toBe(true);
     expect(list.body.items.map((c: { projectArchived: boolean }) => c.projectArchived)).toEqual([true]);
+    expect(files.body.canAdd).toBe(false);
   });
 });

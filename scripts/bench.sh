@@ -1,5 +1,6 @@
 #!/usr/bin/env bash
-# `npm run bench`: engine and checklist throughput, then impact analysis in a throw-away MariaDB.
+# `npm run bench`: engine and checklist throughput, then impact analysis and the event loop under heavy
+# work (evidence packs and reports) in a throw-away MariaDB.
 # Prints figures; tests never depend on them.
 set -uo pipefail
 cd "$(dirname "$0")/.."
@@ -18,5 +19,7 @@ export DB_HOST=127.0.0.1 DB_PORT
 trap 'db_stop; rm -rf "$dir"' EXIT
 db_ensure_schema "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
 npx tsx scripts/bench-impact.ts
+echo
+MAIL_SENDER=false npx tsx scripts/bench-stall.ts
 echo
 echo "Figures measure this machine at this moment; they support, never replace, engineering judgement of the product's fitness."

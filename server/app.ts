@@ -10,9 +10,11 @@ import { createPassport } from './auth/passport';
 import { csrfProtection } from './auth/csrf';
 import { authRouter } from './auth/auth.router';
 import { secondFactorRouter } from './auth/second-factor.router';
+import { sessionsRouter } from './auth/sessions.router';
 import { attachAbility } from './authz/actor';
 import { requireSignIn } from './authz/require-sign-in';
 import { usersRouter } from './users/users.router';
+import { roleGrantsRouter } from './users/role-grants.router';
 import { projectsRouter } from './projects/projects.router';
 import { auditRouter } from './audit/audit.router';
 import { dashboardRouter } from './dashboard/dashboard.router';
@@ -48,7 +50,9 @@ export function createApp({ sequelize, config }: AppDeps): Express {
 
   app.use('/api', authRouter(sequelize, passport, config));
   app.use('/api/auth/second-factor', requireSignIn, secondFactorRouter(sequelize));
+  app.use('/api/auth/sessions', requireSignIn, sessionsRouter(sequelize));
   app.use('/api/users', requireSignIn, usersRouter(sequelize));
+  app.use('/api/role-grants', requireSignIn, roleGrantsRouter(sequelize));
   app.use('/api/projects', requireSignIn, projectsRouter(sequelize));
   app.use('/api/audit', requireSignIn, auditRouter());
   app.use('/api/dashboard', requireSignIn, dashboardRouter());

@@ -36,6 +36,8 @@ async function signInRecorded(service: AuthService, req: Request, user: SessionU
   await new Promise<void>((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
   try {
     req.session.startedAt = Date.now();
+    req.session.clientIp = clientIp(req) ?? '';
+    req.session.userAgent = req.get('user-agent') ?? '';
     await service.recordSignIn({ id: user.id, name: user.displayName, ip: clientIp(req) });
   } catch (err) {
     await endSession(req);
@@ -74,7 +76,8 @@ export function authRouter(sequelize: Sequelize, passport: Passport, config: Con
   });
 
   router.post('/auth/password', requireSignIn, validate({ body: changePasswordSchema }), async (req, res) => {
-    await service.changePassword(req.ability, signedInActor(req), req.body.currentPassword, req.body.newPassword);
+    // Every other session of the person ends with the old password; this one stays signed in.
+    await service.changePassword(req.ability, signedInActor(req), req.body.currentPassword, req.body.newPassword, req.sessionID);
     res.status(204).end();
   });
 

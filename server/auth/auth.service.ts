@@ -5,6 +5,7 @@ import { User } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { hashPassword, verifyPassword } from './password';
+import { SessionsService } from './sessions.service';
 
 /** Sign-in bookkeeping and the user's own password change. */
 export class AuthService {
@@ -29,7 +30,7 @@ export class AuthService {
     await appendAudit(this.sequelize, actor, { action: 'auth.signed_out', entityType: 'User', entityId: actor.id });
   }
 
-  async changePassword(ability: AppAbility, actor: Actor & { id: number }, current: string, next: string): Promise<void> {
+  async changePassword(ability: AppAbility, actor: Actor & { id: number }, current: string, next: string, currentSid: string): Promise<void> {
     ForbiddenError.from(ability).throwUnlessCan('changePassword', subject('User', { id: actor.id }));
     const user = await User.scope('withPassword').findByPk(actor.id);
     if (!user) throw AppError.notFound('Your account');
@@ -42,7 +43,8 @@ export class AuthService {
     const passwordHash = await hashPassword(next);
     await this.sequelize.transaction(async (transaction) => {
       await User.update({ passwordHash, passwordChangedAt: new Date() }, { where: { id: actor.id }, transaction });
-      await appendAudit(this.sequelize, actor, { action: 'auth.password_changed', entityType: 'User', entityId: actor.id }, transaction);
+      const endedSessions = await new SessionsService(this.sequelize).endOthers(actor.id, currentSid, transaction);
+      await appendAudit(this.sequelize, actor, { action: 'auth.password_changed', entityType: 'User', entityId: actor.id, payload: { endedSessions } }, transaction);
     });
   }
 }

@@ -58,6 +58,7 @@ export function toCalcDto(calc: Calc & { Project?: Project }, revisions: Loaded[
   const summaries = revisions.map(toRevisionSummary).sort((a, b) => a.seq - b.seq);
   return {
     id: calc.id, projectId: calc.projectId, projectCode: calc.Project?.code ?? '', projectName: calc.Project?.name ?? '',
+    projectArchived: calc.Project?.status === 'archived',
     number: calc.number, title: calc.title, partRef: calc.partRef, createdAt: calc.createdAt.toISOString(),
     latest: summaries[summaries.length - 1], revisions: summaries,
   };

@@ -16,6 +16,7 @@ import { jsonDiff } from './content-diff';
 import { revisionLabel } from './revision-label';
 import { outcomeOf } from '../../shared/schemas/outcome';
 import { stringifyFinite } from '../../shared/json/finite-json';
+import { assertProjectOpen } from '../projects/project-open';
 
 /** Calcs and the content of their revisions. Workflow transitions live in server/workflow. */
 export class CalcsService {
@@ -64,6 +65,7 @@ export class CalcsService {
   async save(ability: AppAbility, actor: Actor & { id: number }, revisionId: number, dto: SaveRevisionRequest): Promise<RevisionDto> {
     await this.sequelize.transaction(async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
+      await assertProjectOpen(revision.calcId, transaction);
       if (!EDITABLE_STATES.includes(revision.status)) {
         throw new AppError('read_only', 409, `Revision ${revision.label} is ${revision.status.replace('_', ' ')} and cannot be edited; start a new revision to change it`);
       }

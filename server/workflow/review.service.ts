@@ -9,6 +9,7 @@ import { readRevision } from '../calcs/revision-read';
 import type { WorkflowService } from './workflow.service';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { assertAttachmentFor } from '../attachments/attachment-rules';
+import { assertProjectOpen } from '../projects/project-open';
 
 type Reviewer = Actor & { id: number };
 
@@ -19,6 +20,7 @@ export class ReviewService {
   async raiseFinding(ability: AppAbility, actor: Reviewer, revisionId: number, text: string, clauseRef?: string): Promise<RevisionDto> {
     await this.sequelize.transaction(async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
+      await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker or approver reviewing this revision can raise findings');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
       const finding = await Finding.create({ revisionId, text, clauseRef: clauseRef ?? null, raisedBy: actor.id }, { transaction });
@@ -31,6 +33,7 @@ export class ReviewService {
     const revisionId = await this.sequelize.transaction(async (transaction) => {
       const finding = await this.loadFinding(findingId);
       const revision = await loadRevision(finding.revisionId, transaction);
+      await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'update', revision, 'Only the author of a returned or draft revision answers its findings');
       if (finding.status === 'closed') throw AppError.conflict('This finding is already closed');
       Object.assign(finding, { answer, answeredBy: actor.id, answeredAt: new Date(), status: 'answered' });
@@ -45,6 +48,7 @@ export class ReviewService {
     const revisionId = await this.sequelize.transaction(async (transaction) => {
       const finding = await this.loadFinding(findingId);
       const revision = await loadRevision(finding.revisionId, transaction);
+      await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker or approver reviewing this revision can close findings');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
       if (finding.status !== 'answered') throw AppError.conflict('A finding is closed once its author has answered it');
@@ -60,6 +64,7 @@ export class ReviewService {
   async returnToAuthor(ability: AppAbility, actor: Reviewer, revisionId: number, reason: string, lockVersion: number): Promise<RevisionDto> {
     await this.sequelize.transaction(async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
+      await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker (in check) or approver (checked) can return this revision');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
       if (revision.lockVersion !== lockVersion) throw AppError.conflict('The revision changed since you opened it; reload it');
@@ -76,6 +81,7 @@ export class ReviewService {
   async setManualItem(ability: AppAbility, actor: Reviewer, revisionId: number, itemId: string, done: boolean, note: string): Promise<RevisionDto> {
     await this.sequelize.transaction(async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
+      await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'check', revision, 'Manual checklist items are ticked by the independent checker while the calc is in check');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
       assertKnownItem(revision, itemId);

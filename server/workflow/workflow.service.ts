@@ -13,6 +13,7 @@ import { currentHashOf, readRevision } from '../calcs/revision-read';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { signingBlocker, type Meaning } from './independence';
 import { queueHandOverMail, type HandOverFacts } from './hand-over-mail';
+import { assertProjectOpen } from '../projects/project-open';
 
 export interface Signer extends Actor { id: number; roles: readonly Role[] }
 
@@ -34,6 +35,7 @@ export class WorkflowService {
       const earlier = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey }, transaction });
       if (earlier && earlier.revisionId === revisionId && earlier.userId === signer.id) return;
       if (earlier) throw AppError.conflict('This signing request key was already used for another signature; reload and sign again');
+      await assertProjectOpen(revision.calcId, transaction);
       if (revision.lockVersion !== dto.lockVersion) throw AppError.conflict('The revision changed since you opened it; review the new content before signing');
       await this.assertMaySign(dto.meaning, signer, revision, transaction);
       const hash = await currentHashOf(revision, transaction);

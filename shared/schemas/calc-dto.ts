@@ -44,6 +44,8 @@ export interface RevisionDto extends RevisionSummary {
 
 export interface CalcDto {
   id: number; projectId: number; projectCode: string; projectName: string;
+  /** The project is archived: the calc is a closed, read-only record. */
+  projectArchived: boolean;
   number: string; title: string; partRef: string; createdAt: string;
   latest: RevisionSummary;
   revisions: RevisionSummary[];

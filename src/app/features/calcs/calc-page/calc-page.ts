@@ -24,7 +24,7 @@ import { RevisionHistory } from './revision-history';
 import { MinimumDiameters } from './minimum-diameters';
 import { AttachmentsPanel } from './attachments-panel';
 import { RecordExports } from './record-exports';
-import { planActions } from './revision-actions';
+import { planActions, type RevisionAction } from './revision-actions';
 import { SignDialog, type SignDialogData } from './sign-dialog';
 import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
 
@@ -51,7 +51,13 @@ export default class CalcPage {
   protected readonly revision = this.api.revision(this.selectedId);
   protected readonly current = linkedSignal<RevisionDto | undefined>(() => this.revision.value());
   protected readonly isLatest = computed(() => this.current()?.id === this.calc.value()?.latest.id);
-  protected readonly plan = computed(() => (this.current() ? planActions(this.current()!, this.me(), this.isLatest()) : null));
+  protected readonly plan = computed(() => {
+    const r = this.current();
+    if (!r) return null;
+    // An archived project is a closed record: the server refuses every write, so nothing is offered.
+    if (this.calc.value()?.projectArchived) return { actions: new Set<RevisionAction>(), nextStep: 'Nothing more happens here: the project is archived.' };
+    return planActions(r, this.me(), this.isLatest());
+  });
   protected readonly checklist = computed(() => (this.current()?.checklist ?? null) as Checklist | null);
   protected readonly result = computed(() => (this.current()?.result ?? null) as CalcResult | null);
   protected readonly manualRows = computed(() => {

@@ -8,6 +8,7 @@ import { sessionMiddleware, absoluteSessionLimit } from './auth/session';
 import { createPassport } from './auth/passport';
 import { csrfProtection } from './auth/csrf';
 import { authRouter } from './auth/auth.router';
+import { healthCheck } from './http/health';
 import { secondFactorRouter } from './auth/second-factor.router';
 import { attachAbility } from './authz/actor';
 import { requireSignIn } from './authz/require-sign-in';
@@ -40,6 +41,7 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   app.set('trust proxy', config.TRUST_PROXY);
 
   app.use(securityHeaders(config));
+  app.get('/api/health', healthCheck(sequelize));
   app.use('/api', express.json({ limit: '1mb' }));
   app.use('/api', sessionMiddleware(sequelize, config), absoluteSessionLimit(config));
   app.use('/api', passport.session(), attachAbility);

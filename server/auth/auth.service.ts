@@ -5,6 +5,7 @@ import { User } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { hashPassword, verifyPassword } from './password';
+import { runTransaction } from '../db/transaction';
 
 /** Sign-in bookkeeping and the user's own password change. */
 export class AuthService {
@@ -37,7 +38,7 @@ export class AuthService {
       throw new AppError('validation', 400, 'New password must differ from the current one', { fieldErrors: { newPassword: ['must differ from the current one'] } });
     }
     const passwordHash = await hashPassword(next);
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       await User.update({ passwordHash, passwordChangedAt: new Date() }, { where: { id: actor.id }, transaction });
       await appendAudit(this.sequelize, actor, { action: 'auth.password_changed', entityType: 'User', entityId: actor.id }, transaction);
     });

@@ -11,6 +11,7 @@ import { readRevision } from './revision-read';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { revisionLabel } from './revision-label';
 import { stored, type CalcsService } from './calcs.service';
+import { runTransaction } from '../db/transaction';
 
 /** Starting and ending revisions: a new revision after approval, or withdrawing a draft. */
 export class LifecycleService {
@@ -22,7 +23,7 @@ export class LifecycleService {
    */
   async newRevision(ability: AppAbility, actor: Actor & { id: number }, calcId: number, reasonForChange: string): Promise<RevisionDto> {
     ForbiddenError.from(ability).setMessage('Only authors start new revisions').throwUnlessCan('create', 'Calc');
-    const id = await this.sequelize.transaction(async (transaction) => {
+    const id = await runTransaction(this.sequelize, async (transaction) => {
       const calc = await loadCalc(calcId, transaction);
       const latest = await Revision.findOne({ where: { calcId }, order: [['seq', 'DESC']], transaction, lock: transaction.LOCK.UPDATE });
       if (!latest || !['approved', 'withdrawn'].includes(latest.status)) {
@@ -49,7 +50,7 @@ export class LifecycleService {
   }
 
   async withdraw(ability: AppAbility, actor: Actor & { id: number }, revisionId: number, reason: string, lockVersion: number): Promise<RevisionDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
       assertCan(ability, 'update', revision, 'Only the author can withdraw a draft or returned revision');
       if (revision.lockVersion !== lockVersion) throw AppError.conflict('The revision changed since you opened it; reload it');

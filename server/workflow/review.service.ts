@@ -9,6 +9,7 @@ import { readRevision } from '../calcs/revision-read';
 import type { WorkflowService } from './workflow.service';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { assertAttachmentFor } from '../attachments/attachment-rules';
+import { runTransaction } from '../db/transaction';
 
 type Reviewer = Actor & { id: number };
 
@@ -17,7 +18,7 @@ export class ReviewService {
   constructor(private readonly sequelize: Sequelize, private readonly workflow: WorkflowService) {}
 
   async raiseFinding(ability: AppAbility, actor: Reviewer, revisionId: number, text: string, clauseRef?: string): Promise<RevisionDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker or approver reviewing this revision can raise findings');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
@@ -28,7 +29,7 @@ export class ReviewService {
   }
 
   async answerFinding(ability: AppAbility, actor: Reviewer, findingId: number, answer: string): Promise<RevisionDto> {
-    const revisionId = await this.sequelize.transaction(async (transaction) => {
+    const revisionId = await runTransaction(this.sequelize, async (transaction) => {
       const finding = await this.loadFinding(findingId);
       const revision = await loadRevision(finding.revisionId, transaction);
       assertCan(ability, 'update', revision, 'Only the author of a returned or draft revision answers its findings');
@@ -42,7 +43,7 @@ export class ReviewService {
   }
 
   async closeFinding(ability: AppAbility, actor: Reviewer, findingId: number): Promise<RevisionDto> {
-    const revisionId = await this.sequelize.transaction(async (transaction) => {
+    const revisionId = await runTransaction(this.sequelize, async (transaction) => {
       const finding = await this.loadFinding(findingId);
       const revision = await loadRevision(finding.revisionId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker or approver reviewing this revision can close findings');
@@ -58,7 +59,7 @@ export class ReviewService {
 
   /** Back to the author: the reason becomes an open finding they must answer before resubmitting. */
   async returnToAuthor(ability: AppAbility, actor: Reviewer, revisionId: number, reason: string, lockVersion: number): Promise<RevisionDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker (in check) or approver (checked) can return this revision');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
@@ -74,7 +75,7 @@ export class ReviewService {
   }
 
   async setManualItem(ability: AppAbility, actor: Reviewer, revisionId: number, itemId: string, done: boolean, note: string): Promise<RevisionDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
       assertCan(ability, 'check', revision, 'Manual checklist items are ticked by the independent checker while the calc is in check');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);

@@ -48,7 +48,7 @@ export class ApiClient {
     if (ms > HANG_MS && reply.status !== 0) this.tally.hangs++;
     this.tally.slowestMs = Math.max(this.tally.slowestMs, ms);
     this.tally.byStatus[reply.status] = (this.tally.byStatus[reply.status] ?? 0) + 1;
-    if (body && 'csrfToken' in (reply.body ?? {}) && typeof reply.body.csrfToken === 'string') this.csrf = reply.body.csrfToken;
+    if (body && typeof reply.body?.csrfToken === 'string') this.csrf = reply.body.csrfToken;
     return reply;
   }
 

@@ -42,7 +42,7 @@ function config(cluster: GaleraCluster, checks: Map<GaleraNode, number>, apps: n
 defaults
   timeout connect 2s
   timeout queue 5s
-  timeout check 2s
+  timeout check 3s
 listen galera
   mode tcp
   bind 127.0.0.1:${ends.dbPort}
@@ -50,7 +50,7 @@ listen galera
   timeout server 120s
   option httpchk GET /
   http-check expect status 200
-  default-server inter 500ms fall 2 rise 2 on-marked-down shutdown-sessions
+  default-server inter 500ms fall 3 rise 2 on-marked-down shutdown-sessions
   # One node takes every write; the others are hot standbys (no certification conflicts in normal running).
   # When the writer returns, sessions left on a standby are closed so writes go back to one node.
 ${dbServer(writer, false)} on-marked-up shutdown-backup-sessions

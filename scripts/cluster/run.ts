@@ -2,7 +2,8 @@
 // instances, four clients doing complete sign-offs while one database node and one app instance
 // are killed with SIGKILL and brought back. Prints what it saw; exits 1 on any broken promise.
 import path from 'node:path';
-import { execFileSync } from 'node:child_process';
+import { execFile } from 'node:child_process';
+import { promisify } from 'node:util';
 import { GaleraCluster } from './galera';
 import { serverStates, startHaproxy, startNodeChecks } from './haproxy';
 import { Processes, freePort, waitFor } from './processes';
@@ -44,7 +45,8 @@ async function main(root: string): Promise<number> {
       PUBLIC_URL: `http://127.0.0.1:${ends.webPort}`,
     };
     await waitFor('HAProxy to route to the writer node', async () => (await serverStates(ends))['galera/db1'] === 'UP');
-    execFileSync(process.execPath, ['--import', 'tsx', 'server/db/migrate.ts', 'up'], { env, stdio: ['ignore', 'ignore', 'inherit'] });
+    // Not execFileSync: this process answers HAProxy's node checks and must keep its event loop free.
+    await promisify(execFile)(process.execPath, ['--import', 'tsx', 'server/db/migrate.ts', 'up'], { env });
     const data = await setUpData(env, CLIENTS);
     const apps = new AppInstances(procs, env, appPorts, root);
     await Promise.all(apps.ports.map((_p, i) => apps.start(i)));

@@ -6,9 +6,11 @@ export interface Tally {
   /** 503s that came without a Retry-After header. */
   unclean503: number;
   slowestMs: number;
+  /** Requests that got no HTTP answer at all, and why (the client retries them). */
+  noAnswer: string[];
 }
 
-export const newTally = (): Tally => ({ byStatus: {}, hangs: 0, unclean503: 0, slowestMs: 0 });
+export const newTally = (): Tally => ({ byStatus: {}, hangs: 0, unclean503: 0, slowestMs: 0, noAnswer: [] });
 
 export interface Reply { status: number; body: any; retryAfter: number }
 
@@ -43,6 +45,7 @@ export class ApiClient {
     } catch (err) {
       if ((err as Error).name === 'TimeoutError') this.tally.hangs++;
       reply = { status: 0, body: String((err as Error).cause ?? err), retryAfter: 1 };
+      this.tally.noAnswer.push(`${new Date().toISOString()} ${method} ${url}: ${reply.body}`);
     }
     const ms = Date.now() - started;
     if (ms > HANG_MS && reply.status !== 0) this.tally.hangs++;

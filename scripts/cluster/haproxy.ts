@@ -39,7 +39,9 @@ function config(cluster: GaleraCluster, checks: Map<GaleraNode, number>, apps: n
   const dbServer = (n: GaleraNode, backup: boolean) => `  server ${n.name} 127.0.0.1:${n.port} check port ${checks.get(n)}${backup ? ' backup' : ''}`;
   return `global
   maxconn 4000
+  log stdout format raw local0
 defaults
+  log global
   timeout connect 2s
   timeout queue 5s
   timeout check 3s
@@ -57,6 +59,8 @@ ${dbServer(writer, false)} on-marked-up shutdown-backup-sessions
 ${others.map((n) => dbServer(n, true)).join('\n')}
 listen web
   mode http
+  # One line per request in haproxy.log, with how it ended (e.g. "SH--": the instance died mid-answer).
+  option httplog
   bind 127.0.0.1:${ends.webPort}
   timeout client 30s
   # The longest a request waits for an app instance; beyond it the client gets the 503 below.

@@ -94,6 +94,7 @@ async function main(root: string): Promise<number> {
     const runSeconds = (Date.now() - runStart) / 1000;
     log(`${completed} sign-offs done in ${runSeconds.toFixed(1)} s; responses by status ${JSON.stringify(tally.byStatus)}; slowest ${tally.slowestMs} ms`);
 
+    for (const line of tally.noAnswer) log(`no HTTP answer (the client looked and retried): ${line}`);
     for (const node of cluster.nodes) await cluster.waitSynced(node);
     const problems: string[] = [];
     if (tally.hangs) problems.push(`${tally.hangs} requests waited longer than 10 s`);

@@ -7,9 +7,11 @@ import { BaseError, ConnectionError, DatabaseError, TimeoutError } from 'sequeli
  * - 1205 ER_LOCK_WAIT_TIMEOUT: a lock was not granted in time. We roll the transaction back ourselves.
  * - 1047 ER_UNKNOWN_COM_ERROR ("WSREP has not yet prepared node for application use"): the node
  *   left the primary component or is still joining; the statement was refused before it ran.
+ * - 1180 ER_ERROR_DURING_COMMIT: the commit itself failed and was rolled back; Galera reports so a
+ *   node that lost the primary component while a failed node was being dropped from the cluster.
  * - 1927 ER_CONNECTION_KILLED and 4031 (idle disconnect): the server ended the connection.
  */
-const ROLLED_BACK_CODES = new Set([1213, 1205, 1047]);
+const ROLLED_BACK_CODES = new Set([1213, 1205, 1047, 1180]);
 const CONNECTION_CODES = new Set([1927, 4031, 2006, 2013]);
 // Codes of the mariadb connector for a socket that closed or never opened.
 const CONNECTOR_CODES = new Set(['ER_SOCKET_UNEXPECTED_CLOSE', 'ER_CONNECTION_TIMEOUT', 'ER_GET_CONNECTION_TIMEOUT',
@@ -35,6 +37,6 @@ export function classifyDbError(err: unknown): DbFault {
   if (d.errno !== undefined && CONNECTION_CODES.has(d.errno)) return 'connection';
   if (d.code && CONNECTOR_CODES.has(d.code)) return 'connection';
   if (err instanceof ConnectionError || err instanceof TimeoutError) return 'connection';
-  if (err instanceof DatabaseError && /WSREP|wsrep/.test(err.message)) return 'rolled_back';
+  if (err instanceof DatabaseError && /WSREP|Primary Component/i.test(err.message)) return 'rolled_back';
   return undefined;
 }

@@ -21,5 +21,10 @@ db_ensure_schema "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
 npx tsx scripts/bench-impact.ts
 echo
 MAIL_SENDER=false npx tsx scripts/bench-stall.ts
+# The writers bench uploads files: object storage (and the fake SMTP server) on free ports.
+export SMTP_HOST=127.0.0.1 SMTP_PORT=$(free_port) S3_ENDPOINT="http://127.0.0.1:$(free_port)" S3_BUCKET=torquetrail-bench MAIL_SENDER=false
+fakes_start "$dir/fakes"
+trap 'fakes_stop; db_stop; rm -rf "$dir"' EXIT
+npx tsx scripts/bench-writers.ts
 echo
 echo "Figures measure this machine at this moment; they support, never replace, engineering judgement of the product's fitness."

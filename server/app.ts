@@ -9,6 +9,7 @@ import { sessionMiddleware, absoluteSessionLimit } from './auth/session';
 import { createPassport } from './auth/passport';
 import { csrfProtection } from './auth/csrf';
 import { authRouter } from './auth/auth.router';
+import { healthCheck } from './http/health';
 import { secondFactorRouter } from './auth/second-factor.router';
 import { sessionsRouter } from './auth/sessions.router';
 import { attachAbility } from './authz/actor';
@@ -43,6 +44,7 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   app.set('trust proxy', config.TRUST_PROXY);
 
   app.use(securityHeaders(config));
+  app.get('/api/health', healthCheck(sequelize));
   app.use('/api', jsonBody('1mb'));
   app.use('/api', sessionMiddleware(sequelize, config), absoluteSessionLimit(config));
   app.use('/api', passport.session(), attachAbility);

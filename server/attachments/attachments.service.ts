@@ -12,6 +12,7 @@ import { ObjectStore } from './object-store';
 import { ACCEPTED_TYPE_NAMES, detectMediaType } from './content-type';
 import { READ_ONLY_STATES, cleanFileName, mayAddFiles, toAttachmentDto } from './attachment-access';
 import { assertProjectOpen, isProjectArchived } from '../projects/project-open';
+import { runTransaction } from '../db/transaction';
 
 export interface UploadedFile { buffer: Buffer; originalname: string }
 
@@ -34,7 +35,7 @@ export class AttachmentsService {
     await this.assertMayAdd(ability, await loadRevision(revisionId));
     // Bytes first: an orphaned blob after a failed insert is harmless, a row without bytes is not.
     await this.store.putIfAbsent(key, file.buffer, mediaType);
-    const id = await this.sequelize.transaction(async (transaction) => {
+    const id = await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
       await this.assertMayAdd(ability, revision, transaction);
       const row = await Attachment.create({
@@ -59,7 +60,7 @@ export class AttachmentsService {
 
   /** Only the uploader removes a file, and only before the revision is submitted. */
   async remove(ability: AppAbility, actor: Actor & { id: number }, id: number): Promise<void> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const row = await Attachment.findByPk(id, { transaction });
       if (!row) throw AppError.notFound(`Attachment ${id}`);
       const revision = await loadRevision(row.revisionId, transaction);

@@ -3,6 +3,7 @@ import { Op, QueryTypes } from 'sequelize';
 import canonicalize from 'canonicalize';
 import { AuditEvent } from '../db/models';
 import { chainHash, GENESIS_HASH, type ChainedContent } from './audit-chain';
+import { runTransaction } from '../db/transaction';
 
 export interface Actor {
   id: number | null;
@@ -53,7 +54,7 @@ export async function appendAudit(
     });
   };
   if (transaction) return run(transaction);
-  return sequelize.transaction(run);
+  return runTransaction(sequelize, run);
 }
 
 /**

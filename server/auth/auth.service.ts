@@ -6,6 +6,7 @@ import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { hashPassword, verifyPassword } from './password';
 import { SessionsService } from './sessions.service';
+import { runTransaction } from '../db/transaction';
 
 /** Sign-in bookkeeping and the user's own password change. */
 export class AuthService {
@@ -13,7 +14,7 @@ export class AuthService {
 
   /** The sign-in's audit entry and last-sign-in time, together or not at all. */
   async recordSignIn(actor: Actor & { id: number }): Promise<void> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       await User.update({ lastSignInAt: new Date() }, { where: { id: actor.id }, transaction });
       await appendAudit(this.sequelize, actor, { action: 'auth.signed_in', entityType: 'User', entityId: actor.id }, transaction);
     });
@@ -41,7 +42,7 @@ export class AuthService {
       throw new AppError('validation', 400, 'New password must differ from the current one', { fieldErrors: { newPassword: ['must differ from the current one'] } });
     }
     const passwordHash = await hashPassword(next);
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       await User.update({ passwordHash, passwordChangedAt: new Date() }, { where: { id: actor.id }, transaction });
       const endedSessions = await new SessionsService(this.sequelize).endOthers(actor.id, currentSid, transaction);
       await appendAudit(this.sequelize, actor, { action: 'auth.password_changed', entityType: 'User', entityId: actor.id, payload: { endedSessions } }, transaction);

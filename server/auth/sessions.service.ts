@@ -4,6 +4,7 @@ import type { ActiveSessionDto } from '../../shared/schemas/session-list.schema'
 import { Session } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
+import { runTransaction } from '../db/transaction';
 
 /** The id shown for a session. Never the session id itself: that is the bearer credential. */
 export function publicSessionId(sid: string): string {
@@ -27,7 +28,7 @@ export class SessionsService {
   }
 
   async end(actor: Actor & { id: number }, currentSid: string, publicId: string): Promise<void> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const rows = await Session.findAll({ where: { userId: actor.id }, attributes: ['sid'], transaction });
       const row = rows.find((r) => publicSessionId(r.sid) === publicId);
       if (!row) throw AppError.notFound('That session');

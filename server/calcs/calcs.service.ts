@@ -17,6 +17,7 @@ import { revisionLabel } from './revision-label';
 import { outcomeOf } from '../../shared/schemas/outcome';
 import { stringifyFinite } from '../../shared/json/finite-json';
 import { assertProjectOpen } from '../projects/project-open';
+import { runTransaction } from '../db/transaction';
 
 /** Calcs and the content of their revisions. Workflow transitions live in server/workflow. */
 export class CalcsService {
@@ -44,7 +45,7 @@ export class CalcsService {
       throw new AppError('conflict', 409, `Calc number ${dto.number} is already used in ${project.code}`, { fieldErrors: { number: ['is already used in this project'] } });
     }
     const computed = await computeRecord(dto.input, doc);
-    const calcId = await this.sequelize.transaction(async (transaction) => {
+    const calcId = await runTransaction(this.sequelize, async (transaction) => {
       const calc = await Calc.create({ projectId: project.id, number: dto.number, title: dto.title, partRef: dto.partRef, createdBy: actor.id }, { transaction });
       const revision = await Revision.create({
         calcId: calc.id, seq: 0, label: revisionLabel(project.revisionScheme, 0), authorId: actor.id, ruleSetId: record.id,
@@ -63,8 +64,10 @@ export class CalcsService {
 
   /** Saves the author's input. A stale `lockVersion` is a 409 carrying the stored version, never an overwrite. */
   async save(ability: AppAbility, actor: Actor & { id: number }, revisionId: number, dto: SaveRevisionRequest): Promise<RevisionDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction, attempt) => {
       const revision = await loadRevision(revisionId, transaction);
+      // A run after a COMMIT whose answer was lost: this exact save is already stored.
+      if (attempt > 1 && revision.lockVersion === dto.lockVersion + 1 && revision.input === JSON.stringify(dto.input)) return;
       await assertProjectOpen(revision.calcId, transaction);
       if (!EDITABLE_STATES.includes(revision.status)) {
         throw new AppError('read_only', 409, `Revision ${revision.label} is ${revision.status.replace('_', ' ')} and cannot be edited; start a new revision to change it`);
@@ -91,7 +94,7 @@ export class CalcsService {
         payload: { calcId: revision.calcId, revision: revision.label, lockVersion: revision.lockVersion, verdict: revision.verdict, ruleSet: `${record.code} v${record.version}` },
         diff,
       }, transaction);
-    });
+    }, { idempotent: true });
     return readRevision(ability, revisionId);
   }
 

@@ -4,6 +4,8 @@ import { UniqueConstraintError, ValidationError, OptimisticLockError } from 'seq
 import { AppError } from './app-error';
 import { logger } from '../logger';
 import { addFieldError } from '../http/validate';
+import { classifyDbError } from '../db/db-errors';
+import { unavailable } from '../db/transaction';
 
 /** JSON 404 for unknown API routes, so clients never receive the app's HTML for a typo. */
 export const apiNotFound: RequestHandler = (req, res) => {
@@ -32,6 +34,9 @@ function toAppError(err: unknown): AppError | undefined {
   if (err instanceof URIError) {
     return new AppError('bad_path', 400, 'The address is not valid: it holds a bad percent-encoding', { fieldErrors: { path: ['has a bad percent-encoding'] } });
   }
+  // A database that deadlocked, timed out or is changing over (outside a retried transaction, e.g.
+  // a read or the session store) is a clean 503 the client may retry, never a 500.
+  if (classifyDbError(err)) return unavailable(err);
   // body-parser marks malformed JSON and oversized bodies with a status and `expose`.
   const e = err as { status?: number; expose?: boolean; type?: string; code?: string; message?: string };
   if (e && typeof e.status === 'number' && e.status < 500 && e.expose) {
@@ -45,6 +50,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, next) => {
   if (res.headersSent) return next(err);
   const known = toAppError(err);
   if (known) {
+    if (known.status === 503) res.set('Retry-After', String(known.details?.retryAfterSeconds ?? 1));
     res.status(known.status).json({ code: known.code, message: known.message, ...known.details });
     return;
   }

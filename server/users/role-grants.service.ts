@@ -6,6 +6,7 @@ import type { RoleGrantDto } from '../../shared/schemas/role-grant.schema';
 import { RoleGrant, User, UserRole } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
+import { runTransaction } from '../db/transaction';
 import { verifyPassword } from '../auth/password';
 import { queueRoleChangeMail, type RoleChange } from './role-change-mail';
 
@@ -77,7 +78,7 @@ export class RoleGrantsService {
   private async decide(ability: AppAbility, actor: Person, grantId: number, status: 'confirmed' | 'refused', reason?: string): Promise<RoleGrantDto> {
     const found = await RoleGrant.findByPk(grantId);
     if (!found) throw AppError.notFound(`Role request ${grantId}`);
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       // The person's row first, then the request: the same order as a role change, so the two never deadlock.
       const user = await User.findByPk(found.userId, { include: [{ model: UserRole, as: 'roleRows' }], transaction, lock: transaction.LOCK.UPDATE });
       const grant = await RoleGrant.findByPk(grantId, { transaction, lock: transaction.LOCK.UPDATE });

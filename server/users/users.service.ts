@@ -11,6 +11,7 @@ import { appendAudit, type Actor } from '../audit/audit.service';
 import { hashPassword } from '../auth/password';
 import { toUserDto } from './user-dto';
 import { RoleGrantsService } from './role-grants.service';
+import { runTransaction } from '../db/transaction';
 
 const withRoles = { model: UserRole, as: 'roleRows' } as const;
 
@@ -47,7 +48,7 @@ export class UsersService {
     const taken = await User.findOne({ where: { username: dto.username } });
     if (taken) throw new AppError('conflict', 409, `Username "${dto.username}" is taken (usernames are never reused)`, { fieldErrors: { username: ['is already taken'] } });
     const passwordHash = await hashPassword(dto.initialPassword);
-    const id = await this.sequelize.transaction(async (transaction) => {
+    const id = await runTransaction(this.sequelize, async (transaction) => {
       const user = await User.create({ username: dto.username, displayName: dto.displayName, email: dto.email, passwordHash }, { transaction });
       const payload = { username: dto.username, displayName: dto.displayName, email: dto.email, roles: [...dto.roles].sort() };
       await appendAudit(this.sequelize, actor, { action: 'user.created', entityType: 'User', entityId: user.id, payload }, transaction);
@@ -60,7 +61,7 @@ export class UsersService {
   }
 
   async update(ability: AppAbility, actor: Actor, id: number, dto: UpdateUserRequest): Promise<UserDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const user = await this.load(id, transaction);
       const before = toUserDto(user);
       // Checked before the version and even when no field is given, so a bare `{ version }` is no back door.
@@ -85,7 +86,7 @@ export class UsersService {
   }
 
   async setActive(ability: AppAbility, actor: Actor, id: number, active: boolean): Promise<UserDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const user = await this.load(id, transaction);
       ForbiddenError.from(ability).throwUnlessCan('deactivate', subject('User', toUserDto(user)));
       if (actor.id === id && !active) throw new AppError('self_deactivation', 400, 'You cannot deactivate your own account');

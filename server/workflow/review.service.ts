@@ -10,6 +10,7 @@ import type { WorkflowService } from './workflow.service';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { assertAttachmentFor } from '../attachments/attachment-rules';
 import { assertProjectOpen } from '../projects/project-open';
+import { runTransaction } from '../db/transaction';
 
 type Reviewer = Actor & { id: number };
 
@@ -18,7 +19,7 @@ export class ReviewService {
   constructor(private readonly sequelize: Sequelize, private readonly workflow: WorkflowService) {}
 
   async raiseFinding(ability: AppAbility, actor: Reviewer, revisionId: number, text: string, clauseRef?: string): Promise<RevisionDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
       await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker or approver reviewing this revision can raise findings');
@@ -30,7 +31,7 @@ export class ReviewService {
   }
 
   async answerFinding(ability: AppAbility, actor: Reviewer, findingId: number, answer: string): Promise<RevisionDto> {
-    const revisionId = await this.sequelize.transaction(async (transaction) => {
+    const revisionId = await runTransaction(this.sequelize, async (transaction) => {
       const finding = await this.loadFinding(findingId);
       const revision = await loadRevision(finding.revisionId, transaction);
       await assertProjectOpen(revision.calcId, transaction);
@@ -45,7 +46,7 @@ export class ReviewService {
   }
 
   async closeFinding(ability: AppAbility, actor: Reviewer, findingId: number): Promise<RevisionDto> {
-    const revisionId = await this.sequelize.transaction(async (transaction) => {
+    const revisionId = await runTransaction(this.sequelize, async (transaction) => {
       const finding = await this.loadFinding(findingId);
       const revision = await loadRevision(finding.revisionId, transaction);
       await assertProjectOpen(revision.calcId, transaction);
@@ -62,7 +63,7 @@ export class ReviewService {
 
   /** Back to the author: the reason becomes an open finding they must answer before resubmitting. */
   async returnToAuthor(ability: AppAbility, actor: Reviewer, revisionId: number, reason: string, lockVersion: number): Promise<RevisionDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
       await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker (in check) or approver (checked) can return this revision');
@@ -79,7 +80,7 @@ export class ReviewService {
   }
 
   async setManualItem(ability: AppAbility, actor: Reviewer, revisionId: number, itemId: string, done: boolean, note: string): Promise<RevisionDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
       await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'check', revision, 'Manual checklist items are ticked by the independent checker while the calc is in check');

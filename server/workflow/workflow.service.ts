@@ -14,6 +14,7 @@ import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { signingBlocker, type Meaning } from './independence';
 import { queueHandOverMail, type HandOverFacts } from './hand-over-mail';
 import { assertProjectOpen } from '../projects/project-open';
+import { runTransaction } from '../db/transaction';
 
 export interface Signer extends Actor { id: number; roles: readonly Role[] }
 
@@ -29,7 +30,7 @@ export class WorkflowService {
 
   async sign(ability: AppAbility, signer: Signer, revisionId: number, dto: SignRequest): Promise<RevisionDto> {
     await this.checkPassword(signer, revisionId, dto);
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
       // A retried request with the same key has already done its work: answer as the first did.
       const earlier = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey }, transaction });
@@ -51,7 +52,7 @@ export class WorkflowService {
         payload: { calcId: revision.calcId, revision: revision.label, meaning: dto.meaning, contentHash: hash, state: revision.status },
       }, transaction);
       await this.mail(EVENT[dto.meaning], revision, signer, transaction);
-    });
+    }, { idempotent: true }); // a second run finds its own signature by the idempotency key
     return readRevision(ability, revisionId);
   }
 

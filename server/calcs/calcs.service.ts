@@ -15,6 +15,7 @@ import { currentHashOf, readRevision } from './revision-read';
 import { jsonDiff } from './content-diff';
 import { revisionLabel } from './revision-label';
 import { outcomeOf } from '../../shared/schemas/outcome';
+import { compactResult, registerEngineMetadata } from './stored-result';
 
 /** Calcs and the content of their revisions. Workflow transitions live in server/workflow. */
 export class CalcsService {
@@ -24,7 +25,11 @@ export class CalcsService {
     ForbiddenError.from(ability).throwUnlessCan('read', 'Calc');
     const calc = await Calc.findByPk(id, { include: [Project] });
     if (!calc) throw AppError.notFound(`Calc ${id}`);
-    const revisions = await Revision.findAll({ where: { calcId: id }, include: REVISION_INCLUDE });
+    // The history lists revisions: their input, result and checklist texts stay in the database.
+    const revisions = await Revision.findAll({
+      where: { calcId: id }, attributes: { exclude: ['input', 'result', 'checklist', 'manualItems', 'outcome'] },
+      include: REVISION_INCLUDE.map((i) => (i.as === 'ruleSet' ? { ...i, attributes: ['id', 'code', 'version', 'title'] } : i)),
+    });
     return toCalcDto(calc, revisions);
   }
 
@@ -94,6 +99,7 @@ export class CalcsService {
 
   async refreshHash(revision: Revision, transaction: Transaction): Promise<void> {
     if (!revision.ruleSet) await revision.reload({ include: REVISION_INCLUDE, transaction });
+    await registerEngineMetadata(this.sequelize);
     revision.contentHash = await currentHashOf(revision, transaction);
     await revision.save({ transaction });
   }
@@ -101,7 +107,7 @@ export class CalcsService {
 
 export function stored(c: Awaited<ReturnType<typeof computeRecord>>) {
   return {
-    result: c.result ? JSON.stringify(c.result) : null,
+    result: compactResult(c.result),
     checklist: c.checklist ? JSON.stringify(c.checklist) : null,
     verdict: c.verdict,
     outcome: JSON.stringify(outcomeOf(c.checklist)),

@@ -1,6 +1,7 @@
 // List, read and save figures over the seeded library (npm run bench): each endpoint under 32
 // concurrent connections, then 20 writers saving their own drafts, then the audit chain head's
 // ceiling. Prints p50/p95/p99 and req/s; nothing here is a test and nothing asserts a figure.
+import { cpus, loadavg } from 'node:os';
 import { QueryTypes } from 'sequelize';
 import { loadConfig } from '../server/config';
 import { createSequelize } from '../server/db';
@@ -28,7 +29,7 @@ async function main(): Promise<void> {
       ['calc list · project, newest first', compliance, projects.map((id) => `/api/calcs?projectId=${id}&size=50`)],
       ['calc list · project + state, by number', compliance, projects.map((id, i) => `/api/calcs?projectId=${id}&status=${['approved', 'draft', 'in_check'][i % 3]}&sort=number&dir=asc&size=50`)],
       ['calc list · whole library, by title', compliance, ['asc', 'desc'].map((d) => `/api/calcs?sort=title&dir=${d}&size=50`)],
-      ['calc list · 20th page by keyset', compliance, [`/api/calcs?projectId=${projects[7]}&size=50&after=${deep}`]],
+      ['calc list · 20th page by keyset', compliance, [`/api/calcs?projectId=${projects[7]}&size=50${deep ? `&after=${deep}` : ''}`]],
       ['search box (number, title, part, author…)', compliance, ['Ashdown', 'pulley', `KFD-B${String(3).padStart(2, '0')}-0000`, 'DRG-4', 'mixer agitator', 'Returned'].map((w) => `/api/calcs?q=${encodeURIComponent(w)}&size=50`)],
       ['queues (author + checker)', worker, ['/api/dashboard/queues']],
       ['projects', compliance, ['/api/projects?size=50']],
@@ -38,6 +39,8 @@ async function main(): Promise<void> {
       ['one revision with results and checklist', compliance, revisions.map((id) => `/api/revisions/${id}`)],
     ];
     console.log(`Lists and reads · ${CONNECTIONS} concurrent connections · ${SECONDS} s each · one app process (DB_POOL_MAX ${process.env.DB_POOL_MAX ?? 10})`);
+    // Other jobs on the machine change every figure; the load average says how busy it was.
+    console.log(`  load average before the runs: ${loadavg().map((l) => l.toFixed(1)).join(' / ')} on ${cpus().length} cores`);
     console.log(`  ${'endpoint'.padEnd(46)} ${'p50'.padStart(10)} ${'p95'.padStart(10)} ${'p99'.padStart(10)} ${'rate'.padStart(13)}`);
     for (const [name, session, paths] of endpoints) console.log(line(name, await load(server.url, session, paths, CONNECTIONS, SECONDS)));
     console.log('  targets: p95 ≤ 50 ms each');

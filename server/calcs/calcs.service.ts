@@ -18,6 +18,7 @@ import { outcomeOf } from '../../shared/schemas/outcome';
 import { stringifyFinite } from '../../shared/json/finite-json';
 import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
+import { compactResult, registerEngineMetadata } from './stored-result';
 
 /** Calcs and the content of their revisions. Workflow transitions live in server/workflow. */
 export class CalcsService {
@@ -27,7 +28,11 @@ export class CalcsService {
     ForbiddenError.from(ability).throwUnlessCan('read', 'Calc');
     const calc = await Calc.findByPk(id, { include: [Project] });
     if (!calc) throw AppError.notFound(`Calc ${id}`);
-    const revisions = await Revision.findAll({ where: { calcId: id }, include: REVISION_INCLUDE });
+    // The history lists revisions: their input, result and checklist texts stay in the database.
+    const revisions = await Revision.findAll({
+      where: { calcId: id }, attributes: { exclude: ['input', 'result', 'checklist', 'manualItems', 'outcome'] },
+      include: REVISION_INCLUDE.map((i) => (i.as === 'ruleSet' ? { ...i, attributes: ['id', 'code', 'version', 'title'] } : i)),
+    });
     return toCalcDto(calc, revisions);
   }
 
@@ -100,6 +105,7 @@ export class CalcsService {
 
   async refreshHash(revision: Revision, transaction: Transaction): Promise<void> {
     if (!revision.ruleSet) await revision.reload({ include: REVISION_INCLUDE, transaction });
+    await registerEngineMetadata(this.sequelize);
     revision.contentHash = await currentHashOf(revision, transaction);
     await revision.save({ transaction });
   }
@@ -107,7 +113,7 @@ export class CalcsService {
 
 export function stored(c: Awaited<ReturnType<typeof computeRecord>>) {
   return {
-    result: c.result ? stringifyFinite(c.result) : null,
+    result: compactResult(c.result),
     checklist: c.checklist ? stringifyFinite(c.checklist) : null,
     verdict: c.verdict,
     outcome: JSON.stringify(outcomeOf(c.checklist)),

@@ -8,27 +8,35 @@ import { toRevisionDto } from './calc-mapping';
 import { editorIdsOf, loadRevision } from './calc-access';
 import { computeRecord, contentHashOf, hashedContentOf } from './revision-content';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
+import { expandResult } from './stored-result';
 
-/** Recomputes the content hash from what is stored now, so tampering shows as a broken signature. */
-export async function currentHashOf(revision: Revision, transaction?: Transaction): Promise<string | null> {
+/**
+ * Recomputes the content hash from what is stored now, so tampering shows as a broken signature.
+ * The hash covers the result as the engine returned it, with its units and formulas put back.
+ */
+export async function currentHashOf(revision: Revision, transaction?: Transaction, result?: unknown): Promise<string | null> {
   if (!revision.result || !revision.checklist) return null;
-  const calc = await Calc.findByPk(revision.calcId, { include: [Project], transaction }) as Calc & { Project: Project };
-  return contentHashOf(hashedContentOf(calc, revision.label, JSON.parse(revision.input), JSON.parse(revision.result), JSON.parse(revision.checklist), revision.ruleSet));
+  const [calc, expanded] = await Promise.all([
+    Calc.findByPk(revision.calcId, { include: [Project], attributes: ['id', 'number', 'title', 'partRef', 'projectId'], transaction }) as Promise<Calc & { Project: Project }>,
+    result ?? expandResult(Revision.sequelize!, revision.result, transaction),
+  ]);
+  return contentHashOf(hashedContentOf(calc, revision.label, JSON.parse(revision.input), expanded, JSON.parse(revision.checklist), revision.ruleSet));
 }
 
 export async function readRevision(ability: AppAbility, id: number, transaction?: Transaction): Promise<RevisionDto> {
   const revision = await loadRevision(id, transaction);
   ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
+  const result = await expandResult(Revision.sequelize!, revision.result, transaction);
   const [signatures, findings, editorIds, currentHash] = await Promise.all([
     Signature.findAll({ where: { revisionId: id }, order: [['signedAt', 'ASC']], transaction }),
     Finding.findAll({ where: { revisionId: id }, order: [['id', 'ASC']], transaction }),
     editorIdsOf(revision.calcId, transaction),
-    currentHashOf(revision, transaction),
+    currentHashOf(revision, transaction, result),
   ]);
   const userIds = new Set(findings.flatMap((f) => [f.raisedBy, f.answeredBy, f.closedBy]).filter((v): v is number => v != null));
   const users = userIds.size ? await User.findAll({ where: { id: { [Op.in]: [...userIds] } }, attributes: ['id', 'displayName'], transaction }) : [];
   return toRevisionDto(revision, {
-    signatures, findings, editorIds, currentHash,
+    result, signatures, findings, editorIds, currentHash,
     names: new Map(users.map((u) => [u.id, u.displayName])),
     inputIssues: await inputIssuesOf(revision),
   });

@@ -24,7 +24,8 @@ export class RuleSetsService {
   async list(ability: AppAbility): Promise<RuleSetSummary[]> {
     ForbiddenError.from(ability).throwUnlessCan('read', 'RuleSet');
     await this.promoteDue();
-    const rows = await RuleSetRecord.findAll({ order: [['code', 'ASC'], ['version', 'DESC']] });
+    // The library lists versions; their documents (tens of kilobytes each) are read one at a time when opened.
+    const rows = await RuleSetRecord.findAll({ attributes: { exclude: ['document'] }, order: [['code', 'ASC'], ['version', 'DESC']] });
     const names = await namesOf(rows.flatMap((r) => [r.proposedBy, r.confirmedBy]));
     return rows.map((r) => toRuleSetSummary(r, names));
   }

@@ -12,6 +12,8 @@ export const auditQuerySchema = pageQuerySchema.extend({
   userId: id,
   from: day,
   to: day,
+  /** Keyset paging: entries older than this id (the last id of the previous page). */
+  after: id,
 }).refine((q) => !q.from || !q.to || q.from <= q.to, { message: 'must not be after "to"', path: ['from'] });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;
 
@@ -24,7 +26,9 @@ export interface AuditEventDto {
   entityType: string;
   entityId: string | null;
   payload: unknown;
+  /** Lists leave the diff out (it can be large): `hasDiff` says one exists; GET /api/audit/:id has it. */
   diff: string | null;
+  hasDiff: boolean;
   prevHash: string;
   hash: string;
 }

@@ -50,3 +50,13 @@ export interface CalcDto {
   latest: RevisionSummary;
   revisions: RevisionSummary[];
 }
+
+/** One row of a calc list, read from the summary columns kept on the calc (never the revision texts). */
+export interface CalcListItem {
+  id: number; projectId: number; projectCode: string;
+  number: string; title: string; partRef: string;
+  latest: {
+    id: number; label: string; status: RevisionState; verdict: string | null;
+    author: PersonRef; ruleSet: { id: number; code: string; version: number }; updatedAt: string;
+  };
+}

@@ -36,3 +36,19 @@ export const jsonDocumentSchema = (maxKb: number, maxDepth: number) =>
     if (problem) ctx.addIssue({ code: 'custom', message: problem.message, path: problem.parts });
     else if (JSON.stringify(doc).length > maxKb * 1024) ctx.addIssue({ code: 'custom', message: `is larger than ${maxKb} kB` });
   });
+
+/** An opaque keyset cursor: where the next page starts (the sort values and id of the last row shown). */
+export const cursorSchema = z.string().max(600, 'is not a page cursor').regex(/^[A-Za-z0-9_-]+$/, 'is not a page cursor').optional();
+
+/**
+ * A page read by keyset: `after` the last row of the previous page, so page 2,000 costs what page
+ * 1 costs. The total is counted once per filter (on the first page, `total` is null on later ones)
+ * and only up to a cap: `totalIsAtLeast` says the real number is larger than `total`.
+ */
+export interface KeysetPage<T> {
+  items: T[];
+  size: number;
+  next: string | null;
+  total: number | null;
+  totalIsAtLeast: boolean;
+}

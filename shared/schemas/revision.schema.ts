@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { decimalId, jsonDocumentSchema } from './common.schema';
+import { cursorSchema, decimalId, jsonDocumentSchema } from './common.schema';
 
 export const REVISION_STATES = ['draft', 'in_check', 'returned', 'checked', 'approved', 'superseded', 'withdrawn'] as const;
 export type RevisionState = (typeof REVISION_STATES)[number];
@@ -73,8 +73,9 @@ export const calcListQuerySchema = z.object({
   projectId: decimalId('a project id').optional(),
   status: z.enum(REVISION_STATES).optional(),
   q: z.string().trim().max(100).optional(),
-  page: z.coerce.number().int().min(0).default(0),
-  size: z.coerce.number().int().min(1).max(200).default(25),
+  /** The `next` cursor of the previous page; without it the list starts at the top and is counted. */
+  after: cursorSchema,
+  size: z.coerce.number().int().min(1).max(200).default(50),
   sort: z.enum(['number', 'title', 'updatedAt', 'status']).default('updatedAt'),
   dir: z.enum(['asc', 'desc']).default('desc'),
 });

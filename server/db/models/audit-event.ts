@@ -19,6 +19,9 @@ export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreation
   declare ip: string | null;
   declare prevHash: string;
   declare hash: string;
+  /** Look-up aids outside the hashed content: the calc and project the entity falls under. */
+  declare calcId: CreationOptional<number | null>;
+  declare projectId: CreationOptional<number | null>;
 
   static initModel(sequelize: Sequelize): void {
     AuditEvent.init(
@@ -35,6 +38,8 @@ export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreation
         ip: { type: DataTypes.STRING(255), allowNull: true },
         prevHash: { type: DataTypes.CHAR(64), allowNull: false },
         hash: { type: DataTypes.CHAR(64), allowNull: false, unique: true },
+        calcId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        projectId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
       },
       { sequelize, tableName: 'audit_events', underscored: true, timestamps: false },
     );

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
 import { DatePipe, JsonPipe, SlicePipe } from '@angular/common';
 import { MatTableModule } from '@angular/material/table';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
@@ -12,6 +12,7 @@ import { toHttpFailure } from '../../core/errors/http-failure';
 import { AuditActionLabelPipe } from '../../ui/audit-action-label';
 import { EmptyState } from '../../ui/empty-state';
 import { AuditApi, type AuditListParams } from './audit-api';
+import { KeysetPager } from '../../ui/keyset-pager';
 import { ProjectsApi } from '../projects/projects-api';
 import { DiffView } from '../../ui/diff-view';
 import { MatInputModule } from '@angular/material/input';
@@ -25,13 +26,19 @@ import { MatInputModule } from '@angular/material/input';
 })
 export default class AuditPage {
   private readonly api = inject(AuditApi);
-  protected readonly params = signal<AuditListParams>({ page: 0, size: 25, entityType: '', action: '', projectId: null, calcId: null, userId: null, from: '', to: '' });
+  protected readonly params = signal<Omit<AuditListParams, 'size' | 'after'>>({ entityType: '', action: '', projectId: null, calcId: null, userId: null, from: '', to: '' });
+  protected readonly pager = new KeysetPager(25);
   protected readonly projects = inject(ProjectsApi).list(signal({ page: 0, size: 200, q: '' }));
-  protected readonly events = this.api.list(this.params);
-  protected readonly rows = computed(() => this.events.value()?.items ?? []);
-  protected readonly total = computed(() => this.events.value()?.total ?? 0);
+  protected readonly events = this.api.list(computed(() => ({ ...this.params(), size: this.pager.size(), after: this.pager.after() })));
+  protected readonly rows = computed(() => (this.events.hasValue() ? this.events.value().items : []));
   protected readonly error = computed(() => (this.events.error() ? toHttpFailure(this.events.error()).message : null));
   protected readonly expanded = signal<number | null>(null);
+  // Lists leave diffs out; the open entry's diff is read on its own.
+  protected readonly openEntry = this.api.entry(computed(() => {
+    const id = this.expanded();
+    return id !== null && this.rows().find((e) => e.id === id)?.hasDiff ? id : null;
+  }));
+  protected readonly openDiff = computed(() => (this.openEntry.hasValue() ? this.openEntry.value().diff : null));
   protected readonly chain = signal<AuditChainStatus | null>(null);
   protected readonly chainError = signal<string | null>(null);
   protected readonly isVerifying = signal(false);
@@ -44,8 +51,15 @@ export default class AuditPage {
     { value: 'attachment.', label: 'Attachments' },
   ];
 
+  constructor() {
+    effect(() => {
+      if (this.events.hasValue()) this.pager.remember(this.events.value());
+    });
+  }
+
   protected filter(patch: Partial<AuditListParams>): void {
-    this.params.update((p) => ({ ...p, ...patch, page: 0 }));
+    this.pager.reset();
+    this.params.update((p) => ({ ...p, ...patch }));
   }
 
   protected idOrNull(text: string): number | null {
@@ -54,7 +68,7 @@ export default class AuditPage {
   }
 
   protected changePage(event: PageEvent): void {
-    this.params.update((p) => ({ ...p, page: event.pageIndex, size: event.pageSize }));
+    this.pager.turn(event);
   }
 
   protected toggle(event: AuditEventDto): void {

@@ -1,6 +1,6 @@
 import type { Model } from '../model';
 import type { BeamResults, BendingPoint, LoadResult, SupportResult } from './beam-result';
-import { solveBeam, type BeamSolution } from './beam-solve';
+import { solveBeam, type BeamSolution, type DiagramPoint } from './beam-solve';
 import { BEAM_BASE, STEEL_DENSITY } from './beam-units';
 import { deflectionCurve, nodePoint } from './beam-curve';
 import { lifeExponent, ratingLife } from './bearing-life';
@@ -72,11 +72,24 @@ function loadResults(model: Model, beam: BeamSolution): LoadResult[] {
   });
 }
 
+// Rounding leaves residues near 1e-12 of the largest value where the exact value is zero (beyond the last bearing).
+function largest(d: readonly DiagramPoint[], a: 'My' | 'Vy', b: 'Mz' | 'Vz'): number {
+  let m = 0;
+  for (const p of d) m = Math.max(m, Math.abs(p[a]), Math.abs(p[b]));
+  return 1e-11 * m;
+}
+
 function bendingOut(model: Model, beam: BeamSolution): BendingPoint[] {
   const { k, system } = model;
   const F = BEAM_BASE[system].force;
-  return beam.diagram.map((d) => ({ at: d.at / k.length, Vy: d.Vy / F, Vz: d.Vz / F, My: d.My / k.torque, Mz: d.Mz / k.torque,
-    M: Math.hypot(d.My, d.Mz) / k.torque }));
+  const d = beam.diagram;
+  const [tm, tv] = [largest(d, 'My', 'Mz'), largest(d, 'Vy', 'Vz')];
+  const clean = (v: number, tol: number): number => (Math.abs(v) <= tol ? 0 : v);
+  return d.map((p) => {
+    const [My, Mz] = [clean(p.My, tm), clean(p.Mz, tm)];
+    return { at: p.at / k.length, Vy: clean(p.Vy, tv) / F, Vz: clean(p.Vz, tv) / F, My: My / k.torque, Mz: Mz / k.torque,
+      M: Math.hypot(My, Mz) / k.torque };
+  });
 }
 
 /** The beam model of a validated calc: statics, deflection, bearing life and critical speed. */

@@ -32,15 +32,23 @@ function EI(x: number): number {
 
 const breaks = [...new Set([...bounds, A, B, ...loads.map((l) => l.at)])].sort((a, b) => a - b);
 
-// ∫ from 0 to x of f, split at the breakpoints so each piece is smooth.
-function piecewise(f: (s: number) => number, x: number): number {
+// ∫ from 0 to x of f, split at the breakpoints so each piece is smooth. The package's tolerance is
+// absolute, so the integrands are scaled by S to order one and the results scaled back.
+const S = 1e6;
+// `f` gets the piece's midpoint too, so EI is taken from the segment the piece lies in (not from
+// the neighbour at a shared end).
+function piecewise(f: (s: number, mid: number) => number, x: number, tol: number): number {
   let sum = 0;
-  for (let k = 0; k < breaks.length - 1 && breaks[k] < x; k++) sum += integrate(f, breaks[k], Math.min(x, breaks[k + 1]), 1e-10, 30);
+  for (let k = 0; k < breaks.length - 1 && breaks[k] < x; k++) {
+    const [a, b] = [breaks[k], Math.min(x, breaks[k + 1])];
+    sum += integrate((s) => f(s, (a + b) / 2), a, b, tol, 40);
+  }
   return sum;
 }
 
-const slopeNoConstant = (x: number): number => piecewise((s) => moment(s) / EI(s), x);
-const Y = (x: number): number => piecewise(slopeNoConstant, x);
+const scaledSlope = (x: number): number => piecewise((s, mid) => (S * moment(s)) / EI(mid), x, 1e-9);
+const slopeNoConstant = (x: number): number => scaledSlope(x) / S;
+const Y = (x: number): number => piecewise(scaledSlope, x, 1e-7) / S;
 
 describe('stepped-shaft deflection by an independent route (double integration of M/EI)', () => {
   const input = {

@@ -67,18 +67,28 @@ function refineMax(beam: BeamSolution, e0: number, bestAt: number, best2: number
 /** Curve at every node and element midpoint, and the largest resultant deflection and its station. */
 export function deflectionCurve(beam: BeamSolution, length: number): { curve: DeflectionPoint[]; max: number; at: number } {
   const x = beam.mesh.x;
+  const [uy, uz] = [beam.y.u, beam.z.u];
   const curve: DeflectionPoint[] = [];
   let [best2, bestAt, bestE] = [-1, 0, 0];
-  const out = (p: CurvePoint, e: number): void => {
-    const d2 = p.y * p.y + p.z * p.z;
-    curve.push({ at: p.at / length, y: p.y / length, z: p.z / length, deflection: Math.sqrt(d2) / length, slopeY: p.sy, slopeZ: p.sz, slope: Math.hypot(p.sy, p.sz) });
-    if (d2 > best2) [best2, bestAt, bestE] = [d2, p.at, Math.min(e, x.length - 2)];
+  // Points are written straight from the nodal values or the scratch interpolation (no temporaries).
+  const out = (at: number, y: number, z: number, sy: number, sz: number, e: number): void => {
+    const d2 = y * y + z * z;
+    curve.push({ at: at / length, y: y / length, z: z / length, deflection: Math.sqrt(d2) / length, slopeY: sy, slopeZ: sz, slope: Math.hypot(sy, sz) });
+    if (d2 > best2) {
+      best2 = d2;
+      bestAt = at;
+      bestE = e;
+    }
   };
-  for (let e = 0; e < x.length - 1; e++) {
-    out(nodePoint(beam, e), e);
-    out(pointAt(beam, e, (x[e] + x[e + 1]) / 2), e);
+  const last = x.length - 1;
+  for (let e = 0; e < last; e++) {
+    out(x[e], uy[2 * e], uz[2 * e], uy[2 * e + 1], uz[2 * e + 1], e);
+    const mid = (x[e] + x[e + 1]) / 2;
+    hermiteInto(beam.mesh, uy, e, mid, Y);
+    hermiteInto(beam.mesh, uz, e, mid, Z);
+    out(mid, Y[0], Z[0], Y[1], Z[1], e);
   }
-  out(nodePoint(beam, x.length - 1), x.length - 2);
+  out(x[last], uy[2 * last], uz[2 * last], uy[2 * last + 1], uz[2 * last + 1], last - 1);
   const [at, peak2] = best2 > 0 ? refineMax(beam, bestE, bestAt, best2) : [bestAt, 0];
   return { curve, max: Math.sqrt(peak2) / length, at: at / length };
 }

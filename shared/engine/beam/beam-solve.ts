@@ -90,7 +90,7 @@ function diagram(mesh: Mesh, s: Omit<BeamSolution, 'diagram'>): DiagramPoint[] {
 /** Solves the beam; `stations` (mm) become nodes, `densities` (t/mm³) are per segment. */
 export function solveBeam(model: Model, supports: readonly number[], loads: PointLoad[], stations: number[],
   densities: readonly number[]): BeamSolution {
-  const mesh = buildMesh(model, [...supports, ...stations], densities);
+  const mesh = buildMesh(model, supports, stations, densities);
   const U = assembleStiffness(mesh);
   const supportNodes = supports.map((x) => nodeAt(mesh, x));
   for (const i of supportNodes) U.fix(2 * i);

@@ -4,7 +4,7 @@ import { STATION_TOLERANCE } from '../shaft-geometry';
 /*
  * Nodes of the beam model: every segment joint, support, load, mass and feature station, plus
  * evenly spaced nodes so no element is longer than 1/MIN_ELEMENTS of the shaft nor 1/SPAN_ELEMENTS
- * of its span (the consistent mass matrix then gives the first natural frequency within about 1e-5
+ * of the span between two supports (the consistent mass matrix then gives the first natural frequency within about 1e-5
  * of exact; statics is exact anyway).
  */
 export const MIN_ELEMENTS = 10;
@@ -21,14 +21,12 @@ export interface Mesh {
   seg: Int32Array;
 }
 
-/** Largest element length in each gap between supports (and in the overhangs beyond them). */
+/** Largest element length: 1/MIN_ELEMENTS of the shaft, and 1/SPAN_ELEMENTS of a span between two supports. */
 function stepAt(x: number, supports: readonly number[], total: number): number {
-  let [lo, hi] = [0, total];
-  for (const s of supports) {
-    if (s <= x) lo = Math.max(lo, s);
-    if (s > x) hi = Math.min(hi, s);
-  }
-  return Math.min(total / MIN_ELEMENTS, (hi - lo) / SPAN_ELEMENTS);
+  const step = total / MIN_ELEMENTS;
+  const right = supports.findIndex((s) => s > x);
+  if (right <= 0) return step; // an overhang (or no supports): the shaft-wide step
+  return Math.min(step, (supports[right] - supports[right - 1]) / SPAN_ELEMENTS);
 }
 
 export function buildMesh(model: Model, supports: readonly number[], stations: number[], densities: readonly number[]): Mesh {

@@ -24,6 +24,7 @@ import { MinimumDiameters } from './minimum-diameters';
 import { AttachmentsPanel } from './attachments-panel';
 import { RecordExports } from './record-exports';
 import { ManualItems } from './manual-items';
+import { countFindings, findingsTabLabel } from './finding-counts';
 import { planActions } from './revision-actions';
 import { SignDialog, type SignDialogData } from './sign-dialog';
 import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
@@ -59,7 +60,7 @@ export default class CalcPage {
     const e = this.calc.error() ?? this.revision.error();
     return e ? toHttpFailure(e).message : null;
   });
-  protected readonly openFindings = computed(() => this.current()?.findings.filter((f) => f.status !== 'closed').length ?? 0);
+  protected readonly findingsLabel = computed(() => findingsTabLabel(countFindings(this.current() ?? { findings: [] })));
 
   protected select(revisionId: number): void {
     void this.router.navigate([], { queryParams: { rev: revisionId }, replaceUrl: true });

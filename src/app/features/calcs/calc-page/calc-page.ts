@@ -25,6 +25,7 @@ import { AttachmentsPanel } from './attachments-panel';
 import { RecordExports } from './record-exports';
 import { ManualItems } from './manual-items';
 import { countFindings, findingsTabLabel } from './finding-counts';
+import { failingRowText, signingReadiness } from './signing-readiness';
 import { planActions } from './revision-actions';
 import { SignDialog, type SignDialogData } from './sign-dialog';
 import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
@@ -60,6 +61,8 @@ export default class CalcPage {
     const e = this.calc.error() ?? this.revision.error();
     return e ? toHttpFailure(e).message : null;
   });
+  protected readonly failingMandatory = computed(() => (this.current() ? signingReadiness(this.current()!, 'authored').failingMandatory : []));
+  protected readonly failingRowText = failingRowText;
   protected readonly findingsLabel = computed(() => findingsTabLabel(countFindings(this.current() ?? { findings: [] })));
 
   protected select(revisionId: number): void {

@@ -1,15 +1,15 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import { DecimalPipe } from '@angular/common';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { Checklist, ChecklistRow } from '../../../../../shared/rules';
+import { formatBeside, formatUtilisation, unitText } from '../../../../../shared/format';
 
 const STATUS_TEXT: Record<ChecklistRow['status'], string> = { pass: 'Pass', fail: 'Fail', 'not-applicable': 'n/a', error: 'Error' };
 
 /** One row per clause and location: status, actual against limit, utilisation, clause reference. */
 @Component({
   selector: 'tt-checklist-table',
-  imports: [DecimalPipe, MatTableModule, MatTooltipModule],
+  imports: [MatTableModule, MatTooltipModule],
   templateUrl: './checklist-table.html',
   styleUrl: './checklist-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -31,6 +31,19 @@ export class ChecklistTable {
 
   protected statusLabel(row: ChecklistRow): string {
     return STATUS_TEXT[row.status];
+  }
+
+  /** Actual and limit with enough digits that the printed pair compares as the numbers do. */
+  protected beside(row: ChecklistRow): { actual: string; limit: string } {
+    return formatBeside(row.actual, row.limit);
+  }
+
+  protected unit(row: ChecklistRow): string {
+    return row.actual === null && row.limit === null ? '' : unitText(row.unit);
+  }
+
+  protected utilisation(row: ChecklistRow): string {
+    return formatUtilisation(row.utilisation);
   }
 
   protected barWidth(row: ChecklistRow): number {

@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, DOCUMENT, computed, inject, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import type { CalcIssue } from '../../../../../shared/engine';
+import type { Checklist, RuleSet } from '../../../../../shared/rules';
 import { SafetyNote } from '../../../ui/safety-note';
 import { placeOf } from './issue-map';
 import type { Evaluated } from './live-calc';
@@ -26,6 +27,8 @@ export class LiveResults {
   readonly limits = input<PlotLimits | undefined>(undefined);
   readonly criterion = input<CriterionKey>('goodman');
   readonly criterionName = input('DE-Goodman');
+  readonly checklist = input<Checklist | null>(null);
+  readonly ruleSet = input<RuleSet | null>(null);
 
   protected readonly listed = computed(() => this.issues().map((i) => ({ ...i, place: placeOf(i.path) })));
 

@@ -77,6 +77,10 @@ export default class RevisionEditor {
   protected readonly isDirty = computed(() => this.session.isLoaded() && canonical(this.authorInput()) !== this.session.baseline());
   protected readonly criterionName = computed(() => this.store.ruleSet()?.methods.fatigueCriterion ?? 'DE-Goodman');
   protected readonly criterion = computed(() => CRITERION_KEYS[this.criterionName()] ?? 'goodman');
+  protected readonly readyChecklist = computed(() => {
+    const c = this.live.checklist();
+    return c.kind === 'ready' ? c : null;
+  });
   protected readonly limits = computed(() => {
     const ev = this.live.evaluated();
     const c = this.live.checklist();

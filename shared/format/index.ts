@@ -1,0 +1,2 @@
+export { formatEng, formatWithUnit, formatBeside, formatUtilisation, unitText } from './engineering';
+export { headlineMark, type HeadlineMark, type HeadlineOutcome } from './headline';

@@ -1,3 +1,4 @@
+import { formatBytes } from '../../shared/format';
 import { STATE_LABELS } from '../../shared/schemas/revision.schema';
 import { ATTACHMENT_KIND_LABELS } from '../../shared/schemas/attachment.schema';
 import type { ReportData } from './report-data';
@@ -54,6 +55,6 @@ export function drawAttachments(doc: PDFKit.PDFDocument, d: ReportData, number: 
     { header: 'Kind', share: 0.15 }, { header: 'File', share: 0.25 }, { header: 'Type, size', share: 0.16 },
     { header: 'Added by', share: 0.14 }, { header: 'SHA-256', share: 0.3, mono: true },
   ], d.attachments.map((a): Cell[] => [
-    ATTACHMENT_KIND_LABELS[a.kind], a.fileName, `${a.mediaType}, ${(a.sizeBytes / 1024).toFixed(1)} kB`, a.uploadedBy.name, a.sha256,
+    ATTACHMENT_KIND_LABELS[a.kind], a.fileName, `${a.mediaType}, ${formatBytes(a.sizeBytes)}`, a.uploadedBy.name, a.sha256,
   ]), { size: 7 });
 }

@@ -1,5 +1,4 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, numberAttribute } from '@angular/core';
-import { DecimalPipe } from '@angular/common';
 import { Router, RouterLink } from '@angular/router';
 import { MatTabsModule } from '@angular/material/tabs';
 import { MatButtonModule } from '@angular/material/button';
@@ -26,13 +25,14 @@ import { RecordExports } from './record-exports';
 import { ManualItems } from './manual-items';
 import { countFindings, findingsTabLabel } from './finding-counts';
 import { failingRowText, signingReadiness } from './signing-readiness';
+import { formatEng } from '../../../../../shared/format';
 import { planActions } from './revision-actions';
 import { SignDialog, type SignDialogData } from './sign-dialog';
 import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
 
 @Component({
   selector: 'tt-calc-page',
-  imports: [DecimalPipe, RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatProgressBarModule,
+  imports: [RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatProgressBarModule,
     SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports, MinimumDiameters, ManualItems],
   templateUrl: './calc-page.html',
   styleUrl: './calc-page.scss',
@@ -63,6 +63,7 @@ export default class CalcPage {
   });
   protected readonly failingMandatory = computed(() => (this.current() ? signingReadiness(this.current()!, 'authored').failingMandatory : []));
   protected readonly failingRowText = failingRowText;
+  protected readonly eng = formatEng;
   protected readonly findingsLabel = computed(() => findingsTabLabel(countFindings(this.current() ?? { findings: [] })));
 
   protected select(revisionId: number): void {

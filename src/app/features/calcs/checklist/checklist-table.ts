@@ -29,8 +29,9 @@ export class ChecklistTable {
     return index === 0 || rows[index - 1].clauseId !== rows[index].clauseId;
   }
 
+  /** An advisory failure says so in words, not only in a different colour. */
   protected statusLabel(row: ChecklistRow): string {
-    return STATUS_TEXT[row.status];
+    return row.severity === 'advisory' && (row.status === 'fail' || row.status === 'error') ? `${STATUS_TEXT[row.status]} · advisory` : STATUS_TEXT[row.status];
   }
 
   /** Actual and limit with enough digits that the printed pair compares as the numbers do. */

@@ -32,6 +32,7 @@ import { FatiguePanel } from './fatigue-panel';
 import { NotesPanel } from './notes-panel';
 import { LiveResults } from './live-results';
 import { LiveDetails } from './live-details';
+import { VerdictStrip } from './verdict-strip';
 
 /**
  * The author's calc editor. The form is replaced as a whole on load, restore, "take theirs" and unit
@@ -41,7 +42,7 @@ import { LiveDetails } from './live-details';
 @Component({
   selector: 'tt-revision-editor',
   imports: [RouterLink, MatButtonModule, MatButtonToggleModule, MatIconModule, MatProgressBarModule, StateBadge,
-    MaterialPanel, SegmentsTable, FeaturesList, LoadsPanel, FatiguePanel, NotesPanel, LiveResults, LiveDetails],
+    MaterialPanel, SegmentsTable, FeaturesList, LoadsPanel, FatiguePanel, NotesPanel, LiveResults, LiveDetails, VerdictStrip],
   templateUrl: './revision-editor.html',
   styleUrl: './revision-editor.scss',
   providers: [EditorStore, EditorSession, { provide: ErrorStateMatcher, useClass: EngineErrorState }],

@@ -15,6 +15,9 @@ export const auditQuerySchema = pageQuerySchema.extend({
 }).refine((q) => !q.from || !q.to || q.from <= q.to, { message: 'must not be after "to"', path: ['from'] });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;
 
+/** What an audit row is about, as people name it, with a link to open it where there is one. */
+export interface AuditRecordRef { label: string; link: string | null }
+
 export interface AuditEventDto {
   id: number;
   occurredAt: string;
@@ -23,6 +26,8 @@ export interface AuditEventDto {
   action: string;
   entityType: string;
   entityId: string | null;
+  /** Added when listing (audit-records.ts); the stored row itself keeps only type and id. */
+  record?: AuditRecordRef;
   payload: unknown;
   diff: string | null;
   prevHash: string;

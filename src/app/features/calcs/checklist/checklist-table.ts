@@ -12,6 +12,8 @@ const STATUS_TEXT: Record<ChecklistRow['status'], string> = { pass: 'Pass', fail
   imports: [MatTableModule, MatTooltipModule],
   templateUrl: './checklist-table.html',
   styleUrl: './checklist-table.scss',
+  // The table scrolls sideways inside itself on narrow screens; a keyboard user must be able to scroll it too.
+  host: { tabindex: '0', role: 'region', 'aria-label': 'Checklist rows' },
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ChecklistTable {

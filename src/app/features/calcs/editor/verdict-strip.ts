@@ -21,7 +21,7 @@ interface Failing { key: string; text: string; advisory: boolean }
         @if (advisory().length) { <span class="count adv">{{ advisory().length }} advisory not met</span> }
         <button type="button" class="link" (click)="toChecklist()">Checklist</button>
         @if (failing().length) {
-          <ul class="rows">
+          <ul class="rows" tabindex="0" aria-label="Failing clause rows">
             @for (f of failing(); track f.key) { <li [class.adv]="f.advisory">{{ f.advisory ? 'advisory' : 'mandatory' }} · {{ f.text }}</li> }
           </ul>
         }

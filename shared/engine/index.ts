@@ -21,3 +21,4 @@ export type { SafetyByCriterion } from './fatigue-criteria';
 export { formatNumber } from './number-format';
 export { formatResultTable } from './result-table';
 export { calcInputJsonSchemaText } from './json-schema';
+export { METHOD_NAMES, FIELD_NAMES, FILLET_KTS_NAMES } from './methods';

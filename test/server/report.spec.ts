@@ -43,6 +43,9 @@ describe('calc report', () => {
     expect(flat).toContain('DRAFT · NOT FOR CONSTRUCTION');
     expect(flat).toContain("Results support, never replace, the judgement of a qualified engineer; local codes and licensed practice govern.");
     expect(flat).toMatch(/τmax/);
+    // Methods are named in words, never by code keys (issue 13, item 18).
+    expect(flat).toContain('Torque diagram');
+    expect(flat).not.toMatch(/torqueDiagram|notchSensitivity|goodman \(1\)|Kf \(1\)/);
     // Headline figures carry the outcome of the clause that judges them (issue 13, item 10).
     expect(flat).toMatch(/Lowest yield safety n_y [\d.]+ (?:[A-Z·] )*meets min [\d.]+ \(§5\.[12]\)/);
     expect(flat).toContain('DRG-1 sheet 1.pdf');
@@ -68,7 +71,8 @@ describe('calc report', () => {
   it('when a finding is on the revision, then the report numbers it as the screen does (F and its id)', async () => {
     const t = await returnedWithFindingOf(ctx.app);
     const { text } = readPdf((await getPdf(t.author.session, t.revisionId)).body as Buffer);
-    expect(text.replace(/\s+/g, ' ')).toMatch(new RegExp(`F${t.findingId} Name the chart behind the keyseat Kts`));
+    const findings = text.replace(/\s+/g, ' ').split('Findings and answers')[1];
+    expect(findings).toMatch(new RegExp(`^( [A-Z·])* No\\. F${t.findingId} (Finding )?Name the chart behind the keyseat`));
   });
 
   it('when the revision does not exist, the id is not a number, or nobody is signed in, then 404, 400 and 401', async () => {

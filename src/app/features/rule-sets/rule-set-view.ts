@@ -1,3 +1,4 @@
+import { FILLET_KTS_NAMES } from '../../../../shared/engine';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, numberAttribute, signal } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { RouterLink } from '@angular/router';
@@ -31,6 +32,11 @@ import { ImpactPanel } from './impact-panel';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export default class RuleSetView {
+  /** The published method, named as a reader cites it, not its code. */
+  protected ktsName(key: string | undefined): string {
+    return key ? FILLET_KTS_NAMES[key] ?? key : '—';
+  }
+
   private readonly api = inject(RuleSetsApi);
   private readonly snackBar = inject(MatSnackBar);
   private readonly ability = inject<AbilityServiceSignal<AppAbility>>(AbilityServiceSignal);

@@ -44,6 +44,7 @@ interface Failing { key: string; text: string; advisory: boolean }
     .link { background: none; border: 0; padding: 0; font: inherit; font-size: 13px; text-decoration: underline; cursor: pointer; color: var(--tt-ink); margin-left: auto; }
     .rows { flex-basis: 100%; margin: 2px 0 0; padding-left: 18px; font-size: 12.5px; max-height: 7.5em; overflow-y: auto; color: var(--tt-fail); }
     .rows li.adv { color: var(--tt-warn); }
+    @media (max-width: 700px) { .rows { max-height: 4.6em; } }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -72,13 +72,21 @@ describe('switching units converts the values', () => {
 });
 
 describe('engine issues and the form', () => {
+  it('when an engine message names a path, then the screen names it as the form does, counted from 1, features by their tag', () => {
+    expect(placeOf('torques[1].at')).toBe('Torque 2, station');
+    expect(placeOf('features[1].r', ['keyseat', 'shoulder-fillet'])).toBe('Feature SF2, radius');
+    expect(placeOf('features[0]', ['keyseat'])).toBe('Feature KS1');
+    expect(placeOf('segments[0].od')).toBe('Segment 1, outer ⌀');
+  });
+
   it('when an issue names a field, then its control is found; a list-level issue has none', () => {
     const form = editorForm(inputToValue(HEAD));
     expect(controlAt(form, 'segments[1].id')).toBe(form.controls.segments.at(1).controls.id);
     expect(controlAt(form, 'features[0].Sy')).toBe(form.controls.features.at(0).controls.keySy);
     expect(controlAt(form, 'torques')).toBeNull();
     expect(controlAt(form, 'segments[9].od')).toBeNull();
-    expect(placeOf('bending[1].Ma')).toBe('Bending moment 2');
+    expect(placeOf('bending[1].Ma')).toBe('Bending moment 2, alternating moment');
+    expect(placeOf('bending[1]')).toBe('Bending moment 2');
     expect(toIssueMap([{ path: 'a', message: 'x' }, { path: 'a', message: 'y' }])).toEqual({ a: 'x; y' });
   });
 

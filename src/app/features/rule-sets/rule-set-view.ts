@@ -15,7 +15,8 @@ import { AbilityServiceSignal } from '@casl/angular';
 import { subject } from '@casl/ability';
 import { validateRuleSet, type RuleSet } from '../../../../shared/rules';
 import type { AppAbility } from '../../../../shared/authz/app-ability';
-import { failureLines, toHttpFailure } from '../../core/errors/http-failure';
+import { toHttpFailure } from '../../core/errors/http-failure';
+import { ruleSetPlace, ruleSetProblems, type RuleSetProblem } from './rule-set-messages';
 import { RuleSetsApi } from './rule-sets-api';
 import { applyRuleSetForm, buildRuleSetForm, type RuleSetForm } from './rule-set-form';
 import { PublishPanel } from './publish-panel';
@@ -52,7 +53,9 @@ export default class RuleSetView {
   protected readonly form = signal<RuleSetForm | null>(null);
   protected readonly jsonText = signal('');
   protected readonly jsonIssues = signal<string[]>([]);
-  protected readonly problems = signal<string[]>([]);
+  protected readonly problems = signal<RuleSetProblem[]>([]);
+  /** The tab on show: a problem's link opens the tab where its field is edited. */
+  protected readonly tab = signal(0);
   protected readonly isSaving = signal(false);
 
   constructor() {
@@ -74,7 +77,7 @@ export default class RuleSetView {
       return null;
     }
     const result = validateRuleSet(parsed);
-    this.jsonIssues.set(result.ok ? [] : result.issues.map((i) => `${i.path}: ${i.message}`));
+    this.jsonIssues.set(result.ok ? [] : result.issues.map((i) => `${ruleSetPlace(i.path, this.doc()).label} — ${i.path}: ${i.message}`));
     return result.ok ? result.value : null;
   }
 
@@ -95,8 +98,7 @@ export default class RuleSetView {
       this.version.set(saved);
       this.snackBar.open(`Draft v${saved.version} saved.`, 'OK', { duration: 4000 });
     } catch (error) {
-      const f = toHttpFailure(error);
-      this.problems.set(failureLines(f));
+      this.problems.set(ruleSetProblems(toHttpFailure(error), doc));
     } finally {
       this.isSaving.set(false);
     }

@@ -77,7 +77,7 @@ export default class RuleSetView {
       return null;
     }
     const result = validateRuleSet(parsed);
-    this.jsonIssues.set(result.ok ? [] : result.issues.map((i) => `${ruleSetPlace(i.path, this.doc()).label} — ${i.path}: ${i.message}`));
+    this.jsonIssues.set(result.ok ? [] : result.issues.map((i) => `${ruleSetPlace(i.path, this.doc() ?? null).label} — ${i.path}: ${i.message}`));
     return result.ok ? result.value : null;
   }
 

@@ -30,7 +30,11 @@ async function layoutOf(page: Page) {
   return page.evaluate(() => {
     const nav = document.querySelector('nav[aria-label="Main"]') as HTMLElement | null;
     const org = document.querySelector('.org') as HTMLElement | null;
+    // The outermost element sticking out on the right, to name in the failure (inside scroll boxes is fine).
+    const inScrollBox = (el: Element) => { for (let p = el.parentElement; p; p = p.parentElement) if (['auto', 'scroll'].includes(getComputedStyle(p).overflowX)) return true; return false; };
+    const wide = Array.from(document.querySelectorAll('main *')).find((el) => el.getBoundingClientRect().right > window.innerWidth + 1 && !inScrollBox(el));
     return {
+      widest: wide ? `${wide.tagName.toLowerCase()}.${Array.from(wide.classList).join('.')}` : '',
       sideways: document.documentElement.scrollWidth - window.innerWidth,
       navShare: nav && nav.offsetParent !== null ? Math.round((nav.getBoundingClientRect().width / window.innerWidth) * 100) : 0,
       orgShown: !!org && org.offsetParent !== null,
@@ -44,7 +48,7 @@ async function visit(page: Page, name: string, ready: () => Promise<unknown>) {
     await page.setViewportSize({ width, height: 900 });
     await ready();
     const layout = await layoutOf(page);
-    if (layout.sideways > 1) problems.push(`${name}@${width}: page scrolls sideways by ${layout.sideways}px`);
+    if (layout.sideways > 1) problems.push(`${name}@${width}: page scrolls sideways by ${layout.sideways}px (${layout.widest})`);
     if (width === 390 && (layout.navShare > 0 || layout.orgShown)) problems.push(`${name}@390: menu takes ${layout.navShare}% / organisation shown`);
     if (width === 768 && layout.navShare > 15) problems.push(`${name}@768: menu takes ${layout.navShare}%`);
     await session.screenshot(page, `screens-${name}-${width}`);

@@ -3,6 +3,7 @@ import fs from 'node:fs';
 import express, { type Express } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
+import { serverTiming } from './http/server-timing';
 import { securityHeaders } from './http/security-headers';
 import { sessionMiddleware, absoluteSessionLimit } from './auth/session';
 import { createPassport } from './auth/passport';
@@ -40,6 +41,7 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   app.set('trust proxy', config.TRUST_PROXY);
 
   app.use(securityHeaders(config));
+  app.use('/api', serverTiming());
   app.use('/api', express.json({ limit: '1mb' }));
   app.use('/api', sessionMiddleware(sequelize, config), absoluteSessionLimit(config));
   app.use('/api', passport.session(), attachAbility);

@@ -8,7 +8,8 @@ import { TRESCA_FORMULA, VON_MISES_FORMULA } from './combined';
 export const METHODS: Readonly<Record<string, string>> = Object.freeze({
   section: `${J_FORMULA}; τ(ρ) = T·ρ/J; γ = τ/G`,
   twist: 'φ = Σ Tᵢ·Lᵢ/(Gᵢ·Jᵢ) over the pieces of the torque diagram',
-  torqueDiagram: 'internal torque = Σ external torques left of the section; a torque at a station acts to its right',
+  torqueDiagram: 'internal torque T = −Σ external torques left of the section (positive along +x on the left part\'s cut face, '
+    + 'right-hand rule); a torque at a station acts to its right; twist φ(b) − φ(a) = ∫ T/(G·J) dx, right-hand rotation about +x',
   bending: 'moments linear between the entered stations, held constant beyond the first and last entry',
   power: POWER_METHOD,
   notchSensitivity: NEUBER_METHOD,

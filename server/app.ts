@@ -3,6 +3,7 @@ import fs from 'node:fs';
 import express, { type Express } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
+import { serverTiming } from './http/server-timing';
 import { securityHeaders } from './http/security-headers';
 import { jsonBody } from './http/json-body';
 import { sessionMiddleware, absoluteSessionLimit } from './auth/session';
@@ -45,6 +46,7 @@ export function createApp({ sequelize, config }: AppDeps): Express {
 
   app.use(securityHeaders(config));
   app.get('/api/health', healthCheck(sequelize));
+  app.use('/api', serverTiming());
   app.use('/api', jsonBody('1mb'));
   app.use('/api', sessionMiddleware(sequelize, config), absoluteSessionLimit(config));
   app.use('/api', passport.session(), attachAbility);

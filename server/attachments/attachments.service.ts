@@ -10,6 +10,7 @@ import { appendAudit, type Actor } from '../audit/audit.service';
 import { loadRevision } from '../calcs/calc-access';
 import { ObjectStore } from './object-store';
 import { ACCEPTED_TYPE_NAMES, detectMediaType } from './content-type';
+import { assertDeclaredKind } from './declared-kind';
 import { READ_ONLY_STATES, cleanFileName, mayAddFiles, toAttachmentDto } from './attachment-access';
 import { assertProjectOpen, isProjectArchived } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
@@ -30,6 +31,7 @@ export class AttachmentsService {
   async upload(ability: AppAbility, actor: Actor & { id: number }, revisionId: number, file: UploadedFile | undefined, fields: UploadFields): Promise<AttachmentDto> {
     if (!file) throw AppError.validation({ file: ['is required: send the file as multipart form field "file"'] });
     const mediaType = await detectMediaType(file.buffer);
+    assertDeclaredKind(file.originalname, fields.kind, mediaType);
     const sha256 = createHash('sha256').update(file.buffer).digest('hex');
     const key = ObjectStore.keyFor(sha256);
     await this.assertMayAdd(ability, await loadRevision(revisionId));
@@ -58,7 +60,7 @@ export class AttachmentsService {
     return { attachment: toAttachmentDto(row), bytes: await this.store.get(row.storageKey) };
   }
 
-  /** Only the uploader removes a file, and only before the revision is submitted. */
+  /** The uploader or the revision's author removes a file, and only before the revision is submitted. */
   async remove(ability: AppAbility, actor: Actor & { id: number }, id: number): Promise<void> {
     await runTransaction(this.sequelize, async (transaction) => {
       const row = await Attachment.findByPk(id, { transaction });
@@ -67,7 +69,8 @@ export class AttachmentsService {
       await assertProjectOpen(revision.calcId, transaction);
       if (READ_ONLY_STATES.includes(revision.status)) throw this.readOnly(revision, 'removed');
       if (!EDITABLE_STATES.includes(revision.status)) throw AppError.conflict(`Files are removed only before submission; revision ${revision.label} is ${revision.status.replace('_', ' ')}`);
-      if (row.uploadedBy !== actor.id) throw new AppError('forbidden', 403, 'Only the person who attached a file can remove it');
+      // The author answers for every file of their draft, so they can take out one a co-editor attached by mistake.
+      if (row.uploadedBy !== actor.id && revision.authorId !== actor.id) throw new AppError('forbidden', 403, 'Only the person who attached a file, or the author of the revision, can remove it');
       await row.destroy({ transaction });
       await appendAudit(this.sequelize, actor, {
         action: 'attachment.removed', entityType: 'Revision', entityId: row.revisionId,

@@ -4,12 +4,13 @@ import { Utils } from 'sequelize';
 import { auditQuerySchema, type AuditEventDto, type AuditQuery } from '../../shared/schemas/audit.schema';
 import { idParamsSchema, type KeysetPage } from '../../shared/schemas/common.schema';
 import type { AppAbility } from '../../shared/authz/app-ability';
-import { AuditEvent } from '../db/models';
+import { AuditEvent, User } from '../db/models';
 import { validate } from '../http/validate';
 import { AppError } from '../errors/app-error';
 import { cappedCount } from '../http/keyset';
 import { verifyAuditChain } from './audit.service';
 import { auditWhere } from './audit-filter';
+import { describeRecords, recordOf } from './audit-records';
 
 type Listed = AuditEvent & { hasDiff?: number };
 
@@ -37,8 +38,9 @@ export async function listAudit(ability: AppAbility, query: Omit<AuditQuery, 'pa
     query.after ? null : countAudit(query),
   ]);
   const items = rows.slice(0, query.size);
+  const refs = await describeRecords(items);
   return {
-    items: items.map(toAuditDto), size: query.size, total: counted?.total ?? null, totalIsAtLeast: counted?.totalIsAtLeast ?? false,
+    items: items.map((r) => ({ ...toAuditDto(r), record: recordOf(refs, r) })), size: query.size, total: counted?.total ?? null, totalIsAtLeast: counted?.totalIsAtLeast ?? false,
     next: rows.length > query.size ? String(items[items.length - 1].id) : null,
   };
 }
@@ -58,6 +60,13 @@ export function auditRouter(): Router {
   const router = Router();
   router.get('/', validate({ query: auditQuerySchema }), async (req, res) => {
     res.json(await listAudit(req.ability, res.locals.query));
+  });
+  // Everyone who can appear in the trail as an actor, for the auditor's person picker (compliance cannot list
+  // accounts). Read from the people table, not grouped out of the trail, which would scan every audit entry.
+  router.get('/people', async (req, res) => {
+    ForbiddenError.from(req.ability).throwUnlessCan('read', 'AuditEvent');
+    const rows = await User.findAll({ attributes: ['id', 'displayName'], order: [['displayName', 'ASC'], ['id', 'ASC']] });
+    res.json(rows.map((u) => ({ id: u.id, name: u.displayName })));
   });
   router.get('/verify', async (req, res) => {
     ForbiddenError.from(req.ability).throwUnlessCan('read', 'AuditEvent');

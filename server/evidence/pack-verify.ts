@@ -43,10 +43,16 @@ function recordChecks(files: Map<string, Buffer>, path: string): PackCheck[] {
   const record = read.value;
   const checks: PackCheck[] = [];
   if (record.contentHash) {
-    const ok = contentHash(record.content) === record.contentHash;
+    const actual = contentHash(record.content);
+    const ok = actual === record.contentHash;
     checks.push({ name: `${path} content`, ok, detail: ok ? 'recomputed content hash equals the record hash' : 'recomputed content hash differs: the record content was changed' });
+    // A signature holds only for the content actually in the pack: over altered content every mark is a failure.
     for (const s of record.signatures) {
-      checks.push({ name: `${path} signature ${s.meaning} by ${s.printedName}`, ok: true, detail: s.contentHash === record.contentHash ? 'covers this content' : 'made over earlier content (not valid for this content)' });
+      const covers = s.contentHash === actual;
+      const detail = covers ? 'covers the content in this pack'
+        : s.contentHash === record.contentHash ? 'made over the recorded content, which this pack no longer holds: not valid for this content'
+          : 'made over earlier content: not valid for this content';
+      checks.push({ name: `${path} signature ${s.meaning} by ${s.printedName}`, ok: covers, detail });
     }
   }
   for (const a of record.attachments) {

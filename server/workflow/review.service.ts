@@ -1,4 +1,4 @@
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { RevisionDto } from '../../shared/schemas/calc-dto';
 import { Finding, type Revision } from '../db/models';
@@ -32,11 +32,13 @@ export class ReviewService {
 
   async answerFinding(ability: AppAbility, actor: Reviewer, findingId: number, answer: string): Promise<RevisionDto> {
     const revisionId = await runTransaction(this.sequelize, async (transaction) => {
-      const finding = await this.loadFinding(findingId);
+      const finding = await this.loadFinding(findingId, transaction);
       const revision = await loadRevision(finding.revisionId, transaction);
       await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'update', revision, 'Only the author of a returned or draft revision answers its findings');
       if (finding.status === 'closed') throw AppError.conflict('This finding is already closed');
+      // One answer per finding: a second click or a second tab must not put two answers on the record.
+      if (finding.status === 'answered') throw AppError.conflict(`Finding F${finding.id} is already answered; a reviewer closes it or raises a new finding`);
       Object.assign(finding, { answer, answeredBy: actor.id, answeredAt: new Date(), status: 'answered' });
       await finding.save({ transaction });
       await appendAudit(this.sequelize, actor, { action: 'finding.answered', entityType: 'Revision', entityId: revision.id, payload: { findingId, answer } }, transaction);
@@ -47,7 +49,7 @@ export class ReviewService {
 
   async closeFinding(ability: AppAbility, actor: Reviewer, findingId: number): Promise<RevisionDto> {
     const revisionId = await runTransaction(this.sequelize, async (transaction) => {
-      const finding = await this.loadFinding(findingId);
+      const finding = await this.loadFinding(findingId, transaction);
       const revision = await loadRevision(finding.revisionId, transaction);
       await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker or approver reviewing this revision can close findings');
@@ -102,8 +104,9 @@ export class ReviewService {
     }
   }
 
-  private async loadFinding(id: number): Promise<Finding> {
-    const finding = await Finding.findByPk(id);
+  /** Locked for the rest of the transaction, so two concurrent answers or closes queue instead of both passing the check. */
+  private async loadFinding(id: number, transaction: Transaction): Promise<Finding> {
+    const finding = await Finding.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
     if (!finding) throw AppError.notFound(`Finding ${id}`);
     return finding;
   }

@@ -29,6 +29,11 @@ export class WorkflowService {
   constructor(private readonly sequelize: Sequelize, private readonly baseUrl: string) {}
 
   async sign(ability: AppAbility, signer: Signer, revisionId: number, dto: SignRequest): Promise<RevisionDto> {
+    // Why the signature cannot happen comes first, so a blocked signer never sees "wrong password"
+    // beside it; the same check runs again under the transaction below.
+    // A retried request (same key) skips this: the revision has already moved on by its own signature.
+    const retried = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey } });
+    if (!retried) await this.assertMaySign(dto.meaning, signer, await loadRevision(revisionId));
     await this.checkPassword(signer, revisionId, dto);
     await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
@@ -71,7 +76,7 @@ export class WorkflowService {
     throw new AppError('validation', 400, 'Password is not correct; nothing was signed', { fieldErrors: { password: ['is not correct'] } });
   }
 
-  private async assertMaySign(meaning: Meaning, signer: Signer, revision: Revision, transaction: Transaction): Promise<void> {
+  private async assertMaySign(meaning: Meaning, signer: Signer, revision: Revision, transaction?: Transaction): Promise<void> {
     const findings = await Finding.findAll({ where: { revisionId: revision.id }, transaction });
     const manual = JSON.parse(revision.manualItems) as Record<string, { done: boolean }>;
     const items = revision.ruleSet ? parseRuleSet(revision.ruleSet).manualItems ?? [] : [];

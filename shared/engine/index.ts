@@ -25,3 +25,4 @@ export { SUPPORT_KINDS, type SupportInput, type LoadInput, type MassInput, type 
 export { formatNumber } from './number-format';
 export { formatResultTable } from './result-table';
 export { calcInputJsonSchemaText } from './json-schema';
+export { METHOD_NAMES, FIELD_NAMES, FILLET_KTS_NAMES } from './methods';

@@ -30,3 +30,22 @@ export const METHODS: Readonly<Record<string, string>> = Object.freeze({
   segmentStresses: 'plain section, no stress concentration; worst of the piece ends and bending stations',
   featureStresses: 'Kf, Kfs on nominal stresses at the station; the larger torque side where it jumps',
 });
+
+/** How each method above is named on screens and in reports: the words an engineer would write, not code keys. */
+export const METHOD_NAMES: Readonly<Record<string, string>> = Object.freeze({
+  section: 'Section properties', twist: 'Angle of twist', torqueDiagram: 'Torque diagram', bending: 'Bending moments',
+  power: 'Torque from power and speed', notchSensitivity: 'Notch sensitivity q', endurance: 'Endurance limit Se',
+  staticVonMises: 'Static check, von Mises', staticTresca: 'Static check, Tresca (maximum shear)', fatigue: 'Fatigue criteria',
+  segmentStresses: 'Stresses in plain segments', featureStresses: 'Stresses at features',
+});
+
+/** Result fields printed with their formula, by name. */
+export const FIELD_NAMES: Readonly<Record<string, string>> = Object.freeze({
+  J: 'Polar second moment J', tauMax: 'Largest shear stress τmax', twist: 'Twist φ', Kf: 'Fatigue notch factor Kf',
+  Se: 'Endurance limit Se', goodman: 'Fatigue safety, DE-Goodman',
+});
+
+/** The published method behind Kts at shoulder fillets, as a reader would cite it. */
+export const FILLET_KTS_NAMES: Readonly<Record<string, string>> = Object.freeze({
+  peterson: 'Peterson torsion polynomial (Pilkey & Pilkey, 3rd ed.)', norton: 'Norton power-law fit (Machine Design, 2nd ed., App. E)',
+});

@@ -17,6 +17,9 @@ export const auditQuerySchema = pageQuerySchema.extend({
 }).refine((q) => !q.from || !q.to || q.from <= q.to, { message: 'must not be after "to"', path: ['from'] });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;
 
+/** What an audit row is about, as people name it, with a link to open it where there is one. */
+export interface AuditRecordRef { label: string; link: string | null }
+
 export interface AuditEventDto {
   id: number;
   occurredAt: string;
@@ -25,6 +28,8 @@ export interface AuditEventDto {
   action: string;
   entityType: string;
   entityId: string | null;
+  /** Added when listing (audit-records.ts); the stored row itself keeps only type and id. */
+  record?: AuditRecordRef;
   payload: unknown;
   /** Lists leave the diff out (it can be large): `hasDiff` says one exists; GET /api/audit/:id has it. */
   diff: string | null;

@@ -24,6 +24,11 @@ export class AuditApi {
     return httpResource<AuditEventDto>(() => (id() ? `/api/audit/${id()}` : undefined));
   }
 
+  /** People who appear in the trail, for the person filter. */
+  people() {
+    return httpResource<{ id: number; name: string }[]>(() => '/api/audit/people');
+  }
+
   verifyChain(): Promise<AuditChainStatus> {
     return firstValueFrom(this.http.get<AuditChainStatus>('/api/audit/verify'));
   }

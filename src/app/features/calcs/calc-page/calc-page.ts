@@ -1,10 +1,8 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, numberAttribute } from '@angular/core';
-import { DecimalPipe } from '@angular/common';
 import { Router, RouterLink } from '@angular/router';
 import { MatTabsModule } from '@angular/material/tabs';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatDialog } from '@angular/material/dialog';
 import { MatSnackBar } from '@angular/material/snack-bar';
@@ -24,14 +22,18 @@ import { RevisionHistory } from './revision-history';
 import { MinimumDiameters } from './minimum-diameters';
 import { AttachmentsPanel } from './attachments-panel';
 import { RecordExports } from './record-exports';
+import { ManualItems } from './manual-items';
+import { countFindings, findingsTabLabel } from './finding-counts';
+import { failingRowText, signingReadiness } from './signing-readiness';
+import { formatEng } from '../../../../../shared/format';
 import { planActions, type RevisionAction } from './revision-actions';
 import { SignDialog, type SignDialogData } from './sign-dialog';
 import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
 
 @Component({
   selector: 'tt-calc-page',
-  imports: [DecimalPipe, RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatCheckboxModule, MatProgressBarModule,
-    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports, MinimumDiameters],
+  imports: [RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatProgressBarModule,
+    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports, MinimumDiameters, ManualItems],
   templateUrl: './calc-page.html',
   styleUrl: './calc-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -60,16 +62,15 @@ export default class CalcPage {
   });
   protected readonly checklist = computed(() => (this.current()?.checklist ?? null) as Checklist | null);
   protected readonly result = computed(() => (this.current()?.result ?? null) as CalcResult | null);
-  protected readonly manualRows = computed(() => {
-    const r = this.current();
-    return (this.checklist()?.manual ?? []).map((m) => ({ ...m, state: r?.manualItems[m.id] ?? null }));
-  });
   protected readonly canTick = computed(() => !!this.plan()?.actions.has('sign-checked'));
   protected readonly error = computed(() => {
     const e = this.calc.error() ?? this.revision.error();
     return e ? toHttpFailure(e).message : null;
   });
-  protected readonly openFindings = computed(() => this.current()?.findings.filter((f) => f.status !== 'closed').length ?? 0);
+  protected readonly failingMandatory = computed(() => (this.current() ? signingReadiness(this.current()!, 'authored').failingMandatory : []));
+  protected readonly failingRowText = failingRowText;
+  protected readonly eng = formatEng;
+  protected readonly findingsLabel = computed(() => findingsTabLabel(countFindings(this.current() ?? { findings: [] })));
 
   protected select(revisionId: number): void {
     void this.router.navigate([], { queryParams: { rev: revisionId }, replaceUrl: true });
@@ -111,14 +112,6 @@ export default class CalcPage {
         return;
       }
       this.updated(kind === 'return' ? await this.api.returnToAuthor(r.id, reason, r.lockVersion) : await this.api.withdraw(r.id, reason, r.lockVersion));
-    } catch (error) {
-      this.snackBar.open(toHttpFailure(error).message, 'OK', { duration: 8000 });
-    }
-  }
-
-  protected async tick(itemId: string, done: boolean): Promise<void> {
-    try {
-      this.updated(await this.api.setManualItem(this.current()!.id, itemId, done));
     } catch (error) {
       this.snackBar.open(toHttpFailure(error).message, 'OK', { duration: 8000 });
     }

@@ -1,16 +1,21 @@
-import type { ShaftOutline } from '../../shared/plots';
+import type { ShaftLoads, ShaftOutline } from '../../shared/plots';
 import { BAND, BOLD, COPPER, INK, INK_SOFT, MONO } from './report-doc';
 import type { Box } from './chart-draw';
+import { LOADS_ROOM_PT, drawLoads } from './loads-draw';
 
 const TAG_ROW = 10;
 
-/** The shaft to scale (one factor on both axes), bores hidden-dashed, features marked and tagged. */
-export function drawOutline(doc: PDFKit.PDFDocument, o: ShaftOutline, box: Box, unit: string): void {
+/**
+ * The shaft to scale (one factor on both axes), bores hidden-dashed, features marked and tagged; with
+ * `loads`, the bearings and force arrows too, in room kept above and below the shaft.
+ */
+export function drawOutline(doc: PDFKit.PDFDocument, o: ShaftOutline, box: Box, unit: string, loads: ShaftLoads | null = null): void {
   const levels = Math.max(0, ...o.features.map((f) => f.level + 1));
-  const room = { w: box.w - 20, h: box.h - 30 - levels * TAG_ROW };
+  const arrows = loads ? LOADS_ROOM_PT : 0;
+  const room = { w: box.w - 20, h: box.h - 30 - levels * TAG_ROW - 2 * arrows };
   const k = Math.min(room.w / (o.length || 1), room.h / (2 * o.maxRadius || 1));
   const x0 = box.x + 10 + (room.w - o.length * k) / 2;
-  const yc = box.y + 14 + levels * TAG_ROW + room.h / 2;
+  const yc = box.y + 14 + levels * TAG_ROW + arrows + room.h / 2;
   const X = (v: number) => x0 + v * k;
   const Y = (v: number) => yc - v * k;
   doc.font(BOLD).fontSize(8).fillColor(INK).text(`Shaft outline to scale (${unit})`, box.x, box.y, { lineBreak: false });
@@ -34,6 +39,7 @@ export function drawOutline(doc: PDFKit.PDFDocument, o: ShaftOutline, box: Box, 
     doc.moveTo(X(f.at), tagY + 8).lineTo(X(f.at), Y(f.top)).lineWidth(0.4).strokeColor(COPPER).stroke();
     doc.font(BOLD).fontSize(6.5).fillColor(COPPER).text(f.tag, X(f.at) - 15, tagY, { width: 30, align: 'center', lineBreak: false });
   }
+  if (loads) drawLoads(doc, loads, { X, Y, k });
   doc.font(MONO).fontSize(6).fillColor(INK_SOFT);
   for (const t of o.x.ticks.filter((t) => t <= o.length)) doc.text(String(t), X(t) - 15, box.y + box.h - 10, { width: 30, align: 'center', lineBreak: false });
 }

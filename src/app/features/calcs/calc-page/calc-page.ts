@@ -22,6 +22,7 @@ import { FindingsPanel } from './findings-panel';
 import { SignaturesPanel } from './signatures-panel';
 import { RevisionHistory } from './revision-history';
 import { MinimumDiameters } from './minimum-diameters';
+import { ShaftResults } from '../shaft-results/shaft-results';
 import { AttachmentsPanel } from './attachments-panel';
 import { RecordExports } from './record-exports';
 import { planActions } from './revision-actions';
@@ -31,7 +32,7 @@ import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
 @Component({
   selector: 'tt-calc-page',
   imports: [DecimalPipe, RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatCheckboxModule, MatProgressBarModule,
-    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports, MinimumDiameters],
+    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports, MinimumDiameters, ShaftResults],
   templateUrl: './calc-page.html',
   styleUrl: './calc-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -27,13 +27,16 @@ export function controlAt(form: AbstractControl, path: string): AbstractControl 
 
 /** Where an issue is, in words: "Segment 2", "Torque 1", "Material". */
 export function placeOf(path: string): string {
-  const m = /^(segments|torques|features|bending)\[(\d+)\]/.exec(path);
-  const names: Record<string, string> = { segments: 'Segment', torques: 'Torque', features: 'Feature', bending: 'Bending moment' };
+  const m = /^(segments|torques|features|bending|supports|loads|masses)\[(\d+)\]/.exec(path);
+  const names: Record<string, string> = {
+    segments: 'Segment', torques: 'Torque', features: 'Feature', bending: 'Bending moment', supports: 'Bearing', loads: 'Force', masses: 'Mass',
+  };
   if (m) return `${names[m[1]]} ${Number(m[2]) + 1}`;
   const head = path.split(/[.[]/)[0];
   const words: Record<string, string> = {
     material: 'Material', fatigue: 'Fatigue', torques: 'Torques', segments: 'Segments', units: 'Units', '(input)': 'Calc input',
     notes: 'Notes', title: 'Heading', features: 'Features', bending: 'Bending moments',
+    supports: 'Bearings', loads: 'Forces', masses: 'Masses', speed: 'Operating speed',
   };
   return words[head] ?? head;
 }

@@ -5,7 +5,7 @@ import { SafetyNote } from '../../../ui/safety-note';
 import { placeOf } from './issue-map';
 import type { Evaluated } from './live-calc';
 import { PlotsPanel } from './plots-panel';
-import type { PlotLimits } from './plot-limits';
+import { NO_LIMITS, type PlotLimits } from './plot-limits';
 import { ResultSummary } from './result-summary';
 import type { CriterionKey } from './result-format';
 
@@ -27,6 +27,7 @@ export class LiveResults {
   readonly criterion = input<CriterionKey>('goodman');
   readonly criterionName = input('DE-Goodman');
 
+  protected readonly noLimits = NO_LIMITS;
   protected readonly listed = computed(() => this.issues().map((i) => ({ ...i, place: placeOf(i.path) })));
 
   /** Takes the author to the field an issue names, where the same message is shown. */

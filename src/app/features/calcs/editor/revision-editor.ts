@@ -28,6 +28,9 @@ import { MaterialPanel } from './material-panel';
 import { SegmentsTable } from './segments-table';
 import { FeaturesList } from './features-list';
 import { LoadsPanel } from './loads-panel';
+import { SupportsPanel } from './supports-panel';
+import { ForcesPanel } from './forces-panel';
+import { DynamicsPanel } from './dynamics-panel';
 import { FatiguePanel } from './fatigue-panel';
 import { NotesPanel } from './notes-panel';
 import { LiveResults } from './live-results';
@@ -41,7 +44,7 @@ import { LiveDetails } from './live-details';
 @Component({
   selector: 'tt-revision-editor',
   imports: [RouterLink, MatButtonModule, MatButtonToggleModule, MatIconModule, MatProgressBarModule, StateBadge,
-    MaterialPanel, SegmentsTable, FeaturesList, LoadsPanel, FatiguePanel, NotesPanel, LiveResults, LiveDetails],
+    MaterialPanel, SegmentsTable, FeaturesList, SupportsPanel, LoadsPanel, ForcesPanel, DynamicsPanel, FatiguePanel, NotesPanel, LiveResults, LiveDetails],
   templateUrl: './revision-editor.html',
   styleUrl: './revision-editor.scss',
   providers: [EditorStore, EditorSession, { provide: ErrorStateMatcher, useClass: EngineErrorState }],

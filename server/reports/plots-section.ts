@@ -28,13 +28,12 @@ export function drawPlots(doc: PDFKit.PDFDocument, d: ReportData, number: number
   const input = d.input as { segments: { length: number; od: number; id: number; label?: string }[]; features?: never[] };
   const outline = shaftOutline({ segments: input.segments, features: input.features ?? [] });
   const model = hasBeamModel(r);
-  const height = model ? 200 : 140;
-  ensureSpace(doc, height + 10);
+  const loads = model ? shaftLoads(r, outline) : null;
+  ensureSpace(doc, model ? 300 : 150);
   // Text drawn at fixed positions moves doc.y, so each figure sets it from where the figure began.
   const top = doc.y;
-  drawOutline(doc, outline, { x: PAGE.left, y: top, w: CONTENT_WIDTH, h: height }, r.fields['at']?.unit ?? '', model ? shaftLoads(r, outline) : null);
-  doc.y = top + height + 10;
-  if (model) drawLoadsKey(doc, shaftLoads(r, outline));
+  doc.y = top + drawOutline(doc, outline, { x: PAGE.left, y: top, w: CONTENT_WIDTH, h: 300 }, r.fields['at']?.unit ?? '', loads) + 8;
+  if (loads) drawLoadsKey(doc, loads);
   const charts = [
     torquePlot(r),
     ...(model ? [bendingPlot(r), deflectionPlot(r, shaftLimits(d.checklist, d.ruleSet, r, 'deflection')), slopePlot(r, shaftLimits(d.checklist, d.ruleSet, r, 'slope'))] : []),

@@ -38,11 +38,15 @@ describe('force arrows in pixels', () => {
     expect(l.bearings.map((b) => b.tag)).toEqual(['B1', 'B2']);
   });
 
-  it('when a force acts along +z, then it is drawn as a dot in a circle on the centre line, reactions along −z as crosses', () => {
-    const [toward] = l.outOfPlane.filter((z) => !z.isReaction);
-    expect(toward.isTowardViewer).toBe(true);
-    expect(toward.cy).toBeCloseTo(base.centreY, 0);
-    expect(l.outOfPlane.filter((z) => z.isReaction).every((z) => !z.isTowardViewer)).toBe(true);
+  it('when a force acts along +z, then the x–z strip below shows it as an upward arrow ending on the strip\'s axis, below the side view', () => {
+    const [fz] = l.plan.arrows.filter((a) => !a.isReaction);
+    expect(fz.tag).toBe('F2');
+    const [x, tip] = end(fz.d);
+    expect(x).toBeCloseTo(base.shaftLeft + 100 * base.scale, 0);
+    expect(tip).toBeCloseTo(l.plan.y + 2, 0);
+    expect(Number(fz.d.split(',')[1].split(' ')[0])).toBeGreaterThan(tip);
+    expect(l.plan.y - 46 - 18).toBeGreaterThan(base.centreY + 20 * base.scale);
+    expect(l.plan.supports).toHaveLength(2);
   });
 
   it('when room for arrows is asked for, then the picture grows by it above and below the shaft', () => {

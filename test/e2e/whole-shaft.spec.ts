@@ -35,6 +35,7 @@ describe('the whole shaft in the browser', () => {
       await page.getByRole('table', { name: 'Bearing reactions and life' }).waitFor();
       await page.getByRole('img', { name: /bearings B1 at 20 mm, B2 at 300 mm/ }).waitFor();
       await session.screenshot(page, `whole-shaft-editor-${width}`);
+      await page.screenshot({ path: path.join(SCREENSHOT_DIR, `whole-shaft-editor-${width}-top.png`) });
       // The parts to look at closely, one picture each (the full page is too tall to read).
       for (const [part, selector] of [['outline', 'tt-shaft-drawing'], ['bearings', 'tt-supports-panel'], ['forces', 'tt-forces-panel'], ['results', 'tt-shaft-results']]) {
         await page.locator(selector).screenshot({ path: path.join(SCREENSHOT_DIR, `whole-shaft-${part}-${width}.png`) });

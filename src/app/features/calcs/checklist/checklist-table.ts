@@ -12,6 +12,8 @@ const STATUS_TEXT: Record<ChecklistRow['status'], string> = { pass: 'Pass', fail
   imports: [DecimalPipe, MatTableModule, MatTooltipModule],
   templateUrl: './checklist-table.html',
   styleUrl: './checklist-table.scss',
+  // The host scrolls sideways on narrow screens; focusable so keyboard users can scroll it too.
+  host: { tabindex: '0', role: 'region', 'aria-label': 'Checklist rows, scrolls sideways' },
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ChecklistTable {

@@ -15,19 +15,19 @@ interface Field { key: keyof ForceForm; label: string; unit: keyof ReturnType<ty
 const FORCE_XYZ: Field[] = [
   { key: 'Fy', label: 'Fy', unit: 'force' }, { key: 'Fz', label: 'Fz', unit: 'force' }, { key: 'Fx', label: 'Fx axial', unit: 'force' },
 ];
-const OWN_T: Field = { key: 'T', label: 'Own torque T', unit: 'torque', hint: 'blank: the torque at this station' };
-const DIRECTION: Field = { key: 'direction', label: 'Direction', unit: 'deg', hint: 'angle about the axis from +y toward +z' };
+const OWN_T: Field = { key: 'T', label: 'T', unit: 'torque', hint: 'blank: torque entry here' };
+const DIRECTION: Field = { key: 'direction', label: 'Direction', unit: 'deg', hint: 'pull, from +y to +z' };
 
 /** The fields each kind of element asks for, in the order an engineer reads them off a drawing. */
 const FIELDS: Record<ForceKind, Field[]> = {
   point: FORCE_XYZ,
   gear: [
     { key: 'pitchDiameter', label: 'Pitch ⌀', unit: 'length' }, { key: 'pressureAngle', label: 'Pressure angle', unit: 'deg', hint: 'blank: 20°' },
-    { key: 'helixAngle', label: 'Helix angle', unit: 'deg', hint: 'blank: 0° (spur)' }, { ...DIRECTION, hint: 'mesh point, from +y toward +z' }, OWN_T,
+    { key: 'helixAngle', label: 'Helix angle', unit: 'deg', hint: 'blank: 0° (spur)' }, { ...DIRECTION, hint: 'mesh, from +y to +z' }, OWN_T,
   ],
   pulley: [{ key: 'diameter', label: 'Pitch ⌀', unit: 'length' }, { key: 'pullFactor', label: 'Pull factor', unit: '', hint: 'blank: 1.5 (V-belt)' }, DIRECTION, OWN_T],
   sprocket: [{ key: 'diameter', label: 'Pitch ⌀', unit: 'length' }, { key: 'pullFactor', label: 'Pull factor', unit: '', hint: 'blank: 1 (chain)' }, DIRECTION, OWN_T],
-  coupling: [...FORCE_XYZ.slice(0, 2).map((f) => ({ ...f, hint: 'misalignment; blank: 0' })), OWN_T],
+  coupling: [...FORCE_XYZ.slice(0, 2).map((f) => ({ ...f, hint: 'blank: 0' })), OWN_T],
 };
 
 const TAGS: Record<ForceKind, string> = { point: 'F', gear: 'G', pulley: 'P', sprocket: 'S', coupling: 'C' };

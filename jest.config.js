@@ -1,4 +1,6 @@
 // One runner for the whole repository (see DEVELOPERS.md): each project below is one layer.
+// Time limits fit the real work of each layer on a 2-core machine that is busy with other jobs
+// (Argon2id hashes and MariaDB round trips in api, a browser in e2e); tests never assert speed.
 const tsJest = ['ts-jest', { tsconfig: '<rootDir>/tsconfig.spec.json' }];
 
 /** @type {import('jest').Config} */
@@ -6,12 +8,14 @@ module.exports = {
   projects: [
     {
       displayName: 'unit',
+      testTimeout: 60_000,
       testEnvironment: 'node',
       testMatch: ['<rootDir>/test/shared/**/*.spec.ts', '<rootDir>/test/scripts/**/*.spec.ts'],
       transform: { '^.+\\.ts$': tsJest },
     },
     {
       displayName: 'api',
+      testTimeout: 180_000,
       testEnvironment: 'node',
       testMatch: ['<rootDir>/test/server/**/*.spec.ts'],
       transform: { '^.+\\.ts$': tsJest },
@@ -19,6 +23,7 @@ module.exports = {
     },
     {
       displayName: 'client',
+      testTimeout: 120_000,
       preset: 'jest-preset-angular',
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
       setupFilesAfterEnv: ['<rootDir>/test/support/client-setup.ts'],
@@ -32,6 +37,7 @@ module.exports = {
     },
     {
       displayName: 'e2e',
+      testTimeout: 300_000,
       testEnvironment: 'node',
       testMatch: ['<rootDir>/test/e2e/**/*.spec.ts'],
       transform: { '^.+\\.ts$': tsJest },

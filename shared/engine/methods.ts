@@ -3,13 +3,23 @@ import { NEUBER_METHOD } from './notch-sensitivity';
 import { POWER_METHOD } from './power';
 import { J_FORMULA } from './section';
 import { TRESCA_FORMULA, VON_MISES_FORMULA } from './combined';
+import { BEAM_METHOD } from './beam/beam-method';
+import { LIFE_METHOD } from './beam/bearing-life';
+import { CRITICAL_SPEED_METHOD } from './beam/critical-speed';
+import { BELT_METHOD, GEAR_METHOD } from './beam/resolve-loads';
 
 /** The methods behind the whole result, for the report's method list (per-feature factors name their own). */
 export const METHODS: Readonly<Record<string, string>> = Object.freeze({
   section: `${J_FORMULA}; τ(ρ) = T·ρ/J; γ = τ/G`,
   twist: 'φ = Σ Tᵢ·Lᵢ/(Gᵢ·Jᵢ) over the pieces of the torque diagram',
   torqueDiagram: 'internal torque = Σ external torques left of the section; a torque at a station acts to its right',
-  bending: 'moments linear between the entered stations, held constant beyond the first and last entry',
+  bending: 'beam model moment M (rotating shaft: Ma = M, Mm = 0, Shigley 9th §7-4) plus any entered Ma, Mm added on top as magnitudes; '
+    + 'entered moments are linear between their stations and held constant beyond the first and last entry',
+  beam: BEAM_METHOD,
+  gearForces: GEAR_METHOD,
+  beltForces: BELT_METHOD,
+  bearingLife: LIFE_METHOD,
+  criticalSpeed: CRITICAL_SPEED_METHOD,
   power: POWER_METHOD,
   notchSensitivity: NEUBER_METHOD,
   endurance: ENDURANCE_METHOD,

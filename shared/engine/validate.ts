@@ -1,3 +1,4 @@
+import { checkBeam } from './beam/check-beam';
 import { checkFeatures } from './check-features';
 import { checkGeometry } from './check-geometry';
 import { checkLoads } from './check-loads';
@@ -39,6 +40,6 @@ export function validateCalcInput(input: unknown): ValidationResult {
     const detailed = calcInputSchema.safeParse(input, { reportInput: true });
     return { ok: false, issues: toCalcIssues(detailed.error?.issues ?? parsed.error.issues, systemOf(input)) };
   }
-  const issues = [...checkGeometry(parsed.data), ...checkLoads(parsed.data), ...checkFeatures(parsed.data)];
+  const issues = [...checkGeometry(parsed.data), ...checkLoads(parsed.data), ...checkFeatures(parsed.data), ...checkBeam(parsed.data)];
   return issues.length ? { ok: false, issues } : { ok: true, value: parsed.data };
 }

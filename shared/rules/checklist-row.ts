@@ -1,5 +1,6 @@
 import { fromSI, type UnitSystem } from '../engine';
 import { errorText, type ClauseOutcome } from './clause-outcome';
+import { PLAIN_QUANTITIES } from './fact-registry';
 import type { ChecklistRow } from './checklist-types';
 import type { Facts } from './facts';
 import type { Target } from './locations';
@@ -22,8 +23,8 @@ function lookup(name: string, facts: Facts, params: Facts): number | null {
 
 /** Actual and limit of the measure, converted from SI to the calc's units (throws on an unknown name). */
 function measured(m: PreparedMeasure, facts: Facts, params: Facts, units: UnitSystem): Measured {
-  const isPlain = units === 'SI' || m.quantity === '1' || m.quantity === 'angle';
-  const q = m.quantity as Exclude<PreparedMeasure['quantity'], '1'>;
+  const isPlain = units === 'SI' || PLAIN_QUANTITIES.has(m.quantity);
+  const q = m.quantity as 'length' | 'torque' | 'stress' | 'modulus' | 'twistPerLength';
   const shown = (v: number | null): number | null => (v === null || isPlain ? v : fromSI(v, q, units));
   return { actual: shown(lookup(m.actual, facts, params)), limit: shown(lookup(m.limit, facts, params)), unit: m.unit[units] };
 }

@@ -17,28 +17,52 @@ export function nodePoint(beam: BeamSolution, i: number): CurvePoint {
   return { at: beam.mesh.x[i], y: y.u[2 * i], z: z.u[2 * i], sy: y.u[2 * i + 1], sz: z.u[2 * i + 1] };
 }
 
-const SAMPLES = 8;
+const size = (p: CurvePoint): number => Math.hypot(p.y, p.z);
 
-/** Curve at every node and element midpoint, and the largest resultant deflection over 8 samples per element. */
+/*
+ * Largest resultant deflection: the best node or midpoint, then a golden-section search over the
+ * two elements beside it (the resultant of two cubics is smooth there, and unimodal near its peak).
+ */
+function refineMax(beam: BeamSolution, e0: number, best: CurvePoint): CurvePoint {
+  const x = beam.mesh.x;
+  const [lo, hi] = [Math.max(0, e0 - 1), Math.min(x.length - 2, e0 + 1)];
+  const at = (t: number): CurvePoint => {
+    let e = lo;
+    while (e < hi && t > x[e + 1]) e++;
+    return pointAt(beam, e, t);
+  };
+  let [a, b] = [x[lo], x[hi + 1]];
+  const g = (Math.sqrt(5) - 1) / 2;
+  let [pc, pd] = [at(b - g * (b - a)), at(a + g * (b - a))];
+  for (let i = 0; i < 30; i++) {
+    if (size(pc) > size(pd)) {
+      [b, pd] = [pd.at, pc];
+      pc = at(b - g * (b - a));
+    } else {
+      [a, pc] = [pc.at, pd];
+      pd = at(a + g * (b - a));
+    }
+  }
+  const found = size(pc) > size(pd) ? pc : pd;
+  return size(found) > size(best) ? found : best;
+}
+
+/** Curve at every node and element midpoint, and the largest resultant deflection and its station. */
 export function deflectionCurve(beam: BeamSolution, length: number): { curve: DeflectionPoint[]; max: number; at: number } {
   const x = beam.mesh.x;
   const curve: DeflectionPoint[] = [];
-  let [max, at] = [0, 0];
-  const out = (p: CurvePoint): void => {
-    curve.push({ at: p.at / length, y: p.y / length, z: p.z / length, deflection: Math.hypot(p.y, p.z) / length,
-      slopeY: p.sy, slopeZ: p.sz, slope: Math.hypot(p.sy, p.sz) });
+  let best = nodePoint(beam, 0);
+  let bestE = 0;
+  const out = (p: CurvePoint, e: number): void => {
+    const d = size(p);
+    curve.push({ at: p.at / length, y: p.y / length, z: p.z / length, deflection: d / length, slopeY: p.sy, slopeZ: p.sz, slope: Math.hypot(p.sy, p.sz) });
+    if (d > size(best)) [best, bestE] = [p, Math.min(e, x.length - 2)];
   };
   for (let e = 0; e < x.length - 1; e++) {
-    out(nodePoint(beam, e));
-    out(pointAt(beam, e, (x[e] + x[e + 1]) / 2));
-    for (let s = 0; s < SAMPLES; s++) {
-      const p = pointAt(beam, e, x[e] + ((x[e + 1] - x[e]) * s) / SAMPLES);
-      const d = Math.hypot(p.y, p.z);
-      if (d > max) [max, at] = [d, p.at];
-    }
+    out(nodePoint(beam, e), e);
+    out(pointAt(beam, e, (x[e] + x[e + 1]) / 2), e);
   }
-  const last = nodePoint(beam, x.length - 1);
-  out(last);
-  if (Math.hypot(last.y, last.z) > max) [max, at] = [Math.hypot(last.y, last.z), last.at];
-  return { curve, max: max / length, at: at / length };
+  out(nodePoint(beam, x.length - 1), x.length - 2);
+  const peak = size(best) > 0 ? refineMax(beam, bestE, best) : best;
+  return { curve, max: size(peak) / length, at: peak.at / length };
 }

@@ -1,6 +1,6 @@
 import type { Model } from '../model';
 import type { BeamResults, BendingPoint, LoadResult, SupportResult } from './beam-result';
-import { solveBeam, type BeamSolution } from './beam-solve';
+import { solveBeam, type BeamSolution, type DiagramPoint } from './beam-solve';
 import { BEAM_BASE, STEEL_DENSITY } from './beam-units';
 import { deflectionCurve, nodePoint } from './beam-curve';
 import { lifeExponent, ratingLife } from './bearing-life';
@@ -8,6 +8,7 @@ import { axialReactions } from './axial';
 import { CRITICAL_SPEED_METHOD, firstBendingFrequency } from './critical-speed';
 import { nodeAt } from './mesh';
 import { resolveLoads } from './resolve-loads';
+import { CalcInputError } from '../validate';
 
 export const BEAM_ASSUMPTIONS = [
   'rigid simple supports at the bearing centres (no bearing stiffness, no moment restraint)',
@@ -54,7 +55,7 @@ function supportResults(model: Model, beam: BeamSolution, speed: number | null):
     const Fr = Math.hypot(Fy, Fz);
     const C = s.C === undefined ? null : s.C * BEAM_BASE[system].rating;
     const life = ratingLife(s.kind, C, Fr, axial[i], s.X, s.Y, speed);
-    return { index: i, label: s.label, kind: s.kind, at: s.at, Fy: Fy / F, Fz: Fz / F, F: Fr / F, Fa: axial[i] / F,
+    return { index: i, label: s.label, kind: s.kind, at: s.at, locating: s.locating === true, Fy: Fy / F, Fz: Fz / F, F: Fr / F, Fa: axial[i] / F,
       slopeY: p.sy, slopeZ: p.sz, slope: Math.hypot(p.sy, p.sz), P: life.P / F, p: lifeExponent(s.kind), C: s.C ?? null,
       L10: life.L10, L10h: life.L10h } satisfies SupportResult;
   });
@@ -71,11 +72,24 @@ function loadResults(model: Model, beam: BeamSolution): LoadResult[] {
   });
 }
 
+// Rounding leaves residues near 1e-12 of the largest value where the exact value is zero (beyond the last bearing).
+function largest(d: readonly DiagramPoint[], a: 'My' | 'Vy', b: 'Mz' | 'Vz'): number {
+  let m = 0;
+  for (const p of d) m = Math.max(m, Math.abs(p[a]), Math.abs(p[b]));
+  return 1e-11 * m;
+}
+
 function bendingOut(model: Model, beam: BeamSolution): BendingPoint[] {
   const { k, system } = model;
   const F = BEAM_BASE[system].force;
-  return beam.diagram.map((d) => ({ at: d.at / k.length, Vy: d.Vy / F, Vz: d.Vz / F, My: d.My / k.torque, Mz: d.Mz / k.torque,
-    M: Math.hypot(d.My, d.Mz) / k.torque }));
+  const d = beam.diagram;
+  const [tm, tv] = [largest(d, 'My', 'Mz'), largest(d, 'Vy', 'Vz')];
+  const clean = (v: number, tol: number): number => (Math.abs(v) <= tol ? 0 : v);
+  return d.map((p) => {
+    const [My, Mz] = [clean(p.My, tm), clean(p.Mz, tm)];
+    return { at: p.at / k.length, Vy: clean(p.Vy, tv) / F, Vz: clean(p.Vz, tv) / F, My: My / k.torque, Mz: Mz / k.torque,
+      M: Math.hypot(My, Mz) / k.torque };
+  });
 }
 
 /** The beam model of a validated calc: statics, deflection, bearing life and critical speed. */
@@ -89,6 +103,12 @@ export function evaluateBeam(model: Model): BeamState {
   const stations = [...loads.map((l) => l.at), ...masses.map((m) => m.at), ...(input.features ?? []).map((f) => f.at * k.length)];
   const beam = solveBeam(model, supports.map((s) => s.at * k.length), loads, stations, densities(model));
   const { curve, max, at } = deflectionCurve(beam, k.length);
+  if (!Number.isFinite(max) || beam.y.R.some((r) => !Number.isFinite(r)) || beam.z.R.some((r) => !Number.isFinite(r))) {
+    throw new CalcInputError([{ path: 'loads', message: 'the beam solution overflows: the loads are too large for the shaft section' }]);
+  }
+  if (max * k.length > model.total / 100) {
+    model.warnings.push({ path: 'segments', message: 'the largest deflection exceeds 1/100 of the shaft length: the small-deflection model no longer holds' });
+  }
   const eigen = firstBendingFrequency(beam, masses);
   const rpm = eigen ? (eigen.omega * 60) / (2 * Math.PI) : null;
   const massOut = (input.masses ?? []).map((m, i) => {

@@ -8,7 +8,7 @@ import type { SupportKind } from './beam-schema';
  * x–y plane), Mz from the z-forces; M = √(My² + Mz²).
  */
 export interface SupportResult {
-  index: number; label: string | undefined; kind: SupportKind; at: number;
+  index: number; label: string | undefined; kind: SupportKind; at: number; locating: boolean;
   /** Reaction the bearing exerts on the shaft, along +y and +z; F the resultant radial reaction. */
   Fy: number; Fz: number; F: number;
   /** Axial reaction (magnitude) taken by this bearing. */

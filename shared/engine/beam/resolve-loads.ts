@@ -7,6 +7,13 @@ import { BEAM_BASE } from './beam-units';
 
 const RAD = Math.PI / 180;
 
+// cos and sin of an angle in degrees, exact at multiples of 90° (so a pull "along +z" has no y residue).
+function cosSin(deg: number): [number, number] {
+  const q = deg / 90;
+  if (Number.isInteger(q)) return [[1, 0, -1, 0][((q % 4) + 4) % 4], [0, 1, 0, -1][((q % 4) + 4) % 4]];
+  return [Math.cos(deg * RAD), Math.sin(deg * RAD)];
+}
+
 /** A load reduced to forces on the shaft axis (N) and couples (N·mm) in the two planes. */
 export interface PointLoad {
   index: number; kind: 'force' | 'gear' | 'pulley' | 'sprocket' | 'coupling'; at: number;
@@ -32,8 +39,8 @@ export function transmittedTorque(input: CalcInput, load: LoadInput): number | n
 }
 
 function gearLoad(p: PointLoad, d: number, phiDeg: number, psiDeg: number, thetaDeg: number): void {
-  const [th, psi] = [thetaDeg * RAD, psiDeg * RAD];
-  const [c, s] = [Math.cos(th), Math.sin(th)];
+  const psi = psiDeg * RAD;
+  const [c, s] = cosSin(thetaDeg);
   // Tangential force on the shaft's gear at the mesh point: its moment about +x is the torque T.
   const Wt = (2 * p.T) / d;
   const Wr = (Math.abs(Wt) * Math.tan(phiDeg * RAD)) / Math.cos(psi);
@@ -64,8 +71,8 @@ export function resolveLoads(input: CalcInput): PointLoad[] {
       [p.Fy, p.Fz] = [(load.Fy ?? 0) * F, (load.Fz ?? 0) * F];
     } else {
       const pull = (load.pullFactor ?? DEFAULT_PULL_FACTOR[load.kind]) * Math.abs((2 * p.T) / (load.diameter * k.length));
-      const dir = (load.direction ?? 0) * RAD;
-      [p.Fy, p.Fz] = [pull * Math.cos(dir), pull * Math.sin(dir)];
+      const [c, s] = cosSin(load.direction ?? 0);
+      [p.Fy, p.Fz] = [pull * c, pull * s];
     }
     return p;
   });

@@ -61,7 +61,7 @@ export function drawShaftResults(doc: PDFKit.PDFDocument, d: ReportData, number:
   }
   const dmax = r.deflection;
   paragraph(doc, `Largest deflection ${num(dmax?.max ?? null, 3)} ${unit(r, 'deflection')} at ${num(dmax?.at ?? null)} ${unit(r, 'at')}. ${criticalSpeedLine(r)}`);
-  const methods = ['deflection', 'L10', 'L10h', 'criticalSpeed'].filter((k) => r.fields[k]).map((k): Cell[] => [`${k} (${r.fields[k].unit})`, r.fields[k].formula]);
+  const methods = ['M', 'deflection', 'slope', 'L10h', 'rpm', 'totalMass'].filter((k) => r.fields[k]).map((k): Cell[] => [`${k} (${r.fields[k].unit})`, r.fields[k].formula]);
   if (methods.length) drawTable(doc, [{ header: 'Quantity', share: 0.2 }, { header: 'Formula or published method', share: 0.8 }], methods, { size: 7.5 });
   subHeading(doc, 'What this model assumes');
   for (const a of r.assumptions ?? []) paragraph(doc, `• ${a.charAt(0).toUpperCase()}${a.slice(1)}${a.endsWith('.') ? '' : '.'}`);

@@ -34,6 +34,6 @@ export class ShaftResults {
   /** Who says so, for the figures that come from a published method (critical speed, bearing life). */
   protected readonly methods = computed(() => {
     const f = this.result().fields;
-    return ['criticalSpeed', 'L10'].map((k) => f[k]?.formula).filter((v): v is string => !!v);
+    return ['rpm', 'L10h'].map((k) => f[k]?.formula).filter((v): v is string => !!v);
   });
 }

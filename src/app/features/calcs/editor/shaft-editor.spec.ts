@@ -58,6 +58,16 @@ describe('bearings and forces in the calc editor', () => {
     expect(e.fixture.nativeElement.textContent).toContain('Results below are for the last valid input');
   });
 
+  it('when a bearing is moved off the shaft, then the engine\'s message is on that bearing\'s station field, named as the screen names it', async () => {
+    const e = await openEditor(storedRevision(INPUT));
+    await (await field(e, 'supports[1].at')).setValue('450');
+    await e.settle();
+
+    const station = await e.loader.getHarness(MatFormFieldHarness.with({ selector: ':has([data-path="supports[1].at"])' }));
+    expect(await station.getTextErrors()).toEqual(['station 450 mm is off the shaft (0 to 400 mm)']);
+    expect(e.fixture.nativeElement.textContent).toMatch(/Bearing 2\s*supports\[1\]\.at — station 450 mm is off the shaft/);
+  });
+
   it('when a force element becomes a sprocket, then its fields change to pitch diameter and pull factor, with its tag', async () => {
     const e = await openEditor(storedRevision(INPUT));
     await (await e.loader.getHarness(MatButtonHarness.with({ text: /Add force/ }))).click();

@@ -37,12 +37,22 @@ export function bendingPlot(result: CalcResult): Chart {
   ], []);
 }
 
+/**
+ * The curve is sampled between stations while the engine finds the largest deflection exactly; the
+ * largest point is put on the curve, so the plot's peak is the figure in the table, not a bit below it.
+ */
+function withLargest(points: Point[], largest: CalcResult['deflection']): Point[] {
+  if (!largest || points.some(([x]) => Math.abs(x - largest.at) < 1e-9 * Math.max(1, Math.abs(x)))) return points;
+  const i = points.findIndex(([x]) => x > largest.at);
+  return i < 0 ? [...points, [largest.at, largest.max]] : [...points.slice(0, i), [largest.at, largest.max], ...points.slice(i)];
+}
+
 /** Transverse deflection along the shaft: the resultant and its y and z parts, with deflection limits. */
 export function deflectionPlot(result: CalcResult, limits: readonly StationLimit[] = []): Chart {
   const c = result.deflectionCurve;
   const unit = beamUnit(result, 'deflection');
   return chart(result, 'Deflection of the shaft', { label: 'δ', unit }, [
-    series('d', 'Resultant δ', c.map((p) => [p.at, p.deflection] as const), 'solid'),
+    series('d', 'Resultant δ', withLargest(c.map((p) => [p.at, p.deflection] as const), result.deflection), 'solid'),
     series('y', 'δy', c.map((p) => [p.at, p.y] as const), 'dashed'),
     series('z', 'δz', c.map((p) => [p.at, p.z] as const), 'dotted'),
   ], placed(result, limits));

@@ -1,4 +1,5 @@
 import { CAUTION, formatNumber } from '../../shared/engine';
+import { beamUnit, hasBeamModel } from '../../shared/plots';
 import type { ReportData } from './report-data';
 import { BOLD, CONTENT_WIDTH, COPPER, INK, PAGE, SANS } from './report-doc';
 import type { StateMark } from './page-furniture';
@@ -42,6 +43,13 @@ export function drawKeyResults(doc: PDFKit.PDFDocument, d: ReportData): void {
   if (fatigue) {
     const names: [keyof typeof fatigue, string][] = [['goodman', 'DE-Goodman'], ['asmeElliptic', 'DE-ASME-elliptic'], ['gerber', 'DE-Gerber'], ['soderberg', 'DE-Soderberg']];
     for (const [k, name] of names) rows.push([`Lowest fatigue safety, ${name}`, num(fatigue[k]?.value ?? null, 3), '–', at(fatigue[k]), f(k).formula]);
+  }
+  if (hasBeamModel(r)) {
+    const c = r.criticalSpeed;
+    const life = r.supports.filter((s) => s.L10h !== null).sort((a, b) => a.L10h! - b.L10h!)[0];
+    rows.push(['Largest deflection δ', num(r.deflection?.max ?? null, 3), beamUnit(r, 'deflection'), at(r.deflection), f('deflection').formula]);
+    if (life) rows.push(['Shortest bearing life L10h', num(life.L10h, 3), 'h', `bearing ${life.index + 1} at ${num(life.at)} ${f('at').unit}`, f('L10h').formula]);
+    rows.push(['Critical / operating speed', num(c?.ratio ?? null, 3), '–', c ? `first critical ${num(c.rpm)} rpm` : 'not computed', c?.method ?? '']);
   }
   drawTable(doc, [
     { header: 'Result', share: 0.25 }, { header: 'Value', share: 0.1, align: 'right', mono: true }, { header: 'Unit', share: 0.07 },

@@ -32,12 +32,13 @@ describe('calc report of a whole-shaft calc', () => {
     const text = flat(readPdf((await getPdf(author.session, revisionId)).body as Buffer, 'whole-shaft-report').text);
 
     expect(text).toContain('Bearings (simple supports at their centres)');
-    expect(text).toMatch(/B1 drive end 20 deep-groove-ball 25\.5 — yes, takes the axial load/);
+    expect(text).toMatch(/B1 drive end 20 deep-groove-ball 25\.5 — yes, takes the axial/);
     expect(text).toMatch(/B2 free end 300 cylindrical-roller 44/);
     expect(text).toContain('C kN');
     expect(text).toContain('Forces on the shaft');
     expect(text).toMatch(/G1 Gear spur gear 100 pitch ⌀ 180 mm, pressure angle 20°/);
-    expect(text).toMatch(/C2 Coupling flexible coupling 390/);
+    // The diagonal DRAFT mark can drop a letter between cells of the extracted text.
+    expect(text).toMatch(/C2 Coupling flexible coupling(?: \S)? 390/);
     expect(text).toContain('Attached masses');
     expect(text).toMatch(/m1 gear 100\b/);
     expect(text).toContain('Operating speed: 950 rpm');
@@ -49,6 +50,8 @@ describe('calc report of a whole-shaft calc', () => {
     const text = flat(readPdf((await getPdf(author.session, revisionId)).body as Buffer).text);
     const r = revision.result;
 
+    expect(text).toMatch(/Largest deflection δ [\d.]+ mm/);
+    expect(text).toContain('Shortest bearing life L10h');
     expect(text).toContain('Bearings, deflection and critical speed');
     expect(text).toContain('Bearing reactions on the shaft and basic rating life');
     const fmt = (v: number) => formatNumber(v, 4);

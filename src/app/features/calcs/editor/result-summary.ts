@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { CalcResult, Extreme } from '../../../../../shared/engine';
-import { featureTag } from '../../../../../shared/plots';
+import { beamUnit, featureTag, hasBeamModel } from '../../../../../shared/plots';
 import { fmt, type CriterionKey } from './result-format';
 
 interface Figure { label: string; value: string; unit: string; where: string }
@@ -45,6 +45,11 @@ export class ResultSummary {
     if (r.minFatigueSafety) {
       const e = r.minFatigueSafety[this.criterion()];
       out.push({ label: 'Lowest fatigue safety', value: fmt(e?.value, 3), unit: '', where: `${this.criterionName()}, ${this.where(e)}` });
+    }
+    if (hasBeamModel(r)) {
+      const c = r.criticalSpeed;
+      out.push({ label: 'Largest deflection δ', value: fmt(r.deflection?.max, 3), unit: beamUnit(r, 'deflection'), where: `at ${fmt(r.deflection?.at)} ${len}` });
+      out.push({ label: 'Critical / operating speed', value: fmt(c?.ratio, 3), unit: '', where: c ? `first critical ${fmt(c.rpm)} rpm` : 'not computed' });
     }
     return out;
   });

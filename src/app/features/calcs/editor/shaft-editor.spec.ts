@@ -104,6 +104,8 @@ describe('bearings and forces in the calc editor', () => {
     expect(text).toContain('What this model assumes');
     expect(text).toContain('Bending moment from the forces');
     expect(text).toContain('First critical speed');
+    expect(text).toContain('Critical / operating speed');
+    expect(text).toContain('Largest deflection δ');
     expect(e.fixture.nativeElement.querySelector('tt-model-assumptions tt-safety-note')).not.toBeNull();
   });
 });

@@ -1,6 +1,7 @@
 // The --rules option of the calc command: a design standard from a JSON file, or by code (and
 // version) from the database when the server's database is reachable.
 import { existsSync, readFileSync } from 'node:fs';
+import { parseStrictJson } from '../shared/json/strict-json';
 import { applyRuleSetMethods, evaluateChecklistSync, validateRuleSet, type Checklist, type RuleSet } from '../shared/rules';
 import type { CalcInput, CalcResult } from '../shared/engine';
 import { formatNumber } from '../shared/engine';
@@ -30,13 +31,10 @@ async function fromDatabase(spec: string): Promise<RuleSet> {
 
 export async function loadRules(spec: string): Promise<RuleSet> {
   if (!existsSync(spec)) return fromDatabase(spec);
-  let raw: unknown;
-  try {
-    raw = JSON.parse(readFileSync(spec, 'utf8'));
-  } catch (e) {
-    throw new RulesError(`--rules ${spec}: not valid JSON: ${(e as Error).message}`);
-  }
-  const checked = validateRuleSet(raw);
+  // The same reader as calc inputs: a BOM is accepted, a key given twice is refused.
+  const parsed = parseStrictJson(readFileSync(spec, 'utf8'));
+  if (!parsed.ok) throw new RulesError(`--rules ${spec}: ${parsed.issue.path}: ${parsed.issue.message}`);
+  const checked = validateRuleSet(parsed.value);
   if (!checked.ok) throw new RulesError(checked.issues.map((i) => `--rules ${spec}: ${i.path}: ${i.message}`).join('\n'));
   return checked.value;
 }

@@ -2,7 +2,10 @@
 // Exit status: 0 all valid, 2 any invalid input (messages on stderr), 1 usage or file errors.
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, join } from 'node:path';
-import { evaluateValidInput, formatResultTable, validateCalcInput, type CalcIssue, type CalcResult } from '../shared/engine';
+import {
+  CalcInputError, evaluateValidInput, formatResultTable, validateCalcInput, type CalcIssue, type CalcResult,
+} from '../shared/engine';
+import { parseStrictJson } from '../shared/json/strict-json';
 import type { Checklist, RuleSet } from '../shared/rules';
 import { RulesError, checklistFor, formatChecklist, loadRules, withMethods } from './calc-rules';
 
@@ -33,16 +36,19 @@ function parseArgs(argv: string[]): { target: string; format: 'json' | 'table'; 
 }
 
 function evaluateText(file: string, text: string, ruleSet: RuleSet | null): Outcome {
-  let data: unknown;
-  try {
-    data = JSON.parse(text);
-  } catch (e) {
-    return { file, issues: [{ path: '(input)', message: `not valid JSON: ${(e as Error).message}` }] };
-  }
-  const checked = validateCalcInput(data);
+  const parsed = parseStrictJson(text);
+  if (!parsed.ok) return { file, issues: [parsed.issue] };
+  const checked = validateCalcInput(parsed.value);
   if (!checked.ok) return { file, issues: checked.issues };
   const input = withMethods(checked.value, ruleSet);
-  const result = evaluateValidInput(input);
+  let result: CalcResult;
+  try {
+    result = evaluateValidInput(input);
+  } catch (e) {
+    // A value the range checks let through but the arithmetic could not carry: still bad input, exit 2.
+    if (e instanceof CalcInputError) return { file, issues: e.issues };
+    throw e;
+  }
   if (!ruleSet) return { file, result };
   const checklist = checklistFor(input, result, ruleSet);
   return { file, result: { ...result, checklist, verdict: checklist.verdict } };

@@ -3,6 +3,7 @@ import { evaluateBeam } from './beam/beam-eval';
 import { enduranceLimit } from './endurance';
 import { evaluateFeature } from './feature-eval';
 import { FIELDS } from './fields';
+import { assertFiniteResult, guarded } from './finite';
 import { buildModel, type Model } from './model';
 import { modelWarnings } from './model-warnings';
 import { METHODS } from './methods';
@@ -46,6 +47,7 @@ function keyseatSegments(model: Model): boolean[] {
 /**
  * Evaluates input that has already passed validateCalcInput, skipping the schema check (the live
  * editor and the benchmark call this after validating once). Anything else must use evaluateShaft.
+ * Throws CalcInputError if a number would come out NaN or infinite (finite.ts): never a null for it.
  */
 export function evaluateValidInput(input: CalcInput): CalcResult {
   const model = buildModel(input);
@@ -56,14 +58,16 @@ export function evaluateValidInput(input: CalcInput): CalcResult {
   const pieces = buildTorqueDiagram(model);
   const fat = model.fatigue;
   const endurance: (Endurance | null)[] = model.segs.map((s) => (fat ? enduranceLimit(s.mat, s.od, fat) : null));
-  const features = (input.features ?? []).map((_, i) => evaluateFeature(model, i, pieces, endurance));
+  const features = (input.features ?? []).map((_, i) => guarded(`features[${i}]`, () => evaluateFeature(model, i, pieces, endurance)));
   const hasKeyseat = keyseatSegments(model);
-  const segments = model.segs.map((s) => evaluateSegment(model, s, pieces, endurance[s.index], hasKeyseat[s.index]));
-  return {
+  const segments = model.segs.map((s) => guarded(`segments[${s.index}]`, () => evaluateSegment(model, s, pieces, endurance[s.index], hasKeyseat[s.index])));
+  const result: CalcResult = {
     engineVersion: ENGINE_VERSION, units: input.units, caution: CAUTION, fields: FIELDS[input.units], methods: METHODS,
     length: model.total / model.k.length, segments, features, torques: torquesOut(model), torqueDiagram: diagramOut(model, pieces),
     ...summarize(segments, features), ...beam.results, warnings: model.warnings,
   };
+  assertFiniteResult(result);
+  return result;
 }
 
 /**

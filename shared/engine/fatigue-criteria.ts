@@ -3,6 +3,8 @@
  * Eqs. 7-7 to 7-14), written with the von Mises alternating and midrange stresses
  * σ′a = √(σa² + 3τa²), σ′m = √(σm² + 3τm²) so that one form serves solid and hollow sections.
  */
+import { finite } from './finite';
+
 export interface SafetyByCriterion {
   goodman: number | null;
   asmeElliptic: number | null;
@@ -17,7 +19,8 @@ export const CRITERIA_METHODS: Record<keyof SafetyByCriterion, string> = {
   soderberg: "DE-Soderberg 1/n = σ′a/Se + σ′m/Sy (Shigley 9th Eq. 7-13/7-14)",
 };
 
-const inverse = (x: number): number | null => (x > 0 ? 1 / x : null);
+// 1/n is exactly 0 only where both stresses are 0; NaN or an overflow throws instead of reading as "no load".
+const inverse = (x: number): number | null => (finite(x, 'a fatigue utilisation') === 0 ? null : finite(1 / x, 'a fatigue safety factor'));
 
 /** Safety factors by each criterion; null where both stresses are zero (no fatigue load). */
 export function fatigueSafety(vmA: number, vmM: number, Se: number, Sut: number, Sy: number): SafetyByCriterion {

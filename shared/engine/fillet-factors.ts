@@ -16,6 +16,13 @@ export const NORTON_TORSION: readonly FitRow[] = [
   [1.09, 0.90337, -0.12692], [1.2, 0.83425, -0.21649], [1.33, 0.84897, -0.23161], [2, 0.86331, -0.23865],
 ];
 
+/** r/d span of Norton's App. E charts, over which the power-law fits were made (from memory). */
+export const NORTON_RD_RANGE: readonly [number, number] = [0.01, 0.3];
+
+export function nortonRdInRange(rd: number): boolean {
+  return rd >= NORTON_RD_RANGE[0] && rd <= NORTON_RD_RANGE[1];
+}
+
 export const PETERSON_TR_MIN = 0.25;
 export const PETERSON_TR_MAX = 4;
 

@@ -19,9 +19,12 @@ const FIELDS: Record<string, FieldName> = {
   E: ["Young's modulus", 'modulus'], G: ['shear modulus', 'modulus'], Sy: ['yield strength', 'stress'],
   Su: ['ultimate strength', 'stress'], SePrime: ['unmodified endurance limit', 'stress'],
   temperature: ['temperature', 'temperature'],
+  Kt: ['Kt', null], Kts: ['Kts', null], kc: ['load factor kc', null], kd: ['temperature factor kd', null],
+  kf: ['miscellaneous-effects factor kf', null], alternatingTorqueFraction: ['alternating torque fraction', null],
 };
 
-function fieldOf(path: readonly PropertyKey[], system: UnitSystem | null): { name: string; unit: string } {
+/** Human name and unit (with a leading space) of the field a path ends in. */
+export function fieldOf(path: readonly PropertyKey[], system: UnitSystem | null): { name: string; unit: string } {
   const key = path[path.length - 1];
   const known = typeof key === 'string' ? FIELDS[key] : undefined;
   if (!known) return { name: typeof key === 'string' ? key : 'entry', unit: '' };

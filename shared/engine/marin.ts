@@ -2,6 +2,8 @@
  * Marin factors and the unmodified endurance limit (Budynas & Nisbett, Shigley's Mechanical
  * Engineering Design, 9th ed., §6-7 to §6-9). Strengths in MPa, diameters in mm.
  */
+import { MPA_PER_KSI } from './units';
+
 export type Surface = 'ground' | 'machined' | 'cold-drawn' | 'hot-rolled' | 'as-forged';
 export type SurfaceTable = '9th-10th' | '11th';
 
@@ -27,6 +29,11 @@ export const RELIABILITY_FACTORS: Readonly<Record<number, number>> = {
 export const SIZE_RANGE_MM: readonly [number, number] = [2.79, 254];
 /** Eq. 6-27 was fitted over 70–1000 °F (from memory). */
 export const TEMPERATURE_RANGE_F: readonly [number, number] = [70, 1000];
+/**
+ * Temperatures that need no warning, in each system's unit: Table 6-4 starts at room temperature,
+ * 20 °C (68 °F), where kd = 1 (from memory), and the polynomial's 70 °F end gives kd = 1.000 too.
+ */
+export const TEMPERATURE_NO_WARNING = { SI: [20, 537.8], US: [68, 1000] } as const;
 
 /** Surface factor ka = a·Sut^b (Eq. 6-19, Table 6-2), Sut in MPa. */
 export function surfaceFactor(surface: Surface, sutMpa: number, table: SurfaceTable = '9th-10th'): number {
@@ -50,7 +57,13 @@ export function temperatureFactor(tempC: number): number {
   return 0.975 + tf * (0.432e-3 + tf * (-0.115e-5 + tf * (0.104e-8 - 0.595e-12 * tf)));
 }
 
-/** Se′ = 0.5·Sut up to 1400 MPa, 700 MPa above (Eq. 6-8, steels). */
-export function unmodifiedEndurance(sutMpa: number): number {
-  return sutMpa <= 1400 ? 0.5 * sutMpa : 700;
+/**
+ * Eq. 6-8 (steels) as printed in each unit system: Se′ = 0.5·Sut up to 1400 MPa, 700 MPa above; or
+ * 0.5·Sut up to 200 kpsi, 100 kpsi above. The two caps differ by 1.5 % (100 kpsi = 689.5 MPa), so a
+ * US calc takes the kpsi form rather than a converted 700 MPa (issue 9, item 1).
+ */
+export const SE_PRIME_CAP_MPA = { SI: 700, US: 100 * MPA_PER_KSI } as const;
+
+export function unmodifiedEndurance(sutMpa: number, capMpa: number = SE_PRIME_CAP_MPA.SI): number {
+  return Math.min(0.5 * sutMpa, capMpa);
 }

@@ -12,7 +12,8 @@ import { BELT_METHOD, GEAR_METHOD } from './beam/resolve-loads';
 export const METHODS: Readonly<Record<string, string>> = Object.freeze({
   section: `${J_FORMULA}; τ(ρ) = T·ρ/J; γ = τ/G`,
   twist: 'φ = Σ Tᵢ·Lᵢ/(Gᵢ·Jᵢ) over the pieces of the torque diagram',
-  torqueDiagram: 'internal torque = Σ external torques left of the section; a torque at a station acts to its right',
+  torqueDiagram: 'internal torque T = −Σ external torques left of the section (positive along +x on the left part\'s cut face, '
+    + 'right-hand rule); a torque at a station acts to its right; twist φ(b) − φ(a) = ∫ T/(G·J) dx, right-hand rotation about +x',
   bending: 'beam model moment M (rotating shaft: Ma = M, Mm = 0, Shigley 9th §7-4) plus any entered Ma, Mm added on top as magnitudes; '
     + 'entered moments are linear between their stations and held constant beyond the first and last entry',
   beam: BEAM_METHOD,

@@ -1,6 +1,6 @@
 import type { BeamSolution } from './beam/beam-solve';
 import type { CalcIssue } from './issue-messages';
-import { RELIABILITY_FACTORS, temperatureFactor, type Surface, type SurfaceTable } from './marin';
+import { RELIABILITY_FACTORS, SE_PRIME_CAP_MPA, temperatureFactor, type Surface, type SurfaceTable } from './marin';
 import { entryTorque } from './check-loads';
 import type { CalcInput, MaterialInput } from './schema';
 import { sectionProps } from './section';
@@ -29,6 +29,8 @@ export interface MomentEntry { at: number; Ma: number; Mm: number }
 export interface FatigueSettings {
   surface: Surface; table: SurfaceTable; kc: number; kd: number; ke: number; kf: number;
   isKfOnMidrange: boolean; taFraction: number; SePrime: number | null;
+  /** Cap of Se′ = 0.5·Sut in MPa: Eq. 6-8 in the calc's own unit system. */
+  sePrimeCap: number;
 }
 
 export interface Model {
@@ -55,6 +57,7 @@ function toFatigue(input: CalcInput, k: FactorTable): FatigueSettings | null {
     surface: f.surface, table: f.surfaceTable ?? '9th-10th', kc: f.kc ?? 1, kd, kf: f.kf ?? 1,
     ke: RELIABILITY_FACTORS[f.reliability ?? 50], isKfOnMidrange: f.kfOnMidrange ?? true,
     taFraction: f.alternatingTorqueFraction ?? 0, SePrime: f.SePrime === undefined ? null : f.SePrime * k.stress,
+    sePrimeCap: SE_PRIME_CAP_MPA[input.units],
   };
 }
 

@@ -2,11 +2,14 @@ import type { Model } from './model';
 import { STATION_TOLERANCE } from './shaft-geometry';
 
 /*
- * Internal torque diagram. Sign convention: an external torque is positive when its vector points
- * along +x (right-hand rule, x from the left end). The internal torque at a section is the sum of
- * the external torques applied to the left of it, i.e. the torque the left part passes across the
- * section; with balanced torques this equals minus the sum to the right. A torque applied exactly
- * at a station acts on everything to its right.
+ * Internal torque diagram. Sign convention (one, used for torque and twist alike): an external
+ * torque is positive when its vector points along +x (right-hand rule, x from the left end). The
+ * internal torque T at a section is the torque that the part to its right exerts on the part to its
+ * left, positive along +x: the usual convention of mechanics of materials, positive when the vector
+ * points away from the cut face. Equilibrium of the left part gives T = −Σ external torques left of
+ * the section (= Σ those to the right). The twist rate dφ/dx = T/(G·J) is then the right-hand
+ * rotation about +x, so a positive twist of b relative to a means b turns anticlockwise seen from
+ * +x looking back towards the left end. A torque applied exactly at a station acts to its right.
  */
 export interface Piece {
   start: number; end: number; segment: number;
@@ -31,7 +34,7 @@ export function buildTorqueDiagram(model: Model): Piece[] {
     let start = seg.start;
     for (;;) {
       for (; k < torques.length && torques[k].at <= start + tol; k++) {
-        T += torques[k].T;
+        T -= torques[k].T;
         Ta += torques[k].Ta;
       }
       const end = k < torques.length && torques[k].at < seg.end - tol ? torques[k].at : seg.end;

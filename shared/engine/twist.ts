@@ -7,7 +7,8 @@ import { UNIT_LABELS } from './units';
 const STATION_UNITS_PER_RATE_LENGTH = { SI: 1000, US: 12 } as const;
 
 /**
- * Signed angle of twist (deg) of station b relative to station a, both in the calc's length unit,
+ * Signed angle of twist (deg) of station b relative to station a: positive when b turns by the
+ * right-hand rule about +x relative to a (the convention of torque-diagram.ts), both in the calc's length unit,
  * integrated over the result's torque diagram; twistBetween(r, 0, r.length) equals r.twistTotal.
  * Throws a RangeError naming the station when either lies off the shaft.
  */

@@ -2,6 +2,7 @@ import { checkBeam } from './beam/check-beam';
 import { checkFeatures } from './check-features';
 import { checkGeometry } from './check-geometry';
 import { checkLoads } from './check-loads';
+import { checkRanges } from './check-ranges';
 import { toCalcIssues, type CalcIssue } from './issue-messages';
 import { calcInputSchema, type CalcInput } from './schema';
 import type { UnitSystem } from './units';
@@ -25,7 +26,8 @@ function systemOf(input: unknown): UnitSystem | null {
 }
 
 /**
- * Checks a calc input against the v1 schema, then the rules between fields (inner below outer
+ * Checks a calc input against the v1 schema, then the plausible range of each quantity
+ * (check-ranges.ts), then the rules between fields (inner below outer
  * diameter, stations on the shaft, balanced torques, fillet within its step, sources for entered
  * factors). Never throws; every issue names its field path, the value with its unit and the reason.
  */
@@ -40,6 +42,10 @@ export function validateCalcInput(input: unknown): ValidationResult {
     const detailed = calcInputSchema.safeParse(input, { reportInput: true });
     return { ok: false, issues: toCalcIssues(detailed.error?.issues ?? parsed.error.issues, systemOf(input)) };
   }
+  // Ranges first: the cross-field checks do arithmetic (sums of torques, T = P/ω) that an
+  // implausible magnitude could overflow into a meaningless message.
+  const ranges = checkRanges(parsed.data);
+  if (ranges.length) return { ok: false, issues: ranges };
   const issues = [...checkGeometry(parsed.data), ...checkLoads(parsed.data), ...checkFeatures(parsed.data), ...checkBeam(parsed.data)];
   return issues.length ? { ok: false, issues } : { ok: true, value: parsed.data };
 }

@@ -67,7 +67,10 @@ export function twistPlot(result: CalcResult, limits: readonly LimitLine[] = [])
     points.push([p.end, p.twistStart + twistOver(result, p.twistPerLength, p.end - p.start)]);
   }
   const series: Series[] = [{ id: 'phi', label: 'Accumulated twist φ', points, shape: 'line', style: 'solid' }];
-  return chart(result, 'Accumulated angle of twist', { label: 'φ', unit: result.fields['twistStart']?.unit ?? 'deg' }, series, limits);
+  // Twist is signed (right-hand rule) while limits are magnitudes: draw them on the side the shaft turns.
+  const side = result.twistTotal < 0 ? -1 : 1;
+  const shown = limits.map((l) => ({ ...l, value: side * l.value }));
+  return chart(result, 'Accumulated angle of twist', { label: 'φ', unit: result.fields['twistStart']?.unit ?? 'deg' }, series, shown);
 }
 
 /** Twist rate |T|/(G·J) along the shaft (a step per piece), where per-length twist limits are judged. */

@@ -3,6 +3,7 @@ import { errorText, type ClauseOutcome } from './clause-outcome';
 import { PLAIN_QUANTITIES } from './fact-registry';
 import type { ChecklistRow } from './checklist-types';
 import type { Facts } from './facts';
+import { withinLimit } from './limit-tolerance';
 import type { Target } from './locations';
 import type { PreparedClause, PreparedMeasure } from './prepared-rule-set';
 import { shortNumber } from './short-number';
@@ -44,10 +45,11 @@ function measureText(m: PreparedMeasure, v: Measured, passes: boolean, u: number
   return `${m.label} ${withUnit(v.actual, v.unit)} ${verb} ${withUnit(v.limit, v.unit)}${util}`;
 }
 
-// A check that passes while its own measure is past the limit means the clause is inconsistent.
+// A check that passes while its own measure is past the limit (beyond the tolerance the checks
+// themselves use) means the clause is inconsistent.
 function contradicts(m: PreparedMeasure, v: Measured, passes: boolean): boolean {
   if (!passes || v.actual === null || v.limit === null) return false;
-  return m.isAtMost ? v.actual > v.limit : v.actual < v.limit;
+  return !withinLimit(v.actual, v.limit, m.isAtMost);
 }
 
 function steelWarning(p: PreparedClause, t: Target): string[] {

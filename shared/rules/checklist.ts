@@ -27,13 +27,25 @@ function targetsByScope(input: CalcInput, result: CalcResult, ruleSet: RuleSet):
   return { shaft: of('shaft'), segment: of('segment'), feature: of('feature'), support: of('support'), load: of('load') };
 }
 
+// An engine warning about a segment or feature (a fit used outside its range, say) belongs on
+// every row at that location as well as in the result's list, so a checker sees it beside the verdict.
+function engineWarnings(result: CalcResult, loc: ChecklistRow['location']): string[] {
+  if (loc.index === null || loc.scope === 'shaft') return [];
+  const prefix = `${loc.scope}s[${loc.index}]`;
+  return result.warnings.filter((w) => w.path === prefix || w.path.startsWith(`${prefix}.`)).map((w) => `engine: ${w.path}: ${w.message}`);
+}
+
 function assemble(input: CalcInput, result: CalcResult, ruleSet: RuleSet, targets: Targets,
   outcomes: Outcomes, manual: Record<string, ManualState> | undefined): Checklist {
   const { clauses, params } = preparedFor(ruleSet);
   const rows: ChecklistRow[] = [];
   clauses.forEach((p, i) => {
     const list = outcomes[i];
-    targets[p.clause.scope].forEach((t, k) => rows.push(buildRow(p, t, list[k], params, input.units)));
+    targets[p.clause.scope].forEach((t, k) => {
+      const row = buildRow(p, t, list[k], params, input.units);
+      if (row.status !== 'not-applicable') row.warnings.push(...engineWarnings(result, row.location));
+      rows.push(row);
+    });
   });
   const { used, issues } = methodsUsed(input, result, ruleSet);
   const { manual: manualList, notes } = manualRows(ruleSet, manual);

@@ -1,7 +1,8 @@
-import { Engine, Rule, type EngineResult, type RuleProperties, type TopLevelCondition } from 'json-rules-engine';
+import { Engine, Operator, Rule, type EngineResult, type RuleProperties, type TopLevelCondition } from 'json-rules-engine';
 import { errorText, failed, notApplicable, type ClauseOutcome } from './clause-outcome';
 import type { TopCondition } from './condition-schema';
 import type { Facts } from './facts';
+import { TOLERANT_OPERATORS } from './limit-tolerance';
 import { preparedFor } from './prepared-rule-set';
 import { RuleSetCache } from './rule-set-cache';
 import { SCOPES, type RuleSet, type Scope } from './rule-set-schema';
@@ -19,8 +20,20 @@ function rule(name: string, conditions: TopCondition): Rule {
   return new Rule(props);
 }
 
+// json-rules-engine's own check on the fact of an ordering operator: parseFloat must give a number.
+const isNumberLike = (v: unknown): boolean => Number.parseFloat(v as string).toString() !== 'NaN';
+
+/**
+ * Replaces the engine's four ordering operators by the ones that compare at a limit with the
+ * project's tolerance (limit-tolerance.ts), so both evaluators decide a value at its limit alike.
+ */
+export function useLimitOperators(engine: Engine): Engine {
+  for (const [name, cb] of Object.entries(TOLERANT_OPERATORS)) engine.addOperator(new Operator(name, cb, isNumberLike));
+  return engine;
+}
+
 function newEngine(params: Facts, rules: Rule[]): Engine {
-  const engine = new Engine(rules, { allowUndefinedFacts: false });
+  const engine = useLimitOperators(new Engine(rules, { allowUndefinedFacts: false }));
   for (const [name, value] of Object.entries(params)) engine.addFact(name, value);
   return engine;
 }

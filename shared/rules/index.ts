@@ -10,6 +10,8 @@ export { applyRuleSetMethods, methodsUsed, type MethodsUsed, type MethodIssue } 
 export { evaluateChecklist, evaluateChecklistSync } from './checklist';
 export type { Checklist, ChecklistRow, ChecklistCounts, ManualRow, ManualState, RowLocation, RowStatus } from './checklist-types';
 export { compileCondition, type Compiled } from './sync-evaluator';
+export { LIMIT_TOLERANCE, nearlyEqual, withinLimit, TOLERANT_OPERATORS } from './limit-tolerance';
+export { useLimitOperators } from './engine-runner';
 export { locationFacts, type Facts, type LocationFacts } from './facts';
 export { validateRuleSet, clauseParameters, type RuleSetValidation } from './validate-rule-set';
 export type { RuleSetIssue } from './rule-set-issues';

@@ -1,10 +1,13 @@
 import { isFactCondition, isFactRef, type Condition, type FactCondition, type TopCondition } from './condition-schema';
 import type { Facts } from './facts';
+import { TOLERANT_OPERATORS } from './limit-tolerance';
 
 /*
  * Synchronous evaluator of the same condition JSON that json-rules-engine 7.3.1 runs, for bulk work
  * (impact analysis, minimum-diameter search). It copies the engine's semantics on purpose:
- * - operators: the same callbacks and fact-value validators (engine-default-operators.js);
+ * - operators: the same callbacks and fact-value validators (engine-default-operators.js), except
+ *   that the four ordering operators compare with the tolerance of limit-tolerance.ts, which
+ *   engine-runner.ts installs in json-rules-engine too;
  * - all/any: an empty list is true, one entry is that entry, otherwise every entry is evaluated
  *   (no short-circuit, so an entry that throws makes the whole condition throw) and then
  *   every/some decide; not negates its single entry;
@@ -27,10 +30,10 @@ const OPS: Readonly<Record<string, Op>> = {
   notIn: { cb: (a, b) => b.indexOf(a) === -1, validator: anyValue },
   contains: { cb: (a, b) => a.indexOf(b) > -1, validator: Array.isArray },
   doesNotContain: { cb: (a, b) => a.indexOf(b) === -1, validator: Array.isArray },
-  lessThan: { cb: (a, b) => a < b, validator: isNumberLike },
-  lessThanInclusive: { cb: (a, b) => a <= b, validator: isNumberLike },
-  greaterThan: { cb: (a, b) => a > b, validator: isNumberLike },
-  greaterThanInclusive: { cb: (a, b) => a >= b, validator: isNumberLike },
+  lessThan: { cb: TOLERANT_OPERATORS.lessThan, validator: isNumberLike },
+  lessThanInclusive: { cb: TOLERANT_OPERATORS.lessThanInclusive, validator: isNumberLike },
+  greaterThan: { cb: TOLERANT_OPERATORS.greaterThan, validator: isNumberLike },
+  greaterThanInclusive: { cb: TOLERANT_OPERATORS.greaterThanInclusive, validator: isNumberLike },
 };
 
 const has = (o: object, k: string): boolean => Object.prototype.hasOwnProperty.call(o, k);

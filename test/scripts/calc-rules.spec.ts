@@ -28,7 +28,7 @@ describe('calc command with a design standard', () => {
     expect(out.verdict).toBe('not-compliant');
     const twist = out.checklist.rows.find((row: { clauseId: string }) => row.clauseId === '4.2');
     expect(twist.status).toBe('fail');
-    expect(twist.actual).toBeCloseTo(1.177523 * 0.05, 5); // REFERENCES.md check value 6, times d = 0.05 m
+    expect(twist.actual).toBeCloseTo(1.177523 * 0.05, 5); // docs/references.md C-6, times d = 0.05 m
   });
 
   it('when the rules file is not a valid standard, then it exits 2 naming the place', () => {

@@ -142,3 +142,38 @@ describe('impact when a version takes effect', () => {
     expect((await auditOf('RuleSet', s.draft.id)).map((e) => e.action)).not.toContain('rule_set.impact_notified');
   });
 });
+
+describe('impact analysis at a limit (issue 9, item 4)', () => {
+  // docs/references.md C-18: n_y = 2 by construction, 1.9999999999999996 in double precision. The
+  // comparison tolerance (shared/rules/limit-tolerance.ts) is common practice, no source.
+  const T = (530 * Math.PI * 50 ** 3) / (32 * Math.sqrt(3)) / 1000;
+  const atLimit = (scale = 1) => ({ units: 'SI', material: { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, Sy: 530, Su: 630 },
+    segments: [{ length: 1000, od: 50, id: 0 }], torques: [{ at: 0, T: T * scale }, { at: 1000, T: -T * scale }] });
+
+  it('when a draft raises the minimum yield safety to exactly an approved calc\'s value, then that calc keeps its verdict; one 1e-6 below changes', async () => {
+    // Arrange: a standard of the yield clause alone at minimum 1.5, two approved calcs, a draft at minimum 2.
+    const standard = await testStandard((doc) => {
+      doc.clauses = (doc.clauses as { id: string }[]).filter((c) => c.id === '5.1');
+      doc.parameters = withParameter(doc, 'minYieldSafety', 1.5).parameters;
+    });
+    const author = await person(app, ['author']);
+    const team: Team = { author: author.session, checker: (await person(app, ['checker'])).session, approver: (await person(app, ['approver'])).session };
+    const exact = await createCalc(author.session, { ruleSetId: standard.id, input: atLimit() });
+    const below = await createCalc(author.session, { ruleSetId: standard.id, input: atLimit(1 + 1e-6) });
+    await advanceTo('approved', team, exact.revisionId);
+    await advanceTo('approved', team, below.revisionId);
+    const drafter = await person(app, ['compliance'], 'drafter');
+    const draft = expectStatus(await drafter.session.post('/api/rule-sets', { fromId: standard.id }), 201, 'draft').body;
+    expectStatus(await drafter.session.put(`/api/rule-sets/${draft.id}`, {
+      document: { ...withParameter(draft.document, 'minYieldSafety', 2), changeSummary: 'Yield minimum raised to 2 for a test' }, lockVersion: draft.lockVersion,
+    }), 200, 'save');
+
+    // Act
+    const res = await drafter.session.get(`/api/rule-sets/${draft.id}/impact`);
+
+    // Assert
+    expect(res.status).toBe(200);
+    expect([res.body.evaluated, res.body.changed]).toEqual([2, 1]);
+    expect(res.body.rows).toEqual([expect.objectContaining({ calcId: below.calcId, before: 'compliant', after: 'not-compliant' })]);
+  });
+});

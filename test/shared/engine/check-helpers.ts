@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 
-/** Relative closeness: |actual − expected| ≤ rel·|expected| (REFERENCES.md uses 1e-6 unless noted). */
+/** Relative closeness: |actual − expected| ≤ rel·|expected| (docs/references.md uses 1e-6 unless noted). */
 export function expectClose(actual: number | null | undefined, expected: number, rel = 1e-6): void {
   expect(typeof actual).toBe('number');
   expect(Math.abs((actual as number) - expected)).toBeLessThanOrEqual(rel * Math.abs(expected));

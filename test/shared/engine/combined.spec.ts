@@ -1,7 +1,7 @@
 import { evaluateShaft } from '../../../shared/engine';
 import { expectClose, simpleShaft } from './check-helpers';
 
-// REFERENCES.md check value 15 [computed]: d = 50 mm, M = 800 N·m, T = 1000 N·m, Sy = 530 MPa;
+// docs/references.md C-15 [computed]: d = 50 mm, M = 800 N·m, T = 1000 N·m, Sy = 530 MPa;
 // von Mises σ′ = √(σ² + 3τ²) and Tresca τmax = √((σ/2)² + τ²) (Shigley 9th §5-4, §5-5; Eqs. 7-15, 7-16).
 describe('combined static loading', () => {
   const input = { ...simpleShaft(50, 1000, 500), bending: [{ at: 250, Ma: 0, Mm: 800 }] };

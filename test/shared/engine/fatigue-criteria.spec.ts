@@ -2,7 +2,7 @@ import { vonMises } from '../../../shared/engine/combined';
 import { fatigueSafety } from '../../../shared/engine/fatigue-criteria';
 import { expectClose } from './check-helpers';
 
-// REFERENCES.md check value 14 [computed from Shigley 9th §7-4, Eqs. 7-7 to 7-16 (sourced)]:
+// docs/references.md C-14 [computed from Shigley 9th §7-4, Eqs. 7-7 to 7-16 (sourced)]:
 // US, d = 1.25 in, Ma = 2000 lbf·in, Tm = 3000 lbf·in, Mm = Ta = 0, Kf 1.7, Kfs 1.4, Se 35, Sut 90, Sy 70 kpsi.
 describe('DE fatigue criteria', () => {
   const d = 1.25;

@@ -11,7 +11,7 @@ const fillet = (D: number, d: number, r: number) => ({
   features: [{ type: 'shoulder-fillet', at: 100, r }],
 });
 
-describe('Norton bending fit (REFERENCES.md check value 10, tolerance 1e-5)', () => {
+describe('Norton bending fit (docs/references.md C-10, tolerance 1e-5)', () => {
   it.each([[0.02, 2.57044], [0.05, 2.03003], [0.1, 1.69809]])('when D/d = 1.5 and r/d = %s, then Kt = %s', (rd, kt) => {
     expectClose(nortonFit(NORTON_BENDING, 1.5, rd).value, kt, 1e-5);
   });
@@ -33,7 +33,7 @@ describe('Norton bending fit (REFERENCES.md check value 10, tolerance 1e-5)', ()
   });
 });
 
-describe('Peterson torsion polynomial (REFERENCES.md check value 11, tolerance 1e-5)', () => {
+describe('Peterson torsion polynomial (docs/references.md C-11, tolerance 1e-5)', () => {
   it.each([[1.2, 0.05, 1.56003], [2.0, 0.25, 1.20325]])('when D/d = %s and r/d = %s, then Kts = %s', (Dd, rd, kts) => {
     expectClose(petersonTorsion(Dd * 10, 10, rd * 10), kts, 1e-5);
   });

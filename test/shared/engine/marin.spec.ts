@@ -6,13 +6,13 @@ import { expectClose } from './check-helpers';
 // Budynas & Nisbett, Shigley's Mechanical Engineering Design, 9th ed., §6-7 to §6-9.
 describe('Marin factors', () => {
   it.each([
-    // REFERENCES.md check value 13 [computed from Table 6-2, MPa coefficients, sourced]
+    // docs/references.md C-13 [computed from Table 6-2, MPa coefficients, sourced]
     ['ground', 0.914753], ['machined', 0.820716], ['cold-drawn', 0.820716], ['hot-rolled', 0.570478], ['as-forged', 0.453043],
   ] as const)('when the surface is %s and Sut = 620 MPa, then ka = %s', (surface, ka) => {
     expectClose(surfaceFactor(surface, 620), ka);
   });
 
-  it('when kb is computed, then 40 mm gives 0.835605 and the inch form at 1.5 in gives 0.841680 (check value 13)', () => {
+  it('when kb is computed, then 40 mm gives 0.835605 and the inch form at 1.5 in gives 0.841680 (docs/references.md C-13)', () => {
     expectClose(sizeFactor(40), 0.835605);
     expectClose(sizeFactorInch(1.5), 0.84168);
   });

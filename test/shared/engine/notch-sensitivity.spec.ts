@@ -4,7 +4,7 @@ import { expectClose } from './check-helpers';
 
 // Neuber q = 1/(1 + √a/√r) with √a by Shigley 9th Eq. 6-35 (Sut in kpsi) [sourced]; Kf = 1 + q(Kt − 1) (Eq. 6-32).
 describe('notch sensitivity', () => {
-  it('when Sut = 620 MPa and r = 2.5 mm, then q, qs, Kf, Kfs match REFERENCES.md check value 12 (1e-5)', () => {
+  it('when Sut = 620 MPa and r = 2.5 mm, then q, qs, Kf, Kfs match docs/references.md C-12 (1e-5)', () => {
     const q = notchSensitivity(620, 2.5, 'bending');
     const qs = notchSensitivity(620, 2.5, 'torsion');
     expectClose(q, 0.813924, 1e-5);

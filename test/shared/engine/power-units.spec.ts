@@ -2,11 +2,11 @@ import { evaluateShaft, fromSI, toSI, torqueFromPower } from '../../../shared/en
 import { expectClose } from './check-helpers';
 
 describe('torque from power and speed', () => {
-  it('when 10 kW runs at 1450 rpm, then T = 65.85722 N·m (REFERENCES.md check value 8 [computed], P = T·ω)', () => {
+  it('when 10 kW runs at 1450 rpm, then T = 65.85722 N·m (docs/references.md C-8 [computed], P = T·ω)', () => {
     expectClose(torqueFromPower(10, 1450, 'SI'), 65.85722);
   });
 
-  it('when 1 hp runs at 63 025.357 rpm, then T = 1 lbf·in (Shigley Eq. 3-44 constant 63 025, from memory; REFERENCES.md)', () => {
+  it('when 1 hp runs at 63 025.357 rpm, then T = 1 lbf·in (Shigley Eq. 3-44 constant 63 025, from memory; docs/references.md)', () => {
     expectClose(torqueFromPower(1, 63025.357, 'US'), 1, 1e-7);
     expectClose(torqueFromPower(20, 1750, 'US'), (63025 * 20) / 1750, 1e-5);
   });
@@ -22,7 +22,8 @@ describe('torque from power and speed', () => {
     });
     expectClose(r.torques[0].T, 65.85722);
     expect(r.torques[0].isFromPower).toBe(true);
-    expectClose(r.segments[0].T, 65.85722);
+    // Internal torque: −Σ external torques left of the section (right-hand rule convention).
+    expectClose(r.segments[0].T, -65.85722);
   });
 });
 
@@ -40,7 +41,7 @@ describe('unit conversions (NIST SP 811 factors, from memory; 1 in = 25.4 mm exa
     expectClose(fromSI(si, q), us, 1e-12);
   });
 
-  it('when 0.08 deg/ft is converted, then it is 0.2624672 deg/m (Schaum\'s Outline of Machine Design limit, REFERENCES.md)', () => {
+  it('when 0.08 deg/ft is converted, then it is 0.2624672 deg/m (Schaum\'s Outline of Machine Design limit, docs/references.md)', () => {
     expectClose(toSI(0.08, 'twistPerLength'), 0.2624672, 1e-6);
   });
 

@@ -12,13 +12,15 @@ const KSI = 6.894757293168361; // MPa
 const segmentArb = fc.record({
   length: fc.double({ min: 5, max: 2000, noNaN: true }),
   od: fc.double({ min: 5, max: 300, noNaN: true }),
-  bore: fc.double({ min: 0, max: 0.9, noNaN: true }),
+  // A bore is 0 or at least 1 % of od: a subnormal bore is refused by the plausible ranges (issue 9, item 7).
+  bore: fc.double({ min: 0, max: 0.9, noNaN: true }).map((b) => (b < 0.01 ? 0 : b)),
 });
 const shaftArb = fc.record({
   segments: fc.array(segmentArb, { minLength: 1, maxLength: 6 }),
   // Subnormal loads would make relative comparisons meaningless; real loads are 0 or far above 1e-6.
-  T: fc.double({ min: -5e4, max: 5e4, noNaN: true }).filter((t) => t === 0 || Math.abs(t) > 1e-6),
-  Ma: fc.double({ min: 0, max: 5e3, noNaN: true }).filter((m) => m === 0 || m > 1e-6),
+  // The engine refuses nonzero loads below 1e-6 N·m (issue 9, item 7); Mm = Ma/2 must stay above it.
+  T: fc.double({ min: -5e4, max: 5e4, noNaN: true }).filter((t) => t === 0 || Math.abs(t) > 1e-5),
+  Ma: fc.double({ min: 0, max: 5e3, noNaN: true }).filter((m) => m === 0 || m > 1e-5),
   // A share of the length, kept off 0 so the two bending entries never share a station.
   at: fc.double({ min: 0.001, max: 1, noNaN: true }),
 });

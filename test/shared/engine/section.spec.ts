@@ -2,12 +2,12 @@ import integrate from 'integrate-adaptive-simpson';
 import { polarMoment, sectionProps, shearAt } from '../../../shared/engine/section';
 import { expectClose as close } from './check-helpers';
 
-// Check values are [computed] in REFERENCES.md from J = π·d⁴/32, π·(do⁴ − di⁴)/32 (Shigley 9th
+// Check values are [computed] in docs/references.md from J = π·d⁴/32, π·(do⁴ − di⁴)/32 (Shigley 9th
 // Table A-18, from memory); relative tolerance 1e-6 unless noted.
 
 describe('section properties', () => {
   it.each([
-    // [label, od, id, J, Zp] — REFERENCES.md check values 1–3 [computed]
+    // [label, od, id, J, Zp] — docs/references.md C-1 to C-3 [computed]
     ['solid 50 mm', 50, 0, 613592.3, 24543.69],
     ['hollow 60/40 mm', 60, 40, 1021017.6, 34033.92],
     ['solid 2 in', 2, 0, 1.570796, null],
@@ -40,7 +40,7 @@ describe('section properties', () => {
   });
 
   it('when the torque is 1000 N·m on a solid 50 mm shaft, then τ at ρ = 15 mm is 24.44620 MPa', () => {
-    // REFERENCES.md check value 4 [computed], τ(ρ) = T·ρ/J with T in N·mm.
+    // docs/references.md C-4 [computed], τ(ρ) = T·ρ/J with T in N·mm.
     close(shearAt(1e6, 15, polarMoment(50, 0)), 24.4462);
     close(shearAt(1e6, 25, polarMoment(50, 0)), 40.74367);
   });

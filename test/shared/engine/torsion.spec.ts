@@ -1,26 +1,28 @@
 import { evaluateShaft, twistBetween } from '../../../shared/engine';
 import { expectClose, loadFixture, simpleShaft } from './check-helpers';
 
-// REFERENCES.md check values 4–7 [computed] from τmax = T·c/J and θ = T·L/(G·J), G = 79.3 GPa
+// docs/references.md C-4 to C-7 [computed] from τmax = T·c/J and θ = T·L/(G·J), G = 79.3 GPa
 // (Shigley 9th Table A-5 carbon steel [sourced]).
 describe('torsion of a uniform shaft', () => {
-  it('when a solid 50 mm shaft carries 1000 N·m over 1.2 m, then τmax, θ and θ/L match check values 4 and 6', () => {
+  it('when a solid 50 mm shaft carries 1000 N·m over 1.2 m, then τmax, θ and θ/L match docs/references.md C-4 and C-6', () => {
     const r = evaluateShaft(loadFixture('solid-si.json'));
     const s = r.segments[0];
     expectClose(s.J, 613592.3);
     expectClose(s.tauMax, 40.74367);
-    expectClose(s.twist, 1.413028);
+    // +1000 N·m at the left end, −1000 N·m at the right: the right end turns clockwise seen from +x
+    // relative to the left (right-hand rule), so the signed twist is negative.
+    expectClose(s.twist, -1.413028);
     expectClose(s.twistPerLength, 1.177523);
-    expectClose(r.twistTotal, 1.413028);
+    expectClose(r.twistTotal, -1.413028);
     expect(s.tauInner).toBe(0);
   });
 
-  it('when a hollow 60/40 mm shaft carries the same, then τ outer/inner and θ match check values 5 and 7', () => {
+  it('when a hollow 60/40 mm shaft carries the same, then τ outer/inner and θ match docs/references.md C-5 and C-7', () => {
     const r = evaluateShaft(loadFixture('hollow-si.json'));
     const s = r.segments[0];
     expectClose(s.tauMax, 29.38245);
     expectClose(s.tauInner, 19.5883);
-    expectClose(s.twist, 0.8491755);
+    expectClose(s.twist, -0.8491755);
     expect(s.isHollow).toBe(true);
   });
 
@@ -31,7 +33,9 @@ describe('torsion of a uniform shaft', () => {
 });
 
 describe('torque diagram', () => {
-  // Sign convention under test: internal torque = sum of external torques left of the section.
+  // Sign convention under test: internal torque = −Σ external torques left of the section (the torque
+  // of the right part on the left part's cut face, along +x), so twist follows the right-hand rule.
+  // Common practice of mechanics of materials, no source (docs/references.md, "Sign convention for torque and twist").
   const stepped = {
     units: 'SI',
     material: { E: 207, G: 79.3, Sy: 530, Su: 630 },
@@ -41,11 +45,11 @@ describe('torque diagram', () => {
 
   it('when a load is taken off mid-segment, then the segment reports its largest torque and twist adds over the pieces', () => {
     const r = evaluateShaft(stepped);
-    expect(r.segments.map((s) => s.T)).toEqual([600, 600]);
-    expect(r.torqueDiagram.map((p) => [p.start, p.end, p.T])).toEqual([[0, 200, 600], [200, 350, 600], [350, 500, 200]]);
+    expect(r.segments.map((s) => s.T)).toEqual([-600, -600]);
+    expect(r.torqueDiagram.map((p) => [p.start, p.end, p.T])).toEqual([[0, 200, -600], [200, 350, -600], [350, 500, -200]]);
     // Independent: θ = Σ T·L/(G·J) in N·mm, mm, MPa, mm⁴ → rad → deg.
     const J = (d: number): number => (Math.PI * d ** 4) / 32;
-    const expected = ((600e3 * 200) / (79300 * J(40)) + (600e3 * 150) / (79300 * J(50)) + (200e3 * 150) / (79300 * J(50))) * (180 / Math.PI);
+    const expected = -((600e3 * 200) / (79300 * J(40)) + (600e3 * 150) / (79300 * J(50)) + (200e3 * 150) / (79300 * J(50))) * (180 / Math.PI);
     expectClose(r.twistTotal, expected, 1e-12);
     expectClose(twistBetween(r, 0, 500), expected, 1e-12);
   });

@@ -50,7 +50,7 @@ describe('material library values against their published sources', () => {
     }
   });
 
-  it('when G is compared with E/(2(1+ν)), then the tabulated values agree within 1.5 % (not forced, REFERENCES.md)', () => {
+  it('when G is compared with E/(2(1+ν)), then the tabulated values agree within 1.5 % (not forced, docs/references.md)', () => {
     for (const m of MATERIAL_LIBRARY) {
       const derived = m.E.value / (2 * (1 + m.nu.value));
       expect(Math.abs(derived - m.G.value) / m.G.value).toBeLessThan(0.015);

@@ -24,8 +24,9 @@ describe('torque diagram', () => {
   it('when drawn, then axes carry the result units and cover the data with zero on the y axis', () => {
     expect([chart.xUnit, chart.yUnit]).toEqual(['mm', 'N·m']);
     expect(chart.x).toMatchObject({ min: 0, max: 410, ticks: [0, 50, 100, 150, 200, 250, 300, 350, 400] });
-    expect(chart.y.min).toBeLessThanOrEqual(0);
-    expect(chart.y.max).toBeGreaterThan(150.78);
+    // The drive is at the left end, so the internal torque is negative (right-hand rule convention).
+    expect(chart.y.max).toBeGreaterThanOrEqual(0);
+    expect(chart.y.min).toBeLessThan(-150.78);
   });
 });
 
@@ -67,6 +68,12 @@ describe('accumulated twist', () => {
   it('when drawn, then every piece end matches twistStart of the next piece', () => {
     const pts = twistPlot(conveyor).series[0].points;
     conveyor.torqueDiagram.slice(1).forEach((p, i) => expect(pts[i + 1][1]).toBeCloseTo(p.twistStart, 12));
+  });
+
+  it('when the shaft twists negatively (right-hand rule), then a magnitude limit is drawn on the negative side (common practice, no source)', () => {
+    const limits = twistPlot(conveyor, [{ value: 0.5, label: '0.5 deg' }]).limits;
+    expect(conveyor.twistTotal).toBeLessThan(0);
+    expect(limits.map((l) => l.y)).toEqual([-0.5]);
   });
 
   it('when the calc is in US units, then the twist still ends at the engine total (deg/ft × in)', () => {

@@ -2,7 +2,7 @@ import { checklistAsync, checklistSync, only, rowsOf, shaft, STEEL_1018_HR, STEE
 
 // Old ASME Code for Design of Transmission Shafting, sourced via Schaum's Outline of Machine Design:
 // allowable shear = lesser of 0.30·Sy and 0.18·Su, × 0.75 where keyways are present.
-// Expected values: REFERENCES.md check value 9 [computed]: 1045 CD → 113.4 / 85.05 MPa; 1018 HR → 66.0 / 49.5 MPa.
+// Expected values: docs/references.md C-9 [computed]: 1045 CD → 113.4 / 85.05 MPa; 1018 HR → 66.0 / 49.5 MPa.
 const ASME_ONLY = only(V3, ['4.1']);
 const D = 50;
 const KEYSEAT = { features: [{ type: 'keyseat' as const, form: 'end-mill' as const, at: 500 }] };
@@ -12,7 +12,7 @@ describe.each([
   ['1045 CD, keyseat: 0.75 × 0.18·Su', STEEL_1045_CD, true, 85.05],
   ['1018 HR, plain: 0.30·Sy governs', STEEL_1018_HR, false, 66.0],
   ['1018 HR, keyseat: 0.75 × 0.30·Sy', STEEL_1018_HR, true, 49.5],
-])('old ASME allowable shear, %s (check value 9)', (_name, material: Material, hasKeyseat, allowable) => {
+])('old ASME allowable shear, %s (docs/references.md C-9)', (_name, material: Material, hasKeyseat, allowable) => {
   const calc = (tau: number) => shaft(D, torqueForShear(tau, D), material, hasKeyseat ? KEYSEAT : {});
 
   it(`when evaluated, then the row's limit is ${allowable} MPa`, () => {

@@ -20,7 +20,7 @@ describe('the rule set chooses the methods', () => {
   });
 
   it('when a standard chooses the Norton torsion fit, then the engine uses it and no method issue remains', () => {
-    // Norton, Machine Design 2nd ed., App. E torsion rows; REFERENCES.md lists Norton as the alternative to Peterson.
+    // Norton, Machine Design 2nd ed., App. E torsion rows; docs/references.md lists Norton as the alternative to Peterson.
     const norton = { ...V3, methods: { ...V3.methods, filletKts: 'norton' as const } };
     const applied = applyRuleSetMethods(input, norton);
     const result = evaluateValidInput(applied);

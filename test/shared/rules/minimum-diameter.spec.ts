@@ -17,7 +17,7 @@ function passesAt(input: CalcInput, rs: RuleSet, index: number, od: number): boo
 
 describe('minimumDiameters', () => {
   it('when only the old ASME shear clause applies, then the minimum matches d = (16T/(π·τallow))^(1/3) [computed]', () => {
-    // τallow = 113.4 MPa for 1045 CD (REFERENCES.md check value 9); T = 1000 N·m.
+    // τallow = 113.4 MPa for 1045 CD (docs/references.md C-9); T = 1000 N·m.
     const [m] = minimumDiameters(shaft(50, 1000, STEEL_1045_CD), only(V3, ['4.1']));
     const expected = ((16 * 1000e3) / (Math.PI * 113.4)) ** (1 / 3);
     expect(m.status).toBe('found');

@@ -36,7 +36,7 @@ export function loadCalc(name: string): CalcInput {
 
 export interface Material { name?: string; kind?: 'steel' | 'aluminium'; E: number; G: number; Sy: number; Su: number }
 
-/** AISI 1045 CD and 1018 HR as REFERENCES.md check value 9 gives them (Sy/Su in MPa; E, G Shigley Table A-5). */
+/** AISI 1045 CD and 1018 HR as docs/references.md C-9 gives them (Sy/Su in MPa; E, G Shigley Table A-5). */
 export const STEEL_1045_CD: Material = { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, Sy: 530, Su: 630 };
 export const STEEL_1018_HR: Material = { name: 'AISI 1018 HR', kind: 'steel', E: 207, G: 79.3, Sy: 220, Su: 400 };
 

@@ -2,20 +2,20 @@ import { checklistAsync, checklistSync, LIFT, only, rowsOf, shaft, V3 } from './
 
 const D = 50;
 const G = 79300; // MPa, carbon steel, Shigley 9th Table A-5
-const J = (Math.PI * D ** 4) / 32; // mm⁴; REFERENCES.md check value 1: 613 592.3 mm⁴
+const J = (Math.PI * D ** 4) / 32; // mm⁴; docs/references.md C-1: 613 592.3 mm⁴
 const RAD_PER_DEG = Math.PI / 180;
 
 /** Torque (N·m) giving the twist rate θ′ (deg/m) on the test shaft: θ′ = T/(G·J) [computed]. */
 const torqueForTwist = (degPerM: number): number => (degPerM * RAD_PER_DEG / 1000) * G * J / 1000;
 
 describe('twist per unit length', () => {
-  it('when 1000 N·m acts on 50 mm, then the actual is 1.177523 °/m (REFERENCES.md check value 6)', () => {
+  it('when 1000 N·m acts on 50 mm, then the actual is 1.177523 °/m (docs/references.md C-6)', () => {
     const [row] = rowsOf(checklistSync(shaft(D, 1000, undefined, {}, 0, 1200), only(V3, ['4.3'])), '4.3');
     expect(row.actual).toBeCloseTo(1.177523, 6);
     expect(row.unit).toBe('deg/m');
   });
 
-  // KFD-ENG-021 §4.2: 0.25 °/m for precision shafts — common practice, no source (REFERENCES.md [practice]).
+  // KFD-ENG-021 §4.2: 0.25 °/m for precision shafts — common practice, no source (docs/references.md, "Rule-set checks").
   it.each([[1 - 1e-6, 'pass', 'compliant'], [1 + 1e-6, 'fail', 'not-compliant']] as const)(
     'when θ′ is %s × 0.25 °/m under the lifting standard, then the row is %s and the calc %s', async (factor, status, verdict) => {
       const rs = only(LIFT, ['4.2']);

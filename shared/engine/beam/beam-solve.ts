@@ -61,19 +61,27 @@ function diagram(mesh: Mesh, s: Omit<BeamSolution, 'diagram'>): DiagramPoint[] {
     ...s.loads, ...s.supportNodes.map((n, k) => ({ at: mesh.x[n], Fy: s.y.R[k], Fz: s.z.R[k], Cy: 0, Cz: 0 })),
   ].sort((a, b) => a.at - b.at);
   const out: DiagramPoint[] = [];
-  let [Vy, Vz, My, Mz, x0, j] = [0, 0, 0, 0, 0, 0];
+  const nodes = acts.map((a) => nodeAt(mesh, a.at));
+  let Vy = 0;
+  let Vz = 0;
+  let My = 0;
+  let Mz = 0;
+  let x0 = 0;
+  let j = 0;
   for (let i = 0; i < mesh.x.length; i++) {
     if (!mesh.isKey[i]) continue;
     const x = mesh.x[i];
-    [My, Mz, x0] = [My + Vy * (x - x0), Mz + Vz * (x - x0), x];
-    const left = { at: x, Vy, Vz, My, Mz };
-    let jumps = false;
-    while (j < acts.length && nodeAt(mesh, acts[j].at) === i) {
-      const a = acts[j++];
-      [Vy, Vz, My, Mz] = [Vy + a.Fy, Vz + a.Fz, My - a.Cy, Mz - a.Cz];
-      jumps = true;
+    My += Vy * (x - x0);
+    Mz += Vz * (x - x0);
+    x0 = x;
+    if (j < acts.length && nodes[j] === i && i > 0) out.push({ at: x, Vy, Vz, My, Mz });
+    for (; j < acts.length && nodes[j] === i; j++) {
+      const a = acts[j];
+      Vy += a.Fy;
+      Vz += a.Fz;
+      My -= a.Cy;
+      Mz -= a.Cz;
     }
-    if (jumps && i > 0) out.push(left);
     out.push({ at: x, Vy, Vz, My, Mz });
   }
   return out;
@@ -82,7 +90,7 @@ function diagram(mesh: Mesh, s: Omit<BeamSolution, 'diagram'>): DiagramPoint[] {
 /** Solves the beam; `stations` (mm) become nodes, `densities` (t/mm³) are per segment. */
 export function solveBeam(model: Model, supports: readonly number[], loads: PointLoad[], stations: number[],
   densities: readonly number[]): BeamSolution {
-  const mesh = buildMesh(model, [...supports, ...stations], densities);
+  const mesh = buildMesh(model, supports, stations, densities);
   const U = assembleStiffness(mesh);
   const supportNodes = supports.map((x) => nodeAt(mesh, x));
   for (const i of supportNodes) U.fix(2 * i);

@@ -38,6 +38,6 @@ export function bendingAt(model: Model, x: number): Bending {
 
 /** Stations where the bending can peak: the entered ones and the model's diagram stations (mm, sorted). */
 export function bendingStations(model: Model): number[] {
-  const xs = [...model.moments.map((m) => m.at), ...(model.beam?.diagram ?? []).map((d) => d.at)];
-  return xs.sort((a, b) => a - b);
+  const xs = [...model.moments.map((m) => m.at), ...(model.beam?.diagram ?? []).map((d) => d.at)].sort((a, b) => a - b);
+  return xs.filter((x, i) => i === 0 || x !== xs[i - 1]);
 }

@@ -3,10 +3,13 @@ import { STATION_TOLERANCE } from '../shaft-geometry';
 
 /*
  * Nodes of the beam model: every segment joint, support, load, mass and feature station, plus
- * evenly spaced nodes so no element is longer than 1/MIN_ELEMENTS of the shaft (the consistent
- * mass matrix then gives the first natural frequency within 1e-5 of exact; statics is exact anyway).
+ * evenly spaced nodes so no element is longer than 1/MIN_ELEMENTS of the shaft nor 1/SPAN_ELEMENTS
+ * of the span between two supports (the consistent mass matrix then gives the first natural frequency within about 1e-5
+ * of exact; statics is exact anyway).
  */
 export const MIN_ELEMENTS = 10;
+/** Elements per span at least (a line shaft's spans each need their own resolution for the critical speed). */
+export const SPAN_ELEMENTS = 8;
 
 export interface Mesh {
   x: Float64Array;
@@ -18,15 +21,24 @@ export interface Mesh {
   seg: Int32Array;
 }
 
-export function buildMesh(model: Model, stations: number[], densities: readonly number[]): Mesh {
+/** Largest element length: 1/MIN_ELEMENTS of the shaft, and 1/SPAN_ELEMENTS of a span between two supports. */
+function stepAt(x: number, supports: readonly number[], total: number): number {
+  const step = total / MIN_ELEMENTS;
+  const right = supports.findIndex((s) => s > x);
+  if (right <= 0) return step; // an overhang (or no supports): the shaft-wide step
+  return Math.min(step, (supports[right] - supports[right - 1]) / SPAN_ELEMENTS);
+}
+
+export function buildMesh(model: Model, supports: readonly number[], stations: number[], densities: readonly number[]): Mesh {
   const tol = STATION_TOLERANCE * model.total;
-  const all = [...model.bounds, ...stations].sort((a, b) => a - b);
+  const all = [...model.bounds, ...supports, ...stations].sort((a, b) => a - b);
   const keys: number[] = [];
   for (const x of all) if (!keys.length || x - keys[keys.length - 1] > tol) keys.push(x);
-  const step = model.total / MIN_ELEMENTS;
+  const sorted = [...supports].sort((a, b) => a - b);
   const xs: number[] = [];
   const isKey: number[] = [];
   for (let i = 0; i < keys.length - 1; i++) {
+    const step = stepAt((keys[i] + keys[i + 1]) / 2, sorted, model.total);
     const pieces = Math.max(1, Math.ceil((keys[i + 1] - keys[i]) / step - 1e-9));
     for (let j = 0; j < pieces; j++) {
       xs.push(keys[i] + ((keys[i + 1] - keys[i]) * j) / pieces);

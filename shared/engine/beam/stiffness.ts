@@ -41,29 +41,35 @@ export function assembleMass(mesh: Mesh, pointMasses: readonly { node: number; m
 /** Transverse nodal force of the unconstrained stiffness, (K·u) at node i's deflection unknown. */
 export function nodalForce(mesh: Mesh, u: Float64Array, node: number): number {
   let f = 0;
-  for (const e of [node - 1, node]) {
+  for (let e = node - 1; e <= node; e++) {
     if (e < 0 || e >= mesh.EI.length) continue;
     const L = mesh.x[e + 1] - mesh.x[e];
     const c = mesh.EI[e] / L ** 3;
-    const [v1, t1, v2, t2] = [u[2 * e], u[2 * e + 1], u[2 * e + 2], u[2 * e + 3]];
+    const j = 2 * e;
+    const v1 = u[j];
+    const t1 = u[j + 1];
+    const v2 = u[j + 2];
+    const t2 = u[j + 3];
     f += e === node ? c * (12 * v1 + 6 * L * t1 - 12 * v2 + 6 * L * t2) : c * (-12 * v1 - 6 * L * t1 + 12 * v2 - 6 * L * t2);
   }
   return f;
 }
 
-/** Deflection and slope at x inside element e from its Hermite shape functions. */
-export function hermite(mesh: Mesh, u: Float64Array, e: number, x: number): [number, number] {
+/** Deflection and slope at x inside element e from its Hermite shape functions, written to out[0], out[1]. */
+export function hermiteInto(mesh: Mesh, u: Float64Array, e: number, x: number, out: Float64Array): void {
   const x0 = mesh.x[e];
   const L = mesh.x[e + 1] - x0;
   const s = (x - x0) / L;
-  const [v1, t1, v2, t2] = [u[2 * e], u[2 * e + 1], u[2 * e + 2], u[2 * e + 3]];
-  const N1 = 1 - 3 * s * s + 2 * s ** 3;
-  const N2 = L * (s - 2 * s * s + s ** 3);
-  const N3 = 3 * s * s - 2 * s ** 3;
-  const N4 = L * (-s * s + s ** 3);
-  const d1 = (-6 * s + 6 * s * s) / L;
-  const d2 = 1 - 4 * s + 3 * s * s;
-  const d3 = (6 * s - 6 * s * s) / L;
-  const d4 = -2 * s + 3 * s * s;
-  return [N1 * v1 + N2 * t1 + N3 * v2 + N4 * t2, d1 * v1 + d2 * t1 + d3 * v2 + d4 * t2];
+  const s2 = s * s;
+  const s3 = s2 * s;
+  const j = 2 * e;
+  out[0] = (1 - 3 * s2 + 2 * s3) * u[j] + L * (s - 2 * s2 + s3) * u[j + 1] + (3 * s2 - 2 * s3) * u[j + 2] + L * (s3 - s2) * u[j + 3];
+  out[1] = ((6 * s2 - 6 * s) * (u[j] - u[j + 2])) / L + (1 - 4 * s + 3 * s2) * u[j + 1] + (3 * s2 - 2 * s) * u[j + 3];
+}
+
+/** Deflection and slope at x inside element e, as a pair. */
+export function hermite(mesh: Mesh, u: Float64Array, e: number, x: number): [number, number] {
+  const out = new Float64Array(2);
+  hermiteInto(mesh, u, e, x, out);
+  return [out[0], out[1]];
 }

@@ -15,6 +15,15 @@ describe('first bending critical speed', () => {
     expectClose(r.criticalSpeed!.totalMass, rhoA * L * 1000, 1e-9);
   });
 
+  it('when a uniform shaft runs over two equal spans, then the first mode is antisymmetric, at the one-span frequency (Blevins Table 8-1)', () => {
+    const L = 600;
+    const r = solve({ length: 2 * L, supports: [0, L, 2 * L], loads: [], density: 7850 });
+    const rhoA = 7850e-12 * (Math.PI * D * D) / 4;
+    const omega = Math.PI ** 2 * Math.sqrt(EI / (rhoA * L ** 4));
+    // Eight consistent-mass elements a span: within 2e-5 (the symmetric start could never find this mode).
+    expectClose(r.criticalSpeed!.rpm, (omega * 60) / (2 * Math.PI), 2e-5);
+  });
+
   it('when a heavy disc sits mid-span, then it approaches the single-mass value √(48·EI/(m·L³)) (single-mass formula, Shigley 9th Table A-9-6 stiffness 48·EI/L³)', () => {
     const L = 800;
     const m = 500; // kg: the shaft (about 12 kg) is light beside it

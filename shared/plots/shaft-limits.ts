@@ -28,7 +28,7 @@ export function shaftLimits(checklist: Checklist | null, ruleSet: RuleSet | null
     if (!ids.has(r.clauseId) || r.limit === null || !Number.isFinite(r.limit)) return [];
     const value = inCurveUnit(r.limit, r.unit, curveUnit);
     if (value === null) return [];
-    const label = named.has(r.clauseId) ? formatNumber(r.limit, 3) : `§${r.clauseId} ${formatNumber(r.limit, 3)} ${r.unit}`;
+    const label = `${named.has(r.clauseId) ? '' : `§${r.clauseId} `}${formatNumber(r.limit, 3)} ${r.unit}`;
     named.add(r.clauseId);
     return [{ at: r.location.at, value, label }];
   });

@@ -37,7 +37,7 @@ describe('the whole shaft in the browser', () => {
       await session.screenshot(page, `whole-shaft-editor-${width}`);
       await page.screenshot({ path: path.join(SCREENSHOT_DIR, `whole-shaft-editor-${width}-top.png`) });
       // The parts to look at closely, one picture each (the full page is too tall to read).
-      for (const [part, selector] of [['outline', 'tt-shaft-drawing'], ['bearings', 'tt-supports-panel'], ['forces', 'tt-forces-panel'], ['results', 'tt-shaft-results']]) {
+      for (const [part, selector] of [['outline', 'tt-shaft-drawing'], ['bearings', 'tt-supports-panel'], ['forces', 'tt-forces-panel'], ['results', 'tt-shaft-results'], ['deflection', 'tt-plots-panel tt-diagram-chart >> nth=2'], ['slope', 'tt-plots-panel tt-diagram-chart >> nth=3']]) {
         await page.locator(selector).screenshot({ path: path.join(SCREENSHOT_DIR, `whole-shaft-${part}-${width}.png`) });
       }
       expect(await accessibilityViolations(page)).toEqual([]);

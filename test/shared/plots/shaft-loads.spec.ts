@@ -92,7 +92,7 @@ describe('limits from the standard on the deflection and slope plots', () => {
     const { shaftLimits } = await import('../../../shared/plots');
     expect(shaftLimits(checklist as never, ruleSet as never, result, 'deflection')).toEqual([{ at: 120, value: 0.13, label: '§6.1 0.13 mm' }]);
     const slope = shaftLimits(checklist as never, ruleSet as never, result, 'slope');
-    expect(slope.map((l) => [l.at, l.value, l.label])).toEqual([[20, 0.001, '§6.2 1 mrad'], [380, 0.001, '1']]);
+    expect(slope.map((l) => [l.at, l.value, l.label])).toEqual([[20, 0.001, '§6.2 1 mrad'], [380, 0.001, '1 mrad']]);
   });
 
   it('when a pulley pulls straight along z, then its arrow has no stub in y from round-off', () => {

@@ -4,6 +4,7 @@ import express, { type Express } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
 import { securityHeaders } from './http/security-headers';
+import { jsonBody } from './http/json-body';
 import { sessionMiddleware, absoluteSessionLimit } from './auth/session';
 import { createPassport } from './auth/passport';
 import { csrfProtection } from './auth/csrf';
@@ -40,7 +41,7 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   app.set('trust proxy', config.TRUST_PROXY);
 
   app.use(securityHeaders(config));
-  app.use('/api', express.json({ limit: '1mb' }));
+  app.use('/api', jsonBody('1mb'));
   app.use('/api', sessionMiddleware(sequelize, config), absoluteSessionLimit(config));
   app.use('/api', passport.session(), attachAbility);
   app.use('/api', csrfProtection);

@@ -10,12 +10,15 @@ import { hashPassword, verifyPassword } from './password';
 export class AuthService {
   constructor(private readonly sequelize: Sequelize) {}
 
+  /** The sign-in's audit entry and last-sign-in time, together or not at all. */
   async recordSignIn(actor: Actor & { id: number }): Promise<void> {
-    await User.update({ lastSignInAt: new Date() }, { where: { id: actor.id } });
-    await appendAudit(this.sequelize, actor, { action: 'auth.signed_in', entityType: 'User', entityId: actor.id });
+    await this.sequelize.transaction(async (transaction) => {
+      await User.update({ lastSignInAt: new Date() }, { where: { id: actor.id }, transaction });
+      await appendAudit(this.sequelize, actor, { action: 'auth.signed_in', entityType: 'User', entityId: actor.id }, transaction);
+    });
   }
 
-  async recordFailedSignIn(username: string, ip: string | undefined, reason: string): Promise<void> {
+  async recordFailedSignIn(username: string, ip: string | null, reason: string): Promise<void> {
     // The attempted username is recorded for the auditor, never echoed to the client.
     await appendAudit(this.sequelize, { id: null, name: 'anonymous', ip }, {
       action: 'auth.sign_in_failed', entityType: 'User', entityId: null, payload: { username: username.slice(0, 64), reason },

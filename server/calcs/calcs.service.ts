@@ -15,6 +15,7 @@ import { currentHashOf, readRevision } from './revision-read';
 import { jsonDiff } from './content-diff';
 import { revisionLabel } from './revision-label';
 import { outcomeOf } from '../../shared/schemas/outcome';
+import { stringifyFinite } from '../../shared/json/finite-json';
 
 /** Calcs and the content of their revisions. Workflow transitions live in server/workflow. */
 export class CalcsService {
@@ -101,8 +102,8 @@ export class CalcsService {
 
 export function stored(c: Awaited<ReturnType<typeof computeRecord>>) {
   return {
-    result: c.result ? JSON.stringify(c.result) : null,
-    checklist: c.checklist ? JSON.stringify(c.checklist) : null,
+    result: c.result ? stringifyFinite(c.result) : null,
+    checklist: c.checklist ? stringifyFinite(c.checklist) : null,
     verdict: c.verdict,
     outcome: JSON.stringify(outcomeOf(c.checklist)),
   };

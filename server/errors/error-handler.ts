@@ -3,6 +3,7 @@ import { ForbiddenError } from '@casl/ability';
 import { UniqueConstraintError, ValidationError, OptimisticLockError } from 'sequelize';
 import { AppError } from './app-error';
 import { logger } from '../logger';
+import { addFieldError } from '../http/validate';
 
 /** JSON 404 for unknown API routes, so clients never receive the app's HTML for a typo. */
 export const apiNotFound: RequestHandler = (req, res) => {
@@ -24,8 +25,12 @@ function toAppError(err: unknown): AppError | undefined {
   }
   if (err instanceof ValidationError) {
     const fieldErrors: Record<string, string[]> = {};
-    for (const item of err.errors) (fieldErrors[item.path ?? 'record'] ??= []).push(item.message);
+    for (const item of err.errors) addFieldError(fieldErrors, item.path ?? 'record', item.message);
     return AppError.validation(fieldErrors);
+  }
+  // The router cannot percent-decode a path such as /%c0%ae: the path, not the server, is at fault.
+  if (err instanceof URIError) {
+    return new AppError('bad_path', 400, 'The address is not valid: it holds a bad percent-encoding', { fieldErrors: { path: ['has a bad percent-encoding'] } });
   }
   // body-parser marks malformed JSON and oversized bodies with a status and `expose`.
   const e = err as { status?: number; expose?: boolean; type?: string; code?: string; message?: string };

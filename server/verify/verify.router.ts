@@ -5,22 +5,19 @@ import { validate } from '../http/validate';
 import { AppError } from '../errors/app-error';
 import { singleUpload } from '../attachments/upload';
 import { readZip } from '../evidence/zip-reader';
-import { parse, verifyPackFiles, type PackRecord } from '../evidence/pack-verify';
+import { auditHashes, packRecord, recordPaths, verifyPackFiles } from '../evidence/pack-verify';
 import { verifyRecordHash } from './verify.service';
 import { auditOnRecord, recordOnRecord, sealCheck } from './pack-online';
 
 /** Checks an uploaded evidence pack: on its own first, then against this server's records. */
 async function verifyPack(zip: Buffer, maxBytes: number): Promise<PackVerification> {
   // Packs hold PDFs and scans that barely compress; twice the upload limit is ample room to unpack.
-  const files = readZip(zip, maxBytes * 2);
+  const files = await readZip(zip, maxBytes * 2);
   const { manifest, sealHash, checks } = verifyPackFiles(files);
   if (manifest && sealHash) {
     checks.push(await sealCheck(sealHash));
-    for (const f of manifest.files.filter((x) => x.path.endsWith('/record.json'))) {
-      checks.push(await recordOnRecord(f.path, parse<PackRecord>(files, f.path)));
-    }
-    const trail = parse<{ events?: { hash: string }[] }>(files, 'audit-trail.json');
-    checks.push(await auditOnRecord(Array.isArray(trail?.events) ? trail.events.map((e) => String(e.hash)) : []));
+    for (const path of recordPaths(manifest)) checks.push(await recordOnRecord(path, packRecord(files, path)));
+    checks.push(await auditOnRecord(auditHashes(files)));
   }
   return { ok: checks.every((c) => c.ok), calc: manifest?.calc ?? null, checks, caution: CAUTION };
 }

@@ -74,7 +74,7 @@ export class WorkflowService {
     const items = revision.ruleSet ? parseRuleSet(revision.ruleSet).manualItems ?? [] : [];
     const blocker = signingBlocker(meaning, {
       actor: signer,
-      revision: { status: revision.status, authorId: revision.authorId, checkerId: revision.checkerId, hasResult: revision.result !== null, verdict: revision.verdict },
+      revision: { status: revision.status, authorId: revision.authorId, checkerId: revision.checkerId, hasResult: revision.result !== null, verdict: revision.verdict, errorRows: errorRowsOf(revision.checklist) },
       editorIds: await editorIdsOf(revision.calcId, transaction),
       openFindings: findings.filter((f) => f.status === 'open').length,
       unresolvedFindings: findings.filter((f) => f.status !== 'closed').length,
@@ -108,6 +108,17 @@ export class WorkflowService {
       event, calcId: calc.id, calcNumber: calc.number, calcTitle: calc.title, projectCode: calc.Project.code, revision: revision.label,
       actorName: actor.name, authorId: revision.authorId, checkerId: revision.checkerId, editorIds: await editorIdsOf(calc.id, transaction), reason, baseUrl: this.baseUrl,
     }, transaction);
+  }
+}
+
+/** Rows that could not be evaluated; a stored checklist that cannot be read counts as one. */
+function errorRowsOf(checklist: string | null): number {
+  if (checklist === null) return 0;
+  try {
+    const rows = (JSON.parse(checklist) as { rows?: { status?: unknown }[] }).rows;
+    return Array.isArray(rows) ? rows.filter((r) => r?.status === 'error').length : 1;
+  } catch {
+    return 1;
   }
 }
 

@@ -7,6 +7,7 @@ import { withinLimit } from './limit-tolerance';
 import type { Target } from './locations';
 import type { PreparedClause, PreparedMeasure } from './prepared-rule-set';
 import { shortNumber } from './short-number';
+import { nonFiniteFact } from './clause-facts';
 
 interface Measured {
   actual: number | null;
@@ -73,15 +74,22 @@ function fill(row: ChecklistRow, m: PreparedMeasure, t: Target, params: Facts, u
   }
 }
 
+function nonFiniteFactError(p: PreparedClause, t: Target, params: Facts): string | null {
+  const fact = nonFiniteFact(p.clause, t.facts, params);
+  return fact === null ? null : `${fact} is not a finite number; the inputs are outside the range this check can evaluate`;
+}
+
 /** One checklist row from a clause's outcome at one location. Never throws. */
 export function buildRow(p: PreparedClause, t: Target, outcome: ClauseOutcome, params: Facts, units: UnitSystem): ChecklistRow {
   const row: ChecklistRow = {
     clauseId: p.clause.id, clauseTitle: p.clause.title, reference: p.reference, severity: p.clause.severity, status: 'not-applicable',
     location: t.location, actual: null, limit: null, unit: '', utilisation: null, utilisationBasis: null, message: 'does not apply here', warnings: [],
   };
-  if (outcome.error !== null) {
+  // A non-finite fact compares false everywhere, so "not applicable" or "pass" would be a guess.
+  const bad = outcome.error ?? nonFiniteFactError(p, t, params);
+  if (bad !== null) {
     row.status = 'error';
-    row.message = `could not be evaluated: ${outcome.error}`;
+    row.message = `could not be evaluated: ${bad}`;
     return row;
   }
   if (!outcome.applies) return row;

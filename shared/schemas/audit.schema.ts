@@ -1,7 +1,7 @@
 import { z } from 'zod';
-import { pageQuerySchema } from './common.schema';
+import { decimalId, pageQuerySchema } from './common.schema';
 
-const id = z.coerce.number({ error: 'must be a number' }).int().positive().optional();
+const id = decimalId().optional();
 const day = z.iso.date({ error: 'must be a date (YYYY-MM-DD)' }).optional();
 
 export const auditQuerySchema = pageQuerySchema.extend({

@@ -61,7 +61,7 @@ describe('evidence pack', () => {
   it("when the server's zip reader and unzipper read the same pack, then they agree byte for byte", async () => {
     const { zip } = await approvedCalcPack();
     const theirs = await unzip(zip);
-    const ours = readZip(zip, 100 * 1024 * 1024);
+    const ours = await readZip(zip, 100 * 1024 * 1024);
     expect([...ours.keys()].sort()).toEqual([...theirs.keys()].sort());
     for (const [name, data] of theirs) expect(Buffer.compare(ours.get(name)!, data)).toBe(0);
   });

@@ -32,7 +32,7 @@ export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreation
         entityId: { type: DataTypes.STRING(64), allowNull: true },
         payload: { type: DataTypes.TEXT('long'), allowNull: false },
         diff: { type: DataTypes.TEXT('long'), allowNull: true },
-        ip: { type: DataTypes.STRING(64), allowNull: true },
+        ip: { type: DataTypes.STRING(255), allowNull: true },
         prevHash: { type: DataTypes.CHAR(64), allowNull: false },
         hash: { type: DataTypes.CHAR(64), allowNull: false, unique: true },
       },

@@ -87,6 +87,24 @@ function diagram(mesh: Mesh, s: Omit<BeamSolution, 'diagram'>): DiagramPoint[] {
   return out;
 }
 
+/*
+ * Two supports are statically determinate: their reactions from ΣF = 0 and ΣM = 0 are exact and
+ * keep full precision even beside a very short element, where K·u − f loses a few digits.
+ */
+function determinate(mesh: Mesh, nodes: number[], loads: readonly PointLoad[], plane: 'y' | 'z'): number[] {
+  const [a, b] = [mesh.x[nodes[0]], mesh.x[nodes[1]]];
+  let [sumF, sumM] = [0, 0];
+  for (const p of loads) {
+    const F = plane === 'y' ? p.Fy : p.Fz;
+    sumF += F;
+    // Moment about support a: M = Σ F·(x − xF) − Σ C vanishes beyond the right end, so with
+    // ΣF = 0 it follows that Σ F·(xF − a) + Σ C = 0.
+    sumM += F * (mesh.x[nodeAt(mesh, p.at)] - a) + (plane === 'y' ? p.Cy : p.Cz);
+  }
+  const Rb = -sumM / (b - a);
+  return [-sumF - Rb, Rb];
+}
+
 /** Solves the beam; `stations` (mm) become nodes, `densities` (t/mm³) are per segment. */
 export function solveBeam(model: Model, supports: readonly number[], loads: PointLoad[], stations: number[],
   densities: readonly number[]): BeamSolution {
@@ -97,6 +115,10 @@ export function solveBeam(model: Model, supports: readonly number[], loads: Poin
   if (!factor(U)) throw new SingularBeamError('the shaft is not held: supports or stiffness missing');
   const y = solvePlane(mesh, U, supportNodes, planeLoads(mesh, loads, 'y'));
   const z = solvePlane(mesh, U, supportNodes, planeLoads(mesh, loads, 'z'));
+  if (supportNodes.length === 2) {
+    y.R = determinate(mesh, supportNodes, loads, 'y');
+    z.R = determinate(mesh, supportNodes, loads, 'z');
+  }
   const base = { mesh, factored: U, supportNodes, loads, y, z };
   return { ...base, diagram: diagram(mesh, base) };
 }

@@ -3,6 +3,7 @@ import { formatNumber as f } from '../number-format';
 import type { CalcInput } from '../schema';
 import { locate, segmentBounds, STATION_TOLERANCE } from '../shaft-geometry';
 import { UNIT_LABELS } from '../units';
+import { beamRanges } from './beam-ranges';
 import { transmittedTorque } from './resolve-loads';
 
 /*
@@ -68,6 +69,8 @@ function checkScale(input: CalcInput, total: number, out: CalcIssue[]): void {
 }
 
 export function checkBeam(input: CalcInput): CalcIssue[] {
+  const ranges = beamRanges(input);
+  if (ranges.length) return ranges;
   const out: CalcIssue[] = [];
   const bounds = segmentBounds(input.segments.map((s) => s.length));
   const total = bounds[bounds.length - 1];

@@ -30,7 +30,8 @@ describe('bad beam input is refused, naming the field', () => {
     ['C of zero', (i) => { i.supports[0].C = 0; }, 'supports[0].C', /./],
     ['a speed of zero', (i) => { i.speed = 0; }, 'speed', /./],
     ['an unknown bearing kind', (i) => { i.supports[0].kind = 'magic'; }, 'supports[0].kind', /./],
-    ['absurd loads that would overflow', (i) => { i.loads.push({ at: 200, Fy: 1e300 }); }, 'loads', /too large/],
+    ['an absurd force', (i) => { i.loads.push({ at: 200, Fy: 1e300 }); }, 'loads[2].Fy', /outside the range/],
+    ['an absurd density', (i) => { i.material.density = 1e9; }, 'material.density', /outside the range/],
   ])('when the input has %s, then it is refused at %s', (_what, mutate, path, message) => {
     const issues = refused(mutate);
     expect(issues).toEqual(expect.arrayContaining([expect.objectContaining({ path: expect.stringContaining(path), message: expect.stringMatching(message) })]));

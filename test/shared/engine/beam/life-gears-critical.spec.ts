@@ -100,6 +100,16 @@ describe('gear and belt forces (Shigley 9th Eqs. 13-36 and 13-40, from memory; M
     expectClose(l.Fx, 2000 * Math.tan(psi));
   });
 
+  it('when a helical gear\'s axial force acts at the pitch radius, then the moment jumps by Wa·d/2 there and closes to zero at the ends', () => {
+    const input = { ...shaft({ kind: 'gear', pitchDiameter: 100, helixAngle: 30 }), supports: [{ at: 50, kind: 'deep-groove-ball', locating: true }, { at: 550, kind: 'deep-groove-ball' }] };
+    const r = evaluateShaft(input);
+    const at = r.bendingDiagram.filter((p) => p.at === 300);
+    expectClose(Math.abs(at[1].My - at[0].My), (r.loads[0].Fx * 0.1) / 2, 1e-9);
+    const end = r.bendingDiagram[r.bendingDiagram.length - 1];
+    expect(Math.abs(end.My) + Math.abs(end.Mz)).toBeLessThan(1e-9);
+    expectClose(r.supports[0].Fa, r.loads[0].Fx);
+  });
+
   it('when a V-belt pulley transmits T, then the shaft load is 1.5 × 2T/D in the pull direction', () => {
     const l = evaluateShaft(shaft({ kind: 'pulley', diameter: 200, direction: 90 })).loads[0];
     expectClose(l.Fz, 1.5 * 1000);

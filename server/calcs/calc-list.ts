@@ -22,12 +22,12 @@ interface Row {
   id: number; project_id: number; project_code: string; number: string; title: string; part_ref: string;
   latest_revision_id: number; latest_label: string; latest_status: RevisionState; latest_verdict: string | null;
   latest_author_id: number; author_name: string; latest_rule_set_id: number; rs_code: string | null; rs_version: number | null;
-  latest_updated_at: Date;
+  latest_updated_at: Date; project_archived: number;
 }
 
 const SELECT = `SELECT c.id, c.project_id, c.project_code, c.number, c.title, c.part_ref, c.latest_revision_id, c.latest_label,
   c.latest_status, c.latest_verdict, c.latest_author_id, c.author_name, c.latest_rule_set_id, c.latest_updated_at,
-  rs.code AS rs_code, rs.version AS rs_version`;
+  rs.code AS rs_code, rs.version AS rs_version, p.status = 'archived' AS project_archived`;
 
 /**
  * The search box: every word of three or more letters must start a word of the calc's number,
@@ -43,6 +43,7 @@ export function searchCondition(q: string): { sql: string; replacements: unknown
 function toItem(r: Row): CalcListItem {
   return {
     id: r.id, projectId: r.project_id, projectCode: r.project_code, number: r.number, title: r.title, partRef: r.part_ref,
+    projectArchived: Boolean(r.project_archived),
     latest: {
       id: r.latest_revision_id, label: r.latest_label, status: r.latest_status, verdict: r.latest_verdict,
       author: { id: r.latest_author_id, name: r.author_name },
@@ -77,7 +78,8 @@ export async function listCalcs(ability: AppAbility, query: CalcListQuery): Prom
   }
   const sequelize = Calc.sequelize!;
   const [rows, counted] = await Promise.all([
-    sequelize.query<Row>(`${SELECT} FROM calcs c LEFT JOIN rule_sets rs ON rs.id = c.latest_rule_set_id WHERE ${page.join(' AND ')}
+    sequelize.query<Row>(`${SELECT} FROM calcs c LEFT JOIN rule_sets rs ON rs.id = c.latest_rule_set_id
+      JOIN projects p ON p.id = c.project_id WHERE ${page.join(' AND ')}
       ORDER BY ${orderBy(columns, query.dir)} LIMIT ${query.size + 1}`, { replacements: pageParams, type: QueryTypes.SELECT }),
     query.after ? null : cappedCount(sequelize, filter, params),
   ]);

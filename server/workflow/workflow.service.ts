@@ -33,7 +33,11 @@ export class WorkflowService {
     // beside it; the same check runs again under the transaction below.
     // A retried request (same key) skips this: the revision has already moved on by its own signature.
     const retried = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey } });
-    if (!retried) await this.assertMaySign(dto.meaning, signer, await loadRevision(revisionId));
+    if (!retried) {
+      const revision = await loadRevision(revisionId);
+      await assertProjectOpen(revision.calcId);
+      await this.assertMaySign(dto.meaning, signer, revision);
+    }
     await this.checkPassword(signer, revisionId, dto);
     await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);

@@ -55,6 +55,8 @@ export interface CalcDto {
 export interface CalcListItem {
   id: number; projectId: number; projectCode: string;
   number: string; title: string; partRef: string;
+  /** The project is archived: lists mark the calc as a closed, read-only record. */
+  projectArchived: boolean;
   latest: {
     id: number; label: string; status: RevisionState; verdict: string | null;
     author: PersonRef; ruleSet: { id: number; code: string; version: number }; updatedAt: string;

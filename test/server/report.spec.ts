@@ -72,7 +72,9 @@ describe('calc report', () => {
     const t = await returnedWithFindingOf(ctx.app);
     const { text } = readPdf((await getPdf(t.author.session, t.revisionId)).body as Buffer);
     const findings = text.replace(/\s+/g, ' ').split('Findings and answers')[1];
-    expect(findings).toMatch(new RegExp(`^( [A-Z·])* No\\. F${t.findingId} (Finding )?Name the chart behind the keyseat`));
+    // The table header may be extracted before or between the cells; what matters is the row's number.
+    expect(findings).toMatch(new RegExp(`^( [A-Z·])* No\\. .*?\\bF${t.findingId} (Finding )?Name the chart behind the keyseat`));
+    expect(findings).not.toMatch(/\b1 Name the chart behind the keyseat/);
   });
 
   it('when the revision does not exist, the id is not a number, or nobody is signed in, then 404, 400 and 401', async () => {

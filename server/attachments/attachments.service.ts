@@ -9,6 +9,7 @@ import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { loadRevision } from '../calcs/calc-access';
 import { ObjectStore } from './object-store';
+import { refreshAfterAttachmentChange } from '../workflow/signed-content';
 import { ACCEPTED_TYPE_NAMES, detectMediaType } from './content-type';
 import { READ_ONLY_STATES, cleanFileName, mayAddFiles, toAttachmentDto } from './attachment-access';
 
@@ -40,9 +41,10 @@ export class AttachmentsService {
         revisionId, kind: fields.kind, fileName: cleanFileName(file.originalname), mediaType, sizeBytes: file.buffer.length,
         sha256, storageKey: key, note: fields.note, uploadedBy: actor.id, uploadedByName: actor.name,
       }, { transaction });
+      await refreshAfterAttachmentChange(revision, transaction);
       await appendAudit(this.sequelize, actor, {
         action: 'attachment.added', entityType: 'Revision', entityId: revisionId,
-        payload: { attachmentId: row.id, kind: row.kind, fileName: row.fileName, mediaType, sizeBytes: row.sizeBytes, sha256 },
+        payload: { attachmentId: row.id, kind: row.kind, fileName: row.fileName, mediaType, sizeBytes: row.sizeBytes, sha256, contentHash: revision.contentHash },
       }, transaction);
       return row.id;
     });
@@ -66,9 +68,10 @@ export class AttachmentsService {
       if (!EDITABLE_STATES.includes(revision.status)) throw AppError.conflict(`Files are removed only before submission; revision ${revision.label} is ${revision.status.replace('_', ' ')}`);
       if (row.uploadedBy !== actor.id) throw new AppError('forbidden', 403, 'Only the person who attached a file can remove it');
       await row.destroy({ transaction });
+      await refreshAfterAttachmentChange(revision, transaction);
       await appendAudit(this.sequelize, actor, {
         action: 'attachment.removed', entityType: 'Revision', entityId: row.revisionId,
-        payload: { attachmentId: row.id, kind: row.kind, fileName: row.fileName, sha256: row.sha256 },
+        payload: { attachmentId: row.id, kind: row.kind, fileName: row.fileName, sha256: row.sha256, contentHash: revision.contentHash },
       }, transaction);
     });
   }

@@ -1,10 +1,13 @@
 import { Revision, Attachment } from '../../server/db/models';
+import { loadRevision } from '../../server/calcs/calc-access';
+import { refreshAfterAttachmentChange } from '../../server/workflow/signed-content';
 
 type ManualRow = { requiresAttachment?: string | null };
 
 /**
  * Gives a revision one attachment row of each kind its manual items require, so workflow tests
  * can tick them. Rows only (the bytes are not needed to tick); attachments.spec.ts tests uploads.
+ * The attachment set is signed content, so the revision's hash follows it as an upload's would.
  */
 export async function attachRequiredFiles(revisionId: number, manual: ManualRow[]): Promise<void> {
   const kinds = [...new Set(manual.map((m) => m.requiresAttachment).filter((k): k is Attachment['kind'] => !!k))];
@@ -18,4 +21,5 @@ export async function attachRequiredFiles(revisionId: number, manual: ManualRow[
       storageKey: 'test-fixture/no-bytes', uploadedBy: revision.authorId, uploadedByName: 'test harness',
     });
   }
+  await Revision.sequelize!.transaction(async (transaction) => refreshAfterAttachmentChange(await loadRevision(revisionId, transaction), transaction));
 }

@@ -14,12 +14,15 @@ export async function attachRequiredFiles(revisionId: number, manual: ManualRow[
   if (kinds.length === 0) return;
   const revision = await Revision.findByPk(revisionId);
   if (!revision) return;
+  let added = 0;
   for (const kind of kinds) {
     if (await Attachment.count({ where: { revisionId, kind } })) continue;
+    added += 1;
     await Attachment.create({
       revisionId, kind, fileName: `${kind}.pdf`, mediaType: 'application/pdf', sizeBytes: 4, sha256: '0'.repeat(64),
       storageKey: 'test-fixture/no-bytes', uploadedBy: revision.authorId, uploadedByName: 'test harness',
     });
   }
+  if (added === 0) return;
   await Revision.sequelize!.transaction(async (transaction) => refreshAfterAttachmentChange(await loadRevision(revisionId, transaction), transaction));
 }

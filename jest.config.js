@@ -1,21 +1,21 @@
 // One runner for the whole repository (see DEVELOPERS.md): each project below is one layer.
-// Time limits fit the real work of each layer on a 2-core machine that is busy with other jobs
-// (Argon2id hashes and MariaDB round trips in api, a browser in e2e); tests never assert speed.
+// The time limit fits the real work of the slowest layers on a 2-core machine that is busy with other
+// jobs (Argon2id hashes and MariaDB round trips in api, a browser in e2e); tests never assert speed.
+// jest-circus reads testTimeout from the global config only, so it is set here, once.
 const tsJest = ['ts-jest', { tsconfig: '<rootDir>/tsconfig.spec.json' }];
 
 /** @type {import('jest').Config} */
 module.exports = {
+  testTimeout: 180_000,
   projects: [
     {
       displayName: 'unit',
-      testTimeout: 60_000,
       testEnvironment: 'node',
       testMatch: ['<rootDir>/test/shared/**/*.spec.ts', '<rootDir>/test/scripts/**/*.spec.ts'],
       transform: { '^.+\\.ts$': tsJest },
     },
     {
       displayName: 'api',
-      testTimeout: 180_000,
       testEnvironment: 'node',
       testMatch: ['<rootDir>/test/server/**/*.spec.ts'],
       transform: { '^.+\\.ts$': tsJest },
@@ -23,7 +23,6 @@ module.exports = {
     },
     {
       displayName: 'client',
-      testTimeout: 120_000,
       preset: 'jest-preset-angular',
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
       setupFilesAfterEnv: ['<rootDir>/test/support/client-setup.ts'],
@@ -37,7 +36,6 @@ module.exports = {
     },
     {
       displayName: 'e2e',
-      testTimeout: 300_000,
       testEnvironment: 'node',
       testMatch: ['<rootDir>/test/e2e/**/*.spec.ts'],
       transform: { '^.+\\.ts$': tsJest },

@@ -1,5 +1,6 @@
 #!/usr/bin/env bash
-# `npm run bench`: engine and checklist throughput, then impact analysis in a throw-away MariaDB.
+# `npm run bench`: engine and checklist throughput, then impact analysis and the event loop under heavy
+# work (evidence packs and reports) in a throw-away MariaDB.
 # Prints figures; tests never depend on them.
 set -uo pipefail
 cd "$(dirname "$0")/.."
@@ -18,5 +19,24 @@ export DB_HOST=127.0.0.1 DB_PORT
 trap 'db_stop; rm -rf "$dir"' EXIT
 db_ensure_schema "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
 npx tsx scripts/bench-impact.ts
+db_stop
+echo
+
+# The library of 100,000 calcs lives in its own data folder, kept between runs because seeding it
+# takes minutes: BENCH_FRESH=1 seeds anew, BENCH_LISTS_DIR moves it, BENCH_SCALE=0.1 seeds a tenth.
+lists_dir="${BENCH_LISTS_DIR:-.data/bench-lists}"
+[ "${BENCH_FRESH:-0}" = "1" ] && rm -rf "$lists_dir"
+db_start "$lists_dir" "$(free_port)"
+export DB_PORT DB_POOL_MAX="${DB_POOL_MAX:-20}"
+trap 'db_stop; rm -rf "$dir"' EXIT
+db_ensure_schema "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
+npx tsx scripts/bench-seed.ts && npx tsx scripts/bench-lists.ts
+echo
+MAIL_SENDER=false npx tsx scripts/bench-stall.ts
+# The writers bench uploads files: object storage (and the fake SMTP server) on free ports.
+export SMTP_HOST=127.0.0.1 SMTP_PORT=$(free_port) S3_ENDPOINT="http://127.0.0.1:$(free_port)" S3_BUCKET=torquetrail-bench MAIL_SENDER=false
+fakes_start "$dir/fakes"
+trap 'fakes_stop; db_stop; rm -rf "$dir"' EXIT
+npx tsx scripts/bench-writers.ts
 echo
 echo "Figures measure this machine at this moment; they support, never replace, engineering judgement of the product's fitness."

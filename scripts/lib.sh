@@ -17,6 +17,13 @@ ensure_debian_packages() {
     command -v chromium >/dev/null 2>&1 || missing+=(chromium)
     command -v pdftoppm >/dev/null 2>&1 || missing+=(poppler-utils)
   fi
+  if [ "${1:-}" = "with-cluster" ]; then
+    # The Galera test: galera-4 comes with mariadb-server; state transfer needs mariadb-backup and socat.
+    [ -f /usr/lib/galera/libgalera_smm.so ] || missing+=(galera-4)
+    command -v mariadb-backup >/dev/null 2>&1 || missing+=(mariadb-backup)
+    command -v socat >/dev/null 2>&1 || missing+=(socat)
+    command -v haproxy >/dev/null 2>&1 || [ -x /usr/sbin/haproxy ] || missing+=(haproxy)
+  fi
   [ -f /usr/share/fonts/truetype/dejavu/DejaVuSans.ttf ] || missing+=(fonts-dejavu-core)
   [ ${#missing[@]} -eq 0 ] && return 0
   log "installing Debian packages: ${missing[*]}"

@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import { z } from 'zod';
 
 /**
@@ -21,7 +22,9 @@ const envSchema = z.object({
   SESSION_ABSOLUTE_HOURS: z.coerce.number().positive().default(12),
   // Behind TLS the cookie must be Secure and HSTS makes sense; on plain HTTP both break sign-in.
   TLS: z.stringbool().default(false),
-  TRUST_PROXY: z.string().default('loopback'),
+  // Whose X-Forwarded-For to believe. Off by default: trusting even loopback lets anyone on the host
+  // forge the client address (sign-in limit, audit trail). Set it to the load balancer's address(es).
+  TRUST_PROXY: z.string().default('false').transform(trustProxySetting),
   LOGIN_RATE_LIMIT: z.coerce.number().int().positive().default(10),
   LOGIN_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(15),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
@@ -51,7 +54,30 @@ const envSchema = z.object({
   ATTACHMENT_MAX_MB: z.coerce.number().positive().max(500).default(20),
   EVIDENCE_PACK_MAX_MB: z.coerce.number().positive().max(2000).default(100),
   REPORT_FONT_DIR: z.string().default('/usr/share/fonts/truetype/dejavu'),
+  // Evidence-pack checks and report PDFs run in worker threads: how many at once, each worker's
+  // heap limit, and how many may wait before a 503. Unpacked pack bytes live outside the heap and
+  // are bounded per job by twice EVIDENCE_PACK_MAX_MB, so at most WORK_THREADS times that at once.
+  // By default one core is left to the event loop.
+  WORK_THREADS: z.coerce.number().int().min(1).max(16).default(Math.min(4, Math.max(1, availableParallelism() - 1))),
+  WORK_MEMORY_MB: z.coerce.number().int().min(64).max(4096).default(512),
+  WORK_QUEUE: z.coerce.number().int().min(0).max(1000).default(32),
 });
+
+/**
+ * Express's `trust proxy` value: false (the default), a hop count, or a comma-separated list of
+ * addresses, subnets or the names Express knows (loopback, linklocal, uniquelocal). `true` would
+ * trust any sender, which is never right for a sign-in limit, so it is refused.
+ */
+function trustProxySetting(value: string, ctx: z.RefinementCtx): false | number | string {
+  const v = value.trim().toLowerCase();
+  if (v === '' || v === 'false' || v === '0') return false;
+  if (v === 'true') {
+    ctx.addIssue({ code: 'custom', message: 'must name the proxy addresses or a hop count, not "true" (that trusts every sender)' });
+    return z.NEVER;
+  }
+  if (/^\d+$/.test(v)) return Number(v);
+  return v;
+}
 
 export type Config = Readonly<z.infer<typeof envSchema>>;
 

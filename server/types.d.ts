@@ -18,6 +18,9 @@ declare module 'express-session' {
     csrfToken: string;
     /** A one-time-code secret shown to the user but not yet confirmed by a matching code. */
     pendingTotp: string;
+    /** Where the session signed in from, shown on the person's list of sessions. */
+    clientIp: string;
+    userAgent: string;
   }
 }
 

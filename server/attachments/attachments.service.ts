@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import { ForbiddenError } from '@casl/ability';
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { AttachmentDto, AttachmentListDto, UploadFields } from '../../shared/schemas/attachment.schema';
 import { EDITABLE_STATES } from '../../shared/schemas/revision.schema';
@@ -11,7 +11,10 @@ import { loadRevision } from '../calcs/calc-access';
 import { ObjectStore } from './object-store';
 import { refreshAfterAttachmentChange } from '../workflow/signed-content';
 import { ACCEPTED_TYPE_NAMES, detectMediaType } from './content-type';
+import { assertDeclaredKind } from './declared-kind';
 import { READ_ONLY_STATES, cleanFileName, mayAddFiles, toAttachmentDto } from './attachment-access';
+import { assertProjectOpen, isProjectArchived } from '../projects/project-open';
+import { runTransaction } from '../db/transaction';
 
 export interface UploadedFile { buffer: Buffer; originalname: string }
 
@@ -23,20 +26,21 @@ export class AttachmentsService {
     ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
     const revision = await loadRevision(revisionId);
     const rows = await Attachment.findAll({ where: { revisionId }, order: [['id', 'ASC']] });
-    return { items: rows.map(toAttachmentDto), canAdd: mayAddFiles(ability, revision), maxBytes: this.maxBytes, acceptedTypes: ACCEPTED_TYPE_NAMES };
+    return { items: rows.map(toAttachmentDto), canAdd: mayAddFiles(ability, revision) && !(await isProjectArchived(revision.calcId)), maxBytes: this.maxBytes, acceptedTypes: ACCEPTED_TYPE_NAMES };
   }
 
   async upload(ability: AppAbility, actor: Actor & { id: number }, revisionId: number, file: UploadedFile | undefined, fields: UploadFields): Promise<AttachmentDto> {
     if (!file) throw AppError.validation({ file: ['is required: send the file as multipart form field "file"'] });
     const mediaType = await detectMediaType(file.buffer);
+    assertDeclaredKind(file.originalname, fields.kind, mediaType);
     const sha256 = createHash('sha256').update(file.buffer).digest('hex');
     const key = ObjectStore.keyFor(sha256);
     await this.assertMayAdd(ability, await loadRevision(revisionId));
     // Bytes first: an orphaned blob after a failed insert is harmless, a row without bytes is not.
     await this.store.putIfAbsent(key, file.buffer, mediaType);
-    const id = await this.sequelize.transaction(async (transaction) => {
+    const id = await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
-      await this.assertMayAdd(ability, revision);
+      await this.assertMayAdd(ability, revision, transaction);
       const row = await Attachment.create({
         revisionId, kind: fields.kind, fileName: cleanFileName(file.originalname), mediaType, sizeBytes: file.buffer.length,
         sha256, storageKey: key, note: fields.note, uploadedBy: actor.id, uploadedByName: actor.name,
@@ -58,15 +62,17 @@ export class AttachmentsService {
     return { attachment: toAttachmentDto(row), bytes: await this.store.get(row.storageKey) };
   }
 
-  /** Only the uploader removes a file, and only before the revision is submitted. */
+  /** The uploader or the revision's author removes a file, and only before the revision is submitted. */
   async remove(ability: AppAbility, actor: Actor & { id: number }, id: number): Promise<void> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const row = await Attachment.findByPk(id, { transaction });
       if (!row) throw AppError.notFound(`Attachment ${id}`);
       const revision = await loadRevision(row.revisionId, transaction);
+      await assertProjectOpen(revision.calcId, transaction);
       if (READ_ONLY_STATES.includes(revision.status)) throw this.readOnly(revision, 'removed');
       if (!EDITABLE_STATES.includes(revision.status)) throw AppError.conflict(`Files are removed only before submission; revision ${revision.label} is ${revision.status.replace('_', ' ')}`);
-      if (row.uploadedBy !== actor.id) throw new AppError('forbidden', 403, 'Only the person who attached a file can remove it');
+      // The author answers for every file of their draft, so they can take out one a co-editor attached by mistake.
+      if (row.uploadedBy !== actor.id && revision.authorId !== actor.id) throw new AppError('forbidden', 403, 'Only the person who attached a file, or the author of the revision, can remove it');
       await row.destroy({ transaction });
       await refreshAfterAttachmentChange(revision, transaction);
       await appendAudit(this.sequelize, actor, {
@@ -80,7 +86,8 @@ export class AttachmentsService {
     await this.assertMayAdd(ability, await loadRevision(revisionId));
   }
 
-  private async assertMayAdd(ability: AppAbility, revision: Revision): Promise<void> {
+  private async assertMayAdd(ability: AppAbility, revision: Revision, transaction?: Transaction): Promise<void> {
+    await assertProjectOpen(revision.calcId, transaction);
     if (READ_ONLY_STATES.includes(revision.status)) throw this.readOnly(revision, 'added');
     if (!mayAddFiles(ability, revision)) {
       throw new AppError('forbidden', 403, 'Files are added by the author while editing, or by the independent checker or approver while reviewing');

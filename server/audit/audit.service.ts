@@ -3,6 +3,7 @@ import { Op, QueryTypes } from 'sequelize';
 import canonicalize from 'canonicalize';
 import { AuditEvent } from '../db/models';
 import { chainHash, GENESIS_HASH, type ChainedContent } from './audit-chain';
+import { runTransaction } from '../db/transaction';
 
 export interface Actor {
   id: number | null;
@@ -28,6 +29,8 @@ export async function appendAudit(
   sequelize: Sequelize, actor: Actor, entry: AuditEntry, transaction?: Transaction,
 ): Promise<void> {
   const run = async (t: Transaction) => {
+    // Before the chain head is locked, so the look-up does not lengthen the time every writer waits.
+    const scope = await scopeOf(sequelize, entry, t);
     const [head] = await sequelize.query<{ last_hash: string; now: Date }>(
       'SELECT last_hash, UTC_TIMESTAMP(3) AS now FROM audit_chain_head WHERE id = 1 FOR UPDATE',
       { type: QueryTypes.SELECT, transaction: t },
@@ -45,7 +48,7 @@ export async function appendAudit(
     };
     const hash = chainHash(head.last_hash, content);
     const row = await AuditEvent.create(
-      { ...content, occurredAt: new Date(content.occurredAt), prevHash: head.last_hash, hash },
+      { ...content, occurredAt: new Date(content.occurredAt), prevHash: head.last_hash, hash, ...scope },
       { transaction: t },
     );
     await sequelize.query('UPDATE audit_chain_head SET last_id = ?, last_hash = ? WHERE id = 1', {
@@ -53,7 +56,23 @@ export async function appendAudit(
     });
   };
   if (transaction) return run(transaction);
-  return sequelize.transaction(run);
+  return runTransaction(sequelize, run);
+}
+
+const SCOPE_SQL: Record<string, string> = {
+  Calc: 'SELECT id AS calcId, project_id AS projectId FROM calcs WHERE id = ?',
+  Revision: 'SELECT c.id AS calcId, c.project_id AS projectId FROM revisions r JOIN calcs c ON c.id = r.calc_id WHERE r.id = ?',
+};
+
+/** The calc and project an entry falls under, for the audit list's filters (migrations/20261220-0302-audit-scope.ts). */
+async function scopeOf(sequelize: Sequelize, entry: AuditEntry, t: Transaction): Promise<{ calcId: number | null; projectId: number | null }> {
+  const id = entry.entityId == null ? NaN : Number(entry.entityId);
+  if (!Number.isInteger(id)) return { calcId: null, projectId: null };
+  if (entry.entityType === 'Project') return { calcId: null, projectId: id };
+  const sql = SCOPE_SQL[entry.entityType];
+  if (!sql) return { calcId: null, projectId: null };
+  const [row] = await sequelize.query<{ calcId: number; projectId: number }>(sql, { replacements: [id], type: QueryTypes.SELECT, transaction: t });
+  return { calcId: row?.calcId ?? null, projectId: row?.projectId ?? null };
 }
 
 /**

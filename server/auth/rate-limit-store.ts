@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { ClientRateLimitInfo, Options, Store } from 'express-rate-limit';
+import { runTransaction } from '../db/transaction';
 
 const MAX_KEY_LENGTH = 191;
 const SWEEP_EVERY = 100;
@@ -50,7 +51,7 @@ export class MariaDbRateLimitStore implements Store {
   async increment(key: string): Promise<ClientRateLimitInfo> {
     await this.#sweepSometimes();
     const replacements = { key: this.#key(key), windowUs: Math.round(this.#windowMs * 1000) };
-    return this.sequelize.transaction(async (transaction) => {
+    return runTransaction(this.sequelize, async (transaction) => {
       await this.sequelize.query(UPSERT, { replacements, transaction });
       const [row] = await this.sequelize.query<Row>(SELECT, { type: QueryTypes.SELECT, replacements, transaction });
       return toInfo(row);

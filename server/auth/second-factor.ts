@@ -6,6 +6,7 @@ import { User } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { verifyPassword } from './password';
+import { runTransaction } from '../db/transaction';
 
 // One step either side of the current 30-second window absorbs clock drift on phones.
 authenticator.options = { window: 1 };
@@ -41,7 +42,7 @@ export class SecondFactorService {
   async confirm(actor: Actor & { id: number }, pendingSecret: string | undefined, code: string): Promise<SecondFactorStatus> {
     if (!pendingSecret) throw AppError.conflict('Start the enrolment again: no code set-up is in progress in this session');
     if (!authenticator.check(code, pendingSecret)) throw AppError.validation({ code: ['does not match: check the time on your phone and try the next code'] });
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       await User.update({ totpSecret: pendingSecret }, { where: { id: actor.id }, transaction });
       await appendAudit(this.sequelize, actor, { action: 'auth.second_factor_enrolled', entityType: 'User', entityId: actor.id }, transaction);
     });
@@ -52,7 +53,7 @@ export class SecondFactorService {
     const user = await User.scope('withPassword').findByPk(actor.id);
     if (!user || !(await verifyPassword(user.passwordHash, password))) throw AppError.validation({ password: ['is not correct'] });
     if (user.totpRequired) throw AppError.conflict('An administrator requires a one-time code for your signatures; it cannot be switched off');
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       await User.update({ totpSecret: null }, { where: { id: actor.id }, transaction });
       await appendAudit(this.sequelize, actor, { action: 'auth.second_factor_removed', entityType: 'User', entityId: actor.id }, transaction);
     });

@@ -1,7 +1,7 @@
 import { ForbiddenError, subject } from '@casl/ability';
 import type { Transaction } from 'sequelize';
 import type { Action, AppAbility } from '../../shared/authz/app-ability';
-import { Calc, CalcEditor, Revision } from '../db/models';
+import { Calc, CalcEditor, Revision, RuleSetRecord, User } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { REVISION_INCLUDE } from './calc-mapping';
 
@@ -16,13 +16,39 @@ export function assertCan(ability: AppAbility, action: Action, r: Revision, mess
   check.throwUnlessCan(action, revisionSubject(r));
 }
 
-/** Loads a revision with its associations; with a transaction it is locked for update. */
+/**
+ * Loads a revision with its associations; with a transaction its row is locked for update.
+ *
+ * Only the revision row is locked. A locking read locks every row it reads, so the joined read
+ * used for display would also lock the standard's and the people's rows, which every concurrent
+ * calc creation reads (its foreign keys take shared locks on them): that crossing deadlocked.
+ * Lock order for every write (DEVELOPERS.md): the calc's revision rows, then the rows the step
+ * inserts, then the audit chain head last (appendAudit).
+ */
 export async function loadRevision(id: number, transaction?: Transaction): Promise<Revision> {
-  const revision = await Revision.findByPk(id, {
-    include: REVISION_INCLUDE, transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined,
-  });
+  if (!transaction) {
+    const revision = await Revision.findByPk(id, { include: REVISION_INCLUDE });
+    if (!revision) throw AppError.notFound(`Revision ${id}`);
+    return revision;
+  }
+  const revision = await Revision.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
   if (!revision) throw AppError.notFound(`Revision ${id}`);
+  await attachAssociations(revision, transaction);
   return revision;
+}
+
+/** The standard and the people of a locked revision, read without locks (they are only read). */
+async function attachAssociations(revision: Revision, transaction: Transaction): Promise<void> {
+  const [ruleSetInclude, ...people] = REVISION_INCLUDE;
+  const ruleSet = await RuleSetRecord.findByPk(revision.ruleSetId, { attributes: ruleSetInclude.attributes, transaction });
+  const ids = [revision.authorId, revision.checkerId, revision.approverId].filter((v): v is number => v != null);
+  const users = new Map((await User.findAll({ where: { id: ids }, attributes: people[0].attributes, transaction })).map((u) => [u.id, u]));
+  const found = { ruleSet, author: users.get(revision.authorId) ?? null, checker: revision.checkerId ? users.get(revision.checkerId) ?? null : null, approver: revision.approverId ? users.get(revision.approverId) ?? null : null };
+  // The same shape an include gives: both the property and dataValues, so DTO mapping sees no difference.
+  for (const [key, value] of Object.entries(found)) {
+    (revision.dataValues as Record<string, unknown>)[key] = value;
+    (revision as unknown as Record<string, unknown>)[key] = value;
+  }
 }
 
 export async function loadCalc(id: number, transaction?: Transaction): Promise<Calc> {

@@ -3,7 +3,7 @@ import { Calc, Finding, Project, Revision, RuleSetRecord, Signature, User } from
 
 /** Associations every revision read needs, loaded in one query. */
 export const REVISION_INCLUDE = [
-  { model: RuleSetRecord, as: 'ruleSet', attributes: ['id', 'code', 'version', 'title', 'contentHash', 'document'] },
+  { model: RuleSetRecord, as: 'ruleSet', attributes: ['id', 'code', 'version', 'title', 'contentHash', 'document', 'lockVersion'] },
   { model: User, as: 'author', attributes: ['id', 'displayName'] },
   { model: User, as: 'checker', attributes: ['id', 'displayName'] },
   { model: User, as: 'approver', attributes: ['id', 'displayName'] },
@@ -42,6 +42,8 @@ export function toFindingDto(f: Finding, names: Map<number, string>): FindingDto
 }
 
 export interface RevisionParts {
+  /** The stored result with its units and formulas put back (server/calcs/stored-result.ts). */
+  result: unknown | null;
   signatures: Signature[]; findings: Finding[]; names: Map<number, string>; editorIds: number[]; currentHashes: Map<number, string | null>;
   inputIssues: RevisionDto['inputIssues'];
 }
@@ -49,7 +51,7 @@ export interface RevisionParts {
 export function toRevisionDto(r: Loaded, parts: RevisionParts): RevisionDto {
   return {
     ...toRevisionSummary(r), calcId: r.calcId, lockVersion: r.lockVersion,
-    input: JSON.parse(r.input), result: r.result ? JSON.parse(r.result) : null, checklist: r.checklist ? JSON.parse(r.checklist) : null,
+    input: JSON.parse(r.input), result: parts.result, checklist: r.checklist ? JSON.parse(r.checklist) : null,
     inputIssues: parts.inputIssues, manualItems: JSON.parse(r.manualItems) as Record<string, ManualItemState>,
     contentHash: r.contentHash, contentFormat: r.contentFormat ?? 1, signatures: parts.signatures.map((s) => toSignatureDto(s, parts.currentHashes)),
     findings: parts.findings.map((f) => toFindingDto(f, parts.names)),
@@ -61,6 +63,7 @@ export function toCalcDto(calc: Calc & { Project?: Project }, revisions: Loaded[
   const summaries = revisions.map(toRevisionSummary).sort((a, b) => a.seq - b.seq);
   return {
     id: calc.id, projectId: calc.projectId, projectCode: calc.Project?.code ?? '', projectName: calc.Project?.name ?? '',
+    projectArchived: calc.Project?.status === 'archived',
     number: calc.number, title: calc.title, partRef: calc.partRef, createdAt: calc.createdAt.toISOString(),
     latest: summaries[summaries.length - 1], revisions: summaries,
   };

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { idParamsSchema } from '../../shared/schemas/common.schema';
+import { decimalId, idParamsSchema } from '../../shared/schemas/common.schema';
 import { calcListQuerySchema, createCalcSchema, newRevisionSchema } from '../../shared/schemas/revision.schema';
 import { validate } from '../http/validate';
 import { signedInActor } from '../authz/actor';
@@ -10,8 +10,8 @@ import { listCalcs } from './calc-list';
 import { diffRevisions } from './revision-history';
 
 const diffQuerySchema = z.object({
-  from: z.coerce.number({ error: 'must be a revision id' }).int().positive(),
-  to: z.coerce.number({ error: 'must be a revision id' }).int().positive(),
+  from: decimalId('a revision id'),
+  to: decimalId('a revision id'),
 });
 
 export function calcsRouter(calcs: CalcsService, lifecycle: LifecycleService): Router {

@@ -15,6 +15,10 @@ import { currentHashOf, readRevision } from './revision-read';
 import { jsonDiff } from './content-diff';
 import { revisionLabel } from './revision-label';
 import { outcomeOf } from '../../shared/schemas/outcome';
+import { stringifyFinite } from '../../shared/json/finite-json';
+import { assertProjectOpen } from '../projects/project-open';
+import { runTransaction } from '../db/transaction';
+import { compactResult, registerEngineMetadata } from './stored-result';
 
 /** Calcs and the content of their revisions. Workflow transitions live in server/workflow. */
 export class CalcsService {
@@ -24,7 +28,11 @@ export class CalcsService {
     ForbiddenError.from(ability).throwUnlessCan('read', 'Calc');
     const calc = await Calc.findByPk(id, { include: [Project] });
     if (!calc) throw AppError.notFound(`Calc ${id}`);
-    const revisions = await Revision.findAll({ where: { calcId: id }, include: REVISION_INCLUDE });
+    // The history lists revisions: their input, result and checklist texts stay in the database.
+    const revisions = await Revision.findAll({
+      where: { calcId: id }, attributes: { exclude: ['input', 'result', 'checklist', 'manualItems', 'outcome'] },
+      include: REVISION_INCLUDE.map((i) => (i.as === 'ruleSet' ? { ...i, attributes: ['id', 'code', 'version', 'title'] } : i)),
+    });
     return toCalcDto(calc, revisions);
   }
 
@@ -42,7 +50,7 @@ export class CalcsService {
       throw new AppError('conflict', 409, `Calc number ${dto.number} is already used in ${project.code}`, { fieldErrors: { number: ['is already used in this project'] } });
     }
     const computed = await computeRecord(dto.input, doc);
-    const calcId = await this.sequelize.transaction(async (transaction) => {
+    const calcId = await runTransaction(this.sequelize, async (transaction) => {
       const calc = await Calc.create({ projectId: project.id, number: dto.number, title: dto.title, partRef: dto.partRef, createdBy: actor.id }, { transaction });
       const revision = await Revision.create({
         calcId: calc.id, seq: 0, label: revisionLabel(project.revisionScheme, 0), authorId: actor.id, ruleSetId: record.id,
@@ -61,8 +69,11 @@ export class CalcsService {
 
   /** Saves the author's input. A stale `lockVersion` is a 409 carrying the stored version, never an overwrite. */
   async save(ability: AppAbility, actor: Actor & { id: number }, revisionId: number, dto: SaveRevisionRequest): Promise<RevisionDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction, attempt) => {
       const revision = await loadRevision(revisionId, transaction);
+      // A run after a COMMIT whose answer was lost: this exact save is already stored.
+      if (attempt > 1 && revision.lockVersion === dto.lockVersion + 1 && revision.input === JSON.stringify(dto.input)) return;
+      await assertProjectOpen(revision.calcId, transaction);
       if (!EDITABLE_STATES.includes(revision.status)) {
         throw new AppError('read_only', 409, `Revision ${revision.label} is ${revision.status.replace('_', ' ')} and cannot be edited; start a new revision to change it`);
       }
@@ -88,12 +99,13 @@ export class CalcsService {
         payload: { calcId: revision.calcId, revision: revision.label, lockVersion: revision.lockVersion, verdict: revision.verdict, ruleSet: `${record.code} v${record.version}` },
         diff,
       }, transaction);
-    });
+    }, { idempotent: true });
     return readRevision(ability, revisionId);
   }
 
   async refreshHash(revision: Revision, transaction: Transaction): Promise<void> {
     if (!revision.ruleSet) await revision.reload({ include: REVISION_INCLUDE, transaction });
+    await registerEngineMetadata(this.sequelize);
     // Any edit moves a revision to the current content format (attachments included).
     revision.contentFormat = CONTENT_FORMAT;
     revision.contentHash = await currentHashOf(revision, transaction);
@@ -103,8 +115,8 @@ export class CalcsService {
 
 export function stored(c: Awaited<ReturnType<typeof computeRecord>>) {
   return {
-    result: c.result ? JSON.stringify(c.result) : null,
-    checklist: c.checklist ? JSON.stringify(c.checklist) : null,
+    result: compactResult(c.result),
+    checklist: c.checklist ? stringifyFinite(c.checklist) : null,
     verdict: c.verdict,
     outcome: JSON.stringify(outcomeOf(c.checklist)),
   };

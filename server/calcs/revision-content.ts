@@ -1,8 +1,9 @@
 import { createHash } from 'node:crypto';
 import canonicalize from 'canonicalize';
-import { ENGINE_VERSION, evaluateValidInput, validateCalcInput, type CalcInput, type CalcResult } from '../../shared/engine';
+import { CalcInputError, ENGINE_VERSION, evaluateValidInput, validateCalcInput, type CalcInput, type CalcResult } from '../../shared/engine';
 import { applyRuleSetMethods, evaluateChecklist, type Checklist, type RuleSet } from '../../shared/rules';
 import type { InputIssue } from '../../shared/schemas/calc-dto';
+import { nonFinitePath } from '../../shared/json/finite-json';
 
 /** What the server stores as the record of truth for a revision's content. */
 export interface ComputedRecord {
@@ -22,12 +23,34 @@ export async function computeRecord(input: unknown, ruleSet: RuleSet): Promise<C
   const effective: CalcInput = applyRuleSetMethods(validated.value, ruleSet);
   try {
     const result = evaluateValidInput(effective);
+    const inResult = nonFinitePath(result);
+    if (inResult !== null) return notComputable(`result.${inResult}`);
     const checklist = await evaluateChecklist(effective, result, ruleSet);
+    const inChecklist = nonFinitePath(checklist);
+    if (inChecklist !== null) return notComputable(`checklist.${inChecklist}`);
     return { result, checklist, verdict: checklist.verdict, inputIssues: [] };
   } catch (err) {
+    // The engine's own non-finite backstop names the input entry; keep its paths.
+    if (err instanceof CalcInputError) return { result: null, checklist: null, verdict: null, inputIssues: err.issues };
     const message = err instanceof Error ? err.message : String(err);
     return { result: null, checklist: null, verdict: null, inputIssues: [{ path: '', message: `could not be evaluated: ${message}` }] };
   }
+}
+
+// result.segments[2].J → segments[2]: the input entry whose values led there.
+const INPUT_ENTRY = /^result\.(segments|features|torques)\[(\d+)\]/;
+
+/**
+ * A result holding Infinity or NaN is no result: stored, it would read as null ("no load here")
+ * and clauses on it as "not applicable", so a shaft that cannot be computed could pass. The input
+ * is kept (autosave) with an issue naming where the calculation left the range of numbers.
+ */
+function notComputable(where: string): ComputedRecord {
+  const entry = INPUT_ENTRY.exec(where);
+  return {
+    result: null, checklist: null, verdict: null,
+    inputIssues: [{ path: entry ? `${entry[1]}[${entry[2]}]` : '', message: `gives a value that is not a finite number (${where}); the input is outside the range the calculation can handle, so nothing was evaluated` }],
+  };
 }
 
 /** Content format 1 hashed no attachments; format 2 (every signature since) adds the attachment set. */

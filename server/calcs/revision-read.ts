@@ -1,47 +1,68 @@
 import { ForbiddenError } from '@casl/ability';
 import { Op, type Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
-import type { RevisionDto } from '../../shared/schemas/calc-dto';
+import type { InputIssue, RevisionDto } from '../../shared/schemas/calc-dto';
 import { validateCalcInput } from '../../shared/engine';
 import { Attachment, Calc, Finding, Project, Revision, Signature, User } from '../db/models';
 import { toRevisionDto } from './calc-mapping';
 import { editorIdsOf, loadRevision } from './calc-access';
-import { contentHashOf, hashedContentOf } from './revision-content';
+import { computeRecord, contentHashOf, hashedContentOf } from './revision-content';
+import { parseRuleSet } from '../rule-sets/rule-set-cache';
+import { expandResult } from './stored-result';
 
-/** The stored content hashed in one format (default: the revision's own), attachments as stored now. */
-export async function currentHashOf(revision: Revision, transaction?: Transaction, format = revision.contentFormat ?? 1): Promise<string | null> {
+/**
+ * Recomputes the content hash from what is stored now, so tampering shows as a broken signature.
+ * The hash covers the result as the engine returned it, with its units and formulas put back, and
+ * (format 2, the default for the revision's own format) the attachment set as stored now.
+ */
+export async function currentHashOf(revision: Revision, transaction?: Transaction, result?: unknown, format = revision.contentFormat ?? 1): Promise<string | null> {
   if (!revision.result || !revision.checklist) return null;
-  const calc = await Calc.findByPk(revision.calcId, { include: [Project], transaction }) as Calc & { Project: Project };
-  const attachments = format >= 2 ? await Attachment.findAll({ where: { revisionId: revision.id }, transaction }) : [];
-  return contentHashOf(hashedContentOf(calc, revision.label, JSON.parse(revision.input), JSON.parse(revision.result), JSON.parse(revision.checklist), revision.ruleSet, format, attachments));
+  const [calc, expanded, attachments] = await Promise.all([
+    Calc.findByPk(revision.calcId, { include: [Project], attributes: ['id', 'number', 'title', 'partRef', 'projectId'], transaction }) as Promise<Calc & { Project: Project }>,
+    result ?? expandResult(Revision.sequelize!, revision.result, transaction),
+    format >= 2 ? Attachment.findAll({ where: { revisionId: revision.id }, transaction }) : [],
+  ]);
+  return contentHashOf(hashedContentOf(calc, revision.label, JSON.parse(revision.input), expanded, JSON.parse(revision.checklist), revision.ruleSet, format, attachments));
 }
 
 /**
  * The current hash in every format a signature of this revision was made in, so each signature
  * is judged by the content it covered: tampering or a changed attachment set shows as broken.
  */
-export async function currentHashesOf(revision: Revision, signatures: readonly Signature[], transaction?: Transaction): Promise<Map<number, string | null>> {
+export async function currentHashesOf(revision: Revision, signatures: readonly Signature[], transaction?: Transaction, result?: unknown): Promise<Map<number, string | null>> {
   const formats = new Set([revision.contentFormat ?? 1, ...signatures.map((s) => s.contentFormat ?? 1)]);
   const hashes = new Map<number, string | null>();
-  for (const f of formats) hashes.set(f, await currentHashOf(revision, transaction, f));
+  for (const f of formats) hashes.set(f, await currentHashOf(revision, transaction, result, f));
   return hashes;
 }
 
 export async function readRevision(ability: AppAbility, id: number, transaction?: Transaction): Promise<RevisionDto> {
   const revision = await loadRevision(id, transaction);
   ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
+  const result = await expandResult(Revision.sequelize!, revision.result, transaction);
   const [signatures, findings, editorIds] = await Promise.all([
     Signature.findAll({ where: { revisionId: id }, order: [['signedAt', 'ASC']], transaction }),
     Finding.findAll({ where: { revisionId: id }, order: [['id', 'ASC']], transaction }),
     editorIdsOf(revision.calcId, transaction),
   ]);
-  const currentHashes = await currentHashesOf(revision, signatures, transaction);
+  const currentHashes = await currentHashesOf(revision, signatures, transaction, result);
   const userIds = new Set(findings.flatMap((f) => [f.raisedBy, f.answeredBy, f.closedBy]).filter((v): v is number => v != null));
   const users = userIds.size ? await User.findAll({ where: { id: { [Op.in]: [...userIds] } }, attributes: ['id', 'displayName'], transaction }) : [];
-  const validated = validateCalcInput(JSON.parse(revision.input));
   return toRevisionDto(revision, {
-    signatures, findings, editorIds, currentHashes,
+    result, signatures, findings, editorIds, currentHashes,
     names: new Map(users.map((u) => [u.id, u.displayName])),
-    inputIssues: validated.ok ? [] : validated.issues,
+    inputIssues: await inputIssuesOf(revision),
   });
+}
+
+/**
+ * Why a revision has no result. Valid input without a stored result could not be evaluated (a
+ * value outside what the calculation can handle): evaluate again, rarely, to name where.
+ */
+async function inputIssuesOf(revision: Revision): Promise<InputIssue[]> {
+  const input: unknown = JSON.parse(revision.input);
+  const validated = validateCalcInput(input);
+  if (!validated.ok) return validated.issues;
+  if (revision.result !== null || !revision.ruleSet) return [];
+  return (await computeRecord(input, parseRuleSet(revision.ruleSet))).inputIssues;
 }

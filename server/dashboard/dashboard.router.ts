@@ -1,11 +1,17 @@
 import { Router } from 'express';
 import { Op } from 'sequelize';
+import { z } from 'zod';
+import { QUEUE_KEYS, type QueueKey } from '../../shared/schemas/queue.schema';
 import type { DashboardDto, WaitingItem } from '../../shared/schemas/dashboard.schema';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import { Project, RuleSetRecord, User } from '../db/models';
 import { accessibleWhere } from '../authz/accessible-where';
 import { listAudit } from '../audit/audit.router';
-import { queuesOf } from './queues';
+import { queueKeysOf, queuePage, queueQuerySchema, queuesOf } from './queues';
+import { validate } from '../http/validate';
+import { AppError } from '../errors/app-error';
+
+const queueParamsSchema = z.object({ key: z.enum(QUEUE_KEYS, { error: 'is not a queue' }) });
 
 /** Draft standards someone else proposed, waiting for this compliance person's confirmation. */
 async function standardsToConfirm(ability: AppAbility, userId: number): Promise<WaitingItem[]> {
@@ -38,8 +44,13 @@ export function dashboardRouter(): Router {
   router.get('/', async (req, res) => {
     res.json(await dashboardFor(req.ability, req.user!.id));
   });
-  router.get('/queues', async (req, res) => {
-    res.json(await queuesOf(req.user!));
+  router.get('/queues', validate({ query: queueQuerySchema }), async (req, res) => {
+    res.json(await queuesOf(req.user!, res.locals.query));
+  });
+  router.get('/queues/:key', validate({ params: queueParamsSchema, query: queueQuerySchema }), async (req, res) => {
+    const key = req.params.key as QueueKey;
+    if (!queueKeysOf(req.user!).includes(key)) throw new AppError('forbidden', 403, 'This queue belongs to another role');
+    res.json(await queuePage(req.user!, key, res.locals.query));
   });
   return router;
 }

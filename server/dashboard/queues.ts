@@ -1,43 +1,74 @@
-import { Op, literal, type WhereOptions } from 'sequelize';
+import { QueryTypes } from 'sequelize';
+import { z } from 'zod';
 import type { SessionUser } from '../../shared/schemas/auth.schema';
-import { QUEUE_LABELS, type QueueDto, type QueueItem, type QueueKey } from '../../shared/schemas/queue.schema';
-import { Calc, Project, Revision, User } from '../db/models';
+import { cursorSchema } from '../../shared/schemas/common.schema';
+import { QUEUE_KEYS, QUEUE_LABELS, type QueueDto, type QueueItem, type QueueKey } from '../../shared/schemas/queue.schema';
+import type { RevisionState } from '../../shared/schemas/revision.schema';
+import { Calc } from '../db/models';
+import { cappedCount, decodeCursor, encodeCursor, keysetCondition, type KeyColumn } from '../http/keyset';
 
-// Only each calc's newest revision can be waiting for anyone.
-const LATEST = literal('`Revision`.`seq` = (SELECT MAX(r2.seq) FROM revisions r2 WHERE r2.calc_id = `Revision`.`calc_id`)');
-const notEditedBy = (userId: number) =>
-  literal(`NOT EXISTS (SELECT 1 FROM calc_editors e WHERE e.calc_id = \`Revision\`.\`calc_id\` AND e.user_id = ${Number(userId)})`);
+export const queueQuerySchema = z.object({
+  size: z.coerce.number().int().min(1).max(500).default(50),
+  after: cursorSchema,
+});
+export type QueueQuery = z.infer<typeof queueQuerySchema>;
 
-function queuesFor(user: SessionUser): Partial<Record<QueueKey, WhereOptions<Revision>>> {
-  const q: Partial<Record<QueueKey, WhereOptions<Revision>>> = {};
-  if (user.roles.includes('author')) {
-    q['my-drafts'] = { authorId: user.id, status: 'draft' };
-    q['returned-to-me'] = { authorId: user.id, status: 'returned' };
+// A queue is a filter on the calcs' summary columns (only a calc's newest revision can wait for anyone),
+// oldest first by when it entered its state; indexes calcs_author_state and calcs_state_since serve them.
+const KEY: KeyColumn[] = [{ sql: 'c.latest_since', isDate: true }, { sql: 'c.id' }];
+const NOT_EDITED_BY = 'NOT EXISTS (SELECT 1 FROM calc_editors e WHERE e.calc_id = c.id AND e.user_id = ?)';
+// A queue waiting on many people is counted only this far ("more than 1,000").
+const QUEUE_COUNT_CAP = 1_000;
+
+function filterOf(key: QueueKey, userId: number): { sql: string; params: unknown[] } {
+  switch (key) {
+    case 'my-drafts': return { sql: "c.latest_author_id = ? AND c.latest_status = 'draft'", params: [userId] };
+    case 'returned-to-me': return { sql: "c.latest_author_id = ? AND c.latest_status = 'returned'", params: [userId] };
+    case 'awaiting-my-check': return { sql: `c.latest_status = 'in_check' AND ${NOT_EDITED_BY}`, params: [userId] };
+    case 'awaiting-my-approval': return { sql: `c.latest_status = 'checked' AND c.latest_checker_id <> ? AND ${NOT_EDITED_BY}`, params: [userId, userId] };
   }
-  if (user.roles.includes('checker')) q['awaiting-my-check'] = { status: 'in_check', [Op.and]: [notEditedBy(user.id)] };
-  if (user.roles.includes('approver')) {
-    q['awaiting-my-approval'] = { status: 'checked', checkerId: { [Op.ne]: user.id }, [Op.and]: [notEditedBy(user.id)] };
-  }
-  return q;
 }
 
-function toItem(r: Revision & { Calc: Calc & { Project: Project }; author: User }): QueueItem {
-  const since = r.status === 'in_check' ? r.submittedAt : r.status === 'checked' ? r.checkedAt : r.updatedAt;
+const ROLE_OF: Record<QueueKey, string> = {
+  'my-drafts': 'author', 'returned-to-me': 'author', 'awaiting-my-check': 'checker', 'awaiting-my-approval': 'approver',
+};
+
+export const queueKeysOf = (user: SessionUser): QueueKey[] => QUEUE_KEYS.filter((k) => user.roles.includes(ROLE_OF[k] as never));
+
+interface Row {
+  id: number; latest_revision_id: number; project_code: string; number: string; title: string; latest_label: string;
+  latest_status: RevisionState; latest_verdict: string | null; author_name: string; latest_since: Date;
+}
+
+const toItem = (r: Row): QueueItem => ({
+  calcId: r.id, revisionId: r.latest_revision_id, projectCode: r.project_code, number: r.number, title: r.title,
+  revision: r.latest_label, status: r.latest_status, verdict: r.latest_verdict, authorName: r.author_name,
+  since: new Date(r.latest_since).toISOString(),
+});
+
+/** One page of one queue, oldest first; counted (up to a cap) only on its first page. */
+export async function queuePage(user: SessionUser, key: QueueKey, query: QueueQuery): Promise<QueueDto> {
+  const sequelize = Calc.sequelize!;
+  const filter = filterOf(key, user.id);
+  const keyset = query.after ? keysetCondition(KEY, decodeCursor(query.after, KEY), 'asc') : { sql: 'TRUE', replacements: [] };
+  const [rows, counted] = await Promise.all([
+    sequelize.query<Row>(
+      `SELECT c.id, c.latest_revision_id, c.project_code, c.number, c.title, c.latest_label, c.latest_status, c.latest_verdict,
+        c.author_name, c.latest_since FROM calcs c WHERE ${filter.sql} AND ${keyset.sql}
+        ORDER BY c.latest_since ASC, c.id ASC LIMIT ${query.size + 1}`,
+      { replacements: [...filter.params, ...keyset.replacements], type: QueryTypes.SELECT },
+    ),
+    query.after ? null : cappedCount(sequelize, `FROM calcs c WHERE ${filter.sql}`, filter.params, QUEUE_COUNT_CAP),
+  ]);
+  const items = rows.slice(0, query.size);
+  const last = items[items.length - 1];
   return {
-    calcId: r.calcId, revisionId: r.id, projectCode: r.Calc.Project.code, number: r.Calc.number, title: r.Calc.title,
-    revision: r.label, status: r.status, verdict: r.verdict, authorName: r.author.displayName, since: (since ?? r.updatedAt).toISOString(),
+    key, label: QUEUE_LABELS[key], items: items.map(toItem), total: counted?.total ?? null, totalIsAtLeast: counted?.totalIsAtLeast ?? false, size: query.size,
+    next: rows.length > query.size ? encodeCursor([new Date(last.latest_since).toISOString(), last.id]) : null,
   };
 }
 
-/** What waits for this person, oldest first, per queue their roles give them. */
-export async function queuesOf(user: SessionUser): Promise<QueueDto[]> {
-  const entries = Object.entries(queuesFor(user)) as [QueueKey, WhereOptions<Revision>][];
-  return Promise.all(entries.map(async ([key, where]) => {
-    const rows = await Revision.findAll({
-      where: { [Op.and]: [LATEST, where] },
-      include: [{ model: Calc, include: [Project] }, { model: User, as: 'author', attributes: ['id', 'displayName'] }],
-      order: [['updatedAt', 'ASC']], limit: 500,
-    });
-    return { key, label: QUEUE_LABELS[key], items: rows.map((r) => toItem(r as never)) };
-  }));
+/** The first page of every queue this person's roles give them. */
+export async function queuesOf(user: SessionUser, query: QueueQuery): Promise<QueueDto[]> {
+  return Promise.all(queueKeysOf(user).map((key) => queuePage(user, key, { size: query.size })));
 }

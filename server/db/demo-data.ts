@@ -12,6 +12,8 @@ export const DEMO_USERS: { username: string; displayName: string; email: string;
   { username: 'checker', displayName: 'Tobias Okafor', email: 't.okafor@kestrelfen.example', roles: ['checker'] },
   { username: 'approver', displayName: 'Ingrid Lindqvist', email: 'i.lindqvist@kestrelfen.example', roles: ['approver'] },
   { username: 'compliance', displayName: 'Priya Raman', email: 'p.raman@kestrelfen.example', roles: ['compliance'] },
+  // A second compliance officer: a standard change is proposed by one and confirmed by another, without admin help.
+  { username: 'compliance2', displayName: 'Nell Ashdown', email: 'n.ashdown@kestrelfen.example', roles: ['compliance'] },
   { username: 'admin', displayName: 'Dale Fenwick', email: 'd.fenwick@kestrelfen.example', roles: ['admin'] },
   { username: 'senior', displayName: 'Owen Marsh', email: 'o.marsh@kestrelfen.example', roles: ['author', 'checker'] },
 ];

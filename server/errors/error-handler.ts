@@ -3,6 +3,9 @@ import { ForbiddenError } from '@casl/ability';
 import { UniqueConstraintError, ValidationError, OptimisticLockError } from 'sequelize';
 import { AppError } from './app-error';
 import { logger } from '../logger';
+import { addFieldError } from '../http/validate';
+import { classifyDbError } from '../db/db-errors';
+import { unavailable } from '../db/transaction';
 
 /** JSON 404 for unknown API routes, so clients never receive the app's HTML for a typo. */
 export const apiNotFound: RequestHandler = (req, res) => {
@@ -24,9 +27,16 @@ function toAppError(err: unknown): AppError | undefined {
   }
   if (err instanceof ValidationError) {
     const fieldErrors: Record<string, string[]> = {};
-    for (const item of err.errors) (fieldErrors[item.path ?? 'record'] ??= []).push(item.message);
+    for (const item of err.errors) addFieldError(fieldErrors, item.path ?? 'record', item.message);
     return AppError.validation(fieldErrors);
   }
+  // The router cannot percent-decode a path such as /%c0%ae: the path, not the server, is at fault.
+  if (err instanceof URIError) {
+    return new AppError('bad_path', 400, 'The address is not valid: it holds a bad percent-encoding', { fieldErrors: { path: ['has a bad percent-encoding'] } });
+  }
+  // A database that deadlocked, timed out or is changing over (outside a retried transaction, e.g.
+  // a read or the session store) is a clean 503 the client may retry, never a 500.
+  if (classifyDbError(err)) return unavailable(err);
   // body-parser marks malformed JSON and oversized bodies with a status and `expose`.
   const e = err as { status?: number; expose?: boolean; type?: string; code?: string; message?: string };
   if (e && typeof e.status === 'number' && e.status < 500 && e.expose) {
@@ -40,6 +50,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, next) => {
   if (res.headersSent) return next(err);
   const known = toAppError(err);
   if (known) {
+    if (known.status === 503) res.set('Retry-After', String(known.details?.retryAfterSeconds ?? 1));
     res.status(known.status).json({ code: known.code, message: known.message, ...known.details });
     return;
   }

@@ -1,22 +1,27 @@
 import type { PackCheck } from '../../shared/schemas/verify.schema';
-import { chainHash, type ChainedContent } from '../audit/audit-chain';
-import { contentHash, sha256, RECORD_FORMAT, type RecordAttachment } from './record-json';
-import { attachmentListCheck, signatureCheck, type PackSignature } from './signature-checks';
+import { chainHash } from '../audit/audit-chain';
+import { contentHash, sha256 } from './record-json';
+import { auditTrailSchema, manifestSchema, packRecordSchema, readPackJson, type Manifest, type PackRecord } from './pack-schema';
 
-export const MANIFEST_FORMAT = 'torquetrail-evidence/1';
-
-export interface Manifest { format: string; calc: string; exportedAt: string; exportedBy: string; files: { path: string; sha256: string; size: number }[] }
-export interface PackRecord { format: string; contentHash: string | null; content: Record<string, unknown>; signatures: PackSignature[]; attachments: RecordAttachment[] }
-type AuditRow = ChainedContent & { id: number; prevHash: string; hash: string };
+export { MANIFEST_FORMAT, type Manifest, type PackRecord } from './pack-schema';
+import { attachmentListCheck, signatureCheck } from './signature-checks';
 
 const SEAL_FILES = new Set(['manifest.json', 'manifest.sha256']);
 
-export function parse<T>(files: Map<string, Buffer>, name: string): T | null {
-  try {
-    return JSON.parse(files.get(name)?.toString('utf8') ?? 'null') as T | null;
-  } catch {
-    return null;
-  }
+/** The records a manifest lists, in its order. */
+export const recordPaths = (manifest: Manifest): string[] =>
+  manifest.files.map((f) => f.path).filter((p) => p.endsWith('/record.json'));
+
+/** A record file of the pack, or null when it is missing or does not fit the record schema. */
+export function packRecord(files: Map<string, Buffer>, path: string): PackRecord | null {
+  const read = readPackJson(files, path, packRecordSchema);
+  return read.ok ? read.value : null;
+}
+
+/** The hashes of the pack's audit rows (none when the trail is unreadable). */
+export function auditHashes(files: Map<string, Buffer>): string[] {
+  const read = readPackJson(files, 'audit-trail.json', auditTrailSchema);
+  return read.ok ? read.value.events.map((e) => e.hash) : [];
 }
 
 function fileChecks(files: Map<string, Buffer>, manifest: Manifest): PackCheck[] {
@@ -34,16 +39,17 @@ function fileChecks(files: Map<string, Buffer>, manifest: Manifest): PackCheck[]
 }
 
 function recordChecks(files: Map<string, Buffer>, path: string): PackCheck[] {
-  const record = parse<PackRecord>(files, path);
-  if (!record || record.format !== RECORD_FORMAT) return [{ name: path, ok: false, detail: 'is not a Torquetrail record' }];
+  const read = readPackJson(files, path, packRecordSchema);
+  if (!read.ok) return [{ name: path, ok: false, detail: `is not a Torquetrail record: ${read.detail}` }];
+  const record = read.value;
   const checks: PackCheck[] = [];
   if (record.contentHash) {
-    const ok = contentHash(record.content) === record.contentHash;
+    const actual = contentHash(record.content);
+    const ok = actual === record.contentHash;
     checks.push({ name: `${path} content`, ok, detail: ok ? 'recomputed content hash equals the record hash' : 'recomputed content hash differs: the record content was changed' });
-    // A hand-edited record may hold anything: judge what is there, never throw.
-    const content = record.content && typeof record.content === 'object' ? record.content : {};
-    checks.push(...attachmentListCheck(path, content, Array.isArray(record.attachments) ? record.attachments : []));
-    for (const s of Array.isArray(record.signatures) ? record.signatures : []) checks.push(signatureCheck(path, record.contentHash, content, s));
+    checks.push(...attachmentListCheck(path, record.content, record.attachments));
+    // A signature holds only for the content actually in the pack: over altered content every mark is a failure.
+    for (const s of record.signatures) checks.push(signatureCheck(path, record.contentHash, actual, record.content, s));
   }
   for (const a of record.attachments) {
     const data = files.get(a.path);
@@ -54,29 +60,32 @@ function recordChecks(files: Map<string, Buffer>, path: string): PackCheck[] {
 }
 
 function auditChecks(files: Map<string, Buffer>): PackCheck[] {
-  const trail = parse<{ events: AuditRow[] }>(files, 'audit-trail.json');
-  if (!trail || !Array.isArray(trail.events)) return [{ name: 'audit-trail.json', ok: false, detail: 'missing or unreadable' }];
-  const broken = trail.events.filter(({ id: _id, prevHash, hash, ...content }) => chainHash(prevHash, content) !== hash);
+  const read = readPackJson(files, 'audit-trail.json', auditTrailSchema);
+  if (!read.ok) return [{ name: 'audit-trail.json', ok: false, detail: `missing or unreadable: ${read.detail}` }];
+  const events = read.value.events;
+  const broken = events.filter(({ id: _id, prevHash, hash, ...content }) => chainHash(prevHash, content) !== hash);
   return [{
     name: 'audit-trail.json', ok: broken.length === 0,
-    detail: broken.length === 0 ? `${trail.events.length} rows; every row's hash recomputes` : `rows ${broken.map((r) => r.id).join(', ')} do not match their hashes`,
+    detail: broken.length === 0 ? `${events.length} rows; every row's hash recomputes` : `rows ${broken.map((r) => r.id).join(', ')} do not match their hashes`,
   }];
 }
 
 /**
  * Checks a pack on its own, without the database: manifest seal, every file against the
  * manifest, each record's content against its hash, attachments, and the audit rows' hashes.
+ * Every file is schema-checked first (pack-schema.ts), so a crafted pack fails checks, never throws.
  */
 export function verifyPackFiles(files: Map<string, Buffer>): { manifest: Manifest | null; sealHash: string | null; checks: PackCheck[] } {
-  const manifest = parse<Manifest>(files, 'manifest.json');
-  if (!manifest || manifest.format !== MANIFEST_FORMAT || !Array.isArray(manifest.files)) {
-    return { manifest: null, sealHash: null, checks: [{ name: 'manifest.json', ok: false, detail: 'missing or not a Torquetrail evidence manifest' }] };
+  const read = readPackJson(files, 'manifest.json', manifestSchema);
+  if (!read.ok) {
+    return { manifest: null, sealHash: null, checks: [{ name: 'manifest.json', ok: false, detail: `missing or not a Torquetrail evidence manifest: ${read.detail}` }] };
   }
+  const manifest = read.value;
   const sealHash = sha256(files.get('manifest.json')!);
   const written = files.get('manifest.sha256')?.toString('utf8').trim();
   const checks: PackCheck[] = [{ name: 'manifest.sha256', ok: written === sealHash, detail: written === sealHash ? 'matches manifest.json' : 'does not match manifest.json' }];
   checks.push(...fileChecks(files, manifest));
-  for (const f of manifest.files.filter((x) => x.path.endsWith('/record.json'))) checks.push(...recordChecks(files, f.path));
+  for (const path of recordPaths(manifest)) checks.push(...recordChecks(files, path));
   checks.push(...auditChecks(files));
   return { manifest, sealHash, checks };
 }

@@ -10,6 +10,7 @@ import { ReportService } from '../reports/report.service';
 import { reportRouter } from '../reports/report.router';
 import { verifyRouter } from '../verify/verify.router';
 import { EvidenceService } from './evidence.service';
+import { WorkPool } from '../workers/work-pool';
 import { evidenceRouter } from './evidence.router';
 
 const MB = 1024 * 1024;
@@ -23,7 +24,8 @@ export function recordsRouters(sequelize: Sequelize, config: Config): [string, R
   const baseUrl = config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}`;
   const store = new ObjectStore(config);
   const attachments = new AttachmentsService(sequelize, store, Math.round(config.ATTACHMENT_MAX_MB * MB));
-  const reports = new ReportService(config.REPORT_FONT_DIR);
+  const work = new WorkPool({ threads: config.WORK_THREADS, memoryMb: config.WORK_MEMORY_MB, queue: config.WORK_QUEUE });
+  const reports = new ReportService(config.REPORT_FONT_DIR, work);
   const evidence = new EvidenceService(sequelize, store, reports);
   return [
     ['/api/mail', mailRouter(sequelize, new SentMailService(config.MAIL_FROM, config.SENT_MAIL_SCREEN))],
@@ -31,6 +33,6 @@ export function recordsRouters(sequelize: Sequelize, config: Config): [string, R
     ['/api/revisions', reportRouter(reports, config.ORG_NAME, baseUrl)],
     ['/api/attachments', attachmentsRouter(attachments)],
     ['/api/calcs', evidenceRouter(evidence, config.ORG_NAME, baseUrl)],
-    ['/api/verify', verifyRouter(Math.round(config.EVIDENCE_PACK_MAX_MB * MB))],
+    ['/api/verify', verifyRouter(Math.round(config.EVIDENCE_PACK_MAX_MB * MB), work)],
   ];
 }

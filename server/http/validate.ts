@@ -12,15 +12,23 @@ function pathOf(path: readonly PropertyKey[], prefix: string): string {
   );
 }
 
-export function zodFieldErrors(error: z.ZodError, prefix = ''): FieldErrors {
-  const out: FieldErrors = {};
+/**
+ * Adds a message under a path the client chose (a key such as `__proto__` or `constructor` is an
+ * own property here, never a lookup on Object.prototype).
+ */
+export function addFieldError(out: FieldErrors, path: string, message: string): void {
+  if (Object.hasOwn(out, path)) out[path].push(message);
+  else Object.defineProperty(out, path, { value: [message], enumerable: true, writable: true, configurable: true });
+}
+
+export function zodFieldErrors(error: z.ZodError, prefix = '', out: FieldErrors = {}): FieldErrors {
   for (const issue of error.issues) {
     // A strict schema reports unknown fields as one issue on their parent; name each field instead.
     if (issue.code === 'unrecognized_keys') {
-      for (const key of issue.keys) (out[pathOf([...issue.path, key], prefix)] ??= []).push('is not an accepted field');
+      for (const key of issue.keys) addFieldError(out, pathOf([...issue.path, key], prefix), 'is not an accepted field');
       continue;
     }
-    (out[pathOf(issue.path, prefix)] ??= []).push(issue.message);
+    addFieldError(out, pathOf(issue.path, prefix), issue.message);
   }
   return out;
 }
@@ -34,7 +42,7 @@ export function validate(schemas: Schemas): RequestHandler {
     const errors: FieldErrors = {};
     for (const part of Object.keys(schemas) as Part[]) {
       const result = schemas[part]!.safeParse(req[part] ?? {});
-      if (!result.success) Object.assign(errors, zodFieldErrors(result.error, part === 'body' ? '' : part));
+      if (!result.success) zodFieldErrors(result.error, part === 'body' ? '' : part, errors);
       else if (part === 'query') res.locals.query = result.data;
       else if (part === 'params') Object.assign(req.params, result.data);
       else req.body = result.data;

@@ -18,7 +18,19 @@ export async function enqueueMail(recipients: string[], mail: HandOverMail, tran
   const unique = await withoutOptedOut([...new Set(recipients.filter(Boolean))], mail.event, transaction);
   if (unique.length === 0) return;
   const now = new Date();
-  await MailOutbox.bulkCreate(unique.map((recipient) => ({ ...mail, recipient, nextAttemptAt: now })), { transaction });
+  const subject = fitSubject(mail.subject);
+  await MailOutbox.bulkCreate(unique.map((recipient) => ({ ...mail, subject, recipient, nextAttemptAt: now })), { transaction });
+}
+
+/** The outbox column and what mail programs show: longer subjects end with "…"; the body always has the full text. */
+export const SUBJECT_MAX = 250;
+
+export function fitSubject(subject: string): string {
+  const chars = [...subject];
+  if (chars.length <= SUBJECT_MAX) return subject;
+  const cut = chars.slice(0, SUBJECT_MAX - 1).join('');
+  const atWord = cut.replace(/\s+\S*$/, '');
+  return `${atWord.length > SUBJECT_MAX - 40 ? atWord : cut}…`;
 }
 
 /** Active people holding a role, except those listed (e.g. the calc's own editors). */

@@ -4,6 +4,7 @@ import type { Role } from '../../shared/authz/roles';
 import { MailPreference, User } from '../db/models';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import type { Sequelize } from 'sequelize';
+import { runTransaction } from '../db/transaction';
 
 /** Each person's choice per mail event. Without a row, the mail is sent. */
 export async function preferencesOf(userId: number, roles: readonly Role[]): Promise<MailPreferenceDto[]> {
@@ -17,7 +18,7 @@ export async function preferencesOf(userId: number, roles: readonly Role[]): Pro
 export async function savePreferences(
   sequelize: Sequelize, actor: Actor & { id: number }, roles: readonly Role[], choices: Partial<Record<MailEvent, boolean>>,
 ): Promise<MailPreferenceDto[]> {
-  await sequelize.transaction(async (transaction) => {
+  await runTransaction(sequelize, async (transaction) => {
     for (const [event, enabled] of Object.entries(choices)) {
       await MailPreference.upsert({ userId: actor.id, event, enabled: enabled === true }, { transaction });
     }

@@ -7,6 +7,7 @@ import { Project } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { accessibleWhere } from '../authz/accessible-where';
 import { appendAudit, type Actor } from '../audit/audit.service';
+import { runTransaction } from '../db/transaction';
 
 export function toProjectDto(p: Project): ProjectDto {
   return {
@@ -40,7 +41,7 @@ export class ProjectsService {
     if (await Project.findOne({ where: { code: dto.code } })) {
       throw new AppError('conflict', 409, `Project code ${dto.code} is already in use`, { fieldErrors: { code: ['is already in use'] } });
     }
-    return this.sequelize.transaction(async (transaction) => {
+    return runTransaction(this.sequelize, async (transaction) => {
       const project = await Project.create({ ...dto, createdBy: actor.id }, { transaction });
       await appendAudit(this.sequelize, actor, { action: 'project.created', entityType: 'Project', entityId: project.id, payload: dto }, transaction);
       return toProjectDto(project);
@@ -48,7 +49,7 @@ export class ProjectsService {
   }
 
   async update(ability: AppAbility, actor: Actor, id: number, dto: UpdateProjectRequest): Promise<ProjectDto> {
-    return this.sequelize.transaction(async (transaction) => {
+    return runTransaction(this.sequelize, async (transaction) => {
       const project = await Project.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
       if (!project) throw AppError.notFound(`Project ${id}`);
       ForbiddenError.from(ability).throwUnlessCan('update', subject('Project', toProjectDto(project)));

@@ -3,7 +3,7 @@ import type { ChecklistRow } from '../../shared/rules';
 import type { ReportData } from './report-data';
 import { FAIL, INK, INK_SOFT, PASS, WARN, paragraph, sectionHeading, subHeading } from './report-doc';
 import { drawTable, type Cell } from './pdf-table';
-import { num } from './front-matter';
+import { formatBeside, formatUtilisation, unitText } from '../../shared/format';
 
 const STATUS: Record<ChecklistRow['status'], { text: string; color: string }> = {
   pass: { text: 'PASS', color: PASS }, fail: { text: 'FAIL', color: FAIL }, 'not-applicable': { text: 'n/a', color: INK_SOFT }, error: { text: 'ERROR', color: FAIL },
@@ -12,11 +12,12 @@ const STATUS: Record<ChecklistRow['status'], { text: string; color: string }> = 
 function row(r: ChecklistRow): Cell[] {
   const status = STATUS[r.status];
   const isAdvisoryFail = r.severity === 'advisory' && r.status === 'fail';
+  // Same rules as the screen: enough digits to show the side of the limit, no unit "1".
+  const pair = formatBeside(r.actual, r.limit);
   return [
     r.reference, r.status === 'fail' || r.status === 'error' ? `${r.clauseTitle} — ${r.message}` : r.clauseTitle, r.location.label,
     { text: status.text, color: isAdvisoryFail ? WARN : status.color, bold: true },
-    r.severity === 'mandatory' ? 'M' : 'A', num(r.actual), num(r.limit), r.unit,
-    r.utilisation === null ? '—' : `${(r.utilisation * 100).toFixed(0)} %`,
+    r.severity === 'mandatory' ? 'M' : 'A', pair.actual, pair.limit, unitText(r.unit), formatUtilisation(r.utilisation),
   ];
 }
 

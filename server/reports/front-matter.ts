@@ -1,8 +1,9 @@
 import { CAUTION, formatNumber } from '../../shared/engine';
 import type { ReportData } from './report-data';
-import { BOLD, CONTENT_WIDTH, COPPER, INK, PAGE, SANS } from './report-doc';
+import { BOLD, CONTENT_WIDTH, COPPER, FAIL, INK, PAGE, PASS, SANS, WARN } from './report-doc';
+import { headlineMark, unitText, type HeadlineOutcome } from '../../shared/format';
 import type { StateMark } from './page-furniture';
-import { drawTable } from './pdf-table';
+import { drawTable, type Cell } from './pdf-table';
 
 export const num = (v: number | null | undefined, digits = 4): string => (v === null || v === undefined || !Number.isFinite(v) ? '—' : formatNumber(v, digits));
 
@@ -27,24 +28,38 @@ export function drawNotices(doc: PDFKit.PDFDocument, d: ReportData, mark: StateM
   boxed(doc, 'Caution', `${CAUTION} This report records a calculation and its review; it does not certify a design.`, COPPER);
 }
 
-/** The few numbers a reviewer looks at first, each with its unit and where it comes from. */
+const MARK: Record<HeadlineOutcome, { text: string; color: string }> = {
+  pass: { text: 'meets', color: PASS }, fail: { text: 'FAILS', color: FAIL }, 'advisory-fail': { text: 'advisory not met', color: WARN }, unchecked: { text: '', color: INK },
+};
+
+/** The few numbers a reviewer looks at first, each with its unit, where it comes from, and the outcome of the clause that judges it. */
 export function drawKeyResults(doc: PDFKit.PDFDocument, d: ReportData): void {
   const r = d.result;
   if (!r) return;
   const f = (k: string) => r.fields[k] ?? { unit: '', formula: '' };
   const at = (v: { at: number } | null) => (v ? `at ${num(v.at)} ${f('at').unit}` : 'no load');
-  const rows: string[][] = [
-    ['Largest shear stress τmax', num(r.maxShear.value), f('tauMax').unit, `segment ${r.maxShear.segment + 1}, from ${num(r.maxShear.at)} ${f('at').unit}`, f('tauMax').formula],
-    ['Twist end to end φ', num(r.twistTotal), f('twistTotal').unit, `over ${num(r.length)} ${f('length').unit}`, f('twistTotal').formula],
-    ['Lowest yield safety n_y', num(r.minYieldSafety?.value ?? null, 3), '–', at(r.minYieldSafety), f('yieldSafety').formula],
+  const figure = (label: string, value: number | null, fact: string, unit: string, where: string, formula: string, sig: number): Cell[] => {
+    const mark = headlineMark(value, fact, d.checklist, d.ruleSet, sig);
+    const judged = mark.outcome === 'unchecked' ? '—' : `${MARK[mark.outcome].text} ${mark.limitText}`;
+    return [label, { text: mark.text, color: MARK[mark.outcome].color, bold: mark.outcome === 'fail' }, unitText(unit),
+      { text: judged, color: MARK[mark.outcome].color, bold: mark.outcome !== 'pass' }, where, formula];
+  };
+  const rows: Cell[][] = [
+    figure('Largest shear stress τmax', r.maxShear.value, 'tauMax', f('tauMax').unit, `segment ${r.maxShear.segment + 1}, from ${num(r.maxShear.at)} ${f('at').unit}`, f('tauMax').formula, 4),
+    figure('Twist end to end φ', r.twistTotal, 'twistTotal', f('twistTotal').unit, `over ${num(r.length)} ${f('length').unit}`, f('twistTotal').formula, 4),
+    figure('Lowest yield safety n_y', r.minYieldSafety?.value ?? null, 'yieldSafety', '1', at(r.minYieldSafety), f('yieldSafety').formula, 3),
   ];
   const fatigue = r.minFatigueSafety;
   if (fatigue) {
+    // Only the rule set's own criterion is judged by its fatigue clauses; the others are for comparison.
+    const judged = d.ruleSet.methods.fatigueCriterion ?? 'DE-Goodman';
     const names: [keyof typeof fatigue, string][] = [['goodman', 'DE-Goodman'], ['asmeElliptic', 'DE-ASME-elliptic'], ['gerber', 'DE-Gerber'], ['soderberg', 'DE-Soderberg']];
-    for (const [k, name] of names) rows.push([`Lowest fatigue safety, ${name}`, num(fatigue[k]?.value ?? null, 3), '–', at(fatigue[k]), f(k).formula]);
+    for (const [k, name] of names) {
+      rows.push(figure(`Lowest fatigue safety, ${name}`, fatigue[k]?.value ?? null, name === judged ? 'fatigueSafety' : '', '1', at(fatigue[k]), f(k).formula, 3));
+    }
   }
   drawTable(doc, [
-    { header: 'Result', share: 0.25 }, { header: 'Value', share: 0.1, align: 'right', mono: true }, { header: 'Unit', share: 0.07 },
-    { header: 'Where', share: 0.18 }, { header: 'Method', share: 0.4 },
+    { header: 'Result', share: 0.22 }, { header: 'Value', share: 0.09, align: 'right', mono: true }, { header: 'Unit', share: 0.06 },
+    { header: 'Against the standard', share: 0.17 }, { header: 'Where', share: 0.16 }, { header: 'Method', share: 0.3 },
   ], rows);
 }

@@ -34,7 +34,12 @@ function diagonalMark(doc: PDFKit.PDFDocument, mark: StateMark): void {
 function header(doc: PDFKit.PDFDocument, f: Furniture): void {
   doc.font(BOLD).fontSize(8).fillColor(COPPER).text('TORQUETRAIL', PAGE.left, 30, { lineBreak: false, characterSpacing: 1.2 });
   doc.font(SANS).fontSize(8).fillColor(INK_SOFT).text(`  ·  ${f.organisation}`, { lineBreak: false });
-  doc.font(BOLD).fontSize(8).fillColor(INK).text(f.reference, PAGE.left, 30, { width: PAGE.right - PAGE.left, align: 'right', lineBreak: false });
+  // The reference takes the room left of the brand and organisation, smaller type first, then an ellipsis.
+  const left = doc.x - PAGE.left + 16;
+  const room = PAGE.right - PAGE.left - left;
+  let size = 8;
+  while (size > 6 && doc.font(BOLD).fontSize(size).widthOfString(f.reference) > room) size -= 0.5;
+  doc.font(BOLD).fontSize(size).fillColor(INK).text(f.reference, PAGE.left + left, 30 + (8 - size) / 2, { width: room, height: size * 1.3, align: 'right', ellipsis: true });
   doc.moveTo(PAGE.left, 44).lineTo(PAGE.right, 44).lineWidth(0.8).strokeColor(INK).stroke();
   if (f.mark) {
     doc.font(BOLD).fontSize(7.5).fillColor(f.mark.colour).text(f.mark.text, PAGE.left, 48, { width: PAGE.right - PAGE.left, align: 'center', lineBreak: false });

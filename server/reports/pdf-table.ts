@@ -52,7 +52,9 @@ export function drawTable(doc: PDFKit.PDFDocument, columns: Column[], rows: Cell
     drawRow(doc, columns, header, y, headerHeight, size, true);
     doc.y = y + headerHeight;
   };
-  if (doc.y + headerHeight + 14 > PAGE.bottom) doc.addPage();
+  // The header never stands alone at the foot of a page: it goes over with its first row.
+  const firstRow = rows.length ? rowHeight(doc, columns, rows[0], size, false) : 14;
+  if (doc.y + headerHeight + firstRow > PAGE.bottom) doc.addPage();
   drawHeader();
   rows.forEach((cells, index) => {
     const h = rowHeight(doc, columns, cells, size, false);

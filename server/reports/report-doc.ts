@@ -47,8 +47,12 @@ export function ensureSpace(doc: PDFKit.PDFDocument, height: number): void {
   if (doc.y + height > PAGE.bottom) doc.addPage();
 }
 
+// A heading keeps with what follows: room for itself, a line of text, a table header and a couple of rows.
+const KEEP_WITH_SECTION = 120;
+const KEEP_WITH_SUBHEADING = 95;
+
 export function sectionHeading(doc: PDFKit.PDFDocument, number: number, title: string): void {
-  ensureSpace(doc, 60);
+  ensureSpace(doc, KEEP_WITH_SECTION);
   doc.moveDown(0.8);
   const y = doc.y;
   doc.rect(PAGE.left, y, 4, 15).fill(COPPER);
@@ -60,7 +64,7 @@ export function sectionHeading(doc: PDFKit.PDFDocument, number: number, title: s
 }
 
 export function subHeading(doc: PDFKit.PDFDocument, title: string): void {
-  ensureSpace(doc, 40);
+  ensureSpace(doc, KEEP_WITH_SUBHEADING);
   doc.moveDown(0.5);
   doc.font(BOLD).fontSize(9.5).fillColor(INK_SOFT).text(title, PAGE.left, doc.y, { width: CONTENT_WIDTH });
   doc.moveDown(0.2);

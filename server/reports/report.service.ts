@@ -10,6 +10,7 @@ import { drawPlots } from './plots-section';
 import { drawChecklist } from './checklist-section';
 import { drawAttachments, drawFindings, drawHistory, drawSignatures } from './signoff-section';
 import { drawRecord } from './record-section';
+import type { WorkPool } from '../workers/work-pool';
 
 const SECTIONS = [drawInputs, drawResults, drawPlots, drawChecklist, drawFindings, drawSignatures, drawHistory, drawAttachments, drawRecord];
 
@@ -28,12 +29,21 @@ export async function renderReport(d: ReportData, fontDir: string): Promise<Buff
 
 /** The calc report of one revision, as a PDF, for anyone who may read the revision. */
 export class ReportService {
-  constructor(private readonly fontDir: string) {}
+  /** Without a pool (scripts, some tests) the layout runs in this thread. */
+  constructor(private readonly fontDir: string, private readonly work?: WorkPool) {}
 
   async pdf(ability: AppAbility, revisionId: number, ctx: ReportContext): Promise<{ fileName: string; bytes: Buffer; data: ReportData }> {
     const data = await loadReportData(ability, revisionId, ctx);
-    const bytes = await renderReport(data, this.fontDir);
+    // Laying out a long report takes the CPU for a while: off the event loop when a pool is given.
+    const bytes = this.work
+      ? asBuffer(await this.work.run<Uint8Array>('renderReportPdf', { data, fontDir: this.fontDir }))
+      : await renderReport(data, this.fontDir);
     const fileName = `${data.calc.projectCode}_${data.calc.number}_rev-${data.revision.label}.pdf`.replace(/[^A-Za-z0-9._-]+/g, '-');
     return { fileName, bytes, data };
   }
+}
+
+/** A worker's Buffer arrives as a plain Uint8Array; view the same bytes as a Buffer again. */
+function asBuffer(bytes: Uint8Array): Buffer {
+  return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
 }

@@ -1,4 +1,5 @@
-import type { CalcResult } from '../../shared/engine';
+import { FIELD_NAMES, METHOD_NAMES, type CalcResult } from '../../shared/engine';
+import { unitText } from '../../shared/format';
 import { featureTag } from '../../shared/plots';
 import type { ReportData } from './report-data';
 import { FAIL, INK, paragraph, sectionHeading, subHeading } from './report-doc';
@@ -50,8 +51,11 @@ export function drawResults(doc: PDFKit.PDFDocument, d: ReportData, number: numb
     ], featureRows(r), { size: 7.5 });
   }
   subHeading(doc, 'Methods');
-  const methods: Cell[][] = Object.entries(r.methods).map(([k, v]) => [k, v]);
-  for (const key of ['J', 'tauMax', 'twist', 'Kf', 'Se', 'goodman']) if (r.fields[key]) methods.push([`${key} (${r.fields[key].unit})`, r.fields[key].formula]);
+  const methods: Cell[][] = Object.entries(r.methods).map(([k, v]) => [METHOD_NAMES[k] ?? k, v]);
+  for (const key of ['J', 'tauMax', 'twist', 'Kf', 'Se', 'goodman']) {
+    const f = r.fields[key];
+    if (f) methods.push([`${FIELD_NAMES[key] ?? key}${unitText(f.unit) ? ` [${f.unit}]` : ''}`, f.formula]);
+  }
   drawTable(doc, [{ header: 'Quantity', share: 0.2 }, { header: 'Formula or published method', share: 0.8 }], methods, { size: 7.5 });
   if (r.warnings.length) {
     subHeading(doc, 'Engine warnings');

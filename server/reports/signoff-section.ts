@@ -1,3 +1,4 @@
+import { formatBytes } from '../../shared/format';
 import { STATE_LABELS } from '../../shared/schemas/revision.schema';
 import { ATTACHMENT_KIND_LABELS } from '../../shared/schemas/attachment.schema';
 import type { ReportData } from './report-data';
@@ -12,10 +13,11 @@ export function drawFindings(doc: PDFKit.PDFDocument, d: ReportData, number: num
   const findings = d.revision.findings;
   if (findings.length === 0) return paragraph(doc, 'No findings were raised on this revision.', { color: INK_SOFT });
   drawTable(doc, [
-    { header: '#', share: 0.05 }, { header: 'Finding', share: 0.33 }, { header: 'Raised', share: 0.14 },
+    { header: 'No.', share: 0.06 }, { header: 'Finding', share: 0.32 }, { header: 'Raised', share: 0.14 },
     { header: 'Answer', share: 0.3 }, { header: 'Status', share: 0.18 },
-  ], findings.map((f, i): Cell[] => [
-    String(i + 1), `${f.clauseRef ? `[${f.clauseRef}] ` : ''}${f.text}`, `${f.raisedBy.name}\n${when(f.createdAt)}`,
+  ], findings.map((f): Cell[] => [
+    // The same number the screen shows (F + the finding's id), so a reader can say "F4" to anyone.
+    `F${f.id}`, `${f.clauseRef ? `[${f.clauseRef}] ` : ''}${f.text}`, `${f.raisedBy.name}\n${when(f.createdAt)}`,
     f.answer ? `${f.answer}\n— ${f.answeredBy?.name ?? ''}, ${when(f.answeredAt)}` : '—',
     { text: f.status === 'closed' ? `closed by ${f.closedBy?.name ?? ''}` : f.status, color: f.status === 'closed' ? PASS : FAIL },
   ]));
@@ -55,6 +57,6 @@ export function drawAttachments(doc: PDFKit.PDFDocument, d: ReportData, number: 
     { header: 'Kind', share: 0.15 }, { header: 'File', share: 0.25 }, { header: 'Type, size', share: 0.16 },
     { header: 'Added by', share: 0.14 }, { header: 'SHA-256', share: 0.3, mono: true },
   ], d.attachments.map((a): Cell[] => [
-    ATTACHMENT_KIND_LABELS[a.kind], a.fileName, `${a.mediaType}, ${(a.sizeBytes / 1024).toFixed(1)} kB`, a.uploadedBy.name, a.sha256,
+    ATTACHMENT_KIND_LABELS[a.kind], a.fileName, `${a.mediaType}, ${formatBytes(a.sizeBytes)}`, a.uploadedBy.name, a.sha256,
   ]), { size: 7 });
 }

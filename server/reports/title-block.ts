@@ -23,7 +23,11 @@ export function drawTitleBlock(doc: PDFKit.PDFDocument, d: ReportData): void {
   const gridW = CONTENT_WIDTH - QR_WIDTH;
   doc.rect(x, y, CONTENT_WIDTH, 64).fill(BAND);
   doc.font(BOLD).fontSize(7).fillColor(COPPER).text('SHAFT CALC RECORD', x + 8, y + 8, { characterSpacing: 1.4, lineBreak: false });
-  doc.font(BOLD).fontSize(17).fillColor(INK).text(`${d.calc.number}  rev ${r.label}`, x + 8, y + 19, { width: gridW - 16, lineBreak: false });
+  // The longest calc number the form accepts must still fit one line: the type shrinks before it wraps.
+  const heading = `${d.calc.number}  rev ${r.label}`;
+  let size = 17;
+  while (size > 10 && doc.font(BOLD).fontSize(size).widthOfString(heading) > gridW - 16) size -= 0.5;
+  doc.font(BOLD).fontSize(size).fillColor(INK).text(heading, x + 8, y + 19 + (17 - size) / 2, { width: gridW - 16, height: size * 1.3, ellipsis: true });
   doc.font(SANS).fontSize(9.5).fillColor(INK).text(d.calc.title, x + 8, y + 42, { width: gridW - 16, height: 14, ellipsis: true });
   const state = STATE_LABELS[r.status].toUpperCase();
   doc.roundedRect(x + CONTENT_WIDTH - QR_WIDTH + 4, y + 18, QR_WIDTH - 12, 26, 3).lineWidth(1.6).strokeColor(stateColour(r.status)).stroke();

@@ -13,6 +13,7 @@ import { enqueueMail, emailsOfRole } from '../mail/outbox';
 import { appLink } from '../mail/links';
 import { loadRuleSet } from './rule-set-cache';
 import { readRevision } from '../calcs/revision-read';
+import { runTransaction } from '../db/transaction';
 
 const BATCH = 1000;
 
@@ -132,7 +133,7 @@ export class ImpactService {
     if (!record) return;
     const report = await this.run(record.id);
     if (report.changed === 0) return;
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const list = report.rows.slice(0, 50).map((r) => `- ${r.projectCode} ${r.number} rev ${r.revision}: ${r.before} → ${r.after}`).join('\n');
       await enqueueMail(await emailsOfRole('compliance', [], transaction), {
         event: 'impact', subject: `${record.code} v${record.version} changes the verdict of ${report.changed} approved calc(s)`,

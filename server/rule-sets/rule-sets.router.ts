@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { idParamsSchema } from '../../shared/schemas/common.schema';
+import { decimalId, idParamsSchema } from '../../shared/schemas/common.schema';
 import { confirmSchema, createDraftSchema, proposeSchema, tryItSchema, updateDraftSchema } from '../../shared/schemas/rule-set.schema';
 import { validate } from '../http/validate';
 import { signedInActor } from '../authz/actor';
@@ -8,8 +8,8 @@ import type { RuleSetsService } from './rule-sets.service';
 import type { ImpactService } from './impact.service';
 
 const diffQuerySchema = z.object({
-  from: z.coerce.number({ error: 'must be a version id' }).int().positive(),
-  to: z.coerce.number({ error: 'must be a version id' }).int().positive(),
+  from: decimalId('a version id'),
+  to: decimalId('a version id'),
 });
 
 export function ruleSetsRouter(ruleSets: RuleSetsService, impact: ImpactService): Router {

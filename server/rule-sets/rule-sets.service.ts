@@ -9,6 +9,7 @@ import { appendAudit, type Actor } from '../audit/audit.service';
 import { verifyPassword } from '../auth/password';
 import { jsonDiff } from '../calcs/content-diff';
 import { documentHash, toRuleSetDto, toRuleSetSummary } from './rule-set-mapping';
+import { runTransaction } from '../db/transaction';
 
 type Person = Actor & { id: number };
 
@@ -23,7 +24,8 @@ export class RuleSetsService {
   async list(ability: AppAbility): Promise<RuleSetSummary[]> {
     ForbiddenError.from(ability).throwUnlessCan('read', 'RuleSet');
     await this.promoteDue();
-    const rows = await RuleSetRecord.findAll({ order: [['code', 'ASC'], ['version', 'DESC']] });
+    // The library lists versions; their documents (tens of kilobytes each) are read one at a time when opened.
+    const rows = await RuleSetRecord.findAll({ attributes: { exclude: ['document'] }, order: [['code', 'ASC'], ['version', 'DESC']] });
     const names = await namesOf(rows.flatMap((r) => [r.proposedBy, r.confirmedBy]));
     return rows.map((r) => toRuleSetSummary(r, names));
   }
@@ -36,7 +38,7 @@ export class RuleSetsService {
 
   async createDraft(ability: AppAbility, actor: Person, fromId: number): Promise<RuleSetDto> {
     ForbiddenError.from(ability).setMessage('Only compliance drafts design standards').throwUnlessCan('create', subject('RuleSet', { status: 'draft' }));
-    const id = await this.sequelize.transaction(async (transaction) => {
+    const id = await runTransaction(this.sequelize, async (transaction) => {
       const from = await this.load(fromId, transaction);
       const latest = await RuleSetRecord.max<number, RuleSetRecord>('version', { where: { code: from.code }, transaction });
       const doc = { ...JSON.parse(from.document), version: latest + 1, status: 'draft', effectiveDate: null, changeSummary: '' };
@@ -51,7 +53,7 @@ export class RuleSetsService {
   }
 
   async updateDraft(ability: AppAbility, actor: Person, id: number, document: Record<string, unknown>, lockVersion: number): Promise<RuleSetDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const record = await this.load(id, transaction, true);
       this.assertDraft(ability, record, 'update');
       if (record.lockVersion !== lockVersion) throw AppError.conflict('Someone else saved this draft since you opened it; reload to see their version');
@@ -68,7 +70,7 @@ export class RuleSetsService {
   }
 
   async propose(ability: AppAbility, actor: Person, id: number, effectiveDate: string, lockVersion: number): Promise<RuleSetDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const record = await this.load(id, transaction, true);
       this.assertDraft(ability, record, 'publish');
       if (record.lockVersion !== lockVersion) throw AppError.conflict('The draft changed since you opened it; review it again');
@@ -89,7 +91,7 @@ export class RuleSetsService {
       await appendAudit(this.sequelize, actor, { action: 'rule_set.confirmation_refused', entityType: 'RuleSet', entityId: id, payload: { reason: 'wrong password' } });
       throw new AppError('validation', 400, 'Password is not correct; nothing was confirmed', { fieldErrors: { password: ['is not correct'] } });
     }
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const record = await this.load(id, transaction, true);
       this.assertDraft(ability, record, 'publish');
       if (record.lockVersion !== lockVersion) throw AppError.conflict('The draft changed since you opened it; review it again');
@@ -109,7 +111,7 @@ export class RuleSetsService {
     const due = await RuleSetRecord.findAll({ where: { status: 'draft', confirmedBy: { [Op.ne]: null }, effectiveDate: { [Op.lte]: todayUtc() } } });
     const clock: Actor = { id: null, name: 'effective-date clock', ip: null };
     for (const record of due) {
-      const promoted = await this.sequelize.transaction(async (transaction) => {
+      const promoted = await runTransaction(this.sequelize, async (transaction) => {
         const fresh = await this.load(record.id, transaction, true);
         if (fresh.status !== 'draft') return false;
         await this.makeEffective(fresh, clock, transaction);

@@ -10,6 +10,8 @@ import { accessibleWhere } from '../authz/accessible-where';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { hashPassword } from '../auth/password';
 import { toUserDto } from './user-dto';
+import { RoleGrantsService } from './role-grants.service';
+import { runTransaction } from '../db/transaction';
 
 const withRoles = { model: UserRole, as: 'roleRows' } as const;
 
@@ -18,7 +20,11 @@ const withRoles = { model: UserRole, as: 'roleRows' } as const;
  * signature and audit entry keeps pointing at the person who made it.
  */
 export class UsersService {
-  constructor(private readonly sequelize: Sequelize) {}
+  private readonly grants: RoleGrantsService;
+
+  constructor(private readonly sequelize: Sequelize) {
+    this.grants = new RoleGrantsService(sequelize);
+  }
 
   async list(ability: AppAbility, query: PageQuery): Promise<Page<UserDto>> {
     const where = accessibleWhere(ability, 'read', 'User');
@@ -27,13 +33,14 @@ export class UsersService {
       where: { [Op.and]: [where, search] }, include: [withRoles], distinct: true,
       order: [['username', 'ASC']], offset: query.page * query.size, limit: query.size,
     });
-    return { items: rows.map(toUserDto), total: count, page: query.page, size: query.size };
+    const pending = await this.grants.pendingRolesOf(rows.map((u) => u.id));
+    return { items: rows.map((u) => toUserDto(u, pending.get(u.id))), total: count, page: query.page, size: query.size };
   }
 
   async get(ability: AppAbility, id: number): Promise<UserDto> {
     const user = await this.load(id);
     ForbiddenError.from(ability).throwUnlessCan('read', subject('User', toUserDto(user)));
-    return toUserDto(user);
+    return this.dto(user);
   }
 
   async create(ability: AppAbility, actor: Actor, dto: CreateUserRequest): Promise<UserDto> {
@@ -41,37 +48,45 @@ export class UsersService {
     const taken = await User.findOne({ where: { username: dto.username } });
     if (taken) throw new AppError('conflict', 409, `Username "${dto.username}" is taken (usernames are never reused)`, { fieldErrors: { username: ['is already taken'] } });
     const passwordHash = await hashPassword(dto.initialPassword);
-    const id = await this.sequelize.transaction(async (transaction) => {
+    const id = await runTransaction(this.sequelize, async (transaction) => {
       const user = await User.create({ username: dto.username, displayName: dto.displayName, email: dto.email, passwordHash }, { transaction });
-      await UserRole.bulkCreate(dto.roles.map((role) => ({ userId: user.id, role })), { transaction });
       const payload = { username: dto.username, displayName: dto.displayName, email: dto.email, roles: [...dto.roles].sort() };
       await appendAudit(this.sequelize, actor, { action: 'user.created', entityType: 'User', entityId: user.id, payload }, transaction);
+      // A new account is no way round the second person: its signing roles wait for confirmation too.
+      user.roleRows = [];
+      await this.grants.changeRoles(actor as Actor & { id: number }, user, dto.roles, transaction);
       return user.id;
     });
-    return toUserDto(await this.load(id));
+    return this.dto(await this.load(id));
   }
 
   async update(ability: AppAbility, actor: Actor, id: number, dto: UpdateUserRequest): Promise<UserDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const user = await this.load(id, transaction);
       const before = toUserDto(user);
       // Checked before the version and even when no field is given, so a bare `{ version }` is no back door.
       ForbiddenError.from(ability).throwUnlessCan('update', subject('User', before));
       if (user.version !== dto.version) throw AppError.conflict(`User ${user.username} was changed by someone else; reload and try again`);
-      const fields = (['displayName', 'email', 'roles', 'secondFactorRequired'] as const).filter((f) => dto[f] !== undefined);
-      for (const field of fields) ForbiddenError.from(ability).throwUnlessCan('update', subject('User', before), field);
-      if (dto.roles) await this.replaceRoles(ability, user, dto.roles, transaction);
+      const rolesChange = dto.roles && !sameRoles(dto.roles, [...before.roles, ...(await this.pendingOf(id))]);
+      if (rolesChange && actor.id === id) throw new AppError('own_roles', 403, 'Nobody changes their own roles; ask another administrator');
+      const fields = (['displayName', 'email', 'secondFactorRequired'] as const).filter((f) => dto[f] !== undefined);
+      for (const field of [...fields, ...(rolesChange ? ['roles' as const] : [])]) ForbiddenError.from(ability).throwUnlessCan('update', subject('User', before), field);
+      if (rolesChange) {
+        ForbiddenError.from(ability).throwUnlessCan('assignRoles', subject('User', before));
+        await this.grants.changeRoles(actor as Actor & { id: number }, user, dto.roles!, transaction);
+      }
       user.set({ displayName: dto.displayName ?? user.displayName, email: dto.email ?? user.email, totpRequired: dto.secondFactorRequired ?? user.totpRequired });
       user.changed('updatedAt', true);
       await user.save({ transaction });
-      const after = { ...before, ...dto, roles: dto.roles ? [...dto.roles].sort() : before.roles };
-      await appendAudit(this.sequelize, actor, { action: 'user.updated', entityType: 'User', entityId: id, payload: { before: pick(before, fields), after: pick(after, fields) } }, transaction);
+      // Role changes have their own audit entries (requested, granted, removed), one per role.
+      const after = { ...before, ...dto };
+      if (fields.length) await appendAudit(this.sequelize, actor, { action: 'user.updated', entityType: 'User', entityId: id, payload: { before: pick(before, fields), after: pick(after, fields) } }, transaction);
     });
-    return toUserDto(await this.load(id));
+    return this.dto(await this.load(id));
   }
 
   async setActive(ability: AppAbility, actor: Actor, id: number, active: boolean): Promise<UserDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const user = await this.load(id, transaction);
       ForbiddenError.from(ability).throwUnlessCan('deactivate', subject('User', toUserDto(user)));
       if (actor.id === id && !active) throw new AppError('self_deactivation', 400, 'You cannot deactivate your own account');
@@ -81,13 +96,15 @@ export class UsersService {
       if (!active) await Session.destroy({ where: { userId: id }, transaction });
       await appendAudit(this.sequelize, actor, { action: active ? 'user.reactivated' : 'user.deactivated', entityType: 'User', entityId: id, payload: { username: user.username } }, transaction);
     });
-    return toUserDto(await this.load(id));
+    return this.dto(await this.load(id));
   }
 
-  private async replaceRoles(ability: AppAbility, user: User, roles: Role[], transaction: import('sequelize').Transaction) {
-    ForbiddenError.from(ability).throwUnlessCan('assignRoles', subject('User', toUserDto(user)));
-    await UserRole.destroy({ where: { userId: user.id }, transaction });
-    await UserRole.bulkCreate(roles.map((role) => ({ userId: user.id, role })), { transaction });
+  private async pendingOf(id: number): Promise<Role[]> {
+    return (await this.grants.pendingRolesOf([id])).get(id) ?? [];
+  }
+
+  private async dto(user: User): Promise<UserDto> {
+    return toUserDto(user, await this.pendingOf(user.id));
   }
 
   private async load(id: number, transaction?: import('sequelize').Transaction): Promise<User> {
@@ -95,6 +112,10 @@ export class UsersService {
     if (!user) throw AppError.notFound(`User ${id}`);
     return user;
   }
+}
+
+function sameRoles(a: readonly Role[], b: readonly Role[]): boolean {
+  return new Set(a).size === new Set(b).size && a.every((r) => b.includes(r));
 }
 
 function pick<T extends object>(obj: T, keys: readonly string[]): Partial<T> {

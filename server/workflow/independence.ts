@@ -5,7 +5,7 @@ export type Meaning = 'authored' | 'checked' | 'approved';
 
 export interface SigningContext {
   actor: { id: number; roles: readonly Role[] };
-  revision: { status: RevisionState; authorId: number; checkerId: number | null; hasResult: boolean; verdict: string | null };
+  revision: { status: RevisionState; authorId: number; checkerId: number | null; hasResult: boolean; verdict: string | null; errorRows: number };
   editorIds: readonly number[];
   openFindings: number;
   unresolvedFindings: number;
@@ -27,6 +27,8 @@ export function signingBlocker(meaning: Meaning, c: SigningContext): string | nu
   const { actor, revision } = c;
   if (!actor.roles.includes(ROLE_FOR[meaning])) return `Signing as ${meaning} needs the ${ROLE_FOR[meaning]} role`;
   if (!STATE_FOR[meaning].includes(revision.status)) return `A ${revision.status.replace('_', ' ')} revision cannot be signed as ${meaning}`;
+  // Whatever its severity, a row that could not be evaluated is a check nobody has made.
+  if (revision.errorRows > 0) return `${revision.errorRows} checklist row(s) could not be evaluated; nobody can sign this revision until every row has a result`;
   if (meaning === 'authored') {
     if (actor.id !== revision.authorId) return 'Only the author of this revision can sign it as authored';
     if (!revision.hasResult) return 'The calc has input errors; fix them before submitting';

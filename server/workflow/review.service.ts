@@ -1,4 +1,4 @@
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { RevisionDto } from '../../shared/schemas/calc-dto';
 import { Finding, type Revision } from '../db/models';
@@ -9,6 +9,8 @@ import { readRevision } from '../calcs/revision-read';
 import type { WorkflowService } from './workflow.service';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { assertAttachmentFor } from '../attachments/attachment-rules';
+import { assertProjectOpen } from '../projects/project-open';
+import { runTransaction } from '../db/transaction';
 
 type Reviewer = Actor & { id: number };
 
@@ -17,8 +19,9 @@ export class ReviewService {
   constructor(private readonly sequelize: Sequelize, private readonly workflow: WorkflowService) {}
 
   async raiseFinding(ability: AppAbility, actor: Reviewer, revisionId: number, text: string, clauseRef?: string): Promise<RevisionDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
+      await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker or approver reviewing this revision can raise findings');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
       const finding = await Finding.create({ revisionId, text, clauseRef: clauseRef ?? null, raisedBy: actor.id }, { transaction });
@@ -28,11 +31,14 @@ export class ReviewService {
   }
 
   async answerFinding(ability: AppAbility, actor: Reviewer, findingId: number, answer: string): Promise<RevisionDto> {
-    const revisionId = await this.sequelize.transaction(async (transaction) => {
-      const finding = await this.loadFinding(findingId);
+    const revisionId = await runTransaction(this.sequelize, async (transaction) => {
+      const finding = await this.loadFinding(findingId, transaction);
       const revision = await loadRevision(finding.revisionId, transaction);
+      await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'update', revision, 'Only the author of a returned or draft revision answers its findings');
       if (finding.status === 'closed') throw AppError.conflict('This finding is already closed');
+      // One answer per finding: a second click or a second tab must not put two answers on the record.
+      if (finding.status === 'answered') throw AppError.conflict(`Finding F${finding.id} is already answered; a reviewer closes it or raises a new finding`);
       Object.assign(finding, { answer, answeredBy: actor.id, answeredAt: new Date(), status: 'answered' });
       await finding.save({ transaction });
       await appendAudit(this.sequelize, actor, { action: 'finding.answered', entityType: 'Revision', entityId: revision.id, payload: { findingId, answer } }, transaction);
@@ -42,9 +48,10 @@ export class ReviewService {
   }
 
   async closeFinding(ability: AppAbility, actor: Reviewer, findingId: number): Promise<RevisionDto> {
-    const revisionId = await this.sequelize.transaction(async (transaction) => {
-      const finding = await this.loadFinding(findingId);
+    const revisionId = await runTransaction(this.sequelize, async (transaction) => {
+      const finding = await this.loadFinding(findingId, transaction);
       const revision = await loadRevision(finding.revisionId, transaction);
+      await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker or approver reviewing this revision can close findings');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
       if (finding.status !== 'answered') throw AppError.conflict('A finding is closed once its author has answered it');
@@ -58,8 +65,9 @@ export class ReviewService {
 
   /** Back to the author: the reason becomes an open finding they must answer before resubmitting. */
   async returnToAuthor(ability: AppAbility, actor: Reviewer, revisionId: number, reason: string, lockVersion: number): Promise<RevisionDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
+      await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker (in check) or approver (checked) can return this revision');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
       if (revision.lockVersion !== lockVersion) throw AppError.conflict('The revision changed since you opened it; reload it');
@@ -74,8 +82,9 @@ export class ReviewService {
   }
 
   async setManualItem(ability: AppAbility, actor: Reviewer, revisionId: number, itemId: string, done: boolean, note: string): Promise<RevisionDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
+      await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'check', revision, 'Manual checklist items are ticked by the independent checker while the calc is in check');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
       assertKnownItem(revision, itemId);
@@ -95,8 +104,9 @@ export class ReviewService {
     }
   }
 
-  private async loadFinding(id: number): Promise<Finding> {
-    const finding = await Finding.findByPk(id);
+  /** Locked for the rest of the transaction, so two concurrent answers or closes queue instead of both passing the check. */
+  private async loadFinding(id: number, transaction: Transaction): Promise<Finding> {
+    const finding = await Finding.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
     if (!finding) throw AppError.notFound(`Finding ${id}`);
     return finding;
   }

@@ -12,7 +12,7 @@ import { currentHashOf } from '../calcs/revision-read';
  */
 export async function signedContentFor(revision: Revision, transaction: Transaction): Promise<{ hash: string; attachments: SignedAttachment[] }> {
   const rows = await Attachment.findAll({ where: { revisionId: revision.id }, transaction });
-  const hash = await currentHashOf(revision, transaction, CONTENT_FORMAT);
+  const hash = await currentHashOf(revision, transaction, undefined, CONTENT_FORMAT);
   if (!hash) throw new AppError('integrity', 409, 'The revision has no result to sign');
   revision.contentFormat = CONTENT_FORMAT;
   revision.contentHash = hash;
@@ -22,7 +22,7 @@ export async function signedContentFor(revision: Revision, transaction: Transact
 /** After the attachment set changed: the revision's hash follows it, and a signer must reload first. */
 export async function refreshAfterAttachmentChange(revision: Revision, transaction: Transaction): Promise<void> {
   revision.contentFormat = CONTENT_FORMAT;
-  revision.contentHash = await currentHashOf(revision, transaction, CONTENT_FORMAT);
+  revision.contentHash = await currentHashOf(revision, transaction, undefined, CONTENT_FORMAT);
   // In review a signer must have seen the new set (409 until they reload); the author editing keeps their place.
   if (!EDITABLE_STATES.includes(revision.status)) revision.lockVersion += 1;
   await revision.save({ transaction });

@@ -15,6 +15,8 @@ import { signingBlocker, type Meaning } from './independence';
 import { signedContentFor } from './signed-content';
 import { CONTENT_FORMAT } from '../calcs/revision-content';
 import { queueHandOverMail, type HandOverFacts } from './hand-over-mail';
+import { assertProjectOpen } from '../projects/project-open';
+import { runTransaction } from '../db/transaction';
 
 export interface Signer extends Actor { id: number; roles: readonly Role[] }
 
@@ -29,13 +31,19 @@ export class WorkflowService {
   constructor(private readonly sequelize: Sequelize, private readonly baseUrl: string) {}
 
   async sign(ability: AppAbility, signer: Signer, revisionId: number, dto: SignRequest): Promise<RevisionDto> {
+    // Why the signature cannot happen comes first, so a blocked signer never sees "wrong password"
+    // beside it; the same check runs again under the transaction below.
+    // A retried request (same key) skips this: the revision has already moved on by its own signature.
+    const retried = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey } });
+    if (!retried) await this.assertMaySign(dto.meaning, signer, await loadRevision(revisionId));
     await this.checkPassword(signer, revisionId, dto);
-    await this.sequelize.transaction(async (transaction) => {
+    await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
       // A retried request with the same key has already done its work: answer as the first did.
       const earlier = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey }, transaction });
       if (earlier && earlier.revisionId === revisionId && earlier.userId === signer.id) return;
       if (earlier) throw AppError.conflict('This signing request key was already used for another signature; reload and sign again');
+      await assertProjectOpen(revision.calcId, transaction);
       if (revision.lockVersion !== dto.lockVersion) throw AppError.conflict('The revision changed since you opened it; review the new content before signing');
       await this.assertMaySign(dto.meaning, signer, revision, transaction);
       const hash = await currentHashOf(revision, transaction);
@@ -52,7 +60,7 @@ export class WorkflowService {
         payload: { calcId: revision.calcId, revision: revision.label, meaning: dto.meaning, contentHash: signed.hash, attachments: signed.attachments, state: revision.status },
       }, transaction);
       await this.mail(EVENT[dto.meaning], revision, signer, transaction);
-    });
+    }, { idempotent: true }); // a second run finds its own signature by the idempotency key
     return readRevision(ability, revisionId);
   }
 
@@ -71,13 +79,13 @@ export class WorkflowService {
     throw new AppError('validation', 400, 'Password is not correct; nothing was signed', { fieldErrors: { password: ['is not correct'] } });
   }
 
-  private async assertMaySign(meaning: Meaning, signer: Signer, revision: Revision, transaction: Transaction): Promise<void> {
+  private async assertMaySign(meaning: Meaning, signer: Signer, revision: Revision, transaction?: Transaction): Promise<void> {
     const findings = await Finding.findAll({ where: { revisionId: revision.id }, transaction });
     const manual = JSON.parse(revision.manualItems) as Record<string, { done: boolean }>;
     const items = revision.ruleSet ? parseRuleSet(revision.ruleSet).manualItems ?? [] : [];
     const blocker = signingBlocker(meaning, {
       actor: signer,
-      revision: { status: revision.status, authorId: revision.authorId, checkerId: revision.checkerId, hasResult: revision.result !== null, verdict: revision.verdict },
+      revision: { status: revision.status, authorId: revision.authorId, checkerId: revision.checkerId, hasResult: revision.result !== null, verdict: revision.verdict, errorRows: errorRowsOf(revision.checklist) },
       editorIds: await editorIdsOf(revision.calcId, transaction),
       openFindings: findings.filter((f) => f.status === 'open').length,
       unresolvedFindings: findings.filter((f) => f.status !== 'closed').length,
@@ -111,6 +119,17 @@ export class WorkflowService {
       event, calcId: calc.id, calcNumber: calc.number, calcTitle: calc.title, projectCode: calc.Project.code, revision: revision.label,
       actorName: actor.name, authorId: revision.authorId, checkerId: revision.checkerId, editorIds: await editorIdsOf(calc.id, transaction), reason, baseUrl: this.baseUrl,
     }, transaction);
+  }
+}
+
+/** Rows that could not be evaluated; a stored checklist that cannot be read counts as one. */
+function errorRowsOf(checklist: string | null): number {
+  if (checklist === null) return 0;
+  try {
+    const rows = (JSON.parse(checklist) as { rows?: { status?: unknown }[] }).rows;
+    return Array.isArray(rows) ? rows.filter((r) => r?.status === 'error').length : 1;
+  } catch {
+    return 1;
   }
 }
 

@@ -7,10 +7,10 @@ import type { Role } from './roles';
 
 export const ACTIONS = [
   'read', 'create', 'update', 'deactivate', 'assignRoles', 'changePassword',
-  'submit', 'check', 'return', 'approve', 'sign', 'audit', 'publish', 'impact',
+  'submit', 'check', 'return', 'approve', 'sign', 'audit', 'publish', 'impact', 'confirm',
 ] as const;
 export const SUBJECTS = [
-  'User', 'Project', 'Calc', 'Revision', 'RuleSet', 'AuditEvent', 'SentMail', 'all',
+  'User', 'Project', 'Calc', 'Revision', 'RuleSet', 'AuditEvent', 'SentMail', 'RoleGrant', 'all',
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 export type SubjectName = (typeof SUBJECTS)[number];
@@ -60,21 +60,32 @@ const RULES_BY_ROLE: Record<Role, (user: AbilityUser, b: Builder) => void> = {
       status: 'checked', authorId: { $ne: user.id }, checkerId: { $ne: user.id },
     });
   },
-  compliance(_user, { can }) {
+  compliance(user, { can }) {
     can('read', ['Project', 'Calc', 'Revision', 'RuleSet', 'AuditEvent']);
     can(['create', 'update'], 'RuleSet', { status: 'draft' });
     can(['publish', 'impact'], 'RuleSet');
     can('audit', 'all');
+    secondPersonForRoles(user, can);
   },
-  admin(_user, { can }) {
+  admin(user, { can }) {
     // Admins manage people and projects; field lists keep passwords out of their reach.
     can('read', ['User', 'Project', 'AuditEvent', 'SentMail']);
     can('create', ['User', 'Project']);
-    can('update', 'User', ['displayName', 'email', 'roles', 'active', 'secondFactorRequired']);
-    can(['deactivate', 'assignRoles'], 'User');
+    can('update', 'User', ['displayName', 'email', 'active', 'secondFactorRequired']);
+    // Nobody changes their own roles; a signing role given to someone else waits for a second person.
+    can('update', 'User', ['roles'], { id: { $ne: user.id } });
+    can('assignRoles', 'User', { id: { $ne: user.id } });
+    can('deactivate', 'User');
     can('update', 'Project');
+    secondPersonForRoles(user, can);
   },
 };
+
+/** Admins and compliance confirm or refuse role requests made by someone else for someone else. */
+function secondPersonForRoles(user: AbilityUser, can: Builder['can']): void {
+  can('read', 'RoleGrant');
+  can('confirm', 'RoleGrant', { requestedBy: { $ne: user.id }, userId: { $ne: user.id } });
+}
 
 /** The one place permissions are defined; the server enforces them and the client mirrors them. */
 export function defineRulesFor(user: AbilityUser | null | undefined): AppRawRule[] {

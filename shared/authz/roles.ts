@@ -17,3 +17,9 @@ export const ROLE_DUTIES: Record<Role, string> = {
   compliance: 'Owns the design standards and their versions; audits the record',
   admin: 'Manages user accounts, roles and projects',
 };
+
+/**
+ * Roles that put a signature on a calc. Giving one takes a second person's confirmation, so
+ * no single administrator can make someone (or themselves, through a second account) a signer.
+ */
+export const SIGNING_ROLES: readonly Role[] = ['author', 'checker', 'approver'];

@@ -1,3 +1,5 @@
+import { bendingStations } from './beam/bending-at';
+import { evaluateBeam } from './beam/beam-eval';
 import { enduranceLimit } from './endurance';
 import { evaluateFeature } from './feature-eval';
 import { FIELDS } from './fields';
@@ -50,6 +52,9 @@ function keyseatSegments(model: Model): boolean[] {
 export function evaluateValidInput(input: CalcInput): CalcResult {
   const model = buildModel(input);
   modelWarnings(model);
+  const beam = evaluateBeam(model);
+  model.beam = beam.solution;
+  model.bendingStations = bendingStations(model);
   const pieces = buildTorqueDiagram(model);
   const fat = model.fatigue;
   const endurance: (Endurance | null)[] = model.segs.map((s) => (fat ? enduranceLimit(s.mat, s.od, fat) : null));
@@ -59,7 +64,7 @@ export function evaluateValidInput(input: CalcInput): CalcResult {
   const result: CalcResult = {
     engineVersion: ENGINE_VERSION, units: input.units, caution: CAUTION, fields: FIELDS[input.units], methods: METHODS,
     length: model.total / model.k.length, segments, features, torques: torquesOut(model), torqueDiagram: diagramOut(model, pieces),
-    ...summarize(segments, features), warnings: model.warnings,
+    ...summarize(segments, features), ...beam.results, warnings: model.warnings,
   };
   assertFiniteResult(result);
   return result;

@@ -1,4 +1,4 @@
-import { momentAt } from './bending-diagram';
+import { bendingAt } from './beam/bending-at';
 import { safetyFactor, trescaShear, vonMises } from './combined';
 import { enduranceOut } from './endurance';
 import { featureGeometry, type FeatureGeometry } from './feature-geometry';
@@ -16,7 +16,7 @@ import { torqueAt, type Piece } from './torque-diagram';
 interface FeatureState {
   ft: FeatureInput; g: FeatureGeometry; fac: Factors;
   q: number; qs: number; Kf: number; Kfs: number;
-  Ma: number; Mm: number; T: number; Ta: number;
+  Ma: number; Mm: number; M: number; T: number; Ta: number;
   nominal: StressSet; peak: StressSet;
 }
 
@@ -46,12 +46,12 @@ function featureState(model: Model, index: number, pieces: readonly Piece[]): Fe
   const Kf = fatigueFactor(fac.Kt, q);
   const Kfs = fatigueFactor(fac.Kts, qs);
   const x = ft.at * model.k.length;
-  const { Ma, Mm } = momentAt(model.moments, x);
+  const { Ma, Mm, M } = bendingAt(model, x);
   const { T, Ta } = torqueAt(pieces, x, STATION_TOLERANCE * model.total);
   const nominal = stressSet(Ma / g.Z, Mm / g.Z, Ta / g.Zp, Math.abs(T) / g.Zp);
   const onMid = model.fatigue?.isKfOnMidrange !== false;
   const peak = stressSet(Kf * nominal.sigmaA, (onMid ? Kf : 1) * nominal.sigmaM, Kfs * nominal.tauA, (onMid ? Kfs : 1) * nominal.tauM);
-  return { ft, g, fac, q, qs, Kf, Kfs, Ma, Mm, T, Ta, nominal, peak };
+  return { ft, g, fac, q, qs, Kf, Kfs, Ma, Mm, M, T, Ta, nominal, peak };
 }
 
 function keyFor(s: FeatureState, model: Model): KeyCheck | null {
@@ -80,7 +80,7 @@ export function evaluateFeature(model: Model, index: number, pieces: readonly Pi
     rOverD: g.r / g.d, DOverd: isFillet ? g.D! / g.d : null, tOverR: isFillet ? (g.D! - g.d) / 2 / g.r : null,
     Kt: s.fac.Kt, Kts: s.fac.Kts, q: s.q, qs: s.qs, Kf: s.Kf, Kfs: s.Kfs,
     method: { Kt: s.fac.ktMethod, Kts: s.fac.ktsMethod, notch: NEUBER_METHOD },
-    Ma: s.Ma / k.torque, Mm: s.Mm / k.torque, Ta: s.Ta / k.torque, Tm: Math.abs(s.T) / k.torque,
+    M: s.M / k.torque, Ma: s.Ma / k.torque, Mm: s.Mm / k.torque, Ta: s.Ta / k.torque, Tm: Math.abs(s.T) / k.torque,
     nominal: scaled(s.nominal, k.stress), peak: scaled(peak, k.stress), sigmaVonMises: vm / k.stress, tauTresca: tresca / k.stress,
     yieldSafety: safetyFactor(mat.Sy, vm), yieldSafetyTresca: safetyFactor(mat.Sy, 2 * tresca),
     endurance: se ? enduranceOut(se, k.stress) : null,

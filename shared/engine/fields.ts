@@ -1,3 +1,4 @@
+import { beamFields } from './beam/beam-fields';
 import { TRESCA_FORMULA, VON_MISES_FORMULA } from './combined';
 import { ENDURANCE_METHOD } from './endurance';
 import { CRITERIA_METHODS } from './fatigue-criteria';
@@ -19,7 +20,7 @@ const SPECS: Spec[] = [
   ['T', 'torque', 'internal torque: torque of the part right of the section on the part left of it, positive along +x '
     + '(right-hand rule) = −Σ external torques left of the section'],
   ['Tm', 'torque', 'midrange torque |T| at the station'], ['Ta', 'torque', 'alternating torque amplitude'],
-  ['Ma', 'torque', 'alternating bending moment, linear between entries'], ['Mm', 'torque', 'midrange bending moment'],
+  ['Ma', 'torque', 'alternating bending moment Ma = M (beam model, rotating shaft) + entered Ma, linear between entries'], ['Mm', 'torque', 'midrange bending moment'],
   ['tauMax', 'stress', 'τmax = |T|·c/J, c = do/2'], ['tauMaxAt', 'length', 'start of the stretch carrying τmax'], ['tauInner', 'stress', 'τ = |T|·(di/2)/J'],
   ['gamma', '1', 'γ = τmax/G (shear strain, rad)'],
   ['twist', 'angle', 'φ = Σ T·L/(G·J): right-hand rotation about +x of the segment\'s right end relative to its left end'], ['twistTotal', 'angle', 'φ = Σ Tᵢ·Lᵢ/(Gᵢ·Jᵢ), left end to right end'],
@@ -38,7 +39,7 @@ const SPECS: Spec[] = [
 ];
 
 function build(system: UnitSystem): Readonly<Record<string, FieldInfo>> {
-  const out: Record<string, FieldInfo> = {};
+  const out: Record<string, FieldInfo> = beamFields(system);
   for (const [field, q, formula] of SPECS) {
     out[field] = { unit: q === '1' ? '1' : UNIT_LABELS[system][q], formula };
   }

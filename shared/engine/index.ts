@@ -18,6 +18,11 @@ export type {
   FieldInfo, StressSet, KeyCheck, FeatureMethods, StaticStress,
 } from './result';
 export type { SafetyByCriterion } from './fatigue-criteria';
+export type {
+  BeamResults, SupportResult, LoadResult, MassResult, BendingPoint, DeflectionPoint, CriticalSpeed,
+} from './beam/beam-result';
+export { SUPPORT_KINDS, type SupportInput, type LoadInput, type MassInput, type SupportKind } from './beam/beam-schema';
 export { formatNumber } from './number-format';
 export { formatResultTable } from './result-table';
 export { calcInputJsonSchemaText } from './json-schema';
+export { METHOD_NAMES, FIELD_NAMES, FILLET_KTS_NAMES } from './methods';

@@ -34,7 +34,11 @@ export function fieldOf(path: readonly PropertyKey[], system: UnitSystem | null)
 
 function describeInput(input: unknown, unit: string): string {
   if (typeof input === 'number') return `${formatNumber(input)}${unit}`;
-  if (typeof input === 'string') return `the text ${JSON.stringify(input.slice(0, 40))}`;
+  if (typeof input === 'string') {
+    // A decimal comma is refused, never guessed: "1,500" could be one and a half or fifteen hundred.
+    const comma = /^\s*[+-]?\d*,\d+\s*$/.test(input) ? `; write it with a decimal point (${input.trim().replace(',', '.')}), commas are not read as numbers` : '';
+    return `the text ${JSON.stringify(input.slice(0, 40))}${comma}`;
+  }
   if (input === null) return 'null';
   return Array.isArray(input) ? 'a list' : typeof input === 'object' ? 'an object' : String(input);
 }

@@ -8,5 +8,5 @@ import { calcInputSchema } from './schema';
 export function calcInputJsonSchemaText(): string {
   const schema = z.toJSONSchema(calcInputSchema, { target: 'draft-2020-12' });
   const { $schema, ...rest } = schema;
-  return `${JSON.stringify({ $schema, $id: 'urn:torquetrail:schema:calc-input:v1', ...rest }, null, 2)}\n`;
+  return `${JSON.stringify({ $schema, $id: 'urn:torquetrail:schema:calc-input:v2', ...rest }, null, 2)}\n`;
 }

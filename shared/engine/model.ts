@@ -1,3 +1,4 @@
+import type { BeamSolution } from './beam/beam-solve';
 import type { CalcIssue } from './issue-messages';
 import { RELIABILITY_FACTORS, SE_PRIME_CAP_MPA, temperatureFactor, type Surface, type SurfaceTable } from './marin';
 import { entryTorque } from './check-loads';
@@ -38,6 +39,9 @@ export interface Model {
   torques: ExtTorque[]; moments: MomentEntry[]; hasTa: boolean;
   fatigue: FatigueSettings | null;
   warnings: CalcIssue[];
+  /** The solved beam model (set by evaluate when the calc has supports), and the stations where bending can peak. */
+  beam?: BeamSolution | null;
+  bendingStations?: number[];
 }
 
 function toMat(m: MaterialInput, path: string, k: FactorTable): Mat {

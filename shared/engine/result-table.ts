@@ -1,11 +1,12 @@
+import { beamTables } from './beam/beam-table';
 import { formatNumber } from './number-format';
 import type { CalcResult, Extreme } from './result';
 import { UNIT_LABELS } from './units';
 
 /* Plain-text rendering of a result for the command line: aligned columns, units in the headers. */
-const n = (v: number | null | undefined, digits = 4): string => (v === null || v === undefined ? '—' : formatNumber(v, digits));
+export const n = (v: number | null | undefined, digits = 4): string => (v === null || v === undefined ? '—' : formatNumber(v, digits));
 
-function columns(header: string[], rows: string[][]): string {
+export function columns(header: string[], rows: string[][]): string {
   const widths = header.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i].length)));
   const line = (cells: string[]): string => cells.map((c, i) => c.padStart(widths[i])).join('  ').trimEnd();
   return [line(header), line(widths.map((w) => '-'.repeat(w))), ...rows.map(line)].join('\n');
@@ -56,6 +57,7 @@ export function formatResultTable(r: CalcResult): string {
     '', 'Segments (plain section, nominal stresses)', segmentTable(r),
   ];
   if (r.features.length) parts.push('', 'Features (peak stresses with Kf, Kfs)', featureTable(r));
+  parts.push(...beamTables(r));
   parts.push('', 'Whole shaft', summary(r));
   if (r.warnings.length) parts.push('', 'Warnings', ...r.warnings.map((w) => `  - ${w.path}: ${w.message}`));
   parts.push('', `CAUTION: ${r.caution}`);

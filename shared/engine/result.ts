@@ -1,3 +1,4 @@
+import type { BeamResults } from './beam/beam-result';
 import type { SafetyByCriterion } from './fatigue-criteria';
 import type { CalcIssue } from './issue-messages';
 import type { UnitSystem } from './units';
@@ -76,6 +77,9 @@ export interface FeatureResult extends StaticStress {
   rOverD: number | null; DOverd: number | null; tOverR: number | null;
   Kt: number; Kts: number; q: number; qs: number; Kf: number; Kfs: number;
   method: FeatureMethods;
+  /** Resultant bending moment at the station from the beam model (0 without supports). */
+  M: number;
+  /** Ma = M (rotating shaft) + author-entered Ma; Mm = author-entered Mm. */
   Ma: number; Mm: number; Ta: number; Tm: number;
   nominal: StressSet; peak: StressSet;
   endurance: Endurance | null;
@@ -96,7 +100,7 @@ export interface ResolvedTorque {
   index: number; at: number; T: number; Ta: number; isFromPower: boolean;
 }
 
-export interface CalcResult {
+export interface CalcResult extends BeamResults {
   engineVersion: string;
   units: UnitSystem;
   caution: string;

@@ -1,7 +1,8 @@
 import { z } from 'zod';
+import { beamInputFields, densityField } from './beam/beam-schema';
 
 /*
- * Interchange format v1 of a shaft calc. The schema holds no transforms or defaults, so the JSON
+ * Interchange format v2 of a shaft calc (v1 plus bearings, loads, masses and speed: beam/beam-schema.ts). The schema holds no transforms or defaults, so the JSON
  * Schema generated from it (calc-input.schema.json) describes exactly what the engine accepts;
  * defaults are applied in model.ts and cross-field rules live in the semantic checks.
  */
@@ -24,6 +25,7 @@ export const materialSchema = z.strictObject({
   Sy: z.number().positive().meta({ description: `Yield strength, ${STRESS}` }),
   Su: z.number().positive().meta({ description: `Ultimate tensile strength, ${STRESS}` }),
   nu: z.number().gt(0).lt(0.5).optional().meta({ description: "Poisson's ratio" }),
+  density: densityField,
   source,
 });
 
@@ -123,7 +125,8 @@ export const calcInputSchema = z.strictObject({
   features: z.array(featureSchema).max(200).optional(),
   bending: z.array(bendingSchema).max(200).optional(),
   fatigue: fatigueSchema.optional(),
-}).meta({ title: 'Torquetrail shaft calc input, format v1' });
+  ...beamInputFields,
+}).meta({ title: 'Torquetrail shaft calc input, format v2 (v1 files are valid v2)' });
 
 export type CalcInput = z.infer<typeof calcInputSchema>;
 export type MaterialInput = z.infer<typeof materialSchema>;

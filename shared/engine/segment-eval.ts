@@ -1,4 +1,4 @@
-import { momentAt } from './bending-diagram';
+import { bendingAt } from './beam/bending-at';
 import { enduranceOut } from './endurance';
 import { fatigueSafety } from './fatigue-criteria';
 import type { Model, Seg } from './model';
@@ -15,7 +15,7 @@ interface Scan {
 
 // One candidate point: nominal stresses of the plain section from M(x) and the piece's torque.
 function considerPoint(model: Model, seg: Seg, se: Endurance | null, scan: Scan, x: number, p: Piece): void {
-  const { Ma, Mm } = momentAt(model.moments, x);
+  const { Ma, Mm } = bendingAt(model, x);
   const sa = Ma / seg.Z;
   const sm = Mm / seg.Z;
   const ta = p.Ta / seg.Zp;
@@ -37,7 +37,7 @@ function scanSegment(model: Model, seg: Seg, pieces: readonly Piece[], se: Endur
   for (const p of pieces) {
     if (p.segment !== seg.index) continue;
     considerPoint(model, seg, se, scan, p.start, p);
-    for (const m of model.moments) if (m.at > p.start && m.at < p.end) considerPoint(model, seg, se, scan, m.at, p);
+    for (const at of model.bendingStations ?? []) if (at > p.start && at < p.end) considerPoint(model, seg, se, scan, at, p);
     considerPoint(model, seg, se, scan, p.end, p);
   }
   return scan;

@@ -1,11 +1,13 @@
 import { fromSI, type UnitSystem } from '../engine';
 import { errorText, type ClauseOutcome } from './clause-outcome';
+import { PLAIN_QUANTITIES } from './fact-registry';
 import type { ChecklistRow } from './checklist-types';
 import type { Facts } from './facts';
 import { withinLimit } from './limit-tolerance';
 import type { Target } from './locations';
 import type { PreparedClause, PreparedMeasure } from './prepared-rule-set';
 import { shortNumber } from './short-number';
+import { nonFiniteFact } from './clause-facts';
 
 interface Measured {
   actual: number | null;
@@ -23,8 +25,8 @@ function lookup(name: string, facts: Facts, params: Facts): number | null {
 
 /** Actual and limit of the measure, converted from SI to the calc's units (throws on an unknown name). */
 function measured(m: PreparedMeasure, facts: Facts, params: Facts, units: UnitSystem): Measured {
-  const isPlain = units === 'SI' || m.quantity === '1' || m.quantity === 'angle';
-  const q = m.quantity as Exclude<PreparedMeasure['quantity'], '1'>;
+  const isPlain = units === 'SI' || PLAIN_QUANTITIES.has(m.quantity);
+  const q = m.quantity as 'length' | 'torque' | 'stress' | 'modulus' | 'twistPerLength';
   const shown = (v: number | null): number | null => (v === null || isPlain ? v : fromSI(v, q, units));
   return { actual: shown(lookup(m.actual, facts, params)), limit: shown(lookup(m.limit, facts, params)), unit: m.unit[units] };
 }
@@ -72,15 +74,22 @@ function fill(row: ChecklistRow, m: PreparedMeasure, t: Target, params: Facts, u
   }
 }
 
+function nonFiniteFactError(p: PreparedClause, t: Target, params: Facts): string | null {
+  const fact = nonFiniteFact(p.clause, t.facts, params);
+  return fact === null ? null : `${fact} is not a finite number; the inputs are outside the range this check can evaluate`;
+}
+
 /** One checklist row from a clause's outcome at one location. Never throws. */
 export function buildRow(p: PreparedClause, t: Target, outcome: ClauseOutcome, params: Facts, units: UnitSystem): ChecklistRow {
   const row: ChecklistRow = {
     clauseId: p.clause.id, clauseTitle: p.clause.title, reference: p.reference, severity: p.clause.severity, status: 'not-applicable',
     location: t.location, actual: null, limit: null, unit: '', utilisation: null, utilisationBasis: null, message: 'does not apply here', warnings: [],
   };
-  if (outcome.error !== null) {
+  // A non-finite fact compares false everywhere, so "not applicable" or "pass" would be a guess.
+  const bad = outcome.error ?? nonFiniteFactError(p, t, params);
+  if (bad !== null) {
     row.status = 'error';
-    row.message = `could not be evaluated: ${outcome.error}`;
+    row.message = `could not be evaluated: ${bad}`;
     return row;
   }
   if (!outcome.applies) return row;

@@ -23,7 +23,8 @@ function targetsByScope(input: CalcInput, result: CalcResult, ruleSet: RuleSet):
       + `is not of this input (${input.segments.length} segments, ${nf} features, ${input.units}); evaluate the input first`);
   }
   const facts = locationFacts(input, result, ruleSet);
-  return { shaft: targetsOf('shaft', input, result, facts), segment: targetsOf('segment', input, result, facts), feature: targetsOf('feature', input, result, facts) };
+  const of = (scope: Scope): Target[] => targetsOf(scope, input, result, facts);
+  return { shaft: of('shaft'), segment: of('segment'), feature: of('feature'), support: of('support'), load: of('load') };
 }
 
 // An engine warning about a segment or feature (a fit used outside its range, say) belongs on

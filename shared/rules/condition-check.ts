@@ -17,8 +17,10 @@ function checkNeeds(t: RefType, at: string, ctx: CheckContext): void {
   for (const name of t.needs ?? []) {
     const p = ctx.params.get(name);
     if (!p) ctx.out.push({ path: at, message: `${t.what} is computed from parameter "${name}", which the rule set does not define` });
-    else if (typeof p.value !== 'number' || p.unit !== '1') {
-      ctx.out.push({ path: at, message: `${t.what} needs parameter "${name}" as a dimensionless number (unit "1")` });
+    else if (typeof p.value !== 'number' || p.unit !== (t.unit === 'rad' ? 'rad' : '1')) {
+      // A derived limit (allowableSlope) carries the unit of its parameters; the ASME fractions are dimensionless.
+      const unit = t.unit === 'rad' ? 'rad' : '1';
+      ctx.out.push({ path: at, message: `${t.what} needs parameter "${name}" as a number in unit "${unit}"` });
     }
   }
 }

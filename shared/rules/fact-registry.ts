@@ -1,4 +1,6 @@
-import { UNIT_LABELS } from '../engine';
+import { SUPPORT_KINDS, UNIT_LABELS } from '../engine';
+import { LOAD, SLOPE_PARAMS, SUPPORT } from './beam-facts-registry';
+import { bool, num, str, type FactQuantity, type FactSpec } from './fact-spec';
 import type { Scope } from './rule-set-schema';
 
 /*
@@ -6,24 +8,8 @@ import type { Scope } from './rule-set-schema';
  * refuses unknown facts). Values are in SI whatever the calc's unit system, so one rule set serves
  * SI and US calcs; the checklist converts actual and limit back to the calc's units for display.
  */
-export type FactType = 'number' | 'boolean' | 'string' | 'object';
-export type FactQuantity = 'length' | 'torque' | 'stress' | 'modulus' | 'angle' | 'twistPerLength' | '1';
-
-export interface FactSpec {
-  type: FactType;
-  /** null means "not computed here" (no key data, no fatigue block) or "no load" for safety factors. */
-  isNullable: boolean;
-  quantity: FactQuantity | null;
-  label: string;
-  /** Allowed values of a string fact, members of an object fact. */
-  values?: readonly string[];
-  /** Parameters a derived fact is computed from; the rule set must define them as numbers. */
-  params?: readonly string[];
-}
-
-const num = (quantity: FactQuantity, label: string, isNullable = false): FactSpec => ({ type: 'number', isNullable, quantity, label });
-const bool = (label: string): FactSpec => ({ type: 'boolean', isNullable: false, quantity: null, label });
-const str = (label: string, values?: readonly string[], isNullable = false): FactSpec => ({ type: 'string', isNullable, quantity: null, label, values });
+export type { FactType, FactQuantity, FactSpec } from './fact-spec';
+export { PLAIN_QUANTITIES } from './fact-spec';
 
 export const MATERIAL_KINDS = ['steel', 'stainless-steel', 'aluminium', 'cast-iron', 'other'] as const;
 export const FEATURE_TYPES = ['shoulder-fillet', 'keyseat', 'ring-groove', 'cross-hole'] as const;
@@ -47,6 +33,11 @@ const SHAFT: Record<string, FactSpec> = {
   tauMax: num('stress', 'largest nominal shear stress τmax'),
   minYieldSafety: num('1', 'lowest yield safety factor', true),
   minFatigueSafety: num('1', 'lowest fatigue safety factor (rule-set criterion)', true),
+  hasSupports: bool('bearings entered (beam model solved)'),
+  maxDeflection: num('length', 'largest transverse deflection (resultant)', true),
+  criticalSpeed: num('speed', 'first bending critical speed', true),
+  operatingSpeed: num('speed', 'operating speed', true),
+  criticalSpeedRatio: num('1', 'ratio of first critical speed to operating speed', true),
 };
 
 const SEGMENT: Record<string, FactSpec> = {
@@ -90,14 +81,24 @@ const FEATURE: Record<string, FactSpec> = {
   hasKey: bool('key dimensions given'),
   keyShearStress: num('stress', 'key shear stress', true), keyBearingStress: num('stress', 'key bearing stress', true),
   keyShearSafety: num('1', 'key shear safety factor', true), keyBearingSafety: num('1', 'key bearing safety factor', true),
+  M: num('torque', 'bending moment from the beam model'), isBendingFromModel: bool('bending moment computed from loads and bearings'),
 };
 
-export const FACTS: Readonly<Record<Scope, Readonly<Record<string, FactSpec>>>> = { shaft: SHAFT, segment: SEGMENT, feature: FEATURE };
+export const FACTS: Readonly<Record<Scope, Readonly<Record<string, FactSpec>>>> = {
+  shaft: SHAFT, segment: SEGMENT, feature: FEATURE, support: SUPPORT, load: LOAD,
+};
+export { SLOPE_PARAMS, SUPPORT_KINDS };
+
+/** Unit label of a fact quantity in a unit system. */
+export function quantityUnit(q: FactQuantity, system: 'SI' | 'US'): string {
+  if (q === '1' || q === 'rad' || q === 'h') return q;
+  return UNIT_LABELS[system][q];
+}
 
 /** SI unit label of a fact (the unit its value and any limit compared with it are in). */
 export function factUnit(spec: FactSpec): string {
   if (spec.quantity === null) return '';
-  return spec.quantity === '1' ? '1' : UNIT_LABELS.SI[spec.quantity];
+  return quantityUnit(spec.quantity, 'SI');
 }
 
 export function factSpec(scope: Scope, name: string): FactSpec | undefined {

@@ -1,7 +1,7 @@
 import { PARAM_PREFIX } from './condition-schema';
 import { factSpec, factUnit, FACTS } from './fact-registry';
 import type { RuleSetIssue } from './rule-set-issues';
-import type { Parameter, Scope } from './rule-set-schema';
+import { SCOPES, type Parameter, type Scope } from './rule-set-schema';
 
 /** What a fact or parameter reference stands for, as far as type checking is concerned. */
 export interface RefType {
@@ -74,7 +74,7 @@ export function refType(fact: string, path: string | undefined, at: string, ctx:
   }
   const spec = factSpec(ctx.scope, fact);
   if (!spec) {
-    const elsewhere = (['shaft', 'segment', 'feature'] as const).filter((s) => s !== ctx.scope && factSpec(s, fact));
+    const elsewhere = SCOPES.filter((s) => s !== ctx.scope && factSpec(s, fact));
     const hint = elsewhere.length ? ` (it is a fact of scope ${elsewhere.join(', ')})` : suggestion(fact, Object.keys(FACTS[ctx.scope]));
     ctx.out.push({ path: at, message: `unknown fact "${fact}" for scope ${ctx.scope}${hint}` });
     return null;

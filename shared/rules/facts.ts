@@ -1,5 +1,6 @@
 import { toSI, type CalcInput, type CalcResult, type FeatureResult, type SafetyByCriterion, type SegmentResult } from '../engine';
-import type { FactQuantity } from './fact-registry';
+import { loadFacts, shaftBeamFacts, supportFacts } from './beam-facts';
+import { PLAIN_QUANTITIES, type FactQuantity } from './fact-registry';
 import { preparedFor } from './prepared-rule-set';
 import type { FatigueCriterion, RuleSet } from './rule-set-schema';
 
@@ -9,17 +10,19 @@ export interface LocationFacts {
   shaft: Facts;
   segments: Facts[];
   features: Facts[];
+  supports: Facts[];
+  loads: Facts[];
 }
 
 export const CRITERION_KEY: Readonly<Record<FatigueCriterion, keyof SafetyByCriterion>> = {
   'DE-Goodman': 'goodman', 'DE-ASME-elliptic': 'asmeElliptic', 'DE-Gerber': 'gerber', 'DE-Soderberg': 'soderberg',
 };
 
-type ToSI = (value: number, quantity: FactQuantity) => number;
+export type ToSI = (value: number, quantity: FactQuantity) => number;
 
 function converter(units: CalcInput['units']): ToSI {
   if (units === 'SI') return (v) => v;
-  return (v, q) => (q === '1' || q === 'angle' ? v : toSI(v, q, 'US'));
+  return (v, q) => (PLAIN_QUANTITIES.has(q) ? v : toSI(v, q as 'length' | 'torque' | 'stress' | 'modulus' | 'twistPerLength', 'US'));
 }
 
 function materialKindOf(input: CalcInput, segment: number): string {
@@ -59,7 +62,7 @@ function nullableSI(v: number | null | undefined, q: FactQuantity, si: ToSI): nu
   return v === null || v === undefined ? null : si(v, q);
 }
 
-function featureFacts(f: FeatureResult, input: CalcInput, ruleSet: RuleSet, si: ToSI): Facts {
+function featureFacts(f: FeatureResult, input: CalcInput, result: CalcResult, ruleSet: RuleSet, si: ToSI): Facts {
   const ft = (input.features ?? [])[f.index];
   const seg = input.segments[f.segment];
   return {
@@ -75,6 +78,7 @@ function featureFacts(f: FeatureResult, input: CalcInput, ruleSet: RuleSet, si: 
     fatigueSafetyBy: f.fatigueSafety, hasKey: f.key !== null,
     keyShearStress: nullableSI(f.key?.shearStress, 'stress', si), keyBearingStress: nullableSI(f.key?.bearingStress, 'stress', si),
     keyShearSafety: f.key?.shearSafety ?? null, keyBearingSafety: f.key?.bearingSafety ?? null,
+    M: si(f.M, 'torque'), isBendingFromModel: result.supports.length >= 2,
   };
 }
 
@@ -87,6 +91,7 @@ function shaftFacts(input: CalcInput, result: CalcResult, ruleSet: RuleSet, si: 
     hasKeyseat: result.segments.some((s) => s.hasKeyseat), engineWarningCount: result.warnings.length,
     length: si(result.length, 'length'), twistTotal: Math.abs(result.twistTotal), tauMax: si(result.maxShear.value, 'stress'),
     minYieldSafety: result.minYieldSafety?.value ?? null, minFatigueSafety: fatigue?.value ?? null,
+    ...shaftBeamFacts(result, si),
   };
 }
 
@@ -96,6 +101,8 @@ export function locationFacts(input: CalcInput, result: CalcResult, ruleSet: Rul
   return {
     shaft: shaftFacts(input, result, ruleSet, si),
     segments: result.segments.map((s) => segmentFacts(s, input, ruleSet, si)),
-    features: result.features.map((f) => featureFacts(f, input, ruleSet, si)),
+    features: result.features.map((f) => featureFacts(f, input, result, ruleSet, si)),
+    supports: result.supports.map((s) => supportFacts(s, ruleSet, si)),
+    loads: result.loads.map((l) => loadFacts(l, si)),
   };
 }

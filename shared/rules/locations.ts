@@ -22,6 +22,18 @@ export function targetsOf(scope: Scope, input: CalcInput, result: CalcResult, fa
       facts: facts.segments[i],
     }));
   }
+  if (scope === 'support') {
+    return result.supports.map((s, i) => ({
+      location: { scope, index: i, at: s.at, label: `bearing ${i + 1}${quoted(s.label)} (${s.kind}) at ${f(s.at)} ${len}` },
+      facts: facts.supports[i],
+    }));
+  }
+  if (scope === 'load') {
+    return result.loads.map((l, i) => ({
+      location: { scope, index: i, at: l.at, label: `${l.kind} at ${f(l.at)} ${len}${quoted(l.label)}` },
+      facts: facts.loads[i],
+    }));
+  }
   return result.features.map((ft, i) => ({
     location: { scope, index: i, at: ft.at, label: `${ft.type} at ${f(ft.at)} ${len}${quoted(ft.label)}` },
     facts: facts.features[i],

@@ -1,5 +1,5 @@
-import { UNIT_LABELS, type UnitSystem } from '../engine';
-import { ASME_PARAMS, factSpec, type FactQuantity } from './fact-registry';
+import type { UnitSystem } from '../engine';
+import { ASME_PARAMS, factSpec, quantityUnit, type FactQuantity } from './fact-registry';
 import { PARAM_PREFIX } from './condition-schema';
 import type { Facts } from './facts';
 import { RuleSetCache } from './rule-set-cache';
@@ -37,7 +37,7 @@ function prepareMeasure(ruleSet: RuleSet, clause: Clause): PreparedMeasure | nul
   if (!m) return null;
   const spec = factSpec(clause.scope, m.actual);
   const quantity = spec?.quantity ?? '1';
-  const unitIn = (s: UnitSystem): string => (quantity === '1' ? '1' : UNIT_LABELS[s][quantity]);
+  const unitIn = (s: UnitSystem): string => quantityUnit(quantity, s);
   return {
     actual: m.actual, limit: m.limit, isAtMost: m.sense === 'at-most', quantity, unit: { SI: unitIn('SI'), US: unitIn('US') },
     label: (spec?.label ?? m.actual).replace('rule-set criterion', ruleSet.methods.fatigueCriterion),

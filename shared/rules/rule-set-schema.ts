@@ -10,7 +10,7 @@ import { topConditionSchema } from './condition-schema';
 const text = (max: number, description: string) => z.string().trim().min(1).max(max).meta({ description });
 const identifier = /^[a-z][A-Za-z0-9]*$/;
 
-export const SCOPES = ['shaft', 'segment', 'feature'] as const;
+export const SCOPES = ['shaft', 'segment', 'feature', 'support', 'load'] as const;
 export type Scope = (typeof SCOPES)[number];
 
 export const FATIGUE_CRITERIA = ['DE-Goodman', 'DE-ASME-elliptic', 'DE-Gerber', 'DE-Soderberg'] as const;

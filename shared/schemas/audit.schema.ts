@@ -1,7 +1,7 @@
 import { z } from 'zod';
-import { pageQuerySchema } from './common.schema';
+import { decimalId, pageQuerySchema } from './common.schema';
 
-const id = z.coerce.number({ error: 'must be a number' }).int().positive().optional();
+const id = decimalId().optional();
 const day = z.iso.date({ error: 'must be a date (YYYY-MM-DD)' }).optional();
 
 export const auditQuerySchema = pageQuerySchema.extend({
@@ -12,8 +12,13 @@ export const auditQuerySchema = pageQuerySchema.extend({
   userId: id,
   from: day,
   to: day,
+  /** Keyset paging: entries older than this id (the last id of the previous page). */
+  after: id,
 }).refine((q) => !q.from || !q.to || q.from <= q.to, { message: 'must not be after "to"', path: ['from'] });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;
+
+/** What an audit row is about, as people name it, with a link to open it where there is one. */
+export interface AuditRecordRef { label: string; link: string | null }
 
 export interface AuditEventDto {
   id: number;
@@ -23,8 +28,12 @@ export interface AuditEventDto {
   action: string;
   entityType: string;
   entityId: string | null;
+  /** Added when listing (audit-records.ts); the stored row itself keeps only type and id. */
+  record?: AuditRecordRef;
   payload: unknown;
+  /** Lists leave the diff out (it can be large): `hasDiff` says one exists; GET /api/audit/:id has it. */
   diff: string | null;
+  hasDiff: boolean;
   prevHash: string;
   hash: string;
 }

@@ -53,7 +53,19 @@ export interface RevisionDto extends RevisionSummary {
 
 export interface CalcDto {
   id: number; projectId: number; projectCode: string; projectName: string;
+  /** The project is archived: the calc is a closed, read-only record. */
+  projectArchived: boolean;
   number: string; title: string; partRef: string; createdAt: string;
   latest: RevisionSummary;
   revisions: RevisionSummary[];
+}
+
+/** One row of a calc list, read from the summary columns kept on the calc (never the revision texts). */
+export interface CalcListItem {
+  id: number; projectId: number; projectCode: string;
+  number: string; title: string; partRef: string;
+  latest: {
+    id: number; label: string; status: RevisionState; verdict: string | null;
+    author: PersonRef; ruleSet: { id: number; code: string; version: number }; updatedAt: string;
+  };
 }

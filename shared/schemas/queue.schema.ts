@@ -1,3 +1,4 @@
+import type { KeysetPage } from './common.schema';
 import type { RevisionState } from './revision.schema';
 
 export const QUEUE_KEYS = ['my-drafts', 'returned-to-me', 'awaiting-my-check', 'awaiting-my-approval'] as const;
@@ -17,4 +18,5 @@ export interface QueueItem {
   since: string;
 }
 
-export interface QueueDto { key: QueueKey; label: string; items: QueueItem[] }
+/** One page of a queue, oldest first; the first page carries the (capped) count. */
+export interface QueueDto extends KeysetPage<QueueItem> { key: QueueKey; label: string }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { cursorSchema, decimalId, jsonDocumentSchema } from './common.schema';
 
 export const REVISION_STATES = ['draft', 'in_check', 'returned', 'checked', 'approved', 'superseded', 'withdrawn'] as const;
 export type RevisionState = (typeof REVISION_STATES)[number];
@@ -15,8 +16,7 @@ const calcNumber = z.string({ error: 'is required' }).trim().min(2, 'must be at 
   .regex(/^[A-Za-z0-9][A-Za-z0-9./-]*$/, 'may use letters, digits, dot, slash and dash');
 
 /** The author's input is kept even while incomplete, so autosave never loses work; 256 kB is ample. */
-export const draftInputSchema = z.record(z.string(), z.unknown(), { error: 'must be a JSON object' })
-  .refine((v) => JSON.stringify(v).length <= 262_144, 'is larger than 256 kB');
+export const draftInputSchema = jsonDocumentSchema(256, 12);
 
 export const createCalcSchema = z.object({
   projectId: z.number({ error: 'must be a number' }).int().positive(),
@@ -72,11 +72,12 @@ export const manualItemSchema = z.object({
 }).strict();
 
 export const calcListQuerySchema = z.object({
-  projectId: z.coerce.number().int().positive().optional(),
+  projectId: decimalId('a project id').optional(),
   status: z.enum(REVISION_STATES).optional(),
   q: z.string().trim().max(100).optional(),
-  page: z.coerce.number().int().min(0).default(0),
-  size: z.coerce.number().int().min(1).max(200).default(25),
+  /** The `next` cursor of the previous page; without it the list starts at the top and is counted. */
+  after: cursorSchema,
+  size: z.coerce.number().int().min(1).max(200).default(50),
   sort: z.enum(['number', 'title', 'updatedAt', 'status']).default('updatedAt'),
   dir: z.enum(['asc', 'desc']).default('desc'),
 });

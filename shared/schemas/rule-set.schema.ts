@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { jsonDocumentSchema } from './common.schema';
 
 export const RULE_SET_STATUSES = ['draft', 'effective', 'retired'] as const;
 
@@ -7,7 +8,8 @@ export const createDraftSchema = z.object({
 }).strict();
 
 export const updateDraftSchema = z.object({
-  document: z.record(z.string(), z.unknown(), { error: 'must be a JSON object' }),
+  // Shipped standards are about 20 kB and 7 levels deep; the caps leave room for much larger ones.
+  document: jsonDocumentSchema(512, 24),
   lockVersion: z.number({ error: 'is required' }).int().min(0),
 }).strict();
 

@@ -33,6 +33,8 @@ export interface UserDto {
   displayName: string;
   email: string;
   roles: z.infer<typeof roleSchema>[];
+  /** Signing roles asked for this person, waiting for a second person's confirmation. */
+  pendingRoles: z.infer<typeof roleSchema>[];
   active: boolean;
   /** An administrator requires a one-time code from this person when they sign. */
   secondFactorRequired: boolean;

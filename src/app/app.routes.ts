@@ -63,6 +63,12 @@ export const routes: Routes = [
         canActivate: [abilityGuard('create', 'User')],
         loadComponent: () => import('./features/admin/users/users-page'),
       },
+      {
+        path: 'role-confirmations',
+        title: 'Role confirmations · Torquetrail',
+        canActivate: [abilityGuard('read', 'RoleGrant')],
+        loadComponent: () => import('./features/admin/users/role-grants-page'),
+      },
       { path: 'verify', title: 'Verify a record · Torquetrail', loadComponent: () => import('./features/records/verify-page') },
       { path: 'verify/:hash', title: 'Verify a record · Torquetrail', loadComponent: () => import('./features/records/verify-page') },
       {

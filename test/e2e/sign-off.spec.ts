@@ -50,7 +50,7 @@ describe('one calc from draft to approved, by three people', () => {
     await dialog.getByLabel('Calc number').fill('WT-SH-001');
     await dialog.getByLabel('Title').fill('Walkthrough drive shaft');
     await dialog.getByLabel('Design standard').click();
-    await page.getByRole('option', { name: /KFD-ENG-014 v3/ }).click();
+    await page.getByRole('option', { name: /KFD-ENG-014 v4/ }).click();
     await dialog.getByRole('button', { name: 'Create and open' }).click();
     await page.waitForURL(/\/revisions\/\d+\/edit/);
     const revisionId = Number(/revisions\/(\d+)/.exec(page.url())![1]);

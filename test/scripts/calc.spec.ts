@@ -52,7 +52,7 @@ describe('calc command', () => {
     const ok = calc([FIXTURES]);
     expect(ok.status).toBe(0);
     expect(JSON.parse(ok.stdout).map((o: { file: string }) => o.file)).toEqual(
-      ['five-segment-fatigue.json', 'hollow-si.json', 'solid-si.json', 'stepped-us.json']);
+      ['five-segment-fatigue.json', 'hollow-si.json', 'solid-si.json', 'stepped-us.json', 'two-bearing-gear-pulley.json']);
     const bad = calc([`${FIXTURES}/invalid`]);
     expect(bad.status).toBe(2);
     expect(bad.stderr).toMatch(/^unbalanced\.json: torques: external torques do not balance/m);

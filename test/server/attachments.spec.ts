@@ -52,6 +52,27 @@ describe('uploading and downloading', () => {
     expect(await Attachment.count({ where: { revisionId } })).toBe(0);
   });
 
+  it.each([
+    ['a text file named .pdf, as a drawing', Buffer.from('just some notes\n'), 'drawing.pdf', 'drawing', /is named ".pdf" but its content is plain text/],
+    ['a text file named .txt, as a drawing', Buffer.from('just some notes\n'), 'notes.txt', 'drawing', /is plain text, but a drawing is a PDF/],
+    ['a DXF drawing, as a material certificate', Buffer.from('0\nSECTION\n2\nENTITIES\n0\nENDSEC\n0\nEOF\n'), 'shaft.dxf', 'material-certificate', /a material certificate is a PDF or a scanned image/],
+  ])('when the upload is %s, then its declared kind or name does not match its content and it is refused (400, file)', async (_what, bytes, name, kind, reason) => {
+    const { author, revisionId } = await calcTeam(ctx.app);
+
+    const res = await upload(author.session, revisionId, bytes, { kind }, name);
+
+    expect(res.status).toBe(400);
+    expect(res.body.fieldErrors.file[0]).toMatch(reason);
+    expect(await Attachment.count({ where: { revisionId } })).toBe(0);
+  });
+
+  it('when a plain text note is attached as "Other", then it is accepted and its size reads in bytes', async () => {
+    const { author, revisionId } = await calcTeam(ctx.app);
+    const res = await upload(author.session, revisionId, Buffer.from('belt pull from the tension calc\n'), { kind: 'other' }, 'notes.txt');
+    expect(res.status).toBe(201);
+    expect(res.body).toEqual(expect.objectContaining({ mediaType: 'text/plain', sizeBytes: 32 }));
+  });
+
   it('when the file is over the size limit, then it is refused with 413 and a message naming the limit', async () => {
     const { author, revisionId } = await calcTeam(ctx.app);
 
@@ -122,6 +143,15 @@ describe('who may attach, and when', () => {
     expect(removal.status).toBe(409);
     expect(list.body.canAdd).toBe(false);
     expect(list.body.items.map((a: { id: number }) => a.id)).toContain(early.body.id);
+  });
+
+  it('when a co-editor attached a file to a draft, then its author may remove it before signing', async () => {
+    const { author, checker, revisionId } = await calcTeam(ctx.app);
+    const added = await upload(author.session, revisionId, pdfBytes(), { kind: 'other' });
+    await Attachment.update({ uploadedBy: checker.user.id, uploadedByName: 'a co-editor' }, { where: { id: added.body.id } });
+
+    expect((await author.session.delete(`/api/attachments/${added.body.id}`)).status).toBe(204);
+    expect(await Attachment.count({ where: { revisionId } })).toBe(0);
   });
 
   it('when the uploader removes a file from a draft, then it is gone; someone else may not', async () => {

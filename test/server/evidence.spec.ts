@@ -61,7 +61,7 @@ describe('evidence pack', () => {
   it("when the server's zip reader and unzipper read the same pack, then they agree byte for byte", async () => {
     const { zip } = await approvedCalcPack();
     const theirs = await unzip(zip);
-    const ours = readZip(zip, 100 * 1024 * 1024);
+    const ours = await readZip(zip, 100 * 1024 * 1024);
     expect([...ours.keys()].sort()).toEqual([...theirs.keys()].sort());
     for (const [name, data] of theirs) expect(Buffer.compare(ours.get(name)!, data)).toBe(0);
   });
@@ -78,6 +78,10 @@ describe('evidence pack', () => {
     expect(res.body.ok).toBe(false);
     const failed = res.body.checks.filter((c: { ok: boolean }) => !c.ok).map((c: { name: string }) => c.name);
     expect(failed).toEqual(expect.arrayContaining(['revisions/A/record.json', 'revisions/A/record.json content']));
+    // Every line's mark agrees with its meaning: no signature is ticked as good over altered content.
+    const signatures = res.body.checks.filter((c: { name: string }) => /signature/.test(c.name));
+    expect(signatures).toHaveLength(3);
+    for (const c of signatures) expect(c).toEqual(expect.objectContaining({ ok: false, detail: expect.stringMatching(/not valid for this content/) }));
   });
 
   it('when a file and the manifest are both rewritten to match, then the seal and the record hash still expose it', async () => {
@@ -97,6 +101,7 @@ describe('evidence pack', () => {
     const failed = res.body.checks.filter((c: { ok: boolean }) => !c.ok).map((c: { name: string }) => c.name);
     expect(res.body.ok).toBe(false);
     expect(failed).toEqual(expect.arrayContaining(['seal', 'revisions/A/record.json on record']));
+    expect(failed.filter((n: string) => /signature/.test(n))).toHaveLength(3);
   });
 
   it('when the upload is not a zip, then it is a 400 naming the file field', async () => {

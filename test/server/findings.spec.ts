@@ -92,6 +92,21 @@ describe('answering and closing', () => {
     expect(resubmitted.body.status).toBe('in_check');
   });
 
+  it('when the author answers the same finding twice at once, then one answer is stored and the other is refused with 409', async () => {
+    // Arrange
+    const t = await returnedWithFinding();
+    const since = await lastAuditId();
+
+    // Act
+    const both = await Promise.all(['First answer: chart cited', 'Second answer from another tab'].map((answer) =>
+      t.author.session.post(`/api/findings/${t.findingId}/answer`, { answer })));
+
+    // Assert
+    expect(both.map((r) => r.status).sort()).toEqual([200, 409]);
+    expect(both.find((r) => r.status === 409)!.body.message).toMatch(new RegExp(`Finding F${t.findingId} is already answered`));
+    expect((await auditOf('Revision', t.revisionId, since)).map((e) => e.action)).toEqual(['finding.answered']);
+  });
+
   it.each(['checker', 'approver'] as const)('when the %s answers a finding, then it is refused with 403', async (role) => {
     // Arrange
     const t = await returnedWithFinding();

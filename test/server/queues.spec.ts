@@ -10,7 +10,7 @@ jest.setTimeout(60_000);
 type QueueKey = 'my-drafts' | 'returned-to-me' | 'awaiting-my-check' | 'awaiting-my-approval';
 
 async function queues(s: Session): Promise<Record<string, number[]>> {
-  const res = expectStatus(await s.get('/api/dashboard/queues'), 200, 'queues');
+  const res = expectStatus(await s.get('/api/dashboard/queues?size=500'), 200, 'queues');
   return Object.fromEntries(res.body.map((q: { key: QueueKey; items: { revisionId: number }[] }) => [q.key, q.items.map((i) => i.revisionId)]));
 }
 

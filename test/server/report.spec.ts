@@ -3,6 +3,7 @@ import { calcTeam, revisionOf, sign, tickAll } from '../support/calc-harness';
 import { startTestS3 } from '../support/fake-servers';
 import { pdfBytes, upload } from '../support/upload-harness';
 import { fontsOf, readPdf } from '../support/pdf-harness';
+import { returnedWithFindingOf } from '../support/findings-harness';
 
 // The calc report read back the way a reader's tools see it: Poppler parses the PDF and
 // extracts its text; page one is also rendered to artifacts/reports/ for a person to look at.
@@ -42,6 +43,11 @@ describe('calc report', () => {
     expect(flat).toContain('DRAFT · NOT FOR CONSTRUCTION');
     expect(flat).toContain("Results support, never replace, the judgement of a qualified engineer; local codes and licensed practice govern.");
     expect(flat).toMatch(/τmax/);
+    // Methods are named in words, never by code keys (issue 13, item 18).
+    expect(flat).toContain('Torque diagram');
+    expect(flat).not.toMatch(/torqueDiagram|notchSensitivity|goodman \(1\)|Kf \(1\)/);
+    // Headline figures carry the outcome of the clause that judges them (issue 13, item 10).
+    expect(flat).toMatch(/Lowest yield safety n_y [\d.]+ (?:[A-Z·] )*meets min [\d.]+ \(§5\.[12]\)/);
     expect(flat).toContain('DRG-1 sheet 1.pdf');
     expect(fontsOf(res.body as Buffer)).toMatch(/\+DejaVuSans\s+CID TrueType\s+Identity-H\s+yes yes yes/);
   });
@@ -60,6 +66,13 @@ describe('calc report', () => {
     expect(flat).not.toContain('NOT FOR CONSTRUCTION');
     expect(flat).toContain('APPROVED');
     expect(flat.match(/VALID: matches/g)).toHaveLength(3);
+  });
+
+  it('when a finding is on the revision, then the report numbers it as the screen does (F and its id)', async () => {
+    const t = await returnedWithFindingOf(ctx.app);
+    const { text } = readPdf((await getPdf(t.author.session, t.revisionId)).body as Buffer);
+    const findings = text.replace(/\s+/g, ' ').split('Findings and answers')[1];
+    expect(findings).toMatch(new RegExp(`^( [A-Z·])* No\\. F${t.findingId} (Finding )?Name the chart behind the keyseat`));
   });
 
   it('when the revision does not exist, the id is not a number, or nobody is signed in, then 404, 400 and 401', async () => {

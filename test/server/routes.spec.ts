@@ -23,6 +23,11 @@ const PROTECTED: [Method, string, object?][] = [
   ['get', '/api/audit/verify'],
   ['get', '/api/dashboard'],
   ['post', '/api/auth/password', { currentPassword: 'whatever', newPassword: 'long enough password' }],
+  ['get', '/api/auth/sessions'],
+  ['delete', '/api/auth/sessions/0123456789abcdef0123456789abcdef'],
+  ['get', '/api/role-grants'],
+  ['post', '/api/role-grants/1/confirm', { password: 'whatever' }],
+  ['post', '/api/role-grants/1/refuse', { reason: 'not needed' }],
 ];
 
 const BY_ID: [Method, string, object?][] = [
@@ -31,6 +36,7 @@ const BY_ID: [Method, string, object?][] = [
   ['put', '/api/users/:id/active', { active: false }],
   ['get', '/api/projects/:id'],
   ['patch', '/api/projects/:id', { name: 'Renamed shaft', version: 0 }],
+  ['post', '/api/role-grants/:id/refuse', { reason: 'not needed' }],
 ];
 
 function send(test: Test, body?: object | null): Test {

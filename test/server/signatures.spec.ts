@@ -63,6 +63,25 @@ describe('the password', () => {
   });
 });
 
+describe('what is said first', () => {
+  it('when the checker signs with manual items open, then the reason is the one error, whatever password was typed', async () => {
+    // Arrange
+    const t = await team();
+    await advanceTo('in_check', t.sessions, t.revisionId);
+
+    // Act
+    const withRight = await sign(t.checker.session, t.revisionId, 'checked');
+    const withWrong = await sign(t.checker.session, t.revisionId, 'checked', { password: 'not my password' });
+
+    // Assert
+    for (const res of [withRight, withWrong]) {
+      expect(res.status).toBe(403);
+      expect(res.body.message).toMatch(/Tick the \d+ open manual checklist item/);
+      expect(res.body.fieldErrors ?? {}).toEqual({});
+    }
+  });
+});
+
 describe('idempotency', () => {
   it('when the same sign request is sent twice at once, then both answer 200 and there is exactly one signature, one audit entry and one mail each', async () => {
     // Arrange

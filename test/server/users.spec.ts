@@ -12,14 +12,14 @@ const newUserBody = (overrides: object = {}) => ({
 });
 
 describe('creating users', () => {
-  it('when an admin creates a user, then the new person can sign in with the initial password', async () => {
+  it('when an admin creates a user, then the new person can sign in and their signing roles wait for a second person', async () => {
     const { session: admin } = await signedInAs(app, ['admin']);
     const body = newUserBody();
 
     const res = await admin.post('/api/users', body);
 
     expect(res.status).toBe(201);
-    expect(res.body).toEqual(expect.objectContaining({ username: body.username, roles: ['author', 'checker'], active: true, version: 0 }));
+    expect(res.body).toEqual(expect.objectContaining({ username: body.username, roles: [], pendingRoles: ['author', 'checker'], active: true, version: 0 }));
     expect(JSON.stringify(res.body)).not.toMatch(/password/i);
     await expect(signedInAgent(app, body.username)).resolves.toBeDefined();
   });

@@ -6,11 +6,15 @@ import { loadConfig, type Config } from '../../server/config';
 import { createSequelize } from '../../server/db';
 import { createApp } from '../../server/app';
 import { Project, User, UserRole } from '../../server/db/models';
-import { hashPassword } from '../../server/auth/password';
+import { hash } from '@node-rs/argon2';
 import type { Role } from '../../shared/authz/roles';
 
 export const TEST_PASSWORD = 'correct horse battery staple';
 let cachedHash: Promise<string> | undefined;
+// Test users get a cheap Argon2id hash (verification reads the cost from the hash itself), so the
+// many sign-ins and signatures of the API tests do not queue on CPU-bound hashing; password.spec.ts
+// proves that the product's own hashes use the production cost.
+const TEST_HASH_COST = { algorithm: 2 /* Argon2id */, memoryCost: 1_024, timeCost: 1, parallelism: 1 } as const;
 
 /** A real app on the real test database; one per test file. */
 export function startTestApp(overrides: Partial<Config> = {}): { app: Express; sequelize: Sequelize; config: Config } {
@@ -21,7 +25,7 @@ export function startTestApp(overrides: Partial<Config> = {}): { app: Express; s
 
 /** Inserts a user with the given roles; usernames are unique per call so tests never collide. */
 export async function createTestUser(roles: Role[], prefix = roles.join('-') || 'nobody') {
-  cachedHash ??= hashPassword(TEST_PASSWORD);
+  cachedHash ??= hash(TEST_PASSWORD, TEST_HASH_COST);
   const username = `${prefix}-${randomUUID().slice(0, 8)}`.toLowerCase();
   const user = await User.create({ username, displayName: `Test ${prefix}`, email: `${username}@example.test`, passwordHash: await cachedHash });
   await UserRole.bulkCreate(roles.map((role) => ({ userId: user.id, role })));

@@ -32,7 +32,7 @@ export async function seedDemoCalcs(sequelize: Sequelize, baseUrl: string, attac
   const review = new ReviewService(sequelize, workflow);
   const lifecycle = new LifecycleService(sequelize, calcs);
   const [hale, okafor, lindqvist, marsh] = await Promise.all(['author', 'checker', 'approver', 'senior'].map(personOf));
-  const ruleSetId = (await RuleSetRecord.findOne({ where: { code: 'KFD-ENG-014', status: 'effective' } }))!.id;
+  const ruleSetId = (await RuleSetRecord.findOne({ where: { code: 'KFD-ENG-014', status: 'effective' }, order: [['version', 'DESC']] }))!.id;
   const project = async (code: string) => (await Project.findOne({ where: { code } }))!.id;
   const readAs = (p: Person, id: number) => readRevision(p.ability, id);
 
@@ -87,5 +87,5 @@ export async function seedDemoCalcs(sequelize: Sequelize, baseUrl: string, attac
   const stub = await start(hale, 'KFD-MX80', 'MX80-SH-002', 'Agitator shaft, standard hub seat', 'DRG MX80-1200', mixerShaft());
   await submit(hale, stub);
   const stubRev = await readAs(okafor, stub);
-  await review.returnToAuthor(okafor.ability, okafor, stub, 'The bending moment at the flange spigot looks low for an 80 m³ tank; show where 2.5 kN·m comes from (impeller side load at the design liquid level).', stubRev.lockVersion);
+  await review.returnToAuthor(okafor.ability, okafor, stub, 'The impeller side load of 580 N looks low for an 80 m³ tank; show where it comes from (hydraulic side load at the design liquid level).', stubRev.lockVersion);
 }

@@ -1,13 +1,14 @@
 /**
  * Invented shafts of the Kestrel Fen Drives demo. Material values: AISI grades' minimum strengths
  * from Shigley Table A-20 and carbon-steel elastic constants from Table A-5; everything else
- * (dimensions, duties, names) is invented for the demo.
+ * (dimensions, duties, loads, bearing ratings, names) is invented for the demo. Bending moments come
+ * from the bearings and loads (beam model), not from hand-entered values.
  */
 const STEEL_1045_CD = { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, nu: 0.292, Sy: 530, Su: 630, source: 'Shigley Table A-20 (minimum), Table A-5' };
 const STEEL_1045_HR = { name: 'AISI 1045 HR', kind: 'steel', E: 207, G: 79.3, nu: 0.292, Sy: 310, Su: 570, source: 'Shigley Table A-20 (minimum), Table A-5' };
 const STEEL_1020_CD = { name: 'AISI 1020 CD', kind: 'steel', E: 207, G: 79.3, nu: 0.292, Sy: 390, Su: 470, source: 'Shigley Table A-20 (minimum), Table A-5' };
 
-/** SP-450 slurry pump drive shaft: 75 kW at 1480 rpm from the motor coupling to the impeller. */
+/** SP-450 slurry pump drive shaft: 75 kW at 1480 rpm from the motor coupling to the overhung impeller. */
 export function slurryPumpShaft(impellerSeat = 55): Record<string, unknown> {
   return {
     title: 'SP-450 pump drive shaft', units: 'SI', material: STEEL_1045_CD,
@@ -26,30 +27,47 @@ export function slurryPumpShaft(impellerSeat = 55): Record<string, unknown> {
       { type: 'shoulder-fillet', at: 200, r: 2.5, label: 'sleeve shoulder' },
       { type: 'keyseat', form: 'end-mill', at: 730, width: 16, height: 10, length: 100, Sy: 390, label: 'impeller key' },
     ],
-    bending: [{ at: 222, Ma: 0 }, { at: 430, Ma: 650 }, { at: 647, Ma: 0 }, { at: 730, Ma: 380 }],
+    supports: [
+      { label: 'drive-end bearing', at: 222.5, kind: 'deep-groove-ball', C: 119, locating: true, X: 0.56, Y: 1.6 },
+      { label: 'wet-end bearing', at: 647.5, kind: 'cylindrical-roller', C: 280 },
+    ],
+    loads: [
+      { label: 'motor coupling', at: 40, kind: 'coupling', Fy: 350 },
+      { label: 'impeller radial thrust', at: 730, Fy: -5200, Fz: 1800, Fx: -2500 },
+    ],
+    masses: [{ label: 'coupling half', at: 40, mass: 18 }, { label: 'impeller', at: 730, mass: 95 }],
     fatigue: { surface: 'machined', reliability: 99, alternatingTorqueFraction: 0.15 },
   };
 }
 
-/** CV-1200 conveyor head shaft: 30 kW at 45 rpm through a shrink disc to a keyed pulley hub. */
+/** CV-1200 conveyor head shaft: 30 kW at 45 rpm from an overhung final-drive gear to the two keyed hubs of the belt drum. */
 export function conveyorHeadShaft(hubSeat = 120): Record<string, unknown> {
   return {
     title: 'CV-1200 head pulley shaft', units: 'SI', material: STEEL_1045_HR,
     segments: [
-      { label: 'gearbox hollow-shaft seat', length: 220, od: 110, id: 0 },
+      { label: 'final-drive gear seat', length: 220, od: 110, id: 0 },
       { label: 'bearing', length: 90, od: 125, id: 0 },
       { label: 'hub seat', length: 180, od: hubSeat, id: 0 },
       { label: 'body', length: 1050, od: 140, id: 0 },
       { label: 'hub seat', length: 180, od: hubSeat, id: 0 },
       { label: 'bearing', length: 90, od: 125, id: 0 },
     ],
-    torques: [{ label: 'gearbox', at: 110, power: 30, speed: 45 }, { label: 'drive-side hub', at: 400, power: -18, speed: 45 }, { label: 'idle-side hub', at: 1630, power: -12, speed: 45 }],
+    torques: [{ label: 'final-drive gear', at: 110, power: 30, speed: 45 }, { label: 'drive-side hub', at: 400, power: -18, speed: 45 }, { label: 'idle-side hub', at: 1630, power: -12, speed: 45 }],
     features: [
-      { type: 'shoulder-fillet', at: 220, r: 4, label: 'gearbox shoulder' },
+      { type: 'shoulder-fillet', at: 220, r: 4, label: 'gear seat shoulder' },
       { type: 'keyseat', form: 'sled-runner', at: 400, width: 32, height: 18, length: 160, Sy: 390, Kts: 1.6, source: 'Peterson chart value read by the author (demo)', label: 'drive hub key' },
       { type: 'keyseat', form: 'sled-runner', at: 1630, width: 32, height: 18, length: 160, Sy: 390, Kts: 1.6, source: 'Peterson chart value read by the author (demo)', label: 'idle hub key' },
     ],
-    bending: [{ at: 265, Ma: 0 }, { at: 400, Ma: 9000 }, { at: 1630, Ma: 9000 }, { at: 1765, Ma: 0 }],
+    supports: [
+      { label: 'drive-side bearing', at: 265, kind: 'spherical-roller', C: 1020, locating: true },
+      { label: 'idle-side bearing', at: 1765, kind: 'spherical-roller', C: 1020 },
+    ],
+    loads: [
+      { label: 'final-drive gear', at: 110, kind: 'gear', pitchDiameter: 720, pressureAngle: 20, direction: 90 },
+      { label: 'drum, drive-side hub', at: 400, kind: 'pulley', diameter: 1000, pullFactor: 2.0, direction: 200 },
+      { label: 'drum, idle-side hub', at: 1630, kind: 'pulley', diameter: 1000, pullFactor: 2.0, direction: 200 },
+    ],
+    masses: [{ label: 'final-drive gear', at: 110, mass: 240 }, { label: 'drum half', at: 400, mass: 410 }, { label: 'drum half', at: 1630, mass: 410 }],
     fatigue: { surface: 'machined', reliability: 90 },
   };
 }
@@ -65,7 +83,15 @@ export function mixerShaft(hubSeat = 90, od = 114.3, id = 98): Record<string, un
     ],
     torques: [{ label: 'gearbox flange', at: 60, power: 15, speed: 60 }, { label: 'impeller', at: 4450, power: -15, speed: 60 }],
     features: [{ type: 'keyseat', form: 'end-mill', at: 4450, width: 25, height: 14, length: 160, Sy: 390, label: 'impeller key' }],
-    bending: [{ at: 150, Ma: 2500 }, { at: 4450, Ma: 0 }],
+    supports: [
+      { label: 'gearbox output bearing, lower', at: 0, kind: 'spherical-roller', C: 310, locating: true, X: 0.67, Y: 2.5 },
+      { label: 'gearbox output bearing, upper', at: 150, kind: 'spherical-roller', C: 310 },
+    ],
+    loads: [
+      { label: 'flange coupling', at: 60, kind: 'coupling' },
+      { label: 'impeller side load at design liquid level', at: 4450, Fy: 580, Fx: -1200 },
+    ],
+    masses: [{ label: 'impeller', at: 4450, mass: 120 }],
     fatigue: { surface: 'machined', reliability: 90 },
   };
 }

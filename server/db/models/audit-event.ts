@@ -19,6 +19,9 @@ export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreation
   declare ip: string | null;
   declare prevHash: string;
   declare hash: string;
+  /** Look-up aids outside the hashed content: the calc and project the entity falls under. */
+  declare calcId: CreationOptional<number | null>;
+  declare projectId: CreationOptional<number | null>;
 
   static initModel(sequelize: Sequelize): void {
     AuditEvent.init(
@@ -32,9 +35,11 @@ export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreation
         entityId: { type: DataTypes.STRING(64), allowNull: true },
         payload: { type: DataTypes.TEXT('long'), allowNull: false },
         diff: { type: DataTypes.TEXT('long'), allowNull: true },
-        ip: { type: DataTypes.STRING(64), allowNull: true },
+        ip: { type: DataTypes.STRING(255), allowNull: true },
         prevHash: { type: DataTypes.CHAR(64), allowNull: false },
         hash: { type: DataTypes.CHAR(64), allowNull: false, unique: true },
+        calcId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        projectId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
       },
       { sequelize, tableName: 'audit_events', underscored: true, timestamps: false },
     );

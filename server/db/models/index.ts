@@ -12,10 +12,11 @@ import { Signature } from './signature';
 import { MailOutbox } from './mail-outbox';
 import { MailPreference } from './mail-preference';
 import { Attachment } from './attachment';
+import { RoleGrant } from './role-grant';
 
-export { User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment };
+export { User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment, RoleGrant };
 
-const MODELS = [User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment];
+const MODELS = [User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment, RoleGrant];
 
 /** Initialise every model once, then wire associations in one step. */
 export function initModels(sequelize: Sequelize): void {

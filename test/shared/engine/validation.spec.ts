@@ -17,6 +17,7 @@ const cases: [string, Change, string, string | RegExp][] = [
   ['negative diameter', (i) => { i.segments[0].od = -60; }, 'segments[0].od', 'outer diameter must be greater than 0 mm, got -60 mm'],
   ['negative inner diameter', (i) => { i.segments[0].id = -1; }, 'segments[0].id', 'inner diameter must be at least 0 mm, got -1 mm'],
   ['text for a number', (i) => { i.segments[0].od = '60'; }, 'segments[0].od', 'outer diameter must be a number in mm, got the text "60"'],
+  ['a decimal comma', (i) => { i.segments[0].od = '62,5'; }, 'segments[0].od', 'outer diameter must be a number in mm, got the text "62,5"; write it with a decimal point (62.5), commas are not read as numbers'],
   ['NaN', (i) => { i.torques[0].T = Number.NaN; }, 'torques[0].T', 'torque must be a number in N·m, got NaN'],
   ['Infinity', (i) => { i.segments[1].length = Infinity; }, 'segments[1].length', /length must be a number in mm/],
   ['missing material', (i) => { delete i.material; }, 'material', 'material is missing (an object)'],

@@ -1,4 +1,6 @@
-import { parseStrictJson } from '../../../shared/json/strict-json';
+import fc from 'fast-check';
+import { jsonValueProblem, parseStrictJson } from '../../../shared/json/strict-json';
+import { nonFinitePath, stringifyFinite } from '../../../shared/json/finite-json';
 
 // Issue 9, items 9 and 11. Refusing duplicate keys and accepting a BOM (U+FEFF): common practice, no
 // source (docs/references.md, "Reading JSON", which notes what RFC 8259 leaves open).
@@ -34,5 +36,61 @@ describe('parseStrictJson', () => {
   it('when the value is a scalar or a list, then it is returned as JSON.parse would', () => {
     expect(parseStrictJson('3')).toEqual({ ok: true, value: 3 });
     expect(parseStrictJson('[1,{"a":null}]')).toEqual({ ok: true, value: [1, { a: null }] });
+  });
+});
+
+// Issue 11: what else JSON.parse would let through at the API edge, refused with the field path.
+describe('parseStrictJson on hostile input', () => {
+  it('when JSON has no problem, then it parses exactly as JSON.parse does', () => {
+    // fc.json may produce keys such as "__proto__"; those are refused on purpose, so leave them out.
+    const ok = fc.json({ maxDepth: 6 }).filter((t) => !/"(__proto__|constructor|prototype)"\s*:/.test(t));
+    fc.assert(fc.property(ok, (text) => {
+      const parsed = parseStrictJson(text);
+      if (parsed.ok) expect(parsed.value).toEqual(JSON.parse(text));
+      else expect(parsed.issue.message).toMatch(/appears twice|lone surrogate/);
+    }), { numRuns: 500 });
+  });
+
+  it.each([
+    ['{"a":{"b":[1,2,1e309]}}', 'a.b[2]', /beyond the range/],
+    ['{"a":[{"__proto__":{}}]}', 'a[0].__proto__', /not an accepted field name/],
+    ['{"x":"\\ud800"}', 'x', /lone surrogate/],
+    ['{"\\udfff":1}', '\udfff', /field name with invalid text/],
+    ['{"a":1,"b":{"c":1,"c":2}}', 'b.c', /appears twice/],
+    ['{"a":[{"k":1},{"k":1,"k":2}]}', 'a[1].k', /appears twice/],
+    ['{"a\\u0062":1,"ab":2}', 'ab', /appears twice/],
+    [`{"d":${'['.repeat(40)}${']'.repeat(40)}}`, `d${'[0]'.repeat(31)}`, /nested deeper than 32/],
+    ['{"a":', '(input)', /not valid JSON/],
+    ['{"a":[0,1e-400]}', 'a[1]', /too small/],
+    ['{"x":{"y":-2e-324}}', 'x.y', /too small/],
+    [`{"z":0.${'0'.repeat(400)}1}`, 'z', /too small/],
+  ])('when the text is %s, then the problem is at %s', (text, path, message) => {
+    const parsed = parseStrictJson(text);
+    expect(parsed.ok).toBe(false);
+    if (!parsed.ok) {
+      expect(parsed.issue.path).toBe(path);
+      expect(parsed.issue.message).toMatch(message);
+    }
+  });
+
+  it('when a key repeats only in sibling objects or inside a string, or a number is zero, then all is well', () => {
+    expect(parseStrictJson('[{"a":1},{"a":2}]').ok).toBe(true);
+    expect(parseStrictJson('{"a":"{\\"a\\":1,\\"a\\":2}","b":{"a":1}}').ok).toBe(true);
+    expect(parseStrictJson('{"a":0e5,"b":-0.0,"c":5e-324,"d":[0,-0]}').ok).toBe(true);
+  });
+
+  it('when a document is 100,000 levels deep, then the check stops at the limit without overflowing the stack', () => {
+    let deep: unknown = 1;
+    for (let i = 0; i < 100_000; i++) deep = [deep];
+    expect(jsonValueProblem(deep)?.message).toMatch(/nested deeper/);
+  });
+});
+
+describe('storing results', () => {
+  it('when a result holds Infinity or NaN, then its path is found and storing it is refused', () => {
+    expect(nonFinitePath({ a: [1, { b: Number.NaN }] })).toBe('a[1].b');
+    expect(nonFinitePath({ a: [1, null, 'x'] })).toBeNull();
+    expect(() => stringifyFinite({ J: Infinity })).toThrow(/J/);
+    expect(stringifyFinite({ J: 1 })).toBe('{"J":1}');
   });
 });

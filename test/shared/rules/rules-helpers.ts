@@ -7,7 +7,7 @@ import {
 
 const ROOT = join(__dirname, '..', '..', '..');
 
-export const RULE_FILES = ['kfd-eng-014-v3.json', 'kfd-eng-014-v2.json', 'kfd-eng-021-v1.json'] as const;
+export const RULE_FILES = ['kfd-eng-014-v4.json', 'kfd-eng-014-v3.json', 'kfd-eng-014-v2.json', 'kfd-eng-021-v1.json'] as const;
 
 export function rawRuleSet(file: string): Record<string, any> {
   return JSON.parse(readFileSync(join(ROOT, 'rules', file), 'utf8'));

@@ -15,6 +15,7 @@ export const NAV_ITEMS: NavItem[] = [
   { path: '/rule-sets', label: 'Standards', icon: 'menu_book', needs: ['read', 'RuleSet'] },
   { path: '/audit', label: 'Audit trail', icon: 'fact_check', needs: ['read', 'AuditEvent'] },
   { path: '/admin/users', label: 'People and roles', icon: 'group', needs: ['create', 'User'] },
+  { path: '/role-confirmations', label: 'Role confirmations', icon: 'how_to_reg', needs: ['read', 'RoleGrant'] },
   { path: '/verify', label: 'Verify a record', icon: 'qr_code_2' },
   { path: '/admin/sent-mail', label: 'Sent mail', icon: 'outgoing_mail', needs: ['read', 'SentMail'] },
 ];

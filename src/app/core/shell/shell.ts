@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { MatIconModule } from '@angular/material/icon';
 import { MatButtonModule } from '@angular/material/button';
@@ -23,6 +23,8 @@ export default class Shell {
   private readonly router = inject(Router);
   private readonly ability = inject<AbilityServiceSignal<AppAbility>>(AbilityServiceSignal);
 
+  /** The phone layout hides the menu behind a button; it closes again once a page is chosen. */
+  protected readonly menuOpen = signal(false);
   protected readonly user = this.session.user;
   protected readonly organisation = this.session.organisation;
   protected readonly roleLabels = computed(() => (this.user()?.roles ?? []).map((r) => ROLE_LABELS[r]));

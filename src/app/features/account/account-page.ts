@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
 import { HttpClient } from '@angular/common/http';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -11,10 +11,11 @@ import { toHttpFailure } from '../../core/errors/http-failure';
 import { applyServerErrors } from '../../ui/field-errors';
 import { SecondFactorPanel } from './second-factor-panel';
 import { MailPreferences } from './mail-preferences';
+import { SessionsPanel } from './sessions-panel';
 
 @Component({
   selector: 'tt-account-page',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MailPreferences, SecondFactorPanel],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MailPreferences, SecondFactorPanel, SessionsPanel],
   templateUrl: './account-page.html',
   styleUrl: './account-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -31,6 +32,7 @@ export default class AccountPage {
   protected readonly problems = signal<string[]>([]);
   protected readonly isDone = signal(false);
   protected readonly isSaving = signal(false);
+  private readonly sessionsPanel = viewChild.required(SessionsPanel);
 
   protected async changePassword(): Promise<void> {
     const { currentPassword, newPassword, repeatPassword } = this.form.getRawValue();
@@ -42,6 +44,7 @@ export default class AccountPage {
       await firstValueFrom(this.http.post('/api/auth/password', { currentPassword, newPassword }));
       this.isDone.set(true);
       this.form.reset();
+      this.sessionsPanel().reload();
     } catch (error) {
       this.problems.set(applyServerErrors(this.form, toHttpFailure(error)));
     } finally {

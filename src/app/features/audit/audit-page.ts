@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
 import { DatePipe, JsonPipe, SlicePipe } from '@angular/common';
 import { MatTableModule } from '@angular/material/table';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
@@ -10,28 +10,46 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { AuditChainStatus, AuditEventDto } from '../../../../shared/schemas/audit.schema';
 import { toHttpFailure } from '../../core/errors/http-failure';
 import { AuditActionLabelPipe } from '../../ui/audit-action-label';
+import { RouterLink } from '@angular/router';
+import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { CalcsApi } from '../calcs/calcs-api';
 import { EmptyState } from '../../ui/empty-state';
 import { AuditApi, type AuditListParams } from './audit-api';
+import { KeysetPager } from '../../ui/keyset-pager';
 import { ProjectsApi } from '../projects/projects-api';
 import { DiffView } from '../../ui/diff-view';
 import { MatInputModule } from '@angular/material/input';
 
+const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/;
+
 @Component({
   selector: 'tt-audit-page',
-  imports: [DatePipe, JsonPipe, SlicePipe, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatSelectModule, MatFormFieldModule, MatProgressBarModule, AuditActionLabelPipe, EmptyState, DiffView, MatInputModule],
+  imports: [DatePipe, JsonPipe, SlicePipe, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatSelectModule, MatFormFieldModule, MatProgressBarModule, AuditActionLabelPipe, EmptyState, DiffView, MatInputModule, RouterLink, ReactiveFormsModule],
   templateUrl: './audit-page.html',
   styleUrl: './audit-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export default class AuditPage {
   private readonly api = inject(AuditApi);
-  protected readonly params = signal<AuditListParams>({ page: 0, size: 25, entityType: '', action: '', projectId: null, calcId: null, userId: null, from: '', to: '' });
+  protected readonly params = signal<Omit<AuditListParams, 'size' | 'after'>>({ entityType: '', action: '', projectId: null, calcId: null, userId: null, from: '', to: '' });
+  protected readonly pager = new KeysetPager(25);
   protected readonly projects = inject(ProjectsApi).list(signal({ page: 0, size: 200, q: '' }));
-  protected readonly events = this.api.list(this.params);
-  protected readonly rows = computed(() => this.events.value()?.items ?? []);
-  protected readonly total = computed(() => this.events.value()?.total ?? 0);
+  protected readonly events = this.api.list(computed(() => ({ ...this.params(), size: this.pager.size(), after: this.pager.after() })));
+  protected readonly rows = computed(() => (this.events.hasValue() ? this.events.value().items : []));
+  protected readonly people = this.api.people();
+  protected readonly calcs = inject(CalcsApi).list(computed(() => ({ size: 200, sort: 'number' as const, dir: 'asc' as const, projectId: this.params().projectId ?? undefined, status: undefined, q: '' })));
+  /** Dates typed the ISO way whatever the browser's locale (a date input shows mm/dd/yyyy in US English). */
+  protected readonly from = new FormControl('', { nonNullable: true, validators: Validators.pattern(ISO_DAY) });
+  protected readonly to = new FormControl('', { nonNullable: true, validators: Validators.pattern(ISO_DAY) });
   protected readonly error = computed(() => (this.events.error() ? toHttpFailure(this.events.error()).message : null));
   protected readonly expanded = signal<number | null>(null);
+  // Lists leave diffs out; the open entry's diff is read on its own.
+  protected readonly openEntry = this.api.entry(computed(() => {
+    const id = this.expanded();
+    return id !== null && this.rows().find((e) => e.id === id)?.hasDiff ? id : null;
+  }));
+  protected readonly openDiff = computed(() => (this.openEntry.hasValue() ? this.openEntry.value().diff : null));
   protected readonly chain = signal<AuditChainStatus | null>(null);
   protected readonly chainError = signal<string | null>(null);
   protected readonly isVerifying = signal(false);
@@ -44,17 +62,37 @@ export default class AuditPage {
     { value: 'attachment.', label: 'Attachments' },
   ];
 
-  protected filter(patch: Partial<AuditListParams>): void {
-    this.params.update((p) => ({ ...p, ...patch, page: 0 }));
+  constructor() {
+    effect(() => {
+      if (this.events.hasValue()) this.pager.remember(this.events.value());
+    });
+    for (const [control, key] of [[this.from, 'from'], [this.to, 'to']] as const) {
+      control.valueChanges.pipe(takeUntilDestroyed()).subscribe((v) => {
+        const day = v.trim();
+        if (day === '' || (ISO_DAY.test(day) && !Number.isNaN(Date.parse(`${day}T00:00:00Z`)))) this.filter({ [key]: day });
+      });
+    }
   }
 
-  protected idOrNull(text: string): number | null {
-    const n = Number(text);
-    return Number.isInteger(n) && n > 0 ? n : null;
+  protected filter(patch: Partial<AuditListParams>): void {
+    // A calc belongs to one project: changing the project clears the calc.
+    const calc = 'projectId' in patch ? { calcId: null } : {};
+    this.pager.reset();
+    this.params.update((p) => ({ ...p, ...calc, ...patch }));
+  }
+
+  protected linkPath(link: string): string {
+    return link.split('?')[0];
+  }
+
+  protected linkQuery(link: string): Record<string, string> {
+    const query: Record<string, string> = {};
+    new URLSearchParams(link.split('?')[1] ?? '').forEach((value, key) => { query[key] = value; });
+    return query;
   }
 
   protected changePage(event: PageEvent): void {
-    this.params.update((p) => ({ ...p, page: event.pageIndex, size: event.pageSize }));
+    this.pager.turn(event);
   }
 
   protected toggle(event: AuditEventDto): void {

@@ -1,13 +1,16 @@
 import { Injectable, inject, type Signal } from '@angular/core';
 import { HttpClient, httpResource } from '@angular/common/http';
 import { firstValueFrom } from 'rxjs';
-import type { Page } from '../../../../shared/schemas/common.schema';
-import type { CalcDto, RevisionDto } from '../../../../shared/schemas/calc-dto';
+import type { KeysetPage } from '../../../../shared/schemas/common.schema';
+import type { CalcDto, CalcListItem, RevisionDto } from '../../../../shared/schemas/calc-dto';
 import type { CreateCalcRequest, SaveRevisionRequest, SignRequest } from '../../../../shared/schemas/revision.schema';
 import type { QueueDto } from '../../../../shared/schemas/queue.schema';
 import type { RuleSetDto, RuleSetSummary } from '../../../../shared/schemas/rule-set.schema';
 
-export interface CalcListParams { projectId?: number; status?: string; q: string; page: number; size: number; sort: string; dir: 'asc' | 'desc' }
+/** Rows per page of a queue on the overview; the first page of every queue comes with the overview. */
+export const QUEUE_PAGE = 5;
+
+export interface CalcListParams { projectId?: number; status?: string; q: string; size: number; after?: string; sort: string; dir: 'asc' | 'desc' }
 
 /** Server state of calcs and revisions; pages read its resources and call its commands. */
 @Injectable({ providedIn: 'root' })
@@ -15,9 +18,10 @@ export class CalcsApi {
   private readonly http = inject(HttpClient);
 
   list(params: Signal<CalcListParams>) {
-    return httpResource<Page<CalcDto>>(() => {
+    return httpResource<KeysetPage<CalcListItem>>(() => {
       const p = params();
-      const query: Record<string, string | number> = { page: p.page, size: p.size, sort: p.sort, dir: p.dir };
+      const query: Record<string, string | number> = { size: p.size, sort: p.sort, dir: p.dir };
+      if (p.after) query['after'] = p.after;
       if (p.projectId) query['projectId'] = p.projectId;
       if (p.status) query['status'] = p.status;
       if (p.q) query['q'] = p.q;
@@ -34,7 +38,18 @@ export class CalcsApi {
   }
 
   queues() {
-    return httpResource<QueueDto[]>(() => '/api/dashboard/queues');
+    return httpResource<QueueDto[]>(() => ({ url: '/api/dashboard/queues', params: { size: QUEUE_PAGE } }));
+  }
+
+  /** Further pages of one queue, by keyset from the previous page's `next`. */
+  queuePage(key: Signal<string>, params: Signal<{ size: number; after?: string } | undefined>) {
+    return httpResource<QueueDto>(() => {
+      const p = params();
+      if (!p) return undefined;
+      const query: Record<string, string | number> = { size: p.size };
+      if (p.after) query['after'] = p.after;
+      return { url: `/api/dashboard/queues/${key()}`, params: query };
+    });
   }
 
   ruleSets() {

@@ -1,25 +1,26 @@
-import { ChangeDetectionStrategy, Component, computed, effect, input, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { RouterLink } from '@angular/router';
-import { MatTableDataSource, MatTableModule } from '@angular/material/table';
-import { MatSort, MatSortModule } from '@angular/material/sort';
-import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
+import { MatTableModule } from '@angular/material/table';
+import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
 import type { QueueDto, QueueItem } from '../../../../shared/schemas/queue.schema';
 import { StateBadge } from '../../ui/state-badge';
 import { VerdictBadge } from '../../ui/verdict-badge';
+import { KeysetPager } from '../../ui/keyset-pager';
+import { CalcsApi, QUEUE_PAGE } from '../calcs/calcs-api';
 
-/** One queue of waiting calcs: sortable and paged in the browser (queues are short by nature). */
+/** One queue of waiting calcs, oldest first, paged on the server (its first page comes with the overview). */
 @Component({
   selector: 'tt-queue-table',
-  imports: [DatePipe, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, StateBadge, VerdictBadge],
+  imports: [DatePipe, RouterLink, MatTableModule, MatPaginatorModule, StateBadge, VerdictBadge],
   template: `
-    <table mat-table [dataSource]="dataSource" matSort matSortActive="since" matSortDirection="asc" [attr.aria-label]="queue().label">
+    <table mat-table [dataSource]="rows()" [attr.aria-label]="queue().label">
       <ng-container matColumnDef="number">
-        <th mat-header-cell *matHeaderCellDef mat-sort-header>Calc</th>
+        <th mat-header-cell *matHeaderCellDef>Calc</th>
         <td mat-cell *matCellDef="let i"><a [routerLink]="['/calcs', i.calcId]" [queryParams]="{ rev: i.revisionId }" class="tt-mono">{{ i.projectCode }} {{ i.number }}</a></td>
       </ng-container>
       <ng-container matColumnDef="title">
-        <th mat-header-cell *matHeaderCellDef mat-sort-header>Title</th>
+        <th mat-header-cell *matHeaderCellDef>Title</th>
         <td mat-cell *matCellDef="let i">{{ i.title }} <span class="tt-muted">rev {{ i.revision }}</span></td>
       </ng-container>
       <ng-container matColumnDef="status">
@@ -31,36 +32,47 @@ import { VerdictBadge } from '../../ui/verdict-badge';
         <td mat-cell *matCellDef="let i"><tt-verdict-badge [verdict]="i.verdict" /></td>
       </ng-container>
       <ng-container matColumnDef="authorName">
-        <th mat-header-cell *matHeaderCellDef mat-sort-header>Author</th>
+        <th mat-header-cell *matHeaderCellDef>Author</th>
         <td mat-cell *matCellDef="let i">{{ i.authorName }}</td>
       </ng-container>
       <ng-container matColumnDef="since">
-        <th mat-header-cell *matHeaderCellDef mat-sort-header>Waiting since</th>
+        <th mat-header-cell *matHeaderCellDef>Waiting since</th>
         <td mat-cell *matCellDef="let i">{{ i.since | date: 'd MMM, HH:mm' }} <span class="tt-muted">({{ ageOf(i) }})</span></td>
       </ng-container>
       <tr mat-header-row *matHeaderRowDef="columns"></tr>
       <tr mat-row *matRowDef="let row; columns: columns"></tr>
     </table>
-    @if (queue().items.length > 5) { <mat-paginator [pageSize]="5" [pageSizeOptions]="[5, 10, 25]" [attr.aria-label]="queue().label + ' pages'" /> }
+    @if (pager.length() > firstPage) {
+      <mat-paginator [length]="pager.length()" [pageIndex]="pager.pageIndex()" [pageSize]="pager.size()" [pageSizeOptions]="[5, 10, 25]"
+                     (page)="turn($event)" [attr.aria-label]="queue().label + ' pages'" />
+    }
   `,
   styles: 'table { width: 100%; background: transparent; } a { font-weight: 700; }',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class QueueTable {
   readonly queue = input.required<QueueDto>();
-  private readonly sort = viewChild(MatSort);
-  private readonly paginator = viewChild(MatPaginator);
-  protected readonly dataSource = new MatTableDataSource<QueueItem>([]);
+  protected readonly firstPage = QUEUE_PAGE;
+  protected readonly pager = new KeysetPager(QUEUE_PAGE);
   protected readonly columns = ['number', 'title', 'status', 'verdict', 'authorName', 'since'];
+  // Later pages (or another page size) are read on their own; the overview's copy is page one.
+  private readonly isFirstPage = computed(() => this.pager.pageIndex() === 0 && this.pager.size() === QUEUE_PAGE);
+  private readonly later = inject(CalcsApi).queuePage(
+    computed(() => this.queue().key), computed(() => (this.isFirstPage() ? undefined : { size: this.pager.size(), after: this.pager.after() })),
+  );
+  private readonly page = computed(() => (this.isFirstPage() ? this.queue() : this.later.hasValue() ? this.later.value() : null));
+  protected readonly rows = computed(() => this.page()?.items ?? []);
   private readonly now = computed(() => (this.queue(), Date.now()));
 
   constructor() {
-    this.dataSource.sortingDataAccessor = (item, key) => (key === 'number' ? `${item.projectCode} ${item.number}` : String(item[key as keyof QueueItem] ?? ''));
     effect(() => {
-      this.dataSource.data = this.queue().items;
-      this.dataSource.sort = this.sort() ?? null;
-      this.dataSource.paginator = this.paginator() ?? null;
+      const page = this.page();
+      if (page) this.pager.remember(page);
     });
+  }
+
+  protected turn(event: PageEvent): void {
+    this.pager.turn(event);
   }
 
   protected ageOf(item: QueueItem): string {

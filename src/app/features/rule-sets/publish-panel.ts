@@ -5,7 +5,8 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import type { RuleSetDto } from '../../../../shared/schemas/rule-set.schema';
 import { SessionStore } from '../../core/auth/session-store';
-import { failureLines, toHttpFailure } from '../../core/errors/http-failure';
+import { toHttpFailure } from '../../core/errors/http-failure';
+import { ruleSetProblems } from './rule-set-messages';
 import { RuleSetsApi } from './rule-sets-api';
 
 /** Two people make a version effective: one proposes it with a date, a second confirms with their password. */
@@ -73,7 +74,8 @@ export class PublishPanel {
       this.changed.emit();
     } catch (error) {
       const f = toHttpFailure(error);
-      this.problem.set(failureLines(f).join('; '));
+      // A proposal re-validates the whole document: name each field as the standard's page does.
+      this.problem.set(ruleSetProblems(f, null).map((p) => p.text).join('; '));
     }
   }
 }

@@ -1,3 +1,4 @@
+import { FILLET_KTS_NAMES } from '../../../../shared/engine';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, numberAttribute, signal } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { RouterLink } from '@angular/router';
@@ -14,7 +15,8 @@ import { AbilityServiceSignal } from '@casl/angular';
 import { subject } from '@casl/ability';
 import { validateRuleSet, type RuleSet } from '../../../../shared/rules';
 import type { AppAbility } from '../../../../shared/authz/app-ability';
-import { failureLines, toHttpFailure } from '../../core/errors/http-failure';
+import { toHttpFailure } from '../../core/errors/http-failure';
+import { ruleSetPlace, ruleSetProblems, type RuleSetProblem } from './rule-set-messages';
 import { RuleSetsApi } from './rule-sets-api';
 import { applyRuleSetForm, buildRuleSetForm, type RuleSetForm } from './rule-set-form';
 import { PublishPanel } from './publish-panel';
@@ -31,6 +33,11 @@ import { ImpactPanel } from './impact-panel';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export default class RuleSetView {
+  /** The published method, named as a reader cites it, not its code. */
+  protected ktsName(key: string | undefined): string {
+    return key ? FILLET_KTS_NAMES[key] ?? key : '—';
+  }
+
   private readonly api = inject(RuleSetsApi);
   private readonly snackBar = inject(MatSnackBar);
   private readonly ability = inject<AbilityServiceSignal<AppAbility>>(AbilityServiceSignal);
@@ -46,7 +53,9 @@ export default class RuleSetView {
   protected readonly form = signal<RuleSetForm | null>(null);
   protected readonly jsonText = signal('');
   protected readonly jsonIssues = signal<string[]>([]);
-  protected readonly problems = signal<string[]>([]);
+  protected readonly problems = signal<RuleSetProblem[]>([]);
+  /** The tab on show: a problem's link opens the tab where its field is edited. */
+  protected readonly tab = signal(0);
   protected readonly isSaving = signal(false);
 
   constructor() {
@@ -68,7 +77,7 @@ export default class RuleSetView {
       return null;
     }
     const result = validateRuleSet(parsed);
-    this.jsonIssues.set(result.ok ? [] : result.issues.map((i) => `${i.path}: ${i.message}`));
+    this.jsonIssues.set(result.ok ? [] : result.issues.map((i) => `${ruleSetPlace(i.path, this.doc() ?? null).label} — ${i.path}: ${i.message}`));
     return result.ok ? result.value : null;
   }
 
@@ -89,8 +98,7 @@ export default class RuleSetView {
       this.version.set(saved);
       this.snackBar.open(`Draft v${saved.version} saved.`, 'OK', { duration: 4000 });
     } catch (error) {
-      const f = toHttpFailure(error);
-      this.problems.set(failureLines(f));
+      this.problems.set(ruleSetProblems(toHttpFailure(error), doc));
     } finally {
       this.isSaving.set(false);
     }

@@ -34,7 +34,7 @@ import { RuleSetsApi, type TryItResponse } from './rule-sets-api';
 export class TryItPanel {
   private readonly api = inject(RuleSetsApi);
   readonly ruleSetId = input.required<number>();
-  protected readonly calcs = inject(CalcsApi).list(computed(() => ({ q: '', page: 0, size: 200, sort: 'number', dir: 'asc' as const })));
+  protected readonly calcs = inject(CalcsApi).list(computed(() => ({ q: '', size: 200, sort: 'number', dir: 'asc' as const })));
   protected readonly revisionId = signal<number | null>(null);
   protected readonly outcome = signal<TryItResponse | null>(null);
   protected readonly problem = signal<string | null>(null);

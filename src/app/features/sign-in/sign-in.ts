@@ -1,5 +1,5 @@
-import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
-import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, inject, input, signal, viewChild } from '@angular/core';
+import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { Router } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -34,6 +34,7 @@ export default class SignIn {
     username: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(64)] }),
     password: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(256)] }),
   });
+  private readonly formDirective = viewChild.required(FormGroupDirective);
   protected readonly isBusy = signal(false);
   protected readonly failure = signal<string | null>(null);
   protected readonly showPassword = signal(false);
@@ -51,7 +52,8 @@ export default class SignIn {
       await this.router.navigateByUrl(target && target.startsWith('/') && !target.startsWith('//') ? target : '/');
     } catch (error) {
       this.failure.set(toHttpFailure(error).message);
-      this.form.controls.password.reset();
+      // One error, the server's: resetForm also forgets "submitted", so the emptied password is not reddened as missing too.
+      this.formDirective().resetForm({ username: this.form.controls.username.value, password: '' });
     } finally {
       this.isBusy.set(false);
     }

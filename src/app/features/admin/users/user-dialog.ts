@@ -31,7 +31,9 @@ export class UserDialog {
     email: [this.existing?.email ?? '', [Validators.required, Validators.email]],
     initialPassword: ['', this.existing ? [] : [Validators.required, Validators.minLength(12)]],
   });
-  protected readonly roles = signal<Set<Role>>(new Set(this.existing?.roles ?? []));
+  // Roles awaiting confirmation stay ticked: unticking one withdraws the request.
+  protected readonly roles = signal<Set<Role>>(new Set([...(this.existing?.roles ?? []), ...(this.existing?.pendingRoles ?? [])]));
+  protected readonly pending = new Set<Role>(this.existing?.pendingRoles ?? []);
   protected readonly requireCode = signal(this.existing?.secondFactorRequired ?? false);
   protected readonly problems = signal<string[]>([]);
   protected readonly isSaving = signal(false);

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { MatTableModule } from '@angular/material/table';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
@@ -17,10 +17,11 @@ import { toHttpFailure } from '../../../core/errors/http-failure';
 import { EmptyState } from '../../../ui/empty-state';
 import { UsersApi, type UserListParams } from './users-api';
 import { UserDialog } from './user-dialog';
+import { PendingGrants } from './pending-grants';
 
 @Component({
   selector: 'tt-users-page',
-  imports: [DatePipe, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule, MatTooltipModule, MatProgressBarModule, EmptyState, RoleLabelPipe],
+  imports: [DatePipe, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule, MatTooltipModule, MatProgressBarModule, EmptyState, RoleLabelPipe, PendingGrants],
   templateUrl: './users-page.html',
   styleUrl: './users-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -36,6 +37,7 @@ export default class UsersPage {
   protected readonly rows = computed(() => this.users.value()?.items ?? []);
   protected readonly total = computed(() => this.users.value()?.total ?? 0);
   protected readonly error = computed(() => (this.users.error() ? toHttpFailure(this.users.error()).message : null));
+  private readonly pendingGrants = viewChild.required(PendingGrants);
   protected readonly columns = ['username', 'displayName', 'roles', 'status', 'lastSignInAt', 'actions'];
 
   protected search(q: string): void {
@@ -48,7 +50,9 @@ export default class UsersPage {
 
   protected openEditor(user: UserDto | null): void {
     this.dialog.open(UserDialog, { data: user, autoFocus: 'first-tabbable' }).afterClosed().subscribe((saved) => {
-      if (saved) this.users.reload();
+      if (!saved) return;
+      this.users.reload();
+      this.pendingGrants().reload();
     });
   }
 

@@ -8,6 +8,7 @@ import { createAppAbility, defineRulesFor } from '../../../../../shared/authz/ap
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import type { AttachmentListDto } from '../../../../../shared/schemas/attachment.schema';
 import { AttachmentsPanel } from './attachments-panel';
+import { SessionStore } from '../../../core/auth/session-store';
 
 jest.setTimeout(30_000);
 
@@ -44,6 +45,21 @@ beforeEach(async () => {
 afterEach(() => http?.verify());
 
 describe('attachments panel', () => {
+  it('when a file is small, then its size reads in bytes or kB, never "0 kB"; the author of a draft may remove it', async () => {
+    const el = fixture.nativeElement as HTMLElement;
+    expect(el.textContent).toContain('application/pdf · 4.0 kB ·');
+    const session = TestBed.inject(SessionStore);
+    const load = session.load();
+    http.expectOne('/api/session').flush({ user: { id: 1, username: 'mhale', displayName: 'Morwenna Hale', roles: ['author'] }, rules: [], csrfToken: 't' });
+    await load;
+    fixture.componentRef.setInput('revision', { ...REVISION, id: 8, author: { id: 1, name: 'Morwenna Hale' } });
+    fixture.detectChanges();
+    http.expectOne('/api/revisions/8/attachments').flush({ ...LIST, items: [{ ...LIST.items[0], sizeBytes: 212, uploadedBy: { id: 5, name: 'A co-editor' } }] });
+    await turn();
+    expect(el.textContent).toContain('application/pdf · 212 bytes ·');
+    expect((await TestbedHarnessEnvironment.loader(fixture).getAllHarnesses(MatButtonHarness.with({ text: /Remove/ })))).toHaveLength(1);
+  });
+
   it('when a drawing is attached but no certificate, then the file is a download link and the missing kind is named', () => {
     const el = fixture.nativeElement as HTMLElement;
     const link = el.querySelector('a[download]') as HTMLAnchorElement;

@@ -10,6 +10,7 @@ import { ATTACHMENT_KINDS, ATTACHMENT_KIND_LABELS, type AttachmentDto, type Atta
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { SessionStore } from '../../../core/auth/session-store';
 import { toHttpFailure } from '../../../core/errors/http-failure';
+import { formatBytes } from '../../../../../shared/format';
 import { EmptyState } from '../../../ui/empty-state';
 import { AttachmentsApi } from './attachments-api';
 
@@ -47,8 +48,11 @@ export class AttachmentsPanel {
   protected readonly missingText = computed(() => this.missing().map((k) => ATTACHMENT_KIND_LABELS[k].toLowerCase()).join(', '));
 
   protected canRemove(a: AttachmentDto): boolean {
-    return this.isEditable() && a.uploadedBy.id === this.me()?.id;
+    const me = this.me()?.id;
+    return this.isEditable() && (a.uploadedBy.id === me || this.revision().author?.id === me);
   }
+
+  protected readonly size = formatBytes;
 
   protected pick(files: FileList | null): void {
     this.file.set(files?.item(0) ?? null);

@@ -1,10 +1,8 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, numberAttribute } from '@angular/core';
-import { DecimalPipe } from '@angular/common';
 import { Router, RouterLink } from '@angular/router';
 import { MatTabsModule } from '@angular/material/tabs';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatDialog } from '@angular/material/dialog';
 import { MatSnackBar } from '@angular/material/snack-bar';
@@ -24,14 +22,18 @@ import { RevisionHistory } from './revision-history';
 import { MinimumDiameters } from './minimum-diameters';
 import { AttachmentsPanel } from './attachments-panel';
 import { RecordExports } from './record-exports';
-import { planActions } from './revision-actions';
+import { ManualItems } from './manual-items';
+import { countFindings, findingsTabLabel } from './finding-counts';
+import { failingRowText, signingReadiness } from './signing-readiness';
+import { formatEng } from '../../../../../shared/format';
+import { planActions, type RevisionAction } from './revision-actions';
 import { SignDialog, type SignDialogData } from './sign-dialog';
 import { ReasonDialog, type ReasonDialogData, type ReasonDialogResult } from './reason-dialog';
 
 @Component({
   selector: 'tt-calc-page',
-  imports: [DecimalPipe, RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatCheckboxModule, MatProgressBarModule,
-    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports, MinimumDiameters],
+  imports: [RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatProgressBarModule,
+    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports, MinimumDiameters, ManualItems],
   templateUrl: './calc-page.html',
   styleUrl: './calc-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -51,19 +53,24 @@ export default class CalcPage {
   protected readonly revision = this.api.revision(this.selectedId);
   protected readonly current = linkedSignal<RevisionDto | undefined>(() => this.revision.value());
   protected readonly isLatest = computed(() => this.current()?.id === this.calc.value()?.latest.id);
-  protected readonly plan = computed(() => (this.current() ? planActions(this.current()!, this.me(), this.isLatest()) : null));
+  protected readonly plan = computed(() => {
+    const r = this.current();
+    if (!r) return null;
+    // An archived project is a closed record: the server refuses every write, so nothing is offered.
+    if (this.calc.value()?.projectArchived) return { actions: new Set<RevisionAction>(), nextStep: 'Nothing more happens here: the project is archived.' };
+    return planActions(r, this.me(), this.isLatest());
+  });
   protected readonly checklist = computed(() => (this.current()?.checklist ?? null) as Checklist | null);
   protected readonly result = computed(() => (this.current()?.result ?? null) as CalcResult | null);
-  protected readonly manualRows = computed(() => {
-    const r = this.current();
-    return (this.checklist()?.manual ?? []).map((m) => ({ ...m, state: r?.manualItems[m.id] ?? null }));
-  });
   protected readonly canTick = computed(() => !!this.plan()?.actions.has('sign-checked'));
   protected readonly error = computed(() => {
     const e = this.calc.error() ?? this.revision.error();
     return e ? toHttpFailure(e).message : null;
   });
-  protected readonly openFindings = computed(() => this.current()?.findings.filter((f) => f.status !== 'closed').length ?? 0);
+  protected readonly failingMandatory = computed(() => (this.current() ? signingReadiness(this.current()!, 'authored').failingMandatory : []));
+  protected readonly failingRowText = failingRowText;
+  protected readonly eng = formatEng;
+  protected readonly findingsLabel = computed(() => findingsTabLabel(countFindings(this.current() ?? { findings: [] })));
 
   protected select(revisionId: number): void {
     void this.router.navigate([], { queryParams: { rev: revisionId }, replaceUrl: true });
@@ -108,14 +115,6 @@ export default class CalcPage {
         return;
       }
       this.updated(kind === 'return' ? await this.api.returnToAuthor(r.id, reason, r.lockVersion) : await this.api.withdraw(r.id, reason, r.lockVersion));
-    } catch (error) {
-      this.snackBar.open(toHttpFailure(error).message, 'OK', { duration: 8000 });
-    }
-  }
-
-  protected async tick(itemId: string, done: boolean): Promise<void> {
-    try {
-      this.updated(await this.api.setManualItem(this.current()!.id, itemId, done));
     } catch (error) {
       this.snackBar.open(toHttpFailure(error).message, 'OK', { duration: 8000 });
     }

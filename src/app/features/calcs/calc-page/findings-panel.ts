@@ -4,7 +4,7 @@ import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
+import type { FindingDto, RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { toHttpFailure } from '../../../core/errors/http-failure';
 import { EmptyState } from '../../../ui/empty-state';
 import { CalcsApi } from '../calcs-api';
@@ -26,10 +26,14 @@ export class FindingsPanel {
   protected readonly draft = signal('');
   protected readonly answers = signal<Record<number, string>>({});
   protected readonly problem = signal<string | null>(null);
+  /** One call at a time: a double click must not answer or raise the same finding twice. */
+  protected readonly busy = signal(false);
+  protected readonly statusText: Record<FindingDto['status'], string> = {
+    open: 'open: waiting for the author', answered: 'answered: waiting for a reviewer to close it', closed: 'closed',
+  };
 
   protected async raise(): Promise<void> {
-    await this.run(() => this.api.raiseFinding(this.revision().id, this.draft().trim()));
-    this.draft.set('');
+    if (await this.run(() => this.api.raiseFinding(this.revision().id, this.draft().trim()))) this.draft.set('');
   }
 
   protected answerOf(id: number): string {
@@ -40,20 +44,26 @@ export class FindingsPanel {
     this.answers.update((a) => ({ ...a, [id]: text }));
   }
 
-  protected answer(id: number): Promise<void> {
-    return this.run(() => this.api.answerFinding(id, this.answerOf(id).trim()));
+  protected async answer(id: number): Promise<void> {
+    if (await this.run(() => this.api.answerFinding(id, this.answerOf(id).trim()))) this.setAnswer(id, '');
   }
 
-  protected close(id: number): Promise<void> {
-    return this.run(() => this.api.closeFinding(id));
+  protected async close(id: number): Promise<void> {
+    await this.run(() => this.api.closeFinding(id));
   }
 
-  private async run(call: () => Promise<RevisionDto>): Promise<void> {
+  private async run(call: () => Promise<RevisionDto>): Promise<boolean> {
+    if (this.busy()) return false;
+    this.busy.set(true);
     this.problem.set(null);
     try {
       this.changed.emit(await call());
+      return true;
     } catch (error) {
       this.problem.set(toHttpFailure(error).message);
+      return false;
+    } finally {
+      this.busy.set(false);
     }
   }
 }

@@ -1,5 +1,6 @@
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import type { SessionUser } from '../../../../../shared/schemas/auth.schema';
+import { countFindings } from './finding-counts';
 
 export type RevisionAction = 'edit' | 'submit' | 'withdraw' | 'raise-finding' | 'return' | 'sign-checked' | 'approve' | 'new-revision';
 
@@ -19,8 +20,8 @@ export function planActions(r: RevisionDto, me: SessionUser | null, isLatest: bo
   const has = (role: string) => (me.roles as string[]).includes(role);
   const isAuthor = me.id === r.author.id;
   const isEditor = isAuthor || r.editorIds.includes(me.id);
-  const open = r.findings.filter((f) => f.status === 'open').length;
-  const unresolved = r.findings.filter((f) => f.status !== 'closed').length;
+  const { open, answered } = countFindings(r);
+  const unresolved = open + answered;
   switch (r.status) {
     case 'draft':
     case 'returned':
@@ -41,7 +42,7 @@ export function planActions(r: RevisionDto, me: SessionUser | null, isLatest: bo
         actions.add('raise-finding').add('return');
         if (unresolved === 0 && r.verdict === 'compliant') actions.add('approve');
       }
-      return { actions, nextStep: approverStep(r, me.id, isEditor, unresolved) };
+      return { actions, nextStep: approverStep(r, me.id, isEditor, open, answered) };
     default:
       if (isLatest && has('author') && (r.status === 'approved' || r.status === 'withdrawn')) actions.add('new-revision');
       return { actions, nextStep: r.status === 'approved' ? 'Released. Approved revisions are read-only; a change needs a new revision with a reason.' : `This revision is ${r.status}.` };
@@ -51,13 +52,16 @@ export function planActions(r: RevisionDto, me: SessionUser | null, isLatest: bo
 function authorStep(r: RevisionDto, isAuthor: boolean, open: number): string {
   if (!isAuthor) return `With its author, ${r.author.name}.`;
   if (!r.result) return 'Fix the input errors shown, then submit for check.';
-  if (open > 0) return `Answer the ${open} open finding(s), then resubmit for check.`;
+  if (open > 0) return `Answer the ${open} open finding${open === 1 ? '' : 's'}, then resubmit for check.`;
   return 'When the calc is ready, sign it as authored to submit it for independent check.';
 }
 
-function approverStep(r: RevisionDto, meId: number, isEditor: boolean, unresolved: number): string {
+function approverStep(r: RevisionDto, meId: number, isEditor: boolean, open: number, answered: number): string {
   if (r.checker?.id === meId) return 'Waiting for approval by someone other than its checker.';
   if (isEditor) return 'Waiting for approval. You edited this calc, so you cannot approve it.';
-  if (unresolved > 0) return `Approval waits until the ${unresolved} finding(s) are closed.`;
+  if (open + answered > 0) {
+    const waiting = [open ? `${open} open` : '', answered ? `${answered} answered` : ''].filter(Boolean).join(' and ');
+    return `Approval waits until the ${waiting} finding${open + answered === 1 ? ' is' : 's are'} closed.`;
+  }
   return 'Checked and ready for approval.';
 }

@@ -9,7 +9,8 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { SessionStore } from '../../../core/auth/session-store';
-import { toHttpFailure } from '../../../core/errors/http-failure';
+import { toHttpFailure, type HttpFailure } from '../../../core/errors/http-failure';
+import { failingRowText, signingReadiness } from './signing-readiness';
 import { CalcsApi } from '../calcs-api';
 
 export interface SignDialogData { revision: RevisionDto; meaning: 'authored' | 'checked' | 'approved'; calcLabel: string }
@@ -40,8 +41,11 @@ export class SignDialog {
   protected readonly secondFactor = httpResource<SecondFactorStatus>(() => '/api/auth/second-factor');
   protected readonly problem = signal<string | null>(null);
   protected readonly isSigning = signal(false);
+  protected readonly readiness = signingReadiness(this.data.revision, this.data.meaning);
+  protected readonly failingRowText = failingRowText;
 
   protected async sign(): Promise<void> {
+    if (this.readiness.blockers.length) return;
     if (this.form.invalid || this.isSigning()) return this.form.markAllAsTouched();
     this.isSigning.set(true);
     this.problem.set(null);
@@ -53,10 +57,21 @@ export class SignDialog {
       });
       this.ref.close(signed);
     } catch (error) {
-      this.problem.set(toHttpFailure(error).message);
-      this.form.reset();
+      this.showFailure(toHttpFailure(error));
     } finally {
       this.isSigning.set(false);
+    }
+  }
+
+  /** One error, on the right thing: a wrong password or code marks that field; anything else is a message and the password stays. */
+  private showFailure(failure: HttpFailure): void {
+    const fields = Object.keys(failure.fieldErrors) as ('password' | 'oneTimeCode')[];
+    const own = fields.filter((f) => f === 'password' || f === 'oneTimeCode');
+    if (!own.length) return this.problem.set(failure.message);
+    for (const f of own) {
+      this.form.controls[f].setValue('');
+      this.form.controls[f].setErrors({ server: failure.fieldErrors[f].join('; ') });
+      this.form.controls[f].markAsTouched();
     }
   }
 }

@@ -1,17 +1,19 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import { DecimalPipe } from '@angular/common';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { Checklist, ChecklistRow } from '../../../../../shared/rules';
+import { formatBeside, formatUtilisation, unitText } from '../../../../../shared/format';
 
 const STATUS_TEXT: Record<ChecklistRow['status'], string> = { pass: 'Pass', fail: 'Fail', 'not-applicable': 'n/a', error: 'Error' };
 
 /** One row per clause and location: status, actual against limit, utilisation, clause reference. */
 @Component({
   selector: 'tt-checklist-table',
-  imports: [DecimalPipe, MatTableModule, MatTooltipModule],
+  imports: [MatTableModule, MatTooltipModule],
   templateUrl: './checklist-table.html',
   styleUrl: './checklist-table.scss',
+  // The table scrolls sideways inside itself on narrow screens; a keyboard user must be able to scroll it too.
+  host: { tabindex: '0', role: 'region', 'aria-label': 'Checklist rows' },
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ChecklistTable {
@@ -29,8 +31,22 @@ export class ChecklistTable {
     return index === 0 || rows[index - 1].clauseId !== rows[index].clauseId;
   }
 
+  /** An advisory failure says so in words, not only in a different colour. */
   protected statusLabel(row: ChecklistRow): string {
-    return STATUS_TEXT[row.status];
+    return row.severity === 'advisory' && (row.status === 'fail' || row.status === 'error') ? `${STATUS_TEXT[row.status]} · advisory` : STATUS_TEXT[row.status];
+  }
+
+  /** Actual and limit with enough digits that the printed pair compares as the numbers do. */
+  protected beside(row: ChecklistRow): { actual: string; limit: string } {
+    return formatBeside(row.actual, row.limit);
+  }
+
+  protected unit(row: ChecklistRow): string {
+    return row.actual === null && row.limit === null ? '' : unitText(row.unit);
+  }
+
+  protected utilisation(row: ChecklistRow): string {
+    return formatUtilisation(row.utilisation);
   }
 
   protected barWidth(row: ChecklistRow): number {

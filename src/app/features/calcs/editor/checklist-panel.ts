@@ -14,7 +14,8 @@ import type { ChecklistState } from './live-calc';
         @let c = s.checklist;
         <div class="verdict" [attr.data-verdict]="c.verdict">
           <strong>{{ c.verdict === 'compliant' ? 'Meets' : 'Does not meet' }} {{ c.ruleSet.code }} v{{ c.ruleSet.version }}</strong>
-          <span class="tt-mono">{{ c.counts.pass }} pass · {{ c.counts.fail }} fail · {{ c.counts.error }} error · {{ c.counts.notApplicable }} n/a</span>
+          <span class="tt-mono">{{ c.counts.pass }} pass · {{ c.counts.mandatoryFail }} mandatory fail · {{ c.counts.error }} error · {{ c.counts.notApplicable }} n/a</span>
+          @if (c.counts.advisoryFail) { <span class="advisory">{{ c.counts.advisoryFail }} advisory not met</span> }
         </div>
         @for (r of c.verdictReasons; track r) { <p class="reason">{{ r }}</p> }
         @for (m of c.methodIssues; track m.path) { <p class="reason">{{ m.path }}: {{ m.message }}</p> }

@@ -9,7 +9,7 @@ import { DraftStorage, type LocalDraft } from './draft-storage';
 import { canonical } from './editor-support';
 import { inputToValue, valueToInput } from './form-values';
 import { ConflictDialog, type ConflictChoice, type ConflictData } from './conflict-dialog';
-import { LeaveDialog } from './leave-dialog';
+import { LeaveDialog, type LeaveChoice } from './leave-dialog';
 
 export interface SessionHooks {
   form: () => EditorForm;
@@ -144,6 +144,11 @@ export class EditorSession {
   async confirmLeave(): Promise<boolean> {
     if (!this.hasUnsavedChanges()) return true;
     this.keepLocalCopy();
-    return (await firstValueFrom(this.dialog.open(LeaveDialog).afterClosed())) === true;
+    const choice = await firstValueFrom(this.dialog.open<LeaveDialog, void, LeaveChoice>(LeaveDialog).afterClosed());
+    if (choice === 'leave') return true;
+    if (choice !== 'save') return false;
+    // Leave only once the revision really holds the edits: a refusal or a conflict keeps the author here.
+    await this.save();
+    return !this.hasUnsavedChanges() && !this.saveError() && !this.pendingConflict();
   }
 }

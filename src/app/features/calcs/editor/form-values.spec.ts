@@ -50,16 +50,16 @@ describe('form values and calc input', () => {
 });
 
 describe('switching units converts the values', () => {
-  it('when SI goes to US and back, then every value returns to what was typed (engine unit factors)', () => {
+  it('when SI goes to US, then values are converted by the engine unit factors to six significant figures, not ten', () => {
     const us = convertValue(inputToValue(HEAD), 'US');
-    expect(us.segments[0].od).toBe('3.937007874');      // 100 mm / 25.4
-    expect(us.material.Su).toBe('91.37377477');          // 630 MPa / 6.894757 MPa per ksi
-    expect(us.torques[0].power).toBe('49.61781732');     // 37 kW / 0.7456999 kW per hp
+    expect(us.segments[0].od).toBe('3.93701');      // 100 mm / 25.4
+    expect(us.material.Su).toBe('91.3738');          // 630 MPa / 6.894757 MPa per ksi
+    expect(us.torques[0].power).toBe('49.6178');     // 37 kW / 0.7456999 kW per hp
     expect(us.torques[0].speed).toBe('55');           // rpm is rpm
     expect(us.fatigue.temperature).toBe('104');       // 40 °C = 104 °F
     expect(us.features[1].Kt).toBe('1.9');            // factors have no unit
     const back = valueToInput(convertValue(us, 'SI'));
-    expect(Number(back['material'] && (back['material'] as { G: number }).G)).toBeCloseTo(79.3, 6);
+    expect(Number(back['material'] && (back['material'] as { G: number }).G)).toBeCloseTo(79.3, 3);
   });
 
   it('when the author switches back without editing, then every value is exactly what was typed', () => {
@@ -72,13 +72,21 @@ describe('switching units converts the values', () => {
 });
 
 describe('engine issues and the form', () => {
+  it('when an engine message names a path, then the screen names it as the form does, counted from 1, features by their tag', () => {
+    expect(placeOf('torques[1].at')).toBe('Torque 2, station');
+    expect(placeOf('features[1].r', ['keyseat', 'shoulder-fillet'])).toBe('Feature SF2, radius');
+    expect(placeOf('features[0]', ['keyseat'])).toBe('Feature KS1');
+    expect(placeOf('segments[0].od')).toBe('Segment 1, outer ⌀');
+  });
+
   it('when an issue names a field, then its control is found; a list-level issue has none', () => {
     const form = editorForm(inputToValue(HEAD));
     expect(controlAt(form, 'segments[1].id')).toBe(form.controls.segments.at(1).controls.id);
     expect(controlAt(form, 'features[0].Sy')).toBe(form.controls.features.at(0).controls.keySy);
     expect(controlAt(form, 'torques')).toBeNull();
     expect(controlAt(form, 'segments[9].od')).toBeNull();
-    expect(placeOf('bending[1].Ma')).toBe('Bending moment 2');
+    expect(placeOf('bending[1].Ma')).toBe('Bending moment 2, alternating moment');
+    expect(placeOf('bending[1]')).toBe('Bending moment 2');
     expect(toIssueMap([{ path: 'a', message: 'x' }, { path: 'a', message: 'y' }])).toEqual({ a: 'x; y' });
   });
 

@@ -2,6 +2,9 @@ import { ChangeDetectionStrategy, Component } from '@angular/core';
 import { MatDialogModule } from '@angular/material/dialog';
 import { MatButtonModule } from '@angular/material/button';
 
+/** What the author chose: leave and drop the edits, stay on the page, or save the revision and then leave. */
+export type LeaveChoice = 'leave' | 'stay' | 'save';
+
 /** Asked before leaving the editor with changes that are not saved as a revision yet. */
 @Component({
   selector: 'tt-leave-dialog',
@@ -13,8 +16,9 @@ import { MatButtonModule } from '@angular/material/button';
         but nobody else sees it until you save.</p>
     </mat-dialog-content>
     <mat-dialog-actions align="end">
-      <button mat-button [mat-dialog-close]="true">Leave</button>
-      <button mat-flat-button [mat-dialog-close]="false" cdkFocusInitial>Stay and save</button>
+      <button mat-button mat-dialog-close="leave">Leave without saving</button>
+      <button mat-stroked-button mat-dialog-close="stay">Stay here</button>
+      <button mat-flat-button mat-dialog-close="save" cdkFocusInitial>Save and leave</button>
     </mat-dialog-actions>
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, DOCUMENT, computed, inject, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import type { CalcIssue } from '../../../../../shared/engine';
+import type { Checklist, RuleSet } from '../../../../../shared/rules';
 import { SafetyNote } from '../../../ui/safety-note';
 import { placeOf } from './issue-map';
 import type { Evaluated } from './live-calc';
@@ -26,8 +27,12 @@ export class LiveResults {
   readonly limits = input<PlotLimits | undefined>(undefined);
   readonly criterion = input<CriterionKey>('goodman');
   readonly criterionName = input('DE-Goodman');
+  readonly checklist = input<Checklist | null>(null);
+  readonly ruleSet = input<RuleSet | null>(null);
 
-  protected readonly listed = computed(() => this.issues().map((i) => ({ ...i, place: placeOf(i.path) })));
+  private readonly featureTypes = computed(() => ((this.evaluated()?.input as { features?: { type: string }[] } | undefined)?.features ?? []).map((f) => f.type));
+  protected readonly listed = computed(() => this.issues().map((i) => ({ ...i, place: placeOf(i.path, this.featureTypes()) })));
+  protected readonly warnings = computed(() => (this.evaluated()?.result.warnings ?? []).map((w) => ({ ...w, place: placeOf(w.path, this.featureTypes()) })));
 
   /** Takes the author to the field an issue names, where the same message is shown. */
   protected focusField(path: string): void {

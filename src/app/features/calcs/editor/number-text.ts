@@ -21,9 +21,10 @@ export function toText(value: unknown): string {
 }
 
 /**
- * A converted number to ten significant digits. Seven looked tidier but turned 28 mm into 27.99999 mm
- * after a trip to inches and back; ten digits return every typed value exactly.
+ * A converted number to six significant digits: "3.93701 in", not "3.937007874 in", which was clipped
+ * in narrow fields and claimed a precision no drawing has. Six digits change a result by under 1e-5;
+ * switching back without editing restores exactly what was typed (unit-convert keeps the originals).
  */
 export function convertedText(value: number): string {
-  return formatNumber(value, 10);
+  return formatNumber(value, 6);
 }

@@ -177,7 +177,33 @@ describe('saving and keeping work', () => {
     const leaving = fixture.componentInstance.confirmLeave();
     const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
     expect(await dialog.getTitleText()).toBe('Leave without saving?');
-    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Stay and save' }))).click();
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Stay here' }))).click();
     expect(await leaving).toBe(false);
+  });
+
+  it('when the author chooses "Save and leave", then the revision is saved first and only then do they leave', async () => {
+    await open();
+    await (await segmentField('segments[0].label')).setValue('drive end');
+    const leaving = fixture.componentInstance.confirmLeave();
+    const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Save and leave' }))).click();
+    await turn();
+    const put = http.expectOne({ method: 'PUT', url: '/api/revisions/7' });
+    expect(put.request.body.input.segments[0].label).toBe('drive end');
+    put.flush(revision({ lockVersion: 1, input: put.request.body.input }));
+    expect(await leaving).toBe(true);
+  });
+
+  it('when "Save and leave" is refused by the server, then the author stays with the edits and the reason', async () => {
+    await open();
+    await (await segmentField('segments[0].label')).setValue('drive end');
+    const leaving = fixture.componentInstance.confirmLeave();
+    const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Save and leave' }))).click();
+    await turn();
+    http.expectOne({ method: 'PUT', url: '/api/revisions/7' })
+      .flush({ code: 'validation', message: 'Invalid input', fieldErrors: { 'input.segments': ['is too long'] } }, { status: 400, statusText: 'Bad Request' });
+    expect(await leaving).toBe(false);
+    expect(await (await segmentField('segments[0].label')).getValue()).toBe('drive end');
   });
 });

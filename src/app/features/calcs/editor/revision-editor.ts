@@ -32,6 +32,7 @@ import { FatiguePanel } from './fatigue-panel';
 import { NotesPanel } from './notes-panel';
 import { LiveResults } from './live-results';
 import { LiveDetails } from './live-details';
+import { VerdictStrip } from './verdict-strip';
 
 /**
  * The author's calc editor. The form is replaced as a whole on load, restore, "take theirs" and unit
@@ -41,7 +42,7 @@ import { LiveDetails } from './live-details';
 @Component({
   selector: 'tt-revision-editor',
   imports: [RouterLink, MatButtonModule, MatButtonToggleModule, MatIconModule, MatProgressBarModule, StateBadge,
-    MaterialPanel, SegmentsTable, FeaturesList, LoadsPanel, FatiguePanel, NotesPanel, LiveResults, LiveDetails],
+    MaterialPanel, SegmentsTable, FeaturesList, LoadsPanel, FatiguePanel, NotesPanel, LiveResults, LiveDetails, VerdictStrip],
   templateUrl: './revision-editor.html',
   styleUrl: './revision-editor.scss',
   providers: [EditorStore, EditorSession, { provide: ErrorStateMatcher, useClass: EngineErrorState }],
@@ -77,6 +78,10 @@ export default class RevisionEditor {
   protected readonly isDirty = computed(() => this.session.isLoaded() && canonical(this.authorInput()) !== this.session.baseline());
   protected readonly criterionName = computed(() => this.store.ruleSet()?.methods.fatigueCriterion ?? 'DE-Goodman');
   protected readonly criterion = computed(() => CRITERION_KEYS[this.criterionName()] ?? 'goodman');
+  protected readonly readyChecklist = computed(() => {
+    const c = this.live.checklist();
+    return c.kind === 'ready' ? c : null;
+  });
   protected readonly limits = computed(() => {
     const ev = this.live.evaluated();
     const c = this.live.checklist();

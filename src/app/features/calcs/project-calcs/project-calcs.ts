@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, numberAttribute, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, numberAttribute, signal } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { Router, RouterLink } from '@angular/router';
 import { httpResource } from '@angular/common/http';
@@ -21,6 +21,7 @@ import { EmptyState } from '../../../ui/empty-state';
 import { StateBadge } from '../../../ui/state-badge';
 import { VerdictBadge } from '../../../ui/verdict-badge';
 import { CalcsApi, type CalcListParams } from '../calcs-api';
+import { KeysetPager } from '../../../ui/keyset-pager';
 import { NewCalcDialog } from '../new-calc/new-calc-dialog';
 
 @Component({
@@ -37,10 +38,10 @@ export default class ProjectCalcs {
   readonly id = input.required({ transform: numberAttribute });
 
   protected readonly project = httpResource<ProjectDto>(() => `/api/projects/${this.id()}`);
-  protected readonly params = signal<Omit<CalcListParams, 'projectId'>>({ q: '', page: 0, size: 25, sort: 'updatedAt', dir: 'desc' });
-  protected readonly calcs = inject(CalcsApi).list(computed(() => ({ ...this.params(), projectId: this.id() })));
-  protected readonly rows = computed(() => this.calcs.value()?.items ?? []);
-  protected readonly total = computed(() => this.calcs.value()?.total ?? 0);
+  protected readonly params = signal<Omit<CalcListParams, 'projectId' | 'size' | 'after'>>({ q: '', sort: 'updatedAt', dir: 'desc' });
+  protected readonly pager = new KeysetPager(25);
+  protected readonly calcs = inject(CalcsApi).list(computed(() => ({ ...this.params(), projectId: this.id(), size: this.pager.size(), after: this.pager.after() })));
+  protected readonly rows = computed(() => (this.calcs.hasValue() ? this.calcs.value().items : []));
   protected readonly error = computed(() => {
     const e = this.project.error() ?? this.calcs.error();
     return e ? toHttpFailure(e).message : null;
@@ -49,16 +50,24 @@ export default class ProjectCalcs {
   protected readonly states = REVISION_STATES.map((s) => ({ value: s, label: STATE_LABELS[s] }));
   protected readonly columns = ['number', 'title', 'revision', 'status', 'verdict', 'author', 'updatedAt'];
 
+  constructor() {
+    effect(() => {
+      if (this.calcs.hasValue()) this.pager.remember(this.calcs.value());
+    });
+  }
+
   protected filter(patch: Partial<CalcListParams>): void {
-    this.params.update((p) => ({ ...p, ...patch, page: 0 }));
+    this.pager.reset();
+    this.params.update((p) => ({ ...p, ...patch }));
   }
 
   protected sortBy(sort: Sort): void {
+    this.pager.reset();
     this.params.update((p) => ({ ...p, sort: sort.direction ? sort.active : 'updatedAt', dir: sort.direction || 'desc' }));
   }
 
   protected changePage(e: PageEvent): void {
-    this.params.update((p) => ({ ...p, page: e.pageIndex, size: e.pageSize }));
+    this.pager.turn(e);
   }
 
   protected startCalc(): void {

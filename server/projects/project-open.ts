@@ -1,0 +1,25 @@
+import type { Transaction } from 'sequelize';
+import { Calc, Project } from '../db/models';
+import { AppError } from '../errors/app-error';
+
+/**
+ * An archived project is a closed record: nothing in it is saved, signed, ticked, attached,
+ * reviewed, returned, withdrawn or revised again. Every write to a calc checks this in its own
+ * transaction. A plain read, not a locking one: archiving is rare, and a write that commits just
+ * before the archive is simply earlier than it.
+ */
+export async function assertProjectOpen(calcId: number, transaction?: Transaction): Promise<void> {
+  const project = await projectOf(calcId, transaction);
+  if (project?.status === 'archived') {
+    throw new AppError('archived', 409, `Project ${project.code} is archived: its calcs are read-only. An administrator can reopen the project.`);
+  }
+}
+
+export async function isProjectArchived(calcId: number): Promise<boolean> {
+  return (await projectOf(calcId))?.status === 'archived';
+}
+
+async function projectOf(calcId: number, transaction?: Transaction): Promise<Project | undefined> {
+  const calc = await Calc.findByPk(calcId, { attributes: ['id', 'projectId'], include: [{ model: Project, attributes: ['id', 'code', 'status'] }], transaction });
+  return (calc as (Calc & { Project?: Project }) | null)?.Project;
+}

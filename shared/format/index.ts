@@ -1,0 +1,3 @@
+export { formatEng, formatWithUnit, formatBeside, formatUtilisation, unitText } from './engineering';
+export { headlineMark, type HeadlineMark, type HeadlineOutcome } from './headline';
+export { formatBytes } from './bytes';

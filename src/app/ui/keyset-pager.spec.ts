@@ -1,0 +1,42 @@
+import { KeysetPager } from './keyset-pager';
+
+const page = (next: string | null, total: number | null = null, totalIsAtLeast = false) => ({ items: [], size: 25, next, total, totalIsAtLeast });
+
+describe('KeysetPager', () => {
+  it('when pages are turned on and back, then each page starts at the cursor its predecessor gave', () => {
+    const pager = new KeysetPager(25);
+    pager.remember(page('c1', 80));
+    pager.turn({ pageIndex: 1, pageSize: 25, previousPageIndex: 0, length: 80 });
+    expect(pager.after()).toBe('c1');
+    pager.remember(page('c2'));
+    pager.turn({ pageIndex: 2, pageSize: 25, previousPageIndex: 1, length: 80 });
+    expect(pager.after()).toBe('c2');
+    pager.turn({ pageIndex: 1, pageSize: 25, previousPageIndex: 2, length: 80 });
+    expect(pager.after()).toBe('c1');
+    pager.turn({ pageIndex: 0, pageSize: 25, previousPageIndex: 1, length: 80 });
+    expect(pager.after()).toBeUndefined();
+  });
+
+  it('when later pages carry no total, then the first page\'s count stays shown', () => {
+    const pager = new KeysetPager(25);
+    pager.remember(page('c1', 10_000, true));
+    pager.turn({ pageIndex: 1, pageSize: 25, previousPageIndex: 0, length: 10_000 });
+    pager.remember(page('c2'));
+    expect(pager.totalLabel()).toBe('more than 10,000');
+    expect(pager.length()).toBe(10_000);
+  });
+
+  it('when the server still offers a next page past the counted total, then the paginator can go on', () => {
+    const pager = new KeysetPager(2);
+    pager.remember(page('c1', 2));
+    expect(pager.length()).toBe(3);
+  });
+
+  it('when the page size changes, then paging starts again from the top and is counted again', () => {
+    const pager = new KeysetPager(25);
+    pager.remember(page('c1', 80));
+    pager.turn({ pageIndex: 1, pageSize: 25, previousPageIndex: 0, length: 80 });
+    pager.turn({ pageIndex: 1, pageSize: 50, previousPageIndex: 1, length: 80 });
+    expect([pager.pageIndex(), pager.size(), pager.after(), pager.totalLabel()]).toEqual([0, 50, undefined, '']);
+  });
+});

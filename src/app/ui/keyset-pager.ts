@@ -1,0 +1,61 @@
+import { computed, signal, untracked, type WritableSignal } from '@angular/core';
+import type { PageEvent } from '@angular/material/paginator';
+import type { KeysetPage } from '../../../shared/schemas/common.schema';
+
+/**
+ * Paging state of a server list read by keyset: the cursor that starts each page seen so far
+ * (so "previous" goes back without offsets), and the total the server counted on the first page
+ * of the current filter (later pages do not count again). A mat-paginator shows it with
+ * `[length]="pager.length()"`, `[pageIndex]="pager.pageIndex()"` and no first/last buttons.
+ */
+export class KeysetPager {
+  readonly pageIndex = signal(0);
+  readonly size: WritableSignal<number>;
+  /** The `after` parameter of the page being shown; a resource reads it as one of its params. */
+  readonly after = signal<string | undefined>(undefined);
+  private readonly total = signal<{ total: number; isAtLeast: boolean } | null>(null);
+  private readonly next = signal<string | null>(null);
+  private cursors: (string | undefined)[] = [undefined];
+
+  constructor(size: number) {
+    this.size = signal(size);
+  }
+
+  /** Paginator length: the counted total, extended while the server still offers a next page. */
+  readonly length = computed(() => {
+    const seen = (this.pageIndex() + 1) * this.size() + (this.next() ? 1 : 0);
+    return Math.max(this.total()?.total ?? 0, seen);
+  });
+
+  /** "1,234" or "more than 10,000", for a line beside the table. */
+  readonly totalLabel = computed(() => {
+    const t = this.total();
+    return t ? `${t.isAtLeast ? 'more than ' : ''}${t.total.toLocaleString('en-US')}` : '';
+  });
+
+  /** Called (from an effect) with every page the resource returns; reads no signal the effect should follow. */
+  remember(page: KeysetPage<unknown>): void {
+    untracked(() => {
+      if (page.total !== null) this.total.set({ total: page.total, isAtLeast: page.totalIsAtLeast });
+      this.next.set(page.next);
+      this.cursors[this.pageIndex() + 1] = page.next ?? undefined;
+    });
+  }
+
+  /** A new filter, sort or page size: back to the first page, to be counted again. */
+  reset(size = this.size()): void {
+    this.size.set(size);
+    this.cursors = [undefined];
+    this.total.set(null);
+    this.next.set(null);
+    this.pageIndex.set(0);
+    this.after.set(undefined);
+  }
+
+  /** The paginator moved one page on or back (or changed its size). */
+  turn(event: PageEvent): void {
+    if (event.pageSize !== this.size()) return this.reset(event.pageSize);
+    this.pageIndex.set(event.pageIndex);
+    this.after.set(this.cursors[event.pageIndex]);
+  }
+}

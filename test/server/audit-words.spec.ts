@@ -1,0 +1,34 @@
+import { startTestApp, signedInAs } from '../support/api-harness';
+import { calcTeam, sign } from '../support/calc-harness';
+
+// The audit trail as a compliance officer reads it: what each row is about, named as people name it,
+// with a link; and the people in the trail for the person filter.
+const { app, sequelize } = startTestApp();
+afterAll(() => sequelize.close());
+jest.setTimeout(60_000);
+
+describe('audit trail in human words', () => {
+  it('when a revision is signed, then its row names the calc number and revision label with a link, and keeps the code', async () => {
+    const { author, calc, revisionId } = await calcTeam(app);
+    await sign(author.session, revisionId, 'authored');
+    const compliance = await signedInAs(app, ['compliance'], 'audit-words');
+
+    const res = await compliance.session.get(`/api/audit?calcId=${calc.id}&size=50`);
+    const signed = res.body.items.find((e: { action: string }) => e.action === 'revision.signed_authored');
+    const created = res.body.items.find((e: { action: string }) => e.action === 'calc.created');
+
+    expect(res.status).toBe(200);
+    expect(signed).toEqual(expect.objectContaining({ entityType: 'Revision', entityId: String(revisionId),
+      record: { label: `calc ${calc.number} rev A`, link: `/calcs/${calc.id}?rev=${revisionId}` } }));
+    expect(created.record).toEqual({ label: `calc ${calc.number}`, link: `/calcs/${calc.id}` });
+  });
+
+  it('when compliance opens the person filter, then the people in the trail are listed by name', async () => {
+    const { author } = await calcTeam(app);
+    const compliance = await signedInAs(app, ['compliance'], 'audit-people');
+    const res = await compliance.session.get('/api/audit/people');
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual(expect.arrayContaining([{ id: author.user.id, name: expect.any(String) }]));
+    expect((await author.session.get('/api/audit/people')).status).toBe(403);
+  });
+});

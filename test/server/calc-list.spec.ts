@@ -1,0 +1,100 @@
+import { QueryTypes } from 'sequelize';
+import { startTestApp } from '../support/api-harness';
+import { calcTeam, fixtureInput, revisionOf, sign } from '../support/calc-harness';
+import { compactResult } from '../../server/calcs/stored-result';
+
+const { app, sequelize } = startTestApp();
+afterAll(() => sequelize.close());
+// Several people sign in (Argon2) on a shared two-core machine.
+jest.setTimeout(120_000);
+
+type Row = { id: number; number: string; latest: { status: string; verdict: string | null; label: string; author: { name: string } } };
+
+describe('the calc list reads summaries kept with every change', () => {
+  it('when an author saves and signs, then the project list shows the latest state, verdict and author at once', async () => {
+    // Arrange
+    const t = await calcTeam(app);
+    const before = (await t.author.session.get(`/api/calcs?projectId=${t.project.id}`)).body;
+
+    // Act
+    await sign(t.author.session, t.revisionId, 'authored');
+    const after = (await t.author.session.get(`/api/calcs?projectId=${t.project.id}`)).body;
+
+    // Assert
+    expect(before.items.map((r: Row) => r.latest.status)).toEqual(['draft']);
+    expect(after.items.map((r: Row) => [r.id, r.latest.status, r.latest.label])).toEqual([[t.calc.id, 'in_check', 'A']]);
+    expect(after.items[0].latest.verdict).toBe(t.calc.latest.verdict);
+    expect(after.items[0].latest.author.name).toBe(t.calc.latest.author.name);
+    expect(after.total).toBe(1);
+  });
+
+  it.each([
+    ['a title word', (t: Team) => 'head shaft'],
+    ['the drawing number', () => 'DRG-1'],
+    ['the project code', (t: Team) => t.project.code],
+    ['the calc number', (t: Team) => t.calc.number],
+    ['the state', () => 'draft'],
+  ] as [string, (t: Team) => string][])('when the search box holds %s, then the calc is found', async (_what, termOf) => {
+    const t = await calcTeam(app);
+    const res = await t.author.session.get(`/api/calcs?projectId=${t.project.id}&q=${encodeURIComponent(termOf(t))}`);
+    expect(res.status).toBe(200);
+    expect(res.body.items.map((r: Row) => r.id)).toEqual([t.calc.id]);
+  });
+});
+
+type Team = Awaited<ReturnType<typeof calcTeam>>;
+
+describe('keyset pages', () => {
+  it('when a list is read page by page, then no calc repeats or goes missing and only the first page is counted', async () => {
+    // Arrange: three calcs in one project
+    const t = await calcTeam(app);
+    for (const n of ['K-2', 'K-3']) {
+      await t.author.session.post('/api/calcs', { projectId: t.project.id, number: n, title: 'Another shaft', partRef: '', ruleSetId: t.calc.latest.ruleSet.id, input: fixtureInput() });
+    }
+
+    // Act
+    const first = (await t.author.session.get(`/api/calcs?projectId=${t.project.id}&size=2&sort=number&dir=asc`)).body;
+    const second = (await t.author.session.get(`/api/calcs?projectId=${t.project.id}&size=2&sort=number&dir=asc&after=${first.next}`)).body;
+
+    // Assert
+    expect([...first.items, ...second.items].map((r: Row) => r.number)).toEqual([t.calc.number, 'K-2', 'K-3'].sort());
+    expect([first.total, second.total, second.next]).toEqual([3, null, null]);
+  });
+
+  it('when the cursor is not one the list gave, then it is a 400 naming it', async () => {
+    const t = await calcTeam(app);
+    const res = await t.author.session.get('/api/calcs?after=bm90LWEtY3Vyc29y');
+    expect(res.status).toBe(400);
+    expect(res.body.fieldErrors).toHaveProperty('after');
+  });
+});
+
+describe('stored results without per-field metadata', () => {
+  it('when a revision is stored, then its row leaves out units and formulas, and reading puts them back under the same hash', async () => {
+    // Arrange
+    const t = await calcTeam(app);
+    await sign(t.author.session, t.revisionId, 'authored');
+
+    // Act
+    const [row] = await sequelize.query<{ result: string }>('SELECT result FROM revisions WHERE id = ?', { replacements: [t.revisionId], type: QueryTypes.SELECT });
+    const read = await revisionOf(t.author.session, t.revisionId);
+
+    // Assert
+    expect(JSON.parse(row.result)).not.toHaveProperty('fields');
+    expect(Object.keys(read.result.fields).length).toBeGreaterThan(10);
+    expect(read.signatures.map((s: { isValid: boolean }) => s.isValid)).toEqual([true]);
+  });
+
+  it('when a row was stored with its units and formulas in place (before this change), then it still verifies', async () => {
+    const t = await calcTeam(app);
+    await sign(t.author.session, t.revisionId, 'authored');
+    const full = (await revisionOf(t.author.session, t.revisionId)).result;
+    expect(compactResult(full)).not.toContain('"fields"');
+
+    await sequelize.query('UPDATE revisions SET result = ? WHERE id = ?', { replacements: [JSON.stringify(full), t.revisionId] });
+    const read = await revisionOf(t.author.session, t.revisionId);
+
+    expect(read.signatures.map((s: { isValid: boolean }) => s.isValid)).toEqual([true]);
+    expect(read.result).toEqual(full);
+  });
+});

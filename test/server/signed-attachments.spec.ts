@@ -3,8 +3,8 @@ import { auditOf, calcTeam, revisionOf, sign, tickAll } from '../support/calc-ha
 import { startTestS3 } from '../support/fake-servers';
 import { pdfBytes, upload } from '../support/upload-harness';
 import { getBinary, postPack, rezip, unzip } from '../support/pack-harness';
-import { Calc, Project, Signature } from '../../server/db/models';
-import { contentHashOf, hashedContentOf } from '../../server/calcs/revision-content';
+import { Signature } from '../../server/db/models';
+import { currentHashOf } from '../../server/calcs/revision-read';
 import { loadRevision } from '../../server/calcs/calc-access';
 
 // Attachments are part of what is signed: each signature covers the set present when it was
@@ -72,9 +72,7 @@ describe('attachments inside what is signed', () => {
     const { author, revisionId } = await calcTeam(ctx.app);
     await sign(author.session, revisionId, 'authored');
     // Rewrite the signature as one made before this change: format 1 hash, no attachment set.
-    const revision = await loadRevision(revisionId);
-    const calc = await Calc.findByPk(revision.calcId, { include: [Project] }) as Calc & { Project: Project };
-    const v1 = contentHashOf(hashedContentOf(calc, revision.label, JSON.parse(revision.input), JSON.parse(revision.result!), JSON.parse(revision.checklist!), revision.ruleSet));
+    const v1 = (await currentHashOf(await loadRevision(revisionId), undefined, undefined, 1))!;
     await Signature.update({ contentHash: v1, contentFormat: 1, attachments: null }, { where: { revisionId } });
 
     const sig = (await revisionOf(author.session, revisionId)).signatures[0];

@@ -5,7 +5,8 @@ import { BOLD, COPPER, INK, INK_SOFT, MONO, RULE, SANS } from './report-doc';
 export interface Box { x: number; y: number; w: number; h: number }
 
 const INSET = { left: 46, right: 10, top: 22, bottom: 26 };
-const SERIES_COLOURS = [INK, COPPER];
+// A third series is dotted blue: copper dashes are kept for the limits.
+const SERIES_COLOURS = [INK, COPPER, '#2f5d86'];
 
 function scaler(chart: Chart, area: Box) {
   const sx = (v: number) => area.x + ((v - chart.x.min) / (chart.x.max - chart.x.min || 1)) * area.w;
@@ -39,7 +40,8 @@ export function drawChart(doc: PDFKit.PDFDocument, chart: Chart, box: Box): void
     doc.moveTo(sx(s.points[0][0]), sy(s.points[0][1]));
     for (const [px, py] of s.points.slice(1)) doc.lineTo(sx(px), sy(py));
     if (s.style === 'dashed') doc.dash(3, { space: 2 });
-    doc.lineWidth(1.2).strokeColor(SERIES_COLOURS[i % 2]).stroke().undash();
+    if (s.style === 'dotted') doc.dash(1, { space: 1.6 });
+    doc.lineWidth(1.2).strokeColor(SERIES_COLOURS[i % SERIES_COLOURS.length]).stroke().undash();
   });
   for (const l of chart.limits) {
     doc.moveTo(sx(l.x1), sy(l.y)).lineTo(sx(l.x2), sy(l.y)).dash(5, { space: 3 }).lineWidth(0.9).strokeColor(COPPER).stroke().undash();

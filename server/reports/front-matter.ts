@@ -1,4 +1,5 @@
 import { CAUTION, formatNumber } from '../../shared/engine';
+import { beamUnit, hasBeamModel } from '../../shared/plots';
 import type { ReportData } from './report-data';
 import { BOLD, CONTENT_WIDTH, COPPER, FAIL, INK, PAGE, PASS, SANS, WARN } from './report-doc';
 import { headlineMark, unitText, type HeadlineOutcome } from '../../shared/format';
@@ -57,6 +58,13 @@ export function drawKeyResults(doc: PDFKit.PDFDocument, d: ReportData): void {
     for (const [k, name] of names) {
       rows.push(figure(`Lowest fatigue safety, ${name}`, fatigue[k]?.value ?? null, name === judged ? 'fatigueSafety' : '', '1', at(fatigue[k]), f(k).formula, 3));
     }
+  }
+  if (hasBeamModel(r)) {
+    const c = r.criticalSpeed;
+    const life = r.supports.filter((s) => s.L10h !== null).sort((a, b) => a.L10h! - b.L10h!)[0];
+    rows.push(['Largest deflection δ', num(r.deflection?.max ?? null, 3), beamUnit(r, 'deflection'), at(r.deflection), f('deflection').formula]);
+    if (life) rows.push(['Shortest bearing life L10h', num(life.L10h, 3), 'h', `bearing ${life.index + 1} at ${num(life.at)} ${f('at').unit}`, f('L10h').formula]);
+    rows.push(['Critical / operating speed', num(c?.ratio ?? null, 3), '–', c ? `first critical ${num(c.rpm)} rpm` : 'not computed', c?.method ?? '']);
   }
   drawTable(doc, [
     { header: 'Result', share: 0.22 }, { header: 'Value', share: 0.09, align: 'right', mono: true }, { header: 'Unit', share: 0.06 },

@@ -4,6 +4,7 @@ import type { ReportData } from './report-data';
 import { paragraph, sectionHeading, subHeading } from './report-doc';
 import { drawTable } from './pdf-table';
 import { num } from './front-matter';
+import { drawShaftInputs } from './shaft-inputs';
 
 function featureDetails(f: FeatureInput, len: string): string {
   const entered = [f.Kt ? `Kt ${f.Kt}` : '', f.Kts ? `Kts ${f.Kts}` : ''].filter(Boolean).join(', ');
@@ -54,6 +55,7 @@ export function drawInputs(doc: PDFKit.PDFDocument, d: ReportData, number: numbe
     { header: 'Kind', share: 0.07 }, { header: '#', share: 0.05 }, { header: 'Label', share: 0.25 }, { header: `At ${u.length}`, share: 0.1, align: 'right', mono: true },
     { header: 'Steady / midrange', share: 0.35 }, { header: 'Alternating', share: 0.18 },
   ], loadRows(input, u));
+  drawShaftInputs(doc, input);
   const fat = input.fatigue;
   if (fat) paragraph(doc, `Fatigue: surface ${fat.surface}${fat.reliability ? `, reliability ${fat.reliability} %` : ''}${fat.temperature !== undefined ? `, temperature ${fat.temperature} ${u.temperature}` : ''}${fat.alternatingTorqueFraction !== undefined ? `, Ta = ${fat.alternatingTorqueFraction} × |Tm|` : ''}${fat.SePrime ? `, Se′ entered ${fat.SePrime} ${u.stress} (${fat.SePrimeSource ?? 'no source'})` : ''}.`);
   if (input.notes) paragraph(doc, `Notes: ${input.notes}`);

@@ -1,16 +1,23 @@
-import type { ShaftOutline } from '../../shared/plots';
+import type { ShaftLoads, ShaftOutline } from '../../shared/plots';
 import { BAND, BOLD, COPPER, INK, INK_SOFT, MONO } from './report-doc';
 import type { Box } from './chart-draw';
+import { LOADS_ROOM_PT, PLAN_PT, drawLoads } from './loads-draw';
 
 const TAG_ROW = 10;
+/** A short, thick shaft is scaled down so it does not fill the page. */
+const MAX_SHAFT_PT = 110;
 
-/** The shaft to scale (one factor on both axes), bores hidden-dashed, features marked and tagged. */
-export function drawOutline(doc: PDFKit.PDFDocument, o: ShaftOutline, box: Box, unit: string): void {
+/**
+ * The shaft to scale (one factor on both axes), bores hidden-dashed, features marked and tagged; with
+ * `loads`, the bearings and Fy arrows on the side view and a strip below it for Fz. Draws from the top
+ * of `box` and returns the height used, so the next figure follows without a gap.
+ */
+export function drawOutline(doc: PDFKit.PDFDocument, o: ShaftOutline, box: Box, unit: string, loads: ShaftLoads | null = null): number {
   const levels = Math.max(0, ...o.features.map((f) => f.level + 1));
-  const room = { w: box.w - 20, h: box.h - 30 - levels * TAG_ROW };
-  const k = Math.min(room.w / (o.length || 1), room.h / (2 * o.maxRadius || 1));
-  const x0 = box.x + 10 + (room.w - o.length * k) / 2;
-  const yc = box.y + 14 + levels * TAG_ROW + room.h / 2;
+  const arrows = loads ? LOADS_ROOM_PT : 0;
+  const k = Math.min((box.w - 20) / (o.length || 1), MAX_SHAFT_PT / (2 * o.maxRadius || 1));
+  const x0 = box.x + 10 + (box.w - 20 - o.length * k) / 2;
+  const yc = box.y + 14 + levels * TAG_ROW + arrows + o.maxRadius * k;
   const X = (v: number) => x0 + v * k;
   const Y = (v: number) => yc - v * k;
   doc.font(BOLD).fontSize(8).fillColor(INK).text(`Shaft outline to scale (${unit})`, box.x, box.y, { lineBreak: false });
@@ -34,6 +41,10 @@ export function drawOutline(doc: PDFKit.PDFDocument, o: ShaftOutline, box: Box, 
     doc.moveTo(X(f.at), tagY + 8).lineTo(X(f.at), Y(f.top)).lineWidth(0.4).strokeColor(COPPER).stroke();
     doc.font(BOLD).fontSize(6.5).fillColor(COPPER).text(f.tag, X(f.at) - 15, tagY, { width: 30, align: 'center', lineBreak: false });
   }
+  const below = yc + o.maxRadius * k + arrows;
+  if (loads) drawLoads(doc, loads, { X, Y, k, planY: below + PLAN_PT / 2, x1: X(0), x2: X(o.length) });
+  const ticksY = below + (loads ? PLAN_PT : 0) + 4;
   doc.font(MONO).fontSize(6).fillColor(INK_SOFT);
-  for (const t of o.x.ticks.filter((t) => t <= o.length)) doc.text(String(t), X(t) - 15, box.y + box.h - 10, { width: 30, align: 'center', lineBreak: false });
+  for (const t of o.x.ticks.filter((t) => t <= o.length)) doc.text(String(t), X(t) - 15, ticksY, { width: 30, align: 'center', lineBreak: false });
+  return ticksY + 10 - box.y;
 }

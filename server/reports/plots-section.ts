@@ -1,10 +1,13 @@
-import { shaftOutline, shearPlot, torquePlot, twistPlot, type LimitLine } from '../../shared/plots';
+import {
+  bendingPlot, deflectionPlot, hasBeamModel, shaftLimits, shaftLoads, shaftOutline, shearPlot, slopePlot, torquePlot, twistPlot, type LimitLine,
+} from '../../shared/plots';
 import type { CalcResult } from '../../shared/engine';
 import type { Checklist, RuleSet } from '../../shared/rules';
 import type { ReportData } from './report-data';
 import { CONTENT_WIDTH, PAGE, ensureSpace, sectionHeading } from './report-doc';
 import { drawChart } from './chart-draw';
 import { drawOutline } from './outline-draw';
+import { drawLoadsKey } from './loads-key';
 
 /** Limits of clauses that measure `fact`, as lines over the segments they judge. */
 function limitsOf(checklist: Checklist | null, ruleSet: RuleSet, fact: string, result: CalcResult): LimitLine[] {
@@ -23,13 +26,17 @@ export function drawPlots(doc: PDFKit.PDFDocument, d: ReportData, number: number
   if (!r) return;
   sectionHeading(doc, number, 'Shaft and diagrams');
   const input = d.input as { segments: { length: number; od: number; id: number; label?: string }[]; features?: never[] };
-  ensureSpace(doc, 150);
+  const outline = shaftOutline({ segments: input.segments, features: input.features ?? [] });
+  const model = hasBeamModel(r);
+  const loads = model ? shaftLoads(r, outline) : null;
+  ensureSpace(doc, model ? 300 : 150);
   // Text drawn at fixed positions moves doc.y, so each figure sets it from where the figure began.
   const top = doc.y;
-  drawOutline(doc, shaftOutline({ segments: input.segments, features: input.features ?? [] }), { x: PAGE.left, y: top, w: CONTENT_WIDTH, h: 140 }, r.fields['at']?.unit ?? '');
-  doc.y = top + 150;
+  doc.y = top + drawOutline(doc, outline, { x: PAGE.left, y: top, w: CONTENT_WIDTH, h: 300 }, r.fields['at']?.unit ?? '', loads) + 8;
+  if (loads) drawLoadsKey(doc, loads);
   const charts = [
     torquePlot(r),
+    ...(model ? [bendingPlot(r), deflectionPlot(r, shaftLimits(d.checklist, d.ruleSet, r, 'deflection')), slopePlot(r, shaftLimits(d.checklist, d.ruleSet, r, 'slope'))] : []),
     shearPlot(r, limitsOf(d.checklist, d.ruleSet, 'tauMax', r)),
     twistPlot(r, limitsOf(d.checklist, d.ruleSet, 'twistTotal', r)),
   ];

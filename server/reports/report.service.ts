@@ -6,13 +6,14 @@ import { drawTitleBlock } from './title-block';
 import { drawKeyResults, drawNotices } from './front-matter';
 import { drawInputs } from './inputs-section';
 import { drawResults } from './results-section';
+import { drawShaftResults } from './shaft-results-section';
 import { drawPlots } from './plots-section';
 import { drawChecklist } from './checklist-section';
 import { drawAttachments, drawFindings, drawHistory, drawSignatures } from './signoff-section';
 import { drawRecord } from './record-section';
 import type { WorkPool } from '../workers/work-pool';
 
-const SECTIONS = [drawInputs, drawResults, drawPlots, drawChecklist, drawFindings, drawSignatures, drawHistory, drawAttachments, drawRecord];
+const SECTIONS = [drawInputs, drawResults, drawShaftResults, drawPlots, drawChecklist, drawFindings, drawSignatures, drawHistory, drawAttachments, drawRecord];
 
 /** Lays out the whole report for gathered data; pure apart from reading the font files. */
 export async function renderReport(d: ReportData, fontDir: string): Promise<Buffer> {

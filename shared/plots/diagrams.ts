@@ -12,7 +12,8 @@ function placeLimits(limits: readonly LimitLine[], length: number): PlacedLimit[
     .filter((l) => l.x2 > l.x1);
 }
 
-function chart(result: CalcResult, title: string, y: { label: string; unit: string }, series: Series[],
+/** A chart along the whole shaft: x from 0 to its length, y fitted to the series and the limits. */
+export function chart(result: CalcResult, title: string, y: { label: string; unit: string }, series: Series[],
   limits: readonly LimitLine[]): Chart {
   const placed = placeLimits(limits, result.length);
   const [lo, hi] = valueRange([...series.flatMap((s) => s.points.map((p) => p[1])), ...placed.map((l) => l.y)], true);

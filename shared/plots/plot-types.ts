@@ -17,7 +17,8 @@ export interface Series {
   points: Point[];
   /** `step`: a piecewise-constant quantity (vertical jumps are real); `line`: linear between points. */
   shape: 'step' | 'line';
-  style: 'solid' | 'dashed';
+  /** Line style, so series stay apart in grey print too. */
+  style: 'solid' | 'dashed' | 'dotted';
 }
 
 /** A limit to draw as a horizontal line, over the whole shaft or only from `from` to `to`. */

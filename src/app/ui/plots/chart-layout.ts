@@ -5,7 +5,7 @@ import { formatNumber } from '../../../../shared/engine';
 export const CHART_MARGIN = { top: 22, right: 18, bottom: 34, left: 62 } as const;
 
 export interface PixelTick { at: number; label: string }
-export interface PixelSeries { id: string; label: string; d: string; fill: string | null; isDashed: boolean }
+export interface PixelSeries { id: string; label: string; d: string; fill: string | null; isDashed: boolean; isDotted: boolean }
 export interface PixelLimit { x1: number; x2: number; y: number; label: string; labelX: number; labelY: number; labelAnchor: 'start' | 'end' }
 
 export interface ChartLayout {
@@ -44,7 +44,7 @@ export function layoutChart(chart: Chart, width: number, height: number): ChartL
     const last = s.points[s.points.length - 1];
     const base = zero ?? plot.bottom;
     const fill = i === 0 && first && last ? `${d} L${px(sx(last[0]))},${px(base)} L${px(sx(first[0]))},${px(base)} Z` : null;
-    return { id: s.id, label: s.label, d, fill, isDashed: s.style === 'dashed' };
+    return { id: s.id, label: s.label, d, fill, isDashed: s.style === 'dashed', isDotted: s.style === 'dotted' };
   });
   const limits = chart.limits.map((l): PixelLimit => {
     const [x1, x2] = [sx(l.x1), sx(l.x2)];

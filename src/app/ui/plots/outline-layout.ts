@@ -18,15 +18,20 @@ export interface PixelFeature { tag: string; name: string; x: number; top: numbe
 
 export interface OutlineLayout {
   width: number; height: number; centreY: number; shaftLeft: number; shaftRight: number; axisY: number;
+  /** Pixels per length unit, the same on both axes. */
+  scale: number;
   segments: PixelSegment[]; bores: PixelRect[]; features: PixelFeature[]; ticks: PixelTick[];
 }
 
 const r1 = (v: number): number => Math.round(v * 10) / 10;
 
-/** Lays the outline out at one scale for both axes, so the picture is the shaft to scale. */
-export function layoutOutline(o: ShaftOutline, width: number): OutlineLayout {
+/**
+ * Lays the outline out at one scale for both axes, so the picture is the shaft to scale. `room` keeps
+ * pixels free above and below the shaft for force arrows.
+ */
+export function layoutOutline(o: ShaftOutline, width: number, room = { above: 0, below: 0 }): OutlineLayout {
   const levels = Math.max(0, ...o.features.map((f) => f.level + 1));
-  const top = 8 + levels * ROW + (levels ? 6 : 0);
+  const top = 8 + levels * ROW + (levels ? 6 : 0) + room.above;
   let s = o.length > 0 ? (width - 2 * SIDE) / o.length : 1;
   if (2 * o.maxRadius * s > MAX_SHAFT_PX) s = MAX_SHAFT_PX / (2 * o.maxRadius);
   const left = (width - o.length * s) / 2;
@@ -42,9 +47,9 @@ export function layoutOutline(o: ShaftOutline, width: number): OutlineLayout {
       case 'polyline': return { kind: 'path', d: m.points.map(([x, y], i) => `${i ? 'L' : 'M'}${X(x)},${Y(y)}`).join(' ') };
     }
   };
-  const axisY = cy + o.maxRadius * s + 12;
+  const axisY = cy + o.maxRadius * s + 12 + room.below;
   return {
-    width, height: axisY + AXIS, centreY: cy, shaftLeft: X(0), shaftRight: X(o.length), axisY,
+    width, height: axisY + AXIS, centreY: cy, shaftLeft: X(0), shaftRight: X(o.length), axisY, scale: s,
     segments: o.segments.map((g) => {
       const p = rect(g.x, g.y, g.width, g.height);
       const text = g.id > 0 ? `⌀${formatNumber(g.od, 4)}/${formatNumber(g.id, 4)}` : `⌀${formatNumber(g.od, 4)}`;

@@ -20,6 +20,7 @@ import { FindingsPanel } from './findings-panel';
 import { SignaturesPanel } from './signatures-panel';
 import { RevisionHistory } from './revision-history';
 import { MinimumDiameters } from './minimum-diameters';
+import { ShaftResults } from '../shaft-results/shaft-results';
 import { AttachmentsPanel } from './attachments-panel';
 import { RecordExports } from './record-exports';
 import { ManualItems } from './manual-items';
@@ -33,7 +34,7 @@ import { ReasonDialog, type ReasonDialogData, type ReasonDialogResult } from './
 @Component({
   selector: 'tt-calc-page',
   imports: [RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatProgressBarModule,
-    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports, MinimumDiameters, ManualItems],
+    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports, MinimumDiameters, ManualItems, ShaftResults],
   templateUrl: './calc-page.html',
   styleUrl: './calc-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

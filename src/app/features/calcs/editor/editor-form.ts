@@ -1,5 +1,6 @@
 import { FormArray, FormControl, FormGroup } from '@angular/forms';
 import type { UnitSystem } from '../../../../../shared/engine';
+import { forceGroup, massGroup, supportGroup, type ForceForm, type MassForm, type SupportForm } from './shaft-form';
 
 /*
  * Typed form model of the calc editor. Numbers are held as the text the author typed (never null):
@@ -17,6 +18,8 @@ export interface MaterialForm {
   name: FormControl<string>; kind: FormControl<MaterialKindOption>;
   E: FormControl<string>; G: FormControl<string>; nu: FormControl<string>;
   Sy: FormControl<string>; Su: FormControl<string>; source: FormControl<string>;
+  /** Shown with the masses (it matters for the critical speed), kept here because the format has it on the material. */
+  density: FormControl<string>;
 }
 
 export interface SegmentForm {
@@ -54,6 +57,10 @@ export interface EditorFormShape {
   torques: FormArray<FormGroup<TorqueForm>>;
   features: FormArray<FormGroup<FeatureForm>>;
   bending: FormArray<FormGroup<BendingForm>>;
+  supports: FormArray<FormGroup<SupportForm>>;
+  loads: FormArray<FormGroup<ForceForm>>;
+  masses: FormArray<FormGroup<MassForm>>;
+  speed: FormControl<string>;
   fatigue: FormGroup<FatigueForm>;
   notes: FormControl<string>;
 }
@@ -99,11 +106,16 @@ export function editorForm(v: EditorValue): EditorForm {
     material: new FormGroup({
       libraryId: text(m.libraryId), name: text(m.name), kind: new FormControl(m.kind, { nonNullable: true }),
       E: text(m.E), G: text(m.G), nu: text(m.nu), Sy: text(m.Sy), Su: text(m.Su), source: text(m.source),
+      density: text(m.density),
     }),
     segments: new FormArray(v.segments.map(segmentGroup)),
     torques: new FormArray(v.torques.map(torqueGroup)),
     features: new FormArray(v.features.map(featureGroup)),
     bending: new FormArray(v.bending.map(bendingGroup)),
+    supports: new FormArray(v.supports.map(supportGroup)),
+    loads: new FormArray(v.loads.map(forceGroup)),
+    masses: new FormArray(v.masses.map(massGroup)),
+    speed: text(v.speed),
     fatigue: new FormGroup({
       enabled: new FormControl(f.enabled, { nonNullable: true }), surface: text(f.surface), surfaceTable: text(f.surfaceTable),
       reliability: text(f.reliability), temperature: text(f.temperature), kd: text(f.kd), kc: text(f.kc), kf: text(f.kf),

@@ -2,6 +2,7 @@ import type { UnitSystem } from '../../../../../shared/engine';
 import { matchMaterial } from '../../../../../shared/materials';
 import type { EditorValue, FeatureType, MaterialKindOption } from './editor-form';
 import { fromText, toText } from './number-text';
+import { inputToShaftValues, shaftValuesToInput } from './shaft-values';
 
 type Json = Record<string, unknown>;
 
@@ -27,6 +28,7 @@ export function inputToValue(input: unknown): EditorValue {
       libraryId: matchMaterial(str(m['name']))?.id ?? '', name: str(m['name']),
       kind: KINDS.includes(m['kind'] as MaterialKindOption) ? (m['kind'] as MaterialKindOption) : 'steel',
       E: toText(m['E']), G: toText(m['G']), nu: toText(m['nu']), Sy: toText(m['Sy']), Su: toText(m['Su']), source: str(m['source']),
+      density: toText(m['density']),
     },
     segments: (segments.length ? segments : [{ id: 0 }]).map((s) => ({
       label: str(s['label']), length: toText(s['length']), od: toText(s['od']), id: toText(s['id']),
@@ -43,6 +45,7 @@ export function inputToValue(input: unknown): EditorValue {
       depth: toText(x['depth']), diameter: toText(x['diameter']), Kt: toText(x['Kt']), Kts: toText(x['Kts']), source: str(x['source']),
     })),
     bending: list(i['bending']).map((b) => ({ label: str(b['label']), at: toText(b['at']), Ma: toText(b['Ma']), Mm: toText(b['Mm']) })),
+    ...inputToShaftValues(i),
     fatigue: {
       enabled: i['fatigue'] !== undefined, surface: str(f['surface']) || 'machined', surfaceTable: str(f['surfaceTable']),
       reliability: toText(f['reliability']), temperature: toText(f['temperature']), kd: toText(f['kd']), kc: toText(f['kc']),
@@ -80,7 +83,7 @@ export function valueToInput(v: EditorValue): Json {
     units: v.units satisfies UnitSystem,
     ...(v.title.trim() ? { title: v.title.trim() } : {}),
     ...(v.notes.trim() ? { notes: v.notes } : {}),
-    material: { ...pick(material, ['E', 'G', 'Sy', 'Su', 'nu'], ['name', 'source']), kind },
+    material: { ...pick(material, ['E', 'G', 'Sy', 'Su', 'nu', 'density'], ['name', 'source']), kind },
     segments: v.segments.map((s) => ({ ...pick(s, ['length', 'od', 'id'], ['label']), ...(s.material ? { material: parseJson(s.material) } : {}) })),
     torques: v.torques.map((t) => pick(t, t.mode === 'power' ? ['at', 'power', 'speed', 'Ta'] : ['at', 'T', 'Ta'], ['label'])),
     features: v.features.map((x) => ({
@@ -88,6 +91,7 @@ export function valueToInput(v: EditorValue): Json {
       ...pick(x, [...FEATURE_FIELDS[x.type], 'Kt', 'Kts'], ['label', 'source'], { keySy: 'Sy' }),
     })),
     bending: v.bending.map((b) => pick(b, ['at', 'Ma', 'Mm'], ['label'])),
+    ...shaftValuesToInput(v),
   };
   if (v.fatigue.enabled) {
     const f = v.fatigue;

@@ -32,6 +32,8 @@ const FIELD_WORDS: Record<string, string> = {
   at: 'station', T: 'torque', Ta: 'alternating torque', power: 'power', speed: 'speed', length: 'length', od: 'outer ⌀', id: 'inner ⌀',
   r: 'radius', width: 'width', height: 'height', depth: 'depth', diameter: 'hole ⌀', Ma: 'alternating moment', Mm: 'midrange moment',
   Kt: 'Kt', Kts: 'Kts', Sy: 'yield strength', Su: 'ultimate strength', E: "Young's modulus", G: 'shear modulus', label: 'label',
+  kind: 'kind', C: 'load rating C', X: 'X factor', Y: 'Y factor', Fx: 'axial force', Fy: 'force Fy', Fz: 'force Fz', mass: 'mass',
+  pitchDiameter: 'pitch ⌀', pressureAngle: 'pressure angle', helixAngle: 'helix angle', pullFactor: 'pull factor', direction: 'direction',
 };
 
 /**
@@ -39,8 +41,10 @@ const FIELD_WORDS: Record<string, string> = {
  * the tag the screen and plots show (KS1, SF2) when its type is known.
  */
 export function placeOf(path: string, featureTypes: readonly string[] = []): string {
-  const m = /^(segments|torques|features|bending)\[(\d+)\](?:\.(\w+))?/.exec(path);
-  const names: Record<string, string> = { segments: 'Segment', torques: 'Torque', features: 'Feature', bending: 'Bending moment' };
+  const m = /^(segments|torques|features|bending|supports|loads|masses)\[(\d+)\](?:\.(\w+))?/.exec(path);
+  const names: Record<string, string> = {
+    segments: 'Segment', torques: 'Torque', features: 'Feature', bending: 'Bending moment', supports: 'Bearing', loads: 'Force', masses: 'Mass',
+  };
   if (m) {
     const index = Number(m[2]);
     const type = m[1] === 'features' ? featureTypes[index] : undefined;
@@ -51,6 +55,7 @@ export function placeOf(path: string, featureTypes: readonly string[] = []): str
   const words: Record<string, string> = {
     material: 'Material', fatigue: 'Fatigue', torques: 'Torques', segments: 'Segments', units: 'Units', '(input)': 'Calc input',
     notes: 'Notes', title: 'Heading', features: 'Features', bending: 'Bending moments',
+    supports: 'Bearings', loads: 'Forces', masses: 'Masses', speed: 'Operating speed',
   };
   return words[head] ?? head;
 }

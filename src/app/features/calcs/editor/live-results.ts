@@ -6,7 +6,7 @@ import { SafetyNote } from '../../../ui/safety-note';
 import { placeOf } from './issue-map';
 import type { Evaluated } from './live-calc';
 import { PlotsPanel } from './plots-panel';
-import type { PlotLimits } from './plot-limits';
+import { NO_LIMITS, type PlotLimits } from './plot-limits';
 import { ResultSummary } from './result-summary';
 import type { CriterionKey } from './result-format';
 
@@ -30,6 +30,7 @@ export class LiveResults {
   readonly checklist = input<Checklist | null>(null);
   readonly ruleSet = input<RuleSet | null>(null);
 
+  protected readonly noLimits = NO_LIMITS;
   private readonly featureTypes = computed(() => ((this.evaluated()?.input as { features?: { type: string }[] } | undefined)?.features ?? []).map((f) => f.type));
   protected readonly listed = computed(() => this.issues().map((i) => ({ ...i, place: placeOf(i.path, this.featureTypes()) })));
   protected readonly warnings = computed(() => (this.evaluated()?.result.warnings ?? []).map((w) => ({ ...w, place: placeOf(w.path, this.featureTypes()) })));

@@ -1,8 +1,10 @@
 import { formatNumber, fromBase, toBase, type CalcResult } from '../../../../../shared/engine';
-import type { LimitLine } from '../../../../../shared/plots';
+import { shaftLimits, type LimitLine, type StationLimit } from '../../../../../shared/plots';
 import type { Checklist, ChecklistRow, RuleSet } from '../../../../../shared/rules';
 
-export interface PlotLimits { shear: LimitLine[]; twist: LimitLine[]; twistRate: LimitLine[] }
+export interface PlotLimits { shear: LimitLine[]; twist: LimitLine[]; twistRate: LimitLine[]; deflection: StationLimit[]; slope: StationLimit[] }
+
+export const NO_LIMITS: PlotLimits = { shear: [], twist: [], twistRate: [], deflection: [], slope: [] };
 
 type Span = { from: number; to: number; value: number };
 
@@ -37,7 +39,7 @@ function segmentSpans(rows: ChecklistRow[], result: CalcResult, value: (row: Che
  * twist limit, and twist-per-length limits (a per-diameter limit is turned into a rate on each segment).
  */
 export function plotLimits(checklist: Checklist | null, ruleSet: RuleSet | null, result: CalcResult): PlotLimits {
-  if (!checklist || !ruleSet) return { shear: [], twist: [], twistRate: [] };
+  if (!checklist || !ruleSet) return NO_LIMITS;
   const f = (v: number) => formatNumber(v, 3);
   const tauRows = rowsMeasuring(checklist, ruleSet, 'segment', 'tauMax');
   const stress = result.fields['tauMax']?.unit ?? '';
@@ -56,5 +58,8 @@ export function plotLimits(checklist: Checklist | null, ruleSet: RuleSet | null,
     ...toLines(segmentSpans(rateRows, result, (r) => r.limit!), rateUnit, (s) => `§${rateRows[0].clauseId} ${f(s.value)} ${rateUnit}`),
     ...toLines(segmentSpans(perDiaRows, result, perDiaRate), rateUnit, () => `§${perDiaRows[0].clauseId} ${f(perDiaRows[0].limit!)}° per diameter`),
   ];
-  return { shear, twist, twistRate };
+  return {
+    shear, twist, twistRate,
+    deflection: shaftLimits(checklist, ruleSet, result, 'deflection'), slope: shaftLimits(checklist, ruleSet, result, 'slope'),
+  };
 }

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { CalcResult, Extreme } from '../../../../../shared/engine';
 import type { Checklist, RuleSet } from '../../../../../shared/rules';
-import { featureTag } from '../../../../../shared/plots';
+import { beamUnit, featureTag, hasBeamModel } from '../../../../../shared/plots';
 import { formatEng, headlineMark, unitText, type HeadlineOutcome } from '../../../../../shared/format';
 import type { CriterionKey } from './result-format';
 
@@ -65,6 +65,11 @@ export class ResultSummary {
     if (r.minFatigueSafety) {
       const e = r.minFatigueSafety[this.criterion()];
       out.push(this.figure('Lowest fatigue safety', e?.value, 'fatigueSafety', '1', `${this.criterionName()}, ${this.where(e)}`, 3));
+    }
+    if (hasBeamModel(r)) {
+      const c = r.criticalSpeed;
+      out.push(this.figure('Largest deflection δ', r.deflection?.max, 'maxDeflection', beamUnit(r, 'deflection'), `at ${formatEng(r.deflection?.at)} ${len}`, 3));
+      out.push(this.figure('Critical / operating speed', c?.ratio, 'criticalSpeedRatio', '1', c ? `first critical ${formatEng(c.rpm)} rpm` : 'not computed', 3));
     }
     return out;
   });

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { CalcResult, FeatureResult, SegmentResult } from '../../../../../shared/engine';
-import { featureTag } from '../../../../../shared/plots';
+import { featureTag, hasBeamModel } from '../../../../../shared/plots';
 import { fmt, unitOf, type CriterionKey } from './result-format';
 
 /** Per-segment and per-feature results with their units, and the method behind every factor. */
@@ -20,10 +20,11 @@ export class ResultsTables {
 
   protected readonly fmt = fmt;
   protected readonly segmentColumns = ['seg', 'dia', 'J', 'T', 'tauMax', 'twist', 'twistPerLength', 'ny', 'nf'];
-  protected readonly featureColumns = ['tag', 'at', 'Kt', 'Kts', 'q', 'Kf', 'Kfs', 'ny', 'nf'];
+  // With bearings, the bending moment the model gives at each feature is shown beside its factors.
+  protected readonly featureColumns = computed(() => ['tag', 'at', ...(hasBeamModel(this.result()) ? ['M'] : []), 'Kt', 'Kts', 'q', 'Kf', 'Kfs', 'ny', 'nf']);
   protected readonly u = computed(() => {
     const r = this.result();
-    return Object.fromEntries(['od', 'J', 'T', 'tauMax', 'twist', 'twistPerLength', 'at'].map((f) => [f, unitOf(r, f)]));
+    return Object.fromEntries(['od', 'J', 'T', 'tauMax', 'twist', 'twistPerLength', 'at', 'M'].map((f) => [f, unitOf(r, f)]));
   });
   protected readonly notchMethod = computed(() => this.result().features[0]?.method.notch ?? null);
 

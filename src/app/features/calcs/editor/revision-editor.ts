@@ -28,6 +28,9 @@ import { MaterialPanel } from './material-panel';
 import { SegmentsTable } from './segments-table';
 import { FeaturesList } from './features-list';
 import { LoadsPanel } from './loads-panel';
+import { SupportsPanel } from './supports-panel';
+import { ForcesPanel } from './forces-panel';
+import { DynamicsPanel } from './dynamics-panel';
 import { FatiguePanel } from './fatigue-panel';
 import { NotesPanel } from './notes-panel';
 import { LiveResults } from './live-results';
@@ -42,7 +45,7 @@ import { VerdictStrip } from './verdict-strip';
 @Component({
   selector: 'tt-revision-editor',
   imports: [RouterLink, MatButtonModule, MatButtonToggleModule, MatIconModule, MatProgressBarModule, StateBadge,
-    MaterialPanel, SegmentsTable, FeaturesList, LoadsPanel, FatiguePanel, NotesPanel, LiveResults, LiveDetails, VerdictStrip],
+    MaterialPanel, SegmentsTable, FeaturesList, SupportsPanel, LoadsPanel, ForcesPanel, DynamicsPanel, FatiguePanel, NotesPanel, LiveResults, LiveDetails, VerdictStrip],
   templateUrl: './revision-editor.html',
   styleUrl: './revision-editor.scss',
   providers: [EditorStore, EditorSession, { provide: ErrorStateMatcher, useClass: EngineErrorState }],

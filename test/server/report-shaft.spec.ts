@@ -1,0 +1,84 @@
+import { formatNumber } from '../../shared/engine';
+import { startTestApp } from '../support/api-harness';
+import { calcTeam, revisionOf } from '../support/calc-harness';
+import { startTestS3 } from '../support/fake-servers';
+import { readPdf } from '../support/pdf-harness';
+import { wholeShaftInput } from '../support/shaft-fixture';
+
+// The calc report of a whole-shaft calc, read back as text by Poppler: the new inputs, results,
+// plots and the model's assumptions must all be there in words, not only in pictures.
+let s3: Awaited<ReturnType<typeof startTestS3>>;
+let ctx: ReturnType<typeof startTestApp>;
+beforeAll(async () => {
+  s3 = await startTestS3();
+  ctx = startTestApp({ ...s3.config, ORG_NAME: 'Kestrel Fen Drives' });
+});
+afterAll(async () => { await ctx.sequelize.close(); await s3.close(); });
+jest.setTimeout(60_000);
+
+type Agent = { agent: { get: (u: string) => import('supertest').Test } };
+const getPdf = (session: Agent, id: number) =>
+  session.agent.get(`/api/revisions/${id}/report.pdf`).buffer(true).parse((res, done) => {
+    const chunks: Buffer[] = [];
+    res.on('data', (c: Buffer) => chunks.push(c));
+    res.on('end', () => done(null, Buffer.concat(chunks)));
+  });
+
+const flat = (text: string) => text.replace(/\s+/g, ' ');
+
+describe('calc report of a whole-shaft calc', () => {
+  it('when printed, then it lists the bearings, forces and masses as entered, with their units', async () => {
+    const { author, revisionId } = await calcTeam(ctx.app, wholeShaftInput());
+    const text = flat(readPdf((await getPdf(author.session, revisionId)).body as Buffer, 'whole-shaft-report').text);
+
+    expect(text).toContain('Bearings (simple supports at their centres)');
+    expect(text).toMatch(/B1 drive end 20 deep-groove-ball 25\.5 — yes, takes the axial/);
+    expect(text).toMatch(/B2 free end 300 cylindrical-roller 44/);
+    expect(text).toContain('C kN');
+    expect(text).toContain('Forces on the shaft');
+    expect(text).toMatch(/G1 Gear spur gear 100 pitch ⌀ 180 mm, pressure angle 20°/);
+    // The diagonal DRAFT mark can drop a letter between cells of the extracted text.
+    expect(text).toMatch(/C2 Coupling flexible coupling(?: \S)? 390/);
+    expect(text).toContain('Attached masses');
+    expect(text).toMatch(/m1 gear 100\b/);
+    expect(text).toContain('Operating speed: 950 rpm');
+  });
+
+  it('when printed, then reactions, bearing life, deflection, critical speed and the assumptions are in the text, matching the stored result', async () => {
+    const { author, revisionId } = await calcTeam(ctx.app, wholeShaftInput());
+    const revision = await revisionOf(author.session, revisionId);
+    const text = flat(readPdf((await getPdf(author.session, revisionId)).body as Buffer).text);
+    const r = revision.result;
+
+    expect(text).toMatch(/Largest deflection δ [\d.]+ mm/);
+    expect(text).toContain('Shortest bearing life L10h');
+    expect(text).toContain('Bearings, deflection and critical speed');
+    expect(text).toContain('Bearing reactions on the shaft and basic rating life');
+    const fmt = (v: number) => formatNumber(v, 4);
+    expect(text).toContain(fmt(r.supports[0].F));
+    expect(text).toContain(`First bending critical speed ${fmt(r.criticalSpeed.rpm)} rpm`);
+    expect(text).toContain('What this model assumes');
+    // The report writes each assumption as a sentence (capital first letter); the words are the engine's.
+    for (const a of r.assumptions as string[]) expect(text).toContain(flat(a).slice(1, 50));
+    expect(text).toContain('Results support, never replace, the judgement of a qualified engineer');
+    expect(text).not.toMatch(/NaN|Infinity|undefined/);
+  });
+
+  it('when printed, then the plots section has the loads key and the bending, deflection and slope diagrams', async () => {
+    const { author, revisionId } = await calcTeam(ctx.app, wholeShaftInput());
+    const text = flat(readPdf((await getPdf(author.session, revisionId)).body as Buffer).text);
+
+    expect(text).toContain('Blue arrows: forces applied to the shaft; black arrows: bearing reactions on the shaft. The side view shows Fy');
+    expect(text).toMatch(/G1 Gear, spur gear: Fy -?[\d.]+ N, Fz -?[\d.]+ N/);
+    expect(text).toContain('Bending moment from the forces');
+    expect(text).toContain('Deflection of the shaft');
+    expect(text).toContain('Slope of the shaft');
+  });
+
+  it('when a calc has no bearings, then the report says so instead of printing empty tables', async () => {
+    const { author, revisionId } = await calcTeam(ctx.app);
+    const text = flat(readPdf((await getPdf(author.session, revisionId)).body as Buffer).text);
+    expect(text).toContain('This calc has no bearings');
+    expect(text).not.toContain('Bending moment from the forces');
+  });
+});

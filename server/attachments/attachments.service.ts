@@ -9,6 +9,7 @@ import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { loadRevision } from '../calcs/calc-access';
 import { ObjectStore } from './object-store';
+import { refreshAfterAttachmentChange } from '../workflow/signed-content';
 import { ACCEPTED_TYPE_NAMES, detectMediaType } from './content-type';
 import { assertDeclaredKind } from './declared-kind';
 import { READ_ONLY_STATES, cleanFileName, mayAddFiles, toAttachmentDto } from './attachment-access';
@@ -44,9 +45,10 @@ export class AttachmentsService {
         revisionId, kind: fields.kind, fileName: cleanFileName(file.originalname), mediaType, sizeBytes: file.buffer.length,
         sha256, storageKey: key, note: fields.note, uploadedBy: actor.id, uploadedByName: actor.name,
       }, { transaction });
+      await refreshAfterAttachmentChange(revision, transaction);
       await appendAudit(this.sequelize, actor, {
         action: 'attachment.added', entityType: 'Revision', entityId: revisionId,
-        payload: { attachmentId: row.id, kind: row.kind, fileName: row.fileName, mediaType, sizeBytes: row.sizeBytes, sha256 },
+        payload: { attachmentId: row.id, kind: row.kind, fileName: row.fileName, mediaType, sizeBytes: row.sizeBytes, sha256, contentHash: revision.contentHash },
       }, transaction);
       return row.id;
     });
@@ -72,9 +74,10 @@ export class AttachmentsService {
       // The author answers for every file of their draft, so they can take out one a co-editor attached by mistake.
       if (row.uploadedBy !== actor.id && revision.authorId !== actor.id) throw new AppError('forbidden', 403, 'Only the person who attached a file, or the author of the revision, can remove it');
       await row.destroy({ transaction });
+      await refreshAfterAttachmentChange(revision, transaction);
       await appendAudit(this.sequelize, actor, {
         action: 'attachment.removed', entityType: 'Revision', entityId: row.revisionId,
-        payload: { attachmentId: row.id, kind: row.kind, fileName: row.fileName, sha256: row.sha256 },
+        payload: { attachmentId: row.id, kind: row.kind, fileName: row.fileName, sha256: row.sha256, contentHash: revision.contentHash },
       }, transaction);
     });
   }

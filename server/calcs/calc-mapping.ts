@@ -1,4 +1,4 @@
-import type { CalcDto, FindingDto, ManualItemState, PersonRef, RevisionDto, RevisionSummary, SignatureDto } from '../../shared/schemas/calc-dto';
+import type { CalcDto, FindingDto, SignedAttachmentDto, ManualItemState, PersonRef, RevisionDto, RevisionSummary, SignatureDto } from '../../shared/schemas/calc-dto';
 import { Calc, Finding, Project, Revision, RuleSetRecord, Signature, User } from '../db/models';
 
 /** Associations every revision read needs, loaded in one query. */
@@ -23,10 +23,13 @@ export function toRevisionSummary(r: Loaded): RevisionSummary {
   };
 }
 
-export function toSignatureDto(s: Signature, currentHash: string | null): SignatureDto {
+/** A signature holds while the content, hashed in the format it was made in, still hashes to what was signed. */
+export function toSignatureDto(s: Signature, currentHashes: Map<number, string | null>): SignatureDto {
+  const current = currentHashes.get(s.contentFormat ?? 1) ?? null;
   return {
     id: s.id, printedName: s.printedName, role: s.role, meaning: s.meaning, signedAt: s.signedAt.toISOString(),
-    contentHash: s.contentHash, isValid: currentHash !== null && s.contentHash === currentHash,
+    contentHash: s.contentHash, isValid: current !== null && s.contentHash === current,
+    contentFormat: s.contentFormat ?? 1, attachments: s.attachments ? JSON.parse(s.attachments) as SignedAttachmentDto[] : null,
   };
 }
 
@@ -41,7 +44,7 @@ export function toFindingDto(f: Finding, names: Map<number, string>): FindingDto
 export interface RevisionParts {
   /** The stored result with its units and formulas put back (server/calcs/stored-result.ts). */
   result: unknown | null;
-  signatures: Signature[]; findings: Finding[]; names: Map<number, string>; editorIds: number[]; currentHash: string | null;
+  signatures: Signature[]; findings: Finding[]; names: Map<number, string>; editorIds: number[]; currentHashes: Map<number, string | null>;
   inputIssues: RevisionDto['inputIssues'];
 }
 
@@ -50,7 +53,7 @@ export function toRevisionDto(r: Loaded, parts: RevisionParts): RevisionDto {
     ...toRevisionSummary(r), calcId: r.calcId, lockVersion: r.lockVersion,
     input: JSON.parse(r.input), result: parts.result, checklist: r.checklist ? JSON.parse(r.checklist) : null,
     inputIssues: parts.inputIssues, manualItems: JSON.parse(r.manualItems) as Record<string, ManualItemState>,
-    contentHash: r.contentHash, signatures: parts.signatures.map((s) => toSignatureDto(s, parts.currentHash)),
+    contentHash: r.contentHash, contentFormat: r.contentFormat ?? 1, signatures: parts.signatures.map((s) => toSignatureDto(s, parts.currentHashes)),
     findings: parts.findings.map((f) => toFindingDto(f, parts.names)),
     submittedAt: iso(r.submittedAt), checkedAt: iso(r.checkedAt), createdAt: r.createdAt.toISOString(), editorIds: parts.editorIds,
   };

@@ -26,7 +26,7 @@ export function calcsRouter(calcs: CalcsService, lifecycle: LifecycleService): R
     res.json(await calcs.get(req.ability, Number(req.params.id)));
   });
   router.post('/:id/revisions', validate({ params: idParamsSchema, body: newRevisionSchema }), async (req, res) => {
-    res.status(201).json(await lifecycle.newRevision(req.ability, signedInActor(req), Number(req.params.id), req.body.reasonForChange));
+    res.status(201).json(await lifecycle.newRevision(req.ability, signedInActor(req), Number(req.params.id), req.body.reasonForChange, req.body.carryAttachments === true));
   });
   router.get('/:id/diff', validate({ params: idParamsSchema, query: diffQuerySchema }), async (req, res) => {
     res.json(await diffRevisions(req.ability, Number(req.params.id), res.locals.query.from, res.locals.query.to));

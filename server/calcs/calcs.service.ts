@@ -10,7 +10,7 @@ import { appendAudit, type Actor } from '../audit/audit.service';
 import { loadRuleSet } from '../rule-sets/rule-set-cache';
 import { REVISION_INCLUDE, toCalcDto } from './calc-mapping';
 import { assertCan, loadCalc, loadRevision, recordEditor } from './calc-access';
-import { computeRecord } from './revision-content';
+import { CONTENT_FORMAT, computeRecord } from './revision-content';
 import { currentHashOf, readRevision } from './revision-read';
 import { jsonDiff } from './content-diff';
 import { revisionLabel } from './revision-label';
@@ -106,6 +106,8 @@ export class CalcsService {
   async refreshHash(revision: Revision, transaction: Transaction): Promise<void> {
     if (!revision.ruleSet) await revision.reload({ include: REVISION_INCLUDE, transaction });
     await registerEngineMetadata(this.sequelize);
+    // Any edit moves a revision to the current content format (attachments included).
+    revision.contentFormat = CONTENT_FORMAT;
     revision.contentHash = await currentHashOf(revision, transaction);
     await revision.save({ transaction });
   }

@@ -11,6 +11,7 @@ import { readRevision } from './revision-read';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { revisionLabel } from './revision-label';
 import { stored, type CalcsService } from './calcs.service';
+import { carryOver } from '../attachments/carry-over';
 import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
 
@@ -22,7 +23,7 @@ export class LifecycleService {
    * A change to an approved calc is a new revision: a draft copy of the latest one, with a
    * reason for change, checked against the standard's version in effect today.
    */
-  async newRevision(ability: AppAbility, actor: Actor & { id: number }, calcId: number, reasonForChange: string): Promise<RevisionDto> {
+  async newRevision(ability: AppAbility, actor: Actor & { id: number }, calcId: number, reasonForChange: string, carryAttachments = false): Promise<RevisionDto> {
     ForbiddenError.from(ability).setMessage('Only authors start new revisions').throwUnlessCan('create', 'Calc');
     const id = await runTransaction(this.sequelize, async (transaction) => {
       const calc = await loadCalc(calcId, transaction);
@@ -40,11 +41,12 @@ export class LifecycleService {
         ruleSetId: ruleSet.id, input: latest.input, reasonForChange, manualItems: '{}',
         ...stored(computed),
       }, { transaction });
+      const carried = carryAttachments ? await carryOver(latest.id, revision.id, latest.label, actor, transaction) : [];
       await this.calcs.refreshHash(revision, transaction);
       await recordEditor(calcId, actor.id, transaction);
       await appendAudit(this.sequelize, actor, {
         action: 'revision.created', entityType: 'Revision', entityId: revision.id,
-        payload: { calcId, revision: revision.label, from: latest.label, reasonForChange, ruleSet: `${ruleSet.code} v${ruleSet.version}` },
+        payload: { calcId, revision: revision.label, from: latest.label, reasonForChange, ruleSet: `${ruleSet.code} v${ruleSet.version}`, attachmentsCarriedOver: carried },
       }, transaction);
       return revision.id;
     });

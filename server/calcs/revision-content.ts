@@ -53,6 +53,12 @@ function notComputable(where: string): ComputedRecord {
   };
 }
 
+/** Content format 1 hashed no attachments; format 2 (every signature since) adds the attachment set. */
+export const CONTENT_FORMAT = 2;
+
+/** One attachment as a signature covers it: what it is and which bytes. */
+export interface SignedAttachment { name: string; kind: string; sizeBytes: number; sha256: string }
+
 export interface HashedContent {
   calc: { project: string; number: string; title: string; partRef: string };
   revision: string;
@@ -61,24 +67,39 @@ export interface HashedContent {
   checklist: unknown;
   engineVersion: string;
   ruleSet: { code: string; version: number; contentHash: string };
+  /** Present from format 2 on; format 1 content has neither field, so old hashes recompute unchanged. */
+  contentFormat?: number;
+  attachments?: SignedAttachment[];
 }
 
 type CalcIdentity = { number: string; title: string; partRef: string; Project: { code: string } };
 type RuleSetIdentity = { code: string; version: number; contentHash: string } | null | undefined;
+type AttachmentRow = { fileName: string; kind: string; sizeBytes: number | string; sha256: string };
 
-/** Exactly what a revision's content hash covers; the one builder for signing, reading and packs. */
-export function hashedContentOf(calc: CalcIdentity, label: string, input: unknown, result: unknown, checklist: unknown, ruleSet: RuleSetIdentity): HashedContent {
-  return {
+/** The attachment set in a stable order, so upload order never changes the hash. */
+export function signedAttachments(rows: readonly AttachmentRow[]): SignedAttachment[] {
+  return rows.map((a) => ({ name: a.fileName, kind: a.kind, sizeBytes: Number(a.sizeBytes), sha256: a.sha256 }))
+    .sort((a, b) => (a.sha256 + a.name + a.kind).localeCompare(b.sha256 + b.name + b.kind));
+}
+
+/**
+ * Exactly what a revision's content hash covers; the one builder for signing, reading and packs.
+ * Format 1 (signatures made before attachments were signed) leaves the attachments out.
+ */
+export function hashedContentOf(calc: CalcIdentity, label: string, input: unknown, result: unknown, checklist: unknown, ruleSet: RuleSetIdentity,
+  format = 1, attachments: readonly AttachmentRow[] = []): HashedContent {
+  const base: HashedContent = {
     calc: { project: calc.Project.code, number: calc.number, title: calc.title, partRef: calc.partRef },
     revision: label, input, result, checklist,
     engineVersion: (result as { engineVersion?: string } | null)?.engineVersion ?? ENGINE_VERSION,
     ruleSet: { code: ruleSet?.code ?? '', version: ruleSet?.version ?? 0, contentHash: ruleSet?.contentHash ?? '' },
   };
+  return format >= 2 ? { ...base, contentFormat: format, attachments: signedAttachments(attachments) } : base;
 }
 
 /**
  * SHA-256 over the RFC 8785 canonical JSON of exactly what a signature vouches for: inputs,
- * results, engine version, the rule set's identity and content, and the checklist.
+ * results, engine version, the rule set's identity and content, the checklist and (format 2) the attachments.
  */
 export function contentHashOf(content: Omit<HashedContent, 'engineVersion'> & { engineVersion?: string }): string {
   const full: HashedContent = { ...content, engineVersion: content.engineVersion ?? ENGINE_VERSION };

@@ -3,7 +3,7 @@ import { Op, type Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { InputIssue, RevisionDto } from '../../shared/schemas/calc-dto';
 import { validateCalcInput } from '../../shared/engine';
-import { Calc, Finding, Project, Revision, Signature, User } from '../db/models';
+import { Attachment, Calc, Finding, Project, Revision, Signature, User } from '../db/models';
 import { toRevisionDto } from './calc-mapping';
 import { editorIdsOf, loadRevision } from './calc-access';
 import { computeRecord, contentHashOf, hashedContentOf } from './revision-content';
@@ -12,31 +12,44 @@ import { expandResult } from './stored-result';
 
 /**
  * Recomputes the content hash from what is stored now, so tampering shows as a broken signature.
- * The hash covers the result as the engine returned it, with its units and formulas put back.
+ * The hash covers the result as the engine returned it, with its units and formulas put back, and
+ * (format 2, the default for the revision's own format) the attachment set as stored now.
  */
-export async function currentHashOf(revision: Revision, transaction?: Transaction, result?: unknown): Promise<string | null> {
+export async function currentHashOf(revision: Revision, transaction?: Transaction, result?: unknown, format = revision.contentFormat ?? 1): Promise<string | null> {
   if (!revision.result || !revision.checklist) return null;
-  const [calc, expanded] = await Promise.all([
+  const [calc, expanded, attachments] = await Promise.all([
     Calc.findByPk(revision.calcId, { include: [Project], attributes: ['id', 'number', 'title', 'partRef', 'projectId'], transaction }) as Promise<Calc & { Project: Project }>,
     result ?? expandResult(Revision.sequelize!, revision.result, transaction),
+    format >= 2 ? Attachment.findAll({ where: { revisionId: revision.id }, transaction }) : [],
   ]);
-  return contentHashOf(hashedContentOf(calc, revision.label, JSON.parse(revision.input), expanded, JSON.parse(revision.checklist), revision.ruleSet));
+  return contentHashOf(hashedContentOf(calc, revision.label, JSON.parse(revision.input), expanded, JSON.parse(revision.checklist), revision.ruleSet, format, attachments));
+}
+
+/**
+ * The current hash in every format a signature of this revision was made in, so each signature
+ * is judged by the content it covered: tampering or a changed attachment set shows as broken.
+ */
+export async function currentHashesOf(revision: Revision, signatures: readonly Signature[], transaction?: Transaction, result?: unknown): Promise<Map<number, string | null>> {
+  const formats = new Set([revision.contentFormat ?? 1, ...signatures.map((s) => s.contentFormat ?? 1)]);
+  const hashes = new Map<number, string | null>();
+  for (const f of formats) hashes.set(f, await currentHashOf(revision, transaction, result, f));
+  return hashes;
 }
 
 export async function readRevision(ability: AppAbility, id: number, transaction?: Transaction): Promise<RevisionDto> {
   const revision = await loadRevision(id, transaction);
   ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
   const result = await expandResult(Revision.sequelize!, revision.result, transaction);
-  const [signatures, findings, editorIds, currentHash] = await Promise.all([
+  const [signatures, findings, editorIds] = await Promise.all([
     Signature.findAll({ where: { revisionId: id }, order: [['signedAt', 'ASC']], transaction }),
     Finding.findAll({ where: { revisionId: id }, order: [['id', 'ASC']], transaction }),
     editorIdsOf(revision.calcId, transaction),
-    currentHashOf(revision, transaction, result),
   ]);
+  const currentHashes = await currentHashesOf(revision, signatures, transaction, result);
   const userIds = new Set(findings.flatMap((f) => [f.raisedBy, f.answeredBy, f.closedBy]).filter((v): v is number => v != null));
   const users = userIds.size ? await User.findAll({ where: { id: { [Op.in]: [...userIds] } }, attributes: ['id', 'displayName'], transaction }) : [];
   return toRevisionDto(revision, {
-    result, signatures, findings, editorIds, currentHash,
+    result, signatures, findings, editorIds, currentHashes,
     names: new Map(users.map((u) => [u.id, u.displayName])),
     inputIssues: await inputIssuesOf(revision),
   });

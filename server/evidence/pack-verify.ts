@@ -4,6 +4,7 @@ import { contentHash, sha256 } from './record-json';
 import { auditTrailSchema, manifestSchema, packRecordSchema, readPackJson, type Manifest, type PackRecord } from './pack-schema';
 
 export { MANIFEST_FORMAT, type Manifest, type PackRecord } from './pack-schema';
+import { attachmentListCheck, signatureCheck } from './signature-checks';
 
 const SEAL_FILES = new Set(['manifest.json', 'manifest.sha256']);
 
@@ -46,14 +47,9 @@ function recordChecks(files: Map<string, Buffer>, path: string): PackCheck[] {
     const actual = contentHash(record.content);
     const ok = actual === record.contentHash;
     checks.push({ name: `${path} content`, ok, detail: ok ? 'recomputed content hash equals the record hash' : 'recomputed content hash differs: the record content was changed' });
+    checks.push(...attachmentListCheck(path, record.content, record.attachments));
     // A signature holds only for the content actually in the pack: over altered content every mark is a failure.
-    for (const s of record.signatures) {
-      const covers = s.contentHash === actual;
-      const detail = covers ? 'covers the content in this pack'
-        : s.contentHash === record.contentHash ? 'made over the recorded content, which this pack no longer holds: not valid for this content'
-          : 'made over earlier content: not valid for this content';
-      checks.push({ name: `${path} signature ${s.meaning} by ${s.printedName}`, ok: covers, detail });
-    }
+    for (const s of record.signatures) checks.push(signatureCheck(path, record.contentHash, actual, record.content, s));
   }
   for (const a of record.attachments) {
     const data = files.get(a.path);

@@ -13,9 +13,9 @@ export const sha256 = (data: Buffer | string): string => createHash('sha256').up
 /** The content hash as the server computes it: SHA-256 over RFC 8785 canonical JSON. */
 export const contentHash = (content: unknown): string => sha256(canonicalize(content) ?? '');
 
-/** What a revision's content hash covers, built by the same function the server signs with. */
-export function hashedContent(calc: Calc & { Project: Project }, r: RevisionDto, ruleSet: RuleSetRecord | null): HashedContent {
-  return hashedContentOf(calc, r.label, r.input, r.result, r.checklist, ruleSet);
+/** What a revision's content hash covers, built by the same function the server signs with (same format, same attachments). */
+export function hashedContent(calc: Calc & { Project: Project }, r: RevisionDto, ruleSet: RuleSetRecord | null, attachments: readonly AttachmentDto[] = []): HashedContent {
+  return hashedContentOf(calc, r.label, r.input, r.result, r.checklist, ruleSet, r.contentFormat, attachments);
 }
 
 export interface RecordAttachment { kind: string; fileName: string; mediaType: string; sizeBytes: number; sha256: string; path: string }
@@ -31,8 +31,11 @@ export function recordJson(calc: Calc & { Project: Project }, r: RevisionDto, ru
       createdAt: r.createdAt, submittedAt: r.submittedAt, checkedAt: r.checkedAt, approvedAt: r.approvedAt,
     },
     contentHash: r.contentHash,
-    content: r.contentHash ? hashedContent(calc, r, ruleSet) : null,
-    signatures: r.signatures.map((s) => ({ printedName: s.printedName, role: s.role, meaning: s.meaning, signedAt: s.signedAt, contentHash: s.contentHash })),
+    content: r.contentHash ? hashedContent(calc, r, ruleSet, attachments.map((a) => a.dto)) : null,
+    signatures: r.signatures.map((s) => ({
+      printedName: s.printedName, role: s.role, meaning: s.meaning, signedAt: s.signedAt, contentHash: s.contentHash,
+      contentFormat: s.contentFormat, attachmentsCovered: s.attachments,
+    })),
     findings: r.findings,
     manualItems: r.manualItems,
     attachments: attachments.map(({ dto, path }): RecordAttachment => ({

@@ -4,6 +4,7 @@ import { ATTACHMENT_KIND_LABELS } from '../../shared/schemas/attachment.schema';
 import type { ReportData } from './report-data';
 import { FAIL, INK_SOFT, PASS, paragraph, sectionHeading } from './report-doc';
 import { drawTable, type Cell } from './pdf-table';
+import { drawSignedAttachments } from './signed-attachments';
 
 const when = (iso: string | null) => (iso ? `${iso.slice(0, 16).replace('T', ' ')} UTC` : '—');
 
@@ -34,7 +35,8 @@ export function drawSignatures(doc: PDFKit.PDFDocument, d: ReportData, number: n
     s.meaning, s.printedName, s.role, when(s.signedAt), s.contentHash,
     s.isValid ? { text: 'VALID: matches the record', color: PASS, bold: true } : { text: 'NO LONGER MATCHES the content', color: FAIL, bold: true },
   ]), { size: 7.5 });
-  paragraph(doc, 'Each signature was made with the signer’s password and covers the exact content hash shown; a later change to the content breaks it.', { color: INK_SOFT, size: 7.5 });
+  paragraph(doc, 'Each signature was made with the signer’s password and covers the exact content hash shown, including the attachments listed below; a later change to the content or the attachment set breaks it.', { color: INK_SOFT, size: 7.5 });
+  drawSignedAttachments(doc, sigs);
 }
 
 export function drawHistory(doc: PDFKit.PDFDocument, d: ReportData, number: number): void {

@@ -7,6 +7,7 @@ import type { AppAbility } from '../../shared/authz/app-ability';
 import type { ImpactReport, ImpactRow } from '../../shared/schemas/rule-set.schema';
 import { Calc, Project, Revision, RuleSetRecord } from '../db/models';
 import { AppError } from '../errors/app-error';
+import { toCsv, type CsvColumn } from '../http/csv';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { enqueueMail, emailsOfRole } from '../mail/outbox';
 import { appLink } from '../mail/links';
@@ -32,6 +33,15 @@ function changedClauses(before: OutcomeSummary, after: OutcomeSummary, doc: Rule
 }
 
 /** Impact analysis: which approved calcs would change verdict under another version of a standard. */
+/** Impact CSV columns: titles and clause texts are people's words, so the CSV writer neutralises them. */
+const IMPACT_COLUMNS: CsvColumn<ImpactRow>[] = [
+  { header: 'project', value: (r) => r.projectCode }, { header: 'calc', value: (r) => r.number }, { header: 'title', value: (r) => r.title },
+  { header: 'revision', value: (r) => r.revision }, { header: 'approved at (UTC, ISO 8601)', value: (r) => r.approvedAt },
+  { header: 'verdict before', value: (r) => r.before }, { header: 'verdict after', value: (r) => r.after },
+  { header: 'clauses that change (count)', value: (r) => r.clauses.length, numeric: true },
+  { header: 'clauses that change', value: (r) => r.clauses.map((c) => `${c.clauseId} ${c.location}: ${c.before}→${c.after}`).join('; ') },
+];
+
 export class ImpactService {
   constructor(private readonly sequelize: Sequelize) {}
 
@@ -50,7 +60,7 @@ export class ImpactService {
     for (let lastId = 0; ;) {
       // Only the input and the compact outcome are read: full results and checklists are large.
       const batch = await Revision.findAll({
-        attributes: ['id', 'calcId', 'label', 'input', 'verdict', 'outcome'],
+        attributes: ['id', 'calcId', 'label', 'input', 'verdict', 'outcome', 'approvedAt'],
         where: { status: 'approved', ruleSetId: { [Op.in]: versionIds }, id: { [Op.gt]: lastId } },
         include: [{ model: Calc, attributes: ['id', 'number', 'title'], include: [{ model: Project, attributes: ['code'] }] }], order: [['id', 'ASC']], limit: BATCH,
       });
@@ -76,6 +86,7 @@ export class ImpactService {
     const c = revision.Calc;
     return {
       calcId: c.id, revisionId: revision.id, projectCode: c.Project.code, number: c.number, title: c.title, revision: revision.label,
+      approvedAt: revision.approvedAt ? revision.approvedAt.toISOString() : null,
       before: before.verdict, after: after.verdict, clauses: changedClauses(before, after, doc),
     };
   }
@@ -92,14 +103,10 @@ export class ImpactService {
 
   async csv(ability: AppAbility, ruleSetId: number): Promise<string> {
     const report = await this.analyse(ability, ruleSetId);
-    const quote = (v: unknown) => `"${String(v ?? '').replace(/"/g, '""')}"`;
-    const header = ['project', 'calc', 'title', 'revision', 'verdict before', 'verdict after', 'clauses that change'];
-    const lines = report.rows.map((r) => [r.projectCode, r.number, r.title, r.revision, r.before, r.after,
-      r.clauses.map((c) => `${c.clauseId} ${c.location}: ${c.before}→${c.after}`).join('; ')].map(quote).join(','));
     // Header first so spreadsheet tools read the columns; the summary and the caution close the file.
     const summary = `${report.evaluated} approved revisions re-evaluated under ${report.ruleSet.code} v${report.ruleSet.version}; ${report.changed} change verdict`;
     const caution = 'Results support, never replace, the judgement of a qualified engineer; local codes and licensed practice govern.';
-    return [header.map(quote).join(','), ...lines, '', quote(summary), quote(caution)].join('\r\n');
+    return toCsv(IMPACT_COLUMNS, report.rows, [summary, caution]);
   }
 
   async diff(ability: AppAbility, fromId: number, toId: number) {

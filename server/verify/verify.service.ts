@@ -3,16 +3,17 @@ import { CAUTION } from '../../shared/engine';
 import type { VerifiedRevision, VerifyResult } from '../../shared/schemas/verify.schema';
 import { Calc, Project, Revision, Signature } from '../db/models';
 import { REVISION_INCLUDE } from '../calcs/calc-mapping';
-import { currentHashOf } from '../calcs/revision-read';
+import { currentHashesOf } from '../calcs/revision-read';
 
 type Match = VerifiedRevision['match'];
 
 async function describe(revision: Revision, hash: string, match: Match): Promise<VerifiedRevision> {
-  const [calc, signatures, recomputed] = await Promise.all([
+  const [calc, signatures] = await Promise.all([
     Calc.findByPk(revision.calcId, { include: [Project] }) as Promise<Calc & { Project: Project }>,
     Signature.findAll({ where: { revisionId: revision.id }, order: [['signedAt', 'ASC']] }),
-    currentHashOf(revision),
   ]);
+  const hashes = await currentHashesOf(revision, signatures);
+  const recomputed = hashes.get(revision.contentFormat ?? 1) ?? null;
   return {
     calcId: calc.id, revisionId: revision.id, projectCode: calc.Project.code, calcNumber: calc.number, calcTitle: calc.title,
     revision: revision.label, state: revision.status, verdict: revision.verdict,
@@ -20,7 +21,7 @@ async function describe(revision: Revision, hash: string, match: Match): Promise
     match, contentIntact: recomputed !== null && recomputed === revision.contentHash,
     signatures: signatures.map((s) => ({
       printedName: s.printedName, role: s.role, meaning: s.meaning, signedAt: s.signedAt.toISOString(),
-      isValid: recomputed !== null && s.contentHash === recomputed, coversThisHash: s.contentHash === hash,
+      isValid: hashes.get(s.contentFormat ?? 1) === s.contentHash, coversThisHash: s.contentHash === hash,
     })),
   };
 }

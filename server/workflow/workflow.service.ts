@@ -12,6 +12,8 @@ import { editorIdsOf, loadRevision } from '../calcs/calc-access';
 import { currentHashOf, readRevision } from '../calcs/revision-read';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { signingBlocker, type Meaning } from './independence';
+import { signedContentFor } from './signed-content';
+import { CONTENT_FORMAT } from '../calcs/revision-content';
 import { queueHandOverMail, type HandOverFacts } from './hand-over-mail';
 import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
@@ -51,14 +53,15 @@ export class WorkflowService {
       const hash = await currentHashOf(revision, transaction);
       if (!hash || hash !== revision.contentHash) throw new AppError('integrity', 409, 'The stored content does not match its recorded hash; signing is refused and compliance should investigate');
       const [{ now }] = await this.sequelize.query<{ now: Date }>('SELECT UTC_TIMESTAMP(3) AS now', { type: QueryTypes.SELECT, transaction });
+      const signed = await signedContentFor(revision, transaction);
       await Signature.create({
         revisionId, userId: signer.id, printedName: signer.name, role: roleFor(dto.meaning), meaning: dto.meaning,
-        signedAt: new Date(now), contentHash: hash, idempotencyKey: dto.idempotencyKey,
+        signedAt: new Date(now), contentHash: signed.hash, contentFormat: CONTENT_FORMAT, attachments: JSON.stringify(signed.attachments), idempotencyKey: dto.idempotencyKey,
       }, { transaction });
       await this.advance(revision, dto.meaning, signer, new Date(now), transaction);
       await appendAudit(this.sequelize, signer, {
         action: `revision.signed_${dto.meaning}`, entityType: 'Revision', entityId: revisionId,
-        payload: { calcId: revision.calcId, revision: revision.label, meaning: dto.meaning, contentHash: hash, state: revision.status },
+        payload: { calcId: revision.calcId, revision: revision.label, meaning: dto.meaning, contentHash: signed.hash, attachments: signed.attachments, state: revision.status },
       }, transaction);
       await this.mail(EVENT[dto.meaning], revision, signer, transaction);
     }, { idempotent: true }); // a second run finds its own signature by the idempotency key

@@ -7,7 +7,14 @@ export interface SignatureDto {
   signedAt: string; contentHash: string;
   /** False once the revision's content no longer hashes to what was signed. */
   isValid: boolean;
+  /** 1 = made before attachments were signed (covers none); 2 = covers `attachments`. */
+  contentFormat: number;
+  /** The attachment set this signature covered; null for format 1. */
+  attachments: SignedAttachmentDto[] | null;
 }
+
+/** An attachment as a signature covers it (name, kind, size, SHA-256). */
+export interface SignedAttachmentDto { name: string; kind: string; sizeBytes: number; sha256: string }
 
 export interface FindingDto {
   id: number; clauseRef: string | null; text: string; status: 'open' | 'answered' | 'closed';
@@ -35,6 +42,8 @@ export interface RevisionDto extends RevisionSummary {
   inputIssues: InputIssue[];
   manualItems: Record<string, ManualItemState>;
   contentHash: string | null;
+  /** Format of `contentHash` (1 = before attachments were signed, 2 = attachment set included). */
+  contentFormat: number;
   signatures: SignatureDto[];
   findings: FindingDto[];
   submittedAt: string | null; checkedAt: string | null; createdAt: string;

@@ -53,6 +53,8 @@ export const withdrawSchema = returnSchema;
 
 export const newRevisionSchema = z.object({
   reasonForChange: z.string({ error: 'is required' }).trim().min(5, 'must say why, in at least 5 characters').max(4000),
+  /** Copy the previous revision's attachments into the new one; off unless asked, and the trail says which. */
+  carryAttachments: z.boolean({ error: 'must be true or false' }).default(false),
 }).strict();
 
 export const findingSchema = z.object({

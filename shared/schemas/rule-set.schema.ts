@@ -39,6 +39,8 @@ export interface RuleSetDto extends RuleSetSummary {
 
 export interface ImpactRow {
   calcId: number; revisionId: number; projectCode: string; number: string; title: string; revision: string;
+  /** When the re-evaluated revision was approved (ISO 8601, UTC). */
+  approvedAt: string | null;
   before: string | null; after: string | null;
   /** Clauses whose mandatory rows change between pass and fail. */
   clauses: { clauseId: string; title: string; before: string; after: string; location: string }[];

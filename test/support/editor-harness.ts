@@ -22,7 +22,7 @@ export function storedRevision(input: unknown, over: Partial<RevisionDto> = {}):
     id: 7, calcId: 3, seq: 0, label: 'A', status: 'draft', verdict: null, author: { id: EDITOR_AUTHOR.id, name: 'Morwenna Hale' },
     checker: null, approver: null, ruleSet: { id: 2, code: 'KFD-ENG-014', version: 3, title: 'Shaft design' },
     reasonForChange: 'first issue', updatedAt: '2026-12-01T10:00:00Z', approvedAt: null, lockVersion: 0,
-    input: JSON.parse(JSON.stringify(input)), result: null, checklist: null, inputIssues: [], manualItems: {}, contentHash: null,
+    input: JSON.parse(JSON.stringify(input)), result: null, checklist: null, inputIssues: [], manualItems: {}, contentHash: null, contentFormat: 2,
     signatures: [], findings: [], submittedAt: null, checkedAt: null, createdAt: '2026-12-01T09:00:00Z', editorIds: [EDITOR_AUTHOR.id], ...over,
   };
 }

@@ -28,6 +28,8 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
   /** Compact verdict and failing mandatory rows (shared/schemas/outcome.ts), for bulk comparison. */
   declare outcome: CreationOptional<string | null>;
   declare contentHash: string | null;
+  /** What the content hash covers: 1 = before attachments were signed, 2 = with the attachment set. */
+  declare contentFormat: CreationOptional<number>;
   declare reasonForChange: string;
   declare lockVersion: CreationOptional<number>;
   declare submittedAt: CreationOptional<Date | null>;
@@ -56,6 +58,7 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
         verdict: { type: DataTypes.STRING(20), allowNull: true },
         outcome: { type: DataTypes.TEXT, allowNull: true },
         contentHash: { type: DataTypes.CHAR(64), allowNull: true },
+        contentFormat: { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 2 },
         reasonForChange: { type: DataTypes.TEXT, allowNull: false },
         lockVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         submittedAt: when(), checkedAt: when(), approvedAt: when(),

@@ -14,6 +14,10 @@ export class Signature extends Model<InferAttributes<Signature>, InferCreationAt
   declare meaning: SignatureMeaning;
   declare signedAt: Date;
   declare contentHash: string;
+  /** Content format the hash was made in (server/calcs/revision-content.ts); 1 = before attachments were signed. */
+  declare contentFormat: number;
+  /** JSON list of the attachments the signature covered (format 2), null for format 1. */
+  declare attachments: string | null;
   declare idempotencyKey: string;
 
   static initModel(sequelize: Sequelize): void {
@@ -27,6 +31,8 @@ export class Signature extends Model<InferAttributes<Signature>, InferCreationAt
         meaning: { type: DataTypes.ENUM('authored', 'checked', 'approved'), allowNull: false },
         signedAt: { type: DataTypes.DATE(3), allowNull: false },
         contentHash: { type: DataTypes.CHAR(64), allowNull: false },
+        contentFormat: { type: DataTypes.TINYINT.UNSIGNED, allowNull: false },
+        attachments: { type: DataTypes.TEXT, allowNull: true },
         idempotencyKey: { type: DataTypes.STRING(64), allowNull: false, unique: true },
       },
       { sequelize, tableName: 'signatures', underscored: true, timestamps: false },

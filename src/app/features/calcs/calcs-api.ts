@@ -85,8 +85,8 @@ export class CalcsApi {
     return firstValueFrom(this.http.post<RevisionDto>(`/api/revisions/${id}/withdraw`, { reason, lockVersion }));
   }
 
-  newRevision(calcId: number, reasonForChange: string): Promise<RevisionDto> {
-    return firstValueFrom(this.http.post<RevisionDto>(`/api/calcs/${calcId}/revisions`, { reasonForChange }));
+  newRevision(calcId: number, reasonForChange: string, carryAttachments: boolean): Promise<RevisionDto> {
+    return firstValueFrom(this.http.post<RevisionDto>(`/api/calcs/${calcId}/revisions`, { reasonForChange, carryAttachments }));
   }
 
   raiseFinding(revisionId: number, text: string, clauseRef?: string): Promise<RevisionDto> {

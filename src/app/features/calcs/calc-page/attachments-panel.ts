@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, ElementRef, computed, inject, input, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, ElementRef, computed, inject, input, output, signal, viewChild } from '@angular/core';
 import { DatePipe, DecimalPipe } from '@angular/common';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -26,6 +26,8 @@ export class AttachmentsPanel {
   private readonly api = inject(AttachmentsApi);
   private readonly me = inject(SessionStore).user;
   readonly revision = input.required<RevisionDto>();
+  /** The attachment set is part of the signed content: the page reloads the revision (hash, signatures). */
+  readonly changed = output<void>();
   protected readonly list = this.api.list(computed(() => this.revision().id));
   protected readonly kinds = ATTACHMENT_KINDS.map((k) => ({ value: k, label: ATTACHMENT_KIND_LABELS[k] }));
   protected readonly labels = ATTACHMENT_KIND_LABELS;
@@ -70,6 +72,7 @@ export class AttachmentsPanel {
       if (el) el.value = '';
       this.form.controls.note.reset();
       this.list.reload();
+      this.changed.emit();
     } catch (error) {
       const failure = toHttpFailure(error);
       this.problem.set(failure.fieldErrors['file']?.[0] ? `The file ${failure.fieldErrors['file'][0]}` : failure.message);
@@ -82,6 +85,7 @@ export class AttachmentsPanel {
     try {
       await this.api.remove(a.id);
       this.list.reload();
+      this.changed.emit();
     } catch (error) {
       this.problem.set(toHttpFailure(error).message);
     }

@@ -29,7 +29,7 @@ import { failingRowText, signingReadiness } from './signing-readiness';
 import { formatEng } from '../../../../../shared/format';
 import { planActions, type RevisionAction } from './revision-actions';
 import { SignDialog, type SignDialogData } from './sign-dialog';
-import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
+import { ReasonDialog, type ReasonDialogData, type ReasonDialogResult } from './reason-dialog';
 
 @Component({
   selector: 'tt-calc-page',
@@ -97,18 +97,21 @@ export default class CalcPage {
     const texts: Record<typeof kind, ReasonDialogData> = {
       return: { title: 'Return to the author', label: 'What must change', hint: 'This becomes a finding the author must answer.', action: 'Return' },
       withdraw: { title: 'Withdraw this revision', label: 'Reason for withdrawal', hint: 'Kept on the record.', action: 'Withdraw' },
-      'new-revision': { title: 'Start a new revision', label: 'Reason for change', hint: 'Printed on the report and kept on the record.', action: 'Start revision' },
+      'new-revision': {
+        title: 'Start a new revision', label: 'Reason for change', hint: 'Printed on the report and kept on the record.', action: 'Start revision',
+        choice: { label: 'Carry over this revision’s attachments', hint: 'Copies the files into the new revision; its signatures will cover them. The audit trail lists what was carried over.' },
+      },
     };
-    this.dialog.open(ReasonDialog, { data: texts[kind] }).afterClosed().subscribe((reason?: string) => {
-      if (reason) void this.applyReason(kind, reason);
+    this.dialog.open(ReasonDialog, { data: texts[kind] }).afterClosed().subscribe((answer?: ReasonDialogResult) => {
+      if (answer) void this.applyReason(kind, answer.reason, answer.choice);
     });
   }
 
-  private async applyReason(kind: 'return' | 'withdraw' | 'new-revision', reason: string): Promise<void> {
+  private async applyReason(kind: 'return' | 'withdraw' | 'new-revision', reason: string, carryAttachments: boolean): Promise<void> {
     const r = this.current()!;
     try {
       if (kind === 'new-revision') {
-        const created = await this.api.newRevision(r.calcId, reason);
+        const created = await this.api.newRevision(r.calcId, reason, carryAttachments);
         await this.router.navigate(['/revisions', created.id, 'edit']);
         return;
       }

@@ -4,7 +4,7 @@ import { MatIconModule } from '@angular/material/icon';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { EmptyState } from '../../../ui/empty-state';
 
-/** Signatures with their validity against the revision's content hash as stored now. */
+/** Signatures with their validity against the revision's content as stored now, and the attachments each covered. */
 @Component({
   selector: 'tt-signatures-panel',
   imports: [DatePipe, SlicePipe, MatIconModule, EmptyState],
@@ -17,7 +17,19 @@ import { EmptyState } from '../../../ui/empty-state';
           <div>
             <div><strong>{{ s.printedName }}</strong> — {{ s.meaning }} ({{ s.role }})</div>
             <div class="tt-muted small tt-mono">{{ s.signedAt | date: 'y-MM-dd HH:mm:ss' : 'UTC' }} UTC · hash {{ s.contentHash | slice: 0 : 16 }}…</div>
-            <div class="validity">{{ s.isValid ? 'Matches the content as stored now.' : 'No longer matches: the content changed after this signature.' }}</div>
+            <div class="validity">{{ s.isValid ? 'Matches the content as stored now.' : 'No longer matches: the content or the attachments changed after this signature.' }}</div>
+            <div class="covered tt-muted small">
+              @if (s.attachments === null) {
+                Made before attachments were part of what is signed: covers none.
+              } @else if (s.attachments.length === 0) {
+                Covered no attachments.
+              } @else {
+                Covered {{ s.attachments.length }} attachment{{ s.attachments.length === 1 ? '' : 's' }}:
+                @for (a of s.attachments; track a.sha256 + a.name) {
+                  <span class="att">{{ a.name }} ({{ a.kind }}, <span class="tt-mono">{{ a.sha256 | slice: 0 : 12 }}…</span>)</span>
+                }
+              }
+            </div>
           </div>
         </li>
       } @empty {
@@ -33,6 +45,8 @@ import { EmptyState } from '../../../ui/empty-state';
     li.invalid { border-color: var(--tt-fail); background: #fbefed; mat-icon { color: var(--tt-fail); } }
     .small { font-size: 12px; }
     .validity { font-size: 12px; margin-top: 2px; }
+    .covered { margin-top: 4px; }
+    .att:not(:last-child)::after { content: '; '; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

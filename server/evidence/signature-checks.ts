@@ -40,7 +40,17 @@ export function signatureCheck(path: string, recordHash: string, actual: string,
     return { name, ok: intact, detail: 'covers the content in this pack (made before attachments were part of what is signed; covers no attachments)' };
   }
   if (s.attachmentsCovered && contentHash({ ...content, attachments: s.attachmentsCovered }) === s.contentHash) {
-    return { name, ok: false, detail: `made over an earlier attachment set (${names(s.attachmentsCovered)}): not valid for this content` };
+    // Same inputs, results and checklist, fewer files: a later stage added evidence (e.g. the checker's
+    // material certificate). The signature is proven over exactly that earlier set, so it holds for what
+    // it covered; a file removed since (one the signer relied on) is a failure.
+    const now = new Set(setOf(content).map(key));
+    const removed = s.attachmentsCovered.filter((a) => !now.has(key(a)));
+    const earlier = new Set(s.attachmentsCovered.map(key));
+    const added = setOf(content).filter((a) => !earlier.has(key(a)));
+    if (intact && removed.length === 0) {
+      return { name, ok: true, detail: `covers this content as it stood when signed: the same inputs, results and checklist with attachments ${names(s.attachmentsCovered)}; added after this signature: ${names(added)}` };
+    }
+    return { name, ok: false, detail: `made over an earlier attachment set (${names(s.attachmentsCovered)}); since removed: ${names(removed)}: not valid for this content` };
   }
   const detail = s.contentHash === recordHash ? 'made over the recorded content, which this pack no longer holds: not valid for this content'
     : 'made over earlier content: not valid for this content';

@@ -28,7 +28,7 @@ const flat = (text: string) => text.replace(/\s+/g, ' ');
 // The diagonal DRAFT mark's letters land between table cells in extracted text wherever they cross a row:
 // match a row's cells in order, allowing one- or two-letter watermark pieces between them.
 const escape = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
-const cells = (...parts: string[]) => new RegExp(parts.map(escape).join(' (?:[A-Z·]{1,2} )*'));
+const cells = (...parts: string[]) => new RegExp(parts.map(escape).join(' (?:[A-Z·]{1,2} )*·?'));
 
 describe('calc report of a whole-shaft calc', () => {
   it('when printed, then it lists the bearings, forces and masses as entered, with their units', async () => {
@@ -41,8 +41,7 @@ describe('calc report of a whole-shaft calc', () => {
     expect(text).toContain('C kN');
     expect(text).toContain('Forces on the shaft');
     expect(text).toMatch(cells('G1', 'Gear', 'spur gear', '100', 'pitch ⌀ 180 mm, pressure angle 20°'));
-    // The diagonal DRAFT mark can drop a letter between cells of the extracted text.
-    expect(text).toMatch(/C2 Coupling flexible coupling(?: \S)? 390/);
+    expect(text).toMatch(cells('C2', 'Coupling', 'flexible coupling', '390'));
     expect(text).toContain('Attached masses');
     expect(text).toMatch(cells('m1', 'gear', '100'));
     expect(text).toContain('Operating speed: 950 rpm');

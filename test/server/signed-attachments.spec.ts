@@ -55,6 +55,31 @@ describe('attachments inside what is signed', () => {
     expect(sigs.checked.attachments!.map((a) => a.name)).not.toContain('site note.pdf');
   });
 
+  it('when the checker attached a file during check, then the approved calc\'s evidence pack still verifies, naming what each signature covered', async () => {
+    const team = await calcTeam(ctx.app);
+    const { author, checker, approver, revisionId } = team;
+    // The author's own files are uploaded (the harness would otherwise insert rows for the kinds manual items need).
+    await upload(author.session, revisionId, pdfBytes(900, 'drawing'), { kind: 'drawing' }, 'DRG-1.pdf');
+    await upload(author.session, revisionId, pdfBytes(800, 'certificate'), { kind: 'material-certificate' }, 'cert.pdf');
+    await sign(author.session, revisionId, 'authored');
+    await upload(checker.session, revisionId, pdfBytes(700, 'hardness test'), { kind: 'other' }, 'hardness-test.pdf');
+    await tickAll(checker.session, revisionId);
+    await sign(checker.session, revisionId, 'checked');
+    await sign(approver.session, revisionId, 'approved');
+    const compliance = await signedInAs(ctx.app, ['compliance']);
+    const exported = await getBinary(compliance.session, `/api/calcs/${team.calc.id}/evidence.zip`);
+    expect([exported.status, exported.status === 200 ? '' : String(exported.body), (await revisionOf(approver.session, revisionId)).status]).toEqual([200, '', 'approved']);
+    const pack = exported.body as Buffer;
+
+    const verified = await postPack(compliance.session, pack);
+    expect([verified.status, verified.body.message]).toEqual([200, undefined]);
+    const authored = verified.body.checks.find((c: { name: string }) => /signature authored/.test(c.name));
+
+    expect(verified.body.checks.filter((c: { ok: boolean }) => !c.ok)).toEqual([]);
+    expect(verified.body.ok).toBe(true);
+    expect(authored.detail).toMatch(/attachments DRG-1\.pdf, cert\.pdf; added after this signature: hardness-test\.pdf/);
+  });
+
   it('when anyone tries to attach a file after approval, then it is refused and the signatures still hold', async () => {
     const { author, checker, approver, revisionId } = await calcTeam(ctx.app);
     await sign(author.session, revisionId, 'authored');

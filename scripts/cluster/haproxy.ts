@@ -69,6 +69,10 @@ listen web
   option httpchk GET /api/health
   http-check expect status 200
   default-server inter 500ms fall 2 rise 2
+  # One request per connection, on both sides. When an instance dies mid-request, HAProxy answers a request
+  # that was not the first on its client connection by closing that connection without a word (the keep-alive
+  # convention that lets a browser resend); with one request per connection it sends the 503 below instead.
+  option httpclose
   # Only a connection that never reached an instance is sent elsewhere: nothing ran, so it is safe.
   retries 3
   retry-on conn-failure
@@ -79,22 +83,33 @@ ${apps.map((p, i) => `  server app${i + 1} 127.0.0.1:${p} check`).join('\n')}
   errorfile 504 ${dir}/503.http
 listen stats
   mode http
+  timeout client 10s
+  timeout server 10s
   bind 127.0.0.1:${ends.statsPort}
   stats enable
   stats uri /
 `;
 }
 
-export async function startHaproxy(procs: Processes, cluster: GaleraCluster, checks: Map<GaleraNode, number>, apps: number[], dir: string): Promise<Endpoints> {
-  const ends = { dbPort: await freePort(), webPort: await freePort(), statsPort: await freePort() };
+export async function startHaproxy(procs: Processes, cluster: GaleraCluster, checks: Map<GaleraNode, number>,
+  apps: number[], dir: string): Promise<Endpoints> {
   fs.writeFileSync(path.join(dir, '503.http'), RETRY_LATER('503 Service Unavailable'));
-  fs.writeFileSync(path.join(dir, 'haproxy.cfg'), config(cluster, checks, apps, ends, dir));
-  const child = procs.start('haproxy', '/usr/sbin/haproxy', ['-db', '-f', path.join(dir, 'haproxy.cfg')], { log: path.join(dir, 'haproxy.log') });
-  await waitFor('HAProxy to accept connections', async () => {
-    if (child.exitCode !== null) throw new Error(`haproxy exited; see ${dir}/haproxy.log`);
-    return (await fetch(`http://127.0.0.1:${ends.statsPort}/;csv`)).ok;
-  }, 30_000);
-  return ends;
+  // A port found free can be taken by another process before HAProxy binds it (the machine is shared):
+  // then HAProxy exits at once, and a new set of ports is tried.
+  for (let attempt = 1; ; attempt++) {
+    const ends = { dbPort: await freePort(), webPort: await freePort(), statsPort: await freePort() };
+    fs.writeFileSync(path.join(dir, 'haproxy.cfg'), config(cluster, checks, apps, ends, dir));
+    const args = ['-db', '-f', path.join(dir, 'haproxy.cfg')];
+    const child = procs.start('haproxy', '/usr/sbin/haproxy', args, { log: path.join(dir, 'haproxy.log') });
+    let exited = false;
+    await waitFor('HAProxy to accept connections or exit', async () => {
+      exited = child.exitCode !== null;
+      return exited || (await fetch(`http://127.0.0.1:${ends.statsPort}/;csv`)).ok;
+    }, 30_000);
+    if (!exited) return ends;
+    const portTaken = fs.readFileSync(path.join(dir, 'haproxy.log'), 'utf8').includes('Address already in use');
+    if (!portTaken || attempt === 3) throw new Error(`haproxy exited; see ${dir}/haproxy.log`);
+  }
 }
 
 /** HAProxy's own view of each server ("UP", "DOWN", ...), from its statistics page. */

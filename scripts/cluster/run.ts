@@ -94,10 +94,12 @@ async function main(root: string): Promise<number> {
     const runSeconds = (Date.now() - runStart) / 1000;
     log(`${completed} sign-offs done in ${runSeconds.toFixed(1)} s; responses by status ${JSON.stringify(tally.byStatus)}; slowest ${tally.slowestMs} ms`);
 
-    for (const line of tally.noAnswer) log(`no HTTP answer (the client looked and retried): ${line}`);
+    for (const line of tally.noAnswer) log(`no HTTP answer: ${line}`);
     for (const node of cluster.nodes) await cluster.waitSynced(node);
     const problems: string[] = [];
     if (tally.hangs) problems.push(`${tally.hangs} requests waited longer than 10 s`);
+    // Every request gets its answer or a 503 it may retry; a connection closed without a word is a failure.
+    if (tally.noAnswer.length) problems.push(`${tally.noAnswer.length} requests got no HTTP answer`);
     if (tally.unclean503) problems.push(`${tally.unclean503} responses of 503 without Retry-After`);
     if (tally.byStatus['500']) problems.push(`${tally.byStatus['500']} responses of 500`);
     const prints = new Set<string>();

@@ -41,6 +41,8 @@ export interface StateSpec {
   turn: Turn | null;
   /** A calc whose newest revision is in this state may start its next revision. */
   allowsNextRevision: boolean;
+  /** What the revision page says once nobody acts on it (otherwise "This revision is <label>."). */
+  screenNote?: string;
 }
 
 const AUTHOR_TURN: Turn = { role: 'author', relation: 'own', may: ['update', 'submit', 'sign'], signs: 'authored' };
@@ -67,6 +69,7 @@ export const WORKFLOW: Record<RevisionState, StateSpec> = {
   approved: {
     label: 'Approved', badge: { glyph: '●', tone: 'released' }, report: { tone: 'pass', mark: null },
     isEditable: false, turn: null, allowsNextRevision: true,
+    screenNote: 'Released. Approved revisions are read-only; a change needs a new revision with a reason.',
   },
   superseded: {
     label: 'Superseded', badge: { glyph: '○', tone: 'closed' }, report: { tone: 'fail', mark: 'SUPERSEDED · DO NOT USE' },

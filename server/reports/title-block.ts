@@ -2,7 +2,7 @@ import { STATE_LABELS } from '../../shared/schemas/revision.schema';
 import { WORKFLOW, type RevisionState } from '../../shared/workflow/revision-states';
 import { TONE_COLOUR } from './page-furniture';
 import type { ReportData } from './report-data';
-import { BAND, BOLD, CONTENT_WIDTH, COPPER, FAIL, INK, INK_SOFT, MONO, PAGE, PASS, SANS, WARN } from './report-doc';
+import { BAND, BOLD, CONTENT_WIDTH, COPPER, FAIL, INK, INK_SOFT, MONO, PAGE, PASS, SANS } from './report-doc';
 import { drawQr } from './qr';
 
 const QR_WIDTH = 96;

@@ -28,7 +28,9 @@ type Filter = { sql: string; params: unknown[] };
 const RELATION_SQL: Record<Relation, (userId: number) => Filter> = {
   own: (userId) => ({ sql: 'c.latest_author_id = ?', params: [userId] }),
   independent: (userId) => ({ sql: NOT_EDITED_BY, params: [userId] }),
-  'independent-of-checker': (userId) => ({ sql: `c.latest_checker_id <> ? AND ${NOT_EDITED_BY}`, params: [userId, userId] }),
+  'independent-of-checker': (userId) => ({
+    sql: `c.latest_checker_id <> ? AND ${NOT_EDITED_BY}`, params: [userId, userId],
+  }),
 };
 
 /** A queue lists the calcs whose newest revision waits in its state for someone standing to it as the turn asks. */
@@ -44,7 +46,8 @@ function filterOf(key: QueueKey, userId: number): Filter {
 }
 
 /** The queues a person's roles give them: those whose state waits for one of their roles. */
-export const queueKeysOf = (user: SessionUser): QueueKey[] => QUEUE_KEYS.filter((k) => user.roles.includes(turnOf(k).turn.role));
+export const queueKeysOf = (user: SessionUser): QueueKey[] =>
+  QUEUE_KEYS.filter((k) => user.roles.includes(turnOf(k).turn.role));
 
 interface Row {
   id: number; latest_revision_id: number; project_code: string; number: string; title: string; latest_label: string;

@@ -5,7 +5,11 @@ export const RELATIONS = ['own', 'independent', 'independent-of-checker'] as con
 export type Relation = (typeof RELATIONS)[number];
 
 /** Who has put their hand to a revision so far; editors are everyone who ever changed the calc. */
-export interface RevisionParties { authorId: number; checkerId: number | null; editorIds: readonly number[] }
+export interface RevisionParties {
+  authorId: number;
+  checkerId: number | null;
+  editorIds: readonly number[];
+}
 
 interface RelationSpec {
   /** The part CASL can check on the revision row alone (and SQL can filter on). */

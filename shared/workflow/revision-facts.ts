@@ -2,11 +2,17 @@ import type { RevisionDto } from '../schemas/calc-dto';
 import type { RevisionParties } from './relations';
 import type { SigningContext } from './signing-blockers';
 
-interface ChecklistView { rows?: { status?: unknown }[]; manual?: { id: string }[] }
+interface ChecklistView {
+  rows?: { status?: unknown }[];
+  manual?: { id: string }[];
+}
 
 /** Who has put their hand to the revision, as its DTO says. */
-export const partiesOfRevision = (r: RevisionDto): RevisionParties =>
-  ({ authorId: r.author.id, checkerId: r.checker?.id ?? null, editorIds: r.editorIds });
+export const partiesOfRevision = (r: RevisionDto): RevisionParties => ({
+  authorId: r.author.id,
+  checkerId: r.checker?.id ?? null,
+  editorIds: r.editorIds,
+});
 
 /**
  * The signing context the blockers read, built from the revision as the API sends it, so the
@@ -18,8 +24,12 @@ export function signingContextOf(r: RevisionDto, actor: SigningContext['actor'])
   return {
     actor,
     revision: {
-      status: r.status, authorId: r.author?.id, checkerId: r.checker?.id ?? null, hasResult: r.result !== null && r.result !== undefined,
-      verdict: r.verdict, errorRows: (checklist?.rows ?? []).filter((row) => row?.status === 'error').length,
+      status: r.status,
+      authorId: r.author?.id,
+      checkerId: r.checker?.id ?? null,
+      hasResult: r.result !== null && r.result !== undefined,
+      verdict: r.verdict,
+      errorRows: (checklist?.rows ?? []).filter((row) => row?.status === 'error').length,
     },
     editorIds: r.editorIds ?? [],
     openFindings: findings.filter((f) => f.status === 'open').length,

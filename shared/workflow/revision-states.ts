@@ -8,7 +8,15 @@ import type { Relation } from './relations';
  * the client's buttons are all read from here; a new state is a row here plus a migration
  * (the `status` ENUM and the summary trigger's `latest_since`) and its tests.
  */
-export const REVISION_STATES = ['draft', 'in_check', 'returned', 'checked', 'approved', 'superseded', 'withdrawn'] as const;
+export const REVISION_STATES = [
+  'draft',
+  'in_check',
+  'returned',
+  'checked',
+  'approved',
+  'superseded',
+  'withdrawn',
+] as const;
 export type RevisionState = (typeof REVISION_STATES)[number];
 
 export const MEANINGS = ['authored', 'checked', 'approved'] as const;
@@ -49,35 +57,66 @@ const AUTHOR_TURN: Turn = { role: 'author', relation: 'own', may: ['update', 'su
 
 export const WORKFLOW: Record<RevisionState, StateSpec> = {
   draft: {
-    label: 'Draft', badge: { glyph: '✎', tone: 'open' }, report: { tone: 'fail', mark: 'DRAFT · NOT FOR CONSTRUCTION' },
-    isEditable: true, turn: AUTHOR_TURN, allowsNextRevision: false,
+    label: 'Draft',
+    badge: { glyph: '✎', tone: 'open' },
+    report: { tone: 'fail', mark: 'DRAFT · NOT FOR CONSTRUCTION' },
+    isEditable: true,
+    turn: AUTHOR_TURN,
+    allowsNextRevision: false,
   },
   in_check: {
-    label: 'In check', badge: { glyph: '◔', tone: 'waiting' }, report: { tone: 'warn', mark: 'IN CHECK · NOT FOR CONSTRUCTION' },
-    isEditable: false, allowsNextRevision: false,
+    label: 'In check',
+    badge: { glyph: '◔', tone: 'waiting' },
+    report: { tone: 'warn', mark: 'IN CHECK · NOT FOR CONSTRUCTION' },
+    isEditable: false,
+    allowsNextRevision: false,
     turn: { role: 'checker', relation: 'independent', may: ['check', 'return', 'sign'], signs: 'checked' },
   },
   returned: {
-    label: 'Returned', badge: { glyph: '↩', tone: 'returned' }, report: { tone: 'fail', mark: 'DRAFT · NOT FOR CONSTRUCTION' },
-    isEditable: true, turn: AUTHOR_TURN, allowsNextRevision: false,
+    label: 'Returned',
+    badge: { glyph: '↩', tone: 'returned' },
+    report: { tone: 'fail', mark: 'DRAFT · NOT FOR CONSTRUCTION' },
+    isEditable: true,
+    turn: AUTHOR_TURN,
+    allowsNextRevision: false,
   },
   checked: {
-    label: 'Checked', badge: { glyph: '◑', tone: 'checked' },
-    report: { tone: 'warn', mark: 'AWAITING APPROVAL · NOT FOR CONSTRUCTION' }, isEditable: false, allowsNextRevision: false,
-    turn: { role: 'approver', relation: 'independent-of-checker', may: ['approve', 'return', 'sign'], signs: 'approved' },
+    label: 'Checked',
+    badge: { glyph: '◑', tone: 'checked' },
+    report: { tone: 'warn', mark: 'AWAITING APPROVAL · NOT FOR CONSTRUCTION' },
+    isEditable: false,
+    allowsNextRevision: false,
+    turn: {
+      role: 'approver',
+      relation: 'independent-of-checker',
+      may: ['approve', 'return', 'sign'],
+      signs: 'approved',
+    },
   },
   approved: {
-    label: 'Approved', badge: { glyph: '●', tone: 'released' }, report: { tone: 'pass', mark: null },
-    isEditable: false, turn: null, allowsNextRevision: true,
+    label: 'Approved',
+    badge: { glyph: '●', tone: 'released' },
+    report: { tone: 'pass', mark: null },
+    isEditable: false,
+    turn: null,
+    allowsNextRevision: true,
     screenNote: 'Released. Approved revisions are read-only; a change needs a new revision with a reason.',
   },
   superseded: {
-    label: 'Superseded', badge: { glyph: '○', tone: 'closed' }, report: { tone: 'fail', mark: 'SUPERSEDED · DO NOT USE' },
-    isEditable: false, turn: null, allowsNextRevision: false,
+    label: 'Superseded',
+    badge: { glyph: '○', tone: 'closed' },
+    report: { tone: 'fail', mark: 'SUPERSEDED · DO NOT USE' },
+    isEditable: false,
+    turn: null,
+    allowsNextRevision: false,
   },
   withdrawn: {
-    label: 'Withdrawn', badge: { glyph: '×', tone: 'closed' }, report: { tone: 'fail', mark: 'WITHDRAWN · DO NOT USE' },
-    isEditable: false, turn: null, allowsNextRevision: true,
+    label: 'Withdrawn',
+    badge: { glyph: '×', tone: 'closed' },
+    report: { tone: 'fail', mark: 'WITHDRAWN · DO NOT USE' },
+    isEditable: false,
+    turn: null,
+    allowsNextRevision: true,
   },
 };
 

@@ -10,4 +10,7 @@ export const EDITABLE_STATES: readonly RevisionState[] = REVISION_STATES.filter(
 /** Once a revision is released or closed nobody acts on it: its file set is part of the record. */
 export const CLOSED_STATES: readonly RevisionState[] = REVISION_STATES.filter((s) => WORKFLOW[s].turn === null);
 
-export const STATE_LABELS = Object.fromEntries(REVISION_STATES.map((s) => [s, WORKFLOW[s].label])) as Record<RevisionState, string>;
+export const STATE_LABELS = Object.fromEntries(REVISION_STATES.map((s) => [s, WORKFLOW[s].label])) as Record<
+  RevisionState,
+  string
+>;

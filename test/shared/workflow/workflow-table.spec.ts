@@ -1,8 +1,22 @@
 import { ROLES } from '../../../shared/authz/roles';
 import { QUEUE_KEYS, QUEUE_LABELS } from '../../../shared/schemas/queue.schema';
 import {
-  CLOSED_STATES, EDITABLE_STATES, MEANINGS, QUEUES, RELATIONS, RETURNED_STATE, REVISION_STATES, SIGNATURES,
-  STATE_LABELS, SUPERSEDED_STATE, WITHDRAWN_STATE, WORKFLOW, roleFor, statesAllowing, statesSignedAs, type RevisionState,
+  CLOSED_STATES,
+  EDITABLE_STATES,
+  MEANINGS,
+  QUEUES,
+  RELATIONS,
+  RETURNED_STATE,
+  REVISION_STATES,
+  SIGNATURES,
+  STATE_LABELS,
+  SUPERSEDED_STATE,
+  WITHDRAWN_STATE,
+  WORKFLOW,
+  roleFor,
+  statesAllowing,
+  statesSignedAs,
+  type RevisionState,
 } from '../../../shared/workflow';
 
 /** Where each state can lead: signatures, returning, withdrawing, and superseding a released revision. */
@@ -20,7 +34,8 @@ describe('the workflow table', () => {
   it('when walked from a new draft, then every state is reachable', () => {
     const seen = new Set<RevisionState>(['draft']);
     const queue: RevisionState[] = ['draft'];
-    while (queue.length) for (const next of nextStates(queue.shift()!)) if (!seen.has(next)) queue.push(next) && seen.add(next);
+    while (queue.length)
+      for (const next of nextStates(queue.shift()!)) if (!seen.has(next)) queue.push(next) && seen.add(next);
     expect([...seen].sort()).toEqual([...REVISION_STATES].sort());
   });
 
@@ -34,15 +49,18 @@ describe('the workflow table', () => {
     if (s.report.mark) expect(s.report.mark).toMatch(/NOT FOR CONSTRUCTION|DO NOT USE/);
   });
 
-  it.each(REVISION_STATES.filter((s) => WORKFLOW[s].turn))('when %s waits for someone, then the turn names a role, a relation and a signature', (state) => {
-    const turn = WORKFLOW[state].turn!;
-    expect(ROLES).toContain(turn.role);
-    expect(RELATIONS).toContain(turn.relation);
-    expect(MEANINGS).toContain(turn.signs);
-    expect(turn.may).toContain('sign');
-    expect(roleFor(turn.signs)).toBe(turn.role);
-    expect(QUEUES.filter((q) => q.state === state)).toHaveLength(1);
-  });
+  it.each(REVISION_STATES.filter((s) => WORKFLOW[s].turn))(
+    'when %s waits for someone, then the turn names a role, a relation and a signature',
+    (state) => {
+      const turn = WORKFLOW[state].turn!;
+      expect(ROLES).toContain(turn.role);
+      expect(RELATIONS).toContain(turn.relation);
+      expect(MEANINGS).toContain(turn.signs);
+      expect(turn.may).toContain('sign');
+      expect(roleFor(turn.signs)).toBe(turn.role);
+      expect(QUEUES.filter((q) => q.state === state)).toHaveLength(1);
+    },
+  );
 
   it('when a meaning is signed, then exactly one role signs it and it leads out of the states it is made in', () => {
     for (const meaning of MEANINGS) {
@@ -57,7 +75,9 @@ describe('the workflow table', () => {
     expect(statesAllowing('update')).toEqual(EDITABLE_STATES);
     for (const s of EDITABLE_STATES) expect(WORKFLOW[s].turn).toMatchObject({ role: 'author', relation: 'own' });
     expect(CLOSED_STATES).toEqual(['approved', 'superseded', 'withdrawn']);
-    expect(REVISION_STATES.filter((s) => WORKFLOW[s].allowsNextRevision).every((s) => CLOSED_STATES.includes(s))).toBe(true);
+    expect(REVISION_STATES.filter((s) => WORKFLOW[s].allowsNextRevision).every((s) => CLOSED_STATES.includes(s))).toBe(
+      true,
+    );
   });
 
   it('when queues are listed, then their keys are unique, labelled and in the dashboard order', () => {

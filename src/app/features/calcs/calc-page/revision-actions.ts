@@ -6,7 +6,8 @@ import { WORKFLOW, type Meaning, type Turn } from '../../../../../shared/workflo
 import { signingBlockers } from '../../../../../shared/workflow/signing-blockers';
 import { partiesOfRevision, signingContextOf } from '../../../../../shared/workflow/revision-facts';
 
-export type RevisionAction = 'edit' | 'submit' | 'withdraw' | 'raise-finding' | 'return' | 'sign-checked' | 'approve' | 'new-revision';
+export type RevisionAction =
+  'edit' | 'submit' | 'withdraw' | 'raise-finding' | 'return' | 'sign-checked' | 'approve' | 'new-revision';
 
 export interface ActionPlan {
   actions: Set<RevisionAction>;
@@ -15,10 +16,18 @@ export interface ActionPlan {
 }
 
 /** The button that makes a signature of each meaning. */
-const SIGN_BUTTON: Record<Meaning, RevisionAction> = { authored: 'submit', checked: 'sign-checked', approved: 'approve' };
+const SIGN_BUTTON: Record<Meaning, RevisionAction> = {
+  authored: 'submit',
+  checked: 'sign-checked',
+  approved: 'approve',
+};
 
 /** Screen words for a turn: what the revision waits for, and what the holder is told when nothing blocks them. */
-const WAITING: Record<Meaning, string> = { authored: 'its author', checked: 'an independent check', approved: 'approval' };
+const WAITING: Record<Meaning, string> = {
+  authored: 'its author',
+  checked: 'an independent check',
+  approved: 'approval',
+};
 const READY: Record<Meaning, string> = {
   authored: 'When the calc is ready, sign it as authored to submit it for independent check.',
   checked: 'Waiting for an independent check.',
@@ -55,7 +64,8 @@ function turnRefusal(turn: Turn, r: RevisionDto, me: SessionUser): string | null
   const parties = partiesOfRevision(r);
   const holdsRole = (me.roles as string[]).includes(turn.role);
   if (holdsRole && RELATION[turn.relation].holds(me.id, parties)) return null;
-  const waiting = turn.relation === 'own' ? `With its author, ${r.author.name}.` : `Waiting for ${WAITING[turn.signs]}.`;
+  const waiting =
+    turn.relation === 'own' ? `With its author, ${r.author.name}.` : `Waiting for ${WAITING[turn.signs]}.`;
   if (!holdsRole || turn.relation === 'own') return waiting;
   if (turn.relation === 'independent-of-checker' && me.id === parties.checkerId) {
     return `Waiting for ${WAITING[turn.signs]} by someone other than its checker.`;

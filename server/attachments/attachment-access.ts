@@ -2,9 +2,10 @@ import type { AppAbility } from '../../shared/authz/app-ability';
 import type { AttachmentDto } from '../../shared/schemas/attachment.schema';
 import type { Revision, Attachment } from '../db/models';
 import { revisionSubject } from '../calcs/calc-access';
+import { CLOSED_STATES } from '../../shared/workflow/state-sets';
 
 /** Once a revision is released or closed its file set is part of the record: read-only. */
-export const READ_ONLY_STATES: readonly Revision['status'][] = ['approved', 'superseded', 'withdrawn'];
+export const READ_ONLY_STATES: readonly Revision['status'][] = CLOSED_STATES;
 
 /**
  * Who may add files: the author while editing, the independent checker or approver while

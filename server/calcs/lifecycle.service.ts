@@ -14,6 +14,7 @@ import { stored, type CalcsService } from './calcs.service';
 import { carryOver } from '../attachments/carry-over';
 import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
+import { WITHDRAWN_STATE, WORKFLOW, type RevisionState } from '../../shared/workflow/revision-states';
 
 /** Starting and ending revisions: a new revision after approval, or withdrawing a draft. */
 export class LifecycleService {
@@ -29,7 +30,7 @@ export class LifecycleService {
       const calc = await loadCalc(calcId, transaction);
       await assertProjectOpen(calc.id, transaction);
       const latest = await Revision.findOne({ where: { calcId }, order: [['seq', 'DESC']], transaction, lock: transaction.LOCK.UPDATE });
-      if (!latest || !['approved', 'withdrawn'].includes(latest.status)) {
+      if (!latest || !WORKFLOW[latest.status as RevisionState].allowsNextRevision) {
         throw AppError.conflict(`Revision ${latest?.label} is still ${latest?.status.replace('_', ' ')}; finish or withdraw it before starting another`);
       }
       const ruleSet = await this.currentVersionOf(latest.ruleSetId);
@@ -59,7 +60,7 @@ export class LifecycleService {
       await assertProjectOpen(revision.calcId, transaction);
       assertCan(ability, 'update', revision, 'Only the author can withdraw a draft or returned revision');
       if (revision.lockVersion !== lockVersion) throw AppError.conflict('The revision changed since you opened it; reload it');
-      revision.status = 'withdrawn';
+      revision.status = WITHDRAWN_STATE;
       await revision.save({ transaction });
       await appendAudit(this.sequelize, actor, { action: 'revision.withdrawn', entityType: 'Revision', entityId: revisionId, payload: { calcId: revision.calcId, revision: revision.label, reason } }, transaction);
     });

@@ -4,6 +4,8 @@ import type { SessionUser } from '../../shared/schemas/auth.schema';
 import { cursorSchema } from '../../shared/schemas/common.schema';
 import { QUEUE_KEYS, QUEUE_LABELS, type QueueDto, type QueueItem, type QueueKey } from '../../shared/schemas/queue.schema';
 import type { RevisionState } from '../../shared/schemas/revision.schema';
+import { QUEUES, WORKFLOW } from '../../shared/workflow/revision-states';
+import type { Relation } from '../../shared/workflow/relations';
 import { Calc } from '../db/models';
 import { cappedCount, decodeCursor, encodeCursor, keysetCondition, type KeyColumn } from '../http/keyset';
 
@@ -16,24 +18,36 @@ export type QueueQuery = z.infer<typeof queueQuerySchema>;
 // A queue is a filter on the calcs' summary columns (only a calc's newest revision can wait for anyone),
 // oldest first by when it entered its state; indexes calcs_author_state and calcs_state_since serve them.
 const KEY: KeyColumn[] = [{ sql: 'c.latest_since', isDate: true }, { sql: 'c.id' }];
-const NOT_EDITED_BY = 'NOT EXISTS (SELECT 1 FROM calc_editors e WHERE e.calc_id = c.id AND e.user_id = ?)';
 // A queue waiting on many people is counted only this far ("more than 1,000").
 const QUEUE_COUNT_CAP = 1_000;
 
-function filterOf(key: QueueKey, userId: number): { sql: string; params: unknown[] } {
-  switch (key) {
-    case 'my-drafts': return { sql: "c.latest_author_id = ? AND c.latest_status = 'draft'", params: [userId] };
-    case 'returned-to-me': return { sql: "c.latest_author_id = ? AND c.latest_status = 'returned'", params: [userId] };
-    case 'awaiting-my-check': return { sql: `c.latest_status = 'in_check' AND ${NOT_EDITED_BY}`, params: [userId] };
-    case 'awaiting-my-approval': return { sql: `c.latest_status = 'checked' AND c.latest_checker_id <> ? AND ${NOT_EDITED_BY}`, params: [userId, userId] };
-  }
-}
+const NOT_EDITED_BY = 'NOT EXISTS (SELECT 1 FROM calc_editors e WHERE e.calc_id = c.id AND e.user_id = ?)';
+type Filter = { sql: string; params: unknown[] };
 
-const ROLE_OF: Record<QueueKey, string> = {
-  'my-drafts': 'author', 'returned-to-me': 'author', 'awaiting-my-check': 'checker', 'awaiting-my-approval': 'approver',
+// How each relation of the workflow table (shared/workflow/relations.ts) reads on the calcs' summary columns.
+const RELATION_SQL: Record<Relation, (userId: number) => Filter> = {
+  own: (userId) => ({ sql: 'c.latest_author_id = ?', params: [userId] }),
+  independent: (userId) => ({ sql: NOT_EDITED_BY, params: [userId] }),
+  'independent-of-checker': (userId) => ({
+    sql: `c.latest_checker_id <> ? AND ${NOT_EDITED_BY}`, params: [userId, userId],
+  }),
 };
 
-export const queueKeysOf = (user: SessionUser): QueueKey[] => QUEUE_KEYS.filter((k) => user.roles.includes(ROLE_OF[k] as never));
+/** A queue lists the calcs whose newest revision waits in its state for someone standing to it as the turn asks. */
+function turnOf(key: QueueKey) {
+  const { state } = QUEUES.find((q) => q.key === key)!;
+  return { state, turn: WORKFLOW[state].turn! };
+}
+
+function filterOf(key: QueueKey, userId: number): Filter {
+  const { state, turn } = turnOf(key);
+  const relation = RELATION_SQL[turn.relation](userId);
+  return { sql: `c.latest_status = ? AND ${relation.sql}`, params: [state, ...relation.params] };
+}
+
+/** The queues a person's roles give them: those whose state waits for one of their roles. */
+export const queueKeysOf = (user: SessionUser): QueueKey[] =>
+  QUEUE_KEYS.filter((k) => user.roles.includes(turnOf(k).turn.role));
 
 interface Row {
   id: number; latest_revision_id: number; project_code: string; number: string; title: string; latest_label: string;

@@ -1,22 +1,20 @@
 import { CAUTION } from '../../shared/engine';
-import type { RevisionState } from '../../shared/schemas/revision.schema';
-import { BOLD, COPPER, FAIL, INK, INK_SOFT, MONO, PAGE, RULE, SANS, WARN } from './report-doc';
+import { WORKFLOW, type RevisionState, type Tone } from '../../shared/workflow/revision-states';
+import { BOLD, COPPER, FAIL, INK, INK_SOFT, MONO, PAGE, PASS, RULE, SANS, WARN } from './report-doc';
 
 export interface StateMark { text: string; colour: string }
+
+/** The pdf colour of each tone of the workflow table (shared/workflow/revision-states.ts). */
+export const TONE_COLOUR: Record<Tone, string> = { pass: PASS, warn: WARN, fail: FAIL };
 
 /**
  * Anything not approved is not for construction. Draft and returned revisions carry the
  * strongest mark; released-then-replaced ones say so, so an old print is not mistaken for current.
+ * The words and tone of each state are in the workflow table.
  */
 export function stateMark(state: RevisionState): StateMark | null {
-  switch (state) {
-    case 'draft': case 'returned': return { text: 'DRAFT · NOT FOR CONSTRUCTION', colour: FAIL };
-    case 'in_check': return { text: 'IN CHECK · NOT FOR CONSTRUCTION', colour: WARN };
-    case 'checked': return { text: 'AWAITING APPROVAL · NOT FOR CONSTRUCTION', colour: WARN };
-    case 'superseded': return { text: 'SUPERSEDED · DO NOT USE', colour: FAIL };
-    case 'withdrawn': return { text: 'WITHDRAWN · DO NOT USE', colour: FAIL };
-    case 'approved': return null;
-  }
+  const { mark, tone } = WORKFLOW[state].report;
+  return mark ? { text: mark, colour: TONE_COLOUR[tone] } : null;
 }
 
 export interface Furniture { organisation: string; reference: string; hash: string | null; mark: StateMark | null }

@@ -1,6 +1,8 @@
 import { STATE_LABELS } from '../../shared/schemas/revision.schema';
+import { WORKFLOW, type RevisionState } from '../../shared/workflow/revision-states';
+import { TONE_COLOUR } from './page-furniture';
 import type { ReportData } from './report-data';
-import { BAND, BOLD, CONTENT_WIDTH, COPPER, FAIL, INK, INK_SOFT, MONO, PAGE, PASS, SANS, WARN } from './report-doc';
+import { BAND, BOLD, CONTENT_WIDTH, COPPER, FAIL, INK, INK_SOFT, MONO, PAGE, PASS, SANS } from './report-doc';
 import { drawQr } from './qr';
 
 const QR_WIDTH = 96;
@@ -10,10 +12,7 @@ function field(doc: PDFKit.PDFDocument, label: string, value: string, x: number,
   doc.font(BOLD).fontSize(9).fillColor(colour).text(value, x + 6, y + 15, { width: w - 12, height: 24, ellipsis: true });
 }
 
-function stateColour(state: string): string {
-  if (state === 'approved') return PASS;
-  return state === 'in_check' || state === 'checked' ? WARN : FAIL;
-}
+const stateColour = (state: RevisionState): string => TONE_COLOUR[WORKFLOW[state].report.tone];
 
 /** The head of page one: identity of the calc, who signed what, the verdict and the QR to verify it. */
 export function drawTitleBlock(doc: PDFKit.PDFDocument, d: ReportData): void {

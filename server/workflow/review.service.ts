@@ -11,6 +11,7 @@ import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { assertAttachmentFor } from '../attachments/attachment-rules';
 import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
+import { RETURNED_STATE } from '../../shared/workflow/revision-states';
 
 type Reviewer = Actor & { id: number };
 
@@ -72,7 +73,7 @@ export class ReviewService {
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
       if (revision.lockVersion !== lockVersion) throw AppError.conflict('The revision changed since you opened it; reload it');
       const from = revision.status;
-      revision.status = 'returned';
+      revision.status = RETURNED_STATE;
       await revision.save({ transaction });
       await Finding.create({ revisionId, text: reason, clauseRef: null, raisedBy: actor.id }, { transaction });
       await appendAudit(this.sequelize, actor, { action: 'revision.returned', entityType: 'Revision', entityId: revisionId, payload: { calcId: revision.calcId, revision: revision.label, from, reason } }, transaction);

@@ -12,6 +12,8 @@ import { editorIdsOf, loadRevision } from '../calcs/calc-access';
 import { currentHashOf, readRevision } from '../calcs/revision-read';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { signingBlocker, type Meaning } from './independence';
+import { SIGNATURES, roleFor } from '../../shared/workflow/signatures';
+import { SUPERSEDED_STATE } from '../../shared/workflow/revision-states';
 import { signedContentFor } from './signed-content';
 import { CONTENT_FORMAT } from '../calcs/revision-content';
 import { queueHandOverMail, type HandOverFacts } from './hand-over-mail';
@@ -19,9 +21,6 @@ import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
 
 export interface Signer extends Actor { id: number; roles: readonly Role[] }
-
-const NEXT_STATE: Record<Meaning, Revision['status']> = { authored: 'in_check', checked: 'checked', approved: 'approved' };
-const EVENT: Record<Meaning, HandOverFacts['event']> = { authored: 'submitted', checked: 'checked', approved: 'approved' };
 
 /**
  * Sign-off. Each signature is one transaction: lock the revision, re-check state, independence
@@ -63,7 +62,7 @@ export class WorkflowService {
         action: `revision.signed_${dto.meaning}`, entityType: 'Revision', entityId: revisionId,
         payload: { calcId: revision.calcId, revision: revision.label, meaning: dto.meaning, contentHash: signed.hash, attachments: signed.attachments, state: revision.status },
       }, transaction);
-      await this.mail(EVENT[dto.meaning], revision, signer, transaction);
+      await this.mail(SIGNATURES[dto.meaning].event, revision, signer, transaction);
     }, { idempotent: true }); // a second run finds its own signature by the idempotency key
     return readRevision(ability, revisionId);
   }
@@ -98,20 +97,21 @@ export class WorkflowService {
     if (blocker) throw new AppError('forbidden', 403, blocker);
   }
 
+  /** The state change and stamps a signature makes, as the workflow table gives them. */
   private async advance(revision: Revision, meaning: Meaning, signer: Signer, at: Date, transaction: Transaction): Promise<void> {
-    revision.status = NEXT_STATE[meaning];
-    if (meaning === 'authored') revision.submittedAt = at;
-    if (meaning === 'checked') Object.assign(revision, { checkerId: signer.id, checkedAt: at });
-    if (meaning === 'approved') Object.assign(revision, { approverId: signer.id, approvedAt: at });
+    const { to, stamp, supersedesOlder } = SIGNATURES[meaning];
+    revision.status = to;
+    revision[stamp.at] = at;
+    if (stamp.by) revision[stamp.by] = signer.id;
     await revision.save({ transaction });
-    if (meaning === 'approved') await this.supersedeOlder(revision, signer, transaction);
+    if (supersedesOlder) await this.supersedeOlder(revision, signer, transaction);
   }
 
   /** Approving a revision supersedes every earlier approved revision of the same calc. */
   private async supersedeOlder(revision: Revision, signer: Signer, transaction: Transaction): Promise<void> {
-    const older = await Revision.findAll({ where: { calcId: revision.calcId, status: 'approved', id: { [Op.ne]: revision.id } }, transaction, lock: transaction.LOCK.UPDATE });
+    const older = await Revision.findAll({ where: { calcId: revision.calcId, status: revision.status, id: { [Op.ne]: revision.id } }, transaction, lock: transaction.LOCK.UPDATE });
     for (const r of older) {
-      r.status = 'superseded';
+      r.status = SUPERSEDED_STATE;
       await r.save({ transaction });
       await appendAudit(this.sequelize, signer, { action: 'revision.superseded', entityType: 'Revision', entityId: r.id, payload: { calcId: r.calcId, revision: r.label, supersededBy: revision.label } }, transaction);
     }
@@ -135,8 +135,4 @@ function errorRowsOf(checklist: string | null): number {
   } catch {
     return 1;
   }
-}
-
-function roleFor(meaning: Meaning): Role {
-  return meaning === 'authored' ? 'author' : meaning === 'checked' ? 'checker' : 'approver';
 }

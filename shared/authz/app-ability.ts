@@ -4,6 +4,7 @@ import {
   and, eq, ne, within, nin, lt, lte, gt, gte,
 } from '@ucast/mongo2js';
 import type { Role } from './roles';
+import { defineWorkflowRules } from '../workflow/workflow-abilities';
 
 export const ACTIONS = [
   'read', 'create', 'update', 'deactivate', 'assignRoles', 'changePassword',
@@ -46,19 +47,12 @@ const RULES_BY_ROLE: Record<Role, (user: AbilityUser, b: Builder) => void> = {
   author(user, { can }) {
     can('read', ['Calc', 'Revision', 'RuleSet']);
     can('create', 'Calc');
-    can(['update', 'submit'], 'Revision', { authorId: user.id, status: { $in: ['draft', 'returned'] } });
-    can('sign', 'Revision', { authorId: user.id, status: { $in: ['draft', 'returned'] } });
   },
   checker(user, { can }) {
     can('read', ['Calc', 'Revision', 'RuleSet']);
-    // Independence: never your own work. Editors of earlier revisions are excluded by the workflow service.
-    can(['check', 'return', 'sign'], 'Revision', { status: 'in_check', authorId: { $ne: user.id } });
   },
   approver(user, { can }) {
     can('read', ['Calc', 'Revision', 'RuleSet']);
-    can(['approve', 'return', 'sign'], 'Revision', {
-      status: 'checked', authorId: { $ne: user.id }, checkerId: { $ne: user.id },
-    });
   },
   compliance(user, { can }) {
     can('read', ['Project', 'Calc', 'Revision', 'RuleSet', 'AuditEvent']);
@@ -99,6 +93,8 @@ export function defineRulesFor(user: AbilityUser | null | undefined): AppRawRule
     const define = RULES_BY_ROLE[role];
     if (!define) throw new Error(`Unknown role "${String(role)}"`);
     define(user, builder);
+    // What a role may do to a revision comes from the workflow table (shared/workflow/revision-states.ts).
+    defineWorkflowRules(role, user, builder.can);
   }
   return builder.rules;
 }

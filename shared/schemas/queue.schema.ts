@@ -1,15 +1,12 @@
 import type { KeysetPage } from './common.schema';
 import type { RevisionState } from './revision.schema';
+import { QUEUES } from '../workflow/revision-states';
 
-export const QUEUE_KEYS = ['my-drafts', 'returned-to-me', 'awaiting-my-check', 'awaiting-my-approval'] as const;
-export type QueueKey = (typeof QUEUE_KEYS)[number];
+// Which queues exist, their order, labels and states come from the workflow table.
+export const QUEUE_KEYS = QUEUES.map((q) => q.key) as unknown as readonly [QueueKey, ...QueueKey[]];
+export type QueueKey = (typeof QUEUES)[number]['key'];
 
-export const QUEUE_LABELS: Record<QueueKey, string> = {
-  'my-drafts': 'My drafts',
-  'returned-to-me': 'Returned to me',
-  'awaiting-my-check': 'Waiting for my check',
-  'awaiting-my-approval': 'Waiting for my approval',
-};
+export const QUEUE_LABELS = Object.fromEntries(QUEUES.map((q) => [q.key, q.label])) as Record<QueueKey, string>;
 
 export interface QueueItem {
   calcId: number; revisionId: number; projectCode: string; number: string; title: string;

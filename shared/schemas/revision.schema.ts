@@ -1,16 +1,10 @@
 import { z } from 'zod';
 import { cursorSchema, decimalId, jsonDocumentSchema } from './common.schema';
+import { MEANINGS, REVISION_STATES } from '../workflow/revision-states';
 
-export const REVISION_STATES = ['draft', 'in_check', 'returned', 'checked', 'approved', 'superseded', 'withdrawn'] as const;
-export type RevisionState = (typeof REVISION_STATES)[number];
-
-export const STATE_LABELS: Record<RevisionState, string> = {
-  draft: 'Draft', in_check: 'In check', returned: 'Returned', checked: 'Checked',
-  approved: 'Approved', superseded: 'Superseded', withdrawn: 'Withdrawn',
-};
-
-/** States in which the author may still change the content. */
-export const EDITABLE_STATES: readonly RevisionState[] = ['draft', 'returned'];
+// The states, their labels and which are editable are defined by the workflow table.
+export { REVISION_STATES, type RevisionState } from '../workflow/revision-states';
+export { EDITABLE_STATES, STATE_LABELS } from '../workflow/state-sets';
 
 const calcNumber = z.string({ error: 'is required' }).trim().min(2, 'must be at least 2 characters').max(40, 'is at most 40 characters')
   .regex(/^[A-Za-z0-9][A-Za-z0-9./-]*$/, 'may use letters, digits, dot, slash and dash');
@@ -37,7 +31,7 @@ export type SaveRevisionRequest = z.infer<typeof saveRevisionSchema>;
 
 export const signSchema = z.object({
   password: z.string({ error: 'is required' }).min(1, 'is required').max(256),
-  meaning: z.enum(['authored', 'checked', 'approved'], { error: 'must be authored, checked or approved' }),
+  meaning: z.enum(MEANINGS, { error: 'must be authored, checked or approved' }),
   idempotencyKey: z.string({ error: 'is required' }).regex(/^[A-Za-z0-9-]{16,64}$/, 'must be 16–64 letters, digits or dashes'),
   lockVersion: z.number({ error: 'is required' }).int().min(0),
   oneTimeCode: z.string().trim().regex(/^\d{6}$/, 'must be the 6 digits your authenticator app shows').optional(),

@@ -13,6 +13,7 @@ import { toHttpFailure } from '../../../core/errors/http-failure';
 import { formatBytes } from '../../../../../shared/format';
 import { EmptyState } from '../../../ui/empty-state';
 import { AttachmentsApi } from './attachments-api';
+import { EDITABLE_STATES } from '../../../../../shared/schemas/revision.schema';
 
 /** Drawings, certificates and supporting files of the selected revision, and the form to add one. */
 @Component({
@@ -36,7 +37,7 @@ export class AttachmentsPanel {
   private readonly fileInput = viewChild<ElementRef<HTMLInputElement>>('fileInput');
   protected readonly problem = signal<string | null>(null);
   protected readonly isUploading = signal(false);
-  protected readonly isEditable = computed(() => ['draft', 'returned'].includes(this.revision().status));
+  protected readonly isEditable = computed(() => EDITABLE_STATES.includes(this.revision().status));
   protected readonly maxMb = computed(() => (this.list.hasValue() ? this.list.value().maxBytes / 1024 / 1024 : null));
   /** Kinds the standard's manual items ask for that the revision does not have yet. */
   protected readonly missing = computed(() => {

@@ -25,7 +25,7 @@ import { AttachmentsPanel } from './attachments-panel';
 import { RecordExports } from './record-exports';
 import { ManualItems } from './manual-items';
 import { countFindings, findingsTabLabel } from './finding-counts';
-import { failingRowText, signingReadiness } from './signing-readiness';
+import { failingMandatoryRows, failingRowText } from './signing-readiness';
 import { formatEng } from '../../../../../shared/format';
 import { planActions, type RevisionAction } from './revision-actions';
 import { SignDialog, type SignDialogData } from './sign-dialog';
@@ -68,7 +68,7 @@ export default class CalcPage {
     const e = this.calc.error() ?? this.revision.error();
     return e ? toHttpFailure(e).message : null;
   });
-  protected readonly failingMandatory = computed(() => (this.current() ? signingReadiness(this.current()!, 'authored').failingMandatory : []));
+  protected readonly failingMandatory = computed(() => (this.current() ? failingMandatoryRows(this.current()!) : []));
   protected readonly failingRowText = failingRowText;
   protected readonly eng = formatEng;
   protected readonly findingsLabel = computed(() => findingsTabLabel(countFindings(this.current() ?? { findings: [] })));

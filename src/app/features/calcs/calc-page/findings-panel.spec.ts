@@ -63,7 +63,7 @@ describe('findings', () => {
   it('when one finding is answered and one open, then the tab and the status line give the same counts, and they move with answers', () => {
     const me = { id: 1, username: 'mh', displayName: 'Morwenna Hale', roles: ['author'] } as unknown as SessionUser;
     expect(findingsTabLabel(countFindings(REVISION))).toBe('Findings (1 open, 1 answered)');
-    expect(planActions(REVISION, me, true).nextStep).toBe('Answer the 1 open finding, then resubmit for check.');
+    expect(planActions(REVISION, me, true).nextStep).toBe('Answer the 1 open finding(s) before resubmitting.');
     const after = { ...REVISION, findings: [REVISION.findings[0], finding(4, 'answered', 'done')] };
     expect(findingsTabLabel(countFindings(after))).toBe('Findings (2 answered)');
     expect(planActions(after, me, true).actions.has('submit')).toBe(true);

@@ -1,8 +1,13 @@
+import { createAppAbility, defineRulesFor } from '../../../../../shared/authz/app-ability';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import type { SessionUser } from '../../../../../shared/schemas/auth.schema';
-import { countFindings } from './finding-counts';
+import { RELATION } from '../../../../../shared/workflow/relations';
+import { WORKFLOW, type Meaning, type Turn } from '../../../../../shared/workflow/revision-states';
+import { signingBlockers } from '../../../../../shared/workflow/signing-blockers';
+import { partiesOfRevision, signingContextOf } from '../../../../../shared/workflow/revision-facts';
 
-export type RevisionAction = 'edit' | 'submit' | 'withdraw' | 'raise-finding' | 'return' | 'sign-checked' | 'approve' | 'new-revision';
+export type RevisionAction =
+  'edit' | 'submit' | 'withdraw' | 'raise-finding' | 'return' | 'sign-checked' | 'approve' | 'new-revision';
 
 export interface ActionPlan {
   actions: Set<RevisionAction>;
@@ -10,58 +15,60 @@ export interface ActionPlan {
   nextStep: string;
 }
 
+/** The button that makes a signature of each meaning. */
+const SIGN_BUTTON: Record<Meaning, RevisionAction> = {
+  authored: 'submit',
+  checked: 'sign-checked',
+  approved: 'approve',
+};
+
+/** Screen words for a turn: what the revision waits for, and what the holder is told when nothing blocks them. */
+const WAITING: Record<Meaning, string> = {
+  authored: 'its author',
+  checked: 'an independent check',
+  approved: 'approval',
+};
+const READY: Record<Meaning, string> = {
+  authored: 'When the calc is ready, sign it as authored to submit it for independent check.',
+  checked: 'Waiting for an independent check.',
+  approved: 'Checked and ready for approval.',
+};
+const VERB: Record<Meaning, string> = { authored: 'submit', checked: 'check', approved: 'approve' };
+
 /**
- * Mirrors the server's workflow rules to decide which buttons to show. The server decides for
- * real on every call; this only keeps people from being offered what they will be refused.
+ * Which buttons to offer, read from the workflow table (shared/workflow): the state's turn says who
+ * acts and how they must stand to the revision, and the same signing blockers the server applies say
+ * whether the signature is offered. The server decides for real on every call.
  */
 export function planActions(r: RevisionDto, me: SessionUser | null, isLatest: boolean): ActionPlan {
   const actions = new Set<RevisionAction>();
   if (!me) return { actions, nextStep: '' };
-  const has = (role: string) => (me.roles as string[]).includes(role);
-  const isAuthor = me.id === r.author.id;
-  const isEditor = isAuthor || r.editorIds.includes(me.id);
-  const { open, answered } = countFindings(r);
-  const unresolved = open + answered;
-  switch (r.status) {
-    case 'draft':
-    case 'returned':
-      if (isAuthor && has('author')) {
-        actions.add('edit').add('withdraw');
-        if (r.result && open === 0) actions.add('submit');
-      }
-      return { actions, nextStep: authorStep(r, isAuthor, open) };
-    case 'in_check':
-      if (has('checker') && !isEditor) {
-        actions.add('raise-finding').add('return');
-        if (r.verdict === 'compliant') actions.add('sign-checked');
-      }
-      if (r.verdict !== 'compliant' && actions.has('return')) return { actions, nextStep: 'The calc fails a mandatory clause of its standard: return it to the author with findings.' };
-      return { actions, nextStep: has('checker') && isEditor ? 'Waiting for an independent checker. You edited this calc, so you cannot check it.' : 'Waiting for an independent check.' };
-    case 'checked':
-      if (has('approver') && !isEditor && r.checker?.id !== me.id) {
-        actions.add('raise-finding').add('return');
-        if (unresolved === 0 && r.verdict === 'compliant') actions.add('approve');
-      }
-      return { actions, nextStep: approverStep(r, me.id, isEditor, open, answered) };
-    default:
-      if (isLatest && has('author') && (r.status === 'approved' || r.status === 'withdrawn')) actions.add('new-revision');
-      return { actions, nextStep: r.status === 'approved' ? 'Released. Approved revisions are read-only; a change needs a new revision with a reason.' : `This revision is ${r.status}.` };
+  const state = WORKFLOW[r.status];
+  if (!state.turn) {
+    const mayStart = createAppAbility(defineRulesFor(me)).can('create', 'Calc');
+    if (isLatest && state.allowsNextRevision && mayStart) actions.add('new-revision');
+    return { actions, nextStep: state.screenNote ?? `This revision is ${state.label.toLowerCase()}.` };
   }
+  const turn = state.turn;
+  const refusal = turnRefusal(turn, r, me);
+  if (refusal !== null) return { actions, nextStep: refusal };
+  if (turn.may.includes('update')) actions.add('edit').add('withdraw');
+  if (turn.may.includes('return')) actions.add('raise-finding').add('return');
+  const hiding = signingBlockers(turn.signs, signingContextOf(r, me), 'content').find((b) => b.blocker.hidesAction);
+  if (!hiding) actions.add(SIGN_BUTTON[turn.signs]);
+  return { actions, nextStep: hiding ? `${hiding.message}.` : READY[turn.signs] };
 }
 
-function authorStep(r: RevisionDto, isAuthor: boolean, open: number): string {
-  if (!isAuthor) return `With its author, ${r.author.name}.`;
-  if (!r.result) return 'Fix the input errors shown, then submit for check.';
-  if (open > 0) return `Answer the ${open} open finding${open === 1 ? '' : 's'}, then resubmit for check.`;
-  return 'When the calc is ready, sign it as authored to submit it for independent check.';
-}
-
-function approverStep(r: RevisionDto, meId: number, isEditor: boolean, open: number, answered: number): string {
-  if (r.checker?.id === meId) return 'Waiting for approval by someone other than its checker.';
-  if (isEditor) return 'Waiting for approval. You edited this calc, so you cannot approve it.';
-  if (open + answered > 0) {
-    const waiting = [open ? `${open} open` : '', answered ? `${answered} answered` : ''].filter(Boolean).join(' and ');
-    return `Approval waits until the ${waiting} finding${open + answered === 1 ? ' is' : 's are'} closed.`;
+/** Why this person does not hold the revision's turn, in screen words; null when they do. */
+function turnRefusal(turn: Turn, r: RevisionDto, me: SessionUser): string | null {
+  const parties = partiesOfRevision(r);
+  const holdsRole = (me.roles as string[]).includes(turn.role);
+  if (holdsRole && RELATION[turn.relation].holds(me.id, parties)) return null;
+  const waiting =
+    turn.relation === 'own' ? `With its author, ${r.author.name}.` : `Waiting for ${WAITING[turn.signs]}.`;
+  if (!holdsRole || turn.relation === 'own') return waiting;
+  if (turn.relation === 'independent-of-checker' && me.id === parties.checkerId) {
+    return `Waiting for ${WAITING[turn.signs]} by someone other than its checker.`;
   }
-  return 'Checked and ready for approval.';
+  return `${waiting} You edited this calc, so you cannot ${VERB[turn.signs]} it.`;
 }

@@ -43,7 +43,7 @@ const loader = () => TestbedHarnessEnvironment.loader(fixture);
 describe('the signing dialog', () => {
   it('when a manual item is still open, then the blocker shows before any password is asked for, and Sign is off', async () => {
     await open({ revision: revision(), meaning: 'checked', calcLabel: 'CV-7 rev A' });
-    expect(text()).toContain('Tick the 1 open manual checklist item first.');
+    expect(text()).toContain('Tick the 1 open manual checklist item(s) first.');
     expect(await loader().getAllHarnesses(MatInputHarness.with({ selector: '[type="password"]' }))).toEqual([]);
     expect(await (await loader().getHarness(MatButtonHarness.with({ text: 'Sign' }))).isDisabled()).toBe(true);
   });

@@ -41,7 +41,7 @@ export class SignDialog {
   protected readonly secondFactor = httpResource<SecondFactorStatus>(() => '/api/auth/second-factor');
   protected readonly problem = signal<string | null>(null);
   protected readonly isSigning = signal(false);
-  protected readonly readiness = signingReadiness(this.data.revision, this.data.meaning);
+  protected readonly readiness = signingReadiness(this.data.revision, this.data.meaning, this.me());
   protected readonly failingRowText = failingRowText;
 
   protected async sign(): Promise<void> {

@@ -73,6 +73,7 @@ export default class RevisionEditor {
   protected readonly live = liveCalc(this.authorInput, this.store.ruleSet);
   protected readonly issueMap = computed(() => toIssueMap(this.live.issues()));
   protected readonly revision = this.store.revision;
+  protected readonly isEditableState = computed(() => !!this.revision() && EDITABLE_STATES.includes(this.revision()!.status));
   protected readonly canEdit = computed(() => {
     const r = this.revision();
     return !!r && EDITABLE_STATES.includes(r.status)

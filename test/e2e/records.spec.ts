@@ -8,7 +8,6 @@ import { pdfBytes } from '../support/upload-harness';
 
 // The record pages in Chromium: attachments on the calc page, the verify page, the account's mail
 // choices and the admins' sent mail. Attachments go to an s3rver started here.
-jest.setTimeout(300_000);
 let s3: Awaited<ReturnType<typeof startTestS3>>;
 let session: Awaited<ReturnType<typeof startBrowserSession>>;
 beforeAll(async () => {

@@ -8,7 +8,6 @@ import { advanceTo, calcTeam } from '../support/calc-harness';
 // Every screen this work touched, at desk (1440), tablet (768) and phone (390) widths: screenshots to
 // look at, no sideways page scroll, the menu out of the way on a phone, and axe-core with no serious
 // or critical violation at 1440 and 390.
-jest.setTimeout(600_000);
 let session: Awaited<ReturnType<typeof startBrowserSession>>;
 beforeAll(async () => { session = await startBrowserSession(); });
 afterAll(async () => { await session?.close(); });

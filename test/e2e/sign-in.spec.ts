@@ -2,8 +2,6 @@ import type { Page } from 'playwright-core';
 import { startBrowserSession, accessibilityViolations } from '../support/browser';
 import { createTestUser, TEST_PASSWORD } from '../support/api-harness';
 
-jest.setTimeout(300_000);
-
 let session: Awaited<ReturnType<typeof startBrowserSession>>;
 beforeAll(async () => { session = await startBrowserSession(); });
 afterAll(async () => { await session?.close(); });

@@ -3,8 +3,6 @@ import { startBrowserSession, accessibilityViolations } from '../support/browser
 import { createTestProject, createTestUser, TEST_PASSWORD } from '../support/api-harness';
 import { demoDocument } from '../../server/db/demo/demo-files';
 
-jest.setTimeout(600_000);
-
 let session: Awaited<ReturnType<typeof startBrowserSession>>;
 beforeAll(async () => { session = await startBrowserSession(); });
 afterAll(async () => { await session?.close(); });

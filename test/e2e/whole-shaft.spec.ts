@@ -8,7 +8,6 @@ import { wholeShaftInput } from '../support/shaft-fixture';
 
 // The calc editor and calc page of a whole-shaft calc in Chromium, at desktop, tablet and phone
 // widths: bearings and forces entered, the outline with arrows, the new diagrams and tables.
-jest.setTimeout(300_000);
 let session: Awaited<ReturnType<typeof startBrowserSession>>;
 beforeAll(async () => { session = await startBrowserSession(); });
 afterAll(async () => { await session?.close(); });

@@ -15,7 +15,6 @@ beforeAll(async () => {
   ctx = startTestApp({ ...s3.config, ATTACHMENT_MAX_MB: 0.05 });
 });
 afterAll(async () => { await ctx.sequelize.close(); await s3.close(); });
-jest.setTimeout(30_000);
 
 describe('uploading and downloading', () => {
   it('when the author attaches a drawing, then it is stored under its hash and comes back byte for byte as a download', async () => {

@@ -6,8 +6,6 @@ import {
 
 const { app, sequelize, config } = startTestApp();
 afterAll(() => sequelize.close());
-// Each step signs in or signs with a password (Argon2) on a shared two-core machine: allow whole workflows.
-jest.setTimeout(60_000);
 
 const TRIGGERS = ['audit_events_no_update', 'audit_events_no_delete'];
 

@@ -16,7 +16,6 @@ beforeAll(async () => {
   ctx = startTestApp(s3.config);
 });
 afterAll(async () => { await ctx.sequelize.close(); await s3.close(); });
-jest.setTimeout(90_000);
 
 const sha256 = (b: Buffer | string) => createHash('sha256').update(b).digest('hex');
 

@@ -16,7 +16,6 @@ beforeAll(async () => {
   ctx = startTestApp(s3.config);
 });
 afterAll(async () => { await ctx.sequelize.close(); await s3.close(); });
-jest.setTimeout(120_000);
 
 describe('the longest names creation accepts', () => {
   it('when code, number, title and part reference are at their limits, then sign-off, mail, report and evidence pack all work', async () => {

@@ -14,7 +14,6 @@ beforeAll(async () => {
   ctx = startTestApp({ ...s3.config, ORG_NAME: 'Kestrel Fen Drives' });
 });
 afterAll(async () => { await ctx.sequelize.close(); await s3.close(); });
-jest.setTimeout(60_000);
 
 type Agent = { agent: { get: (u: string) => import('supertest').Test } };
 const getPdf = (session: Agent, id: number) =>

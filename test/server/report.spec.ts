@@ -14,7 +14,6 @@ beforeAll(async () => {
   ctx = startTestApp({ ...s3.config, ORG_NAME: 'Kestrel Fen Drives' });
 });
 afterAll(async () => { await ctx.sequelize.close(); await s3.close(); });
-jest.setTimeout(60_000);
 
 const getPdf = (session: { agent: { get: (u: string) => import('supertest').Test } }, id: number) =>
   session.agent.get(`/api/revisions/${id}/report.pdf`).buffer(true).parse((res, done) => {

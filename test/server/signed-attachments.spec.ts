@@ -16,7 +16,6 @@ beforeAll(async () => {
   ctx = startTestApp(s3.config);
 });
 afterAll(async () => { await ctx.sequelize.close(); await s3.close(); });
-jest.setTimeout(90_000);
 
 type Sig = { meaning: string; isValid: boolean; attachments: { name: string; kind: string }[] | null };
 const byMeaning = (sigs: Sig[]) => Object.fromEntries(sigs.map((s) => [s.meaning, s]));

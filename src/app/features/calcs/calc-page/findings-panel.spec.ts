@@ -10,8 +10,6 @@ import { FindingsPanel } from './findings-panel';
 import { countFindings, findingsTabLabel } from './finding-counts';
 import { planActions } from './revision-actions';
 
-jest.setTimeout(30_000);
-
 const person = { id: 2, name: 'Idris Penhallow' };
 function finding(id: number, status: FindingDto['status'], answer: string | null = null): FindingDto {
   return { id, clauseRef: null, text: `Point ${id}`, status, raisedBy: person, createdAt: '2026-12-01T10:00:00Z', answer,

@@ -6,8 +6,6 @@ import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { ManualItems } from './manual-items';
 
-jest.setTimeout(30_000);
-
 const MANUAL = [
   { id: 'material-certificate', text: 'Material certificate attached', requiresAttachment: 'material-certificate', done: false, by: null, note: null },
   { id: 'load-cases', text: 'Load cases match', requiresAttachment: null, done: false, by: null, note: null },

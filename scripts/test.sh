@@ -13,6 +13,8 @@ db_start "$dir" "$(free_port)"
 export DB_HOST=127.0.0.1 DB_PORT
 trap 'db_stop; rm -rf "$dir"' EXIT
 db_ensure_schema "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
+# The audit-tampering specs break the chain on purpose in a database of their own (test/support/tamper-db.ts).
+db_ensure_schema "${DB_NAME}_tamper" "$DB_USER" "$DB_PASSWORD"
 
 # Throw-away fake SMTP and S3 on free ports for anything that uses the configured ones. No server
 # process sends mail during tests: the mail specs drive the sender themselves.

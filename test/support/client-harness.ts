@@ -8,7 +8,9 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 /**
  * One component spec's set-up: the component on a TestBed with the real HttpClient talking to
  * HttpTestingController, its inputs set, and harness loaders. Specs read the DOM and harnesses and
- * answer requests by URL, so they hold whichever way a component's service fetches its data.
+ * answer requests by URL, so they hold whichever way a component's service fetches its data. A component
+ * that reads through a resource has its request open after mounting: answer it before using a harness
+ * (harnesses wait for stability, which an open resource request holds off).
  */
 export async function mountComponent<T>(type: Type<T>, options: { inputs?: Record<string, unknown>; providers?: Provider[] } = {}) {
   TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), ...(options.providers ?? [])] });
@@ -24,11 +26,14 @@ export async function mountComponent<T>(type: Type<T>, options: { inputs?: Recor
     element: fixture.nativeElement as HTMLElement,
     text: () => (fixture.nativeElement as HTMLElement).textContent?.replace(/\s+/g, ' ').trim() ?? '',
     alerts: () => [...(fixture.nativeElement as HTMLElement).querySelectorAll('[role="alert"]')].map((a) => a.textContent?.trim()),
-    /** Lets answered requests' promises run (one macrotask turn, no delay), then renders. */
+    /**
+     * Lets answered requests' promises run (one macrotask turn, no delay), then runs effects and renders.
+     * It does not wait for stability: a resource's open request holds that off until the spec answers it.
+     */
     async settle(): Promise<void> {
       await new Promise((resolve) => setTimeout(resolve));
+      TestBed.tick();
       fixture.detectChanges();
-      await fixture.whenStable();
     },
   };
   await mounted.settle();

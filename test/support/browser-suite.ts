@@ -41,7 +41,9 @@ export function browserSuite(options: { s3?: boolean } = {}) {
   }
 
   return {
-    get session() { return started(); },
+    get session() {
+      return started();
+    },
     // Set-up goes through the same server the browser uses (supertest accepts its URL).
     server: () => started().baseUrl as unknown as Express,
     signIn,

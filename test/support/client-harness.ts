@@ -12,8 +12,13 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
  * that reads through a resource has its request open after mounting: answer it before using a harness
  * (harnesses wait for stability, which an open resource request holds off).
  */
-export async function mountComponent<T>(type: Type<T>, options: { inputs?: Record<string, unknown>; providers?: Provider[] } = {}) {
-  TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), ...(options.providers ?? [])] });
+export async function mountComponent<T>(
+  type: Type<T>,
+  options: { inputs?: Record<string, unknown>; providers?: Provider[] } = {},
+) {
+  TestBed.configureTestingModule({
+    providers: [provideHttpClient(), provideHttpClientTesting(), ...(options.providers ?? [])],
+  });
   const fixture: ComponentFixture<T> = TestBed.createComponent(type);
   for (const [name, value] of Object.entries(options.inputs ?? {})) fixture.componentRef.setInput(name, value);
   const http = TestBed.inject(HttpTestingController);
@@ -25,7 +30,8 @@ export async function mountComponent<T>(type: Type<T>, options: { inputs?: Recor
     rootLoader: TestbedHarnessEnvironment.documentRootLoader(fixture),
     element: fixture.nativeElement as HTMLElement,
     text: () => (fixture.nativeElement as HTMLElement).textContent?.replace(/\s+/g, ' ').trim() ?? '',
-    alerts: () => [...(fixture.nativeElement as HTMLElement).querySelectorAll('[role="alert"]')].map((a) => a.textContent?.trim()),
+    alerts: () =>
+      [...(fixture.nativeElement as HTMLElement).querySelectorAll('[role="alert"]')].map((a) => a.textContent?.trim()),
     /**
      * Lets answered requests' promises run (one macrotask turn, no delay), then runs effects and renders.
      * It does not wait for stability: a resource's open request holds that off until the spec answers it.
@@ -43,11 +49,23 @@ export async function mountComponent<T>(type: Type<T>, options: { inputs?: Recor
 /** Providers for a dialog component opened outside MatDialog: its data, and a ref whose close() is recorded. */
 export function dialogProviders<D>(data: D) {
   const closed: unknown[] = [];
-  const ref = { close: (value?: unknown) => closed.push(value), disableClose: false } as unknown as MatDialogRef<unknown>;
-  return { closed, providers: [{ provide: MAT_DIALOG_DATA, useValue: data }, { provide: MatDialogRef, useValue: ref }] };
+  const ref = {
+    close: (value?: unknown) => closed.push(value),
+    disableClose: false,
+  } as unknown as MatDialogRef<unknown>;
+  return {
+    closed,
+    providers: [
+      { provide: MAT_DIALOG_DATA, useValue: data },
+      { provide: MatDialogRef, useValue: ref },
+    ],
+  };
 }
 
 /** The error body the server sends for a refused request, as HttpTestingController's flush takes it. */
 export function refusal(status: number, message: string, fieldErrors: Record<string, string[]> = {}) {
-  return [{ code: 'refused', message, fieldErrors }, { status, statusText: 'Refused' }] as const;
+  return [
+    { code: 'refused', message, fieldErrors },
+    { status, statusText: 'Refused' },
+  ] as const;
 }

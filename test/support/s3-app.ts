@@ -22,8 +22,14 @@ export function appWithTestS3(overrides: Partial<Config> = {}) {
     return ctx;
   };
   return {
-    get app() { return started().app; },
-    get sequelize() { return started().sequelize; },
-    get config() { return started().config; },
+    get app() {
+      return started().app;
+    },
+    get sequelize() {
+      return started().sequelize;
+    },
+    get config() {
+      return started().config;
+    },
   };
 }

@@ -17,8 +17,10 @@ export function tamperTestApp() {
     try {
       await createMigrator(ctx.sequelize).up();
     } catch (error) {
-      throw new Error(`cannot prepare database ${TAMPER_DB_NAME} (scripts/test.sh creates it: ` +
-        `db_ensure_schema ${TAMPER_DB_NAME} ${ctx.config.DB_USER} ...): ${(error as Error).message}`);
+      throw new Error(
+        `cannot prepare database ${TAMPER_DB_NAME} (scripts/test.sh creates it: ` +
+          `db_ensure_schema ${TAMPER_DB_NAME} ${ctx.config.DB_USER} ...): ${(error as Error).message}`,
+      );
     }
     // The shipped design standards are reference data every calc needs.
     await seedRuleSets(ctx.sequelize);

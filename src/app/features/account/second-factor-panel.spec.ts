@@ -17,7 +17,9 @@ describe('the one-time code panel', () => {
   it('when the person sets up a code, then Confirm waits for six digits and the confirmed status replaces the set-up', async () => {
     const d = await mount({ enrolled: false, required: false });
     await (await d.button('Set up')).click();
-    d.http.expectOne({ method: 'POST', url: `${STATUS_URL}/begin` }).flush({ secret: 'JBSWY3DPEHPK3PXP', qrDataUrl: 'data:image/png;base64,AA==' });
+    d.http
+      .expectOne({ method: 'POST', url: `${STATUS_URL}/begin` })
+      .flush({ secret: 'JBSWY3DPEHPK3PXP', qrDataUrl: 'data:image/png;base64,AA==' });
     await d.settle();
     expect(d.text()).toContain('JBSWY3DPEHPK3PXP');
     const code = await d.loader.getHarness(MatInputHarness.with({ selector: '[autocomplete="one-time-code"]' }));
@@ -38,11 +40,17 @@ describe('the one-time code panel', () => {
     const d = await mount({ enrolled: false, required: true });
     expect(d.text()).toContain('An administrator requires a one-time code');
     await (await d.button('Set up')).click();
-    d.http.expectOne(`${STATUS_URL}/begin`).flush({ secret: 'JBSWY3DPEHPK3PXP', qrDataUrl: 'data:image/png;base64,AA==' });
+    d.http
+      .expectOne(`${STATUS_URL}/begin`)
+      .flush({ secret: 'JBSWY3DPEHPK3PXP', qrDataUrl: 'data:image/png;base64,AA==' });
     await d.settle();
-    await (await d.loader.getHarness(MatInputHarness.with({ selector: '[autocomplete="one-time-code"]' }))).setValue('000000');
+    await (
+      await d.loader.getHarness(MatInputHarness.with({ selector: '[autocomplete="one-time-code"]' }))
+    ).setValue('000000');
     await (await d.button('Confirm')).click();
-    d.http.expectOne(`${STATUS_URL}/confirm`).flush(...refusal(400, 'Invalid input', { code: ['The code does not match; try the next one'] }));
+    d.http
+      .expectOne(`${STATUS_URL}/confirm`)
+      .flush(...refusal(400, 'Invalid input', { code: ['The code does not match; try the next one'] }));
     await d.settle();
 
     expect(d.alerts()).toEqual(['code: The code does not match; try the next one']);
@@ -59,7 +67,9 @@ describe('the one-time code panel', () => {
   it('when the person switches it off with the password, then the password is sent and the set-up is offered again', async () => {
     const d = await mount({ enrolled: true, required: false });
     expect(await (await d.button('Switch off')).isDisabled()).toBe(true);
-    await (await d.loader.getHarness(MatInputHarness.with({ selector: '[type="password"]' }))).setValue('correct horse battery staple');
+    await (
+      await d.loader.getHarness(MatInputHarness.with({ selector: '[type="password"]' }))
+    ).setValue('correct horse battery staple');
     await (await d.button('Switch off')).click();
     const req = d.http.expectOne({ method: 'POST', url: `${STATUS_URL}/disable` });
     expect(req.request.body).toEqual({ password: 'correct horse battery staple' });

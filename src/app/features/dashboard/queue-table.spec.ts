@@ -6,11 +6,29 @@ import { mountComponent } from '../../../../test/support/client-harness';
 import { QueueTable } from './queue-table';
 
 function item(n: number): QueueItem {
-  return { calcId: n, revisionId: 100 + n, projectCode: 'KFD-SP450', number: `CV-${n}`, title: `Shaft ${n}`, revision: 'A',
-    status: 'in_check', verdict: 'compliant', authorName: 'Morwenna Hale', since: new Date(Date.now() - n * 3_600_000 * 30).toISOString() } as QueueItem;
+  return {
+    calcId: n,
+    revisionId: 100 + n,
+    projectCode: 'KFD-SP450',
+    number: `CV-${n}`,
+    title: `Shaft ${n}`,
+    revision: 'A',
+    status: 'in_check',
+    verdict: 'compliant',
+    authorName: 'Morwenna Hale',
+    since: new Date(Date.now() - n * 3_600_000 * 30).toISOString(),
+  } as QueueItem;
 }
 function queue(items: QueueItem[], over: Partial<QueueDto> = {}): QueueDto {
-  return { key: 'to-check', label: 'Waiting for my check', items, next: null, total: items.length, totalIsAtLeast: false, ...over } as QueueDto;
+  return {
+    key: 'to-check',
+    label: 'Waiting for my check',
+    items,
+    next: null,
+    total: items.length,
+    totalIsAtLeast: false,
+    ...over,
+  } as QueueDto;
 }
 
 async function mount(q: QueueDto) {

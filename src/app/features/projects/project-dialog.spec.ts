@@ -6,15 +6,25 @@ import type { ProjectDto } from '../../../../shared/schemas/project.schema';
 import { dialogProviders, mountComponent, refusal } from '../../../../test/support/client-harness';
 import { ProjectDialog } from './project-dialog';
 
-const EXISTING = { id: 4, code: 'KFD-SP450', name: 'Spiral conveyor 450', client: 'Kestrel Fen Drives', description: '',
-  revisionScheme: 'letters', status: 'active', version: 6 } as unknown as ProjectDto;
+const EXISTING = {
+  id: 4,
+  code: 'KFD-SP450',
+  name: 'Spiral conveyor 450',
+  client: 'Kestrel Fen Drives',
+  description: '',
+  revisionScheme: 'letters',
+  status: 'active',
+  version: 6,
+} as unknown as ProjectDto;
 
 async function open(existing: ProjectDto | null) {
   const dialog = dialogProviders(existing);
   const d = await mountComponent(ProjectDialog, { providers: dialog.providers });
-  const input = (name: string) => d.loader.getHarness(MatInputHarness.with({ selector: `[formControlName="${name}"]` }));
+  const input = (name: string) =>
+    d.loader.getHarness(MatInputHarness.with({ selector: `[formControlName="${name}"]` }));
   const field = (label: RegExp) => d.loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }));
-  const submit = async () => (await d.loader.getHarness(MatButtonHarness.with({ text: existing ? 'Save changes' : 'Create project' }))).click();
+  const submit = async () =>
+    (await d.loader.getHarness(MatButtonHarness.with({ text: existing ? 'Save changes' : 'Create project' }))).click();
   return { ...d, closed: dialog.closed, input, field, submit };
 }
 
@@ -40,7 +50,13 @@ describe('the project dialog', () => {
     await d.submit();
 
     const req = d.http.expectOne({ method: 'POST', url: '/api/projects' });
-    expect(req.request.body).toEqual({ code: 'KFD-SP451', name: 'Spiral conveyor 451', client: '', description: '', revisionScheme: 'numbers' });
+    expect(req.request.body).toEqual({
+      code: 'KFD-SP451',
+      name: 'Spiral conveyor 451',
+      client: '',
+      description: '',
+      revisionScheme: 'numbers',
+    });
     req.flush({ ...EXISTING, id: 8, code: 'KFD-SP451' });
     await d.settle();
     expect(d.closed).toEqual([expect.objectContaining({ id: 8 })]);
@@ -55,14 +71,18 @@ describe('the project dialog', () => {
     await d.submit();
 
     const req = d.http.expectOne({ method: 'PATCH', url: '/api/projects/4' });
-    expect(req.request.body).toEqual(expect.objectContaining({ status: 'archived', version: 6, name: 'Spiral conveyor 450' }));
+    expect(req.request.body).toEqual(
+      expect.objectContaining({ status: 'archived', version: 6, name: 'Spiral conveyor 450' }),
+    );
     expect(req.request.body.code).toBeUndefined();
   });
 
   it('when the server says the stored project moved on, then its message shows and the dialog stays open', async () => {
     const d = await open(EXISTING);
     await d.submit();
-    d.http.expectOne({ method: 'PATCH', url: '/api/projects/4' }).flush(...refusal(409, 'Someone else changed this project; reopen it'));
+    d.http
+      .expectOne({ method: 'PATCH', url: '/api/projects/4' })
+      .flush(...refusal(409, 'Someone else changed this project; reopen it'));
     await d.settle();
 
     expect(d.alerts()).toEqual(['Someone else changed this project; reopen it']);

@@ -7,11 +7,35 @@ import { mountComponent, refusal } from '../../../../test/support/client-harness
 import VerifyPage from './verify-page';
 
 const HASH = 'ab'.repeat(32);
-const FOUND = { hash: HASH, found: true, message: 'This hash belongs to a stored revision, as stored now.', matches: [{
-  revisionId: 7, projectCode: 'KFD-SP450', calcNumber: 'CV-1', revision: 'B', calcTitle: 'Head shaft', state: 'approved', verdict: 'compliant',
-  ruleSet: 'KFD-ENG-014 v4', contentIntact: true, match: 'current',
-  signatures: [{ printedName: 'Morwenna Hale', meaning: 'authored', role: 'author', signedAt: '2026-12-01T10:00:00Z', isValid: true, coversThisHash: true }],
-}] };
+const FOUND = {
+  hash: HASH,
+  found: true,
+  message: 'This hash belongs to a stored revision, as stored now.',
+  matches: [
+    {
+      revisionId: 7,
+      projectCode: 'KFD-SP450',
+      calcNumber: 'CV-1',
+      revision: 'B',
+      calcTitle: 'Head shaft',
+      state: 'approved',
+      verdict: 'compliant',
+      ruleSet: 'KFD-ENG-014 v4',
+      contentIntact: true,
+      match: 'current',
+      signatures: [
+        {
+          printedName: 'Morwenna Hale',
+          meaning: 'authored',
+          role: 'author',
+          signedAt: '2026-12-01T10:00:00Z',
+          isValid: true,
+          coversThisHash: true,
+        },
+      ],
+    },
+  ],
+};
 
 async function mount(hash?: string) {
   const d = await mountComponent(VerifyPage, { inputs: { hash }, providers: [provideRouter([])] });
@@ -26,7 +50,9 @@ describe('the verify page', () => {
     await (await d.loader.getHarness(MatButtonHarness.with({ text: /Verify/ }))).click();
     await d.settle();
 
-    expect(await (await d.loader.getHarness(MatFormFieldHarness)).getTextErrors()).toEqual(['Enter the 64 hexadecimal characters printed as the record hash']);
+    expect(await (await d.loader.getHarness(MatFormFieldHarness)).getTextErrors()).toEqual([
+      'Enter the 64 hexadecimal characters printed as the record hash',
+    ]);
     expect(navigate).not.toHaveBeenCalled();
   });
 
@@ -47,7 +73,9 @@ describe('the verify page', () => {
     expect(d.text()).toContain('This hash belongs to a stored revision, as stored now.');
     expect(d.text()).toContain('KFD-SP450 / CV-1 rev B Head shaft');
     expect(d.text()).toContain('Content intact');
-    expect(d.text()).toContain('Morwenna Hale — authored (author), 2026-12-01 10:00 UTC: valid for the content now; made over this hash');
+    expect(d.text()).toContain(
+      'Morwenna Hale — authored (author), 2026-12-01 10:00 UTC: valid for the content now; made over this hash',
+    );
     d.http.verify();
   });
 

@@ -3,8 +3,12 @@ import { MatSelectHarness } from '@angular/material/select/testing';
 import { mountComponent, refusal } from '../../../../test/support/client-harness';
 import { TryItPanel } from './try-it-panel';
 
-const CALCS = { items: [{ id: 3, projectCode: 'KFD-SP450', number: 'CV-1', title: 'Head shaft', latest: { id: 71, label: 'B' } }],
-  next: null, total: 1, totalIsAtLeast: false };
+const CALCS = {
+  items: [{ id: 3, projectCode: 'KFD-SP450', number: 'CV-1', title: 'Head shaft', latest: { id: 71, label: 'B' } }],
+  next: null,
+  total: 1,
+  totalIsAtLeast: false,
+};
 
 async function mount() {
   const d = await mountComponent(TryItPanel, { inputs: { ruleSetId: 9 } });
@@ -39,7 +43,9 @@ describe('trying a design standard version on a calc', () => {
     const d = await mount();
     await d.choose();
     await (await d.evaluate()).click();
-    d.http.expectOne('/api/rule-sets/9/try').flush(...refusal(422, 'The revision has input errors and cannot be evaluated'));
+    d.http
+      .expectOne('/api/rule-sets/9/try')
+      .flush(...refusal(422, 'The revision has input errors and cannot be evaluated'));
     await d.settle();
 
     expect(d.alerts()).toEqual(['The revision has input errors and cannot be evaluated']);

@@ -6,14 +6,27 @@ import type { UserDto } from '../../../../../shared/schemas/user.schema';
 import { dialogProviders, mountComponent, refusal } from '../../../../../test/support/client-harness';
 import { UserDialog } from './user-dialog';
 
-const EXISTING = { id: 5, username: 'idris.p', displayName: 'Idris Penhallow', email: 'idris@kestrelfen.example', roles: ['checker'],
-  pendingRoles: ['approver'], active: true, secondFactorRequired: false, version: 3 } as unknown as UserDto;
+const EXISTING = {
+  id: 5,
+  username: 'idris.p',
+  displayName: 'Idris Penhallow',
+  email: 'idris@kestrelfen.example',
+  roles: ['checker'],
+  pendingRoles: ['approver'],
+  active: true,
+  secondFactorRequired: false,
+  version: 3,
+} as unknown as UserDto;
 
 async function open(existing: UserDto | null) {
   const dialog = dialogProviders(existing);
   const mounted = await mountComponent(UserDialog, { providers: dialog.providers });
-  const input = (label: string) => mounted.loader.getHarness(MatInputHarness.with({ selector: `[formControlName="${label}"]` }));
-  const submit = () => mounted.loader.getHarness(MatButtonHarness.with({ text: existing ? 'Save changes' : 'Create account' })).then((b) => b.click());
+  const input = (label: string) =>
+    mounted.loader.getHarness(MatInputHarness.with({ selector: `[formControlName="${label}"]` }));
+  const submit = () =>
+    mounted.loader
+      .getHarness(MatButtonHarness.with({ text: existing ? 'Save changes' : 'Create account' }))
+      .then((b) => b.click());
   return { ...mounted, closed: dialog.closed, input, submit };
 }
 
@@ -30,7 +43,9 @@ describe('the account dialog', () => {
     d.http.expectNone('/api/users');
     expect(d.alerts()).toEqual(['Give the person at least one role']);
     const username = await d.loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: /Username/ }));
-    expect(await username.getTextErrors()).toEqual(['At least 3 characters: lower-case letters, digits, dot, dash, underscore']);
+    expect(await username.getTextErrors()).toEqual([
+      'At least 3 characters: lower-case letters, digits, dot, dash, underscore',
+    ]);
     const password = await d.loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: /First password/ }));
     expect(await password.getTextErrors()).toEqual(['At least 12 characters']);
     expect(d.closed).toEqual([]);
@@ -47,8 +62,13 @@ describe('the account dialog', () => {
     await d.submit();
 
     const req = d.http.expectOne({ method: 'POST', url: '/api/users' });
-    expect(req.request.body).toEqual({ username: 'tamsin.r', displayName: 'Tamsin Rowe', email: 'tamsin@kestrelfen.example',
-      roles: ['author', 'approver'], initialPassword: 'a long first password' });
+    expect(req.request.body).toEqual({
+      username: 'tamsin.r',
+      displayName: 'Tamsin Rowe',
+      email: 'tamsin@kestrelfen.example',
+      roles: ['author', 'approver'],
+      initialPassword: 'a long first password',
+    });
     req.flush({ ...EXISTING, id: 9, username: 'tamsin.r' });
     await d.settle();
     expect(d.closed).toEqual([expect.objectContaining({ id: 9, username: 'tamsin.r' })]);
@@ -63,14 +83,21 @@ describe('the account dialog', () => {
     await d.submit();
 
     const req = d.http.expectOne({ method: 'PATCH', url: '/api/users/5' });
-    expect(req.request.body).toEqual({ displayName: 'Idris Penhallow', email: 'idris@kestrelfen.example', roles: ['checker', 'approver'],
-      secondFactorRequired: true, version: 3 });
+    expect(req.request.body).toEqual({
+      displayName: 'Idris Penhallow',
+      email: 'idris@kestrelfen.example',
+      roles: ['checker', 'approver'],
+      secondFactorRequired: true,
+      version: 3,
+    });
   });
 
   it('when the server refuses a field, then its reason shows under that field and the dialog stays open', async () => {
     const d = await open(EXISTING);
     await d.submit();
-    d.http.expectOne({ method: 'PATCH', url: '/api/users/5' }).flush(...refusal(400, 'Invalid input', { email: ['This e-mail address is already used'] }));
+    d.http
+      .expectOne({ method: 'PATCH', url: '/api/users/5' })
+      .flush(...refusal(400, 'Invalid input', { email: ['This e-mail address is already used'] }));
     await d.settle();
 
     const email = await d.loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: /E-mail/ }));

@@ -5,14 +5,28 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { dialogProviders, mountComponent } from '../../../../../test/support/client-harness';
 import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
 
-const RETURN: ReasonDialogData = { title: 'Return for rework', label: 'Reason', hint: 'Goes on record', action: 'Return' };
-const NEW_REVISION: ReasonDialogData = { title: 'New revision', label: 'Reason for change', hint: 'Goes on record', action: 'Start revision',
-  choice: { label: 'Carry the attachments over', hint: 'They stay linked to the earlier revision too' } };
+const RETURN: ReasonDialogData = {
+  title: 'Return for rework',
+  label: 'Reason',
+  hint: 'Goes on record',
+  action: 'Return',
+};
+const NEW_REVISION: ReasonDialogData = {
+  title: 'New revision',
+  label: 'Reason for change',
+  hint: 'Goes on record',
+  action: 'Start revision',
+  choice: { label: 'Carry the attachments over', hint: 'They stay linked to the earlier revision too' },
+};
 
 async function open(data: ReasonDialogData) {
   const dialog = dialogProviders(data);
   const d = await mountComponent(ReasonDialog, { providers: dialog.providers });
-  return { ...d, closed: dialog.closed, submit: async () => (await d.loader.getHarness(MatButtonHarness.with({ text: data.action }))).click() };
+  return {
+    ...d,
+    closed: dialog.closed,
+    submit: async () => (await d.loader.getHarness(MatButtonHarness.with({ text: data.action }))).click(),
+  };
 }
 
 describe('the reason dialog', () => {
@@ -23,7 +37,9 @@ describe('the reason dialog', () => {
     await d.settle();
 
     expect(d.closed).toEqual([]);
-    expect(await (await d.loader.getHarness(MatFormFieldHarness)).getTextErrors()).toEqual(['Say why, in at least 5 characters']);
+    expect(await (await d.loader.getHarness(MatFormFieldHarness)).getTextErrors()).toEqual([
+      'Say why, in at least 5 characters',
+    ]);
   });
 
   it('when a reason is given, then the dialog closes with it trimmed and no choice', async () => {

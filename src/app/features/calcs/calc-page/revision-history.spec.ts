@@ -3,7 +3,11 @@ import { MatSelectHarness } from '@angular/material/select/testing';
 import { mountComponent, refusal } from '../../../../../test/support/client-harness';
 import { RevisionHistory } from './revision-history';
 
-const REVISIONS = [{ id: 11, label: 'A' }, { id: 12, label: 'B' }, { id: 13, label: 'C' }];
+const REVISIONS = [
+  { id: 11, label: 'A' },
+  { id: 12, label: 'B' },
+  { id: 13, label: 'C' },
+];
 
 async function mount() {
   const d = await mountComponent(RevisionHistory, { inputs: { calcId: 3, revisions: REVISIONS, selectedId: 13 } });

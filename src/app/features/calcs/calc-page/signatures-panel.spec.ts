@@ -3,15 +3,33 @@ import { mountComponent } from '../../../../../test/support/client-harness';
 import { SignaturesPanel } from './signatures-panel';
 
 const HASH = 'ab'.repeat(32);
-function signature(id: number, meaning: string, isValid: boolean, attachments: { name: string; kind: string; sha256: string }[] | null) {
-  return { id, meaning, role: meaning === 'authored' ? 'author' : 'checker', printedName: `Person ${id}`, signedAt: '2026-12-01T10:00:00Z',
-    contentHash: HASH, isValid, attachments };
+function signature(
+  id: number,
+  meaning: string,
+  isValid: boolean,
+  attachments: { name: string; kind: string; sha256: string }[] | null,
+) {
+  return {
+    id,
+    meaning,
+    role: meaning === 'authored' ? 'author' : 'checker',
+    printedName: `Person ${id}`,
+    signedAt: '2026-12-01T10:00:00Z',
+    contentHash: HASH,
+    isValid,
+    attachments,
+  };
 }
 
 async function mount(signatures: ReturnType<typeof signature>[], contentHash: string | null = HASH) {
-  const d = await mountComponent(SignaturesPanel, { inputs: { revision: { id: 7, contentHash, signatures } as unknown as RevisionDto } });
-  const items = () => [...d.element.querySelectorAll('ul.sigs > li')].map((li) => ({
-    isInvalid: li.classList.contains('invalid'), text: li.textContent?.replace(/\s+/g, ' ').trim() ?? '' }));
+  const d = await mountComponent(SignaturesPanel, {
+    inputs: { revision: { id: 7, contentHash, signatures } as unknown as RevisionDto },
+  });
+  const items = () =>
+    [...d.element.querySelectorAll('ul.sigs > li')].map((li) => ({
+      isInvalid: li.classList.contains('invalid'),
+      text: li.textContent?.replace(/\s+/g, ' ').trim() ?? '',
+    }));
   return { ...d, items };
 }
 

@@ -7,20 +7,36 @@ import { MaterialPanel } from './material-panel';
 const text = (v = '') => new FormControl(v, { nonNullable: true });
 
 function emptyGroup(): FormGroup<MaterialForm> {
-  return new FormGroup({ libraryId: text(), name: text(), kind: new FormControl('steel', { nonNullable: true }), E: text(), G: text(), nu: text(),
-    Sy: text(), Su: text(), source: text(), density: text() } as unknown as MaterialForm);
+  return new FormGroup({
+    libraryId: text(),
+    name: text(),
+    kind: new FormControl('steel', { nonNullable: true }),
+    E: text(),
+    G: text(),
+    nu: text(),
+    Sy: text(),
+    Su: text(),
+    source: text(),
+    density: text(),
+  } as unknown as MaterialForm);
 }
 
 async function mount() {
   const group = emptyGroup();
-  const d = await mountComponent(MaterialPanel, { inputs: { group, value: group.getRawValue(), units: 'SI', issues: { 'material.Sy': 'Sy must be positive' } } });
+  const d = await mountComponent(MaterialPanel, {
+    inputs: { group, value: group.getRawValue(), units: 'SI', issues: { 'material.Sy': 'Sy must be positive' } },
+  });
   /** The editor passes the form's value back in on every change; the spec does the same. */
   const follow = async () => {
     d.fixture.componentRef.setInput('value', group.getRawValue());
     await d.settle();
   };
-  const provenance = () => [...d.element.querySelectorAll('table.provenance tr')].map((tr) => ({
-    label: tr.querySelector('th')?.textContent?.trim(), origin: tr.querySelector('td')?.textContent?.trim(), changed: tr.classList.contains('changed') }));
+  const provenance = () =>
+    [...d.element.querySelectorAll('table.provenance tr')].map((tr) => ({
+      label: tr.querySelector('th')?.textContent?.trim(),
+      origin: tr.querySelector('td')?.textContent?.trim(),
+      changed: tr.classList.contains('changed'),
+    }));
   return { ...d, group, follow, provenance };
 }
 
@@ -32,7 +48,9 @@ describe('the material panel', () => {
     await library.clickOptions({ text: 'AISI 1045 CD' });
     await d.follow();
 
-    expect(d.group.getRawValue()).toEqual(expect.objectContaining({ libraryId: 'aisi-1045-cd', name: 'AISI 1045 CD', Sy: '530', Su: '630', kind: 'steel' }));
+    expect(d.group.getRawValue()).toEqual(
+      expect.objectContaining({ libraryId: 'aisi-1045-cd', name: 'AISI 1045 CD', Sy: '530', Su: '630', kind: 'steel' }),
+    );
     expect(d.group.controls.source.value).not.toBe('');
     expect(d.provenance().every((p) => !p.changed)).toBe(true);
   });

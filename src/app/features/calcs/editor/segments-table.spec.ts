@@ -21,14 +21,16 @@ async function mount(issues: Record<string, string> = {}, canEdit = true) {
 }
 
 describe('the segments table', () => {
-  it('when a segment is added, then it starts with the last segment\'s diameters and an empty length', async () => {
+  it("when a segment is added, then it starts with the last segment's diameters and an empty length", async () => {
     const d = await mount();
     await (await d.loader.getHarness(MatButtonHarness.with({ text: /Add segment/ }))).click();
     await d.settle();
 
     expect(d.array.length).toBe(3);
     expect(d.array.at(2).getRawValue()).toEqual(expect.objectContaining({ od: '50', id: '12', length: '' }));
-    const inputs = await d.loader.getAllHarnesses(MatInputHarness.with({ selector: '[aria-label="Segment 3 outer diameter in mm"]' }));
+    const inputs = await d.loader.getAllHarnesses(
+      MatInputHarness.with({ selector: '[aria-label="Segment 3 outer diameter in mm"]' }),
+    );
     expect(await inputs[0].getValue()).toBe('50');
   });
 
@@ -45,9 +47,17 @@ describe('the segments table', () => {
   });
 
   it('when the live calc reports issues, then each shows under its row with the field named', async () => {
-    const d = await mount({ 'segments[1].id': 'inner diameter 12 mm must be smaller than outer diameter', 'segments[0]': 'too short' });
-    const issueRows = [...d.element.querySelectorAll('tr.row-issue')].map((r) => r.textContent?.replace(/\s+/g, ' ').trim());
-    expect(issueRows).toEqual(['Segment: too short', 'Inner ⌀: inner diameter 12 mm must be smaller than outer diameter']);
+    const d = await mount({
+      'segments[1].id': 'inner diameter 12 mm must be smaller than outer diameter',
+      'segments[0]': 'too short',
+    });
+    const issueRows = [...d.element.querySelectorAll('tr.row-issue')].map((r) =>
+      r.textContent?.replace(/\s+/g, ' ').trim(),
+    );
+    expect(issueRows).toEqual([
+      'Segment: too short',
+      'Inner ⌀: inner diameter 12 mm must be smaller than outer diameter',
+    ]);
   });
 
   it('when the revision is read-only, then there is nothing to add, move or remove', async () => {

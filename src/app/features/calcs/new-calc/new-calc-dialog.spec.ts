@@ -18,7 +18,8 @@ async function open() {
   const d = await mountComponent(NewCalcDialog, { providers: dialog.providers });
   d.http.expectOne({ method: 'GET', url: '/api/rule-sets' }).flush(RULE_SETS);
   await d.settle();
-  const input = (name: string) => d.loader.getHarness(MatInputHarness.with({ selector: `[formControlName="${name}"]` }));
+  const input = (name: string) =>
+    d.loader.getHarness(MatInputHarness.with({ selector: `[formControlName="${name}"]` }));
   const create = async () => (await d.loader.getHarness(MatButtonHarness.with({ text: 'Create and open' }))).click();
   /** A number and title, and the standard in effect chosen. */
   const fillIn = async (number: string, title: string) => {
@@ -59,18 +60,22 @@ describe('the new calc dialog', () => {
     await d.create();
 
     const req = d.http.expectOne({ method: 'POST', url: '/api/calcs' });
-    expect(req.request.body).toEqual(expect.objectContaining({ number: 'CV-SH-002', title: 'Tail shaft', ruleSetId: 5, projectId: 4 }));
+    expect(req.request.body).toEqual(
+      expect.objectContaining({ number: 'CV-SH-002', title: 'Tail shaft', ruleSetId: 5, projectId: 4 }),
+    );
     expect(JSON.stringify(req.request.body.input)).toMatch(/"US"/);
     req.flush({ id: 31, latest: { id: 77 } });
     await d.settle();
     expect(d.closed).toEqual([{ calcId: 31, revisionId: 77 }]);
   });
 
-  it('when the number is taken in the project, then the server\'s reason shows under the number', async () => {
+  it("when the number is taken in the project, then the server's reason shows under the number", async () => {
     const d = await open();
     await d.fillIn('CV-SH-001', 'Head shaft');
     await d.create();
-    d.http.expectOne('/api/calcs').flush(...refusal(409, 'Conflict', { number: ['CV-SH-001 is already used in KFD-SP450'] }));
+    d.http
+      .expectOne('/api/calcs')
+      .flush(...refusal(409, 'Conflict', { number: ['CV-SH-001 is already used in KFD-SP450'] }));
     await d.settle();
 
     const field = await d.loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: /Calc number/ }));

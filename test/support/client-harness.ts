@@ -30,8 +30,11 @@ export async function mountComponent<T>(
     rootLoader: TestbedHarnessEnvironment.documentRootLoader(fixture),
     element: fixture.nativeElement as HTMLElement,
     text: () => (fixture.nativeElement as HTMLElement).textContent?.replace(/\s+/g, ' ').trim() ?? '',
+    // Array.from, not spread: the server's tsconfig (which also checks test/) has no iterable DOM lib.
     alerts: () =>
-      [...(fixture.nativeElement as HTMLElement).querySelectorAll('[role="alert"]')].map((a) => a.textContent?.trim()),
+      Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('[role="alert"]')).map((a) =>
+        a.textContent?.trim(),
+      ),
     /**
      * Lets answered requests' promises run (one macrotask turn, no delay), then runs effects and renders.
      * It does not wait for stability: a resource's open request holds that off until the spec answers it.

@@ -1,7 +1,8 @@
 // One runner for the whole repository (see DEVELOPERS.md): each project below is one layer.
-// The time limit fits the real work of the slowest layers on a 2-core machine that is busy with other
-// jobs (Argon2id hashes and MariaDB round trips in api, a browser in e2e); tests never assert speed.
-// jest-circus reads testTimeout from the global config only, so it is set here, once.
+// Time limits are hang detectors, never speed checks: the global one below covers unit and client specs;
+// api and e2e run whole workflows and get a longer one from test/support/long-test-timeout.ts (jest-circus
+// reads testTimeout from the global config only, so a per-project limit goes in a setup file).
+// No spec sets its own limit.
 const tsJest = ['ts-jest', { tsconfig: '<rootDir>/tsconfig.spec.json' }];
 
 /** @type {import('jest').Config} */
@@ -20,6 +21,7 @@ module.exports = {
       testMatch: ['<rootDir>/test/server/**/*.spec.ts'],
       transform: { '^.+\\.ts$': tsJest },
       globalSetup: '<rootDir>/test/support/api-global-setup.ts',
+      setupFilesAfterEnv: ['<rootDir>/test/support/long-test-timeout.ts'],
     },
     {
       displayName: 'client',
@@ -40,6 +42,7 @@ module.exports = {
       testMatch: ['<rootDir>/test/e2e/**/*.spec.ts'],
       transform: { '^.+\\.ts$': tsJest },
       globalSetup: '<rootDir>/test/support/api-global-setup.ts',
+      setupFilesAfterEnv: ['<rootDir>/test/support/long-test-timeout.ts'],
     },
   ],
 };

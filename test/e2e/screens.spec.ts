@@ -1,29 +1,15 @@
-import type { Express } from 'express';
 import type { Page } from 'playwright-core';
 import path from 'node:path';
-import { startBrowserSession, accessibilityViolations, SCREENSHOT_DIR } from '../support/browser';
-import { TEST_PASSWORD, createTestUser } from '../support/api-harness';
+import { accessibilityViolations, SCREENSHOT_DIR } from '../support/browser';
+import { browserSuite } from '../support/browser-suite';
+import { createTestUser } from '../support/api-harness';
 import { advanceTo, calcTeam } from '../support/calc-harness';
 
 // Every screen this work touched, at desk (1440), tablet (768) and phone (390) widths: screenshots to
 // look at, no sideways page scroll, the menu out of the way on a phone, and axe-core with no serious
 // or critical violation at 1440 and 390.
-jest.setTimeout(600_000);
-let session: Awaited<ReturnType<typeof startBrowserSession>>;
-beforeAll(async () => { session = await startBrowserSession(); });
-afterAll(async () => { await session?.close(); });
-
-const server = () => session.baseUrl as unknown as Express;
+const suite = browserSuite();
 const WIDTHS = [1440, 768, 390] as const;
-
-async function signIn(page: Page, username: string) {
-  await session.context.clearCookies();
-  await page.goto('/sign-in');
-  await page.getByLabel('Username').fill(username);
-  await page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: /Good to see you/ }).waitFor();
-}
 
 /** Measures what a person would notice first: the page scrolling sideways, the menu eating the width. */
 async function layoutOf(page: Page) {
@@ -51,7 +37,7 @@ async function visit(page: Page, name: string, ready: () => Promise<unknown>) {
     if (layout.sideways > 1) problems.push(`${name}@${width}: page scrolls sideways by ${layout.sideways}px (${layout.widest})`);
     if (width === 390 && (layout.navShare > 0 || layout.orgShown)) problems.push(`${name}@390: menu takes ${layout.navShare}% / organisation shown`);
     if (width === 768 && layout.navShare > 15) problems.push(`${name}@768: menu takes ${layout.navShare}%`);
-    await session.screenshot(page, `screens-${name}-${width}`);
+    await suite.session.screenshot(page, `screens-${name}-${width}`);
     // What a person sees first, without scrolling.
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, `screens-${name}-${width}-top.png`) });
     if (width !== 768) problems.push(...(await accessibilityViolations(page)).map((v) => `${name}@${width}: ${v}`));
@@ -61,21 +47,21 @@ async function visit(page: Page, name: string, ready: () => Promise<unknown>) {
 
 describe('screens at desk, tablet and phone widths', () => {
   it('when each screen is opened at 1440, 768 and 390 px, then nothing scrolls sideways, the menu gives way and axe finds nothing serious', async () => {
-    const checkerTeam = await calcTeam(server());
+    const checkerTeam = await calcTeam(suite.server());
     await advanceTo('in_check', { author: checkerTeam.author.session, checker: checkerTeam.checker.session, approver: checkerTeam.approver.session }, checkerTeam.revisionId);
-    const draft = await calcTeam(server());
+    const draft = await calcTeam(suite.server());
     const compliance = await createTestUser(['compliance'], 'e2e-screens-compliance');
     const problems: string[] = [];
-    const page = await session.context.newPage();
+    const page = await suite.session.context.newPage();
 
-    await signIn(page, draft.author.user.username);
+    await suite.signIn(page, draft.author.user.username);
     problems.push(...await visit(page, 'overview', () => page.getByRole('heading', { name: /Good to see you/ }).waitFor()));
     await page.goto(`/revisions/${draft.revisionId}/edit`);
     problems.push(...await visit(page, 'editor', () => page.getByText(/Meets|Does not meet/).first().waitFor()));
     await page.goto(`/calcs/${draft.calc.id}`);
     problems.push(...await visit(page, 'calc-draft', () => page.getByRole('button', { name: /Sign and submit/ }).waitFor()));
 
-    await signIn(page, checkerTeam.checker.user.username);
+    await suite.signIn(page, checkerTeam.checker.user.username);
     await page.goto(`/calcs/${checkerTeam.calc.id}`);
     problems.push(...await visit(page, 'calc-checker', () => page.getByRole('checkbox').first().waitFor()));
     await page.getByRole('tab', { name: /Findings/ }).click();
@@ -84,7 +70,7 @@ describe('screens at desk, tablet and phone widths', () => {
     problems.push(...await visit(page, 'sign-dialog', () => page.getByRole('dialog').getByText(/cannot be signed as checked yet/).waitFor()));
     await page.keyboard.press('Escape');
 
-    await signIn(page, compliance.username);
+    await suite.signIn(page, compliance.username);
     await page.goto('/audit');
     problems.push(...await visit(page, 'audit', () => page.getByRole('heading', { name: /Audit/ }).first().waitFor()));
     await page.goto('/rule-sets');
@@ -99,6 +85,6 @@ describe('screens at desk, tablet and phone widths', () => {
     expect((await layoutOf(page)).navShare).toBe(0);
 
     expect(problems).toEqual([]);
-    expect(session.outsideRequests).toEqual([]);
+    expect(suite.session.outsideRequests).toEqual([]);
   });
 });

@@ -1,24 +1,10 @@
 import type { Page } from 'playwright-core';
-import { startBrowserSession, accessibilityViolations } from '../support/browser';
+import { accessibilityViolations } from '../support/browser';
+import { browserSuite } from '../support/browser-suite';
 import { createTestProject, createTestUser, TEST_PASSWORD } from '../support/api-harness';
 import { demoDocument } from '../../server/db/demo/demo-files';
 
-jest.setTimeout(600_000);
-
-let session: Awaited<ReturnType<typeof startBrowserSession>>;
-beforeAll(async () => { session = await startBrowserSession(); });
-afterAll(async () => { await session?.close(); });
-
-async function signInAs(username: string): Promise<Page> {
-  await session.context.clearCookies();
-  const page = await session.context.newPage();
-  await page.goto('/sign-in');
-  await page.getByLabel('Username').fill(username);
-  await page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: /Good to see you/ }).waitFor();
-  return page;
-}
+const suite = browserSuite();
 
 async function signDialog(page: Page, button: RegExp | string) {
   await page.getByRole('button', { name: button }).click();
@@ -43,7 +29,7 @@ describe('one calc from draft to approved, by three people', () => {
     const [author, checker, approver] = await Promise.all([createTestUser(['author'], 'e2e-author'), createTestUser(['checker'], 'e2e-checker'), createTestUser(['approver'], 'e2e-approver')]);
 
     // Author: start the calc, attach the documents the standard asks for, sign and submit.
-    let page = await signInAs(author.username);
+    let page = await suite.signedInPage(author.username);
     await page.goto(`/projects/${project.id}`);
     await page.getByRole('button', { name: 'New calc' }).click();
     const dialog = page.getByRole('dialog');
@@ -54,40 +40,43 @@ describe('one calc from draft to approved, by three people', () => {
     await dialog.getByRole('button', { name: 'Create and open' }).click();
     await page.waitForURL(/\/revisions\/\d+\/edit/);
     const revisionId = Number(/revisions\/(\d+)/.exec(page.url())![1]);
-    await page.waitForTimeout(1500);
-    await session.screenshot(page, 'walk-1-editor');
+    // The editor is ready once the live calc has given its verdict.
+    await page.getByText(/Meets|Does not meet/).first().waitFor();
+    await suite.session.screenshot(page, 'walk-1-editor');
     await page.goto(`/calcs/${(await (await page.request.get(`/api/revisions/${revisionId}`)).json()).calcId}`);
     const calcUrl = page.url();
     await attach(page, 'Drawing', 'WT-SH-001-drawing.pdf');
     await attach(page, 'Material certificate', 'WT-SH-001-certificate.pdf');
     await signDialog(page, /Sign and submit for check/);
     await page.getByText('In check').first().waitFor();
-    await session.screenshot(page, 'walk-2-submitted');
+    await suite.session.screenshot(page, 'walk-2-submitted');
 
     // Checker: tick the manual items and sign as checked.
-    page = await signInAs(checker.username);
+    page = await suite.signedInPage(checker.username);
     await page.getByRole('heading', { name: /Waiting for my check/ }).waitFor();
     await page.goto(calcUrl);
     for (const item of ['Material certificate attached', 'Load cases match', 'Drawing reference matches']) {
-      await page.getByRole('checkbox', { name: new RegExp(item) }).check();
-      await page.waitForTimeout(300);
+      const box = page.getByRole('checkbox', { name: new RegExp(item) });
+      await box.check();
+      // The tick is a stored record: wait until the server's answer names who ticked it.
+      await page.getByRole('listitem').filter({ has: box }).getByText(/^ticked by /).waitFor();
     }
-    await session.screenshot(page, 'walk-3-checker');
+    await suite.session.screenshot(page, 'walk-3-checker');
     expect(await accessibilityViolations(page)).toEqual([]);
     await signDialog(page, /Sign as checked/);
     await page.getByText('Waiting for approval by someone other than its checker.').waitFor();
 
     // Approver: approve.
-    page = await signInAs(approver.username);
+    page = await suite.signedInPage(approver.username);
     await page.goto(calcUrl);
     await signDialog(page, /^Approve$/);
     await page.getByText('Released.').waitFor();
     await page.getByRole('tab', { name: 'Signatures' }).click();
-    await session.screenshot(page, 'walk-4-approved');
+    await suite.session.screenshot(page, 'walk-4-approved');
 
     const final = await (await page.request.get(`/api/revisions/${revisionId}`)).json();
     expect(final.status).toBe('approved');
     expect(final.signatures.map((s: { meaning: string; isValid: boolean }) => `${s.meaning}:${s.isValid}`)).toEqual(['authored:true', 'checked:true', 'approved:true']);
-    expect(session.outsideRequests).toEqual([]);
+    expect(suite.session.outsideRequests).toEqual([]);
   });
 });

@@ -1,40 +1,26 @@
-import type { Express } from 'express';
 import type { Page } from 'playwright-core';
 import path from 'node:path';
-import { SCREENSHOT_DIR, startBrowserSession, accessibilityViolations } from '../support/browser';
+import { SCREENSHOT_DIR, accessibilityViolations } from '../support/browser';
+import { browserSuite } from '../support/browser-suite';
 import { TEST_PASSWORD } from '../support/api-harness';
 import { calcTeam } from '../support/calc-harness';
 import { wholeShaftInput } from '../support/shaft-fixture';
 
 // The calc editor and calc page of a whole-shaft calc in Chromium, at desktop, tablet and phone
 // widths: bearings and forces entered, the outline with arrows, the new diagrams and tables.
-jest.setTimeout(300_000);
-let session: Awaited<ReturnType<typeof startBrowserSession>>;
-beforeAll(async () => { session = await startBrowserSession(); });
-afterAll(async () => { await session?.close(); });
-
-const server = () => session.baseUrl as unknown as Express;
-
-async function signIn(page: Page, username: string) {
-  await session.context.clearCookies();
-  await page.goto('/sign-in');
-  await page.getByLabel('Username').fill(username);
-  await page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: /Good to see you/ }).waitFor();
-}
+const suite = browserSuite();
 
 describe('the whole shaft in the browser', () => {
   it('when the author opens a calc with bearings and forces, then the editor shows them, their arrows and results at every width, without accessibility faults', async () => {
-    const { author, revisionId } = await calcTeam(server(), wholeShaftInput());
-    const page = await session.context.newPage();
-    await signIn(page, author.user.username);
+    const { author, revisionId } = await calcTeam(suite.server(), wholeShaftInput());
+    const page = await suite.session.context.newPage();
+    await suite.signIn(page, author.user.username);
     for (const width of [1440, 768, 390]) {
       await page.setViewportSize({ width, height: 900 });
       await page.goto(`/revisions/${revisionId}/edit`);
       await page.getByRole('table', { name: 'Bearing reactions and life' }).waitFor();
       await page.getByRole('img', { name: /bearings B1 at 20 mm, B2 at 300 mm/ }).waitFor();
-      await session.screenshot(page, `whole-shaft-editor-${width}`);
+      await suite.session.screenshot(page, `whole-shaft-editor-${width}`);
       await page.screenshot({ path: path.join(SCREENSHOT_DIR, `whole-shaft-editor-${width}-top.png`) });
       // The parts to look at closely, one picture each (the full page is too tall to read).
       for (const [part, selector] of [['outline', 'tt-shaft-drawing'], ['bearings', 'tt-supports-panel'], ['forces', 'tt-forces-panel'], ['results', 'tt-shaft-results'], ['deflection', 'tt-plots-panel tt-diagram-chart >> nth=2'], ['slope', 'tt-plots-panel tt-diagram-chart >> nth=3']]) {
@@ -50,15 +36,15 @@ describe('the whole shaft in the browser', () => {
   });
 
   it('when a reader opens the calc page, then the results tab has the reactions, critical speed and the model\'s assumptions', async () => {
-    const { author, calc } = await calcTeam(server(), wholeShaftInput());
-    const page = await session.context.newPage();
+    const { author, calc } = await calcTeam(suite.server(), wholeShaftInput());
+    const page = await suite.session.context.newPage();
     await page.setViewportSize({ width: 1440, height: 900 });
-    await signIn(page, author.user.username);
+    await suite.signIn(page, author.user.username);
     await page.goto(`/calcs/${calc.id}`);
     await page.getByRole('tab', { name: 'Results' }).click();
     await page.getByRole('table', { name: 'Bearing reactions and life' }).waitFor();
     await page.getByText('What this model assumes').waitFor();
-    await session.screenshot(page, 'whole-shaft-calc-page');
+    await suite.session.screenshot(page, 'whole-shaft-calc-page');
     expect(await accessibilityViolations(page)).toEqual([]);
     await page.close();
   });

@@ -13,7 +13,6 @@ import { stateChangingRoutes, type RouteInfo } from '../support/route-list';
  */
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-jest.setTimeout(900_000);
 
 const RUNS = Number(process.env.FUZZ_RUNS ?? 4);
 

@@ -5,9 +5,6 @@ import { advanceTo, expectStatus, fixtureInput, lastAuditId, revisionOf, sign, t
 import { findingsTeam, returnedWithFindingOf } from '../support/findings-harness';
 import { pdfBytes, upload } from '../support/upload-harness';
 
-// Each case walks a calc through sign-off first: generous, since the machine may be busy.
-jest.setTimeout(120_000);
-
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
 

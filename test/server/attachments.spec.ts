@@ -1,21 +1,14 @@
 import { createHash } from 'node:crypto';
-import { anonymousAgent, startTestApp } from '../support/api-harness';
+import { anonymousAgent } from '../support/api-harness';
 import { calcTeam, revisionOf, sign, tickAll } from '../support/calc-harness';
-import { startTestS3 } from '../support/fake-servers';
+import { appWithTestS3 } from '../support/s3-app';
 import { pdfBytes, upload, windowsProgram } from '../support/upload-harness';
 import { Attachment } from '../../server/db/models';
 import { createApp } from '../../server/app';
 
 // Uploads go through multer to s3rver (the S3 API) in this process; the size limit is set low
 // so "over the limit" needs only a small file.
-let s3: Awaited<ReturnType<typeof startTestS3>>;
-let ctx: ReturnType<typeof startTestApp>;
-beforeAll(async () => {
-  s3 = await startTestS3();
-  ctx = startTestApp({ ...s3.config, ATTACHMENT_MAX_MB: 0.05 });
-});
-afterAll(async () => { await ctx.sequelize.close(); await s3.close(); });
-jest.setTimeout(30_000);
+const ctx = appWithTestS3({ ATTACHMENT_MAX_MB: 0.05 });
 
 describe('uploading and downloading', () => {
   it('when the author attaches a drawing, then it is stored under its hash and comes back byte for byte as a download', async () => {

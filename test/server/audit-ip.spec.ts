@@ -8,7 +8,6 @@ import { anonymousAgent, createTestUser, startTestApp, TEST_PASSWORD } from '../
 // fails on it, and a sign-in is never left without its audit entry.
 const { app, sequelize } = startTestApp({ TRUST_PROXY: 'loopback' });
 afterAll(() => sequelize.close());
-jest.setTimeout(120_000);
 
 async function signIn(username: string, forwardedFor?: string) {
   const { agent, token } = await anonymousAgent(app);

@@ -5,7 +5,6 @@ import { calcTeam, sign } from '../support/calc-harness';
 // with a link; and the people in the trail for the person filter.
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-jest.setTimeout(60_000);
 
 describe('audit trail in human words', () => {
   it('when a revision is signed, then its row names the calc number and revision label with a link, and keeps the code', async () => {

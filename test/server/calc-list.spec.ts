@@ -5,8 +5,6 @@ import { compactResult } from '../../server/calcs/stored-result';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Several people sign in (Argon2) on a shared two-core machine.
-jest.setTimeout(120_000);
 
 type Row = { id: number; number: string; latest: { status: string; verdict: string | null; label: string; author: { name: string } } };
 

@@ -3,8 +3,6 @@ import { advanceTo, auditOf, createCalc, person, revisionOf, sign, tickAll, type
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Each step signs in or signs with a password (Argon2) on a shared two-core machine: allow whole workflows.
-jest.setTimeout(60_000);
 
 type Input = Record<string, unknown> & { title: string };
 

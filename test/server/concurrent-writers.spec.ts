@@ -7,8 +7,6 @@ import { Attachment, Calc, Signature } from '../../server/db/models';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Many workflows at once on a shared two-core machine: allow them time, never assert on it.
-jest.setTimeout(300_000);
 
 type Res = { status: number; body: any };
 

@@ -19,7 +19,6 @@ const REVISIONS = 8;
 const KILL_CHANCE = 0.3;
 // Besides the random ones, these signatures (by order) always see a kill, so no run is crash-free.
 const ALWAYS_KILLED = new Set([1, 11, 21]);
-jest.setTimeout(600_000);
 
 const { app, sequelize } = startTestApp();
 

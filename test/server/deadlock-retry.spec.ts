@@ -7,7 +7,6 @@ import { createCalc, person } from '../support/calc-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-jest.setTimeout(120_000);
 
 /** Resolves once `count` parties have arrived: both transactions hold their first lock. */
 function barrier(count: number) {

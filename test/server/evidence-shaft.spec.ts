@@ -1,22 +1,15 @@
 import { createHash } from 'node:crypto';
 import canonicalize from 'canonicalize';
-import { signedInAs, startTestApp } from '../support/api-harness';
+import { signedInAs } from '../support/api-harness';
 import { calcTeam, revisionOf, sign, tickAll } from '../support/calc-harness';
-import { startTestS3 } from '../support/fake-servers';
+import { appWithTestS3 } from '../support/s3-app';
 import { pdfBytes, upload } from '../support/upload-harness';
 import { getBinary, postPack, unzip } from '../support/pack-harness';
 import { wholeShaftInput } from '../support/shaft-fixture';
 
 // A whole-shaft calc's bearings, forces and results travel in the revision's input and result, so the
 // content hash and the evidence pack must cover them: a changed load rating is a changed record.
-let s3: Awaited<ReturnType<typeof startTestS3>>;
-let ctx: ReturnType<typeof startTestApp>;
-beforeAll(async () => {
-  s3 = await startTestS3();
-  ctx = startTestApp(s3.config);
-});
-afterAll(async () => { await ctx.sequelize.close(); await s3.close(); });
-jest.setTimeout(90_000);
+const ctx = appWithTestS3();
 
 const sha256 = (b: Buffer | string) => createHash('sha256').update(b).digest('hex');
 

@@ -1,22 +1,15 @@
 import { createHash } from 'node:crypto';
 import canonicalize from 'canonicalize';
-import { startTestApp, signedInAs, anonymousAgent } from '../support/api-harness';
+import { signedInAs, anonymousAgent } from '../support/api-harness';
 import { calcTeam, revisionOf, sign, tickAll } from '../support/calc-harness';
-import { startTestS3 } from '../support/fake-servers';
+import { appWithTestS3 } from '../support/s3-app';
 import { pdfBytes, upload } from '../support/upload-harness';
 import { getBinary, postPack, rezip, unzip } from '../support/pack-harness';
 import { readZip } from '../../server/evidence/zip-reader';
 
 // Evidence packs: exported by compliance, read back with an independent unzip, verified by the
 // API, and then tampered with in the two ways that matter (a file, or a file and its manifest).
-let s3: Awaited<ReturnType<typeof startTestS3>>;
-let ctx: ReturnType<typeof startTestApp>;
-beforeAll(async () => {
-  s3 = await startTestS3();
-  ctx = startTestApp(s3.config);
-});
-afterAll(async () => { await ctx.sequelize.close(); await s3.close(); });
-jest.setTimeout(60_000);
+const ctx = appWithTestS3();
 
 const sha256 = (b: Buffer | string) => createHash('sha256').update(b).digest('hex');
 

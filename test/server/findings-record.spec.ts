@@ -6,8 +6,6 @@ import { returnedWithFindingOf } from '../support/findings-harness';
 // their answers stay on the approved record. Raising, answering and closing are findings.spec.ts.
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Each step signs in or signs with a password (Argon2) on a shared two-core machine: allow whole workflows.
-jest.setTimeout(60_000);
 
 const returnedWithFinding = () => returnedWithFindingOf(app);
 

@@ -4,8 +4,6 @@ import { findingsTeam, returnedWithFindingOf } from '../support/findings-harness
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Each step signs in or signs with a password (Argon2) on a shared two-core machine: allow whole workflows.
-jest.setTimeout(60_000);
 
 const team = () => findingsTeam(app);
 const returnedWithFinding = () => returnedWithFindingOf(app);

@@ -17,7 +17,6 @@ afterAll(async () => {
   await withClient.sequelize.close();
   fs.rmSync(dist, { recursive: true, force: true });
 });
-jest.setTimeout(120_000);
 
 type Session = Awaited<ReturnType<typeof signedInAs>>['session'];
 let admin: Session;

@@ -7,8 +7,6 @@ import {
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Approving calcs signs people in and signs with passwords (Argon2) on a shared two-core machine.
-jest.setTimeout(90_000);
 
 interface ImpactRowView { calcId: number; revision: string; before: string; after: string; clauses: { clauseId: string; before: string; after: string }[] }
 

@@ -6,8 +6,6 @@ import type { Role } from '../../shared/authz/roles';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Each step signs in or signs with a password (Argon2) on a shared two-core machine: allow whole workflows.
-jest.setTimeout(60_000);
 
 /**
  * Revision A written and approved with `firstAuthor`, then revision B written by someone else and

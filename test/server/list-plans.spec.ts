@@ -4,8 +4,6 @@ import { capturedSelects, fullScans, seedPlanRows } from '../support/plan-harnes
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Seeding thousands of rows and signing people in on a shared two-core machine.
-jest.setTimeout(180_000);
 
 type Session = Awaited<ReturnType<typeof signedInAs>>['session'];
 let seeded: Awaited<ReturnType<typeof seedPlanRows>>;

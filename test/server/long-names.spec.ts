@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
-import { startTestApp, signedInAs } from '../support/api-harness';
+import { signedInAs } from '../support/api-harness';
 import { effectiveRuleSetId, fixtureInput, sign, tickAll } from '../support/calc-harness';
-import { startTestS3 } from '../support/fake-servers';
+import { appWithTestS3 } from '../support/s3-app';
 import { pdfBytes, upload } from '../support/upload-harness';
 import { getBinary } from '../support/pack-harness';
 import { readPdf } from '../support/pdf-harness';
@@ -9,14 +9,7 @@ import { MailOutbox } from '../../server/db/models';
 
 // Whatever creation accepts must work in every later step: the longest project code, calc number,
 // title and part reference the forms allow go through sign-off, mail, report and evidence pack.
-let s3: Awaited<ReturnType<typeof startTestS3>>;
-let ctx: ReturnType<typeof startTestApp>;
-beforeAll(async () => {
-  s3 = await startTestS3();
-  ctx = startTestApp(s3.config);
-});
-afterAll(async () => { await ctx.sequelize.close(); await s3.close(); });
-jest.setTimeout(120_000);
+const ctx = appWithTestS3();
 
 describe('the longest names creation accepts', () => {
   it('when code, number, title and part reference are at their limits, then sign-off, mail, report and evidence pack all work', async () => {

@@ -7,8 +7,6 @@ import type { Role } from '../../shared/authz/roles';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Each test signs several people in and walks a calc through sign-off (Argon2) on a shared two-core machine.
-jest.setTimeout(60_000);
 
 /**
  * Hand-over mail as the outbox records it (delivery is mail.spec.ts's subject). Every test user is

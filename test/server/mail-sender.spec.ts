@@ -10,7 +10,6 @@ const { app, sequelize } = startTestApp();
 let smtp: Awaited<ReturnType<typeof startTestSmtp>>;
 beforeAll(async () => { smtp = await startTestSmtp(); });
 afterAll(async () => { await smtp.close(); await sequelize.close(); });
-jest.setTimeout(30_000);
 
 async function queue(count = 1) {
   const recipient = `someone-${randomUUID().slice(0, 8)}@example.test`;

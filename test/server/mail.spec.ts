@@ -9,7 +9,6 @@ const { app, sequelize } = startTestApp();
 let smtp: Awaited<ReturnType<typeof startTestSmtp>>;
 beforeAll(async () => { smtp = await startTestSmtp(); });
 afterAll(async () => { await smtp.close(); await sequelize.close(); });
-jest.setTimeout(30_000);
 
 async function deliverTo(addresses: string[]) {
   const { sender, close } = senderFor(sequelize, smtp.port);

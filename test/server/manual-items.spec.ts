@@ -5,8 +5,6 @@ import {
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Each step signs in or signs with a password (Argon2) on a shared two-core machine: allow whole workflows.
-jest.setTimeout(60_000);
 
 // The ids the workflow standard (a copy of KFD-ENG-014 v3) lists under manualItems.
 const ITEM_IDS = ['material-certificate', 'load-cases', 'drawing-reference'];

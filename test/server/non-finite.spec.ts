@@ -14,7 +14,6 @@ import { calcTeam, effectiveRuleSetId, fixtureInput, revisionOf, sign } from '..
 // cannot be evaluated is an error row, and an error row cannot be signed.
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-jest.setTimeout(300_000);
 
 type Json = Record<string, unknown> | unknown[];
 function numberPaths(v: unknown, path: (string | number)[] = []): (string | number)[][] {

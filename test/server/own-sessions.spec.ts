@@ -3,8 +3,6 @@ import { AuditEvent } from '../../server/db/models';
 import type { ActiveSessionDto } from '../../shared/schemas/session-list.schema';
 import { createTestUser, signedInAgent, startTestApp, TEST_PASSWORD } from '../support/api-harness';
 
-jest.setTimeout(60_000);
-
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
 

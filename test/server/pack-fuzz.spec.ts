@@ -11,7 +11,6 @@ import { postPack, rezip } from '../support/pack-harness';
 // crafted contents is a verification that fails with reasons. Never a 500, never an exception.
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-jest.setTimeout(300_000);
 
 const json = (v: unknown) => Buffer.from(JSON.stringify(v));
 const HASH = 'a'.repeat(64);

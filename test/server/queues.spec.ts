@@ -4,8 +4,6 @@ import type { Role } from '../../shared/authz/roles';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Each test signs several people in and walks a calc through sign-off (Argon2) on a shared two-core machine.
-jest.setTimeout(60_000);
 
 type QueueKey = 'my-drafts' | 'returned-to-me' | 'awaiting-my-check' | 'awaiting-my-approval';
 

@@ -1,20 +1,12 @@
 import { formatNumber } from '../../shared/engine';
-import { startTestApp } from '../support/api-harness';
 import { calcTeam, revisionOf } from '../support/calc-harness';
-import { startTestS3 } from '../support/fake-servers';
+import { appWithTestS3 } from '../support/s3-app';
 import { readPdf } from '../support/pdf-harness';
 import { wholeShaftInput } from '../support/shaft-fixture';
 
 // The calc report of a whole-shaft calc, read back as text by Poppler: the new inputs, results,
 // plots and the model's assumptions must all be there in words, not only in pictures.
-let s3: Awaited<ReturnType<typeof startTestS3>>;
-let ctx: ReturnType<typeof startTestApp>;
-beforeAll(async () => {
-  s3 = await startTestS3();
-  ctx = startTestApp({ ...s3.config, ORG_NAME: 'Kestrel Fen Drives' });
-});
-afterAll(async () => { await ctx.sequelize.close(); await s3.close(); });
-jest.setTimeout(60_000);
+const ctx = appWithTestS3({ ORG_NAME: 'Kestrel Fen Drives' });
 
 type Agent = { agent: { get: (u: string) => import('supertest').Test } };
 const getPdf = (session: Agent, id: number) =>

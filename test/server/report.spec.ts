@@ -1,20 +1,12 @@
-import { startTestApp } from '../support/api-harness';
 import { calcTeam, revisionOf, sign, tickAll } from '../support/calc-harness';
-import { startTestS3 } from '../support/fake-servers';
+import { appWithTestS3 } from '../support/s3-app';
 import { pdfBytes, upload } from '../support/upload-harness';
 import { fontsOf, readPdf } from '../support/pdf-harness';
 import { returnedWithFindingOf } from '../support/findings-harness';
 
 // The calc report read back the way a reader's tools see it: Poppler parses the PDF and
 // extracts its text; page one is also rendered to artifacts/reports/ for a person to look at.
-let s3: Awaited<ReturnType<typeof startTestS3>>;
-let ctx: ReturnType<typeof startTestApp>;
-beforeAll(async () => {
-  s3 = await startTestS3();
-  ctx = startTestApp({ ...s3.config, ORG_NAME: 'Kestrel Fen Drives' });
-});
-afterAll(async () => { await ctx.sequelize.close(); await s3.close(); });
-jest.setTimeout(60_000);
+const ctx = appWithTestS3({ ORG_NAME: 'Kestrel Fen Drives' });
 
 const getPdf = (session: { agent: { get: (u: string) => import('supertest').Test } }, id: number) =>
   session.agent.get(`/api/revisions/${id}/report.pdf`).buffer(true).parse((res, done) => {

@@ -5,8 +5,6 @@ import {
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Each step signs in or signs with a password (Argon2) on a shared two-core machine: allow whole workflows.
-jest.setTimeout(60_000);
 
 async function approvedCalc(scheme: 'letters' | 'numbers' = 'letters') {
   const author = await person(app, ['author']);

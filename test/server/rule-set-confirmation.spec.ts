@@ -6,8 +6,6 @@ import {
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Each test signs several people in (Argon2) on a shared two-core machine.
-jest.setTimeout(60_000);
 
 describe('proposing and confirming', () => {
   it.each([

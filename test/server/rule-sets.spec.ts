@@ -7,8 +7,6 @@ import type { Role } from '../../shared/authz/roles';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Each test signs several people in (Argon2) on a shared two-core machine.
-jest.setTimeout(60_000);
 
 type Doc = Record<string, unknown>;
 

@@ -4,8 +4,6 @@ import { ROLES, type Role } from '../../shared/authz/roles';
 import { createTestUser, signedInAs, startTestApp, TEST_PASSWORD } from '../support/api-harness';
 import { advanceTo, createCalc, expectStatus, person, sign } from '../support/calc-harness';
 
-jest.setTimeout(60_000);
-
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
 

@@ -3,7 +3,6 @@ import { startTestApp, signedInAs } from '../support/api-harness';
 // Speed is measured, not asserted: the header is there to read in the browser's network panel.
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-jest.setTimeout(30_000);
 
 describe('server timing', () => {
   it('when a screen loads its data, then each answer says how long the server took (Server-Timing)', async () => {

@@ -7,8 +7,6 @@ import {
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Each step signs in or signs with a password (Argon2) on a shared two-core machine: allow whole workflows.
-jest.setTimeout(60_000);
 
 interface SignatureView { printedName: string; role: string; meaning: string; signedAt: string; contentHash: string; isValid: boolean }
 

@@ -1,6 +1,6 @@
-import { startTestApp, signedInAs } from '../support/api-harness';
+import { signedInAs } from '../support/api-harness';
 import { auditOf, calcTeam, revisionOf, sign, tickAll } from '../support/calc-harness';
-import { startTestS3 } from '../support/fake-servers';
+import { appWithTestS3 } from '../support/s3-app';
 import { pdfBytes, upload } from '../support/upload-harness';
 import { getBinary, postPack, rezip, unzip } from '../support/pack-harness';
 import { Signature } from '../../server/db/models';
@@ -9,14 +9,7 @@ import { loadRevision } from '../../server/calcs/calc-access';
 
 // Attachments are part of what is signed: each signature covers the set present when it was
 // made; a file added later leaves earlier signatures over earlier content, on screen and in packs.
-let s3: Awaited<ReturnType<typeof startTestS3>>;
-let ctx: ReturnType<typeof startTestApp>;
-beforeAll(async () => {
-  s3 = await startTestS3();
-  ctx = startTestApp(s3.config);
-});
-afterAll(async () => { await ctx.sequelize.close(); await s3.close(); });
-jest.setTimeout(90_000);
+const ctx = appWithTestS3();
 
 type Sig = { meaning: string; isValid: boolean; attachments: { name: string; kind: string }[] | null };
 const byMeaning = (sigs: Sig[]) => Object.fromEntries(sigs.map((s) => [s.meaning, s]));

@@ -5,7 +5,6 @@ import { Revision } from '../../server/db/models';
 // Record verification: the hash printed on a report (and in its QR code) looked up by anyone signed in.
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-jest.setTimeout(30_000);
 
 async function approved() {
   const team = await calcTeam(app);

@@ -6,8 +6,6 @@ import { advanceTo, createCalc, person, revisionOf, sign, tickAll, type Session,
 // signature on someone else's behalf is refused. The role-by-role matrix is workflow-transitions.spec.ts.
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Each step signs in or signs with a password (Argon2) on a shared two-core machine: allow whole workflows.
-jest.setTimeout(60_000);
 
 type From = 'draft' | 'in_check' | 'checked';
 const RETURN_REFUSAL = /Only an independent checker \(in check\) or approver \(checked\) can return/;

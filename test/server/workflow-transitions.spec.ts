@@ -7,8 +7,6 @@ import type { Role } from '../../shared/authz/roles';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
-// Each step signs in or signs with a password (Argon2) on a shared two-core machine: allow whole workflows.
-jest.setTimeout(60_000);
 
 /**
  * Who tries. "author" and "author+checker" are the revision's own author; every other actor is an

@@ -7,8 +7,6 @@ import type { ActiveSessionDto } from '../../../../shared/schemas/session-list.s
 import { SessionsPanel } from './sessions-panel';
 import { browserLabel } from './browser-label';
 
-jest.setTimeout(30_000);
-
 const HERE: ActiveSessionDto = {
   id: 'a'.repeat(32), startedAt: '2026-12-01T08:00:00Z', lastSeenAt: '2026-12-01T09:30:00Z', ip: '127.0.0.1', userAgent: 'Laptop browser', current: true,
 };

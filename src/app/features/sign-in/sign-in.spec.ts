@@ -10,8 +10,6 @@ import { PureAbility } from '@casl/ability';
 import { createAppAbility } from '../../../../shared/authz/app-ability';
 import SignIn from './sign-in';
 
-jest.setTimeout(30_000);
-
 let fixture: ComponentFixture<SignIn>;
 
 describe('signing in', () => {

@@ -6,8 +6,6 @@ import { createAppAbility, defineRulesFor } from '../../../../../shared/authz/ap
 import type { RoleGrantDto } from '../../../../../shared/schemas/role-grant.schema';
 import { PendingGrants } from './pending-grants';
 
-jest.setTimeout(30_000);
-
 const ME = 5;
 const grant = (id: number, over: Partial<RoleGrantDto> = {}): RoleGrantDto => ({
   id, user: { id: 20 + id, name: `Person ${id}`, username: `person${id}` }, role: 'approver', status: 'pending',

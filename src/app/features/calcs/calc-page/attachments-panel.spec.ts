@@ -10,8 +10,6 @@ import type { AttachmentListDto } from '../../../../../shared/schemas/attachment
 import { AttachmentsPanel } from './attachments-panel';
 import { SessionStore } from '../../../core/auth/session-store';
 
-jest.setTimeout(30_000);
-
 const LIST: AttachmentListDto = {
   canAdd: true, maxBytes: 20 * 1024 * 1024, acceptedTypes: ['PDF', 'PNG'],
   items: [{ id: 4, revisionId: 7, kind: 'drawing', fileName: 'DRG-7 sheet 1.pdf', mediaType: 'application/pdf', sizeBytes: 4096,

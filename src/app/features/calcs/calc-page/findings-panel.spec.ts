@@ -1,7 +1,3 @@
-import { TestBed, type ComponentFixture } from '@angular/core/testing';
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import type { FindingDto, RevisionDto } from '../../../../../shared/schemas/calc-dto';
@@ -9,8 +5,7 @@ import type { SessionUser } from '../../../../../shared/schemas/auth.schema';
 import { FindingsPanel } from './findings-panel';
 import { countFindings, findingsTabLabel } from './finding-counts';
 import { planActions } from './revision-actions';
-
-jest.setTimeout(30_000);
+import { mountComponent } from '../../../../../test/support/client-harness';
 
 const person = { id: 2, name: 'Idris Penhallow' };
 function finding(id: number, status: FindingDto['status'], answer: string | null = null): FindingDto {
@@ -20,44 +15,32 @@ function finding(id: number, status: FindingDto['status'], answer: string | null
 const REVISION = { id: 7, calcId: 3, status: 'returned', author: { id: 1, name: 'Morwenna Hale' }, editorIds: [1], result: {}, verdict: 'compliant',
   findings: [finding(3, 'answered', 'Chart cited in the notes'), finding(4, 'open')] } as unknown as RevisionDto;
 
-let fixture: ComponentFixture<FindingsPanel>;
-let http: HttpTestingController;
-
-async function turn(): Promise<void> {
-  await new Promise((resolve) => setTimeout(resolve));
-  fixture.detectChanges();
-  await fixture.whenStable();
-}
+let d: Awaited<ReturnType<typeof mountComponent<FindingsPanel>>>;
 
 beforeEach(async () => {
-  TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] });
-  fixture = TestBed.createComponent(FindingsPanel);
-  fixture.componentRef.setInput('revision', REVISION);
-  fixture.componentRef.setInput('canAnswer', true);
-  http = TestBed.inject(HttpTestingController);
-  await turn();
+  d = await mountComponent(FindingsPanel, { inputs: { revision: REVISION, canAnswer: true } });
 });
-afterEach(() => http.verify());
+afterEach(() => d.http.verify());
 
 describe('findings', () => {
   it('when a finding is already answered, then it offers no second answer; only the open one does', async () => {
-    const loader = TestbedHarnessEnvironment.loader(fixture);
+    const loader = d.loader;
     const answerButtons = await loader.getAllHarnesses(MatButtonHarness.with({ text: 'Answer' }));
     expect(answerButtons).toHaveLength(1);
-    expect((fixture.nativeElement as HTMLElement).textContent).not.toContain('Your answer to F3');
-    expect((fixture.nativeElement as HTMLElement).textContent).toContain('Your answer to F4');
+    expect(d.element.textContent).not.toContain('Your answer to F3');
+    expect(d.element.textContent).toContain('Your answer to F4');
   });
 
   it('when the author clicks Answer twice, then one request is sent and the text is cleared once stored', async () => {
-    const loader = TestbedHarnessEnvironment.loader(fixture);
+    const loader = d.loader;
     await (await loader.getHarness(MatInputHarness)).setValue('Fillet radius raised to 3 mm');
     const button = await loader.getHarness(MatButtonHarness.with({ text: 'Answer' }));
     await button.click();
     expect(await button.isDisabled()).toBe(true);
-    const req = http.expectOne({ method: 'POST', url: '/api/findings/4/answer' });
+    const req = d.http.expectOne({ method: 'POST', url: '/api/findings/4/answer' });
     req.flush({ ...REVISION, findings: [REVISION.findings[0], finding(4, 'answered', 'Fillet radius raised to 3 mm')] });
-    await turn();
-    expect((fixture.nativeElement as HTMLElement).textContent).not.toContain('Fillet radius raised to 3 mm'.repeat(2));
+    await d.settle();
+    expect(d.element.textContent).not.toContain('Fillet radius raised to 3 mm'.repeat(2));
   });
 
   it('when one finding is answered and one open, then the tab and the status line give the same counts, and they move with answers', () => {

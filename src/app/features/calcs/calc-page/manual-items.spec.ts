@@ -1,12 +1,7 @@
-import { TestBed, type ComponentFixture } from '@angular/core/testing';
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { ManualItems } from './manual-items';
-
-jest.setTimeout(30_000);
+import { mountComponent } from '../../../../../test/support/client-harness';
 
 const MANUAL = [
   { id: 'material-certificate', text: 'Material certificate attached', requiresAttachment: 'material-certificate', done: false, by: null, note: null },
@@ -14,28 +9,15 @@ const MANUAL = [
 ];
 const REVISION = { id: 7, calcId: 3, status: 'in_check', manualItems: {}, checklist: { manual: MANUAL } } as unknown as RevisionDto;
 
-let fixture: ComponentFixture<ManualItems>;
-let http: HttpTestingController;
-
-async function turn(): Promise<void> {
-  await new Promise((resolve) => setTimeout(resolve));
-  fixture.detectChanges();
-  await fixture.whenStable();
-}
+let d: Awaited<ReturnType<typeof mountComponent<ManualItems>>>;
 
 beforeEach(async () => {
-  TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] });
-  fixture = TestBed.createComponent(ManualItems);
-  fixture.componentRef.setInput('revision', REVISION);
-  fixture.componentRef.setInput('canTick', true);
-  http = TestBed.inject(HttpTestingController);
-  fixture.detectChanges();
-  await turn();
+  d = await mountComponent(ManualItems, { inputs: { revision: REVISION, canTick: true } });
 });
-afterEach(() => http.verify());
+afterEach(() => d.http.verify());
 
-const box = (label: RegExp) => TestbedHarnessEnvironment.loader(fixture).getHarness(MatCheckboxHarness.with({ label }));
-const refuse = (url: string, message: string) => http.expectOne({ method: 'PUT', url })
+const box = (label: RegExp) => d.loader.getHarness(MatCheckboxHarness.with({ label }));
+const refuse = (url: string, message: string) => d.http.expectOne({ method: 'PUT', url })
   .flush({ code: 'conflict', message }, { status: 409, statusText: 'Conflict' });
 
 describe('manual checklist items', () => {
@@ -43,31 +25,31 @@ describe('manual checklist items', () => {
     const certificate = await box(/Material certificate/);
     await certificate.check();
     refuse('/api/revisions/7/manual-items/material-certificate', 'Attach a material certificate first');
-    await turn();
+    await d.settle();
     const loads = await box(/Load cases/);
     await loads.check();
     refuse('/api/revisions/7/manual-items/load-cases', 'The revision changed since you opened it; reload it');
-    await turn();
+    await d.settle();
 
     expect(await certificate.isChecked()).toBe(false);
     expect(await loads.isChecked()).toBe(false);
-    const alerts = [...(fixture.nativeElement as HTMLElement).querySelectorAll('[role="alert"]')].map((a) => a.textContent?.trim());
+    const alerts = d.alerts();
     expect(alerts).toEqual(['Not ticked: Attach a material certificate first', 'Not ticked: The revision changed since you opened it; reload it']);
   });
 
   it('when the server stores the tick, then the stored revision is passed on and the box stays ticked', async () => {
     const emitted: RevisionDto[] = [];
-    fixture.componentInstance.changed.subscribe((r) => emitted.push(r));
+    d.fixture.componentInstance.changed.subscribe((r) => emitted.push(r));
     const loads = await box(/Load cases/);
     await loads.check();
     const stored = { ...REVISION, manualItems: { 'load-cases': { done: true, note: '', by: 'Idris Penhallow', at: '2026-12-01T10:00:00Z' } } };
-    http.expectOne({ method: 'PUT', url: '/api/revisions/7/manual-items/load-cases' }).flush(stored);
-    await turn();
-    fixture.componentRef.setInput('revision', stored);
-    await turn();
+    d.http.expectOne({ method: 'PUT', url: '/api/revisions/7/manual-items/load-cases' }).flush(stored);
+    await d.settle();
+    d.fixture.componentRef.setInput('revision', stored);
+    await d.settle();
 
     expect(emitted).toHaveLength(1);
     expect(await (await box(/Load cases/)).isChecked()).toBe(true);
-    expect((fixture.nativeElement as HTMLElement).textContent).toContain('ticked by Idris Penhallow');
+    expect(d.element.textContent).toContain('ticked by Idris Penhallow');
   });
 });

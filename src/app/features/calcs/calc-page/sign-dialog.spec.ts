@@ -12,8 +12,6 @@ import { createAppAbility, defineRulesFor } from '../../../../../shared/authz/ap
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { SignDialog, type SignDialogData } from './sign-dialog';
 
-jest.setTimeout(30_000);
-
 const FAILING_ROW = { clauseId: '6.1', clauseTitle: 'Fatigue safety', severity: 'mandatory', status: 'fail', location: { label: 'KS1 at 50 mm' }, message: 'n = 1.497 is below 1.5' };
 function revision(over: Partial<RevisionDto> = {}): RevisionDto {
   return { id: 7, calcId: 3, status: 'in_check', verdict: 'compliant', lockVersion: 2, contentHash: 'ab'.repeat(32), result: {}, findings: [],

@@ -4,8 +4,6 @@ import type { CalcResult } from '../../../../../shared/engine';
 import { ChecklistTable } from './checklist-table';
 import { ResultSummary } from '../editor/result-summary';
 
-jest.setTimeout(30_000);
-
 const FAIL_ROW = { clauseId: '5.3', clauseTitle: 'Fatigue safety factor', severity: 'mandatory', status: 'fail', location: { label: 'segment 2' },
   actual: 1.497, limit: 1.5, unit: '1', utilisation: 1.5 / 1.497, utilisationBasis: 'limit/actual', message: 'n = 1.497 is below 1.5', warnings: [] };
 const PASS_ROW = { ...FAIL_ROW, clauseId: '4.1', clauseTitle: 'Allowable shear', status: 'pass', actual: 41.2345678, limit: 54, unit: 'MPa', utilisation: 0.7636, message: '' };

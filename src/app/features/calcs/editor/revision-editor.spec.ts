@@ -37,9 +37,6 @@ function revision(over: Partial<RevisionDto> = {}): RevisionDto {
   };
 }
 
-// Rendering the whole editor with Material takes a few seconds on a shared two-core machine.
-jest.setTimeout(30_000);
-
 let fixture: ComponentFixture<RevisionEditor>;
 let http: HttpTestingController;
 let loader: HarnessLoader;

@@ -18,7 +18,6 @@ const INPUT: CalcInput = {
   speed: 900,
 };
 
-jest.setTimeout(30_000);
 beforeEach(configureEditorTestBed);
 
 type Opened = Awaited<ReturnType<typeof openEditor>>;

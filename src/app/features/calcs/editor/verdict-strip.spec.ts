@@ -4,8 +4,6 @@ import type { CalcResult } from '../../../../../shared/engine';
 import { VerdictStrip } from './verdict-strip';
 import { ChecklistTable } from '../checklist/checklist-table';
 
-jest.setTimeout(30_000);
-
 const row = (clauseId: string, severity: string, status: string) => ({ clauseId, clauseTitle: `Clause ${clauseId}`, severity, status,
   location: { label: 'segment 2' }, actual: null, limit: null, unit: '', utilisation: null, message: 'fails', warnings: [] });
 const CHECKLIST = { verdict: 'compliant', ruleSet: { code: 'KFD-ENG-014', version: 3 }, manual: [],

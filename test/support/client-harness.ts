@@ -1,0 +1,74 @@
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import type { Provider, Type } from '@angular/core';
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+
+/**
+ * One component spec's set-up: the component on a TestBed with the real HttpClient talking to
+ * HttpTestingController, its inputs set, and harness loaders. Specs read the DOM and harnesses and
+ * answer requests by URL, so they hold whichever way a component's service fetches its data. A component
+ * that reads through a resource has its request open after mounting: answer it before using a harness
+ * (harnesses wait for stability, which an open resource request holds off).
+ */
+export async function mountComponent<T>(
+  type: Type<T>,
+  options: { inputs?: Record<string, unknown>; providers?: Provider[] } = {},
+) {
+  TestBed.configureTestingModule({
+    providers: [provideHttpClient(), provideHttpClientTesting(), ...(options.providers ?? [])],
+  });
+  const fixture: ComponentFixture<T> = TestBed.createComponent(type);
+  for (const [name, value] of Object.entries(options.inputs ?? {})) fixture.componentRef.setInput(name, value);
+  const http = TestBed.inject(HttpTestingController);
+  const mounted = {
+    fixture,
+    http,
+    loader: TestbedHarnessEnvironment.loader(fixture),
+    /** Overlays (selects, menus, dialogs) render outside the component. */
+    rootLoader: TestbedHarnessEnvironment.documentRootLoader(fixture),
+    element: fixture.nativeElement as HTMLElement,
+    text: () => (fixture.nativeElement as HTMLElement).textContent?.replace(/\s+/g, ' ').trim() ?? '',
+    // Array.from, not spread: the server's tsconfig (which also checks test/) has no iterable DOM lib.
+    alerts: () =>
+      Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('[role="alert"]')).map((a) =>
+        a.textContent?.trim(),
+      ),
+    /**
+     * Lets answered requests' promises run (one macrotask turn, no delay), then runs effects and renders.
+     * It does not wait for stability: a resource's open request holds that off until the spec answers it.
+     */
+    async settle(): Promise<void> {
+      await new Promise((resolve) => setTimeout(resolve));
+      TestBed.tick();
+      fixture.detectChanges();
+    },
+  };
+  await mounted.settle();
+  return mounted;
+}
+
+/** Providers for a dialog component opened outside MatDialog: its data, and a ref whose close() is recorded. */
+export function dialogProviders<D>(data: D) {
+  const closed: unknown[] = [];
+  const ref = {
+    close: (value?: unknown) => closed.push(value),
+    disableClose: false,
+  } as unknown as MatDialogRef<unknown>;
+  return {
+    closed,
+    providers: [
+      { provide: MAT_DIALOG_DATA, useValue: data },
+      { provide: MatDialogRef, useValue: ref },
+    ],
+  };
+}
+
+/** The error body the server sends for a refused request, as HttpTestingController's flush takes it. */
+export function refusal(status: number, message: string, fieldErrors: Record<string, string[]> = {}) {
+  return [
+    { code: 'refused', message, fieldErrors },
+    { status, statusText: 'Refused' },
+  ] as const;
+}

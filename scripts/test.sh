@@ -25,7 +25,7 @@ trap 'fakes_stop; db_stop; rm -rf "$dir"' EXIT
 log "building the client for the end-to-end tests"
 npx ng build --configuration production >/dev/null || die "client build failed"
 
-export NODE_ENV=test
+export NODE_ENV=test DB_ACQUIRE_MS=${DB_ACQUIRE_MS:-300000}
 results="$dir/jest-results.json"
 # jest's default on two cores is one worker, but API and browser specs mostly wait on MariaDB and Chromium.
 # Measured here (6 API spec files, 89 tests, same busy machine, one run after the other): 1 worker 376 s,

@@ -17,6 +17,9 @@ const envSchema = z.object({
   DB_USER: z.string().default('torquetrail'),
   DB_PASSWORD: z.string().default('torquetrail-dev'),
   DB_POOL_MAX: z.coerce.number().int().positive().default(10),
+  // How long a request waits for a free connection before it fails. npm test raises it: its specs run
+  // beside other work on a small machine, where a short wait turns a slow moment into a failed test.
+  DB_ACQUIRE_MS: z.coerce.number().int().positive().default(30_000),
   SESSION_SECRET: z.string().min(16).default('dev-only-session-secret-change-me'),
   SESSION_IDLE_MINUTES: z.coerce.number().positive().default(30),
   SESSION_ABSOLUTE_HOURS: z.coerce.number().positive().default(12),

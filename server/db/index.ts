@@ -11,7 +11,7 @@ export function createSequelize(config: Config): Sequelize {
     dialect: 'mariadb',
     timezone: '+00:00',
     logging: (sql) => logger.trace({ sql }, 'sql'),
-    pool: { max: config.DB_POOL_MAX, min: 0, idle: 10_000, acquire: 30_000 },
+    pool: { max: config.DB_POOL_MAX, min: 0, idle: 10_000, acquire: config.DB_ACQUIRE_MS },
     dialectOptions: { connectTimeout: 10_000 },
     define: { underscored: true },
   });

@@ -19,6 +19,7 @@ export function mayAddFiles(ability: AppAbility, revision: Revision): boolean {
 /** A safe display name: no folders, no control characters, not empty, not absurdly long. */
 export function cleanFileName(name: string): string {
   const base = name.split(/[\\/]/).pop() ?? '';
+  // eslint-disable-next-line no-control-regex -- control characters are what it strips
   const cleaned = base.replace(/[\u0000-\u001F\u007F"]/g, '').trim().slice(-200);
   return cleaned.length > 0 && cleaned !== '.' && cleaned !== '..' ? cleaned : 'file';
 }

@@ -13,7 +13,13 @@ import { defineConfig } from 'eslint/config';
 // Lines stay readable (issue 14): Prettier wraps code at 120; this catches what it cannot, i.e. long comments.
 // Strings, template literals, URLs and regular expressions are left whole so they can still be searched for.
 // Set after eslint-config-prettier, which switches max-len off unless it is configured like this.
-const MAX_LEN = { code: 120, ignoreStrings: true, ignoreTemplateLiterals: true, ignoreUrls: true, ignoreRegExpLiterals: true };
+const MAX_LEN = {
+  code: 120,
+  ignoreStrings: true,
+  ignoreTemplateLiterals: true,
+  ignoreUrls: true,
+  ignoreRegExpLiterals: true,
+};
 
 export default defineConfig(
   { ignores: ['dist/**', 'out-tsc/**', 'coverage/**', 'artifacts/**', '.angular/**', '.data/**', 'node_modules/**'] },

@@ -55,6 +55,7 @@ function run(label: string, engine: Engine, raw: unknown): void {
 function bundled(): Engine | null {
   let esbuild: typeof import('esbuild');
   try {
+    // eslint-disable-next-line @typescript-eslint/no-require-imports -- optional, and loaded synchronously
     esbuild = require('esbuild');
   } catch {
     return null;
@@ -63,6 +64,7 @@ function bundled(): Engine | null {
     format: 'cjs', platform: 'neutral', mainFields: ['main', 'module'], write: false, logLevel: 'silent' });
   const dir = mkdtempSync(join(tmpdir(), 'torquetrail-bench-'));
   writeFileSync(join(dir, 'engine.js'), out.outputFiles[0].text);
+  // eslint-disable-next-line @typescript-eslint/no-require-imports -- a bundle written at run time
   const engine: Engine = require(join(dir, 'engine.js'));
   rmSync(dir, { recursive: true, force: true });
   return engine;

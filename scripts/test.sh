@@ -22,6 +22,12 @@ export SMTP_HOST=127.0.0.1 SMTP_PORT=$(free_port) S3_ENDPOINT="http://127.0.0.1:
 fakes_start "$dir/fakes"
 trap 'fakes_stop; db_stop; rm -rf "$dir"' EXIT
 
+# Types, lint and format first; each counts as one test in the closing line, and a failure fails npm test, but the
+# jest projects still run so one run shows everything.
+checks="$dir/static-checks.txt"
+bash scripts/static-checks.sh "$checks"
+checks_status=$?
+
 log "building the client for the end-to-end tests"
 npx ng build --configuration production >/dev/null || die "client build failed"
 
@@ -32,10 +38,19 @@ results="$dir/jest-results.json"
 # 3 workers 267 s, all green both times. TEST_WORKERS overrides it (1 runs everything in sequence).
 npx jest --ci --maxWorkers="${TEST_WORKERS:-3}" --json --outputFile="$results" "$@"
 status=$?
-# The promised closing line, printed last so nothing follows it.
-if [ -f "$results" ]; then
-  node -e 'const r=require(process.argv[1]);const f=r.numFailedTests+r.numRuntimeErrorTestSuites;console.log(`\n${r.numPassedTests} passed, ${f} failed`)' "$(pwd)/$results"
-else
-  echo; echo "0 passed, 1 failed"
-fi
+[ "$status" -eq 0 ] && status=$checks_status
+# The promised closing line, printed last so nothing follows it: jest's tests plus one per static check.
+node -e '
+  const fs = require("fs");
+  const [results, checks] = process.argv.slice(1);
+  const lines = fs.existsSync(checks) ? fs.readFileSync(checks, "utf8").split("\n") : [];
+  let passed = lines.filter((l) => l.startsWith("passed ")).length;
+  let failed = lines.filter((l) => l.startsWith("failed ")).length;
+  if (fs.existsSync(results)) {
+    const r = require(results);
+    passed += r.numPassedTests;
+    failed += r.numFailedTests + r.numRuntimeErrorTestSuites;
+  } else failed += 1;
+  console.log(`\n${passed} passed, ${failed} failed`);
+' "$(pwd)/$results" "$(pwd)/$checks"
 exit $status

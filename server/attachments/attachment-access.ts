@@ -17,10 +17,13 @@ export function mayAddFiles(ability: AppAbility, revision: Revision): boolean {
   return ability.can('update', subject) || ability.can('check', subject) || ability.can('return', subject);
 }
 
+// eslint-disable-next-line no-control-regex -- control characters are what cleanFileName strips
+const CONTROL_OR_QUOTE = /[\u0000-\u001F\u007F"]/g;
+
 /** A safe display name: no folders, no control characters, not empty, not absurdly long. */
 export function cleanFileName(name: string): string {
   const base = name.split(/[\\/]/).pop() ?? '';
-  const cleaned = base.replace(/[\u0000-\u001F\u007F"]/g, '').trim().slice(-200);
+  const cleaned = base.replace(CONTROL_OR_QUOTE, '').trim().slice(-200);
   return cleaned.length > 0 && cleaned !== '.' && cleaned !== '..' ? cleaned : 'file';
 }
 

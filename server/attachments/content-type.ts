@@ -35,6 +35,7 @@ function isPlainText(bytes: Buffer): boolean {
   if (bytes.subarray(0, 2).toString('latin1') === '#!') return false;
   try {
     const text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+    // eslint-disable-next-line no-control-regex -- control bytes are what makes a file not plain text
     return !/[\u0000-\u0008\u000B\u000E-\u001F\u007F]/.test(text);
   } catch {
     return false;

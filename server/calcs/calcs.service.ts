@@ -9,7 +9,7 @@ import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { loadRuleSet } from '../rule-sets/rule-set-cache';
 import { REVISION_INCLUDE, toCalcDto } from './calc-mapping';
-import { assertCan, loadCalc, loadRevision, recordEditor } from './calc-access';
+import { assertCan, loadRevision, recordEditor } from './calc-access';
 import { CONTENT_FORMAT, computeRecord } from './revision-content';
 import { currentHashOf, readRevision } from './revision-read';
 import { jsonDiff } from './content-diff';

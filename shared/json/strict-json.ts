@@ -24,6 +24,7 @@ export const ROOT_PATH = '(input)';
 const BOM = '\uFEFF';
 
 // Characters a terminal or a form shows as nothing; a message names them instead (U+FEFF …).
+// eslint-disable-next-line no-control-regex -- control characters are among those it names
 const INVISIBLE = /[\u0000-\u001f\u007f-\u00a0\u00ad\u200b-\u200f\u2028-\u202f\u2060\ufeff]/g;
 
 function visible(text: string): string {

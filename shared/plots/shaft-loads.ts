@@ -91,7 +91,7 @@ export function shaftLoads(result: CalcResult, outline: ShaftOutline): ShaftLoad
   return {
     bearings, forceUnit,
     arrows: [
-      ...loads.map((l, i) => arrow(loadTag(l.kind, l.index), named(loadName(l.kind), l.label), l, false)),
+      ...loads.map((l) => arrow(loadTag(l.kind, l.index), named(loadName(l.kind), l.label), l, false)),
       ...supports.map((s) => arrow(bearingTag(s.index), 'reaction of the bearing', s, true)),
     ],
   };

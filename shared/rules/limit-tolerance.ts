@@ -16,6 +16,8 @@ export function nearlyEqual(a: number, b: number): boolean {
   return Math.abs(a - b) <= LIMIT_TOLERANCE * Math.max(Math.abs(a), Math.abs(b));
 }
 
+// Operands are untyped JSON facts compared with JavaScript's own operators, exactly as json-rules-engine does.
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
 type Order = (a: any, b: any) => boolean;
 
 // Two finite numbers within the tolerance count as equal (`atEqual` says whether that passes);

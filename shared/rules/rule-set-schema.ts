@@ -42,7 +42,7 @@ export const measureSchema = z.strictObject({
 });
 
 export const clauseSchema = z.strictObject({
-  id: z.string().regex(/^[A-Za-z0-9][A-Za-z0-9.\-]*$/, 'a clause id has letters, digits, dots and dashes, e.g. "4.2"').max(20),
+  id: z.string().regex(/^[A-Za-z0-9][A-Za-z0-9.-]*$/, 'a clause id has letters, digits, dots and dashes, e.g. "4.2"').max(20),
   title: text(200, 'Short title'),
   text: text(4000, 'Clause text; names the origin of each numeric limit'),
   severity: z.enum(['mandatory', 'advisory']),
@@ -61,7 +61,7 @@ export const manualItemSchema = z.strictObject({
 
 export const ruleSetSchema = z.strictObject({
   $schema: z.string().optional(),
-  code: z.string().regex(/^[A-Z0-9][A-Z0-9\-]*$/, 'a code has capitals, digits and dashes, e.g. "KFD-ENG-014"').max(40),
+  code: z.string().regex(/^[A-Z0-9][A-Z0-9-]*$/, 'a code has capitals, digits and dashes, e.g. "KFD-ENG-014"').max(40),
   title: text(200, 'Title of the standard'),
   version: z.int().min(1).max(9999),
   status: z.enum(['draft', 'effective', 'retired']),

@@ -17,6 +17,7 @@ import { TOLERANT_OPERATORS } from './limit-tolerance';
  */
 export type Compiled = (facts: Facts, params: Facts) => boolean;
 
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- untyped JSON operands, as in limit-tolerance.ts
 type Op = { cb: (a: any, b: any) => boolean; validator: (a: unknown) => boolean };
 
 const anyValue = (): boolean => true;

@@ -27,7 +27,7 @@ describe('the calc list reads summaries kept with every change', () => {
   });
 
   it.each([
-    ['a title word', (t: Team) => 'head shaft'],
+    ['a title word', () => 'head shaft'],
     ['the drawing number', () => 'DRG-1'],
     ['the project code', (t: Team) => t.project.code],
     ['the calc number', (t: Team) => t.calc.number],

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import request from 'supertest';
-import { createTestUser, signedInAgent, signedInAs, startTestApp, TEST_PASSWORD } from '../support/api-harness';
+import { createTestUser, signedInAs, startTestApp, TEST_PASSWORD } from '../support/api-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

@@ -40,7 +40,7 @@ export class MaterialPanel {
   protected readonly provenance = computed(() => {
     const e = this.entry();
     if (!e) return [];
-    const rows = PROPS.map(([key, label, q]) => {
+    const rows = PROPS.map(([key, , q]) => {
       const lib = valueIn(e, key, this.units());
       const typed = fromText(this.value()[key]);
       const sourced = e[key];

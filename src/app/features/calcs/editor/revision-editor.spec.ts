@@ -29,7 +29,7 @@ const ME = { id: 1, roles: ['author'] as const };
 
 function revision(over: Partial<RevisionDto> = {}): RevisionDto {
   return {
-    id: 7, calcId: 3, seq: 0, label: 'A', status: 'draft', verdict: null, author: { id: ME.id, name: 'Morwenna Hale' },
+    id: 7, calcId: 3, seq: 0, contentFormat: 2, label: 'A', status: 'draft', verdict: null, author: { id: ME.id, name: 'Morwenna Hale' },
     checker: null, approver: null, ruleSet: { id: 2, code: 'KFD-ENG-014', version: 3, title: 'Shaft design' },
     reasonForChange: 'first issue', updatedAt: '2026-12-01T10:00:00Z', approvedAt: null, lockVersion: 0,
     input: JSON.parse(JSON.stringify(INPUT)), result: null, checklist: null, inputIssues: [], manualItems: {}, contentHash: null,

@@ -34,10 +34,7 @@ export function ruleSetsRouter(ruleSets: RuleSetsService, impact: ImpactService)
     res.json(await ruleSets.propose(req.ability, signedInActor(req), idParam(req), req.body.effectiveDate, req.body.lockVersion));
   });
   router.post('/:id/confirm', validate({ body: confirmSchema }), async (req, res) => {
-    const confirmed = await ruleSets.confirm(req.ability, signedInActor(req), idParam(req), req.body.password, req.body.lockVersion);
-    // Calcs are told about a version once it is in force; a version confirmed for a later date waits.
-    if (confirmed.status === 'effective') await impact.notifyIfAffected(signedInActor(req), confirmed.id);
-    res.json(confirmed);
+    res.json(await ruleSets.confirm(req.ability, signedInActor(req), idParam(req), req.body.password, req.body.lockVersion));
   });
   router.post('/:id/try', validate({ body: tryItSchema }), async (req, res) => {
     res.json(await impact.tryIt(req.ability, idParam(req), req.body.revisionId));

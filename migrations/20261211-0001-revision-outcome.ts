@@ -6,7 +6,9 @@ interface RowLike { clauseId: string; severity: string; status: string; location
  * The outcome summary as shared/schemas/outcome.ts computed it when this migration was written.
  * Copied, not imported: a migration replays history, so later changes to the app must not alter it.
  */
-function outcomeOf(checklist: { verdict: string; rows: RowLike[] } | null): { verdict: string | null; failing: string[] } {
+type Outcome = { verdict: string | null; failing: string[] };
+
+function outcomeOf(checklist: { verdict: string; rows: RowLike[] } | null): Outcome {
   if (!checklist) return { verdict: null, failing: [] };
   const failing = checklist.rows
     .filter((r) => r.severity === 'mandatory' && (r.status === 'fail' || r.status === 'error'))
@@ -24,7 +26,9 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
     );
     for (const row of rows) {
       const outcome = JSON.stringify(outcomeOf(JSON.parse(row.checklist!)));
-      await qi.sequelize.query('UPDATE revisions SET outcome = ? WHERE id = ?', { replacements: [outcome, row.id], transaction });
+      await qi.sequelize.query('UPDATE revisions SET outcome = ? WHERE id = ?', {
+        replacements: [outcome, row.id], transaction,
+      });
     }
   });
 }

@@ -77,7 +77,9 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
   // Existing rows: project code first, then each calc's newest revision (the update fires the search-text trigger).
   // Data only, so one transaction holds it (DDL commits implicitly in MariaDB): all rows or none.
   await qi.sequelize.transaction(async (transaction) => {
-    await qi.sequelize.query('UPDATE calcs c JOIN projects p ON p.id = c.project_id SET c.project_code = p.code', { transaction });
+    await qi.sequelize.query(
+      'UPDATE calcs c JOIN projects p ON p.id = c.project_id SET c.project_code = p.code', { transaction },
+    );
     await qi.sequelize.query(`UPDATE calcs c JOIN revisions r ON r.calc_id = c.id
       AND r.seq = (SELECT MAX(r2.seq) FROM revisions r2 WHERE r2.calc_id = c.id) SET ${summaryOf('r')}`, { transaction });
   });

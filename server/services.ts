@@ -23,7 +23,8 @@ export function createServices(sequelize: Sequelize, config: Config) {
   const workflow = new WorkflowService(sequelize, baseUrl);
   const impact = new ImpactService(sequelize);
   const store = new ObjectStore(config);
-  const work = new WorkPool({ threads: config.WORK_THREADS, memoryMb: config.WORK_MEMORY_MB, queue: config.WORK_QUEUE });
+  const { WORK_THREADS: threads, WORK_MEMORY_MB: memoryMb, WORK_QUEUE: queue } = config;
+  const work = new WorkPool({ threads, memoryMb, queue });
   const reports = new ReportService(config.REPORT_FONT_DIR, work);
   return {
     baseUrl, calcs, workflow, impact, reports,

@@ -21,16 +21,21 @@ export function toAuditDto(e: Listed): AuditEventDto {
 }
 
 // Everything a list row shows; the diff (often kilobytes of canonical JSON) stays behind.
-const LIST_ATTRIBUTES = ['id', 'occurredAt', 'actorId', 'actorName', 'action', 'entityType', 'entityId', 'payload', 'prevHash', 'hash'];
+const LIST_ATTRIBUTES = [
+  'id', 'occurredAt', 'actorId', 'actorName', 'action', 'entityType', 'entityId', 'payload', 'prevHash', 'hash',
+];
 
 /** Newest first, paged by keyset (`after` the last id shown); counted up to a cap on the first page only. */
-export async function listAudit(ability: AppAbility, query: Omit<AuditQuery, 'page'> & { page?: number }): Promise<KeysetPage<AuditEventDto>> {
+export async function listAudit(
+  ability: AppAbility, query: Omit<AuditQuery, 'page'> & { page?: number },
+): Promise<KeysetPage<AuditEventDto>> {
   ForbiddenError.from(ability).throwUnlessCan('read', 'AuditEvent');
   const where = auditWhere(query);
   const sequelize = AuditEvent.sequelize!;
   const [rows, counted] = await Promise.all([
     AuditEvent.findAll({
-      where, attributes: [...LIST_ATTRIBUTES, [sequelize.literal('diff IS NOT NULL'), 'hasDiff']], order: [['id', 'DESC']],
+      where, attributes: [...LIST_ATTRIBUTES, [sequelize.literal('diff IS NOT NULL'), 'hasDiff']],
+      order: [['id', 'DESC']],
       offset: query.after ? 0 : (query.page ?? 0) * query.size, limit: query.size + 1,
     }),
     query.after ? null : countAudit(query),
@@ -38,17 +43,20 @@ export async function listAudit(ability: AppAbility, query: Omit<AuditQuery, 'pa
   const items = rows.slice(0, query.size);
   const refs = await describeRecords(items);
   return {
-    items: items.map((r) => ({ ...toAuditDto(r), record: recordOf(refs, r) })), size: query.size, total: counted?.total ?? null, totalIsAtLeast: counted?.totalIsAtLeast ?? false,
+    items: items.map((r) => ({ ...toAuditDto(r), record: recordOf(refs, r) })), size: query.size,
+    total: counted?.total ?? null, totalIsAtLeast: counted?.totalIsAtLeast ?? false,
     next: rows.length > query.size ? String(items[items.length - 1].id) : null,
   };
 }
 
 // The same filter as the page, as SQL for the capped count (Sequelize builds it; the page's keyset is left out).
 async function countAudit(query: Omit<AuditQuery, 'page'>) {
-  const qg = AuditEvent.sequelize!.getQueryInterface().queryGenerator as { selectQuery(t: string, o: object, m: unknown): string };
+  type Generator = { selectQuery(t: string, o: object, m: unknown): string };
+  const qg = AuditEvent.sequelize!.getQueryInterface().queryGenerator as Generator;
   // Attribute names become column names as findAll would map them (projectId → project_id).
   const options = (Utils as unknown as { mapOptionFieldNames<T>(o: T, m: unknown): T }).mapOptionFieldNames(
-    { attributes: [[AuditEvent.sequelize!.literal('1'), 'one']], where: auditWhere({ ...query, after: undefined }) }, AuditEvent,
+    { attributes: [[AuditEvent.sequelize!.literal('1'), 'one']], where: auditWhere({ ...query, after: undefined }) },
+    AuditEvent,
   );
   const sql = qg.selectQuery('audit_events', options, AuditEvent);
   return cappedCount(AuditEvent.sequelize!, sql.replace(/^SELECT 1 AS `one` /, '').replace(/;$/, ''), []);
@@ -60,7 +68,8 @@ async function countAudit(query: Omit<AuditQuery, 'page'>) {
  */
 export async function auditPeople(ability: AppAbility): Promise<{ id: number; name: string }[]> {
   ForbiddenError.from(ability).throwUnlessCan('read', 'AuditEvent');
-  const rows = await User.findAll({ attributes: ['id', 'displayName'], order: [['displayName', 'ASC'], ['id', 'ASC']] });
+  const order: [string, string][] = [['displayName', 'ASC'], ['id', 'ASC']];
+  const rows = await User.findAll({ attributes: ['id', 'displayName'], order });
   return rows.map((u) => ({ id: u.id, name: u.displayName }));
 }
 

@@ -1,5 +1,8 @@
 import { DataTypes, type QueryInterface } from 'sequelize';
-import { ROLES } from '../shared/authz/roles';
+
+// The roles as they were when this migration was written; migrations never import live code,
+// so a later change to the app's roles cannot rewrite history (a new role needs a new migration).
+const ROLES = ['author', 'checker', 'approver', 'compliance', 'admin'] as const;
 
 /**
  * Requests to give a person a signing role. The role takes effect only when a second person

@@ -1,5 +1,12 @@
 import { DataTypes, type QueryInterface } from 'sequelize';
-import { REVISION_STATES, STATE_LABELS } from '../shared/schemas/revision.schema';
+
+// The states and their labels as they were when this migration was written (migrations never import
+// live code: the workflow may gain states later, through migrations of its own).
+const REVISION_STATES = ['draft', 'in_check', 'returned', 'checked', 'approved', 'superseded', 'withdrawn'] as const;
+const STATE_LABELS: Record<(typeof REVISION_STATES)[number], string> = {
+  draft: 'Draft', in_check: 'In check', returned: 'Returned', checked: 'Checked',
+  approved: 'Approved', superseded: 'Superseded', withdrawn: 'Withdrawn',
+};
 
 /**
  * What lists show, kept on each calc row: its latest revision's label, state, verdict, author,
@@ -68,9 +75,14 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
   await qi.sequelize.query('ALTER TABLE calcs ADD FULLTEXT INDEX calcs_search (search_text)');
   for (const [name, body] of Object.entries(TRIGGERS)) await qi.sequelize.query(`CREATE TRIGGER ${name} ${body}`);
   // Existing rows: project code first, then each calc's newest revision (the update fires the search-text trigger).
-  await qi.sequelize.query('UPDATE calcs c JOIN projects p ON p.id = c.project_id SET c.project_code = p.code');
-  await qi.sequelize.query(`UPDATE calcs c JOIN revisions r ON r.calc_id = c.id
-    AND r.seq = (SELECT MAX(r2.seq) FROM revisions r2 WHERE r2.calc_id = c.id) SET ${summaryOf('r')}`);
+  // Data only, so one transaction holds it (DDL commits implicitly in MariaDB): all rows or none.
+  await qi.sequelize.transaction(async (transaction) => {
+    await qi.sequelize.query(
+      'UPDATE calcs c JOIN projects p ON p.id = c.project_id SET c.project_code = p.code', { transaction },
+    );
+    await qi.sequelize.query(`UPDATE calcs c JOIN revisions r ON r.calc_id = c.id
+      AND r.seq = (SELECT MAX(r2.seq) FROM revisions r2 WHERE r2.calc_id = c.id) SET ${summaryOf('r')}`, { transaction });
+  });
 }
 
 export async function down({ context: qi }: { context: QueryInterface }): Promise<void> {

@@ -23,11 +23,17 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
   // Filling the new columns on existing rows needs the append-only guard lifted for this one statement set.
   await qi.sequelize.query('DROP TRIGGER IF EXISTS audit_events_no_update');
   try {
-    await qi.sequelize.query("UPDATE audit_events SET project_id = CAST(entity_id AS UNSIGNED) WHERE entity_type = 'Project'");
-    await qi.sequelize.query(`UPDATE audit_events a JOIN calcs c ON a.entity_type = 'Calc' AND c.id = CAST(a.entity_id AS UNSIGNED)
-      SET a.calc_id = c.id, a.project_id = c.project_id`);
-    await qi.sequelize.query(`UPDATE audit_events a JOIN revisions r ON a.entity_type = 'Revision' AND r.id = CAST(a.entity_id AS UNSIGNED)
-      JOIN calcs c ON c.id = r.calc_id SET a.calc_id = c.id, a.project_id = c.project_id`);
+    // The data in one transaction (the DDL around it commits implicitly in MariaDB): all rows or none.
+    await qi.sequelize.transaction(async (transaction) => {
+      await qi.sequelize.query(
+        "UPDATE audit_events SET project_id = CAST(entity_id AS UNSIGNED) WHERE entity_type = 'Project'", { transaction },
+      );
+      await qi.sequelize.query(`UPDATE audit_events a JOIN calcs c ON a.entity_type = 'Calc' AND c.id = CAST(a.entity_id AS UNSIGNED)
+        SET a.calc_id = c.id, a.project_id = c.project_id`, { transaction });
+      await qi.sequelize.query(`UPDATE audit_events a JOIN revisions r ON a.entity_type = 'Revision'
+        AND r.id = CAST(a.entity_id AS UNSIGNED) JOIN calcs c ON c.id = r.calc_id
+        SET a.calc_id = c.id, a.project_id = c.project_id`, { transaction });
+    });
   } finally {
     await qi.sequelize.query(NO_UPDATE);
   }

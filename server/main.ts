@@ -1,4 +1,5 @@
 import type { Server } from 'node:http';
+import { CAUTION } from '../shared/engine';
 import { loadConfig } from './config';
 import { createSequelize } from './db';
 import { createApp } from './app';
@@ -22,7 +23,7 @@ async function main(): Promise<void> {
     logger.info({ port }, 'Torquetrail is listening');
     if (config.NODE_ENV !== 'test') {
       process.stdout.write(`\nTorquetrail is running at http://${config.HOST}:${port}/  (Ctrl-C stops it)\n` +
-        'Results support, never replace, a qualified engineer\'s judgement; local codes and licensed practice govern.\n\n');
+        `${CAUTION}\n\n`);
     }
     if (process.send) process.send({ ready: true, port });
   });

@@ -1,19 +1,19 @@
 import { createHash } from 'node:crypto';
 import { ForbiddenError } from '@casl/ability';
-import type { Sequelize, Transaction } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { AttachmentDto, AttachmentListDto, UploadFields } from '../../shared/schemas/attachment.schema';
 import { EDITABLE_STATES } from '../../shared/schemas/revision.schema';
 import { Attachment, Revision } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
-import { loadRevision } from '../calcs/calc-access';
+import { loadRevision, loadRevisionForChange } from '../calcs/calc-access';
 import { ObjectStore } from './object-store';
 import { refreshAfterAttachmentChange } from '../workflow/signed-content';
 import { ACCEPTED_TYPE_NAMES, detectMediaType } from './content-type';
 import { assertDeclaredKind } from './declared-kind';
 import { READ_ONLY_STATES, cleanFileName, mayAddFiles, toAttachmentDto } from './attachment-access';
-import { assertProjectOpen, isProjectArchived } from '../projects/project-open';
+import { isProjectArchived } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
 
 export interface UploadedFile { buffer: Buffer; originalname: string }
@@ -35,12 +35,12 @@ export class AttachmentsService {
     assertDeclaredKind(file.originalname, fields.kind, mediaType);
     const sha256 = createHash('sha256').update(file.buffer).digest('hex');
     const key = ObjectStore.keyFor(sha256);
-    await this.assertMayAdd(ability, await loadRevision(revisionId));
+    this.assertMayAdd(ability, await loadRevisionForChange(revisionId));
     // Bytes first: an orphaned blob after a failed insert is harmless, a row without bytes is not.
     await this.store.putIfAbsent(key, file.buffer, mediaType);
     const id = await runTransaction(this.sequelize, async (transaction) => {
-      const revision = await loadRevision(revisionId, transaction);
-      await this.assertMayAdd(ability, revision, transaction);
+      const revision = await loadRevisionForChange(revisionId, transaction);
+      this.assertMayAdd(ability, revision);
       const row = await Attachment.create({
         revisionId, kind: fields.kind, fileName: cleanFileName(file.originalname), mediaType, sizeBytes: file.buffer.length,
         sha256, storageKey: key, note: fields.note, uploadedBy: actor.id, uploadedByName: actor.name,
@@ -67,8 +67,7 @@ export class AttachmentsService {
     await runTransaction(this.sequelize, async (transaction) => {
       const row = await Attachment.findByPk(id, { transaction });
       if (!row) throw AppError.notFound(`Attachment ${id}`);
-      const revision = await loadRevision(row.revisionId, transaction);
-      await assertProjectOpen(revision.calcId, transaction);
+      const revision = await loadRevisionForChange(row.revisionId, transaction);
       if (READ_ONLY_STATES.includes(revision.status)) throw this.readOnly(revision, 'removed');
       if (!EDITABLE_STATES.includes(revision.status)) throw AppError.conflict(`Files are removed only before submission; revision ${revision.label} is ${revision.status.replace('_', ' ')}`);
       // The author answers for every file of their draft, so they can take out one a co-editor attached by mistake.
@@ -83,11 +82,10 @@ export class AttachmentsService {
   }
 
   async assertMayAddTo(ability: AppAbility, revisionId: number): Promise<void> {
-    await this.assertMayAdd(ability, await loadRevision(revisionId));
+    this.assertMayAdd(ability, await loadRevisionForChange(revisionId));
   }
 
-  private async assertMayAdd(ability: AppAbility, revision: Revision, transaction?: Transaction): Promise<void> {
-    await assertProjectOpen(revision.calcId, transaction);
+  private assertMayAdd(ability: AppAbility, revision: Revision): void {
     if (READ_ONLY_STATES.includes(revision.status)) throw this.readOnly(revision, 'added');
     if (!mayAddFiles(ability, revision)) {
       throw new AppError('forbidden', 403, 'Files are added by the author while editing, or by the independent checker or approver while reviewing');

@@ -1,82 +1,22 @@
-import { Router } from 'express';
-import { ForbiddenError } from '@casl/ability';
-import { Utils } from 'sequelize';
-import { auditQuerySchema, type AuditEventDto, type AuditQuery } from '../../shared/schemas/audit.schema';
-import { idParamsSchema, type KeysetPage } from '../../shared/schemas/common.schema';
-import type { AppAbility } from '../../shared/authz/app-ability';
-import { AuditEvent, User } from '../db/models';
+import type { Router } from 'express';
+import { auditQuerySchema } from '../../shared/schemas/audit.schema';
 import { validate } from '../http/validate';
-import { AppError } from '../errors/app-error';
-import { cappedCount } from '../http/keyset';
-import { verifyAuditChain } from './audit.service';
-import { auditWhere } from './audit-filter';
-import { describeRecords, recordOf } from './audit-records';
-
-type Listed = AuditEvent & { hasDiff?: number };
-
-export function toAuditDto(e: Listed): AuditEventDto {
-  return {
-    id: e.id, occurredAt: e.occurredAt.toISOString(), actorId: e.actorId, actorName: e.actorName, action: e.action,
-    entityType: e.entityType, entityId: e.entityId, payload: JSON.parse(e.payload), diff: e.diff ?? null,
-    hasDiff: e.diff != null || Boolean(e.get?.('hasDiff')), prevHash: e.prevHash, hash: e.hash,
-  };
-}
-
-// Everything a list row shows; the diff (often kilobytes of canonical JSON) stays behind.
-const LIST_ATTRIBUTES = ['id', 'occurredAt', 'actorId', 'actorName', 'action', 'entityType', 'entityId', 'payload', 'prevHash', 'hash'];
-
-/** Newest first, paged by keyset (`after` the last id shown); counted up to a cap on the first page only. */
-export async function listAudit(ability: AppAbility, query: Omit<AuditQuery, 'page'> & { page?: number }): Promise<KeysetPage<AuditEventDto>> {
-  ForbiddenError.from(ability).throwUnlessCan('read', 'AuditEvent');
-  const where = auditWhere(query);
-  const sequelize = AuditEvent.sequelize!;
-  const [rows, counted] = await Promise.all([
-    AuditEvent.findAll({
-      where, attributes: [...LIST_ATTRIBUTES, [sequelize.literal('diff IS NOT NULL'), 'hasDiff']], order: [['id', 'DESC']],
-      offset: query.after ? 0 : (query.page ?? 0) * query.size, limit: query.size + 1,
-    }),
-    query.after ? null : countAudit(query),
-  ]);
-  const items = rows.slice(0, query.size);
-  const refs = await describeRecords(items);
-  return {
-    items: items.map((r) => ({ ...toAuditDto(r), record: recordOf(refs, r) })), size: query.size, total: counted?.total ?? null, totalIsAtLeast: counted?.totalIsAtLeast ?? false,
-    next: rows.length > query.size ? String(items[items.length - 1].id) : null,
-  };
-}
-
-// The same filter as the page, as SQL for the capped count (Sequelize builds it; the page's keyset is left out).
-async function countAudit(query: Omit<AuditQuery, 'page'>) {
-  const qg = AuditEvent.sequelize!.getQueryInterface().queryGenerator as { selectQuery(t: string, o: object, m: unknown): string };
-  // Attribute names become column names as findAll would map them (projectId → project_id).
-  const options = (Utils as unknown as { mapOptionFieldNames<T>(o: T, m: unknown): T }).mapOptionFieldNames(
-    { attributes: [[AuditEvent.sequelize!.literal('1'), 'one']], where: auditWhere({ ...query, after: undefined }) }, AuditEvent,
-  );
-  const sql = qg.selectQuery('audit_events', options, AuditEvent);
-  return cappedCount(AuditEvent.sequelize!, sql.replace(/^SELECT 1 AS `one` /, '').replace(/;$/, ''), []);
-}
+import { idParam, idRouter } from '../http/route-ids';
+import { auditEntry, auditPeople, checkAuditChain, listAudit } from './audit-read.service';
 
 export function auditRouter(): Router {
-  const router = Router();
+  const router = idRouter();
   router.get('/', validate({ query: auditQuerySchema }), async (req, res) => {
     res.json(await listAudit(req.ability, res.locals.query));
   });
-  // Everyone who can appear in the trail as an actor, for the auditor's person picker (compliance cannot list
-  // accounts). Read from the people table, not grouped out of the trail, which would scan every audit entry.
   router.get('/people', async (req, res) => {
-    ForbiddenError.from(req.ability).throwUnlessCan('read', 'AuditEvent');
-    const rows = await User.findAll({ attributes: ['id', 'displayName'], order: [['displayName', 'ASC'], ['id', 'ASC']] });
-    res.json(rows.map((u) => ({ id: u.id, name: u.displayName })));
+    res.json(await auditPeople(req.ability));
   });
   router.get('/verify', async (req, res) => {
-    ForbiddenError.from(req.ability).throwUnlessCan('read', 'AuditEvent');
-    res.json({ ...(await verifyAuditChain()), checkedAt: new Date().toISOString() });
+    res.json(await checkAuditChain(req.ability));
   });
-  router.get('/:id', validate({ params: idParamsSchema }), async (req, res) => {
-    ForbiddenError.from(req.ability).throwUnlessCan('read', 'AuditEvent');
-    const event = await AuditEvent.findByPk(Number(req.params.id));
-    if (!event) throw AppError.notFound(`Audit entry ${req.params.id}`);
-    res.json(toAuditDto(event));
+  router.get('/:id', async (req, res) => {
+    res.json(await auditEntry(req.ability, idParam(req)));
   });
   return router;
 }

@@ -4,6 +4,7 @@ import type { Action, AppAbility } from '../../shared/authz/app-ability';
 import { Calc, CalcEditor, Revision, RuleSetRecord, User } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { REVISION_INCLUDE } from './calc-mapping';
+import { assertProjectOpen } from '../projects/project-open';
 
 /** The fields ability conditions look at; the same shape the client wraps with `subject()`. */
 export function revisionSubject(r: Revision) {
@@ -35,6 +36,23 @@ export async function loadRevision(id: number, transaction?: Transaction): Promi
   if (!revision) throw AppError.notFound(`Revision ${id}`);
   await attachAssociations(revision, transaction);
   return revision;
+}
+
+/**
+ * Loads a revision that a write is about to change (locked when a transaction is given) and
+ * refuses it when its project is archived: every write starts here, so none can forget the check.
+ */
+export async function loadRevisionForChange(id: number, transaction?: Transaction): Promise<Revision> {
+  const revision = await loadRevision(id, transaction);
+  await assertProjectOpen(revision.calcId, transaction);
+  return revision;
+}
+
+/** The calc-level counterpart of loadRevisionForChange, for writes that add to a calc. */
+export async function loadCalcForChange(id: number, transaction: Transaction): Promise<Calc> {
+  const calc = await loadCalc(id, transaction);
+  await assertProjectOpen(calc.id, transaction);
+  return calc;
 }
 
 /** The standard and the people of a locked revision, read without locks (they are only read). */

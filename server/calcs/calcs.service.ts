@@ -73,6 +73,7 @@ export class CalcsService {
       const revision = await loadRevision(revisionId, transaction);
       // A run after a COMMIT whose answer was lost: this exact save is already stored.
       if (attempt > 1 && revision.lockVersion === dto.lockVersion + 1 && revision.input === JSON.stringify(dto.input)) return;
+      // Checked after the replay above (not by loadRevisionForChange): a replayed save answers as the first did.
       await assertProjectOpen(revision.calcId, transaction);
       if (!EDITABLE_STATES.includes(revision.status)) {
         throw new AppError('read_only', 409, `Revision ${revision.label} is ${revision.status.replace('_', ' ')} and cannot be edited; start a new revision to change it`);

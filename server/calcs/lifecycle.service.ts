@@ -5,14 +5,13 @@ import type { RevisionDto } from '../../shared/schemas/calc-dto';
 import { Project, Revision, RuleSetRecord } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
-import { assertCan, loadCalc, loadRevision, recordEditor } from './calc-access';
+import { assertCan, loadCalcForChange, loadRevisionForChange, recordEditor } from './calc-access';
 import { computeRecord } from './revision-content';
 import { readRevision } from './revision-read';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { revisionLabel } from './revision-label';
 import { stored, type CalcsService } from './calcs.service';
 import { carryOver } from '../attachments/carry-over';
-import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
 import { WITHDRAWN_STATE, WORKFLOW, type RevisionState } from '../../shared/workflow/revision-states';
 
@@ -27,8 +26,7 @@ export class LifecycleService {
   async newRevision(ability: AppAbility, actor: Actor & { id: number }, calcId: number, reasonForChange: string, carryAttachments = false): Promise<RevisionDto> {
     ForbiddenError.from(ability).setMessage('Only authors start new revisions').throwUnlessCan('create', 'Calc');
     const id = await runTransaction(this.sequelize, async (transaction) => {
-      const calc = await loadCalc(calcId, transaction);
-      await assertProjectOpen(calc.id, transaction);
+      const calc = await loadCalcForChange(calcId, transaction);
       const latest = await Revision.findOne({ where: { calcId }, order: [['seq', 'DESC']], transaction, lock: transaction.LOCK.UPDATE });
       if (!latest || !WORKFLOW[latest.status as RevisionState].allowsNextRevision) {
         throw AppError.conflict(`Revision ${latest?.label} is still ${latest?.status.replace('_', ' ')}; finish or withdraw it before starting another`);
@@ -56,8 +54,7 @@ export class LifecycleService {
 
   async withdraw(ability: AppAbility, actor: Actor & { id: number }, revisionId: number, reason: string, lockVersion: number): Promise<RevisionDto> {
     await runTransaction(this.sequelize, async (transaction) => {
-      const revision = await loadRevision(revisionId, transaction);
-      await assertProjectOpen(revision.calcId, transaction);
+      const revision = await loadRevisionForChange(revisionId, transaction);
       assertCan(ability, 'update', revision, 'Only the author can withdraw a draft or returned revision');
       if (revision.lockVersion !== lockVersion) throw AppError.conflict('The revision changed since you opened it; reload it');
       revision.status = WITHDRAWN_STATE;

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { parseStrictJson } from '../../shared/json/strict-json';
 import { RECORD_FORMAT } from './record-json';
+import { chainedContentSchema } from '../audit/audit-chain';
 
 /*
  * The JSON files of an evidence pack as the verifier accepts them. A pack comes from outside (it
@@ -39,15 +40,7 @@ export type PackRecord = z.infer<typeof packRecordSchema>;
 /** Exactly the columns an audit row's hash covers, plus its id and hashes: nothing more, nothing less. */
 export const auditRowSchema = z.strictObject({
   id: z.number().int(),
-  occurredAt: z.string().max(40),
-  actorId: z.number().int().nullable(),
-  actorName: z.string(),
-  action: z.string(),
-  entityType: z.string(),
-  entityId: z.string().nullable(),
-  payload: z.string(),
-  diff: z.string().nullable(),
-  ip: z.string().nullable(),
+  ...chainedContentSchema.shape,
   prevHash: sha256Hex,
   hash: sha256Hex,
 });

@@ -1,6 +1,6 @@
 import { ForbiddenError } from '@casl/ability';
 import { Op, type Sequelize } from 'sequelize';
-import { evaluateValidInput, validateCalcInput, type CalcInput } from '../../shared/engine';
+import { CAUTION, evaluateValidInput, validateCalcInput, type CalcInput } from '../../shared/engine';
 import { applyRuleSetMethods, diffRuleSets, evaluateChecklist, evaluateChecklistSync, type RuleSet } from '../../shared/rules';
 import { outcomeOf, type OutcomeSummary } from '../../shared/schemas/outcome';
 import type { AppAbility } from '../../shared/authz/app-ability';
@@ -105,8 +105,7 @@ export class ImpactService {
     const report = await this.analyse(ability, ruleSetId);
     // Header first so spreadsheet tools read the columns; the summary and the caution close the file.
     const summary = `${report.evaluated} approved revisions re-evaluated under ${report.ruleSet.code} v${report.ruleSet.version}; ${report.changed} change verdict`;
-    const caution = 'Results support, never replace, the judgement of a qualified engineer; local codes and licensed practice govern.';
-    return toCsv(IMPACT_COLUMNS, report.rows, [summary, caution]);
+    return toCsv(IMPACT_COLUMNS, report.rows, [summary, CAUTION]);
   }
 
   async diff(ability: AppAbility, fromId: number, toId: number) {
@@ -137,7 +136,7 @@ export class ImpactService {
       const list = report.rows.slice(0, 50).map((r) => `- ${r.projectCode} ${r.number} rev ${r.revision}: ${r.before} → ${r.after}`).join('\n');
       await enqueueMail(await emailsOfRole('compliance', [], transaction), {
         event: 'impact', subject: `${record.code} v${record.version} changes the verdict of ${report.changed} approved calc(s)`,
-        body: `${record.code} v${record.version} is now effective (${actor.id === null ? `in force from its effective date, ${record.effectiveDate}` : `confirmed by ${actor.name}`}). Re-evaluated ${report.evaluated} approved calcs; ${report.changed} change:\n\n${list}\n\nImpact report: ${appLink(`/rule-sets/${record.id}`)}\n\nTorquetrail supports, and never replaces, the judgement of a qualified engineer; local codes and licensed practice govern.`,
+        body: `${record.code} v${record.version} is now effective (${actor.id === null ? `in force from its effective date, ${record.effectiveDate}` : `confirmed by ${actor.name}`}). Re-evaluated ${report.evaluated} approved calcs; ${report.changed} change:\n\n${list}\n\nImpact report: ${appLink(`/rule-sets/${record.id}`)}\n\n${CAUTION}`,
       }, transaction);
       await appendAudit(this.sequelize, actor, { action: 'rule_set.impact_notified', entityType: 'RuleSet', entityId: record.id, payload: { changed: report.changed, evaluated: report.evaluated } }, transaction);
     });

@@ -1,10 +1,12 @@
 import type { Transaction } from 'sequelize';
+import { LRUCache } from 'lru-cache';
 import type { RuleSet } from '../../shared/rules';
 import { RuleSetRecord } from '../db/models';
 import { AppError } from '../errors/app-error';
 
 // Parsed documents by id and lock version: effective versions never change, drafts bump the version.
-const cache = new Map<string, RuleSet>();
+// Bounded: every draft save makes a new key, and the superseded ones are never asked for again.
+const cache = new LRUCache<string, RuleSet>({ max: 200 });
 
 export function parseRuleSet(record: RuleSetRecord): RuleSet {
   const key = `${record.id}:${record.lockVersion}`;

@@ -70,7 +70,7 @@ export class RuleSetsService {
   }
 
   async propose(ability: AppAbility, actor: Person, id: number, effectiveDate: string, lockVersion: number): Promise<RuleSetDto> {
-    await runTransaction(this.sequelize, async (transaction) => {
+    const isEffective = await runTransaction(this.sequelize, async (transaction) => {
       const record = await this.load(id, transaction, true);
       this.assertDraft(ability, record, 'publish');
       if (record.lockVersion !== lockVersion) throw AppError.conflict('The draft changed since you opened it; review it again');
@@ -91,7 +91,7 @@ export class RuleSetsService {
       await appendAudit(this.sequelize, actor, { action: 'rule_set.confirmation_refused', entityType: 'RuleSet', entityId: id, payload: { reason: 'wrong password' } });
       throw new AppError('validation', 400, 'Password is not correct; nothing was confirmed', { fieldErrors: { password: ['is not correct'] } });
     }
-    await runTransaction(this.sequelize, async (transaction) => {
+    const isEffective = await runTransaction(this.sequelize, async (transaction) => {
       const record = await this.load(id, transaction, true);
       this.assertDraft(ability, record, 'publish');
       if (record.lockVersion !== lockVersion) throw AppError.conflict('The draft changed since you opened it; review it again');
@@ -101,8 +101,11 @@ export class RuleSetsService {
       await record.save({ transaction });
       await appendAudit(this.sequelize, actor, { action: 'rule_set.confirmed', entityType: 'RuleSet', entityId: id, payload: { code: record.code, version: record.version, effectiveDate: record.effectiveDate } }, transaction);
       // A version confirmed for a later date waits, confirmed but not yet in force, until that day.
-      if (record.effectiveDate! <= todayUtc()) await this.makeEffective(record, actor, transaction);
+      if (record.effectiveDate! > todayUtc()) return false;
+      await this.makeEffective(record, actor, transaction);
+      return true;
     });
+    if (isEffective) await this.onEffective?.(actor, id);
     return this.get(ability, id);
   }
 

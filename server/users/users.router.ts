@@ -1,9 +1,10 @@
-import { Router } from 'express';
+import type { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { idParamsSchema, pageQuerySchema } from '../../shared/schemas/common.schema';
+import { pageQuerySchema } from '../../shared/schemas/common.schema';
 import { createUserSchema, updateUserSchema } from '../../shared/schemas/user.schema';
 import { validate } from '../http/validate';
+import { idParam, idRouter } from '../http/route-ids';
 import { signedInActor } from '../authz/actor';
 import { AppError } from '../errors/app-error';
 import { UsersService } from './users.service';
@@ -11,7 +12,7 @@ import { UsersService } from './users.service';
 const activeSchema = z.object({ active: z.boolean({ error: 'must be true or false' }) }).strict();
 
 export function usersRouter(sequelize: Sequelize): Router {
-  const router = Router();
+  const router = idRouter();
   const users = new UsersService(sequelize);
 
   router.get('/', validate({ query: pageQuerySchema }), async (req, res) => {
@@ -20,14 +21,14 @@ export function usersRouter(sequelize: Sequelize): Router {
   router.post('/', validate({ body: createUserSchema }), async (req, res) => {
     res.status(201).json(await users.create(req.ability, signedInActor(req), req.body));
   });
-  router.get('/:id', validate({ params: idParamsSchema }), async (req, res) => {
-    res.json(await users.get(req.ability, Number(req.params.id)));
+  router.get('/:id', async (req, res) => {
+    res.json(await users.get(req.ability, idParam(req)));
   });
-  router.patch('/:id', validate({ params: idParamsSchema, body: updateUserSchema }), async (req, res) => {
-    res.json(await users.update(req.ability, signedInActor(req), Number(req.params.id), req.body));
+  router.patch('/:id', validate({ body: updateUserSchema }), async (req, res) => {
+    res.json(await users.update(req.ability, signedInActor(req), idParam(req), req.body));
   });
-  router.put('/:id/active', validate({ params: idParamsSchema, body: activeSchema }), async (req, res) => {
-    res.json(await users.setActive(req.ability, signedInActor(req), Number(req.params.id), req.body.active));
+  router.put('/:id/active', validate({ body: activeSchema }), async (req, res) => {
+    res.json(await users.setActive(req.ability, signedInActor(req), idParam(req), req.body.active));
   });
   // Accounts are kept for the record: signatures and audit entries refer to them forever.
   router.delete('/:id', () => {

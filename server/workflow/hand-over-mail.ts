@@ -1,4 +1,5 @@
 import type { Transaction } from 'sequelize';
+import { CAUTION } from '../../shared/engine';
 import { enqueueMail, emailOf, emailsOfRole } from '../mail/outbox';
 
 export interface HandOverFacts {
@@ -6,8 +7,6 @@ export interface HandOverFacts {
   calcId: number; calcNumber: string; calcTitle: string; projectCode: string; revision: string;
   actorName: string; authorId: number; checkerId: number | null; editorIds: number[]; reason?: string; baseUrl: string;
 }
-
-const CAUTION = 'Torquetrail supports, and never replaces, the judgement of a qualified engineer; local codes and licensed practice govern.';
 
 /** Who hears of each hand-over, and what they are told. */
 export async function queueHandOverMail(f: HandOverFacts, transaction: Transaction): Promise<void> {

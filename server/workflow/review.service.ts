@@ -4,12 +4,11 @@ import type { RevisionDto } from '../../shared/schemas/calc-dto';
 import { Finding, type Revision } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
-import { assertCan, editorIdsOf, loadRevision } from '../calcs/calc-access';
+import { assertCan, editorIdsOf, loadRevisionForChange } from '../calcs/calc-access';
 import { readRevision } from '../calcs/revision-read';
 import type { WorkflowService } from './workflow.service';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { assertAttachmentFor } from '../attachments/attachment-rules';
-import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
 import { RETURNED_STATE } from '../../shared/workflow/revision-states';
 
@@ -21,8 +20,7 @@ export class ReviewService {
 
   async raiseFinding(ability: AppAbility, actor: Reviewer, revisionId: number, text: string, clauseRef?: string): Promise<RevisionDto> {
     await runTransaction(this.sequelize, async (transaction) => {
-      const revision = await loadRevision(revisionId, transaction);
-      await assertProjectOpen(revision.calcId, transaction);
+      const revision = await loadRevisionForChange(revisionId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker or approver reviewing this revision can raise findings');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
       const finding = await Finding.create({ revisionId, text, clauseRef: clauseRef ?? null, raisedBy: actor.id }, { transaction });
@@ -34,8 +32,7 @@ export class ReviewService {
   async answerFinding(ability: AppAbility, actor: Reviewer, findingId: number, answer: string): Promise<RevisionDto> {
     const revisionId = await runTransaction(this.sequelize, async (transaction) => {
       const finding = await this.loadFinding(findingId, transaction);
-      const revision = await loadRevision(finding.revisionId, transaction);
-      await assertProjectOpen(revision.calcId, transaction);
+      const revision = await loadRevisionForChange(finding.revisionId, transaction);
       assertCan(ability, 'update', revision, 'Only the author of a returned or draft revision answers its findings');
       if (finding.status === 'closed') throw AppError.conflict('This finding is already closed');
       // One answer per finding: a second click or a second tab must not put two answers on the record.
@@ -51,8 +48,7 @@ export class ReviewService {
   async closeFinding(ability: AppAbility, actor: Reviewer, findingId: number): Promise<RevisionDto> {
     const revisionId = await runTransaction(this.sequelize, async (transaction) => {
       const finding = await this.loadFinding(findingId, transaction);
-      const revision = await loadRevision(finding.revisionId, transaction);
-      await assertProjectOpen(revision.calcId, transaction);
+      const revision = await loadRevisionForChange(finding.revisionId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker or approver reviewing this revision can close findings');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
       if (finding.status !== 'answered') throw AppError.conflict('A finding is closed once its author has answered it');
@@ -67,8 +63,7 @@ export class ReviewService {
   /** Back to the author: the reason becomes an open finding they must answer before resubmitting. */
   async returnToAuthor(ability: AppAbility, actor: Reviewer, revisionId: number, reason: string, lockVersion: number): Promise<RevisionDto> {
     await runTransaction(this.sequelize, async (transaction) => {
-      const revision = await loadRevision(revisionId, transaction);
-      await assertProjectOpen(revision.calcId, transaction);
+      const revision = await loadRevisionForChange(revisionId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker (in check) or approver (checked) can return this revision');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
       if (revision.lockVersion !== lockVersion) throw AppError.conflict('The revision changed since you opened it; reload it');
@@ -84,8 +79,7 @@ export class ReviewService {
 
   async setManualItem(ability: AppAbility, actor: Reviewer, revisionId: number, itemId: string, done: boolean, note: string): Promise<RevisionDto> {
     await runTransaction(this.sequelize, async (transaction) => {
-      const revision = await loadRevision(revisionId, transaction);
-      await assertProjectOpen(revision.calcId, transaction);
+      const revision = await loadRevisionForChange(revisionId, transaction);
       assertCan(ability, 'check', revision, 'Manual checklist items are ticked by the independent checker while the calc is in check');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
       assertKnownItem(revision, itemId);

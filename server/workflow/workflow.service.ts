@@ -8,7 +8,7 @@ import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { verifyPassword } from '../auth/password';
 import { assertSecondFactor } from '../auth/second-factor';
-import { editorIdsOf, loadRevision } from '../calcs/calc-access';
+import { editorIdsOf, loadRevision, loadRevisionForChange } from '../calcs/calc-access';
 import { currentHashOf, readRevision } from '../calcs/revision-read';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { signingBlocker, type Meaning } from './independence';
@@ -35,8 +35,7 @@ export class WorkflowService {
     // A retried request (same key) skips this: the revision has already moved on by its own signature.
     const retried = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey } });
     if (!retried) {
-      const revision = await loadRevision(revisionId);
-      await assertProjectOpen(revision.calcId);
+      const revision = await loadRevisionForChange(revisionId);
       await this.assertMaySign(dto.meaning, signer, revision);
     }
     await this.checkPassword(signer, revisionId, dto);
@@ -46,6 +45,7 @@ export class WorkflowService {
       const earlier = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey }, transaction });
       if (earlier && earlier.revisionId === revisionId && earlier.userId === signer.id) return;
       if (earlier) throw AppError.conflict('This signing request key was already used for another signature; reload and sign again');
+      // Checked after the replay above: a replayed signature answers as the first request did.
       await assertProjectOpen(revision.calcId, transaction);
       if (revision.lockVersion !== dto.lockVersion) throw AppError.conflict('The revision changed since you opened it; review the new content before signing');
       await this.assertMaySign(dto.meaning, signer, revision, transaction);

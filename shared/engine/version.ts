@@ -5,5 +5,6 @@
 // metadata is kept per engine version (server/calcs/stored-result.ts), so any change to `fields` needs a new version.
 export const ENGINE_VERSION = '2.0.0';
 
+/** The one wording of the safety caution: results, reports, command output, mail and the client's screens. */
 export const CAUTION = 'Results support, never replace, the judgement of a qualified engineer; '
   + 'local codes and licensed practice govern.';

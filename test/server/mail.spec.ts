@@ -49,7 +49,7 @@ describe('hand-over mail', () => {
     expect(returned.text).toContain(`/calcs/${team.calc.id}`);
     expect(returned.text).toContain('Use the certified Sy');
     expect(returned.text).toMatch(/Test checker/);
-    expect(returned.text).toMatch(/never replaces, the judgement of a qualified engineer/);
+    expect(returned.text).toMatch(/never replace, the judgement of a qualified engineer/);
     expect(returned.headers['message-id']).toMatch(/^<tt-outbox-\d+-\d+@kestrelfen\.example>$/);
   });
 

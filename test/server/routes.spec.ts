@@ -1,34 +1,19 @@
 import type { Test } from 'supertest';
 import { anonymousAgent, signedInAs, startTestApp } from '../support/api-harness';
+import { allRoutes, type Method } from '../support/route-list';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
 
-type Method = 'get' | 'post' | 'patch' | 'put' | 'delete';
 const MISSING = 2147483000;
 
-// Every route behind sign-in, with a body that would pass validation.
-const PROTECTED: [Method, string, object?][] = [
-  ['get', '/api/users'],
-  ['post', '/api/users', { username: 'nobody-here', displayName: 'No Body', email: 'n@example.test', roles: ['author'], initialPassword: 'long enough password' }],
-  ['get', '/api/users/1'],
-  ['patch', '/api/users/1', { displayName: 'New Name', version: 0 }],
-  ['put', '/api/users/1/active', { active: false }],
-  ['delete', '/api/users/1'],
-  ['get', '/api/projects'],
-  ['post', '/api/projects', { code: 'ANON-1', name: 'Anonymous shaft' }],
-  ['get', '/api/projects/1'],
-  ['patch', '/api/projects/1', { name: 'Anonymous rename', version: 0 }],
-  ['get', '/api/audit'],
-  ['get', '/api/audit/verify'],
-  ['get', '/api/dashboard'],
-  ['post', '/api/auth/password', { currentPassword: 'whatever', newPassword: 'long enough password' }],
-  ['get', '/api/auth/sessions'],
-  ['delete', '/api/auth/sessions/0123456789abcdef0123456789abcdef'],
-  ['get', '/api/role-grants'],
-  ['post', '/api/role-grants/1/confirm', { password: 'whatever' }],
-  ['post', '/api/role-grants/1/refuse', { reason: 'not needed' }],
-];
+// The only routes that answer without a session; every other route the app has must be a 401.
+const PUBLIC = ['GET /api/health', 'GET /api/session', 'POST /api/auth/login', 'POST /api/auth/logout'];
+// Built from the app's router stack, so a route added anywhere is checked without editing this file.
+const API_ROUTES = allRoutes(app).filter((r) => r.path.startsWith('/api/'));
+const PROTECTED = API_ROUTES.filter((r) => !PUBLIC.includes(`${r.method.toUpperCase()} ${r.path}`));
+// Sign-in is checked before any parameter or body, so any value stands in for a path parameter.
+const urlOf = (path: string) => path.replace(/:\w+/g, '1');
 
 const BY_ID: [Method, string, object?][] = [
   ['get', '/api/users/:id'],
@@ -47,12 +32,20 @@ function send(test: Test, body?: object | null): Test {
 const padded = (rows: [Method, string, object?][]) => rows.map(([m, u, b]) => [m, u, b ?? null] as const);
 
 describe('every route behind sign-in', () => {
-  it.each(padded(PROTECTED))('when nobody is signed in and %s %s is called, then it is a JSON 401', async (method, url, body) => {
-    const { agent, token } = await anonymousAgent(app);
-    const res = await send(agent[method](url).set('x-csrf-token', token), body);
-    expect(res.status).toBe(401);
-    expect(res.body).toEqual({ code: 'sign_in_required', message: 'Sign in to continue' });
+  it('when the router stack is read, then it lists every area and the public routes', () => {
+    expect(API_ROUTES.length).toBeGreaterThanOrEqual(67);
+    expect(API_ROUTES.map((r) => `${r.method.toUpperCase()} ${r.path}`)).toEqual(expect.arrayContaining(PUBLIC));
   });
+
+  it.each(PROTECTED.map((r) => [r.method, r.path] as const))(
+    'when nobody is signed in and %s %s is called, then it is a JSON 401',
+    async (method, path) => {
+      const { agent, token } = await anonymousAgent(app);
+      const res = await agent[method](urlOf(path)).set('x-csrf-token', token);
+      expect(res.status).toBe(401);
+      expect(res.body).toEqual({ code: 'sign_in_required', message: 'Sign in to continue' });
+    },
+  );
 });
 
 describe('routes with an id', () => {
@@ -73,6 +66,17 @@ describe('routes with an id', () => {
       const res = await send(admin.agent[method](url).set('x-csrf-token', admin.csrf), body);
       expect(res.status).toBe(400);
       expect(Object.keys(res.body.fieldErrors)).toEqual(['params.id']);
+    },
+  );
+
+  // Every numeric :id of the router stack (a session id is a hex token, not a record id).
+  const numericIdRoutes = PROTECTED.filter((r) => r.path.includes('/:id') && r.path !== '/api/auth/sessions/:id');
+  it.each(numericIdRoutes.map((r) => [r.method, r.path] as const))(
+    'when %s %s has the id "abc", then it is a 400 naming params.id before anything else is read',
+    async (method, path) => {
+      const res = await admin.agent[method](urlOf(path.replace(':id', 'abc'))).set('x-csrf-token', admin.csrf);
+      expect(res.status).toBe(400);
+      expect(res.body.fieldErrors).toEqual({ 'params.id': ['must be a number'] });
     },
   );
 });

@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, booleanAttribute, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
+import { CAUTION } from '../../../shared/engine';
 
 /** The caution every place with results carries: the product supports engineers, it does not replace them. */
 @Component({
@@ -8,10 +9,7 @@ import { MatIconModule } from '@angular/material/icon';
   template: `
     <aside class="note" [class.compact]="compact()" aria-label="Engineering caution">
       <mat-icon aria-hidden="true">engineering</mat-icon>
-      <p>
-        Torquetrail's results support, and never replace, the judgement of a qualified engineer.
-        Local codes, your design standard and licensed practice govern every design decision.
-      </p>
+      <p>{{ caution }}</p>
     </aside>
   `,
   styles: `
@@ -25,4 +23,5 @@ import { MatIconModule } from '@angular/material/icon';
 })
 export class SafetyNote {
   readonly compact = input(false, { transform: booleanAttribute });
+  protected readonly caution = CAUTION;
 }

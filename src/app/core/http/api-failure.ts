@@ -1,0 +1,43 @@
+import { apiErrorBodySchema, type ApiError, type FieldErrors } from '../../../../shared/schemas/api-error.schema';
+
+const OFFLINE_MESSAGE = 'The server cannot be reached; check the connection and try again';
+
+/**
+ * Every failed API call, as the one client error type. The error interceptor builds it once from
+ * the HTTP answer (its body parsed with the shared schema), so pages and dialogs never look at
+ * `HttpErrorResponse`. It is an `Error`, so a resource's `error()` holds it unchanged.
+ */
+export class ApiFailure extends Error implements ApiError {
+  override readonly name = 'ApiFailure';
+
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fieldErrors: FieldErrors = {},
+  ) {
+    super(message);
+  }
+
+  /** Reads an error answer: the server's own body when it has one, else a plain description. */
+  static fromResponse(status: number, body: unknown): ApiFailure {
+    const parsed = apiErrorBodySchema.safeParse(body);
+    if (parsed.success) return new ApiFailure(status, parsed.data.code, parsed.data.message, parsed.data.fieldErrors);
+    if (status === 0) return new ApiFailure(0, 'offline', OFFLINE_MESSAGE);
+    return new ApiFailure(status, 'http_error', `Request failed (${status})`);
+  }
+
+  /** One line per field with its reasons, or the message alone. */
+  lines(): string[] {
+    const fields = Object.entries(this.fieldErrors).map(([field, reasons]) => `${field}: ${reasons.join('; ')}`);
+    return fields.length ? fields : [this.message];
+  }
+}
+
+/**
+ * For `catch` blocks around API calls: an `ApiFailure` is expected and shown where it happened;
+ * anything else is a bug, so it is thrown on to the app's ErrorHandler.
+ */
+export function assertApiFailure(error: unknown): asserts error is ApiFailure {
+  if (!(error instanceof ApiFailure)) throw error;
+}

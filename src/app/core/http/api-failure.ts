@@ -15,6 +15,8 @@ export class ApiFailure extends Error implements ApiError {
     readonly code: string,
     message: string,
     readonly fieldErrors: FieldErrors = {},
+    /** Whatever else the body carried, e.g. the stored record with a 409 (`current`). */
+    readonly details: Readonly<Record<string, unknown>> = {},
   ) {
     super(message);
   }
@@ -22,7 +24,10 @@ export class ApiFailure extends Error implements ApiError {
   /** Reads an error answer: the server's own body when it has one, else a plain description. */
   static fromResponse(status: number, body: unknown): ApiFailure {
     const parsed = apiErrorBodySchema.safeParse(body);
-    if (parsed.success) return new ApiFailure(status, parsed.data.code, parsed.data.message, parsed.data.fieldErrors);
+    if (parsed.success) {
+      const { code, message, fieldErrors, ...details } = parsed.data;
+      return new ApiFailure(status, code, message, fieldErrors, details);
+    }
     if (status === 0) return new ApiFailure(0, 'offline', OFFLINE_MESSAGE);
     return new ApiFailure(status, 'http_error', `Request failed (${status})`);
   }

@@ -1,4 +1,5 @@
-import { z } from 'zod';
+// zod/mini: this schema is read by the client's error interceptor, which is in the first download.
+import { z } from 'zod/mini';
 
 /** Field-level problems, keyed by the field path as the screen names it (e.g. `code`, `roles[0]`). */
 export const fieldErrorsSchema = z.record(z.string(), z.array(z.string()));
@@ -11,7 +12,7 @@ export type FieldErrors = z.infer<typeof fieldErrorsSchema>;
 export const apiErrorBodySchema = z.looseObject({
   code: z.string(),
   message: z.string(),
-  fieldErrors: fieldErrorsSchema.optional(),
+  fieldErrors: z.optional(fieldErrorsSchema),
 });
 export type ApiErrorBody = z.infer<typeof apiErrorBodySchema>;
 

@@ -1,5 +1,5 @@
-import { Component, DeferBlockBehavior, ErrorHandler } from '@angular/core';
-import { TestBed } from '@angular/core/testing';
+import { Component, ErrorHandler } from '@angular/core';
+import { DeferBlockBehavior, TestBed } from '@angular/core/testing';
 import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { Router, RouterOutlet, provideRouter, withComponentInputBinding, type Route, type Routes } from '@angular/router';

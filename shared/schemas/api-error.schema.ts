@@ -1,5 +1,4 @@
-// zod/mini: this schema is read by the client's error interceptor, which is in the first download.
-import { z } from 'zod/mini';
+import { z } from 'zod';
 
 /** Field-level problems, keyed by the field path as the screen names it (e.g. `code`, `roles[0]`). */
 export const fieldErrorsSchema = z.record(z.string(), z.array(z.string()));
@@ -12,7 +11,7 @@ export type FieldErrors = z.infer<typeof fieldErrorsSchema>;
 export const apiErrorBodySchema = z.looseObject({
   code: z.string(),
   message: z.string(),
-  fieldErrors: z.optional(fieldErrorsSchema),
+  fieldErrors: fieldErrorsSchema.optional(),
 });
 export type ApiErrorBody = z.infer<typeof apiErrorBodySchema>;
 

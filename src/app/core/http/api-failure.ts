@@ -1,6 +1,10 @@
-import { apiErrorBodySchema, type ApiError, type FieldErrors } from '../../../../shared/schemas/api-error.schema';
+import type { ApiError, FieldErrors } from '../../../../shared/schemas/api-error.schema';
 
 const OFFLINE_MESSAGE = 'The server cannot be reached; check the connection and try again';
+
+// zod is large and failures are rare: the shared schema is loaded with the first failure, not with the
+// first page (lazy pages that validate forms have usually loaded it already).
+const errorBodySchema = () => import('../../../../shared/schemas/api-error.schema').then((m) => m.apiErrorBodySchema);
 
 /**
  * Every failed API call, as the one client error type. The error interceptor builds it once from
@@ -22,9 +26,10 @@ export class ApiFailure extends Error implements ApiError {
   }
 
   /** Reads an error answer: the server's own body when it has one, else a plain description. */
-  static fromResponse(status: number, body: unknown): ApiFailure {
-    const parsed = apiErrorBodySchema.safeParse(body);
-    if (parsed.success) {
+  static async fromResponse(status: number, body: unknown): Promise<ApiFailure> {
+    // If even the schema cannot load (offline, chunk gone), the plain description below still holds.
+    const parsed = (await errorBodySchema().catch(() => null))?.safeParse(body);
+    if (parsed?.success) {
       const { code, message, fieldErrors, ...details } = parsed.data;
       return new ApiFailure(status, code, message, fieldErrors, details);
     }

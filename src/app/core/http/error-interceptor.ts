@@ -1,7 +1,7 @@
 import { HttpErrorResponse, HttpInterceptorFn } from '@angular/common/http';
 import { inject } from '@angular/core';
 import { Router } from '@angular/router';
-import { catchError, throwError } from 'rxjs';
+import { catchError, from, switchMap, throwError } from 'rxjs';
 import { SessionStore } from '../auth/session-store';
 import { ApiFailure } from './api-failure';
 
@@ -21,7 +21,7 @@ export const errorInterceptor: HttpInterceptorFn = (req, next) => {
         session.expire();
         void router.navigate(['/sign-in'], { queryParams: { returnTo: router.url, reason: 'expired' } });
       }
-      return throwError(() => ApiFailure.fromResponse(error.status, error.error));
+      return from(ApiFailure.fromResponse(error.status, error.error)).pipe(switchMap((failure) => throwError(() => failure)));
     }),
   );
 };

@@ -1,7 +1,7 @@
 import { HttpErrorResponse, HttpInterceptorFn } from '@angular/common/http';
 import { Injector, PendingTasks, inject } from '@angular/core';
 import { Router } from '@angular/router';
-import { catchError, from, switchMap, throwError } from 'rxjs';
+import { catchError, finalize, from, switchMap, throwError } from 'rxjs';
 import { SessionStore } from '../auth/session-store';
 import { ApiFailure } from './api-failure';
 
@@ -25,8 +25,9 @@ export const errorInterceptor: HttpInterceptorFn = (req, next) => {
         void router.navigate(['/sign-in'], { queryParams: { returnTo: router.url, reason: 'expired' } });
       }
       // Reading the body may load the schema first; the app is not stable until the failure is delivered.
-      const failure = pendingTasks.run(() => ApiFailure.fromResponse(error.status, error.error));
-      return from(failure).pipe(switchMap((f) => throwError(() => f)));
+      const done = pendingTasks.add();
+      const failure = ApiFailure.fromResponse(error.status, error.error);
+      return from(failure).pipe(switchMap((f) => throwError(() => f)), finalize(done));
     }),
   );
 };

@@ -3,6 +3,7 @@ import type { RequestHandler } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { Config } from '../config';
 import { MariaDbRateLimitStore } from './rate-limit-store';
+import type { ApiErrorBody } from '../../shared/schemas/api-error.schema';
 
 /**
  * Limits sign-in attempts per account and address, so guessing one account's password from
@@ -26,7 +27,7 @@ export function loginRateLimit(sequelize: Sequelize, config: Config): RequestHan
       res.status(429).json({
         code: 'rate_limited',
         message: `Too many sign-in attempts; wait ${config.LOGIN_RATE_WINDOW_MINUTES} minutes and try again`,
-      });
+      } satisfies ApiErrorBody);
     },
   });
 }

@@ -1,5 +1,6 @@
-/** Field-level problems reported to the client, keyed by the field path (e.g. `roles[0]`). */
-export type FieldErrors = Record<string, string[]>;
+import type { FieldErrors } from '../../shared/schemas/api-error.schema';
+
+export type { FieldErrors };
 
 /**
  * The one error type services throw on purpose. `expose` says the message is safe to show;

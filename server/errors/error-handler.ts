@@ -2,6 +2,7 @@ import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ForbiddenError } from '@casl/ability';
 import { UniqueConstraintError, ValidationError, OptimisticLockError } from 'sequelize';
 import { AppError } from './app-error';
+import type { ApiErrorBody } from '../../shared/schemas/api-error.schema';
 import { logger } from '../logger';
 import { addFieldError } from '../http/validate';
 import { classifyDbError } from '../db/db-errors';
@@ -9,7 +10,7 @@ import { unavailable } from '../db/transaction';
 
 /** JSON 404 for unknown API routes, so clients never receive the app's HTML for a typo. */
 export const apiNotFound: RequestHandler = (req, res) => {
-  res.status(404).json({ code: 'not_found', message: `No API route ${req.method} ${req.originalUrl}` });
+  res.status(404).json({ code: 'not_found', message: `No API route ${req.method} ${req.originalUrl}` } satisfies ApiErrorBody);
 };
 
 function toAppError(err: unknown): AppError | undefined {
@@ -51,9 +52,9 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, next) => {
   const known = toAppError(err);
   if (known) {
     if (known.status === 503) res.set('Retry-After', String(known.details?.retryAfterSeconds ?? 1));
-    res.status(known.status).json({ code: known.code, message: known.message, ...known.details });
+    res.status(known.status).json({ code: known.code, message: known.message, ...known.details } satisfies ApiErrorBody);
     return;
   }
   logger.error({ err, method: req.method, url: req.originalUrl }, 'unhandled error');
-  res.status(500).json({ code: 'internal', message: 'Something went wrong on the server; it has been logged.' });
+  res.status(500).json({ code: 'internal', message: 'Something went wrong on the server; it has been logged.' } satisfies ApiErrorBody);
 };

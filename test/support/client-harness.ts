@@ -1,13 +1,15 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import type { Provider, Type } from '@angular/core';
-import { provideHttpClient } from '@angular/common/http';
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { errorInterceptor } from '../../src/app/core/http/error-interceptor';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 
 /**
  * One component spec's set-up: the component on a TestBed with the real HttpClient talking to
- * HttpTestingController, its inputs set, and harness loaders. Specs read the DOM and harnesses and
+ * HttpTestingController through the app's error interceptor (so failures arrive as the app's one error shape),
+ * its inputs set, and harness loaders. Specs read the DOM and harnesses and
  * answer requests by URL, so they hold whichever way a component's service fetches its data. A component
  * that reads through a resource has its request open after mounting: answer it before using a harness
  * (harnesses wait for stability, which an open resource request holds off).
@@ -17,7 +19,7 @@ export async function mountComponent<T>(
   options: { inputs?: Record<string, unknown>; providers?: Provider[] } = {},
 ) {
   TestBed.configureTestingModule({
-    providers: [provideHttpClient(), provideHttpClientTesting(), ...(options.providers ?? [])],
+    providers: [provideHttpClient(withInterceptors([errorInterceptor])), provideHttpClientTesting(), ...(options.providers ?? [])],
   });
   const fixture: ComponentFixture<T> = TestBed.createComponent(type);
   for (const [name, value] of Object.entries(options.inputs ?? {})) fixture.componentRef.setInput(name, value);

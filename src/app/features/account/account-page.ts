@@ -1,17 +1,18 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
-import { HttpClient } from '@angular/common/http';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { firstValueFrom } from 'rxjs';
 import { ROLE_LABELS } from '../../../../shared/authz/roles';
+import { changePasswordSchema } from '../../../../shared/schemas/auth.schema';
 import { SessionStore } from '../../core/auth/session-store';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { assertApiFailure } from '../../core/http/api-failure';
+import { schemaValidator } from '../../core/forms/schema-validator';
 import { applyServerErrors } from '../../ui/field-errors';
 import { SecondFactorPanel } from './second-factor-panel';
 import { MailPreferences } from './mail-preferences';
 import { SessionsPanel } from './sessions-panel';
+import { AccountApi } from './account-api';
 
 @Component({
   selector: 'tt-account-page',
@@ -21,12 +22,12 @@ import { SessionsPanel } from './sessions-panel';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export default class AccountPage {
-  private readonly http = inject(HttpClient);
+  private readonly api = inject(AccountApi);
   protected readonly user = inject(SessionStore).user;
   protected readonly roles = computed(() => (this.user()?.roles ?? []).map((r) => ROLE_LABELS[r]).join(', '));
   protected readonly form = inject(NonNullableFormBuilder).group({
     currentPassword: ['', Validators.required],
-    newPassword: ['', [Validators.required, Validators.minLength(12), Validators.maxLength(256)]],
+    newPassword: ['', [Validators.required, schemaValidator(changePasswordSchema.shape.newPassword, 'New password')]],
     repeatPassword: ['', Validators.required],
   });
   protected readonly problems = signal<string[]>([]);
@@ -41,12 +42,13 @@ export default class AccountPage {
     this.isSaving.set(true);
     this.problems.set([]);
     try {
-      await firstValueFrom(this.http.post('/api/auth/password', { currentPassword, newPassword }));
+      await this.api.changePassword(currentPassword, newPassword);
       this.isDone.set(true);
       this.form.reset();
       this.sessionsPanel().reload();
     } catch (error) {
-      this.problems.set(applyServerErrors(this.form, toHttpFailure(error)));
+      assertApiFailure(error);
+      this.problems.set(applyServerErrors(this.form, error));
     } finally {
       this.isSaving.set(false);
     }

@@ -1,16 +1,18 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import type { MailPreferenceDto } from '../../../../shared/schemas/mail.schema';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { assertApiFailure } from '../../core/http/api-failure';
+import { LoadFailure } from '../../ui/load-failure';
 import { MailPreferencesApi } from './mail-preferences-api';
 
 /** Per event, whether Torquetrail e-mails you; events for roles you do not hold are listed last. */
 @Component({
   selector: 'tt-mail-preferences',
-  imports: [MatSlideToggleModule],
+  imports: [MatSlideToggleModule, LoadFailure],
   template: `
     <h2 id="mail-title">E-mail</h2>
     <p class="tt-muted small">Torquetrail mails you at each hand-over that concerns you. Turn off what you do not want; the work itself still reaches your overview.</p>
+    @if (resource.error(); as error) { <tt-load-failure [error]="error" what="e-mail settings" (retry)="resource.reload()" /> }
     @if (problem(); as p) { <p class="problem" role="alert">{{ p }}</p> }
     <ul class="events" aria-labelledby="mail-title">
       @for (p of rows(); track p.event) {
@@ -32,7 +34,7 @@ import { MailPreferencesApi } from './mail-preferences-api';
 })
 export class MailPreferences {
   private readonly api = inject(MailPreferencesApi);
-  private readonly resource = this.api.preferences();
+  protected readonly resource = this.api.preferences();
   protected readonly rows = computed(() => {
     const list = this.resource.hasValue() ? this.resource.value() : [];
     return [...list].sort((a, b) => Number(b.appliesToYou) - Number(a.appliesToYou));
@@ -46,7 +48,8 @@ export class MailPreferences {
     try {
       this.resource.set(await this.api.save(p.event, enabled));
     } catch (error) {
-      this.problem.set(toHttpFailure(error).message);
+      assertApiFailure(error);
+      this.problem.set(error.message);
       this.resource.reload();
     } finally {
       this.saving.set(null);

@@ -1,20 +1,21 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { HttpClient, httpResource } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { firstValueFrom } from 'rxjs';
-import type { SecondFactorEnrolment, SecondFactorStatus } from '../../../../shared/schemas/second-factor.schema';
-import { failureLines, toHttpFailure } from '../../core/errors/http-failure';
+import type { SecondFactorEnrolment } from '../../../../shared/schemas/second-factor.schema';
+import { assertApiFailure } from '../../core/http/api-failure';
+import { LoadFailure } from '../../ui/load-failure';
+import { AccountApi } from './account-api';
 
 /** Sets up a time-based one-time code (authenticator app) that every signature then asks for. */
 @Component({
   selector: 'tt-second-factor-panel',
-  imports: [FormsModule, MatButtonModule, MatFormFieldModule, MatInputModule],
+  imports: [FormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, LoadFailure],
   template: `
     <h2 id="tf-title">One-time code for signatures</h2>
-    @if (status.value(); as s) {
+    @if (status.error(); as error) { <tt-load-failure [error]="error" what="one-time code settings" (retry)="status.reload()" /> }
+    @if (current(); as s) {
       @if (s.enrolled) {
         <p>Your signatures ask for a code from your authenticator app as well as your password.</p>
         @if (!s.required) {
@@ -38,26 +39,27 @@ import { failureLines, toHttpFailure } from '../../core/errors/http-failure';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SecondFactorPanel {
-  private readonly http = inject(HttpClient);
-  protected readonly status = httpResource<SecondFactorStatus>(() => '/api/auth/second-factor');
+  private readonly api = inject(AccountApi);
+  protected readonly status = this.api.secondFactor();
+  protected readonly current = computed(() => (this.status.hasValue() ? this.status.value() : undefined));
   protected readonly enrolment = signal<SecondFactorEnrolment | null>(null);
   protected readonly code = signal('');
   protected readonly password = signal('');
   protected readonly problem = signal<string | null>(null);
 
   protected begin(): Promise<void> {
-    return this.run(async () => this.enrolment.set(await firstValueFrom(this.http.post<SecondFactorEnrolment>('/api/auth/second-factor/begin', {}))));
+    return this.run(async () => this.enrolment.set(await this.api.beginSecondFactor()));
   }
 
   protected confirm(): Promise<void> {
     return this.run(async () => {
-      this.status.set(await firstValueFrom(this.http.post<SecondFactorStatus>('/api/auth/second-factor/confirm', { code: this.code() })));
+      this.status.set(await this.api.confirmSecondFactor(this.code()));
       this.enrolment.set(null);
     });
   }
 
   protected disable(): Promise<void> {
-    return this.run(async () => this.status.set(await firstValueFrom(this.http.post<SecondFactorStatus>('/api/auth/second-factor/disable', { password: this.password() }))));
+    return this.run(async () => this.status.set(await this.api.disableSecondFactor(this.password())));
   }
 
   private async run(step: () => Promise<void>): Promise<void> {
@@ -65,8 +67,8 @@ export class SecondFactorPanel {
     try {
       await step();
     } catch (error) {
-      const f = toHttpFailure(error);
-      this.problem.set(failureLines(f)[0]);
+      assertApiFailure(error);
+      this.problem.set(error.lines()[0]);
     }
   }
 }

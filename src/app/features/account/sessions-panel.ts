@@ -2,19 +2,20 @@ import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@a
 import { DatePipe } from '@angular/common';
 import { MatButtonModule } from '@angular/material/button';
 import type { ActiveSessionDto } from '../../../../shared/schemas/session-list.schema';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { assertApiFailure } from '../../core/http/api-failure';
+import { LoadFailure } from '../../ui/load-failure';
 import { SessionsApi } from './sessions-api';
 import { browserLabel } from './browser-label';
 
 /** Where you are signed in; end any session you do not recognise. A password change ends all but this one. */
 @Component({
   selector: 'tt-sessions-panel',
-  imports: [DatePipe, MatButtonModule],
+  imports: [DatePipe, MatButtonModule, LoadFailure],
   template: `
     <h2 id="sessions-title">Where you are signed in</h2>
     <p class="tt-muted small">End a session you do not recognise, then change your password: that ends every session but this one.</p>
     @if (problem(); as p) { <p class="problem" role="alert">{{ p }}</p> }
-    @if (sessions.error()) { <p class="problem" role="alert">Your sessions could not be loaded.</p> }
+    @if (sessions.error(); as error) { <tt-load-failure [error]="error" what="list of your sessions" (retry)="sessions.reload()" /> }
     <ul class="sessions" aria-labelledby="sessions-title">
       @for (s of rows(); track s.id) {
         <li [class.current]="s.current">
@@ -66,7 +67,8 @@ export class SessionsPanel {
     try {
       await this.api.end(session.id);
     } catch (error) {
-      this.problem.set(toHttpFailure(error).message);
+      assertApiFailure(error);
+      this.problem.set(error.message);
     } finally {
       this.ending.set(null);
       this.sessions.reload();

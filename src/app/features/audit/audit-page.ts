@@ -8,7 +8,8 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { AuditChainStatus, AuditEventDto } from '../../../../shared/schemas/audit.schema';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { assertApiFailure } from '../../core/http/api-failure';
+import { LoadFailure } from '../../ui/load-failure';
 import { AuditActionLabelPipe } from '../../ui/audit-action-label';
 import { RouterLink } from '@angular/router';
 import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
@@ -25,7 +26,7 @@ const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/;
 
 @Component({
   selector: 'tt-audit-page',
-  imports: [DatePipe, JsonPipe, SlicePipe, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatSelectModule, MatFormFieldModule, MatProgressBarModule, AuditActionLabelPipe, EmptyState, DiffView, MatInputModule, RouterLink, ReactiveFormsModule],
+  imports: [DatePipe, JsonPipe, SlicePipe, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatSelectModule, MatFormFieldModule, MatProgressBarModule, AuditActionLabelPipe, EmptyState, DiffView, MatInputModule, RouterLink, ReactiveFormsModule, LoadFailure],
   templateUrl: './audit-page.html',
   styleUrl: './audit-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -42,7 +43,10 @@ export default class AuditPage {
   /** Dates typed the ISO way whatever the browser's locale (a date input shows mm/dd/yyyy in US English). */
   protected readonly from = new FormControl('', { nonNullable: true, validators: Validators.pattern(ISO_DAY) });
   protected readonly to = new FormControl('', { nonNullable: true, validators: Validators.pattern(ISO_DAY) });
-  protected readonly error = computed(() => (this.events.error() ? toHttpFailure(this.events.error()).message : null));
+  protected readonly projectOptions = computed(() => (this.projects.hasValue() ? this.projects.value().items : []));
+  protected readonly calcOptions = computed(() => (this.calcs.hasValue() ? this.calcs.value().items : []));
+  protected readonly personOptions = computed(() => (this.people.hasValue() ? this.people.value() : []));
+  protected readonly filterError = computed(() => this.projects.error() ?? this.calcs.error() ?? this.people.error());
   protected readonly expanded = signal<number | null>(null);
   // Lists leave diffs out; the open entry's diff is read on its own.
   protected readonly openEntry = this.api.entry(computed(() => {
@@ -95,6 +99,10 @@ export default class AuditPage {
     this.pager.turn(event);
   }
 
+  protected reloadFilters(): void {
+    for (const list of [this.projects, this.calcs, this.people]) if (list.error()) list.reload();
+  }
+
   protected toggle(event: AuditEventDto): void {
     this.expanded.update((id) => (id === event.id ? null : event.id));
   }
@@ -105,7 +113,8 @@ export default class AuditPage {
     try {
       this.chain.set(await this.api.verifyChain());
     } catch (error) {
-      this.chainError.set(toHttpFailure(error).message);
+      assertApiFailure(error);
+      this.chainError.set(error.message);
     } finally {
       this.isVerifying.set(false);
     }

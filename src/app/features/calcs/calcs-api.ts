@@ -29,8 +29,8 @@ export class CalcsApi {
     });
   }
 
-  calc(id: Signal<number>) {
-    return httpResource<CalcDto>(() => `/api/calcs/${id()}`);
+  calc(id: Signal<number | undefined>) {
+    return httpResource<CalcDto>(() => (id() ? `/api/calcs/${id()}` : undefined));
   }
 
   revision(id: Signal<number | undefined>) {

@@ -7,12 +7,13 @@ import type { QueueDto, QueueItem } from '../../../../shared/schemas/queue.schem
 import { StateBadge } from '../../ui/state-badge';
 import { VerdictBadge } from '../../ui/verdict-badge';
 import { KeysetPager } from '../../ui/keyset-pager';
+import { LoadFailure } from '../../ui/load-failure';
 import { CalcsApi, QUEUE_PAGE } from '../calcs/calcs-api';
 
 /** One queue of waiting calcs, oldest first, paged on the server (its first page comes with the overview). */
 @Component({
   selector: 'tt-queue-table',
-  imports: [DatePipe, RouterLink, MatTableModule, MatPaginatorModule, StateBadge, VerdictBadge],
+  imports: [DatePipe, RouterLink, MatTableModule, MatPaginatorModule, StateBadge, VerdictBadge, LoadFailure],
   template: `
     <table mat-table [dataSource]="rows()" [attr.aria-label]="queue().label">
       <ng-container matColumnDef="number">
@@ -42,6 +43,7 @@ import { CalcsApi, QUEUE_PAGE } from '../calcs/calcs-api';
       <tr mat-header-row *matHeaderRowDef="columns"></tr>
       <tr mat-row *matRowDef="let row; columns: columns"></tr>
     </table>
+    @if (laterError(); as error) { <tt-load-failure [error]="error" what="page of this queue" (retry)="reloadPage()" /> }
     @if (pager.length() > firstPage) {
       <mat-paginator [length]="pager.length()" [pageIndex]="pager.pageIndex()" [pageSize]="pager.size()" [pageSizeOptions]="[5, 10, 25]"
                      (page)="turn($event)" [attr.aria-label]="queue().label + ' pages'" />
@@ -62,6 +64,7 @@ export class QueueTable {
   );
   private readonly page = computed(() => (this.isFirstPage() ? this.queue() : this.later.hasValue() ? this.later.value() : null));
   protected readonly rows = computed(() => this.page()?.items ?? []);
+  protected readonly laterError = computed(() => (this.isFirstPage() ? undefined : this.later.error()));
   private readonly now = computed(() => (this.queue(), Date.now()));
 
   constructor() {
@@ -69,6 +72,10 @@ export class QueueTable {
       const page = this.page();
       if (page) this.pager.remember(page);
     });
+  }
+
+  protected reloadPage(): void {
+    this.later.reload();
   }
 
   protected turn(event: PageEvent): void {

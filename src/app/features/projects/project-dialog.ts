@@ -5,10 +5,13 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import type { ProjectDto } from '../../../../shared/schemas/project.schema';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { createProjectSchema, type ProjectDto } from '../../../../shared/schemas/project.schema';
+import { assertApiFailure } from '../../core/http/api-failure';
+import { schemaValidator } from '../../core/forms/schema-validator';
 import { applyServerErrors } from '../../ui/field-errors';
 import { ProjectsApi } from './projects-api';
+
+const FIELDS = createProjectSchema.shape;
 
 @Component({
   selector: 'tt-project-dialog',
@@ -24,10 +27,10 @@ export class ProjectDialog {
   private readonly fb = inject(NonNullableFormBuilder);
 
   protected readonly form = this.fb.group({
-    code: [this.existing?.code ?? '', [Validators.required, Validators.pattern(/^[A-Z0-9][A-Z0-9-]*$/), Validators.maxLength(32)]],
-    name: [this.existing?.name ?? '', [Validators.required, Validators.minLength(3), Validators.maxLength(160)]],
-    client: [this.existing?.client ?? '', [Validators.maxLength(160)]],
-    description: [this.existing?.description ?? '', [Validators.maxLength(2000)]],
+    code: [this.existing?.code ?? '', [Validators.required, schemaValidator(FIELDS.code, 'Project code')]],
+    name: [this.existing?.name ?? '', [Validators.required, schemaValidator(FIELDS.name, 'Name')]],
+    client: [this.existing?.client ?? '', [schemaValidator(FIELDS.client, 'Client')]],
+    description: [this.existing?.description ?? '', [schemaValidator(FIELDS.description, 'Description')]],
     revisionScheme: [this.existing?.revisionScheme ?? ('letters' as 'letters' | 'numbers')],
     status: [this.existing?.status ?? ('active' as 'active' | 'archived')],
   });
@@ -48,7 +51,8 @@ export class ProjectDialog {
         : await this.api.create({ code, ...rest });
       this.ref.close(saved);
     } catch (error) {
-      this.problems.set(applyServerErrors(this.form, toHttpFailure(error)));
+      assertApiFailure(error);
+      this.problems.set(applyServerErrors(this.form, error));
     } finally {
       this.isSaving.set(false);
     }

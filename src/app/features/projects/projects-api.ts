@@ -18,6 +18,10 @@ export class ProjectsApi {
     }));
   }
 
+  one(id: Signal<number>) {
+    return httpResource<ProjectDto>(() => `/api/projects/${id()}`);
+  }
+
   create(dto: CreateProjectRequest): Promise<ProjectDto> {
     return firstValueFrom(this.http.post<ProjectDto>('/api/projects', dto));
   }

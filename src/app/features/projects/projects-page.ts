@@ -12,14 +12,14 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { AbilityServiceSignal } from '@casl/angular';
 import type { AppAbility } from '../../../../shared/authz/app-ability';
 import type { ProjectDto } from '../../../../shared/schemas/project.schema';
-import { toHttpFailure } from '../../core/errors/http-failure';
 import { EmptyState } from '../../ui/empty-state';
+import { LoadFailure } from '../../ui/load-failure';
 import { ProjectsApi, type ProjectListParams } from './projects-api';
 import { ProjectDialog } from './project-dialog';
 
 @Component({
   selector: 'tt-projects-page',
-  imports: [DatePipe, RouterLink, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, EmptyState],
+  imports: [DatePipe, RouterLink, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, EmptyState, LoadFailure],
   templateUrl: './projects-page.html',
   styleUrl: './projects-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -30,9 +30,8 @@ export default class ProjectsPage {
 
   protected readonly params = signal<ProjectListParams>({ page: 0, size: 25, q: '' });
   protected readonly projects = inject(ProjectsApi).list(this.params);
-  protected readonly rows = computed(() => this.projects.value()?.items ?? []);
-  protected readonly total = computed(() => this.projects.value()?.total ?? 0);
-  protected readonly error = computed(() => (this.projects.error() ? toHttpFailure(this.projects.error()).message : null));
+  protected readonly rows = computed(() => (this.projects.hasValue() ? this.projects.value().items : []));
+  protected readonly total = computed(() => (this.projects.hasValue() ? this.projects.value().total : 0));
   protected readonly canCreate = computed(() => this.ability.can('create', 'Project'));
   protected readonly canEdit = computed(() => this.ability.can('update', 'Project'));
   protected readonly columns = computed(() => [

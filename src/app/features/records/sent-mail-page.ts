@@ -7,14 +7,15 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { SentMailDto } from '../../../../shared/schemas/mail.schema';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { assertApiFailure } from '../../core/http/api-failure';
 import { EmptyState } from '../../ui/empty-state';
+import { LoadFailure } from '../../ui/load-failure';
 import { RecordsApi, type SentMailParams } from './records-api';
 
 /** Admins read the mail outbox: what was sent, to whom, and what is still retrying or gave up. */
 @Component({
   selector: 'tt-sent-mail-page',
-  imports: [DatePipe, MatTableModule, MatPaginatorModule, MatFormFieldModule, MatSelectModule, MatIconModule, MatProgressBarModule, EmptyState],
+  imports: [DatePipe, MatTableModule, MatPaginatorModule, MatFormFieldModule, MatSelectModule, MatIconModule, MatProgressBarModule, EmptyState, LoadFailure],
   templateUrl: './sent-mail-page.html',
   styleUrl: './sent-mail-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -23,9 +24,8 @@ export default class SentMailPage {
   private readonly api = inject(RecordsApi);
   protected readonly params = signal<SentMailParams>({ page: 0, size: 25, status: '' });
   protected readonly mail = this.api.sentMail(this.params);
-  protected readonly rows = computed(() => this.mail.value()?.items ?? []);
-  protected readonly total = computed(() => this.mail.value()?.total ?? 0);
-  protected readonly error = computed(() => (this.mail.error() ? toHttpFailure(this.mail.error()).message : null));
+  protected readonly rows = computed(() => (this.mail.hasValue() ? this.mail.value().items : []));
+  protected readonly total = computed(() => (this.mail.hasValue() ? this.mail.value().total : 0));
   protected readonly opened = signal<SentMailDto | null>(null);
   protected readonly openError = signal<string | null>(null);
   protected readonly columns = ['id', 'createdAt', 'event', 'recipient', 'subject', 'status'];
@@ -45,7 +45,8 @@ export default class SentMailPage {
     try {
       this.opened.set(await this.api.sentMailOne(row.id));
     } catch (error) {
-      this.openError.set(toHttpFailure(error).message);
+      assertApiFailure(error);
+      this.openError.set(error.message);
     }
   }
 }

@@ -9,7 +9,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { PackVerification } from '../../../../shared/schemas/verify.schema';
 import { STATE_LABELS, type RevisionState } from '../../../../shared/schemas/revision.schema';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { assertApiFailure } from '../../core/http/api-failure';
+import { LoadFailure } from '../../ui/load-failure';
 import { SafetyNote } from '../../ui/safety-note';
 import { RecordsApi } from './records-api';
 
@@ -18,7 +19,7 @@ const HASH = /^[0-9a-fA-F\s]{64,80}$/;
 /** Anyone signed in checks a printed record hash (or a scanned QR code), or a whole evidence pack. */
 @Component({
   selector: 'tt-verify-page',
-  imports: [DatePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatIconModule, MatProgressBarModule, SafetyNote],
+  imports: [DatePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatIconModule, MatProgressBarModule, LoadFailure, SafetyNote],
   templateUrl: './verify-page.html',
   styleUrl: './verify-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -30,7 +31,6 @@ export default class VerifyPage {
   readonly hash = input<string | undefined>(undefined);
   protected readonly form = inject(NonNullableFormBuilder).group({ hash: ['', [Validators.required, Validators.pattern(HASH)]] });
   protected readonly result = this.api.verify(this.hash);
-  protected readonly error = computed(() => (this.result.error() ? toHttpFailure(this.result.error()).message : null));
   protected readonly pack = signal<PackVerification | null>(null);
   protected readonly packError = signal<string | null>(null);
   protected readonly isChecking = signal(false);
@@ -54,8 +54,8 @@ export default class VerifyPage {
     try {
       this.pack.set(await this.api.verifyPack(file));
     } catch (error) {
-      const failure = toHttpFailure(error);
-      this.packError.set(failure.fieldErrors['file']?.[0] ? `The file ${failure.fieldErrors['file'][0]}` : failure.message);
+      assertApiFailure(error);
+      this.packError.set(error.fieldErrors['file']?.[0] ? `The file ${error.fieldErrors['file'][0]}` : error.message);
     } finally {
       this.isChecking.set(false);
     }

@@ -4,7 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { ImpactReport } from '../../../../shared/schemas/rule-set.schema';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { assertApiFailure } from '../../core/http/api-failure';
 import { VerdictBadge } from '../../ui/verdict-badge';
 import { RuleSetsApi } from './rule-sets-api';
 
@@ -56,7 +56,8 @@ export class ImpactPanel {
     try {
       this.report.set(await this.api.impact(this.ruleSetId()));
     } catch (error) {
-      this.problem.set(toHttpFailure(error).message);
+      assertApiFailure(error);
+      this.problem.set(error.message);
     } finally {
       this.isRunning.set(false);
     }

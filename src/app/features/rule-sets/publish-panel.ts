@@ -5,7 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import type { RuleSetDto } from '../../../../shared/schemas/rule-set.schema';
 import { SessionStore } from '../../core/auth/session-store';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { assertApiFailure } from '../../core/http/api-failure';
 import { ruleSetProblems } from './rule-set-messages';
 import { RuleSetsApi } from './rule-sets-api';
 
@@ -73,9 +73,9 @@ export class PublishPanel {
       this.password.set('');
       this.changed.emit();
     } catch (error) {
-      const f = toHttpFailure(error);
+      assertApiFailure(error);
       // A proposal re-validates the whole document: name each field as the standard's page does.
-      this.problem.set(ruleSetProblems(f, null).map((p) => p.text).join('; '));
+      this.problem.set(ruleSetProblems(error, null).map((p) => p.text).join('; '));
     }
   }
 }

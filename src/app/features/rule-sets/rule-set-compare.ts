@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { RouterLink } from '@angular/router';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { LoadFailure } from '../../ui/load-failure';
 import { RuleSetsApi } from './rule-sets-api';
 
 const toNumber = (v: unknown) => Number(v ?? 0);
@@ -9,7 +9,7 @@ const toNumber = (v: unknown) => Number(v ?? 0);
 /** Two versions side by side: identity, methods, parameter by parameter, clause by clause. */
 @Component({
   selector: 'tt-rule-set-compare',
-  imports: [RouterLink, MatProgressBarModule],
+  imports: [RouterLink, MatProgressBarModule, LoadFailure],
   templateUrl: './rule-set-compare.html',
   styleUrl: './rule-set-compare.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -18,12 +18,12 @@ export default class RuleSetCompare {
   readonly from = input(0, { transform: toNumber });
   readonly to = input(0, { transform: toNumber });
   protected readonly diff = inject(RuleSetsApi).diff(this.from, this.to);
-  protected readonly changes = computed(() => this.diff.value()?.changes);
+  protected readonly result = computed(() => (this.diff.hasValue() ? this.diff.value() : undefined));
+  protected readonly changes = computed(() => this.result()?.changes);
   protected readonly changedClauses = computed(() => (this.changes()?.clauses ?? []).filter((c) => c.change !== 'unchanged'));
   protected readonly changedParameters = computed(() => (this.changes()?.parameters ?? []).filter((p) => p.change !== 'unchanged'));
   protected readonly changedManual = computed(() => (this.changes()?.manualItems ?? []).filter((m) => m.change !== 'unchanged'));
   protected readonly unchangedClauses = computed(() => (this.changes()?.clauses ?? []).filter((c) => c.change === 'unchanged').length);
-  protected readonly error = computed(() => (this.diff.error() ? toHttpFailure(this.diff.error()).message : null));
 
   /** Dimensionless parameters carry the unit "1", which reads as a stray digit: leave it out. */
   protected withUnit(value: unknown, unit: string | undefined): string {

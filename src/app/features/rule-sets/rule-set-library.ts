@@ -10,13 +10,14 @@ import { AbilityServiceSignal } from '@casl/angular';
 import { subject } from '@casl/ability';
 import type { AppAbility } from '../../../../shared/authz/app-ability';
 import type { RuleSetSummary } from '../../../../shared/schemas/rule-set.schema';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { assertApiFailure } from '../../core/http/api-failure';
+import { LoadFailure } from '../../ui/load-failure';
 import { RuleSetsApi } from './rule-sets-api';
 
 /** Every standard and every version; pick two to compare; compliance starts drafts here. */
 @Component({
   selector: 'tt-rule-set-library',
-  imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule, MatCheckboxModule, MatProgressBarModule],
+  imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule, MatCheckboxModule, MatProgressBarModule, LoadFailure],
   templateUrl: './rule-set-library.html',
   styleUrl: './rule-set-library.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -29,12 +30,11 @@ export default class RuleSetLibrary {
   protected readonly versions = this.api.list();
   protected readonly groups = computed(() => {
     const byCode = new Map<string, RuleSetSummary[]>();
-    for (const v of this.versions.value() ?? []) byCode.set(v.code, [...(byCode.get(v.code) ?? []), v]);
+    for (const v of this.versions.hasValue() ? this.versions.value() : []) byCode.set(v.code, [...(byCode.get(v.code) ?? []), v]);
     return [...byCode.entries()].map(([code, list]) => ({ code, title: list[0].title, list }));
   });
   protected readonly picked = signal<number[]>([]);
   protected readonly canDraft = computed(() => this.ability.can('create', subject('RuleSet', { status: 'draft' })));
-  protected readonly error = computed(() => (this.versions.error() ? toHttpFailure(this.versions.error()).message : null));
 
   protected togglePick(id: number, on: boolean): void {
     this.picked.update((p) => (on ? [...p.filter((x) => x !== id), id].slice(-2) : p.filter((x) => x !== id)));
@@ -50,7 +50,8 @@ export default class RuleSetLibrary {
       const draft = await this.api.createDraft(v.id);
       await this.router.navigate(['/rule-sets', draft.id]);
     } catch (error) {
-      this.snackBar.open(toHttpFailure(error).message, 'OK', { duration: 8000 });
+      assertApiFailure(error);
+      this.snackBar.open(error.message, 'OK', { duration: 8000 });
     }
   }
 }

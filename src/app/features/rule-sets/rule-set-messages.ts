@@ -1,5 +1,5 @@
 import type { RuleSet } from '../../../../shared/rules';
-import type { HttpFailure } from '../../core/errors/http-failure';
+import type { ApiError } from '../../../../shared/schemas/api-error.schema';
 
 export interface RuleSetProblem { text: string; tab: number }
 
@@ -30,7 +30,7 @@ export function ruleSetPlace(path: string, doc: RuleSet | null): { label: string
 }
 
 /** A refused save as lines in the screen's words; zod's "at least 1 characters" becomes "is empty". */
-export function ruleSetProblems(f: HttpFailure, doc: RuleSet | null): RuleSetProblem[] {
+export function ruleSetProblems(f: ApiError, doc: RuleSet | null): RuleSetProblem[] {
   const fields = Object.entries(f.fieldErrors);
   if (!fields.length) return [{ text: f.message, tab: -1 }];
   return fields.map(([path, reasons]) => {

@@ -15,7 +15,8 @@ import { AbilityServiceSignal } from '@casl/angular';
 import { subject } from '@casl/ability';
 import { validateRuleSet, type RuleSet } from '../../../../shared/rules';
 import type { AppAbility } from '../../../../shared/authz/app-ability';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { assertApiFailure } from '../../core/http/api-failure';
+import { LoadFailure } from '../../ui/load-failure';
 import { ruleSetPlace, ruleSetProblems, type RuleSetProblem } from './rule-set-messages';
 import { RuleSetsApi } from './rule-sets-api';
 import { applyRuleSetForm, buildRuleSetForm, type RuleSetForm } from './rule-set-form';
@@ -27,7 +28,7 @@ import { ImpactPanel } from './impact-panel';
 @Component({
   selector: 'tt-rule-set-view',
   imports: [DatePipe, RouterLink, FormsModule, ReactiveFormsModule, MatTabsModule, MatButtonModule, MatIconModule, MatFormFieldModule,
-    MatInputModule, MatSelectModule, MatProgressBarModule, PublishPanel, TryItPanel, ImpactPanel],
+    MatInputModule, MatSelectModule, MatProgressBarModule, PublishPanel, TryItPanel, ImpactPanel, LoadFailure],
   templateUrl: './rule-set-view.html',
   styleUrl: './rule-set-view.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -43,12 +44,13 @@ export default class RuleSetView {
   private readonly ability = inject<AbilityServiceSignal<AppAbility>>(AbilityServiceSignal);
   readonly id = input.required({ transform: numberAttribute });
   protected readonly version = this.api.one(this.id);
-  protected readonly doc = computed(() => this.version.value()?.document as RuleSet | undefined);
+  protected readonly current = computed(() => (this.version.hasValue() ? this.version.value() : undefined));
+  protected readonly doc = computed(() => this.current()?.document as RuleSet | undefined);
   protected readonly canEdit = computed(() => {
-    const v = this.version.value();
+    const v = this.current();
     return v?.status === 'draft' && !v.confirmedBy && this.ability.can('update', subject('RuleSet', { status: 'draft' }));
   });
-  protected readonly canPublish = computed(() => this.version.value()?.status === 'draft' && this.ability.can('publish', 'RuleSet'));
+  protected readonly canPublish = computed(() => this.current()?.status === 'draft' && this.ability.can('publish', 'RuleSet'));
   protected readonly canImpact = computed(() => this.ability.can('impact', 'RuleSet'));
   protected readonly form = signal<RuleSetForm | null>(null);
   protected readonly jsonText = signal('');
@@ -94,11 +96,12 @@ export default class RuleSetView {
     this.isSaving.set(true);
     this.problems.set([]);
     try {
-      const saved = await this.api.save(this.id(), doc as unknown as Record<string, unknown>, this.version.value()!.lockVersion);
+      const saved = await this.api.save(this.id(), doc as unknown as Record<string, unknown>, this.current()!.lockVersion);
       this.version.set(saved);
       this.snackBar.open(`Draft v${saved.version} saved.`, 'OK', { duration: 4000 });
     } catch (error) {
-      this.problems.set(ruleSetProblems(toHttpFailure(error), doc));
+      assertApiFailure(error);
+      this.problems.set(ruleSetProblems(error, doc));
     } finally {
       this.isSaving.set(false);
     }

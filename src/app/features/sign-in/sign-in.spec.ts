@@ -1,5 +1,6 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
-import { provideHttpClient } from '@angular/common/http';
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { errorInterceptor } from '../../core/http/error-interceptor';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { provideRouter } from '@angular/router';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
@@ -14,7 +15,7 @@ let fixture: ComponentFixture<SignIn>;
 
 describe('signing in', () => {
   it('when the password is wrong, then one error shows: the server\'s, not also "Enter your password"', async () => {
-    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), { provide: PureAbility, useValue: createAppAbility([]) }] });
+    TestBed.configureTestingModule({ providers: [provideHttpClient(withInterceptors([errorInterceptor])), provideHttpClientTesting(), provideRouter([]), { provide: PureAbility, useValue: createAppAbility([]) }] });
     const http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(SignIn);
     fixture.detectChanges();

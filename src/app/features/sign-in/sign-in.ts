@@ -7,7 +7,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { SessionStore } from '../../core/auth/session-store';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { assertApiFailure } from '../../core/http/api-failure';
 import { LogoMark } from '../../ui/logo-mark';
 import { SafetyNote } from '../../ui/safety-note';
 
@@ -51,7 +51,8 @@ export default class SignIn {
       const target = this.returnTo();
       await this.router.navigateByUrl(target && target.startsWith('/') && !target.startsWith('//') ? target : '/');
     } catch (error) {
-      this.failure.set(toHttpFailure(error).message);
+      assertApiFailure(error);
+      this.failure.set(error.message);
       // One error, the server's: resetForm also forgets "submitted", so the emptied password is not reddened as missing too.
       this.formDirective().resetForm({ username: this.form.controls.username.value, password: '' });
     } finally {

@@ -1,5 +1,6 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
-import { provideHttpClient } from '@angular/common/http';
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { errorInterceptor } from '../../../core/http/error-interceptor';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { PureAbility } from '@casl/ability';
 import { createAppAbility, defineRulesFor } from '../../../../../shared/authz/app-ability';
@@ -37,7 +38,7 @@ function type(input: HTMLInputElement, value: string): void {
 
 beforeEach(async () => {
   TestBed.configureTestingModule({
-    providers: [provideHttpClient(), provideHttpClientTesting(), { provide: PureAbility, useValue: createAppAbility(defineRulesFor({ id: ME, roles: ['admin'] })) }],
+    providers: [provideHttpClient(withInterceptors([errorInterceptor])), provideHttpClientTesting(), { provide: PureAbility, useValue: createAppAbility(defineRulesFor({ id: ME, roles: ['admin'] })) }],
   });
   fixture = TestBed.createComponent(PendingGrants);
   http = TestBed.inject(HttpTestingController);

@@ -8,7 +8,8 @@ import { AbilityServiceSignal } from '@casl/angular';
 import { subject } from '@casl/ability';
 import type { AppAbility } from '../../../../../shared/authz/app-ability';
 import type { RoleGrantDto } from '../../../../../shared/schemas/role-grant.schema';
-import { toHttpFailure, failureLines } from '../../../core/errors/http-failure';
+import { assertApiFailure } from '../../../core/http/api-failure';
+import { LoadFailure } from '../../../ui/load-failure';
 import { RoleLabelPipe } from '../../../ui/role-label';
 import { RoleGrantsApi } from './role-grants-api';
 
@@ -20,7 +21,7 @@ type Decision = { id: number; kind: 'confirm' | 'refuse' };
  */
 @Component({
   selector: 'tt-pending-grants',
-  imports: [DatePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, RoleLabelPipe],
+  imports: [DatePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, RoleLabelPipe, LoadFailure],
   templateUrl: './pending-grants.html',
   styleUrl: './pending-grants.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -68,7 +69,8 @@ export class PendingGrants {
       this.decided.emit(done);
       this.grants.reload();
     } catch (error) {
-      this.problems.set(failureLines(toHttpFailure(error)));
+      assertApiFailure(error);
+      this.problems.set(error.lines());
     } finally {
       this.password.reset();
       this.isSending.set(false);

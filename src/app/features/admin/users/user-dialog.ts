@@ -6,10 +6,13 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { ROLES, ROLE_DUTIES, ROLE_LABELS, type Role } from '../../../../../shared/authz/roles';
-import type { UserDto } from '../../../../../shared/schemas/user.schema';
-import { toHttpFailure } from '../../../core/errors/http-failure';
+import { createUserSchema, type UserDto } from '../../../../../shared/schemas/user.schema';
+import { assertApiFailure } from '../../../core/http/api-failure';
+import { schemaValidator } from '../../../core/forms/schema-validator';
 import { applyServerErrors } from '../../../ui/field-errors';
 import { UsersApi } from './users-api';
+
+const FIELDS = createUserSchema.shape;
 
 @Component({
   selector: 'tt-user-dialog',
@@ -26,10 +29,10 @@ export class UserDialog {
 
   protected readonly roleOptions = ROLES.map((role) => ({ role, label: ROLE_LABELS[role], duty: ROLE_DUTIES[role] }));
   protected readonly form = this.fb.group({
-    username: [this.existing?.username ?? '', [Validators.required, Validators.minLength(3), Validators.pattern(/^[a-z0-9][a-z0-9._-]*$/)]],
-    displayName: [this.existing?.displayName ?? '', [Validators.required, Validators.minLength(2)]],
-    email: [this.existing?.email ?? '', [Validators.required, Validators.email]],
-    initialPassword: ['', this.existing ? [] : [Validators.required, Validators.minLength(12)]],
+    username: [this.existing?.username ?? '', [Validators.required, schemaValidator(FIELDS.username, 'Username')]],
+    displayName: [this.existing?.displayName ?? '', [Validators.required, schemaValidator(FIELDS.displayName, 'Printed name')]],
+    email: [this.existing?.email ?? '', [Validators.required, schemaValidator(FIELDS.email, 'E-mail')]],
+    initialPassword: ['', this.existing ? [] : [Validators.required, schemaValidator(FIELDS.initialPassword, 'First password')]],
   });
   // Roles awaiting confirmation stay ticked: unticking one withdraws the request.
   protected readonly roles = signal<Set<Role>>(new Set([...(this.existing?.roles ?? []), ...(this.existing?.pendingRoles ?? [])]));
@@ -66,7 +69,8 @@ export class UserDialog {
         : await this.api.create({ username, displayName, email, roles, initialPassword });
       this.ref.close(saved);
     } catch (error) {
-      this.problems.set(applyServerErrors(this.form, toHttpFailure(error)));
+      assertApiFailure(error);
+      this.problems.set(applyServerErrors(this.form, error));
     } finally {
       this.isSaving.set(false);
     }

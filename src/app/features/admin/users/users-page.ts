@@ -13,15 +13,16 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RoleLabelPipe } from '../../../ui/role-label';
 import type { UserDto } from '../../../../../shared/schemas/user.schema';
 import { SessionStore } from '../../../core/auth/session-store';
-import { toHttpFailure } from '../../../core/errors/http-failure';
+import { assertApiFailure } from '../../../core/http/api-failure';
 import { EmptyState } from '../../../ui/empty-state';
+import { LoadFailure } from '../../../ui/load-failure';
 import { UsersApi, type UserListParams } from './users-api';
 import { UserDialog } from './user-dialog';
 import { PendingGrants } from './pending-grants';
 
 @Component({
   selector: 'tt-users-page',
-  imports: [DatePipe, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule, MatTooltipModule, MatProgressBarModule, EmptyState, RoleLabelPipe, PendingGrants],
+  imports: [DatePipe, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule, MatTooltipModule, MatProgressBarModule, EmptyState, LoadFailure, RoleLabelPipe, PendingGrants],
   templateUrl: './users-page.html',
   styleUrl: './users-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -34,9 +35,8 @@ export default class UsersPage {
 
   protected readonly params = signal<UserListParams>({ page: 0, size: 25, q: '' });
   protected readonly users = this.api.list(this.params);
-  protected readonly rows = computed(() => this.users.value()?.items ?? []);
-  protected readonly total = computed(() => this.users.value()?.total ?? 0);
-  protected readonly error = computed(() => (this.users.error() ? toHttpFailure(this.users.error()).message : null));
+  protected readonly rows = computed(() => (this.users.hasValue() ? this.users.value().items : []));
+  protected readonly total = computed(() => (this.users.hasValue() ? this.users.value().total : 0));
   private readonly pendingGrants = viewChild.required(PendingGrants);
   protected readonly columns = ['username', 'displayName', 'roles', 'status', 'lastSignInAt', 'actions'];
 
@@ -62,7 +62,8 @@ export default class UsersPage {
       this.snackBar.open(`${user.displayName} is now ${user.active ? 'deactivated; their sessions have ended' : 'active again'}.`, 'OK', { duration: 5000 });
       this.users.reload();
     } catch (error) {
-      this.snackBar.open(toHttpFailure(error).message, 'OK', { duration: 8000 });
+      assertApiFailure(error);
+      this.snackBar.open(error.message, 'OK', { duration: 8000 });
     }
   }
 }

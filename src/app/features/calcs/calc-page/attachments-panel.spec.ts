@@ -1,5 +1,6 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
-import { provideHttpClient } from '@angular/common/http';
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { errorInterceptor } from '../../../core/http/error-interceptor';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatButtonHarness } from '@angular/material/button/testing';
@@ -31,7 +32,7 @@ async function turn(): Promise<void> {
 
 beforeEach(async () => {
   TestBed.configureTestingModule({
-    providers: [provideHttpClient(), provideHttpClientTesting(), { provide: PureAbility, useValue: createAppAbility(defineRulesFor({ id: 1, roles: ['author'] })) }],
+    providers: [provideHttpClient(withInterceptors([errorInterceptor])), provideHttpClientTesting(), { provide: PureAbility, useValue: createAppAbility(defineRulesFor({ id: 1, roles: ['author'] })) }],
   });
   fixture = TestBed.createComponent(AttachmentsPanel);
   fixture.componentRef.setInput('revision', REVISION);

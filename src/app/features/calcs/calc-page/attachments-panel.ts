@@ -9,7 +9,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { ATTACHMENT_KINDS, ATTACHMENT_KIND_LABELS, type AttachmentDto, type AttachmentKind } from '../../../../../shared/schemas/attachment.schema';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { SessionStore } from '../../../core/auth/session-store';
-import { toHttpFailure } from '../../../core/errors/http-failure';
+import { assertApiFailure } from '../../../core/http/api-failure';
+import { LoadFailure } from '../../../ui/load-failure';
 import { formatBytes } from '../../../../../shared/format';
 import { EmptyState } from '../../../ui/empty-state';
 import { AttachmentsApi } from './attachments-api';
@@ -18,7 +19,7 @@ import { EDITABLE_STATES } from '../../../../../shared/schemas/revision.schema';
 /** Drawings, certificates and supporting files of the selected revision, and the form to add one. */
 @Component({
   selector: 'tt-attachments-panel',
-  imports: [DatePipe, DecimalPipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatIconModule, EmptyState],
+  imports: [DatePipe, DecimalPipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatIconModule, EmptyState, LoadFailure],
   templateUrl: './attachments-panel.html',
   styleUrl: './attachments-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -75,8 +76,8 @@ export class AttachmentsPanel {
       this.list.reload();
       this.changed.emit();
     } catch (error) {
-      const failure = toHttpFailure(error);
-      this.problem.set(failure.fieldErrors['file']?.[0] ? `The file ${failure.fieldErrors['file'][0]}` : failure.message);
+      assertApiFailure(error);
+      this.problem.set(error.fieldErrors['file']?.[0] ? `The file ${error.fieldErrors['file'][0]}` : error.message);
     } finally {
       this.isUploading.set(false);
     }
@@ -88,7 +89,8 @@ export class AttachmentsPanel {
       this.list.reload();
       this.changed.emit();
     } catch (error) {
-      this.problem.set(toHttpFailure(error).message);
+      assertApiFailure(error);
+      this.problem.set(error.message);
     }
   }
 }

@@ -10,7 +10,8 @@ import type { Checklist } from '../../../../../shared/rules';
 import type { CalcResult } from '../../../../../shared/engine';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { SessionStore } from '../../../core/auth/session-store';
-import { toHttpFailure } from '../../../core/errors/http-failure';
+import { assertApiFailure } from '../../../core/http/api-failure';
+import { LoadFailure } from '../../../ui/load-failure';
 import { SafetyNote } from '../../../ui/safety-note';
 import { StateBadge } from '../../../ui/state-badge';
 import { VerdictBadge } from '../../../ui/verdict-badge';
@@ -34,7 +35,7 @@ import { ReasonDialog, type ReasonDialogData, type ReasonDialogResult } from './
 @Component({
   selector: 'tt-calc-page',
   imports: [RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatProgressBarModule,
-    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports, MinimumDiameters, ManualItems, ShaftResults],
+    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports, MinimumDiameters, ManualItems, ShaftResults, LoadFailure],
   templateUrl: './calc-page.html',
   styleUrl: './calc-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -50,24 +51,21 @@ export default class CalcPage {
   readonly rev = input<number | undefined, unknown>(undefined, { transform: (v) => (v == null ? undefined : Number(v)) });
 
   protected readonly calc = this.api.calc(this.id);
-  protected readonly selectedId = linkedSignal(() => this.rev() ?? this.calc.value()?.latest.id);
+  protected readonly calcInfo = computed(() => (this.calc.hasValue() ? this.calc.value() : undefined));
+  protected readonly selectedId = linkedSignal(() => this.rev() ?? this.calcInfo()?.latest.id);
   protected readonly revision = this.api.revision(this.selectedId);
-  protected readonly current = linkedSignal<RevisionDto | undefined>(() => this.revision.value());
-  protected readonly isLatest = computed(() => this.current()?.id === this.calc.value()?.latest.id);
+  protected readonly current = linkedSignal<RevisionDto | undefined>(() => (this.revision.hasValue() ? this.revision.value() : undefined));
+  protected readonly isLatest = computed(() => this.current()?.id === this.calcInfo()?.latest.id);
   protected readonly plan = computed(() => {
     const r = this.current();
     if (!r) return null;
     // An archived project is a closed record: the server refuses every write, so nothing is offered.
-    if (this.calc.value()?.projectArchived) return { actions: new Set<RevisionAction>(), nextStep: 'Nothing more happens here: the project is archived.' };
+    if (this.calcInfo()?.projectArchived) return { actions: new Set<RevisionAction>(), nextStep: 'Nothing more happens here: the project is archived.' };
     return planActions(r, this.me(), this.isLatest());
   });
   protected readonly checklist = computed(() => (this.current()?.checklist ?? null) as Checklist | null);
   protected readonly result = computed(() => (this.current()?.result ?? null) as CalcResult | null);
   protected readonly canTick = computed(() => !!this.plan()?.actions.has('sign-checked'));
-  protected readonly error = computed(() => {
-    const e = this.calc.error() ?? this.revision.error();
-    return e ? toHttpFailure(e).message : null;
-  });
   protected readonly failingMandatory = computed(() => (this.current() ? failingMandatoryRows(this.current()!) : []));
   protected readonly failingRowText = failingRowText;
   protected readonly eng = formatEng;
@@ -84,7 +82,7 @@ export default class CalcPage {
 
   protected sign(meaning: SignDialogData['meaning']): void {
     const revision = this.current()!;
-    const calcLabel = `${this.calc.value()?.number} rev ${revision.label}`;
+    const calcLabel = `${this.calcInfo()?.number} rev ${revision.label}`;
     this.dialog.open(SignDialog, { data: { revision, meaning, calcLabel } satisfies SignDialogData, width: '600px' })
       .afterClosed().subscribe((signed?: RevisionDto) => {
         if (!signed) return;
@@ -117,7 +115,8 @@ export default class CalcPage {
       }
       this.updated(kind === 'return' ? await this.api.returnToAuthor(r.id, reason, r.lockVersion) : await this.api.withdraw(r.id, reason, r.lockVersion));
     } catch (error) {
-      this.snackBar.open(toHttpFailure(error).message, 'OK', { duration: 8000 });
+      assertApiFailure(error);
+      this.snackBar.open(error.message, 'OK', { duration: 8000 });
     }
   }
 }

@@ -5,7 +5,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import type { FindingDto, RevisionDto } from '../../../../../shared/schemas/calc-dto';
-import { toHttpFailure } from '../../../core/errors/http-failure';
+import { assertApiFailure } from '../../../core/http/api-failure';
 import { EmptyState } from '../../../ui/empty-state';
 import { CalcsApi } from '../calcs-api';
 
@@ -60,7 +60,8 @@ export class FindingsPanel {
       this.changed.emit(await call());
       return true;
     } catch (error) {
-      this.problem.set(toHttpFailure(error).message);
+      assertApiFailure(error);
+      this.problem.set(error.message);
       return false;
     } finally {
       this.busy.set(false);

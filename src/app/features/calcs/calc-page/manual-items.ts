@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, input, output, si
 import { MatCheckboxModule, type MatCheckboxChange } from '@angular/material/checkbox';
 import type { Checklist } from '../../../../../shared/rules';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
-import { toHttpFailure } from '../../../core/errors/http-failure';
+import { assertApiFailure } from '../../../core/http/api-failure';
 import { CalcsApi } from '../calcs-api';
 
 /**
@@ -53,7 +53,8 @@ export class ManualItems {
     } catch (error) {
       // The checkbox toggled itself on click; put it back to what the server holds.
       event.source.checked = !done;
-      this.refusals.update((r) => ({ ...r, [itemId]: toHttpFailure(error).message }));
+      assertApiFailure(error);
+      this.refusals.update((r) => ({ ...r, [itemId]: error.message }));
     } finally {
       this.busy.set(null);
     }

@@ -1,10 +1,10 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { DecimalPipe } from '@angular/common';
-import { httpResource } from '@angular/common/http';
 import { validateCalcInput } from '../../../../../shared/engine';
 import { minimumDiameters, type RuleSet } from '../../../../../shared/rules';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
-import type { RuleSetDto } from '../../../../../shared/schemas/rule-set.schema';
+import { LoadFailure } from '../../../ui/load-failure';
+import { RuleSetsApi } from '../../rule-sets/rule-sets-api';
 
 /**
  * For each segment, the smallest outer diameter (same bore ratio when hollow) that passes every
@@ -13,7 +13,7 @@ import type { RuleSetDto } from '../../../../../shared/schemas/rule-set.schema';
  */
 @Component({
   selector: 'tt-minimum-diameters',
-  imports: [DecimalPipe],
+  imports: [DecimalPipe, LoadFailure],
   template: `
     @if (rows(); as list) {
       <table class="mins">
@@ -30,6 +30,8 @@ import type { RuleSetDto } from '../../../../../shared/schemas/rule-set.schema';
           }
         </tbody>
       </table>
+    } @else if (ruleSet.error(); as error) {
+      <tt-load-failure [error]="error" what="standard's text for minimum diameters" (retry)="ruleSet.reload()" />
     } @else { <p class="tt-muted">Minimum diameters need valid input and the standard's text; they appear once both are loaded.</p> }
   `,
   styles: `
@@ -43,10 +45,10 @@ import type { RuleSetDto } from '../../../../../shared/schemas/rule-set.schema';
 })
 export class MinimumDiameters {
   readonly revision = input.required<RevisionDto>();
-  private readonly ruleSet = httpResource<RuleSetDto>(() => `/api/rule-sets/${this.revision().ruleSet.id}`);
+  protected readonly ruleSet = inject(RuleSetsApi).one(computed(() => this.revision().ruleSet.id));
   protected readonly unit = computed(() => ((this.revision().input as { units?: string }).units === 'US' ? 'in' : 'mm'));
   protected readonly rows = computed(() => {
-    const doc = this.ruleSet.value()?.document as RuleSet | undefined;
+    const doc = (this.ruleSet.hasValue() ? this.ruleSet.value().document : undefined) as RuleSet | undefined;
     const checked = validateCalcInput(this.revision().input);
     if (!doc || !checked.ok) return null;
     return minimumDiameters(checked.value, doc).map((m) => ({

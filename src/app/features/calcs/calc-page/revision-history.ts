@@ -4,7 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatSelectModule } from '@angular/material/select';
 import type { RevisionSummary } from '../../../../../shared/schemas/calc-dto';
-import { toHttpFailure } from '../../../core/errors/http-failure';
+import { assertApiFailure } from '../../../core/http/api-failure';
 import { CalcsApi } from '../calcs-api';
 
 /** The diff between any two revisions of a calc: inputs and checklist outcomes. */
@@ -52,7 +52,8 @@ export class RevisionHistory {
       this.diff.set(await this.api.diff(this.calcId(), this.from, this.to));
       this.problem.set(null);
     } catch (error) {
-      this.problem.set(toHttpFailure(error).message);
+      assertApiFailure(error);
+      this.problem.set(error.message);
     }
   }
 }

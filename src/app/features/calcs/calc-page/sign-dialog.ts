@@ -1,7 +1,5 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { httpResource } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { RouterLink } from '@angular/router';
-import type { SecondFactorStatus } from '../../../../../shared/schemas/second-factor.schema';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatButtonModule } from '@angular/material/button';
@@ -9,7 +7,9 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { SessionStore } from '../../../core/auth/session-store';
-import { toHttpFailure, type HttpFailure } from '../../../core/errors/http-failure';
+import { assertApiFailure, type ApiFailure } from '../../../core/http/api-failure';
+import { LoadFailure } from '../../../ui/load-failure';
+import { AccountApi } from '../../account/account-api';
 import { failingRowText, signingReadiness } from './signing-readiness';
 import { CalcsApi } from '../calcs-api';
 
@@ -24,7 +24,7 @@ const STATEMENTS: Record<SignDialogData['meaning'], string> = {
 /** Re-authentication for an e-signature: the signer's password, the meaning, and one idempotency key. */
 @Component({
   selector: 'tt-sign-dialog',
-  imports: [ReactiveFormsModule, RouterLink, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule],
+  imports: [ReactiveFormsModule, RouterLink, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, LoadFailure],
   templateUrl: './sign-dialog.html',
   styleUrl: './sign-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -38,7 +38,8 @@ export class SignDialog {
   // One key per dialog: a double click or a retried request still yields exactly one signature.
   private readonly idempotencyKey = crypto.randomUUID();
   protected readonly form = inject(NonNullableFormBuilder).group({ password: ['', Validators.required], oneTimeCode: [''] });
-  protected readonly secondFactor = httpResource<SecondFactorStatus>(() => '/api/auth/second-factor');
+  protected readonly secondFactor = inject(AccountApi).secondFactor();
+  protected readonly codeSetting = computed(() => (this.secondFactor.hasValue() ? this.secondFactor.value() : undefined));
   protected readonly problem = signal<string | null>(null);
   protected readonly isSigning = signal(false);
   protected readonly readiness = signingReadiness(this.data.revision, this.data.meaning, this.me());
@@ -52,19 +53,20 @@ export class SignDialog {
     try {
       const signed = await this.api.sign(this.data.revision.id, {
         password: this.form.getRawValue().password, meaning: this.data.meaning,
-        ...(this.secondFactor.value()?.enrolled ? { oneTimeCode: this.form.getRawValue().oneTimeCode.trim() } : {}),
+        ...(this.codeSetting()?.enrolled ? { oneTimeCode: this.form.getRawValue().oneTimeCode.trim() } : {}),
         idempotencyKey: this.idempotencyKey, lockVersion: this.data.revision.lockVersion,
       });
       this.ref.close(signed);
     } catch (error) {
-      this.showFailure(toHttpFailure(error));
+      assertApiFailure(error);
+      this.showFailure(error);
     } finally {
       this.isSigning.set(false);
     }
   }
 
   /** One error, on the right thing: a wrong password or code marks that field; anything else is a message and the password stays. */
-  private showFailure(failure: HttpFailure): void {
+  private showFailure(failure: ApiFailure): void {
     const fields = Object.keys(failure.fieldErrors) as ('password' | 'oneTimeCode')[];
     const own = fields.filter((f) => f === 'password' || f === 'oneTimeCode');
     if (!own.length) return this.problem.set(failure.message);

@@ -1,8 +1,8 @@
 import { Injectable, computed, inject, signal } from '@angular/core';
-import { HttpErrorResponse, httpResource } from '@angular/common/http';
 import { ruleSetSchema, type RuleSet } from '../../../../../shared/rules';
-import type { CalcDto, RevisionDto } from '../../../../../shared/schemas/calc-dto';
-import { failureLines, toHttpFailure } from '../../../core/errors/http-failure';
+import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
+import { assertApiFailure } from '../../../core/http/api-failure';
+import { loadFailureText } from '../../../ui/load-failure';
 import { CalcsApi } from '../calcs-api';
 
 export type SaveOutcome =
@@ -30,7 +30,7 @@ export class EditorStore {
 
   // Keyed on the calc id alone, so a save (a new revision object) does not fetch the heading again.
   private readonly calcId = computed(() => this.stored()?.calcId);
-  readonly calc = httpResource<CalcDto>(() => (this.calcId() ? `/api/calcs/${this.calcId()}` : undefined));
+  readonly calc = this.api.calc(this.calcId);
   readonly calcLabel = computed(() => (this.calc.hasValue() ? `${this.calc.value().number} · ${this.calc.value().title}` : ''));
 
   async load(id: number): Promise<void> {
@@ -40,8 +40,8 @@ export class EditorStore {
       this.adopt(revision);
       await this.loadRuleSet(revision.ruleSet.id, `${revision.ruleSet.code} v${revision.ruleSet.version}`);
     } catch (error) {
-      const f = toHttpFailure(error);
-      this.loadError.set(f.status === 404 ? `Revision ${id} was not found.` : f.message);
+      assertApiFailure(error);
+      this.loadError.set(loadFailureText(error, `revision ${id}`));
     }
   }
 
@@ -51,7 +51,8 @@ export class EditorStore {
       this.ruleSet.set(parsed.success ? parsed.data : null);
       this.ruleSetProblem.set(parsed.success ? null : `The design standard ${name} could not be read, so no checklist is shown.`);
     } catch (error) {
-      this.ruleSetProblem.set(`The design standard ${name} could not be loaded: ${toHttpFailure(error).message}`);
+      assertApiFailure(error);
+      this.ruleSetProblem.set(`The design standard ${name} could not be loaded: ${error.message}`);
     }
   }
 
@@ -71,11 +72,11 @@ export class EditorStore {
       this.adopt(saved);
       return { kind: 'saved', revision: saved };
     } catch (error) {
-      const current = error instanceof HttpErrorResponse && error.status === 409 ? (error.error as { current?: RevisionDto })?.current : undefined;
+      assertApiFailure(error);
+      const current = error.status === 409 ? (error.details['current'] as RevisionDto | undefined) : undefined;
       if (current) return { kind: 'conflict', current };
-      const f = toHttpFailure(error);
-      const fields = Object.keys(f.fieldErrors).length ? failureLines(f) : [];
-      return { kind: 'failed', message: [f.message, ...fields].join(' — ') };
+      const fields = Object.keys(error.fieldErrors).length ? error.lines() : [];
+      return { kind: 'failed', message: [error.message, ...fields].join(' — ') };
     } finally {
       this.isSaving.set(false);
     }

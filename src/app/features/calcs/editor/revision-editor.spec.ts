@@ -1,5 +1,6 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
-import { provideHttpClient } from '@angular/common/http';
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { errorInterceptor } from '../../../core/http/error-interceptor';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { provideRouter } from '@angular/router';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
@@ -78,7 +79,7 @@ beforeEach(() => {
   localStorage.clear();
   TestBed.configureTestingModule({
     providers: [
-      provideHttpClient(), provideHttpClientTesting(), provideRouter([]),
+      provideHttpClient(withInterceptors([errorInterceptor])), provideHttpClientTesting(), provideRouter([]),
       { provide: PureAbility, useValue: createAppAbility(defineRulesFor({ id: ME.id, roles: [...ME.roles] })) },
       { provide: EDITOR_DEBOUNCE_MS, useValue: 0 },
       // Dialogs close on an animation event jsdom never fires; without animations they close at once.

@@ -7,14 +7,19 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import type { ProjectDto } from '../../../../../shared/schemas/project.schema';
-import { toHttpFailure } from '../../../core/errors/http-failure';
+import { createCalcSchema } from '../../../../../shared/schemas/revision.schema';
+import { assertApiFailure } from '../../../core/http/api-failure';
+import { schemaValidator } from '../../../core/forms/schema-validator';
+import { LoadFailure } from '../../../ui/load-failure';
 import { applyServerErrors } from '../../../ui/field-errors';
 import { CalcsApi } from '../calcs-api';
 import { starterInput } from './starter-input';
 
+const FIELDS = createCalcSchema.shape;
+
 @Component({
   selector: 'tt-new-calc-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonToggleModule],
+  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonToggleModule, LoadFailure],
   templateUrl: './new-calc-dialog.html',
   styles: '.form { display: grid; gap: 12px; padding-top: 8px; } .problem { color: var(--tt-fail); margin: 0; } .units { display: flex; align-items: center; gap: 12px; }',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -23,12 +28,12 @@ export class NewCalcDialog {
   private readonly api = inject(CalcsApi);
   private readonly ref = inject(MatDialogRef<NewCalcDialog>);
   protected readonly project = inject<ProjectDto>(MAT_DIALOG_DATA);
-  private readonly ruleSetList = this.api.ruleSets();
-  protected readonly effective = computed(() => (this.ruleSetList.value() ?? []).filter((r) => r.status === 'effective'));
+  protected readonly ruleSetList = this.api.ruleSets();
+  protected readonly effective = computed(() => (this.ruleSetList.hasValue() ? this.ruleSetList.value() : []).filter((r) => r.status === 'effective'));
   protected readonly form = inject(NonNullableFormBuilder).group({
-    number: ['', [Validators.required, Validators.minLength(2), Validators.maxLength(40), Validators.pattern(/^[A-Za-z0-9][A-Za-z0-9./-]*$/)]],
-    title: ['', [Validators.required, Validators.minLength(3), Validators.maxLength(200)]],
-    partRef: ['', Validators.maxLength(120)],
+    number: ['', [Validators.required, schemaValidator(FIELDS.number, 'Calc number')]],
+    title: ['', [Validators.required, schemaValidator(FIELDS.title, 'Title')]],
+    partRef: ['', schemaValidator(FIELDS.partRef, 'Drawing or part reference')],
     ruleSetId: [0, Validators.min(1)],
     units: ['SI' as 'SI' | 'US'],
   });
@@ -43,7 +48,8 @@ export class NewCalcDialog {
       const calc = await this.api.create({ ...rest, projectId: this.project.id, input: starterInput(units) });
       this.ref.close({ calcId: calc.id, revisionId: calc.latest.id });
     } catch (error) {
-      this.problems.set(applyServerErrors(this.form, toHttpFailure(error)));
+      assertApiFailure(error);
+      this.problems.set(applyServerErrors(this.form, error));
     } finally {
       this.isSaving.set(false);
     }

@@ -1,7 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, numberAttribute, signal } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { Router, RouterLink } from '@angular/router';
-import { httpResource } from '@angular/common/http';
 import { MatTableModule } from '@angular/material/table';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
@@ -14,10 +13,10 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatDialog } from '@angular/material/dialog';
 import { AbilityServiceSignal } from '@casl/angular';
 import type { AppAbility } from '../../../../../shared/authz/app-ability';
-import type { ProjectDto } from '../../../../../shared/schemas/project.schema';
 import { REVISION_STATES, STATE_LABELS } from '../../../../../shared/schemas/revision.schema';
-import { toHttpFailure } from '../../../core/errors/http-failure';
 import { EmptyState } from '../../../ui/empty-state';
+import { LoadFailure } from '../../../ui/load-failure';
+import { ProjectsApi } from '../../projects/projects-api';
 import { StateBadge } from '../../../ui/state-badge';
 import { VerdictBadge } from '../../../ui/verdict-badge';
 import { CalcsApi, type CalcListParams } from '../calcs-api';
@@ -26,7 +25,7 @@ import { NewCalcDialog } from '../new-calc/new-calc-dialog';
 
 @Component({
   selector: 'tt-project-calcs',
-  imports: [DatePipe, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatSelectModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, EmptyState, StateBadge, VerdictBadge],
+  imports: [DatePipe, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatSelectModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, EmptyState, StateBadge, VerdictBadge, LoadFailure],
   templateUrl: './project-calcs.html',
   styleUrl: './project-calcs.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -37,16 +36,13 @@ export default class ProjectCalcs {
   private readonly ability = inject<AbilityServiceSignal<AppAbility>>(AbilityServiceSignal);
   readonly id = input.required({ transform: numberAttribute });
 
-  protected readonly project = httpResource<ProjectDto>(() => `/api/projects/${this.id()}`);
+  protected readonly project = inject(ProjectsApi).one(this.id);
+  protected readonly projectInfo = computed(() => (this.project.hasValue() ? this.project.value() : undefined));
   protected readonly params = signal<Omit<CalcListParams, 'projectId' | 'size' | 'after'>>({ q: '', sort: 'updatedAt', dir: 'desc' });
   protected readonly pager = new KeysetPager(25);
   protected readonly calcs = inject(CalcsApi).list(computed(() => ({ ...this.params(), projectId: this.id(), size: this.pager.size(), after: this.pager.after() })));
   protected readonly rows = computed(() => (this.calcs.hasValue() ? this.calcs.value().items : []));
-  protected readonly error = computed(() => {
-    const e = this.project.error() ?? this.calcs.error();
-    return e ? toHttpFailure(e).message : null;
-  });
-  protected readonly canCreate = computed(() => this.ability.can('create', 'Calc') && this.project.value()?.status === 'active');
+  protected readonly canCreate = computed(() => this.ability.can('create', 'Calc') && this.projectInfo()?.status === 'active');
   protected readonly states = REVISION_STATES.map((s) => ({ value: s, label: STATE_LABELS[s] }));
   protected readonly columns = ['number', 'title', 'revision', 'status', 'verdict', 'author', 'updatedAt'];
 
@@ -71,7 +67,7 @@ export default class ProjectCalcs {
   }
 
   protected startCalc(): void {
-    this.dialog.open(NewCalcDialog, { data: this.project.value(), autoFocus: 'first-tabbable', width: '620px' })
+    this.dialog.open(NewCalcDialog, { data: this.projectInfo(), autoFocus: 'first-tabbable', width: '620px' })
       .afterClosed().subscribe((created?: { calcId: number; revisionId: number }) => {
         if (created) void this.router.navigate(['/revisions', created.revisionId, 'edit']);
       });

@@ -1,5 +1,5 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
-import type { Provider, Type } from '@angular/core';
+import type { EnvironmentProviders, Provider, Type } from '@angular/core';
 import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { errorInterceptor } from '../../src/app/core/http/error-interceptor';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
@@ -16,7 +16,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
  */
 export async function mountComponent<T>(
   type: Type<T>,
-  options: { inputs?: Record<string, unknown>; providers?: Provider[] } = {},
+  options: { inputs?: Record<string, unknown>; providers?: (Provider | EnvironmentProviders)[] } = {},
 ) {
   TestBed.configureTestingModule({
     providers: [provideHttpClient(withInterceptors([errorInterceptor])), provideHttpClientTesting(), ...(options.providers ?? [])],

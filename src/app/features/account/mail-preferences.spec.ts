@@ -5,14 +5,14 @@ import { MailPreferences } from './mail-preferences';
 
 const PREFS = [
   {
-    event: 'rule_set.published',
+    event: 'impact',
     label: 'A design standard is published',
     description: 'For compliance',
     enabled: true,
     appliesToYou: false,
   },
   {
-    event: 'revision.submitted',
+    event: 'submitted',
     label: 'A calc waits for my check',
     description: 'When an author submits',
     enabled: true,
@@ -42,8 +42,8 @@ describe('e-mail preferences', () => {
     const [mine] = await d.toggles();
     await mine.toggle();
     const req = d.http.expectOne({ method: 'PUT', url: URL });
-    expect(req.request.body).toEqual({ preferences: { 'revision.submitted': false } });
-    req.flush(PREFS.map((p) => (p.event === 'revision.submitted' ? { ...p, enabled: false } : p)));
+    expect(req.request.body).toEqual({ preferences: { 'submitted': false } });
+    req.flush(PREFS.map((p) => (p.event === 'submitted' ? { ...p, enabled: false } : p)));
     await d.settle();
 
     expect(await (await d.toggles())[0].isChecked()).toBe(false);

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { DecimalPipe } from '@angular/common';
 import { validateCalcInput } from '../../../../../shared/engine';
 import { minimumDiameters, type RuleSet } from '../../../../../shared/rules';

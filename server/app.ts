@@ -27,6 +27,7 @@ import { CalcsService } from './calcs/calcs.service';
 import { LifecycleService } from './calcs/lifecycle.service';
 import { WorkflowService } from './workflow/workflow.service';
 import { ReviewService } from './workflow/review.service';
+import { independentModelRouter } from './independent/independent-model.router';
 import { ruleSetsRouter } from './rule-sets/rule-sets.router';
 import { RuleSetsService } from './rule-sets/rule-sets.service';
 import { ImpactService } from './rule-sets/impact.service';
@@ -63,6 +64,7 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   const services = calcServices(sequelize, config);
   app.use('/api/calcs', requireSignIn, calcsRouter(services.calcs, services.lifecycle));
   app.use('/api/revisions', requireSignIn, revisionsRouter(services));
+  app.use('/api/revisions', requireSignIn, independentModelRouter(sequelize));
   app.use('/api/findings', requireSignIn, findingsRouter(services.review));
   const impact = new ImpactService(sequelize);
   const ruleSets = new RuleSetsService(sequelize, (actor, id) => impact.notifyIfAffected(actor, id));

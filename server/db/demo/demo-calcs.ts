@@ -11,10 +11,11 @@ import { conveyorHeadShaft, mixerShaft, slurryPumpShaft } from './demo-shafts';
 import { DEMO_PASSWORD } from '../demo-data';
 import { AttachmentsService } from '../../attachments/attachments.service';
 import { DEMO_CERTIFICATE, DEMO_DRAWING } from './demo-files';
+import { seedIndependentModelCalc } from './demo-independent';
 
 type Person = Awaited<ReturnType<typeof personOf>>;
 
-async function personOf(username: string) {
+export async function personOf(username: string) {
   const user = await User.findOne({ where: { username }, include: [{ model: UserRole, as: 'roleRows' }] });
   if (!user) throw new Error(`demo user ${username} is missing`);
   const roles = user.roles;
@@ -88,4 +89,6 @@ export async function seedDemoCalcs(sequelize: Sequelize, baseUrl: string, attac
   await submit(hale, stub);
   const stubRev = await readAs(okafor, stub);
   await review.returnToAuthor(okafor.ability, okafor, stub, 'The impeller side load of 580 N looks low for an 80 m³ tank; show where it comes from (hydraulic side load at the design liquid level).', stubRev.lockVersion);
+
+  await seedIndependentModelCalc(sequelize, { calcs, review, submit, tickAll, signAs }, hale, okafor);
 }

@@ -90,5 +90,9 @@ export async function seedDemoCalcs(sequelize: Sequelize, baseUrl: string, attac
   const stubRev = await readAs(okafor, stub);
   await review.returnToAuthor(okafor.ability, okafor, stub, 'The impeller side load of 580 N looks low for an 80 m³ tank; show where it comes from (hydraulic side load at the design liquid level).', stubRev.lockVersion);
 
-  await seedIndependentModelCalc(sequelize, { calcs, review, submit, tickAll, signAs }, hale, okafor);
+  // The lifting-duty standard also asks for the proof-load test plan on file.
+  const attachPlan = async (p: Person, id: number) => {
+    await attachments.upload(p.ability, p, id, { buffer: await DEMO_DRAWING('KFD-TP-0450', 'Proof-load test plan, winch drum shaft'), originalname: 'proof-load-test-plan.pdf' }, { kind: 'other', note: 'Proof-load test plan' });
+  };
+  await seedIndependentModelCalc(sequelize, { calcs, review, submit: async (p, id) => { await attachPlan(p, id); await submit(p, id); }, tickAll, signAs }, hale, okafor);
 }

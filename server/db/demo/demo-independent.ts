@@ -17,9 +17,9 @@ interface Steps {
 
 /**
  * A lifting-duty calc (KFD-ENG-021 asks for an independent model) verified by alternate
- * calculation: the checker reads the drum seat as 132 mm from the drawing, the author has 130 mm;
- * the difference becomes a finding, the author answers it (the drawing's 130 h6 is right, the
- * checker read the hub bore), the checker closes it and signs as checked. Everything is invented.
+ * calculation: the checker takes the far bearing's dynamic rating as 320 kN from the bearing list,
+ * the author has 300 kN; the difference becomes a finding, the author answers it (the bearing
+ * maker's sheet for the sealed variant gives 300 kN), the checker closes it and signs as checked. Everything is invented.
  */
 export async function seedIndependentModelCalc(sequelize: Sequelize, s: Steps, author: Person, checker: Person): Promise<void> {
   const ruleSet = await RuleSetRecord.findOne({ where: { code: 'KFD-ENG-021', status: 'effective' }, order: [['version', 'DESC']] });
@@ -31,14 +31,14 @@ export async function seedIndependentModelCalc(sequelize: Sequelize, s: Steps, a
   });
   const id = calc.latest.id;
   await s.submit(author, id);
-  const started = await models.save(checker.ability, checker, id, hoistDrumShaft(132), 0);
+  const started = await models.save(checker.ability, checker, id, hoistDrumShaft(320), 0);
   await models.lock(checker.ability, checker, id, started.lockVersion);
   const returned = await readRevision(checker.ability, id);
-  await s.review.returnToAuthor(checker.ability, checker, id, 'One difference between my independent model and the calc: see the drum seat.', returned.lockVersion);
+  await s.review.returnToAuthor(checker.ability, checker, id, 'One difference between my independent model and the calc: the far bearing rating.', returned.lockVersion);
   for (const f of (await readRevision(author.ability, id)).findings) {
-    const answer = f.clauseRef === 'segments[2].od'
-      ? 'Drawing CV1200-3050 rev B gives the drum seat as 130 h6; 132 mm is the drum hub bore before fitting. Calc unchanged.'
-      : 'The 130 mm seat is right (see the drum seat finding); nothing to change.';
+    const answer = f.clauseRef === 'supports[1].C'
+      ? 'The drawing calls up the sealed variant of the far bearing; its maker\'s sheet gives C = 300 kN (320 kN is the open one). Calc unchanged.'
+      : 'The far bearing is the sealed variant with C = 300 kN (see the bearing finding); nothing to change.';
     await s.review.answerFinding(author.ability, author, f.id, answer);
   }
   await s.signAs(author, id, 'authored');

@@ -12,6 +12,8 @@ npx tsx scripts/bench.ts
 echo
 npx tsx scripts/bench-rules.ts
 echo
+npx tsx scripts/bench-compare.ts
+echo
 dir=".data/bench-$$"
 export DB_NAME=torquetrail_bench DB_USER=torquetrail_bench DB_PASSWORD=bench-only LOG_LEVEL=silent
 db_start "$dir" "$(free_port)"

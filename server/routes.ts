@@ -14,6 +14,7 @@ import { dashboardRouter } from './dashboard/dashboard.router';
 import { calcsRouter } from './calcs/calcs.router';
 import { evidenceRouter } from './evidence/evidence.router';
 import { revisionsRouter, findingsRouter } from './revisions/revisions.router';
+import { independentModelRouter } from './independent/independent-model.router';
 import { revisionAttachmentsRouter, attachmentsRouter } from './attachments/attachments.router';
 import { reportRouter } from './reports/report.router';
 import { ruleSetsRouter } from './rule-sets/rule-sets.router';
@@ -48,7 +49,10 @@ export function apiMounts({ sequelize, config, passport, services: s }: MountDep
     { path: '/api/calcs', routers: [calcsRouter(s.calcs, s.lifecycle), evidenceRouter(s.evidence, org, s.baseUrl)] },
     {
       path: '/api/revisions',
-      routers: [revisionsRouter(s), revisionAttachmentsRouter(s.attachments), reportRouter(s.reports, org, s.baseUrl)],
+      routers: [
+        revisionsRouter(s), revisionAttachmentsRouter(s.attachments), reportRouter(s.reports, org, s.baseUrl),
+        independentModelRouter(s.independent),
+      ],
     },
     { path: '/api/findings', routers: [findingsRouter(s.review)] },
     { path: '/api/rule-sets', routers: [ruleSetsRouter(s.ruleSets, s.impact)] },

@@ -13,6 +13,7 @@ import { ReportService } from './reports/report.service';
 import { EvidenceService } from './evidence/evidence.service';
 import { WorkPool } from './workers/work-pool';
 import { PackCheckService } from './verify/pack-check.service';
+import { IndependentModelService } from './independent/independent-model.service';
 
 const MB = 1024 * 1024;
 
@@ -34,6 +35,7 @@ export function createServices(sequelize: Sequelize, config: Config) {
     sentMail: new SentMailService(config.MAIL_FROM, config.SENT_MAIL_SCREEN),
     attachments: new AttachmentsService(sequelize, store, Math.round(config.ATTACHMENT_MAX_MB * MB)),
     evidence: new EvidenceService(sequelize, store, reports),
+    independent: new IndependentModelService(sequelize),
     packs: new PackCheckService(Math.round(config.EVIDENCE_PACK_MAX_MB * MB), work),
   };
 }

@@ -6,6 +6,7 @@ import type { CalcListItem } from '../../shared/schemas/calc-dto';
 import { REVISION_STATES, type CalcListQuery, type RevisionState } from '../../shared/schemas/revision.schema';
 import { Calc } from '../db/models';
 import { cappedCount, decodeCursor, encodeCursor, keysetCondition, orderBy, type KeyColumn } from '../http/keyset';
+import { blindRevisionIds } from '../independent/blind-lists';
 
 const ID: KeyColumn = { sql: 'c.id' };
 const UPDATED: KeyColumn = { sql: 'c.latest_updated_at', isDate: true };
@@ -39,6 +40,8 @@ export function searchCondition(q: string): { sql: string; replacements: unknown
   if (words.length > 0) return { sql: 'MATCH(c.search_text) AGAINST (? IN BOOLEAN MODE)', replacements: [words.map((w) => `+${w}*`).join(' ')] };
   return { sql: 'c.number LIKE ?', replacements: [`${q.replace(/[\\%_]/g, '\\$&')}%`] };
 }
+
+const listedOf = (r: Row) => ({ revisionId: r.latest_revision_id, ruleSetId: r.latest_rule_set_id, authorId: r.latest_author_id, status: r.latest_status });
 
 function toItem(r: Row): CalcListItem {
   return {
@@ -85,8 +88,9 @@ export async function listCalcs(ability: AppAbility, query: CalcListQuery): Prom
   ]);
   const more = rows.length > query.size;
   const items = rows.slice(0, query.size);
+  const blind = await blindRevisionIds(ability, items.map(listedOf));
   return {
-    items: items.map(toItem), size: query.size, total: counted?.total ?? null, totalIsAtLeast: counted?.totalIsAtLeast ?? false,
+    items: items.map((r) => toItem(blind.has(r.latest_revision_id) ? { ...r, latest_verdict: null } : r)), size: query.size, total: counted?.total ?? null, totalIsAtLeast: counted?.totalIsAtLeast ?? false,
     next: more ? encodeCursor(keyOf(items[items.length - 1], query.sort)) : null,
   };
 }

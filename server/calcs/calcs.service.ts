@@ -19,6 +19,7 @@ import { stringifyFinite } from '../../shared/json/finite-json';
 import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
 import { compactResult, registerEngineMetadata } from './stored-result';
+import { blindRevisionIds } from '../independent/blind-lists';
 
 /** Calcs and the content of their revisions. Workflow transitions live in server/workflow. */
 export class CalcsService {
@@ -33,6 +34,8 @@ export class CalcsService {
       where: { calcId: id }, attributes: { exclude: ['input', 'result', 'checklist', 'manualItems', 'outcome'] },
       include: REVISION_INCLUDE.map((i) => (i.as === 'ruleSet' ? { ...i, attributes: ['id', 'code', 'version', 'title'] } : i)),
     });
+    const blind = await blindRevisionIds(ability, revisions.map((r) => ({ revisionId: r.id, ruleSetId: r.ruleSetId, authorId: r.authorId, status: r.status })));
+    for (const r of revisions) if (blind.has(r.id)) r.verdict = null; // shown only, never saved
     return toCalcDto(calc, revisions);
   }
 

@@ -70,6 +70,8 @@ export interface HashedContent {
   /** Present from format 2 on; format 1 content has neither field, so old hashes recompute unchanged. */
   contentFormat?: number;
   attachments?: SignedAttachment[];
+  /** Present from format 3 on: the checker's locked independent model and the comparison (null when none). */
+  independentModel?: unknown;
 }
 
 type CalcIdentity = { number: string; title: string; partRef: string; Project: { code: string } };
@@ -87,14 +89,16 @@ export function signedAttachments(rows: readonly AttachmentRow[]): SignedAttachm
  * Format 1 (signatures made before attachments were signed) leaves the attachments out.
  */
 export function hashedContentOf(calc: CalcIdentity, label: string, input: unknown, result: unknown, checklist: unknown, ruleSet: RuleSetIdentity,
-  format = 1, attachments: readonly AttachmentRow[] = []): HashedContent {
+  format = 1, attachments: readonly AttachmentRow[] = [], independentModel: unknown = null): HashedContent {
   const base: HashedContent = {
     calc: { project: calc.Project.code, number: calc.number, title: calc.title, partRef: calc.partRef },
     revision: label, input, result, checklist,
     engineVersion: (result as { engineVersion?: string } | null)?.engineVersion ?? ENGINE_VERSION,
     ruleSet: { code: ruleSet?.code ?? '', version: ruleSet?.version ?? 0, contentHash: ruleSet?.contentHash ?? '' },
   };
-  return format >= 2 ? { ...base, contentFormat: format, attachments: signedAttachments(attachments) } : base;
+  if (format < 2) return base;
+  const withFiles = { ...base, contentFormat: format, attachments: signedAttachments(attachments) };
+  return format >= 3 ? { ...withFiles, independentModel } : withFiles;
 }
 
 /**

@@ -3,6 +3,7 @@ import type { AppAbility } from '../../shared/authz/app-ability';
 import { Revision } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { jsonDiff } from './content-diff';
+import { blindError, blindRevisionIds } from '../independent/blind-lists';
 
 export interface RevisionDiffDto {
   from: { id: number; label: string };
@@ -17,6 +18,7 @@ export async function diffRevisions(ability: AppAbility, calcId: number, fromId:
   const [from, to] = await Promise.all([Revision.findByPk(fromId), Revision.findByPk(toId)]);
   if (!from || from.calcId !== calcId) throw AppError.notFound(`Revision ${fromId} of calc ${calcId}`);
   if (!to || to.calcId !== calcId) throw AppError.notFound(`Revision ${toId} of calc ${calcId}`);
+  if ((await blindRevisionIds(ability, [from, to].map((r) => ({ revisionId: r.id, ruleSetId: r.ruleSetId, authorId: r.authorId, status: r.status })))).size) throw blindError();
   const rows = (r: Revision) => {
     const checklist = r.checklist ? (JSON.parse(r.checklist) as { rows?: { clauseId: string; location?: { label?: string; index?: number }; status: string }[] }) : null;
     return (checklist?.rows ?? []).map((row) => `${row.clauseId} ${row.location?.label ?? row.location?.index ?? ''}: ${row.status}`);

@@ -9,6 +9,8 @@ import { editorIdsOf, loadRevision } from './calc-access';
 import { computeRecord, contentHashOf, hashedContentOf } from './revision-content';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { expandResult } from './stored-result';
+import { withVerification } from '../independent/blind';
+import { lockedModelOf } from '../independent/signed-model';
 
 /**
  * Recomputes the content hash from what is stored now, so tampering shows as a broken signature.
@@ -22,7 +24,8 @@ export async function currentHashOf(revision: Revision, transaction?: Transactio
     result ?? expandResult(Revision.sequelize!, revision.result, transaction),
     format >= 2 ? Attachment.findAll({ where: { revisionId: revision.id }, transaction }) : [],
   ]);
-  return contentHashOf(hashedContentOf(calc, revision.label, JSON.parse(revision.input), expanded, JSON.parse(revision.checklist), revision.ruleSet, format, attachments));
+  const model = format >= 3 ? await lockedModelOf(revision.id, transaction) : null;
+  return contentHashOf(hashedContentOf(calc, revision.label, JSON.parse(revision.input), expanded, JSON.parse(revision.checklist), revision.ruleSet, format, attachments, model));
 }
 
 /**
@@ -48,11 +51,12 @@ export async function readRevision(ability: AppAbility, id: number, transaction?
   const currentHashes = await currentHashesOf(revision, signatures, transaction, result);
   const userIds = new Set(findings.flatMap((f) => [f.raisedBy, f.answeredBy, f.closedBy]).filter((v): v is number => v != null));
   const users = userIds.size ? await User.findAll({ where: { id: { [Op.in]: [...userIds] } }, attributes: ['id', 'displayName'], transaction }) : [];
-  return toRevisionDto(revision, {
+  const dto = toRevisionDto(revision, {
     result, signatures, findings, editorIds, currentHashes,
     names: new Map(users.map((u) => [u.id, u.displayName])),
     inputIssues: await inputIssuesOf(revision),
   });
+  return withVerification(ability, revision, dto, transaction);
 }
 
 /**

@@ -8,6 +8,8 @@ import { QUEUES, WORKFLOW } from '../../shared/workflow/revision-states';
 import type { Relation } from '../../shared/workflow/relations';
 import { Calc } from '../db/models';
 import { cappedCount, decodeCursor, encodeCursor, keysetCondition, type KeyColumn } from '../http/keyset';
+import { blindRevisionIds } from '../independent/blind-lists';
+import { createAppAbility, defineRulesFor } from '../../shared/authz/app-ability';
 
 export const queueQuerySchema = z.object({
   size: z.coerce.number().int().min(1).max(500).default(50),
@@ -52,6 +54,7 @@ export const queueKeysOf = (user: SessionUser): QueueKey[] =>
 interface Row {
   id: number; latest_revision_id: number; project_code: string; number: string; title: string; latest_label: string;
   latest_status: RevisionState; latest_verdict: string | null; author_name: string; latest_since: Date;
+  latest_author_id: number; latest_rule_set_id: number;
 }
 
 const toItem = (r: Row): QueueItem => ({
@@ -68,7 +71,7 @@ export async function queuePage(user: SessionUser, key: QueueKey, query: QueueQu
   const [rows, counted] = await Promise.all([
     sequelize.query<Row>(
       `SELECT c.id, c.latest_revision_id, c.project_code, c.number, c.title, c.latest_label, c.latest_status, c.latest_verdict,
-        c.author_name, c.latest_since FROM calcs c WHERE ${filter.sql} AND ${keyset.sql}
+        c.author_name, c.latest_since, c.latest_author_id, c.latest_rule_set_id FROM calcs c WHERE ${filter.sql} AND ${keyset.sql}
         ORDER BY c.latest_since ASC, c.id ASC LIMIT ${query.size + 1}`,
       { replacements: [...filter.params, ...keyset.replacements], type: QueryTypes.SELECT },
     ),
@@ -76,8 +79,9 @@ export async function queuePage(user: SessionUser, key: QueueKey, query: QueueQu
   ]);
   const items = rows.slice(0, query.size);
   const last = items[items.length - 1];
+  const blind = await blindRevisionIds(createAppAbility(defineRulesFor(user)), items.map((r) => ({ revisionId: r.latest_revision_id, ruleSetId: r.latest_rule_set_id, authorId: r.latest_author_id, status: r.latest_status })));
   return {
-    key, label: QUEUE_LABELS[key], items: items.map(toItem), total: counted?.total ?? null, totalIsAtLeast: counted?.totalIsAtLeast ?? false, size: query.size,
+    key, label: QUEUE_LABELS[key], items: items.map((r) => toItem(blind.has(r.latest_revision_id) ? { ...r, latest_verdict: null } : r)), total: counted?.total ?? null, totalIsAtLeast: counted?.totalIsAtLeast ?? false, size: query.size,
     next: rows.length > query.size ? encodeCursor([new Date(last.latest_since).toISOString(), last.id]) : null,
   };
 }

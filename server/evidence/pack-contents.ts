@@ -9,6 +9,7 @@ import type { ObjectStore } from '../attachments/object-store';
 import type { ReportService } from '../reports/report.service';
 import type { ReportContext } from '../reports/report-data';
 import { recordJson } from './record-json';
+import { blindError } from '../independent/blind-lists';
 
 export type PackFiles = Map<string, Buffer>;
 
@@ -39,6 +40,7 @@ export async function packContents(ability: AppAbility, calcId: number, store: O
   for (const revision of revisions) {
     const dir = `revisions/${safeName(revision.label)}`;
     const dto = await readRevision(ability, revision.id);
+    if (dto.verification?.blind) throw blindError();
     const attachments = (await Attachment.findAll({ where: { revisionId: revision.id }, order: [['id', 'ASC']] }))
       .map((a) => ({ row: a, dto: toAttachmentDto(a), path: `${dir}/attachments/${a.id}-${safeName(a.fileName)}` }));
     for (const a of attachments) files.set(a.path, await store.get(a.row.storageKey));

@@ -15,7 +15,7 @@ export const contentHash = (content: unknown): string => sha256(canonicalize(con
 
 /** What a revision's content hash covers, built by the same function the server signs with (same format, same attachments). */
 export function hashedContent(calc: Calc & { Project: Project }, r: RevisionDto, ruleSet: RuleSetRecord | null, attachments: readonly AttachmentDto[] = []): HashedContent {
-  return hashedContentOf(calc, r.label, r.input, r.result, r.checklist, ruleSet, r.contentFormat, attachments);
+  return hashedContentOf(calc, r.label, r.input, r.result, r.checklist, ruleSet, r.contentFormat, attachments, r.verification?.signed ?? null);
 }
 
 export interface RecordAttachment { kind: string; fileName: string; mediaType: string; sizeBytes: number; sha256: string; path: string }
@@ -37,6 +37,8 @@ export function recordJson(calc: Calc & { Project: Project }, r: RevisionDto, ru
       contentFormat: s.contentFormat, attachmentsCovered: s.attachments,
     })),
     findings: r.findings,
+    // The checker's independent model and the comparison; signed from content format 3 on (content.independentModel).
+    verification: r.verification ? { need: r.verification.need, model: r.verification.model, signed: r.verification.signed } : null,
     manualItems: r.manualItems,
     attachments: attachments.map(({ dto, path }): RecordAttachment => ({
       kind: dto.kind, fileName: dto.fileName, mediaType: dto.mediaType, sizeBytes: dto.sizeBytes, sha256: dto.sha256, path,

@@ -31,6 +31,8 @@ export function attachmentListCheck(path: string, raw: unknown, listed: readonly
  * set, exactly as before; format 2 signatures over an earlier attachment set say which set.
  */
 export function signatureCheck(path: string, recordHash: string, actual: string, raw: unknown, s: PackSignature): PackCheck {
+  const earlier = asEarlierFormat(raw, s);
+  if (earlier) return signatureCheck(path, actual === recordHash ? contentHash(earlier) : '', contentHash(earlier), earlier, s);
   const name = `${path} signature ${s.meaning} by ${s.printedName}`;
   const content = asContent(raw);
   if (s.contentHash === actual) return { name, ok: true, detail: `covers the content in this pack, attachments: ${names(setOf(content))}` };
@@ -55,4 +57,15 @@ export function signatureCheck(path: string, recordHash: string, actual: string,
   const detail = s.contentHash === recordHash ? 'made over the recorded content, which this pack no longer holds: not valid for this content'
     : 'made over earlier content: not valid for this content';
   return { name, ok: false, detail };
+}
+
+/**
+ * A signature made before the independent model was locked (format 2, e.g. the author's) over
+ * content now in format 3: judged on the same content without the model, exactly as it was signed.
+ */
+function asEarlierFormat(raw: unknown, s: PackSignature): Content | null {
+  const content = asContent(raw);
+  if (typeof content.contentFormat !== 'number' || content.contentFormat < 3 || (s.contentFormat ?? 1) >= 3) return null;
+  const { independentModel: _model, ...rest } = content;
+  return { ...rest, contentFormat: 2 };
 }

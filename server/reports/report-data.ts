@@ -9,6 +9,7 @@ import { REVISION_INCLUDE, toCalcDto } from '../calcs/calc-mapping';
 import { readRevision } from '../calcs/revision-read';
 import { toAttachmentDto } from '../attachments/attachment-access';
 import { loadRuleSet } from '../rule-sets/rule-set-cache';
+import { blindError } from '../independent/blind-lists';
 
 /** Everything one calc report prints, gathered once so the layout code never queries. */
 export interface ReportData {
@@ -29,6 +30,7 @@ export interface ReportContext { organisation: string; baseUrl: string; generate
 
 export async function loadReportData(ability: AppAbility, revisionId: number, ctx: ReportContext): Promise<ReportData> {
   const revision = await readRevision(ability, revisionId);
+  if (revision.verification?.blind) throw blindError();
   const calc = await Calc.findByPk(revision.calcId, { include: [Project] });
   if (!calc) throw AppError.notFound(`Calc ${revision.calcId}`);
   const [revisions, attachments, ruleSet] = await Promise.all([

@@ -10,10 +10,11 @@ import { drawShaftResults } from './shaft-results-section';
 import { drawPlots } from './plots-section';
 import { drawChecklist } from './checklist-section';
 import { drawAttachments, drawFindings, drawHistory, drawSignatures } from './signoff-section';
+import { drawIndependentModel } from './independent-model-section';
 import { drawRecord } from './record-section';
 import type { WorkPool } from '../workers/work-pool';
 
-const SECTIONS = [drawInputs, drawResults, drawShaftResults, drawPlots, drawChecklist, drawFindings, drawSignatures, drawHistory, drawAttachments, drawRecord];
+const SECTIONS = [drawInputs, drawResults, drawShaftResults, drawPlots, drawChecklist, drawIndependentModel, drawFindings, drawSignatures, drawHistory, drawAttachments, drawRecord];
 
 /** Lays out the whole report for gathered data; pure apart from reading the font files. */
 export async function renderReport(d: ReportData, fontDir: string): Promise<Buffer> {

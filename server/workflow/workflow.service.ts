@@ -15,7 +15,7 @@ import { signingBlocker, type Meaning } from './independence';
 import { SIGNATURES, roleFor } from '../../shared/workflow/signatures';
 import { SUPERSEDED_STATE } from '../../shared/workflow/revision-states';
 import { signedContentFor } from './signed-content';
-import { CONTENT_FORMAT } from '../calcs/revision-content';
+import { independentModelBlockerFor } from '../independent/signing-blocker';
 import { queueHandOverMail, type HandOverFacts } from './hand-over-mail';
 import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
@@ -55,7 +55,7 @@ export class WorkflowService {
       const signed = await signedContentFor(revision, transaction);
       await Signature.create({
         revisionId, userId: signer.id, printedName: signer.name, role: roleFor(dto.meaning), meaning: dto.meaning,
-        signedAt: new Date(now), contentHash: signed.hash, contentFormat: CONTENT_FORMAT, attachments: JSON.stringify(signed.attachments), idempotencyKey: dto.idempotencyKey,
+        signedAt: new Date(now), contentHash: signed.hash, contentFormat: signed.format, attachments: JSON.stringify(signed.attachments), idempotencyKey: dto.idempotencyKey,
       }, { transaction });
       await this.advance(revision, dto.meaning, signer, new Date(now), transaction);
       await appendAudit(this.sequelize, signer, {
@@ -94,7 +94,8 @@ export class WorkflowService {
       unresolvedFindings: findings.filter((f) => f.status !== 'closed').length,
       openManualItems: items.filter((i) => !manual[i.id]?.done).length,
     });
-    if (blocker) throw new AppError('forbidden', 403, blocker);
+    const modelBlocker = blocker ?? await independentModelBlockerFor(meaning, signer.id, revision, transaction);
+    if (modelBlocker) throw new AppError('forbidden', 403, modelBlocker);
   }
 
   /** The state change and stamps a signature makes, as the workflow table gives them. */

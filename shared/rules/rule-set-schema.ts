@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { topConditionSchema } from './condition-schema';
+import { verificationSchema } from './verification-schema';
 
 /*
  * Rule-set document, format v1: a versioned design standard owned by compliance. Limits live in
@@ -72,6 +73,7 @@ export const ruleSetSchema = z.strictObject({
   parameters: z.array(parameterSchema).max(200),
   clauses: z.array(clauseSchema).min(1).max(500),
   manualItems: z.array(manualItemSchema).max(100),
+  verification: verificationSchema.optional(),
 }).meta({ title: 'Torquetrail rule set (design standard), format v1' });
 
 export type RuleSet = z.infer<typeof ruleSetSchema>;

@@ -49,6 +49,8 @@ export interface RevisionDto extends RevisionSummary {
   submittedAt: string | null; checkedAt: string | null; createdAt: string;
   /** People who ever edited this calc: none of them may check or approve it. */
   editorIds: number[];
+  /** Review or independent model, and the model's state (shared/schemas/independent-model.schema.ts). */
+  verification?: import('./independent-model.schema').RevisionVerification;
 }
 
 export interface CalcDto {

@@ -11,10 +11,11 @@ import { conveyorHeadShaft, mixerShaft, slurryPumpShaft } from './demo-shafts';
 import { DEMO_PASSWORD } from '../demo-data';
 import { AttachmentsService } from '../../attachments/attachments.service';
 import { DEMO_CERTIFICATE, DEMO_DRAWING } from './demo-files';
+import { seedIndependentModelCalc } from './demo-independent';
 
 type Person = Awaited<ReturnType<typeof personOf>>;
 
-async function personOf(username: string) {
+export async function personOf(username: string) {
   const user = await User.findOne({ where: { username }, include: [{ model: UserRole, as: 'roleRows' }] });
   if (!user) throw new Error(`demo user ${username} is missing`);
   const roles = user.roles;
@@ -88,4 +89,10 @@ export async function seedDemoCalcs(sequelize: Sequelize, baseUrl: string, attac
   await submit(hale, stub);
   const stubRev = await readAs(okafor, stub);
   await review.returnToAuthor(okafor.ability, okafor, stub, 'The impeller side load of 580 N looks low for an 80 m³ tank; show where it comes from (hydraulic side load at the design liquid level).', stubRev.lockVersion);
+
+  // The lifting-duty standard also asks for the proof-load test plan on file.
+  const attachPlan = async (p: Person, id: number) => {
+    await attachments.upload(p.ability, p, id, { buffer: await DEMO_DRAWING('KFD-TP-0450', 'Proof-load test plan, winch drum shaft'), originalname: 'proof-load-test-plan.pdf' }, { kind: 'other', note: 'Proof-load test plan' });
+  };
+  await seedIndependentModelCalc(sequelize, { calcs, review, submit: async (p, id) => { await attachPlan(p, id); await submit(p, id); }, tickAll, signAs }, hale, okafor);
 }

@@ -95,3 +95,29 @@ export function mixerShaft(hubSeat = 90, od = 114.3, id = 98): Record<string, un
     fatigue: { surface: 'machined', reliability: 90 },
   };
 }
+
+/** HW-30 hoist winch: drum shaft, 7.5 kW at 24 rpm from the gearbox coupling to the keyed rope drum (lifting duty). */
+export function hoistDrumShaft(farBearingC = 300): Record<string, unknown> {
+  return {
+    title: 'HW-30 winch drum shaft', units: 'SI', material: STEEL_1045_CD,
+    segments: [
+      { label: 'coupling seat', length: 130, od: 100, id: 0 },
+      { label: 'bearing', length: 60, od: 115, id: 0 },
+      { label: 'drum seat', length: 520, od: 130, id: 0 },
+      { label: 'bearing', length: 60, od: 115, id: 0 },
+    ],
+    torques: [{ label: 'gearbox coupling', at: 65, power: 7.5, speed: 24 }, { label: 'rope drum', at: 450, power: -7.5, speed: 24 }],
+    features: [
+      { type: 'keyseat', form: 'end-mill', at: 65, width: 28, height: 16, length: 110, Sy: 390, label: 'coupling key' },
+      { type: 'shoulder-fillet', at: 130, r: 5.5, label: 'coupling shoulder' },
+      { type: 'shoulder-fillet', at: 190, r: 6, label: 'drum seat shoulder' },
+    ],
+    supports: [
+      { label: 'coupling-side bearing', at: 160, kind: 'spherical-roller', C: 300, locating: true },
+      { label: 'far bearing', at: 740, kind: 'spherical-roller', C: farBearingC },
+    ],
+    loads: [{ label: 'rope pull on the drum', at: 450, Fy: -28000 }],
+    masses: [{ label: 'rope drum', at: 450, mass: 160 }],
+    fatigue: { surface: 'machined', reliability: 99, alternatingTorqueFraction: 0.2 },
+  };
+}

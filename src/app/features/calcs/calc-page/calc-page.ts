@@ -31,10 +31,11 @@ import { formatEng } from '../../../../../shared/format';
 import { planActions, type RevisionAction } from './revision-actions';
 import { SignDialog, type SignDialogData } from './sign-dialog';
 import { ReasonDialog, type ReasonDialogData, type ReasonDialogResult } from './reason-dialog';
+import { IndependentModelPanel } from './independent-model-panel';
 
 @Component({
   selector: 'tt-calc-page',
-  imports: [RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatProgressBarModule,
+  imports: [IndependentModelPanel, RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatProgressBarModule,
     SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports, MinimumDiameters, ManualItems, ShaftResults, LoadFailure],
   templateUrl: './calc-page.html',
   styleUrl: './calc-page.scss',

@@ -31,6 +31,7 @@ import { ruleSetsRouter } from './rule-sets/rule-sets.router';
 import { RuleSetsService } from './rule-sets/rule-sets.service';
 import { ImpactService } from './rule-sets/impact.service';
 import { recordsRouters } from './evidence/records-routers';
+import { reviewHealthRouter } from './review-health/review-health.router';
 
 export interface AppDeps {
   sequelize: Sequelize;
@@ -68,6 +69,7 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   const ruleSets = new RuleSetsService(sequelize, (actor, id) => impact.notifyIfAffected(actor, id));
   app.use('/api/rule-sets', requireSignIn, ruleSetsRouter(ruleSets, impact));
   for (const [path, router] of recordsRouters(sequelize, config)) app.use(path, requireSignIn, router);
+  app.use('/api/review-health', requireSignIn, reviewHealthRouter(sequelize));
   app.use('/api', apiNotFound);
 
   serveClient(app, config);

@@ -13,10 +13,11 @@ import { MailOutbox } from './mail-outbox';
 import { MailPreference } from './mail-preference';
 import { Attachment } from './attachment';
 import { RoleGrant } from './role-grant';
+import { ReviewHealthSettings } from './review-health-settings';
 
-export { User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment, RoleGrant };
+export { User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment, RoleGrant, ReviewHealthSettings };
 
-const MODELS = [User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment, RoleGrant];
+const MODELS = [User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment, RoleGrant, ReviewHealthSettings];
 
 /** Initialise every model once, then wire associations in one step. */
 export function initModels(sequelize: Sequelize): void {

@@ -14,7 +14,7 @@ import { DEMO_CERTIFICATE, DEMO_DRAWING } from './demo-files';
 
 type Person = Awaited<ReturnType<typeof personOf>>;
 
-async function personOf(username: string) {
+export async function personOf(username: string) {
   const user = await User.findOne({ where: { username }, include: [{ model: UserRole, as: 'roleRows' }] });
   if (!user) throw new Error(`demo user ${username} is missing`);
   const roles = user.roles;

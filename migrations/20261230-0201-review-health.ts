@@ -6,9 +6,10 @@ import { DataTypes, type QueryInterface } from 'sequelize';
  * the signal queries read by.
  */
 const INDEXES: [string, string, string[]][] = [
-  ['revisions', 'revisions_checked_at', ['checked_at']],
-  ['revisions', 'revisions_approved_at', ['approved_at']],
-  ['findings', 'findings_revision_raiser', ['revision_id', 'raised_by']],
+  // Covering the signal queries, so a period's checks and approvals are read from the index alone,
+  // never from the wide revision rows (input, result and checklist texts).
+  ['revisions', 'revisions_checked_cover', ['checked_at', 'status', 'checker_id', 'author_id', 'calc_id', 'submitted_at']],
+  ['revisions', 'revisions_approved_cover', ['approved_at', 'status', 'rule_set_id', 'calc_id', 'approver_id', 'verdict']],
   // Refused signatures by project and period, and across all projects by period.
   ['audit_events', 'audit_events_action_project_time', ['action', 'project_id', 'occurred_at']],
   ['audit_events', 'audit_events_action_time', ['action', 'occurred_at']],
@@ -32,8 +33,8 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
   await qi.sequelize.query('INSERT INTO review_health_settings (id, updated_at) VALUES (1, UTC_TIMESTAMP(3))');
   await qi.createTable('review_sizes', {
     revision_id: { type: DataTypes.INTEGER.UNSIGNED, primaryKey: true, references: { model: 'revisions', key: 'id' }, onDelete: 'CASCADE' },
-    // The content the counts were taken from: a changed revision is counted again.
-    content_hash: { type: DataTypes.CHAR(64), allowNull: true },
+    // The check the counts belong to: a revision returned after its check and checked again is counted again.
+    checked_at: { type: DataTypes.DATE(3), allowNull: false },
     checklist_rows: int(0),
     segments: int(0),
     features: int(0),

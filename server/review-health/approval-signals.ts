@@ -23,7 +23,8 @@ const signaturesLink = (r: Approved) => auditLink('Signatures on this calc', { c
 /** Approved revisions whose attachment set at approval differs from the set the last check signature covered. */
 export async function attachmentsAfterCheck(sequelize: Sequelize, scope: HealthScope): Promise<SignalRow[]> {
   const where = whereOf(scope);
-  const last = (meaning: string) => `(SELECT s.attachments FROM signatures s WHERE s.revision_id = r.id AND s.meaning = '${meaning}' ORDER BY s.signed_at DESC, s.id DESC LIMIT 1)`;
+  // The latest signature of each meaning (ids grow with time), found on the (revision_id, meaning) index.
+  const last = (meaning: string) => `(SELECT s.attachments FROM signatures s WHERE s.id = (SELECT MAX(x.id) FROM signatures x WHERE x.revision_id = r.id AND x.meaning = '${meaning}'))`;
   const rows = await sequelize.query<Approved & { checkedSet: string; approvedSet: string }>(
     `SELECT * FROM (SELECT ${COLUMNS}, ${last('checked')} AS checkedSet, ${last('approved')} AS approvedSet ${FROM} ${where.sql}) t
      WHERE t.checkedSet IS NOT NULL AND t.approvedSet IS NOT NULL AND t.checkedSet <> t.approvedSet
@@ -54,9 +55,12 @@ export async function replacedStandard(sequelize: Sequelize, scope: HealthScope,
   const replaced = [...versions.values()].filter((v) => v.replacedBy);
   if (replaced.length === 0) return [];
   const where = whereOf(scope);
+  // Per replaced version, only approvals from N days before its successor took effect on.
+  const near = replaced.map(() => '(r.rule_set_id = ? AND r.approved_at >= ?)').join(' OR ');
+  const bounds = replaced.flatMap((v) => [v.id, new Date(Date.parse(`${v.replacedBy!.on}T00:00:00Z`) - settings.replacedWithinDays * 86_400_000)]);
   const rows = await sequelize.query<Approved>(
-    `${BASE} ${where.sql} AND r.rule_set_id IN (?) ORDER BY r.approved_at DESC`,
-    { replacements: [...where.values, replaced.map((v) => v.id)], type: QueryTypes.SELECT },
+    `${BASE} ${where.sql} AND (${near}) ORDER BY r.approved_at DESC LIMIT ${ROW_CAP + 1}`,
+    { replacements: [...where.values, ...bounds], type: QueryTypes.SELECT },
   );
   const out: SignalRow[] = [];
   for (const r of rows) {

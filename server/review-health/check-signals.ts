@@ -18,7 +18,7 @@ export async function quickChecks(sequelize: Sequelize, scope: HealthScope, sett
        r.checked_at AS checkedAt, TIMESTAMPDIFF(SECOND, r.submitted_at, r.checked_at) AS seconds,
        z.checklist_rows AS \`rows\`, z.segments, z.features
      FROM revisions r JOIN calcs c ON c.id = r.calc_id JOIN projects p ON p.id = c.project_id
-       JOIN review_sizes z ON z.revision_id = r.id JOIN users a ON a.id = r.author_id JOIN users k ON k.id = r.checker_id
+       JOIN review_sizes z ON z.revision_id = r.id AND z.checked_at = r.checked_at JOIN users a ON a.id = r.author_id JOIN users k ON k.id = r.checker_id
      WHERE ${CHECKED}${project.sql}
        AND TIMESTAMPDIFF(SECOND, r.submitted_at, r.checked_at) < ? * (z.checklist_rows + z.segments + z.features)
      ORDER BY seconds ASC, r.id ASC LIMIT ${ROW_CAP + 1}`,

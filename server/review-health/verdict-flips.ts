@@ -7,7 +7,8 @@ import { outcomeUnder, storedOutcome } from '../rule-sets/impact-compare';
 import { auditLink, projectClause, ROW_CAP, type HealthScope } from './health-scope';
 import type { VersionFacts } from './standard-versions';
 
-interface Candidate { id: number; calcId: number; label: string; ruleSetId: number; approvedAt: Date; number: string; code: string; outcome: string | null; verdict: string | null }
+interface Candidate { id: number; ruleSetId: number; verdict: string | null }
+interface Detail { id: number; calcId: number; label: string; approvedAt: Date; number: string; code: string; outcome: string | null }
 
 /**
  * An approved revision's input never changes, nor does a version in force, so its outcome under the
@@ -27,32 +28,34 @@ export async function verdictFlips(sequelize: Sequelize, scope: HealthScope, ver
   const outdated = [...versions.values()].filter((v) => v.currentId !== null);
   if (outdated.length === 0) return [];
   const project = projectClause(scope);
+  // Read from the covering index (revisions_approved_cover): ids, versions and verdicts only.
   const candidates = await sequelize.query<Candidate>(
-    `SELECT r.id, r.calc_id AS calcId, r.label, r.rule_set_id AS ruleSetId, r.approved_at AS approvedAt, c.number, p.code, r.outcome, r.verdict
-     FROM revisions r JOIN calcs c ON c.id = r.calc_id JOIN projects p ON p.id = c.project_id
+    `SELECT r.id, r.rule_set_id AS ruleSetId, r.verdict FROM revisions r JOIN calcs c ON c.id = r.calc_id
      WHERE r.approved_at >= ? AND r.approved_at < ? AND r.status = 'approved' AND r.rule_set_id IN (?)${project.sql}
      ORDER BY r.approved_at DESC, r.id DESC`,
     { replacements: [scope.start, scope.end, outdated.map((v) => v.id), ...project.values], type: QueryTypes.SELECT },
   );
   const keyOf = (c: Candidate) => `${c.id}|${versions.get(c.ruleSetId)!.currentId}|${ENGINE_VERSION}`;
   await evaluateMissing(sequelize, candidates.filter((c) => !verdictCache.has(keyOf(c))), versions, keyOf);
-  const out: SignalRow[] = [];
-  for (const c of candidates) {
-    const before = storedOutcome(c.outcome, c.verdict).verdict;
-    const after = verdictCache.get(keyOf(c))!;
-    if (before === after) continue;
+  const flipped = candidates.filter((c) => verdictCache.get(keyOf(c)) !== (c.verdict ?? 'none')).slice(0, ROW_CAP + 1);
+  if (flipped.length === 0) return [];
+  const details = new Map((await sequelize.query<Detail>(
+    `SELECT r.id, r.calc_id AS calcId, r.label, r.approved_at AS approvedAt, c.number, p.code, r.outcome
+     FROM revisions r JOIN calcs c ON c.id = r.calc_id JOIN projects p ON p.id = c.project_id WHERE r.id IN (?)`,
+    { replacements: [flipped.map((c) => c.id)], type: QueryTypes.SELECT },
+  )).map((d) => [d.id, d]));
+  return flipped.map((c) => {
+    const d = details.get(c.id)!;
     const v = versions.get(c.ruleSetId)!;
     const now = versions.get(v.currentId!)!;
-    out.push({
-      signal: 'verdict-flip', projectCode: c.code, calcId: c.calcId, calcNumber: c.number, revision: c.label,
-      fact: `Approved as ${before} under ${v.code} v${v.version}; ${after} when re-evaluated under v${now.version}, in force today`,
-      people: '', at: new Date(c.approvedAt).toISOString(), measure: null,
-      evidence: [auditLink('Approval signature', { calcId: c.calcId, action: 'revision.signed_approved' }),
+    return {
+      signal: 'verdict-flip' as const, projectCode: d.code, calcId: d.calcId, calcNumber: d.number, revision: d.label,
+      fact: `Approved as ${storedOutcome(d.outcome, c.verdict).verdict} under ${v.code} v${v.version}; ${verdictCache.get(keyOf(c))} when re-evaluated under v${now.version}, in force today`,
+      people: '', at: new Date(d.approvedAt).toISOString(), measure: null,
+      evidence: [auditLink('Approval signature', { calcId: d.calcId, action: 'revision.signed_approved' }),
         auditLink('The standard’s version changes', { entityType: 'RuleSet', action: 'rule_set.effective' })],
-    });
-    if (out.length > ROW_CAP) break;
-  }
-  return out;
+    };
+  });
 }
 
 /** Reads the inputs (large texts) only of revisions not yet judged, in batches, and judges them. */

@@ -67,7 +67,7 @@ export async function replacedStandard(sequelize: Sequelize, scope: HealthScope,
     const v = versions.get(r.ruleSetId)!;
     const days = (Date.parse(`${v.replacedBy!.on}T00:00:00Z`) - new Date(r.approvedAt).getTime()) / 86_400_000;
     if (days > settings.replacedWithinDays) continue;
-    const when = days >= 0 ? `${plural(Math.ceil(days), 'day')} before` : `${plural(Math.floor(-days), 'day')} after`;
+    const when = Math.abs(days) < 1 ? 'on the day' : days >= 0 ? `${plural(Math.ceil(days), 'day')} before` : `${plural(Math.floor(-days), 'day')} after`;
     out.push({
       signal: 'replaced-standard', ...calcOf(r),
       fact: `Approved under ${v.code} v${v.version} ${when} v${v.replacedBy!.version} took effect (${v.replacedBy!.on})`,

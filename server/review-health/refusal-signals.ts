@@ -29,7 +29,7 @@ export async function refusedSignatures(sequelize: Sequelize, scope: HealthScope
     const password = Number(r.wrongPassword);
     const reasons = [password ? `wrong password ×${password}` : '', attempts - password ? `one-time code missing or wrong ×${attempts - password}` : ''].filter(Boolean).join(', ');
     const repeated = attempts >= settings.refusalRepeatCount ? 'Repeated: ' : '';
-    const span = attempts > 1 ? ` between ${iso(r.first)} and ${iso(r.last)}` : ` at ${iso(r.last)}`;
+    const span = attempts > 1 && iso(r.first) !== iso(r.last) ? ` between ${iso(r.first)} and ${iso(r.last)}` : ` at ${iso(r.last)}`;
     return {
       signal: 'refusals',
       fact: `${repeated}${plural(attempts, 'signing attempt')} refused (${reasons})${span}; nothing was signed by these attempts`,

@@ -54,7 +54,7 @@ describe('review-health signals on constructed data', () => {
   it('when the approver was refused three times, then it is marked repeated; checker 2’s one refusal is not', () => {
     const rows = rowsOf('refusals');
     expect(rows.map((r) => [r.people, r.measure])).toEqual([[scenario.approver.displayName, 3], [scenario.checker2.displayName, 1]]);
-    expect(rows[0].fact).toMatch(/^Repeated: 3 signing attempts refused \(wrong password ×3\) between /);
+    expect(rows[0].fact).toMatch(/^Repeated: 3 signing attempts refused \(wrong password ×3\) (between|at) /);
     expect(rows[1].fact).toMatch(/^1 signing attempt refused \(wrong password ×1\) at /);
   });
 

@@ -1,7 +1,6 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { provideNoopAnimations } from '@angular/platform-browser/animations';
 import type { HealthSettingsDto } from '../../../../shared/schemas/review-health.schema';
 import { HealthSettingsPanel } from './health-settings-panel';
 
@@ -25,7 +24,6 @@ async function turn(): Promise<void> {
 }
 
 beforeEach(async () => {
-  TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideNoopAnimations()] });
   fixture = TestBed.createComponent(HealthSettingsPanel);
   http = TestBed.inject(HttpTestingController);
   fixture.detectChanges();

@@ -24,6 +24,7 @@ async function turn(): Promise<void> {
 }
 
 beforeEach(async () => {
+  TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] });
   fixture = TestBed.createComponent(HealthSettingsPanel);
   http = TestBed.inject(HttpTestingController);
   fixture.detectChanges();

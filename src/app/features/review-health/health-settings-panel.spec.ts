@@ -14,7 +14,7 @@ const STORED: HealthSettingsDto = {
 let fixture: ComponentFixture<HealthSettingsPanel>;
 let http: HttpTestingController;
 const el = () => fixture.nativeElement as HTMLElement;
-const input = (name: string) => el().querySelector(`input[formcontrolname="${name}"]`) as HTMLInputElement;
+const input = (name: string) => el().querySelector(`input[name="${name}"]`) as HTMLInputElement;
 const submit = () => (el().querySelector('button[type="submit"]') as HTMLButtonElement).click();
 
 async function turn(): Promise<void> {

@@ -18,6 +18,7 @@ beforeAll(async () => {
 afterAll(async () => { await session?.close(); });
 
 async function signIn(page: Page, username: string) {
+  await session.context.clearCookies();
   await page.goto('/sign-in');
   await page.getByLabel('Username').fill(username);
   await page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
@@ -41,8 +42,12 @@ it('when compliance opens review health, then every signal reads as a fact with 
   for (const width of [1440, 768, 390]) {
     await page.setViewportSize({ width, height: 900 });
     await page.getByRole('heading', { name: 'Short checks for the size of the calc' }).waitFor();
-    const sideways = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
-    if (sideways > 1) problems.push(`@${width}: page scrolls sideways by ${sideways}px`);
+    const { sideways, widest } = await page.evaluate(() => {
+      const inScrollBox = (el: Element) => { for (let p = el.parentElement; p; p = p.parentElement) if (['auto', 'scroll'].includes(getComputedStyle(p).overflowX)) return true; return false; };
+      const wide = Array.from(document.querySelectorAll('main *')).find((el) => el.getBoundingClientRect().right > window.innerWidth + 1 && !inScrollBox(el));
+      return { sideways: document.documentElement.scrollWidth - window.innerWidth, widest: wide ? `${wide.tagName.toLowerCase()}.${Array.from(wide.classList).join('.')}` : '' };
+    });
+    if (sideways > 1) problems.push(`@${width}: page scrolls sideways by ${sideways}px (${widest})`);
     await session.screenshot(page, `review-health-${width}`);
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, `review-health-${width}-top.png`) });
     problems.push(...(await accessibilityViolations(page)).map((v) => `@${width}: ${v}`));

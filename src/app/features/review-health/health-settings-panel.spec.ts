@@ -1,7 +1,7 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import type { HealthSettingsDto } from '../../../../shared/schemas/review-health.schema';
+import { HEALTH_SETTING_FIELDS, type HealthSettingsDto } from '../../../../shared/schemas/review-health.schema';
 import { HealthSettingsPanel } from './health-settings-panel';
 
 jest.setTimeout(30_000);
@@ -14,7 +14,8 @@ const STORED: HealthSettingsDto = {
 let fixture: ComponentFixture<HealthSettingsPanel>;
 let http: HttpTestingController;
 const el = () => fixture.nativeElement as HTMLElement;
-const input = (name: string) => el().querySelector(`input[name="${name}"]`) as HTMLInputElement;
+// Inputs in the form's order, which is the order of the shared field list.
+const input = (name: keyof typeof HEALTH_SETTING_FIELDS) => el().querySelectorAll('input')[Object.keys(HEALTH_SETTING_FIELDS).indexOf(name)] as HTMLInputElement;
 const submit = () => (el().querySelector('button[type="submit"]') as HTMLButtonElement).click();
 
 async function turn(): Promise<void> {

@@ -30,6 +30,8 @@ async function openReport(page: Page) {
   await page.goto('/review-health');
   await page.getByRole('combobox', { name: 'Project' }).click();
   await page.getByRole('option', { name: new RegExp(scenario.project.code) }).click();
+  // The option list is an overlay outside the page; measure the page once it has gone.
+  await page.getByRole('listbox').waitFor({ state: 'detached' });
   await page.getByText(/checks signed, \d+ observations/).waitFor();
 }
 

@@ -46,7 +46,7 @@ it('when compliance opens review health, then every signal reads as a fact with 
     await page.getByRole('heading', { name: 'Short checks for the size of the calc' }).waitFor();
     const { sideways, widest } = await page.evaluate(() => {
       const inScrollBox = (el: Element) => { for (let p = el.parentElement; p; p = p.parentElement) if (['auto', 'scroll'].includes(getComputedStyle(p).overflowX)) return true; return false; };
-      const wide = Array.from(document.querySelectorAll('main *')).find((el) => el.getBoundingClientRect().right > window.innerWidth + 1 && !inScrollBox(el));
+      const wide = Array.from(document.querySelectorAll('body *')).find((el) => el.getBoundingClientRect().right > window.innerWidth + 1 && !inScrollBox(el));
       return { sideways: document.documentElement.scrollWidth - window.innerWidth, widest: wide ? `${wide.tagName.toLowerCase()}.${Array.from(wide.classList).join('.')}` : '' };
     });
     if (sideways > 1) problems.push(`@${width}: page scrolls sideways by ${sideways}px (${widest})`);

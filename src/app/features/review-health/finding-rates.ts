@@ -24,7 +24,7 @@ import type { FindingRate } from '../../../../shared/schemas/review-health.schem
       </table>
     </div>
   `,
-  styles: `.num { text-align: right; white-space: nowrap; } .empty { padding: 12px 16px; color: var(--tt-ink-soft); }`,
+  styles: `:host { display: block; max-width: 100%; } .num { text-align: right; white-space: nowrap; } .empty { padding: 12px 16px; color: var(--tt-ink-soft); }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class FindingRates {

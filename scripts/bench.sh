@@ -34,6 +34,20 @@ trap 'db_stop; rm -rf "$dir"' EXIT
 db_ensure_schema "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
 npx tsx scripts/bench-seed.ts && npx tsx scripts/bench-lists.ts
 echo
+db_stop
+
+# Review-health signals (issue 15) over a library of its own at a tenth of the scale: 10,000 calcs and
+# their signatures, kept like the large one (BENCH_HEALTH_DIR moves it; BENCH_FRESH=1 seeds anew).
+health_dir="${BENCH_HEALTH_DIR:-.data/bench-health}"
+[ "${BENCH_FRESH:-0}" = "1" ] && rm -rf "$health_dir"
+db_start "$health_dir" "$(free_port)"
+export DB_PORT
+db_ensure_schema "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
+BENCH_SCALE=0.1 npx tsx scripts/bench-seed.ts && BENCH_SCALE=0.1 npx tsx scripts/bench-health.ts
+db_stop
+echo
+db_start "$lists_dir" "$(free_port)"
+export DB_PORT
 MAIL_SENDER=false npx tsx scripts/bench-stall.ts
 # The writers bench uploads files: object storage (and the fake SMTP server) on free ports.
 export SMTP_HOST=127.0.0.1 SMTP_PORT=$(free_port) S3_ENDPOINT="http://127.0.0.1:$(free_port)" S3_BUCKET=torquetrail-bench MAIL_SENDER=false

@@ -15,6 +15,7 @@ import { calcsRouter } from './calcs/calcs.router';
 import { evidenceRouter } from './evidence/evidence.router';
 import { revisionsRouter, findingsRouter } from './revisions/revisions.router';
 import { independentModelRouter } from './independent/independent-model.router';
+import { reviewHealthRouter } from './review-health/review-health.router';
 import { revisionAttachmentsRouter, attachmentsRouter } from './attachments/attachments.router';
 import { reportRouter } from './reports/report.router';
 import { ruleSetsRouter } from './rule-sets/rule-sets.router';
@@ -59,5 +60,6 @@ export function apiMounts({ sequelize, config, passport, services: s }: MountDep
     { path: '/api/mail', routers: [mailRouter(sequelize, s.sentMail)] },
     { path: '/api/attachments', routers: [attachmentsRouter(s.attachments)] },
     { path: '/api/verify', routers: [verifyRouter(s.packs)] },
+    { path: '/api/review-health', routers: [reviewHealthRouter(sequelize)] },
   ];
 }

@@ -7,6 +7,7 @@ import { appendAudit } from '../audit/audit.service';
 import { DEMO_PASSWORD, DEMO_PROJECTS, DEMO_USERS } from './demo-data';
 import { seedRuleSets } from '../rule-sets/seed-rule-sets';
 import { seedDemoCalcs } from './demo/demo-calcs';
+import { seedDemoReviewHealth } from './demo/demo-review-health';
 import { AttachmentsService } from '../attachments/attachments.service';
 import { ObjectStore } from '../attachments/object-store';
 
@@ -42,7 +43,9 @@ async function main(): Promise<void> {
     });
     const config = loadConfig();
     const attachments = new AttachmentsService(sequelize, new ObjectStore(config), config.ATTACHMENT_MAX_MB * 1024 * 1024);
-    await seedDemoCalcs(sequelize, config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}`, attachments);
+    const baseUrl = config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}`;
+    await seedDemoCalcs(sequelize, baseUrl, attachments);
+    await seedDemoReviewHealth(sequelize, baseUrl, attachments);
     console.log(`demo data loaded: ${DEMO_USERS.length} users, ${DEMO_PROJECTS.length} projects, calcs in every workflow state`);
     printAccounts();
   } finally {

@@ -1,8 +1,9 @@
 import { ForbiddenError } from '@casl/ability';
 import { Op, type Sequelize } from 'sequelize';
-import { CAUTION, evaluateValidInput, validateCalcInput, type CalcInput } from '../../shared/engine';
-import { applyRuleSetMethods, diffRuleSets, evaluateChecklist, evaluateChecklistSync, type RuleSet } from '../../shared/rules';
-import { outcomeOf, type OutcomeSummary } from '../../shared/schemas/outcome';
+import { CAUTION, evaluateValidInput, validateCalcInput } from '../../shared/engine';
+import { applyRuleSetMethods, diffRuleSets, evaluateChecklist, type RuleSet } from '../../shared/rules';
+import type { OutcomeSummary } from '../../shared/schemas/outcome';
+import { outcomeUnder, storedOutcome } from './impact-compare';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { ImpactReport, ImpactRow } from '../../shared/schemas/rule-set.schema';
 import { Calc, Project, Revision, RuleSetRecord } from '../db/models';
@@ -21,7 +22,7 @@ const BATCH = 1000;
  * Mandatory rows that fail under one version but not under the other, each with its clause title
  * (from the new version where it exists there). Keys are "clause|location|status".
  */
-function changedClauses(before: OutcomeSummary, after: OutcomeSummary, doc: RuleSet): ImpactRow['clauses'] {
+export function changedClauses(before: OutcomeSummary, after: OutcomeSummary, doc: RuleSet): ImpactRow['clauses'] {
   const strip = (key: string) => key.split('|').slice(0, 2).join('|');
   const was = new Map(before.failing.map((k) => [strip(k), k.split('|')[2]]));
   const now = new Map(after.failing.map((k) => [strip(k), k.split('|')[2]]));
@@ -77,11 +78,8 @@ export class ImpactService {
 
   /** A row when the verdict changes; the clauses behind it are the mandatory rows that flip. */
   private compare(revision: Revision & { Calc: Calc & { Project: Project } }, doc: RuleSet): ImpactRow | null {
-    const before: OutcomeSummary = revision.outcome ? JSON.parse(revision.outcome) : { verdict: revision.verdict, failing: [] };
-    // An approved revision's input passed validation when it was signed (signing needs a result),
-    // so the schema check is not repeated here; it is the costliest step per revision.
-    // The synchronous evaluator gives the same rows as json-rules-engine (tested in shared/rules) at bulk speed.
-    const after = this.evaluate(JSON.parse(revision.input), doc);
+    const before = storedOutcome(revision.outcome, revision.verdict);
+    const after = outcomeUnder(JSON.parse(revision.input), doc);
     if (before.verdict === after.verdict) return null;
     const c = revision.Calc;
     return {
@@ -89,16 +87,6 @@ export class ImpactService {
       approvedAt: revision.approvedAt ? revision.approvedAt.toISOString() : null,
       before: before.verdict, after: after.verdict, clauses: changedClauses(before, after, doc),
     };
-  }
-
-  private evaluate(raw: unknown, doc: RuleSet): OutcomeSummary {
-    try {
-      const input = applyRuleSetMethods(raw as CalcInput, doc);
-      return outcomeOf(evaluateChecklistSync(input, evaluateValidInput(input), doc));
-    } catch {
-      // Only input a newer engine no longer accepts gets here: validate it to say so.
-      return { verdict: validateCalcInput(raw).ok ? 'error' : 'invalid-input', failing: [] };
-    }
   }
 
   async csv(ability: AppAbility, ruleSetId: number): Promise<string> {

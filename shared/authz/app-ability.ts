@@ -11,7 +11,8 @@ export const ACTIONS = [
   'submit', 'check', 'return', 'approve', 'sign', 'audit', 'publish', 'impact', 'confirm',
 ] as const;
 export const SUBJECTS = [
-  'User', 'Project', 'Calc', 'Revision', 'RuleSet', 'AuditEvent', 'SentMail', 'RoleGrant', 'all',
+  'User', 'Project', 'Calc', 'Revision', 'RuleSet', 'AuditEvent', 'SentMail', 'RoleGrant', 'ReviewHealth', 'HealthSettings',
+  'all',
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 export type SubjectName = (typeof SUBJECTS)[number];
@@ -59,6 +60,7 @@ const RULES_BY_ROLE: Record<Role, (user: AbilityUser, b: Builder) => void> = {
     can(['create', 'update'], 'RuleSet', { status: 'draft' });
     can(['publish', 'impact'], 'RuleSet');
     can('audit', 'all');
+    reviewHealth(can);
     secondPersonForRoles(user, can);
   },
   admin(user, { can }) {
@@ -71,9 +73,17 @@ const RULES_BY_ROLE: Record<Role, (user: AbilityUser, b: Builder) => void> = {
     can('assignRoles', 'User', { id: { $ne: user.id } });
     can('deactivate', 'User');
     can('update', 'Project');
+    // Admins already read every audit entry behind the review-health signals, so they may see the signals too.
+    reviewHealth(can);
     secondPersonForRoles(user, can);
   },
 };
+
+/** Review-health signals and their thresholds (issue 15): compliance and admins, audited on change. */
+function reviewHealth(can: Builder['can']): void {
+  can('read', 'ReviewHealth');
+  can(['read', 'update'], 'HealthSettings');
+}
 
 /** Admins and compliance confirm or refuse role requests made by someone else for someone else. */
 function secondPersonForRoles(user: AbilityUser, can: Builder['can']): void {

@@ -58,6 +58,12 @@ export const routes: Routes = [
         loadComponent: () => import('./features/audit/audit-page'),
       },
       {
+        path: 'review-health',
+        title: 'Review health · Torquetrail',
+        canActivate: [abilityGuard('read', 'ReviewHealth')],
+        loadComponent: () => import('./features/review-health/review-health-page'),
+      },
+      {
         path: 'admin/users',
         title: 'People and roles · Torquetrail',
         canActivate: [abilityGuard('create', 'User')],

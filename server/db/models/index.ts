@@ -14,10 +14,13 @@ import { MailPreference } from './mail-preference';
 import { Attachment } from './attachment';
 import { RoleGrant } from './role-grant';
 import { IndependentModel } from './independent-model';
+import { ReviewHealthSettings } from './review-health-settings';
 
-export { User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment, RoleGrant, IndependentModel };
+export { User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment, RoleGrant, IndependentModel,
+  ReviewHealthSettings };
 
-const MODELS = [User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment, RoleGrant, IndependentModel];
+const MODELS = [User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment, RoleGrant, IndependentModel,
+  ReviewHealthSettings];
 
 /** Initialise every model once, then wire associations in one step. */
 export function initModels(sequelize: Sequelize): void {

@@ -47,6 +47,7 @@ const LABELS: Record<string, string> = {
   'rule_set.confirmation_refused': 'was refused confirming a standard',
   'rule_set.effective': 'made a standard effective',
   'rule_set.impact_notified': 'notified the impact of a standard change',
+  'review_health.settings_changed': 'changed the review-health thresholds',
 };
 
 export function auditActionLabel(action: string): string {

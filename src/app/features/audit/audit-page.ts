@@ -11,7 +11,7 @@ import type { AuditChainStatus, AuditEventDto } from '../../../../shared/schemas
 import { assertApiFailure } from '../../core/http/api-failure';
 import { LoadFailure } from '../../ui/load-failure';
 import { AuditActionLabelPipe } from '../../ui/audit-action-label';
-import { RouterLink } from '@angular/router';
+import { ActivatedRoute, RouterLink, type ParamMap } from '@angular/router';
 import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { CalcsApi } from '../calcs/calcs-api';
@@ -24,6 +24,16 @@ import { MatInputModule } from '@angular/material/input';
 
 const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/;
 
+/** The audit filters named in the address; anything malformed is left out (the server validates the rest). */
+function filtersFromUrl(q: ParamMap): Omit<AuditListParams, 'size' | 'after'> {
+  const id = (key: string) => (/^[1-9]\d{0,14}$/.test(q.get(key) ?? '') ? Number(q.get(key)) : null);
+  const text = (key: string, pattern = /^[\w.]{0,64}$/) => (pattern.test(q.get(key) ?? '') ? (q.get(key) ?? '') : '');
+  return {
+    entityType: text('entityType'), action: text('action'), projectId: id('projectId'), calcId: id('calcId'), userId: id('userId'),
+    from: text('from', ISO_DAY), to: text('to', ISO_DAY),
+  };
+}
+
 @Component({
   selector: 'tt-audit-page',
   imports: [DatePipe, JsonPipe, SlicePipe, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatSelectModule, MatFormFieldModule, MatProgressBarModule, AuditActionLabelPipe, EmptyState, DiffView, MatInputModule, RouterLink, ReactiveFormsModule, LoadFailure],
@@ -33,7 +43,8 @@ const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/;
 })
 export default class AuditPage {
   private readonly api = inject(AuditApi);
-  protected readonly params = signal<Omit<AuditListParams, 'size' | 'after'>>({ entityType: '', action: '', projectId: null, calcId: null, userId: null, from: '', to: '' });
+  // Filters may arrive in the address (links from review-health signals and elsewhere), e.g. /audit?calcId=7&action=revision.signed.
+  protected readonly params = signal<Omit<AuditListParams, 'size' | 'after'>>(filtersFromUrl(inject(ActivatedRoute).snapshot.queryParamMap));
   protected readonly pager = new KeysetPager(25);
   protected readonly projects = inject(ProjectsApi).list(signal({ page: 0, size: 200, q: '' }));
   protected readonly events = this.api.list(computed(() => ({ ...this.params(), size: this.pager.size(), after: this.pager.after() })));
@@ -63,10 +74,14 @@ export default class AuditPage {
     { value: '', label: 'Any action' }, { value: 'auth.', label: 'Sign-in and passwords' }, { value: 'user.', label: 'Accounts and roles' },
     { value: 'calc.', label: 'Calcs created' }, { value: 'revision.saved', label: 'Content saved' }, { value: 'revision.signed', label: 'Signatures' },
     { value: 'revision.', label: 'Any revision event' }, { value: 'finding.', label: 'Findings' }, { value: 'rule_set.', label: 'Standards' },
-    { value: 'attachment.', label: 'Attachments' },
+    { value: 'attachment.', label: 'Attachments' }, { value: 'revision.signed_checked', label: 'Check signatures' },
+    { value: 'revision.signed_approved', label: 'Approval signatures' }, { value: 'revision.signed_authored', label: 'Submissions' },
+    { value: 'revision.signature_refused', label: 'Refused signatures' }, { value: 'review_health.', label: 'Review-health settings' },
   ];
 
   constructor() {
+    this.from.setValue(this.params().from, { emitEvent: false });
+    this.to.setValue(this.params().to, { emitEvent: false });
     effect(() => {
       if (this.events.hasValue()) this.pager.remember(this.events.value());
     });

@@ -1,0 +1,44 @@
+import { QueryTypes, type Sequelize } from 'sequelize';
+import type { HealthSettings, SignalRow } from '../../shared/schemas/review-health.schema';
+import { auditLink, plural, projectClause, ROW_CAP, type HealthScope } from './health-scope';
+
+interface Refusal {
+  actorId: number | null; actorName: string; entityId: string; calcId: number | null; number: string | null; code: string | null;
+  label: string | null; attempts: number; wrongPassword: number; first: Date; last: Date;
+}
+
+/**
+ * Signing attempts refused for a wrong password or one-time code. The signing path records each
+ * refusal as an audit entry (`revision.signature_refused`, workflow.service.ts) before it answers,
+ * so the trail is the record; grouped here per person and revision.
+ */
+export async function refusedSignatures(sequelize: Sequelize, scope: HealthScope, settings: HealthSettings): Promise<SignalRow[]> {
+  const project = projectClause(scope, 'e.project_id');
+  const rows = await sequelize.query<Refusal>(
+    `SELECT e.actor_id AS actorId, MAX(e.actor_name) AS actorName, e.entity_id AS entityId, MAX(e.calc_id) AS calcId,
+       MAX(c.number) AS number, MAX(p.code) AS code, MAX(r.label) AS label, COUNT(*) AS attempts,
+       SUM(JSON_VALUE(e.payload, '$.reason') = 'wrong password') AS wrongPassword, MIN(e.occurred_at) AS first, MAX(e.occurred_at) AS last
+     FROM audit_events e LEFT JOIN calcs c ON c.id = e.calc_id LEFT JOIN projects p ON p.id = c.project_id
+       LEFT JOIN revisions r ON r.id = CAST(e.entity_id AS UNSIGNED)
+     WHERE e.action = 'revision.signature_refused' AND e.occurred_at >= ? AND e.occurred_at < ?${project.sql}
+     GROUP BY e.actor_id, e.entity_id ORDER BY attempts DESC, last DESC LIMIT ${ROW_CAP + 1}`,
+    { replacements: [scope.start, scope.end, ...project.values], type: QueryTypes.SELECT },
+  );
+  return rows.map((r) => {
+    const attempts = Number(r.attempts);
+    const password = Number(r.wrongPassword);
+    const reasons = [password ? `wrong password ×${password}` : '', attempts - password ? `one-time code missing or wrong ×${attempts - password}` : ''].filter(Boolean).join(', ');
+    const repeated = attempts >= settings.refusalRepeatCount ? 'Repeated: ' : '';
+    const span = attempts > 1 && iso(r.first) !== iso(r.last) ? ` between ${iso(r.first)} and ${iso(r.last)}` : ` at ${iso(r.last)}`;
+    return {
+      signal: 'refusals',
+      fact: `${repeated}${plural(attempts, 'signing attempt')} refused (${reasons})${span}; nothing was signed by these attempts`,
+      projectCode: r.code, calcId: r.calcId, calcNumber: r.number, revision: r.label, people: r.actorName,
+      at: new Date(r.last).toISOString(), measure: attempts,
+      evidence: [auditLink('Refused attempts', { calcId: r.calcId, userId: r.actorId, action: 'revision.signature_refused' }),
+        auditLink('Signatures on this calc', { calcId: r.calcId, action: 'revision.signed' })],
+    };
+  });
+}
+
+const iso = (d: Date) => `${new Date(d).toISOString().slice(0, 16).replace('T', ' ')} UTC`;

@@ -1,0 +1,101 @@
+import { z } from 'zod';
+import { decimalId } from './common.schema';
+
+/** Organisation thresholds of the review-health signals, as the settings form names them. */
+export const HEALTH_SETTING_FIELDS = {
+  quickCheckSecondsPerItem: { label: 'Seconds of checking per row, segment or feature', min: 1, max: 3600 },
+  silentCheckerChecks: { label: 'Checks without a finding before a checker is listed', min: 2, max: 1000 },
+  pairingSharePercent: { label: 'Share of one author’s checks done by one checker (%)', min: 50, max: 100 },
+  pairingMinChecks: { label: 'Checks of an author before pairing is looked at', min: 2, max: 1000 },
+  refusalRepeatCount: { label: 'Refused attempts that count as repeated', min: 2, max: 100 },
+  replacedWithinDays: { label: 'Days before a standard version was replaced', min: 1, max: 3650 },
+} as const;
+export type HealthSettingKey = keyof typeof HEALTH_SETTING_FIELDS;
+
+const setting = (key: HealthSettingKey) => {
+  const { label, min, max } = HEALTH_SETTING_FIELDS[key];
+  const message = `${label}: must be a whole number from ${min} to ${max.toLocaleString('en-GB')}`;
+  return z.number({ error: message }).int({ error: message }).min(min, { error: message }).max(max, { error: message });
+};
+
+export const healthSettingsSchema = z.strictObject({
+  quickCheckSecondsPerItem: setting('quickCheckSecondsPerItem'),
+  silentCheckerChecks: setting('silentCheckerChecks'),
+  pairingSharePercent: setting('pairingSharePercent'),
+  pairingMinChecks: setting('pairingMinChecks'),
+  refusalRepeatCount: setting('refusalRepeatCount'),
+  replacedWithinDays: setting('replacedWithinDays'),
+});
+export type HealthSettings = z.infer<typeof healthSettingsSchema>;
+
+export const updateHealthSettingsSchema = healthSettingsSchema.extend({
+  lockVersion: z.number({ error: 'must be the version you loaded' }).int().min(0),
+});
+export type UpdateHealthSettings = z.infer<typeof updateHealthSettingsSchema>;
+
+export interface HealthSettingsDto extends HealthSettings {
+  lockVersion: number;
+  updatedAt: string;
+  updatedBy: string | null;
+}
+
+const day = (label: string) => z.iso.date({ error: `${label}: must be a date (YYYY-MM-DD)` });
+export const MAX_PERIOD_DAYS = 3660;
+
+/** One project (or all) and a period of UTC days, both ends included. */
+export const healthQuerySchema = z.object({
+  projectId: decimalId('a project').optional(),
+  from: day('From'),
+  to: day('To'),
+}).refine((q) => q.from <= q.to, { message: 'From: must not be after To', path: ['from'] })
+  .refine((q) => Date.parse(q.to) - Date.parse(q.from) <= MAX_PERIOD_DAYS * 86_400_000,
+    { message: `To: the period may span at most ${MAX_PERIOD_DAYS} days`, path: ['to'] });
+export type HealthQuery = z.infer<typeof healthQuerySchema>;
+
+export const SIGNAL_KEYS = [
+  'quick-check', 'no-findings', 'pairing', 'refusals', 'attachments-after-check', 'replaced-standard', 'verdict-flip',
+] as const;
+export type SignalKey = (typeof SIGNAL_KEYS)[number];
+
+/** A link to the audit trail, as the audit screen's own filters (query parameters of /audit). */
+export interface AuditLink {
+  label: string;
+  query: Record<string, string>;
+}
+
+/** One observed fact, worded neutrally, with the trail entries behind it. */
+export interface SignalRow {
+  signal: SignalKey;
+  fact: string;
+  projectCode: string | null;
+  calcId: number | null;
+  calcNumber: string | null;
+  revision: string | null;
+  people: string;
+  /** When the fact was observed (UTC, ISO 8601), e.g. the check signature. */
+  at: string | null;
+  /** The number the threshold was compared with (minutes, share, attempts, days); null when there is none. */
+  measure: number | null;
+  evidence: AuditLink[];
+}
+
+export interface FindingRate {
+  checkerName: string;
+  authorName: string | null;
+  checks: number;
+  checksWithFindings: number;
+  findings: number;
+}
+
+export interface HealthReport {
+  from: string;
+  to: string;
+  project: { id: number; code: string } | null;
+  settings: HealthSettings;
+  /** Each signal's rows; `more` when there were more than the screen shows (500). */
+  signals: { key: SignalKey; rows: SignalRow[]; more: boolean }[];
+  checkerRates: FindingRate[];
+  pairRates: FindingRate[];
+  checksInPeriod: number;
+  elapsedMs: number;
+}

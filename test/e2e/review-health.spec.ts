@@ -1,0 +1,89 @@
+import type { Express } from 'express';
+import type { Page } from 'playwright-core';
+import path from 'node:path';
+import { startBrowserSession, accessibilityViolations, SCREENSHOT_DIR } from '../support/browser';
+import { TEST_PASSWORD, createTestUser } from '../support/api-harness';
+import { healthScenario } from '../support/health-harness';
+
+// The review-health screen at 1440, 768 and 390 px over constructed signals: screenshots to look at
+// (artifacts/screenshots/review-health-*), no sideways page scroll, axe-core with no serious or critical
+// violation, an inline error for a threshold out of range, and a signal's evidence link landing on the audit list.
+jest.setTimeout(600_000);
+let session: Awaited<ReturnType<typeof startBrowserSession>>;
+let scenario: Awaited<ReturnType<typeof healthScenario>>;
+beforeAll(async () => {
+  session = await startBrowserSession();
+  scenario = await healthScenario(session.baseUrl as unknown as Express);
+});
+afterAll(async () => { await session?.close(); });
+
+async function signIn(page: Page, username: string) {
+  await session.context.clearCookies();
+  await page.goto('/sign-in');
+  await page.getByLabel('Username').fill(username);
+  await page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: /Good to see you/ }).waitFor();
+}
+
+async function openReport(page: Page) {
+  await page.goto('/review-health');
+  await page.getByRole('combobox', { name: 'Project' }).click();
+  await page.getByRole('option', { name: new RegExp(scenario.project.code) }).click();
+  // The option list is an overlay outside the page; measure the page once it has gone.
+  await page.getByRole('listbox').waitFor({ state: 'detached' });
+  await page.getByText(/checks signed, \d+ observations/).waitFor();
+}
+
+it('when compliance opens review health, then every signal reads as a fact with its limits, at three widths', async () => {
+  const page = await session.context.newPage();
+  const user = await createTestUser(['compliance'], 'e2e-health');
+  await signIn(page, user.username);
+  await openReport(page);
+  const problems: string[] = [];
+  for (const width of [1440, 768, 390]) {
+    await page.setViewportSize({ width, height: 900 });
+    await page.getByRole('heading', { name: 'Short checks for the size of the calc' }).waitFor();
+    const { sideways, widest } = await page.evaluate(() => {
+      const inScrollBox = (el: Element) => { for (let p = el.parentElement; p; p = p.parentElement) if (['auto', 'scroll'].includes(getComputedStyle(p).overflowX)) return true; return false; };
+      const wide = Array.from(document.querySelectorAll('body *')).find((el) => el.getBoundingClientRect().right > window.innerWidth + 1 && !inScrollBox(el));
+      return { sideways: document.documentElement.scrollWidth - window.innerWidth, widest: wide ? `${wide.tagName.toLowerCase()}.${Array.from(wide.classList).join('.')}` : '' };
+    });
+    if (sideways > 1) problems.push(`@${width}: page scrolls sideways by ${sideways}px (${widest})`);
+    await session.screenshot(page, `review-health-${width}`);
+    await page.screenshot({ path: path.join(SCREENSHOT_DIR, `review-health-${width}-top.png`) });
+    problems.push(...(await accessibilityViolations(page)).map((v) => `@${width}: ${v}`));
+  }
+  expect(problems).toEqual([]);
+  await expect(page.getByText(/^Repeated: 3 signing attempts refused/).count()).resolves.toBe(1);
+  await expect(page.getByText('Limits:').count()).resolves.toBe(7);
+  await page.close();
+});
+
+it('when a threshold is out of range, then the field says so inline and nothing is sent', async () => {
+  const page = await session.context.newPage();
+  const user = await createTestUser(['admin'], 'e2e-health-admin');
+  await signIn(page, user.username);
+  await openReport(page);
+  const field = page.getByLabel('Share of one author’s checks done by one checker (%)');
+  await field.fill('120');
+  await page.getByRole('button', { name: 'Save thresholds' }).click();
+  await page.getByText('Share of one author’s checks done by one checker (%): enter a whole number from 50 to 100').waitFor();
+  await page.setViewportSize({ width: 1440, height: 900 });
+  await field.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'review-health-threshold-error.png') });
+  await page.close();
+});
+
+it('when an evidence link is followed, then the audit list opens filtered to the entries behind the signal', async () => {
+  const page = await session.context.newPage();
+  const user = await createTestUser(['compliance'], 'e2e-health-link');
+  await signIn(page, user.username);
+  await openReport(page);
+  await page.getByRole('link', { name: 'Refused attempts' }).first().click();
+  await page.waitForURL(/\/audit\?.*action=revision\.signature_refused/);
+  await page.getByRole('cell', { name: /was refused a signature/ }).first().waitFor();
+  await expect(page.getByRole('cell', { name: /was refused a signature/ }).count()).resolves.toBe(3);
+  await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'review-health-audit-link.png') });
+  await page.close();
+});

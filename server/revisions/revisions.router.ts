@@ -35,7 +35,7 @@ export function revisionsRouter(s: RevisionServices): Router {
     res.json(await s.lifecycle.withdraw(req.ability, signedInActor(req), id(req.params), req.body.reason, req.body.lockVersion));
   });
   router.post('/:id/findings', validate({ params: idParamsSchema, body: findingSchema }), async (req, res) => {
-    res.status(201).json(await s.review.raiseFinding(req.ability, signedInActor(req), id(req.params), req.body.text, req.body.clauseRef));
+    res.status(201).json(await s.review.raiseFinding(req.ability, signedInActor(req), id(req.params), req.body.text, { clauseRef: req.body.clauseRef ?? null, anchorPath: req.body.anchorPath ?? null }));
   });
   router.put('/:id/manual-items/:itemId', validate({ params: itemParamsSchema, body: manualItemSchema }), async (req, res) => {
     res.json(await s.review.setManualItem(req.ability, signedInActor(req), id(req.params), String(req.params.itemId), req.body.done, req.body.note));

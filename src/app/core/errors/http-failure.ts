@@ -1,4 +1,5 @@
 import { HttpErrorResponse } from '@angular/common/http';
+import { fieldLabel } from '../../../../shared/engine/field-places';
 
 /** The one shape the client uses for a failed API call. */
 export interface HttpFailure {
@@ -22,8 +23,8 @@ export function toHttpFailure(error: unknown): HttpFailure {
   return { status: 0, code: 'client_error', message: error instanceof Error ? error.message : String(error), fieldErrors: {} };
 }
 
-/** A failure as lines a person can read: one per field with its reasons, or the message alone. */
+/** A failure as lines a person can read: one per field, named as the form names it, or the message alone. */
 export function failureLines(f: HttpFailure): string[] {
-  const fields = Object.entries(f.fieldErrors).map(([field, reasons]) => `${field}: ${reasons.join('; ')}`);
+  const fields = Object.entries(f.fieldErrors).map(([field, reasons]) => `${fieldLabel(field)}: ${reasons.join('; ')}`);
   return fields.length ? fields : [f.message];
 }

@@ -26,7 +26,7 @@ import { RecordExports } from './record-exports';
 import { ManualItems } from './manual-items';
 import { countFindings, findingsTabLabel } from './finding-counts';
 import { failingRowText, signingReadiness } from './signing-readiness';
-import { formatEng } from '../../../../../shared/format';
+import { featureTypesOf, formatEng, placeOf } from '../../../../../shared/format';
 import { planActions, type RevisionAction } from './revision-actions';
 import { SignDialog, type SignDialogData } from './sign-dialog';
 import { ReasonDialog, type ReasonDialogData, type ReasonDialogResult } from './reason-dialog';
@@ -71,6 +71,8 @@ export default class CalcPage {
   protected readonly failingMandatory = computed(() => (this.current() ? signingReadiness(this.current()!, 'authored').failingMandatory : []));
   protected readonly failingRowText = failingRowText;
   protected readonly eng = formatEng;
+  /** An input issue's place in the editor's words (Segment 3, hole ⌀), features by their tags. */
+  protected readonly inputPlace = (path: string) => placeOf(path, featureTypesOf(this.current()?.input));
   protected readonly findingsLabel = computed(() => findingsTabLabel(countFindings(this.current() ?? { findings: [] })));
 
   protected select(revisionId: number): void {

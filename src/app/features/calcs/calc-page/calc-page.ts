@@ -97,7 +97,7 @@ export default class CalcPage {
 
   protected askReason(kind: 'return' | 'withdraw' | 'new-revision'): void {
     const texts: Record<typeof kind, ReasonDialogData> = {
-      return: { title: 'Return to the author', label: 'What must change', hint: 'This becomes a finding the author must answer.', action: 'Return' },
+      return: { title: 'Return to the author', label: 'What must change', hint: this.returnHint(), action: 'Return' },
       withdraw: { title: 'Withdraw this revision', label: 'Reason for withdrawal', hint: 'Kept on the record.', action: 'Withdraw' },
       'new-revision': {
         title: 'Start a new revision', label: 'Reason for change', hint: 'Printed on the report and kept on the record.', action: 'Start revision',
@@ -107,6 +107,13 @@ export default class CalcPage {
     this.dialog.open(ReasonDialog, { data: texts[kind] }).afterClosed().subscribe((answer?: ReasonDialogResult) => {
       if (answer) void this.applyReason(kind, answer.reason, answer.choice);
     });
+  }
+
+  /** The reason becomes a finding only when none is open; otherwise the open findings go back and the reason rides with the return. */
+  private returnHint(): string {
+    const open = (this.current()?.findings ?? []).filter((f) => f.status === 'open').map((f) => `F${f.id}`);
+    return open.length ? `Open ${open.join(', ')} go back for answers; this reason is kept with the return, not added as another finding.`
+      : 'This becomes a finding the author must answer.';
   }
 
   private async applyReason(kind: 'return' | 'withdraw' | 'new-revision', reason: string, carryAttachments: boolean): Promise<void> {

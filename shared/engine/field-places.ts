@@ -28,7 +28,7 @@ const FIELD_WORDS: Record<string, string> = {
   pitchDiameter: 'pitch ⌀', pressureAngle: 'pressure angle', helixAngle: 'helix angle', pullFactor: 'pull factor', direction: 'direction',
   material: 'material', nu: "Poisson's ratio", name: 'name', source: 'source', surface: 'surface finish', reliability: 'reliability',
   surfaceTable: 'Table 6-2 edition', temperature: 'temperature', alternatingTorqueFraction: 'alternating torque share',
-  kd: 'kd entered', kc: 'kc entered', kf: 'kf entered', SePrime: 'Se′ entered', SePrimeSource: 'source of Se′',
+  kd: 'temperature factor kd', kc: 'load factor kc', kf: 'miscellaneous factor kf', SePrime: 'endurance limit Se′', SePrimeSource: 'source of Se′',
   kfOnMidrange: 'Kf, Kfs on midrange stresses', type: 'type', form: 'form', J: 'polar moment', tauMax: 'τmax',
 };
 

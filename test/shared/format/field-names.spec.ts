@@ -10,7 +10,7 @@ describe('internal paths in the screen\'s words', () => {
     ['features[0]', ['keyseat'], 'Feature KS1'],
     ['segments[0].material.Sy', [], 'Segment 1, material, yield strength'],
     ['material.E', [], "Material, Young's modulus"],
-    ['fatigue.kd', [], 'Fatigue, kd entered'],
+    ['fatigue.kd', [], 'Fatigue, temperature factor kd'],
     ['fatigue.alternatingTorqueFraction', [], 'Fatigue, alternating torque share'],
     ['supports[1].C', [], 'Bearing 2, load rating C'],
   ] as const)('when a message names %s, then the screen reads "%s"', (path, types, words) => {

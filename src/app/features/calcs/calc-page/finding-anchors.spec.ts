@@ -72,4 +72,15 @@ describe('findings anchored to a row or an input', () => {
       [...tr.querySelectorAll('.finding')].map((f) => f.textContent!.replace(/\s+/g, ' ').trim()));
     expect(perRow).toEqual([[], [], ['F3 open: Point 3']]);
   });
+
+  it('when a finding is anchored to a row that does not apply, then that row stays in view with it', async () => {
+    const table = TestBed.createComponent(ChecklistTable);
+    const notApplicable = { ...CHECKLIST.rows[2], status: 'not-applicable' };
+    table.componentRef.setInput('checklist', { ...CHECKLIST, rows: [CHECKLIST.rows[0], notApplicable] });
+    table.componentRef.setInput('findings', REVISION.findings);
+    table.detectChanges();
+    await table.whenStable();
+    expect((table.nativeElement as HTMLElement).querySelectorAll('tr[mat-row]')).toHaveLength(2);
+    expect((table.nativeElement as HTMLElement).querySelector('.finding')!.textContent).toContain('F3');
+  });
 });

@@ -31,11 +31,13 @@ export class ChecklistTable {
     }
     return byRow;
   });
-  protected readonly rows = computed(() =>
-    this.checklist().rows.filter((r) => this.showNotApplicable() || r.status !== 'not-applicable'));
   protected readonly hidden = computed(() => this.checklist().rows.length - this.rows().length);
   // Severity shows as a tag beside advisory clauses; mandatory is the norm and needs no column.
   protected readonly columns = ['clause', 'location', 'status', 'actual', 'limit', 'use'];
+
+  // A row that does not apply stays in view when a finding is anchored to it ("this clause should apply here").
+  protected readonly rows = computed(() => this.checklist().rows.filter((r) => this.showNotApplicable() || r.status !== 'not-applicable'
+    || this.findingsByRow().has(`${r.clauseId}|${rowPath(r.location) ?? '*'}`) || this.findingsByRow().has(`${r.clauseId}|*`)));
 
   /** Rows come grouped by clause; the clause's name is printed once, on its first row. */
   protected isFirstOfClause(index: number): boolean {

@@ -55,4 +55,12 @@ fakes_start "$dir/fakes"
 trap 'fakes_stop; db_stop; rm -rf "$dir"' EXIT
 npx tsx scripts/bench-writers.ts
 echo
+
+# Screens in headless Chromium against the demo data, in their own database beside the library's.
+[ -f dist/torquetrail/browser/index.html ] || npx ng build --configuration production >/dev/null || die "client build failed"
+DB_NAME=torquetrail_screens DB_USER=torquetrail_screens db_ensure_schema torquetrail_screens torquetrail_screens bench-only
+DB_NAME=torquetrail_screens DB_USER=torquetrail_screens DB_PASSWORD=bench-only npx tsx server/db/migrate.ts >/dev/null
+DB_NAME=torquetrail_screens DB_USER=torquetrail_screens DB_PASSWORD=bench-only npx tsx server/db/seed.ts >/dev/null
+DB_NAME=torquetrail_screens DB_USER=torquetrail_screens DB_PASSWORD=bench-only npx tsx scripts/bench-screens.ts
+echo
 echo "Figures measure this machine at this moment; they support, never replace, engineering judgement of the product's fitness."

@@ -36,7 +36,7 @@ export function toSignatureDto(s: Signature, currentHashes: Map<number, string |
 export function toFindingDto(f: Finding, names: Map<number, string>): FindingDto {
   const ref = (id: number | null) => (id == null ? null : { id, name: names.get(id) ?? 'unknown' });
   return {
-    id: f.id, clauseRef: f.clauseRef, text: f.text, status: f.status, raisedBy: ref(f.raisedBy)!, createdAt: f.createdAt.toISOString(),
+    id: f.id, clauseRef: f.clauseRef, anchorPath: f.anchorPath ?? null, text: f.text, status: f.status, raisedBy: ref(f.raisedBy)!, createdAt: f.createdAt.toISOString(),
     answer: f.answer, answeredBy: ref(f.answeredBy), answeredAt: iso(f.answeredAt), closedBy: ref(f.closedBy), closedAt: iso(f.closedAt),
   };
 }

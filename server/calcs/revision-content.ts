@@ -4,6 +4,7 @@ import { CalcInputError, ENGINE_VERSION, evaluateValidInput, validateCalcInput, 
 import { applyRuleSetMethods, evaluateChecklist, type Checklist, type RuleSet } from '../../shared/rules';
 import type { InputIssue } from '../../shared/schemas/calc-dto';
 import { nonFinitePath } from '../../shared/json/finite-json';
+import { namePathsIn } from '../../shared/engine/field-places';
 
 /** What the server stores as the record of truth for a revision's content. */
 export interface ComputedRecord {
@@ -49,7 +50,7 @@ function notComputable(where: string): ComputedRecord {
   const entry = INPUT_ENTRY.exec(where);
   return {
     result: null, checklist: null, verdict: null,
-    inputIssues: [{ path: entry ? `${entry[1]}[${entry[2]}]` : '', message: `gives a value that is not a finite number (${where}); the input is outside the range the calculation can handle, so nothing was evaluated` }],
+    inputIssues: [{ path: entry ? `${entry[1]}[${entry[2]}]` : '', message: `gives a value that is not a finite number (${namePathsIn(where.replace(/^(result|checklist)\./, ''))}); the input is outside the range the calculation can handle, so nothing was evaluated` }],
   };
 }
 

@@ -1,3 +1,4 @@
+import { fieldLabel } from '../../shared/engine/field-places';
 import type { FieldErrors } from '../../shared/schemas/api-error.schema';
 
 export type { FieldErrors };
@@ -21,7 +22,7 @@ export class AppError extends Error {
 
   static validation(fieldErrors: FieldErrors): AppError {
     const first = Object.entries(fieldErrors)[0];
-    const summary = first ? `${first[0] || 'request'}: ${first[1][0]}` : 'invalid request';
+    const summary = first ? `${fieldLabel(first[0])}: ${first[1][0]}` : 'invalid request';
     return new AppError('validation', 400, `Invalid input — ${summary}`, { fieldErrors });
   }
 

@@ -33,7 +33,7 @@ export async function compareWithAuthor(sequelize: Sequelize, revision: Revision
 
 /**
  * Locks the model and records the comparison: every difference becomes an open finding on its
- * row (the input path, result or clause as clauseRef) with both values, for the author to answer;
+ * row (an input difference anchored to its input) with both values, for the author to answer;
  * an agreeing comparison is recorded as such. Never changed afterwards.
  */
 export async function lockAndCompare(sequelize: Sequelize, actor: Checker, revision: Revision, model: IndependentModel, transaction: Transaction): Promise<void> {
@@ -44,7 +44,9 @@ export async function lockAndCompare(sequelize: Sequelize, actor: Checker, revis
   const findingIds: number[] = [];
   for (const row of comparison.rows.filter((r) => !r.agrees)) {
     const text = `Independent model differs. ${describeDifference(row)}. Answer with the reason, or correct the calc and say so.`;
-    const finding = await Finding.create({ revisionId: revision.id, clauseRef: row.key.slice(0, 120), text, raisedBy: actor.id }, { transaction });
+    // An input difference is anchored to its input; a result or clause difference names its row in the text.
+    const anchorPath = row.section === 'input' ? row.key.slice(0, 120) : null;
+    const finding = await Finding.create({ revisionId: revision.id, clauseRef: null, anchorPath, text, raisedBy: actor.id }, { transaction });
     findingIds.push(finding.id);
   }
   await model.update({

@@ -3,11 +3,15 @@ import type { ChecklistRow } from '../../shared/rules';
 import type { ReportData } from './report-data';
 import { FAIL, INK, INK_SOFT, PASS, WARN, paragraph, sectionHeading, subHeading } from './report-doc';
 import { drawTable, type Cell } from './pdf-table';
-import { formatBeside, formatUtilisation, unitText } from '../../shared/format';
+import { formatBeside, formatUtilisation, placeOf, unitText } from '../../shared/format';
 
 const STATUS: Record<ChecklistRow['status'], { text: string; color: string }> = {
   pass: { text: 'PASS', color: PASS }, fail: { text: 'FAIL', color: FAIL }, 'not-applicable': { text: 'n/a', color: INK_SOFT }, error: { text: 'ERROR', color: FAIL },
 };
+
+function featureTypesOf(input: Record<string, unknown>): string[] {
+  return Array.isArray(input.features) ? input.features.map((f: { type?: string }) => String(f?.type ?? '')) : [];
+}
 
 function row(r: ChecklistRow): Cell[] {
   const status = STATUS[r.status];
@@ -30,7 +34,7 @@ export function drawChecklist(doc: PDFKit.PDFDocument, d: ReportData, number: nu
   paragraph(doc, `${verdict} against ${c.ruleSet.code} v${c.ruleSet.version} “${c.ruleSet.title}”: ${c.counts.pass} pass, ${c.counts.fail} fail (${c.counts.advisoryFail} of them advisory), ${c.counts.error} error, ${c.counts.notApplicable} not applicable.`,
     { color: c.verdict === 'compliant' ? PASS : FAIL, font: 'TT-Sans-Bold' });
   for (const why of c.verdictReasons) paragraph(doc, `• ${why}`, { color: FAIL });
-  for (const issue of c.methodIssues) paragraph(doc, `• Method: ${issue.path} ${issue.message}`, { color: FAIL });
+  for (const issue of c.methodIssues) paragraph(doc, `• Method: ${placeOf(issue.path, featureTypesOf(d.input))}: ${issue.message}`, { color: FAIL });
   drawTable(doc, [
     { header: 'Clause', share: 0.12 }, { header: 'Requirement', share: 0.27 }, { header: 'Where', share: 0.19 },
     { header: 'Result', share: 0.07 }, { header: 'M/A', share: 0.04 }, { header: 'Actual', share: 0.08, align: 'right', mono: true },

@@ -1,5 +1,5 @@
 import { FIELD_NAMES, METHOD_NAMES, type CalcResult } from '../../shared/engine';
-import { unitText } from '../../shared/format';
+import { placeOf, unitText } from '../../shared/format';
 import { featureTag } from '../../shared/plots';
 import type { ReportData } from './report-data';
 import { FAIL, INK, paragraph, sectionHeading, subHeading } from './report-doc';
@@ -59,6 +59,6 @@ export function drawResults(doc: PDFKit.PDFDocument, d: ReportData, number: numb
   drawTable(doc, [{ header: 'Quantity', share: 0.2 }, { header: 'Formula or published method', share: 0.8 }], methods, { size: 7.5 });
   if (r.warnings.length) {
     subHeading(doc, 'Engine warnings');
-    for (const w of r.warnings) paragraph(doc, `• ${w.path}: ${w.message}`, { color: FAIL });
+    for (const w of r.warnings) paragraph(doc, `• ${placeOf(w.path, r.features.map((f) => f.type))}: ${w.message}`, { color: FAIL });
   }
 }

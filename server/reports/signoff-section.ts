@@ -1,4 +1,4 @@
-import { formatBytes } from '../../shared/format';
+import { featureTypesOf, findingPlace, formatBytes } from '../../shared/format';
 import { STATE_LABELS } from '../../shared/schemas/revision.schema';
 import { ATTACHMENT_KIND_LABELS } from '../../shared/schemas/attachment.schema';
 import type { ReportData } from './report-data';
@@ -11,13 +11,15 @@ const when = (iso: string | null) => (iso ? `${iso.slice(0, 16).replace('T', ' '
 export function drawFindings(doc: PDFKit.PDFDocument, d: ReportData, number: number): void {
   sectionHeading(doc, number, 'Findings and answers');
   const findings = d.revision.findings;
+  const types = featureTypesOf(d.input);
+  const place = (f: (typeof findings)[number]) => findingPlace(f, types);
   if (findings.length === 0) return paragraph(doc, 'No findings were raised on this revision.', { color: INK_SOFT });
   drawTable(doc, [
     { header: 'No.', share: 0.06 }, { header: 'Finding', share: 0.32 }, { header: 'Raised', share: 0.14 },
     { header: 'Answer', share: 0.3 }, { header: 'Status', share: 0.18 },
   ], findings.map((f): Cell[] => [
     // The same number the screen shows (F + the finding's id), so a reader can say "F4" to anyone.
-    `F${f.id}`, `${f.clauseRef ? `[${f.clauseRef}] ` : ''}${f.text}`, `${f.raisedBy.name}\n${when(f.createdAt)}`,
+    `F${f.id}`, `${place(f) ? `[${place(f)}] ` : ''}${f.text}`, `${f.raisedBy.name}\n${when(f.createdAt)}`,
     f.answer ? `${f.answer}\n— ${f.answeredBy?.name ?? ''}, ${when(f.answeredAt)}` : '—',
     { text: f.status === 'closed' ? `closed by ${f.closedBy?.name ?? ''}` : f.status, color: f.status === 'closed' ? PASS : FAIL },
   ]));

@@ -34,7 +34,8 @@ export function revisionsRouter(s: RevisionServices): Router {
     res.json(await s.lifecycle.withdraw(req.ability, signedInActor(req), idParam(req), req.body.reason, req.body.lockVersion));
   });
   router.post('/:id/findings', validate({ body: findingSchema }), async (req, res) => {
-    res.status(201).json(await s.review.raiseFinding(req.ability, signedInActor(req), idParam(req), req.body.text, req.body.clauseRef));
+    const anchor = { clauseRef: req.body.clauseRef ?? null, anchorPath: req.body.anchorPath ?? null };
+    res.status(201).json(await s.review.raiseFinding(req.ability, signedInActor(req), idParam(req), req.body.text, anchor));
   });
   router.put('/:id/manual-items/:itemId', validate({ params: itemParamsSchema, body: manualItemSchema }), async (req, res) => {
     res.json(await s.review.setManualItem(req.ability, signedInActor(req), idParam(req), String(req.params.itemId), req.body.done, req.body.note));

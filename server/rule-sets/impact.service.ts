@@ -1,3 +1,4 @@
+import { placeOf } from '../../shared/engine/field-places';
 import { ForbiddenError } from '@casl/ability';
 import { Op, type Sequelize } from 'sequelize';
 import { CAUTION, evaluateValidInput, validateCalcInput } from '../../shared/engine';
@@ -108,7 +109,7 @@ export class ImpactService {
     const { record, doc } = await loadRuleSet(ruleSetId);
     const revision = await readRevision(ability, revisionId);
     const validated = validateCalcInput(revision.input);
-    if (!validated.ok) throw new AppError('validation', 400, `Revision ${revision.label} has input errors and cannot be evaluated`, { fieldErrors: { revisionId: validated.issues.map((i) => `${i.path}: ${i.message}`) } });
+    if (!validated.ok) throw new AppError('validation', 400, `Revision ${revision.label} has input errors and cannot be evaluated`, { fieldErrors: { revisionId: validated.issues.map((i) => `${placeOf(i.path)}: ${i.message}`) } });
     const input = applyRuleSetMethods(validated.value, doc);
     const checklist = await evaluateChecklist(input, evaluateValidInput(input), doc);
     return { ruleSet: { id: record.id, code: record.code, version: record.version }, revision: { id: revision.id, label: revision.label }, checklist, before: revision.checklist };

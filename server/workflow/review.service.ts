@@ -11,6 +11,10 @@ import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { assertAttachmentFor } from '../attachments/attachment-rules';
 import { runTransaction } from '../db/transaction';
 import { RETURNED_STATE } from '../../shared/workflow/revision-states';
+import { checkFindingAnchor } from './finding-anchor';
+import type { FindingAnchor } from '../../shared/format/finding-place';
+
+const NO_ANCHOR: FindingAnchor = { clauseRef: null, anchorPath: null };
 
 type Reviewer = Actor & { id: number };
 
@@ -18,13 +22,14 @@ type Reviewer = Actor & { id: number };
 export class ReviewService {
   constructor(private readonly sequelize: Sequelize, private readonly workflow: WorkflowService) {}
 
-  async raiseFinding(ability: AppAbility, actor: Reviewer, revisionId: number, text: string, clauseRef?: string): Promise<RevisionDto> {
+  async raiseFinding(ability: AppAbility, actor: Reviewer, revisionId: number, text: string, anchor: FindingAnchor = NO_ANCHOR): Promise<RevisionDto> {
     await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevisionForChange(revisionId, transaction);
       assertCan(ability, 'return', revision, 'Only an independent checker or approver reviewing this revision can raise findings');
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
-      const finding = await Finding.create({ revisionId, text, clauseRef: clauseRef ?? null, raisedBy: actor.id }, { transaction });
-      await appendAudit(this.sequelize, actor, { action: 'finding.raised', entityType: 'Revision', entityId: revisionId, payload: { findingId: finding.id, clauseRef: clauseRef ?? null, text } }, transaction);
+      const { clauseRef, anchorPath } = checkFindingAnchor(revision, anchor);
+      const finding = await Finding.create({ revisionId, text, clauseRef, anchorPath, raisedBy: actor.id }, { transaction });
+      await appendAudit(this.sequelize, actor, { action: 'finding.raised', entityType: 'Revision', entityId: revisionId, payload: { findingId: finding.id, clauseRef, anchorPath, text } }, transaction);
     });
     return readRevision(ability, revisionId);
   }
@@ -60,7 +65,11 @@ export class ReviewService {
     return readRevision(ability, revisionId);
   }
 
-  /** Back to the author: the reason becomes an open finding they must answer before resubmitting. */
+  /**
+   * Back to the author. With open findings the reason goes with the return (trail and mail) and the
+   * author answers the findings; only a return without any becomes a finding itself, so the same
+   * point never has to be answered twice.
+   */
   async returnToAuthor(ability: AppAbility, actor: Reviewer, revisionId: number, reason: string, lockVersion: number): Promise<RevisionDto> {
     await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevisionForChange(revisionId, transaction);
@@ -70,7 +79,8 @@ export class ReviewService {
       const from = revision.status;
       revision.status = RETURNED_STATE;
       await revision.save({ transaction });
-      await Finding.create({ revisionId, text: reason, clauseRef: null, raisedBy: actor.id }, { transaction });
+      const open = await Finding.count({ where: { revisionId, status: 'open' }, transaction });
+      if (open === 0) await Finding.create({ revisionId, text: reason, clauseRef: null, raisedBy: actor.id }, { transaction });
       await appendAudit(this.sequelize, actor, { action: 'revision.returned', entityType: 'Revision', entityId: revisionId, payload: { calcId: revision.calcId, revision: revision.label, from, reason } }, transaction);
       await this.workflow.mail('returned', revision, actor, transaction, reason);
     });

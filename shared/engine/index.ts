@@ -26,3 +26,4 @@ export { formatNumber } from './number-format';
 export { formatResultTable } from './result-table';
 export { calcInputJsonSchemaText } from './json-schema';
 export { METHOD_NAMES, FIELD_NAMES, FILLET_KTS_NAMES } from './methods';
+export { featureTag, placeOf, fieldLabel, namePathsIn } from './field-places';

@@ -1,4 +1,4 @@
-import type { FeatureInput } from '../engine';
+import { featureTag, type FeatureInput } from '../engine';
 import type { Axis, Point } from './plot-types';
 import { niceAxis } from './ticks';
 import { featureMarks } from './feature-marks';
@@ -42,12 +42,8 @@ export interface OutlineInput {
   features?: readonly FeatureInput[];
 }
 
-const TAGS: Record<FeatureInput['type'], string> = { 'shoulder-fillet': 'SF', keyseat: 'KS', 'ring-groove': 'RG', 'cross-hole': 'CH' };
-
-/** Short tag of a feature (1-based, as people count): KS1, SF2 … */
-export function featureTag(type: FeatureInput['type'], index: number): string {
-  return `${TAGS[type] ?? 'F'}${index + 1}`;
-}
+// Feature tags live with the engine's field places, so messages and plots tag a feature alike.
+export { featureTag };
 
 // Tags closer than this share of the shaft length go on alternate rows.
 const LABEL_GAP = 0.07;

@@ -1,4 +1,4 @@
-import { CAUTION, type CalcInput, type CalcResult } from '../engine';
+import { CAUTION, placeOf, type CalcInput, type CalcResult } from '../engine';
 import type { ClauseOutcome } from './clause-outcome';
 import { buildRow } from './checklist-row';
 import type { Checklist, ChecklistRow, ManualState } from './checklist-types';
@@ -29,21 +29,22 @@ function targetsByScope(input: CalcInput, result: CalcResult, ruleSet: RuleSet):
 
 // An engine warning about a segment or feature (a fit used outside its range, say) belongs on
 // every row at that location as well as in the result's list, so a checker sees it beside the verdict.
-function engineWarnings(result: CalcResult, loc: ChecklistRow['location']): string[] {
+function engineWarnings(result: CalcResult, loc: ChecklistRow['location'], featureTypes: readonly string[]): string[] {
   if (loc.index === null || loc.scope === 'shaft') return [];
   const prefix = `${loc.scope}s[${loc.index}]`;
-  return result.warnings.filter((w) => w.path === prefix || w.path.startsWith(`${prefix}.`)).map((w) => `engine: ${w.path}: ${w.message}`);
+  return result.warnings.filter((w) => w.path === prefix || w.path.startsWith(`${prefix}.`)).map((w) => `${placeOf(w.path, featureTypes)}: ${w.message}`);
 }
 
 function assemble(input: CalcInput, result: CalcResult, ruleSet: RuleSet, targets: Targets,
   outcomes: Outcomes, manual: Record<string, ManualState> | undefined): Checklist {
   const { clauses, params } = preparedFor(ruleSet);
   const rows: ChecklistRow[] = [];
+  const featureTypes = (input.features ?? []).map((f) => f.type);
   clauses.forEach((p, i) => {
     const list = outcomes[i];
     targets[p.clause.scope].forEach((t, k) => {
       const row = buildRow(p, t, list[k], params, input.units);
-      if (row.status !== 'not-applicable') row.warnings.push(...engineWarnings(result, row.location));
+      if (row.status !== 'not-applicable') row.warnings.push(...engineWarnings(result, row.location, featureTypes));
       rows.push(row);
     });
   });

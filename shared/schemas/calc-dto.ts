@@ -17,7 +17,7 @@ export interface SignatureDto {
 export interface SignedAttachmentDto { name: string; kind: string; sizeBytes: number; sha256: string }
 
 export interface FindingDto {
-  id: number; clauseRef: string | null; text: string; status: 'open' | 'answered' | 'closed';
+  id: number; clauseRef: string | null; anchorPath: string | null; text: string; status: 'open' | 'answered' | 'closed';
   raisedBy: PersonRef; createdAt: string;
   answer: string | null; answeredBy: PersonRef | null; answeredAt: string | null;
   closedBy: PersonRef | null; closedAt: string | null;

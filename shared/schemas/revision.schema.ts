@@ -53,7 +53,9 @@ export const newRevisionSchema = z.object({
 
 export const findingSchema = z.object({
   text: z.string({ error: 'is required' }).trim().min(3, 'must be at least 3 characters').max(4000),
-  clauseRef: z.string().trim().max(120).optional(),
+  clauseRef: z.string().trim().min(1, 'is required').max(120).optional(),
+  /** A checklist row's location with clauseRef, or a named input without it: `segments[1]`, `segments[1].od`. */
+  anchorPath: z.string().trim().max(200).regex(/^[A-Za-z]+(\[\d+\])?(\.[A-Za-z]+(\[\d+\])?)*$/, 'must name an input as the calc stores it, e.g. segments[1].od').optional(),
 }).strict();
 
 export const answerSchema = z.object({

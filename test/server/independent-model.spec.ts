@@ -31,7 +31,7 @@ describe('independent model: blind check, lock and comparison', () => {
     const locked = await lockModel(t.checker.session, t.revisionId);
     expect(locked.agrees).toBe(false);
     const rev = await revisionOf(t.author.session, t.revisionId);
-    const od = rev.findings.find((f: { clauseRef: string }) => f.clauseRef === 'segments[1].od');
+    const od = rev.findings.find((f: { anchorPath: string }) => f.anchorPath === 'segments[1].od');
     expect(od.text).toMatch(/Segment 2 outer diameter: author's model \d+ mm, independent model \d+ mm/);
     await tickAll(t.checker.session, t.revisionId);
     const blocked = await sign(t.checker.session, t.revisionId, 'checked');

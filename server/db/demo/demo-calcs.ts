@@ -76,7 +76,7 @@ export async function seedDemoCalcs(sequelize: Sequelize, baseUrl: string, attac
 
   const head = await start(hale, 'KFD-CV1200', 'CV1200-SH-001', 'Head pulley shaft', 'DRG CV1200-3004', conveyorHeadShaft());
   await submit(hale, head);
-  await review.raiseFinding(okafor.ability, okafor, head, 'Attach the Peterson chart page behind the sled-runner Kts of 1.6 and state the keyseat depth used.', '6.5');
+  await review.raiseFinding(okafor.ability, okafor, head, 'Attach the Peterson chart page behind the sled-runner Kts of 1.6 and state the keyseat depth used.', { clauseRef: '6.5', anchorPath: 'features[1]' });
 
   const tail = await start(marsh, 'KFD-CV1200', 'CV1200-SH-002', 'Tail pulley shaft', 'DRG CV1200-3010', conveyorHeadShaft(125));
   await submit(marsh, tail);

@@ -7,6 +7,8 @@ export class Finding extends Model<InferAttributes<Finding>, InferCreationAttrib
   declare id: CreationOptional<number>;
   declare revisionId: number;
   declare clauseRef: string | null;
+  /** The row's location with a clause (`segments[1]`), or a named input without one (`segments[1].od`). */
+  declare anchorPath: CreationOptional<string | null>;
   declare text: string;
   declare status: CreationOptional<'open' | 'answered' | 'closed'>;
   declare raisedBy: number;
@@ -27,6 +29,7 @@ export class Finding extends Model<InferAttributes<Finding>, InferCreationAttrib
         id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
         revisionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         clauseRef: { type: DataTypes.STRING(120), allowNull: true },
+        anchorPath: { type: DataTypes.STRING(200), allowNull: true },
         text: { type: DataTypes.TEXT, allowNull: false },
         status: { type: DataTypes.ENUM('open', 'answered', 'closed'), allowNull: false, defaultValue: 'open' },
         raisedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },

@@ -66,7 +66,7 @@ describe('item 3: published fits used outside their range carry a warning', () =
   it('when a fit is outside its range, then the warning is on the feature\'s checklist rows and in the printed report', () => {
     const input = stepped([{ type: 'shoulder-fillet', at: 100, r: 11.25 }]);
     const row = rowsOf(checklistSync(input as CalcInput, V3), '5.2')[0];
-    expect(row.warnings).toContainEqual(expect.stringMatching(/^engine: features\[0\]: r\/d = 0.45/));
+    expect(row.warnings).toContainEqual(expect.stringMatching(/^Feature SF1: r\/d = 0.45/));
     expect(formatResultTable(evaluateShaft(input))).toMatch(/Warnings\n {2}- features\[0\]: r\/d = 0.45/);
   });
 });

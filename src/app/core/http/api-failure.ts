@@ -1,4 +1,5 @@
 import type { ApiError, FieldErrors } from '../../../../shared/schemas/api-error.schema';
+import { fieldLabel } from '../../../../shared/engine/field-places';
 
 const OFFLINE_MESSAGE = 'The server cannot be reached; check the connection and try again';
 
@@ -37,9 +38,9 @@ export class ApiFailure extends Error implements ApiError {
     return new ApiFailure(status, 'http_error', `Request failed (${status})`);
   }
 
-  /** One line per field with its reasons, or the message alone. */
+  /** One line per field, named as the form names it, with its reasons; or the message alone. */
   lines(): string[] {
-    const fields = Object.entries(this.fieldErrors).map(([field, reasons]) => `${field}: ${reasons.join('; ')}`);
+    const fields = Object.entries(this.fieldErrors).map(([field, reasons]) => `${fieldLabel(field)}: ${reasons.join('; ')}`);
     return fields.length ? fields : [this.message];
   }
 }

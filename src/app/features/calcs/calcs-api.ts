@@ -5,6 +5,7 @@ import type { KeysetPage } from '../../../../shared/schemas/common.schema';
 import type { CalcDto, CalcListItem, RevisionDto } from '../../../../shared/schemas/calc-dto';
 import type { CreateCalcRequest, SaveRevisionRequest, SignRequest } from '../../../../shared/schemas/revision.schema';
 import type { QueueDto } from '../../../../shared/schemas/queue.schema';
+import type { FindingAnchor } from '../../../../shared/format';
 import type { RuleSetDto, RuleSetSummary } from '../../../../shared/schemas/rule-set.schema';
 
 /** Rows per page of a queue on the overview; the first page of every queue comes with the overview. */
@@ -89,8 +90,10 @@ export class CalcsApi {
     return firstValueFrom(this.http.post<RevisionDto>(`/api/calcs/${calcId}/revisions`, { reasonForChange, carryAttachments }));
   }
 
-  raiseFinding(revisionId: number, text: string, clauseRef?: string): Promise<RevisionDto> {
-    return firstValueFrom(this.http.post<RevisionDto>(`/api/revisions/${revisionId}/findings`, { text, ...(clauseRef ? { clauseRef } : {}) }));
+  /** A finding on the calc, or anchored to a checklist row (clause and location) or a named input. */
+  raiseFinding(revisionId: number, text: string, anchor: FindingAnchor = { clauseRef: null, anchorPath: null }): Promise<RevisionDto> {
+    const where = { ...(anchor.clauseRef ? { clauseRef: anchor.clauseRef } : {}), ...(anchor.anchorPath ? { anchorPath: anchor.anchorPath } : {}) };
+    return firstValueFrom(this.http.post<RevisionDto>(`/api/revisions/${revisionId}/findings`, { text, ...where }));
   }
 
   answerFinding(findingId: number, answer: string): Promise<RevisionDto> {

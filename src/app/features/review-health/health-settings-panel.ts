@@ -5,7 +5,8 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { HEALTH_SETTING_FIELDS, type HealthSettingKey, type HealthSettings } from '../../../../shared/schemas/review-health.schema';
-import { toHttpFailure } from '../../core/errors/http-failure';
+import { assertApiFailure } from '../../core/http/api-failure';
+import { LoadFailure } from '../../ui/load-failure';
 import { ReviewHealthApi } from './review-health-api';
 
 type SettingsForm = { [K in HealthSettingKey]: FormControl<number | null> };
@@ -14,7 +15,7 @@ const KEYS = Object.keys(HEALTH_SETTING_FIELDS) as HealthSettingKey[];
 /** The organisation's thresholds, editable by compliance and administrators; every change is on the audit trail. */
 @Component({
   selector: 'tt-health-settings-panel',
-  imports: [DatePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule],
+  imports: [LoadFailure, DatePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule],
   templateUrl: './health-settings-panel.html',
   styleUrl: './health-settings-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -30,7 +31,6 @@ export class HealthSettingsPanel {
   protected readonly isSaving = signal(false);
   protected readonly problem = signal<string | null>(null);
   protected readonly notice = signal<string | null>(null);
-  protected readonly loadError = computed(() => (this.settings.error() ? toHttpFailure(this.settings.error()).message : null));
 
   constructor() {
     effect(() => {
@@ -64,7 +64,8 @@ export class HealthSettingsPanel {
   }
 
   private showFailure(error: unknown): void {
-    const failure = toHttpFailure(error);
+    assertApiFailure(error);
+    const failure = error;
     for (const [field, reasons] of Object.entries(failure.fieldErrors)) {
       const control = this.form.controls[field as HealthSettingKey];
       if (control) control.setErrors({ server: reasons.join('; ') });

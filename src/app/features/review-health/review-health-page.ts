@@ -11,7 +11,7 @@ import { AbilityServiceSignal } from '@casl/angular';
 import type { AppAbility } from '../../../../shared/authz/app-ability';
 import { HEALTH_CAUTION } from '../../../../shared/review-health/signal-texts';
 import { MAX_PERIOD_DAYS } from '../../../../shared/schemas/review-health.schema';
-import { toHttpFailure, failureLines } from '../../core/errors/http-failure';
+import { LoadFailure } from '../../ui/load-failure';
 import { ProjectsApi } from '../projects/projects-api';
 import { ReviewHealthApi, type HealthParams } from './review-health-api';
 import { SignalSection } from './signal-section';
@@ -34,7 +34,7 @@ function periodProblem(group: AbstractControl): ValidationErrors | null {
 /** Review-health signals of a project and period, for compliance: facts with the trail behind them. */
 @Component({
   selector: 'tt-review-health-page',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, SignalSection, FindingRates, HealthSettingsPanel],
+  imports: [LoadFailure, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, SignalSection, FindingRates, HealthSettingsPanel],
   templateUrl: './review-health-page.html',
   styleUrl: './review-health-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -56,7 +56,6 @@ export default class ReviewHealthPage {
     return this.filters.valid ? (this.filters.getRawValue() as HealthParams) : null;
   });
   protected readonly report = this.api.report(this.params);
-  protected readonly failure = computed(() => (this.report.error() ? failureLines(toHttpFailure(this.report.error())) : null));
   protected readonly periodError = computed(() => {
     this.filterValue();
     const e = this.filters.errors;

@@ -27,7 +27,7 @@ import { RecordExports } from './record-exports';
 import { ManualItems } from './manual-items';
 import { countFindings, findingsTabLabel } from './finding-counts';
 import { failingMandatoryRows, failingRowText } from './signing-readiness';
-import { formatEng } from '../../../../../shared/format';
+import { featureTypesOf, formatEng, placeOf } from '../../../../../shared/format';
 import { planActions, type RevisionAction } from './revision-actions';
 import { SignDialog, type SignDialogData } from './sign-dialog';
 import { ReasonDialog, type ReasonDialogData, type ReasonDialogResult } from './reason-dialog';
@@ -70,6 +70,8 @@ export default class CalcPage {
   protected readonly failingMandatory = computed(() => (this.current() ? failingMandatoryRows(this.current()!) : []));
   protected readonly failingRowText = failingRowText;
   protected readonly eng = formatEng;
+  /** An input issue's place in the editor's words (Segment 3, hole ⌀), features by their tags. */
+  protected readonly inputPlace = (path: string) => placeOf(path, featureTypesOf(this.current()?.input));
   protected readonly findingsLabel = computed(() => findingsTabLabel(countFindings(this.current() ?? { findings: [] })));
 
   protected select(revisionId: number): void {
@@ -94,7 +96,7 @@ export default class CalcPage {
 
   protected askReason(kind: 'return' | 'withdraw' | 'new-revision'): void {
     const texts: Record<typeof kind, ReasonDialogData> = {
-      return: { title: 'Return to the author', label: 'What must change', hint: 'This becomes a finding the author must answer.', action: 'Return' },
+      return: { title: 'Return to the author', label: 'What must change', hint: this.returnHint(), action: 'Return' },
       withdraw: { title: 'Withdraw this revision', label: 'Reason for withdrawal', hint: 'Kept on the record.', action: 'Withdraw' },
       'new-revision': {
         title: 'Start a new revision', label: 'Reason for change', hint: 'Printed on the report and kept on the record.', action: 'Start revision',
@@ -104,6 +106,13 @@ export default class CalcPage {
     this.dialog.open(ReasonDialog, { data: texts[kind] }).afterClosed().subscribe((answer?: ReasonDialogResult) => {
       if (answer) void this.applyReason(kind, answer.reason, answer.choice);
     });
+  }
+
+  /** The reason becomes a finding only when none is open; otherwise the open findings go back and the reason rides with the return. */
+  private returnHint(): string {
+    const open = (this.current()?.findings ?? []).filter((f) => f.status === 'open').map((f) => `F${f.id}`);
+    return open.length ? `Open ${open.join(', ')} go back for answers; this reason is kept with the return, not added as another finding.`
+      : 'This becomes a finding the author must answer.';
   }
 
   private async applyReason(kind: 'return' | 'withdraw' | 'new-revision', reason: string, carryAttachments: boolean): Promise<void> {

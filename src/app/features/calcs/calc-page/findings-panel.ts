@@ -1,9 +1,13 @@
-import { ChangeDetectionStrategy, Component, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import type { Checklist } from '../../../../../shared/rules';
+import { featureTypesOf, findingPlace } from '../../../../../shared/format';
+import { inputOptions, rowOptions, WHOLE_CALC, type AnchorOption } from './finding-anchors';
 import type { FindingDto, RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { assertApiFailure } from '../../../core/http/api-failure';
 import { EmptyState } from '../../../ui/empty-state';
@@ -12,7 +16,7 @@ import { CalcsApi } from '../calcs-api';
 /** Findings stay on the record with their answers: raised by the reviewer, answered by the author, closed by a reviewer. */
 @Component({
   selector: 'tt-findings-panel',
-  imports: [DatePipe, FormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, EmptyState],
+  imports: [DatePipe, FormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, EmptyState],
   templateUrl: './findings-panel.html',
   styleUrl: './findings-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -24,6 +28,12 @@ export class FindingsPanel {
   readonly canAnswer = input(false);
   readonly changed = output<RevisionDto>();
   protected readonly draft = signal('');
+  /** What the new finding concerns: the key of a checklist row or an input, '' for the calc as a whole. */
+  readonly anchorKey = signal('');
+  protected readonly wholeCalc = WHOLE_CALC;
+  protected readonly rowChoices = computed(() => rowOptions((this.revision().checklist ?? null) as Checklist | null));
+  protected readonly inputChoices = computed(() => inputOptions(this.revision()));
+  private readonly featureTypes = computed(() => featureTypesOf(this.revision().input));
   protected readonly answers = signal<Record<number, string>>({});
   protected readonly problem = signal<string | null>(null);
   /** One call at a time: a double click must not answer or raise the same finding twice. */
@@ -33,7 +43,16 @@ export class FindingsPanel {
   };
 
   protected async raise(): Promise<void> {
-    if (await this.run(() => this.api.raiseFinding(this.revision().id, this.draft().trim()))) this.draft.set('');
+    const chosen: AnchorOption = [...this.rowChoices(), ...this.inputChoices()].find((o) => o.key === this.anchorKey()) ?? WHOLE_CALC;
+    if (await this.run(() => this.api.raiseFinding(this.revision().id, this.draft().trim(), chosen.anchor))) {
+      this.draft.set('');
+      this.anchorKey.set('');
+    }
+  }
+
+  /** Where a finding sits ("§5.1, Segment 2"; "Segment 1, outer ⌀"), or null for the calc as a whole. */
+  protected placeOf(f: FindingDto): string | null {
+    return findingPlace(f, this.featureTypes());
   }
 
   protected answerOf(id: number): string {

@@ -4,7 +4,7 @@ import { MatIconModule } from '@angular/material/icon';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import type { IndependentModelDto } from '../../../../../shared/schemas/independent-model.schema';
 import type { ComparisonRow } from '../../../../../shared/verification';
-import { failureLines, toHttpFailure } from '../../../core/errors/http-failure';
+import { assertApiFailure } from '../../../core/http/api-failure';
 import { SafetyNote } from '../../../ui/safety-note';
 import { IndependentModelApi } from './independent-model-api';
 
@@ -62,7 +62,9 @@ export class IndependentModelPanel {
       this.model.set(await this.api.save(this.revision().id, input, this.model()?.lockVersion ?? 0));
       this.changed.emit();
     } catch (err) {
-      this.message.set(err instanceof SyntaxError ? `${file.name} is not a calc input file (JSON): ${err.message}` : failureLines(toHttpFailure(err)).join('; '));
+      if (err instanceof SyntaxError) return this.message.set(`${file.name} is not a calc input file (JSON): ${err.message}`);
+      assertApiFailure(err);
+      this.message.set(err.lines().join('; '));
     }
   }
 
@@ -73,7 +75,8 @@ export class IndependentModelPanel {
       this.model.set(await this.api.lock(this.revision().id, m.lockVersion));
       this.changed.emit();
     } catch (err) {
-      this.message.set(failureLines(toHttpFailure(err)).join('; '));
+      assertApiFailure(err);
+      this.message.set(err.lines().join('; '));
     }
   }
 

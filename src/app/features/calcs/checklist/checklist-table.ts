@@ -2,7 +2,8 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { Checklist, ChecklistRow } from '../../../../../shared/rules';
-import { formatBeside, formatUtilisation, unitText } from '../../../../../shared/format';
+import { formatBeside, formatUtilisation, rowPath, unitText } from '../../../../../shared/format';
+import type { FindingDto } from '../../../../../shared/schemas/calc-dto';
 
 const STATUS_TEXT: Record<ChecklistRow['status'], string> = { pass: 'Pass', fail: 'Fail', 'not-applicable': 'n/a', error: 'Error' };
 
@@ -19,16 +20,37 @@ const STATUS_TEXT: Record<ChecklistRow['status'], string> = { pass: 'Pass', fail
 export class ChecklistTable {
   readonly checklist = input.required<Checklist>();
   readonly showNotApplicable = input(false);
-  protected readonly rows = computed(() =>
-    this.checklist().rows.filter((r) => this.showNotApplicable() || r.status !== 'not-applicable'));
+  /** Findings raised on this revision: each shows on the row it is anchored to (clause-wide ones on the clause's first row). */
+  readonly findings = input<readonly FindingDto[]>([]);
+  private readonly findingsByRow = computed(() => {
+    const byRow = new Map<string, FindingDto[]>();
+    for (const f of this.findings()) {
+      if (!f.clauseRef) continue;
+      const key = `${f.clauseRef}|${f.anchorPath ?? '*'}`;
+      byRow.set(key, [...(byRow.get(key) ?? []), f]);
+    }
+    return byRow;
+  });
   protected readonly hidden = computed(() => this.checklist().rows.length - this.rows().length);
   // Severity shows as a tag beside advisory clauses; mandatory is the norm and needs no column.
   protected readonly columns = ['clause', 'location', 'status', 'actual', 'limit', 'use'];
+
+  // A row that does not apply stays in view when a finding is anchored to it ("this clause should apply here").
+  protected readonly rows = computed(() => this.checklist().rows.filter((r) => this.showNotApplicable() || r.status !== 'not-applicable'
+    || this.findingsByRow().has(`${r.clauseId}|${rowPath(r.location) ?? '*'}`) || this.findingsByRow().has(`${r.clauseId}|*`)));
 
   /** Rows come grouped by clause; the clause's name is printed once, on its first row. */
   protected isFirstOfClause(index: number): boolean {
     const rows = this.rows();
     return index === 0 || rows[index - 1].clauseId !== rows[index].clauseId;
+  }
+
+  protected findingsOn(row: ChecklistRow, index: number): FindingDto[] {
+    const byRow = this.findingsByRow();
+    const here = byRow.get(`${row.clauseId}|${rowPath(row.location) ?? '*'}`) ?? [];
+    // A finding on the clause as a whole sits on its first row; a whole-shaft row already matched '*'.
+    const clauseWide = rowPath(row.location) !== null && this.isFirstOfClause(index) ? byRow.get(`${row.clauseId}|*`) ?? [] : [];
+    return [...clauseWide, ...here];
   }
 
   /** An advisory failure says so in words, not only in a different colour. */

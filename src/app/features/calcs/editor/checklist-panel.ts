@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input, signal } from '@an
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { ChecklistTable } from '../checklist/checklist-table';
 import type { ChecklistState } from './live-calc';
+import { placeOf } from './issue-map';
 
 /** The live checklist against the revision's design standard, with its verdict and method issues. */
 @Component({
@@ -18,7 +19,7 @@ import type { ChecklistState } from './live-calc';
           @if (c.counts.advisoryFail) { <span class="advisory">{{ c.counts.advisoryFail }} advisory not met</span> }
         </div>
         @for (r of c.verdictReasons; track r) { <p class="reason">{{ r }}</p> }
-        @for (m of c.methodIssues; track m.path) { <p class="reason">{{ m.path }}: {{ m.message }}</p> }
+        @for (m of c.methodIssues; track m.path) { <p class="reason">{{ place(m.path) }}: {{ m.message }}</p> }
         <mat-slide-toggle [checked]="showAll()" (change)="showAll.set($event.checked)">Show clauses that do not apply</mat-slide-toggle>
         <tt-checklist-table [checklist]="c" [showNotApplicable]="showAll()" />
         @if (c.manual.length) { <p class="tt-muted small">{{ c.manual.length }} manual items are ticked by the checker on the calc page.</p> }
@@ -35,5 +36,6 @@ export class ChecklistPanel {
   /** Why there is no checklist (standard not loaded, or no valid input yet). */
   readonly problem = input<string | null>(null);
   protected readonly showAll = signal(false);
+  protected readonly place = placeOf;
   protected readonly emptyText = computed(() => this.problem() ?? 'The checklist appears once the input is complete and valid.');
 }

@@ -28,6 +28,10 @@ export class FatiguePanel {
   protected readonly u = computed(() => UNIT_LABELS[this.units()]);
   protected readonly surfaces = ['ground', 'machined', 'cold-drawn', 'hot-rolled', 'as-forged'];
   protected readonly reliabilities = ['50', '90', '95', '99', '99.9', '99.99'];
+  // Marin factors by name as the method writes them; a blank field means the engine computes or takes the default.
+  protected readonly factorKeys = ['kd', 'kc', 'kf'] as const;
+  protected readonly factorNames = { kd: 'Temperature factor kd', kc: 'Load factor kc', kf: 'Miscellaneous factor kf' };
+  protected readonly factorDefaults = { kd: 'from the temperature', kc: '1, stresses combined', kf: '1' };
   protected readonly imposedText = computed(() => {
     const m = this.imposed();
     if (!m) return null;

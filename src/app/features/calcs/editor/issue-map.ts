@@ -1,4 +1,3 @@
-import { featureTag } from '../../../../../shared/plots';
 import type { AbstractControl } from '@angular/forms';
 import type { CalcIssue } from '../../../../../shared/engine';
 
@@ -26,36 +25,5 @@ export function controlAt(form: AbstractControl, path: string): AbstractControl 
   return c && !('controls' in (c as object)) ? c : null;
 }
 
-/** Where an issue is, in words: "Segment 2", "Torque 1", "Material". */
-// Field keys as the form labels them, so a message says "Torque 2, station", not "torques[1].at".
-const FIELD_WORDS: Record<string, string> = {
-  at: 'station', T: 'torque', Ta: 'alternating torque', power: 'power', speed: 'speed', length: 'length', od: 'outer ⌀', id: 'inner ⌀',
-  r: 'radius', width: 'width', height: 'height', depth: 'depth', diameter: 'hole ⌀', Ma: 'alternating moment', Mm: 'midrange moment',
-  Kt: 'Kt', Kts: 'Kts', Sy: 'yield strength', Su: 'ultimate strength', E: "Young's modulus", G: 'shear modulus', label: 'label',
-  kind: 'kind', C: 'load rating C', X: 'X factor', Y: 'Y factor', Fx: 'axial force', Fy: 'force Fy', Fz: 'force Fz', mass: 'mass',
-  pitchDiameter: 'pitch ⌀', pressureAngle: 'pressure angle', helixAngle: 'helix angle', pullFactor: 'pull factor', direction: 'direction',
-};
-
-/**
- * Where an input path sits, in the screen's words, counted from 1: "Segment 2, outer ⌀"; a feature by
- * the tag the screen and plots show (KS1, SF2) when its type is known.
- */
-export function placeOf(path: string, featureTypes: readonly string[] = []): string {
-  const m = /^(segments|torques|features|bending|supports|loads|masses)\[(\d+)\](?:\.(\w+))?/.exec(path);
-  const names: Record<string, string> = {
-    segments: 'Segment', torques: 'Torque', features: 'Feature', bending: 'Bending moment', supports: 'Bearing', loads: 'Force', masses: 'Mass',
-  };
-  if (m) {
-    const index = Number(m[2]);
-    const type = m[1] === 'features' ? featureTypes[index] : undefined;
-    const where = type ? `Feature ${featureTag(type as Parameters<typeof featureTag>[0], index)}` : `${names[m[1]]} ${index + 1}`;
-    return m[3] ? `${where}, ${FIELD_WORDS[m[3]] ?? m[3]}` : where;
-  }
-  const head = path.split(/[.[]/)[0];
-  const words: Record<string, string> = {
-    material: 'Material', fatigue: 'Fatigue', torques: 'Torques', segments: 'Segments', units: 'Units', '(input)': 'Calc input',
-    notes: 'Notes', title: 'Heading', features: 'Features', bending: 'Bending moments',
-    supports: 'Bearings', loads: 'Forces', masses: 'Masses', speed: 'Operating speed',
-  };
-  return words[head] ?? head;
-}
+// Where an issue is, in the screen's words: one mapping shared with the server's messages.
+export { placeOf } from '../../../../../shared/engine/field-places';

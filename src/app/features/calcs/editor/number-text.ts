@@ -28,3 +28,22 @@ export function toText(value: unknown): string {
 export function convertedText(value: number): string {
   return formatNumber(value, 6);
 }
+
+/**
+ * "1e3" as the number it is ("1000"), so a typed exponent never sits in a field looking like a
+ * label or a typo. Shifts the decimal point in the text itself (no float round trip), so the
+ * digits shown are exactly the digits typed. Anything else (plain decimals, text, exponents
+ * beyond ±30 that the engine names as out of range) gives null and is left as typed.
+ */
+export function plainDecimal(text: string): string | null {
+  const m = /^([+-]?)(\d*)(?:\.(\d*))?[eE]([+-]?\d+)$/.exec(text.trim());
+  if (!m || (m[2] === '' && !m[3]) || Math.abs(Number(m[4])) > 30) return null;
+  const [, sign, whole, frac = '', exp] = m;
+  const digits = `${whole}${frac}`;
+  const point = whole.length + Number(exp);
+  const padded = point <= 0 ? `${'0'.repeat(1 - point)}${digits}` : digits.padEnd(point, '0');
+  const at = Math.max(point, 1);
+  const int = padded.slice(0, at).replace(/^0+(?=\d)/, '');
+  const dec = padded.slice(at).replace(/0+$/, '');
+  return `${sign === '-' ? '-' : ''}${int}${dec ? `.${dec}` : ''}`;
+}

@@ -104,6 +104,18 @@ describe('the calc editor, live in the browser', () => {
     expect(await cell('tauMax')).toBe(formatNumber(after, 4));
   });
 
+  it('when a diameter is typed as 1e2, then on leaving the field it reads 100 and the calc uses 100', async () => {
+    await open();
+    const od = await segmentField('segments[0].od');
+    await od.setValue('0.75e2');
+    await od.blur();
+    await settle();
+
+    expect(await od.getValue()).toBe('75');
+    const after = evaluateShaft({ ...INPUT, segments: [{ ...INPUT.segments[0], od: 75 }, INPUT.segments[1]] }).segments[0].tauMax;
+    expect(await cell('tauMax')).toBe(formatNumber(after, 4));
+  }, 120_000);
+
   it('when an inner diameter is not below the outer one, then the engine message shows on that row\'s field', async () => {
     await open();
     await (await segmentField('segments[1].id')).setValue('80');

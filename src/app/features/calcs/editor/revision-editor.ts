@@ -35,6 +35,7 @@ import { FatiguePanel } from './fatigue-panel';
 import { NotesPanel } from './notes-panel';
 import { LiveResults } from './live-results';
 import { LiveDetails } from './live-details';
+import { plainDecimal } from './number-text';
 import { VerdictStrip } from './verdict-strip';
 
 /**
@@ -118,6 +119,19 @@ export default class RevisionEditor {
     const { value, conversion } = switchUnits(v, to, this.lastConversion);
     this.lastConversion = conversion;
     this.replaceForm(value);
+  }
+
+  /**
+   * On leaving a numeric field, "1e3" becomes "1000": written back through the field's own input
+   * event, so whichever control is bound (form group or standalone) takes the same value it had.
+   */
+  protected showPlainNumber(event: FocusEvent): void {
+    const field = event.target;
+    if (!(field instanceof HTMLInputElement) || field.getAttribute('inputmode') !== 'decimal') return;
+    const plain = plainDecimal(field.value);
+    if (plain === null || plain === field.value) return;
+    field.value = plain;
+    field.dispatchEvent(new Event('input', { bubbles: true }));
   }
 
   protected warnBeforeUnload(event: BeforeUnloadEvent): void {

@@ -32,7 +32,10 @@ module.exports = {
       moduleNameMapper: { '^jsonpath-plus$': '<rootDir>/node_modules/jsonpath-plus/dist/index-browser-umd.cjs' },
       testMatch: ['<rootDir>/src/**/*.spec.ts'],
       transform: {
-        '^.+\\.(ts|js|mjs|html|svg)$': ['jest-preset-angular', { tsconfig: '<rootDir>/tsconfig.spec.json', stringifyContentPathRegex: '\\.(html|svg)$' }],
+        '^.+\\.(ts|js|mjs|html|svg)$': [
+          'jest-preset-angular',
+          { tsconfig: '<rootDir>/tsconfig.spec.json', stringifyContentPathRegex: '\\.(html|svg)$' },
+        ],
       },
       transformIgnorePatterns: ['node_modules/(?!.*\\.mjs$)'],
     },

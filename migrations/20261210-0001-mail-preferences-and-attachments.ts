@@ -2,7 +2,10 @@ import { DataTypes, type QueryInterface } from 'sequelize';
 
 const time = (allowNull = false) => ({ type: DataTypes.DATE(3), allowNull });
 const ref = (model: string) => ({
-  type: DataTypes.INTEGER.UNSIGNED, allowNull: false, references: { model, key: 'id' }, onDelete: 'RESTRICT',
+  type: DataTypes.INTEGER.UNSIGNED,
+  allowNull: false,
+  references: { model, key: 'id' },
+  onDelete: 'RESTRICT',
 });
 
 /**

@@ -1,6 +1,11 @@
 import { DataTypes, QueryTypes, type QueryInterface } from 'sequelize';
 
-interface RowLike { clauseId: string; severity: string; status: string; location?: { label?: string } }
+interface RowLike {
+  clauseId: string;
+  severity: string;
+  status: string;
+  location?: { label?: string };
+}
 
 /**
  * The outcome summary as shared/schemas/outcome.ts computed it when this migration was written.
@@ -22,12 +27,14 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
   // The backfill is data only, so one transaction holds it (the DDL above commits implicitly): all rows or none.
   await qi.sequelize.transaction(async (transaction) => {
     const rows = await qi.sequelize.query<{ id: number; checklist: string | null }>(
-      'SELECT id, checklist FROM revisions WHERE checklist IS NOT NULL', { type: QueryTypes.SELECT, transaction },
+      'SELECT id, checklist FROM revisions WHERE checklist IS NOT NULL',
+      { type: QueryTypes.SELECT, transaction },
     );
     for (const row of rows) {
       const outcome = JSON.stringify(outcomeOf(JSON.parse(row.checklist!)));
       await qi.sequelize.query('UPDATE revisions SET outcome = ? WHERE id = ?', {
-        replacements: [outcome, row.id], transaction,
+        replacements: [outcome, row.id],
+        transaction,
       });
     }
   });

@@ -12,9 +12,18 @@ const ROLES = ['author', 'checker', 'approver', 'compliance', 'admin'] as const;
 export async function up({ context: qi }: { context: QueryInterface }): Promise<void> {
   await qi.createTable('role_grants', {
     id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
-    user_id: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, references: { model: 'users', key: 'id' }, onDelete: 'RESTRICT' },
+    user_id: {
+      type: DataTypes.INTEGER.UNSIGNED,
+      allowNull: false,
+      references: { model: 'users', key: 'id' },
+      onDelete: 'RESTRICT',
+    },
     role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
-    status: { type: DataTypes.ENUM('pending', 'confirmed', 'refused', 'withdrawn'), allowNull: false, defaultValue: 'pending' },
+    status: {
+      type: DataTypes.ENUM('pending', 'confirmed', 'refused', 'withdrawn'),
+      allowNull: false,
+      defaultValue: 'pending',
+    },
     requested_by: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, references: { model: 'users', key: 'id' } },
     decided_by: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true, references: { model: 'users', key: 'id' } },
     decided_at: { type: DataTypes.DATE(3), allowNull: true },

@@ -4,8 +4,13 @@ import { DataTypes, type QueryInterface } from 'sequelize';
 // live code: the workflow may gain states later, through migrations of its own).
 const REVISION_STATES = ['draft', 'in_check', 'returned', 'checked', 'approved', 'superseded', 'withdrawn'] as const;
 const STATE_LABELS: Record<(typeof REVISION_STATES)[number], string> = {
-  draft: 'Draft', in_check: 'In check', returned: 'Returned', checked: 'Checked',
-  approved: 'Approved', superseded: 'Superseded', withdrawn: 'Withdrawn',
+  draft: 'Draft',
+  in_check: 'In check',
+  returned: 'Returned',
+  checked: 'Checked',
+  approved: 'Approved',
+  superseded: 'Superseded',
+  withdrawn: 'Withdrawn',
 };
 
 /**
@@ -77,11 +82,14 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
   // Existing rows: project code first, then each calc's newest revision (the update fires the search-text trigger).
   // Data only, so one transaction holds it (DDL commits implicitly in MariaDB): all rows or none.
   await qi.sequelize.transaction(async (transaction) => {
+    await qi.sequelize.query('UPDATE calcs c JOIN projects p ON p.id = c.project_id SET c.project_code = p.code', {
+      transaction,
+    });
     await qi.sequelize.query(
-      'UPDATE calcs c JOIN projects p ON p.id = c.project_id SET c.project_code = p.code', { transaction },
+      `UPDATE calcs c JOIN revisions r ON r.calc_id = c.id
+      AND r.seq = (SELECT MAX(r2.seq) FROM revisions r2 WHERE r2.calc_id = c.id) SET ${summaryOf('r')}`,
+      { transaction },
     );
-    await qi.sequelize.query(`UPDATE calcs c JOIN revisions r ON r.calc_id = c.id
-      AND r.seq = (SELECT MAX(r2.seq) FROM revisions r2 WHERE r2.calc_id = c.id) SET ${summaryOf('r')}`, { transaction });
   });
 }
 

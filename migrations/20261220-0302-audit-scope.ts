@@ -26,13 +26,20 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
     // The data in one transaction (the DDL around it commits implicitly in MariaDB): all rows or none.
     await qi.sequelize.transaction(async (transaction) => {
       await qi.sequelize.query(
-        "UPDATE audit_events SET project_id = CAST(entity_id AS UNSIGNED) WHERE entity_type = 'Project'", { transaction },
+        "UPDATE audit_events SET project_id = CAST(entity_id AS UNSIGNED) WHERE entity_type = 'Project'",
+        { transaction },
       );
-      await qi.sequelize.query(`UPDATE audit_events a JOIN calcs c ON a.entity_type = 'Calc' AND c.id = CAST(a.entity_id AS UNSIGNED)
-        SET a.calc_id = c.id, a.project_id = c.project_id`, { transaction });
-      await qi.sequelize.query(`UPDATE audit_events a JOIN revisions r ON a.entity_type = 'Revision'
+      await qi.sequelize.query(
+        `UPDATE audit_events a JOIN calcs c ON a.entity_type = 'Calc' AND c.id = CAST(a.entity_id AS UNSIGNED)
+        SET a.calc_id = c.id, a.project_id = c.project_id`,
+        { transaction },
+      );
+      await qi.sequelize.query(
+        `UPDATE audit_events a JOIN revisions r ON a.entity_type = 'Revision'
         AND r.id = CAST(a.entity_id AS UNSIGNED) JOIN calcs c ON c.id = r.calc_id
-        SET a.calc_id = c.id, a.project_id = c.project_id`, { transaction });
+        SET a.calc_id = c.id, a.project_id = c.project_id`,
+        { transaction },
+      );
     });
   } finally {
     await qi.sequelize.query(NO_UPDATE);

@@ -8,7 +8,9 @@ import type { QueryInterface } from 'sequelize';
 const COLUMNS = ['input LONGTEXT NOT NULL', 'result LONGTEXT NULL', 'checklist LONGTEXT NULL'];
 
 export async function up({ context: qi }: { context: QueryInterface }): Promise<void> {
-  await qi.sequelize.query(`ALTER TABLE revisions ${COLUMNS.map((c) => `MODIFY ${c.replace('LONGTEXT', 'LONGTEXT COMPRESSED')}`).join(', ')}`);
+  await qi.sequelize.query(
+    `ALTER TABLE revisions ${COLUMNS.map((c) => `MODIFY ${c.replace('LONGTEXT', 'LONGTEXT COMPRESSED')}`).join(', ')}`,
+  );
 }
 
 export async function down({ context: qi }: { context: QueryInterface }): Promise<void> {

@@ -6,8 +6,16 @@ import { DataTypes, type QueryInterface } from 'sequelize';
  * signatures verify exactly as they did; each signature keeps the attachment set it covered.
  */
 export async function up({ context: qi }: { context: QueryInterface }): Promise<void> {
-  await qi.addColumn('revisions', 'content_format', { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 1 });
-  await qi.addColumn('signatures', 'content_format', { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 1 });
+  await qi.addColumn('revisions', 'content_format', {
+    type: DataTypes.TINYINT.UNSIGNED,
+    allowNull: false,
+    defaultValue: 1,
+  });
+  await qi.addColumn('signatures', 'content_format', {
+    type: DataTypes.TINYINT.UNSIGNED,
+    allowNull: false,
+    defaultValue: 1,
+  });
   await qi.addColumn('signatures', 'attachments', { type: DataTypes.TEXT, allowNull: true });
 }
 

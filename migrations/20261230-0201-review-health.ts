@@ -8,8 +8,16 @@ import { DataTypes, type QueryInterface } from 'sequelize';
 const INDEXES: [string, string, string[]][] = [
   // Covering the signal queries, so a period's checks and approvals are read from the index alone,
   // never from the wide revision rows (input, result and checklist texts).
-  ['revisions', 'revisions_checked_cover', ['checked_at', 'status', 'checker_id', 'author_id', 'calc_id', 'submitted_at']],
-  ['revisions', 'revisions_approved_cover', ['approved_at', 'status', 'rule_set_id', 'calc_id', 'approver_id', 'verdict']],
+  [
+    'revisions',
+    'revisions_checked_cover',
+    ['checked_at', 'status', 'checker_id', 'author_id', 'calc_id', 'submitted_at'],
+  ],
+  [
+    'revisions',
+    'revisions_approved_cover',
+    ['approved_at', 'status', 'rule_set_id', 'calc_id', 'approver_id', 'verdict'],
+  ],
   // Refused signatures by project and period, and across all projects by period.
   ['audit_events', 'audit_events_action_project_time', ['action', 'project_id', 'occurred_at']],
   ['audit_events', 'audit_events_action_time', ['action', 'occurred_at']],
@@ -32,7 +40,12 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
   });
   await qi.sequelize.query('INSERT INTO review_health_settings (id, updated_at) VALUES (1, UTC_TIMESTAMP(3))');
   await qi.createTable('review_sizes', {
-    revision_id: { type: DataTypes.INTEGER.UNSIGNED, primaryKey: true, references: { model: 'revisions', key: 'id' }, onDelete: 'CASCADE' },
+    revision_id: {
+      type: DataTypes.INTEGER.UNSIGNED,
+      primaryKey: true,
+      references: { model: 'revisions', key: 'id' },
+      onDelete: 'CASCADE',
+    },
     // The check the counts belong to: a revision returned after its check and checked again is counted again.
     checked_at: { type: DataTypes.DATE(3), allowNull: false },
     checklist_rows: int(0),

@@ -8,16 +8,33 @@ import { join } from 'node:path';
 
 /** An invented 20-segment shaft: stepped seats with fillets, two bearings, a gear, a pulley, masses and fatigue. */
 function twentySegments(bump = 0): CalcInput {
-  const segments = Array.from({ length: 20 }, (_, i) => ({ length: 40 + (i % 3) * 5, od: 50 + (i % 2) * 6 + (i === 7 ? bump : 0), id: 0 }));
+  const segments = Array.from({ length: 20 }, (_, i) => ({
+    length: 40 + (i % 3) * 5,
+    od: 50 + (i % 2) * 6 + (i === 7 ? bump : 0),
+    id: 0,
+  }));
   const stations = segments.reduce<number[]>((at, s) => [...at, at[at.length - 1] + s.length], [0]);
   const v = validateCalcInput({
-    units: 'SI', material: { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, nu: 0.292, Sy: 530, Su: 630 },
+    units: 'SI',
+    material: { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, nu: 0.292, Sy: 530, Su: 630 },
     segments,
-    torques: [{ at: 100, power: 15, speed: 950 }, { at: 700, power: -15, speed: 950 }],
+    torques: [
+      { at: 100, power: 15, speed: 950 },
+      { at: 700, power: -15, speed: 950 },
+    ],
     features: stations.slice(1, -1).map((at) => ({ type: 'shoulder-fillet', at, r: 1.5 })),
-    supports: [{ at: 30, kind: 'deep-groove-ball', C: 30, locating: true }, { at: 820, kind: 'cylindrical-roller', C: 50 }],
-    loads: [{ at: 100, kind: 'gear', pitchDiameter: 180 }, { at: 700, kind: 'pulley', diameter: 200, direction: 90 }],
-    masses: [{ at: 100, mass: 7.5 }, { at: 700, mass: 4.2 }],
+    supports: [
+      { at: 30, kind: 'deep-groove-ball', C: 30, locating: true },
+      { at: 820, kind: 'cylindrical-roller', C: 50 },
+    ],
+    loads: [
+      { at: 100, kind: 'gear', pitchDiameter: 180 },
+      { at: 700, kind: 'pulley', diameter: 200, direction: 90 },
+    ],
+    masses: [
+      { at: 100, mass: 7.5 },
+      { at: 700, mass: 4.2 },
+    ],
     fatigue: { surface: 'machined', reliability: 99 },
   });
   if (!v.ok) throw new Error(JSON.stringify(v.issues));
@@ -34,11 +51,19 @@ const ruleSet = checked.value;
 function stored(input: CalcInput) {
   const effective = applyRuleSetMethods(input, ruleSet);
   const result = evaluateValidInput(effective);
-  return { input: JSON.stringify(input), result: JSON.stringify(result), checklist: JSON.stringify(evaluateChecklistSync(effective, result, ruleSet)) };
+  return {
+    input: JSON.stringify(input),
+    result: JSON.stringify(result),
+    checklist: JSON.stringify(evaluateChecklistSync(effective, result, ruleSet)),
+  };
 }
 const author = stored(twentySegments());
 const checker = stored(twentySegments(2));
-const parse = (s: typeof author) => ({ input: JSON.parse(s.input), result: JSON.parse(s.result), checklist: JSON.parse(s.checklist) });
+const parse = (s: typeof author) => ({
+  input: JSON.parse(s.input),
+  result: JSON.parse(s.result),
+  checklist: JSON.parse(s.checklist),
+});
 
 const a = parse(author);
 const b = parse(checker);
@@ -55,9 +80,15 @@ function measure(label: string, fn: () => { rows: { agrees: boolean }[] }): void
   }
   times.sort((x, y) => x - y);
   const at = (q: number) => `${times[Math.min(times.length - 1, Math.floor(q * times.length))].toFixed(2)} ms`;
-  console.log(`  ${label} (${rows} rows, ${differences} differences): p50 ${at(0.5)}, p99 ${at(0.99)}, max ${at(1)} (${times.length} runs)`);
+  console.log(
+    `  ${label} (${rows} rows, ${differences} differences): p50 ${at(0.5)}, p99 ${at(0.99)}, max ${at(1)} (${times.length} runs)`,
+  );
 }
-console.log('Independent model comparison · 20-segment shaft (19 fillets, 2 bearings, gear, pulley, masses, fatigue) under KFD-ENG-021 v2');
+console.log(
+  'Independent model comparison · 20-segment shaft (19 fillets, 2 bearings, gear, pulley, masses, fatigue) under KFD-ENG-021 v2',
+);
 measure('compare two models and their results', () => compareModels(a, b, ruleSet.verification!.tolerances));
-measure('the same, parsing both stored models first', () => compareModels(parse(author), parse(checker), ruleSet.verification!.tolerances));
+measure('the same, parsing both stored models first', () =>
+  compareModels(parse(author), parse(checker), ruleSet.verification!.tolerances),
+);
 console.log('  target: < 50 ms on the server');

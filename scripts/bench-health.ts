@@ -22,7 +22,14 @@ async function timed(url: string, cookie: string): Promise<{ ms: number; status:
 
 async function main(): Promise<void> {
   const config = loadConfig();
-  const conn = await mariadb.createConnection({ host: config.DB_HOST, port: config.DB_PORT, user: config.DB_USER, password: config.DB_PASSWORD, database: config.DB_NAME, timezone: 'Z' });
+  const conn = await mariadb.createConnection({
+    host: config.DB_HOST,
+    port: config.DB_PORT,
+    user: config.DB_USER,
+    password: config.DB_PASSWORD,
+    database: config.DB_NAME,
+    timezone: 'Z',
+  });
   try {
     await seedHealthMaterial(conn);
     await replaceStandardForBench(conn);
@@ -31,18 +38,37 @@ async function main(): Promise<void> {
     await conn.end();
   }
   const sequelize = createSequelize(config);
-  const count = async (sql: string) => Number((await sequelize.query<{ n: number }>(sql, { type: QueryTypes.SELECT }))[0].n);
-  const [calcs, signatures, findings] = [await count('SELECT COUNT(*) AS n FROM calcs'), await count('SELECT COUNT(*) AS n FROM signatures'), await count('SELECT COUNT(*) AS n FROM findings')];
-  const [auditor] = await sequelize.query<{ username: string }>("SELECT u.username FROM users u JOIN user_roles r ON r.user_id = u.id AND r.role = 'compliance' WHERE u.username LIKE 'kfd-%' LIMIT 1", { type: QueryTypes.SELECT });
-  const [project] = await sequelize.query<{ id: number }>("SELECT id FROM projects WHERE code LIKE 'KFD-B%' ORDER BY id LIMIT 1", { type: QueryTypes.SELECT });
+  const count = async (sql: string) =>
+    Number((await sequelize.query<{ n: number }>(sql, { type: QueryTypes.SELECT }))[0].n);
+  const [calcs, signatures, findings] = [
+    await count('SELECT COUNT(*) AS n FROM calcs'),
+    await count('SELECT COUNT(*) AS n FROM signatures'),
+    await count('SELECT COUNT(*) AS n FROM findings'),
+  ];
+  const [auditor] = await sequelize.query<{ username: string }>(
+    "SELECT u.username FROM users u JOIN user_roles r ON r.user_id = u.id AND r.role = 'compliance' WHERE u.username LIKE 'kfd-%' LIMIT 1",
+    { type: QueryTypes.SELECT },
+  );
+  const [project] = await sequelize.query<{ id: number }>(
+    "SELECT id FROM projects WHERE code LIKE 'KFD-B%' ORDER BY id LIMIT 1",
+    { type: QueryTypes.SELECT },
+  );
   await sequelize.close();
-  const server = await startServer({ LOG_LEVEL: 'silent', MAIL_SENDER: 'false', LOGIN_RATE_LIMIT: '10000', NODE_ENV: 'production', TLS: 'false' });
+  const server = await startServer({
+    LOG_LEVEL: 'silent',
+    MAIL_SENDER: 'false',
+    LOGIN_RATE_LIMIT: '10000',
+    NODE_ENV: 'production',
+    TLS: 'false',
+  });
   try {
     const session = await signIn(server.url, auditor.username, BENCH_PASSWORD);
     const today = new Date().toISOString().slice(0, 10);
     const tenYears = new Date(Date.now() - 3650 * 86_400_000).toISOString().slice(0, 10);
     const oneYear = new Date(Date.now() - 365 * 86_400_000).toISOString().slice(0, 10);
-    console.log(`Review health · ${calcs.toLocaleString('en-US')} calcs, ${signatures.toLocaleString('en-US')} signatures, ${findings.toLocaleString('en-US')} findings (target: < 500 ms)`);
+    console.log(
+      `Review health · ${calcs.toLocaleString('en-US')} calcs, ${signatures.toLocaleString('en-US')} signatures, ${findings.toLocaleString('en-US')} findings (target: < 500 ms)`,
+    );
     for (const [name, path] of [
       ['all projects, ten years', `/api/review-health?from=${tenYears}&to=${today}`],
       ['all projects, one year', `/api/review-health?from=${oneYear}&to=${today}`],
@@ -53,7 +79,9 @@ async function main(): Promise<void> {
       for (let i = 0; i < REPEATS; i++) times.push((await timed(server.url + path, session.cookie)).ms);
       times.sort((a, b) => a - b);
       const at = (p: number) => times[Math.min(times.length - 1, Math.floor(p * times.length))].toFixed(0);
-      console.log(`  ${name.padEnd(26)} first ${first.ms.toFixed(0)} ms (status ${first.status}); then p50 ${at(0.5)} ms, p95 ${at(0.95)} ms, max ${at(1)} ms over ${REPEATS}`);
+      console.log(
+        `  ${name.padEnd(26)} first ${first.ms.toFixed(0)} ms (status ${first.status}); then p50 ${at(0.5)} ms, p95 ${at(0.95)} ms, max ${at(1)} ms over ${REPEATS}`,
+      );
     }
   } finally {
     server.child.kill();
@@ -61,6 +89,6 @@ async function main(): Promise<void> {
 }
 
 main().catch((err) => {
-  console.error(`review-health bench failed: ${err instanceof Error ? err.stack ?? err.message : String(err)}`);
+  console.error(`review-health bench failed: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}`);
   process.exit(1);
 });

@@ -3,20 +3,37 @@ import { fork, type ChildProcess } from 'node:child_process';
 import { join } from 'node:path';
 import autocannon from 'autocannon';
 
-export interface Figures { p50: number; p95: number; p99: number; rps: number; requests: number; errors: number }
+export interface Figures {
+  p50: number;
+  p95: number;
+  p99: number;
+  rps: number;
+  requests: number;
+  errors: number;
+}
 
-const quantile = (sorted: number[], q: number) => (sorted.length ? sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))] : NaN);
+const quantile = (sorted: number[], q: number) =>
+  sorted.length ? sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))] : NaN;
 
 export function figuresOf(latencies: number[], seconds: number, errors: number): Figures {
   const sorted = [...latencies].sort((a, b) => a - b);
-  return { p50: quantile(sorted, 0.5), p95: quantile(sorted, 0.95), p99: quantile(sorted, 0.99), rps: latencies.length / seconds, requests: latencies.length, errors };
+  return {
+    p50: quantile(sorted, 0.5),
+    p95: quantile(sorted, 0.95),
+    p99: quantile(sorted, 0.99),
+    rps: latencies.length / seconds,
+    requests: latencies.length,
+    errors,
+  };
 }
 
 /** Starts server/main.ts under tsx on a free port and resolves with its base URL once it listens. */
 export function startServer(env: Record<string, string>): Promise<{ url: string; child: ChildProcess }> {
   return new Promise((resolve, reject) => {
     const child = fork(join(__dirname, '..', 'server', 'main.ts'), [], {
-      execArgv: ['--import', 'tsx'], env: { ...process.env, ...env, PORT: '0' }, stdio: ['ignore', 'ignore', 'inherit', 'ipc'],
+      execArgv: ['--import', 'tsx'],
+      env: { ...process.env, ...env, PORT: '0' },
+      stdio: ['ignore', 'ignore', 'inherit', 'ipc'],
     });
     child.once('exit', (code) => reject(new Error(`the server exited with ${code} before listening`)));
     child.on('message', (m: { ready?: boolean; port?: number }) => {
@@ -25,7 +42,10 @@ export function startServer(env: Record<string, string>): Promise<{ url: string;
   });
 }
 
-export interface Session { cookie: string; csrf: string }
+export interface Session {
+  cookie: string;
+  csrf: string;
+}
 
 function cookiesOf(res: Response, previous = ''): string {
   const set = res.headers.getSetCookie().map((c) => c.split(';')[0]);
@@ -36,7 +56,8 @@ export async function signIn(url: string, username: string, password: string): P
   const first = await fetch(`${url}/api/session`);
   const { csrfToken } = (await first.json()) as { csrfToken: string };
   const login = await fetch(`${url}/api/auth/login`, {
-    method: 'POST', headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken, cookie: cookiesOf(first) },
+    method: 'POST',
+    headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken, cookie: cookiesOf(first) },
     body: JSON.stringify({ username, password }),
   });
   if (login.status !== 200) throw new Error(`sign-in of ${username} failed: ${login.status} ${await login.text()}`);
@@ -45,15 +66,27 @@ export async function signIn(url: string, username: string, password: string): P
 }
 
 /** `connections` concurrent connections for `seconds`, each request on the next of `paths`. */
-export async function load(url: string, session: Session, paths: string[], connections: number, seconds: number): Promise<Figures> {
+export async function load(
+  url: string,
+  session: Session,
+  paths: string[],
+  connections: number,
+  seconds: number,
+): Promise<Figures> {
   const latencies: number[] = [];
   let errors = 0;
   let i = 0;
   const result = await new Promise<autocannon.Result>((resolve, reject) => {
-    const instance = autocannon({
-      url, connections, duration: seconds, headers: { cookie: session.cookie },
-      requests: [{ method: 'GET', setupRequest: (req) => ({ ...req, path: paths[i++ % paths.length] }) }],
-    }, (err, res) => (err ? reject(err) : resolve(res)));
+    const instance = autocannon(
+      {
+        url,
+        connections,
+        duration: seconds,
+        headers: { cookie: session.cookie },
+        requests: [{ method: 'GET', setupRequest: (req) => ({ ...req, path: paths[i++ % paths.length] }) }],
+      },
+      (err, res) => (err ? reject(err) : resolve(res)),
+    );
     // Every answer's own time, for a true p95 (autocannon's summary has p90 and p97.5 only).
     instance.on('response', (_client, status, _bytes, time) => {
       if (status >= 200 && status < 300) latencies.push(time);

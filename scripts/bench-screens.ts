@@ -10,7 +10,12 @@ import { DEMO_PASSWORD } from '../server/db/demo-data';
 
 const RUNS = Number(process.env.BENCH_SCREEN_RUNS ?? 3);
 
-interface Screen { name: string; user: string; url: string; ready: (page: Page) => Promise<unknown> }
+interface Screen {
+  name: string;
+  user: string;
+  url: string;
+  ready: (page: Page) => Promise<unknown>;
+}
 
 async function screens(): Promise<Screen[]> {
   const sequelize = createSequelize(loadConfig());
@@ -20,19 +25,68 @@ async function screens(): Promise<Screen[]> {
   if (!calc || !project) throw new Error('the demo data is not loaded (npm run seed)');
   const latest = await calcLatest(calc.id);
   return [
-    { name: 'overview', user: 'checker', url: '/', ready: (p) => p.getByRole('heading', { name: /Good to see you/ }).waitFor() },
-    { name: 'projects', user: 'author', url: '/projects', ready: (p) => p.getByRole('link', { name: /KFD-CV1200/ }).first().waitFor() },
-    { name: 'project calcs', user: 'author', url: `/projects/${project.id}`, ready: (p) => p.getByText('CV1200-SH-001').first().waitFor() },
-    { name: 'calc page', user: 'checker', url: `/calcs/${calc.id}`, ready: (p) => p.locator('tt-checklist-table tr[mat-row]').first().waitFor() },
-    { name: 'editor', user: 'author', url: `/revisions/${latest}/edit`, ready: (p) => p.getByText(/Meets|Does not meet/).first().waitFor() },
-    { name: 'audit trail', user: 'compliance', url: '/audit', ready: (p) => p.locator('table tbody tr').first().waitFor() },
-    { name: 'standards', user: 'compliance', url: '/rule-sets', ready: (p) => p.getByText(/KFD-ENG-014/).first().waitFor() },
+    {
+      name: 'overview',
+      user: 'checker',
+      url: '/',
+      ready: (p) => p.getByRole('heading', { name: /Good to see you/ }).waitFor(),
+    },
+    {
+      name: 'projects',
+      user: 'author',
+      url: '/projects',
+      ready: (p) =>
+        p
+          .getByRole('link', { name: /KFD-CV1200/ })
+          .first()
+          .waitFor(),
+    },
+    {
+      name: 'project calcs',
+      user: 'author',
+      url: `/projects/${project.id}`,
+      ready: (p) => p.getByText('CV1200-SH-001').first().waitFor(),
+    },
+    {
+      name: 'calc page',
+      user: 'checker',
+      url: `/calcs/${calc.id}`,
+      ready: (p) => p.locator('tt-checklist-table tr[mat-row]').first().waitFor(),
+    },
+    {
+      name: 'editor',
+      user: 'author',
+      url: `/revisions/${latest}/edit`,
+      ready: (p) =>
+        p
+          .getByText(/Meets|Does not meet/)
+          .first()
+          .waitFor(),
+    },
+    {
+      name: 'audit trail',
+      user: 'compliance',
+      url: '/audit',
+      ready: (p) => p.locator('table tbody tr').first().waitFor(),
+    },
+    {
+      name: 'standards',
+      user: 'compliance',
+      url: '/rule-sets',
+      ready: (p) =>
+        p
+          .getByText(/KFD-ENG-014/)
+          .first()
+          .waitFor(),
+    },
   ];
 }
 
 async function calcLatest(calcId: number): Promise<number> {
   const sequelize = createSequelize(loadConfig());
-  const [rows] = await sequelize.query('SELECT MAX(id) AS id FROM revisions WHERE calc_id = ?', { replacements: [calcId] });
+  const [rows] = await sequelize.query('SELECT MAX(id) AS id FROM revisions WHERE calc_id = ?', {
+    replacements: [calcId],
+  });
   await sequelize.close();
   return Number((rows as { id: number }[])[0].id);
 }
@@ -76,7 +130,9 @@ async function main(): Promise<void> {
     args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update'],
   });
   try {
-    console.log(`Screens, navigation to usable in headless Chromium (median of ${RUNS}; after sign-in, scripts cached as a returning user has them):`);
+    console.log(
+      `Screens, navigation to usable in headless Chromium (median of ${RUNS}; after sign-in, scripts cached as a returning user has them):`,
+    );
     for (const s of list) {
       const context = await browser.newContext({ baseURL: url, viewport: { width: 1440, height: 900 } });
       const page = await context.newPage();
@@ -86,8 +142,10 @@ async function main(): Promise<void> {
       for (let i = 1; i < RUNS; i++) runs.push(await visit(page, s));
       const sorted = runs.map((r) => r.ms).sort((a, b) => a - b);
       const median = sorted[Math.floor(sorted.length / 2)];
-      console.log(`  ${s.name.padEnd(14)} ${String(median).padStart(5)} ms (first ${first.ms} ms)  ${first.calls} API calls, slowest ${first.slowest.url} `
-        + `${first.slowest.serverMs.toFixed(0)} ms on the server, ${first.scriptKb.toFixed(0)} kB script on first visit`);
+      console.log(
+        `  ${s.name.padEnd(14)} ${String(median).padStart(5)} ms (first ${first.ms} ms)  ${first.calls} API calls, slowest ${first.slowest.url} ` +
+          `${first.slowest.serverMs.toFixed(0)} ms on the server, ${first.scriptKb.toFixed(0)} kB script on first visit`,
+      );
       await context.close();
     }
   } finally {

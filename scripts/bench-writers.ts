@@ -36,13 +36,22 @@ async function main(): Promise<void> {
   let n = 0;
   const end = performance.now() + SECONDS * 1000;
   const writer = async (i: number) => {
-    const team = { author: new ApiClient(base, tally), checker: new ApiClient(base, tally), approver: new ApiClient(base, tally), password: data.password };
+    const team = {
+      author: new ApiClient(base, tally),
+      checker: new ApiClient(base, tally),
+      approver: new ApiClient(base, tally),
+      password: data.password,
+    };
     await team.author.signIn(data.teams[i].author, data.password);
     await team.checker.signIn(data.teams[i].checker, data.password);
     await team.approver.signIn(data.teams[i].approver, data.password);
     while (performance.now() < end) {
       try {
-        await signOff(team, { projectId: data.projectId, ruleSetId: data.ruleSetId, input: data.input, number: `B-${stamp}-${++n}` }, ledger);
+        await signOff(
+          team,
+          { projectId: data.projectId, ruleSetId: data.ruleSetId, input: data.input, number: `B-${stamp}-${++n}` },
+          ledger,
+        );
         signOffs++;
       } catch (err) {
         failures.push((err as Error).message);
@@ -57,11 +66,22 @@ async function main(): Promise<void> {
   await sequelize.close();
 
   const requests = Object.values(tally.byStatus).reduce((a, b) => a + b, 0);
-  const causes = Object.entries(retryStats.byCause).map(([k, v]) => `${k}: ${v - (before.byCause[k] ?? 0)}`).join(', ') || 'none';
-  console.log(`Concurrent writers: ${WRITERS} writers for ${seconds.toFixed(1)} s (save, upload, sign, tick in complete sign-offs, one project)`);
-  console.log(`  requests ${requests}, by status ${JSON.stringify(tally.byStatus)}; responses of 500: ${tally.byStatus['500'] ?? 0} (target 0)`);
-  console.log(`  complete sign-offs ${signOffs} (${(signOffs / seconds).toFixed(2)}/s); saves ${ledger.saves.length}, uploads ${ledger.attachments.length}, ticks ${ledger.ticks.length}, signatures ${ledger.signatures.length}`);
-  console.log(`  write transactions ${retryStats.transactions - before.transactions}, run again ${retryStats.retries - before.retries} (by cause: ${causes}), abandoned with 503 ${retryStats.gaveUp - before.gaveUp}; slowest answer ${tally.slowestMs} ms`);
+  const causes =
+    Object.entries(retryStats.byCause)
+      .map(([k, v]) => `${k}: ${v - (before.byCause[k] ?? 0)}`)
+      .join(', ') || 'none';
+  console.log(
+    `Concurrent writers: ${WRITERS} writers for ${seconds.toFixed(1)} s (save, upload, sign, tick in complete sign-offs, one project)`,
+  );
+  console.log(
+    `  requests ${requests}, by status ${JSON.stringify(tally.byStatus)}; responses of 500: ${tally.byStatus['500'] ?? 0} (target 0)`,
+  );
+  console.log(
+    `  complete sign-offs ${signOffs} (${(signOffs / seconds).toFixed(2)}/s); saves ${ledger.saves.length}, uploads ${ledger.attachments.length}, ticks ${ledger.ticks.length}, signatures ${ledger.signatures.length}`,
+  );
+  console.log(
+    `  write transactions ${retryStats.transactions - before.transactions}, run again ${retryStats.retries - before.retries} (by cause: ${causes}), abandoned with 503 ${retryStats.gaveUp - before.gaveUp}; slowest answer ${tally.slowestMs} ms`,
+  );
   for (const f of [...new Set(failures)].slice(0, 5)) console.log(`  sign-off failed: ${f}`);
 }
 

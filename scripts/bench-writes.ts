@@ -7,40 +7,51 @@ import { figuresOf, line, signIn } from './bench-http';
 
 const WRITERS = 20;
 
-interface Draft { username: string; revisionId: number; lockVersion: number; input: string }
+interface Draft {
+  username: string;
+  revisionId: number;
+  lockVersion: number;
+  input: string;
+}
 
 /** Twenty authors each save their own draft as fast as the server answers, for `seconds`. */
 export async function saves(url: string, sequelize: Sequelize, seconds: number): Promise<void> {
   const drafts = await sequelize.query<Draft>(
     `SELECT u.username, r.id AS revisionId, r.lock_version AS lockVersion, r.input FROM users u
      JOIN calcs c ON c.id = (SELECT c2.id FROM calcs c2 WHERE c2.latest_author_id = u.id AND c2.latest_status = 'draft' ORDER BY c2.id LIMIT 1)
-     JOIN revisions r ON r.id = c.latest_revision_id WHERE u.username LIKE 'kfd-%' ORDER BY u.id LIMIT ${WRITERS}`, { type: QueryTypes.SELECT },
+     JOIN revisions r ON r.id = c.latest_revision_id WHERE u.username LIKE 'kfd-%' ORDER BY u.id LIMIT ${WRITERS}`,
+    { type: QueryTypes.SELECT },
   );
   const sessions = await Promise.all(drafts.map((d) => signIn(url, d.username, BENCH_PASSWORD)));
   const latencies: number[] = [];
   let failures = 0;
   const until = performance.now() + seconds * 1000;
-  await Promise.all(drafts.map(async (draft, w) => {
-    const input = JSON.parse(draft.input);
-    let lockVersion = draft.lockVersion;
-    for (let n = 0; performance.now() < until; n++) {
-      // Each save changes the body diameter a little, so the engine and the diff have real work.
-      input.segments[3].od = 60 + (n % 5);
-      const t0 = performance.now();
-      const res = await fetch(`${url}/api/revisions/${draft.revisionId}`, {
-        method: 'PUT', headers: { 'content-type': 'application/json', cookie: sessions[w].cookie, 'x-csrf-token': sessions[w].csrf },
-        body: JSON.stringify({ input, lockVersion }),
-      });
-      const body = (await res.json()) as { lockVersion?: number };
-      if (res.status === 200 && body.lockVersion != null) {
-        latencies.push(performance.now() - t0);
-        lockVersion = body.lockVersion;
-      } else {
-        failures++;
+  await Promise.all(
+    drafts.map(async (draft, w) => {
+      const input = JSON.parse(draft.input);
+      let lockVersion = draft.lockVersion;
+      for (let n = 0; performance.now() < until; n++) {
+        // Each save changes the body diameter a little, so the engine and the diff have real work.
+        input.segments[3].od = 60 + (n % 5);
+        const t0 = performance.now();
+        const res = await fetch(`${url}/api/revisions/${draft.revisionId}`, {
+          method: 'PUT',
+          headers: { 'content-type': 'application/json', cookie: sessions[w].cookie, 'x-csrf-token': sessions[w].csrf },
+          body: JSON.stringify({ input, lockVersion }),
+        });
+        const body = (await res.json()) as { lockVersion?: number };
+        if (res.status === 200 && body.lockVersion != null) {
+          latencies.push(performance.now() - t0);
+          lockVersion = body.lockVersion;
+        } else {
+          failures++;
+        }
       }
-    }
-  }));
-  console.log(`Saves · ${drafts.length} writers on their own drafts · ${seconds} s (engine, checklist, diff, hash, audit entry, answer)`);
+    }),
+  );
+  console.log(
+    `Saves · ${drafts.length} writers on their own drafts · ${seconds} s (engine, checklist, diff, hash, audit entry, answer)`,
+  );
   console.log(line('PUT /api/revisions/:id', figuresOf(latencies, seconds, failures)));
   console.log('  target: ≥ 150 saves/s with p95 ≤ 150 ms');
 }
@@ -55,13 +66,24 @@ export async function chainCeiling(sequelize: Sequelize, seconds: number): Promi
   for (const workers of [1, WRITERS]) {
     const latencies: number[] = [];
     const until = performance.now() + (seconds / 2) * 1000;
-    await Promise.all(Array.from({ length: workers }, async (_, w) => {
-      while (performance.now() < until) {
-        const t0 = performance.now();
-        await appendAudit(sequelize, { id: null, name: 'benchmark', ip: null }, { action: 'bench.append', entityType: 'Bench', entityId: w, payload: { w } });
-        latencies.push(performance.now() - t0);
-      }
-    }));
-    console.log(line(`${workers} appender${workers > 1 ? 's' : ''}`, figuresOf(latencies, seconds / 2, 0)).replace('req/s', 'appends/s'));
+    await Promise.all(
+      Array.from({ length: workers }, async (_, w) => {
+        while (performance.now() < until) {
+          const t0 = performance.now();
+          await appendAudit(
+            sequelize,
+            { id: null, name: 'benchmark', ip: null },
+            { action: 'bench.append', entityType: 'Bench', entityId: w, payload: { w } },
+          );
+          latencies.push(performance.now() - t0);
+        }
+      }),
+    );
+    console.log(
+      line(`${workers} appender${workers > 1 ? 's' : ''}`, figuresOf(latencies, seconds / 2, 0)).replace(
+        'req/s',
+        'appends/s',
+      ),
+    );
   }
 }

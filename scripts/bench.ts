@@ -24,7 +24,9 @@ function rate(name: string, fn: () => unknown): void {
     now = performance.now();
   }
   const perSecond = (count * 1000) / (now - start);
-  console.log(`  ${name.padEnd(44)} ${Math.round(perSecond).toLocaleString('en-US').padStart(10)} calcs/s  ${(1e6 / perSecond).toFixed(1).padStart(7)} µs/calc`);
+  console.log(
+    `  ${name.padEnd(44)} ${Math.round(perSecond).toLocaleString('en-US').padStart(10)} calcs/s  ${(1e6 / perSecond).toFixed(1).padStart(7)} µs/calc`,
+  );
 }
 
 function latency(fn: () => unknown, samples = 20000): void {
@@ -60,8 +62,15 @@ function bundled(): Engine | null {
   } catch {
     return null;
   }
-  const out = esbuild.buildSync({ entryPoints: [join(__dirname, '..', 'shared', 'engine', 'index.ts')], bundle: true,
-    format: 'cjs', platform: 'neutral', mainFields: ['main', 'module'], write: false, logLevel: 'silent' });
+  const out = esbuild.buildSync({
+    entryPoints: [join(__dirname, '..', 'shared', 'engine', 'index.ts')],
+    bundle: true,
+    format: 'cjs',
+    platform: 'neutral',
+    mainFields: ['main', 'module'],
+    write: false,
+    logLevel: 'silent',
+  });
   const dir = mkdtempSync(join(tmpdir(), 'torquetrail-bench-'));
   writeFileSync(join(dir, 'engine.js'), out.outputFiles[0].text);
   // eslint-disable-next-line @typescript-eslint/no-require-imports -- a bundle written at run time
@@ -78,7 +87,9 @@ console.log('input: test/fixtures/calcs/five-segment-fatigue.json (5 segments, 3
 run('engine as loaded by tsx (one module per file):', source, raw);
 if (engine) run('engine as one esbuild bundle (as the browser loads it):', engine, raw);
 console.log('target: ≥ 50,000 calcs/s on one core; a browser recompute under 2 ms (2,000 µs)');
-console.log('\ninput: test/fixtures/calcs/two-bearing-gear-pulley.json (whole shaft: 2 bearings, helical gear, pulley,');
+console.log(
+  '\ninput: test/fixtures/calcs/two-bearing-gear-pulley.json (whole shaft: 2 bearings, helical gear, pulley,',
+);
 console.log('       2 masses, 5 segments, 5 features, fatigue; reactions, deflection, bearing life, critical speed)');
 run('engine as loaded by tsx (one module per file):', source, shaft);
 if (engine) run('engine as one esbuild bundle (as the browser loads it):', engine, shaft);

@@ -2,7 +2,13 @@
 // version) from the database when the server's database is reachable.
 import { existsSync, readFileSync } from 'node:fs';
 import { parseStrictJson } from '../shared/json/strict-json';
-import { applyRuleSetMethods, evaluateChecklistSync, validateRuleSet, type Checklist, type RuleSet } from '../shared/rules';
+import {
+  applyRuleSetMethods,
+  evaluateChecklistSync,
+  validateRuleSet,
+  type Checklist,
+  type RuleSet,
+} from '../shared/rules';
 import type { CalcInput, CalcResult } from '../shared/engine';
 import { formatNumber } from '../shared/engine';
 
@@ -19,11 +25,16 @@ async function fromDatabase(spec: string): Promise<RuleSet> {
     await sequelize.authenticate();
     const where = version ? { code, version: Number(version) } : { code, status: 'effective' as const };
     const record = await RuleSetRecord.findOne({ where, order: [['version', 'DESC']] });
-    if (!record) throw new RulesError(`--rules: no ${version ? `${code} version ${version}` : `effective version of ${code}`} in the database`);
+    if (!record)
+      throw new RulesError(
+        `--rules: no ${version ? `${code} version ${version}` : `effective version of ${code}`} in the database`,
+      );
     return JSON.parse(record.document) as RuleSet;
   } catch (e) {
     if (e instanceof RulesError) throw e;
-    throw new RulesError(`--rules: "${spec}" is not a file, and the database could not be read (${(e as Error).message.split('\n')[0]})`);
+    throw new RulesError(
+      `--rules: "${spec}" is not a file, and the database could not be read (${(e as Error).message.split('\n')[0]})`,
+    );
   } finally {
     await sequelize.close();
   }
@@ -35,7 +46,8 @@ export async function loadRules(spec: string): Promise<RuleSet> {
   const parsed = parseStrictJson(readFileSync(spec, 'utf8'));
   if (!parsed.ok) throw new RulesError(`--rules ${spec}: ${parsed.issue.path}: ${parsed.issue.message}`);
   const checked = validateRuleSet(parsed.value);
-  if (!checked.ok) throw new RulesError(checked.issues.map((i) => `--rules ${spec}: ${i.path}: ${i.message}`).join('\n'));
+  if (!checked.ok)
+    throw new RulesError(checked.issues.map((i) => `--rules ${spec}: ${i.path}: ${i.message}`).join('\n'));
   return checked.value;
 }
 
@@ -52,10 +64,21 @@ const withUnit = (v: number, unit: string) => (unit && unit !== '1' ? `${formatN
 
 export function formatChecklist(c: Checklist): string {
   const rows = c.rows.filter((r) => r.status !== 'not-applicable');
-  const lines = rows.map((r) => [
-    r.reference.padEnd(22), r.status.toUpperCase().padEnd(6), r.severity.padEnd(10), r.location.label.padEnd(44).slice(0, 44),
-    r.actual === null ? ''.padEnd(16) : withUnit(r.actual, r.unit).padEnd(16), r.limit === null ? '' : withUnit(r.limit, r.unit),
-  ].join(' '));
-  return [`Checklist against ${c.ruleSet.code} v${c.ruleSet.version}: ${c.verdict.toUpperCase()}`, ...c.verdictReasons.map((v) => `  ${v}`), ...lines,
-    `${c.rows.length - rows.length} rows not applicable are not shown; manual items for the checker: ${c.manual.length}`, c.caution].join('\n');
+  const lines = rows.map((r) =>
+    [
+      r.reference.padEnd(22),
+      r.status.toUpperCase().padEnd(6),
+      r.severity.padEnd(10),
+      r.location.label.padEnd(44).slice(0, 44),
+      r.actual === null ? ''.padEnd(16) : withUnit(r.actual, r.unit).padEnd(16),
+      r.limit === null ? '' : withUnit(r.limit, r.unit),
+    ].join(' '),
+  );
+  return [
+    `Checklist against ${c.ruleSet.code} v${c.ruleSet.version}: ${c.verdict.toUpperCase()}`,
+    ...c.verdictReasons.map((v) => `  ${v}`),
+    ...lines,
+    `${c.rows.length - rows.length} rows not applicable are not shown; manual items for the checker: ${c.manual.length}`,
+    c.caution,
+  ].join('\n');
 }

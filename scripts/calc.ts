@@ -3,15 +3,25 @@
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import {
-  CalcInputError, evaluateValidInput, formatResultTable, validateCalcInput, type CalcIssue, type CalcResult,
+  CalcInputError,
+  evaluateValidInput,
+  formatResultTable,
+  validateCalcInput,
+  type CalcIssue,
+  type CalcResult,
 } from '../shared/engine';
 import { parseStrictJson } from '../shared/json/strict-json';
 import type { Checklist, RuleSet } from '../shared/rules';
 import { RulesError, checklistFor, formatChecklist, loadRules, withMethods } from './calc-rules';
 
-const USAGE = 'usage: npm run --silent calc -- FILE.json|-|FOLDER [--format json|table] [--rules RULES.json|CODE|CODE@VERSION]';
+const USAGE =
+  'usage: npm run --silent calc -- FILE.json|-|FOLDER [--format json|table] [--rules RULES.json|CODE|CODE@VERSION]';
 
-interface Outcome { file: string; result?: CalcResult & { checklist?: Checklist; verdict?: string }; issues?: CalcIssue[] }
+interface Outcome {
+  file: string;
+  result?: CalcResult & { checklist?: Checklist; verdict?: string };
+  issues?: CalcIssue[];
+}
 
 class UsageError extends Error {}
 
@@ -63,19 +73,27 @@ function readTargets(target: string): { file: string; text: string }[] {
     throw new UsageError(`cannot read ${target}: no such file or folder`);
   }
   if (!isDir) return [{ file: target, text: readFileSync(target, 'utf8') }];
-  const names = readdirSync(target).filter((n) => n.endsWith('.json')).sort();
+  const names = readdirSync(target)
+    .filter((n) => n.endsWith('.json'))
+    .sort();
   if (!names.length) throw new UsageError(`no .json files in folder ${target}`);
   return names.map((n) => ({ file: join(target, n), text: readFileSync(join(target, n), 'utf8') }));
 }
 
 function render(outcomes: Outcome[], format: 'json' | 'table', isBatch: boolean): string {
   if (format === 'json') {
-    const body = isBatch ? outcomes.map((o) => ({ file: basename(o.file), ...(o.result ? { result: o.result } : { issues: o.issues }) }))
+    const body = isBatch
+      ? outcomes.map((o) => ({ file: basename(o.file), ...(o.result ? { result: o.result } : { issues: o.issues }) }))
       : outcomes[0].result;
     return `${JSON.stringify(body, null, 2)}\n`;
   }
-  return outcomes.filter((o) => o.result)
-    .map((o) => `${isBatch ? `== ${basename(o.file)} ==\n` : ''}${formatResultTable(o.result!)}${o.result!.checklist ? `\n${formatChecklist(o.result!.checklist)}\n` : ''}`).join('\n');
+  return outcomes
+    .filter((o) => o.result)
+    .map(
+      (o) =>
+        `${isBatch ? `== ${basename(o.file)} ==\n` : ''}${formatResultTable(o.result!)}${o.result!.checklist ? `\n${formatChecklist(o.result!.checklist)}\n` : ''}`,
+    )
+    .join('\n');
 }
 
 async function main(argv: string[]): Promise<number> {
@@ -85,15 +103,21 @@ async function main(argv: string[]): Promise<number> {
   const outcomes = readTargets(target).map((t) => evaluateText(t.file, t.text, ruleSet));
   const invalid = outcomes.filter((o) => o.issues);
   for (const o of invalid) {
-    for (const i of o.issues!) process.stderr.write(`${isBatch ? `${basename(o.file)}: ` : ''}${i.path}: ${i.message}\n`);
+    for (const i of o.issues!)
+      process.stderr.write(`${isBatch ? `${basename(o.file)}: ` : ''}${i.path}: ${i.message}\n`);
   }
   if (isBatch || !invalid.length) process.stdout.write(render(outcomes, format, isBatch));
   return invalid.length ? 2 : 0;
 }
 
-main(process.argv.slice(2)).then((code) => { process.exitCode = code; }, (e: unknown) => {
-  // Never a stack trace: usage, file and rule-set problems are one line each; anything else briefly.
-  const known = e instanceof UsageError || e instanceof RulesError;
-  process.stderr.write(`${known ? '' : 'calc: '}${(e as Error).message}\n`);
-  process.exitCode = e instanceof RulesError ? 2 : 1;
-});
+main(process.argv.slice(2)).then(
+  (code) => {
+    process.exitCode = code;
+  },
+  (e: unknown) => {
+    // Never a stack trace: usage, file and rule-set problems are one line each; anything else briefly.
+    const known = e instanceof UsageError || e instanceof RulesError;
+    process.stderr.write(`${known ? '' : 'calc: '}${(e as Error).message}\n`);
+    process.exitCode = e instanceof RulesError ? 2 : 1;
+  },
+);

@@ -16,13 +16,23 @@ async function main(): Promise<void> {
   const closers: (() => Promise<void>)[] = [];
   const smtpHost = process.env.SMTP_HOST ?? '127.0.0.1';
   if (LOOPBACK.has(smtpHost)) {
-    const smtp = await startFakeSmtp({ port: Number(process.env.SMTP_PORT ?? 2525), host: '127.0.0.1', inboxFile: path.join(dataDir, 'mail', 'inbox.jsonl') });
+    const smtp = await startFakeSmtp({
+      port: Number(process.env.SMTP_PORT ?? 2525),
+      host: '127.0.0.1',
+      inboxFile: path.join(dataDir, 'mail', 'inbox.jsonl'),
+    });
     closers.push(smtp.close);
-    console.log(`fake SMTP on 127.0.0.1:${smtp.port}; received mail is appended to ${path.join(dataDir, 'mail', 'inbox.jsonl')}`);
+    console.log(
+      `fake SMTP on 127.0.0.1:${smtp.port}; received mail is appended to ${path.join(dataDir, 'mail', 'inbox.jsonl')}`,
+    );
   }
   const endpoint = new URL(process.env.S3_ENDPOINT ?? 'http://127.0.0.1:4569');
   if (LOOPBACK.has(endpoint.hostname)) {
-    const s3 = await startFakeS3({ port: Number(endpoint.port || 80), directory: path.join(dataDir, 's3'), bucket: process.env.S3_BUCKET ?? 'torquetrail-attachments' });
+    const s3 = await startFakeS3({
+      port: Number(endpoint.port || 80),
+      directory: path.join(dataDir, 's3'),
+      bucket: process.env.S3_BUCKET ?? 'torquetrail-attachments',
+    });
     closers.push(s3.close);
     console.log(`fake S3 (s3rver) at ${s3.endpoint}, files in ${path.join(dataDir, 's3')}`);
   }

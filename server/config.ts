@@ -61,7 +61,12 @@ const envSchema = z.object({
   // heap limit, and how many may wait before a 503. Unpacked pack bytes live outside the heap and
   // are bounded per job by twice EVIDENCE_PACK_MAX_MB, so at most WORK_THREADS times that at once.
   // By default one core is left to the event loop.
-  WORK_THREADS: z.coerce.number().int().min(1).max(16).default(Math.min(4, Math.max(1, availableParallelism() - 1))),
+  WORK_THREADS: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(16)
+    .default(Math.min(4, Math.max(1, availableParallelism() - 1))),
   WORK_MEMORY_MB: z.coerce.number().int().min(64).max(4096).default(512),
   WORK_QUEUE: z.coerce.number().int().min(0).max(1000).default(32),
 });
@@ -75,7 +80,10 @@ function trustProxySetting(value: string, ctx: z.RefinementCtx): false | number 
   const v = value.trim().toLowerCase();
   if (v === '' || v === 'false' || v === '0') return false;
   if (v === 'true') {
-    ctx.addIssue({ code: 'custom', message: 'must name the proxy addresses or a hop count, not "true" (that trusts every sender)' });
+    ctx.addIssue({
+      code: 'custom',
+      message: 'must name the proxy addresses or a hop count, not "true" (that trusts every sender)',
+    });
     return z.NEVER;
   }
   if (/^\d+$/.test(v)) return Number(v);

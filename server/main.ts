@@ -22,15 +22,22 @@ async function main(): Promise<void> {
     const port = typeof address === 'object' && address ? address.port : config.PORT;
     logger.info({ port }, 'Torquetrail is listening');
     if (config.NODE_ENV !== 'test') {
-      process.stdout.write(`\nTorquetrail is running at http://${config.HOST}:${port}/  (Ctrl-C stops it)\n` +
-        `${CAUTION}\n\n`);
+      process.stdout.write(
+        `\nTorquetrail is running at http://${config.HOST}:${port}/  (Ctrl-C stops it)\n` + `${CAUTION}\n\n`,
+      );
     }
     if (process.send) process.send({ ready: true, port });
   });
 
   const shutdown = (signal: string) => {
     logger.info({ signal }, 'shutting down');
-    server.close(() => void mailSender.stop().then(() => sequelize.close()).finally(() => process.exit(0)));
+    server.close(
+      () =>
+        void mailSender
+          .stop()
+          .then(() => sequelize.close())
+          .finally(() => process.exit(0)),
+    );
     setTimeout(() => process.exit(0), 5000).unref();
   };
   process.on('SIGTERM', () => shutdown('SIGTERM'));

@@ -32,7 +32,12 @@ export interface ApiMount {
   public?: true;
 }
 
-interface MountDeps { sequelize: Sequelize; config: Config; passport: AppPassport; services: Services }
+interface MountDeps {
+  sequelize: Sequelize;
+  config: Config;
+  passport: AppPassport;
+  services: Services;
+}
 
 /** Every API route of the app, by area: a new router is added here and nowhere else. */
 export function apiMounts({ sequelize, config, passport, services: s }: MountDeps): ApiMount[] {
@@ -51,7 +56,9 @@ export function apiMounts({ sequelize, config, passport, services: s }: MountDep
     {
       path: '/api/revisions',
       routers: [
-        revisionsRouter(s), revisionAttachmentsRouter(s.attachments), reportRouter(s.reports, org, s.baseUrl),
+        revisionsRouter(s),
+        revisionAttachmentsRouter(s.attachments),
+        reportRouter(s.reports, org, s.baseUrl),
         independentModelRouter(s.independent),
       ],
     },

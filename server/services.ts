@@ -28,7 +28,11 @@ export function createServices(sequelize: Sequelize, config: Config) {
   const work = new WorkPool({ threads, memoryMb, queue });
   const reports = new ReportService(config.REPORT_FONT_DIR, work);
   return {
-    baseUrl, calcs, workflow, impact, reports,
+    baseUrl,
+    calcs,
+    workflow,
+    impact,
+    reports,
     lifecycle: new LifecycleService(sequelize, calcs),
     review: new ReviewService(sequelize, workflow),
     ruleSets: new RuleSetsService(sequelize, (actor, id) => impact.notifyIfAffected(actor, id)),

@@ -6,7 +6,12 @@ import { waitFor, type Processes } from './processes';
 /** The app instances behind HAProxy: the same server `npm start` runs, each on its own port. */
 export class AppInstances {
   private readonly children: (ChildProcess | undefined)[] = [];
-  constructor(private readonly procs: Processes, private readonly env: NodeJS.ProcessEnv, readonly ports: number[], private readonly dir: string) {}
+  constructor(
+    private readonly procs: Processes,
+    private readonly env: NodeJS.ProcessEnv,
+    readonly ports: number[],
+    private readonly dir: string,
+  ) {}
 
   private log(i: number): string {
     return path.join(this.dir, `app${i + 1}.log`);
@@ -14,7 +19,8 @@ export class AppInstances {
 
   async start(i: number): Promise<void> {
     const child = this.procs.start(`app${i + 1}`, process.execPath, ['--import', 'tsx', 'server/main.ts'], {
-      env: { ...this.env, PORT: String(this.ports[i]), LOG_LEVEL: 'info' }, log: this.log(i),
+      env: { ...this.env, PORT: String(this.ports[i]), LOG_LEVEL: 'info' },
+      log: this.log(i),
     });
     this.children[i] = child;
     await waitFor(`app instance ${i + 1} to be healthy`, async () => {

@@ -12,7 +12,11 @@ export interface Tally {
 
 export const newTally = (): Tally => ({ byStatus: {}, hangs: 0, unclean503: 0, slowestMs: 0, noAnswer: [] });
 
-export interface Reply { status: number; body: any; retryAfter: number }
+export interface Reply {
+  status: number;
+  body: any;
+  retryAfter: number;
+}
 
 const HANG_MS = 10_000;
 
@@ -23,7 +27,10 @@ const HANG_MS = 10_000;
 export class ApiClient {
   private cookie = '';
   private csrf = '';
-  constructor(private readonly base: string, private readonly tally: Tally) {}
+  constructor(
+    private readonly base: string,
+    private readonly tally: Tally,
+  ) {}
 
   async call(method: string, url: string, body?: object | FormData): Promise<Reply> {
     const headers: Record<string, string> = { accept: 'application/json' };
@@ -34,13 +41,19 @@ export class ApiClient {
     let reply: Reply;
     try {
       const res = await fetch(this.base + url, {
-        method, headers, body: body instanceof FormData ? body : body ? JSON.stringify(body) : undefined,
+        method,
+        headers,
+        body: body instanceof FormData ? body : body ? JSON.stringify(body) : undefined,
         signal: AbortSignal.timeout(HANG_MS + 5_000),
       });
       const cookie = res.headers.getSetCookie().find((c) => c.startsWith('tt.sid='));
       if (cookie) this.cookie = cookie.split(';')[0];
       const text = await res.text();
-      reply = { status: res.status, body: text.startsWith('{') || text.startsWith('[') ? JSON.parse(text) : text, retryAfter: Number(res.headers.get('retry-after') ?? 0) };
+      reply = {
+        status: res.status,
+        body: text.startsWith('{') || text.startsWith('[') ? JSON.parse(text) : text,
+        retryAfter: Number(res.headers.get('retry-after') ?? 0),
+      };
       if (res.status === 503 && !res.headers.get('retry-after')) this.tally.unclean503++;
     } catch (err) {
       if ((err as Error).name === 'TimeoutError') this.tally.hangs++;

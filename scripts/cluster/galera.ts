@@ -5,25 +5,42 @@ import mariadb from 'mariadb';
 import { freePort, waitFor, type Processes } from './processes';
 
 export interface GaleraNode {
-  name: string; dir: string; socket: string;
-  port: number; gcommPort: number; istPort: number; sstPort: number;
+  name: string;
+  dir: string;
+  socket: string;
+  port: number;
+  gcommPort: number;
+  istPort: number;
+  sstPort: number;
   child?: ChildProcess;
 }
 
 // Peers suspect a silent member after 3 s and drop it after 6 s (defaults 5 s and 15 s): a killed
 // node holds up replication for that long, so shorter bounds shorten the stall a failover causes.
-const EVS = 'evs.keepalive_period=PT1S;evs.inactive_check_period=PT1S;evs.suspect_timeout=PT3S;evs.inactive_timeout=PT6S';
+const EVS =
+  'evs.keepalive_period=PT1S;evs.inactive_check_period=PT1S;evs.suspect_timeout=PT3S;evs.inactive_timeout=PT6S';
 
 /** A three-node MariaDB Galera cluster on loopback, each node with its own folder under `root`. */
 export class GaleraCluster {
-  private constructor(private readonly procs: Processes, readonly nodes: GaleraNode[]) {}
+  private constructor(
+    private readonly procs: Processes,
+    readonly nodes: GaleraNode[],
+  ) {}
 
   static async create(procs: Processes, root: string, count = 3): Promise<GaleraCluster> {
     const nodes: GaleraNode[] = [];
     for (let i = 1; i <= count; i++) {
       const dir = path.resolve(root, `db${i}`);
       fs.mkdirSync(dir, { recursive: true });
-      nodes.push({ name: `db${i}`, dir, socket: path.join(dir, 'mysqld.sock'), port: await freePort(), gcommPort: await freePort(), istPort: await freePort(), sstPort: await freePort() });
+      nodes.push({
+        name: `db${i}`,
+        dir,
+        socket: path.join(dir, 'mysqld.sock'),
+        port: await freePort(),
+        gcommPort: await freePort(),
+        istPort: await freePort(),
+        sstPort: await freePort(),
+      });
     }
     return new GaleraCluster(procs, nodes);
   }
@@ -80,8 +97,11 @@ sst-log-archive = 0
 
   async start(node: GaleraNode, bootstrap = false): Promise<void> {
     if (!fs.existsSync(`${node.dir}/data/mysql`)) {
-      execFileSync('mariadb-install-db', ['--user=root', `--datadir=${node.dir}/data`, '--auth-root-authentication-method=normal', '--skip-test-db'],
-        { stdio: ['ignore', fs.openSync(`${node.dir}/install.log`, 'a'), fs.openSync(`${node.dir}/install.log`, 'a')] });
+      execFileSync(
+        'mariadb-install-db',
+        ['--user=root', `--datadir=${node.dir}/data`, '--auth-root-authentication-method=normal', '--skip-test-db'],
+        { stdio: ['ignore', fs.openSync(`${node.dir}/install.log`, 'a'), fs.openSync(`${node.dir}/install.log`, 'a')] },
+      );
     }
     fs.rmSync(node.socket, { force: true });
     fs.writeFileSync(`${node.dir}/my.cnf`, this.optionFile(node));
@@ -91,16 +111,22 @@ sst-log-archive = 0
 
   /** wsrep_local_state_comment ("Synced", "Joining", "Donor/Desynced", ...), or undefined when unreachable. */
   async state(node: GaleraNode): Promise<string | undefined> {
-    const rows = await this.query<{ Value: string }>(node, "SHOW STATUS LIKE 'wsrep_local_state_comment'").catch(() => undefined);
+    const rows = await this.query<{ Value: string }>(node, "SHOW STATUS LIKE 'wsrep_local_state_comment'").catch(
+      () => undefined,
+    );
     return rows?.[0]?.Value;
   }
 
   async waitSynced(node: GaleraNode, limitMs = 240_000): Promise<void> {
     const exited = () => node.child?.exitCode !== null && node.child?.exitCode !== undefined;
-    await waitFor(`${node.name} to be Synced`, async () => {
-      if (exited()) throw new Error(`${node.name} exited; see ${node.dir}/error.log`);
-      return (await this.state(node)) === 'Synced';
-    }, limitMs);
+    await waitFor(
+      `${node.name} to be Synced`,
+      async () => {
+        if (exited()) throw new Error(`${node.name} exited; see ${node.dir}/error.log`);
+        return (await this.state(node)) === 'Synced';
+      },
+      limitMs,
+    );
   }
 
   async kill(node: GaleraNode): Promise<void> {
@@ -108,7 +134,12 @@ sst-log-archive = 0
   }
 
   async query<T>(node: GaleraNode, sql: string, params: unknown[] = [], database?: string): Promise<T[]> {
-    const conn = await mariadb.createConnection({ socketPath: node.socket, user: 'root', database, connectTimeout: 3000 });
+    const conn = await mariadb.createConnection({
+      socketPath: node.socket,
+      user: 'root',
+      database,
+      connectTimeout: 3000,
+    });
     try {
       // With a database named, reads wait until this node has applied everything the cluster committed.
       if (database) await conn.query('SET SESSION wsrep_sync_wait = 15');

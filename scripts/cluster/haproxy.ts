@@ -4,27 +4,42 @@ import path from 'node:path';
 import type { GaleraCluster, GaleraNode } from './galera';
 import { freePort, waitFor, type Processes } from './processes';
 
-export interface Endpoints { dbPort: number; webPort: number; statsPort: number }
+export interface Endpoints {
+  dbPort: number;
+  webPort: number;
+  statsPort: number;
+}
 
 // What a client sees when no app instance answered in time or one died mid-request: a clean
 // 503 it may retry, in the API's own error shape, instead of HAProxy's HTML 502/504 page.
-const RETRY_LATER = (status: string) => [
-  `HTTP/1.1 ${status}`, 'Content-Type: application/json', 'Retry-After: 2', 'Cache-Control: no-store', 'Connection: close', '',
-  '{"code":"unavailable","message":"The service is switching over; try again in a moment."}', '',
-].join('\r\n');
+const RETRY_LATER = (status: string) =>
+  [
+    `HTTP/1.1 ${status}`,
+    'Content-Type: application/json',
+    'Retry-After: 2',
+    'Cache-Control: no-store',
+    'Connection: close',
+    '',
+    '{"code":"unavailable","message":"The service is switching over; try again in a moment."}',
+    '',
+  ].join('\r\n');
 
 /**
  * One small HTTP check per database node for HAProxy, like the usual Galera "clustercheck":
  * 200 only while the node is Synced, so a joining or donor node gets no clients.
  */
-export async function startNodeChecks(cluster: GaleraCluster): Promise<{ ports: Map<GaleraNode, number>; close: () => void }> {
+export async function startNodeChecks(
+  cluster: GaleraCluster,
+): Promise<{ ports: Map<GaleraNode, number>; close: () => void }> {
   const ports = new Map<GaleraNode, number>();
   const servers: http.Server[] = [];
   for (const node of cluster.nodes) {
     const port = await freePort();
     const server = http.createServer((_req, res) => {
       void cluster.state(node).then((state) => {
-        res.writeHead(state === 'Synced' ? 200 : 503, { 'Content-Type': 'text/plain' }).end(`${state ?? 'unreachable'}\n`);
+        res
+          .writeHead(state === 'Synced' ? 200 : 503, { 'Content-Type': 'text/plain' })
+          .end(`${state ?? 'unreachable'}\n`);
       });
     });
     await new Promise<void>((resolve) => server.listen(port, '127.0.0.1', resolve));
@@ -34,9 +49,16 @@ export async function startNodeChecks(cluster: GaleraCluster): Promise<{ ports: 
   return { ports, close: () => servers.forEach((s) => s.close()) };
 }
 
-function config(cluster: GaleraCluster, checks: Map<GaleraNode, number>, apps: number[], ends: Endpoints, dir: string): string {
+function config(
+  cluster: GaleraCluster,
+  checks: Map<GaleraNode, number>,
+  apps: number[],
+  ends: Endpoints,
+  dir: string,
+): string {
   const [writer, ...others] = cluster.nodes;
-  const dbServer = (n: GaleraNode, backup: boolean) => `  server ${n.name} 127.0.0.1:${n.port} check port ${checks.get(n)}${backup ? ' backup' : ''}`;
+  const dbServer = (n: GaleraNode, backup: boolean) =>
+    `  server ${n.name} 127.0.0.1:${n.port} check port ${checks.get(n)}${backup ? ' backup' : ''}`;
   return `global
   maxconn 4000
   log stdout format raw local0
@@ -91,8 +113,13 @@ listen stats
 `;
 }
 
-export async function startHaproxy(procs: Processes, cluster: GaleraCluster, checks: Map<GaleraNode, number>,
-  apps: number[], dir: string): Promise<Endpoints> {
+export async function startHaproxy(
+  procs: Processes,
+  cluster: GaleraCluster,
+  checks: Map<GaleraNode, number>,
+  apps: number[],
+  dir: string,
+): Promise<Endpoints> {
   fs.writeFileSync(path.join(dir, '503.http'), RETRY_LATER('503 Service Unavailable'));
   // A port found free can be taken by another process before HAProxy binds it (the machine is shared):
   // then HAProxy exits at once, and a new set of ports is tried.
@@ -102,10 +129,14 @@ export async function startHaproxy(procs: Processes, cluster: GaleraCluster, che
     const args = ['-db', '-f', path.join(dir, 'haproxy.cfg')];
     const child = procs.start('haproxy', '/usr/sbin/haproxy', args, { log: path.join(dir, 'haproxy.log') });
     let exited = false;
-    await waitFor('HAProxy to accept connections or exit', async () => {
-      exited = child.exitCode !== null;
-      return exited || (await fetch(`http://127.0.0.1:${ends.statsPort}/;csv`)).ok;
-    }, 30_000);
+    await waitFor(
+      'HAProxy to accept connections or exit',
+      async () => {
+        exited = child.exitCode !== null;
+        return exited || (await fetch(`http://127.0.0.1:${ends.statsPort}/;csv`)).ok;
+      },
+      30_000,
+    );
     if (!exited) return ends;
     const portTaken = fs.readFileSync(path.join(dir, 'haproxy.log'), 'utf8').includes('Address already in use');
     if (!portTaken || attempt === 3) throw new Error(`haproxy exited; see ${dir}/haproxy.log`);

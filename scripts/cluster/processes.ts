@@ -49,7 +49,12 @@ export function freePort(): Promise<number> {
  * Polls `check` until it returns true; never a fixed sleep standing in for a condition. `limitMs`
  * only turns a condition that never comes into a clear failure instead of a hung run.
  */
-export async function waitFor(what: string, check: () => Promise<boolean>, limitMs = 180_000, everyMs = 250): Promise<void> {
+export async function waitFor(
+  what: string,
+  check: () => Promise<boolean>,
+  limitMs = 180_000,
+  everyMs = 250,
+): Promise<void> {
   const end = Date.now() + limitMs;
   while (Date.now() < end) {
     if (await check().catch(() => false)) return;

@@ -40,8 +40,17 @@ async function main(root: string): Promise<number> {
     const appPorts = [await freePort(), await freePort()];
     const ends = await startHaproxy(procs, cluster, checks.ports, appPorts, root);
     const env: NodeJS.ProcessEnv = {
-      ...process.env, DB_HOST: '127.0.0.1', DB_PORT: String(ends.dbPort), DB_NAME: DB.name, DB_USER: DB.user, DB_PASSWORD: DB.password,
-      NODE_ENV: 'production', LOG_LEVEL: 'warn', MAIL_SENDER: 'false', LOGIN_RATE_LIMIT: '1000', SESSION_SECRET: 'cluster-test-session-secret',
+      ...process.env,
+      DB_HOST: '127.0.0.1',
+      DB_PORT: String(ends.dbPort),
+      DB_NAME: DB.name,
+      DB_USER: DB.user,
+      DB_PASSWORD: DB.password,
+      NODE_ENV: 'production',
+      LOG_LEVEL: 'warn',
+      MAIL_SENDER: 'false',
+      LOGIN_RATE_LIMIT: '1000',
+      SESSION_SECRET: 'cluster-test-session-secret',
       PUBLIC_URL: `http://127.0.0.1:${ends.webPort}`,
     };
     await waitFor('HAProxy to route to the writer node', async () => (await serverStates(ends))['galera/db1'] === 'UP');
@@ -50,7 +59,11 @@ async function main(root: string): Promise<number> {
     const data = await setUpData(env, CLIENTS);
     const apps = new AppInstances(procs, env, appPorts, root);
     await Promise.all(apps.ports.map((_p, i) => apps.start(i)));
-    await waitFor('HAProxy to see both app instances', async () => Object.entries(await serverStates(ends)).filter(([k, v]) => k.startsWith('web/') && v === 'UP').length === 2);
+    await waitFor(
+      'HAProxy to see both app instances',
+      async () =>
+        Object.entries(await serverStates(ends)).filter(([k, v]) => k.startsWith('web/') && v === 'UP').length === 2,
+    );
     log(`ready: HAProxy db :${ends.dbPort}, web :${ends.webPort}; ${CLIENTS} clients start ${SIGN_OFFS} sign-offs`);
 
     const tally = newTally();
@@ -60,20 +73,37 @@ async function main(root: string): Promise<number> {
     let next = 0;
     const runStart = Date.now();
     const client = async (i: number) => {
-      const team = { author: new ApiClient(base, tally), checker: new ApiClient(base, tally), approver: new ApiClient(base, tally), password: data.password };
+      const team = {
+        author: new ApiClient(base, tally),
+        checker: new ApiClient(base, tally),
+        approver: new ApiClient(base, tally),
+        password: data.password,
+      };
       const names = data.teams[i];
       await team.author.signIn(names.author, data.password);
       await team.checker.signIn(names.checker, data.password);
       await team.approver.signIn(names.approver, data.password);
       while (next < SIGN_OFFS) {
         const n = ++next;
-        await signOff(team, { projectId: data.projectId, ruleSetId: data.ruleSetId, input: data.input, number: `CL-${String(n).padStart(3, '0')}` }, ledger);
+        await signOff(
+          team,
+          {
+            projectId: data.projectId,
+            ruleSetId: data.ruleSetId,
+            input: data.input,
+            number: `CL-${String(n).padStart(3, '0')}`,
+          },
+          ledger,
+        );
         completed++;
       }
     };
     const reached = (n: number) => waitFor(`${n} sign-offs`, async () => completed >= n, 900_000, 100);
     const events: string[] = [];
-    const note = (m: string) => { events.push(`${since()} ${m}`); log(m); };
+    const note = (m: string) => {
+      events.push(`${since()} ${m}`);
+      log(m);
+    };
     const faults = async () => {
       await reached(15);
       note(`SIGKILL database node db1 (the writer) after ${completed} sign-offs`);
@@ -92,7 +122,9 @@ async function main(root: string): Promise<number> {
     };
     await Promise.all([...Array.from({ length: CLIENTS }, (_v, i) => client(i)), faults()]);
     const runSeconds = (Date.now() - runStart) / 1000;
-    log(`${completed} sign-offs done in ${runSeconds.toFixed(1)} s; responses by status ${JSON.stringify(tally.byStatus)}; slowest ${tally.slowestMs} ms`);
+    log(
+      `${completed} sign-offs done in ${runSeconds.toFixed(1)} s; responses by status ${JSON.stringify(tally.byStatus)}; slowest ${tally.slowestMs} ms`,
+    );
 
     for (const line of tally.noAnswer) log(`no HTTP answer: ${line}`);
     for (const node of cluster.nodes) await cluster.waitSynced(node);
@@ -109,7 +141,9 @@ async function main(root: string): Promise<number> {
       prints.add(fingerprint);
       const chain = await verifyChainOn(node, env);
       if (!chain.ok) problems.push(`${node.name}: audit chain broken at ${chain.brokenAt}`);
-      log(`${node.name}: ${p.length ? `${p.length} problems` : 'every check holds'}; audit chain ${chain.ok ? 'verifies' : 'BROKEN'} (${chain.checked} entries)`);
+      log(
+        `${node.name}: ${p.length ? `${p.length} problems` : 'every check holds'}; audit chain ${chain.ok ? 'verifies' : 'BROKEN'} (${chain.checked} entries)`,
+      );
     }
     if (prints.size !== 1) problems.push(`nodes disagree: ${[...prints].join(' | ')}`);
     const retries = apps.retryCounts();

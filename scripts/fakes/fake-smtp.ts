@@ -20,19 +20,38 @@ export interface ReceivedMail {
   receivedAt: string;
 }
 
-export interface FakeSmtp { port: number; messages: ReceivedMail[]; close: () => Promise<void> }
+export interface FakeSmtp {
+  port: number;
+  messages: ReceivedMail[];
+  close: () => Promise<void>;
+}
 
-const addressText = (a: ParsedMail['to']) => (Array.isArray(a) ? a.map((x) => x.text).join(', ') : a?.text ?? '');
+const addressText = (a: ParsedMail['to']) => (Array.isArray(a) ? a.map((x) => x.text).join(', ') : (a?.text ?? ''));
 
 /** Reads a message the way a mail client does (mailparser): encodings, encoded words, parts, attachments. */
 export async function toMail(raw: Buffer, from: string, to: string[]): Promise<ReceivedMail> {
   const parsed = await simpleParser(raw);
   const headers: Record<string, string> = {};
-  for (const { key, line } of parsed.headerLines) headers[key] = line.slice(line.indexOf(':') + 1).replace(/\r?\n[ \t]+/g, ' ').trim();
+  for (const { key, line } of parsed.headerLines)
+    headers[key] = line
+      .slice(line.indexOf(':') + 1)
+      .replace(/\r?\n[ \t]+/g, ' ')
+      .trim();
   return {
-    envelopeFrom: from, envelopeTo: to, headers, subject: parsed.subject ?? '', from: addressText(parsed.from), to: addressText(parsed.to),
-    text: parsed.text ?? '', html: parsed.html === false ? null : parsed.html ?? null,
-    attachments: parsed.attachments.map((a) => ({ fileName: a.filename ?? null, contentType: a.contentType, size: a.size, sha256: createHash('sha256').update(a.content).digest('hex') })),
+    envelopeFrom: from,
+    envelopeTo: to,
+    headers,
+    subject: parsed.subject ?? '',
+    from: addressText(parsed.from),
+    to: addressText(parsed.to),
+    text: parsed.text ?? '',
+    html: parsed.html === false ? null : (parsed.html ?? null),
+    attachments: parsed.attachments.map((a) => ({
+      fileName: a.filename ?? null,
+      contentType: a.contentType,
+      size: a.size,
+      sha256: createHash('sha256').update(a.content).digest('hex'),
+    })),
     receivedAt: new Date().toISOString(),
   };
 }
@@ -46,7 +65,11 @@ export async function startFakeSmtp(options: { port: number; host?: string; inbo
   const messages: ReceivedMail[] = [];
   if (options.inboxFile) fs.mkdirSync(path.dirname(options.inboxFile), { recursive: true });
   const server = new SMTPServer({
-    authOptional: true, allowInsecureAuth: true, disabledCommands: ['STARTTLS'], logger: false, banner: 'Torquetrail fake SMTP',
+    authOptional: true,
+    allowInsecureAuth: true,
+    disabledCommands: ['STARTTLS'],
+    logger: false,
+    banner: 'Torquetrail fake SMTP',
     onAuth: (auth, _session, done) => done(null, { user: auth.username ?? 'anyone' }),
     onData(stream, session, done) {
       const chunks: Buffer[] = [];
@@ -54,11 +77,18 @@ export async function startFakeSmtp(options: { port: number; host?: string; inbo
       stream.on('end', () => {
         const from = session.envelope.mailFrom ? session.envelope.mailFrom.address : '';
         // Acknowledged only once parsed and kept, so a sender that saw "250" finds it in `messages`.
-        toMail(Buffer.concat(chunks), from, session.envelope.rcptTo.map((r) => r.address)).then((mail) => {
-          messages.push(mail);
-          if (options.inboxFile) fs.appendFileSync(options.inboxFile, `${JSON.stringify(mail)}\n`);
-          done();
-        }, (err: Error) => done(err));
+        toMail(
+          Buffer.concat(chunks),
+          from,
+          session.envelope.rcptTo.map((r) => r.address),
+        ).then(
+          (mail) => {
+            messages.push(mail);
+            if (options.inboxFile) fs.appendFileSync(options.inboxFile, `${JSON.stringify(mail)}\n`);
+            done();
+          },
+          (err: Error) => done(err),
+        );
       });
     },
   });

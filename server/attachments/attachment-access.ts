@@ -29,7 +29,15 @@ export function cleanFileName(name: string): string {
 
 export function toAttachmentDto(a: Attachment): AttachmentDto {
   return {
-    id: a.id, revisionId: a.revisionId, kind: a.kind, fileName: a.fileName, mediaType: a.mediaType, sizeBytes: a.sizeBytes,
-    sha256: a.sha256, note: a.note, uploadedBy: { id: a.uploadedBy, name: a.uploadedByName }, createdAt: a.createdAt.toISOString(),
+    id: a.id,
+    revisionId: a.revisionId,
+    kind: a.kind,
+    fileName: a.fileName,
+    mediaType: a.mediaType,
+    sizeBytes: a.sizeBytes,
+    sha256: a.sha256,
+    note: a.note,
+    uploadedBy: { id: a.uploadedBy, name: a.uploadedByName },
+    createdAt: a.createdAt.toISOString(),
   };
 }

@@ -17,11 +17,16 @@ export function revisionAttachmentsRouter(attachments: AttachmentsService): Rout
     await attachments.assertMayAddTo(req.ability, idParam(req));
     next();
   };
-  router.post('/:id/attachments', precheck, singleUpload('file', attachments.maxBytes),
-    validate({ body: uploadFieldsSchema }), async (req, res) => {
+  router.post(
+    '/:id/attachments',
+    precheck,
+    singleUpload('file', attachments.maxBytes),
+    validate({ body: uploadFieldsSchema }),
+    async (req, res) => {
       const file = req.file ? { buffer: req.file.buffer, originalname: req.file.originalname } : undefined;
       res.status(201).json(await attachments.upload(req.ability, signedInActor(req), idParam(req), file, req.body));
-    });
+    },
+  );
   return router;
 }
 

@@ -16,20 +16,38 @@ import { READ_ONLY_STATES, cleanFileName, mayAddFiles, toAttachmentDto } from '.
 import { isProjectArchived } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
 
-export interface UploadedFile { buffer: Buffer; originalname: string }
+export interface UploadedFile {
+  buffer: Buffer;
+  originalname: string;
+}
 
 /** Drawings, certificates and supporting files of a revision: checked by content, stored by hash. */
 export class AttachmentsService {
-  constructor(private readonly sequelize: Sequelize, readonly store: ObjectStore, readonly maxBytes: number) {}
+  constructor(
+    private readonly sequelize: Sequelize,
+    readonly store: ObjectStore,
+    readonly maxBytes: number,
+  ) {}
 
   async list(ability: AppAbility, revisionId: number): Promise<AttachmentListDto> {
     ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
     const revision = await loadRevision(revisionId);
     const rows = await Attachment.findAll({ where: { revisionId }, order: [['id', 'ASC']] });
-    return { items: rows.map(toAttachmentDto), canAdd: mayAddFiles(ability, revision) && !(await isProjectArchived(revision.calcId)), maxBytes: this.maxBytes, acceptedTypes: ACCEPTED_TYPE_NAMES };
+    return {
+      items: rows.map(toAttachmentDto),
+      canAdd: mayAddFiles(ability, revision) && !(await isProjectArchived(revision.calcId)),
+      maxBytes: this.maxBytes,
+      acceptedTypes: ACCEPTED_TYPE_NAMES,
+    };
   }
 
-  async upload(ability: AppAbility, actor: Actor & { id: number }, revisionId: number, file: UploadedFile | undefined, fields: UploadFields): Promise<AttachmentDto> {
+  async upload(
+    ability: AppAbility,
+    actor: Actor & { id: number },
+    revisionId: number,
+    file: UploadedFile | undefined,
+    fields: UploadFields,
+  ): Promise<AttachmentDto> {
     if (!file) throw AppError.validation({ file: ['is required: send the file as multipart form field "file"'] });
     const mediaType = await detectMediaType(file.buffer);
     assertDeclaredKind(file.originalname, fields.kind, mediaType);
@@ -41,15 +59,41 @@ export class AttachmentsService {
     const id = await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevisionForChange(revisionId, transaction);
       this.assertMayAdd(ability, revision);
-      const row = await Attachment.create({
-        revisionId, kind: fields.kind, fileName: cleanFileName(file.originalname), mediaType, sizeBytes: file.buffer.length,
-        sha256, storageKey: key, note: fields.note, uploadedBy: actor.id, uploadedByName: actor.name,
-      }, { transaction });
+      const row = await Attachment.create(
+        {
+          revisionId,
+          kind: fields.kind,
+          fileName: cleanFileName(file.originalname),
+          mediaType,
+          sizeBytes: file.buffer.length,
+          sha256,
+          storageKey: key,
+          note: fields.note,
+          uploadedBy: actor.id,
+          uploadedByName: actor.name,
+        },
+        { transaction },
+      );
       await refreshAfterAttachmentChange(revision, transaction);
-      await appendAudit(this.sequelize, actor, {
-        action: 'attachment.added', entityType: 'Revision', entityId: revisionId,
-        payload: { attachmentId: row.id, kind: row.kind, fileName: row.fileName, mediaType, sizeBytes: row.sizeBytes, sha256, contentHash: revision.contentHash },
-      }, transaction);
+      await appendAudit(
+        this.sequelize,
+        actor,
+        {
+          action: 'attachment.added',
+          entityType: 'Revision',
+          entityId: revisionId,
+          payload: {
+            attachmentId: row.id,
+            kind: row.kind,
+            fileName: row.fileName,
+            mediaType,
+            sizeBytes: row.sizeBytes,
+            sha256,
+            contentHash: revision.contentHash,
+          },
+        },
+        transaction,
+      );
       return row.id;
     });
     return toAttachmentDto((await Attachment.findByPk(id))!);
@@ -69,15 +113,36 @@ export class AttachmentsService {
       if (!row) throw AppError.notFound(`Attachment ${id}`);
       const revision = await loadRevisionForChange(row.revisionId, transaction);
       if (READ_ONLY_STATES.includes(revision.status)) throw this.readOnly(revision, 'removed');
-      if (!EDITABLE_STATES.includes(revision.status)) throw AppError.conflict(`Files are removed only before submission; revision ${revision.label} is ${revision.status.replace('_', ' ')}`);
+      if (!EDITABLE_STATES.includes(revision.status))
+        throw AppError.conflict(
+          `Files are removed only before submission; revision ${revision.label} is ${revision.status.replace('_', ' ')}`,
+        );
       // The author answers for every file of their draft, so they can take out one a co-editor attached by mistake.
-      if (row.uploadedBy !== actor.id && revision.authorId !== actor.id) throw new AppError('forbidden', 403, 'Only the person who attached a file, or the author of the revision, can remove it');
+      if (row.uploadedBy !== actor.id && revision.authorId !== actor.id)
+        throw new AppError(
+          'forbidden',
+          403,
+          'Only the person who attached a file, or the author of the revision, can remove it',
+        );
       await row.destroy({ transaction });
       await refreshAfterAttachmentChange(revision, transaction);
-      await appendAudit(this.sequelize, actor, {
-        action: 'attachment.removed', entityType: 'Revision', entityId: row.revisionId,
-        payload: { attachmentId: row.id, kind: row.kind, fileName: row.fileName, sha256: row.sha256, contentHash: revision.contentHash },
-      }, transaction);
+      await appendAudit(
+        this.sequelize,
+        actor,
+        {
+          action: 'attachment.removed',
+          entityType: 'Revision',
+          entityId: row.revisionId,
+          payload: {
+            attachmentId: row.id,
+            kind: row.kind,
+            fileName: row.fileName,
+            sha256: row.sha256,
+            contentHash: revision.contentHash,
+          },
+        },
+        transaction,
+      );
     });
   }
 
@@ -88,12 +153,20 @@ export class AttachmentsService {
   private assertMayAdd(ability: AppAbility, revision: Revision): void {
     if (READ_ONLY_STATES.includes(revision.status)) throw this.readOnly(revision, 'added');
     if (!mayAddFiles(ability, revision)) {
-      throw new AppError('forbidden', 403, 'Files are added by the author while editing, or by the independent checker or approver while reviewing');
+      throw new AppError(
+        'forbidden',
+        403,
+        'Files are added by the author while editing, or by the independent checker or approver while reviewing',
+      );
     }
   }
 
   private readOnly(revision: Revision, verb: string): AppError {
     const state = revision.status.replace('_', ' ');
-    return new AppError('read_only', 409, `Revision ${revision.label} is ${state}; its attachments are read-only and none can be ${verb}. Start a new revision to change them.`);
+    return new AppError(
+      'read_only',
+      409,
+      `Revision ${revision.label} is ${state}; its attachments are read-only and none can be ${verb}. Start a new revision to change them.`,
+    );
   }
 }

@@ -16,9 +16,12 @@ const ACCEPTED: Record<string, string> = {
 export const ACCEPTED_TYPE_NAMES = Object.values(ACCEPTED);
 
 const NAMED_DANGERS: Record<string, string> = {
-  'application/x-msdownload': 'a Windows program', 'application/x-msi': 'a Windows installer',
-  'application/x-elf': 'a Linux program', 'application/x-mach-binary': 'a macOS program',
-  'application/zip': 'a zip archive', 'application/x-sh': 'a shell script',
+  'application/x-msdownload': 'a Windows program',
+  'application/x-msi': 'a Windows installer',
+  'application/x-elf': 'a Linux program',
+  'application/x-mach-binary': 'a macOS program',
+  'application/zip': 'a zip archive',
+  'application/x-sh': 'a shell script',
 };
 
 function refuse(reason: string): AppError {

@@ -1,9 +1,18 @@
-import { GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client, S3ServiceException } from '@aws-sdk/client-s3';
+import {
+  GetObjectCommand,
+  HeadObjectCommand,
+  PutObjectCommand,
+  S3Client,
+  S3ServiceException,
+} from '@aws-sdk/client-s3';
 import type { Config } from '../config';
 import { AppError } from '../errors/app-error';
 import { logger } from '../logger';
 
-type S3Settings = Pick<Config, 'S3_ENDPOINT' | 'S3_REGION' | 'S3_BUCKET' | 'S3_ACCESS_KEY_ID' | 'S3_SECRET_ACCESS_KEY' | 'S3_FORCE_PATH_STYLE'>;
+type S3Settings = Pick<
+  Config,
+  'S3_ENDPOINT' | 'S3_REGION' | 'S3_BUCKET' | 'S3_ACCESS_KEY_ID' | 'S3_SECRET_ACCESS_KEY' | 'S3_FORCE_PATH_STYLE'
+>;
 
 /**
  * Attachment bytes in object storage through the S3 API, so every app instance sees the same
@@ -15,7 +24,9 @@ export class ObjectStore {
 
   constructor(private readonly config: S3Settings) {
     this.client = new S3Client({
-      endpoint: config.S3_ENDPOINT, region: config.S3_REGION, forcePathStyle: config.S3_FORCE_PATH_STYLE,
+      endpoint: config.S3_ENDPOINT,
+      region: config.S3_REGION,
+      forcePathStyle: config.S3_FORCE_PATH_STYLE,
       credentials: { accessKeyId: config.S3_ACCESS_KEY_ID, secretAccessKey: config.S3_SECRET_ACCESS_KEY },
       // A storage outage should answer the user within seconds, not hang the request.
       maxAttempts: 2,
@@ -29,7 +40,9 @@ export class ObjectStore {
   async putIfAbsent(key: string, body: Buffer, mediaType: string): Promise<void> {
     await this.guard('store the file', async () => {
       if (await this.exists(key)) return;
-      await this.client.send(new PutObjectCommand({ Bucket: this.config.S3_BUCKET, Key: key, Body: body, ContentType: mediaType }));
+      await this.client.send(
+        new PutObjectCommand({ Bucket: this.config.S3_BUCKET, Key: key, Body: body, ContentType: mediaType }),
+      );
     });
   }
 
@@ -55,7 +68,14 @@ export class ObjectStore {
       return await run();
     } catch (err) {
       logger.error({ err, bucket: this.config.S3_BUCKET }, `object storage: could not ${what}`);
-      throw new AppError('storage_unavailable', 503, `Attachment storage is unavailable, so Torquetrail could not ${what}; nothing was lost — try again shortly`, undefined, true, { cause: err });
+      throw new AppError(
+        'storage_unavailable',
+        503,
+        `Attachment storage is unavailable, so Torquetrail could not ${what}; nothing was lost — try again shortly`,
+        undefined,
+        true,
+        { cause: err },
+      );
     }
   }
 

@@ -19,7 +19,8 @@ export function singleUpload(field: string, maxBytes: number): RequestHandler {
   const parse = multer(options).single(field);
   return (req, res, next) => {
     parse(req, res, (err: unknown) => {
-      if (err) return next(err instanceof multer.MulterError ? toAppError(err, field, maxBytes) : unreadable(err, field));
+      if (err)
+        return next(err instanceof multer.MulterError ? toAppError(err, field, maxBytes) : unreadable(err, field));
       next(strictText(req, field));
     });
   };
@@ -55,17 +56,26 @@ function strictText(req: Request, field: string): AppError | undefined {
  */
 function unreadable(err: unknown, field: string): AppError {
   const reason = err instanceof Error ? err.message : String(err);
-  return new AppError('validation', 400, `${field}: the upload is not a readable multipart form (${reason}); nothing was stored`,
-    { fieldErrors: { [field]: [`is not a readable multipart upload (${reason})`] } });
+  return new AppError(
+    'validation',
+    400,
+    `${field}: the upload is not a readable multipart form (${reason}); nothing was stored`,
+    { fieldErrors: { [field]: [`is not a readable multipart upload (${reason})`] } },
+  );
 }
 
 function toAppError(err: multer.MulterError, field: string, maxBytes: number): AppError {
-  const limit = maxBytes >= 1024 * 1024 ? `${+(maxBytes / 1024 / 1024).toFixed(1)} MB` : `${Math.round(maxBytes / 1024)} kB`;
+  const limit =
+    maxBytes >= 1024 * 1024 ? `${+(maxBytes / 1024 / 1024).toFixed(1)} MB` : `${Math.round(maxBytes / 1024)} kB`;
   switch (err.code) {
     case 'LIMIT_FILE_SIZE':
-      return new AppError('too_large', 413, `${field}: is larger than the ${limit} limit; nothing was stored`, { fieldErrors: { [field]: [`is larger than the ${limit} limit`] } });
+      return new AppError('too_large', 413, `${field}: is larger than the ${limit} limit; nothing was stored`, {
+        fieldErrors: { [field]: [`is larger than the ${limit} limit`] },
+      });
     case 'LIMIT_UNEXPECTED_FILE':
-      return AppError.validation({ [err.field ?? 'file']: [`is not expected here; send one file as form field "${field}"`] });
+      return AppError.validation({
+        [err.field ?? 'file']: [`is not expected here; send one file as form field "${field}"`],
+      });
     default:
       return AppError.validation({ [err.field ?? field]: [err.message] });
   }

@@ -23,5 +23,8 @@ export type ChainedContent = z.infer<typeof chainedContentSchema>;
 
 /** SHA-256 over the previous hash and the RFC 8785 canonical JSON of the row's content. */
 export function chainHash(prevHash: string, content: ChainedContent): string {
-  return createHash('sha256').update(prevHash).update(canonicalize(content) ?? '').digest('hex');
+  return createHash('sha256')
+    .update(prevHash)
+    .update(canonicalize(content) ?? '')
+    .digest('hex');
 }

@@ -14,37 +14,60 @@ type Listed = AuditEvent & { hasDiff?: number };
 
 export function toAuditDto(e: Listed): AuditEventDto {
   return {
-    id: e.id, occurredAt: e.occurredAt.toISOString(), actorId: e.actorId, actorName: e.actorName, action: e.action,
-    entityType: e.entityType, entityId: e.entityId, payload: JSON.parse(e.payload), diff: e.diff ?? null,
-    hasDiff: e.diff != null || Boolean(e.get?.('hasDiff')), prevHash: e.prevHash, hash: e.hash,
+    id: e.id,
+    occurredAt: e.occurredAt.toISOString(),
+    actorId: e.actorId,
+    actorName: e.actorName,
+    action: e.action,
+    entityType: e.entityType,
+    entityId: e.entityId,
+    payload: JSON.parse(e.payload),
+    diff: e.diff ?? null,
+    hasDiff: e.diff != null || Boolean(e.get?.('hasDiff')),
+    prevHash: e.prevHash,
+    hash: e.hash,
   };
 }
 
 // Everything a list row shows; the diff (often kilobytes of canonical JSON) stays behind.
 const LIST_ATTRIBUTES = [
-  'id', 'occurredAt', 'actorId', 'actorName', 'action', 'entityType', 'entityId', 'payload', 'prevHash', 'hash',
+  'id',
+  'occurredAt',
+  'actorId',
+  'actorName',
+  'action',
+  'entityType',
+  'entityId',
+  'payload',
+  'prevHash',
+  'hash',
 ];
 
 /** Newest first, paged by keyset (`after` the last id shown); counted up to a cap on the first page only. */
 export async function listAudit(
-  ability: AppAbility, query: Omit<AuditQuery, 'page'> & { page?: number },
+  ability: AppAbility,
+  query: Omit<AuditQuery, 'page'> & { page?: number },
 ): Promise<KeysetPage<AuditEventDto>> {
   ForbiddenError.from(ability).throwUnlessCan('read', 'AuditEvent');
   const where = auditWhere(query);
   const sequelize = AuditEvent.sequelize!;
   const [rows, counted] = await Promise.all([
     AuditEvent.findAll({
-      where, attributes: [...LIST_ATTRIBUTES, [sequelize.literal('diff IS NOT NULL'), 'hasDiff']],
+      where,
+      attributes: [...LIST_ATTRIBUTES, [sequelize.literal('diff IS NOT NULL'), 'hasDiff']],
       order: [['id', 'DESC']],
-      offset: query.after ? 0 : (query.page ?? 0) * query.size, limit: query.size + 1,
+      offset: query.after ? 0 : (query.page ?? 0) * query.size,
+      limit: query.size + 1,
     }),
     query.after ? null : countAudit(query),
   ]);
   const items = rows.slice(0, query.size);
   const refs = await describeRecords(items);
   return {
-    items: items.map((r) => ({ ...toAuditDto(r), record: recordOf(refs, r) })), size: query.size,
-    total: counted?.total ?? null, totalIsAtLeast: counted?.totalIsAtLeast ?? false,
+    items: items.map((r) => ({ ...toAuditDto(r), record: recordOf(refs, r) })),
+    size: query.size,
+    total: counted?.total ?? null,
+    totalIsAtLeast: counted?.totalIsAtLeast ?? false,
     next: rows.length > query.size ? String(items[items.length - 1].id) : null,
   };
 }
@@ -68,7 +91,10 @@ async function countAudit(query: Omit<AuditQuery, 'page'>) {
  */
 export async function auditPeople(ability: AppAbility): Promise<{ id: number; name: string }[]> {
   ForbiddenError.from(ability).throwUnlessCan('read', 'AuditEvent');
-  const order: [string, string][] = [['displayName', 'ASC'], ['id', 'ASC']];
+  const order: [string, string][] = [
+    ['displayName', 'ASC'],
+    ['id', 'ASC'],
+  ];
   const rows = await User.findAll({ attributes: ['id', 'displayName'], order });
   return rows.map((u) => ({ id: u.id, name: u.displayName }));
 }

@@ -26,7 +26,10 @@ export interface AuditEntry {
  * transaction so the audit entry commits (or rolls back) with the change it records.
  */
 export async function appendAudit(
-  sequelize: Sequelize, actor: Actor, entry: AuditEntry, transaction?: Transaction,
+  sequelize: Sequelize,
+  actor: Actor,
+  entry: AuditEntry,
+  transaction?: Transaction,
 ): Promise<void> {
   const run = async (t: Transaction) => {
     // Before the chain head is locked, so the look-up does not lengthen the time every writer waits.
@@ -52,7 +55,8 @@ export async function appendAudit(
       { transaction: t },
     );
     await sequelize.query('UPDATE audit_chain_head SET last_id = ?, last_hash = ? WHERE id = 1', {
-      replacements: [row.id, hash], transaction: t,
+      replacements: [row.id, hash],
+      transaction: t,
     });
   };
   if (transaction) return run(transaction);
@@ -61,17 +65,28 @@ export async function appendAudit(
 
 const SCOPE_SQL: Record<string, string> = {
   Calc: 'SELECT id AS calcId, project_id AS projectId FROM calcs WHERE id = ?',
-  Revision: 'SELECT c.id AS calcId, c.project_id AS projectId FROM revisions r JOIN calcs c ON c.id = r.calc_id WHERE r.id = ?',
+  Revision:
+    'SELECT c.id AS calcId, c.project_id AS projectId FROM revisions r JOIN calcs c ON c.id = r.calc_id WHERE r.id = ?',
 };
 
-/** The calc and project an entry falls under, for the audit list's filters (migrations/20261220-0302-audit-scope.ts). */
-async function scopeOf(sequelize: Sequelize, entry: AuditEntry, t: Transaction): Promise<{ calcId: number | null; projectId: number | null }> {
+/**
+ * The calc and project an entry falls under, for the audit list's filters (migrations/20261220-0302-audit-scope.ts).
+ */
+async function scopeOf(
+  sequelize: Sequelize,
+  entry: AuditEntry,
+  t: Transaction,
+): Promise<{ calcId: number | null; projectId: number | null }> {
   const id = entry.entityId == null ? NaN : Number(entry.entityId);
   if (!Number.isInteger(id)) return { calcId: null, projectId: null };
   if (entry.entityType === 'Project') return { calcId: null, projectId: id };
   const sql = SCOPE_SQL[entry.entityType];
   if (!sql) return { calcId: null, projectId: null };
-  const [row] = await sequelize.query<{ calcId: number; projectId: number }>(sql, { replacements: [id], type: QueryTypes.SELECT, transaction: t });
+  const [row] = await sequelize.query<{ calcId: number; projectId: number }>(sql, {
+    replacements: [id],
+    type: QueryTypes.SELECT,
+    transaction: t,
+  });
   return { calcId: row?.calcId ?? null, projectId: row?.projectId ?? null };
 }
 
@@ -87,7 +102,8 @@ export async function verifyAuditChain(): Promise<{ ok: boolean; checked: number
     const rows = await AuditEvent.findAll({ where: { id: { [Op.gt]: lastId } }, order: [['id', 'ASC']], limit: 1000 });
     if (rows.length === 0) {
       const [head] = await AuditEvent.sequelize!.query<{ last_id: number | null; last_hash: string }>(
-        'SELECT last_id, last_hash FROM audit_chain_head WHERE id = 1', { type: QueryTypes.SELECT },
+        'SELECT last_id, last_hash FROM audit_chain_head WHERE id = 1',
+        { type: QueryTypes.SELECT },
       );
       if (head.last_hash === prev) return { ok: true, checked };
       // Rows appended since the walk's last read move the head on; walk on to them.
@@ -96,8 +112,15 @@ export async function verifyAuditChain(): Promise<{ ok: boolean; checked: number
     }
     for (const r of rows) {
       const content: ChainedContent = {
-        occurredAt: r.occurredAt.toISOString(), actorId: r.actorId, actorName: r.actorName, action: r.action,
-        entityType: r.entityType, entityId: r.entityId, payload: r.payload, diff: r.diff, ip: r.ip,
+        occurredAt: r.occurredAt.toISOString(),
+        actorId: r.actorId,
+        actorName: r.actorName,
+        action: r.action,
+        entityType: r.entityType,
+        entityId: r.entityId,
+        payload: r.payload,
+        diff: r.diff,
+        ip: r.ip,
       };
       if (r.prevHash !== prev || chainHash(prev, content) !== r.hash) return { ok: false, checked, brokenAt: r.id };
       prev = r.hash;

@@ -17,10 +17,14 @@ function sessionBody(req: Request, user: SessionUser | null, config: Config) {
   return { user, rules: defineRulesFor(user), csrfToken: csrfToken(req, false), organisation: config.ORG_NAME };
 }
 
-function authenticate(passport: Passport, req: Request): Promise<{ user: SessionUser | false; info?: { message?: string } }> {
+function authenticate(
+  passport: Passport,
+  req: Request,
+): Promise<{ user: SessionUser | false; info?: { message?: string } }> {
   return new Promise((resolve, reject) => {
     passport.authenticate('local', (err: unknown, user: SessionUser | false, info?: { message?: string }) =>
-      err ? reject(err) : resolve({ user, info }))(req);
+      err ? reject(err) : resolve({ user, info }),
+    )(req);
   });
 }
 
@@ -77,7 +81,13 @@ export function authRouter(sequelize: Sequelize, passport: Passport, config: Con
 
   router.post('/auth/password', requireSignIn, validate({ body: changePasswordSchema }), async (req, res) => {
     // Every other session of the person ends with the old password; this one stays signed in.
-    await service.changePassword(req.ability, signedInActor(req), req.body.currentPassword, req.body.newPassword, req.sessionID);
+    await service.changePassword(
+      req.ability,
+      signedInActor(req),
+      req.body.currentPassword,
+      req.body.newPassword,
+      req.sessionID,
+    );
     res.status(204).end();
   });
 

@@ -8,5 +8,9 @@ export const CSRF_HEADER = 'x-csrf-token';
  */
 export const { csrfSynchronisedProtection: csrfProtection, generateToken: csrfToken } = csrfSync({
   getTokenFromRequest: (req) => req.headers[CSRF_HEADER] as string | undefined,
-  errorConfig: { statusCode: 403, message: 'Missing or stale security token; reload the page and try again', code: 'csrf_invalid' },
+  errorConfig: {
+    statusCode: 403,
+    message: 'Missing or stale security token; reload the page and try again',
+    code: 'csrf_invalid',
+  },
 });

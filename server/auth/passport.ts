@@ -13,22 +13,25 @@ import { toSessionUser } from '../users/user-dto';
  */
 export function createPassport(): AppPassport {
   const passport = new Passport();
-  passport.use(new LocalStrategy(async (username, password, done) => {
-    try {
-      const user = await User.scope('withPassword').findOne({
-        where: { username: username.trim().toLowerCase() }, include: [{ model: UserRole, as: 'roleRows' }],
-      });
-      if (!user) {
-        await burnPasswordCheck(password);
-        return done(null, false);
+  passport.use(
+    new LocalStrategy(async (username, password, done) => {
+      try {
+        const user = await User.scope('withPassword').findOne({
+          where: { username: username.trim().toLowerCase() },
+          include: [{ model: UserRole, as: 'roleRows' }],
+        });
+        if (!user) {
+          await burnPasswordCheck(password);
+          return done(null, false);
+        }
+        const ok = await verifyPassword(user.passwordHash, password);
+        if (!ok || !user.active) return done(null, false, { message: user.active ? 'password' : 'inactive' });
+        return done(null, toSessionUser(user));
+      } catch (err) {
+        return done(err);
       }
-      const ok = await verifyPassword(user.passwordHash, password);
-      if (!ok || !user.active) return done(null, false, { message: user.active ? 'password' : 'inactive' });
-      return done(null, toSessionUser(user));
-    } catch (err) {
-      return done(err);
-    }
-  }));
+    }),
+  );
   passport.serializeUser((user, done) => done(null, user.id));
   passport.deserializeUser(async (id: number, done) => {
     try {

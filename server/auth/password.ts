@@ -1,7 +1,12 @@
 import { hash, verify } from '@node-rs/argon2';
 
 /** Argon2id at OWASP's minimum cost (19 MiB, t=2, p=1): about 50 ms here, slow enough for guessing. */
-const OPTIONS = { algorithm: 2 /* Argon2id; the package's enum is a const enum, unusable with isolatedModules */, memoryCost: 19_456, timeCost: 2, parallelism: 1 } as const;
+const OPTIONS = {
+  algorithm: 2 /* Argon2id; the package's enum is a const enum, unusable with isolatedModules */,
+  memoryCost: 19_456,
+  timeCost: 2,
+  parallelism: 1,
+} as const;
 
 export function hashPassword(password: string): Promise<string> {
   return hash(password, OPTIONS);

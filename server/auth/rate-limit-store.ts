@@ -34,7 +34,10 @@ export class MariaDbRateLimitStore implements Store {
   #windowMs = 60_000;
   #sinceSweep = 0;
 
-  constructor(private readonly sequelize: Sequelize, options: { prefix?: string } = {}) {
+  constructor(
+    private readonly sequelize: Sequelize,
+    options: { prefix?: string } = {},
+  ) {
     this.prefix = options.prefix ?? 'rl:';
   }
 
@@ -43,7 +46,10 @@ export class MariaDbRateLimitStore implements Store {
   }
 
   async get(key: string): Promise<ClientRateLimitInfo | undefined> {
-    const [row] = await this.sequelize.query<Row>(SELECT_LIVE, { type: QueryTypes.SELECT, replacements: { key: this.#key(key) } });
+    const [row] = await this.sequelize.query<Row>(SELECT_LIVE, {
+      type: QueryTypes.SELECT,
+      replacements: { key: this.#key(key) },
+    });
     return row ? toInfo(row) : undefined;
   }
 
@@ -63,7 +69,9 @@ export class MariaDbRateLimitStore implements Store {
   }
 
   async resetKey(key: string): Promise<void> {
-    await this.sequelize.query('DELETE FROM rate_limit_hits WHERE rate_key = :key', { replacements: { key: this.#key(key) } });
+    await this.sequelize.query('DELETE FROM rate_limit_hits WHERE rate_key = :key', {
+      replacements: { key: this.#key(key) },
+    });
   }
 
   async resetAll(): Promise<void> {

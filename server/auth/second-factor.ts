@@ -14,11 +14,18 @@ authenticator.options = { window: 1 };
 /** Checks a signer's one-time code when they have enrolled one; refuses signing when required but missing. */
 export function assertSecondFactor(user: User, code: string | undefined): void {
   if (!user.totpSecret) {
-    if (user.totpRequired) throw new AppError('second_factor_required', 403, 'An administrator requires a one-time code for your signatures: enrol an authenticator app under Your account first');
+    if (user.totpRequired)
+      throw new AppError(
+        'second_factor_required',
+        403,
+        'An administrator requires a one-time code for your signatures: enrol an authenticator app under Your account first',
+      );
     return;
   }
-  if (!code) throw AppError.validation({ oneTimeCode: ['is required: enter the 6 digits your authenticator app shows'] });
-  if (!authenticator.check(code, user.totpSecret)) throw AppError.validation({ oneTimeCode: ['is not correct or has expired'] });
+  if (!code)
+    throw AppError.validation({ oneTimeCode: ['is required: enter the 6 digits your authenticator app shows'] });
+  if (!authenticator.check(code, user.totpSecret))
+    throw AppError.validation({ oneTimeCode: ['is not correct or has expired'] });
 }
 
 /**
@@ -33,29 +40,55 @@ export class SecondFactorService {
     return { enrolled: !!user?.totpSecret, required: !!user?.totpRequired };
   }
 
-  async begin(actor: Actor & { id: number }, username: string): Promise<{ secret: string; enrolment: SecondFactorEnrolment }> {
+  async begin(
+    actor: Actor & { id: number },
+    username: string,
+  ): Promise<{ secret: string; enrolment: SecondFactorEnrolment }> {
     const secret = authenticator.generateSecret();
     const otpauthUrl = authenticator.keyuri(username, 'Torquetrail', secret);
-    return { secret, enrolment: { otpauthUrl, secret, qrDataUrl: await QRCode.toDataURL(otpauthUrl, { margin: 1, width: 220 }) } };
+    return {
+      secret,
+      enrolment: { otpauthUrl, secret, qrDataUrl: await QRCode.toDataURL(otpauthUrl, { margin: 1, width: 220 }) },
+    };
   }
 
-  async confirm(actor: Actor & { id: number }, pendingSecret: string | undefined, code: string): Promise<SecondFactorStatus> {
-    if (!pendingSecret) throw AppError.conflict('Start the enrolment again: no code set-up is in progress in this session');
-    if (!authenticator.check(code, pendingSecret)) throw AppError.validation({ code: ['does not match: check the time on your phone and try the next code'] });
+  async confirm(
+    actor: Actor & { id: number },
+    pendingSecret: string | undefined,
+    code: string,
+  ): Promise<SecondFactorStatus> {
+    if (!pendingSecret)
+      throw AppError.conflict('Start the enrolment again: no code set-up is in progress in this session');
+    if (!authenticator.check(code, pendingSecret))
+      throw AppError.validation({ code: ['does not match: check the time on your phone and try the next code'] });
     await runTransaction(this.sequelize, async (transaction) => {
       await User.update({ totpSecret: pendingSecret }, { where: { id: actor.id }, transaction });
-      await appendAudit(this.sequelize, actor, { action: 'auth.second_factor_enrolled', entityType: 'User', entityId: actor.id }, transaction);
+      await appendAudit(
+        this.sequelize,
+        actor,
+        { action: 'auth.second_factor_enrolled', entityType: 'User', entityId: actor.id },
+        transaction,
+      );
     });
     return this.status(actor.id);
   }
 
   async disable(actor: Actor & { id: number }, password: string): Promise<SecondFactorStatus> {
     const user = await User.scope('withPassword').findByPk(actor.id);
-    if (!user || !(await verifyPassword(user.passwordHash, password))) throw AppError.validation({ password: ['is not correct'] });
-    if (user.totpRequired) throw AppError.conflict('An administrator requires a one-time code for your signatures; it cannot be switched off');
+    if (!user || !(await verifyPassword(user.passwordHash, password)))
+      throw AppError.validation({ password: ['is not correct'] });
+    if (user.totpRequired)
+      throw AppError.conflict(
+        'An administrator requires a one-time code for your signatures; it cannot be switched off',
+      );
     await runTransaction(this.sequelize, async (transaction) => {
       await User.update({ totpSecret: null }, { where: { id: actor.id }, transaction });
-      await appendAudit(this.sequelize, actor, { action: 'auth.second_factor_removed', entityType: 'User', entityId: actor.id }, transaction);
+      await appendAudit(
+        this.sequelize,
+        actor,
+        { action: 'auth.second_factor_removed', entityType: 'User', entityId: actor.id },
+        transaction,
+      );
     });
     return this.status(actor.id);
   }

@@ -20,9 +20,15 @@ export function sessionMiddleware(sequelize: Sequelize, config: Config): Request
     checkExpirationInterval: 15 * 60 * 1000,
     // Recording the user id lets deactivation and a password change end that person's sessions;
     // address and browser let the person recognise each of their sessions.
-    extendDefaultFields: (defaults: { data: string; expires: Date }, s: { passport?: { user?: number }; clientIp?: string; userAgent?: string }) => ({
-      data: defaults.data, expires: defaults.expires, userId: s.passport?.user ?? null,
-      ip: s.clientIp?.slice(0, 100) ?? null, userAgent: s.userAgent?.slice(0, 400) ?? null,
+    extendDefaultFields: (
+      defaults: { data: string; expires: Date },
+      s: { passport?: { user?: number }; clientIp?: string; userAgent?: string },
+    ) => ({
+      data: defaults.data,
+      expires: defaults.expires,
+      userId: s.passport?.user ?? null,
+      ip: s.clientIp?.slice(0, 100) ?? null,
+      userAgent: s.userAgent?.slice(0, 400) ?? null,
     }),
   });
   // The package's get() ignores `expires` until its sweep runs, so a replayed cookie would outlive

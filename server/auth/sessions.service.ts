@@ -16,7 +16,10 @@ export class SessionsService {
   constructor(private readonly sequelize: Sequelize) {}
 
   async list(userId: number, currentSid: string): Promise<ActiveSessionDto[]> {
-    const rows = await Session.findAll({ where: { userId, expires: { [Op.gt]: new Date() } }, order: [['updatedAt', 'DESC']] });
+    const rows = await Session.findAll({
+      where: { userId, expires: { [Op.gt]: new Date() } },
+      order: [['updatedAt', 'DESC']],
+    });
     return rows.map((row) => ({
       id: publicSessionId(row.sid),
       startedAt: row.createdAt.toISOString(),
@@ -32,9 +35,15 @@ export class SessionsService {
       const rows = await Session.findAll({ where: { userId: actor.id }, attributes: ['sid'], transaction });
       const row = rows.find((r) => publicSessionId(r.sid) === publicId);
       if (!row) throw AppError.notFound('That session');
-      if (row.sid === currentSid) throw new AppError('current_session', 400, 'This is the session you are using; sign out to end it');
+      if (row.sid === currentSid)
+        throw new AppError('current_session', 400, 'This is the session you are using; sign out to end it');
       await Session.destroy({ where: { sid: row.sid }, transaction });
-      await appendAudit(this.sequelize, actor, { action: 'auth.session_ended', entityType: 'User', entityId: actor.id, payload: { session: publicId } }, transaction);
+      await appendAudit(
+        this.sequelize,
+        actor,
+        { action: 'auth.session_ended', entityType: 'User', entityId: actor.id, payload: { session: publicId } },
+        transaction,
+      );
     });
   }
 

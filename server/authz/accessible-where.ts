@@ -5,7 +5,14 @@ import type { Action, AppAbility, SubjectName } from '../../shared/authz/app-abi
 
 // Explicit operator table: a rule using anything else is a programming error, not a silent pass.
 const OPERATORS: Record<string, symbol> = {
-  $eq: Op.eq, $ne: Op.ne, $in: Op.in, $nin: Op.notIn, $lt: Op.lt, $lte: Op.lte, $gt: Op.gt, $gte: Op.gte,
+  $eq: Op.eq,
+  $ne: Op.ne,
+  $in: Op.in,
+  $nin: Op.notIn,
+  $lt: Op.lt,
+  $lte: Op.lte,
+  $gt: Op.gt,
+  $gte: Op.gte,
 };
 
 function convertCondition(conditions: Record<string, unknown>): WhereOptions {
@@ -30,10 +37,16 @@ function convertCondition(conditions: Record<string, unknown>): WhereOptions {
  * Turns the ability's rules for (action, subject) into a Sequelize `where`, so list queries
  * return only rows the user may see. Throws ForbiddenError when no rule allows the action.
  */
-export function accessibleWhere(ability: AppAbility, action: Action, subjectType: Exclude<SubjectName, 'all'>): WhereOptions {
+export function accessibleWhere(
+  ability: AppAbility,
+  action: Action,
+  subjectType: Exclude<SubjectName, 'all'>,
+): WhereOptions {
   const query = rulesToQuery(ability, action, subjectType, (rule) => {
     if (!rule.ast) throw new Error('Ability rule without conditions reached the converter');
-    return rule.inverted ? { [Op.not]: convertCondition(rule.conditions as Record<string, unknown>) } : convertCondition(rule.conditions as Record<string, unknown>);
+    return rule.inverted
+      ? { [Op.not]: convertCondition(rule.conditions as Record<string, unknown>) }
+      : convertCondition(rule.conditions as Record<string, unknown>);
   });
   if (query === null) {
     throw ForbiddenError.from(ability).setMessage(`You are not allowed to ${action} ${subjectType} records`);

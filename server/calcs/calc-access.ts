@@ -8,7 +8,14 @@ import { assertProjectOpen } from '../projects/project-open';
 
 /** The fields ability conditions look at; the same shape the client wraps with `subject()`. */
 export function revisionSubject(r: Revision) {
-  return subject('Revision', { id: r.id, calcId: r.calcId, status: r.status, authorId: r.authorId, checkerId: r.checkerId, approverId: r.approverId });
+  return subject('Revision', {
+    id: r.id,
+    calcId: r.calcId,
+    status: r.status,
+    authorId: r.authorId,
+    checkerId: r.checkerId,
+    approverId: r.approverId,
+  });
 }
 
 export function assertCan(ability: AppAbility, action: Action, r: Revision, message?: string): void {
@@ -58,10 +65,20 @@ export async function loadCalcForChange(id: number, transaction: Transaction): P
 /** The standard and the people of a locked revision, read without locks (they are only read). */
 async function attachAssociations(revision: Revision, transaction: Transaction): Promise<void> {
   const [ruleSetInclude, ...people] = REVISION_INCLUDE;
-  const ruleSet = await RuleSetRecord.findByPk(revision.ruleSetId, { attributes: ruleSetInclude.attributes, transaction });
+  const ruleSet = await RuleSetRecord.findByPk(revision.ruleSetId, {
+    attributes: ruleSetInclude.attributes,
+    transaction,
+  });
   const ids = [revision.authorId, revision.checkerId, revision.approverId].filter((v): v is number => v != null);
-  const users = new Map((await User.findAll({ where: { id: ids }, attributes: people[0].attributes, transaction })).map((u) => [u.id, u]));
-  const found = { ruleSet, author: users.get(revision.authorId) ?? null, checker: revision.checkerId ? users.get(revision.checkerId) ?? null : null, approver: revision.approverId ? users.get(revision.approverId) ?? null : null };
+  const users = new Map(
+    (await User.findAll({ where: { id: ids }, attributes: people[0].attributes, transaction })).map((u) => [u.id, u]),
+  );
+  const found = {
+    ruleSet,
+    author: users.get(revision.authorId) ?? null,
+    checker: revision.checkerId ? (users.get(revision.checkerId) ?? null) : null,
+    approver: revision.approverId ? (users.get(revision.approverId) ?? null) : null,
+  };
   // The same shape an include gives: both the property and dataValues, so DTO mapping sees no difference.
   for (const [key, value] of Object.entries(found)) {
     (revision.dataValues as Record<string, unknown>)[key] = value;
@@ -81,5 +98,9 @@ export async function editorIdsOf(calcId: number, transaction?: Transaction): Pr
 }
 
 export async function recordEditor(calcId: number, userId: number, transaction: Transaction): Promise<void> {
-  await CalcEditor.findOrCreate({ where: { calcId, userId }, defaults: { calcId, userId, firstEditAt: new Date() }, transaction });
+  await CalcEditor.findOrCreate({
+    where: { calcId, userId },
+    defaults: { calcId, userId, firstEditAt: new Date() },
+    transaction,
+  });
 }

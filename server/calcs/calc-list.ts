@@ -20,10 +20,23 @@ const SORTS: Record<CalcListQuery['sort'], KeyColumn[]> = {
 };
 
 interface Row {
-  id: number; project_id: number; project_code: string; number: string; title: string; part_ref: string;
-  latest_revision_id: number; latest_label: string; latest_status: RevisionState; latest_verdict: string | null;
-  latest_author_id: number; author_name: string; latest_rule_set_id: number; rs_code: string | null; rs_version: number | null;
-  latest_updated_at: Date; project_archived: number;
+  id: number;
+  project_id: number;
+  project_code: string;
+  number: string;
+  title: string;
+  part_ref: string;
+  latest_revision_id: number;
+  latest_label: string;
+  latest_status: RevisionState;
+  latest_verdict: string | null;
+  latest_author_id: number;
+  author_name: string;
+  latest_rule_set_id: number;
+  rs_code: string | null;
+  rs_version: number | null;
+  latest_updated_at: Date;
+  project_archived: number;
 }
 
 const SELECT = `SELECT c.id, c.project_id, c.project_code, c.number, c.title, c.part_ref, c.latest_revision_id, c.latest_label,
@@ -37,18 +50,35 @@ const SELECT = `SELECT c.id, c.project_id, c.project_code, c.number, c.title, c.
  */
 export function searchCondition(q: string): { sql: string; replacements: unknown[] } {
   const words = q.split(/[^\p{L}\p{N}]+/u).filter((w) => w.length >= 3);
-  if (words.length > 0) return { sql: 'MATCH(c.search_text) AGAINST (? IN BOOLEAN MODE)', replacements: [words.map((w) => `+${w}*`).join(' ')] };
+  if (words.length > 0)
+    return {
+      sql: 'MATCH(c.search_text) AGAINST (? IN BOOLEAN MODE)',
+      replacements: [words.map((w) => `+${w}*`).join(' ')],
+    };
   return { sql: 'c.number LIKE ?', replacements: [`${q.replace(/[\\%_]/g, '\\$&')}%`] };
 }
 
-const listedOf = (r: Row) => ({ revisionId: r.latest_revision_id, ruleSetId: r.latest_rule_set_id, authorId: r.latest_author_id, status: r.latest_status });
+const listedOf = (r: Row) => ({
+  revisionId: r.latest_revision_id,
+  ruleSetId: r.latest_rule_set_id,
+  authorId: r.latest_author_id,
+  status: r.latest_status,
+});
 
 function toItem(r: Row): CalcListItem {
   return {
-    id: r.id, projectId: r.project_id, projectCode: r.project_code, number: r.number, title: r.title, partRef: r.part_ref,
+    id: r.id,
+    projectId: r.project_id,
+    projectCode: r.project_code,
+    number: r.number,
+    title: r.title,
+    partRef: r.part_ref,
     projectArchived: Boolean(r.project_archived),
     latest: {
-      id: r.latest_revision_id, label: r.latest_label, status: r.latest_status, verdict: r.latest_verdict,
+      id: r.latest_revision_id,
+      label: r.latest_label,
+      status: r.latest_status,
+      verdict: r.latest_verdict,
       author: { id: r.latest_author_id, name: r.author_name },
       ruleSet: { id: r.latest_rule_set_id, code: r.rs_code ?? '', version: r.rs_version ?? 0 },
       updatedAt: new Date(r.latest_updated_at).toISOString(),
@@ -56,10 +86,13 @@ function toItem(r: Row): CalcListItem {
   };
 }
 
-const keyOf = (r: Row, sort: CalcListQuery['sort']): (string | number)[] => ({
-  number: [r.number, r.id], title: [r.title, r.id], updatedAt: [new Date(r.latest_updated_at).toISOString(), r.id],
-  status: [r.latest_status, new Date(r.latest_updated_at).toISOString(), r.id],
-}[sort]);
+const keyOf = (r: Row, sort: CalcListQuery['sort']): (string | number)[] =>
+  ({
+    number: [r.number, r.id],
+    title: [r.title, r.id],
+    updatedAt: [new Date(r.latest_updated_at).toISOString(), r.id],
+    status: [r.latest_status, new Date(r.latest_updated_at).toISOString(), r.id],
+  })[sort];
 
 /** Calcs by their latest revision, filtered, searched, sorted and paged by keyset from the summary columns. */
 export async function listCalcs(ability: AppAbility, query: CalcListQuery): Promise<KeysetPage<CalcListItem>> {
@@ -67,9 +100,19 @@ export async function listCalcs(ability: AppAbility, query: CalcListQuery): Prom
   // Every committed calc has a revision (both are written in one transaction), so no "has one" filter is needed.
   const where = ['TRUE'];
   const params: unknown[] = [];
-  if (query.projectId) { where.push('c.project_id = ?'); params.push(query.projectId); }
-  if (query.status) { where.push('c.latest_status = ?'); params.push(query.status); }
-  if (query.q) { const s = searchCondition(query.q); where.push(s.sql); params.push(...s.replacements); }
+  if (query.projectId) {
+    where.push('c.project_id = ?');
+    params.push(query.projectId);
+  }
+  if (query.status) {
+    where.push('c.latest_status = ?');
+    params.push(query.status);
+  }
+  if (query.q) {
+    const s = searchCondition(query.q);
+    where.push(s.sql);
+    params.push(...s.replacements);
+  }
   const filter = `FROM calcs c WHERE ${where.join(' AND ')}`;
   const columns = SORTS[query.sort];
   const page = [...where];
@@ -81,16 +124,22 @@ export async function listCalcs(ability: AppAbility, query: CalcListQuery): Prom
   }
   const sequelize = Calc.sequelize!;
   const [rows, counted] = await Promise.all([
-    sequelize.query<Row>(`${SELECT} FROM calcs c LEFT JOIN rule_sets rs ON rs.id = c.latest_rule_set_id
+    sequelize.query<Row>(
+      `${SELECT} FROM calcs c LEFT JOIN rule_sets rs ON rs.id = c.latest_rule_set_id
       JOIN projects p ON p.id = c.project_id WHERE ${page.join(' AND ')}
-      ORDER BY ${orderBy(columns, query.dir)} LIMIT ${query.size + 1}`, { replacements: pageParams, type: QueryTypes.SELECT }),
+      ORDER BY ${orderBy(columns, query.dir)} LIMIT ${query.size + 1}`,
+      { replacements: pageParams, type: QueryTypes.SELECT },
+    ),
     query.after ? null : cappedCount(sequelize, filter, params),
   ]);
   const more = rows.length > query.size;
   const items = rows.slice(0, query.size);
   const blind = await blindRevisionIds(ability, items.map(listedOf));
   return {
-    items: items.map((r) => toItem(blind.has(r.latest_revision_id) ? { ...r, latest_verdict: null } : r)), size: query.size, total: counted?.total ?? null, totalIsAtLeast: counted?.totalIsAtLeast ?? false,
+    items: items.map((r) => toItem(blind.has(r.latest_revision_id) ? { ...r, latest_verdict: null } : r)),
+    size: query.size,
+    total: counted?.total ?? null,
+    totalIsAtLeast: counted?.totalIsAtLeast ?? false,
     next: more ? encodeCursor(keyOf(items[items.length - 1], query.sort)) : null,
   };
 }

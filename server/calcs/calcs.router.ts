@@ -27,7 +27,17 @@ export function calcsRouter(calcs: CalcsService, lifecycle: LifecycleService): R
     res.json(await calcs.get(req.ability, idParam(req)));
   });
   router.post('/:id/revisions', validate({ body: newRevisionSchema }), async (req, res) => {
-    res.status(201).json(await lifecycle.newRevision(req.ability, signedInActor(req), idParam(req), req.body.reasonForChange, req.body.carryAttachments === true));
+    res
+      .status(201)
+      .json(
+        await lifecycle.newRevision(
+          req.ability,
+          signedInActor(req),
+          idParam(req),
+          req.body.reasonForChange,
+          req.body.carryAttachments === true,
+        ),
+      );
   });
   router.get('/:id/diff', validate({ query: diffQuerySchema }), async (req, res) => {
     res.json(await diffRevisions(req.ability, idParam(req), res.locals.query.from, res.locals.query.to));

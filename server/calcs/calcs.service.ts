@@ -31,10 +31,16 @@ export class CalcsService {
     if (!calc) throw AppError.notFound(`Calc ${id}`);
     // The history lists revisions: their input, result and checklist texts stay in the database.
     const revisions = await Revision.findAll({
-      where: { calcId: id }, attributes: { exclude: ['input', 'result', 'checklist', 'manualItems', 'outcome'] },
-      include: REVISION_INCLUDE.map((i) => (i.as === 'ruleSet' ? { ...i, attributes: ['id', 'code', 'version', 'title'] } : i)),
+      where: { calcId: id },
+      attributes: { exclude: ['input', 'result', 'checklist', 'manualItems', 'outcome'] },
+      include: REVISION_INCLUDE.map((i) =>
+        i.as === 'ruleSet' ? { ...i, attributes: ['id', 'code', 'version', 'title'] } : i,
+      ),
     });
-    const blind = await blindRevisionIds(ability, revisions.map((r) => ({ revisionId: r.id, ruleSetId: r.ruleSetId, authorId: r.authorId, status: r.status })));
+    const blind = await blindRevisionIds(
+      ability,
+      revisions.map((r) => ({ revisionId: r.id, ruleSetId: r.ruleSetId, authorId: r.authorId, status: r.status })),
+    );
     for (const r of revisions) if (blind.has(r.id)) r.verdict = null; // shown only, never saved
     return toCalcDto(calc, revisions);
   }
@@ -43,67 +49,138 @@ export class CalcsService {
     ForbiddenError.from(ability).setMessage('Only authors start calcs').throwUnlessCan('create', 'Calc');
     const project = await Project.findByPk(dto.projectId);
     if (!project || project.status !== 'active') {
-      throw new AppError('validation', 400, 'Choose an active project', { fieldErrors: { projectId: [project ? 'is archived' : 'does not exist'] } });
+      throw new AppError('validation', 400, 'Choose an active project', {
+        fieldErrors: { projectId: [project ? 'is archived' : 'does not exist'] },
+      });
     }
     const { record, doc } = await loadRuleSet(dto.ruleSetId);
     if (record.status !== 'effective') {
-      throw new AppError('validation', 400, `${record.code} v${record.version} is not in effect`, { fieldErrors: { ruleSetId: ['is not an effective version'] } });
+      throw new AppError('validation', 400, `${record.code} v${record.version} is not in effect`, {
+        fieldErrors: { ruleSetId: ['is not an effective version'] },
+      });
     }
     if (await Calc.findOne({ where: { projectId: dto.projectId, number: dto.number } })) {
-      throw new AppError('conflict', 409, `Calc number ${dto.number} is already used in ${project.code}`, { fieldErrors: { number: ['is already used in this project'] } });
+      throw new AppError('conflict', 409, `Calc number ${dto.number} is already used in ${project.code}`, {
+        fieldErrors: { number: ['is already used in this project'] },
+      });
     }
     const computed = await computeRecord(dto.input, doc);
     const calcId = await runTransaction(this.sequelize, async (transaction) => {
-      const calc = await Calc.create({ projectId: project.id, number: dto.number, title: dto.title, partRef: dto.partRef, createdBy: actor.id }, { transaction });
-      const revision = await Revision.create({
-        calcId: calc.id, seq: 0, label: revisionLabel(project.revisionScheme, 0), authorId: actor.id, ruleSetId: record.id,
-        input: JSON.stringify(dto.input), reasonForChange: 'First issue', manualItems: '{}', ...stored(computed),
-      }, { transaction });
+      const calc = await Calc.create(
+        { projectId: project.id, number: dto.number, title: dto.title, partRef: dto.partRef, createdBy: actor.id },
+        { transaction },
+      );
+      const revision = await Revision.create(
+        {
+          calcId: calc.id,
+          seq: 0,
+          label: revisionLabel(project.revisionScheme, 0),
+          authorId: actor.id,
+          ruleSetId: record.id,
+          input: JSON.stringify(dto.input),
+          reasonForChange: 'First issue',
+          manualItems: '{}',
+          ...stored(computed),
+        },
+        { transaction },
+      );
       await this.refreshHash(revision, transaction);
       await recordEditor(calc.id, actor.id, transaction);
-      await appendAudit(this.sequelize, actor, {
-        action: 'calc.created', entityType: 'Calc', entityId: calc.id,
-        payload: { project: project.code, number: dto.number, title: dto.title, revision: revision.label, ruleSet: `${record.code} v${record.version}` },
-      }, transaction);
+      await appendAudit(
+        this.sequelize,
+        actor,
+        {
+          action: 'calc.created',
+          entityType: 'Calc',
+          entityId: calc.id,
+          payload: {
+            project: project.code,
+            number: dto.number,
+            title: dto.title,
+            revision: revision.label,
+            ruleSet: `${record.code} v${record.version}`,
+          },
+        },
+        transaction,
+      );
       return calc.id;
     });
     return this.get(ability, calcId);
   }
 
   /** Saves the author's input. A stale `lockVersion` is a 409 carrying the stored version, never an overwrite. */
-  async save(ability: AppAbility, actor: Actor & { id: number }, revisionId: number, dto: SaveRevisionRequest): Promise<RevisionDto> {
-    await runTransaction(this.sequelize, async (transaction, attempt) => {
-      const revision = await loadRevision(revisionId, transaction);
-      // A run after a COMMIT whose answer was lost: this exact save is already stored.
-      if (attempt > 1 && revision.lockVersion === dto.lockVersion + 1 && revision.input === JSON.stringify(dto.input)) return;
-      // Checked after the replay above (not by loadRevisionForChange): a replayed save answers as the first did.
-      await assertProjectOpen(revision.calcId, transaction);
-      if (!EDITABLE_STATES.includes(revision.status)) {
-        throw new AppError('read_only', 409, `Revision ${revision.label} is ${revision.status.replace('_', ' ')} and cannot be edited; start a new revision to change it`);
-      }
-      assertCan(ability, 'update', revision, 'Only the author of this revision can edit it');
-      if (revision.lockVersion !== dto.lockVersion) {
-        const current = await readRevision(ability, revisionId, transaction);
-        throw new AppError('conflict', 409, 'This revision was saved elsewhere since you opened it', { current });
-      }
-      const ruleSetId = dto.ruleSetId ?? revision.ruleSetId;
-      const { record, doc } = await loadRuleSet(ruleSetId, transaction);
-      if (ruleSetId !== revision.ruleSetId && record.status !== 'effective') {
-        throw new AppError('validation', 400, 'Only an effective standard can be chosen', { fieldErrors: { ruleSetId: ['is not an effective version'] } });
-      }
-      const computed = await computeRecord(dto.input, doc);
-      const diff = jsonDiff(JSON.parse(revision.input), dto.input, `${revision.label}@${revision.lockVersion}`, `${revision.label}@${revision.lockVersion + 1}`);
-      revision.set({ input: JSON.stringify(dto.input), ruleSetId, lockVersion: revision.lockVersion + 1, ...stored(computed) });
-      await revision.save({ transaction });
-      await revision.reload({ include: REVISION_INCLUDE, transaction });
-      await this.refreshHash(revision, transaction);
-      await recordEditor(revision.calcId, actor.id, transaction);
-      await appendAudit(this.sequelize, actor, {
-        action: 'revision.saved', entityType: 'Revision', entityId: revision.id,
-        payload: { calcId: revision.calcId, revision: revision.label, lockVersion: revision.lockVersion, verdict: revision.verdict, ruleSet: `${record.code} v${record.version}` },
-        diff,
-      }, transaction);
-    }, { idempotent: true });
+  async save(
+    ability: AppAbility,
+    actor: Actor & { id: number },
+    revisionId: number,
+    dto: SaveRevisionRequest,
+  ): Promise<RevisionDto> {
+    await runTransaction(
+      this.sequelize,
+      async (transaction, attempt) => {
+        const revision = await loadRevision(revisionId, transaction);
+        // A run after a COMMIT whose answer was lost: this exact save is already stored.
+        if (attempt > 1 && revision.lockVersion === dto.lockVersion + 1 && revision.input === JSON.stringify(dto.input))
+          return;
+        // Checked after the replay above (not by loadRevisionForChange): a replayed save answers as the first did.
+        await assertProjectOpen(revision.calcId, transaction);
+        if (!EDITABLE_STATES.includes(revision.status)) {
+          throw new AppError(
+            'read_only',
+            409,
+            `Revision ${revision.label} is ${revision.status.replace('_', ' ')} and cannot be edited; start a new revision to change it`,
+          );
+        }
+        assertCan(ability, 'update', revision, 'Only the author of this revision can edit it');
+        if (revision.lockVersion !== dto.lockVersion) {
+          const current = await readRevision(ability, revisionId, transaction);
+          throw new AppError('conflict', 409, 'This revision was saved elsewhere since you opened it', { current });
+        }
+        const ruleSetId = dto.ruleSetId ?? revision.ruleSetId;
+        const { record, doc } = await loadRuleSet(ruleSetId, transaction);
+        if (ruleSetId !== revision.ruleSetId && record.status !== 'effective') {
+          throw new AppError('validation', 400, 'Only an effective standard can be chosen', {
+            fieldErrors: { ruleSetId: ['is not an effective version'] },
+          });
+        }
+        const computed = await computeRecord(dto.input, doc);
+        const diff = jsonDiff(
+          JSON.parse(revision.input),
+          dto.input,
+          `${revision.label}@${revision.lockVersion}`,
+          `${revision.label}@${revision.lockVersion + 1}`,
+        );
+        revision.set({
+          input: JSON.stringify(dto.input),
+          ruleSetId,
+          lockVersion: revision.lockVersion + 1,
+          ...stored(computed),
+        });
+        await revision.save({ transaction });
+        await revision.reload({ include: REVISION_INCLUDE, transaction });
+        await this.refreshHash(revision, transaction);
+        await recordEditor(revision.calcId, actor.id, transaction);
+        await appendAudit(
+          this.sequelize,
+          actor,
+          {
+            action: 'revision.saved',
+            entityType: 'Revision',
+            entityId: revision.id,
+            payload: {
+              calcId: revision.calcId,
+              revision: revision.label,
+              lockVersion: revision.lockVersion,
+              verdict: revision.verdict,
+              ruleSet: `${record.code} v${record.version}`,
+            },
+            diff,
+          },
+          transaction,
+        );
+      },
+      { idempotent: true },
+    );
     return readRevision(ability, revisionId);
   }
 
@@ -125,4 +202,3 @@ export function stored(c: Awaited<ReturnType<typeof computeRecord>>) {
     outcome: JSON.stringify(outcomeOf(c.checklist)),
   };
 }
-

@@ -1,6 +1,13 @@
 import { createHash } from 'node:crypto';
 import canonicalize from 'canonicalize';
-import { CalcInputError, ENGINE_VERSION, evaluateValidInput, validateCalcInput, type CalcInput, type CalcResult } from '../../shared/engine';
+import {
+  CalcInputError,
+  ENGINE_VERSION,
+  evaluateValidInput,
+  validateCalcInput,
+  type CalcInput,
+  type CalcResult,
+} from '../../shared/engine';
 import { applyRuleSetMethods, evaluateChecklist, type Checklist, type RuleSet } from '../../shared/rules';
 import type { InputIssue } from '../../shared/schemas/calc-dto';
 import { nonFinitePath } from '../../shared/json/finite-json';
@@ -34,7 +41,12 @@ export async function computeRecord(input: unknown, ruleSet: RuleSet): Promise<C
     // The engine's own non-finite backstop names the input entry; keep its paths.
     if (err instanceof CalcInputError) return { result: null, checklist: null, verdict: null, inputIssues: err.issues };
     const message = err instanceof Error ? err.message : String(err);
-    return { result: null, checklist: null, verdict: null, inputIssues: [{ path: '', message: `could not be evaluated: ${message}` }] };
+    return {
+      result: null,
+      checklist: null,
+      verdict: null,
+      inputIssues: [{ path: '', message: `could not be evaluated: ${message}` }],
+    };
   }
 }
 
@@ -49,8 +61,15 @@ const INPUT_ENTRY = /^result\.(segments|features|torques)\[(\d+)\]/;
 function notComputable(where: string): ComputedRecord {
   const entry = INPUT_ENTRY.exec(where);
   return {
-    result: null, checklist: null, verdict: null,
-    inputIssues: [{ path: entry ? `${entry[1]}[${entry[2]}]` : '', message: `gives a value that is not a finite number (${namePathsIn(where.replace(/^(result|checklist)\./, ''))}); the input is outside the range the calculation can handle, so nothing was evaluated` }],
+    result: null,
+    checklist: null,
+    verdict: null,
+    inputIssues: [
+      {
+        path: entry ? `${entry[1]}[${entry[2]}]` : '',
+        message: `gives a value that is not a finite number (${namePathsIn(where.replace(/^(result|checklist)\./, ''))}); the input is outside the range the calculation can handle, so nothing was evaluated`,
+      },
+    ],
   };
 }
 
@@ -58,7 +77,12 @@ function notComputable(where: string): ComputedRecord {
 export const CONTENT_FORMAT = 2;
 
 /** One attachment as a signature covers it: what it is and which bytes. */
-export interface SignedAttachment { name: string; kind: string; sizeBytes: number; sha256: string }
+export interface SignedAttachment {
+  name: string;
+  kind: string;
+  sizeBytes: number;
+  sha256: string;
+}
 
 export interface HashedContent {
   calc: { project: string; number: string; title: string; partRef: string };
@@ -81,7 +105,8 @@ type AttachmentRow = { fileName: string; kind: string; sizeBytes: number | strin
 
 /** The attachment set in a stable order, so upload order never changes the hash. */
 export function signedAttachments(rows: readonly AttachmentRow[]): SignedAttachment[] {
-  return rows.map((a) => ({ name: a.fileName, kind: a.kind, sizeBytes: Number(a.sizeBytes), sha256: a.sha256 }))
+  return rows
+    .map((a) => ({ name: a.fileName, kind: a.kind, sizeBytes: Number(a.sizeBytes), sha256: a.sha256 }))
     .sort((a, b) => (a.sha256 + a.name + a.kind).localeCompare(b.sha256 + b.name + b.kind));
 }
 
@@ -89,11 +114,23 @@ export function signedAttachments(rows: readonly AttachmentRow[]): SignedAttachm
  * Exactly what a revision's content hash covers; the one builder for signing, reading and packs.
  * Format 1 (signatures made before attachments were signed) leaves the attachments out.
  */
-export function hashedContentOf(calc: CalcIdentity, label: string, input: unknown, result: unknown, checklist: unknown, ruleSet: RuleSetIdentity,
-  format = 1, attachments: readonly AttachmentRow[] = [], independentModel: unknown = null): HashedContent {
+export function hashedContentOf(
+  calc: CalcIdentity,
+  label: string,
+  input: unknown,
+  result: unknown,
+  checklist: unknown,
+  ruleSet: RuleSetIdentity,
+  format = 1,
+  attachments: readonly AttachmentRow[] = [],
+  independentModel: unknown = null,
+): HashedContent {
   const base: HashedContent = {
     calc: { project: calc.Project.code, number: calc.number, title: calc.title, partRef: calc.partRef },
-    revision: label, input, result, checklist,
+    revision: label,
+    input,
+    result,
+    checklist,
     engineVersion: (result as { engineVersion?: string } | null)?.engineVersion ?? ENGINE_VERSION,
     ruleSet: { code: ruleSet?.code ?? '', version: ruleSet?.version ?? 0, contentHash: ruleSet?.contentHash ?? '' },
   };
@@ -108,5 +145,7 @@ export function hashedContentOf(calc: CalcIdentity, label: string, input: unknow
  */
 export function contentHashOf(content: Omit<HashedContent, 'engineVersion'> & { engineVersion?: string }): string {
   const full: HashedContent = { ...content, engineVersion: content.engineVersion ?? ENGINE_VERSION };
-  return createHash('sha256').update(canonicalize(full) ?? '').digest('hex');
+  return createHash('sha256')
+    .update(canonicalize(full) ?? '')
+    .digest('hex');
 }

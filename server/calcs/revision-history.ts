@@ -13,15 +13,34 @@ export interface RevisionDiffDto {
 }
 
 /** A unified diff between any two revisions of one calc: the inputs, and the checklist verdicts. */
-export async function diffRevisions(ability: AppAbility, calcId: number, fromId: number, toId: number): Promise<RevisionDiffDto> {
+export async function diffRevisions(
+  ability: AppAbility,
+  calcId: number,
+  fromId: number,
+  toId: number,
+): Promise<RevisionDiffDto> {
   ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
   const [from, to] = await Promise.all([Revision.findByPk(fromId), Revision.findByPk(toId)]);
   if (!from || from.calcId !== calcId) throw AppError.notFound(`Revision ${fromId} of calc ${calcId}`);
   if (!to || to.calcId !== calcId) throw AppError.notFound(`Revision ${toId} of calc ${calcId}`);
-  if ((await blindRevisionIds(ability, [from, to].map((r) => ({ revisionId: r.id, ruleSetId: r.ruleSetId, authorId: r.authorId, status: r.status })))).size) throw blindError();
+  if (
+    (
+      await blindRevisionIds(
+        ability,
+        [from, to].map((r) => ({ revisionId: r.id, ruleSetId: r.ruleSetId, authorId: r.authorId, status: r.status })),
+      )
+    ).size
+  )
+    throw blindError();
   const rows = (r: Revision) => {
-    const checklist = r.checklist ? (JSON.parse(r.checklist) as { rows?: { clauseId: string; location?: { label?: string; index?: number }; status: string }[] }) : null;
-    return (checklist?.rows ?? []).map((row) => `${row.clauseId} ${row.location?.label ?? row.location?.index ?? ''}: ${row.status}`);
+    const checklist = r.checklist
+      ? (JSON.parse(r.checklist) as {
+          rows?: { clauseId: string; location?: { label?: string; index?: number }; status: string }[];
+        })
+      : null;
+    return (checklist?.rows ?? []).map(
+      (row) => `${row.clauseId} ${row.location?.label ?? row.location?.index ?? ''}: ${row.status}`,
+    );
   };
   return {
     from: { id: from.id, label: from.label },

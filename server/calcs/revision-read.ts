@@ -17,22 +17,48 @@ import { lockedModelOf } from '../independent/signed-model';
  * The hash covers the result as the engine returned it, with its units and formulas put back, and
  * (format 2, the default for the revision's own format) the attachment set as stored now.
  */
-export async function currentHashOf(revision: Revision, transaction?: Transaction, result?: unknown, format = revision.contentFormat ?? 1): Promise<string | null> {
+export async function currentHashOf(
+  revision: Revision,
+  transaction?: Transaction,
+  result?: unknown,
+  format = revision.contentFormat ?? 1,
+): Promise<string | null> {
   if (!revision.result || !revision.checklist) return null;
   const [calc, expanded, attachments] = await Promise.all([
-    Calc.findByPk(revision.calcId, { include: [Project], attributes: ['id', 'number', 'title', 'partRef', 'projectId'], transaction }) as Promise<Calc & { Project: Project }>,
+    Calc.findByPk(revision.calcId, {
+      include: [Project],
+      attributes: ['id', 'number', 'title', 'partRef', 'projectId'],
+      transaction,
+    }) as Promise<Calc & { Project: Project }>,
     result ?? expandResult(Revision.sequelize!, revision.result, transaction),
     format >= 2 ? Attachment.findAll({ where: { revisionId: revision.id }, transaction }) : [],
   ]);
   const model = format >= 3 ? await lockedModelOf(revision.id, transaction) : null;
-  return contentHashOf(hashedContentOf(calc, revision.label, JSON.parse(revision.input), expanded, JSON.parse(revision.checklist), revision.ruleSet, format, attachments, model));
+  return contentHashOf(
+    hashedContentOf(
+      calc,
+      revision.label,
+      JSON.parse(revision.input),
+      expanded,
+      JSON.parse(revision.checklist),
+      revision.ruleSet,
+      format,
+      attachments,
+      model,
+    ),
+  );
 }
 
 /**
  * The current hash in every format a signature of this revision was made in, so each signature
  * is judged by the content it covered: tampering or a changed attachment set shows as broken.
  */
-export async function currentHashesOf(revision: Revision, signatures: readonly Signature[], transaction?: Transaction, result?: unknown): Promise<Map<number, string | null>> {
+export async function currentHashesOf(
+  revision: Revision,
+  signatures: readonly Signature[],
+  transaction?: Transaction,
+  result?: unknown,
+): Promise<Map<number, string | null>> {
   const formats = new Set([revision.contentFormat ?? 1, ...signatures.map((s) => s.contentFormat ?? 1)]);
   const hashes = new Map<number, string | null>();
   for (const f of formats) hashes.set(f, await currentHashOf(revision, transaction, result, f));
@@ -49,10 +75,18 @@ export async function readRevision(ability: AppAbility, id: number, transaction?
     editorIdsOf(revision.calcId, transaction),
   ]);
   const currentHashes = await currentHashesOf(revision, signatures, transaction, result);
-  const userIds = new Set(findings.flatMap((f) => [f.raisedBy, f.answeredBy, f.closedBy]).filter((v): v is number => v != null));
-  const users = userIds.size ? await User.findAll({ where: { id: { [Op.in]: [...userIds] } }, attributes: ['id', 'displayName'], transaction }) : [];
+  const userIds = new Set(
+    findings.flatMap((f) => [f.raisedBy, f.answeredBy, f.closedBy]).filter((v): v is number => v != null),
+  );
+  const users = userIds.size
+    ? await User.findAll({ where: { id: { [Op.in]: [...userIds] } }, attributes: ['id', 'displayName'], transaction })
+    : [];
   const dto = toRevisionDto(revision, {
-    result, signatures, findings, editorIds, currentHashes,
+    result,
+    signatures,
+    findings,
+    editorIds,
+    currentHashes,
     names: new Map(users.map((u) => [u.id, u.displayName])),
     inputIssues: await inputIssuesOf(revision),
   });

@@ -26,10 +26,18 @@ export function compactResult(result: CalcResult | null): string | null {
 /** Records this engine version's metadata once per process, so later engine versions can still read these rows. */
 // Outside the caller's transaction: the row must outlive a rolled-back save.
 export function registerEngineMetadata(sequelize: Sequelize): Promise<void> {
-  registered ??= sequelize.query(
-    'INSERT IGNORE INTO engine_metadata (engine_version, fields, methods, created_at) VALUES (?, ?, ?, UTC_TIMESTAMP(3))',
-    { replacements: [ENGINE_VERSION, JSON.stringify(FIELDS), JSON.stringify(METHODS)] },
-  ).then(() => undefined, (err) => { registered = null; throw err; });
+  registered ??= sequelize
+    .query(
+      'INSERT IGNORE INTO engine_metadata (engine_version, fields, methods, created_at) VALUES (?, ?, ?, UTC_TIMESTAMP(3))',
+      { replacements: [ENGINE_VERSION, JSON.stringify(FIELDS), JSON.stringify(METHODS)] },
+    )
+    .then(
+      () => undefined,
+      (err) => {
+        registered = null;
+        throw err;
+      },
+    );
   return registered;
 }
 
@@ -37,7 +45,8 @@ async function metadataOf(sequelize: Sequelize, version: string, transaction?: T
   const cached = known.get(version);
   if (cached) return cached;
   const [row] = await sequelize.query<{ fields: string; methods: string }>(
-    'SELECT fields, methods FROM engine_metadata WHERE engine_version = ?', { replacements: [version], type: QueryTypes.SELECT, transaction },
+    'SELECT fields, methods FROM engine_metadata WHERE engine_version = ?',
+    { replacements: [version], type: QueryTypes.SELECT, transaction },
   );
   if (!row && version === ENGINE_VERSION) return { fields: FIELDS, methods: METHODS };
   if (!row) throw new Error(`No unit and formula metadata is recorded for engine version ${version}`);
@@ -47,7 +56,11 @@ async function metadataOf(sequelize: Sequelize, version: string, transaction?: T
 }
 
 /** A stored result as the engine returned it (with `fields` and `methods`). */
-export async function expandResult(sequelize: Sequelize, text: string | null, transaction?: Transaction): Promise<CalcResult | null> {
+export async function expandResult(
+  sequelize: Sequelize,
+  text: string | null,
+  transaction?: Transaction,
+): Promise<CalcResult | null> {
   if (!text) return null;
   const stored = JSON.parse(text) as CalcResult;
   if (stored.fields) return stored;

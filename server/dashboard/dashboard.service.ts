@@ -17,8 +17,10 @@ async function standardsToConfirm(ability: AppAbility, userId: number): Promise<
     order: [['updatedAt', 'ASC']],
   });
   return rows.map((r) => ({
-    kind: 'Standard to confirm', title: `${r.code} v${r.version} — ${r.title}`,
-    detail: `proposed to take effect on ${r.effectiveDate}`, link: `/rule-sets/${r.id}`,
+    kind: 'Standard to confirm',
+    title: `${r.code} v${r.version} — ${r.title}`,
+    detail: `proposed to take effect on ${r.effectiveDate}`,
+    link: `/rule-sets/${r.id}`,
     since: r.updatedAt.toISOString(),
   }));
 }

@@ -2,7 +2,13 @@ import { QueryTypes } from 'sequelize';
 import { z } from 'zod';
 import type { SessionUser } from '../../shared/schemas/auth.schema';
 import { cursorSchema } from '../../shared/schemas/common.schema';
-import { QUEUE_KEYS, QUEUE_LABELS, type QueueDto, type QueueItem, type QueueKey } from '../../shared/schemas/queue.schema';
+import {
+  QUEUE_KEYS,
+  QUEUE_LABELS,
+  type QueueDto,
+  type QueueItem,
+  type QueueKey,
+} from '../../shared/schemas/queue.schema';
 import type { RevisionState } from '../../shared/schemas/revision.schema';
 import { QUEUES, WORKFLOW } from '../../shared/workflow/revision-states';
 import type { Relation } from '../../shared/workflow/relations';
@@ -31,7 +37,8 @@ const RELATION_SQL: Record<Relation, (userId: number) => Filter> = {
   own: (userId) => ({ sql: 'c.latest_author_id = ?', params: [userId] }),
   independent: (userId) => ({ sql: NOT_EDITED_BY, params: [userId] }),
   'independent-of-checker': (userId) => ({
-    sql: `c.latest_checker_id <> ? AND ${NOT_EDITED_BY}`, params: [userId, userId],
+    sql: `c.latest_checker_id <> ? AND ${NOT_EDITED_BY}`,
+    params: [userId, userId],
   }),
 };
 
@@ -52,14 +59,30 @@ export const queueKeysOf = (user: SessionUser): QueueKey[] =>
   QUEUE_KEYS.filter((k) => user.roles.includes(turnOf(k).turn.role));
 
 interface Row {
-  id: number; latest_revision_id: number; project_code: string; number: string; title: string; latest_label: string;
-  latest_status: RevisionState; latest_verdict: string | null; author_name: string; latest_since: Date;
-  latest_author_id: number; latest_rule_set_id: number;
+  id: number;
+  latest_revision_id: number;
+  project_code: string;
+  number: string;
+  title: string;
+  latest_label: string;
+  latest_status: RevisionState;
+  latest_verdict: string | null;
+  author_name: string;
+  latest_since: Date;
+  latest_author_id: number;
+  latest_rule_set_id: number;
 }
 
 const toItem = (r: Row): QueueItem => ({
-  calcId: r.id, revisionId: r.latest_revision_id, projectCode: r.project_code, number: r.number, title: r.title,
-  revision: r.latest_label, status: r.latest_status, verdict: r.latest_verdict, authorName: r.author_name,
+  calcId: r.id,
+  revisionId: r.latest_revision_id,
+  projectCode: r.project_code,
+  number: r.number,
+  title: r.title,
+  revision: r.latest_label,
+  status: r.latest_status,
+  verdict: r.latest_verdict,
+  authorName: r.author_name,
   since: new Date(r.latest_since).toISOString(),
 });
 
@@ -67,7 +90,9 @@ const toItem = (r: Row): QueueItem => ({
 export async function queuePage(user: SessionUser, key: QueueKey, query: QueueQuery): Promise<QueueDto> {
   const sequelize = Calc.sequelize!;
   const filter = filterOf(key, user.id);
-  const keyset = query.after ? keysetCondition(KEY, decodeCursor(query.after, KEY), 'asc') : { sql: 'TRUE', replacements: [] };
+  const keyset = query.after
+    ? keysetCondition(KEY, decodeCursor(query.after, KEY), 'asc')
+    : { sql: 'TRUE', replacements: [] };
   const [rows, counted] = await Promise.all([
     sequelize.query<Row>(
       `SELECT c.id, c.latest_revision_id, c.project_code, c.number, c.title, c.latest_label, c.latest_status, c.latest_verdict,
@@ -79,9 +104,22 @@ export async function queuePage(user: SessionUser, key: QueueKey, query: QueueQu
   ]);
   const items = rows.slice(0, query.size);
   const last = items[items.length - 1];
-  const blind = await blindRevisionIds(createAppAbility(defineRulesFor(user)), items.map((r) => ({ revisionId: r.latest_revision_id, ruleSetId: r.latest_rule_set_id, authorId: r.latest_author_id, status: r.latest_status })));
+  const blind = await blindRevisionIds(
+    createAppAbility(defineRulesFor(user)),
+    items.map((r) => ({
+      revisionId: r.latest_revision_id,
+      ruleSetId: r.latest_rule_set_id,
+      authorId: r.latest_author_id,
+      status: r.latest_status,
+    })),
+  );
   return {
-    key, label: QUEUE_LABELS[key], items: items.map((r) => toItem(blind.has(r.latest_revision_id) ? { ...r, latest_verdict: null } : r)), total: counted?.total ?? null, totalIsAtLeast: counted?.totalIsAtLeast ?? false, size: query.size,
+    key,
+    label: QUEUE_LABELS[key],
+    items: items.map((r) => toItem(blind.has(r.latest_revision_id) ? { ...r, latest_verdict: null } : r)),
+    total: counted?.total ?? null,
+    totalIsAtLeast: counted?.totalIsAtLeast ?? false,
+    size: query.size,
     next: rows.length > query.size ? encodeCursor([new Date(last.latest_since).toISOString(), last.id]) : null,
   };
 }

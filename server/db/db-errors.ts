@@ -14,8 +14,17 @@ import { BaseError, ConnectionError, DatabaseError, TimeoutError } from 'sequeli
 const ROLLED_BACK_CODES = new Set([1213, 1205, 1047, 1180]);
 const CONNECTION_CODES = new Set([1927, 4031, 2006, 2013]);
 // Codes of the mariadb connector for a socket that closed or never opened.
-const CONNECTOR_CODES = new Set(['ER_SOCKET_UNEXPECTED_CLOSE', 'ER_CONNECTION_TIMEOUT', 'ER_GET_CONNECTION_TIMEOUT',
-  'ECONNRESET', 'ECONNREFUSED', 'EPIPE', 'ETIMEDOUT', 'ER_CONNECTION_ALREADY_CLOSED', 'ER_CMD_CONNECTION_CLOSED']);
+const CONNECTOR_CODES = new Set([
+  'ER_SOCKET_UNEXPECTED_CLOSE',
+  'ER_CONNECTION_TIMEOUT',
+  'ER_GET_CONNECTION_TIMEOUT',
+  'ECONNRESET',
+  'ECONNREFUSED',
+  'EPIPE',
+  'ETIMEDOUT',
+  'ER_CONNECTION_ALREADY_CLOSED',
+  'ER_CMD_CONNECTION_CLOSED',
+]);
 
 export type DbFault = 'rolled_back' | 'connection' | undefined;
 

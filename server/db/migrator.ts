@@ -23,6 +23,11 @@ export function createMigrator(sequelize: Sequelize) {
     },
     context: sequelize.getQueryInterface(),
     storage: new SequelizeStorage({ sequelize, tableName: 'migrations_meta' }),
-    logger: { info: (m) => logger.debug(m), warn: (m) => logger.warn(m), error: (m) => logger.error(m), debug: () => {} },
+    logger: {
+      info: (m) => logger.debug(m),
+      warn: (m) => logger.warn(m),
+      error: (m) => logger.error(m),
+      debug: () => {},
+    },
   });
 }

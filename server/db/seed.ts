@@ -15,7 +15,8 @@ const SYSTEM = { id: null, name: 'demo data loader', ip: null };
 
 function printAccounts(): void {
   console.log(`\nDemo accounts (password for all: ${DEMO_PASSWORD}):`);
-  for (const u of DEMO_USERS) console.log(`  ${u.username.padEnd(11)} ${u.displayName.padEnd(18)} ${u.roles.join(' + ')}`);
+  for (const u of DEMO_USERS)
+    console.log(`  ${u.username.padEnd(11)} ${u.displayName.padEnd(18)} ${u.roles.join(' + ')}`);
   console.log('');
 }
 
@@ -32,21 +33,43 @@ async function main(): Promise<void> {
     const passwordHash = await hashPassword(DEMO_PASSWORD);
     await sequelize.transaction(async (transaction) => {
       for (const u of DEMO_USERS) {
-        const user = await User.create({ username: u.username, displayName: u.displayName, email: u.email, passwordHash }, { transaction });
-        await UserRole.bulkCreate(u.roles.map((role) => ({ userId: user.id, role })), { transaction });
-        await appendAudit(sequelize, SYSTEM, { action: 'user.created', entityType: 'User', entityId: user.id, payload: { ...u } }, transaction);
+        const user = await User.create(
+          { username: u.username, displayName: u.displayName, email: u.email, passwordHash },
+          { transaction },
+        );
+        await UserRole.bulkCreate(
+          u.roles.map((role) => ({ userId: user.id, role })),
+          { transaction },
+        );
+        await appendAudit(
+          sequelize,
+          SYSTEM,
+          { action: 'user.created', entityType: 'User', entityId: user.id, payload: { ...u } },
+          transaction,
+        );
       }
       for (const p of DEMO_PROJECTS) {
         const project = await Project.create({ ...p, createdBy: null }, { transaction });
-        await appendAudit(sequelize, SYSTEM, { action: 'project.created', entityType: 'Project', entityId: project.id, payload: p }, transaction);
+        await appendAudit(
+          sequelize,
+          SYSTEM,
+          { action: 'project.created', entityType: 'Project', entityId: project.id, payload: p },
+          transaction,
+        );
       }
     });
     const config = loadConfig();
-    const attachments = new AttachmentsService(sequelize, new ObjectStore(config), config.ATTACHMENT_MAX_MB * 1024 * 1024);
+    const attachments = new AttachmentsService(
+      sequelize,
+      new ObjectStore(config),
+      config.ATTACHMENT_MAX_MB * 1024 * 1024,
+    );
     const baseUrl = config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}`;
     await seedDemoCalcs(sequelize, baseUrl, attachments);
     await seedDemoReviewHealth(sequelize, baseUrl, attachments);
-    console.log(`demo data loaded: ${DEMO_USERS.length} users, ${DEMO_PROJECTS.length} projects, calcs in every workflow state`);
+    console.log(
+      `demo data loaded: ${DEMO_USERS.length} users, ${DEMO_PROJECTS.length} projects, calcs in every workflow state`,
+    );
     printAccounts();
   } finally {
     await sequelize.close();

@@ -29,7 +29,9 @@ export const RETRY_AFTER_SECONDS = 2;
  * reading inside the transaction: a retry starts from fresh rows. Every write service uses this.
  */
 export async function runTransaction<T>(
-  sequelize: Sequelize, work: (t: Transaction, attempt: number) => Promise<T>, options: TransactionOptions = {},
+  sequelize: Sequelize,
+  work: (t: Transaction, attempt: number) => Promise<T>,
+  options: TransactionOptions = {},
 ): Promise<T> {
   const started = Date.now();
   retryStats.transactions++;
@@ -71,16 +73,28 @@ export function backoff(attempt: number): number {
 
 function causeOf(err: unknown, fault: string): string {
   const d = (err as { parent?: { errno?: number; code?: string } }).parent;
-  return d?.errno ? `${d.errno}` : d?.code ?? fault;
+  return d?.errno ? `${d.errno}` : (d?.code ?? fault);
 }
 
 /** The clean answer a client may retry: nothing was changed, come back shortly. */
 export function unavailable(cause?: unknown): AppError {
-  return new AppError('unavailable', 503, 'The database is busy or switching over; nothing was changed. Try again in a moment.',
-    { retryAfterSeconds: RETRY_AFTER_SECONDS }, true, { cause });
+  return new AppError(
+    'unavailable',
+    503,
+    'The database is busy or switching over; nothing was changed. Try again in a moment.',
+    { retryAfterSeconds: RETRY_AFTER_SECONDS },
+    true,
+    { cause },
+  );
 }
 
 function unknownOutcome(cause: unknown): AppError {
-  return new AppError('unavailable', 503, 'The connection to the database broke while the change was being committed; reload to see whether it was recorded before trying again.',
-    { retryAfterSeconds: RETRY_AFTER_SECONDS }, true, { cause });
+  return new AppError(
+    'unavailable',
+    503,
+    'The connection to the database broke while the change was being committed; reload to see whether it was recorded before trying again.',
+    { retryAfterSeconds: RETRY_AFTER_SECONDS },
+    true,
+    { cause },
+  );
 }

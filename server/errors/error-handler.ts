@@ -10,7 +10,9 @@ import { unavailable } from '../db/transaction';
 
 /** JSON 404 for unknown API routes, so clients never receive the app's HTML for a typo. */
 export const apiNotFound: RequestHandler = (req, res) => {
-  res.status(404).json({ code: 'not_found', message: `No API route ${req.method} ${req.originalUrl}` } satisfies ApiErrorBody);
+  res
+    .status(404)
+    .json({ code: 'not_found', message: `No API route ${req.method} ${req.originalUrl}` } satisfies ApiErrorBody);
 };
 
 function toAppError(err: unknown): AppError | undefined {
@@ -33,7 +35,9 @@ function toAppError(err: unknown): AppError | undefined {
   }
   // The router cannot percent-decode a path such as /%c0%ae: the path, not the server, is at fault.
   if (err instanceof URIError) {
-    return new AppError('bad_path', 400, 'The address is not valid: it holds a bad percent-encoding', { fieldErrors: { path: ['has a bad percent-encoding'] } });
+    return new AppError('bad_path', 400, 'The address is not valid: it holds a bad percent-encoding', {
+      fieldErrors: { path: ['has a bad percent-encoding'] },
+    });
   }
   // A database that deadlocked, timed out or is changing over (outside a retried transaction, e.g.
   // a read or the session store) is a clean 503 the client may retry, never a 500.
@@ -52,9 +56,14 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, next) => {
   const known = toAppError(err);
   if (known) {
     if (known.status === 503) res.set('Retry-After', String(known.details?.retryAfterSeconds ?? 1));
-    res.status(known.status).json({ code: known.code, message: known.message, ...known.details } satisfies ApiErrorBody);
+    res
+      .status(known.status)
+      .json({ code: known.code, message: known.message, ...known.details } satisfies ApiErrorBody);
     return;
   }
   logger.error({ err, method: req.method, url: req.originalUrl }, 'unhandled error');
-  res.status(500).json({ code: 'internal', message: 'Something went wrong on the server; it has been logged.' } satisfies ApiErrorBody);
+  res.status(500).json({
+    code: 'internal',
+    message: 'Something went wrong on the server; it has been logged.',
+  } satisfies ApiErrorBody);
 };

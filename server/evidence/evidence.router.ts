@@ -1,5 +1,4 @@
 import type { Router } from 'express';
-import { validate } from '../http/validate';
 import { idParam, idRouter } from '../http/route-ids';
 import { signedInActor } from '../authz/actor';
 import { logger } from '../logger';
@@ -10,8 +9,15 @@ export function evidenceRouter(evidence: EvidenceService, organisation: string, 
   const router = idRouter();
   router.get('/:id/evidence.zip', async (req, res) => {
     const actor = signedInActor(req);
-    const pack = await evidence.build(req.ability, actor, idParam(req), { organisation, baseUrl, generatedBy: actor.name });
-    res.type('application/zip').attachment(pack.fileName).set({ 'Cache-Control': 'private, no-store', 'X-Evidence-Seal': pack.sealHash });
+    const pack = await evidence.build(req.ability, actor, idParam(req), {
+      organisation,
+      baseUrl,
+      generatedBy: actor.name,
+    });
+    res
+      .type('application/zip')
+      .attachment(pack.fileName)
+      .set({ 'Cache-Control': 'private, no-store', 'X-Evidence-Seal': pack.sealHash });
     // Headers are gone once streaming starts; a broken connection is logged, not answered.
     await writeZip(pack.files, res).catch((err) => logger.warn({ err }, 'evidence pack download interrupted'));
   });

@@ -11,7 +11,11 @@ import { packContents, readme } from './pack-contents';
 import { MANIFEST_FORMAT, type Manifest } from './pack-verify';
 import { sha256 } from './record-json';
 
-export interface SealedPack { fileName: string; files: Map<string, Buffer>; sealHash: string }
+export interface SealedPack {
+  fileName: string;
+  files: Map<string, Buffer>;
+  sealHash: string;
+}
 
 /**
  * Evidence packs for compliance: the whole record of a calc in one zip, sealed by the SHA-256 of
@@ -19,16 +23,30 @@ export interface SealedPack { fileName: string; files: Map<string, Buffer>; seal
  * later — even with a rewritten manifest — no longer matches anything on record.
  */
 export class EvidenceService {
-  constructor(private readonly sequelize: Sequelize, private readonly store: ObjectStore, private readonly reports: ReportService) {}
+  constructor(
+    private readonly sequelize: Sequelize,
+    private readonly store: ObjectStore,
+    private readonly reports: ReportService,
+  ) {}
 
-  async build(ability: AppAbility, actor: Actor & { id: number }, calcId: number, ctx: ReportContext): Promise<SealedPack> {
-    ForbiddenError.from(ability).setMessage('Evidence packs are exported by compliance').throwUnlessCan('audit', 'Calc');
+  async build(
+    ability: AppAbility,
+    actor: Actor & { id: number },
+    calcId: number,
+    ctx: ReportContext,
+  ): Promise<SealedPack> {
+    ForbiddenError.from(ability)
+      .setMessage('Evidence packs are exported by compliance')
+      .throwUnlessCan('audit', 'Calc');
     const { calc, files } = await packContents(ability, calcId, this.store, this.reports, ctx);
     const label = `${calc.Project.code} ${calc.number}`;
     const exportedAt = new Date().toISOString();
     files.set('README.txt', readme(label, actor.name, exportedAt));
     const manifest: Manifest = {
-      format: MANIFEST_FORMAT, calc: label, exportedAt, exportedBy: actor.name,
+      format: MANIFEST_FORMAT,
+      calc: label,
+      exportedAt,
+      exportedBy: actor.name,
       files: [...files].map(([path, data]) => ({ path, sha256: sha256(data), size: data.length })),
     };
     const manifestBytes = Buffer.from(`${JSON.stringify(manifest, null, 2)}\n`, 'utf8');
@@ -36,7 +54,9 @@ export class EvidenceService {
     files.set('manifest.json', manifestBytes);
     files.set('manifest.sha256', Buffer.from(`${sealHash}\n`));
     await appendAudit(this.sequelize, actor, {
-      action: 'evidence.exported', entityType: 'Calc', entityId: calc.id,
+      action: 'evidence.exported',
+      entityType: 'Calc',
+      entityId: calc.id,
       payload: { calc: label, manifestSha256: sealHash, files: manifest.files.length },
     });
     const fileName = `evidence_${label.replace(/[^A-Za-z0-9._-]+/g, '-')}_${exportedAt.slice(0, 10)}.zip`;

@@ -13,7 +13,12 @@ export const MANIFEST_FORMAT = 'torquetrail-evidence/1';
 
 const sha256Hex = z.string().regex(/^[0-9a-f]{64}$/, 'must be a SHA-256 in hex');
 const packPath = z.string().min(1).max(1000);
-const signedAttachment = z.object({ name: z.string().max(300), kind: z.string().max(40), sizeBytes: z.number().int().min(0), sha256: sha256Hex });
+const signedAttachment = z.object({
+  name: z.string().max(300),
+  kind: z.string().max(40),
+  sizeBytes: z.number().int().min(0),
+  sha256: sha256Hex,
+});
 
 export const manifestSchema = z.object({
   format: z.literal(MANIFEST_FORMAT),
@@ -28,12 +33,29 @@ export const packRecordSchema = z.object({
   format: z.literal(RECORD_FORMAT),
   contentHash: sha256Hex.nullable(),
   content: z.unknown(),
-  signatures: z.array(z.object({
-    meaning: z.string().max(40), printedName: z.string().max(300), contentHash: sha256Hex,
-    // From content format 2 on: the format and the attachment set the signature covered.
-    contentFormat: z.number().int().min(1).max(99).optional(), attachmentsCovered: z.array(signedAttachment).max(10_000).nullable().optional(),
-  })).max(100),
-  attachments: z.array(z.object({ path: packPath, sha256: sha256Hex, fileName: z.string().max(300), kind: z.string().max(40), sizeBytes: z.number().int().min(0) })).max(10_000),
+  signatures: z
+    .array(
+      z.object({
+        meaning: z.string().max(40),
+        printedName: z.string().max(300),
+        contentHash: sha256Hex,
+        // From content format 2 on: the format and the attachment set the signature covered.
+        contentFormat: z.number().int().min(1).max(99).optional(),
+        attachmentsCovered: z.array(signedAttachment).max(10_000).nullable().optional(),
+      }),
+    )
+    .max(100),
+  attachments: z
+    .array(
+      z.object({
+        path: packPath,
+        sha256: sha256Hex,
+        fileName: z.string().max(300),
+        kind: z.string().max(40),
+        sizeBytes: z.number().int().min(0),
+      }),
+    )
+    .max(10_000),
 });
 export type PackRecord = z.infer<typeof packRecordSchema>;
 
@@ -50,7 +72,10 @@ export type AuditRow = z.infer<typeof auditRowSchema>;
 export type PackJson<T> = { ok: true; value: T } | { ok: false; detail: string };
 
 const pathText = (path: readonly PropertyKey[]): string =>
-  path.reduce<string>((acc, k) => (typeof k === 'number' ? `${acc}[${k}]` : acc ? `${acc}.${String(k)}` : String(k)), '');
+  path.reduce<string>(
+    (acc, k) => (typeof k === 'number' ? `${acc}[${k}]` : acc ? `${acc}.${String(k)}` : String(k)),
+    '',
+  );
 
 /** One JSON file of the pack, strictly parsed and checked; `detail` names the first bad field. */
 export function readPackJson<T>(files: Map<string, Buffer>, name: string, schema: z.ZodType<T>): PackJson<T> {

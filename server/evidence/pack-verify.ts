@@ -1,7 +1,14 @@
 import type { PackCheck } from '../../shared/schemas/verify.schema';
 import { chainHash } from '../audit/audit-chain';
 import { contentHash, sha256 } from './record-json';
-import { auditTrailSchema, manifestSchema, packRecordSchema, readPackJson, type Manifest, type PackRecord } from './pack-schema';
+import {
+  auditTrailSchema,
+  manifestSchema,
+  packRecordSchema,
+  readPackJson,
+  type Manifest,
+  type PackRecord,
+} from './pack-schema';
 
 export { MANIFEST_FORMAT, type Manifest, type PackRecord } from './pack-schema';
 import { attachmentListCheck, signatureCheck } from './signature-checks';
@@ -30,10 +37,15 @@ function fileChecks(files: Map<string, Buffer>, manifest: Manifest): PackCheck[]
     const data = files.get(f.path);
     if (!data) return { name: f.path, ok: false, detail: 'listed in the manifest but missing from the pack' };
     const ok = sha256(data) === f.sha256 && data.length === f.size;
-    return { name: f.path, ok, detail: ok ? 'SHA-256 matches the manifest' : 'content differs from the manifest: the file was changed' };
+    return {
+      name: f.path,
+      ok,
+      detail: ok ? 'SHA-256 matches the manifest' : 'content differs from the manifest: the file was changed',
+    };
   });
   for (const name of files.keys()) {
-    if (!listed.has(name) && !SEAL_FILES.has(name)) checks.push({ name, ok: false, detail: 'not listed in the manifest: added after export' });
+    if (!listed.has(name) && !SEAL_FILES.has(name))
+      checks.push({ name, ok: false, detail: 'not listed in the manifest: added after export' });
   }
   return checks;
 }
@@ -46,7 +58,13 @@ function recordChecks(files: Map<string, Buffer>, path: string): PackCheck[] {
   if (record.contentHash) {
     const actual = contentHash(record.content);
     const ok = actual === record.contentHash;
-    checks.push({ name: `${path} content`, ok, detail: ok ? 'recomputed content hash equals the record hash' : 'recomputed content hash differs: the record content was changed' });
+    checks.push({
+      name: `${path} content`,
+      ok,
+      detail: ok
+        ? 'recomputed content hash equals the record hash'
+        : 'recomputed content hash differs: the record content was changed',
+    });
     checks.push(...attachmentListCheck(path, record.content, record.attachments));
     // A signature holds only for the content actually in the pack: over altered content every mark is a failure.
     for (const s of record.signatures) checks.push(signatureCheck(path, record.contentHash, actual, record.content, s));
@@ -54,7 +72,11 @@ function recordChecks(files: Map<string, Buffer>, path: string): PackCheck[] {
   for (const a of record.attachments) {
     const data = files.get(a.path);
     const ok = !!data && sha256(data) === a.sha256;
-    checks.push({ name: a.path, ok, detail: ok ? 'matches the SHA-256 in the record' : 'missing or different from the SHA-256 in the record' });
+    checks.push({
+      name: a.path,
+      ok,
+      detail: ok ? 'matches the SHA-256 in the record' : 'missing or different from the SHA-256 in the record',
+    });
   }
   return checks;
 }
@@ -64,10 +86,16 @@ function auditChecks(files: Map<string, Buffer>): PackCheck[] {
   if (!read.ok) return [{ name: 'audit-trail.json', ok: false, detail: `missing or unreadable: ${read.detail}` }];
   const events = read.value.events;
   const broken = events.filter(({ id: _id, prevHash, hash, ...content }) => chainHash(prevHash, content) !== hash);
-  return [{
-    name: 'audit-trail.json', ok: broken.length === 0,
-    detail: broken.length === 0 ? `${events.length} rows; every row's hash recomputes` : `rows ${broken.map((r) => r.id).join(', ')} do not match their hashes`,
-  }];
+  return [
+    {
+      name: 'audit-trail.json',
+      ok: broken.length === 0,
+      detail:
+        broken.length === 0
+          ? `${events.length} rows; every row's hash recomputes`
+          : `rows ${broken.map((r) => r.id).join(', ')} do not match their hashes`,
+    },
+  ];
 }
 
 /**
@@ -75,15 +103,31 @@ function auditChecks(files: Map<string, Buffer>): PackCheck[] {
  * manifest, each record's content against its hash, attachments, and the audit rows' hashes.
  * Every file is schema-checked first (pack-schema.ts), so a crafted pack fails checks, never throws.
  */
-export function verifyPackFiles(files: Map<string, Buffer>): { manifest: Manifest | null; sealHash: string | null; checks: PackCheck[] } {
+export function verifyPackFiles(files: Map<string, Buffer>): {
+  manifest: Manifest | null;
+  sealHash: string | null;
+  checks: PackCheck[];
+} {
   const read = readPackJson(files, 'manifest.json', manifestSchema);
   if (!read.ok) {
-    return { manifest: null, sealHash: null, checks: [{ name: 'manifest.json', ok: false, detail: `missing or not a Torquetrail evidence manifest: ${read.detail}` }] };
+    return {
+      manifest: null,
+      sealHash: null,
+      checks: [
+        { name: 'manifest.json', ok: false, detail: `missing or not a Torquetrail evidence manifest: ${read.detail}` },
+      ],
+    };
   }
   const manifest = read.value;
   const sealHash = sha256(files.get('manifest.json')!);
   const written = files.get('manifest.sha256')?.toString('utf8').trim();
-  const checks: PackCheck[] = [{ name: 'manifest.sha256', ok: written === sealHash, detail: written === sealHash ? 'matches manifest.json' : 'does not match manifest.json' }];
+  const checks: PackCheck[] = [
+    {
+      name: 'manifest.sha256',
+      ok: written === sealHash,
+      detail: written === sealHash ? 'matches manifest.json' : 'does not match manifest.json',
+    },
+  ];
   checks.push(...fileChecks(files, manifest));
   for (const path of recordPaths(manifest)) checks.push(...recordChecks(files, path));
   checks.push(...auditChecks(files));

@@ -9,11 +9,15 @@ function refuse(reason: string): AppError {
   return AppError.validation({ file: [reason] });
 }
 
-const open = (zip: Buffer): Promise<ZipFile> => new Promise((resolve, reject) => {
-  // strictFileNames refuses "..", absolute and backslash names; sizes are cross-checked while reading.
-  yauzl.fromBuffer(zip, { lazyEntries: true, strictFileNames: true, validateEntrySizes: true, decodeStrings: true },
-    (err, zipfile) => (err ? reject(err) : resolve(zipfile)));
-});
+const open = (zip: Buffer): Promise<ZipFile> =>
+  new Promise((resolve, reject) => {
+    // strictFileNames refuses "..", absolute and backslash names; sizes are cross-checked while reading.
+    yauzl.fromBuffer(
+      zip,
+      { lazyEntries: true, strictFileNames: true, validateEntrySizes: true, decodeStrings: true },
+      (err, zipfile) => (err ? reject(err) : resolve(zipfile)),
+    );
+  });
 
 function readEntry(zipfile: ZipFile, entry: Entry, room: number): Promise<Buffer> {
   return new Promise((resolve, reject) => {
@@ -45,7 +49,7 @@ async function readAll(zipfile: ZipFile, maxTotal: number): Promise<Map<string, 
     if (entry.uncompressedSize > maxTotal - total) throw refuse('unpacks to more than the size limit');
     const data = await readEntry(zipfile, entry, maxTotal - total);
     // yauzl checks sizes; the CRC is ours to check (a changed byte must not pass as the original).
-    if ((crc32(data) >>> 0) !== (entry.crc32 >>> 0)) throw refuse(`has an entry whose checksum does not match (${name})`);
+    if (crc32(data) >>> 0 !== entry.crc32 >>> 0) throw refuse(`has an entry whose checksum does not match (${name})`);
     total += data.length;
     files.set(name, data);
   }
@@ -55,9 +59,18 @@ async function readAll(zipfile: ZipFile, maxTotal: number): Promise<Map<string, 
 function nextEntry(zipfile: ZipFile): Promise<Entry | null> {
   return new Promise((resolve, reject) => {
     const cleanup = () => zipfile.removeAllListeners('entry').removeAllListeners('end').removeAllListeners('error');
-    zipfile.once('entry', (e: Entry) => { cleanup(); resolve(e); });
-    zipfile.once('end', () => { cleanup(); resolve(null); });
-    zipfile.once('error', (err: Error) => { cleanup(); reject(err); });
+    zipfile.once('entry', (e: Entry) => {
+      cleanup();
+      resolve(e);
+    });
+    zipfile.once('end', () => {
+      cleanup();
+      resolve(null);
+    });
+    zipfile.once('error', (err: Error) => {
+      cleanup();
+      reject(err);
+    });
     zipfile.readEntry();
   });
 }

@@ -4,7 +4,8 @@ import type { Request } from 'express';
 /** Longest address text the audit trail keeps (the width of audit_events.ip). */
 export const IP_TEXT_MAX = 255;
 
-const isAddress = (text: string | undefined): text is string => !!text && text.length <= IP_TEXT_MAX && isIP(text) !== 0;
+const isAddress = (text: string | undefined): text is string =>
+  !!text && text.length <= IP_TEXT_MAX && isIP(text) !== 0;
 
 /**
  * The address to record for a request. `req.ip` comes from X-Forwarded-For when a proxy is

@@ -35,9 +35,19 @@ function cell<T>(column: CsvColumn<T>, row: T): string | number {
  * the rows, and optional closing lines (summary, caution) after a blank line. Closing lines are
  * ours, but they are neutralised all the same.
  */
-export function toCsv<T>(columns: readonly CsvColumn<T>[], rows: readonly T[], closing: readonly string[] = []): string {
+export function toCsv<T>(
+  columns: readonly CsvColumn<T>[],
+  rows: readonly T[],
+  closing: readonly string[] = [],
+): string {
   const options = { record_delimiter: 'windows' as const, quoted_string: true, quoted_empty: true };
-  const body = stringify([columns.map((c) => neutralise(c.header)), ...rows.map((r) => columns.map((c) => cell(c, r)))], options);
+  const body = stringify(
+    [columns.map((c) => neutralise(c.header)), ...rows.map((r) => columns.map((c) => cell(c, r)))],
+    options,
+  );
   if (closing.length === 0) return body;
-  return `${body}\r\n${stringify(closing.map((line) => [neutralise(line)]), options)}`;
+  return `${body}\r\n${stringify(
+    closing.map((line) => [neutralise(line)]),
+    options,
+  )}`;
 }

@@ -40,7 +40,8 @@ export function jsonBody(limit: string): RequestHandler[] {
       req.body = parsed.value;
       return next();
     }
-    if (parsed.issue.message.startsWith('not valid JSON')) throw new AppError('entity.parse.failed', 400, 'Request body is not valid JSON');
+    if (parsed.issue.message.startsWith('not valid JSON'))
+      throw new AppError('entity.parse.failed', 400, 'Request body is not valid JSON');
     // Field errors name the body's own fields; the body as a whole is the empty path, as in validate.ts.
     throw AppError.validation({ [parsed.issue.path === ROOT_PATH ? '' : parsed.issue.path]: [parsed.issue.message] });
   };

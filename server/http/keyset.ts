@@ -7,7 +7,11 @@ import { AppError } from '../errors/app-error';
  * A column may have an ordered domain (an ENUM sorts by its declared order, not alphabetically):
  * then "after" is the list of later values, which the index still serves as ranges.
  */
-export interface KeyColumn { sql: string; domain?: readonly string[]; isDate?: boolean }
+export interface KeyColumn {
+  sql: string;
+  domain?: readonly string[];
+  isDate?: boolean;
+}
 
 type KeyValue = string | number;
 
@@ -22,14 +26,25 @@ export function decodeCursor(cursor: string, columns: KeyColumn[]): KeyValue[] {
   } catch {
     values = null;
   }
-  const fits = Array.isArray(values) && values.length === columns.length
-    && values.every((v, i) => (columns[i].domain ? columns[i].domain!.includes(v as string) : typeof v === 'string' || typeof v === 'number'));
-  if (!fits) throw new AppError('validation', 400, 'The page cursor is not valid for this list', { fieldErrors: { after: ['is not a page cursor of this list; start from the first page'] } });
+  const fits =
+    Array.isArray(values) &&
+    values.length === columns.length &&
+    values.every((v, i) =>
+      columns[i].domain ? columns[i].domain!.includes(v as string) : typeof v === 'string' || typeof v === 'number',
+    );
+  if (!fits)
+    throw new AppError('validation', 400, 'The page cursor is not valid for this list', {
+      fieldErrors: { after: ['is not a page cursor of this list; start from the first page'] },
+    });
   return values as KeyValue[];
 }
 
 /** `(a, b, id) > (x, y, z)` spelled as ORs of equalities and one inequality, which MariaDB turns into index ranges. */
-export function keysetCondition(columns: KeyColumn[], values: KeyValue[], dir: 'asc' | 'desc'): { sql: string; replacements: unknown[] } {
+export function keysetCondition(
+  columns: KeyColumn[],
+  values: KeyValue[],
+  dir: 'asc' | 'desc',
+): { sql: string; replacements: unknown[] } {
   const ors: string[] = [];
   const replacements: unknown[] = [];
   const value = (i: number) => (columns[i].isDate ? new Date(values[i] as string) : values[i]);
@@ -52,7 +67,8 @@ export function keysetCondition(columns: KeyColumn[], values: KeyValue[], dir: '
   return { sql: ors.length ? `(${ors.join(' OR ')})` : 'FALSE', replacements };
 }
 
-export const orderBy = (columns: KeyColumn[], dir: 'asc' | 'desc') => columns.map((c) => `${c.sql} ${dir.toUpperCase()}`).join(', ');
+export const orderBy = (columns: KeyColumn[], dir: 'asc' | 'desc') =>
+  columns.map((c) => `${c.sql} ${dir.toUpperCase()}`).join(', ');
 
 export const TOTAL_CAP = 10_000;
 
@@ -60,9 +76,15 @@ export const TOTAL_CAP = 10_000;
  * Counts the rows of a filter, but stops at TOTAL_CAP + 1 so that a broad filter over a million
  * rows costs a bounded index walk; past the cap the answer is "more than 10,000".
  */
-export async function cappedCount(sequelize: Sequelize, fromWhere: string, replacements: unknown[], cap = TOTAL_CAP): Promise<{ total: number; totalIsAtLeast: boolean }> {
+export async function cappedCount(
+  sequelize: Sequelize,
+  fromWhere: string,
+  replacements: unknown[],
+  cap = TOTAL_CAP,
+): Promise<{ total: number; totalIsAtLeast: boolean }> {
   const [row] = await sequelize.query<{ n: number }>(
-    `SELECT COUNT(*) AS n FROM (SELECT 1 ${fromWhere} LIMIT ${cap + 1}) counted`, { replacements, type: QueryTypes.SELECT },
+    `SELECT COUNT(*) AS n FROM (SELECT 1 ${fromWhere} LIMIT ${cap + 1}) counted`,
+    { replacements, type: QueryTypes.SELECT },
   );
   const n = Number(row.n);
   return n > cap ? { total: cap, totalIsAtLeast: true } : { total: n, totalIsAtLeast: false };

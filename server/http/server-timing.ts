@@ -9,7 +9,8 @@ export function serverTiming(): RequestHandler {
     const start = process.hrtime.bigint();
     const writeHead = res.writeHead.bind(res) as (...args: unknown[]) => ReturnType<typeof res.writeHead>;
     res.writeHead = ((...args: unknown[]) => {
-      if (!res.headersSent) res.setHeader('Server-Timing', `app;dur=${(Number(process.hrtime.bigint() - start) / 1e6).toFixed(1)}`);
+      if (!res.headersSent)
+        res.setHeader('Server-Timing', `app;dur=${(Number(process.hrtime.bigint() - start) / 1e6).toFixed(1)}`);
       return writeHead(...args);
     }) as typeof res.writeHead;
     next();

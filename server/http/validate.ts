@@ -25,7 +25,8 @@ export function zodFieldErrors(error: z.ZodError, prefix = '', out: FieldErrors 
   for (const issue of error.issues) {
     // A strict schema reports unknown fields as one issue on their parent; name each field instead.
     if (issue.code === 'unrecognized_keys') {
-      for (const key of issue.keys) addFieldError(out, pathOf([...issue.path, key], prefix), 'is not an accepted field');
+      for (const key of issue.keys)
+        addFieldError(out, pathOf([...issue.path, key], prefix), 'is not an accepted field');
       continue;
     }
     addFieldError(out, pathOf(issue.path, prefix), issue.message);

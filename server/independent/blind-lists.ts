@@ -6,7 +6,12 @@ import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { BLIND_STATES } from './blind';
 import { viewerOf } from './viewer';
 
-export interface ListedRevision { revisionId: number; ruleSetId: number; authorId: number; status: string }
+export interface ListedRevision {
+  revisionId: number;
+  ruleSetId: number;
+  authorId: number;
+  status: string;
+}
 
 /**
  * Lists show each calc's verdict; for a blind checker that is the author's result. Lists do not
@@ -19,23 +24,35 @@ export async function blindRevisionIds(ability: AppAbility, rows: readonly Liste
   const candidates = rows.filter((r) => viewer.mayCheck && r.authorId !== viewer.id && BLIND_STATES.includes(r.status));
   if (!candidates.length) return new Set();
   const ruleSetIds = [...new Set(candidates.map((r) => r.ruleSetId))];
-  const records = await RuleSetRecord.findAll({ where: { id: ruleSetIds }, attributes: ['id', 'lockVersion', 'document'] });
+  const records = await RuleSetRecord.findAll({
+    where: { id: ruleSetIds },
+    attributes: ['id', 'lockVersion', 'document'],
+  });
   const asking = new Set(records.filter((r) => parseRuleSet(r).verification).map((r) => r.id));
   const inScope = candidates.filter((r) => asking.has(r.ruleSetId));
   if (!inScope.length) return new Set();
   const own = await IndependentModel.findAll({
-    where: { revisionId: inScope.map((r) => r.revisionId), checkerId: viewer.id ?? 0, lockedAt: { [Op.ne]: null } }, attributes: ['revisionId'],
+    where: { revisionId: inScope.map((r) => r.revisionId), checkerId: viewer.id ?? 0, lockedAt: { [Op.ne]: null } },
+    attributes: ['revisionId'],
   });
   const done = new Set(own.map((m) => m.revisionId));
   return new Set(inScope.filter((r) => !done.has(r.revisionId)).map((r) => r.revisionId));
 }
 
 /** Hides the verdict of each listed revision the reader must not see yet. */
-export async function hideBlindVerdicts<T extends { verdict: string | null }>(ability: AppAbility, items: T[], listed: (item: T) => ListedRevision): Promise<T[]> {
+export async function hideBlindVerdicts<T extends { verdict: string | null }>(
+  ability: AppAbility,
+  items: T[],
+  listed: (item: T) => ListedRevision,
+): Promise<T[]> {
   const blind = await blindRevisionIds(ability, items.map(listed));
   return blind.size ? items.map((i) => (blind.has(listed(i).revisionId) ? { ...i, verdict: null } : i)) : items;
 }
 
 export function blindError(): AppError {
-  return new AppError('forbidden', 403, "Build and lock your independent model first: until then the author's numbers stay hidden from you");
+  return new AppError(
+    'forbidden',
+    403,
+    "Build and lock your independent model first: until then the author's numbers stay hidden from you",
+  );
 }

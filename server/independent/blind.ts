@@ -21,7 +21,12 @@ export function needOf(revision: Revision): VerificationNeed {
  * sees none of the author's numbers until their own independent model is locked. Approvers,
  * compliance and the author are not blind; a person who is also a checker is, to be safe.
  */
-export function isBlind(viewer: Viewer, revision: Pick<Revision, 'authorId' | 'status'>, need: VerificationNeed, model: IndependentModel | null): boolean {
+export function isBlind(
+  viewer: Viewer,
+  revision: Pick<Revision, 'authorId' | 'status'>,
+  need: VerificationNeed,
+  model: IndependentModel | null,
+): boolean {
   if (need.method !== 'independent-model' || !viewer.mayCheck || viewer.id === revision.authorId) return false;
   if (!BLIND_STATES.includes(revision.status)) return false;
   return !(model?.lockedAt && model.checkerId === viewer.id);
@@ -32,15 +37,32 @@ export async function modelOfRevision(revisionId: number, transaction?: Transact
 }
 
 /** The verification part of a revision read, for this reader. */
-export async function verificationFor(ability: AppAbility, revision: Revision, transaction?: Transaction): Promise<RevisionVerification> {
+export async function verificationFor(
+  ability: AppAbility,
+  revision: Revision,
+  transaction?: Transaction,
+): Promise<RevisionVerification> {
   const need = needOf(revision);
   const model = await modelOfRevision(revision.id, transaction);
-  const checker = model ? await User.findByPk(model.checkerId, { attributes: ['id', 'displayName'], transaction }) : null;
+  const checker = model
+    ? await User.findByPk(model.checkerId, { attributes: ['id', 'displayName'], transaction })
+    : null;
   const name = checker?.displayName ?? 'unknown';
-  const differences = model?.comparison ? (JSON.parse(model.comparison) as { rows: { agrees: boolean }[] }).rows.filter((r) => !r.agrees).length : null;
+  const differences = model?.comparison
+    ? (JSON.parse(model.comparison) as { rows: { agrees: boolean }[] }).rows.filter((r) => !r.agrees).length
+    : null;
   return {
-    need, blind: isBlind(viewerOf(ability), revision, need, model),
-    model: model ? { state: model.lockedAt ? 'locked' : 'open', checker: { id: model.checkerId, name }, lockedAt: model.lockedAt?.toISOString() ?? null, agrees: model.agrees, differences } : null,
+    need,
+    blind: isBlind(viewerOf(ability), revision, need, model),
+    model: model
+      ? {
+          state: model.lockedAt ? 'locked' : 'open',
+          checker: { id: model.checkerId, name },
+          lockedAt: model.lockedAt?.toISOString() ?? null,
+          agrees: model.agrees,
+          differences,
+        }
+      : null,
     signed: model ? signedModelOf(model, name) : null,
   };
 }
@@ -48,14 +70,25 @@ export async function verificationFor(ability: AppAbility, revision: Revision, t
 /** A revision read with the author's numbers left out, for a blind checker: what they may see stays. */
 export function blindRead(dto: RevisionDto): RevisionDto {
   return {
-    ...dto, input: {}, result: null, checklist: null, verdict: null, inputIssues: [],
+    ...dto,
+    input: {},
+    result: null,
+    checklist: null,
+    verdict: null,
+    inputIssues: [],
     // Findings and their answers quote the author's values; the checker reads them after locking.
-    findings: [], manualItems: {},
+    findings: [],
+    manualItems: {},
   };
 }
 
 /** Adds the verification part to a revision read and applies the blind rule (server/calcs/revision-read.ts). */
-export async function withVerification(ability: AppAbility, revision: Revision, dto: RevisionDto, transaction?: Transaction): Promise<RevisionDto> {
+export async function withVerification(
+  ability: AppAbility,
+  revision: Revision,
+  dto: RevisionDto,
+  transaction?: Transaction,
+): Promise<RevisionDto> {
   const verification = await verificationFor(ability, revision, transaction);
   if (!verification.blind) return { ...dto, verification };
   return { ...blindRead(dto), verification: { ...verification, signed: null } };

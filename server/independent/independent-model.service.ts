@@ -35,38 +35,77 @@ export class IndependentModelService {
     return toModelDto(model, await nameOf(model.checkerId));
   }
 
-  async save(ability: AppAbility, actor: Checker, revisionId: number, input: Record<string, unknown>, lockVersion: number): Promise<IndependentModelDto> {
+  async save(
+    ability: AppAbility,
+    actor: Checker,
+    revisionId: number,
+    input: Record<string, unknown>,
+    lockVersion: number,
+  ): Promise<IndependentModelDto> {
     const id = await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
       await assertProjectOpen(revision.calcId, transaction);
-      const model = await IndependentModel.findOne({ where: { revisionId }, transaction, lock: transaction.LOCK.UPDATE });
+      const model = await IndependentModel.findOne({
+        where: { revisionId },
+        transaction,
+        lock: transaction.LOCK.UPDATE,
+      });
       await assertModelWriter(ability, actor, revision, model, transaction);
-      if ((model?.lockVersion ?? 0) !== lockVersion) throw AppError.conflict('The independent model changed since you opened it (another tab?); reload it');
+      if ((model?.lockVersion ?? 0) !== lockVersion)
+        throw AppError.conflict('The independent model changed since you opened it (another tab?); reload it');
       const record = await computeRecord(input, parseRuleSet(revision.ruleSet!));
       const values = {
-        input: JSON.stringify(input), result: record.result ? JSON.stringify(record.result) : null,
-        checklist: record.checklist ? JSON.stringify(record.checklist) : null, verdict: record.verdict,
+        input: JSON.stringify(input),
+        result: record.result ? JSON.stringify(record.result) : null,
+        checklist: record.checklist ? JSON.stringify(record.checklist) : null,
+        verdict: record.verdict,
       };
       const saved = model
         ? await model.update({ ...values, lockVersion: model.lockVersion + 1 }, { transaction })
-        : await IndependentModel.create({ revisionId, checkerId: actor.id, ...values, lockVersion: 1 }, { transaction });
-      await appendAudit(this.sequelize, actor, {
-        action: model ? 'independent_model.saved' : 'independent_model.started', entityType: 'Revision', entityId: revisionId,
-        payload: { calcId: revision.calcId, revision: revision.label, modelId: saved.id, lockVersion: saved.lockVersion, verdict: record.verdict },
-      }, transaction);
+        : await IndependentModel.create(
+            { revisionId, checkerId: actor.id, ...values, lockVersion: 1 },
+            { transaction },
+          );
+      await appendAudit(
+        this.sequelize,
+        actor,
+        {
+          action: model ? 'independent_model.saved' : 'independent_model.started',
+          entityType: 'Revision',
+          entityId: revisionId,
+          payload: {
+            calcId: revision.calcId,
+            revision: revision.label,
+            modelId: saved.id,
+            lockVersion: saved.lockVersion,
+            verdict: record.verdict,
+          },
+        },
+        transaction,
+      );
       return saved.id;
     });
     return this.readOwn(id);
   }
 
-  async lock(ability: AppAbility, actor: Checker, revisionId: number, lockVersion: number): Promise<IndependentModelDto> {
+  async lock(
+    ability: AppAbility,
+    actor: Checker,
+    revisionId: number,
+    lockVersion: number,
+  ): Promise<IndependentModelDto> {
     const id = await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
       await assertProjectOpen(revision.calcId, transaction);
-      const model = await IndependentModel.findOne({ where: { revisionId }, transaction, lock: transaction.LOCK.UPDATE });
+      const model = await IndependentModel.findOne({
+        where: { revisionId },
+        transaction,
+        lock: transaction.LOCK.UPDATE,
+      });
       if (!model) throw AppError.notFound(`The independent model of revision ${revision.label}`);
       await assertModelWriter(ability, actor, revision, model, transaction);
-      if (model.lockVersion !== lockVersion) throw AppError.conflict('The independent model changed since you opened it; reload it before locking');
+      if (model.lockVersion !== lockVersion)
+        throw AppError.conflict('The independent model changed since you opened it; reload it before locking');
       await lockAndCompare(this.sequelize, actor, revision as Revision, model, transaction);
       return model.id;
     });

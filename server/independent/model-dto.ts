@@ -8,11 +8,21 @@ export function toModelDto(m: IndependentModel, checkerName: string): Independen
   const input = JSON.parse(m.input) as Record<string, unknown>;
   const validated = validateCalcInput(input);
   return {
-    id: m.id, revisionId: m.revisionId, checker: { id: m.checkerId, name: checkerName }, state: m.lockedAt ? 'locked' : 'open',
-    input, result: m.result ? JSON.parse(m.result) : null, checklist: m.checklist ? JSON.parse(m.checklist) : null, verdict: m.verdict,
+    id: m.id,
+    revisionId: m.revisionId,
+    checker: { id: m.checkerId, name: checkerName },
+    state: m.lockedAt ? 'locked' : 'open',
+    input,
+    result: m.result ? JSON.parse(m.result) : null,
+    checklist: m.checklist ? JSON.parse(m.checklist) : null,
+    verdict: m.verdict,
     inputIssues: validated.ok ? (m.result ? [] : [{ path: '', message: 'could not be evaluated' }]) : validated.issues,
-    lockedAt: m.lockedAt?.toISOString() ?? null, modelHash: m.modelHash, authorHash: m.authorHash,
-    comparison: m.comparison ? JSON.parse(m.comparison) as Comparison : null, agrees: m.agrees,
-    lockVersion: m.lockVersion, updatedAt: m.updatedAt.toISOString(),
+    lockedAt: m.lockedAt?.toISOString() ?? null,
+    modelHash: m.modelHash,
+    authorHash: m.authorHash,
+    comparison: m.comparison ? (JSON.parse(m.comparison) as Comparison) : null,
+    agrees: m.agrees,
+    lockVersion: m.lockVersion,
+    updatedAt: m.updatedAt.toISOString(),
   };
 }

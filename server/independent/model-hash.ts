@@ -6,11 +6,18 @@ import type { Transaction } from 'sequelize';
 import { Revision, type IndependentModel } from '../db/models';
 import { expandResult } from '../calcs/stored-result';
 
-const sha256 = (value: unknown) => createHash('sha256').update(canonicalize(value) ?? '').digest('hex');
+const sha256 = (value: unknown) =>
+  createHash('sha256')
+    .update(canonicalize(value) ?? '')
+    .digest('hex');
 
 /** SHA-256 over the RFC 8785 JSON of the checker's input, result and checklist as stored. */
 export function modelHashOf(row: Pick<IndependentModel, 'input' | 'result' | 'checklist'>): string {
-  return sha256({ input: JSON.parse(row.input), result: row.result ? JSON.parse(row.result) : null, checklist: row.checklist ? JSON.parse(row.checklist) : null });
+  return sha256({
+    input: JSON.parse(row.input),
+    result: row.result ? JSON.parse(row.result) : null,
+    checklist: row.checklist ? JSON.parse(row.checklist) : null,
+  });
 }
 
 /**
@@ -20,8 +27,12 @@ export function modelHashOf(row: Pick<IndependentModel, 'input' | 'result' | 'ch
 export function signedModelOf(row: IndependentModel, checkerName: string): SignedModel | null {
   if (!row.lockedAt || !row.comparison || !row.authorHash) return null;
   return {
-    checker: checkerName, lockedAt: row.lockedAt.toISOString(), input: JSON.parse(row.input),
-    modelHash: modelHashOf(row), authorHash: row.authorHash, agrees: row.agrees === true,
+    checker: checkerName,
+    lockedAt: row.lockedAt.toISOString(),
+    input: JSON.parse(row.input),
+    modelHash: modelHashOf(row),
+    authorHash: row.authorHash,
+    agrees: row.agrees === true,
     comparison: JSON.parse(row.comparison) as Comparison,
   };
 }

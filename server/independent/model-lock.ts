@@ -13,20 +13,42 @@ type Checker = Actor & { id: number };
 
 function validInput(text: string, whose: string): CalcInput {
   const v = validateCalcInput(JSON.parse(text));
-  if (!v.ok) throw new AppError('validation', 400, `${whose} has input errors; fix them before locking`, { fieldErrors: Object.fromEntries(v.issues.map((i) => [`input.${i.path}`, [i.message]])) });
+  if (!v.ok)
+    throw new AppError('validation', 400, `${whose} has input errors; fix them before locking`, {
+      fieldErrors: Object.fromEntries(v.issues.map((i) => [`input.${i.path}`, [i.message]])),
+    });
   return v.value;
 }
 
 /** The author's model against the checker's, within the standard's tolerances (shared/verification). */
-export async function compareWithAuthor(sequelize: Sequelize, revision: Revision, model: IndependentModel, transaction: Transaction): Promise<Comparison> {
+export async function compareWithAuthor(
+  sequelize: Sequelize,
+  revision: Revision,
+  model: IndependentModel,
+  transaction: Transaction,
+): Promise<Comparison> {
   const tolerances = needOf(revision).tolerances!;
   const checkerInput = validInput(model.input, 'Your independent model');
-  if (!model.result || !model.checklist) throw new AppError('validation', 400, 'Your independent model could not be evaluated; fix its input before locking', { fieldErrors: { input: ['could not be evaluated'] } });
+  if (!model.result || !model.checklist)
+    throw new AppError(
+      'validation',
+      400,
+      'Your independent model could not be evaluated; fix its input before locking',
+      { fieldErrors: { input: ['could not be evaluated'] } },
+    );
   const authorResult = await expandResult(sequelize, revision.result, transaction);
   if (!authorResult || !revision.checklist) throw AppError.conflict("The author's calc has no result to compare with");
   return compareModels(
-    { input: validInput(revision.input, "The author's calc"), result: authorResult, checklist: JSON.parse(revision.checklist) as Checklist },
-    { input: checkerInput, result: JSON.parse(model.result) as CalcResult, checklist: JSON.parse(model.checklist) as Checklist },
+    {
+      input: validInput(revision.input, "The author's calc"),
+      result: authorResult,
+      checklist: JSON.parse(revision.checklist) as Checklist,
+    },
+    {
+      input: checkerInput,
+      result: JSON.parse(model.result) as CalcResult,
+      checklist: JSON.parse(model.checklist) as Checklist,
+    },
     tolerances,
   );
 }
@@ -36,29 +58,64 @@ export async function compareWithAuthor(sequelize: Sequelize, revision: Revision
  * row (an input difference anchored to its input) with both values, for the author to answer;
  * an agreeing comparison is recorded as such. Never changed afterwards.
  */
-export async function lockAndCompare(sequelize: Sequelize, actor: Checker, revision: Revision, model: IndependentModel, transaction: Transaction): Promise<void> {
+export async function lockAndCompare(
+  sequelize: Sequelize,
+  actor: Checker,
+  revision: Revision,
+  model: IndependentModel,
+  transaction: Transaction,
+): Promise<void> {
   const comparison = await compareWithAuthor(sequelize, revision, model, transaction);
   const authorHash = await authorModelHash(revision, transaction);
   if (!authorHash) throw AppError.conflict("The author's calc has no result to compare with");
-  const [{ now }] = await sequelize.query<{ now: Date }>('SELECT UTC_TIMESTAMP(3) AS now', { type: QueryTypes.SELECT, transaction });
+  const [{ now }] = await sequelize.query<{ now: Date }>('SELECT UTC_TIMESTAMP(3) AS now', {
+    type: QueryTypes.SELECT,
+    transaction,
+  });
   const findingIds: number[] = [];
   for (const row of comparison.rows.filter((r) => !r.agrees)) {
     const text = `Independent model differs. ${describeDifference(row)}. Answer with the reason, or correct the calc and say so.`;
     // An input difference is anchored to its input; a result or clause difference names its row in the text.
     const anchorPath = row.section === 'input' ? row.key.slice(0, 120) : null;
-    const finding = await Finding.create({ revisionId: revision.id, clauseRef: null, anchorPath, text, raisedBy: actor.id }, { transaction });
+    const finding = await Finding.create(
+      { revisionId: revision.id, clauseRef: null, anchorPath, text, raisedBy: actor.id },
+      { transaction },
+    );
     findingIds.push(finding.id);
   }
-  await model.update({
-    lockedAt: new Date(now), modelHash: modelHashOf(model), authorHash, comparison: JSON.stringify(comparison),
-    agrees: comparison.agrees, findingIds: JSON.stringify(findingIds),
-  }, { transaction });
-  const differences = comparison.rows.filter((r) => !r.agrees).map((r) => ({ key: r.key, author: r.author, checker: r.checker }));
-  await appendAudit(sequelize, actor, {
-    action: 'independent_model.locked', entityType: 'Revision', entityId: revision.id,
-    payload: {
-      calcId: revision.calcId, revision: revision.label, modelId: model.id, modelHash: model.modelHash, authorHash, agrees: comparison.agrees,
-      compared: comparison.inputs.compared + comparison.results.compared, differences, findingIds,
+  await model.update(
+    {
+      lockedAt: new Date(now),
+      modelHash: modelHashOf(model),
+      authorHash,
+      comparison: JSON.stringify(comparison),
+      agrees: comparison.agrees,
+      findingIds: JSON.stringify(findingIds),
     },
-  }, transaction);
+    { transaction },
+  );
+  const differences = comparison.rows
+    .filter((r) => !r.agrees)
+    .map((r) => ({ key: r.key, author: r.author, checker: r.checker }));
+  await appendAudit(
+    sequelize,
+    actor,
+    {
+      action: 'independent_model.locked',
+      entityType: 'Revision',
+      entityId: revision.id,
+      payload: {
+        calcId: revision.calcId,
+        revision: revision.label,
+        modelId: model.id,
+        modelHash: model.modelHash,
+        authorHash,
+        agrees: comparison.agrees,
+        compared: comparison.inputs.compared + comparison.results.compared,
+        differences,
+        findingIds,
+      },
+    },
+    transaction,
+  );
 }

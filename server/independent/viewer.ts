@@ -1,7 +1,10 @@
 import { subject } from '@casl/ability';
 import type { AppAbility } from '../../shared/authz/app-ability';
 
-export interface Viewer { id: number | null; mayCheck: boolean }
+export interface Viewer {
+  id: number | null;
+  mayCheck: boolean;
+}
 
 /**
  * Who reads, from the ability alone, so every existing read path (which passes only the ability)
@@ -11,6 +14,9 @@ export interface Viewer { id: number | null; mayCheck: boolean }
 export function viewerOf(ability: AppAbility): Viewer {
   const own = ability.rules.find((r) => r.action === 'changePassword' && r.subject === 'User');
   const id = (own?.conditions as { id?: unknown } | undefined)?.id;
-  const mayCheck = ability.can('check', subject('Revision', { id: 0, calcId: 0, status: 'in_check', authorId: -1, checkerId: null, approverId: null }));
+  const mayCheck = ability.can(
+    'check',
+    subject('Revision', { id: 0, calcId: 0, status: 'in_check', authorId: -1, checkerId: null, approverId: null }),
+  );
   return { id: typeof id === 'number' ? id : null, mayCheck };
 }

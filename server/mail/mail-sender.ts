@@ -13,7 +13,11 @@ export interface SenderOptions {
   clock?: () => Date;
 }
 
-export interface SendRound { sent: number; retrying: number; failed: number }
+export interface SendRound {
+  sent: number;
+  retrying: number;
+  failed: number;
+}
 
 // Retries double from the base delay but never wait longer than this between attempts.
 const MAX_DELAY_SECONDS = 6 * 3600;
@@ -29,7 +33,10 @@ export class MailSender {
   private running: Promise<unknown> | undefined;
   private readonly clock: () => Date;
 
-  constructor(private readonly sequelize: Sequelize, private readonly options: SenderOptions) {
+  constructor(
+    private readonly sequelize: Sequelize,
+    private readonly options: SenderOptions,
+  ) {
     this.clock = options.clock ?? (() => new Date());
   }
 
@@ -48,7 +55,9 @@ export class MailSender {
     const tick = () => {
       this.running = this.runOnce()
         .catch((err) => logger.error({ err }, 'mail sender round failed; will retry'))
-        .finally(() => { if (this.timer) this.timer = setTimeout(tick, pollSeconds * 1000); });
+        .finally(() => {
+          if (this.timer) this.timer = setTimeout(tick, pollSeconds * 1000);
+        });
     };
     this.timer = setTimeout(tick, 0);
   }
@@ -70,8 +79,12 @@ export class MailSender {
     const row = (await MailOutbox.findOne({ where: { id: { [Op.eq]: claimed.id } }, transaction }))!;
     try {
       await this.options.transport.sendMail({
-        from: this.options.from, to: row.recipient, subject: row.subject, text: row.body,
-        messageId: messageIdOf(row, this.options.from), headers: { 'X-Torquetrail-Event': row.event },
+        from: this.options.from,
+        to: row.recipient,
+        subject: row.subject,
+        text: row.body,
+        messageId: messageIdOf(row, this.options.from),
+        headers: { 'X-Torquetrail-Event': row.event },
       });
       await row.update({ status: 'sent', sentAt: now, attempts: row.attempts + 1, lastError: null }, { transaction });
       return 'sent';
@@ -80,14 +93,25 @@ export class MailSender {
     }
   }
 
-  private async recordFailure(row: MailOutbox, err: unknown, now: Date, transaction: Transaction): Promise<'retrying' | 'failed'> {
+  private async recordFailure(
+    row: MailOutbox,
+    err: unknown,
+    now: Date,
+    transaction: Transaction,
+  ): Promise<'retrying' | 'failed'> {
     const attempts = row.attempts + 1;
     const lastError = (err instanceof Error ? err.message : String(err)).slice(0, 2000);
     const isFinal = attempts >= this.options.maxAttempts;
     const delay = Math.min(this.options.backoffSeconds * 2 ** (attempts - 1), MAX_DELAY_SECONDS);
-    await row.update({
-      attempts, lastError, status: isFinal ? 'failed' : 'pending', nextAttemptAt: new Date(now.getTime() + delay * 1000),
-    }, { transaction });
+    await row.update(
+      {
+        attempts,
+        lastError,
+        status: isFinal ? 'failed' : 'pending',
+        nextAttemptAt: new Date(now.getTime() + delay * 1000),
+      },
+      { transaction },
+    );
     const entry = { outboxId: row.id, recipient: row.recipient, attempts, error: lastError };
     if (isFinal) logger.error(entry, 'mail could not be delivered; giving up');
     else logger.warn({ ...entry, retryInSeconds: delay }, 'mail delivery failed; will retry');

@@ -19,7 +19,10 @@ export async function enqueueMail(recipients: string[], mail: HandOverMail, tran
   if (unique.length === 0) return;
   const now = new Date();
   const subject = fitSubject(mail.subject);
-  await MailOutbox.bulkCreate(unique.map((recipient) => ({ ...mail, subject, recipient, nextAttemptAt: now })), { transaction });
+  await MailOutbox.bulkCreate(
+    unique.map((recipient) => ({ ...mail, subject, recipient, nextAttemptAt: now })),
+    { transaction },
+  );
 }
 
 /** The outbox column and what mail programs show: longer subjects end with "…"; the body always has the full text. */
@@ -35,9 +38,15 @@ export function fitSubject(subject: string): string {
 
 /** Active people holding a role, except those listed (e.g. the calc's own editors). */
 export async function emailsOfRole(role: Role, excludeIds: number[], transaction?: Transaction): Promise<string[]> {
-  const rows = await UserRole.findAll({ where: { role, userId: { [Op.notIn]: excludeIds.length ? excludeIds : [0] } }, transaction });
+  const rows = await UserRole.findAll({
+    where: { role, userId: { [Op.notIn]: excludeIds.length ? excludeIds : [0] } },
+    transaction,
+  });
   if (rows.length === 0) return [];
-  const users = await User.findAll({ where: { id: { [Op.in]: rows.map((r) => r.userId) }, active: true }, transaction });
+  const users = await User.findAll({
+    where: { id: { [Op.in]: rows.map((r) => r.userId) }, active: true },
+    transaction,
+  });
   return users.map((u) => u.email);
 }
 

@@ -11,18 +11,29 @@ export async function preferencesOf(userId: number, roles: readonly Role[]): Pro
   const rows = await MailPreference.findAll({ where: { userId } });
   const chosen = new Map(rows.map((r) => [r.event, r.enabled]));
   return MAIL_EVENTS.map((event) => ({
-    event, ...MAIL_EVENT_INFO[event], enabled: chosen.get(event) ?? true, appliesToYou: roles.includes(MAIL_EVENT_INFO[event].role),
+    event,
+    ...MAIL_EVENT_INFO[event],
+    enabled: chosen.get(event) ?? true,
+    appliesToYou: roles.includes(MAIL_EVENT_INFO[event].role),
   })).map(({ role: _role, ...dto }) => dto);
 }
 
 export async function savePreferences(
-  sequelize: Sequelize, actor: Actor & { id: number }, roles: readonly Role[], choices: Partial<Record<MailEvent, boolean>>,
+  sequelize: Sequelize,
+  actor: Actor & { id: number },
+  roles: readonly Role[],
+  choices: Partial<Record<MailEvent, boolean>>,
 ): Promise<MailPreferenceDto[]> {
   await runTransaction(sequelize, async (transaction) => {
     for (const [event, enabled] of Object.entries(choices)) {
       await MailPreference.upsert({ userId: actor.id, event, enabled: enabled === true }, { transaction });
     }
-    await appendAudit(sequelize, actor, { action: 'user.mail_preferences', entityType: 'User', entityId: actor.id, payload: choices }, transaction);
+    await appendAudit(
+      sequelize,
+      actor,
+      { action: 'user.mail_preferences', entityType: 'User', entityId: actor.id, payload: choices },
+      transaction,
+    );
   });
   return preferencesOf(actor.id, roles);
 }
@@ -32,15 +43,27 @@ export async function savePreferences(
  * and the common case costs one small query. An address shared with someone who still wants the
  * mail is kept, and an outside address (no account) always is.
  */
-export async function withoutOptedOut(recipients: string[], event: string, transaction?: Transaction): Promise<string[]> {
+export async function withoutOptedOut(
+  recipients: string[],
+  event: string,
+  transaction?: Transaction,
+): Promise<string[]> {
   if (recipients.length === 0) return recipients;
-  const optedOut = (await MailPreference.findAll({ where: { event, enabled: false }, attributes: ['userId'], transaction })).map((p) => p.userId);
+  const optedOut = (
+    await MailPreference.findAll({ where: { event, enabled: false }, attributes: ['userId'], transaction })
+  ).map((p) => p.userId);
   if (optedOut.length === 0) return recipients;
-  const silent = await User.findAll({ where: { id: { [Op.in]: optedOut }, email: { [Op.in]: recipients } }, attributes: ['email'], transaction });
+  const silent = await User.findAll({
+    where: { id: { [Op.in]: optedOut }, email: { [Op.in]: recipients } },
+    attributes: ['email'],
+    transaction,
+  });
   if (silent.length === 0) return recipients;
   const silentEmails = [...new Set(silent.map((u) => u.email))];
   const stillWanted = await User.findAll({
-    where: { email: { [Op.in]: silentEmails }, active: true, id: { [Op.notIn]: optedOut } }, attributes: ['email'], transaction,
+    where: { email: { [Op.in]: silentEmails }, active: true, id: { [Op.notIn]: optedOut } },
+    attributes: ['email'],
+    transaction,
   });
   const keep = new Set(stillWanted.map((u) => u.email));
   return recipients.filter((address) => !silentEmails.includes(address) || keep.has(address));

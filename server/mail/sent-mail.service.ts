@@ -8,22 +8,35 @@ import { messageIdOf } from './transport';
 
 function toDto(row: MailOutbox, from: string, withBody: boolean): SentMailDto {
   return {
-    id: Number(row.id), event: row.event, recipient: row.recipient, subject: row.subject, status: row.status,
-    attempts: row.attempts, createdAt: row.createdAt.toISOString(), sentAt: row.sentAt ? row.sentAt.toISOString() : null,
-    nextAttemptAt: row.nextAttemptAt.toISOString(), lastError: row.lastError, messageId: messageIdOf(row, from),
+    id: Number(row.id),
+    event: row.event,
+    recipient: row.recipient,
+    subject: row.subject,
+    status: row.status,
+    attempts: row.attempts,
+    createdAt: row.createdAt.toISOString(),
+    sentAt: row.sentAt ? row.sentAt.toISOString() : null,
+    nextAttemptAt: row.nextAttemptAt.toISOString(),
+    lastError: row.lastError,
+    messageId: messageIdOf(row, from),
     ...(withBody ? { body: row.body } : {}),
   };
 }
 
 /** The admin's read-only view of the mail outbox: what was sent, to whom, and what is still trying. */
 export class SentMailService {
-  constructor(private readonly from: string, private readonly isEnabled: boolean) {}
+  constructor(
+    private readonly from: string,
+    private readonly isEnabled: boolean,
+  ) {}
 
   async list(ability: AppAbility, query: SentMailQuery): Promise<Page<SentMailDto>> {
     this.assertAllowed(ability);
     const { rows, count } = await MailOutbox.findAndCountAll({
       where: query.status ? { status: query.status } : {},
-      order: [['id', 'DESC']], offset: query.page * query.size, limit: query.size,
+      order: [['id', 'DESC']],
+      offset: query.page * query.size,
+      limit: query.size,
     });
     return { items: rows.map((r) => toDto(r, this.from, false)), total: count, page: query.page, size: query.size };
   }
@@ -36,7 +49,14 @@ export class SentMailService {
   }
 
   private assertAllowed(ability: AppAbility): void {
-    ForbiddenError.from(ability).setMessage('The sent-mail screen is for administrators').throwUnlessCan('read', 'SentMail');
-    if (!this.isEnabled) throw new AppError('not_found', 404, 'The sent-mail screen is turned off on this server (SENT_MAIL_SCREEN=false)');
+    ForbiddenError.from(ability)
+      .setMessage('The sent-mail screen is for administrators')
+      .throwUnlessCan('read', 'SentMail');
+    if (!this.isEnabled)
+      throw new AppError(
+        'not_found',
+        404,
+        'The sent-mail screen is turned off on this server (SENT_MAIL_SCREEN=false)',
+      );
   }
 }

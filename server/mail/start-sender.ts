@@ -12,7 +12,10 @@ export function startMailSender(sequelize: Sequelize, config: Config): { stop: (
   }
   const transport = createMailTransport(config);
   const sender = new MailSender(sequelize, {
-    transport, from: config.MAIL_FROM, maxAttempts: config.MAIL_MAX_ATTEMPTS, backoffSeconds: config.MAIL_BACKOFF_SECONDS,
+    transport,
+    from: config.MAIL_FROM,
+    maxAttempts: config.MAIL_MAX_ATTEMPTS,
+    backoffSeconds: config.MAIL_BACKOFF_SECONDS,
   });
   sender.start(config.MAIL_POLL_SECONDS);
   logger.info({ smtp: `${config.SMTP_HOST}:${config.SMTP_PORT}` }, 'mail sender started');

@@ -11,7 +11,11 @@ import { AppError } from '../errors/app-error';
 export async function assertProjectOpen(calcId: number, transaction?: Transaction): Promise<void> {
   const project = await projectOf(calcId, transaction);
   if (project?.status === 'archived') {
-    throw new AppError('archived', 409, `Project ${project.code} is archived: its calcs are read-only. An administrator can reopen the project.`);
+    throw new AppError(
+      'archived',
+      409,
+      `Project ${project.code} is archived: its calcs are read-only. An administrator can reopen the project.`,
+    );
   }
 }
 
@@ -20,6 +24,10 @@ export async function isProjectArchived(calcId: number): Promise<boolean> {
 }
 
 async function projectOf(calcId: number, transaction?: Transaction): Promise<Project | undefined> {
-  const calc = await Calc.findByPk(calcId, { attributes: ['id', 'projectId'], include: [{ model: Project, attributes: ['id', 'code', 'status'] }], transaction });
+  const calc = await Calc.findByPk(calcId, {
+    attributes: ['id', 'projectId'],
+    include: [{ model: Project, attributes: ['id', 'code', 'status'] }],
+    transaction,
+  });
   return (calc as (Calc & { Project?: Project }) | null)?.Project;
 }

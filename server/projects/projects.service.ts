@@ -11,8 +11,15 @@ import { runTransaction } from '../db/transaction';
 
 export function toProjectDto(p: Project): ProjectDto {
   return {
-    id: p.id, code: p.code, name: p.name, client: p.client, description: p.description,
-    revisionScheme: p.revisionScheme, status: p.status, createdAt: p.createdAt.toISOString(), version: p.version,
+    id: p.id,
+    code: p.code,
+    name: p.name,
+    client: p.client,
+    description: p.description,
+    revisionScheme: p.revisionScheme,
+    status: p.status,
+    createdAt: p.createdAt.toISOString(),
+    version: p.version,
   };
 }
 
@@ -22,9 +29,14 @@ export class ProjectsService {
 
   async list(ability: AppAbility, query: PageQuery): Promise<Page<ProjectDto>> {
     const where = accessibleWhere(ability, 'read', 'Project');
-    const search = query.q ? { [Op.or]: [{ code: { [Op.like]: `%${query.q}%` } }, { name: { [Op.like]: `%${query.q}%` } }] } : {};
+    const search = query.q
+      ? { [Op.or]: [{ code: { [Op.like]: `%${query.q}%` } }, { name: { [Op.like]: `%${query.q}%` } }] }
+      : {};
     const { rows, count } = await Project.findAndCountAll({
-      where: { [Op.and]: [where, search] }, order: [['code', 'ASC']], offset: query.page * query.size, limit: query.size,
+      where: { [Op.and]: [where, search] },
+      order: [['code', 'ASC']],
+      offset: query.page * query.size,
+      limit: query.size,
     });
     return { items: rows.map(toProjectDto), total: count, page: query.page, size: query.size };
   }
@@ -39,11 +51,18 @@ export class ProjectsService {
   async create(ability: AppAbility, actor: Actor, dto: CreateProjectRequest): Promise<ProjectDto> {
     ForbiddenError.from(ability).throwUnlessCan('create', 'Project');
     if (await Project.findOne({ where: { code: dto.code } })) {
-      throw new AppError('conflict', 409, `Project code ${dto.code} is already in use`, { fieldErrors: { code: ['is already in use'] } });
+      throw new AppError('conflict', 409, `Project code ${dto.code} is already in use`, {
+        fieldErrors: { code: ['is already in use'] },
+      });
     }
     return runTransaction(this.sequelize, async (transaction) => {
       const project = await Project.create({ ...dto, createdBy: actor.id }, { transaction });
-      await appendAudit(this.sequelize, actor, { action: 'project.created', entityType: 'Project', entityId: project.id, payload: dto }, transaction);
+      await appendAudit(
+        this.sequelize,
+        actor,
+        { action: 'project.created', entityType: 'Project', entityId: project.id, payload: dto },
+        transaction,
+      );
       return toProjectDto(project);
     });
   }
@@ -53,13 +72,19 @@ export class ProjectsService {
       const project = await Project.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
       if (!project) throw AppError.notFound(`Project ${id}`);
       ForbiddenError.from(ability).throwUnlessCan('update', subject('Project', toProjectDto(project)));
-      if (project.version !== dto.version) throw AppError.conflict(`Project ${project.code} was changed by someone else; reload and try again`);
+      if (project.version !== dto.version)
+        throw AppError.conflict(`Project ${project.code} was changed by someone else; reload and try again`);
       const { version: _v, ...changes } = dto;
       const before = toProjectDto(project);
       project.set(changes);
       await project.save({ transaction });
       const after = toProjectDto(project);
-      await appendAudit(this.sequelize, actor, { action: 'project.updated', entityType: 'Project', entityId: id, payload: { before, after } }, transaction);
+      await appendAudit(
+        this.sequelize,
+        actor,
+        { action: 'project.updated', entityType: 'Project', entityId: id, payload: { before, after } },
+        transaction,
+      );
       return after;
     });
   }

@@ -20,29 +20,55 @@ function rowHeight(doc: PDFKit.PDFDocument, columns: Column[], cells: Cell[], si
   let tallest = 0;
   columns.forEach((col, i) => {
     doc.font(isHeader ? BOLD : col.mono ? MONO : SANS).fontSize(size);
-    tallest = Math.max(tallest, doc.heightOfString(cellText(cells[i] ?? '') || ' ', { width: col.share * CONTENT_WIDTH - 2 * PAD }));
+    tallest = Math.max(
+      tallest,
+      doc.heightOfString(cellText(cells[i] ?? '') || ' ', { width: col.share * CONTENT_WIDTH - 2 * PAD }),
+    );
   });
   return tallest + 2 * PAD;
 }
 
-function drawRow(doc: PDFKit.PDFDocument, columns: Column[], cells: Cell[], y: number, h: number, size: number, isHeader: boolean): void {
+function drawRow(
+  doc: PDFKit.PDFDocument,
+  columns: Column[],
+  cells: Cell[],
+  y: number,
+  h: number,
+  size: number,
+  isHeader: boolean,
+): void {
   let x = PAGE.left;
   columns.forEach((col, i) => {
     const cell = cells[i] ?? '';
     const isBold = isHeader || (typeof cell !== 'string' && cell.bold);
-    doc.font(isBold ? BOLD : col.mono ? MONO : SANS).fontSize(size)
+    doc
+      .font(isBold ? BOLD : col.mono ? MONO : SANS)
+      .fontSize(size)
       .fillColor(isHeader ? INK_SOFT : (typeof cell !== 'string' && cell.color) || INK)
-      .text(cellText(cell), x + PAD, y + PAD, { width: col.share * CONTENT_WIDTH - 2 * PAD, align: col.align ?? 'left' });
+      .text(cellText(cell), x + PAD, y + PAD, {
+        width: col.share * CONTENT_WIDTH - 2 * PAD,
+        align: col.align ?? 'left',
+      });
     x += col.share * CONTENT_WIDTH;
   });
-  doc.moveTo(PAGE.left, y + h).lineTo(PAGE.right, y + h).lineWidth(isHeader ? 0.9 : 0.4).strokeColor(isHeader ? INK : RULE).stroke();
+  doc
+    .moveTo(PAGE.left, y + h)
+    .lineTo(PAGE.right, y + h)
+    .lineWidth(isHeader ? 0.9 : 0.4)
+    .strokeColor(isHeader ? INK : RULE)
+    .stroke();
 }
 
 /**
  * A plain ruled table that breaks across pages and repeats its header row on each new page.
  * Rows are measured before drawing, so a long cell never runs into the footer.
  */
-export function drawTable(doc: PDFKit.PDFDocument, columns: Column[], rows: Cell[][], options: { size?: number } = {}): void {
+export function drawTable(
+  doc: PDFKit.PDFDocument,
+  columns: Column[],
+  rows: Cell[][],
+  options: { size?: number } = {},
+): void {
   const size = options.size ?? 8;
   const header = columns.map((c) => c.header);
   const headerHeight = rowHeight(doc, columns, header, size, true);

@@ -26,7 +26,11 @@ export interface ReportData {
   attachments: AttachmentDto[];
 }
 
-export interface ReportContext { organisation: string; baseUrl: string; generatedBy: string }
+export interface ReportContext {
+  organisation: string;
+  baseUrl: string;
+  generatedBy: string;
+}
 
 export async function loadReportData(ability: AppAbility, revisionId: number, ctx: ReportContext): Promise<ReportData> {
   const revision = await readRevision(ability, revisionId);
@@ -39,11 +43,16 @@ export async function loadReportData(ability: AppAbility, revisionId: number, ct
     loadRuleSet(revision.ruleSet.id),
   ]);
   return {
-    organisation: ctx.organisation, generatedAt: new Date(), generatedBy: ctx.generatedBy,
+    organisation: ctx.organisation,
+    generatedAt: new Date(),
+    generatedBy: ctx.generatedBy,
     verifyUrl: `${ctx.baseUrl}/verify/${revision.contentHash ?? ''}`,
-    calc: toCalcDto(calc, revisions), revision,
+    calc: toCalcDto(calc, revisions),
+    revision,
     result: (revision.result ?? null) as CalcResult | null,
-    checklist: (revision.checklist ?? null) as Checklist | null, ruleSet: ruleSet.doc,
-    input: revision.input, attachments: attachments.map(toAttachmentDto),
+    checklist: (revision.checklist ?? null) as Checklist | null,
+    ruleSet: ruleSet.doc,
+    input: revision.input,
+    attachments: attachments.map(toAttachmentDto),
   };
 }

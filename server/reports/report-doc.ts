@@ -20,22 +20,41 @@ export const SANS = 'TT-Sans';
 export const BOLD = 'TT-Sans-Bold';
 export const MONO = 'TT-Mono';
 
-const FONT_FILES: Record<string, string> = { [SANS]: 'DejaVuSans.ttf', [BOLD]: 'DejaVuSans-Bold.ttf', [MONO]: 'DejaVuSansMono.ttf' };
+const FONT_FILES: Record<string, string> = {
+  [SANS]: 'DejaVuSans.ttf',
+  [BOLD]: 'DejaVuSans-Bold.ttf',
+  [MONO]: 'DejaVuSansMono.ttf',
+};
 
 /**
  * A report document with embedded DejaVu fonts: the built-in PDF fonts lack τ, φ, σ, ⁴ and ·,
  * and subsets shipped for the web lack Greek. Pages are buffered so the running header, footer
  * and state mark can be drawn on every page once the page count is known.
  */
-export function createReportDoc(fontDir: string, info: { title: string; subject: string; author: string }): PDFKit.PDFDocument {
+export function createReportDoc(
+  fontDir: string,
+  info: { title: string; subject: string; author: string },
+): PDFKit.PDFDocument {
   const doc = new PDFDocument({
-    size: 'A4', bufferPages: true, autoFirstPage: true, pdfVersion: '1.7', lang: 'en-GB', displayTitle: true,
+    size: 'A4',
+    bufferPages: true,
+    autoFirstPage: true,
+    pdfVersion: '1.7',
+    lang: 'en-GB',
+    displayTitle: true,
     margins: { top: PAGE.top, bottom: PAGE.height - PAGE.bottom, left: PAGE.left, right: PAGE.width - PAGE.right },
-    info: { Title: info.title, Subject: info.subject, Author: info.author, Creator: 'Torquetrail', Producer: 'Torquetrail' },
+    info: {
+      Title: info.title,
+      Subject: info.subject,
+      Author: info.author,
+      Creator: 'Torquetrail',
+      Producer: 'Torquetrail',
+    },
   });
   for (const [name, file] of Object.entries(FONT_FILES)) {
     const full = path.join(fontDir, file);
-    if (!fs.existsSync(full)) throw new Error(`report font ${full} is missing; install fonts-dejavu-core or set REPORT_FONT_DIR`);
+    if (!fs.existsSync(full))
+      throw new Error(`report font ${full} is missing; install fonts-dejavu-core or set REPORT_FONT_DIR`);
     doc.registerFont(name, full);
   }
   doc.font(SANS).fontSize(9).fillColor(INK);
@@ -56,8 +75,17 @@ export function sectionHeading(doc: PDFKit.PDFDocument, number: number, title: s
   doc.moveDown(0.8);
   const y = doc.y;
   doc.rect(PAGE.left, y, 4, 15).fill(COPPER);
-  doc.font(BOLD).fontSize(11.5).fillColor(INK).text(`${number}  ${title}`, PAGE.left + 11, y + 1, { width: CONTENT_WIDTH - 11 });
-  doc.moveTo(PAGE.left, doc.y + 3).lineTo(PAGE.right, doc.y + 3).lineWidth(0.6).strokeColor(RULE).stroke();
+  doc
+    .font(BOLD)
+    .fontSize(11.5)
+    .fillColor(INK)
+    .text(`${number}  ${title}`, PAGE.left + 11, y + 1, { width: CONTENT_WIDTH - 11 });
+  doc
+    .moveTo(PAGE.left, doc.y + 3)
+    .lineTo(PAGE.right, doc.y + 3)
+    .lineWidth(0.6)
+    .strokeColor(RULE)
+    .stroke();
   doc.x = PAGE.left;
   doc.y += 8;
   doc.font(SANS).fontSize(9).fillColor(INK);
@@ -71,8 +99,15 @@ export function subHeading(doc: PDFKit.PDFDocument, title: string): void {
   doc.font(SANS).fontSize(9).fillColor(INK);
 }
 
-export function paragraph(doc: PDFKit.PDFDocument, text: string, options: { color?: string; size?: number; font?: string } = {}): void {
-  doc.font(options.font ?? SANS).fontSize(options.size ?? 9).fillColor(options.color ?? INK);
+export function paragraph(
+  doc: PDFKit.PDFDocument,
+  text: string,
+  options: { color?: string; size?: number; font?: string } = {},
+): void {
+  doc
+    .font(options.font ?? SANS)
+    .fontSize(options.size ?? 9)
+    .fillColor(options.color ?? INK);
   ensureSpace(doc, doc.heightOfString(text, { width: CONTENT_WIDTH }) + 4);
   doc.text(text, PAGE.left, doc.y, { width: CONTENT_WIDTH });
   doc.font(SANS).fontSize(9).fillColor(INK);

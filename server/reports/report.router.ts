@@ -1,5 +1,4 @@
 import type { Router } from 'express';
-import { validate } from '../http/validate';
 import { idParam, idRouter } from '../http/route-ids';
 import type { ReportService } from './report.service';
 
@@ -7,7 +6,11 @@ import type { ReportService } from './report.service';
 export function reportRouter(reports: ReportService, organisation: string, baseUrl: string): Router {
   const router = idRouter();
   router.get('/:id/report.pdf', async (req, res) => {
-    const { fileName, bytes } = await reports.pdf(req.ability, idParam(req), { organisation, baseUrl, generatedBy: req.user!.displayName });
+    const { fileName, bytes } = await reports.pdf(req.ability, idParam(req), {
+      organisation,
+      baseUrl,
+      generatedBy: req.user!.displayName,
+    });
     res.type('application/pdf').attachment(fileName).set({ 'Cache-Control': 'private, no-store' }).send(bytes);
   });
   return router;

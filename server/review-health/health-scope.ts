@@ -12,15 +12,33 @@ export interface HealthScope {
   end: Date;
 }
 
-export function scopeOf(projectIds: number[] | null, projectId: number | undefined, from: string, to: string): HealthScope {
+export function scopeOf(
+  projectIds: number[] | null,
+  projectId: number | undefined,
+  from: string,
+  to: string,
+): HealthScope {
   const start = new Date(`${from}T00:00:00Z`);
-  return { projectId: projectId ?? null, projectIds, from, to, start, end: new Date(Date.parse(`${to}T00:00:00Z`) + 86_400_000) };
+  return {
+    projectId: projectId ?? null,
+    projectIds,
+    from,
+    to,
+    start,
+    end: new Date(Date.parse(`${to}T00:00:00Z`) + 86_400_000),
+  };
 }
 
-/** `AND c.project_id = ?` when one project is chosen (or `IN` the readable ones); `c` is the calcs alias of each query. */
-export function projectClause(scope: HealthScope, column = 'c.project_id'): { sql: string; values: (number | number[])[] } {
+/**
+ * `AND c.project_id = ?` when one project is chosen (or `IN` the readable ones); `c` is the calcs alias of each query.
+ */
+export function projectClause(
+  scope: HealthScope,
+  column = 'c.project_id',
+): { sql: string; values: (number | number[])[] } {
   if (scope.projectId !== null) return { sql: ` AND ${column} = ?`, values: [scope.projectId] };
-  if (scope.projectIds !== null) return { sql: ` AND ${column} IN (?)`, values: [scope.projectIds.length ? scope.projectIds : [0]] };
+  if (scope.projectIds !== null)
+    return { sql: ` AND ${column} IN (?)`, values: [scope.projectIds.length ? scope.projectIds : [0]] };
   return { sql: '', values: [] };
 }
 
@@ -49,7 +67,8 @@ export function durationText(seconds: number): string {
   return `${hours} hour${hours === 1 ? '' : 's'}${rest ? ` ${rest} minute${rest === 1 ? '' : 's'}` : ''}`;
 }
 
-export const plural = (n: number, word: string, many = `${word}s`): string => `${n.toLocaleString('en-GB')} ${n === 1 ? word : many}`;
+export const plural = (n: number, word: string, many = `${word}s`): string =>
+  `${n.toLocaleString('en-GB')} ${n === 1 ? word : many}`;
 
 /** Rows shown per signal; the screen says when there are more. */
 export const ROW_CAP = 500;

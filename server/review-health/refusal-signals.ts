@@ -3,8 +3,17 @@ import type { HealthSettings, SignalRow } from '../../shared/schemas/review-heal
 import { auditLink, plural, projectClause, ROW_CAP, type HealthScope } from './health-scope';
 
 interface Refusal {
-  actorId: number | null; actorName: string; entityId: string; calcId: number | null; number: string | null; code: string | null;
-  label: string | null; attempts: number; wrongPassword: number; first: Date; last: Date;
+  actorId: number | null;
+  actorName: string;
+  entityId: string;
+  calcId: number | null;
+  number: string | null;
+  code: string | null;
+  label: string | null;
+  attempts: number;
+  wrongPassword: number;
+  first: Date;
+  last: Date;
 }
 
 /**
@@ -12,7 +21,11 @@ interface Refusal {
  * refusal as an audit entry (`revision.signature_refused`, workflow.service.ts) before it answers,
  * so the trail is the record; grouped here per person and revision.
  */
-export async function refusedSignatures(sequelize: Sequelize, scope: HealthScope, settings: HealthSettings): Promise<SignalRow[]> {
+export async function refusedSignatures(
+  sequelize: Sequelize,
+  scope: HealthScope,
+  settings: HealthSettings,
+): Promise<SignalRow[]> {
   const project = projectClause(scope, 'e.project_id');
   const rows = await sequelize.query<Refusal>(
     `SELECT e.actor_id AS actorId, MAX(e.actor_name) AS actorName, e.entity_id AS entityId, MAX(e.calc_id) AS calcId,
@@ -27,16 +40,31 @@ export async function refusedSignatures(sequelize: Sequelize, scope: HealthScope
   return rows.map((r) => {
     const attempts = Number(r.attempts);
     const password = Number(r.wrongPassword);
-    const reasons = [password ? `wrong password ×${password}` : '', attempts - password ? `one-time code missing or wrong ×${attempts - password}` : ''].filter(Boolean).join(', ');
+    const reasons = [
+      password ? `wrong password ×${password}` : '',
+      attempts - password ? `one-time code missing or wrong ×${attempts - password}` : '',
+    ]
+      .filter(Boolean)
+      .join(', ');
     const repeated = attempts >= settings.refusalRepeatCount ? 'Repeated: ' : '';
-    const span = attempts > 1 && iso(r.first) !== iso(r.last) ? ` between ${iso(r.first)} and ${iso(r.last)}` : ` at ${iso(r.last)}`;
+    const span =
+      attempts > 1 && iso(r.first) !== iso(r.last)
+        ? ` between ${iso(r.first)} and ${iso(r.last)}`
+        : ` at ${iso(r.last)}`;
     return {
       signal: 'refusals',
       fact: `${repeated}${plural(attempts, 'signing attempt')} refused (${reasons})${span}; nothing was signed by these attempts`,
-      projectCode: r.code, calcId: r.calcId, calcNumber: r.number, revision: r.label, people: r.actorName,
-      at: new Date(r.last).toISOString(), measure: attempts,
-      evidence: [auditLink('Refused attempts', { calcId: r.calcId, userId: r.actorId, action: 'revision.signature_refused' }),
-        auditLink('Signatures on this calc', { calcId: r.calcId, action: 'revision.signed' })],
+      projectCode: r.code,
+      calcId: r.calcId,
+      calcNumber: r.number,
+      revision: r.label,
+      people: r.actorName,
+      at: new Date(r.last).toISOString(),
+      measure: attempts,
+      evidence: [
+        auditLink('Refused attempts', { calcId: r.calcId, userId: r.actorId, action: 'revision.signature_refused' }),
+        auditLink('Signatures on this calc', { calcId: r.calcId, action: 'revision.signed' }),
+      ],
     };
   });
 }

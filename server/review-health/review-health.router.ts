@@ -16,7 +16,10 @@ export function reviewHealthRouter(sequelize: Sequelize): Router {
   });
   router.get('/signals.csv', validate({ query: healthQuerySchema }), async (req, res) => {
     const report = await health.report(req.ability, res.locals.query);
-    const name = `review-health-${report.project?.code ?? 'all'}-${report.from}-${report.to}.csv`.replace(/[^A-Za-z0-9._-]/g, '_');
+    const name = `review-health-${report.project?.code ?? 'all'}-${report.from}-${report.to}.csv`.replace(
+      /[^A-Za-z0-9._-]/g,
+      '_',
+    );
     res.type('text/csv').attachment(name).send(healthCsv(report));
   });
   router.get('/settings', async (req, res) => {

@@ -1,7 +1,13 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { HealthScope } from './health-scope';
 
-interface Missing { id: number; checkedAt: Date; rows: number; segments: number; features: number }
+interface Missing {
+  id: number;
+  checkedAt: Date;
+  rows: number;
+  segments: number;
+  features: number;
+}
 
 /**
  * Sizes (checklist rows, segments, features) of the revisions checked in the period, counted once per
@@ -26,7 +32,9 @@ export async function fillReviewSizes(sequelize: Sequelize, scope: HealthScope):
       `INSERT INTO review_sizes (revision_id, checked_at, checklist_rows, segments, features) VALUES ${batch.map(() => '(?, ?, ?, ?, ?)').join(', ')}
        ON DUPLICATE KEY UPDATE checked_at = VALUES(checked_at), checklist_rows = VALUES(checklist_rows),
          segments = VALUES(segments), features = VALUES(features)`,
-      { replacements: batch.flatMap((m) => [m.id, m.checkedAt, Number(m.rows), Number(m.segments), Number(m.features)]) },
+      {
+        replacements: batch.flatMap((m) => [m.id, m.checkedAt, Number(m.rows), Number(m.segments), Number(m.features)]),
+      },
     );
   }
   return missing.length;

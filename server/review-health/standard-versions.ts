@@ -18,7 +18,11 @@ export interface VersionFacts {
 export async function versionFacts(): Promise<Map<number, VersionFacts>> {
   const rows = await RuleSetRecord.findAll({
     attributes: ['id', 'code', 'version', 'status', 'effectiveDate'],
-    where: { status: { [Op.in]: ['effective', 'retired'] } }, order: [['code', 'ASC'], ['version', 'ASC']],
+    where: { status: { [Op.in]: ['effective', 'retired'] } },
+    order: [
+      ['code', 'ASC'],
+      ['version', 'ASC'],
+    ],
   });
   const out = new Map<number, VersionFacts>();
   for (const r of rows) {
@@ -26,7 +30,9 @@ export async function versionFacts(): Promise<Map<number, VersionFacts>> {
     const next = later[0];
     const current = rows.find((o) => o.code === r.code && o.status === 'effective');
     out.set(r.id, {
-      id: r.id, code: r.code, version: r.version,
+      id: r.id,
+      code: r.code,
+      version: r.version,
       replacedBy: next ? { id: next.id, version: next.version, on: next.effectiveDate! } : null,
       currentId: current && current.id !== r.id ? current.id : null,
     });

@@ -7,8 +7,20 @@ import { outcomeUnder, storedOutcome } from '../rule-sets/impact-compare';
 import { auditLink, projectClause, ROW_CAP, type HealthScope } from './health-scope';
 import type { VersionFacts } from './standard-versions';
 
-interface Candidate { id: number; ruleSetId: number; verdict: string | null }
-interface Detail { id: number; calcId: number; label: string; approvedAt: Date; number: string; code: string; outcome: string | null }
+interface Candidate {
+  id: number;
+  ruleSetId: number;
+  verdict: string | null;
+}
+interface Detail {
+  id: number;
+  calcId: number;
+  label: string;
+  approvedAt: Date;
+  number: string;
+  code: string;
+  outcome: string | null;
+}
 
 /**
  * An approved revision's input never changes, nor does a version in force, so its outcome under the
@@ -24,7 +36,11 @@ function remember(key: string, value: string): void {
 }
 
 /** Approved revisions whose verdict differs under the version of their standard in force today (impact analysis). */
-export async function verdictFlips(sequelize: Sequelize, scope: HealthScope, versions: Map<number, VersionFacts>): Promise<SignalRow[]> {
+export async function verdictFlips(
+  sequelize: Sequelize,
+  scope: HealthScope,
+  versions: Map<number, VersionFacts>,
+): Promise<SignalRow[]> {
   const outdated = [...versions.values()].filter((v) => v.currentId !== null);
   if (outdated.length === 0) return [];
   const project = projectClause(scope);
@@ -36,34 +52,59 @@ export async function verdictFlips(sequelize: Sequelize, scope: HealthScope, ver
     { replacements: [scope.start, scope.end, outdated.map((v) => v.id), ...project.values], type: QueryTypes.SELECT },
   );
   const keyOf = (c: Candidate) => `${c.id}|${versions.get(c.ruleSetId)!.currentId}|${ENGINE_VERSION}`;
-  await evaluateMissing(sequelize, candidates.filter((c) => !verdictCache.has(keyOf(c))), versions, keyOf);
+  await evaluateMissing(
+    sequelize,
+    candidates.filter((c) => !verdictCache.has(keyOf(c))),
+    versions,
+    keyOf,
+  );
   const flipped = candidates.filter((c) => verdictCache.get(keyOf(c)) !== (c.verdict ?? 'none')).slice(0, ROW_CAP + 1);
   if (flipped.length === 0) return [];
-  const details = new Map((await sequelize.query<Detail>(
-    `SELECT r.id, r.calc_id AS calcId, r.label, r.approved_at AS approvedAt, c.number, p.code, r.outcome
+  const details = new Map(
+    (
+      await sequelize.query<Detail>(
+        `SELECT r.id, r.calc_id AS calcId, r.label, r.approved_at AS approvedAt, c.number, p.code, r.outcome
      FROM revisions r JOIN calcs c ON c.id = r.calc_id JOIN projects p ON p.id = c.project_id WHERE r.id IN (?)`,
-    { replacements: [flipped.map((c) => c.id)], type: QueryTypes.SELECT },
-  )).map((d) => [d.id, d]));
+        { replacements: [flipped.map((c) => c.id)], type: QueryTypes.SELECT },
+      )
+    ).map((d) => [d.id, d]),
+  );
   return flipped.map((c) => {
     const d = details.get(c.id)!;
     const v = versions.get(c.ruleSetId)!;
     const now = versions.get(v.currentId!)!;
     return {
-      signal: 'verdict-flip' as const, projectCode: d.code, calcId: d.calcId, calcNumber: d.number, revision: d.label,
+      signal: 'verdict-flip' as const,
+      projectCode: d.code,
+      calcId: d.calcId,
+      calcNumber: d.number,
+      revision: d.label,
       fact: `Approved as ${storedOutcome(d.outcome, c.verdict).verdict} under ${v.code} v${v.version}; ${verdictCache.get(keyOf(c))} when re-evaluated under v${now.version}, in force today`,
-      people: '', at: new Date(d.approvedAt).toISOString(), measure: null,
-      evidence: [auditLink('Approval signature', { calcId: d.calcId, action: 'revision.signed_approved' }),
-        auditLink('The standard’s version changes', { entityType: 'RuleSet', action: 'rule_set.effective' })],
+      people: '',
+      at: new Date(d.approvedAt).toISOString(),
+      measure: null,
+      evidence: [
+        auditLink('Approval signature', { calcId: d.calcId, action: 'revision.signed_approved' }),
+        auditLink('The standard’s version changes', { entityType: 'RuleSet', action: 'rule_set.effective' }),
+      ],
     };
   });
 }
 
 /** Reads the inputs (large texts) only of revisions not yet judged, in batches, and judges them. */
-async function evaluateMissing(sequelize: Sequelize, missing: Candidate[], versions: Map<number, VersionFacts>, keyOf: (c: Candidate) => string): Promise<void> {
+async function evaluateMissing(
+  sequelize: Sequelize,
+  missing: Candidate[],
+  versions: Map<number, VersionFacts>,
+  keyOf: (c: Candidate) => string,
+): Promise<void> {
   const docs = new Map<number, RuleSet>();
   for (let i = 0; i < missing.length; i += 500) {
     const batch = missing.slice(i, i + 500);
-    const inputs = await sequelize.query<{ id: number; input: string }>('SELECT id, input FROM revisions WHERE id IN (?)', { replacements: [batch.map((c) => c.id)], type: QueryTypes.SELECT });
+    const inputs = await sequelize.query<{ id: number; input: string }>(
+      'SELECT id, input FROM revisions WHERE id IN (?)',
+      { replacements: [batch.map((c) => c.id)], type: QueryTypes.SELECT },
+    );
     const byId = new Map(inputs.map((r) => [r.id, r.input]));
     for (const c of batch) {
       const currentId = versions.get(c.ruleSetId)!.currentId!;

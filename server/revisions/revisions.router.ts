@@ -1,7 +1,13 @@
 import type { Router } from 'express';
 import { z } from 'zod';
 import {
-  answerSchema, findingSchema, manualItemSchema, returnSchema, saveRevisionSchema, signSchema, withdrawSchema,
+  answerSchema,
+  findingSchema,
+  manualItemSchema,
+  returnSchema,
+  saveRevisionSchema,
+  signSchema,
+  withdrawSchema,
 } from '../../shared/schemas/revision.schema';
 import { validate } from '../http/validate';
 import { idParam, idRouter } from '../http/route-ids';
@@ -14,7 +20,12 @@ import type { ReviewService } from '../workflow/review.service';
 
 const itemParamsSchema = z.object({ itemId: z.string().regex(/^[A-Za-z0-9._-]{1,40}$/, 'is not a checklist item id') });
 
-export interface RevisionServices { calcs: CalcsService; lifecycle: LifecycleService; workflow: WorkflowService; review: ReviewService }
+export interface RevisionServices {
+  calcs: CalcsService;
+  lifecycle: LifecycleService;
+  workflow: WorkflowService;
+  review: ReviewService;
+}
 
 export function revisionsRouter(s: RevisionServices): Router {
   const router = idRouter();
@@ -25,21 +36,48 @@ export function revisionsRouter(s: RevisionServices): Router {
     res.json(await s.calcs.save(req.ability, signedInActor(req), idParam(req), req.body));
   });
   router.post('/:id/sign', validate({ body: signSchema }), async (req, res) => {
-    res.json(await s.workflow.sign(req.ability, { ...signedInActor(req), roles: req.user!.roles }, idParam(req), req.body));
+    res.json(
+      await s.workflow.sign(req.ability, { ...signedInActor(req), roles: req.user!.roles }, idParam(req), req.body),
+    );
   });
   router.post('/:id/return', validate({ body: returnSchema }), async (req, res) => {
-    res.json(await s.review.returnToAuthor(req.ability, signedInActor(req), idParam(req), req.body.reason, req.body.lockVersion));
+    res.json(
+      await s.review.returnToAuthor(
+        req.ability,
+        signedInActor(req),
+        idParam(req),
+        req.body.reason,
+        req.body.lockVersion,
+      ),
+    );
   });
   router.post('/:id/withdraw', validate({ body: withdrawSchema }), async (req, res) => {
-    res.json(await s.lifecycle.withdraw(req.ability, signedInActor(req), idParam(req), req.body.reason, req.body.lockVersion));
+    res.json(
+      await s.lifecycle.withdraw(req.ability, signedInActor(req), idParam(req), req.body.reason, req.body.lockVersion),
+    );
   });
   router.post('/:id/findings', validate({ body: findingSchema }), async (req, res) => {
     const anchor = { clauseRef: req.body.clauseRef ?? null, anchorPath: req.body.anchorPath ?? null };
-    res.status(201).json(await s.review.raiseFinding(req.ability, signedInActor(req), idParam(req), req.body.text, anchor));
+    res
+      .status(201)
+      .json(await s.review.raiseFinding(req.ability, signedInActor(req), idParam(req), req.body.text, anchor));
   });
-  router.put('/:id/manual-items/:itemId', validate({ params: itemParamsSchema, body: manualItemSchema }), async (req, res) => {
-    res.json(await s.review.setManualItem(req.ability, signedInActor(req), idParam(req), String(req.params.itemId), req.body.done, req.body.note));
-  });
+  router.put(
+    '/:id/manual-items/:itemId',
+    validate({ params: itemParamsSchema, body: manualItemSchema }),
+    async (req, res) => {
+      res.json(
+        await s.review.setManualItem(
+          req.ability,
+          signedInActor(req),
+          idParam(req),
+          String(req.params.itemId),
+          req.body.done,
+          req.body.note,
+        ),
+      );
+    },
+  );
   return router;
 }
 

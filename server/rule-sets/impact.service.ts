@@ -28,20 +28,35 @@ export function changedClauses(before: OutcomeSummary, after: OutcomeSummary, do
   const was = new Map(before.failing.map((k) => [strip(k), k.split('|')[2]]));
   const now = new Map(after.failing.map((k) => [strip(k), k.split('|')[2]]));
   const titles = new Map(doc.clauses.map((c) => [c.id, c.title]));
-  return [...new Set([...was.keys(), ...now.keys()])].filter((k) => was.has(k) !== now.has(k)).map((k) => {
-    const [clauseId, location] = k.split('|');
-    return { clauseId, location, title: titles.get(clauseId) ?? '(not in this version)', before: was.get(k) ?? 'pass', after: now.get(k) ?? 'pass' };
-  });
+  return [...new Set([...was.keys(), ...now.keys()])]
+    .filter((k) => was.has(k) !== now.has(k))
+    .map((k) => {
+      const [clauseId, location] = k.split('|');
+      return {
+        clauseId,
+        location,
+        title: titles.get(clauseId) ?? '(not in this version)',
+        before: was.get(k) ?? 'pass',
+        after: now.get(k) ?? 'pass',
+      };
+    });
 }
 
 /** Impact analysis: which approved calcs would change verdict under another version of a standard. */
 /** Impact CSV columns: titles and clause texts are people's words, so the CSV writer neutralises them. */
 const IMPACT_COLUMNS: CsvColumn<ImpactRow>[] = [
-  { header: 'project', value: (r) => r.projectCode }, { header: 'calc', value: (r) => r.number }, { header: 'title', value: (r) => r.title },
-  { header: 'revision', value: (r) => r.revision }, { header: 'approved at (UTC, ISO 8601)', value: (r) => r.approvedAt },
-  { header: 'verdict before', value: (r) => r.before }, { header: 'verdict after', value: (r) => r.after },
+  { header: 'project', value: (r) => r.projectCode },
+  { header: 'calc', value: (r) => r.number },
+  { header: 'title', value: (r) => r.title },
+  { header: 'revision', value: (r) => r.revision },
+  { header: 'approved at (UTC, ISO 8601)', value: (r) => r.approvedAt },
+  { header: 'verdict before', value: (r) => r.before },
+  { header: 'verdict after', value: (r) => r.after },
   { header: 'clauses that change (count)', value: (r) => r.clauses.length, numeric: true },
-  { header: 'clauses that change', value: (r) => r.clauses.map((c) => `${c.clauseId} ${c.location}: ${c.before}→${c.after}`).join('; ') },
+  {
+    header: 'clauses that change',
+    value: (r) => r.clauses.map((c) => `${c.clauseId} ${c.location}: ${c.before}→${c.after}`).join('; '),
+  },
 ];
 
 export class ImpactService {
@@ -56,7 +71,9 @@ export class ImpactService {
     const started = Date.now();
     const { record, doc } = await loadRuleSet(ruleSetId);
     // A version of a standard governs only the calcs checked against that standard, not every approved calc.
-    const versionIds = (await RuleSetRecord.findAll({ attributes: ['id'], where: { code: record.code } })).map((r) => r.id);
+    const versionIds = (await RuleSetRecord.findAll({ attributes: ['id'], where: { code: record.code } })).map(
+      (r) => r.id,
+    );
     const rows: ImpactRow[] = [];
     let evaluated = 0;
     for (let lastId = 0; ;) {
@@ -64,7 +81,11 @@ export class ImpactService {
       const batch = await Revision.findAll({
         attributes: ['id', 'calcId', 'label', 'input', 'verdict', 'outcome', 'approvedAt'],
         where: { status: 'approved', ruleSetId: { [Op.in]: versionIds }, id: { [Op.gt]: lastId } },
-        include: [{ model: Calc, attributes: ['id', 'number', 'title'], include: [{ model: Project, attributes: ['code'] }] }], order: [['id', 'ASC']], limit: BATCH,
+        include: [
+          { model: Calc, attributes: ['id', 'number', 'title'], include: [{ model: Project, attributes: ['code'] }] },
+        ],
+        order: [['id', 'ASC']],
+        limit: BATCH,
       });
       if (batch.length === 0) break;
       lastId = batch[batch.length - 1].id;
@@ -74,7 +95,13 @@ export class ImpactService {
         if (row) rows.push(row);
       }
     }
-    return { ruleSet: { id: record.id, code: record.code, version: record.version }, evaluated, changed: rows.length, rows, elapsedMs: Date.now() - started };
+    return {
+      ruleSet: { id: record.id, code: record.code, version: record.version },
+      evaluated,
+      changed: rows.length,
+      rows,
+      elapsedMs: Date.now() - started,
+    };
   }
 
   /** A row when the verdict changes; the clauses behind it are the mandatory rows that flip. */
@@ -84,9 +111,16 @@ export class ImpactService {
     if (before.verdict === after.verdict) return null;
     const c = revision.Calc;
     return {
-      calcId: c.id, revisionId: revision.id, projectCode: c.Project.code, number: c.number, title: c.title, revision: revision.label,
+      calcId: c.id,
+      revisionId: revision.id,
+      projectCode: c.Project.code,
+      number: c.number,
+      title: c.title,
+      revision: revision.label,
       approvedAt: revision.approvedAt ? revision.approvedAt.toISOString() : null,
-      before: before.verdict, after: after.verdict, clauses: changedClauses(before, after, doc),
+      before: before.verdict,
+      after: after.verdict,
+      clauses: changedClauses(before, after, doc),
     };
   }
 
@@ -100,7 +134,11 @@ export class ImpactService {
   async diff(ability: AppAbility, fromId: number, toId: number) {
     ForbiddenError.from(ability).throwUnlessCan('read', 'RuleSet');
     const [a, b] = await Promise.all([loadRuleSet(fromId), loadRuleSet(toId)]);
-    return { from: { id: a.record.id, code: a.record.code, version: a.record.version }, to: { id: b.record.id, code: b.record.code, version: b.record.version }, changes: diffRuleSets(a.doc, b.doc) };
+    return {
+      from: { id: a.record.id, code: a.record.code, version: a.record.version },
+      to: { id: b.record.id, code: b.record.code, version: b.record.version },
+      changes: diffRuleSets(a.doc, b.doc),
+    };
   }
 
   /** "Try it": evaluate a draft (or any version) against one revision's input, without storing anything. */
@@ -109,10 +147,18 @@ export class ImpactService {
     const { record, doc } = await loadRuleSet(ruleSetId);
     const revision = await readRevision(ability, revisionId);
     const validated = validateCalcInput(revision.input);
-    if (!validated.ok) throw new AppError('validation', 400, `Revision ${revision.label} has input errors and cannot be evaluated`, { fieldErrors: { revisionId: validated.issues.map((i) => `${placeOf(i.path)}: ${i.message}`) } });
+    if (!validated.ok)
+      throw new AppError('validation', 400, `Revision ${revision.label} has input errors and cannot be evaluated`, {
+        fieldErrors: { revisionId: validated.issues.map((i) => `${placeOf(i.path)}: ${i.message}`) },
+      });
     const input = applyRuleSetMethods(validated.value, doc);
     const checklist = await evaluateChecklist(input, evaluateValidInput(input), doc);
-    return { ruleSet: { id: record.id, code: record.code, version: record.version }, revision: { id: revision.id, label: revision.label }, checklist, before: revision.checklist };
+    return {
+      ruleSet: { id: record.id, code: record.code, version: record.version },
+      revision: { id: revision.id, label: revision.label },
+      checklist,
+      before: revision.checklist,
+    };
   }
 
   /** After a version becomes effective: tell compliance when approved calcs would now change verdict. */
@@ -122,12 +168,30 @@ export class ImpactService {
     const report = await this.run(record.id);
     if (report.changed === 0) return;
     await runTransaction(this.sequelize, async (transaction) => {
-      const list = report.rows.slice(0, 50).map((r) => `- ${r.projectCode} ${r.number} rev ${r.revision}: ${r.before} → ${r.after}`).join('\n');
-      await enqueueMail(await emailsOfRole('compliance', [], transaction), {
-        event: 'impact', subject: `${record.code} v${record.version} changes the verdict of ${report.changed} approved calc(s)`,
-        body: `${record.code} v${record.version} is now effective (${actor.id === null ? `in force from its effective date, ${record.effectiveDate}` : `confirmed by ${actor.name}`}). Re-evaluated ${report.evaluated} approved calcs; ${report.changed} change:\n\n${list}\n\nImpact report: ${appLink(`/rule-sets/${record.id}`)}\n\n${CAUTION}`,
-      }, transaction);
-      await appendAudit(this.sequelize, actor, { action: 'rule_set.impact_notified', entityType: 'RuleSet', entityId: record.id, payload: { changed: report.changed, evaluated: report.evaluated } }, transaction);
+      const list = report.rows
+        .slice(0, 50)
+        .map((r) => `- ${r.projectCode} ${r.number} rev ${r.revision}: ${r.before} → ${r.after}`)
+        .join('\n');
+      await enqueueMail(
+        await emailsOfRole('compliance', [], transaction),
+        {
+          event: 'impact',
+          subject: `${record.code} v${record.version} changes the verdict of ${report.changed} approved calc(s)`,
+          body: `${record.code} v${record.version} is now effective (${actor.id === null ? `in force from its effective date, ${record.effectiveDate}` : `confirmed by ${actor.name}`}). Re-evaluated ${report.evaluated} approved calcs; ${report.changed} change:\n\n${list}\n\nImpact report: ${appLink(`/rule-sets/${record.id}`)}\n\n${CAUTION}`,
+        },
+        transaction,
+      );
+      await appendAudit(
+        this.sequelize,
+        actor,
+        {
+          action: 'rule_set.impact_notified',
+          entityType: 'RuleSet',
+          entityId: record.id,
+          payload: { changed: report.changed, evaluated: report.evaluated },
+        },
+        transaction,
+      );
     });
   }
 }

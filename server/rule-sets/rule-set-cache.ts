@@ -18,8 +18,14 @@ export function parseRuleSet(record: RuleSetRecord): RuleSet {
   return doc;
 }
 
-export async function loadRuleSet(id: number, transaction?: Transaction): Promise<{ record: RuleSetRecord; doc: RuleSet }> {
+export async function loadRuleSet(
+  id: number,
+  transaction?: Transaction,
+): Promise<{ record: RuleSetRecord; doc: RuleSet }> {
   const record = await RuleSetRecord.findByPk(id, { transaction });
-  if (!record) throw new AppError('validation', 400, `Design standard ${id} does not exist`, { fieldErrors: { ruleSetId: ['does not exist'] } });
+  if (!record)
+    throw new AppError('validation', 400, `Design standard ${id} does not exist`, {
+      fieldErrors: { ruleSetId: ['does not exist'] },
+    });
   return { record, doc: parseRuleSet(record) };
 }

@@ -1,7 +1,13 @@
 import type { Router } from 'express';
 import { z } from 'zod';
 import { decimalId } from '../../shared/schemas/common.schema';
-import { confirmSchema, createDraftSchema, proposeSchema, tryItSchema, updateDraftSchema } from '../../shared/schemas/rule-set.schema';
+import {
+  confirmSchema,
+  createDraftSchema,
+  proposeSchema,
+  tryItSchema,
+  updateDraftSchema,
+} from '../../shared/schemas/rule-set.schema';
 import { validate } from '../http/validate';
 import { idParam, idRouter } from '../http/route-ids';
 import { signedInActor } from '../authz/actor';
@@ -28,13 +34,31 @@ export function ruleSetsRouter(ruleSets: RuleSetsService, impact: ImpactService)
     res.status(201).json(await ruleSets.createDraft(req.ability, signedInActor(req), req.body.fromId));
   });
   router.put('/:id', validate({ body: updateDraftSchema }), async (req, res) => {
-    res.json(await ruleSets.updateDraft(req.ability, signedInActor(req), idParam(req), req.body.document, req.body.lockVersion));
+    res.json(
+      await ruleSets.updateDraft(
+        req.ability,
+        signedInActor(req),
+        idParam(req),
+        req.body.document,
+        req.body.lockVersion,
+      ),
+    );
   });
   router.post('/:id/propose', validate({ body: proposeSchema }), async (req, res) => {
-    res.json(await ruleSets.propose(req.ability, signedInActor(req), idParam(req), req.body.effectiveDate, req.body.lockVersion));
+    res.json(
+      await ruleSets.propose(
+        req.ability,
+        signedInActor(req),
+        idParam(req),
+        req.body.effectiveDate,
+        req.body.lockVersion,
+      ),
+    );
   });
   router.post('/:id/confirm', validate({ body: confirmSchema }), async (req, res) => {
-    res.json(await ruleSets.confirm(req.ability, signedInActor(req), idParam(req), req.body.password, req.body.lockVersion));
+    res.json(
+      await ruleSets.confirm(req.ability, signedInActor(req), idParam(req), req.body.password, req.body.lockVersion),
+    );
   });
   router.post('/:id/try', validate({ body: tryItSchema }), async (req, res) => {
     res.json(await impact.tryIt(req.ability, idParam(req), req.body.revisionId));
@@ -44,7 +68,10 @@ export function ruleSetsRouter(ruleSets: RuleSetsService, impact: ImpactService)
   });
   router.get('/:id/impact.csv', async (req, res) => {
     const csv = await impact.csv(req.ability, idParam(req));
-    res.type('text/csv').attachment(`impact-${idParam(req)}.csv`).send(csv);
+    res
+      .type('text/csv')
+      .attachment(`impact-${idParam(req)}.csv`)
+      .send(csv);
   });
   return router;
 }

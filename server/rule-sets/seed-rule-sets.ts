@@ -8,13 +8,30 @@ import { documentHash } from './rule-set-mapping';
 
 const RULES_DIR = path.resolve(__dirname, '../../rules');
 
-async function retireEarlier(sequelize: Sequelize, id: number, code: string, version: number, transaction: Transaction): Promise<void> {
-  const earlier = await RuleSetRecord.findAll({ where: { code, status: 'effective', version: { [Op.lt]: version } }, transaction });
+async function retireEarlier(
+  sequelize: Sequelize,
+  id: number,
+  code: string,
+  version: number,
+  transaction: Transaction,
+): Promise<void> {
+  const earlier = await RuleSetRecord.findAll({
+    where: { code, status: 'effective', version: { [Op.lt]: version } },
+    transaction,
+  });
   for (const r of earlier) {
     await r.update({ status: 'retired' }, { transaction });
-    await appendAudit(sequelize, { id: null, name: 'standards loader', ip: null }, {
-      action: 'rule_set.retired', entityType: 'RuleSet', entityId: r.id, payload: { code, version: r.version, supersededBy: version, by: id },
-    }, transaction);
+    await appendAudit(
+      sequelize,
+      { id: null, name: 'standards loader', ip: null },
+      {
+        action: 'rule_set.retired',
+        entityType: 'RuleSet',
+        entityId: r.id,
+        payload: { code, version: r.version, supersededBy: version, by: id },
+      },
+      transaction,
+    );
   }
 }
 
@@ -27,22 +44,45 @@ async function retireEarlier(sequelize: Sequelize, id: number, code: string, ver
  */
 export async function seedRuleSets(sequelize: Sequelize): Promise<number> {
   let added = 0;
-  for (const file of fs.readdirSync(RULES_DIR).filter((f) => f.endsWith('.json')).sort()) {
+  for (const file of fs
+    .readdirSync(RULES_DIR)
+    .filter((f) => f.endsWith('.json'))
+    .sort()) {
     const raw = JSON.parse(fs.readFileSync(path.join(RULES_DIR, file), 'utf8'));
     const { $schema: _ignored, ...doc } = raw;
     const checked = validateRuleSet(doc);
-    if (!checked.ok) throw new Error(`rules/${file} is not a valid design standard: ${checked.issues.map((i) => `${i.path}: ${i.message}`).join('; ')}`);
+    if (!checked.ok)
+      throw new Error(
+        `rules/${file} is not a valid design standard: ${checked.issues.map((i) => `${i.path}: ${i.message}`).join('; ')}`,
+      );
     const v = checked.value;
     if (await RuleSetRecord.findOne({ where: { code: v.code, version: v.version } })) continue;
     await sequelize.transaction(async (transaction) => {
-      const record = await RuleSetRecord.create({
-        code: v.code, version: v.version, title: v.title, status: v.status, effectiveDate: v.effectiveDate ?? null,
-        document: JSON.stringify(v), contentHash: documentHash(v), createdBy: null,
-      }, { transaction });
+      const record = await RuleSetRecord.create(
+        {
+          code: v.code,
+          version: v.version,
+          title: v.title,
+          status: v.status,
+          effectiveDate: v.effectiveDate ?? null,
+          document: JSON.stringify(v),
+          contentHash: documentHash(v),
+          createdBy: null,
+        },
+        { transaction },
+      );
       if (v.status === 'effective') await retireEarlier(sequelize, record.id, v.code, v.version, transaction);
-      await appendAudit(sequelize, { id: null, name: 'standards loader', ip: null }, {
-        action: 'rule_set.loaded', entityType: 'RuleSet', entityId: record.id, payload: { code: v.code, version: v.version, status: v.status, file },
-      }, transaction);
+      await appendAudit(
+        sequelize,
+        { id: null, name: 'standards loader', ip: null },
+        {
+          action: 'rule_set.loaded',
+          entityType: 'RuleSet',
+          entityId: record.id,
+          payload: { code: v.code, version: v.version, status: v.status, file },
+        },
+        transaction,
+      );
     });
     added++;
   }

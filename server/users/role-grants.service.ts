@@ -50,13 +50,23 @@ export class RoleGrantsService {
   }
 
   async listPending(ability: AppAbility): Promise<RoleGrantDto[]> {
-    ForbiddenError.from(ability).setMessage('Role confirmations are for administrators and compliance').throwUnlessCan('read', 'RoleGrant');
-    const grants = await RoleGrant.findAll({ where: { status: 'pending' }, order: [['createdAt', 'ASC'], ['id', 'ASC']] });
+    ForbiddenError.from(ability)
+      .setMessage('Role confirmations are for administrators and compliance')
+      .throwUnlessCan('read', 'RoleGrant');
+    const grants = await RoleGrant.findAll({
+      where: { status: 'pending' },
+      order: [
+        ['createdAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+    });
     return this.toDtos(grants);
   }
 
   async pendingRolesOf(userIds: number[]): Promise<Map<number, Role[]>> {
-    const rows = userIds.length ? await RoleGrant.findAll({ where: { userId: { [Op.in]: userIds }, status: 'pending' } }) : [];
+    const rows = userIds.length
+      ? await RoleGrant.findAll({ where: { userId: { [Op.in]: userIds }, status: 'pending' } })
+      : [];
     const out = new Map<number, Role[]>();
     for (const g of rows) out.set(g.userId, [...(out.get(g.userId) ?? []), g.role].sort());
     return out;
@@ -66,7 +76,9 @@ export class RoleGrantsService {
   async confirm(ability: AppAbility, actor: Person, grantId: number, password: string): Promise<RoleGrantDto> {
     const me = await User.scope('withPassword').findByPk(actor.id);
     if (!me || !(await verifyPassword(me.passwordHash, password))) {
-      throw new AppError('validation', 400, 'Password is not correct; nothing was confirmed', { fieldErrors: { password: ['is not correct'] } });
+      throw new AppError('validation', 400, 'Password is not correct; nothing was confirmed', {
+        fieldErrors: { password: ['is not correct'] },
+      });
     }
     return this.decide(ability, actor, grantId, 'confirmed');
   }
@@ -75,12 +87,22 @@ export class RoleGrantsService {
     return this.decide(ability, actor, grantId, 'refused', reason);
   }
 
-  private async decide(ability: AppAbility, actor: Person, grantId: number, status: 'confirmed' | 'refused', reason?: string): Promise<RoleGrantDto> {
+  private async decide(
+    ability: AppAbility,
+    actor: Person,
+    grantId: number,
+    status: 'confirmed' | 'refused',
+    reason?: string,
+  ): Promise<RoleGrantDto> {
     const found = await RoleGrant.findByPk(grantId);
     if (!found) throw AppError.notFound(`Role request ${grantId}`);
     await runTransaction(this.sequelize, async (transaction) => {
       // The person's row first, then the request: the same order as a role change, so the two never deadlock.
-      const user = await User.findByPk(found.userId, { include: [{ model: UserRole, as: 'roleRows' }], transaction, lock: transaction.LOCK.UPDATE });
+      const user = await User.findByPk(found.userId, {
+        include: [{ model: UserRole, as: 'roleRows' }],
+        transaction,
+        lock: transaction.LOCK.UPDATE,
+      });
       const grant = await RoleGrant.findByPk(grantId, { transaction, lock: transaction.LOCK.UPDATE });
       if (!user || !grant) throw AppError.notFound(`Role request ${grantId}`);
       assertMayDecide(ability, actor, grant);
@@ -92,36 +114,79 @@ export class RoleGrantsService {
         user.changed('updatedAt', true);
         await user.save({ transaction });
       }
-      await this.record(actor, status === 'confirmed' ? 'granted' : 'refused', user, grant.role, grant.id, transaction, reason);
+      await this.record(
+        actor,
+        status === 'confirmed' ? 'granted' : 'refused',
+        user,
+        grant.role,
+        grant.id,
+        transaction,
+        reason,
+      );
     });
     const [dto] = await this.toDtos([(await RoleGrant.findByPk(grantId))!]);
     return dto;
   }
 
-  private async record(actor: Person, change: RoleChange, user: User, role: Role, grantId: number | null, transaction: Transaction, reason?: string) {
-    const action = { requested: 'user.role_requested', granted: 'user.role_granted', refused: 'user.role_refused', withdrawn: 'user.role_request_withdrawn', removed: 'user.role_removed' }[change];
-    await appendAudit(this.sequelize, actor, {
-      action, entityType: 'User', entityId: user.id,
-      payload: { username: user.username, role, ...(grantId ? { request: grantId } : {}), ...(reason ? { reason } : {}) },
-    }, transaction);
+  private async record(
+    actor: Person,
+    change: RoleChange,
+    user: User,
+    role: Role,
+    grantId: number | null,
+    transaction: Transaction,
+    reason?: string,
+  ) {
+    const action = {
+      requested: 'user.role_requested',
+      granted: 'user.role_granted',
+      refused: 'user.role_refused',
+      withdrawn: 'user.role_request_withdrawn',
+      removed: 'user.role_removed',
+    }[change];
+    await appendAudit(
+      this.sequelize,
+      actor,
+      {
+        action,
+        entityType: 'User',
+        entityId: user.id,
+        payload: {
+          username: user.username,
+          role,
+          ...(grantId ? { request: grantId } : {}),
+          ...(reason ? { reason } : {}),
+        },
+      },
+      transaction,
+    );
     await queueRoleChangeMail(change, role, `${user.displayName} (${user.username})`, actor.name, transaction, reason);
   }
 
   private async toDtos(grants: RoleGrant[]): Promise<RoleGrantDto[]> {
     const ids = [...new Set(grants.flatMap((g) => [g.userId, g.requestedBy, ...(g.decidedBy ? [g.decidedBy] : [])]))];
-    const people = new Map((await User.findAll({ where: { id: { [Op.in]: ids.length ? ids : [0] } } })).map((u) => [u.id, u]));
+    const people = new Map(
+      (await User.findAll({ where: { id: { [Op.in]: ids.length ? ids : [0] } } })).map((u) => [u.id, u]),
+    );
     const ref = (id: number) => ({ id, name: people.get(id)?.displayName ?? 'unknown' });
     return grants.map((g) => ({
-      id: g.id, user: { ...ref(g.userId), username: people.get(g.userId)?.username ?? '' }, role: g.role, status: g.status,
-      requestedBy: ref(g.requestedBy), requestedAt: g.createdAt.toISOString(),
-      decidedBy: g.decidedBy ? ref(g.decidedBy) : null, decidedAt: g.decidedAt ? g.decidedAt.toISOString() : null,
+      id: g.id,
+      user: { ...ref(g.userId), username: people.get(g.userId)?.username ?? '' },
+      role: g.role,
+      status: g.status,
+      requestedBy: ref(g.requestedBy),
+      requestedAt: g.createdAt.toISOString(),
+      decidedBy: g.decidedBy ? ref(g.decidedBy) : null,
+      decidedAt: g.decidedAt ? g.decidedAt.toISOString() : null,
     }));
   }
 }
 
 function assertMayDecide(ability: AppAbility, actor: Person, grant: RoleGrant): void {
-  if (grant.requestedBy === actor.id) throw new AppError('forbidden', 403, 'A second person must decide; you asked for this role');
+  if (grant.requestedBy === actor.id)
+    throw new AppError('forbidden', 403, 'A second person must decide; you asked for this role');
   if (grant.userId === actor.id) throw new AppError('forbidden', 403, 'Nobody decides on their own roles');
-  ForbiddenError.from(ability).setMessage('Only an administrator or compliance officer confirms roles')
+  ForbiddenError.from(ability)
+    .setMessage('Only an administrator or compliance officer confirms roles')
     .throwUnlessCan('confirm', subject('RoleGrant', { userId: grant.userId, requestedBy: grant.requestedBy }));
 }

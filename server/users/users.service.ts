@@ -28,13 +28,24 @@ export class UsersService {
 
   async list(ability: AppAbility, query: PageQuery): Promise<Page<UserDto>> {
     const where = accessibleWhere(ability, 'read', 'User');
-    const search = query.q ? { [Op.or]: [{ username: { [Op.like]: `%${query.q}%` } }, { displayName: { [Op.like]: `%${query.q}%` } }] } : {};
+    const search = query.q
+      ? { [Op.or]: [{ username: { [Op.like]: `%${query.q}%` } }, { displayName: { [Op.like]: `%${query.q}%` } }] }
+      : {};
     const { rows, count } = await User.findAndCountAll({
-      where: { [Op.and]: [where, search] }, include: [withRoles], distinct: true,
-      order: [['username', 'ASC']], offset: query.page * query.size, limit: query.size,
+      where: { [Op.and]: [where, search] },
+      include: [withRoles],
+      distinct: true,
+      order: [['username', 'ASC']],
+      offset: query.page * query.size,
+      limit: query.size,
     });
     const pending = await this.grants.pendingRolesOf(rows.map((u) => u.id));
-    return { items: rows.map((u) => toUserDto(u, pending.get(u.id))), total: count, page: query.page, size: query.size };
+    return {
+      items: rows.map((u) => toUserDto(u, pending.get(u.id))),
+      total: count,
+      page: query.page,
+      size: query.size,
+    };
   }
 
   async get(ability: AppAbility, id: number): Promise<UserDto> {
@@ -46,12 +57,28 @@ export class UsersService {
   async create(ability: AppAbility, actor: Actor, dto: CreateUserRequest): Promise<UserDto> {
     ForbiddenError.from(ability).throwUnlessCan('create', 'User');
     const taken = await User.findOne({ where: { username: dto.username } });
-    if (taken) throw new AppError('conflict', 409, `Username "${dto.username}" is taken (usernames are never reused)`, { fieldErrors: { username: ['is already taken'] } });
+    if (taken)
+      throw new AppError('conflict', 409, `Username "${dto.username}" is taken (usernames are never reused)`, {
+        fieldErrors: { username: ['is already taken'] },
+      });
     const passwordHash = await hashPassword(dto.initialPassword);
     const id = await runTransaction(this.sequelize, async (transaction) => {
-      const user = await User.create({ username: dto.username, displayName: dto.displayName, email: dto.email, passwordHash }, { transaction });
-      const payload = { username: dto.username, displayName: dto.displayName, email: dto.email, roles: [...dto.roles].sort() };
-      await appendAudit(this.sequelize, actor, { action: 'user.created', entityType: 'User', entityId: user.id, payload }, transaction);
+      const user = await User.create(
+        { username: dto.username, displayName: dto.displayName, email: dto.email, passwordHash },
+        { transaction },
+      );
+      const payload = {
+        username: dto.username,
+        displayName: dto.displayName,
+        email: dto.email,
+        roles: [...dto.roles].sort(),
+      };
+      await appendAudit(
+        this.sequelize,
+        actor,
+        { action: 'user.created', entityType: 'User', entityId: user.id, payload },
+        transaction,
+      );
       // A new account is no way round the second person: its signing roles wait for confirmation too.
       user.roleRows = [];
       await this.grants.changeRoles(actor as Actor & { id: number }, user, dto.roles, transaction);
@@ -66,21 +93,39 @@ export class UsersService {
       const before = toUserDto(user);
       // Checked before the version and even when no field is given, so a bare `{ version }` is no back door.
       ForbiddenError.from(ability).throwUnlessCan('update', subject('User', before));
-      if (user.version !== dto.version) throw AppError.conflict(`User ${user.username} was changed by someone else; reload and try again`);
+      if (user.version !== dto.version)
+        throw AppError.conflict(`User ${user.username} was changed by someone else; reload and try again`);
       const rolesChange = dto.roles && !sameRoles(dto.roles, [...before.roles, ...(await this.pendingOf(id))]);
-      if (rolesChange && actor.id === id) throw new AppError('own_roles', 403, 'Nobody changes their own roles; ask another administrator');
+      if (rolesChange && actor.id === id)
+        throw new AppError('own_roles', 403, 'Nobody changes their own roles; ask another administrator');
       const fields = (['displayName', 'email', 'secondFactorRequired'] as const).filter((f) => dto[f] !== undefined);
-      for (const field of [...fields, ...(rolesChange ? ['roles' as const] : [])]) ForbiddenError.from(ability).throwUnlessCan('update', subject('User', before), field);
+      for (const field of [...fields, ...(rolesChange ? ['roles' as const] : [])])
+        ForbiddenError.from(ability).throwUnlessCan('update', subject('User', before), field);
       if (rolesChange) {
         ForbiddenError.from(ability).throwUnlessCan('assignRoles', subject('User', before));
         await this.grants.changeRoles(actor as Actor & { id: number }, user, dto.roles!, transaction);
       }
-      user.set({ displayName: dto.displayName ?? user.displayName, email: dto.email ?? user.email, totpRequired: dto.secondFactorRequired ?? user.totpRequired });
+      user.set({
+        displayName: dto.displayName ?? user.displayName,
+        email: dto.email ?? user.email,
+        totpRequired: dto.secondFactorRequired ?? user.totpRequired,
+      });
       user.changed('updatedAt', true);
       await user.save({ transaction });
       // Role changes have their own audit entries (requested, granted, removed), one per role.
       const after = { ...before, ...dto };
-      if (fields.length) await appendAudit(this.sequelize, actor, { action: 'user.updated', entityType: 'User', entityId: id, payload: { before: pick(before, fields), after: pick(after, fields) } }, transaction);
+      if (fields.length)
+        await appendAudit(
+          this.sequelize,
+          actor,
+          {
+            action: 'user.updated',
+            entityType: 'User',
+            entityId: id,
+            payload: { before: pick(before, fields), after: pick(after, fields) },
+          },
+          transaction,
+        );
     });
     return this.dto(await this.load(id));
   }
@@ -89,12 +134,23 @@ export class UsersService {
     await runTransaction(this.sequelize, async (transaction) => {
       const user = await this.load(id, transaction);
       ForbiddenError.from(ability).throwUnlessCan('deactivate', subject('User', toUserDto(user)));
-      if (actor.id === id && !active) throw new AppError('self_deactivation', 400, 'You cannot deactivate your own account');
+      if (actor.id === id && !active)
+        throw new AppError('self_deactivation', 400, 'You cannot deactivate your own account');
       user.active = active;
       await user.save({ transaction });
       // Deactivation ends every session the person has, on every app instance.
       if (!active) await Session.destroy({ where: { userId: id }, transaction });
-      await appendAudit(this.sequelize, actor, { action: active ? 'user.reactivated' : 'user.deactivated', entityType: 'User', entityId: id, payload: { username: user.username } }, transaction);
+      await appendAudit(
+        this.sequelize,
+        actor,
+        {
+          action: active ? 'user.reactivated' : 'user.deactivated',
+          entityType: 'User',
+          entityId: id,
+          payload: { username: user.username },
+        },
+        transaction,
+      );
     });
     return this.dto(await this.load(id));
   }
@@ -108,7 +164,11 @@ export class UsersService {
   }
 
   private async load(id: number, transaction?: import('sequelize').Transaction): Promise<User> {
-    const user = await User.findByPk(id, { include: [withRoles], transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
+    const user = await User.findByPk(id, {
+      include: [withRoles],
+      transaction,
+      lock: transaction ? transaction.LOCK.UPDATE : undefined,
+    });
     if (!user) throw AppError.notFound(`User ${id}`);
     return user;
   }

@@ -7,7 +7,10 @@ import { auditOnRecord, recordOnRecord, sealCheck } from './pack-online';
 
 /** Checks an uploaded evidence pack: on its own first, then against this server's records. */
 export class PackCheckService {
-  constructor(readonly maxBytes: number, private readonly work: WorkPool) {}
+  constructor(
+    readonly maxBytes: number,
+    private readonly work: WorkPool,
+  ) {}
 
   async check(zip: Buffer | undefined): Promise<PackVerification> {
     if (!zip) throw AppError.validation({ file: ['is required: send the evidence pack (.zip) as form field "file"'] });
@@ -15,7 +18,9 @@ export class PackCheckService {
     // Packs hold PDFs and scans that barely compress; twice the upload limit is ample room to unpack.
     const copy = new Uint8Array(zip);
     const { manifest, sealHash, checks, records, auditHashes } = await this.work.run<OfflinePackResult>(
-      'verifyPackOffline', { zip: copy, maxUnpackedBytes: this.maxBytes * 2 }, [copy.buffer],
+      'verifyPackOffline',
+      { zip: copy, maxUnpackedBytes: this.maxBytes * 2 },
+      [copy.buffer],
     );
     if (manifest && sealHash) {
       checks.push(await sealCheck(sealHash));

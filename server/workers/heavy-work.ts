@@ -1,18 +1,28 @@
 import { readZip } from '../evidence/zip-reader';
-import { auditHashes, packRecord, recordPaths, verifyPackFiles, type Manifest, type PackRecord } from '../evidence/pack-verify';
+import {
+  auditHashes,
+  packRecord,
+  recordPaths,
+  verifyPackFiles,
+  type Manifest,
+  type PackRecord,
+} from '../evidence/pack-verify';
 import { renderReport } from '../reports/report.service';
 import type { ReportData } from '../reports/report-data';
 import type { PackCheck } from '../../shared/schemas/verify.schema';
 import { AppError } from '../errors/app-error';
 
 /** Errors cross the thread boundary as plain data: a cloned Error keeps only its message. */
-export type Outcome<T> = { ok: true; value: T } | { ok: false; error: { code: string; status: number; message: string; details?: AppError['details'] } };
+export type Outcome<T> =
+  | { ok: true; value: T }
+  | { ok: false; error: { code: string; status: number; message: string; details?: AppError['details'] } };
 
 async function outcome<T>(work: () => T | Promise<T>): Promise<Outcome<T>> {
   try {
     return { ok: true, value: await work() };
   } catch (err) {
-    if (err instanceof AppError && err.expose) return { ok: false, error: { code: err.code, status: err.status, message: err.message, details: err.details } };
+    if (err instanceof AppError && err.expose)
+      return { ok: false, error: { code: err.code, status: err.status, message: err.message, details: err.details } };
     throw err;
   }
 }
@@ -32,11 +42,20 @@ export interface OfflinePackResult {
   auditHashes: string[];
 }
 
-export function verifyPackOffline(input: { zip: Uint8Array; maxUnpackedBytes: number }): Promise<Outcome<OfflinePackResult>> {
+export function verifyPackOffline(input: {
+  zip: Uint8Array;
+  maxUnpackedBytes: number;
+}): Promise<Outcome<OfflinePackResult>> {
   return outcome(() => checkPack(input));
 }
 
-async function checkPack({ zip, maxUnpackedBytes }: { zip: Uint8Array; maxUnpackedBytes: number }): Promise<OfflinePackResult> {
+async function checkPack({
+  zip,
+  maxUnpackedBytes,
+}: {
+  zip: Uint8Array;
+  maxUnpackedBytes: number;
+}): Promise<OfflinePackResult> {
   const files = await readZip(Buffer.from(zip.buffer, zip.byteOffset, zip.byteLength), maxUnpackedBytes);
   const { manifest, sealHash, checks } = verifyPackFiles(files);
   if (!manifest || !sealHash) return { manifest, sealHash, checks, records: [], auditHashes: [] };
@@ -44,6 +63,12 @@ async function checkPack({ zip, maxUnpackedBytes }: { zip: Uint8Array; maxUnpack
   return { manifest, sealHash, checks, records, auditHashes: auditHashes(files) };
 }
 
-export function renderReportPdf({ data, fontDir }: { data: ReportData; fontDir: string }): Promise<Outcome<Uint8Array>> {
+export function renderReportPdf({
+  data,
+  fontDir,
+}: {
+  data: ReportData;
+  fontDir: string;
+}): Promise<Outcome<Uint8Array>> {
   return outcome(() => renderReport(data, fontDir));
 }

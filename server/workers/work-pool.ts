@@ -32,14 +32,19 @@ export class WorkPool {
     });
   }
 
-  async run<T>(name: 'verifyPackOffline' | 'renderReportPdf', input: unknown, transfer: ArrayBuffer[] = []): Promise<T> {
+  async run<T>(
+    name: 'verifyPackOffline' | 'renderReportPdf',
+    input: unknown,
+    transfer: ArrayBuffer[] = [],
+  ): Promise<T> {
     let result: Outcome<T>;
     try {
       result = await this.pool.run(input, { name, transferList: transfer as never });
     } catch (err) {
       throw translate(err, name);
     }
-    if (!result.ok) throw new AppError(result.error.code, result.error.status, result.error.message, result.error.details);
+    if (!result.ok)
+      throw new AppError(result.error.code, result.error.status, result.error.message, result.error.details);
     return result.value;
   }
 
@@ -55,7 +60,11 @@ function translate(err: unknown, name: string): Error {
   }
   if ((err as { code?: string })?.code === 'ERR_WORKER_OUT_OF_MEMORY') {
     logger.warn({ name }, 'a worker ran out of its memory limit');
-    return new AppError('too_large', 413, 'This needs more memory than one job may use; the file is too large to process here');
+    return new AppError(
+      'too_large',
+      413,
+      'This needs more memory than one job may use; the file is too large to process here',
+    );
   }
   return err instanceof Error ? err : new Error(message);
 }

@@ -7,7 +7,7 @@ const refuse = (field: 'clauseRef' | 'anchorPath', reason: string, message: stri
   new AppError('validation', 400, message, { fieldErrors: { [field]: [reason] } });
 
 function rowsOf(revision: Revision): ChecklistRow[] {
-  const checklist = revision.checklist ? JSON.parse(revision.checklist) as { rows?: ChecklistRow[] } : null;
+  const checklist = revision.checklist ? (JSON.parse(revision.checklist) as { rows?: ChecklistRow[] }) : null;
   return checklist?.rows ?? [];
 }
 
@@ -31,15 +31,28 @@ export function checkFindingAnchor(revision: Revision, anchor: FindingAnchor): F
   if (clauseRef) {
     // A row that does not apply is still a row: "this clause should apply here" is a fair finding.
     const rows = rowsOf(revision).filter((r) => r.clauseId === clauseRef);
-    if (!rows.length) throw refuse('clauseRef', `is not a clause on this revision's checklist`, `§${clauseRef} is not a clause on this revision's checklist`);
+    if (!rows.length)
+      throw refuse(
+        'clauseRef',
+        `is not a clause on this revision's checklist`,
+        `§${clauseRef} is not a clause on this revision's checklist`,
+      );
     // Without a location the finding concerns the clause wherever it is checked.
     if (anchorPath && !rows.some((r) => rowPath(r.location) === anchorPath)) {
-      throw refuse('anchorPath', `is not a location where §${clauseRef} is checked`, `§${clauseRef} is not checked at that location on this revision`);
+      throw refuse(
+        'anchorPath',
+        `is not a location where §${clauseRef} is checked`,
+        `§${clauseRef} is not checked at that location on this revision`,
+      );
     }
     return { clauseRef, anchorPath: anchorPath || null };
   }
   if (anchorPath && !inputHas(JSON.parse(revision.input), anchorPath)) {
-    throw refuse('anchorPath', 'names no input of this revision', 'The finding names an input this revision does not have');
+    throw refuse(
+      'anchorPath',
+      'names no input of this revision',
+      'The finding names an input this revision does not have',
+    );
   }
   return { clauseRef: null, anchorPath: anchorPath || null };
 }

@@ -11,7 +11,10 @@ import { signingFormatOf } from '../independent/signed-model';
  * still in format 1 (made before attachments were signed) moves to format 2 here; its earlier
  * signatures keep their format and are judged in it, so they verify exactly as before.
  */
-export async function signedContentFor(revision: Revision, transaction: Transaction): Promise<{ hash: string; format: number; attachments: SignedAttachment[] }> {
+export async function signedContentFor(
+  revision: Revision,
+  transaction: Transaction,
+): Promise<{ hash: string; format: number; attachments: SignedAttachment[] }> {
   const rows = await Attachment.findAll({ where: { revisionId: revision.id }, transaction });
   const format = await signingFormatOf(revision.id, CONTENT_FORMAT, transaction);
   const hash = await currentHashOf(revision, transaction, undefined, format);

@@ -20,14 +20,20 @@ import { queueHandOverMail, type HandOverFacts } from './hand-over-mail';
 import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
 
-export interface Signer extends Actor { id: number; roles: readonly Role[] }
+export interface Signer extends Actor {
+  id: number;
+  roles: readonly Role[];
+}
 
 /**
  * Sign-off. Each signature is one transaction: lock the revision, re-check state, independence
  * and content hash, insert the signature, the state change, the audit entry and the mail, commit.
  */
 export class WorkflowService {
-  constructor(private readonly sequelize: Sequelize, private readonly baseUrl: string) {}
+  constructor(
+    private readonly sequelize: Sequelize,
+    private readonly baseUrl: string,
+  ) {}
 
   async sign(ability: AppAbility, signer: Signer, revisionId: number, dto: SignRequest): Promise<RevisionDto> {
     // Why the signature cannot happen comes first, so a blocked signer never sees "wrong password"
@@ -39,31 +45,72 @@ export class WorkflowService {
       await this.assertMaySign(dto.meaning, signer, revision);
     }
     await this.checkPassword(signer, revisionId, dto);
-    await runTransaction(this.sequelize, async (transaction) => {
-      const revision = await loadRevision(revisionId, transaction);
-      // A retried request with the same key has already done its work: answer as the first did.
-      const earlier = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey }, transaction });
-      if (earlier && earlier.revisionId === revisionId && earlier.userId === signer.id) return;
-      if (earlier) throw AppError.conflict('This signing request key was already used for another signature; reload and sign again');
-      // Checked after the replay above: a replayed signature answers as the first request did.
-      await assertProjectOpen(revision.calcId, transaction);
-      if (revision.lockVersion !== dto.lockVersion) throw AppError.conflict('The revision changed since you opened it; review the new content before signing');
-      await this.assertMaySign(dto.meaning, signer, revision, transaction);
-      const hash = await currentHashOf(revision, transaction);
-      if (!hash || hash !== revision.contentHash) throw new AppError('integrity', 409, 'The stored content does not match its recorded hash; signing is refused and compliance should investigate');
-      const [{ now }] = await this.sequelize.query<{ now: Date }>('SELECT UTC_TIMESTAMP(3) AS now', { type: QueryTypes.SELECT, transaction });
-      const signed = await signedContentFor(revision, transaction);
-      await Signature.create({
-        revisionId, userId: signer.id, printedName: signer.name, role: roleFor(dto.meaning), meaning: dto.meaning,
-        signedAt: new Date(now), contentHash: signed.hash, contentFormat: signed.format, attachments: JSON.stringify(signed.attachments), idempotencyKey: dto.idempotencyKey,
-      }, { transaction });
-      await this.advance(revision, dto.meaning, signer, new Date(now), transaction);
-      await appendAudit(this.sequelize, signer, {
-        action: `revision.signed_${dto.meaning}`, entityType: 'Revision', entityId: revisionId,
-        payload: { calcId: revision.calcId, revision: revision.label, meaning: dto.meaning, contentHash: signed.hash, attachments: signed.attachments, state: revision.status },
-      }, transaction);
-      await this.mail(SIGNATURES[dto.meaning].event, revision, signer, transaction);
-    }, { idempotent: true }); // a second run finds its own signature by the idempotency key
+    await runTransaction(
+      this.sequelize,
+      async (transaction) => {
+        const revision = await loadRevision(revisionId, transaction);
+        // A retried request with the same key has already done its work: answer as the first did.
+        const earlier = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey }, transaction });
+        if (earlier && earlier.revisionId === revisionId && earlier.userId === signer.id) return;
+        if (earlier)
+          throw AppError.conflict(
+            'This signing request key was already used for another signature; reload and sign again',
+          );
+        // Checked after the replay above: a replayed signature answers as the first request did.
+        await assertProjectOpen(revision.calcId, transaction);
+        if (revision.lockVersion !== dto.lockVersion)
+          throw AppError.conflict('The revision changed since you opened it; review the new content before signing');
+        await this.assertMaySign(dto.meaning, signer, revision, transaction);
+        const hash = await currentHashOf(revision, transaction);
+        if (!hash || hash !== revision.contentHash)
+          throw new AppError(
+            'integrity',
+            409,
+            'The stored content does not match its recorded hash; signing is refused and compliance should investigate',
+          );
+        const [{ now }] = await this.sequelize.query<{ now: Date }>('SELECT UTC_TIMESTAMP(3) AS now', {
+          type: QueryTypes.SELECT,
+          transaction,
+        });
+        const signed = await signedContentFor(revision, transaction);
+        await Signature.create(
+          {
+            revisionId,
+            userId: signer.id,
+            printedName: signer.name,
+            role: roleFor(dto.meaning),
+            meaning: dto.meaning,
+            signedAt: new Date(now),
+            contentHash: signed.hash,
+            contentFormat: signed.format,
+            attachments: JSON.stringify(signed.attachments),
+            idempotencyKey: dto.idempotencyKey,
+          },
+          { transaction },
+        );
+        await this.advance(revision, dto.meaning, signer, new Date(now), transaction);
+        await appendAudit(
+          this.sequelize,
+          signer,
+          {
+            action: `revision.signed_${dto.meaning}`,
+            entityType: 'Revision',
+            entityId: revisionId,
+            payload: {
+              calcId: revision.calcId,
+              revision: revision.label,
+              meaning: dto.meaning,
+              contentHash: signed.hash,
+              attachments: signed.attachments,
+              state: revision.status,
+            },
+          },
+          transaction,
+        );
+        await this.mail(SIGNATURES[dto.meaning].event, revision, signer, transaction);
+      },
+      { idempotent: true },
+    ); // a second run finds its own signature by the idempotency key
     return readRevision(ability, revisionId);
   }
 
@@ -74,32 +121,62 @@ export class WorkflowService {
         assertSecondFactor(user, dto.oneTimeCode);
         return;
       } catch (err) {
-        await appendAudit(this.sequelize, signer, { action: 'revision.signature_refused', entityType: 'Revision', entityId: revisionId, payload: { meaning: dto.meaning, reason: 'one-time code missing or wrong' } });
+        await appendAudit(this.sequelize, signer, {
+          action: 'revision.signature_refused',
+          entityType: 'Revision',
+          entityId: revisionId,
+          payload: { meaning: dto.meaning, reason: 'one-time code missing or wrong' },
+        });
         throw err;
       }
     }
-    await appendAudit(this.sequelize, signer, { action: 'revision.signature_refused', entityType: 'Revision', entityId: revisionId, payload: { meaning: dto.meaning, reason: 'wrong password' } });
-    throw new AppError('validation', 400, 'Password is not correct; nothing was signed', { fieldErrors: { password: ['is not correct'] } });
+    await appendAudit(this.sequelize, signer, {
+      action: 'revision.signature_refused',
+      entityType: 'Revision',
+      entityId: revisionId,
+      payload: { meaning: dto.meaning, reason: 'wrong password' },
+    });
+    throw new AppError('validation', 400, 'Password is not correct; nothing was signed', {
+      fieldErrors: { password: ['is not correct'] },
+    });
   }
 
-  private async assertMaySign(meaning: Meaning, signer: Signer, revision: Revision, transaction?: Transaction): Promise<void> {
+  private async assertMaySign(
+    meaning: Meaning,
+    signer: Signer,
+    revision: Revision,
+    transaction?: Transaction,
+  ): Promise<void> {
     const findings = await Finding.findAll({ where: { revisionId: revision.id }, transaction });
     const manual = JSON.parse(revision.manualItems) as Record<string, { done: boolean }>;
-    const items = revision.ruleSet ? parseRuleSet(revision.ruleSet).manualItems ?? [] : [];
+    const items = revision.ruleSet ? (parseRuleSet(revision.ruleSet).manualItems ?? []) : [];
     const blocker = signingBlocker(meaning, {
       actor: signer,
-      revision: { status: revision.status, authorId: revision.authorId, checkerId: revision.checkerId, hasResult: revision.result !== null, verdict: revision.verdict, errorRows: errorRowsOf(revision.checklist) },
+      revision: {
+        status: revision.status,
+        authorId: revision.authorId,
+        checkerId: revision.checkerId,
+        hasResult: revision.result !== null,
+        verdict: revision.verdict,
+        errorRows: errorRowsOf(revision.checklist),
+      },
       editorIds: await editorIdsOf(revision.calcId, transaction),
       openFindings: findings.filter((f) => f.status === 'open').length,
       unresolvedFindings: findings.filter((f) => f.status !== 'closed').length,
       openManualItems: items.filter((i) => !manual[i.id]?.done).length,
     });
-    const modelBlocker = blocker ?? await independentModelBlockerFor(meaning, signer.id, revision, transaction);
+    const modelBlocker = blocker ?? (await independentModelBlockerFor(meaning, signer.id, revision, transaction));
     if (modelBlocker) throw new AppError('forbidden', 403, modelBlocker);
   }
 
   /** The state change and stamps a signature makes, as the workflow table gives them. */
-  private async advance(revision: Revision, meaning: Meaning, signer: Signer, at: Date, transaction: Transaction): Promise<void> {
+  private async advance(
+    revision: Revision,
+    meaning: Meaning,
+    signer: Signer,
+    at: Date,
+    transaction: Transaction,
+  ): Promise<void> {
     const { to, stamp, supersedesOlder } = SIGNATURES[meaning];
     revision.status = to;
     revision[stamp.at] = at;
@@ -110,20 +187,55 @@ export class WorkflowService {
 
   /** Approving a revision supersedes every earlier approved revision of the same calc. */
   private async supersedeOlder(revision: Revision, signer: Signer, transaction: Transaction): Promise<void> {
-    const older = await Revision.findAll({ where: { calcId: revision.calcId, status: revision.status, id: { [Op.ne]: revision.id } }, transaction, lock: transaction.LOCK.UPDATE });
+    const older = await Revision.findAll({
+      where: { calcId: revision.calcId, status: revision.status, id: { [Op.ne]: revision.id } },
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    });
     for (const r of older) {
       r.status = SUPERSEDED_STATE;
       await r.save({ transaction });
-      await appendAudit(this.sequelize, signer, { action: 'revision.superseded', entityType: 'Revision', entityId: r.id, payload: { calcId: r.calcId, revision: r.label, supersededBy: revision.label } }, transaction);
+      await appendAudit(
+        this.sequelize,
+        signer,
+        {
+          action: 'revision.superseded',
+          entityType: 'Revision',
+          entityId: r.id,
+          payload: { calcId: r.calcId, revision: r.label, supersededBy: revision.label },
+        },
+        transaction,
+      );
     }
   }
 
-  async mail(event: HandOverFacts['event'], revision: Revision, actor: Actor, transaction: Transaction, reason?: string): Promise<void> {
-    const calc = await Calc.findByPk(revision.calcId, { include: [Project], transaction }) as Calc & { Project: Project };
-    await queueHandOverMail({
-      event, calcId: calc.id, calcNumber: calc.number, calcTitle: calc.title, projectCode: calc.Project.code, revision: revision.label,
-      actorName: actor.name, authorId: revision.authorId, checkerId: revision.checkerId, editorIds: await editorIdsOf(calc.id, transaction), reason, baseUrl: this.baseUrl,
-    }, transaction);
+  async mail(
+    event: HandOverFacts['event'],
+    revision: Revision,
+    actor: Actor,
+    transaction: Transaction,
+    reason?: string,
+  ): Promise<void> {
+    const calc = (await Calc.findByPk(revision.calcId, { include: [Project], transaction })) as Calc & {
+      Project: Project;
+    };
+    await queueHandOverMail(
+      {
+        event,
+        calcId: calc.id,
+        calcNumber: calc.number,
+        calcTitle: calc.title,
+        projectCode: calc.Project.code,
+        revision: revision.label,
+        actorName: actor.name,
+        authorId: revision.authorId,
+        checkerId: revision.checkerId,
+        editorIds: await editorIdsOf(calc.id, transaction),
+        reason,
+        baseUrl: this.baseUrl,
+      },
+      transaction,
+    );
   }
 }
 

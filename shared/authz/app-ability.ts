@@ -1,17 +1,55 @@
 import { AbilityBuilder, PureAbility, fieldPatternMatcher, type RawRuleOf, type ForcedSubject } from '@casl/ability';
 import {
-  createFactory, $eq, $ne, $in, $nin, $lt, $lte, $gt, $gte,
-  and, eq, ne, within, nin, lt, lte, gt, gte,
+  createFactory,
+  $eq,
+  $ne,
+  $in,
+  $nin,
+  $lt,
+  $lte,
+  $gt,
+  $gte,
+  and,
+  eq,
+  ne,
+  within,
+  nin,
+  lt,
+  lte,
+  gt,
+  gte,
 } from '@ucast/mongo2js';
 import type { Role } from './roles';
 import { defineWorkflowRules } from '../workflow/workflow-abilities';
 
 export const ACTIONS = [
-  'read', 'create', 'update', 'deactivate', 'assignRoles', 'changePassword',
-  'submit', 'check', 'return', 'approve', 'sign', 'audit', 'publish', 'impact', 'confirm',
+  'read',
+  'create',
+  'update',
+  'deactivate',
+  'assignRoles',
+  'changePassword',
+  'submit',
+  'check',
+  'return',
+  'approve',
+  'sign',
+  'audit',
+  'publish',
+  'impact',
+  'confirm',
 ] as const;
 export const SUBJECTS = [
-  'User', 'Project', 'Calc', 'Revision', 'RuleSet', 'AuditEvent', 'SentMail', 'RoleGrant', 'ReviewHealth', 'HealthSettings',
+  'User',
+  'Project',
+  'Calc',
+  'Revision',
+  'RuleSet',
+  'AuditEvent',
+  'SentMail',
+  'RoleGrant',
+  'ReviewHealth',
+  'HealthSettings',
   'all',
 ] as const;
 export type Action = (typeof ACTIONS)[number];

@@ -5,7 +5,10 @@ import { UNIT_LABELS } from './units';
 
 function checkMaterial(m: MaterialInput, path: string, stress: string, out: CalcIssue[]): void {
   if (m.Sy > m.Su) {
-    out.push({ path: `${path}.Sy`, message: `yield strength ${f(m.Sy)} ${stress} exceeds ultimate strength ${f(m.Su)} ${stress}` });
+    out.push({
+      path: `${path}.Sy`,
+      message: `yield strength ${f(m.Sy)} ${stress} exceeds ultimate strength ${f(m.Su)} ${stress}`,
+    });
   }
 }
 
@@ -16,8 +19,10 @@ export function checkGeometry(input: CalcInput): CalcIssue[] {
   checkMaterial(input.material, 'material', u.stress, out);
   input.segments.forEach((s, i) => {
     if (s.id >= s.od) {
-      out.push({ path: `segments[${i}].id`,
-        message: `inner diameter ${f(s.id)} ${u.length} is not smaller than outer diameter ${f(s.od)} ${u.length}` });
+      out.push({
+        path: `segments[${i}].id`,
+        message: `inner diameter ${f(s.id)} ${u.length} is not smaller than outer diameter ${f(s.od)} ${u.length}`,
+      });
     }
     if (s.material) checkMaterial(s.material, `segments[${i}].material`, u.stress, out);
   });

@@ -24,18 +24,29 @@ function checkBalance(values: number[], what: string, input: CalcInput, out: Cal
   });
   const tol = BALANCE_TOLERANCE * Math.abs(largest);
   if (Math.abs(sum) <= tol) return;
-  out.push({ path: 'torques', message: `${what} do not balance: they sum to ${f(sum)} ${unit} (allowed ±${f(tol)} ${unit}); `
-    + `the largest is ${f(largest)} ${unit} at ${f(at)} ${UNIT_LABELS[input.units].length}, `
-    + `so a further ${f(-sum)} ${unit} is needed, or a value is mistyped` });
+  out.push({
+    path: 'torques',
+    message:
+      `${what} do not balance: they sum to ${f(sum)} ${unit} (allowed ±${f(tol)} ${unit}); ` +
+      `the largest is ${f(largest)} ${unit} at ${f(at)} ${UNIT_LABELS[input.units].length}, ` +
+      `so a further ${f(-sum)} ${unit} is needed, or a value is mistyped`,
+  });
 }
 
-function checkStations(items: readonly { at: number }[], name: string, bounds: number[], input: CalcInput,
-  out: CalcIssue[]): void {
+function checkStations(
+  items: readonly { at: number }[],
+  name: string,
+  bounds: number[],
+  input: CalcInput,
+  out: CalcIssue[],
+): void {
   const len = UNIT_LABELS[input.units].length;
   items.forEach((item, i) => {
     if (locate(item.at, bounds).left < 0) {
-      out.push({ path: `${name}[${i}].at`,
-        message: `station ${f(item.at)} ${len} is off the shaft (0 to ${f(bounds[bounds.length - 1])} ${len})` });
+      out.push({
+        path: `${name}[${i}].at`,
+        message: `station ${f(item.at)} ${len} is off the shaft (0 to ${f(bounds[bounds.length - 1])} ${len})`,
+      });
     }
   });
 }
@@ -46,17 +57,33 @@ export function checkLoads(input: CalcInput): CalcIssue[] {
   const bounds = segmentBounds(input.segments.map((s) => s.length));
   checkStations(input.torques, 'torques', bounds, input, out);
   checkStations(input.bending ?? [], 'bending', bounds, input, out);
-  checkBalance(input.torques.map((t) => entryTorque(t, input.units)), 'external torques', input, out);
+  checkBalance(
+    input.torques.map((t) => entryTorque(t, input.units)),
+    'external torques',
+    input,
+    out,
+  );
   const hasTa = input.torques.some((t) => t.Ta !== undefined);
-  if (hasTa) checkBalance(input.torques.map((t) => t.Ta ?? 0), 'alternating torques (Ta)', input, out);
+  if (hasTa)
+    checkBalance(
+      input.torques.map((t) => t.Ta ?? 0),
+      'alternating torques (Ta)',
+      input,
+      out,
+    );
   if (hasTa && input.fatigue?.alternatingTorqueFraction !== undefined) {
-    out.push({ path: 'fatigue.alternatingTorqueFraction',
-      message: 'give either an alternating torque fraction or Ta on the torque entries, not both' });
+    out.push({
+      path: 'fatigue.alternatingTorqueFraction',
+      message: 'give either an alternating torque fraction or Ta on the torque entries, not both',
+    });
   }
   const seen = new Set<number>();
   (input.bending ?? []).forEach((b, i) => {
     if (seen.has(b.at)) {
-      out.push({ path: `bending[${i}].at`, message: `a second bending entry at station ${f(b.at)} ${UNIT_LABELS[input.units].length}` });
+      out.push({
+        path: `bending[${i}].at`,
+        message: `a second bending entry at station ${f(b.at)} ${UNIT_LABELS[input.units].length}`,
+      });
     }
     seen.add(b.at);
   });

@@ -14,22 +14,42 @@ import type { UnitSystem } from './units';
  * also be exactly 0. Each US range contains the SI one converted, so a shaft valid in SI units
  * is valid when entered in US units too.
  */
-export type RangeKind = 'length' | 'torque' | 'power' | 'speed' | 'modulus' | 'stress' | 'temperature' | 'factor' | 'Kt' | 'fraction';
+export type RangeKind =
+  'length' | 'torque' | 'power' | 'speed' | 'modulus' | 'stress' | 'temperature' | 'factor' | 'Kt' | 'fraction';
 
 export const PLAUSIBLE_RANGES: Record<UnitSystem, Record<RangeKind, readonly [number, number]>> = {
   SI: {
-    length: [0.001, 1e5], torque: [1e-6, 1e10], power: [1e-6, 1e6], speed: [0.001, 1e6], modulus: [0.1, 2000],
-    stress: [0.1, 20000], temperature: [-273.15, 1500], factor: [0.01, 10], Kt: [1, 20], fraction: [0, 100],
+    length: [0.001, 1e5],
+    torque: [1e-6, 1e10],
+    power: [1e-6, 1e6],
+    speed: [0.001, 1e6],
+    modulus: [0.1, 2000],
+    stress: [0.1, 20000],
+    temperature: [-273.15, 1500],
+    factor: [0.01, 10],
+    Kt: [1, 20],
+    fraction: [0, 100],
   },
   US: {
-    length: [0.00003, 4000], torque: [1e-6, 1e11], power: [1e-6, 2e6], speed: [0.001, 1e6], modulus: [0.01, 300],
-    stress: [0.01, 3000], temperature: [-459.67, 2700], factor: [0.01, 10], Kt: [1, 20], fraction: [0, 100],
+    length: [0.00003, 4000],
+    torque: [1e-6, 1e11],
+    power: [1e-6, 2e6],
+    speed: [0.001, 1e6],
+    modulus: [0.01, 300],
+    stress: [0.01, 3000],
+    temperature: [-459.67, 2700],
+    factor: [0.01, 10],
+    Kt: [1, 20],
+    fraction: [0, 100],
   },
 };
 
 const SIGNED = new Set<RangeKind>(['torque', 'power']);
 
-interface Ctx { system: UnitSystem; out: CalcIssue[] }
+interface Ctx {
+  system: UnitSystem;
+  out: CalcIssue[];
+}
 
 // Range ends read best as 1e-6 and 1e+10 rather than 0.000001 and 10000000000.
 function g(v: number): string {
@@ -44,8 +64,13 @@ function check(value: number | undefined, kind: RangeKind, path: string, c: Ctx)
   if ((size >= lo && size <= hi) || (SIGNED.has(kind) && value === 0)) return;
   const key = path.slice(path.lastIndexOf('.') + 1);
   const { name, unit } = fieldOf([key], c.system);
-  const what = SIGNED.has(kind) ? `its size must be 0 or from ${g(lo)} to ${g(hi)}${unit}` : `the plausible range is ${g(lo)} to ${g(hi)}${unit}`;
-  c.out.push({ path, message: `${name} ${g(value)}${unit} is outside the range this engine can compute reliably: ${what}` });
+  const what = SIGNED.has(kind)
+    ? `its size must be 0 or from ${g(lo)} to ${g(hi)}${unit}`
+    : `the plausible range is ${g(lo)} to ${g(hi)}${unit}`;
+  c.out.push({
+    path,
+    message: `${name} ${g(value)}${unit} is outside the range this engine can compute reliably: ${what}`,
+  });
 }
 
 function material(m: MaterialInput | undefined, p: string, c: Ctx): void {
@@ -75,8 +100,12 @@ function powerTorque(input: CalcInput, i: number, c: Ctx): void {
   const [lo, hi] = PLAUSIBLE_RANGES[c.system].torque;
   if (T >= lo && T <= hi) return;
   const u = fieldOf(['T'], c.system).unit;
-  c.out.push({ path: `torques[${i}].speed`, message: `power ${g(t.power)}${fieldOf(['power'], c.system).unit} at ${f(t.speed)} rpm `
-    + `means a torque of ${g(T)}${u}, outside ${g(lo)} to ${g(hi)}${u}: check the speed and the power` });
+  c.out.push({
+    path: `torques[${i}].speed`,
+    message:
+      `power ${g(t.power)}${fieldOf(['power'], c.system).unit} at ${f(t.speed)} rpm ` +
+      `means a torque of ${g(T)}${u}, outside ${g(lo)} to ${g(hi)}${u}: check the speed and the power`,
+  });
 }
 
 function loads(input: CalcInput, c: Ctx): void {
@@ -123,7 +152,10 @@ export function checkRanges(input: CalcInput): CalcIssue[] {
     // A wall thinner than the smallest plausible length makes J the difference of two nearly equal numbers.
     const wall = (s.od - s.id) / 2;
     if (s.id > 0 && s.id < s.od && wall < PLAUSIBLE_RANGES[c.system].length[0]) {
-      c.out.push({ path: `${p}.id`, message: `the wall (od − id)/2 = ${f(wall)}${fieldOf(['id'], c.system).unit} is thinner than this engine can compute reliably` });
+      c.out.push({
+        path: `${p}.id`,
+        message: `the wall (od − id)/2 = ${f(wall)}${fieldOf(['id'], c.system).unit} is thinner than this engine can compute reliably`,
+      });
     }
     material(s.material, `${p}.material`, c);
   });

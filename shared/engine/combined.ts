@@ -1,7 +1,7 @@
 import { finite } from './finite';
 
 // Combined static stresses on a round section: Shigley 9th §5-4, §5-5 and §7-4.
-export const VON_MISES_FORMULA = "σ′ = √(σ² + 3τ²) (distortion energy); n_y = Sy/σ′max, Shigley 9th Eqs. 7-15, 7-16";
+export const VON_MISES_FORMULA = 'σ′ = √(σ² + 3τ²) (distortion energy); n_y = Sy/σ′max, Shigley 9th Eqs. 7-15, 7-16';
 export const TRESCA_FORMULA = 'τmax = √((σ/2)² + τ²) (maximum shear); n = Sy/(2·τmax)';
 
 export function vonMises(sigma: number, tau: number): number {

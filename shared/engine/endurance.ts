@@ -2,8 +2,9 @@ import type { FatigueSettings, Mat } from './model';
 import type { Endurance } from './result';
 import { sizeFactor, surfaceFactor, unmodifiedEndurance } from './marin';
 
-export const ENDURANCE_METHOD = 'Se = ka·kb·kc·kd·ke·kf·Se′ (Shigley 9th Eq. 6-18); Se′ = 0.5·Sut ≤ 700 MPa (SI) or ≤ 100 kpsi (US) '
-  + '(Eq. 6-8) unless entered; ka Table 6-2 (MPa coefficients); kb Eq. 6-20 mm form on the outer diameter; ke Table 6-5';
+export const ENDURANCE_METHOD =
+  'Se = ka·kb·kc·kd·ke·kf·Se′ (Shigley 9th Eq. 6-18); Se′ = 0.5·Sut ≤ 700 MPa (SI) or ≤ 100 kpsi (US) ' +
+  '(Eq. 6-8) unless entered; ka Table 6-2 (MPa coefficients); kb Eq. 6-20 mm form on the outer diameter; ke Table 6-5';
 
 /**
  * Marin-modified endurance limit (MPa) at outer diameter dMm. kb takes the mm form of Eq. 6-20 in

@@ -22,8 +22,15 @@ function diagramOut(model: Model, pieces: Piece[]): TorquePiece[] {
   const k = model.k;
   let twist = 0;
   return pieces.map((p) => {
-    const out = { start: p.start / k.length, end: p.end / k.length, segment: p.segment, T: p.T / k.torque,
-      Ta: p.Ta / k.torque, twistStart: twist * DEG, twistPerLength: p.rate / k.twistPerLength };
+    const out = {
+      start: p.start / k.length,
+      end: p.end / k.length,
+      segment: p.segment,
+      T: p.T / k.torque,
+      Ta: p.Ta / k.torque,
+      twistStart: twist * DEG,
+      twistPerLength: p.rate / k.twistPerLength,
+    };
     twist += p.rate * (p.end - p.start);
     return out;
   });
@@ -31,7 +38,13 @@ function diagramOut(model: Model, pieces: Piece[]): TorquePiece[] {
 
 function torquesOut(model: Model): ResolvedTorque[] {
   const k = model.k;
-  return model.torques.map((t) => ({ index: t.index, at: t.at / k.length, T: t.T / k.torque, Ta: t.Ta / k.torque, isFromPower: t.isFromPower }));
+  return model.torques.map((t) => ({
+    index: t.index,
+    at: t.at / k.length,
+    T: t.T / k.torque,
+    Ta: t.Ta / k.torque,
+    isFromPower: t.isFromPower,
+  }));
 }
 
 function keyseatSegments(model: Model): boolean[] {
@@ -58,13 +71,27 @@ export function evaluateValidInput(input: CalcInput): CalcResult {
   const pieces = buildTorqueDiagram(model);
   const fat = model.fatigue;
   const endurance: (Endurance | null)[] = model.segs.map((s) => (fat ? enduranceLimit(s.mat, s.od, fat) : null));
-  const features = (input.features ?? []).map((_, i) => guarded(`features[${i}]`, () => evaluateFeature(model, i, pieces, endurance)));
+  const features = (input.features ?? []).map((_, i) =>
+    guarded(`features[${i}]`, () => evaluateFeature(model, i, pieces, endurance)),
+  );
   const hasKeyseat = keyseatSegments(model);
-  const segments = model.segs.map((s) => guarded(`segments[${s.index}]`, () => evaluateSegment(model, s, pieces, endurance[s.index], hasKeyseat[s.index])));
+  const segments = model.segs.map((s) =>
+    guarded(`segments[${s.index}]`, () => evaluateSegment(model, s, pieces, endurance[s.index], hasKeyseat[s.index])),
+  );
   const result: CalcResult = {
-    engineVersion: ENGINE_VERSION, units: input.units, caution: CAUTION, fields: FIELDS[input.units], methods: METHODS,
-    length: model.total / model.k.length, segments, features, torques: torquesOut(model), torqueDiagram: diagramOut(model, pieces),
-    ...summarize(segments, features), ...beam.results, warnings: model.warnings,
+    engineVersion: ENGINE_VERSION,
+    units: input.units,
+    caution: CAUTION,
+    fields: FIELDS[input.units],
+    methods: METHODS,
+    length: model.total / model.k.length,
+    segments,
+    features,
+    torques: torquesOut(model),
+    torqueDiagram: diagramOut(model, pieces),
+    ...summarize(segments, features),
+    ...beam.results,
+    warnings: model.warnings,
   };
   assertFiniteResult(result);
   return result;

@@ -13,14 +13,15 @@ export interface SafetyByCriterion {
 }
 
 export const CRITERIA_METHODS: Record<keyof SafetyByCriterion, string> = {
-  goodman: "DE-Goodman 1/n = σ′a/Se + σ′m/Sut (Shigley 9th Eq. 7-7/7-8)",
-  asmeElliptic: "DE-ASME-elliptic 1/n = √((σ′a/Se)² + (σ′m/Sy)²) (Shigley 9th Eq. 7-11/7-12)",
-  gerber: "DE-Gerber 1/n = [σ′a + √(σ′a² + (2σ′m·Se/Sut)²)]/(2Se) (Shigley 9th Eq. 7-9/7-10)",
-  soderberg: "DE-Soderberg 1/n = σ′a/Se + σ′m/Sy (Shigley 9th Eq. 7-13/7-14)",
+  goodman: 'DE-Goodman 1/n = σ′a/Se + σ′m/Sut (Shigley 9th Eq. 7-7/7-8)',
+  asmeElliptic: 'DE-ASME-elliptic 1/n = √((σ′a/Se)² + (σ′m/Sy)²) (Shigley 9th Eq. 7-11/7-12)',
+  gerber: 'DE-Gerber 1/n = [σ′a + √(σ′a² + (2σ′m·Se/Sut)²)]/(2Se) (Shigley 9th Eq. 7-9/7-10)',
+  soderberg: 'DE-Soderberg 1/n = σ′a/Se + σ′m/Sy (Shigley 9th Eq. 7-13/7-14)',
 };
 
 // 1/n is exactly 0 only where both stresses are 0; NaN or an overflow throws instead of reading as "no load".
-const inverse = (x: number): number | null => (finite(x, 'a fatigue utilisation') === 0 ? null : finite(1 / x, 'a fatigue safety factor'));
+const inverse = (x: number): number | null =>
+  finite(x, 'a fatigue utilisation') === 0 ? null : finite(1 / x, 'a fatigue safety factor');
 
 /** Safety factors by each criterion; null where both stresses are zero (no fatigue load). */
 export function fatigueSafety(vmA: number, vmM: number, Se: number, Sut: number, Sy: number): SafetyByCriterion {

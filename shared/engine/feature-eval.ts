@@ -14,10 +14,20 @@ import { torqueAt, type Piece } from './torque-diagram';
 
 /** Internal (N·mm, MPa) state of one feature before conversion to the calc's units. */
 interface FeatureState {
-  ft: FeatureInput; g: FeatureGeometry; fac: Factors;
-  q: number; qs: number; Kf: number; Kfs: number;
-  Ma: number; Mm: number; M: number; T: number; Ta: number;
-  nominal: StressSet; peak: StressSet;
+  ft: FeatureInput;
+  g: FeatureGeometry;
+  fac: Factors;
+  q: number;
+  qs: number;
+  Kf: number;
+  Kfs: number;
+  Ma: number;
+  Mm: number;
+  M: number;
+  T: number;
+  Ta: number;
+  nominal: StressSet;
+  peak: StressSet;
 }
 
 function stressSet(sigmaA: number, sigmaM: number, tauA: number, tauM: number): StressSet {
@@ -50,7 +60,12 @@ function featureState(model: Model, index: number, pieces: readonly Piece[]): Fe
   const { T, Ta } = torqueAt(pieces, x, STATION_TOLERANCE * model.total);
   const nominal = stressSet(Ma / g.Z, Mm / g.Z, Ta / g.Zp, Math.abs(T) / g.Zp);
   const onMid = model.fatigue?.isKfOnMidrange !== false;
-  const peak = stressSet(Kf * nominal.sigmaA, (onMid ? Kf : 1) * nominal.sigmaM, Kfs * nominal.tauA, (onMid ? Kfs : 1) * nominal.tauM);
+  const peak = stressSet(
+    Kf * nominal.sigmaA,
+    (onMid ? Kf : 1) * nominal.sigmaM,
+    Kfs * nominal.tauA,
+    (onMid ? Kfs : 1) * nominal.tauM,
+  );
   return { ft, g, fac, q, qs, Kf, Kfs, Ma, Mm, M, T, Ta, nominal, peak };
 }
 
@@ -59,14 +74,21 @@ function keyFor(s: FeatureState, model: Model): KeyCheck | null {
   const { length: L, stress: S } = model.k;
   const ft = s.ft;
   const c = keyCheck(Math.abs(s.T) + s.Ta, s.g.d, {
-    width: ft.width && ft.width * L, height: ft.height && ft.height * L, length: ft.length && ft.length * L, Sy: ft.Sy && ft.Sy * S,
+    width: ft.width && ft.width * L,
+    height: ft.height && ft.height * L,
+    length: ft.length && ft.length * L,
+    Sy: ft.Sy && ft.Sy * S,
   });
   return c && { ...c, shearStress: orNull(c.shearStress, S), bearingStress: orNull(c.bearingStress, S) };
 }
 
 /** One feature's result in the calc's units; `endurance` holds each segment's Se in MPa (or null). */
-export function evaluateFeature(model: Model, index: number, pieces: readonly Piece[],
-  endurance: readonly (Endurance | null)[]): FeatureResult {
+export function evaluateFeature(
+  model: Model,
+  index: number,
+  pieces: readonly Piece[],
+  endurance: readonly (Endurance | null)[],
+): FeatureResult {
   const s = featureState(model, index, pieces);
   const { ft, g, peak } = s;
   const k = model.k;
@@ -75,16 +97,40 @@ export function evaluateFeature(model: Model, index: number, pieces: readonly Pi
   const [vm, tresca, se, mat] = [vonMises(sigma, tau), trescaShear(sigma, tau), endurance[g.seg.index], g.seg.mat];
   const isFillet = g.D !== null;
   return {
-    index, type: ft.type, label: ft.label, at: ft.at, segment: g.seg.index,
-    D: isFillet ? g.D! / k.length : null, d: g.d / k.length, di: g.di / k.length, r: g.r / k.length,
-    rOverD: g.r / g.d, DOverd: isFillet ? g.D! / g.d : null, tOverR: isFillet ? (g.D! - g.d) / 2 / g.r : null,
-    Kt: s.fac.Kt, Kts: s.fac.Kts, q: s.q, qs: s.qs, Kf: s.Kf, Kfs: s.Kfs,
+    index,
+    type: ft.type,
+    label: ft.label,
+    at: ft.at,
+    segment: g.seg.index,
+    D: isFillet ? g.D! / k.length : null,
+    d: g.d / k.length,
+    di: g.di / k.length,
+    r: g.r / k.length,
+    rOverD: g.r / g.d,
+    DOverd: isFillet ? g.D! / g.d : null,
+    tOverR: isFillet ? (g.D! - g.d) / 2 / g.r : null,
+    Kt: s.fac.Kt,
+    Kts: s.fac.Kts,
+    q: s.q,
+    qs: s.qs,
+    Kf: s.Kf,
+    Kfs: s.Kfs,
     method: { Kt: s.fac.ktMethod, Kts: s.fac.ktsMethod, notch: NEUBER_METHOD },
-    M: s.M / k.torque, Ma: s.Ma / k.torque, Mm: s.Mm / k.torque, Ta: s.Ta / k.torque, Tm: Math.abs(s.T) / k.torque,
-    nominal: scaled(s.nominal, k.stress), peak: scaled(peak, k.stress), sigmaVonMises: vm / k.stress, tauTresca: tresca / k.stress,
-    yieldSafety: safetyFactor(mat.Sy, vm), yieldSafetyTresca: safetyFactor(mat.Sy, 2 * tresca),
+    M: s.M / k.torque,
+    Ma: s.Ma / k.torque,
+    Mm: s.Mm / k.torque,
+    Ta: s.Ta / k.torque,
+    Tm: Math.abs(s.T) / k.torque,
+    nominal: scaled(s.nominal, k.stress),
+    peak: scaled(peak, k.stress),
+    sigmaVonMises: vm / k.stress,
+    tauTresca: tresca / k.stress,
+    yieldSafety: safetyFactor(mat.Sy, vm),
+    yieldSafetyTresca: safetyFactor(mat.Sy, 2 * tresca),
     endurance: se ? enduranceOut(se, k.stress) : null,
-    fatigueSafety: se ? fatigueSafety(vonMises(peak.sigmaA, peak.tauA), vonMises(peak.sigmaM, peak.tauM), se.Se, mat.Su, mat.Sy) : null,
+    fatigueSafety: se
+      ? fatigueSafety(vonMises(peak.sigmaA, peak.tauA), vonMises(peak.sigmaM, peak.tauM), se.Se, mat.Su, mat.Sy)
+      : null,
     key: keyFor(s, model),
   };
 }

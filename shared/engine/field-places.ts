@@ -1,6 +1,11 @@
 import type { FeatureInput } from './schema';
 
-const TAGS: Record<FeatureInput['type'], string> = { 'shoulder-fillet': 'SF', keyseat: 'KS', 'ring-groove': 'RG', 'cross-hole': 'CH' };
+const TAGS: Record<FeatureInput['type'], string> = {
+  'shoulder-fillet': 'SF',
+  keyseat: 'KS',
+  'ring-groove': 'RG',
+  'cross-hole': 'CH',
+};
 
 /** Short tag of a feature (1-based, as people count): KS1, SF2 … */
 export function featureTag(type: FeatureInput['type'], index: number): string {
@@ -15,34 +20,100 @@ export function featureTag(type: FeatureInput['type'], index: number): string {
 
 // Entry lists of the calc input as the editor titles their rows.
 const ENTRIES: Record<string, string> = {
-  segments: 'Segment', torques: 'Torque', features: 'Feature', bending: 'Bending moment', supports: 'Bearing', loads: 'Force',
+  segments: 'Segment',
+  torques: 'Torque',
+  features: 'Feature',
+  bending: 'Bending moment',
+  supports: 'Bearing',
+  loads: 'Force',
   masses: 'Mass',
 };
 
 // Field keys as the form labels them.
 const FIELD_WORDS: Record<string, string> = {
-  at: 'station', T: 'torque', Ta: 'alternating torque', power: 'power', speed: 'speed', length: 'length', od: 'outer ⌀', id: 'inner ⌀',
-  r: 'radius', width: 'width', height: 'height', depth: 'depth', diameter: 'hole ⌀', Ma: 'alternating moment', Mm: 'midrange moment',
-  Kt: 'Kt', Kts: 'Kts', Sy: 'yield strength', Su: 'ultimate strength', E: "Young's modulus", G: 'shear modulus', label: 'label',
-  kind: 'kind', C: 'load rating C', X: 'X factor', Y: 'Y factor', Fx: 'axial force', Fy: 'force Fy', Fz: 'force Fz', mass: 'mass',
-  pitchDiameter: 'pitch ⌀', pressureAngle: 'pressure angle', helixAngle: 'helix angle', pullFactor: 'pull factor', direction: 'direction',
-  material: 'material', nu: "Poisson's ratio", name: 'name', source: 'source', surface: 'surface finish', reliability: 'reliability',
-  surfaceTable: 'Table 6-2 edition', temperature: 'temperature', alternatingTorqueFraction: 'alternating torque share',
-  kd: 'temperature factor kd', kc: 'load factor kc', kf: 'miscellaneous factor kf', SePrime: 'endurance limit Se′', SePrimeSource: 'source of Se′',
-  kfOnMidrange: 'Kf, Kfs on midrange stresses', type: 'type', form: 'form', J: 'polar moment', tauMax: 'τmax',
+  at: 'station',
+  T: 'torque',
+  Ta: 'alternating torque',
+  power: 'power',
+  speed: 'speed',
+  length: 'length',
+  od: 'outer ⌀',
+  id: 'inner ⌀',
+  r: 'radius',
+  width: 'width',
+  height: 'height',
+  depth: 'depth',
+  diameter: 'hole ⌀',
+  Ma: 'alternating moment',
+  Mm: 'midrange moment',
+  Kt: 'Kt',
+  Kts: 'Kts',
+  Sy: 'yield strength',
+  Su: 'ultimate strength',
+  E: "Young's modulus",
+  G: 'shear modulus',
+  label: 'label',
+  kind: 'kind',
+  C: 'load rating C',
+  X: 'X factor',
+  Y: 'Y factor',
+  Fx: 'axial force',
+  Fy: 'force Fy',
+  Fz: 'force Fz',
+  mass: 'mass',
+  pitchDiameter: 'pitch ⌀',
+  pressureAngle: 'pressure angle',
+  helixAngle: 'helix angle',
+  pullFactor: 'pull factor',
+  direction: 'direction',
+  material: 'material',
+  nu: "Poisson's ratio",
+  name: 'name',
+  source: 'source',
+  surface: 'surface finish',
+  reliability: 'reliability',
+  surfaceTable: 'Table 6-2 edition',
+  temperature: 'temperature',
+  alternatingTorqueFraction: 'alternating torque share',
+  kd: 'temperature factor kd',
+  kc: 'load factor kc',
+  kf: 'miscellaneous factor kf',
+  SePrime: 'endurance limit Se′',
+  SePrimeSource: 'source of Se′',
+  kfOnMidrange: 'Kf, Kfs on midrange stresses',
+  type: 'type',
+  form: 'form',
+  J: 'polar moment',
+  tauMax: 'τmax',
 };
 
 // Top-level groups of the calc input, as the editor's panels are headed.
 const GROUPS: Record<string, string> = {
-  material: 'Material', fatigue: 'Fatigue', torques: 'Torques', segments: 'Segments', units: 'Units', '(input)': 'Calc input',
-  notes: 'Notes', title: 'Heading', features: 'Features', bending: 'Bending moments', supports: 'Bearings', loads: 'Forces',
-  masses: 'Masses', speed: 'Operating speed', methods: 'Methods', beam: 'Beam model',
+  material: 'Material',
+  fatigue: 'Fatigue',
+  torques: 'Torques',
+  segments: 'Segments',
+  units: 'Units',
+  '(input)': 'Calc input',
+  notes: 'Notes',
+  title: 'Heading',
+  features: 'Features',
+  bending: 'Bending moments',
+  supports: 'Bearings',
+  loads: 'Forces',
+  masses: 'Masses',
+  speed: 'Operating speed',
+  methods: 'Methods',
+  beam: 'Beam model',
 };
 
 const ENTRY = /^(segments|torques|features|bending|supports|loads|masses)\[(\d+)\]((?:\.\w+)*)/;
 
 function fieldWords(rest: string): string[] {
-  return rest.split('.').filter(Boolean).map((k) => FIELD_WORDS[k] ?? k);
+  return rest
+    .split('.')
+    .filter(Boolean)
+    .map((k) => FIELD_WORDS[k] ?? k);
 }
 
 /**
@@ -55,7 +126,9 @@ export function placeOf(path: string, featureTypes: readonly string[] = []): str
   if (m) {
     const index = Number(m[2]);
     const type = m[1] === 'features' ? featureTypes[index] : undefined;
-    const where = type ? `Feature ${featureTag(type as Parameters<typeof featureTag>[0], index)}` : `${ENTRIES[m[1]]} ${index + 1}`;
+    const where = type
+      ? `Feature ${featureTag(type as Parameters<typeof featureTag>[0], index)}`
+      : `${ENTRIES[m[1]]} ${index + 1}`;
     return [where, ...fieldWords(m[3])].join(', ');
   }
   const [head, ...rest] = path.split('.');
@@ -66,12 +139,36 @@ export function placeOf(path: string, featureTypes: readonly string[] = []): str
 
 // Request fields as the forms label them (the calc header, sign-in, signing, findings, returns).
 const REQUEST_FIELDS: Record<string, string> = {
-  text: 'Finding', answer: 'Answer', reason: 'Reason', reasonForChange: 'Reason for the change', password: 'Your password',
-  oneTimeCode: 'One-time code', currentPassword: 'Current password', newPassword: 'New password', number: 'Calc number',
-  title: 'Title', partRef: 'Part or drawing reference', projectId: 'Project', ruleSetId: 'Design standard', code: 'Project code',
-  name: 'Name', username: 'Username', email: 'Email', roles: 'Roles', clauseRef: 'Checklist row', anchorPath: 'Concerns',
-  lockVersion: 'the version you opened', note: 'Note', done: 'Done', kind: 'Kind', file: 'File', q: 'Search', after: 'Page',
-  changeSummary: 'What changes in this version', effectiveDate: 'Effective date', meaning: 'Meaning',
+  text: 'Finding',
+  answer: 'Answer',
+  reason: 'Reason',
+  reasonForChange: 'Reason for the change',
+  password: 'Your password',
+  oneTimeCode: 'One-time code',
+  currentPassword: 'Current password',
+  newPassword: 'New password',
+  number: 'Calc number',
+  title: 'Title',
+  partRef: 'Part or drawing reference',
+  projectId: 'Project',
+  ruleSetId: 'Design standard',
+  code: 'Project code',
+  name: 'Name',
+  username: 'Username',
+  email: 'Email',
+  roles: 'Roles',
+  clauseRef: 'Checklist row',
+  anchorPath: 'Concerns',
+  lockVersion: 'the version you opened',
+  note: 'Note',
+  done: 'Done',
+  kind: 'Kind',
+  file: 'File',
+  q: 'Search',
+  after: 'Page',
+  changeSummary: 'What changes in this version',
+  effectiveDate: 'Effective date',
+  meaning: 'Meaning',
 };
 
 /**
@@ -91,5 +188,7 @@ export function fieldLabel(key: string, featureTypes: readonly string[] = []): s
 
 /** `torques[1].at` and its kin inside a free text, each replaced by its place ("Torque 2, station"). */
 export function namePathsIn(text: string, featureTypes: readonly string[] = []): string {
-  return text.replace(/\b(?:segments|torques|features|bending|supports|loads|masses)\[\d+\](?:\.\w+)*/g, (p) => placeOf(p, featureTypes));
+  return text.replace(/\b(?:segments|torques|features|bending|supports|loads|masses)\[\d+\](?:\.\w+)*/g, (p) =>
+    placeOf(p, featureTypes),
+  );
 }

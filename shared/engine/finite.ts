@@ -64,7 +64,10 @@ export function assertFiniteResult(result: object): void {
   for (const key in result) {
     if (TEXT_ONLY.has(key)) continue;
     const at = firstNonFinite((result as Record<string, unknown>)[key], key);
-    if (at) throw new CalcInputError([{ path: inputPathOf(at), message: `the result ${at} is not a finite number: ${ADVICE}` }]);
+    if (at)
+      throw new CalcInputError([
+        { path: inputPathOf(at), message: `the result ${at} is not a finite number: ${ADVICE}` },
+      ]);
   }
 }
 

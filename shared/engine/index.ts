@@ -4,8 +4,14 @@
  */
 export { ENGINE_VERSION, CAUTION } from './version';
 export {
-  calcInputSchema, type CalcInput, type MaterialInput, type SegmentInput, type TorqueInput,
-  type FeatureInput, type BendingInput, type FatigueInput,
+  calcInputSchema,
+  type CalcInput,
+  type MaterialInput,
+  type SegmentInput,
+  type TorqueInput,
+  type FeatureInput,
+  type BendingInput,
+  type FatigueInput,
 } from './schema';
 export { validateCalcInput, CalcInputError, type ValidationResult } from './validate';
 export type { CalcIssue } from './issue-messages';
@@ -14,12 +20,28 @@ export { twistBetween } from './twist';
 export { torqueFromPower } from './power';
 export { toSI, fromSI, toBase, fromBase, UNIT_LABELS, type UnitSystem, type Quantity } from './units';
 export type {
-  CalcResult, SegmentResult, FeatureResult, TorquePiece, ResolvedTorque, Endurance, Extreme,
-  FieldInfo, StressSet, KeyCheck, FeatureMethods, StaticStress,
+  CalcResult,
+  SegmentResult,
+  FeatureResult,
+  TorquePiece,
+  ResolvedTorque,
+  Endurance,
+  Extreme,
+  FieldInfo,
+  StressSet,
+  KeyCheck,
+  FeatureMethods,
+  StaticStress,
 } from './result';
 export type { SafetyByCriterion } from './fatigue-criteria';
 export type {
-  BeamResults, SupportResult, LoadResult, MassResult, BendingPoint, DeflectionPoint, CriticalSpeed,
+  BeamResults,
+  SupportResult,
+  LoadResult,
+  MassResult,
+  BendingPoint,
+  DeflectionPoint,
+  CriticalSpeed,
 } from './beam/beam-result';
 export { SUPPORT_KINDS, type SupportInput, type LoadInput, type MassInput, type SupportKind } from './beam/beam-schema';
 export { formatNumber } from './number-format';

@@ -11,16 +11,33 @@ type FieldName = [name: string, quantity: Quantity | null];
 
 // Human names and quantities of the input fields, so a message can say "outer diameter … mm".
 const FIELDS: Record<string, FieldName> = {
-  length: ['length', 'length'], od: ['outer diameter', 'length'], id: ['inner diameter', 'length'],
-  at: ['station', 'length'], r: ['radius', 'length'], width: ['width', 'length'], height: ['height', 'length'],
-  depth: ['depth', 'length'], diameter: ['hole diameter', 'length'],
-  T: ['torque', 'torque'], Ta: ['alternating torque', 'torque'], Ma: ['alternating bending moment', 'torque'],
-  Mm: ['midrange bending moment', 'torque'], power: ['power', 'power'], speed: ['speed', 'speed'],
-  E: ["Young's modulus", 'modulus'], G: ['shear modulus', 'modulus'], Sy: ['yield strength', 'stress'],
-  Su: ['ultimate strength', 'stress'], SePrime: ['unmodified endurance limit', 'stress'],
+  length: ['length', 'length'],
+  od: ['outer diameter', 'length'],
+  id: ['inner diameter', 'length'],
+  at: ['station', 'length'],
+  r: ['radius', 'length'],
+  width: ['width', 'length'],
+  height: ['height', 'length'],
+  depth: ['depth', 'length'],
+  diameter: ['hole diameter', 'length'],
+  T: ['torque', 'torque'],
+  Ta: ['alternating torque', 'torque'],
+  Ma: ['alternating bending moment', 'torque'],
+  Mm: ['midrange bending moment', 'torque'],
+  power: ['power', 'power'],
+  speed: ['speed', 'speed'],
+  E: ["Young's modulus", 'modulus'],
+  G: ['shear modulus', 'modulus'],
+  Sy: ['yield strength', 'stress'],
+  Su: ['ultimate strength', 'stress'],
+  SePrime: ['unmodified endurance limit', 'stress'],
   temperature: ['temperature', 'temperature'],
-  Kt: ['Kt', null], Kts: ['Kts', null], kc: ['load factor kc', null], kd: ['temperature factor kd', null],
-  kf: ['miscellaneous-effects factor kf', null], alternatingTorqueFraction: ['alternating torque fraction', null],
+  Kt: ['Kt', null],
+  Kts: ['Kts', null],
+  kc: ['load factor kc', null],
+  kd: ['temperature factor kd', null],
+  kf: ['miscellaneous-effects factor kf', null],
+  alternatingTorqueFraction: ['alternating torque fraction', null],
 };
 
 /** Human name and unit (with a leading space) of the field a path ends in. */
@@ -36,7 +53,9 @@ function describeInput(input: unknown, unit: string): string {
   if (typeof input === 'number') return `${formatNumber(input)}${unit}`;
   if (typeof input === 'string') {
     // A decimal comma is refused, never guessed: "1,500" could be one and a half or fifteen hundred.
-    const comma = /^\s*[+-]?\d*,\d+\s*$/.test(input) ? `; write it with a decimal point (${input.trim().replace(',', '.')}), commas are not read as numbers` : '';
+    const comma = /^\s*[+-]?\d*,\d+\s*$/.test(input)
+      ? `; write it with a decimal point (${input.trim().replace(',', '.')}), commas are not read as numbers`
+      : '';
     return `the text ${JSON.stringify(input.slice(0, 40))}${comma}`;
   }
   if (input === null) return 'null';
@@ -46,7 +65,9 @@ function describeInput(input: unknown, unit: string): string {
 // A discriminated union reports the whole object as input; the author wants to see the bad tag.
 function discriminatorValue(input: unknown, path: readonly PropertyKey[]): unknown {
   const key = path[path.length - 1];
-  return input && typeof input === 'object' && typeof key === 'string' ? (input as Record<string, unknown>)[key] : input;
+  return input && typeof input === 'object' && typeof key === 'string'
+    ? (input as Record<string, unknown>)[key]
+    : input;
 }
 
 function optionsOf(issue: core.$ZodIssueInvalidUnion): readonly unknown[] {
@@ -54,8 +75,14 @@ function optionsOf(issue: core.$ZodIssueInvalidUnion): readonly unknown[] {
 }
 
 function typeMessage(issue: core.$ZodIssueInvalidType, name: string, unit: string): string {
-  const expected = issue.expected === 'number' ? `a number${unit ? ` in${unit}` : ''}`
-    : issue.expected === 'array' ? 'a list' : issue.expected === 'object' ? 'an object' : `a ${issue.expected}`;
+  const expected =
+    issue.expected === 'number'
+      ? `a number${unit ? ` in${unit}` : ''}`
+      : issue.expected === 'array'
+        ? 'a list'
+        : issue.expected === 'object'
+          ? 'an object'
+          : `a ${issue.expected}`;
   if (issue.input === undefined) return `${name} is missing (${expected})`;
   return `${name} must be ${expected}, got ${describeInput(issue.input, '')}`;
 }
@@ -63,9 +90,10 @@ function typeMessage(issue: core.$ZodIssueInvalidType, name: string, unit: strin
 function boundMessage(issue: core.$ZodIssueTooSmall | core.$ZodIssueTooBig, name: string, unit: string): string {
   const small = issue.code === 'too_small';
   const limit = Number(small ? issue.minimum : issue.maximum);
-  if (issue.origin === 'array') return `${name} needs ${small ? 'at least' : 'at most'} ${limit} ${limit === 1 ? 'entry' : 'entries'}`;
+  if (issue.origin === 'array')
+    return `${name} needs ${small ? 'at least' : 'at most'} ${limit} ${limit === 1 ? 'entry' : 'entries'}`;
   if (issue.origin === 'string') return `${name} must be ${small ? 'at least' : 'at most'} ${limit} characters`;
-  const words = small ? (issue.inclusive ? 'at least' : 'greater than') : (issue.inclusive ? 'at most' : 'less than');
+  const words = small ? (issue.inclusive ? 'at least' : 'greater than') : issue.inclusive ? 'at most' : 'less than';
   return `${name} must be ${words} ${formatNumber(limit)}${unit}, got ${describeInput(issue.input, unit)}`;
 }
 
@@ -77,8 +105,11 @@ function closestBranch(issue: core.$ZodIssueInvalidUnion): core.$ZodIssue[] {
 }
 
 /** Turns zod issues into `{ path, message }` pairs that name the field, its unit and the reason. */
-export function toCalcIssues(issues: readonly core.$ZodIssue[], system: UnitSystem | null,
-  prefix: readonly PropertyKey[] = []): CalcIssue[] {
+export function toCalcIssues(
+  issues: readonly core.$ZodIssue[],
+  system: UnitSystem | null,
+  prefix: readonly PropertyKey[] = [],
+): CalcIssue[] {
   const out: CalcIssue[] = [];
   for (const issue of issues) {
     const path = [...prefix, ...issue.path];
@@ -98,12 +129,23 @@ export function toCalcIssues(issues: readonly core.$ZodIssue[], system: UnitSyst
 function messageFor(issue: core.$ZodIssue, path: readonly PropertyKey[], system: UnitSystem | null): string {
   const { name, unit } = fieldOf(path, system);
   switch (issue.code) {
-    case 'invalid_type': return typeMessage(issue, name, unit);
-    case 'too_small': case 'too_big': return boundMessage(issue, name, unit);
-    case 'invalid_value': return `${name} must be one of ${issue.values.map((v) => JSON.stringify(v)).join(', ')}, `
-      + `got ${describeInput(issue.input, '')}`;
-    case 'invalid_union': return `${name} must be one of ${optionsOf(issue).map((v) => JSON.stringify(v)).join(', ')}`
-      + `, got ${describeInput(discriminatorValue(issue.input, path), '')}`;
-    default: return `${name}: ${issue.message}`;
+    case 'invalid_type':
+      return typeMessage(issue, name, unit);
+    case 'too_small':
+    case 'too_big':
+      return boundMessage(issue, name, unit);
+    case 'invalid_value':
+      return (
+        `${name} must be one of ${issue.values.map((v) => JSON.stringify(v)).join(', ')}, ` +
+        `got ${describeInput(issue.input, '')}`
+      );
+    case 'invalid_union':
+      return (
+        `${name} must be one of ${optionsOf(issue)
+          .map((v) => JSON.stringify(v))
+          .join(', ')}` + `, got ${describeInput(discriminatorValue(issue.input, path), '')}`
+      );
+    default:
+      return `${name}: ${issue.message}`;
   }
 }

@@ -1,11 +1,15 @@
 import { safetyFactor } from './combined';
 import type { KeyCheck } from './result';
 
-export const KEY_METHOD = 'Key on the shaft surface: F = T/(d/2); shear τ = F/(w·l), n = 0.577·Sy/τ; '
-  + 'bearing σ = F/(l·h/2), n = Sy/σ with the key Sy (Shigley 9th §7-7, Example 7-6, from memory)';
+export const KEY_METHOD =
+  'Key on the shaft surface: F = T/(d/2); shear τ = F/(w·l), n = 0.577·Sy/τ; ' +
+  'bearing σ = F/(l·h/2), n = Sy/σ with the key Sy (Shigley 9th §7-7, Example 7-6, from memory)';
 
 export interface KeyDims {
-  width?: number; height?: number; length?: number; Sy?: number;
+  width?: number;
+  height?: number;
+  length?: number;
+  Sy?: number;
 }
 
 /**

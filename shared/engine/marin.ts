@@ -12,18 +12,29 @@ type Coefficients = Record<Surface, readonly [a: number, b: number]>;
 /** Table 6-2, MPa coefficients. The 11th-edition row is from memory (unverified): a warning says so. */
 export const SURFACE_COEFFICIENTS: Record<SurfaceTable, Coefficients> = {
   '9th-10th': {
-    ground: [1.58, -0.085], machined: [4.51, -0.265], 'cold-drawn': [4.51, -0.265],
-    'hot-rolled': [57.7, -0.718], 'as-forged': [272, -0.995],
+    ground: [1.58, -0.085],
+    machined: [4.51, -0.265],
+    'cold-drawn': [4.51, -0.265],
+    'hot-rolled': [57.7, -0.718],
+    'as-forged': [272, -0.995],
   },
   '11th': {
-    ground: [1.38, -0.067], machined: [3.04, -0.217], 'cold-drawn': [3.04, -0.217],
-    'hot-rolled': [38.6, -0.65], 'as-forged': [54.9, -0.758],
+    ground: [1.38, -0.067],
+    machined: [3.04, -0.217],
+    'cold-drawn': [3.04, -0.217],
+    'hot-rolled': [38.6, -0.65],
+    'as-forged': [54.9, -0.758],
   },
 };
 
 /** Table 6-5 reliability factors ke, keyed by reliability in %. */
 export const RELIABILITY_FACTORS: Readonly<Record<number, number>> = {
-  50: 1, 90: 0.897, 95: 0.868, 99: 0.814, 99.9: 0.753, 99.99: 0.702,
+  50: 1,
+  90: 0.897,
+  95: 0.868,
+  99: 0.814,
+  99.9: 0.753,
+  99.99: 0.702,
 };
 
 export const SIZE_RANGE_MM: readonly [number, number] = [2.79, 254];

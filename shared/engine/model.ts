@@ -14,29 +14,66 @@ import { BASE_PER_UNIT, toBase, type FactorTable, type UnitSystem } from './unit
 export type MaterialKind = NonNullable<MaterialInput['kind']>;
 
 export interface Mat {
-  name: string; kind: MaterialKind; path: string;
-  E: number; G: number; Sy: number; Su: number; nu: number | undefined;
+  name: string;
+  kind: MaterialKind;
+  path: string;
+  E: number;
+  G: number;
+  Sy: number;
+  Su: number;
+  nu: number | undefined;
 }
 
 export interface Seg {
-  index: number; start: number; end: number; length: number; od: number; id: number;
-  mat: Mat; J: number; Zp: number; Z: number;
+  index: number;
+  start: number;
+  end: number;
+  length: number;
+  od: number;
+  id: number;
+  mat: Mat;
+  J: number;
+  Zp: number;
+  Z: number;
 }
 
-export interface ExtTorque { index: number; at: number; T: number; Ta: number; isFromPower: boolean }
-export interface MomentEntry { at: number; Ma: number; Mm: number }
+export interface ExtTorque {
+  index: number;
+  at: number;
+  T: number;
+  Ta: number;
+  isFromPower: boolean;
+}
+export interface MomentEntry {
+  at: number;
+  Ma: number;
+  Mm: number;
+}
 
 export interface FatigueSettings {
-  surface: Surface; table: SurfaceTable; kc: number; kd: number; ke: number; kf: number;
-  isKfOnMidrange: boolean; taFraction: number; SePrime: number | null;
+  surface: Surface;
+  table: SurfaceTable;
+  kc: number;
+  kd: number;
+  ke: number;
+  kf: number;
+  isKfOnMidrange: boolean;
+  taFraction: number;
+  SePrime: number | null;
   /** Cap of Se′ = 0.5·Sut in MPa: Eq. 6-8 in the calc's own unit system. */
   sePrimeCap: number;
 }
 
 export interface Model {
-  system: UnitSystem; k: FactorTable; input: CalcInput;
-  segs: Seg[]; bounds: number[]; total: number;
-  torques: ExtTorque[]; moments: MomentEntry[]; hasTa: boolean;
+  system: UnitSystem;
+  k: FactorTable;
+  input: CalcInput;
+  segs: Seg[];
+  bounds: number[];
+  total: number;
+  torques: ExtTorque[];
+  moments: MomentEntry[];
+  hasTa: boolean;
   fatigue: FatigueSettings | null;
   warnings: CalcIssue[];
   /** The solved beam model (set by evaluate when the calc has supports), and the stations where bending can peak. */
@@ -45,18 +82,33 @@ export interface Model {
 }
 
 function toMat(m: MaterialInput, path: string, k: FactorTable): Mat {
-  return { name: m.name ?? 'unnamed material', kind: m.kind ?? 'steel', path,
-    E: m.E * k.modulus, G: m.G * k.modulus, Sy: m.Sy * k.stress, Su: m.Su * k.stress, nu: m.nu };
+  return {
+    name: m.name ?? 'unnamed material',
+    kind: m.kind ?? 'steel',
+    path,
+    E: m.E * k.modulus,
+    G: m.G * k.modulus,
+    Sy: m.Sy * k.stress,
+    Su: m.Su * k.stress,
+    nu: m.nu,
+  };
 }
 
 function toFatigue(input: CalcInput, k: FactorTable): FatigueSettings | null {
   const f = input.fatigue;
   if (!f) return null;
-  const kd = f.kd ?? (f.temperature === undefined ? 1 : temperatureFactor(toBase(f.temperature, 'temperature', input.units)));
+  const kd =
+    f.kd ?? (f.temperature === undefined ? 1 : temperatureFactor(toBase(f.temperature, 'temperature', input.units)));
   return {
-    surface: f.surface, table: f.surfaceTable ?? '9th-10th', kc: f.kc ?? 1, kd, kf: f.kf ?? 1,
-    ke: RELIABILITY_FACTORS[f.reliability ?? 50], isKfOnMidrange: f.kfOnMidrange ?? true,
-    taFraction: f.alternatingTorqueFraction ?? 0, SePrime: f.SePrime === undefined ? null : f.SePrime * k.stress,
+    surface: f.surface,
+    table: f.surfaceTable ?? '9th-10th',
+    kc: f.kc ?? 1,
+    kd,
+    kf: f.kf ?? 1,
+    ke: RELIABILITY_FACTORS[f.reliability ?? 50],
+    isKfOnMidrange: f.kfOnMidrange ?? true,
+    taFraction: f.alternatingTorqueFraction ?? 0,
+    SePrime: f.SePrime === undefined ? null : f.SePrime * k.stress,
     sePrimeCap: SE_PRIME_CAP_MPA[input.units],
   };
 }
@@ -74,12 +126,28 @@ export function buildModel(input: CalcInput): Model {
     return { index: i, start: bounds[i], end: bounds[i + 1], length: bounds[i + 1] - bounds[i], od, id, mat, J, Zp, Z };
   });
   const torques = input.torques.map((t, i): ExtTorque => ({
-    index: i, at: t.at * k.length, T: entryTorque(t, input.units) * k.torque, Ta: (t.Ta ?? 0) * k.torque, isFromPower: !('T' in t),
+    index: i,
+    at: t.at * k.length,
+    T: entryTorque(t, input.units) * k.torque,
+    Ta: (t.Ta ?? 0) * k.torque,
+    isFromPower: !('T' in t),
   }));
-  const moments = (input.bending ?? []).map((b) => ({ at: b.at * k.length, Ma: b.Ma * k.torque, Mm: (b.Mm ?? 0) * k.torque }));
+  const moments = (input.bending ?? []).map((b) => ({
+    at: b.at * k.length,
+    Ma: b.Ma * k.torque,
+    Mm: (b.Mm ?? 0) * k.torque,
+  }));
   return {
-    system: input.units, k, input, segs, bounds, total: bounds[bounds.length - 1],
-    torques: torques.slice().sort((a, b) => a.at - b.at), moments: moments.sort((a, b) => a.at - b.at),
-    hasTa: input.torques.some((t) => t.Ta !== undefined), fatigue: toFatigue(input, k), warnings: [],
+    system: input.units,
+    k,
+    input,
+    segs,
+    bounds,
+    total: bounds[bounds.length - 1],
+    torques: torques.slice().sort((a, b) => a.at - b.at),
+    moments: moments.sort((a, b) => a.at - b.at),
+    hasTa: input.torques.some((t) => t.Ta !== undefined),
+    fatigue: toFatigue(input, k),
+    warnings: [],
   };
 }

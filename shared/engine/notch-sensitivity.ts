@@ -2,16 +2,22 @@ import { MM_PER_IN, MPA_PER_KSI } from './units';
 
 export type Loading = 'bending' | 'torsion';
 
-/** Shigley's q charts stop at r = 4 mm; for larger radii the 4 mm ordinate is used (Shigley 9th, Fig. 6-20 note, from memory). */
+/**
+ * Shigley's q charts stop at r = 4 mm; for larger radii the 4 mm ordinate is used (Shigley 9th, Fig. 6-20 note, from
+ * memory).
+ */
 export const NOTCH_RADIUS_CAP_MM = 4;
 
-/** Range in which the Eq. 6-35 cubics stay positive; Shigley quotes 50–250 kpsi bending, 50–220 torsion (from memory). */
+/**
+ * Range in which the Eq. 6-35 cubics stay positive; Shigley quotes 50–250 kpsi bending, 50–220 torsion (from memory).
+ */
 export const NEUBER_SUT_RANGE_KPSI: Record<Loading, readonly [number, number]> = {
   bending: [50, 250],
   torsion: [50, 220],
 };
 
-export const NEUBER_METHOD = 'Neuber q = 1/(1 + √a/√r), √a by Shigley 9th Eq. 6-35 (Sut in kpsi, √a in √in), r capped at 4 mm';
+export const NEUBER_METHOD =
+  'Neuber q = 1/(1 + √a/√r), √a by Shigley 9th Eq. 6-35 (Sut in kpsi, √a in √in), r capped at 4 mm';
 
 /** Neuber constant √a in √in (Shigley 9th Eq. 6-35); Sut in kpsi, clamped to the range of the fit. */
 export function neuberSqrtA(sutKpsi: number, loading: Loading): number {

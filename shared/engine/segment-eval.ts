@@ -22,7 +22,10 @@ function considerPoint(model: Model, seg: Seg, se: Endurance | null, scan: Scan,
   const tm = Math.abs(p.T) / seg.Zp;
   scan.stat.consider(x, sa + sm, ta + tm, Ma, Mm);
   if (scan.fat && se) {
-    scan.fat.consider(x, fatigueSafety(Math.sqrt(sa * sa + 3 * ta * ta), Math.sqrt(sm * sm + 3 * tm * tm), se.Se, seg.mat.Su, seg.mat.Sy));
+    scan.fat.consider(
+      x,
+      fatigueSafety(Math.sqrt(sa * sa + 3 * ta * ta), Math.sqrt(sm * sm + 3 * tm * tm), se.Se, seg.mat.Su, seg.mat.Sy),
+    );
   }
 }
 
@@ -37,15 +40,21 @@ function scanSegment(model: Model, seg: Seg, pieces: readonly Piece[], se: Endur
   for (const p of pieces) {
     if (p.segment !== seg.index) continue;
     considerPoint(model, seg, se, scan, p.start, p);
-    for (const at of model.bendingStations ?? []) if (at > p.start && at < p.end) considerPoint(model, seg, se, scan, at, p);
+    for (const at of model.bendingStations ?? [])
+      if (at > p.start && at < p.end) considerPoint(model, seg, se, scan, at, p);
     considerPoint(model, seg, se, scan, p.end, p);
   }
   return scan;
 }
 
 /** Results of one segment in the calc's units; `se` is its endurance limit in MPa, or null. */
-export function evaluateSegment(model: Model, seg: Seg, pieces: readonly Piece[], se: Endurance | null,
-  hasKeyseat: boolean): SegmentResult {
+export function evaluateSegment(
+  model: Model,
+  seg: Seg,
+  pieces: readonly Piece[],
+  se: Endurance | null,
+  hasKeyseat: boolean,
+): SegmentResult {
   const k = model.k;
   let T = 0;
   let tauMaxAt = seg.start;
@@ -59,18 +68,44 @@ export function evaluateSegment(model: Model, seg: Seg, pieces: readonly Piece[]
   const { stat, fat } = scanSegment(model, seg, pieces, se);
   const label = model.input.segments[seg.index].label;
   return {
-    index: seg.index, label, start: seg.start / k.length, end: seg.end / k.length,
-    length: seg.length / k.length, od: seg.od / k.length, id: seg.id / k.length, isHollow: seg.id > 0,
-    material: seg.mat.name, G: seg.mat.G / k.modulus, Sy: seg.mat.Sy / k.stress, Su: seg.mat.Su / k.stress,
-    J: seg.J / k.J, Zp: seg.Zp / k.Zp, T: T / k.torque, tauMax: tauMax / k.stress, tauMaxAt: tauMaxAt / k.length,
-    tauInner: (Math.abs(T) * seg.id) / 2 / seg.J / k.stress, gamma: tauMax / seg.mat.G,
-    twist: twist * DEG, twistPerLength: Math.abs(T) / (seg.mat.G * seg.J) / k.twistPerLength, hasKeyseat,
-    governingAt: stat.at / k.length, Ma: stat.Ma / k.torque, Mm: stat.Mm / k.torque,
-    sigmaVonMises: stat.sigmaVonMises / k.stress, tauTresca: stat.tauTresca / k.stress,
-    yieldSafety: stat.yieldSafety(seg.mat.Sy), yieldSafetyTresca: stat.yieldSafetyTresca(seg.mat.Sy),
+    index: seg.index,
+    label,
+    start: seg.start / k.length,
+    end: seg.end / k.length,
+    length: seg.length / k.length,
+    od: seg.od / k.length,
+    id: seg.id / k.length,
+    isHollow: seg.id > 0,
+    material: seg.mat.name,
+    G: seg.mat.G / k.modulus,
+    Sy: seg.mat.Sy / k.stress,
+    Su: seg.mat.Su / k.stress,
+    J: seg.J / k.J,
+    Zp: seg.Zp / k.Zp,
+    T: T / k.torque,
+    tauMax: tauMax / k.stress,
+    tauMaxAt: tauMaxAt / k.length,
+    tauInner: (Math.abs(T) * seg.id) / 2 / seg.J / k.stress,
+    gamma: tauMax / seg.mat.G,
+    twist: twist * DEG,
+    twistPerLength: Math.abs(T) / (seg.mat.G * seg.J) / k.twistPerLength,
+    hasKeyseat,
+    governingAt: stat.at / k.length,
+    Ma: stat.Ma / k.torque,
+    Mm: stat.Mm / k.torque,
+    sigmaVonMises: stat.sigmaVonMises / k.stress,
+    tauTresca: stat.tauTresca / k.stress,
+    yieldSafety: stat.yieldSafety(seg.mat.Sy),
+    yieldSafetyTresca: stat.yieldSafetyTresca(seg.mat.Sy),
     endurance: se ? enduranceOut(se, k.stress) : null,
     fatigueSafety: fat ? fat.safety : null,
-    fatigueAt: fat ? { goodman: fat.at.goodman / k.length, asmeElliptic: fat.at.asmeElliptic / k.length,
-      gerber: fat.at.gerber / k.length, soderberg: fat.at.soderberg / k.length } : null,
+    fatigueAt: fat
+      ? {
+          goodman: fat.at.goodman / k.length,
+          asmeElliptic: fat.at.asmeElliptic / k.length,
+          gerber: fat.at.gerber / k.length,
+          soderberg: fat.at.soderberg / k.length,
+        }
+      : null,
   };
 }

@@ -3,7 +3,13 @@ import type { Criterion } from './trackers';
 
 type Summary = Pick<CalcResult, 'twistTotal' | 'maxShear' | 'minYieldSafety' | 'minFatigueSafety'>;
 
-function lower(cur: Extreme | null, value: number | null, at: number, where: Extreme['where'], index: number): Extreme | null {
+function lower(
+  cur: Extreme | null,
+  value: number | null,
+  at: number,
+  where: Extreme['where'],
+  index: number,
+): Extreme | null {
   return value !== null && (cur === null || value < cur.value) ? { value, at, where, index } : cur;
 }
 
@@ -21,15 +27,17 @@ function lowestFor(c: Criterion, segments: SegmentResult[], features: FeatureRes
     if (v !== null && (best === null || v < best)) [best, where, index] = [v, 'feature', f.index];
   }
   if (best === null) return null;
-  const at = where === 'feature' ? features[index].at : segments[index].fatigueAt?.[c] ?? segments[index].start;
+  const at = where === 'feature' ? features[index].at : (segments[index].fatigueAt?.[c] ?? segments[index].start);
   return { value: best, at, where, index };
 }
 
 function minFatigue(segments: SegmentResult[], features: FeatureResult[]): Summary['minFatigueSafety'] {
   if (!segments.length || !segments[0].fatigueSafety) return null;
   return {
-    goodman: lowestFor('goodman', segments, features), asmeElliptic: lowestFor('asmeElliptic', segments, features),
-    gerber: lowestFor('gerber', segments, features), soderberg: lowestFor('soderberg', segments, features),
+    goodman: lowestFor('goodman', segments, features),
+    asmeElliptic: lowestFor('asmeElliptic', segments, features),
+    gerber: lowestFor('gerber', segments, features),
+    soderberg: lowestFor('soderberg', segments, features),
   };
 }
 

@@ -12,7 +12,9 @@ import { STATION_TOLERANCE } from './shaft-geometry';
  * +x looking back towards the left end. A torque applied exactly at a station acts to its right.
  */
 export interface Piece {
-  start: number; end: number; segment: number;
+  start: number;
+  end: number;
+  segment: number;
   /** Internal torque, N·mm (signed). */
   T: number;
   /** Alternating torque amplitude, N·mm (≥ 0). */

@@ -3,8 +3,17 @@
 export type UnitSystem = 'SI' | 'US';
 
 export type Quantity =
-  | 'length' | 'torque' | 'stress' | 'modulus' | 'power' | 'speed'
-  | 'angle' | 'twistPerLength' | 'J' | 'Zp' | 'temperature';
+  | 'length'
+  | 'torque'
+  | 'stress'
+  | 'modulus'
+  | 'power'
+  | 'speed'
+  | 'angle'
+  | 'twistPerLength'
+  | 'J'
+  | 'Zp'
+  | 'temperature';
 
 // Exact by definition (1 in = 25.4 mm) or NIST SP 811 conversion factors (from memory).
 export const MM_PER_IN = 25.4;
@@ -18,24 +27,57 @@ export type FactorTable = Record<Exclude<Quantity, 'temperature'>, number>;
 /** Multiply a value in the system's display unit by this to get the internal base unit. */
 export const BASE_PER_UNIT: Record<UnitSystem, FactorTable> = {
   SI: {
-    length: 1, torque: 1000, stress: 1, modulus: 1000, power: 1000, speed: 1,
-    angle: 1 / DEG_PER_RAD, twistPerLength: 1 / (DEG_PER_RAD * 1000), J: 1, Zp: 1,
+    length: 1,
+    torque: 1000,
+    stress: 1,
+    modulus: 1000,
+    power: 1000,
+    speed: 1,
+    angle: 1 / DEG_PER_RAD,
+    twistPerLength: 1 / (DEG_PER_RAD * 1000),
+    J: 1,
+    Zp: 1,
   },
   US: {
-    length: MM_PER_IN, torque: N_PER_LBF * MM_PER_IN, stress: MPA_PER_KSI, modulus: MPA_PER_KSI * 1000,
-    power: W_PER_HP, speed: 1, angle: 1 / DEG_PER_RAD, twistPerLength: 1 / (DEG_PER_RAD * 12 * MM_PER_IN),
-    J: MM_PER_IN ** 4, Zp: MM_PER_IN ** 3,
+    length: MM_PER_IN,
+    torque: N_PER_LBF * MM_PER_IN,
+    stress: MPA_PER_KSI,
+    modulus: MPA_PER_KSI * 1000,
+    power: W_PER_HP,
+    speed: 1,
+    angle: 1 / DEG_PER_RAD,
+    twistPerLength: 1 / (DEG_PER_RAD * 12 * MM_PER_IN),
+    J: MM_PER_IN ** 4,
+    Zp: MM_PER_IN ** 3,
   },
 };
 
 export const UNIT_LABELS: Record<UnitSystem, Record<Quantity, string>> = {
   SI: {
-    length: 'mm', torque: 'N·m', stress: 'MPa', modulus: 'GPa', power: 'kW', speed: 'rpm',
-    angle: 'deg', twistPerLength: 'deg/m', J: 'mm⁴', Zp: 'mm³', temperature: '°C',
+    length: 'mm',
+    torque: 'N·m',
+    stress: 'MPa',
+    modulus: 'GPa',
+    power: 'kW',
+    speed: 'rpm',
+    angle: 'deg',
+    twistPerLength: 'deg/m',
+    J: 'mm⁴',
+    Zp: 'mm³',
+    temperature: '°C',
   },
   US: {
-    length: 'in', torque: 'lbf·in', stress: 'ksi', modulus: 'Mpsi', power: 'hp', speed: 'rpm',
-    angle: 'deg', twistPerLength: 'deg/ft', J: 'in⁴', Zp: 'in³', temperature: '°F',
+    length: 'in',
+    torque: 'lbf·in',
+    stress: 'ksi',
+    modulus: 'Mpsi',
+    power: 'hp',
+    speed: 'rpm',
+    angle: 'deg',
+    twistPerLength: 'deg/ft',
+    J: 'in⁴',
+    Zp: 'in³',
+    temperature: '°F',
   },
 };
 

@@ -46,6 +46,11 @@ export function validateCalcInput(input: unknown): ValidationResult {
   // implausible magnitude could overflow into a meaningless message.
   const ranges = checkRanges(parsed.data);
   if (ranges.length) return { ok: false, issues: ranges };
-  const issues = [...checkGeometry(parsed.data), ...checkLoads(parsed.data), ...checkFeatures(parsed.data), ...checkBeam(parsed.data)];
+  const issues = [
+    ...checkGeometry(parsed.data),
+    ...checkLoads(parsed.data),
+    ...checkFeatures(parsed.data),
+    ...checkBeam(parsed.data),
+  ];
   return issues.length ? { ok: false, issues } : { ok: true, value: parsed.data };
 }

@@ -6,5 +6,6 @@
 export const ENGINE_VERSION = '2.0.0';
 
 /** The one wording of the safety caution: results, reports, command output, mail and the client's screens. */
-export const CAUTION = 'Results support, never replace, the judgement of a qualified engineer; '
-  + 'local codes and licensed practice govern.';
+export const CAUTION =
+  'Results support, never replace, the judgement of a qualified engineer; ' +
+  'local codes and licensed practice govern.';

@@ -4,7 +4,19 @@
  * digits that the printed actual never seems to sit on the other side of the limit.
  */
 
-const SUPERSCRIPT: Record<string, string> = { '-': '⁻', 0: '⁰', 1: '¹', 2: '²', 3: '³', 4: '⁴', 5: '⁵', 6: '⁶', 7: '⁷', 8: '⁸', 9: '⁹' };
+const SUPERSCRIPT: Record<string, string> = {
+  '-': '⁻',
+  0: '⁰',
+  1: '¹',
+  2: '²',
+  3: '³',
+  4: '⁴',
+  5: '⁵',
+  6: '⁶',
+  7: '⁷',
+  8: '⁸',
+  9: '⁹',
+};
 
 /** `sig` significant figures, trailing zeros dropped; outside 1e-4 … 1e9 as "1.23×10⁻⁵". */
 export function formatEng(value: number | null | undefined, sig = 4): string {

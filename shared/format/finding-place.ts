@@ -1,7 +1,10 @@
 import { placeOf } from '../engine/field-places';
 
 /** Where a finding is anchored: a clause (with its row's location, `segments[1]`) or a named input. */
-export interface FindingAnchor { clauseRef: string | null; anchorPath: string | null }
+export interface FindingAnchor {
+  clauseRef: string | null;
+  anchorPath: string | null;
+}
 
 /** The feature types of a calc input, so places read "Feature SF2" as the editor tags it. */
 export function featureTypesOf(input: unknown): string[] {

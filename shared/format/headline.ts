@@ -18,8 +18,16 @@ const RANK: Record<HeadlineOutcome, number> = { unchecked: 0, pass: 1, 'advisory
  * measure the same fact: a mandatory failure anywhere marks it failed, an advisory one marks it as
  * a warning. The limit printed is the governing row's, the one nearest to failing.
  */
-export function headlineMark(value: number | null | undefined, fact: string, checklist: Checklist | null, ruleSet: RuleSet | null, sig = 3): HeadlineMark {
-  const clauses = new Map((ruleSet?.clauses ?? []).filter((c) => c.measure?.actual === fact).map((c) => [c.id, c.measure!]));
+export function headlineMark(
+  value: number | null | undefined,
+  fact: string,
+  checklist: Checklist | null,
+  ruleSet: RuleSet | null,
+  sig = 3,
+): HeadlineMark {
+  const clauses = new Map(
+    (ruleSet?.clauses ?? []).filter((c) => c.measure?.actual === fact).map((c) => [c.id, c.measure!]),
+  );
   const rows = (checklist?.rows ?? []).filter((r) => clauses.has(r.clauseId) && r.status !== 'not-applicable');
   let outcome: HeadlineOutcome = 'unchecked';
   let governing: ChecklistRow | null = null;

@@ -40,7 +40,6 @@ export interface JsonLimits {
 
 export const JSON_LIMITS: Readonly<JsonLimits> = { maxDepth: 32, maxNodes: 200_000 };
 
-
 /** Keys that would reach an object's prototype when code builds objects from user keys. */
 const FORBIDDEN_KEYS = new Set(['__proto__', 'constructor', 'prototype']);
 const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
@@ -60,8 +59,10 @@ function keyProblem(key: string): string | null {
 }
 
 function leafProblem(value: unknown): string | null {
-  if (typeof value === 'number' && !Number.isFinite(value)) return 'is a number beyond the range that can be stored (±1.8e308)';
-  if (typeof value === 'string' && hasLoneSurrogate(value)) return 'contains invalid text (a lone surrogate); nothing was changed';
+  if (typeof value === 'number' && !Number.isFinite(value))
+    return 'is a number beyond the range that can be stored (±1.8e308)';
+  if (typeof value === 'string' && hasLoneSurrogate(value))
+    return 'contains invalid text (a lone surrogate); nothing was changed';
   return null;
 }
 
@@ -74,7 +75,11 @@ const pathText = (parts: readonly Part[], root: string): string =>
  * Iterative, so a document nested beyond any limit cannot overflow the stack while being checked.
  * `parts` is the same path as `path`, as zod wants it for an issue.
  */
-export function jsonValueProblem(value: unknown, limits: JsonLimits = JSON_LIMITS, root = ''): (JsonIssue & { parts: Part[] }) | null {
+export function jsonValueProblem(
+  value: unknown,
+  limits: JsonLimits = JSON_LIMITS,
+  root = '',
+): (JsonIssue & { parts: Part[] }) | null {
   const stack: [unknown, Part[]][] = [[value, []]];
   let nodes = 0;
   const problem = (parts: Part[], message: string) => ({ path: pathText(parts, root), parts, message });
@@ -109,7 +114,9 @@ const UNDERFLOW = /^-?[0-9.]*[1-9]/;
 function findInTree(node: AnyNode, path: (string | number)[], text: string): JsonIssue | null {
   if (node.type === 'Number') {
     const raw = text.slice(node.loc.start.offset, node.loc.end.offset);
-    return node.value === 0 && UNDERFLOW.test(raw) ? { path: pathOf(path), message: 'is a non-zero number too small to be stored (it would read as 0)' } : null;
+    return node.value === 0 && UNDERFLOW.test(raw)
+      ? { path: pathOf(path), message: 'is a non-zero number too small to be stored (it would read as 0)' }
+      : null;
   }
   if (node.type === 'Array') {
     for (let i = 0; i < node.elements.length; i++) {
@@ -125,8 +132,12 @@ function findInTree(node: AnyNode, path: (string | number)[], text: string): Jso
     const where = `line ${line}, column ${column}`;
     const first = seen.get(key);
     if (first !== undefined) {
-      return { path: pathOf([...path, key]), message: `the key "${visible(key)}" appears twice in one object (${first} and ${where}); `
-        + 'JSON readers would silently keep only the last one, so give each key once' };
+      return {
+        path: pathOf([...path, key]),
+        message:
+          `the key "${visible(key)}" appears twice in one object (${first} and ${where}); ` +
+          'JSON readers would silently keep only the last one, so give each key once',
+      };
     }
     seen.set(key, where);
     const found = findInTree(member.value, [...path, key], text);

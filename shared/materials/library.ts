@@ -15,7 +15,13 @@ const minimum = (value: number): SourcedValue => ({ value, source: SHIGLEY_A20, 
 
 function carbonSteel(id: string, name: string, Su: number, Sy: number): LibraryMaterial {
   return {
-    id, name, kind: 'steel', ...elastic(207, 79.3, 0.292), Su: minimum(Su), Sy: minimum(Sy), needsAuthorStrengths: false,
+    id,
+    name,
+    kind: 'steel',
+    ...elastic(207, 79.3, 0.292),
+    Su: minimum(Su),
+    Sy: minimum(Sy),
+    needsAuthorStrengths: false,
     note: 'Strengths are ASTM minimum values for bar stock; larger sections and heat treatment change them.',
   };
 }
@@ -31,13 +37,23 @@ export const MATERIAL_LIBRARY: readonly LibraryMaterial[] = Object.freeze([
   carbonSteel('aisi-1045-cd', 'AISI 1045 CD', 630, 530),
   carbonSteel('aisi-1050-cd', 'AISI 1050 CD', 690, 580),
   {
-    id: 'stainless-18-8', name: 'Stainless steel 18-8', kind: 'stainless-steel', ...elastic(190, 73.1, 0.305),
-    Sy: null, Su: null, needsAuthorStrengths: true,
+    id: 'stainless-18-8',
+    name: 'Stainless steel 18-8',
+    kind: 'stainless-steel',
+    ...elastic(190, 73.1, 0.305),
+    Sy: null,
+    Su: null,
+    needsAuthorStrengths: true,
     note: 'Elastic constants only: enter Sy and Su for the grade and condition, with their source.',
   },
   {
-    id: 'aluminium-alloy', name: 'Aluminium alloy', kind: 'aluminium', ...elastic(71.7, 26.9, 0.333),
-    Sy: null, Su: null, needsAuthorStrengths: true,
+    id: 'aluminium-alloy',
+    name: 'Aluminium alloy',
+    kind: 'aluminium',
+    ...elastic(71.7, 26.9, 0.333),
+    Sy: null,
+    Su: null,
+    needsAuthorStrengths: true,
     note: 'Elastic constants only: enter Sy and Su for the alloy and temper, with their source.',
   },
 ]);

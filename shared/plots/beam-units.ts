@@ -4,11 +4,22 @@ import { BEAM_LABELS } from '../engine/beam/beam-units';
 // What each whole-shaft result field is measured in, as beam-result.ts documents it, for a result
 // whose `fields` do not (yet) list the field: forces N or lbf, moments as torques, slopes rad.
 const KINDS: Record<string, (u: CalcResult['units']) => string> = {
-  Fy: (u) => BEAM_LABELS[u].force, Fz: (u) => BEAM_LABELS[u].force, Fx: (u) => BEAM_LABELS[u].force,
-  F: (u) => BEAM_LABELS[u].force, Fa: (u) => BEAM_LABELS[u].force, P: (u) => BEAM_LABELS[u].force,
-  M: (u) => UNIT_LABELS[u].torque, My: (u) => UNIT_LABELS[u].torque, Mz: (u) => UNIT_LABELS[u].torque,
-  deflection: (u) => UNIT_LABELS[u].length, at: (u) => UNIT_LABELS[u].length,
-  slope: () => 'rad', L10: () => '10⁶ rev', L10h: () => 'h', rpm: () => 'rpm', totalMass: (u) => BEAM_LABELS[u].mass,
+  Fy: (u) => BEAM_LABELS[u].force,
+  Fz: (u) => BEAM_LABELS[u].force,
+  Fx: (u) => BEAM_LABELS[u].force,
+  F: (u) => BEAM_LABELS[u].force,
+  Fa: (u) => BEAM_LABELS[u].force,
+  P: (u) => BEAM_LABELS[u].force,
+  M: (u) => UNIT_LABELS[u].torque,
+  My: (u) => UNIT_LABELS[u].torque,
+  Mz: (u) => UNIT_LABELS[u].torque,
+  deflection: (u) => UNIT_LABELS[u].length,
+  at: (u) => UNIT_LABELS[u].length,
+  slope: () => 'rad',
+  L10: () => '10⁶ rev',
+  L10h: () => 'h',
+  rpm: () => 'rpm',
+  totalMass: (u) => BEAM_LABELS[u].mass,
 };
 
 /** Unit of a whole-shaft result field: the engine's `fields` entry where there is one, else the documented unit. */

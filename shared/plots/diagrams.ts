@@ -13,8 +13,13 @@ function placeLimits(limits: readonly LimitLine[], length: number): PlacedLimit[
 }
 
 /** A chart along the whole shaft: x from 0 to its length, y fitted to the series and the limits. */
-export function chart(result: CalcResult, title: string, y: { label: string; unit: string }, series: Series[],
-  limits: readonly LimitLine[]): Chart {
+export function chart(
+  result: CalcResult,
+  title: string,
+  y: { label: string; unit: string },
+  series: Series[],
+  limits: readonly LimitLine[],
+): Chart {
   const placed = placeLimits(limits, result.length);
   const [lo, hi] = valueRange([...series.flatMap((s) => s.points.map((p) => p[1])), ...placed.map((l) => l.y)], true);
   const pad = (hi - lo) * HEADROOM;
@@ -22,20 +27,41 @@ export function chart(result: CalcResult, title: string, y: { label: string; uni
   const xAxis = niceAxis(0, result.length, 8);
   const x = { ...xAxis, max: result.length, ticks: xAxis.ticks.filter((t) => t <= result.length * (1 + 1e-9)) };
   return {
-    title, xLabel: 'Station', xUnit: result.fields['at']?.unit ?? '', yLabel: y.label, yUnit: y.unit,
-    x, y: niceAxis(lo < 0 ? lo - pad : lo, hi > 0 ? hi + pad : hi, 5), series, limits: placed,
+    title,
+    xLabel: 'Station',
+    xUnit: result.fields['at']?.unit ?? '',
+    yLabel: y.label,
+    yUnit: y.unit,
+    x,
+    y: niceAxis(lo < 0 ? lo - pad : lo, hi > 0 ? hi + pad : hi, 5),
+    series,
+    limits: placed,
   };
 }
 
 function steps(result: CalcResult, value: (piece: CalcResult['torqueDiagram'][number]) => number): Point[] {
-  return result.torqueDiagram.flatMap((p) => [[p.start, value(p)], [p.end, value(p)]] as Point[]);
+  return result.torqueDiagram.flatMap(
+    (p) =>
+      [
+        [p.start, value(p)],
+        [p.end, value(p)],
+      ] as Point[],
+  );
 }
 
 /** Internal torque along the shaft (a step at each applied torque), with the alternating part if any. */
 export function torquePlot(result: CalcResult, limits: readonly LimitLine[] = []): Chart {
-  const series: Series[] = [{ id: 'T', label: 'Internal torque T', points: steps(result, (p) => p.T), shape: 'step', style: 'solid' }];
+  const series: Series[] = [
+    { id: 'T', label: 'Internal torque T', points: steps(result, (p) => p.T), shape: 'step', style: 'solid' },
+  ];
   if (result.torqueDiagram.some((p) => p.Ta !== 0)) {
-    series.push({ id: 'Ta', label: 'Alternating torque Ta', points: steps(result, (p) => p.Ta), shape: 'step', style: 'dashed' });
+    series.push({
+      id: 'Ta',
+      label: 'Alternating torque Ta',
+      points: steps(result, (p) => p.Ta),
+      shape: 'step',
+      style: 'dashed',
+    });
   }
   return chart(result, 'Torque diagram', { label: 'Torque', unit: result.fields['T']?.unit ?? '' }, series, limits);
 }
@@ -49,8 +75,16 @@ export function shearPlot(result: CalcResult, limits: readonly LimitLine[] = [])
     const seg = result.segments[p.segment];
     return seg && seg.T !== 0 ? (seg.tauMax * Math.abs(p.T)) / Math.abs(seg.T) : 0;
   };
-  const series: Series[] = [{ id: 'tau', label: 'Shear stress τmax', points: steps(result, tau), shape: 'step', style: 'solid' }];
-  return chart(result, 'Shear stress along the shaft', { label: 'τmax', unit: result.fields['tauMax']?.unit ?? '' }, series, limits);
+  const series: Series[] = [
+    { id: 'tau', label: 'Shear stress τmax', points: steps(result, tau), shape: 'step', style: 'solid' },
+  ];
+  return chart(
+    result,
+    'Shear stress along the shaft',
+    { label: 'τmax', unit: result.fields['tauMax']?.unit ?? '' },
+    series,
+    limits,
+  );
 }
 
 /** Twist of a piece over `dx` stations, in degrees, through the engine's own unit factors. */
@@ -70,13 +104,31 @@ export function twistPlot(result: CalcResult, limits: readonly LimitLine[] = [])
   // Twist is signed (right-hand rule) while limits are magnitudes: draw them on the side the shaft turns.
   const side = result.twistTotal < 0 ? -1 : 1;
   const shown = limits.map((l) => ({ ...l, value: side * l.value }));
-  return chart(result, 'Accumulated angle of twist', { label: 'φ', unit: result.fields['twistStart']?.unit ?? 'deg' }, series, shown);
+  return chart(
+    result,
+    'Accumulated angle of twist',
+    { label: 'φ', unit: result.fields['twistStart']?.unit ?? 'deg' },
+    series,
+    shown,
+  );
 }
 
 /** Twist rate |T|/(G·J) along the shaft (a step per piece), where per-length twist limits are judged. */
 export function twistRatePlot(result: CalcResult, limits: readonly LimitLine[] = []): Chart {
-  const series: Series[] = [{
-    id: 'rate', label: 'Twist per length', points: steps(result, (p) => Math.abs(p.twistPerLength)), shape: 'step', style: 'solid',
-  }];
-  return chart(result, 'Twist per unit length', { label: 'dφ/dx', unit: result.fields['twistPerLength']?.unit ?? '' }, series, limits);
+  const series: Series[] = [
+    {
+      id: 'rate',
+      label: 'Twist per length',
+      points: steps(result, (p) => Math.abs(p.twistPerLength)),
+      shape: 'step',
+      style: 'solid',
+    },
+  ];
+  return chart(
+    result,
+    'Twist per unit length',
+    { label: 'dφ/dx', unit: result.fields['twistPerLength']?.unit ?? '' },
+    series,
+    limits,
+  );
 }

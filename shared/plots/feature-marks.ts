@@ -3,7 +3,10 @@ import type { Point } from './plot-types';
 import type { MarkShape, OutlineFeature, OutlineSegment } from './outline';
 
 const NAMES: Record<FeatureInput['type'], string> = {
-  'shoulder-fillet': 'Shoulder fillet', keyseat: 'Keyseat', 'ring-groove': 'Ring groove', 'cross-hole': 'Cross hole',
+  'shoulder-fillet': 'Shoulder fillet',
+  keyseat: 'Keyseat',
+  'ring-groove': 'Ring groove',
+  'cross-hole': 'Cross hole',
 };
 
 // The engine judges a feature at a joint on the smaller segment; the drawing marks the same section.
@@ -25,7 +28,10 @@ function mirrored(points: Point[]): Point[] {
   return points.map(([px, py]) => [px, -py] as const);
 }
 
-function filletShapes(f: Extract<FeatureInput, { type: 'shoulder-fillet' }>, segments: readonly OutlineSegment[]): MarkShape[] {
+function filletShapes(
+  f: Extract<FeatureInput, { type: 'shoulder-fillet' }>,
+  segments: readonly OutlineSegment[],
+): MarkShape[] {
   const eps = 1e-9 * Math.max(1, f.at);
   const left = segments.find((s) => Math.abs(s.x + s.width - f.at) <= eps);
   const right = segments.find((s) => Math.abs(s.x - f.at) <= eps);
@@ -33,7 +39,10 @@ function filletShapes(f: Extract<FeatureInput, { type: 'shoulder-fillet' }>, seg
   const rs = Math.min(left.od, right.od) / 2;
   // The fillet runs from the smaller diameter's surface into the shoulder face.
   const top = left.od < right.od ? quarter(f.at - f.r, rs + f.r, f.r, -90) : quarter(f.at + f.r, rs + f.r, f.r, 180);
-  return [{ kind: 'polyline', points: top }, { kind: 'polyline', points: mirrored(top) }];
+  return [
+    { kind: 'polyline', points: top },
+    { kind: 'polyline', points: mirrored(top) },
+  ];
 }
 
 function keyseatShapes(f: Extract<FeatureInput, { type: 'keyseat' }>, top: number, seg: OutlineSegment): MarkShape[] {
@@ -46,17 +55,23 @@ function keyseatShapes(f: Extract<FeatureInput, { type: 'keyseat' }>, top: numbe
 
 function grooveShapes(f: Extract<FeatureInput, { type: 'ring-groove' }>, top: number): MarkShape[] {
   const w = f.width ?? 0;
-  return [1, -1].map((side): MarkShape => w > 0
-    ? { kind: 'rect', x: f.at - w / 2, y: side > 0 ? top - f.depth : -top, width: w, height: f.depth }
-    : { kind: 'line', x1: f.at, y1: side * top, x2: f.at, y2: side * (top - f.depth) });
+  return [1, -1].map((side): MarkShape =>
+    w > 0
+      ? { kind: 'rect', x: f.at - w / 2, y: side > 0 ? top - f.depth : -top, width: w, height: f.depth }
+      : { kind: 'line', x1: f.at, y1: side * top, x2: f.at, y2: side * (top - f.depth) },
+  );
 }
 
 function shapesOf(f: FeatureInput, top: number, seg: OutlineSegment, segments: readonly OutlineSegment[]): MarkShape[] {
   switch (f.type) {
-    case 'shoulder-fillet': return filletShapes(f, segments);
-    case 'keyseat': return keyseatShapes(f, top, seg);
-    case 'ring-groove': return grooveShapes(f, top);
-    case 'cross-hole': return [{ kind: 'circle', cx: f.at, cy: 0, r: f.diameter / 2 }];
+    case 'shoulder-fillet':
+      return filletShapes(f, segments);
+    case 'keyseat':
+      return keyseatShapes(f, top, seg);
+    case 'ring-groove':
+      return grooveShapes(f, top);
+    case 'cross-hole':
+      return [{ kind: 'circle', cx: f.at, cy: 0, r: f.diameter / 2 }];
   }
 }
 
@@ -66,7 +81,13 @@ export function featureMarks(f: FeatureInput, index: number, segments: readonly 
   const top = seg ? seg.od / 2 : 0;
   const name = f.type === 'keyseat' ? `${NAMES[f.type]}, ${f.form}` : NAMES[f.type];
   return {
-    index, type: f.type, tag: '', name: f.label ? `${name}, ${f.label}` : name, at: f.at, top, level: 0,
+    index,
+    type: f.type,
+    tag: '',
+    name: f.label ? `${name}, ${f.label}` : name,
+    at: f.at,
+    top,
+    level: 0,
     shapes: seg ? shapesOf(f, top, seg, segments) : [],
   };
 }

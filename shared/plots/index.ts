@@ -5,8 +5,26 @@
 export type { Axis, Chart, LimitLine, PlacedLimit, Point, Series } from './plot-types';
 export { niceAxis, niceStep, valueRange } from './ticks';
 export { torquePlot, shearPlot, twistPlot, twistRatePlot } from './diagrams';
-export { shaftOutline, featureTag, type ShaftOutline, type OutlineSegment, type OutlineFeature, type OutlineRect, type MarkShape, type OutlineInput } from './outline';
-export { shaftLoads, hasBeamModel, loadTag, loadName, bearingTag, type ShaftLoads, type ForceArrow, type BearingMark } from './shaft-loads';
+export {
+  shaftOutline,
+  featureTag,
+  type ShaftOutline,
+  type OutlineSegment,
+  type OutlineFeature,
+  type OutlineRect,
+  type MarkShape,
+  type OutlineInput,
+} from './outline';
+export {
+  shaftLoads,
+  hasBeamModel,
+  loadTag,
+  loadName,
+  bearingTag,
+  type ShaftLoads,
+  type ForceArrow,
+  type BearingMark,
+} from './shaft-loads';
 export { bendingPlot, deflectionPlot, slopePlot, type StationLimit } from './shaft-diagrams';
 export { shaftLimits } from './shaft-limits';
 export { beamUnit, forceCleaner } from './beam-units';

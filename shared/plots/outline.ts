@@ -3,9 +3,19 @@ import type { Axis, Point } from './plot-types';
 import { niceAxis } from './ticks';
 import { featureMarks } from './feature-marks';
 
-export interface OutlineRect { x: number; y: number; width: number; height: number }
+export interface OutlineRect {
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+}
 
-export interface OutlineSegment extends OutlineRect { index: number; label: string | undefined; od: number; id: number }
+export interface OutlineSegment extends OutlineRect {
+  index: number;
+  label: string | undefined;
+  od: number;
+  id: number;
+}
 
 export type MarkShape =
   | ({ kind: 'rect' } & OutlineRect)
@@ -73,5 +83,12 @@ export function shaftOutline(input: OutlineInput): ShaftOutline {
   const features = (input.features ?? []).map((f, index) => featureMarks(f, index, segments));
   for (const f of features) f.tag = featureTag(f.type, f.index);
   assignLevels(features, x);
-  return { length: x, maxRadius: Math.max(0, ...segments.map((s) => s.od / 2)), segments, bores, features, x: niceAxis(0, x, 8) };
+  return {
+    length: x,
+    maxRadius: Math.max(0, ...segments.map((s) => s.od / 2)),
+    segments,
+    bores,
+    features,
+    x: niceAxis(0, x, 8),
+  };
 }

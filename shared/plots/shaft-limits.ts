@@ -18,7 +18,12 @@ function inCurveUnit(value: number, from: string, to: string): number | null {
  * row judges (a gear, a bearing) or over the whole shaft; the clause is named on the first of them.
  * A limit in a unit the curve cannot be put in is left off the plot (it stays in the checklist).
  */
-export function shaftLimits(checklist: Checklist | null, ruleSet: RuleSet | null, result: CalcResult, measure: 'deflection' | 'slope'): StationLimit[] {
+export function shaftLimits(
+  checklist: Checklist | null,
+  ruleSet: RuleSet | null,
+  result: CalcResult,
+  measure: 'deflection' | 'slope',
+): StationLimit[] {
   if (!checklist || !ruleSet) return [];
   const pattern = measure === 'deflection' ? /deflection/i : /slope/i;
   const ids = new Set(ruleSet.clauses.filter((c) => c.measure && pattern.test(c.measure.actual)).map((c) => c.id));

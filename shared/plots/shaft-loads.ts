@@ -8,7 +8,13 @@ import type { MarkShape, ShaftOutline } from './outline';
  * length: the drawing code turns a share into points or pixels. y is up in the plot, z out of it.
  */
 const TAGS: Record<string, string> = { force: 'F', gear: 'G', pulley: 'P', sprocket: 'S', coupling: 'C' };
-const NAMES: Record<string, string> = { force: 'Force', gear: 'Gear', pulley: 'Belt pulley', sprocket: 'Chain sprocket', coupling: 'Coupling' };
+const NAMES: Record<string, string> = {
+  force: 'Force',
+  gear: 'Gear',
+  pulley: 'Belt pulley',
+  sprocket: 'Chain sprocket',
+  coupling: 'Coupling',
+};
 
 /** Tag of a force element by its kind (`force` or none for a plain force), numbered in input order: G1, P2, F3 … */
 export function loadTag(kind: string | undefined, index: number): string {
@@ -26,15 +32,27 @@ export interface ForceArrow {
   at: number;
   /** Outer radius of the shaft at the station: where the arrow head touches. */
   top: number;
-  Fy: number; Fz: number;
+  Fy: number;
+  Fz: number;
   /** |Fy| and |Fz| as shares of the largest force component in the picture (0..1). */
-  yShare: number; zShare: number;
+  yShare: number;
+  zShare: number;
   isReaction: boolean;
 }
 
-export interface BearingMark { tag: string; name: string; at: number; top: number; shapes: MarkShape[] }
+export interface BearingMark {
+  tag: string;
+  name: string;
+  at: number;
+  top: number;
+  shapes: MarkShape[];
+}
 
-export interface ShaftLoads { bearings: BearingMark[]; arrows: ForceArrow[]; forceUnit: string }
+export interface ShaftLoads {
+  bearings: BearingMark[];
+  arrows: ForceArrow[];
+  forceUnit: string;
+}
 
 function radiusAt(outline: ShaftOutline, at: number): number {
   const eps = 1e-9 * Math.max(1, Math.abs(at));
@@ -77,19 +95,38 @@ export function shaftLoads(result: CalcResult, outline: ShaftOutline): ShaftLoad
   const size = 0.32 * Math.min(...outline.segments.map((s) => s.od / 2), outline.maxRadius || 1);
   const bearings = supports.map((s): BearingMark => {
     const top = radiusAt(outline, s.at);
-    return { tag: bearingTag(s.index), name: named('Bearing', s.label), at: s.at, top, shapes: bearingShapes(s.at, top, size) };
+    return {
+      tag: bearingTag(s.index),
+      name: named('Bearing', s.label),
+      at: s.at,
+      top,
+      shapes: bearingShapes(s.at, top, size),
+    };
   });
   const largest = Math.max(1e-300, ...[...supports, ...loads].flatMap((x) => [Math.abs(x.Fy), Math.abs(x.Fz)]));
   const clean = forceCleaner(result);
-  const arrow = (tag: string, name: string, x: { at: number; Fy: number; Fz: number }, isReaction: boolean): ForceArrow => {
+  const arrow = (
+    tag: string,
+    name: string,
+    x: { at: number; Fy: number; Fz: number },
+    isReaction: boolean,
+  ): ForceArrow => {
     const [Fy, Fz] = [clean(x.Fy), clean(x.Fz)];
     return {
-      tag, at: x.at, top: radiusAt(outline, x.at), Fy, Fz, isReaction, yShare: Math.abs(Fy) / largest, zShare: Math.abs(Fz) / largest,
+      tag,
+      at: x.at,
+      top: radiusAt(outline, x.at),
+      Fy,
+      Fz,
+      isReaction,
+      yShare: Math.abs(Fy) / largest,
+      zShare: Math.abs(Fz) / largest,
       name: `${tag} ${name}: Fy ${f(Fy)} ${forceUnit}, Fz ${f(Fz)} ${forceUnit}`,
     };
   };
   return {
-    bearings, forceUnit,
+    bearings,
+    forceUnit,
     arrows: [
       ...loads.map((l) => arrow(loadTag(l.kind, l.index), named(loadName(l.kind), l.label), l, false)),
       ...supports.map((s) => arrow(bearingTag(s.index), 'reaction of the bearing', s, true)),

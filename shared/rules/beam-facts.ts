@@ -7,8 +7,14 @@ import type { RuleSet } from './rule-set-schema';
 export function supportFacts(s: SupportResult, ruleSet: RuleSet, si: ToSI): Facts {
   const limit = ruleSet.parameters.find((p) => p.name === SLOPE_PARAMS[s.kind])?.value;
   const facts: Facts = {
-    index: s.index, kind: s.kind, at: si(s.at, 'length'), isLocating: s.locating, hasRating: s.C !== null,
-    slope: s.slope, L10: s.L10, L10h: s.L10h,
+    index: s.index,
+    kind: s.kind,
+    at: si(s.at, 'length'),
+    isLocating: s.locating,
+    hasRating: s.C !== null,
+    slope: s.slope,
+    L10: s.L10,
+    L10h: s.L10h,
   };
   // Left out when the parameter is missing, so a clause using it reports "Undefined fact" instead of passing.
   if (typeof limit === 'number') facts.allowableSlope = limit;
@@ -16,7 +22,14 @@ export function supportFacts(s: SupportResult, ruleSet: RuleSet, si: ToSI): Fact
 }
 
 export function loadFacts(l: LoadResult, si: ToSI): Facts {
-  return { index: l.index, kind: l.kind, at: si(l.at, 'length'), isGear: l.kind === 'gear', deflection: si(l.deflection, 'length'), slope: l.slope };
+  return {
+    index: l.index,
+    kind: l.kind,
+    at: si(l.at, 'length'),
+    isGear: l.kind === 'gear',
+    deflection: si(l.deflection, 'length'),
+    slope: l.slope,
+  };
 }
 
 export function shaftBeamFacts(result: CalcResult, si: ToSI): Facts {
@@ -24,6 +37,8 @@ export function shaftBeamFacts(result: CalcResult, si: ToSI): Facts {
   return {
     hasSupports: result.supports.length >= 2,
     maxDeflection: result.deflection ? si(result.deflection.max, 'length') : null,
-    criticalSpeed: c ? c.rpm : null, operatingSpeed: result.speed, criticalSpeedRatio: c?.ratio ?? null,
+    criticalSpeed: c ? c.rpm : null,
+    operatingSpeed: result.speed,
+    criticalSpeedRatio: c?.ratio ?? null,
   };
 }

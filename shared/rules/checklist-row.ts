@@ -28,21 +28,33 @@ function measured(m: PreparedMeasure, facts: Facts, params: Facts, units: UnitSy
   const isPlain = units === 'SI' || PLAIN_QUANTITIES.has(m.quantity);
   const q = m.quantity as 'length' | 'torque' | 'stress' | 'modulus' | 'twistPerLength';
   const shown = (v: number | null): number | null => (v === null || isPlain ? v : fromSI(v, q, units));
-  return { actual: shown(lookup(m.actual, facts, params)), limit: shown(lookup(m.limit, facts, params)), unit: m.unit[units] };
+  return {
+    actual: shown(lookup(m.actual, facts, params)),
+    limit: shown(lookup(m.limit, facts, params)),
+    unit: m.unit[units],
+  };
 }
 
 function utilisationOf(m: PreparedMeasure, v: Measured): number | null {
   if (v.actual === null || v.limit === null) return null;
-  const u = m.isAtMost ? (v.limit > 0 ? v.actual / v.limit : null) : (v.actual > 0 ? v.limit / v.actual : null);
+  const u = m.isAtMost ? (v.limit > 0 ? v.actual / v.limit : null) : v.actual > 0 ? v.limit / v.actual : null;
   return u !== null && Number.isFinite(u) ? u : null;
 }
 
 const withUnit = (v: number, unit: string): string => (unit === '1' ? shortNumber(v) : `${shortNumber(v)} ${unit}`);
 
 function measureText(m: PreparedMeasure, v: Measured, passes: boolean, u: number | null): string {
-  if (v.actual === null || v.limit === null) return `${m.label} is not available here (no load or no data); requirement ${passes ? 'met' : 'not met'}`;
-  const verb = m.isAtMost ? (passes ? 'is within the limit of' : 'exceeds the limit of') : (passes ? 'meets the minimum of' : 'is below the minimum of');
-  const util = u === null ? '' : ` (utilisation ${shortNumber(100 * u, 3)} %, ${m.isAtMost ? 'actual/limit' : 'limit/actual'})`;
+  if (v.actual === null || v.limit === null)
+    return `${m.label} is not available here (no load or no data); requirement ${passes ? 'met' : 'not met'}`;
+  const verb = m.isAtMost
+    ? passes
+      ? 'is within the limit of'
+      : 'exceeds the limit of'
+    : passes
+      ? 'meets the minimum of'
+      : 'is below the minimum of';
+  const util =
+    u === null ? '' : ` (utilisation ${shortNumber(100 * u, 3)} %, ${m.isAtMost ? 'actual/limit' : 'limit/actual'})`;
   return `${m.label} ${withUnit(v.actual, v.unit)} ${verb} ${withUnit(v.limit, v.unit)}${util}`;
 }
 
@@ -56,10 +68,19 @@ function contradicts(m: PreparedMeasure, v: Measured, passes: boolean): boolean 
 function steelWarning(p: PreparedClause, t: Target): string[] {
   const kind = t.facts.materialKind;
   if (p.clause.materialScope !== 'steel' || typeof kind !== 'string' || kind === 'steel') return [];
-  return [`clause ${p.clause.id} was written for steel; this location is ${kind}: its limit may not be valid for this material`];
+  return [
+    `clause ${p.clause.id} was written for steel; this location is ${kind}: its limit may not be valid for this material`,
+  ];
 }
 
-function fill(row: ChecklistRow, m: PreparedMeasure, t: Target, params: Facts, units: UnitSystem, passes: boolean): void {
+function fill(
+  row: ChecklistRow,
+  m: PreparedMeasure,
+  t: Target,
+  params: Facts,
+  units: UnitSystem,
+  passes: boolean,
+): void {
   const v = measured(m, t.facts, params, units);
   const u = utilisationOf(m, v);
   row.actual = v.actual;
@@ -76,14 +97,33 @@ function fill(row: ChecklistRow, m: PreparedMeasure, t: Target, params: Facts, u
 
 function nonFiniteFactError(p: PreparedClause, t: Target, params: Facts): string | null {
   const fact = nonFiniteFact(p.clause, t.facts, params);
-  return fact === null ? null : `${fact} is not a finite number; the inputs are outside the range this check can evaluate`;
+  return fact === null
+    ? null
+    : `${fact} is not a finite number; the inputs are outside the range this check can evaluate`;
 }
 
 /** One checklist row from a clause's outcome at one location. Never throws. */
-export function buildRow(p: PreparedClause, t: Target, outcome: ClauseOutcome, params: Facts, units: UnitSystem): ChecklistRow {
+export function buildRow(
+  p: PreparedClause,
+  t: Target,
+  outcome: ClauseOutcome,
+  params: Facts,
+  units: UnitSystem,
+): ChecklistRow {
   const row: ChecklistRow = {
-    clauseId: p.clause.id, clauseTitle: p.clause.title, reference: p.reference, severity: p.clause.severity, status: 'not-applicable',
-    location: t.location, actual: null, limit: null, unit: '', utilisation: null, utilisationBasis: null, message: 'does not apply here', warnings: [],
+    clauseId: p.clause.id,
+    clauseTitle: p.clause.title,
+    reference: p.reference,
+    severity: p.clause.severity,
+    status: 'not-applicable',
+    location: t.location,
+    actual: null,
+    limit: null,
+    unit: '',
+    utilisation: null,
+    utilisationBasis: null,
+    message: 'does not apply here',
+    warnings: [],
   };
   // A non-finite fact compares false everywhere, so "not applicable" or "pass" would be a guess.
   const bad = outcome.error ?? nonFiniteFactError(p, t, params);
@@ -101,7 +141,15 @@ export function buildRow(p: PreparedClause, t: Target, outcome: ClauseOutcome, p
   try {
     fill(row, p.measure, t, params, units, passes);
   } catch (err) {
-    Object.assign(row, { status: 'error', actual: null, limit: null, unit: '', utilisation: null, utilisationBasis: null, message: `could not be evaluated: ${errorText(err)}` });
+    Object.assign(row, {
+      status: 'error',
+      actual: null,
+      limit: null,
+      unit: '',
+      utilisation: null,
+      utilisationBasis: null,
+      message: `could not be evaluated: ${errorText(err)}`,
+    });
   }
   return row;
 }

@@ -49,8 +49,15 @@ export interface ManualRow {
 }
 
 export interface ChecklistCounts {
-  rows: number; pass: number; fail: number; notApplicable: number; error: number;
-  mandatoryFail: number; mandatoryError: number; advisoryFail: number; advisoryError: number;
+  rows: number;
+  pass: number;
+  fail: number;
+  notApplicable: number;
+  error: number;
+  mandatoryFail: number;
+  mandatoryError: number;
+  advisoryFail: number;
+  advisoryError: number;
 }
 
 export interface Checklist {

@@ -18,13 +18,25 @@ type Targets = Record<Scope, Target[]>;
 function targetsByScope(input: CalcInput, result: CalcResult, ruleSet: RuleSet): Targets {
   // A result of another calc would give facts of the wrong shaft: refuse it rather than guess.
   const nf = (input.features ?? []).length;
-  if (result.segments.length !== input.segments.length || result.features.length !== nf || result.units !== input.units) {
-    throw new Error(`checklist: the result (${result.segments.length} segments, ${result.features.length} features, ${result.units}) `
-      + `is not of this input (${input.segments.length} segments, ${nf} features, ${input.units}); evaluate the input first`);
+  if (
+    result.segments.length !== input.segments.length ||
+    result.features.length !== nf ||
+    result.units !== input.units
+  ) {
+    throw new Error(
+      `checklist: the result (${result.segments.length} segments, ${result.features.length} features, ${result.units}) ` +
+        `is not of this input (${input.segments.length} segments, ${nf} features, ${input.units}); evaluate the input first`,
+    );
   }
   const facts = locationFacts(input, result, ruleSet);
   const of = (scope: Scope): Target[] => targetsOf(scope, input, result, facts);
-  return { shaft: of('shaft'), segment: of('segment'), feature: of('feature'), support: of('support'), load: of('load') };
+  return {
+    shaft: of('shaft'),
+    segment: of('segment'),
+    feature: of('feature'),
+    support: of('support'),
+    load: of('load'),
+  };
 }
 
 // An engine warning about a segment or feature (a fit used outside its range, say) belongs on
@@ -32,11 +44,19 @@ function targetsByScope(input: CalcInput, result: CalcResult, ruleSet: RuleSet):
 function engineWarnings(result: CalcResult, loc: ChecklistRow['location'], featureTypes: readonly string[]): string[] {
   if (loc.index === null || loc.scope === 'shaft') return [];
   const prefix = `${loc.scope}s[${loc.index}]`;
-  return result.warnings.filter((w) => w.path === prefix || w.path.startsWith(`${prefix}.`)).map((w) => `${placeOf(w.path, featureTypes)}: ${w.message}`);
+  return result.warnings
+    .filter((w) => w.path === prefix || w.path.startsWith(`${prefix}.`))
+    .map((w) => `${placeOf(w.path, featureTypes)}: ${w.message}`);
 }
 
-function assemble(input: CalcInput, result: CalcResult, ruleSet: RuleSet, targets: Targets,
-  outcomes: Outcomes, manual: Record<string, ManualState> | undefined): Checklist {
+function assemble(
+  input: CalcInput,
+  result: CalcResult,
+  ruleSet: RuleSet,
+  targets: Targets,
+  outcomes: Outcomes,
+  manual: Record<string, ManualState> | undefined,
+): Checklist {
   const { clauses, params } = preparedFor(ruleSet);
   const rows: ChecklistRow[] = [];
   const featureTypes = (input.features ?? []).map((f) => f.type);
@@ -52,9 +72,17 @@ function assemble(input: CalcInput, result: CalcResult, ruleSet: RuleSet, target
   const { manual: manualList, notes } = manualRows(ruleSet, manual);
   const { code, title, version, status, effectiveDate } = ruleSet;
   return {
-    ruleSet: { code, title, version, status, effectiveDate }, engineVersion: result.engineVersion, units: input.units,
-    methods: used, methodIssues: issues, rows, manual: manualList, manualOpen: manualList.filter((m) => !m.done).length,
-    ...summarize(rows, issues), notes, caution: CAUTION,
+    ruleSet: { code, title, version, status, effectiveDate },
+    engineVersion: result.engineVersion,
+    units: input.units,
+    methods: used,
+    methodIssues: issues,
+    rows,
+    manual: manualList,
+    manualOpen: manualList.filter((m) => !m.done).length,
+    ...summarize(rows, issues),
+    notes,
+    caution: CAUTION,
   };
 }
 
@@ -66,8 +94,12 @@ function assemble(input: CalcInput, result: CalcResult, ruleSet: RuleSet, target
  * gives "error" rows with the reason, never a pass. The json-rules-engine Engine is built once per
  * rule set (code + version and content) and reused.
  */
-export async function evaluateChecklist(input: CalcInput, result: CalcResult, ruleSet: RuleSet,
-  manual?: Record<string, ManualState>): Promise<Checklist> {
+export async function evaluateChecklist(
+  input: CalcInput,
+  result: CalcResult,
+  ruleSet: RuleSet,
+  manual?: Record<string, ManualState>,
+): Promise<Checklist> {
   const targets = targetsByScope(input, result, ruleSet);
   const runner = runnerFor(ruleSet);
   const outcomes: Outcomes = ruleSet.clauses.map(() => []);
@@ -84,10 +116,16 @@ export async function evaluateChecklist(input: CalcInput, result: CalcResult, ru
  * (sync-evaluator.ts) for bulk work: impact analysis, minimum diameters, live editing. Tests hold
  * the two to identical output.
  */
-export function evaluateChecklistSync(input: CalcInput, result: CalcResult, ruleSet: RuleSet,
-  manual?: Record<string, ManualState>): Checklist {
+export function evaluateChecklistSync(
+  input: CalcInput,
+  result: CalcResult,
+  ruleSet: RuleSet,
+  manual?: Record<string, ManualState>,
+): Checklist {
   const targets = targetsByScope(input, result, ruleSet);
   const compiled = compiledFor(ruleSet);
-  const outcomes: Outcomes = ruleSet.clauses.map((clause, i) => targets[clause.scope].map((t) => outcomeSync(compiled, i, t.facts)));
+  const outcomes: Outcomes = ruleSet.clauses.map((clause, i) =>
+    targets[clause.scope].map((t) => outcomeSync(compiled, i, t.facts)),
+  );
   return assemble(input, result, ruleSet, targets, outcomes, manual);
 }

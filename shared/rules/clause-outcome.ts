@@ -12,4 +12,8 @@ export function errorText(err: unknown): string {
 }
 
 export const notApplicable = (): ClauseOutcome => ({ applies: false, passes: null, error: null });
-export const failed = (err: unknown, applies: boolean | null): ClauseOutcome => ({ applies, passes: null, error: errorText(err) });
+export const failed = (err: unknown, applies: boolean | null): ClauseOutcome => ({
+  applies,
+  passes: null,
+  error: errorText(err),
+});

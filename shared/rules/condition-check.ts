@@ -1,4 +1,11 @@
-import { isFactCondition, isFactRef, type Condition, type FactCondition, type Scalar, type TopCondition } from './condition-schema';
+import {
+  isFactCondition,
+  isFactRef,
+  type Condition,
+  type FactCondition,
+  type Scalar,
+  type TopCondition,
+} from './condition-schema';
 import { refType, type CheckContext, type RefType } from './fact-types';
 import type { Clause } from './rule-set-schema';
 
@@ -16,7 +23,11 @@ function scalarType(v: Scalar): string {
 function checkNeeds(t: RefType, at: string, ctx: CheckContext): void {
   for (const name of t.needs ?? []) {
     const p = ctx.params.get(name);
-    if (!p) ctx.out.push({ path: at, message: `${t.what} is computed from parameter "${name}", which the rule set does not define` });
+    if (!p)
+      ctx.out.push({
+        path: at,
+        message: `${t.what} is computed from parameter "${name}", which the rule set does not define`,
+      });
     else if (typeof p.value !== 'number' || p.unit !== (t.unit === 'rad' ? 'rad' : '1')) {
       // A derived limit (allowableSlope) carries the unit of its parameters; the ASME fractions are dimensionless.
       const unit = t.unit === 'rad' ? 'rad' : '1';
@@ -35,7 +46,10 @@ function checkLiteral(left: RefType, v: Scalar, at: string, ctx: CheckContext): 
   if (v === null) {
     if (!left.isNullable) ctx.out.push({ path: at, message: `${left.what} is never null` });
   } else if (left.type === 'object' || scalarType(v) !== left.type) {
-    ctx.out.push({ path: at, message: `${left.what} is ${left.type === 'object' ? 'an object (compare it with null, or add a path)' : `a ${left.type}`}, got ${JSON.stringify(v)}` });
+    ctx.out.push({
+      path: at,
+      message: `${left.what} is ${left.type === 'object' ? 'an object (compare it with null, or add a path)' : `a ${left.type}`}, got ${JSON.stringify(v)}`,
+    });
   } else if (left.values && typeof v === 'string' && !left.values.includes(v)) {
     ctx.out.push({ path: at, message: `"${v}" is not a value of ${left.what} (${left.values.join(', ')})` });
   }
@@ -43,31 +57,49 @@ function checkLiteral(left: RefType, v: Scalar, at: string, ctx: CheckContext): 
 
 function checkNumeric(c: FactCondition, left: RefType, right: RefType | null, p: string, ctx: CheckContext): void {
   if (left.type !== 'number') {
-    ctx.out.push({ path: `${p}.operator`, message: `${c.operator} compares numbers, but ${left.what} is a ${left.type}` });
+    ctx.out.push({
+      path: `${p}.operator`,
+      message: `${c.operator} compares numbers, but ${left.what} is a ${left.type}`,
+    });
     return;
   }
   if (!isFactRef(c.value)) {
-    if (typeof c.value !== 'number') ctx.out.push({ path: `${p}.value`, message: `${c.operator} needs a number, got ${JSON.stringify(c.value)}` });
+    if (typeof c.value !== 'number')
+      ctx.out.push({ path: `${p}.value`, message: `${c.operator} needs a number, got ${JSON.stringify(c.value)}` });
     return;
   }
   if (!right) return;
-  if (right.type !== 'number') ctx.out.push({ path: `${p}.value.fact`, message: `${right.what} is a ${right.type}, but ${c.operator} needs a number` });
+  if (right.type !== 'number')
+    ctx.out.push({
+      path: `${p}.value.fact`,
+      message: `${right.what} is a ${right.type}, but ${c.operator} needs a number`,
+    });
   else if (right.unit !== null && left.unit !== null && right.unit !== left.unit) {
-    ctx.out.push({ path: `${p}.value.fact`, message: `${right.what} is in ${right.unit} but ${left.what} is in ${left.unit} (rule sets use SI units)` });
+    ctx.out.push({
+      path: `${p}.value.fact`,
+      message: `${right.what} is in ${right.unit} but ${left.what} is in ${left.unit} (rule sets use SI units)`,
+    });
   }
 }
 
 function checkEquality(c: FactCondition, left: RefType, right: RefType | null, p: string, ctx: CheckContext): void {
   const v = c.value;
   if (c.operator === 'contains' || c.operator === 'doesNotContain') {
-    ctx.out.push({ path: `${p}.operator`, message: `${c.operator} needs a list fact, and ${left.what} is a ${left.type}` });
+    ctx.out.push({
+      path: `${p}.operator`,
+      message: `${c.operator} needs a list fact, and ${left.what} is a ${left.type}`,
+    });
   } else if (c.operator === 'in' || c.operator === 'notIn') {
     if (!Array.isArray(v)) ctx.out.push({ path: `${p}.value`, message: `${c.operator} needs a list of values` });
     else v.forEach((x, k) => checkLiteral(left, x, `${p}.value[${k}]`, ctx));
   } else if (Array.isArray(v)) {
     ctx.out.push({ path: `${p}.value`, message: `${c.operator} compares single values; use "in" for a list` });
   } else if (isFactRef(v)) {
-    if (right && right.type !== left.type) ctx.out.push({ path: `${p}.value.fact`, message: `${right.what} is a ${right.type}, but ${left.what} is a ${left.type}` });
+    if (right && right.type !== left.type)
+      ctx.out.push({
+        path: `${p}.value.fact`,
+        message: `${right.what} is a ${right.type}, but ${left.what} is a ${left.type}`,
+      });
   } else {
     checkLiteral(left, v, `${p}.value`, ctx);
   }
@@ -94,13 +126,22 @@ export function checkMeasure(clause: Clause, p: string, ctx: CheckContext): void
   const m = clause.measure;
   if (!m) return;
   const actual = m.actual.startsWith('param:') ? null : resolve(m.actual, undefined, `${p}.actual`, ctx);
-  if (m.actual.startsWith('param:')) ctx.out.push({ path: `${p}.actual`, message: 'the actual value must be a fact of the calc, not a parameter' });
+  if (m.actual.startsWith('param:'))
+    ctx.out.push({ path: `${p}.actual`, message: 'the actual value must be a fact of the calc, not a parameter' });
   const limit = resolve(m.limit, undefined, `${p}.limit`, ctx);
-  for (const [t, at] of [[actual, `${p}.actual`], [limit, `${p}.limit`]] as const) {
-    if (t && t.type !== 'number') ctx.out.push({ path: at, message: `${t.what} is a ${t.type}; a measure needs numbers` });
+  for (const [t, at] of [
+    [actual, `${p}.actual`],
+    [limit, `${p}.limit`],
+  ] as const) {
+    if (t && t.type !== 'number')
+      ctx.out.push({ path: at, message: `${t.what} is a ${t.type}; a measure needs numbers` });
   }
-  if (actual?.type === 'number' && actual.unit !== m.unit) ctx.out.push({ path: `${p}.unit`, message: `${actual.what} is in ${actual.unit}, not ${JSON.stringify(m.unit)}` });
+  if (actual?.type === 'number' && actual.unit !== m.unit)
+    ctx.out.push({ path: `${p}.unit`, message: `${actual.what} is in ${actual.unit}, not ${JSON.stringify(m.unit)}` });
   if (actual?.type === 'number' && limit?.type === 'number' && limit.unit !== null && limit.unit !== actual.unit) {
-    ctx.out.push({ path: `${p}.limit`, message: `${limit.what} is in ${limit.unit} but ${actual.what} is in ${actual.unit}` });
+    ctx.out.push({
+      path: `${p}.limit`,
+      message: `${limit.what} is in ${limit.unit} but ${actual.what} is in ${actual.unit}`,
+    });
   }
 }

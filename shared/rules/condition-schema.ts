@@ -7,8 +7,16 @@ import { z } from 'zod';
  * evaluated the same way by json-rules-engine and by the synchronous evaluator (sync-evaluator.ts).
  */
 export const OPERATORS = [
-  'equal', 'notEqual', 'in', 'notIn', 'contains', 'doesNotContain',
-  'lessThan', 'lessThanInclusive', 'greaterThan', 'greaterThanInclusive',
+  'equal',
+  'notEqual',
+  'in',
+  'notIn',
+  'contains',
+  'doesNotContain',
+  'lessThan',
+  'lessThanInclusive',
+  'greaterThan',
+  'greaterThanInclusive',
 ] as const;
 export type Operator = (typeof OPERATORS)[number];
 
@@ -16,13 +24,19 @@ export type Operator = (typeof OPERATORS)[number];
 export const PARAM_PREFIX = 'param:';
 
 // Only `$.name` paths: a one-step JSONPath that json-rules-engine resolves into an object fact.
-const pathSchema = z.string().regex(/^\$\.[A-Za-z][A-Za-z0-9]*$/, 'path must have the form "$.name"')
+const pathSchema = z
+  .string()
+  .regex(/^\$\.[A-Za-z][A-Za-z0-9]*$/, 'path must have the form "$.name"')
   .meta({ description: 'One-step JSONPath into an object fact, e.g. "$.goodman"' });
 
-const factName = z.string().min(1).max(80)
+const factName = z
+  .string()
+  .min(1)
+  .max(80)
   .meta({ description: 'A fact of the clause scope, or "param:<name>" for a rule-set parameter' });
 
-export const factRefSchema = z.strictObject({ fact: factName, path: pathSchema.optional() })
+export const factRefSchema = z
+  .strictObject({ fact: factName, path: pathSchema.optional() })
   .meta({ description: 'Compare with another fact or a parameter instead of a literal' });
 
 const scalar = z.union([z.number(), z.string().max(200), z.boolean(), z.null()]);
@@ -47,12 +61,16 @@ const factConditionSchema = z.strictObject({
   path: pathSchema.optional(),
 });
 
-export const conditionSchema: z.ZodType<Condition> = z.lazy(() => z.union([
-  factConditionSchema,
-  z.strictObject({ all: z.array(conditionSchema).max(100) }),
-  z.strictObject({ any: z.array(conditionSchema).min(1).max(100) }),
-  z.strictObject({ not: conditionSchema }),
-])).meta({ id: 'condition', description: 'json-rules-engine condition' });
+export const conditionSchema: z.ZodType<Condition> = z
+  .lazy(() =>
+    z.union([
+      factConditionSchema,
+      z.strictObject({ all: z.array(conditionSchema).max(100) }),
+      z.strictObject({ any: z.array(conditionSchema).min(1).max(100) }),
+      z.strictObject({ not: conditionSchema }),
+    ]),
+  )
+  .meta({ id: 'condition', description: 'json-rules-engine condition' });
 
 /*
  * A rule's root must be all, any or not (json-rules-engine refuses a bare fact condition there).

@@ -1,4 +1,11 @@
-import { Engine, Operator, Rule, type EngineResult, type RuleProperties, type TopLevelCondition } from 'json-rules-engine';
+import {
+  Engine,
+  Operator,
+  Rule,
+  type EngineResult,
+  type RuleProperties,
+  type TopLevelCondition,
+} from 'json-rules-engine';
 import { errorText, failed, notApplicable, type ClauseOutcome } from './clause-outcome';
 import type { TopCondition } from './condition-schema';
 import type { Facts } from './facts';
@@ -16,7 +23,11 @@ const EVENT = { type: 'clause-evaluated' };
 
 function rule(name: string, conditions: TopCondition): Rule {
   // A deep copy: the engine keeps and annotates the condition objects it is given.
-  const props: RuleProperties = { name, conditions: JSON.parse(JSON.stringify(conditions)) as TopLevelCondition, event: EVENT };
+  const props: RuleProperties = {
+    name,
+    conditions: JSON.parse(JSON.stringify(conditions)) as TopLevelCondition,
+    event: EVENT,
+  };
   return new Rule(props);
 }
 
@@ -90,7 +101,8 @@ export class RuleSetRunner {
     try {
       byName = resultsByName(await engine.run(facts));
     } catch {
-      for (const i of clauses) out.set(i, this.#broken.has(i) ? failed(this.#broken.get(i), null) : await this.#isolated(i, facts));
+      for (const i of clauses)
+        out.set(i, this.#broken.has(i) ? failed(this.#broken.get(i), null) : await this.#isolated(i, facts));
       return out;
     }
     for (const i of clauses) {

@@ -17,7 +17,13 @@ export const CRITERION_KEYS = ['goodman', 'asmeElliptic', 'gerber', 'soderberg']
 /** Parameters of the old ASME transmission-shafting rule behind the allowableShear fact. */
 export const ASME_PARAMS = ['asmeSyFraction', 'asmeSuFraction', 'asmeKeywayFactor'] as const;
 
-const fatigueBy: FactSpec = { type: 'object', isNullable: true, quantity: '1', label: 'fatigue safety factor by each criterion', values: CRITERION_KEYS };
+const fatigueBy: FactSpec = {
+  type: 'object',
+  isNullable: true,
+  quantity: '1',
+  label: 'fatigue safety factor by each criterion',
+  values: CRITERION_KEYS,
+};
 
 const SHAFT: Record<string, FactSpec> = {
   materialKind: str('calc material kind', MATERIAL_KINDS),
@@ -43,10 +49,16 @@ const SHAFT: Record<string, FactSpec> = {
 const SEGMENT: Record<string, FactSpec> = {
   index: num('1', 'segment index'),
   materialKind: str('material kind', MATERIAL_KINDS),
-  od: num('length', 'outer diameter'), id: num('length', 'inner diameter'), length: num('length', 'segment length'),
-  boreRatio: num('1', 'bore ratio di/do'), isHollow: bool('hollow segment'), hasKeyseat: bool('keyseat on the segment'),
+  od: num('length', 'outer diameter'),
+  id: num('length', 'inner diameter'),
+  length: num('length', 'segment length'),
+  boreRatio: num('1', 'bore ratio di/do'),
+  isHollow: bool('hollow segment'),
+  hasKeyseat: bool('keyseat on the segment'),
   isLoaded: bool('segment carries load'),
-  Sy: num('stress', 'yield strength Sy'), Su: num('stress', 'ultimate strength Su'), G: num('modulus', 'shear modulus G'),
+  Sy: num('stress', 'yield strength Sy'),
+  Su: num('stress', 'ultimate strength Su'),
+  G: num('modulus', 'shear modulus G'),
   torque: num('torque', 'largest internal torque |T|'),
   tauMax: num('stress', 'nominal shear stress τmax'),
   allowableShear: { ...num('stress', 'allowable shear stress (old ASME rule)'), params: ASME_PARAMS },
@@ -62,30 +74,49 @@ const SEGMENT: Record<string, FactSpec> = {
 };
 
 const FEATURE: Record<string, FactSpec> = {
-  index: num('1', 'feature index'), segment: num('1', 'index of the governing segment'),
-  type: str('feature type', FEATURE_TYPES), form: str('keyseat form', ['end-mill', 'sled-runner'], true),
-  materialKind: str('material kind', MATERIAL_KINDS), isLoaded: bool('section carries load'),
-  at: num('length', 'station'), d: num('length', 'section diameter d'), D: num('length', 'larger diameter D', true),
-  r: num('length', 'notch radius r'), rOverD: num('1', 'notch radius ratio r/d'),
-  DOverd: num('1', 'diameter ratio D/d', true), tOverR: num('1', 'step-to-radius ratio t/r', true),
-  Kt: num('1', 'stress-concentration factor Kt'), Kts: num('1', 'stress-concentration factor Kts'),
-  isKtEntered: bool('Kt entered by the author'), isKtsEntered: bool('Kts entered by the author'),
-  q: num('1', 'notch sensitivity q'), qs: num('1', 'notch sensitivity qs'),
-  Kf: num('1', 'fatigue stress-concentration factor Kf'), Kfs: num('1', 'fatigue stress-concentration factor Kfs'),
-  Sy: num('stress', 'yield strength Sy'), Su: num('stress', 'ultimate strength Su'),
+  index: num('1', 'feature index'),
+  segment: num('1', 'index of the governing segment'),
+  type: str('feature type', FEATURE_TYPES),
+  form: str('keyseat form', ['end-mill', 'sled-runner'], true),
+  materialKind: str('material kind', MATERIAL_KINDS),
+  isLoaded: bool('section carries load'),
+  at: num('length', 'station'),
+  d: num('length', 'section diameter d'),
+  D: num('length', 'larger diameter D', true),
+  r: num('length', 'notch radius r'),
+  rOverD: num('1', 'notch radius ratio r/d'),
+  DOverd: num('1', 'diameter ratio D/d', true),
+  tOverR: num('1', 'step-to-radius ratio t/r', true),
+  Kt: num('1', 'stress-concentration factor Kt'),
+  Kts: num('1', 'stress-concentration factor Kts'),
+  isKtEntered: bool('Kt entered by the author'),
+  isKtsEntered: bool('Kts entered by the author'),
+  q: num('1', 'notch sensitivity q'),
+  qs: num('1', 'notch sensitivity qs'),
+  Kf: num('1', 'fatigue stress-concentration factor Kf'),
+  Kfs: num('1', 'fatigue stress-concentration factor Kfs'),
+  Sy: num('stress', 'yield strength Sy'),
+  Su: num('stress', 'ultimate strength Su'),
   sigmaVonMises: num('stress', 'peak von Mises stress σ′max'),
   yieldSafety: num('1', 'yield safety factor (von Mises)', true),
   Se: num('stress', 'endurance limit Se', true),
   fatigueSafety: num('1', 'fatigue safety factor (rule-set criterion)', true),
   fatigueSafetyBy: fatigueBy,
   hasKey: bool('key dimensions given'),
-  keyShearStress: num('stress', 'key shear stress', true), keyBearingStress: num('stress', 'key bearing stress', true),
-  keyShearSafety: num('1', 'key shear safety factor', true), keyBearingSafety: num('1', 'key bearing safety factor', true),
-  M: num('torque', 'bending moment from the beam model'), isBendingFromModel: bool('bending moment computed from loads and bearings'),
+  keyShearStress: num('stress', 'key shear stress', true),
+  keyBearingStress: num('stress', 'key bearing stress', true),
+  keyShearSafety: num('1', 'key shear safety factor', true),
+  keyBearingSafety: num('1', 'key bearing safety factor', true),
+  M: num('torque', 'bending moment from the beam model'),
+  isBendingFromModel: bool('bending moment computed from loads and bearings'),
 };
 
 export const FACTS: Readonly<Record<Scope, Readonly<Record<string, FactSpec>>>> = {
-  shaft: SHAFT, segment: SEGMENT, feature: FEATURE, support: SUPPORT, load: LOAD,
+  shaft: SHAFT,
+  segment: SEGMENT,
+  feature: FEATURE,
+  support: SUPPORT,
+  load: LOAD,
 };
 export { SLOPE_PARAMS, SUPPORT_KINDS };
 

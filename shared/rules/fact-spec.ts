@@ -1,6 +1,7 @@
 /* The shape of a fact in the registry, and helpers to declare one. */
 export type FactType = 'number' | 'boolean' | 'string' | 'object';
-export type FactQuantity = 'length' | 'torque' | 'stress' | 'modulus' | 'angle' | 'twistPerLength' | 'speed' | 'rad' | 'h' | '1';
+export type FactQuantity =
+  'length' | 'torque' | 'stress' | 'modulus' | 'angle' | 'twistPerLength' | 'speed' | 'rad' | 'h' | '1';
 
 /** Quantities whose value is the same in both unit systems (shown unconverted). */
 export const PLAIN_QUANTITIES: ReadonlySet<FactQuantity> = new Set(['1', 'angle', 'speed', 'rad', 'h']);
@@ -17,7 +18,17 @@ export interface FactSpec {
   params?: readonly string[];
 }
 
-export const num = (quantity: FactQuantity, label: string, isNullable = false): FactSpec => ({ type: 'number', isNullable, quantity, label });
+export const num = (quantity: FactQuantity, label: string, isNullable = false): FactSpec => ({
+  type: 'number',
+  isNullable,
+  quantity,
+  label,
+});
 export const bool = (label: string): FactSpec => ({ type: 'boolean', isNullable: false, quantity: null, label });
-export const str = (label: string, values?: readonly string[], isNullable = false): FactSpec => ({ type: 'string', isNullable, quantity: null, label, values });
-
+export const str = (label: string, values?: readonly string[], isNullable = false): FactSpec => ({
+  type: 'string',
+  isNullable,
+  quantity: null,
+  label,
+  values,
+});

@@ -26,7 +26,8 @@ function editDistance(a: string, b: string): number {
   let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
   for (let i = 1; i <= a.length; i++) {
     const cur = [i];
-    for (let j = 1; j <= b.length; j++) cur[j] = Math.min(prev[j] + 1, cur[j - 1] + 1, prev[j - 1] + (a[i - 1] === b[j - 1] ? 0 : 1));
+    for (let j = 1; j <= b.length; j++)
+      cur[j] = Math.min(prev[j] + 1, cur[j - 1] + 1, prev[j - 1] + (a[i - 1] === b[j - 1] ? 0 : 1));
     prev = cur;
   }
   return prev[b.length];
@@ -50,10 +51,16 @@ function paramType(name: string, path: string, ctx: CheckContext): RefType | nul
     return null;
   }
   const type = typeof p.value as 'number' | 'boolean' | 'string';
-  return { type, isNullable: false, unit: type === 'number' ? p.unit ?? null : null, what: `parameter "${name}"` };
+  return { type, isNullable: false, unit: type === 'number' ? (p.unit ?? null) : null, what: `parameter "${name}"` };
 }
 
-function memberType(name: string, member: string | undefined, values: readonly string[], path: string, ctx: CheckContext): RefType | null {
+function memberType(
+  name: string,
+  member: string | undefined,
+  values: readonly string[],
+  path: string,
+  ctx: CheckContext,
+): RefType | null {
   if (member === undefined) return null;
   if (!values.includes(member)) {
     ctx.out.push({ path, message: `"${member}" is not a member of fact "${name}" (${values.join(', ')})` });
@@ -75,13 +82,23 @@ export function refType(fact: string, path: string | undefined, at: string, ctx:
   const spec = factSpec(ctx.scope, fact);
   if (!spec) {
     const elsewhere = SCOPES.filter((s) => s !== ctx.scope && factSpec(s, fact));
-    const hint = elsewhere.length ? ` (it is a fact of scope ${elsewhere.join(', ')})` : suggestion(fact, Object.keys(FACTS[ctx.scope]));
+    const hint = elsewhere.length
+      ? ` (it is a fact of scope ${elsewhere.join(', ')})`
+      : suggestion(fact, Object.keys(FACTS[ctx.scope]));
     ctx.out.push({ path: at, message: `unknown fact "${fact}" for scope ${ctx.scope}${hint}` });
     return null;
   }
-  if (spec.type === 'object' && path !== undefined) return memberType(fact, path.slice(2), spec.values ?? [], pathAt, ctx);
+  if (spec.type === 'object' && path !== undefined)
+    return memberType(fact, path.slice(2), spec.values ?? [], pathAt, ctx);
   if (spec.type !== 'object' && path !== undefined) {
     ctx.out.push({ path: pathAt, message: `fact "${fact}" is a ${spec.type}, not an object: remove "path"` });
   }
-  return { type: spec.type, isNullable: spec.isNullable, unit: spec.type === 'number' ? factUnit(spec) : null, values: spec.type === 'string' ? spec.values : undefined, what: `fact "${fact}"`, needs: spec.params };
+  return {
+    type: spec.type,
+    isNullable: spec.isNullable,
+    unit: spec.type === 'number' ? factUnit(spec) : null,
+    values: spec.type === 'string' ? spec.values : undefined,
+    what: `fact "${fact}"`,
+    needs: spec.params,
+  };
 }

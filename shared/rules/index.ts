@@ -5,16 +5,39 @@
  */
 export * from './condition-schema';
 export * from './rule-set-schema';
-export { FACTS, factSpec, factUnit, MATERIAL_KINDS, FEATURE_TYPES, ASME_PARAMS, type FactSpec, type FactType, type FactQuantity } from './fact-registry';
+export {
+  FACTS,
+  factSpec,
+  factUnit,
+  MATERIAL_KINDS,
+  FEATURE_TYPES,
+  ASME_PARAMS,
+  type FactSpec,
+  type FactType,
+  type FactQuantity,
+} from './fact-registry';
 export { applyRuleSetMethods, methodsUsed, type MethodsUsed, type MethodIssue } from './rule-set-methods';
 export { evaluateChecklist, evaluateChecklistSync } from './checklist';
-export type { Checklist, ChecklistRow, ChecklistCounts, ManualRow, ManualState, RowLocation, RowStatus } from './checklist-types';
+export type {
+  Checklist,
+  ChecklistRow,
+  ChecklistCounts,
+  ManualRow,
+  ManualState,
+  RowLocation,
+  RowStatus,
+} from './checklist-types';
 export { compileCondition, type Compiled } from './sync-evaluator';
 export { LIMIT_TOLERANCE, nearlyEqual, withinLimit, TOLERANT_OPERATORS } from './limit-tolerance';
 export { useLimitOperators } from './engine-runner';
 export { locationFacts, type Facts, type LocationFacts } from './facts';
 export { validateRuleSet, clauseParameters, type RuleSetValidation } from './validate-rule-set';
 export type { RuleSetIssue } from './rule-set-issues';
-export { minimumDiameters, type MinimumDiameter, type MinimumDiameterOptions, type GoverningRow } from './minimum-diameter';
+export {
+  minimumDiameters,
+  type MinimumDiameter,
+  type MinimumDiameterOptions,
+  type GoverningRow,
+} from './minimum-diameter';
 export { diffRuleSets, type RuleSetDiff, type ItemDiff, type FieldChange, type Change } from './rule-set-diff';
 export { ruleSetJsonSchemaText } from './json-schema';

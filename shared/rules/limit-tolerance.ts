@@ -24,13 +24,16 @@ type Order = (a: any, b: any) => boolean;
 // anything else (a number-like string, say) compares exactly as json-rules-engine's defaults do.
 function tolerant(exact: Order, atEqual: boolean): Order {
   return (a, b) => {
-    if (typeof a === 'number' && typeof b === 'number' && Number.isFinite(a) && Number.isFinite(b) && nearlyEqual(a, b)) return atEqual;
+    if (typeof a === 'number' && typeof b === 'number' && Number.isFinite(a) && Number.isFinite(b) && nearlyEqual(a, b))
+      return atEqual;
     return exact(a, b);
   };
 }
 
 /** The four ordering operators with the tolerance, for json-rules-engine and the synchronous evaluator. */
-export const TOLERANT_OPERATORS: Readonly<Record<'greaterThanInclusive' | 'lessThanInclusive' | 'greaterThan' | 'lessThan', Order>> = {
+export const TOLERANT_OPERATORS: Readonly<
+  Record<'greaterThanInclusive' | 'lessThanInclusive' | 'greaterThan' | 'lessThan', Order>
+> = {
   greaterThanInclusive: tolerant((a, b) => a >= b, true),
   lessThanInclusive: tolerant((a, b) => a <= b, true),
   greaterThan: tolerant((a, b) => a > b, false),
@@ -39,5 +42,7 @@ export const TOLERANT_OPERATORS: Readonly<Record<'greaterThanInclusive' | 'lessT
 
 /** actual meets a minimum (isAtMost false) or stays within a maximum (isAtMost true), with the tolerance. */
 export function withinLimit(actual: number, limit: number, isAtMost: boolean): boolean {
-  return isAtMost ? TOLERANT_OPERATORS.lessThanInclusive(actual, limit) : TOLERANT_OPERATORS.greaterThanInclusive(actual, limit);
+  return isAtMost
+    ? TOLERANT_OPERATORS.lessThanInclusive(actual, limit)
+    : TOLERANT_OPERATORS.greaterThanInclusive(actual, limit);
 }

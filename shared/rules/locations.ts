@@ -15,16 +15,27 @@ const quoted = (label: string | undefined): string => (label ? ` "${label}"` : '
 export function targetsOf(scope: Scope, input: CalcInput, result: CalcResult, facts: LocationFacts): Target[] {
   const len = UNIT_LABELS[input.units].length;
   const f = (v: number): string => shortNumber(v, 6);
-  if (scope === 'shaft') return [{ location: { scope, index: null, at: null, label: 'whole shaft' }, facts: facts.shaft }];
+  if (scope === 'shaft')
+    return [{ location: { scope, index: null, at: null, label: 'whole shaft' }, facts: facts.shaft }];
   if (scope === 'segment') {
     return result.segments.map((s, i) => ({
-      location: { scope, index: i, at: s.start, label: `segment ${i + 1}${quoted(s.label)} (${f(s.start)}–${f(s.end)} ${len})` },
+      location: {
+        scope,
+        index: i,
+        at: s.start,
+        label: `segment ${i + 1}${quoted(s.label)} (${f(s.start)}–${f(s.end)} ${len})`,
+      },
       facts: facts.segments[i],
     }));
   }
   if (scope === 'support') {
     return result.supports.map((s, i) => ({
-      location: { scope, index: i, at: s.at, label: `bearing ${i + 1}${quoted(s.label)} (${s.kind}) at ${f(s.at)} ${len}` },
+      location: {
+        scope,
+        index: i,
+        at: s.at,
+        label: `bearing ${i + 1}${quoted(s.label)} (${s.kind}) at ${f(s.at)} ${len}`,
+      },
       facts: facts.supports[i],
     }));
   }

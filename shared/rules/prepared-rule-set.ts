@@ -39,7 +39,11 @@ function prepareMeasure(ruleSet: RuleSet, clause: Clause): PreparedMeasure | nul
   const quantity = spec?.quantity ?? '1';
   const unitIn = (s: UnitSystem): string => quantityUnit(quantity, s);
   return {
-    actual: m.actual, limit: m.limit, isAtMost: m.sense === 'at-most', quantity, unit: { SI: unitIn('SI'), US: unitIn('US') },
+    actual: m.actual,
+    limit: m.limit,
+    isAtMost: m.sense === 'at-most',
+    quantity,
+    unit: { SI: unitIn('SI'), US: unitIn('US') },
     label: (spec?.label ?? m.actual).replace('rule-set criterion', ruleSet.methods.fatigueCriterion),
   };
 }
@@ -58,7 +62,9 @@ function asmeFractions(ruleSet: RuleSet): PreparedRuleSet['asme'] {
 
 const PREPARED = new RuleSetCache((ruleSet): PreparedRuleSet => ({
   clauses: ruleSet.clauses.map((clause) => ({
-    clause, reference: `${ruleSet.code} v${ruleSet.version} §${clause.id}`, measure: prepareMeasure(ruleSet, clause),
+    clause,
+    reference: `${ruleSet.code} v${ruleSet.version} §${clause.id}`,
+    measure: prepareMeasure(ruleSet, clause),
   })),
   params: parameterFacts(ruleSet),
   asme: asmeFractions(ruleSet),

@@ -14,7 +14,10 @@ interface Entry<T> {
 export class RuleSetCache<T> {
   readonly #entries = new Map<string, Entry<T>>();
 
-  constructor(private readonly build: (ruleSet: RuleSet) => T, private readonly limit = 32) {}
+  constructor(
+    private readonly build: (ruleSet: RuleSet) => T,
+    private readonly limit = 32,
+  ) {}
 
   get(ruleSet: RuleSet): T {
     const key = `${ruleSet.code}@${ruleSet.version}`;

@@ -36,15 +36,26 @@ function canonical(v: unknown): string {
   if (v === null || typeof v !== 'object') return JSON.stringify(v);
   if (Array.isArray(v)) return `[${v.map(canonical).join(',')}]`;
   const o = v as Record<string, unknown>;
-  return `{${Object.keys(o).filter((k) => o[k] !== undefined).sort().map((k) => `${JSON.stringify(k)}:${canonical(o[k])}`).join(',')}}`;
+  return `{${Object.keys(o)
+    .filter((k) => o[k] !== undefined)
+    .sort()
+    .map((k) => `${JSON.stringify(k)}:${canonical(o[k])}`)
+    .join(',')}}`;
 }
 
 function fieldChanges<T extends object>(a: T, b: T, fields: readonly (keyof T & string)[]): FieldChange[] {
-  return fields.filter((f) => canonical(a[f]) !== canonical(b[f])).map((f) => ({ field: f, before: a[f] ?? null, after: b[f] ?? null }));
+  return fields
+    .filter((f) => canonical(a[f]) !== canonical(b[f]))
+    .map((f) => ({ field: f, before: a[f] ?? null, after: b[f] ?? null }));
 }
 
 /** Items matched by key: b's order, then those only in a. */
-function diffList<T extends object>(a: readonly T[], b: readonly T[], key: (x: T) => string, fields: readonly (keyof T & string)[]): ItemDiff<T>[] {
+function diffList<T extends object>(
+  a: readonly T[],
+  b: readonly T[],
+  key: (x: T) => string,
+  fields: readonly (keyof T & string)[],
+): ItemDiff<T>[] {
   const before = new Map(a.map((x) => [key(x), x]));
   const after = new Set(b.map(key));
   const out: ItemDiff<T>[] = b.map((x) => {
@@ -53,13 +64,17 @@ function diffList<T extends object>(a: readonly T[], b: readonly T[], key: (x: T
     const fc = fieldChanges(old, x, fields);
     return { key: key(x), change: fc.length ? 'changed' : 'unchanged', fields: fc, before: old, after: x };
   });
-  for (const x of a) if (!after.has(key(x))) out.push({ key: key(x), change: 'removed', fields: [], before: x, after: null });
+  for (const x of a)
+    if (!after.has(key(x))) out.push({ key: key(x), change: 'removed', fields: [], before: x, after: null });
   return out;
 }
 
 function count(list: readonly ItemDiff<unknown>[]): Record<Exclude<Change, 'unchanged'>, number> {
-  return { added: list.filter((d) => d.change === 'added').length, removed: list.filter((d) => d.change === 'removed').length,
-    changed: list.filter((d) => d.change === 'changed').length };
+  return {
+    added: list.filter((d) => d.change === 'added').length,
+    removed: list.filter((d) => d.change === 'removed').length,
+    changed: list.filter((d) => d.change === 'changed').length,
+  };
 }
 
 /**
@@ -69,16 +84,38 @@ function count(list: readonly ItemDiff<unknown>[]): Record<Exclude<Change, 'unch
  * names the clauses of `b` (or `a`, if removed) whose check or measure uses it.
  */
 export function diffRuleSets(a: RuleSet, b: RuleSet): RuleSetDiff {
-  const parameters = diffList(a.parameters, b.parameters, (p) => p.name, ['label', 'value', 'unit', 'origin']).map((d) => ({
-    ...d, usedBy: (d.after ? b : a).clauses.filter((c) => clauseParameters(c).includes(d.key)).map((c) => c.id),
-  }));
-  const clauses = diffList(a.clauses, b.clauses, (c) => c.id, ['title', 'text', 'severity', 'scope', 'applicability', 'check', 'measure', 'materialScope']);
+  const parameters = diffList(a.parameters, b.parameters, (p) => p.name, ['label', 'value', 'unit', 'origin']).map(
+    (d) => ({
+      ...d,
+      usedBy: (d.after ? b : a).clauses.filter((c) => clauseParameters(c).includes(d.key)).map((c) => c.id),
+    }),
+  );
+  const clauses = diffList(a.clauses, b.clauses, (c) => c.id, [
+    'title',
+    'text',
+    'severity',
+    'scope',
+    'applicability',
+    'check',
+    'measure',
+    'materialScope',
+  ]);
   const manualItems = diffList(a.manualItems, b.manualItems, (m) => m.id, ['text', 'requiresAttachment']);
   return {
-    from: { code: a.code, version: a.version }, to: { code: b.code, version: b.version },
+    from: { code: a.code, version: a.version },
+    to: { code: b.code, version: b.version },
     identity: fieldChanges(a, b, ['code', 'title', 'version', 'status', 'effectiveDate', 'changeSummary', 'scope']),
-    methods: fieldChanges(a.methods, b.methods, ['filletKts', 'filletKt', 'surfaceTable', 'kfOnMidrange', 'fatigueCriterion', 'reliability']),
-    parameters, clauses, manualItems,
+    methods: fieldChanges(a.methods, b.methods, [
+      'filletKts',
+      'filletKt',
+      'surfaceTable',
+      'kfOnMidrange',
+      'fatigueCriterion',
+      'reliability',
+    ]),
+    parameters,
+    clauses,
+    manualItems,
     counts: { parameters: count(parameters), clauses: count(clauses), manualItems: count(manualItems) },
   };
 }

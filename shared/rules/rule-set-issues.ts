@@ -26,14 +26,17 @@ function describe(v: unknown): string {
  * recognised the fields present. Ties go to the branch with fewer issues.
  */
 function distance(branch: readonly core.$ZodIssue[]): number {
-  if (branch.some((i) => i.path.length === 0 && (i.code === 'unrecognized_keys' || i.code === 'invalid_type'))) return 2;
+  if (branch.some((i) => i.path.length === 0 && (i.code === 'unrecognized_keys' || i.code === 'invalid_type')))
+    return 2;
   return branch.every((i) => i.code === 'invalid_type' && i.input === undefined) ? 1 : 0;
 }
 
 function meantBranch(issue: core.$ZodIssueInvalidUnion): readonly core.$ZodIssue[] | null {
   const input = (issue as { input?: unknown }).input;
   if (input && typeof input === 'object' && Object.keys(input).length === 0) return null;
-  const ranked = issue.errors.map((b) => [distance(b), b.length, b] as const).sort((a, b) => a[0] - b[0] || a[1] - b[1]);
+  const ranked = issue.errors
+    .map((b) => [distance(b), b.length, b] as const)
+    .sort((a, b) => a[0] - b[0] || a[1] - b[1]);
   return ranked.length && ranked[0][0] < 2 ? ranked[0][2] : null;
 }
 
@@ -46,21 +49,29 @@ function unionMessage(path: readonly PropertyKey[]): string {
 function single(issue: core.$ZodIssue, path: PropertyKey[]): string {
   switch (issue.code) {
     case 'invalid_type':
-      return issue.input === undefined ? `is missing (expected ${issue.expected})` : `must be ${issue.expected === 'int' ? 'an integer' : `a ${issue.expected}`}, got ${describe(issue.input)}`;
+      return issue.input === undefined
+        ? `is missing (expected ${issue.expected})`
+        : `must be ${issue.expected === 'int' ? 'an integer' : `a ${issue.expected}`}, got ${describe(issue.input)}`;
     case 'invalid_value':
       return `must be one of ${issue.values.map((v) => JSON.stringify(v)).join(', ')}, got ${describe(issue.input)}`;
-    case 'too_small': case 'too_big': {
+    case 'too_small':
+    case 'too_big': {
       const small = issue.code === 'too_small';
       const what = issue.origin === 'array' ? ' entries' : issue.origin === 'string' ? ' characters' : '';
       return `must have ${small ? 'at least' : 'at most'} ${String(small ? issue.minimum : issue.maximum)}${what}`;
     }
-    case 'invalid_format': return issue.format === 'regex' ? issue.message : `must be a valid ${issue.format}, got ${describe(issue.input)}`;
-    default: return `${issue.message} (${formatPath(path)})`;
+    case 'invalid_format':
+      return issue.format === 'regex' ? issue.message : `must be a valid ${issue.format}, got ${describe(issue.input)}`;
+    default:
+      return `${issue.message} (${formatPath(path)})`;
   }
 }
 
 /** zod issues as `{ path, message }`; for a union, only the branch the author evidently meant. */
-export function toRuleSetIssues(issues: readonly core.$ZodIssue[], prefix: readonly PropertyKey[] = []): RuleSetIssue[] {
+export function toRuleSetIssues(
+  issues: readonly core.$ZodIssue[],
+  prefix: readonly PropertyKey[] = [],
+): RuleSetIssue[] {
   const out: RuleSetIssue[] = [];
   for (const issue of issues) {
     const path = [...prefix, ...issue.path];
@@ -68,9 +79,15 @@ export function toRuleSetIssues(issues: readonly core.$ZodIssue[], prefix: reado
       for (const key of issue.keys) out.push({ path: formatPath([...path, key]), message: `unknown field "${key}"` });
     } else if (issue.code === 'invalid_union' && issue.errors.length > 0) {
       const meant = meantBranch(issue);
-      const isMissing = issue.errors.every((b) => b.every((i) => i.path.length === 0 && i.code === 'invalid_type' && i.input === undefined));
+      const isMissing = issue.errors.every((b) =>
+        b.every((i) => i.path.length === 0 && i.code === 'invalid_type' && i.input === undefined),
+      );
       if (meant) out.push(...toRuleSetIssues(meant, path));
-      else out.push({ path: formatPath(path), message: isMissing ? `is missing; it ${unionMessage(path)}` : unionMessage(path) });
+      else
+        out.push({
+          path: formatPath(path),
+          message: isMissing ? `is missing; it ${unionMessage(path)}` : unionMessage(path),
+        });
     } else {
       out.push({ path: formatPath(path), message: single(issue, path) });
     }

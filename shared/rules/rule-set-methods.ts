@@ -39,8 +39,14 @@ function filletIssue(index: number, what: 'Kt' | 'Kts', method: string, wanted: 
   if (method.startsWith('entered by the author')) return null;
   const ok = wanted === 'author' ? false : new RegExp(wanted, 'i').test(method);
   if (ok) return null;
-  const need = wanted === 'author' ? 'a chart value entered by the author' : `the ${wanted === 'peterson' ? 'Peterson' : 'Norton'} fit`;
-  return { path: `features[${index}].${what}`, message: `the rule set requires ${need} for ${what} at shoulder fillets; the engine used: ${method}` };
+  const need =
+    wanted === 'author'
+      ? 'a chart value entered by the author'
+      : `the ${wanted === 'peterson' ? 'Peterson' : 'Norton'} fit`;
+  return {
+    path: `features[${index}].${what}`,
+    message: `the rule set requires ${need} for ${what} at shoulder fillets; the engine used: ${method}`,
+  };
 }
 
 function fatigueIssues(input: CalcInput, m: RuleSetMethods): MethodIssue[] {
@@ -48,26 +54,48 @@ function fatigueIssues(input: CalcInput, m: RuleSetMethods): MethodIssue[] {
   if (!f) return [];
   const out: MethodIssue[] = [];
   const hint = 'evaluate the calc after applyRuleSetMethods';
-  if ((f.surfaceTable ?? '9th-10th') !== m.surfaceTable) out.push({ path: 'fatigue.surfaceTable', message: `the calc used Table 6-2 ${f.surfaceTable ?? '9th-10th'}, the rule set requires ${m.surfaceTable}; ${hint}` });
-  if ((f.kfOnMidrange ?? true) !== m.kfOnMidrange) out.push({ path: 'fatigue.kfOnMidrange', message: `the rule set requires kfOnMidrange ${m.kfOnMidrange}; ${hint}` });
+  if ((f.surfaceTable ?? '9th-10th') !== m.surfaceTable)
+    out.push({
+      path: 'fatigue.surfaceTable',
+      message: `the calc used Table 6-2 ${f.surfaceTable ?? '9th-10th'}, the rule set requires ${m.surfaceTable}; ${hint}`,
+    });
+  if ((f.kfOnMidrange ?? true) !== m.kfOnMidrange)
+    out.push({
+      path: 'fatigue.kfOnMidrange',
+      message: `the rule set requires kfOnMidrange ${m.kfOnMidrange}; ${hint}`,
+    });
   if (m.reliability !== undefined && (f.reliability ?? 50) !== m.reliability) {
-    out.push({ path: 'fatigue.reliability', message: `the rule set requires ${m.reliability} % reliability, the calc used ${f.reliability ?? 50} %; ${hint}` });
+    out.push({
+      path: 'fatigue.reliability',
+      message: `the rule set requires ${m.reliability} % reliability, the calc used ${f.reliability ?? 50} %; ${hint}`,
+    });
   }
   return out;
 }
 
 /** Which methods the evaluation used, and where they differ from the rule set's choices. */
-export function methodsUsed(input: CalcInput, result: CalcResult, ruleSet: RuleSet): { used: MethodsUsed; issues: MethodIssue[] } {
+export function methodsUsed(
+  input: CalcInput,
+  result: CalcResult,
+  ruleSet: RuleSet,
+): { used: MethodsUsed; issues: MethodIssue[] } {
   const m = ruleSet.methods;
   const f = input.fatigue;
-  const fillets = result.features.filter((x) => x.type === 'shoulder-fillet').map((x) => ({ index: x.index, Kt: x.method.Kt, Kts: x.method.Kts }));
+  const fillets = result.features
+    .filter((x) => x.type === 'shoulder-fillet')
+    .map((x) => ({ index: x.index, Kt: x.method.Kt, Kts: x.method.Kts }));
   const issues = fatigueIssues(input, m);
   for (const x of fillets) {
-    for (const issue of [filletIssue(x.index, 'Kt', x.Kt, m.filletKt), filletIssue(x.index, 'Kts', x.Kts, m.filletKts)]) if (issue) issues.push(issue);
+    for (const issue of [filletIssue(x.index, 'Kt', x.Kt, m.filletKt), filletIssue(x.index, 'Kts', x.Kts, m.filletKts)])
+      if (issue) issues.push(issue);
   }
   const used: MethodsUsed = {
-    requested: m, surfaceTable: f ? f.surfaceTable ?? '9th-10th' : null, kfOnMidrange: f ? f.kfOnMidrange ?? true : null,
-    reliability: f ? f.reliability ?? 50 : null, fatigueCriterion: m.fatigueCriterion, fillets,
+    requested: m,
+    surfaceTable: f ? (f.surfaceTable ?? '9th-10th') : null,
+    kfOnMidrange: f ? (f.kfOnMidrange ?? true) : null,
+    reliability: f ? (f.reliability ?? 50) : null,
+    fatigueCriterion: m.fatigueCriterion,
+    fillets,
   };
   return { used, issues };
 }

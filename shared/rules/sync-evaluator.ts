@@ -52,7 +52,10 @@ function factValue(name: string, path: string | undefined, facts: Facts, params:
 function compileFact(c: FactCondition): Compiled {
   const op = has(OPS, c.operator) ? OPS[c.operator] : undefined;
   const { fact, path, value } = c;
-  if (!op) return () => { throw new Error(`Unknown operator: ${c.operator}`); };
+  if (!op)
+    return () => {
+      throw new Error(`Unknown operator: ${c.operator}`);
+    };
   if (isFactRef(value)) {
     return (facts, params) => {
       const right = factValue(value.fact, value.path, facts, params);

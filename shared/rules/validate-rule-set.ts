@@ -6,7 +6,13 @@ import { ruleSetSchema, type Clause, type Parameter, type RuleSet } from './rule
 
 export type RuleSetValidation = { ok: true; value: RuleSet } | { ok: false; issues: RuleSetIssue[] };
 
-function duplicates<T>(list: readonly T[], key: (x: T) => string, at: (i: number) => string, what: string, out: RuleSetIssue[]): void {
+function duplicates<T>(
+  list: readonly T[],
+  key: (x: T) => string,
+  at: (i: number) => string,
+  what: string,
+  out: RuleSetIssue[],
+): void {
   const first = new Map<string, number>();
   list.forEach((x, i) => {
     const k = key(x);
@@ -18,8 +24,13 @@ function duplicates<T>(list: readonly T[], key: (x: T) => string, at: (i: number
 
 function checkParameters(params: readonly Parameter[], out: RuleSetIssue[]): void {
   params.forEach((p, i) => {
-    if (typeof p.value === 'number' && !p.unit) out.push({ path: `parameters[${i}].unit`, message: `numeric parameter "${p.name}" needs its SI unit ("1" if dimensionless)` });
-    if (typeof p.value !== 'number' && p.unit) out.push({ path: `parameters[${i}].unit`, message: `parameter "${p.name}" is not a number and takes no unit` });
+    if (typeof p.value === 'number' && !p.unit)
+      out.push({
+        path: `parameters[${i}].unit`,
+        message: `numeric parameter "${p.name}" needs its SI unit ("1" if dimensionless)`,
+      });
+    if (typeof p.value !== 'number' && p.unit)
+      out.push({ path: `parameters[${i}].unit`, message: `parameter "${p.name}" is not a number and takes no unit` });
   });
 }
 
@@ -28,7 +39,8 @@ function paramsIn(c: Condition | TopCondition, out: Set<string>): Set<string> {
   else if ('any' in c) c.any.forEach((x) => paramsIn(x, out));
   else if ('not' in c) paramsIn(c.not, out);
   else if (isFactCondition(c)) {
-    for (const name of [c.fact, isFactRef(c.value) ? c.value.fact : '']) if (name.startsWith(PARAM_PREFIX)) out.add(name.slice(PARAM_PREFIX.length));
+    for (const name of [c.fact, isFactRef(c.value) ? c.value.fact : ''])
+      if (name.startsWith(PARAM_PREFIX)) out.add(name.slice(PARAM_PREFIX.length));
   }
   return out;
 }
@@ -46,16 +58,37 @@ function checkOrigins(clause: Clause, i: number, params: ReadonlyMap<string, Par
   for (const name of clauseParameters(clause)) {
     const p = params.get(name);
     if (p && typeof p.value === 'number' && !text.includes(p.origin.toLowerCase())) {
-      out.push({ path: `clauses[${i}].text`, message: `name the origin of parameter "${name}" in the clause text: "${p.origin}"` });
+      out.push({
+        path: `clauses[${i}].text`,
+        message: `name the origin of parameter "${name}" in the clause text: "${p.origin}"`,
+      });
     }
   }
 }
 
 function semanticIssues(doc: RuleSet): RuleSetIssue[] {
   const out: RuleSetIssue[] = [];
-  duplicates(doc.parameters, (p) => p.name, (i) => `parameters[${i}].name`, 'parameter', out);
-  duplicates(doc.clauses, (c) => c.id, (i) => `clauses[${i}].id`, 'clause id', out);
-  duplicates(doc.manualItems, (m) => m.id, (i) => `manualItems[${i}].id`, 'manual item id', out);
+  duplicates(
+    doc.parameters,
+    (p) => p.name,
+    (i) => `parameters[${i}].name`,
+    'parameter',
+    out,
+  );
+  duplicates(
+    doc.clauses,
+    (c) => c.id,
+    (i) => `clauses[${i}].id`,
+    'clause id',
+    out,
+  );
+  duplicates(
+    doc.manualItems,
+    (m) => m.id,
+    (i) => `manualItems[${i}].id`,
+    'manual item id',
+    out,
+  );
   checkParameters(doc.parameters, out);
   if (doc.status !== 'draft' && doc.effectiveDate === null) {
     out.push({ path: 'effectiveDate', message: `a rule set with status ${doc.status} needs its effective date` });

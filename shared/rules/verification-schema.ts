@@ -6,7 +6,12 @@ import { z } from 'zod';
  * for every calc under the standard or only above a duty level. Tolerances say how close the two
  * models must be: inputs compared after unit conversion, results relative to the larger value.
  */
-const relative = (what: string) => z.number().min(0).max(0.5).meta({ description: `${what}, as a fraction (0.02 = 2 %)` });
+const relative = (what: string) =>
+  z
+    .number()
+    .min(0)
+    .max(0.5)
+    .meta({ description: `${what}, as a fraction (0.02 = 2 %)` });
 
 export const modelScopeSchema = z.discriminatedUnion('kind', [
   z.strictObject({ kind: z.literal('all').meta({ description: 'Every calc under this standard' }) }),
@@ -16,17 +21,24 @@ export const modelScopeSchema = z.discriminatedUnion('kind', [
   }),
 ]);
 
-export const verificationSchema = z.strictObject({
-  method: z.literal('independent-model')
-    .meta({ description: 'The checker verifies by an independent model (alternate calculation), not by review alone' }),
-  scope: modelScopeSchema,
-  tolerances: z.strictObject({
-    inputs: relative('Largest relative difference for two inputs to count as equal after unit conversion'),
-    results: relative('Largest relative difference between the two models\' results'),
-  }),
-  origin: z.string().trim().min(1).max(300)
-    .meta({ description: 'Where the requirement comes from: a published practice or "house choice"' }),
-}).meta({ description: 'How calcs under this standard are verified; absent: by review alone' });
+export const verificationSchema = z
+  .strictObject({
+    method: z.literal('independent-model').meta({
+      description: 'The checker verifies by an independent model (alternate calculation), not by review alone',
+    }),
+    scope: modelScopeSchema,
+    tolerances: z.strictObject({
+      inputs: relative('Largest relative difference for two inputs to count as equal after unit conversion'),
+      results: relative("Largest relative difference between the two models' results"),
+    }),
+    origin: z
+      .string()
+      .trim()
+      .min(1)
+      .max(300)
+      .meta({ description: 'Where the requirement comes from: a published practice or "house choice"' }),
+  })
+  .meta({ description: 'How calcs under this standard are verified; absent: by review alone' });
 
 export type Verification = z.infer<typeof verificationSchema>;
 export type ModelScope = z.infer<typeof modelScopeSchema>;

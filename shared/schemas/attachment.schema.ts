@@ -11,10 +11,12 @@ export const ATTACHMENT_KIND_LABELS: Record<AttachmentKind, string> = {
 };
 
 /** The text fields sent with an upload (multipart form fields beside `file`). */
-export const uploadFieldsSchema = z.object({
-  kind: z.enum(ATTACHMENT_KINDS, { error: `must be one of ${ATTACHMENT_KINDS.join(', ')}` }),
-  note: z.string().trim().max(500, 'is at most 500 characters').default(''),
-}).strict();
+export const uploadFieldsSchema = z
+  .object({
+    kind: z.enum(ATTACHMENT_KINDS, { error: `must be one of ${ATTACHMENT_KINDS.join(', ')}` }),
+    note: z.string().trim().max(500, 'is at most 500 characters').default(''),
+  })
+  .strict();
 export type UploadFields = z.infer<typeof uploadFieldsSchema>;
 
 export interface AttachmentDto {

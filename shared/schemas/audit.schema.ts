@@ -4,21 +4,26 @@ import { decimalId, pageQuerySchema } from './common.schema';
 const id = decimalId().optional();
 const day = z.iso.date({ error: 'must be a date (YYYY-MM-DD)' }).optional();
 
-export const auditQuerySchema = pageQuerySchema.extend({
-  entityType: z.string().trim().max(32).optional(),
-  action: z.string().trim().max(64).optional(),
-  projectId: id,
-  calcId: id,
-  userId: id,
-  from: day,
-  to: day,
-  /** Keyset paging: entries older than this id (the last id of the previous page). */
-  after: id,
-}).refine((q) => !q.from || !q.to || q.from <= q.to, { message: 'must not be after "to"', path: ['from'] });
+export const auditQuerySchema = pageQuerySchema
+  .extend({
+    entityType: z.string().trim().max(32).optional(),
+    action: z.string().trim().max(64).optional(),
+    projectId: id,
+    calcId: id,
+    userId: id,
+    from: day,
+    to: day,
+    /** Keyset paging: entries older than this id (the last id of the previous page). */
+    after: id,
+  })
+  .refine((q) => !q.from || !q.to || q.from <= q.to, { message: 'must not be after "to"', path: ['from'] });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;
 
 /** What an audit row is about, as people name it, with a link to open it where there is one. */
-export interface AuditRecordRef { label: string; link: string | null }
+export interface AuditRecordRef {
+  label: string;
+  link: string | null;
+}
 
 export interface AuditEventDto {
   id: number;

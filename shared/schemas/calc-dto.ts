@@ -1,10 +1,17 @@
 import type { RevisionState } from './revision.schema';
 
-export interface PersonRef { id: number; name: string }
+export interface PersonRef {
+  id: number;
+  name: string;
+}
 
 export interface SignatureDto {
-  id: number; printedName: string; role: string; meaning: 'authored' | 'checked' | 'approved';
-  signedAt: string; contentHash: string;
+  id: number;
+  printedName: string;
+  role: string;
+  meaning: 'authored' | 'checked' | 'approved';
+  signedAt: string;
+  contentHash: string;
   /** False once the revision's content no longer hashes to what was signed. */
   isValid: boolean;
   /** 1 = made before attachments were signed (covers none); 2 = covers `attachments`. */
@@ -14,28 +21,58 @@ export interface SignatureDto {
 }
 
 /** An attachment as a signature covers it (name, kind, size, SHA-256). */
-export interface SignedAttachmentDto { name: string; kind: string; sizeBytes: number; sha256: string }
-
-export interface FindingDto {
-  id: number; clauseRef: string | null; anchorPath: string | null; text: string; status: 'open' | 'answered' | 'closed';
-  raisedBy: PersonRef; createdAt: string;
-  answer: string | null; answeredBy: PersonRef | null; answeredAt: string | null;
-  closedBy: PersonRef | null; closedAt: string | null;
+export interface SignedAttachmentDto {
+  name: string;
+  kind: string;
+  sizeBytes: number;
+  sha256: string;
 }
 
-export interface ManualItemState { done: boolean; note: string; by: string | null; at: string | null }
+export interface FindingDto {
+  id: number;
+  clauseRef: string | null;
+  anchorPath: string | null;
+  text: string;
+  status: 'open' | 'answered' | 'closed';
+  raisedBy: PersonRef;
+  createdAt: string;
+  answer: string | null;
+  answeredBy: PersonRef | null;
+  answeredAt: string | null;
+  closedBy: PersonRef | null;
+  closedAt: string | null;
+}
 
-export interface InputIssue { path: string; message: string }
+export interface ManualItemState {
+  done: boolean;
+  note: string;
+  by: string | null;
+  at: string | null;
+}
+
+export interface InputIssue {
+  path: string;
+  message: string;
+}
 
 export interface RevisionSummary {
-  id: number; seq: number; label: string; status: RevisionState; verdict: string | null;
-  author: PersonRef; checker: PersonRef | null; approver: PersonRef | null;
+  id: number;
+  seq: number;
+  label: string;
+  status: RevisionState;
+  verdict: string | null;
+  author: PersonRef;
+  checker: PersonRef | null;
+  approver: PersonRef | null;
   ruleSet: { id: number; code: string; version: number; title: string };
-  reasonForChange: string; updatedAt: string; approvedAt: string | null;
+  reasonForChange: string;
+  updatedAt: string;
+  approvedAt: string | null;
 }
 
 export interface RevisionDto extends RevisionSummary {
-  calcId: number; lockVersion: number;
+  calcId: number;
+  lockVersion: number;
   input: Record<string, unknown>;
   result: unknown | null;
   checklist: unknown | null;
@@ -46,7 +83,9 @@ export interface RevisionDto extends RevisionSummary {
   contentFormat: number;
   signatures: SignatureDto[];
   findings: FindingDto[];
-  submittedAt: string | null; checkedAt: string | null; createdAt: string;
+  submittedAt: string | null;
+  checkedAt: string | null;
+  createdAt: string;
   /** People who ever edited this calc: none of them may check or approve it. */
   editorIds: number[];
   /** Review or independent model, and the model's state (shared/schemas/independent-model.schema.ts). */
@@ -54,22 +93,37 @@ export interface RevisionDto extends RevisionSummary {
 }
 
 export interface CalcDto {
-  id: number; projectId: number; projectCode: string; projectName: string;
+  id: number;
+  projectId: number;
+  projectCode: string;
+  projectName: string;
   /** The project is archived: the calc is a closed, read-only record. */
   projectArchived: boolean;
-  number: string; title: string; partRef: string; createdAt: string;
+  number: string;
+  title: string;
+  partRef: string;
+  createdAt: string;
   latest: RevisionSummary;
   revisions: RevisionSummary[];
 }
 
 /** One row of a calc list, read from the summary columns kept on the calc (never the revision texts). */
 export interface CalcListItem {
-  id: number; projectId: number; projectCode: string;
-  number: string; title: string; partRef: string;
+  id: number;
+  projectId: number;
+  projectCode: string;
+  number: string;
+  title: string;
+  partRef: string;
   /** The project is archived: lists mark the calc as a closed, read-only record. */
   projectArchived: boolean;
   latest: {
-    id: number; label: string; status: RevisionState; verdict: string | null;
-    author: PersonRef; ruleSet: { id: number; code: string; version: number }; updatedAt: string;
+    id: number;
+    label: string;
+    status: RevisionState;
+    verdict: string | null;
+    author: PersonRef;
+    ruleSet: { id: number; code: string; version: number };
+    updatedAt: string;
   };
 }

@@ -5,8 +5,11 @@ import { jsonValueProblem } from '../json/strict-json';
  * The one parser of record ids in paths and queries: decimal digits only. `Number()` would read
  * `0x10` as 16, `1e3` as 1000 and ` 7` as 7, so the same record would answer to many addresses.
  */
-export const decimalId = (what = 'a number') => z.string({ error: `must be ${what}` })
-  .regex(/^[1-9][0-9]{0,14}$/, `must be ${what}`).transform(Number);
+export const decimalId = (what = 'a number') =>
+  z
+    .string({ error: `must be ${what}` })
+    .regex(/^[1-9][0-9]{0,14}$/, `must be ${what}`)
+    .transform(Number);
 
 /** A numeric route parameter such as `/api/users/:id`; anything else is a 400, not a lookup. */
 export const idParamsSchema = z.object({ id: decimalId() });
@@ -34,11 +37,16 @@ export const jsonDocumentSchema = (maxKb: number, maxDepth: number) =>
   z.record(z.string(), z.unknown(), { error: 'must be a JSON object' }).superRefine((doc, ctx) => {
     const problem = jsonValueProblem(doc, { maxDepth, maxNodes: 100_000 });
     if (problem) ctx.addIssue({ code: 'custom', message: problem.message, path: problem.parts });
-    else if (JSON.stringify(doc).length > maxKb * 1024) ctx.addIssue({ code: 'custom', message: `is larger than ${maxKb} kB` });
+    else if (JSON.stringify(doc).length > maxKb * 1024)
+      ctx.addIssue({ code: 'custom', message: `is larger than ${maxKb} kB` });
   });
 
 /** An opaque keyset cursor: where the next page starts (the sort values and id of the last row shown). */
-export const cursorSchema = z.string().max(600, 'is not a page cursor').regex(/^[A-Za-z0-9_-]+$/, 'is not a page cursor').optional();
+export const cursorSchema = z
+  .string()
+  .max(600, 'is not a page cursor')
+  .regex(/^[A-Za-z0-9_-]+$/, 'is not a page cursor')
+  .optional();
 
 /**
  * A page read by keyset: `after` the last row of the previous page, so page 2,000 costs what page

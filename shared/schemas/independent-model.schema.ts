@@ -4,14 +4,18 @@ import type { VerificationNeed } from '../verification/requirement';
 import type { InputIssue, PersonRef } from './calc-dto';
 
 /** Saving the checker's model: the whole calc input (same format as the author's) and the version read. */
-export const saveModelSchema = z.object({
-  input: z.record(z.string(), z.unknown(), { error: 'must be a calc input object' }),
-  lockVersion: z.number({ error: 'is required' }).int().min(0),
-}).strict();
+export const saveModelSchema = z
+  .object({
+    input: z.record(z.string(), z.unknown(), { error: 'must be a calc input object' }),
+    lockVersion: z.number({ error: 'is required' }).int().min(0),
+  })
+  .strict();
 
-export const lockModelSchema = z.object({
-  lockVersion: z.number({ error: 'is required' }).int().min(0),
-}).strict();
+export const lockModelSchema = z
+  .object({
+    lockVersion: z.number({ error: 'is required' }).int().min(0),
+  })
+  .strict();
 
 export type SaveModelRequest = z.infer<typeof saveModelSchema>;
 
@@ -29,14 +33,22 @@ export interface SignedModel {
 }
 
 export interface IndependentModelDto {
-  id: number; revisionId: number; checker: PersonRef;
+  id: number;
+  revisionId: number;
+  checker: PersonRef;
   state: 'open' | 'locked';
   input: Record<string, unknown>;
-  result: unknown | null; checklist: unknown | null; verdict: string | null;
+  result: unknown | null;
+  checklist: unknown | null;
+  verdict: string | null;
   inputIssues: InputIssue[];
-  lockedAt: string | null; modelHash: string | null; authorHash: string | null;
-  comparison: Comparison | null; agrees: boolean | null;
-  lockVersion: number; updatedAt: string;
+  lockedAt: string | null;
+  modelHash: string | null;
+  authorHash: string | null;
+  comparison: Comparison | null;
+  agrees: boolean | null;
+  lockVersion: number;
+  updatedAt: string;
 }
 
 /**
@@ -47,7 +59,13 @@ export interface IndependentModelDto {
 export interface RevisionVerification {
   need: VerificationNeed;
   blind: boolean;
-  model: { state: 'open' | 'locked'; checker: PersonRef; lockedAt: string | null; agrees: boolean | null; differences: number | null } | null;
+  model: {
+    state: 'open' | 'locked';
+    checker: PersonRef;
+    lockedAt: string | null;
+    agrees: boolean | null;
+    differences: number | null;
+  } | null;
   /** The signed part of a locked model (content format 3); null until locked. */
   signed: SignedModel | null;
 }

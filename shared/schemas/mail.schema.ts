@@ -6,11 +6,27 @@ export const MAIL_EVENTS = ['submitted', 'checked', 'returned', 'approved', 'imp
 export type MailEvent = (typeof MAIL_EVENTS)[number];
 
 export const MAIL_EVENT_INFO: Record<MailEvent, { label: string; description: string; role: Role }> = {
-  submitted: { label: 'Calc ready for check', description: 'An author submitted a calc for independent check.', role: 'checker' },
-  checked: { label: 'Calc ready for approval', description: 'A checker signed a calc as checked and it waits for approval.', role: 'approver' },
-  returned: { label: 'Your calc was returned', description: 'A checker or approver returned your calc with findings to answer.', role: 'author' },
+  submitted: {
+    label: 'Calc ready for check',
+    description: 'An author submitted a calc for independent check.',
+    role: 'checker',
+  },
+  checked: {
+    label: 'Calc ready for approval',
+    description: 'A checker signed a calc as checked and it waits for approval.',
+    role: 'approver',
+  },
+  returned: {
+    label: 'Your calc was returned',
+    description: 'A checker or approver returned your calc with findings to answer.',
+    role: 'author',
+  },
   approved: { label: 'Your calc was approved', description: 'An approver released your calc.', role: 'author' },
-  impact: { label: 'New standard changes approved calcs', description: 'A newly effective design standard changes the verdict of approved calcs.', role: 'compliance' },
+  impact: {
+    label: 'New standard changes approved calcs',
+    description: 'A newly effective design standard changes the verdict of approved calcs.',
+    role: 'compliance',
+  },
 };
 
 export interface MailPreferenceDto {
@@ -22,10 +38,16 @@ export interface MailPreferenceDto {
   appliesToYou: boolean;
 }
 
-export const mailPreferencesSchema = z.object({
-  preferences: z.partialRecord(z.enum(MAIL_EVENTS, { error: 'is not a mail event' }), z.boolean({ error: 'must be true or false' }))
-    .refine((r) => Object.keys(r).length > 0, 'name at least one event'),
-}).strict();
+export const mailPreferencesSchema = z
+  .object({
+    preferences: z
+      .partialRecord(
+        z.enum(MAIL_EVENTS, { error: 'is not a mail event' }),
+        z.boolean({ error: 'must be true or false' }),
+      )
+      .refine((r) => Object.keys(r).length > 0, 'name at least one event'),
+  })
+  .strict();
 export type MailPreferencesRequest = z.infer<typeof mailPreferencesSchema>;
 
 export const SENT_MAIL_STATUSES = ['pending', 'sent', 'failed'] as const;

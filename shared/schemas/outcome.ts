@@ -8,7 +8,12 @@ export interface OutcomeSummary {
   failing: string[];
 }
 
-interface RowLike { clauseId: string; severity: string; status: string; location?: { label?: string } }
+interface RowLike {
+  clauseId: string;
+  severity: string;
+  status: string;
+  location?: { label?: string };
+}
 
 export function outcomeOf(checklist: { verdict: string; rows: RowLike[] } | null): OutcomeSummary {
   if (!checklist) return { verdict: null, failing: [] };

@@ -10,13 +10,21 @@ const code = z
   .max(32, 'is at most 32 characters')
   .regex(/^[A-Z0-9][A-Z0-9-]*$/, 'may use capital letters, digits and dashes');
 
-export const createProjectSchema = z.object({
-  code,
-  name: z.string({ error: 'is required' }).trim().min(3, 'must be at least 3 characters').max(160, 'is at most 160 characters'),
-  client: z.string().trim().max(160, 'is at most 160 characters').default(''),
-  description: z.string().trim().max(2000, 'is at most 2000 characters').default(''),
-  revisionScheme: z.enum(REVISION_SCHEMES, { error: 'must be letters (A, B, C…) or numbers (0, 1, 2…)' }).default('letters'),
-}).strict();
+export const createProjectSchema = z
+  .object({
+    code,
+    name: z
+      .string({ error: 'is required' })
+      .trim()
+      .min(3, 'must be at least 3 characters')
+      .max(160, 'is at most 160 characters'),
+    client: z.string().trim().max(160, 'is at most 160 characters').default(''),
+    description: z.string().trim().max(2000, 'is at most 2000 characters').default(''),
+    revisionScheme: z
+      .enum(REVISION_SCHEMES, { error: 'must be letters (A, B, C…) or numbers (0, 1, 2…)' })
+      .default('letters'),
+  })
+  .strict();
 export type CreateProjectRequest = z.infer<typeof createProjectSchema>;
 
 export const updateProjectSchema = createProjectSchema

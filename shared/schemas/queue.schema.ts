@@ -9,11 +9,21 @@ export type QueueKey = (typeof QUEUES)[number]['key'];
 export const QUEUE_LABELS = Object.fromEntries(QUEUES.map((q) => [q.key, q.label])) as Record<QueueKey, string>;
 
 export interface QueueItem {
-  calcId: number; revisionId: number; projectCode: string; number: string; title: string;
-  revision: string; status: RevisionState; verdict: string | null; authorName: string;
+  calcId: number;
+  revisionId: number;
+  projectCode: string;
+  number: string;
+  title: string;
+  revision: string;
+  status: RevisionState;
+  verdict: string | null;
+  authorName: string;
   /** When the revision entered its current state (last save for drafts). */
   since: string;
 }
 
 /** One page of a queue, oldest first; the first page carries the (capped) count. */
-export interface QueueDto extends KeysetPage<QueueItem> { key: QueueKey; label: string }
+export interface QueueDto extends KeysetPage<QueueItem> {
+  key: QueueKey;
+  label: string;
+}

@@ -43,17 +43,27 @@ const day = (label: string) => z.iso.date({ error: `${label}: must be a date (YY
 export const MAX_PERIOD_DAYS = 3660;
 
 /** One project (or all) and a period of UTC days, both ends included. */
-export const healthQuerySchema = z.object({
-  projectId: decimalId('a project').optional(),
-  from: day('From'),
-  to: day('To'),
-}).refine((q) => q.from <= q.to, { message: 'From: must not be after To', path: ['from'] })
-  .refine((q) => Date.parse(q.to) - Date.parse(q.from) <= MAX_PERIOD_DAYS * 86_400_000,
-    { message: `To: the period may span at most ${MAX_PERIOD_DAYS} days`, path: ['to'] });
+export const healthQuerySchema = z
+  .object({
+    projectId: decimalId('a project').optional(),
+    from: day('From'),
+    to: day('To'),
+  })
+  .refine((q) => q.from <= q.to, { message: 'From: must not be after To', path: ['from'] })
+  .refine((q) => Date.parse(q.to) - Date.parse(q.from) <= MAX_PERIOD_DAYS * 86_400_000, {
+    message: `To: the period may span at most ${MAX_PERIOD_DAYS} days`,
+    path: ['to'],
+  });
 export type HealthQuery = z.infer<typeof healthQuerySchema>;
 
 export const SIGNAL_KEYS = [
-  'quick-check', 'no-findings', 'pairing', 'refusals', 'attachments-after-check', 'replaced-standard', 'verdict-flip',
+  'quick-check',
+  'no-findings',
+  'pairing',
+  'refusals',
+  'attachments-after-check',
+  'replaced-standard',
+  'verdict-flip',
 ] as const;
 export type SignalKey = (typeof SIGNAL_KEYS)[number];
 

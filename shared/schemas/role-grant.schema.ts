@@ -17,16 +17,32 @@ export interface RoleGrantDto {
 }
 
 /** Confirming takes the second person's password, like confirming a standard's version. */
-export const confirmGrantSchema = z.object({
-  password: z.string({ error: 'is required' }).min(1, 'is required').max(256, 'is at most 256 characters'),
-}).strict();
+export const confirmGrantSchema = z
+  .object({
+    password: z.string({ error: 'is required' }).min(1, 'is required').max(256, 'is at most 256 characters'),
+  })
+  .strict();
 
-export const refuseGrantSchema = z.object({
-  reason: z.string({ error: 'is required' }).trim().min(3, 'must be at least 3 characters').max(500, 'is at most 500 characters'),
-}).strict();
+export const refuseGrantSchema = z
+  .object({
+    reason: z
+      .string({ error: 'is required' })
+      .trim()
+      .min(3, 'must be at least 3 characters')
+      .max(500, 'is at most 500 characters'),
+  })
+  .strict();
 
 const person = z.object({ id: z.number(), name: z.string() });
-export const roleGrantListSchema = z.array(z.object({
-  id: z.number(), user: person.extend({ username: z.string() }), role: z.string(), status: z.enum(GRANT_STATUSES),
-  requestedBy: person, requestedAt: z.string(), decidedBy: person.nullable(), decidedAt: z.string().nullable(),
-}));
+export const roleGrantListSchema = z.array(
+  z.object({
+    id: z.number(),
+    user: person.extend({ username: z.string() }),
+    role: z.string(),
+    status: z.enum(GRANT_STATUSES),
+    requestedBy: person,
+    requestedAt: z.string(),
+    decidedBy: person.nullable(),
+    decidedAt: z.string().nullable(),
+  }),
+);

@@ -1,9 +1,14 @@
 import { z } from 'zod';
 
-export const oneTimeCodeSchema = z.string({ error: 'is required' }).trim().regex(/^\d{6}$/, 'must be the 6 digits your authenticator app shows');
+export const oneTimeCodeSchema = z
+  .string({ error: 'is required' })
+  .trim()
+  .regex(/^\d{6}$/, 'must be the 6 digits your authenticator app shows');
 
 export const confirmSecondFactorSchema = z.object({ code: oneTimeCodeSchema }).strict();
-export const disableSecondFactorSchema = z.object({ password: z.string({ error: 'is required' }).min(1, 'is required') }).strict();
+export const disableSecondFactorSchema = z
+  .object({ password: z.string({ error: 'is required' }).min(1, 'is required') })
+  .strict();
 
 export interface SecondFactorStatus {
   enrolled: boolean;

@@ -17,6 +17,13 @@ export const sessionIdParamsSchema = z.object({
 });
 
 const iso = z.string().min(1);
-export const activeSessionsSchema = z.array(z.object({
-  id: z.string(), startedAt: iso, lastSeenAt: iso, ip: z.string().nullable(), userAgent: z.string().nullable(), current: z.boolean(),
-}));
+export const activeSessionsSchema = z.array(
+  z.object({
+    id: z.string(),
+    startedAt: iso,
+    lastSeenAt: iso,
+    ip: z.string().nullable(),
+    userAgent: z.string().nullable(),
+    current: z.boolean(),
+  }),
+);

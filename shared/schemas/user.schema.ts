@@ -6,23 +6,42 @@ const username = z
   .trim()
   .min(3, 'must be at least 3 characters')
   .max(64, 'is at most 64 characters')
-  .regex(/^[a-z0-9][a-z0-9._-]*$/, 'may use lower-case letters, digits, dot, dash and underscore, starting with a letter or digit');
-const displayName = z.string({ error: 'is required' }).trim().min(2, 'must be at least 2 characters').max(120, 'is at most 120 characters');
+  .regex(
+    /^[a-z0-9][a-z0-9._-]*$/,
+    'may use lower-case letters, digits, dot, dash and underscore, starting with a letter or digit',
+  );
+const displayName = z
+  .string({ error: 'is required' })
+  .trim()
+  .min(2, 'must be at least 2 characters')
+  .max(120, 'is at most 120 characters');
 const email = z.email({ error: 'must be an e-mail address' }).max(190, 'is at most 190 characters');
-const roles = z.array(roleSchema).min(1, 'needs at least one role').max(5).refine((r) => new Set(r).size === r.length, 'lists a role twice');
+const roles = z
+  .array(roleSchema)
+  .min(1, 'needs at least one role')
+  .max(5)
+  .refine((r) => new Set(r).size === r.length, 'lists a role twice');
 
-export const createUserSchema = z.object({
-  username,
-  displayName,
-  email,
-  roles,
-  // The admin sets a first password that the person changes; admins never see it again.
-  initialPassword: newPasswordSchema,
-}).strict();
+export const createUserSchema = z
+  .object({
+    username,
+    displayName,
+    email,
+    roles,
+    // The admin sets a first password that the person changes; admins never see it again.
+    initialPassword: newPasswordSchema,
+  })
+  .strict();
 export type CreateUserRequest = z.infer<typeof createUserSchema>;
 
 export const updateUserSchema = z
-  .object({ displayName, email, roles, secondFactorRequired: z.boolean({ error: 'must be true or false' }), version: z.number().int().min(0) })
+  .object({
+    displayName,
+    email,
+    roles,
+    secondFactorRequired: z.boolean({ error: 'must be true or false' }),
+    version: z.number().int().min(0),
+  })
   .partial({ displayName: true, email: true, roles: true, secondFactorRequired: true })
   .strict();
 export type UpdateUserRequest = z.infer<typeof updateUserSchema>;

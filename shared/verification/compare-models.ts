@@ -10,7 +10,11 @@ const count = (rows: ComparisonRow[]) => ({ compared: rows.length, differences: 
  * The author's model against the checker's independent one, within the standard's tolerances.
  * Pure and deterministic (same rows in the same order), so its hash can be signed.
  */
-export function compareModels(author: { input: CalcInput } & ModelRecord, checker: { input: CalcInput } & ModelRecord, tolerances: Tolerances): Comparison {
+export function compareModels(
+  author: { input: CalcInput } & ModelRecord,
+  checker: { input: CalcInput } & ModelRecord,
+  tolerances: Tolerances,
+): Comparison {
   const inputs = compareInputs(author.input, checker.input, tolerances.inputs);
   const results = compareResults(author, checker, tolerances.results);
   const rows = [...inputs, ...results];
@@ -19,7 +23,8 @@ export function compareModels(author: { input: CalcInput } & ModelRecord, checke
 
 /** The differences as a reviewer reads them: "Segment 3 outer diameter: author 60 mm, checker 62 mm (3.2 %)". */
 export function describeDifference(r: ComparisonRow): string {
-  const show = (v: ComparisonRow['author']) => (v === null ? 'none' : typeof v === 'number' ? `${+v.toPrecision(5)}${r.unit ? ` ${r.unit}` : ''}` : String(v));
+  const show = (v: ComparisonRow['author']) =>
+    v === null ? 'none' : typeof v === 'number' ? `${+v.toPrecision(5)}${r.unit ? ` ${r.unit}` : ''}` : String(v);
   const rel = r.relative === null ? '' : ` (differs by ${+(r.relative * 100).toPrecision(3)} %)`;
   return `${r.label}: author's model ${show(r.author)}, independent model ${show(r.checker)}${rel}`;
 }

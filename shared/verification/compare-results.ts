@@ -5,9 +5,17 @@ import type { CompareValue, ComparisonRow, RowGroup } from './comparison-types';
 import { compareRow } from './row-compare';
 
 /** One model's evaluated record: the engine result and the checklist under the standard. */
-export interface ModelRecord { result: CalcResult; checklist: Checklist }
+export interface ModelRecord {
+  result: CalcResult;
+  checklist: Checklist;
+}
 
-const CRITERIA = [['goodman', 'DE-Goodman'], ['asmeElliptic', 'DE-ASME-elliptic'], ['gerber', 'DE-Gerber'], ['soderberg', 'DE-Soderberg']] as const;
+const CRITERIA = [
+  ['goodman', 'DE-Goodman'],
+  ['asmeElliptic', 'DE-ASME-elliptic'],
+  ['gerber', 'DE-Gerber'],
+  ['soderberg', 'DE-Soderberg'],
+] as const;
 
 const force = (v: number, units: UnitSystem) => (v * BEAM_BASE[units].force) / BEAM_BASE.SI.force;
 
@@ -22,23 +30,60 @@ export function compareResults(a: ModelRecord, b: ModelRecord, tol: number): Com
   const ub = b.result.units;
   const row = (key: string, group: RowGroup, label: string, unit: string, av: CompareValue, bv: CompareValue) =>
     out.push(compareRow({ key: `result.${key}`, section: 'result', group, label, unit }, av, bv, tol));
-  row('maxShear', 'shaft', 'Largest torsional shear stress', 'MPa', toSI(a.result.maxShear.value, 'stress', ua), toSI(b.result.maxShear.value, 'stress', ub));
+  row(
+    'maxShear',
+    'shaft',
+    'Largest torsional shear stress',
+    'MPa',
+    toSI(a.result.maxShear.value, 'stress', ua),
+    toSI(b.result.maxShear.value, 'stress', ub),
+  );
   row('twistTotal', 'shaft', 'Twist end to end', 'deg', Math.abs(a.result.twistTotal), Math.abs(b.result.twistTotal));
-  row('minYieldSafety', 'shaft', 'Lowest yield safety factor', '', a.result.minYieldSafety?.value ?? null, b.result.minYieldSafety?.value ?? null);
+  row(
+    'minYieldSafety',
+    'shaft',
+    'Lowest yield safety factor',
+    '',
+    a.result.minYieldSafety?.value ?? null,
+    b.result.minYieldSafety?.value ?? null,
+  );
   for (const [key, name] of CRITERIA) {
     const av = a.result.minFatigueSafety?.[key]?.value ?? null;
     const bv = b.result.minFatigueSafety?.[key]?.value ?? null;
-    if (av !== null || bv !== null) row(`minFatigueSafety.${key}`, 'shaft', `Lowest fatigue safety factor (${name})`, '', av, bv);
+    if (av !== null || bv !== null)
+      row(`minFatigueSafety.${key}`, 'shaft', `Lowest fatigue safety factor (${name})`, '', av, bv);
   }
   const n = Math.max(a.result.supports.length, b.result.supports.length);
   for (let i = 0; i < n; i++) {
     const sa = a.result.supports[i];
     const sb = b.result.supports[i];
-    row(`supports[${i}].F`, 'reaction', `Bearing ${i + 1} radial reaction`, 'N', sa ? force(sa.F, ua) : null, sb ? force(sb.F, ub) : null);
-    if ((sa?.Fa ?? 0) !== 0 || (sb?.Fa ?? 0) !== 0) row(`supports[${i}].Fa`, 'reaction', `Bearing ${i + 1} axial reaction`, 'N', sa ? force(sa.Fa, ua) : null, sb ? force(sb.Fa, ub) : null);
+    row(
+      `supports[${i}].F`,
+      'reaction',
+      `Bearing ${i + 1} radial reaction`,
+      'N',
+      sa ? force(sa.F, ua) : null,
+      sb ? force(sb.F, ub) : null,
+    );
+    if ((sa?.Fa ?? 0) !== 0 || (sb?.Fa ?? 0) !== 0)
+      row(
+        `supports[${i}].Fa`,
+        'reaction',
+        `Bearing ${i + 1} axial reaction`,
+        'N',
+        sa ? force(sa.Fa, ua) : null,
+        sb ? force(sb.Fa, ub) : null,
+      );
   }
   if (a.result.criticalSpeed || b.result.criticalSpeed) {
-    row('criticalSpeed', 'shaft', 'First critical speed', 'rpm', a.result.criticalSpeed?.rpm ?? null, b.result.criticalSpeed?.rpm ?? null);
+    row(
+      'criticalSpeed',
+      'shaft',
+      'First critical speed',
+      'rpm',
+      a.result.criticalSpeed?.rpm ?? null,
+      b.result.criticalSpeed?.rpm ?? null,
+    );
   }
   row('verdict', 'shaft', 'Verdict under the standard', '', a.checklist.verdict, b.checklist.verdict);
   compareClauses(out, a.checklist, b.checklist, tol);
@@ -58,7 +103,19 @@ function compareClauses(out: ComparisonRow[], a: Checklist, b: Checklist, tol: n
     const rb = theirs.get(key);
     const where = (ra ?? rb)!;
     const place = where.location.index === null ? '' : ` at ${where.location.scope} ${where.location.index + 1}`;
-    out.push(compareRow({ key: `clause.${key}`, section: 'result', group: 'clause', label: `${where.reference}${place}: ${where.clauseTitle}`, unit: '' },
-      ra?.status ?? null, rb?.status ?? null, tol));
+    out.push(
+      compareRow(
+        {
+          key: `clause.${key}`,
+          section: 'result',
+          group: 'clause',
+          label: `${where.reference}${place}: ${where.clauseTitle}`,
+          unit: '',
+        },
+        ra?.status ?? null,
+        rb?.status ?? null,
+        tol,
+      ),
+    );
   }
 }

@@ -3,8 +3,21 @@ import type { Tolerances } from '../rules/verification-schema';
 export type CompareValue = number | string | boolean | null;
 
 /** Where a row sits, so a difference lands on the matching row of the editor, results or checklist. */
-export type RowGroup = 'material' | 'segment' | 'torque' | 'feature' | 'bending' | 'support' | 'load' | 'mass'
-  | 'fatigue' | 'methods' | 'operation' | 'shaft' | 'reaction' | 'clause';
+export type RowGroup =
+  | 'material'
+  | 'segment'
+  | 'torque'
+  | 'feature'
+  | 'bending'
+  | 'support'
+  | 'load'
+  | 'mass'
+  | 'fatigue'
+  | 'methods'
+  | 'operation'
+  | 'shaft'
+  | 'reaction'
+  | 'clause';
 
 /**
  * One compared quantity. Values are in SI display units (mm, N·m, MPa, GPa, N, kN, kg, rpm, deg),

@@ -26,16 +26,33 @@ export function dutyTorque(input: Pick<CalcInput, 'torques' | 'units'>): number 
  * the author's input only (never their results), so telling a blind checker about it leaks nothing
  * they would not see in the duty specification. Input that cannot be read counts as in scope.
  */
-export function verificationNeed(verification: Verification | undefined, code: string, input: unknown): VerificationNeed {
-  if (!verification) return { method: 'review', reason: `${code} asks for review of the calc by an independent checker`, tolerances: null };
+export function verificationNeed(
+  verification: Verification | undefined,
+  code: string,
+  input: unknown,
+): VerificationNeed {
+  if (!verification)
+    return {
+      method: 'review',
+      reason: `${code} asks for review of the calc by an independent checker`,
+      tolerances: null,
+    };
   const t = verification.tolerances;
   const within = `inputs equal within ${percent(t.inputs)} after unit conversion, results within ${percent(t.results)}`;
-  const model = (why: string): VerificationNeed => ({ method: 'independent-model', reason: `${code} asks for an independent model ${why}: ${within}`, tolerances: t });
+  const model = (why: string): VerificationNeed => ({
+    method: 'independent-model',
+    reason: `${code} asks for an independent model ${why}: ${within}`,
+    tolerances: t,
+  });
   if (verification.scope.kind === 'all') return model('for every calc');
   const level = verification.scope.value;
   const duty = readableDuty(input);
   if (duty === null || duty >= level) return model(`for calcs with a torque of ${level} N·m or more`);
-  return { method: 'review', reason: `${code} asks for an independent model only from ${level} N·m; this calc's largest torque is below it, so review applies`, tolerances: null };
+  return {
+    method: 'review',
+    reason: `${code} asks for an independent model only from ${level} N·m; this calc's largest torque is below it, so review applies`,
+    tolerances: null,
+  };
 }
 
 function readableDuty(input: unknown): number | null {

@@ -120,7 +120,10 @@ export const WORKFLOW: Record<RevisionState, StateSpec> = {
   },
 };
 
-/** The dashboard queues, in the order the dashboard shows them: each lists the calcs whose newest revision waits in `state`. */
+/**
+ * The dashboard queues, in the order the dashboard shows them: each lists the calcs whose newest revision waits in
+ * `state`.
+ */
 export const QUEUES = [
   { key: 'my-drafts', state: 'draft', label: 'My drafts' },
   { key: 'returned-to-me', state: 'returned', label: 'Returned to me' },

@@ -13,7 +13,12 @@ export const routes: Routes = [
     canActivate: [signedInGuard],
     loadComponent: () => import('./core/shell/shell'),
     children: [
-      { path: '', pathMatch: 'full', title: 'Overview · Torquetrail', loadComponent: () => import('./features/dashboard/dashboard') },
+      {
+        path: '',
+        pathMatch: 'full',
+        title: 'Overview · Torquetrail',
+        loadComponent: () => import('./features/dashboard/dashboard'),
+      },
       {
         path: 'projects',
         title: 'Projects · Torquetrail',
@@ -50,7 +55,12 @@ export const routes: Routes = [
         canActivate: [abilityGuard('read', 'RuleSet')],
         loadComponent: () => import('./features/rule-sets/rule-set-view'),
       },
-      { path: 'revisions/:id/edit', title: 'Calc editor · Torquetrail', canDeactivate: [(page: { confirmLeave(): boolean | Promise<boolean> }) => page.confirmLeave()], loadComponent: () => import('./features/calcs/editor/revision-editor') },
+      {
+        path: 'revisions/:id/edit',
+        title: 'Calc editor · Torquetrail',
+        canDeactivate: [(page: { confirmLeave(): boolean | Promise<boolean> }) => page.confirmLeave()],
+        loadComponent: () => import('./features/calcs/editor/revision-editor'),
+      },
       {
         path: 'audit',
         title: 'Audit trail · Torquetrail',
@@ -75,15 +85,27 @@ export const routes: Routes = [
         canActivate: [abilityGuard('read', 'RoleGrant')],
         loadComponent: () => import('./features/admin/users/role-grants-page'),
       },
-      { path: 'verify', title: 'Verify a record · Torquetrail', loadComponent: () => import('./features/records/verify-page') },
-      { path: 'verify/:hash', title: 'Verify a record · Torquetrail', loadComponent: () => import('./features/records/verify-page') },
+      {
+        path: 'verify',
+        title: 'Verify a record · Torquetrail',
+        loadComponent: () => import('./features/records/verify-page'),
+      },
+      {
+        path: 'verify/:hash',
+        title: 'Verify a record · Torquetrail',
+        loadComponent: () => import('./features/records/verify-page'),
+      },
       {
         path: 'admin/sent-mail',
         title: 'Sent mail · Torquetrail',
         canActivate: [abilityGuard('read', 'SentMail')],
         loadComponent: () => import('./features/records/sent-mail-page'),
       },
-      { path: 'account', title: 'Your account · Torquetrail', loadComponent: () => import('./features/account/account-page') },
+      {
+        path: 'account',
+        title: 'Your account · Torquetrail',
+        loadComponent: () => import('./features/account/account-page'),
+      },
     ],
   },
   { path: '**', redirectTo: '' },

@@ -2,7 +2,14 @@ import { Component, ErrorHandler } from '@angular/core';
 import { DeferBlockBehavior, TestBed } from '@angular/core/testing';
 import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { Router, RouterOutlet, provideRouter, withComponentInputBinding, type Route, type Routes } from '@angular/router';
+import {
+  Router,
+  RouterOutlet,
+  provideRouter,
+  withComponentInputBinding,
+  type Route,
+  type Routes,
+} from '@angular/router';
 import { PureAbility } from '@casl/ability';
 import { createAppAbility, defineRulesFor } from '../../shared/authz/app-ability';
 import { ROLES } from '../../shared/authz/roles';
@@ -50,7 +57,8 @@ function setUp(): void {
       provideHttpClientTesting(),
       provideRouter(PAGES, withComponentInputBinding()),
       { provide: PureAbility, useValue: createAppAbility(defineRulesFor({ id: 1, roles: [...ROLES] })) },
-      // A read that reaches the app's ErrorHandler (e.g. value() in the error state) is the defect this spec guards against.
+      // A read that reaches the app's ErrorHandler (e.g. value() in the error state) is the defect this spec guards
+      // against.
       { provide: ErrorHandler, useValue: { handleError: (e: unknown) => unexpected.push(e) } },
     ],
   });
@@ -82,21 +90,26 @@ const url = (path: string) => '/' + path.replace(/:(\w+)/g, (_m, name: string) =
 
 describe('every routed page, when its reads fail', () => {
   it('lists the pages (so this spec cannot silently test nothing)', () => {
-    expect(PAGES.map((p) => p.path)).toEqual(expect.arrayContaining(['', 'projects', 'calcs/:id', 'revisions/:id/edit', 'account']));
+    expect(PAGES.map((p) => p.path)).toEqual(
+      expect.arrayContaining(['', 'projects', 'calcs/:id', 'revisions/:id/edit', 'account']),
+    );
   });
 
   describe.each(PAGES.filter((p) => !(p.path! in NO_READS)).map((p) => [p.path!]))('/%s', (path) => {
-    it.each([404, 500])('when the API answers %i, then the page says so inline and nothing reaches the error handler', async (status) => {
-      setUp();
-      const fixture = TestBed.createComponent(Host);
-      await TestBed.inject(Router).navigateByUrl(url(path));
-      const reads = await failEveryRead(status);
-      fixture.detectChanges();
-      const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
-      expect(reads).toBeGreaterThan(0);
-      expect(text).toMatch(EXPECTED[status]);
-      expect(unexpected).toEqual([]);
-    });
+    it.each([404, 500])(
+      'when the API answers %i, then the page says so inline and nothing reaches the error handler',
+      async (status) => {
+        setUp();
+        const fixture = TestBed.createComponent(Host);
+        await TestBed.inject(Router).navigateByUrl(url(path));
+        const reads = await failEveryRead(status);
+        fixture.detectChanges();
+        const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
+        expect(reads).toBeGreaterThan(0);
+        expect(text).toMatch(EXPECTED[status]);
+        expect(unexpected).toEqual([]);
+      },
+    );
   });
 
   it.each(Object.keys(NO_READS))('/%s reads nothing when opened', async (path) => {

@@ -9,8 +9,12 @@ import { attachRequiredFiles } from '../support/attachment-harness';
 // done with Enter, Space or typing; axe-core runs on each screen on the way.
 jest.setTimeout(600_000);
 let session: Awaited<ReturnType<typeof startBrowserSession>>;
-beforeAll(async () => { session = await startBrowserSession(); });
-afterAll(async () => { await session?.close(); });
+beforeAll(async () => {
+  session = await startBrowserSession();
+});
+afterAll(async () => {
+  await session?.close();
+});
 
 const server = () => session.baseUrl as unknown as Express;
 const MAX_TABS = 250;
@@ -20,8 +24,10 @@ async function tabTo(page: Page, target: Locator, what: string): Promise<void> {
   await target.first().waitFor();
   for (let i = 0; i < MAX_TABS; i++) {
     await page.keyboard.press('Tab');
-    const focus = await target.first().evaluate((el) => ({ isFocused: el === document.activeElement || el.contains(document.activeElement),
-      isVisible: (document.activeElement as HTMLElement | null)?.matches(':focus-visible') ?? false }));
+    const focus = await target.first().evaluate((el) => ({
+      isFocused: el === document.activeElement || el.contains(document.activeElement),
+      isVisible: (document.activeElement as HTMLElement | null)?.matches(':focus-visible') ?? false,
+    }));
     if (focus.isFocused) {
       expect([what, focus.isVisible]).toEqual([what, true]);
       return;
@@ -67,28 +73,30 @@ describe('the sign-off by keyboard alone', () => {
     const problems: string[] = [];
     const calcUrl = `/calcs/${team.calc.id}`;
 
-    problems.push(...await signInByKeyboard(page, team.author.user.username));
+    problems.push(...(await signInByKeyboard(page, team.author.user.username)));
     await page.goto(calcUrl);
     problems.push(...(await accessibilityViolations(page)).map((v) => `calc (author): ${v}`));
-    problems.push(...await signByKeyboard(page, /Sign and submit for check/, 'submit'));
+    problems.push(...(await signByKeyboard(page, /Sign and submit for check/, 'submit')));
     await page.getByText('In check').first().waitFor();
 
-    problems.push(...await signInByKeyboard(page, team.checker.user.username));
+    problems.push(...(await signInByKeyboard(page, team.checker.user.username)));
     await page.goto(calcUrl);
     for (const item of first.checklist?.manual ?? []) {
-      const box = page.getByRole('checkbox', { name: new RegExp(item.text.slice(0, 20).replace(/[.*+?^${}()|[\]\\]/g, '\\$&')) });
+      const box = page.getByRole('checkbox', {
+        name: new RegExp(item.text.slice(0, 20).replace(/[.*+?^${}()|[\]\\]/g, '\\$&')),
+      });
       await tabTo(page, box, item.text);
       await page.keyboard.press('Space');
       await expectChecked(box);
     }
     problems.push(...(await accessibilityViolations(page)).map((v) => `calc (checker): ${v}`));
-    problems.push(...await signByKeyboard(page, /Sign as checked/, 'check'));
+    problems.push(...(await signByKeyboard(page, /Sign as checked/, 'check')));
     await page.getByText('Waiting for approval by someone other than its checker.').waitFor();
 
-    problems.push(...await signInByKeyboard(page, team.approver.user.username));
+    problems.push(...(await signInByKeyboard(page, team.approver.user.username)));
     await page.goto(calcUrl);
     problems.push(...(await accessibilityViolations(page)).map((v) => `calc (approver): ${v}`));
-    problems.push(...await signByKeyboard(page, /^Approve$/, 'approve'));
+    problems.push(...(await signByKeyboard(page, /^Approve$/, 'approve')));
     await page.getByText('Released.').waitFor();
     await session.screenshot(page, 'keyboard-approved');
 
@@ -99,5 +107,8 @@ describe('the sign-off by keyboard alone', () => {
 
 /** The server's answer, not the click: the box stays ticked only once the tick is stored. */
 async function expectChecked(box: Locator): Promise<void> {
-  await box.first().page().waitForFunction((el) => (el as HTMLInputElement).checked, await box.first().elementHandle());
+  await box
+    .first()
+    .page()
+    .waitForFunction((el) => (el as HTMLInputElement).checked, await box.first().elementHandle());
 }

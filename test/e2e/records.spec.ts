@@ -1,4 +1,3 @@
-import type { Page } from 'playwright-core';
 import { accessibilityViolations } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { createTestUser } from '../support/api-harness';
@@ -16,10 +15,14 @@ describe('records in the browser', () => {
     await suite.signIn(page, author.user.username);
     await page.goto(`/calcs/${calc.id}`);
     await page.getByRole('tab', { name: 'Attachments' }).click();
-    await page.getByLabel('File to attach').setInputFiles({ name: 'DRG-1 sheet 1.pdf', mimeType: 'application/pdf', buffer: pdfBytes(4000) });
+    await page
+      .getByLabel('File to attach')
+      .setInputFiles({ name: 'DRG-1 sheet 1.pdf', mimeType: 'application/pdf', buffer: pdfBytes(4000) });
     await page.getByRole('button', { name: 'Attach', exact: true }).click();
     await page.getByRole('link', { name: 'DRG-1 sheet 1.pdf' }).waitFor();
-    expect(await page.getByRole('link', { name: 'Calc report (PDF)' }).getAttribute('href')).toBe(`/api/revisions/${calc.latest.id}/report.pdf`);
+    expect(await page.getByRole('link', { name: 'Calc report (PDF)' }).getAttribute('href')).toBe(
+      `/api/revisions/${calc.latest.id}/report.pdf`,
+    );
     await suite.session.screenshot(page, 'calc-attachments');
     expect(await accessibilityViolations(page)).toEqual([]);
     await page.close();
@@ -27,13 +30,20 @@ describe('records in the browser', () => {
 
   it('when a reader opens the verify link of an approved calc, then the page says it matches, with its signatures', async () => {
     const team = await calcTeam(suite.server());
-    await advanceTo('approved', { author: team.author.session, checker: team.checker.session, approver: team.approver.session }, team.revisionId);
+    await advanceTo(
+      'approved',
+      { author: team.author.session, checker: team.checker.session, approver: team.approver.session },
+      team.revisionId,
+    );
     const hash = (await revisionOf(team.author.session, team.revisionId)).contentHash;
     const reader = await createTestUser(['admin']);
     const page = await suite.session.context.newPage();
     await suite.signIn(page, reader.username);
     await page.goto(`/verify/${hash}`);
-    await page.getByRole('status').filter({ hasText: 'as stored now; valid signatures: authored, checked, approved' }).waitFor();
+    await page
+      .getByRole('status')
+      .filter({ hasText: 'as stored now; valid signatures: authored, checked, approved' })
+      .waitFor();
     await suite.session.screenshot(page, 'verify-record');
     expect(await accessibilityViolations(page)).toEqual([]);
     await page.close();
@@ -44,11 +54,15 @@ describe('records in the browser', () => {
     const page = await suite.session.context.newPage();
     await suite.signIn(page, user.username);
     await page.goto('/account');
-    const saved = page.waitForResponse((r) => r.url().endsWith('/api/mail/preferences') && r.request().method() === 'PUT');
+    const saved = page.waitForResponse(
+      (r) => r.url().endsWith('/api/mail/preferences') && r.request().method() === 'PUT',
+    );
     await page.getByRole('switch', { name: 'Your calc was approved' }).click();
     await saved;
     await page.reload();
-    expect(await page.getByRole('switch', { name: 'Your calc was approved' }).getAttribute('aria-checked')).toBe('false');
+    expect(await page.getByRole('switch', { name: 'Your calc was approved' }).getAttribute('aria-checked')).toBe(
+      'false',
+    );
     await suite.session.screenshot(page, 'account-mail');
     expect(await accessibilityViolations(page)).toEqual([]);
     await page.close();
@@ -56,12 +70,19 @@ describe('records in the browser', () => {
 
   it('when an admin opens sent mail, then queued hand-over mail is listed and one opens with its body', async () => {
     const team = await calcTeam(suite.server());
-    await advanceTo('in_check', { author: team.author.session, checker: team.checker.session, approver: team.approver.session }, team.revisionId);
+    await advanceTo(
+      'in_check',
+      { author: team.author.session, checker: team.checker.session, approver: team.approver.session },
+      team.revisionId,
+    );
     const admin = await createTestUser(['admin']);
     const page = await suite.session.context.newPage();
     await suite.signIn(page, admin.username);
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Sent mail' }).click();
-    await page.getByRole('button', { name: new RegExp(`Ready for check: ${team.project.code}`) }).first().click();
+    await page
+      .getByRole('button', { name: new RegExp(`Ready for check: ${team.project.code}`) })
+      .first()
+      .click();
     await page.getByText('Open it to check:').first().waitFor();
     await suite.session.screenshot(page, 'sent-mail');
     expect(await accessibilityViolations(page)).toEqual([]);

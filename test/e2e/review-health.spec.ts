@@ -15,7 +15,9 @@ beforeAll(async () => {
   session = await startBrowserSession();
   scenario = await healthScenario(session.baseUrl as unknown as Express);
 });
-afterAll(async () => { await session?.close(); });
+afterAll(async () => {
+  await session?.close();
+});
 
 async function signIn(page: Page, username: string) {
   await session.context.clearCookies();
@@ -45,9 +47,18 @@ it('when compliance opens review health, then every signal reads as a fact with 
     await page.setViewportSize({ width, height: 900 });
     await page.getByRole('heading', { name: 'Short checks for the size of the calc' }).waitFor();
     const { sideways, widest } = await page.evaluate(() => {
-      const inScrollBox = (el: Element) => { for (let p = el.parentElement; p; p = p.parentElement) if (['auto', 'scroll'].includes(getComputedStyle(p).overflowX)) return true; return false; };
-      const wide = Array.from(document.querySelectorAll('body *')).find((el) => el.getBoundingClientRect().right > window.innerWidth + 1 && !inScrollBox(el));
-      return { sideways: document.documentElement.scrollWidth - window.innerWidth, widest: wide ? `${wide.tagName.toLowerCase()}.${Array.from(wide.classList).join('.')}` : '' };
+      const inScrollBox = (el: Element) => {
+        for (let p = el.parentElement; p; p = p.parentElement)
+          if (['auto', 'scroll'].includes(getComputedStyle(p).overflowX)) return true;
+        return false;
+      };
+      const wide = Array.from(document.querySelectorAll('body *')).find(
+        (el) => el.getBoundingClientRect().right > window.innerWidth + 1 && !inScrollBox(el),
+      );
+      return {
+        sideways: document.documentElement.scrollWidth - window.innerWidth,
+        widest: wide ? `${wide.tagName.toLowerCase()}.${Array.from(wide.classList).join('.')}` : '',
+      };
     });
     if (sideways > 1) problems.push(`@${width}: page scrolls sideways by ${sideways}px (${widest})`);
     await session.screenshot(page, `review-health-${width}`);
@@ -68,7 +79,9 @@ it('when a threshold is out of range, then the field says so inline and nothing 
   const field = page.getByLabel('Share of one author’s checks done by one checker (%)');
   await field.fill('120');
   await page.getByRole('button', { name: 'Save thresholds' }).click();
-  await page.getByText('Share of one author’s checks done by one checker (%): enter a whole number from 50 to 100').waitFor();
+  await page
+    .getByText('Share of one author’s checks done by one checker (%): enter a whole number from 50 to 100')
+    .waitFor();
   await page.setViewportSize({ width: 1440, height: 900 });
   await field.scrollIntoViewIfNeeded();
   await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'review-health-threshold-error.png') });
@@ -82,7 +95,10 @@ it('when an evidence link is followed, then the audit list opens filtered to the
   await openReport(page);
   await page.getByRole('link', { name: 'Refused attempts' }).first().click();
   await page.waitForURL(/\/audit\?.*action=revision\.signature_refused/);
-  await page.getByRole('cell', { name: /was refused a signature/ }).first().waitFor();
+  await page
+    .getByRole('cell', { name: /was refused a signature/ })
+    .first()
+    .waitFor();
   await expect(page.getByRole('cell', { name: /was refused a signature/ }).count()).resolves.toBe(3);
   await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'review-health-audit-link.png') });
   await page.close();

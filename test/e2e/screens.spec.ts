@@ -17,12 +17,21 @@ async function layoutOf(page: Page) {
     const nav = document.querySelector('nav[aria-label="Main"]') as HTMLElement | null;
     const org = document.querySelector('.org') as HTMLElement | null;
     // The outermost element sticking out on the right, to name in the failure (inside scroll boxes is fine).
-    const inScrollBox = (el: Element) => { for (let p = el.parentElement; p; p = p.parentElement) if (['auto', 'scroll'].includes(getComputedStyle(p).overflowX)) return true; return false; };
-    const wide = Array.from(document.querySelectorAll('main *')).find((el) => el.getBoundingClientRect().right > window.innerWidth + 1 && !inScrollBox(el));
+    const inScrollBox = (el: Element) => {
+      for (let p = el.parentElement; p; p = p.parentElement)
+        if (['auto', 'scroll'].includes(getComputedStyle(p).overflowX)) return true;
+      return false;
+    };
+    const wide = Array.from(document.querySelectorAll('main *')).find(
+      (el) => el.getBoundingClientRect().right > window.innerWidth + 1 && !inScrollBox(el),
+    );
     return {
       widest: wide ? `${wide.tagName.toLowerCase()}.${Array.from(wide.classList).join('.')}` : '',
       sideways: document.documentElement.scrollWidth - window.innerWidth,
-      navShare: nav && nav.offsetParent !== null ? Math.round((nav.getBoundingClientRect().width / window.innerWidth) * 100) : 0,
+      navShare:
+        nav && nav.offsetParent !== null
+          ? Math.round((nav.getBoundingClientRect().width / window.innerWidth) * 100)
+          : 0,
       orgShown: !!org && org.offsetParent !== null,
     };
   });
@@ -34,8 +43,10 @@ async function visit(page: Page, name: string, ready: () => Promise<unknown>) {
     await page.setViewportSize({ width, height: 900 });
     await ready();
     const layout = await layoutOf(page);
-    if (layout.sideways > 1) problems.push(`${name}@${width}: page scrolls sideways by ${layout.sideways}px (${layout.widest})`);
-    if (width === 390 && (layout.navShare > 0 || layout.orgShown)) problems.push(`${name}@390: menu takes ${layout.navShare}% / organisation shown`);
+    if (layout.sideways > 1)
+      problems.push(`${name}@${width}: page scrolls sideways by ${layout.sideways}px (${layout.widest})`);
+    if (width === 390 && (layout.navShare > 0 || layout.orgShown))
+      problems.push(`${name}@390: menu takes ${layout.navShare}% / organisation shown`);
     if (width === 768 && layout.navShare > 15) problems.push(`${name}@768: menu takes ${layout.navShare}%`);
     await suite.session.screenshot(page, `screens-${name}-${width}`);
     // What a person sees first, without scrolling.
@@ -48,35 +59,65 @@ async function visit(page: Page, name: string, ready: () => Promise<unknown>) {
 describe('screens at desk, tablet and phone widths', () => {
   it('when each screen is opened at 1440, 768 and 390 px, then nothing scrolls sideways, the menu gives way and axe finds nothing serious', async () => {
     const checkerTeam = await calcTeam(suite.server());
-    await advanceTo('in_check', { author: checkerTeam.author.session, checker: checkerTeam.checker.session, approver: checkerTeam.approver.session }, checkerTeam.revisionId);
+    await advanceTo(
+      'in_check',
+      {
+        author: checkerTeam.author.session,
+        checker: checkerTeam.checker.session,
+        approver: checkerTeam.approver.session,
+      },
+      checkerTeam.revisionId,
+    );
     const draft = await calcTeam(suite.server());
     const compliance = await createTestUser(['compliance'], 'e2e-screens-compliance');
     const problems: string[] = [];
     const page = await suite.session.context.newPage();
 
     await suite.signIn(page, draft.author.user.username);
-    problems.push(...await visit(page, 'overview', () => page.getByRole('heading', { name: /Good to see you/ }).waitFor()));
+    problems.push(
+      ...(await visit(page, 'overview', () => page.getByRole('heading', { name: /Good to see you/ }).waitFor())),
+    );
     await page.goto(`/revisions/${draft.revisionId}/edit`);
-    problems.push(...await visit(page, 'editor', () => page.getByText(/Meets|Does not meet/).first().waitFor()));
+    problems.push(
+      ...(await visit(page, 'editor', () =>
+        page
+          .getByText(/Meets|Does not meet/)
+          .first()
+          .waitFor(),
+      )),
+    );
     await page.goto(`/calcs/${draft.calc.id}`);
-    problems.push(...await visit(page, 'calc-draft', () => page.getByRole('button', { name: /Sign and submit/ }).waitFor()));
+    problems.push(
+      ...(await visit(page, 'calc-draft', () => page.getByRole('button', { name: /Sign and submit/ }).waitFor())),
+    );
 
     await suite.signIn(page, checkerTeam.checker.user.username);
     await page.goto(`/calcs/${checkerTeam.calc.id}`);
-    problems.push(...await visit(page, 'calc-checker', () => page.getByRole('checkbox').first().waitFor()));
+    problems.push(...(await visit(page, 'calc-checker', () => page.getByRole('checkbox').first().waitFor())));
     await page.getByRole('tab', { name: /Findings/ }).click();
-    problems.push(...await visit(page, 'findings', () => page.getByLabel('New finding').waitFor()));
+    problems.push(...(await visit(page, 'findings', () => page.getByLabel('New finding').waitFor())));
     await page.getByRole('button', { name: /Sign as checked/ }).click();
-    problems.push(...await visit(page, 'sign-dialog', () => page.getByRole('dialog').getByText(/cannot be signed as checked yet/).waitFor()));
+    problems.push(
+      ...(await visit(page, 'sign-dialog', () =>
+        page
+          .getByRole('dialog')
+          .getByText(/cannot be signed as checked yet/)
+          .waitFor(),
+      )),
+    );
     await page.keyboard.press('Escape');
 
     await suite.signIn(page, compliance.username);
     await page.goto('/audit');
-    problems.push(...await visit(page, 'audit', () => page.getByRole('heading', { name: /Audit/ }).first().waitFor()));
+    problems.push(
+      ...(await visit(page, 'audit', () => page.getByRole('heading', { name: /Audit/ }).first().waitFor())),
+    );
     await page.goto('/rule-sets');
-    problems.push(...await visit(page, 'rule-sets', () => page.getByRole('heading').first().waitFor()));
+    problems.push(...(await visit(page, 'rule-sets', () => page.getByRole('heading').first().waitFor())));
     await page.goto('/verify');
-    problems.push(...await visit(page, 'verify', () => page.getByRole('heading', { name: 'Verify a record' }).waitFor()));
+    problems.push(
+      ...(await visit(page, 'verify', () => page.getByRole('heading', { name: 'Verify a record' }).waitFor())),
+    );
 
     // On a phone the menu opens from the top bar and closes once a page is chosen.
     await page.setViewportSize({ width: 390, height: 900 });

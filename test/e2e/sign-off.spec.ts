@@ -18,7 +18,11 @@ async function attach(page: Page, kind: string, name: string) {
   await page.getByRole('tab', { name: 'Attachments' }).click();
   await page.getByLabel('Kind').click();
   await page.getByRole('option', { name: kind }).click();
-  await page.getByLabel('File to attach').setInputFiles({ name, mimeType: 'application/pdf', buffer: await demoDocument(kind, ['Invented for an end-to-end test']) });
+  await page.getByLabel('File to attach').setInputFiles({
+    name,
+    mimeType: 'application/pdf',
+    buffer: await demoDocument(kind, ['Invented for an end-to-end test']),
+  });
   await page.getByRole('button', { name: 'Attach', exact: true }).click();
   await page.getByRole('link', { name }).waitFor();
 }
@@ -26,7 +30,11 @@ async function attach(page: Page, kind: string, name: string) {
 describe('one calc from draft to approved, by three people', () => {
   it('when author, checker and approver each do their part in the browser, then the calc is approved with three valid signatures', async () => {
     const project = await createTestProject({ name: 'Walkthrough drive' });
-    const [author, checker, approver] = await Promise.all([createTestUser(['author'], 'e2e-author'), createTestUser(['checker'], 'e2e-checker'), createTestUser(['approver'], 'e2e-approver')]);
+    const [author, checker, approver] = await Promise.all([
+      createTestUser(['author'], 'e2e-author'),
+      createTestUser(['checker'], 'e2e-checker'),
+      createTestUser(['approver'], 'e2e-approver'),
+    ]);
 
     // Author: start the calc, attach the documents the standard asks for, sign and submit.
     let page = await suite.signedInPage(author.username);
@@ -41,7 +49,10 @@ describe('one calc from draft to approved, by three people', () => {
     await page.waitForURL(/\/revisions\/\d+\/edit/);
     const revisionId = Number(/revisions\/(\d+)/.exec(page.url())![1]);
     // The editor is ready once the live calc has given its verdict.
-    await page.getByText(/Meets|Does not meet/).first().waitFor();
+    await page
+      .getByText(/Meets|Does not meet/)
+      .first()
+      .waitFor();
     await suite.session.screenshot(page, 'walk-1-editor');
     await page.goto(`/calcs/${(await (await page.request.get(`/api/revisions/${revisionId}`)).json()).calcId}`);
     const calcUrl = page.url();
@@ -59,7 +70,11 @@ describe('one calc from draft to approved, by three people', () => {
       const box = page.getByRole('checkbox', { name: new RegExp(item) });
       await box.check();
       // The tick is a stored record: wait until the server's answer names who ticked it.
-      await page.getByRole('listitem').filter({ has: box }).getByText(/^ticked by /).waitFor();
+      await page
+        .getByRole('listitem')
+        .filter({ has: box })
+        .getByText(/^ticked by /)
+        .waitFor();
     }
     await suite.session.screenshot(page, 'walk-3-checker');
     expect(await accessibilityViolations(page)).toEqual([]);
@@ -76,7 +91,11 @@ describe('one calc from draft to approved, by three people', () => {
 
     const final = await (await page.request.get(`/api/revisions/${revisionId}`)).json();
     expect(final.status).toBe('approved');
-    expect(final.signatures.map((s: { meaning: string; isValid: boolean }) => `${s.meaning}:${s.isValid}`)).toEqual(['authored:true', 'checked:true', 'approved:true']);
+    expect(final.signatures.map((s: { meaning: string; isValid: boolean }) => `${s.meaning}:${s.isValid}`)).toEqual([
+      'authored:true',
+      'checked:true',
+      'approved:true',
+    ]);
     expect(suite.session.outsideRequests).toEqual([]);
   });
 });

@@ -1,8 +1,6 @@
-import type { Page } from 'playwright-core';
 import path from 'node:path';
 import { SCREENSHOT_DIR, accessibilityViolations } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
-import { TEST_PASSWORD } from '../support/api-harness';
 import { calcTeam } from '../support/calc-harness';
 import { wholeShaftInput } from '../support/shaft-fixture';
 
@@ -23,19 +21,37 @@ describe('the whole shaft in the browser', () => {
       await suite.session.screenshot(page, `whole-shaft-editor-${width}`);
       await page.screenshot({ path: path.join(SCREENSHOT_DIR, `whole-shaft-editor-${width}-top.png`) });
       // The parts to look at closely, one picture each (the full page is too tall to read).
-      for (const [part, selector] of [['outline', 'tt-shaft-drawing'], ['bearings', 'tt-supports-panel'], ['forces', 'tt-forces-panel'], ['results', 'tt-shaft-results'], ['deflection', 'tt-plots-panel tt-diagram-chart >> nth=2'], ['slope', 'tt-plots-panel tt-diagram-chart >> nth=3']]) {
-        await page.locator(selector).screenshot({ path: path.join(SCREENSHOT_DIR, `whole-shaft-${part}-${width}.png`) });
+      for (const [part, selector] of [
+        ['outline', 'tt-shaft-drawing'],
+        ['bearings', 'tt-supports-panel'],
+        ['forces', 'tt-forces-panel'],
+        ['results', 'tt-shaft-results'],
+        ['deflection', 'tt-plots-panel tt-diagram-chart >> nth=2'],
+        ['slope', 'tt-plots-panel tt-diagram-chart >> nth=3'],
+      ]) {
+        await page
+          .locator(selector)
+          .screenshot({ path: path.join(SCREENSHOT_DIR, `whole-shaft-${part}-${width}.png`) });
       }
       expect(await accessibilityViolations(page)).toEqual([]);
     }
     // Live: a heavier gear (smaller pitch diameter, same torque) raises the reaction at B1.
-    const before = await page.getByRole('table', { name: 'Bearing reactions and life' }).locator('tbody tr').first().innerText();
+    const before = await page
+      .getByRole('table', { name: 'Bearing reactions and life' })
+      .locator('tbody tr')
+      .first()
+      .innerText();
     await page.locator('[data-path="loads[0].pitchDiameter"]').fill('120');
-    await page.getByRole('table', { name: 'Bearing reactions and life' }).locator('tbody tr').first().filter({ hasNotText: before.split('\t')[4] ?? '' }).waitFor();
+    await page
+      .getByRole('table', { name: 'Bearing reactions and life' })
+      .locator('tbody tr')
+      .first()
+      .filter({ hasNotText: before.split('\t')[4] ?? '' })
+      .waitFor();
     await page.close();
   });
 
-  it('when a reader opens the calc page, then the results tab has the reactions, critical speed and the model\'s assumptions', async () => {
+  it("when a reader opens the calc page, then the results tab has the reactions, critical speed and the model's assumptions", async () => {
     const { author, calc } = await calcTeam(suite.server(), wholeShaftInput());
     const page = await suite.session.context.newPage();
     await page.setViewportSize({ width: 1440, height: 900 });

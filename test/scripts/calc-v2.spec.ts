@@ -15,7 +15,9 @@ describe('calc command with format v2', () => {
     const r = calc([SHAFT]);
     expect(r.status).toBe(0);
     const out = JSON.parse(r.stdout);
-    expect(Object.keys(out.supports[0])).toEqual(expect.arrayContaining(['at', 'Fy', 'Fz', 'F', 'Fa', 'slope', 'L10', 'L10h']));
+    expect(Object.keys(out.supports[0])).toEqual(
+      expect.arrayContaining(['at', 'Fy', 'Fz', 'F', 'Fa', 'slope', 'L10', 'L10h']),
+    );
     expect(Object.keys(out.loads[0])).toEqual(expect.arrayContaining(['at', 'Fy', 'Fz', 'deflection', 'slope']));
     expect(Object.keys(out.deflection)).toEqual(['max', 'at']);
     expect(Object.keys(out.criticalSpeed)).toEqual(expect.arrayContaining(['rpm', 'method', 'ratio']));
@@ -27,7 +29,13 @@ describe('calc command with format v2', () => {
   it('when --format table is asked, then bearings, loads, moments, critical speed and assumptions are printed with the caution', () => {
     const r = calc([SHAFT, '--format', 'table']);
     expect(r.status).toBe(0);
-    for (const heading of ['Bearings (reactions on the shaft, rating life ISO 281)', 'Loads', 'Bending moments (beam model)', 'first critical speed', 'Assumptions:']) {
+    for (const heading of [
+      'Bearings (reactions on the shaft, rating life ISO 281)',
+      'Loads',
+      'Bending moments (beam model)',
+      'first critical speed',
+      'Assumptions:',
+    ]) {
       expect(r.stdout).toContain(heading);
     }
     expect(r.stdout.trim().split('\n').pop()).toMatch(/never replace, the judgement of a qualified engineer/);

@@ -7,7 +7,12 @@ const ROOT = join(__dirname, '..', '..');
 const FIXTURES = 'test/fixtures/calcs';
 
 function calc(args: string[], input?: string) {
-  const r = spawnSync('npx', ['tsx', 'scripts/calc.ts', ...args], { cwd: ROOT, input, encoding: 'utf8', timeout: 60_000 });
+  const r = spawnSync('npx', ['tsx', 'scripts/calc.ts', ...args], {
+    cwd: ROOT,
+    input,
+    encoding: 'utf8',
+    timeout: 60_000,
+  });
   return { status: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
@@ -44,15 +49,22 @@ describe('calc command', () => {
   it('when asked for a table, then it prints aligned columns and the engineering caution', () => {
     const r = calc([`${FIXTURES}/five-segment-fatigue.json`, '--format', 'table']);
     expect(r.status).toBe(0);
-    expect(r.stdout).toMatch(/never replace, the judgement of a qualified engineer; local codes and licensed practice govern/);
+    expect(r.stdout).toMatch(
+      /never replace, the judgement of a qualified engineer; local codes and licensed practice govern/,
+    );
     expect(r.stdout).toMatch(/Segments[\s\S]*Features[\s\S]*keyseat[\s\S]*Whole shaft/);
   });
 
   it('when given a folder, then it evaluates every file and reports each invalid one by name', () => {
     const ok = calc([FIXTURES]);
     expect(ok.status).toBe(0);
-    expect(JSON.parse(ok.stdout).map((o: { file: string }) => o.file)).toEqual(
-      ['five-segment-fatigue.json', 'hollow-si.json', 'solid-si.json', 'stepped-us.json', 'two-bearing-gear-pulley.json']);
+    expect(JSON.parse(ok.stdout).map((o: { file: string }) => o.file)).toEqual([
+      'five-segment-fatigue.json',
+      'hollow-si.json',
+      'solid-si.json',
+      'stepped-us.json',
+      'two-bearing-gear-pulley.json',
+    ]);
     const bad = calc([`${FIXTURES}/invalid`]);
     expect(bad.status).toBe(2);
     expect(bad.stderr).toMatch(/^unbalanced\.json: torques: external torques do not balance/m);
@@ -60,7 +72,10 @@ describe('calc command', () => {
   });
 
   it('when the file does not exist or an option is unknown, then it exits 1 with a one-line message', () => {
-    expect(calc(['no-such.json'])).toMatchObject({ status: 1, stderr: 'cannot read no-such.json: no such file or folder\n' });
+    expect(calc(['no-such.json'])).toMatchObject({
+      status: 1,
+      stderr: 'cannot read no-such.json: no such file or folder\n',
+    });
     expect(calc([`${FIXTURES}/solid-si.json`, '--format', 'xml']).status).toBe(1);
   });
 
@@ -72,7 +87,11 @@ describe('calc command', () => {
     ['torque-huge.json', 'torques[0].T', /torque 1e300 N·m .* 0 or from 1e-6 to 1e10 N·m/],
     ['endurance-tiny.json', 'fatigue.SePrime', /unmodified endurance limit 1e-300 MPa/],
     ['power-near-zero-speed.json', 'torques[0].speed', /speed 1e-300 rpm is outside .* 0.001 to 1e6 rpm/],
-    ['duplicate-units.json', 'units', /the key "units" appears twice in one object \(line 2, column 3 and line 4, column 3\)/],
+    [
+      'duplicate-units.json',
+      'units',
+      /the key "units" appears twice in one object \(line 2, column 3 and line 4, column 3\)/,
+    ],
     ['us-diameter-tiny.json', 'segments[0].od', /outer diameter 1e-90 in/],
   ])('when the input is %s, then it exits 2 naming %s and prints no result', (file, path, message) => {
     const r = calc([`${FIXTURES}/edge-cases/${file}`]);

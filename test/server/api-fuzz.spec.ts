@@ -16,11 +16,48 @@ afterAll(() => sequelize.close());
 
 const RUNS = Number(process.env.FUZZ_RUNS ?? 4);
 
-const FIELDS = ['input', 'lockVersion', 'password', 'meaning', 'idempotencyKey', 'text', 'answer', 'reason', 'reasonForChange', 'done',
-  'note', 'document', 'effectiveDate', 'fromId', 'revisionId', 'projectId', 'number', 'title', 'ruleSetId', 'username', 'displayName',
-  'email', 'roles', 'active', 'version', 'code', 'name', 'status', 'currentPassword', 'newPassword', 'oneTimeCode', 'kind', 'clauseRef'];
+const FIELDS = [
+  'input',
+  'lockVersion',
+  'password',
+  'meaning',
+  'idempotencyKey',
+  'text',
+  'answer',
+  'reason',
+  'reasonForChange',
+  'done',
+  'note',
+  'document',
+  'effectiveDate',
+  'fromId',
+  'revisionId',
+  'projectId',
+  'number',
+  'title',
+  'ruleSetId',
+  'username',
+  'displayName',
+  'email',
+  'roles',
+  'active',
+  'version',
+  'code',
+  'name',
+  'status',
+  'currentPassword',
+  'newPassword',
+  'oneTimeCode',
+  'kind',
+  'clauseRef',
+];
 const oddNumber = fc.constantFrom(1e308, -1e308, 5e-324, 0, -0, 2 ** 53 + 1, -1, 1e200, 0.5);
-const leaf = fc.oneof(fc.jsonValue({ maxDepth: 2 }), oddNumber, fc.string({ unit: 'binary', maxLength: 40 }), fc.constantFrom('\ud800', '', 'x'.repeat(5000)));
+const leaf = fc.oneof(
+  fc.jsonValue({ maxDepth: 2 }),
+  oddNumber,
+  fc.string({ unit: 'binary', maxLength: 40 }),
+  fc.constantFrom('\ud800', '', 'x'.repeat(5000)),
+);
 type Body = { raw: string } | { json: unknown };
 const body: fc.Arbitrary<Body> = fc.oneof(
   fc.dictionary(fc.constantFrom(...FIELDS), leaf, { maxKeys: 6 }).map((json) => ({ json })),
@@ -36,18 +73,30 @@ const HOSTILE: Body[] = [
   { raw: `{"input":${DEEP},"document":${DEEP}}` },
   { raw: '{"text":"\\udc00 finding","reason":"\\ud800 reason","name":"\\ud83d"}' },
   { raw: '{"lockVersion":0,"lockVersion":1}' },
-  { raw: '' }, { raw: 'null' }, { raw: '[]' }, { raw: '{"a":' },
+  { raw: '' },
+  { raw: 'null' },
+  { raw: '[]' },
+  { raw: '{"a":' },
 ];
 
-interface Fixtures { ids: Record<string, number>; userIds: number[]; projectId: number; ruleSetDraftId: number }
+interface Fixtures {
+  ids: Record<string, number>;
+  userIds: number[];
+  projectId: number;
+  ruleSetDraftId: number;
+}
 
-const byId = (rows: object[]) => [...rows].sort((a, b) => Number((a as { id: number }).id) - Number((b as { id: number }).id));
+const byId = (rows: object[]) =>
+  [...rows].sort((a, b) => Number((a as { id: number }).id) - Number((b as { id: number }).id));
 
 /** The stored rows the fixtures own, as one string: equal strings mean nothing changed. */
 async function snapshot(f: Fixtures): Promise<string> {
-  const q = (sql: string, replacements: unknown[]) => sequelize.query(sql, { type: QueryTypes.SELECT, replacements }).catch((e) => {
-    throw new Error(`snapshot query failed: ${sql}: ${e?.name} ${e?.message} ${e?.parent?.code} ${e?.parent?.sqlMessage}`);
-  });
+  const q = (sql: string, replacements: unknown[]) =>
+    sequelize.query(sql, { type: QueryTypes.SELECT, replacements }).catch((e) => {
+      throw new Error(
+        `snapshot query failed: ${sql}: ${e?.name} ${e?.message} ${e?.parent?.code} ${e?.parent?.sqlMessage}`,
+      );
+    });
   const revisionIds = '(SELECT r.id FROM revisions r JOIN calcs c ON c.id = r.calc_id WHERE c.project_id = ?)';
   const parts = await Promise.all([
     q('SELECT * FROM users WHERE id IN (?) ORDER BY id', [f.userIds]),
@@ -62,7 +111,10 @@ async function snapshot(f: Fixtures): Promise<string> {
     q('SELECT * FROM rule_sets WHERE id = ? OR created_by IN (?)', [f.ruleSetDraftId, f.userIds]).then(byId),
     q('SELECT * FROM mail_preferences WHERE user_id IN (?) ORDER BY user_id', [f.userIds]),
     // A refused signature or sign-in is audited on purpose; anything else refused must leave no entry.
-    q("SELECT COUNT(*) AS n, MAX(id) AS last FROM audit_events WHERE actor_id IN (?) AND action NOT LIKE '%refused' AND action NOT LIKE '%failed'", [f.userIds]),
+    q(
+      "SELECT COUNT(*) AS n, MAX(id) AS last FROM audit_events WHERE actor_id IN (?) AND action NOT LIKE '%refused' AND action NOT LIKE '%failed'",
+      [f.userIds],
+    ),
   ]);
   return JSON.stringify(parts);
 }
@@ -74,7 +126,8 @@ function urlOf(route: RouteInfo, f: Fixtures): string {
 }
 
 // Logout ends the fuzzing session: it goes last.
-const ordered = (routes: RouteInfo[]) => [...routes].sort((a, b) => Number(a.path.endsWith('/logout')) - Number(b.path.endsWith('/logout')));
+const ordered = (routes: RouteInfo[]) =>
+  [...routes].sort((a, b) => Number(a.path.endsWith('/logout')) - Number(b.path.endsWith('/logout')));
 
 describe('API fuzz', () => {
   it('when every state-changing route gets malformed bodies, then none answers 5xx, refused ones change nothing, and the audit chain verifies', async () => {
@@ -83,9 +136,16 @@ describe('API fuzz', () => {
     const draft = await fuzzer.session.post('/api/rule-sets', { fromId: await effectiveRuleSetId() });
     expect(draft.status).toBe(201);
     const f: Fixtures = {
-      ids: { users: team.author.user.id, projects: team.project.id, calcs: team.calc.id, revisions: team.revisionId, 'rule-sets': draft.body.id },
+      ids: {
+        users: team.author.user.id,
+        projects: team.project.id,
+        calcs: team.calc.id,
+        revisions: team.revisionId,
+        'rule-sets': draft.body.id,
+      },
       userIds: [fuzzer.user.id, team.author.user.id, team.checker.user.id, team.approver.user.id],
-      projectId: team.project.id, ruleSetDraftId: draft.body.id,
+      projectId: team.project.id,
+      ruleSetDraftId: draft.body.id,
     };
     const routes = ordered(stateChangingRoutes(app));
     expect(routes.length).toBeGreaterThan(25);
@@ -94,11 +154,16 @@ describe('API fuzz', () => {
     let sent = 0;
 
     const send = async (route: RouteInfo, b: Body) => {
-      const req = s.agent[route.method](urlOf(route, f)).set('x-csrf-token', s.csrf).set('Content-Type', 'application/json');
-      const res = await req.send('raw' in b ? b.raw : JSON.stringify(b.json) ?? '');
+      const req = s.agent[route.method](urlOf(route, f))
+        .set('x-csrf-token', s.csrf)
+        .set('Content-Type', 'application/json');
+      const res = await req.send('raw' in b ? b.raw : (JSON.stringify(b.json) ?? ''));
       sent++;
       const what = `${route.method.toUpperCase()} ${route.path} ${JSON.stringify(b).slice(0, 300)}`;
-      expect([what, res.status < 500 ? 'no 5xx' : `${res.status} ${JSON.stringify(res.body)}`]).toEqual([what, 'no 5xx']);
+      expect([what, res.status < 500 ? 'no 5xx' : `${res.status} ${JSON.stringify(res.body)}`]).toEqual([
+        what,
+        'no 5xx',
+      ]);
       const after = await snapshot(f);
       if (res.status >= 400) expect([what, after]).toEqual([what, baseline]);
       baseline = after;
@@ -106,7 +171,10 @@ describe('API fuzz', () => {
 
     for (const route of routes) {
       for (const b of HOSTILE) await send(route, b);
-      await fc.assert(fc.asyncProperty(body, (b) => send(route, b)), { numRuns: RUNS });
+      await fc.assert(
+        fc.asyncProperty(body, (b) => send(route, b)),
+        { numRuns: RUNS },
+      );
     }
     expect(sent).toBeGreaterThanOrEqual(routes.length * HOSTILE.length);
     expect(({} as Record<string, unknown>).polluted).toBeUndefined();

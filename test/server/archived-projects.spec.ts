@@ -2,7 +2,15 @@ import type { Response } from 'supertest';
 import { Op } from 'sequelize';
 import { AuditEvent, Project, Revision } from '../../server/db/models';
 import { startTestApp } from '../support/api-harness';
-import { advanceTo, expectStatus, fixtureInput, lastAuditId, revisionOf, sign, type Session } from '../support/calc-harness';
+import {
+  advanceTo,
+  expectStatus,
+  fixtureInput,
+  lastAuditId,
+  revisionOf,
+  sign,
+  type Session,
+} from '../support/calc-harness';
 import { findingsTeam, returnedWithFindingOf } from '../support/findings-harness';
 import { pdfBytes, upload } from '../support/upload-harness';
 
@@ -40,7 +48,10 @@ async function expectRefused(write: () => Promise<Response>, reader: Session, re
   const auditBefore = await lastAuditId();
   const res = await write();
   expect(res.status).toBe(409);
-  expect(res.body).toEqual({ code: 'archived', message: expect.stringMatching(/is archived: its calcs are read-only/) });
+  expect(res.body).toEqual({
+    code: 'archived',
+    message: expect.stringMatching(/is archived: its calcs are read-only/),
+  });
   expect(await revisionOf(reader, revisionId)).toEqual(before);
   expect(await auditAbout(revisionId, auditBefore)).toBe(0);
 }
@@ -52,9 +63,17 @@ describe('an archived project is read-only', () => {
     await archiveProjectOf(t.revisionId);
     const a = t.author.session;
 
-    await expectRefused(() => a.put(`/api/revisions/${t.revisionId}`, { input: fixtureInput(), lockVersion }), a, t.revisionId);
+    await expectRefused(
+      () => a.put(`/api/revisions/${t.revisionId}`, { input: fixtureInput(), lockVersion }),
+      a,
+      t.revisionId,
+    );
     await expectRefused(() => sign(a, t.revisionId, 'authored'), a, t.revisionId);
-    await expectRefused(() => a.post(`/api/revisions/${t.revisionId}/withdraw`, { reason: 'No longer needed', lockVersion }), a, t.revisionId);
+    await expectRefused(
+      () => a.post(`/api/revisions/${t.revisionId}/withdraw`, { reason: 'No longer needed', lockVersion }),
+      a,
+      t.revisionId,
+    );
     await expectRefused(() => upload(a, t.revisionId, pdfBytes(), { kind: 'drawing', note: '' }), a, t.revisionId);
   });
 
@@ -66,9 +85,21 @@ describe('an archived project is read-only', () => {
     const c = t.checker.session;
     const item = checklist.manual[0].id as string;
 
-    await expectRefused(() => c.put(`/api/revisions/${t.revisionId}/manual-items/${item}`, { done: true, note: '' }), c, t.revisionId);
-    await expectRefused(() => c.post(`/api/revisions/${t.revisionId}/findings`, { text: 'Name the source of Kt' }), c, t.revisionId);
-    await expectRefused(() => c.post(`/api/revisions/${t.revisionId}/return`, { reason: 'Needs a source', lockVersion }), c, t.revisionId);
+    await expectRefused(
+      () => c.put(`/api/revisions/${t.revisionId}/manual-items/${item}`, { done: true, note: '' }),
+      c,
+      t.revisionId,
+    );
+    await expectRefused(
+      () => c.post(`/api/revisions/${t.revisionId}/findings`, { text: 'Name the source of Kt' }),
+      c,
+      t.revisionId,
+    );
+    await expectRefused(
+      () => c.post(`/api/revisions/${t.revisionId}/return`, { reason: 'Needs a source', lockVersion }),
+      c,
+      t.revisionId,
+    );
     await expectRefused(() => sign(c, t.revisionId, 'checked'), c, t.revisionId);
   });
 
@@ -76,8 +107,16 @@ describe('an archived project is read-only', () => {
     const t = await returnedWithFindingOf(app);
     await archiveProjectOf(t.revisionId);
 
-    await expectRefused(() => t.author.session.post(`/api/findings/${t.findingId}/answer`, { answer: 'Chart added' }), t.author.session, t.revisionId);
-    await expectRefused(() => t.checker.session.post(`/api/findings/${t.findingId}/close`), t.checker.session, t.revisionId);
+    await expectRefused(
+      () => t.author.session.post(`/api/findings/${t.findingId}/answer`, { answer: 'Chart added' }),
+      t.author.session,
+      t.revisionId,
+    );
+    await expectRefused(
+      () => t.checker.session.post(`/api/findings/${t.findingId}/close`),
+      t.checker.session,
+      t.revisionId,
+    );
   });
 
   it('when its calc is checked, then signing as approver is refused', async () => {
@@ -87,13 +126,17 @@ describe('an archived project is read-only', () => {
     await expectRefused(() => sign(t.approver.session, t.revisionId, 'approved'), t.approver.session, t.revisionId);
   });
 
-  it('when an approved calc\'s project is archived, then no new revision can be started', async () => {
+  it("when an approved calc's project is archived, then no new revision can be started", async () => {
     const t = await findingsTeam(app);
     await advanceTo('approved', t.sessions, t.revisionId);
     const { calcId } = await revisionOf(t.author.session, t.revisionId);
     await archiveProjectOf(t.revisionId);
 
-    await expectRefused(() => t.author.session.post(`/api/calcs/${calcId}/revisions`, { reasonForChange: 'Longer keyway' }), t.author.session, t.revisionId);
+    await expectRefused(
+      () => t.author.session.post(`/api/calcs/${calcId}/revisions`, { reasonForChange: 'Longer keyway' }),
+      t.author.session,
+      t.revisionId,
+    );
   });
 
   it('when a project is archived, then its calcs are still readable and lists mark them', async () => {
@@ -104,7 +147,11 @@ describe('an archived project is read-only', () => {
     const calc = expectStatus(await t.author.session.get(`/api/calcs/${calcId}`), 200, 'read calc');
     const list = expectStatus(await t.author.session.get(`/api/calcs?projectId=${calc.body.projectId}`), 200, 'list');
 
-    const files = expectStatus(await t.author.session.get(`/api/revisions/${t.revisionId}/attachments`), 200, 'attachments');
+    const files = expectStatus(
+      await t.author.session.get(`/api/revisions/${t.revisionId}/attachments`),
+      200,
+      'attachments',
+    );
 
     expect(calc.body.projectArchived).toBe(true);
     expect(list.body.items.map((c: { projectArchived: boolean }) => c.projectArchived)).toEqual([true]);

@@ -15,53 +15,105 @@ describe('uploading and downloading', () => {
     const { author, revisionId } = await calcTeam(ctx.app);
     const bytes = pdfBytes(3000);
 
-    const res = await upload(author.session, revisionId, bytes, { kind: 'drawing', note: 'Released sheet 1' }, '../../shaft ø45 "rev B".pdf');
+    const res = await upload(
+      author.session,
+      revisionId,
+      bytes,
+      { kind: 'drawing', note: 'Released sheet 1' },
+      '../../shaft ø45 "rev B".pdf',
+    );
     const file = await author.session.get(`/api/attachments/${res.body.id}`).buffer(true);
     const list = await author.session.get(`/api/revisions/${revisionId}/attachments`);
 
     expect(res.status).toBe(201);
-    expect(res.body).toEqual(expect.objectContaining({ kind: 'drawing', mediaType: 'application/pdf', fileName: 'shaft ø45 rev B.pdf', sizeBytes: 3000,
-      sha256: createHash('sha256').update(bytes).digest('hex') }));
+    expect(res.body).toEqual(
+      expect.objectContaining({
+        kind: 'drawing',
+        mediaType: 'application/pdf',
+        fileName: 'shaft ø45 rev B.pdf',
+        sizeBytes: 3000,
+        sha256: createHash('sha256').update(bytes).digest('hex'),
+      }),
+    );
     expect(file.status).toBe(200);
     expect(Buffer.compare(file.body as Buffer, bytes)).toBe(0);
     expect(file.headers['content-type']).toBe('application/pdf');
-    expect(file.headers['content-disposition']).toMatch(/^attachment; filename="shaft \?45 rev B\.pdf"; filename\*=UTF-8''shaft%20%C3%B845%20rev%20B\.pdf$/);
+    expect(file.headers['content-disposition']).toMatch(
+      /^attachment; filename="shaft \?45 rev B\.pdf"; filename\*=UTF-8''shaft%20%C3%B845%20rev%20B\.pdf$/,
+    );
     expect(file.headers['x-content-type-options']).toBe('nosniff');
-    expect(list.body).toEqual(expect.objectContaining({ canAdd: true, items: [expect.objectContaining({ id: res.body.id })] }));
+    expect(list.body).toEqual(
+      expect.objectContaining({ canAdd: true, items: [expect.objectContaining({ id: res.body.id })] }),
+    );
   });
 
   it.each([
     ['a Windows program named like a drawing', windowsProgram(), 'drawing.pdf', /Windows program/],
     ['a shell script named like a certificate', Buffer.from('#!/bin/sh\nrm -rf ~\n'), 'certificate.pdf', /script/],
-    ['a Linux program', Buffer.concat([Buffer.from([0x7f, 0x45, 0x4c, 0x46, 2, 1, 1, 0]), Buffer.alloc(200)]), 'notes.txt', /not a recognised|Linux program/],
-  ])('when the file is %s, then it is refused by its content and nothing is stored', async (_what, bytes, name, reason) => {
-    const { author, revisionId } = await calcTeam(ctx.app);
+    [
+      'a Linux program',
+      Buffer.concat([Buffer.from([0x7f, 0x45, 0x4c, 0x46, 2, 1, 1, 0]), Buffer.alloc(200)]),
+      'notes.txt',
+      /not a recognised|Linux program/,
+    ],
+  ])(
+    'when the file is %s, then it is refused by its content and nothing is stored',
+    async (_what, bytes, name, reason) => {
+      const { author, revisionId } = await calcTeam(ctx.app);
 
-    const res = await upload(author.session, revisionId, bytes, { kind: 'drawing' }, name);
+      const res = await upload(author.session, revisionId, bytes, { kind: 'drawing' }, name);
 
-    expect(res.status).toBe(400);
-    expect(res.body.fieldErrors.file[0]).toMatch(reason);
-    expect(res.body.fieldErrors.file[0]).toMatch(/accepted: PDF/);
-    expect(await Attachment.count({ where: { revisionId } })).toBe(0);
-  });
+      expect(res.status).toBe(400);
+      expect(res.body.fieldErrors.file[0]).toMatch(reason);
+      expect(res.body.fieldErrors.file[0]).toMatch(/accepted: PDF/);
+      expect(await Attachment.count({ where: { revisionId } })).toBe(0);
+    },
+  );
 
   it.each([
-    ['a text file named .pdf, as a drawing', Buffer.from('just some notes\n'), 'drawing.pdf', 'drawing', /is named ".pdf" but its content is plain text/],
-    ['a text file named .txt, as a drawing', Buffer.from('just some notes\n'), 'notes.txt', 'drawing', /is plain text, but a drawing is a PDF/],
-    ['a DXF drawing, as a material certificate', Buffer.from('0\nSECTION\n2\nENTITIES\n0\nENDSEC\n0\nEOF\n'), 'shaft.dxf', 'material-certificate', /a material certificate is a PDF or a scanned image/],
-  ])('when the upload is %s, then its declared kind or name does not match its content and it is refused (400, file)', async (_what, bytes, name, kind, reason) => {
-    const { author, revisionId } = await calcTeam(ctx.app);
+    [
+      'a text file named .pdf, as a drawing',
+      Buffer.from('just some notes\n'),
+      'drawing.pdf',
+      'drawing',
+      /is named ".pdf" but its content is plain text/,
+    ],
+    [
+      'a text file named .txt, as a drawing',
+      Buffer.from('just some notes\n'),
+      'notes.txt',
+      'drawing',
+      /is plain text, but a drawing is a PDF/,
+    ],
+    [
+      'a DXF drawing, as a material certificate',
+      Buffer.from('0\nSECTION\n2\nENTITIES\n0\nENDSEC\n0\nEOF\n'),
+      'shaft.dxf',
+      'material-certificate',
+      /a material certificate is a PDF or a scanned image/,
+    ],
+  ])(
+    'when the upload is %s, then its declared kind or name does not match its content and it is refused (400, file)',
+    async (_what, bytes, name, kind, reason) => {
+      const { author, revisionId } = await calcTeam(ctx.app);
 
-    const res = await upload(author.session, revisionId, bytes, { kind }, name);
+      const res = await upload(author.session, revisionId, bytes, { kind }, name);
 
-    expect(res.status).toBe(400);
-    expect(res.body.fieldErrors.file[0]).toMatch(reason);
-    expect(await Attachment.count({ where: { revisionId } })).toBe(0);
-  });
+      expect(res.status).toBe(400);
+      expect(res.body.fieldErrors.file[0]).toMatch(reason);
+      expect(await Attachment.count({ where: { revisionId } })).toBe(0);
+    },
+  );
 
   it('when a plain text note is attached as "Other", then it is accepted and its size reads in bytes', async () => {
     const { author, revisionId } = await calcTeam(ctx.app);
-    const res = await upload(author.session, revisionId, Buffer.from('belt pull from the tension calc\n'), { kind: 'other' }, 'notes.txt');
+    const res = await upload(
+      author.session,
+      revisionId,
+      Buffer.from('belt pull from the tension calc\n'),
+      { kind: 'other' },
+      'notes.txt',
+    );
     expect(res.status).toBe(201);
     expect(res.body).toEqual(expect.objectContaining({ mediaType: 'text/plain', sizeBytes: 32 }));
   });
@@ -95,7 +147,10 @@ describe('who may attach, and when', () => {
     const { approver, revisionId } = await calcTeam(ctx.app);
     const { agent, token } = await anonymousAgent(ctx.app);
 
-    const anonymous = await agent.post(`/api/revisions/${revisionId}/attachments`).set('x-csrf-token', token).field('kind', 'drawing');
+    const anonymous = await agent
+      .post(`/api/revisions/${revisionId}/attachments`)
+      .set('x-csrf-token', token)
+      .field('kind', 'drawing');
     const missing = await upload(approver.session, 999_999_999, pdfBytes(), { kind: 'drawing' });
     const outsider = await upload(approver.session, revisionId, pdfBytes(), { kind: 'drawing' });
 
@@ -107,12 +162,26 @@ describe('who may attach, and when', () => {
     const { author, checker, revisionId } = await calcTeam(ctx.app);
     await sign(author.session, revisionId, 'authored', { withoutRequiredFiles: true });
 
-    const refused = await checker.session.put(`/api/revisions/${revisionId}/manual-items/material-certificate`, { done: true, note: '' });
-    const added = await upload(checker.session, revisionId, pdfBytes(), { kind: 'material-certificate' }, 'mill-cert.pdf');
-    const ticked = await checker.session.put(`/api/revisions/${revisionId}/manual-items/material-certificate`, { done: true, note: 'heat 4471' });
+    const refused = await checker.session.put(`/api/revisions/${revisionId}/manual-items/material-certificate`, {
+      done: true,
+      note: '',
+    });
+    const added = await upload(
+      checker.session,
+      revisionId,
+      pdfBytes(),
+      { kind: 'material-certificate' },
+      'mill-cert.pdf',
+    );
+    const ticked = await checker.session.put(`/api/revisions/${revisionId}/manual-items/material-certificate`, {
+      done: true,
+      note: 'heat 4471',
+    });
 
     expect(refused.status).toBe(409);
-    expect(refused.body.message).toMatch(/needs a material certificate attached to revision .* before it can be ticked/);
+    expect(refused.body.message).toMatch(
+      /needs a material certificate attached to revision .* before it can be ticked/,
+    );
     expect(added.status).toBe(201);
     expect(ticked.status).toBe(200);
     expect(ticked.body.manualItems['material-certificate']).toEqual(expect.objectContaining({ done: true }));
@@ -141,7 +210,10 @@ describe('who may attach, and when', () => {
   it('when a co-editor attached a file to a draft, then its author may remove it before signing', async () => {
     const { author, checker, revisionId } = await calcTeam(ctx.app);
     const added = await upload(author.session, revisionId, pdfBytes(), { kind: 'other' });
-    await Attachment.update({ uploadedBy: checker.user.id, uploadedByName: 'a co-editor' }, { where: { id: added.body.id } });
+    await Attachment.update(
+      { uploadedBy: checker.user.id, uploadedByName: 'a co-editor' },
+      { where: { id: added.body.id } },
+    );
 
     expect((await author.session.delete(`/api/attachments/${added.body.id}`)).status).toBe(204);
     expect(await Attachment.count({ where: { revisionId } })).toBe(0);

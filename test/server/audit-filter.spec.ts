@@ -15,9 +15,13 @@ describe('audit trail filters', () => {
     const res = await auditor.get(`/api/audit?calcId=${calc.id}&size=200`);
 
     expect(res.status).toBe(200);
-    const records = new Set(res.body.items.map((e: { entityType: string; entityId: string }) => `${e.entityType}:${e.entityId}`));
+    const records = new Set(
+      res.body.items.map((e: { entityType: string; entityId: string }) => `${e.entityType}:${e.entityId}`),
+    );
     expect([...records].sort()).toEqual([`Calc:${calc.id}`, `Revision:${revisionId}`].sort());
-    expect(res.body.items.map((e: { action: string }) => e.action)).toEqual(expect.arrayContaining(['calc.created', 'revision.signed_authored']));
+    expect(res.body.items.map((e: { action: string }) => e.action)).toEqual(
+      expect.arrayContaining(['calc.created', 'revision.signed_authored']),
+    );
   });
 
   it('when filtered by person, action and day, then every entry matches all three', async () => {
@@ -26,7 +30,9 @@ describe('audit trail filters', () => {
     const { session: auditor } = await signedInAs(app, ['compliance']);
     const today = new Date().toISOString().slice(0, 10);
 
-    const res = await auditor.get(`/api/audit?userId=${author.user.id}&action=revision.signed&from=${today}&to=${today}`);
+    const res = await auditor.get(
+      `/api/audit?userId=${author.user.id}&action=revision.signed&from=${today}&to=${today}`,
+    );
 
     expect(res.body.items.length).toBeGreaterThan(0);
     for (const e of res.body.items) {

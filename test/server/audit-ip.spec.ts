@@ -16,7 +16,8 @@ async function signIn(username: string, forwardedFor?: string) {
   return { agent, res: await req.send({ username, password: TEST_PASSWORD }) };
 }
 
-const signInEntries = (userId: number) => AuditEvent.findAll({ where: { action: 'auth.signed_in', entityId: String(userId) } });
+const signInEntries = (userId: number) =>
+  AuditEvent.findAll({ where: { action: 'auth.signed_in', entityId: String(userId) } });
 
 describe('audit addresses', () => {
   it.each([
@@ -24,20 +25,29 @@ describe('audit addresses', () => {
     ['an IPv6 address with a long zone id', `fe80::1%${'z'.repeat(200)}`, `fe80::1%${'z'.repeat(200)}`],
     ['an IPv4-mapped IPv6 address', '::ffff:192.0.2.44', '::ffff:192.0.2.44'],
     ['an address over the column width', `fe80::1%${'z'.repeat(300)}`, '127.0.0.1'],
-  ])('when a sign-in comes with %s, then it succeeds and its audit entry records an address that fits', async (_what, header, recorded) => {
-    const user = await createTestUser(['author']);
-    const { res } = await signIn(user.username, header);
-    expect(res.status).toBe(200);
-    const entries = await signInEntries(user.id);
-    expect(entries.map((e) => e.ip?.replace(/^::ffff:(?=127\.)/, ''))).toEqual([recorded]);
-  });
+  ])(
+    'when a sign-in comes with %s, then it succeeds and its audit entry records an address that fits',
+    async (_what, header, recorded) => {
+      const user = await createTestUser(['author']);
+      const { res } = await signIn(user.username, header);
+      expect(res.status).toBe(200);
+      const entries = await signInEntries(user.id);
+      expect(entries.map((e) => e.ip?.replace(/^::ffff:(?=127\.)/, ''))).toEqual([recorded]);
+    },
+  );
 
   it('when a failed sign-in comes with a long X-Forwarded-For, then it is a 401 with its audit entry', async () => {
     const { agent, token } = await anonymousAgent(app);
     const name = `nobody-${Date.now()}`;
-    const res = await agent.post('/api/auth/login').set('x-csrf-token', token).set('X-Forwarded-For', 'y'.repeat(3000)).send({ username: name, password: 'wrong password' });
+    const res = await agent
+      .post('/api/auth/login')
+      .set('x-csrf-token', token)
+      .set('X-Forwarded-For', 'y'.repeat(3000))
+      .send({ username: name, password: 'wrong password' });
     expect(res.status).toBe(401);
-    const rows = await AuditEvent.findAll({ where: { action: 'auth.sign_in_failed', payload: { [Op.like]: `%${name}%` } } });
+    const rows = await AuditEvent.findAll({
+      where: { action: 'auth.sign_in_failed', payload: { [Op.like]: `%${name}%` } },
+    });
     expect(rows).toHaveLength(1);
   });
 });

@@ -9,7 +9,13 @@ const TRIGGERS = ['audit_events_no_update', 'audit_events_no_delete'];
 
 /** A connection of its own, outside the app's pool: the test account owns its database, triggers included. */
 function connect(): Promise<Connection> {
-  return mariadb.createConnection({ host: config.DB_HOST, port: config.DB_PORT, user: config.DB_USER, password: config.DB_PASSWORD, database: config.DB_NAME });
+  return mariadb.createConnection({
+    host: config.DB_HOST,
+    port: config.DB_PORT,
+    user: config.DB_USER,
+    password: config.DB_PASSWORD,
+    database: config.DB_NAME,
+  });
 }
 
 /**
@@ -25,12 +31,16 @@ async function withTriggersLifted<T>(work: (db: Connection, tailId: number) => P
   try {
     await lock.beginTransaction();
     const [head] = await lock.query('SELECT last_id FROM audit_chain_head WHERE id = 1 FOR UPDATE');
-    for (const name of TRIGGERS) definitions.push((await db.query(`SHOW CREATE TRIGGER ${name}`))[0]['SQL Original Statement']);
+    for (const name of TRIGGERS)
+      definitions.push((await db.query(`SHOW CREATE TRIGGER ${name}`))[0]['SQL Original Statement']);
     for (const name of TRIGGERS) await db.query(`DROP TRIGGER ${name}`);
     return await work(db, Number(head.last_id));
   } finally {
-    const present = (await db.query('SELECT TRIGGER_NAME AS name FROM information_schema.TRIGGERS WHERE TRIGGER_SCHEMA = DATABASE()')).map((r: { name: string }) => r.name);
-    for (const [i, name] of TRIGGERS.entries()) if (definitions[i] && !present.includes(name)) await db.query(definitions[i]);
+    const present = (
+      await db.query('SELECT TRIGGER_NAME AS name FROM information_schema.TRIGGERS WHERE TRIGGER_SCHEMA = DATABASE()')
+    ).map((r: { name: string }) => r.name);
+    for (const [i, name] of TRIGGERS.entries())
+      if (definitions[i] && !present.includes(name)) await db.query(definitions[i]);
     await lock.rollback();
     await Promise.all([lock.end(), db.end()]);
   }
@@ -54,7 +64,7 @@ async function auditor() {
 }
 
 describe('tamper evidence', () => {
-  it('when one audit row is edited behind the app\'s back, then verify reports the chain broken at that row, and ok once it is restored', async () => {
+  it("when one audit row is edited behind the app's back, then verify reports the chain broken at that row, and ok once it is restored", async () => {
     // Arrange
     const { verify } = await auditor();
     const author = await person(app, ['author']);
@@ -74,7 +84,9 @@ describe('tamper evidence', () => {
     expect(tampered).toEqual(expect.objectContaining({ ok: false, brokenAt: target.id }));
     expect(restored).toEqual(expect.objectContaining({ ok: true }));
     expect(await verify()).toEqual(expect.objectContaining({ ok: true }));
-    await expect(sequelize.query('UPDATE audit_events SET actor_name = actor_name WHERE id = ?', { replacements: [target.id] })).rejects.toThrow(/append-only/);
+    await expect(
+      sequelize.query('UPDATE audit_events SET actor_name = actor_name WHERE id = ?', { replacements: [target.id] }),
+    ).rejects.toThrow(/append-only/);
   });
 
   it('when an audit row in the middle is deleted, then verify reports the chain broken at the row after it', async () => {
@@ -95,7 +107,9 @@ describe('tamper evidence', () => {
     // Assert
     expect(tampered).toEqual(expect.objectContaining({ ok: false, brokenAt: next }));
     expect(await verify()).toEqual(expect.objectContaining({ ok: true }));
-    await expect(sequelize.query('DELETE FROM audit_events WHERE id = ?', { replacements: [target.id] })).rejects.toThrow(/append-only/);
+    await expect(
+      sequelize.query('DELETE FROM audit_events WHERE id = ?', { replacements: [target.id] }),
+    ).rejects.toThrow(/append-only/);
   });
 
   // Cutting entries off the end leaves every remaining link intact; only the chain head still knows.
@@ -106,7 +120,10 @@ describe('tamper evidence', () => {
     expect(await verify()).toEqual(expect.objectContaining({ ok: true }));
 
     // Act
-    const { tampered, tailId } = await withTriggersLifted(async (db, tail) => ({ tailId: tail, tampered: await withRowDeleted(db, tail, verify) }));
+    const { tampered, tailId } = await withTriggersLifted(async (db, tail) => ({
+      tailId: tail,
+      tampered: await withRowDeleted(db, tail, verify),
+    }));
 
     // Assert
     expect(tampered).toEqual(expect.objectContaining({ ok: false, brokenAt: tailId }));

@@ -17,8 +17,13 @@ describe('audit trail in human words', () => {
     const created = res.body.items.find((e: { action: string }) => e.action === 'calc.created');
 
     expect(res.status).toBe(200);
-    expect(signed).toEqual(expect.objectContaining({ entityType: 'Revision', entityId: String(revisionId),
-      record: { label: `calc ${calc.number} rev A`, link: `/calcs/${calc.id}?rev=${revisionId}` } }));
+    expect(signed).toEqual(
+      expect.objectContaining({
+        entityType: 'Revision',
+        entityId: String(revisionId),
+        record: { label: `calc ${calc.number} rev A`, link: `/calcs/${calc.id}?rev=${revisionId}` },
+      }),
+    );
     expect(created.record).toEqual({ label: `calc ${calc.number}`, link: `/calcs/${calc.id}` });
   });
 

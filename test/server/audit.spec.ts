@@ -1,7 +1,14 @@
 import { randomUUID } from 'node:crypto';
 import { Op } from 'sequelize';
 import { AuditEvent } from '../../server/db/models';
-import { anonymousAgent, createTestUser, signedInAs, startTestApp, TEST_PASSWORD, uniqueCode } from '../support/api-harness';
+import {
+  anonymousAgent,
+  createTestUser,
+  signedInAs,
+  startTestApp,
+  TEST_PASSWORD,
+  uniqueCode,
+} from '../support/api-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
@@ -20,7 +27,9 @@ async function attemptSignIn(username: string, password: string) {
 describe('audit entries', () => {
   it('when someone signs in, then an auth.signed_in entry names them', async () => {
     const { user } = await signedInAs(app, ['author']);
-    expect(await eventsFor('User', user.id)).toEqual([expect.objectContaining({ action: 'auth.signed_in', actorId: user.id })]);
+    expect(await eventsFor('User', user.id)).toEqual([
+      expect.objectContaining({ action: 'auth.signed_in', actorId: user.id }),
+    ]);
   });
 
   // The client only ever sees the generic 401 (auth.spec.ts); the reason is kept for whoever investigates.
@@ -34,15 +43,24 @@ describe('audit entries', () => {
 
     const rows = await AuditEvent.findAll({ where: { id: { [Op.gt]: since }, action: 'auth.sign_in_failed' } });
     const payloads = rows.map((r) => JSON.parse(r.payload));
-    expect(payloads).toEqual(expect.arrayContaining([
-      { username: user.username, reason: 'password' }, { username: ghost, reason: 'unknown user' },
-    ]));
+    expect(payloads).toEqual(
+      expect.arrayContaining([
+        { username: user.username, reason: 'password' },
+        { username: ghost, reason: 'unknown user' },
+      ]),
+    );
   });
 
   it('when an admin creates, changes, deactivates and reactivates a user, then each step is an entry by that admin', async () => {
     const { user: admin, session } = await signedInAs(app, ['admin']);
     const username = `audited-${randomUUID().slice(0, 8)}`;
-    const created = await session.post('/api/users', { username, displayName: 'Audited Person', email: 'a@example.test', roles: ['author'], initialPassword: TEST_PASSWORD });
+    const created = await session.post('/api/users', {
+      username,
+      displayName: 'Audited Person',
+      email: 'a@example.test',
+      roles: ['author'],
+      initialPassword: TEST_PASSWORD,
+    });
     const id = created.body.id;
 
     await session.patch(`/api/users/${id}`, { roles: ['author', 'checker'], version: 0 });
@@ -51,7 +69,13 @@ describe('audit entries', () => {
 
     const events = await eventsFor('User', id);
     // Signing roles are requested, not given: each waits for a second person (separation-of-duties.spec.ts).
-    expect(events.map((e) => e.action)).toEqual(['user.created', 'user.role_requested', 'user.role_requested', 'user.deactivated', 'user.reactivated']);
+    expect(events.map((e) => e.action)).toEqual([
+      'user.created',
+      'user.role_requested',
+      'user.role_requested',
+      'user.deactivated',
+      'user.reactivated',
+    ]);
     expect(events.every((e) => e.actorId === admin.id)).toBe(true);
     expect(events[1].payload).toMatchObject({ role: 'author', username });
     expect(events[2].payload).toMatchObject({ role: 'checker', username });
@@ -100,12 +124,13 @@ describe('audit chain', () => {
     expect(res.body.checked).toBeGreaterThan(0);
   });
 
-  // The triggers guard against anyone with SQL access, not just the app, so raw SQL on the app's connection is the test.
-  // Each first appends a row, so the statement always has something to touch.
+  // The triggers guard against anyone with SQL access, not just the app, so raw SQL on the app's connection is the
+  // test. Each first appends a row, so the statement always has something to touch.
   it('when anyone runs UPDATE on audit_events directly, then the database refuses', async () => {
     await createTestUser(['author']).then(({ username }) => attemptSignIn(username, 'wrong password'));
-    await expect(sequelize.query("UPDATE audit_events SET actor_name = 'someone else' ORDER BY id DESC LIMIT 1"))
-      .rejects.toThrow(/append-only/);
+    await expect(
+      sequelize.query("UPDATE audit_events SET actor_name = 'someone else' ORDER BY id DESC LIMIT 1"),
+    ).rejects.toThrow(/append-only/);
   });
 
   it('when anyone runs DELETE on audit_events directly, then the database refuses', async () => {

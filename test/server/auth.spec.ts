@@ -1,6 +1,13 @@
 import { randomUUID } from 'node:crypto';
 import { User } from '../../server/db/models';
-import { anonymousAgent, createTestUser, signedInAgent, signedInAs, startTestApp, TEST_PASSWORD } from '../support/api-harness';
+import {
+  anonymousAgent,
+  createTestUser,
+  signedInAgent,
+  signedInAs,
+  startTestApp,
+  TEST_PASSWORD,
+} from '../support/api-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
@@ -18,8 +25,12 @@ describe('signing in', () => {
     const res = await attemptSignIn({ username: user.username, password: TEST_PASSWORD });
 
     expect(res.status).toBe(200);
-    expect(res.body.user).toEqual(expect.objectContaining({ id: user.id, username: user.username, roles: ['checker'] }));
-    expect(res.body.rules).toEqual(expect.arrayContaining([expect.objectContaining({ action: 'read', subject: 'User' })]));
+    expect(res.body.user).toEqual(
+      expect.objectContaining({ id: user.id, username: user.username, roles: ['checker'] }),
+    );
+    expect(res.body.rules).toEqual(
+      expect.arrayContaining([expect.objectContaining({ action: 'read', subject: 'User' })]),
+    );
     expect(res.body.csrfToken).toEqual(expect.any(String));
     expect(JSON.stringify(res.body)).not.toMatch(/passwordHash/);
     expect((await User.findByPk(user.id))!.lastSignInAt).not.toBeNull();
@@ -90,7 +101,10 @@ describe('changing your own password', () => {
   it('when the current password is right, then the new one works and the old one does not', async () => {
     const { user, session } = await signedInAs(app, ['author']);
 
-    const res = await session.post('/api/auth/password', { currentPassword: TEST_PASSWORD, newPassword: 'a much longer new password' });
+    const res = await session.post('/api/auth/password', {
+      currentPassword: TEST_PASSWORD,
+      newPassword: 'a much longer new password',
+    });
 
     expect(res.status).toBe(204);
     await expect(signedInAgent(app, user.username, 'a much longer new password')).resolves.toBeDefined();
@@ -111,7 +125,9 @@ describe('changing your own password', () => {
 
   it('when nobody is signed in, then it is a 401', async () => {
     const { agent, token } = await anonymousAgent(app);
-    const res = await agent.post('/api/auth/password').set('x-csrf-token', token)
+    const res = await agent
+      .post('/api/auth/password')
+      .set('x-csrf-token', token)
       .send({ currentPassword: TEST_PASSWORD, newPassword: 'a much longer new password' });
     expect(res.status).toBe(401);
   });

@@ -6,7 +6,11 @@ import { compactResult } from '../../server/calcs/stored-result';
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
 
-type Row = { id: number; number: string; latest: { status: string; verdict: string | null; label: string; author: { name: string } } };
+type Row = {
+  id: number;
+  number: string;
+  latest: { status: string; verdict: string | null; label: string; author: { name: string } };
+};
 
 describe('the calc list reads summaries kept with every change', () => {
   it('when an author saves and signs, then the project list shows the latest state, verdict and author at once', async () => {
@@ -20,7 +24,9 @@ describe('the calc list reads summaries kept with every change', () => {
 
     // Assert
     expect(before.items.map((r: Row) => r.latest.status)).toEqual(['draft']);
-    expect(after.items.map((r: Row) => [r.id, r.latest.status, r.latest.label])).toEqual([[t.calc.id, 'in_check', 'A']]);
+    expect(after.items.map((r: Row) => [r.id, r.latest.status, r.latest.label])).toEqual([
+      [t.calc.id, 'in_check', 'A'],
+    ]);
     expect(after.items[0].latest.verdict).toBe(t.calc.latest.verdict);
     expect(after.items[0].latest.author.name).toBe(t.calc.latest.author.name);
     expect(after.total).toBe(1);
@@ -32,12 +38,15 @@ describe('the calc list reads summaries kept with every change', () => {
     ['the project code', (t: Team) => t.project.code],
     ['the calc number', (t: Team) => t.calc.number],
     ['the state', () => 'draft'],
-  ] as [string, (t: Team) => string][])('when the search box holds %s, then the calc is found', async (_what, termOf) => {
-    const t = await calcTeam(app);
-    const res = await t.author.session.get(`/api/calcs?projectId=${t.project.id}&q=${encodeURIComponent(termOf(t))}`);
-    expect(res.status).toBe(200);
-    expect(res.body.items.map((r: Row) => r.id)).toEqual([t.calc.id]);
-  });
+  ] as [string, (t: Team) => string][])(
+    'when the search box holds %s, then the calc is found',
+    async (_what, termOf) => {
+      const t = await calcTeam(app);
+      const res = await t.author.session.get(`/api/calcs?projectId=${t.project.id}&q=${encodeURIComponent(termOf(t))}`);
+      expect(res.status).toBe(200);
+      expect(res.body.items.map((r: Row) => r.id)).toEqual([t.calc.id]);
+    },
+  );
 });
 
 type Team = Awaited<ReturnType<typeof calcTeam>>;
@@ -47,12 +56,21 @@ describe('keyset pages', () => {
     // Arrange: three calcs in one project
     const t = await calcTeam(app);
     for (const n of ['K-2', 'K-3']) {
-      await t.author.session.post('/api/calcs', { projectId: t.project.id, number: n, title: 'Another shaft', partRef: '', ruleSetId: t.calc.latest.ruleSet.id, input: fixtureInput() });
+      await t.author.session.post('/api/calcs', {
+        projectId: t.project.id,
+        number: n,
+        title: 'Another shaft',
+        partRef: '',
+        ruleSetId: t.calc.latest.ruleSet.id,
+        input: fixtureInput(),
+      });
     }
 
     // Act
     const first = (await t.author.session.get(`/api/calcs?projectId=${t.project.id}&size=2&sort=number&dir=asc`)).body;
-    const second = (await t.author.session.get(`/api/calcs?projectId=${t.project.id}&size=2&sort=number&dir=asc&after=${first.next}`)).body;
+    const second = (
+      await t.author.session.get(`/api/calcs?projectId=${t.project.id}&size=2&sort=number&dir=asc&after=${first.next}`)
+    ).body;
 
     // Assert
     expect([...first.items, ...second.items].map((r: Row) => r.number)).toEqual([t.calc.number, 'K-2', 'K-3'].sort());
@@ -74,7 +92,10 @@ describe('stored results without per-field metadata', () => {
     await sign(t.author.session, t.revisionId, 'authored');
 
     // Act
-    const [row] = await sequelize.query<{ result: string }>('SELECT result FROM revisions WHERE id = ?', { replacements: [t.revisionId], type: QueryTypes.SELECT });
+    const [row] = await sequelize.query<{ result: string }>('SELECT result FROM revisions WHERE id = ?', {
+      replacements: [t.revisionId],
+      type: QueryTypes.SELECT,
+    });
     const read = await revisionOf(t.author.session, t.revisionId);
 
     // Assert
@@ -89,7 +110,9 @@ describe('stored results without per-field metadata', () => {
     const full = (await revisionOf(t.author.session, t.revisionId)).result;
     expect(compactResult(full)).not.toContain('"fields"');
 
-    await sequelize.query('UPDATE revisions SET result = ? WHERE id = ?', { replacements: [JSON.stringify(full), t.revisionId] });
+    await sequelize.query('UPDATE revisions SET result = ? WHERE id = ?', {
+      replacements: [JSON.stringify(full), t.revisionId],
+    });
     const read = await revisionOf(t.author.session, t.revisionId);
 
     expect(read.signatures.map((s: { isValid: boolean }) => s.isValid)).toEqual([true]);

@@ -1,5 +1,14 @@
 import { startTestApp } from '../support/api-harness';
-import { advanceTo, auditOf, createCalc, person, revisionOf, sign, tickAll, type Session } from '../support/calc-harness';
+import {
+  advanceTo,
+  auditOf,
+  createCalc,
+  person,
+  revisionOf,
+  sign,
+  tickAll,
+  type Session,
+} from '../support/calc-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
@@ -10,12 +19,21 @@ type Input = Record<string, unknown> & { title: string };
  * One writer as the client behaves: save from what it last saw; on 409 take the `current`
  * revision the server sent back, re-apply its own change to it and save again.
  */
-async function writeUntilSaved(s: Session, revisionId: number, mark: string, seen: { input: Input; lockVersion: number }) {
+async function writeUntilSaved(
+  s: Session,
+  revisionId: number,
+  mark: string,
+  seen: { input: Input; lockVersion: number },
+) {
   let base = seen;
   for (let attempt = 1; attempt <= 20; attempt++) {
-    const res = await s.put(`/api/revisions/${revisionId}`, { input: { ...base.input, title: `${base.input.title} ${mark}` }, lockVersion: base.lockVersion });
+    const res = await s.put(`/api/revisions/${revisionId}`, {
+      input: { ...base.input, title: `${base.input.title} ${mark}` },
+      lockVersion: base.lockVersion,
+    });
     if (res.status === 200) return { attempts: attempt, lockVersion: res.body.lockVersion as number };
-    if (res.status !== 409 || !res.body.current) throw new Error(`save ${mark}: ${res.status} ${JSON.stringify(res.body)}`);
+    if (res.status !== 409 || !res.body.current)
+      throw new Error(`save ${mark}: ${res.status} ${JSON.stringify(res.body)}`);
     base = res.body.current;
   }
   throw new Error(`save ${mark} never got through`);
@@ -27,7 +45,11 @@ describe('two saves from the same version', () => {
     const author = await person(app, ['author']);
     const { revisionId } = await createCalc(author.session);
     const start = await revisionOf(author.session, revisionId);
-    const save = (title: string) => author.session.put(`/api/revisions/${revisionId}`, { input: { ...start.input, title }, lockVersion: start.lockVersion });
+    const save = (title: string) =>
+      author.session.put(`/api/revisions/${revisionId}`, {
+        input: { ...start.input, title },
+        lockVersion: start.lockVersion,
+      });
 
     // Act
     const results = await Promise.all([save('Edited in tab one'), save('Edited in tab two')]);
@@ -38,7 +60,9 @@ describe('two saves from the same version', () => {
     const winner = results.find((r) => r.status === 200)!;
     const loser = results.find((r) => r.status === 409)!;
     expect(loser.body.message).toBe('This revision was saved elsewhere since you opened it');
-    expect(loser.body.current).toEqual(expect.objectContaining({ id: revisionId, lockVersion: start.lockVersion + 1, input: winner.body.input }));
+    expect(loser.body.current).toEqual(
+      expect.objectContaining({ id: revisionId, lockVersion: start.lockVersion + 1, input: winner.body.input }),
+    );
     const stored = await revisionOf(author.session, revisionId);
     expect([stored.lockVersion, stored.input.title]).toEqual([start.lockVersion + 1, winner.body.input.title]);
   });
@@ -60,7 +84,9 @@ describe('many writers', () => {
     const stored = await revisionOf(author.session, revisionId);
     expect(stored.lockVersion).toBe(start.lockVersion + N);
     for (const mark of marks) expect(stored.input.title).toContain(mark);
-    expect(outcomes.map((o) => o.lockVersion).sort((a, b) => a - b)).toEqual(Array.from({ length: N }, (_v, i) => start.lockVersion + i + 1));
+    expect(outcomes.map((o) => o.lockVersion).sort((a, b) => a - b)).toEqual(
+      Array.from({ length: N }, (_v, i) => start.lockVersion + i + 1),
+    );
     const saved = (await auditOf('Revision', revisionId)).filter((e) => e.action === 'revision.saved');
     expect(saved).toHaveLength(N);
     expect(saved.map((e) => e.payload.lockVersion)).toEqual(outcomes.map((o) => o.lockVersion).sort((a, b) => a - b));
@@ -74,18 +100,29 @@ describe('two signatures at once', () => {
     const author = await person(app, ['author']);
     const [first, second] = [await person(app, ['checker']), await person(app, ['checker'])];
     const { revisionId } = await createCalc(author.session);
-    await advanceTo('in_check', { author: author.session, checker: first.session, approver: first.session }, revisionId);
+    await advanceTo(
+      'in_check',
+      { author: author.session, checker: first.session, approver: first.session },
+      revisionId,
+    );
     await tickAll(first.session, revisionId);
 
     // Act
-    const results = await Promise.all([sign(first.session, revisionId, 'checked'), sign(second.session, revisionId, 'checked')]);
+    const results = await Promise.all([
+      sign(first.session, revisionId, 'checked'),
+      sign(second.session, revisionId, 'checked'),
+    ]);
 
     // Assert
     expect(results.map((r) => r.status).sort()).toEqual([200, 403]);
-    expect(results.find((r) => r.status === 403)!.body.message).toMatch(/A checked revision cannot be signed as checked/);
+    expect(results.find((r) => r.status === 403)!.body.message).toMatch(
+      /A checked revision cannot be signed as checked/,
+    );
     const stored = await revisionOf(author.session, revisionId);
     expect(stored.signatures.filter((s: { meaning: string }) => s.meaning === 'checked')).toHaveLength(1);
-    expect((await auditOf('Revision', revisionId)).filter((e) => e.action === 'revision.signed_checked')).toHaveLength(1);
+    expect((await auditOf('Revision', revisionId)).filter((e) => e.action === 'revision.signed_checked')).toHaveLength(
+      1,
+    );
   });
 });
 
@@ -103,7 +140,7 @@ describe('refusals that protect the stored revision', () => {
     expect(res.body.fieldErrors).toEqual({ lockVersion: ['is required (the version you started from)'] });
   });
 
-  it('when another author saves someone else\'s draft, then it is refused with 403 and the draft is unchanged', async () => {
+  it("when another author saves someone else's draft, then it is refused with 403 and the draft is unchanged", async () => {
     // Arrange
     const author = await person(app, ['author']);
     const other = await person(app, ['author'], 'other');
@@ -111,7 +148,10 @@ describe('refusals that protect the stored revision', () => {
     const before = await revisionOf(author.session, revisionId);
 
     // Act
-    const res = await other.session.put(`/api/revisions/${revisionId}`, { input: { ...before.input, title: 'Not mine' }, lockVersion: before.lockVersion });
+    const res = await other.session.put(`/api/revisions/${revisionId}`, {
+      input: { ...before.input, title: 'Not mine' },
+      lockVersion: before.lockVersion,
+    });
 
     // Assert
     expect(res.status).toBe(403);

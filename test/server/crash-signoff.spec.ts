@@ -25,7 +25,7 @@ const { app, sequelize } = startTestApp();
 // A small seeded generator, so a failing run can be repeated with CRASH_SEED.
 const seed = Number(process.env.CRASH_SEED ?? Date.now() % 100_000);
 let state = seed;
-const random = () => ((state = (state * 1_103_515_245 + 12_345) % 2_147_483_648) / 2_147_483_648);
+const random = () => (state = (state * 1_103_515_245 + 12_345) % 2_147_483_648) / 2_147_483_648;
 
 class ServerProcess {
   private child: ChildProcess | null = null;
@@ -34,8 +34,17 @@ class ServerProcess {
   start(): Promise<void> {
     return new Promise((resolve, reject) => {
       const child = fork(path.join(ROOT, 'server/main.ts'), [], {
-        cwd: ROOT, execArgv: ['--import', 'tsx'], stdio: ['ignore', 'ignore', 'inherit', 'ipc'],
-        env: { ...process.env, PORT: '0', HOST: '127.0.0.1', NODE_ENV: 'test', LOG_LEVEL: 'silent', MAIL_SENDER: 'false' },
+        cwd: ROOT,
+        execArgv: ['--import', 'tsx'],
+        stdio: ['ignore', 'ignore', 'inherit', 'ipc'],
+        env: {
+          ...process.env,
+          PORT: '0',
+          HOST: '127.0.0.1',
+          NODE_ENV: 'test',
+          LOG_LEVEL: 'silent',
+          MAIL_SENDER: 'false',
+        },
       });
       this.child = child;
       const early = (code: number | null) => reject(new Error(`server process exited while starting (code ${code})`));
@@ -67,26 +76,50 @@ afterAll(async () => {
   await sequelize.close();
 });
 
-interface Signer { cookie: string; csrf: string }
+interface Signer {
+  cookie: string;
+  csrf: string;
+}
 
 async function signInThroughServer(username: string): Promise<Signer> {
   const first = await request(server.base).get('/api/session');
-  const login = expectStatus(await request(server.base).post('/api/auth/login').set('Cookie', sessionCookieOf(first))
-    .set('x-csrf-token', first.body.csrfToken).send({ username, password: TEST_PASSWORD }), 200, 'sign-in');
+  const login = expectStatus(
+    await request(server.base)
+      .post('/api/auth/login')
+      .set('Cookie', sessionCookieOf(first))
+      .set('x-csrf-token', first.body.csrfToken)
+      .send({ username, password: TEST_PASSWORD }),
+    200,
+    'sign-in',
+  );
   return { cookie: sessionCookieOf(login), csrf: login.body.csrfToken };
 }
 
-const isConnectionError = (err: unknown) => /ECONNRESET|ECONNREFUSED|socket hang up|EPIPE/i.test(String((err as Error)?.message ?? err));
+const isConnectionError = (err: unknown) =>
+  /ECONNRESET|ECONNREFUSED|socket hang up|EPIPE/i.test(String((err as Error)?.message ?? err));
 
 /**
  * One signature, sent to the current server process. Sometimes the process is killed at a random
  * moment after the request leaves; then it is restarted and the same request (same key) is sent again.
  */
-async function signThroughCrashes(signer: Signer, revisionId: number, meaning: Meaning, lockVersion: number, forceKill: boolean) {
+async function signThroughCrashes(
+  signer: Signer,
+  revisionId: number,
+  meaning: Meaning,
+  lockVersion: number,
+  forceKill: boolean,
+) {
   const key = randomUUID();
-  const send = () => request(server.base).post(`/api/revisions/${revisionId}/sign`).set('Cookie', signer.cookie).set('x-csrf-token', signer.csrf)
-    .send({ password: TEST_PASSWORD, meaning, idempotencyKey: key, lockVersion });
-  let attempt = send().then((res) => res, (err: unknown) => err);
+  const send = () =>
+    request(server.base)
+      .post(`/api/revisions/${revisionId}/sign`)
+      .set('Cookie', signer.cookie)
+      .set('x-csrf-token', signer.csrf)
+      .send({ password: TEST_PASSWORD, meaning, idempotencyKey: key, lockVersion });
+  let attempt = send().then(
+    (res) => res,
+    (err: unknown) => err,
+  );
   if (random() < KILL_CHANCE || forceKill) {
     await new Promise((resolve) => setTimeout(resolve, Math.floor(random() * 400)));
     await server.kill();
@@ -97,7 +130,10 @@ async function signThroughCrashes(signer: Signer, revisionId: number, meaning: M
     const outcome = await attempt;
     if (outcome && typeof outcome === 'object' && 'status' in outcome) return { res: outcome as request.Response, key };
     if (!isConnectionError(outcome)) throw outcome;
-    attempt = send().then((res) => res, (err: unknown) => err);
+    attempt = send().then(
+      (res) => res,
+      (err: unknown) => err,
+    );
   }
 }
 
@@ -122,7 +158,13 @@ describe('sign-off through server crashes', () => {
         // Manual checklist items are ticked by a checker (in this process) before the check signature.
         if (meaning === 'checked') await tickAll(checkerInProcess.session, id);
         const { lockVersion } = await revisionOf(author.session, id);
-        const { res, key } = await signThroughCrashes(signers[meaning], id, meaning, lockVersion, ALWAYS_KILLED.has(keys.length));
+        const { res, key } = await signThroughCrashes(
+          signers[meaning],
+          id,
+          meaning,
+          lockVersion,
+          ALWAYS_KILLED.has(keys.length),
+        );
         expectStatus(res, 200, `${meaning} signature on revision ${id} (seed ${seed})`);
         keys.push(key);
       }
@@ -133,16 +175,32 @@ describe('sign-off through server crashes', () => {
     expect(revisions.map((r) => r.status)).toEqual(revisionIds.map(() => 'approved'));
     const signatures = await Signature.findAll({ where: { revisionId: { [Op.in]: revisionIds } } });
     for (const id of revisionIds) {
-      expect(signatures.filter((s) => s.revisionId === id).map((s) => s.meaning).sort()).toEqual(['approved', 'authored', 'checked']);
+      expect(
+        signatures
+          .filter((s) => s.revisionId === id)
+          .map((s) => s.meaning)
+          .sort(),
+      ).toEqual(['approved', 'authored', 'checked']);
     }
     // No idempotency key was used twice, and each request's key is on exactly one signature.
-    const reused = await sequelize.query('SELECT idempotency_key FROM signatures GROUP BY idempotency_key HAVING COUNT(*) > 1', { type: QueryTypes.SELECT });
+    const reused = await sequelize.query(
+      'SELECT idempotency_key FROM signatures GROUP BY idempotency_key HAVING COUNT(*) > 1',
+      { type: QueryTypes.SELECT },
+    );
     expect(reused).toEqual([]);
     expect(signatures.map((s) => s.idempotencyKey).sort()).toEqual([...keys].sort());
     // Every signature has exactly one audit entry.
-    const audit = await AuditEvent.findAll({ where: { entityType: 'Revision', entityId: { [Op.in]: revisionIds.map(String) }, action: { [Op.like]: 'revision.signed_%' } } });
+    const audit = await AuditEvent.findAll({
+      where: {
+        entityType: 'Revision',
+        entityId: { [Op.in]: revisionIds.map(String) },
+        action: { [Op.like]: 'revision.signed_%' },
+      },
+    });
     for (const s of signatures) {
-      expect(audit.filter((a) => a.entityId === String(s.revisionId) && a.action === `revision.signed_${s.meaning}`)).toHaveLength(1);
+      expect(
+        audit.filter((a) => a.entityId === String(s.revisionId) && a.action === `revision.signed_${s.meaning}`),
+      ).toHaveLength(1);
     }
     // And the audit chain still verifies end to end.
     expect(await verifyAuditChain()).toEqual(expect.objectContaining({ ok: true }));

@@ -1,11 +1,21 @@
 import request from 'supertest';
-import { anonymousAgent, createTestUser, signedInAs, startTestApp, TEST_PASSWORD, uniqueCode } from '../support/api-harness';
+import {
+  anonymousAgent,
+  createTestUser,
+  signedInAs,
+  startTestApp,
+  TEST_PASSWORD,
+  uniqueCode,
+} from '../support/api-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
 
 const projectBody = () => ({ code: uniqueCode('CSRF'), name: 'Mixer shaft' });
-const CSRF_REFUSAL = expect.objectContaining({ code: 'csrf_invalid', message: expect.stringMatching(/security token/) });
+const CSRF_REFUSAL = expect.objectContaining({
+  code: 'csrf_invalid',
+  message: expect.stringMatching(/security token/),
+});
 
 describe('CSRF protection', () => {
   it('when a signed-in write carries no token, then it is refused with 403', async () => {
@@ -21,7 +31,10 @@ describe('CSRF protection', () => {
   it('when the token is the one from before sign-in, then it is stale and refused', async () => {
     const user = await createTestUser(['admin']);
     const { agent, token: before } = await anonymousAgent(app);
-    await agent.post('/api/auth/login').set('x-csrf-token', before).send({ username: user.username, password: TEST_PASSWORD });
+    await agent
+      .post('/api/auth/login')
+      .set('x-csrf-token', before)
+      .send({ username: user.username, password: TEST_PASSWORD });
 
     const res = await agent.post('/api/projects').set('x-csrf-token', before).send(projectBody());
 

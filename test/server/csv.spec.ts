@@ -2,7 +2,11 @@ import { parse } from 'csv-parse/sync';
 import { isoUtc, neutralise, toCsv, type CsvColumn } from '../../server/http/csv';
 
 // The one CSV writer every export uses: OWASP formula neutralising, numbers kept numeric, ISO dates.
-interface Row { name: string; count: number | string; at: Date | null }
+interface Row {
+  name: string;
+  count: number | string;
+  at: Date | null;
+}
 const columns: CsvColumn<Row>[] = [
   { header: 'name', value: (r) => r.name },
   { header: 'count (pieces)', value: (r) => r.count, numeric: true },
@@ -10,14 +14,22 @@ const columns: CsvColumn<Row>[] = [
 ];
 
 describe('CSV export writer', () => {
-  it.each(['=1+1', '+1+1', '-1+1', '@SUM(A1)', '\t=1', '\r=1', '=HYPERLINK("http://x","y")'])('when a text cell starts with a formula trigger (%j), then it gets a leading single quote', (hostile) => {
-    expect(neutralise(hostile)).toBe(`'${hostile}`);
-    const [, row] = parse(toCsv(columns, [{ name: hostile, count: 1, at: null }]), { relax_column_count: true }) as string[][];
-    expect(row[0]).toBe(`'${hostile}`);
-  });
+  it.each(['=1+1', '+1+1', '-1+1', '@SUM(A1)', '\t=1', '\r=1', '=HYPERLINK("http://x","y")'])(
+    'when a text cell starts with a formula trigger (%j), then it gets a leading single quote',
+    (hostile) => {
+      expect(neutralise(hostile)).toBe(`'${hostile}`);
+      const [, row] = parse(toCsv(columns, [{ name: hostile, count: 1, at: null }]), {
+        relax_column_count: true,
+      }) as string[][];
+      expect(row[0]).toBe(`'${hostile}`);
+    },
+  );
 
   it('when a numeric column holds a negative number, then it stays a bare number; a string there is neutralised', () => {
-    const csv = toCsv(columns, [{ name: 'a', count: -3.5, at: null }, { name: 'b', count: '-2+3', at: null }]);
+    const csv = toCsv(columns, [
+      { name: 'a', count: -3.5, at: null },
+      { name: 'b', count: '-2+3', at: null },
+    ]);
     expect(csv.split('\r\n')[1]).toBe('"a",-3.5,""');
     expect(csv.split('\r\n')[2]).toBe('"b","\'-2+3",""');
   });

@@ -11,10 +11,19 @@ describe('standards waiting for a second compliance confirmation', () => {
     const colleague = await person(app, ['compliance']);
     const author = await person(app, ['author']);
     const draft = (await drafter.session.post('/api/rule-sets', { fromId: standard.id })).body;
-    const saved = (await drafter.session.put(`/api/rule-sets/${draft.id}`, { document: { ...draft.document, changeSummary: 'Overview test' }, lockVersion: draft.lockVersion })).body;
-    await drafter.session.post(`/api/rule-sets/${draft.id}/propose`, { effectiveDate: '2026-11-01', lockVersion: saved.lockVersion });
+    const saved = (
+      await drafter.session.put(`/api/rule-sets/${draft.id}`, {
+        document: { ...draft.document, changeSummary: 'Overview test' },
+        lockVersion: draft.lockVersion,
+      })
+    ).body;
+    await drafter.session.post(`/api/rule-sets/${draft.id}/propose`, {
+      effectiveDate: '2026-11-01',
+      lockVersion: saved.lockVersion,
+    });
 
-    const links = async (s: typeof drafter) => ((await s.session.get('/api/dashboard')).body.waiting as { link: string }[]).map((w) => w.link);
+    const links = async (s: typeof drafter) =>
+      ((await s.session.get('/api/dashboard')).body.waiting as { link: string }[]).map((w) => w.link);
 
     expect(await links(colleague)).toContain(`/rule-sets/${draft.id}`);
     expect(await links(drafter)).not.toContain(`/rule-sets/${draft.id}`);

@@ -12,12 +12,22 @@ afterAll(() => sequelize.close());
 function barrier(count: number) {
   let arrived = 0;
   let open!: () => void;
-  const opened = new Promise<void>((resolve) => { open = resolve; });
-  return () => { if (++arrived === count) open(); return opened; };
+  const opened = new Promise<void>((resolve) => {
+    open = resolve;
+  });
+  return () => {
+    if (++arrived === count) open();
+    return opened;
+  };
 }
 
-const lockProject = (id: number, t: Transaction) => sequelize.query('SELECT id FROM projects WHERE id = ? FOR UPDATE', { replacements: [id], transaction: t });
-const mark = (id: number, text: string, t: Transaction) => sequelize.query('UPDATE projects SET name = CONCAT(name, ?) WHERE id = ?', { replacements: [text, id], transaction: t });
+const lockProject = (id: number, t: Transaction) =>
+  sequelize.query('SELECT id FROM projects WHERE id = ? FOR UPDATE', { replacements: [id], transaction: t });
+const mark = (id: number, text: string, t: Transaction) =>
+  sequelize.query('UPDATE projects SET name = CONCAT(name, ?) WHERE id = ?', {
+    replacements: [text, id],
+    transaction: t,
+  });
 
 describe('a transaction the database aborts is run again', () => {
   it('when two transactions lock the same two rows in opposite order, then one is aborted for a deadlock, run again, and both changes are stored', async () => {
@@ -25,13 +35,14 @@ describe('a transaction the database aborts is run again', () => {
     const [a, b] = [await createTestProject(), await createTestProject()];
     const bothHoldOne = barrier(2);
     const before = retryStats.byCause['1213'] ?? 0;
-    const crossing = (first: number, second: number, text: string) => runTransaction(sequelize, async (t, attempt) => {
-      await lockProject(first, t);
-      if (attempt === 1) await bothHoldOne();
-      await mark(second, text, t);
-      await mark(first, text, t);
-      return attempt;
-    });
+    const crossing = (first: number, second: number, text: string) =>
+      runTransaction(sequelize, async (t, attempt) => {
+        await lockProject(first, t);
+        if (attempt === 1) await bothHoldOne();
+        await mark(second, text, t);
+        await mark(first, text, t);
+        return attempt;
+      });
 
     // Act
     const attempts = await Promise.all([crossing(a.id, b.id, ' [one]'), crossing(b.id, a.id, ' [two]')]);
@@ -51,9 +62,13 @@ describe('a transaction the database aborts is run again', () => {
     const project = await createTestProject();
     const before = retryStats.byCause['1205'] ?? 0;
     let releaseHolder!: () => void;
-    const holderMayCommit = new Promise<void>((resolve) => { releaseHolder = resolve; });
+    const holderMayCommit = new Promise<void>((resolve) => {
+      releaseHolder = resolve;
+    });
     let holderLocked!: () => void;
-    const locked = new Promise<void>((resolve) => { holderLocked = resolve; });
+    const locked = new Promise<void>((resolve) => {
+      holderLocked = resolve;
+    });
     const holder = runTransaction(sequelize, async (t) => {
       await lockProject(project.id, t);
       holderLocked();
@@ -68,7 +83,9 @@ describe('a transaction the database aborts is run again', () => {
       try {
         await mark(project.id, ' [waiter]', t);
       } finally {
-        await sequelize.query('SET SESSION innodb_lock_wait_timeout = DEFAULT', { transaction: t }).catch(() => undefined);
+        await sequelize
+          .query('SET SESSION innodb_lock_wait_timeout = DEFAULT', { transaction: t })
+          .catch(() => undefined);
       }
       return attempt;
     });
@@ -87,7 +104,10 @@ describe('a transaction the database aborts is run again', () => {
     let runs = 0;
 
     // Act
-    const outcome = runTransaction(sequelize, async () => { runs++; throw new Error('a bug, not a deadlock'); });
+    const outcome = runTransaction(sequelize, async () => {
+      runs++;
+      throw new Error('a bug, not a deadlock');
+    });
 
     // Assert
     await expect(outcome).rejects.toThrow('a bug, not a deadlock');
@@ -96,7 +116,7 @@ describe('a transaction the database aborts is run again', () => {
 });
 
 describe('a revision locked for change', () => {
-  it('when a revision is loaded for change, then only its row is locked, not its standard\'s or its author\'s', async () => {
+  it("when a revision is loaded for change, then only its row is locked, not its standard's or its author's", async () => {
     // Arrange
     const author = await person(app, ['author']);
     const { revisionId } = await createCalc(author.session);
@@ -105,10 +125,13 @@ describe('a revision locked for change', () => {
     // Act
     const free = await runTransaction(sequelize, async (t) => {
       const revision = await loadRevision(revisionId, t);
-      const probe = (sql: string, id: number) => sequelize.query(sql, { replacements: [id], type: QueryTypes.SELECT, transaction: other });
+      const probe = (sql: string, id: number) =>
+        sequelize.query(sql, { replacements: [id], type: QueryTypes.SELECT, transaction: other });
       const ruleSet = await probe('SELECT id FROM rule_sets WHERE id = ? FOR UPDATE NOWAIT', revision.ruleSetId);
       const user = await probe('SELECT id FROM users WHERE id = ? FOR UPDATE NOWAIT', revision.authorId);
-      const row = await probe('SELECT id FROM revisions WHERE id = ? FOR UPDATE NOWAIT', revisionId).catch((err: Error) => err);
+      const row = await probe('SELECT id FROM revisions WHERE id = ? FOR UPDATE NOWAIT', revisionId).catch(
+        (err: Error) => err,
+      );
       return { ruleSet, user, row, shown: revision.ruleSet?.code, authorName: revision.author?.displayName };
     }).finally(() => other.rollback());
 

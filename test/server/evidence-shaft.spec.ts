@@ -14,7 +14,7 @@ const ctx = appWithTestS3();
 const sha256 = (b: Buffer | string) => createHash('sha256').update(b).digest('hex');
 
 describe('evidence of a whole-shaft calc', () => {
-  it('when a bearing\'s load rating changes, then the content hash changes with it', async () => {
+  it("when a bearing's load rating changes, then the content hash changes with it", async () => {
     const { author, revisionId } = await calcTeam(ctx.app, wholeShaftInput());
     const before = await revisionOf(author.session, revisionId);
     const input = structuredClone(before.input);
@@ -31,7 +31,13 @@ describe('evidence of a whole-shaft calc', () => {
     const team = await calcTeam(ctx.app, wholeShaftInput());
     const { author, checker, approver, revisionId } = team;
     await upload(author.session, revisionId, pdfBytes(2000, 'drawing'), { kind: 'drawing' }, 'DRG-1.pdf');
-    await upload(author.session, revisionId, pdfBytes(1500, 'certificate'), { kind: 'material-certificate' }, 'mill cert.pdf');
+    await upload(
+      author.session,
+      revisionId,
+      pdfBytes(1500, 'certificate'),
+      { kind: 'material-certificate' },
+      'mill cert.pdf',
+    );
     await sign(author.session, revisionId, 'authored');
     await tickAll(checker.session, revisionId);
     await sign(checker.session, revisionId, 'checked');

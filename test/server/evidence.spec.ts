@@ -17,7 +17,13 @@ async function approvedCalcPack() {
   const team = await calcTeam(ctx.app);
   const { author, checker, approver, revisionId } = team;
   await upload(author.session, revisionId, pdfBytes(2000, 'drawing'), { kind: 'drawing' }, 'DRG-1.pdf');
-  await upload(author.session, revisionId, pdfBytes(1500, 'certificate'), { kind: 'material-certificate' }, 'mill cert.pdf');
+  await upload(
+    author.session,
+    revisionId,
+    pdfBytes(1500, 'certificate'),
+    { kind: 'material-certificate' },
+    'mill cert.pdf',
+  );
   await sign(author.session, revisionId, 'authored');
   await tickAll(checker.session, revisionId);
   await sign(checker.session, revisionId, 'checked');
@@ -36,13 +42,26 @@ describe('evidence pack', () => {
 
     expect(res.status).toBe(200);
     expect(res.headers['content-disposition']).toMatch(/^attachment; filename="?evidence_[\w.-]+\.zip"?$/);
-    expect([...files.keys()].sort()).toEqual(expect.arrayContaining(['README.txt', 'audit-trail.json', 'manifest.json', 'manifest.sha256',
-      'revisions/A/record.json', 'revisions/A/report.pdf', expect.stringMatching(/^revisions\/A\/attachments\/\d+-mill-cert\.pdf$/)]));
+    expect([...files.keys()].sort()).toEqual(
+      expect.arrayContaining([
+        'README.txt',
+        'audit-trail.json',
+        'manifest.json',
+        'manifest.sha256',
+        'revisions/A/record.json',
+        'revisions/A/report.pdf',
+        expect.stringMatching(/^revisions\/A\/attachments\/\d+-mill-cert\.pdf$/),
+      ]),
+    );
     for (const f of manifest.files) expect([f.path, sha256(files.get(f.path)!)]).toEqual([f.path, f.sha256]);
     expect(files.get('manifest.sha256')!.toString().trim()).toBe(sha256(files.get('manifest.json')!));
     expect(res.headers['x-evidence-seal']).toBe(sha256(files.get('manifest.json')!));
     expect(sha256(canonicalize(record.content)!)).toBe((await revisionOf(author.session, revisionId)).contentHash);
-    expect(record.signatures.map((s: { contentHash: string }) => s.contentHash)).toEqual([record.contentHash, record.contentHash, record.contentHash]);
+    expect(record.signatures.map((s: { contentHash: string }) => s.contentHash)).toEqual([
+      record.contentHash,
+      record.contentHash,
+      record.contentHash,
+    ]);
     expect(files.get('revisions/A/report.pdf')!.subarray(0, 5).toString()).toBe('%PDF-');
 
     const verified = await postPack(compliance.session, zip);
@@ -74,7 +93,10 @@ describe('evidence pack', () => {
     // Every line's mark agrees with its meaning: no signature is ticked as good over altered content.
     const signatures = res.body.checks.filter((c: { name: string }) => /signature/.test(c.name));
     expect(signatures).toHaveLength(3);
-    for (const c of signatures) expect(c).toEqual(expect.objectContaining({ ok: false, detail: expect.stringMatching(/not valid for this content/) }));
+    for (const c of signatures)
+      expect(c).toEqual(
+        expect.objectContaining({ ok: false, detail: expect.stringMatching(/not valid for this content/) }),
+      );
   });
 
   it('when a file and the manifest are both rewritten to match, then the seal and the record hash still expose it', async () => {
@@ -85,7 +107,8 @@ describe('evidence pack', () => {
     record.contentHash = sha256(canonicalize(record.content)!);
     files.set('revisions/A/record.json', Buffer.from(JSON.stringify(record, null, 2)));
     const manifest = JSON.parse(files.get('manifest.json')!.toString('utf8'));
-    for (const f of manifest.files) Object.assign(f, { sha256: sha256(files.get(f.path)!), size: files.get(f.path)!.length });
+    for (const f of manifest.files)
+      Object.assign(f, { sha256: sha256(files.get(f.path)!), size: files.get(f.path)!.length });
     files.set('manifest.json', Buffer.from(JSON.stringify(manifest, null, 2)));
     files.set('manifest.sha256', Buffer.from(sha256(files.get('manifest.json')!)));
 

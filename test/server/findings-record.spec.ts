@@ -40,15 +40,23 @@ describe('approval and the record', () => {
 
     // Act
     expectStatus(await sign(t.approver.session, t.revisionId, 'approved'), 200, 'approve');
-    const lateAnswer = await t.author.session.post(`/api/findings/${t.findingId}/answer`, { answer: 'Rewriting history' });
+    const lateAnswer = await t.author.session.post(`/api/findings/${t.findingId}/answer`, {
+      answer: 'Rewriting history',
+    });
 
     // Assert
     const r = await revisionOf(t.approver.session, t.revisionId);
-    expect(r.findings).toEqual([expect.objectContaining({
-      text: 'Name the chart behind the keyseat Kts', status: 'closed', answer: 'Peterson chart 3.2',
-      raisedBy: { id: t.checker.user.id, name: t.checker.displayName }, answeredBy: { id: t.author.user.id, name: t.author.displayName },
-      closedBy: { id: t.checker.user.id, name: t.checker.displayName }, closedAt: expect.any(String),
-    })]);
+    expect(r.findings).toEqual([
+      expect.objectContaining({
+        text: 'Name the chart behind the keyseat Kts',
+        status: 'closed',
+        answer: 'Peterson chart 3.2',
+        raisedBy: { id: t.checker.user.id, name: t.checker.displayName },
+        answeredBy: { id: t.author.user.id, name: t.author.displayName },
+        closedBy: { id: t.checker.user.id, name: t.checker.displayName },
+        closedAt: expect.any(String),
+      }),
+    ]);
     expect(lateAnswer.status).toBe(403);
     const actions = (await auditOf('Revision', t.revisionId)).map((e) => e.action);
     expect(actions).toEqual(expect.arrayContaining(['revision.returned', 'finding.answered', 'finding.closed']));

@@ -17,7 +17,9 @@ describe('schema ready for a Galera cluster', () => {
       WHERE t.table_schema = DATABASE() AND t.table_type = 'BASE TABLE'`;
 
     // Act
-    const tables = await sequelize.query<{ name: string; engine: string; pk: string | null }>(sql, { type: QueryTypes.SELECT });
+    const tables = await sequelize.query<{ name: string; engine: string; pk: string | null }>(sql, {
+      type: QueryTypes.SELECT,
+    });
 
     // Assert
     expect(tables.length).toBeGreaterThan(10);

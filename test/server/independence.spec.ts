@@ -1,6 +1,15 @@
 import { startTestApp } from '../support/api-harness';
 import {
-  advanceTo, auditOf, createCalc, expectStatus, lastAuditId, person, revisionOf, sign, tickAll, type Person,
+  advanceTo,
+  auditOf,
+  createCalc,
+  expectStatus,
+  lastAuditId,
+  person,
+  revisionOf,
+  sign,
+  tickAll,
+  type Person,
 } from '../support/calc-harness';
 import type { Role } from '../../shared/authz/roles';
 
@@ -17,8 +26,16 @@ async function secondRevisionBy(firstAuthorRoles: Role[]) {
   const approver = await person(app, ['approver']);
   const secondAuthor = await person(app, ['author'], 'second');
   const { calcId, revisionId: revA } = await createCalc(firstAuthor.session);
-  await advanceTo('approved', { author: firstAuthor.session, checker: checker.session, approver: approver.session }, revA);
-  const b = expectStatus(await secondAuthor.session.post(`/api/calcs/${calcId}/revisions`, { reasonForChange: 'Longer coupling seat' }), 201, 'new revision');
+  await advanceTo(
+    'approved',
+    { author: firstAuthor.session, checker: checker.session, approver: approver.session },
+    revA,
+  );
+  const b = expectStatus(
+    await secondAuthor.session.post(`/api/calcs/${calcId}/revisions`, { reasonForChange: 'Longer coupling seat' }),
+    201,
+    'new revision',
+  );
   return { firstAuthor, checker, approver, secondAuthor, calcId, revA, revB: b.body.id as number };
 }
 
@@ -26,44 +43,74 @@ describe('independence across revisions', () => {
   it('when the author+checker who edited revision A signs revision B as checked, then it is refused though someone else wrote B', async () => {
     // Arrange
     const { firstAuthor, secondAuthor, revB } = await secondRevisionBy(['author', 'checker']);
-    await advanceTo('in_check', { author: secondAuthor.session, checker: secondAuthor.session, approver: secondAuthor.session }, revB);
+    await advanceTo(
+      'in_check',
+      { author: secondAuthor.session, checker: secondAuthor.session, approver: secondAuthor.session },
+      revB,
+    );
 
     // Act
     const res = await sign(firstAuthor.session, revB, 'checked');
 
     // Assert
     expect(res.status).toBe(403);
-    expect(res.body.message).toMatch(/You edited this calc, so you cannot sign it as checked; independence requires someone else/);
+    expect(res.body.message).toMatch(
+      /You edited this calc, so you cannot sign it as checked; independence requires someone else/,
+    );
     const b = await revisionOf(secondAuthor.session, revB);
     expect(b.status).toBe('in_check');
     expect(b.editorIds).toEqual(expect.arrayContaining([firstAuthor.user.id, secondAuthor.user.id]));
   });
 
   it.each([
-    ['raise a finding on', (p: Person, id: number) => p.session.post(`/api/revisions/${id}/findings`, { text: 'Fillet radius looks small' })],
-    ['tick a manual item of', (p: Person, id: number) => p.session.put(`/api/revisions/${id}/manual-items/load-cases`, { done: true })],
-    ['return', async (p: Person, id: number) => p.session.post(`/api/revisions/${id}/return`, { reason: 'Please recheck the torque', lockVersion: (await revisionOf(p.session, id)).lockVersion })],
-  ])('when the author+checker who edited revision A tries to %s revision B, then it is refused and nothing is recorded', async (_what, act) => {
-    // Arrange
-    const { firstAuthor, secondAuthor, revB } = await secondRevisionBy(['author', 'checker']);
-    await advanceTo('in_check', { author: secondAuthor.session, checker: secondAuthor.session, approver: secondAuthor.session }, revB);
-    const since = await lastAuditId();
+    [
+      'raise a finding on',
+      (p: Person, id: number) => p.session.post(`/api/revisions/${id}/findings`, { text: 'Fillet radius looks small' }),
+    ],
+    [
+      'tick a manual item of',
+      (p: Person, id: number) => p.session.put(`/api/revisions/${id}/manual-items/load-cases`, { done: true }),
+    ],
+    [
+      'return',
+      async (p: Person, id: number) =>
+        p.session.post(`/api/revisions/${id}/return`, {
+          reason: 'Please recheck the torque',
+          lockVersion: (await revisionOf(p.session, id)).lockVersion,
+        }),
+    ],
+  ])(
+    'when the author+checker who edited revision A tries to %s revision B, then it is refused and nothing is recorded',
+    async (_what, act) => {
+      // Arrange
+      const { firstAuthor, secondAuthor, revB } = await secondRevisionBy(['author', 'checker']);
+      await advanceTo(
+        'in_check',
+        { author: secondAuthor.session, checker: secondAuthor.session, approver: secondAuthor.session },
+        revB,
+      );
+      const since = await lastAuditId();
 
-    // Act
-    const res = await act(firstAuthor, revB);
+      // Act
+      const res = await act(firstAuthor, revB);
 
-    // Assert
-    expect(res.status).toBe(403);
-    expect(res.body.message).toMatch(/You edited this calc, so you cannot review it/);
-    const b = await revisionOf(secondAuthor.session, revB);
-    expect([b.status, b.findings, b.manualItems]).toEqual(['in_check', [], {}]);
-    expect(await auditOf('Revision', revB, since)).toEqual([]);
-  });
+      // Assert
+      expect(res.status).toBe(403);
+      expect(res.body.message).toMatch(/You edited this calc, so you cannot review it/);
+      const b = await revisionOf(secondAuthor.session, revB);
+      expect([b.status, b.findings, b.manualItems]).toEqual(['in_check', [], {}]);
+      expect(await auditOf('Revision', revB, since)).toEqual([]);
+    },
+  );
 
   it('when the author+approver who edited revision A signs revision B as approved, then it is refused', async () => {
     // Arrange
     const { firstAuthor, secondAuthor, checker, revB } = await secondRevisionBy(['author', 'approver']);
-    await advanceTo('checked', { author: secondAuthor.session, checker: checker.session, approver: checker.session }, revB);
+    await advanceTo(
+      'checked',
+      { author: secondAuthor.session, checker: checker.session, approver: checker.session },
+      revB,
+    );
 
     // Act
     const res = await sign(firstAuthor.session, revB, 'approved');
@@ -78,7 +125,11 @@ describe('independence across revisions', () => {
   it('when the checker of revision A checks revision B, then it is accepted', async () => {
     // Arrange
     const { checker, secondAuthor, revB } = await secondRevisionBy(['author']);
-    await advanceTo('in_check', { author: secondAuthor.session, checker: checker.session, approver: checker.session }, revB);
+    await advanceTo(
+      'in_check',
+      { author: secondAuthor.session, checker: checker.session, approver: checker.session },
+      revB,
+    );
     await tickAll(checker.session, revB);
 
     // Act
@@ -111,7 +162,11 @@ describe('independence within one revision', () => {
     const author = await person(app, ['author', 'approver'], 'authapp');
     const checker = await person(app, ['checker']);
     const { revisionId } = await createCalc(author.session);
-    await advanceTo('checked', { author: author.session, checker: checker.session, approver: checker.session }, revisionId);
+    await advanceTo(
+      'checked',
+      { author: author.session, checker: checker.session, approver: checker.session },
+      revisionId,
+    );
 
     // Act
     const res = await sign(author.session, revisionId, 'approved');

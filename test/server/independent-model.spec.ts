@@ -7,11 +7,19 @@ const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
 
 describe('independent model: blind check, lock and comparison', () => {
-  it('when a checker opens a revision that needs a model, then the author\'s input, results and checklist are left out until their model is locked', async () => {
+  it("when a checker opens a revision that needs a model, then the author's input, results and checklist are left out until their model is locked", async () => {
     const t = await modelTeam(app);
     const blind = await revisionOf(t.checker.session, t.revisionId);
-    expect(blind.verification).toEqual(expect.objectContaining({ blind: true, need: expect.objectContaining({ method: 'independent-model' }) }));
-    expect([blind.input, blind.result, blind.checklist, blind.verdict, blind.findings]).toEqual([{}, null, null, null, []]);
+    expect(blind.verification).toEqual(
+      expect.objectContaining({ blind: true, need: expect.objectContaining({ method: 'independent-model' }) }),
+    );
+    expect([blind.input, blind.result, blind.checklist, blind.verdict, blind.findings]).toEqual([
+      {},
+      null,
+      null,
+      null,
+      [],
+    ]);
     const calc = await t.checker.session.get(`/api/calcs/${blind.calcId}`);
     expect(calc.body.latest.verdict).toBeNull();
     const report = await t.checker.session.get(`/api/revisions/${t.revisionId}/report.pdf`);
@@ -20,9 +28,15 @@ describe('independent model: blind check, lock and comparison', () => {
     await saveModel(t.checker.session, t.revisionId, fixtureInput());
     expect((await revisionOf(t.checker.session, t.revisionId)).verification.blind).toBe(true);
     const locked = await lockModel(t.checker.session, t.revisionId);
-    expect(locked).toEqual(expect.objectContaining({ state: 'locked', agrees: true, modelHash: expect.stringMatching(/^[0-9a-f]{64}$/) }));
+    expect(locked).toEqual(
+      expect.objectContaining({ state: 'locked', agrees: true, modelHash: expect.stringMatching(/^[0-9a-f]{64}$/) }),
+    );
     const seen = await revisionOf(t.checker.session, t.revisionId);
-    expect([seen.verification.blind, seen.result !== null, seen.verification.model.agrees]).toEqual([false, true, true]);
+    expect([seen.verification.blind, seen.result !== null, seen.verification.model.agrees]).toEqual([
+      false,
+      true,
+      true,
+    ]);
   });
 
   it('when the models differ, then each difference is an open finding on its row with both values, and signing as checked waits until they are closed', async () => {
@@ -38,21 +52,41 @@ describe('independent model: blind check, lock and comparison', () => {
     expect(blocked.status).toBe(403);
 
     // The usual round: returned, answered by the author, resubmitted, closed by the checker.
-    expectStatus(await t.checker.session.post(`/api/revisions/${t.revisionId}/return`, { reason: 'See the model differences', lockVersion: rev.lockVersion }), 200, 'return');
+    expectStatus(
+      await t.checker.session.post(`/api/revisions/${t.revisionId}/return`, {
+        reason: 'See the model differences',
+        lockVersion: rev.lockVersion,
+      }),
+      200,
+      'return',
+    );
     for (const f of (await revisionOf(t.author.session, t.revisionId)).findings) {
-      expectStatus(await t.author.session.post(`/api/findings/${f.id}/answer`, { answer: 'Drawing rev C gives the larger seat; calc kept, see note' }), 200, 'answer');
+      expectStatus(
+        await t.author.session.post(`/api/findings/${f.id}/answer`, {
+          answer: 'Drawing rev C gives the larger seat; calc kept, see note',
+        }),
+        200,
+        'answer',
+      );
     }
     expectStatus(await sign(t.author.session, t.revisionId, 'authored'), 200, 'resubmit');
     for (const f of (await revisionOf(t.checker.session, t.revisionId)).findings) {
       expectStatus(await t.checker.session.post(`/api/findings/${f.id}/close`, {}), 200, 'close');
     }
     const signed = expectStatus(await sign(t.checker.session, t.revisionId, 'checked'), 200, 'check').body;
-    const byMeaning = Object.fromEntries(signed.signatures.map((s: { meaning: string; contentFormat: number; isValid: boolean }) => [s.meaning, [s.contentFormat, s.isValid]]));
+    const byMeaning = Object.fromEntries(
+      signed.signatures.map((s: { meaning: string; contentFormat: number; isValid: boolean }) => [
+        s.meaning,
+        [s.contentFormat, s.isValid],
+      ]),
+    );
     expect(byMeaning.checked).toEqual([3, true]);
     expect(signed.signatures.every((s: { isValid: boolean }) => s.isValid)).toBe(true);
     expect(signed.verification.signed).toEqual(expect.objectContaining({ agrees: false, modelHash: locked.modelHash }));
     const actions = (await auditOf('Revision', t.revisionId)).map((a) => a.action);
-    expect(actions).toEqual(expect.arrayContaining(['independent_model.started', 'independent_model.locked', 'revision.signed_checked']));
+    expect(actions).toEqual(
+      expect.arrayContaining(['independent_model.started', 'independent_model.locked', 'revision.signed_checked']),
+    );
   });
 
   it('when a checker signs as checked without a locked model, then it is refused', async () => {
@@ -64,12 +98,16 @@ describe('independent model: blind check, lock and comparison', () => {
 });
 
 describe('independent model signing blocker (the rule on its own)', () => {
-  const need = { method: 'independent-model' as const, reason: 'X asks for an independent model for every calc', tolerances: { inputs: 0.001, results: 0.02 } };
+  const need = {
+    method: 'independent-model' as const,
+    reason: 'X asks for an independent model for every calc',
+    tolerances: { inputs: 0.001, results: 0.02 },
+  };
   const model = { checkerId: 7, checkerName: 'Tobias', locked: true, agrees: false, authorHash: 'a' };
   const base = { need, signerId: 7, model, authorHashNow: 'a', unclosedDifferences: 0 };
   it.each([
     ['no model yet', { model: null }, /Build and lock your independent model/],
-    ['another checker\'s model', { signerId: 8 }, /Tobias built the independent model/],
+    ["another checker's model", { signerId: 8 }, /Tobias built the independent model/],
     ['an open model', { model: { ...model, locked: false } }, /Lock your independent model first/],
     ['the author changed the calc since', { authorHashNow: 'b' }, /compare again/],
     ['differences with findings not closed', { unclosedDifferences: 2 }, /2 difference\(s\)/],
@@ -78,9 +116,13 @@ describe('independent model signing blocker (the rule on its own)', () => {
   });
   it('when the differences are closed or the models agree, or the meaning is not "checked", then it does not block', () => {
     expect(independentModelBlocker('checked', base)).toBeNull();
-    expect(independentModelBlocker('checked', { ...base, model: { ...model, agrees: true }, unclosedDifferences: 3 })).toBeNull();
+    expect(
+      independentModelBlocker('checked', { ...base, model: { ...model, agrees: true }, unclosedDifferences: 3 }),
+    ).toBeNull();
     expect(independentModelBlocker('approved', { ...base, model: null })).toBeNull();
-    expect(independentModelBlocker('checked', { ...base, need: { ...need, method: 'review' }, model: null })).toBeNull();
+    expect(
+      independentModelBlocker('checked', { ...base, need: { ...need, method: 'review' }, model: null }),
+    ).toBeNull();
   });
 });
 
@@ -101,8 +143,20 @@ describe.each(MATRIX)('independent model integrity for %s', (who, expected) => {
   beforeAll(async () => {
     t = await modelTeam(app);
     await saveModel(t.checker.session, t.revisionId, fixtureInput());
-    const roles = { author: null, owner: null, 'other checker': ['checker'], approver: ['approver'], compliance: ['compliance'], admin: ['admin'] } as const;
-    s = who === 'author' ? t.author.session : who === 'owner' ? t.checker.session : (await person(app, [...roles[who]!] as never)).session;
+    const roles = {
+      author: null,
+      owner: null,
+      'other checker': ['checker'],
+      approver: ['approver'],
+      compliance: ['compliance'],
+      admin: ['admin'],
+    } as const;
+    s =
+      who === 'author'
+        ? t.author.session
+        : who === 'owner'
+          ? t.checker.session
+          : (await person(app, [...roles[who]!] as never)).session;
   });
 
   it(`when they read the checker's open model, then the API answers ${expected.readsOpen ? 200 : 403}`, async () => {
@@ -166,8 +220,16 @@ describe('independent model: bad input and new revisions', () => {
     const checker = await person(app, ['checker']);
     const approver = await person(app, ['approver']);
     const { revisionId } = await createCalc(author.session);
-    await advanceTo('in_check', { author: author.session, checker: checker.session, approver: approver.session }, revisionId);
-    expect((await revisionOf(checker.session, revisionId)).verification).toEqual(expect.objectContaining({ blind: false, need: expect.objectContaining({ method: 'review' }) }));
-    expect((await checker.session.put(modelUrl(revisionId), { input: fixtureInput(), lockVersion: 0 })).status).toBe(409);
+    await advanceTo(
+      'in_check',
+      { author: author.session, checker: checker.session, approver: approver.session },
+      revisionId,
+    );
+    expect((await revisionOf(checker.session, revisionId)).verification).toEqual(
+      expect.objectContaining({ blind: false, need: expect.objectContaining({ method: 'review' }) }),
+    );
+    expect((await checker.session.put(modelUrl(revisionId), { input: fixtureInput(), lockVersion: 0 })).status).toBe(
+      409,
+    );
   });
 });

@@ -22,10 +22,17 @@ async function nextCursor(url: string): Promise<string> {
 
 const LISTS: [string, () => Promise<string>][] = [
   ['calc list of a project, newest first', async () => `/api/calcs?projectId=${seeded.projectId}&size=50`],
-  ['calc list of a project in one state, by number', async () => `/api/calcs?projectId=${seeded.projectId}&status=draft&sort=number&dir=asc&size=50`],
+  [
+    'calc list of a project in one state, by number',
+    async () => `/api/calcs?projectId=${seeded.projectId}&status=draft&sort=number&dir=asc&size=50`,
+  ],
   ['calc list of the library, by title', async () => '/api/calcs?sort=title&dir=desc&size=50'],
   ['calc list of the library, by state', async () => '/api/calcs?sort=status&size=50'],
-  ['calc list, second page by keyset', async () => `/api/calcs?projectId=${seeded.projectId}&size=50&after=${await nextCursor(`/api/calcs?projectId=${seeded.projectId}&size=50`)}`],
+  [
+    'calc list, second page by keyset',
+    async () =>
+      `/api/calcs?projectId=${seeded.projectId}&size=50&after=${await nextCursor(`/api/calcs?projectId=${seeded.projectId}&size=50`)}`,
+  ],
   ['search box by words', async () => '/api/calcs?q=plan%20shaft&size=50'],
   ['search box by a short number', async () => '/api/calcs?q=P-&size=50'],
   ['queues', async () => '/api/dashboard/queues'],
@@ -37,24 +44,34 @@ const LISTS: [string, () => Promise<string>][] = [
   ['audit list of a calc', async () => `/api/audit?calcId=${seeded.calcId}&size=50`],
   ['audit list of a person', async () => `/api/audit?userId=${seeded.authorId}&size=50`],
   ['audit list by action', async () => '/api/audit?action=revision.signed&size=50'],
-  ['audit list, second page by keyset', async () => `/api/audit?projectId=${seeded.projectId}&size=50&after=${await nextCursor(`/api/audit?projectId=${seeded.projectId}&size=50`)}`],
+  [
+    'audit list, second page by keyset',
+    async () =>
+      `/api/audit?projectId=${seeded.projectId}&size=50&after=${await nextCursor(`/api/audit?projectId=${seeded.projectId}&size=50`)}`,
+  ],
   ['a calc with its revision history', async () => `/api/calcs/${seeded.calcId}`],
 ];
 
 describe('every list query is served by an index', () => {
-  it.each(LISTS)('when the %s is read, then no query scans revisions, calcs or audit entries end to end', async (_name, urlOf) => {
-    // Arrange
-    const url = await urlOf();
+  it.each(LISTS)(
+    'when the %s is read, then no query scans revisions, calcs or audit entries end to end',
+    async (_name, urlOf) => {
+      // Arrange
+      const url = await urlOf();
 
-    // Act
-    const selects = await capturedSelects(sequelize as Sequelize, async () => expect((await reader.get(url)).status).toBe(200));
+      // Act
+      const selects = await capturedSelects(sequelize as Sequelize, async () =>
+        expect((await reader.get(url)).status).toBe(200),
+      );
 
-    // Assert
-    expect(selects.length).toBeGreaterThan(0);
-    const scans = [];
-    for (const sql of selects) for (const row of await fullScans(sequelize as Sequelize, sql)) scans.push({ sql: sql.slice(0, 300), row });
-    expect(scans).toEqual([]);
-  });
+      // Assert
+      expect(selects.length).toBeGreaterThan(0);
+      const scans = [];
+      for (const sql of selects)
+        for (const row of await fullScans(sequelize as Sequelize, sql)) scans.push({ sql: sql.slice(0, 300), row });
+      expect(scans).toEqual([]);
+    },
+  );
 });
 
 describe('list pages read summaries, not contents', () => {
@@ -64,6 +81,8 @@ describe('list pages read summaries, not contents', () => {
       await reader.get(`/api/calcs/${seeded.calcId}`);
       await reader.get('/api/dashboard/queues');
     });
-    expect(selects.filter((s) => /`?(input|result|checklist)`?\s*(,|FROM)/i.test(s) && /revisions/i.test(s))).toEqual([]);
+    expect(selects.filter((s) => /`?(input|result|checklist)`?\s*(,|FROM)/i.test(s) && /revisions/i.test(s))).toEqual(
+      [],
+    );
   });
 });

@@ -15,14 +15,23 @@ describe('the longest names creation accepts', () => {
   it('when code, number, title and part reference are at their limits, then sign-off, mail, report and evidence pack all work', async () => {
     const admin = await signedInAs(ctx.app, ['admin', 'author'], 'long-admin');
     const [checker, approver, compliance] = await Promise.all([
-      signedInAs(ctx.app, ['checker'], 'long-checker'), signedInAs(ctx.app, ['approver'], 'long-approver'), signedInAs(ctx.app, ['compliance'], 'long-compliance'),
+      signedInAs(ctx.app, ['checker'], 'long-checker'),
+      signedInAs(ctx.app, ['approver'], 'long-approver'),
+      signedInAs(ctx.app, ['compliance'], 'long-compliance'),
     ]);
     const code = `L${randomUUID().replace(/-/g, '').toUpperCase()}`.slice(0, 32);
     const project = await admin.session.post('/api/projects', { code, name: 'P'.repeat(160), client: 'C'.repeat(160) });
     expect(project.status).toBe(201);
     const number = `N-${randomUUID().slice(0, 8)}-${'7'.repeat(40)}`.slice(0, 40);
     const title = `Long title ${'ø'.repeat(30)} ${'gear shaft '.repeat(20)}`.slice(0, 200);
-    const created = await admin.session.post('/api/calcs', { projectId: project.body.id, number, title, partRef: 'D'.repeat(120), ruleSetId: await effectiveRuleSetId(), input: fixtureInput() });
+    const created = await admin.session.post('/api/calcs', {
+      projectId: project.body.id,
+      number,
+      title,
+      partRef: 'D'.repeat(120),
+      ruleSetId: await effectiveRuleSetId(),
+      input: fixtureInput(),
+    });
     expect(created.status).toBe(201);
     const revisionId = created.body.latest.id as number;
     await upload(admin.session, revisionId, pdfBytes(), { kind: 'drawing' }, `${'d'.repeat(200)}.pdf`);
@@ -30,8 +39,15 @@ describe('the longest names creation accepts', () => {
 
     const steps = [await sign(admin.session, revisionId, 'authored')];
     await tickAll(checker.session, revisionId);
-    steps.push(await sign(checker.session, revisionId, 'checked'), await sign(approver.session, revisionId, 'approved'));
-    expect(steps.map((s) => [s.status, s.body.message])).toEqual([[200, undefined], [200, undefined], [200, undefined]]);
+    steps.push(
+      await sign(checker.session, revisionId, 'checked'),
+      await sign(approver.session, revisionId, 'approved'),
+    );
+    expect(steps.map((s) => [s.status, s.body.message])).toEqual([
+      [200, undefined],
+      [200, undefined],
+      [200, undefined],
+    ]);
 
     const mails = (await MailOutbox.findAll()).filter((m) => m.body.includes(number));
     expect(mails.length).toBeGreaterThan(0);

@@ -1,7 +1,15 @@
 import { randomUUID } from 'node:crypto';
 import { startTestApp, TEST_PASSWORD } from '../support/api-harness';
 import {
-  advanceTo, createCalc, expectStatus, mailAbout, person, revisionOf, sign, tickAll, type Team,
+  advanceTo,
+  createCalc,
+  expectStatus,
+  mailAbout,
+  person,
+  revisionOf,
+  sign,
+  tickAll,
+  type Team,
 } from '../support/calc-harness';
 import type { Role } from '../../shared/authz/roles';
 
@@ -21,7 +29,8 @@ async function team(roles: { author?: Role[]; checker?: Role[]; approver?: Role[
   return { author, checker, approver, sessions, ...(await createCalc(author.session)) };
 }
 
-const recipients = async (projectCode: string, event: string) => (await mailAbout(projectCode, event)).map((m) => m.recipient);
+const recipients = async (projectCode: string, event: string) =>
+  (await mailAbout(projectCode, event)).map((m) => m.recipient);
 
 describe('who hears of each hand-over', () => {
   it('when a calc is submitted, then checkers are told, but not its author+checker who wrote it, and no approver', async () => {
@@ -62,7 +71,10 @@ describe('who hears of each hand-over', () => {
     await advanceTo('in_check', t.sessions, t.revisionId);
 
     // Act
-    await t.checker.session.post(`/api/revisions/${t.revisionId}/return`, { reason: 'Use the certified Sy', lockVersion: (await revisionOf(t.author.session, t.revisionId)).lockVersion });
+    await t.checker.session.post(`/api/revisions/${t.revisionId}/return`, {
+      reason: 'Use the certified Sy',
+      lockVersion: (await revisionOf(t.author.session, t.revisionId)).lockVersion,
+    });
 
     // Assert
     const mails = await mailAbout(t.project.code, 'returned');
@@ -99,9 +111,28 @@ describe('who hears of each hand-over', () => {
 
 describe('a hand-over that fails writes no mail', () => {
   it.each([
-    ['the password is wrong', async (t: Awaited<ReturnType<typeof team>>) => sign(t.author.session, t.revisionId, 'authored', { password: 'not my password' }), 400],
-    ['the signer may not sign', async (t: Awaited<ReturnType<typeof team>>) => sign(t.checker.session, t.revisionId, 'authored'), 403],
-    ['the lockVersion is stale', async (t: Awaited<ReturnType<typeof team>>) => t.author.session.post(`/api/revisions/${t.revisionId}/sign`, { password: TEST_PASSWORD, meaning: 'authored', idempotencyKey: randomUUID(), lockVersion: 99 }), 409],
+    [
+      'the password is wrong',
+      async (t: Awaited<ReturnType<typeof team>>) =>
+        sign(t.author.session, t.revisionId, 'authored', { password: 'not my password' }),
+      400,
+    ],
+    [
+      'the signer may not sign',
+      async (t: Awaited<ReturnType<typeof team>>) => sign(t.checker.session, t.revisionId, 'authored'),
+      403,
+    ],
+    [
+      'the lockVersion is stale',
+      async (t: Awaited<ReturnType<typeof team>>) =>
+        t.author.session.post(`/api/revisions/${t.revisionId}/sign`, {
+          password: TEST_PASSWORD,
+          meaning: 'authored',
+          idempotencyKey: randomUUID(),
+          lockVersion: 99,
+        }),
+      409,
+    ],
   ])('when a submission fails because %s, then no mail is queued', async (_why, act, status) => {
     // Arrange
     const t = await team();
@@ -120,7 +151,10 @@ describe('a hand-over that fails writes no mail', () => {
     await advanceTo('in_check', t.sessions, t.revisionId);
 
     // Act
-    const res = await t.checker.session.post(`/api/revisions/${t.revisionId}/return`, { reason: 'Use the certified Sy', lockVersion: 99 });
+    const res = await t.checker.session.post(`/api/revisions/${t.revisionId}/return`, {
+      reason: 'Use the certified Sy',
+      lockVersion: 99,
+    });
 
     // Assert
     expect(res.status).toBe(409);
@@ -131,7 +165,10 @@ describe('a hand-over that fails writes no mail', () => {
     // Arrange
     const t = await team();
     await advanceTo('in_check', t.sessions, t.revisionId);
-    const returned = await t.checker.session.post(`/api/revisions/${t.revisionId}/return`, { reason: 'Cite the chart', lockVersion: 0 });
+    const returned = await t.checker.session.post(`/api/revisions/${t.revisionId}/return`, {
+      reason: 'Cite the chart',
+      lockVersion: 0,
+    });
     await t.author.session.post(`/api/findings/${returned.body.findings[0].id}/answer`, { answer: 'Peterson 3.2' });
     expectStatus(await sign(t.author.session, t.revisionId, 'authored'), 200, 'resubmit');
     await tickAll(t.checker.session, t.revisionId);

@@ -8,14 +8,25 @@ import { MailOutbox } from '../../server/db/models';
 // after the last attempt, and two app instances sharing one outbox. Time is a clock the test moves.
 const { app, sequelize } = startTestApp();
 let smtp: Awaited<ReturnType<typeof startTestSmtp>>;
-beforeAll(async () => { smtp = await startTestSmtp(); });
-afterAll(async () => { await smtp.close(); await sequelize.close(); });
+beforeAll(async () => {
+  smtp = await startTestSmtp();
+});
+afterAll(async () => {
+  await smtp.close();
+  await sequelize.close();
+});
 
 async function queue(count = 1) {
   const recipient = `someone-${randomUUID().slice(0, 8)}@example.test`;
-  const rows = await MailOutbox.bulkCreate(Array.from({ length: count }, (_, i) => ({
-    event: 'submitted', recipient, subject: `Ready for check: test ${i}`, body: 'A calc waits for you.', nextAttemptAt: new Date(),
-  })));
+  const rows = await MailOutbox.bulkCreate(
+    Array.from({ length: count }, (_, i) => ({
+      event: 'submitted',
+      recipient,
+      subject: `Ready for check: test ${i}`,
+      body: 'A calc waits for you.',
+      nextAttemptAt: new Date(),
+    })),
+  );
   return { recipient, ids: rows.map((r) => r.id) };
 }
 const arrivedFor = (to: string) => smtp.messages.filter((m) => m.envelopeTo.includes(to));
@@ -28,7 +39,11 @@ describe('mail sender', () => {
 
     expect(await down.sender.runOnce({ ids })).toEqual({ sent: 0, retrying: 1, failed: 0 });
     const first = (await MailOutbox.findByPk(ids[0]))!;
-    expect([first.status, first.attempts, first.nextAttemptAt.getTime() - now.getTime()]).toEqual(['pending', 1, 30_000]);
+    expect([first.status, first.attempts, first.nextAttemptAt.getTime() - now.getTime()]).toEqual([
+      'pending',
+      1,
+      30_000,
+    ]);
     expect(first.lastError).toMatch(/ECONNREFUSED|connect/i);
     expect(await down.sender.runOnce({ ids })).toEqual({ sent: 0, retrying: 0, failed: 0 });
     now = new Date(now.getTime() + 31_000);
@@ -73,7 +88,11 @@ describe('mail sender', () => {
     b.close();
 
     expect(ra.sent + rb.sent).toBe(8);
-    expect(arrivedFor(recipient).map((m) => m.subject).sort()).toEqual(ids.map((_, i) => `Ready for check: test ${i}`).sort());
+    expect(
+      arrivedFor(recipient)
+        .map((m) => m.subject)
+        .sort(),
+    ).toEqual(ids.map((_, i) => `Ready for check: test ${i}`).sort());
   });
 });
 
@@ -88,13 +107,23 @@ describe('sent mail screen', () => {
     expect(list.status).toBe(200);
     expect(list.body.items[0].id).toBeGreaterThanOrEqual(ids[0]);
     expect(list.body.items[0].body).toBeUndefined();
-    expect(one.body).toEqual(expect.objectContaining({ id: ids[0], status: 'pending', body: 'A calc waits for you.', messageId: expect.stringMatching(/^<tt-outbox-/) }));
+    expect(one.body).toEqual(
+      expect.objectContaining({
+        id: ids[0],
+        status: 'pending',
+        body: 'A calc waits for you.',
+        messageId: expect.stringMatching(/^<tt-outbox-/),
+      }),
+    );
   });
 
-  it.each([['author'], ['checker'], ['compliance']] as const)('when a %s asks for sent mail, then it is refused (403)', async (role) => {
-    const { session } = await signedInAs(app, [role]);
-    expect((await session.get('/api/mail/sent')).status).toBe(403);
-  });
+  it.each([['author'], ['checker'], ['compliance']] as const)(
+    'when a %s asks for sent mail, then it is refused (403)',
+    async (role) => {
+      const { session } = await signedInAs(app, [role]);
+      expect((await session.get('/api/mail/sent')).status).toBe(403);
+    },
+  );
 
   it('when nobody is signed in, or the query is wrong, or the mail does not exist, then 401, 400 and 404', async () => {
     const { agent } = await anonymousAgent(app);
@@ -111,7 +140,9 @@ describe('sent mail screen', () => {
     const recipient = `reader-${randomUUID().slice(0, 8)}@example.test`;
     const subject = 'Ready for check: KFD-Ø50 “Förderwelle” – rev B → approved?';
     const body = `Torque 1 250 N·m, τ = 41.6 MPa; ${'a long line that a sender must fold or encode '.repeat(6)}\nSecond line: Größe ≥ 50 mm.`;
-    const [row] = await MailOutbox.bulkCreate([{ event: 'submitted', recipient, subject, body, nextAttemptAt: new Date() }]);
+    const [row] = await MailOutbox.bulkCreate([
+      { event: 'submitted', recipient, subject, body, nextAttemptAt: new Date() },
+    ]);
     const { sender, close } = senderFor(sequelize, smtp.port);
 
     await sender.runOnce({ ids: [row.id] });

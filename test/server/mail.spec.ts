@@ -1,5 +1,16 @@
 import { TEST_PASSWORD, startTestApp } from '../support/api-harness';
-import { advanceTo, calcTeam, createCalc, expectStatus, person, revisionOf, sign, testStandard, tickAll, withParameter } from '../support/calc-harness';
+import {
+  advanceTo,
+  calcTeam,
+  createCalc,
+  expectStatus,
+  person,
+  revisionOf,
+  sign,
+  testStandard,
+  tickAll,
+  withParameter,
+} from '../support/calc-harness';
 import { startTestSmtp } from '../support/fake-servers';
 import { emailsOf, outboxFor, senderFor } from '../support/mail-harness';
 
@@ -7,8 +18,13 @@ import { emailsOf, outboxFor, senderFor } from '../support/mail-harness';
 // to the fake server, and the test reads what arrived there.
 const { app, sequelize } = startTestApp();
 let smtp: Awaited<ReturnType<typeof startTestSmtp>>;
-beforeAll(async () => { smtp = await startTestSmtp(); });
-afterAll(async () => { await smtp.close(); await sequelize.close(); });
+beforeAll(async () => {
+  smtp = await startTestSmtp();
+});
+afterAll(async () => {
+  await smtp.close();
+  await sequelize.close();
+});
 
 async function deliverTo(addresses: string[]) {
   const { sender, close } = senderFor(sequelize, smtp.port);
@@ -21,7 +37,10 @@ async function deliverTo(addresses: string[]) {
 async function returnAndResubmit(team: Awaited<ReturnType<typeof calcTeam>>) {
   const { author, checker, revisionId } = team;
   const r = await revisionOf(checker.session, revisionId);
-  await checker.session.post(`/api/revisions/${revisionId}/return`, { reason: 'Use the certified Sy for 1045 CD', lockVersion: r.lockVersion });
+  await checker.session.post(`/api/revisions/${revisionId}/return`, {
+    reason: 'Use the certified Sy for 1045 CD',
+    lockVersion: r.lockVersion,
+  });
   const finding = (await revisionOf(author.session, revisionId)).findings[0];
   await author.session.post(`/api/findings/${finding.id}/answer`, { answer: 'Sy from the mill certificate, 530 MPa' });
   const resubmitted = await sign(author.session, revisionId, 'authored');
@@ -32,7 +51,11 @@ async function returnAndResubmit(team: Awaited<ReturnType<typeof calcTeam>>) {
 describe('hand-over mail', () => {
   it('when a calc is submitted, returned, resubmitted, checked and approved, then each mail reaches the right people', async () => {
     const team = await calcTeam(app);
-    const [authorMail, checkerMail, approverMail] = await emailsOf(team.author.user.id, team.checker.user.id, team.approver.user.id);
+    const [authorMail, checkerMail, approverMail] = await emailsOf(
+      team.author.user.id,
+      team.checker.user.id,
+      team.approver.user.id,
+    );
 
     expect((await sign(team.author.session, team.revisionId, 'authored')).status).toBe(200);
     expect((await returnAndResubmit(team)).status).toBe(200);
@@ -41,7 +64,8 @@ describe('hand-over mail', () => {
     expect((await sign(team.approver.session, team.revisionId, 'approved')).status).toBe(200);
     const received = await deliverTo([authorMail, checkerMail, approverMail]);
 
-    const subjectsTo = (to: string) => received.filter((m) => m.envelopeTo.includes(to)).map((m) => m.subject.split(':')[0]);
+    const subjectsTo = (to: string) =>
+      received.filter((m) => m.envelopeTo.includes(to)).map((m) => m.subject.split(':')[0]);
     expect(subjectsTo(checkerMail)).toEqual(['Ready for check', 'Ready for check']);
     expect(subjectsTo(authorMail)).toEqual(['Returned with findings', 'Approved']);
     expect(subjectsTo(approverMail)).toEqual(['Ready for approval']);
@@ -58,7 +82,9 @@ describe('hand-over mail', () => {
     const [authorMail, approverMail] = await emailsOf(team.author.user.id, team.approver.user.id);
     const saved = await team.author.session.put('/api/mail/preferences', { preferences: { approved: false } });
     expect(saved.status).toBe(200);
-    expect(saved.body.find((p: { event: string }) => p.event === 'approved')).toEqual(expect.objectContaining({ enabled: false, appliesToYou: true }));
+    expect(saved.body.find((p: { event: string }) => p.event === 'approved')).toEqual(
+      expect.objectContaining({ enabled: false, appliesToYou: true }),
+    );
 
     await sign(team.author.session, team.revisionId, 'authored');
     await tickAll(team.checker.session, team.revisionId);
@@ -85,14 +111,46 @@ describe('hand-over mail', () => {
     const team = await calcTeam(app);
     const standard = await testStandard();
     const { revisionId } = await createCalc(team.author.session, { ruleSetId: standard.id });
-    await advanceTo('approved', { author: team.author.session, checker: team.checker.session, approver: team.approver.session }, revisionId);
-    const [drafter, confirmer] = [await person(app, ['compliance'], 'drafter'), await person(app, ['compliance'], 'confirmer')];
-    const draft = expectStatus(await drafter.session.post('/api/rule-sets', { fromId: standard.id }), 201, 'draft').body;
-    const stricter = { ...withParameter(draft.document, 'minYieldSafety', 50), changeSummary: 'Yield safety raised for a test' };
-    const saved = expectStatus(await drafter.session.put(`/api/rule-sets/${draft.id}`, { document: stricter, lockVersion: draft.lockVersion }), 200, 'save').body;
-    const proposed = expectStatus(await drafter.session.post(`/api/rule-sets/${draft.id}/propose`, { effectiveDate: '2026-01-01', lockVersion: saved.lockVersion }), 200, 'propose').body;
+    await advanceTo(
+      'approved',
+      { author: team.author.session, checker: team.checker.session, approver: team.approver.session },
+      revisionId,
+    );
+    const [drafter, confirmer] = [
+      await person(app, ['compliance'], 'drafter'),
+      await person(app, ['compliance'], 'confirmer'),
+    ];
+    const draft = expectStatus(
+      await drafter.session.post('/api/rule-sets', { fromId: standard.id }),
+      201,
+      'draft',
+    ).body;
+    const stricter = {
+      ...withParameter(draft.document, 'minYieldSafety', 50),
+      changeSummary: 'Yield safety raised for a test',
+    };
+    const saved = expectStatus(
+      await drafter.session.put(`/api/rule-sets/${draft.id}`, { document: stricter, lockVersion: draft.lockVersion }),
+      200,
+      'save',
+    ).body;
+    const proposed = expectStatus(
+      await drafter.session.post(`/api/rule-sets/${draft.id}/propose`, {
+        effectiveDate: '2026-01-01',
+        lockVersion: saved.lockVersion,
+      }),
+      200,
+      'propose',
+    ).body;
 
-    expectStatus(await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, { password: TEST_PASSWORD, lockVersion: proposed.lockVersion }), 200, 'confirm');
+    expectStatus(
+      await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, {
+        password: TEST_PASSWORD,
+        lockVersion: proposed.lockVersion,
+      }),
+      200,
+      'confirm',
+    );
     const received = await deliverTo([drafter.email, confirmer.email, (await emailsOf(team.author.user.id))[0]]);
 
     const impact = received.filter((m) => m.headers['x-torquetrail-event'] === 'impact');

@@ -1,6 +1,14 @@
 import { startTestApp } from '../support/api-harness';
 import {
-  advanceTo, auditOf, createCalc, lastAuditId, person, revisionOf, sign, tickAll, type Team,
+  advanceTo,
+  auditOf,
+  createCalc,
+  lastAuditId,
+  person,
+  revisionOf,
+  sign,
+  tickAll,
+  type Team,
 } from '../support/calc-harness';
 
 const { app, sequelize } = startTestApp();
@@ -19,8 +27,12 @@ async function team(state: 'draft' | 'in_check' | 'checked' = 'in_check') {
   return { author, checker, approver, revisionId, sessions };
 }
 
-const tick = (s: Team['checker'], id: number, item: string, body: object = { done: true, note: 'Seen cert 3.1 no. 4471' }) =>
-  s.put(`/api/revisions/${id}/manual-items/${item}`, body);
+const tick = (
+  s: Team['checker'],
+  id: number,
+  item: string,
+  body: object = { done: true, note: 'Seen cert 3.1 no. 4471' },
+) => s.put(`/api/revisions/${id}/manual-items/${item}`, body);
 
 describe('ticking manual items', () => {
   it('when the independent checker ticks an item during check, then it is recorded with their name and audited', async () => {
@@ -33,27 +45,44 @@ describe('ticking manual items', () => {
 
     // Assert
     expect(res.status).toBe(200);
-    expect(res.body.manualItems['material-certificate']).toEqual({ done: true, note: 'Seen cert 3.1 no. 4471', by: t.checker.displayName, at: expect.any(String) });
-    expect(await auditOf('Revision', t.revisionId, since)).toEqual([expect.objectContaining({
-      action: 'revision.manual_item', actorId: t.checker.user.id, payload: { itemId: 'material-certificate', done: true, note: 'Seen cert 3.1 no. 4471' },
-    })]);
+    expect(res.body.manualItems['material-certificate']).toEqual({
+      done: true,
+      note: 'Seen cert 3.1 no. 4471',
+      by: t.checker.displayName,
+      at: expect.any(String),
+    });
+    expect(await auditOf('Revision', t.revisionId, since)).toEqual([
+      expect.objectContaining({
+        action: 'revision.manual_item',
+        actorId: t.checker.user.id,
+        payload: { itemId: 'material-certificate', done: true, note: 'Seen cert 3.1 no. 4471' },
+      }),
+    ]);
   });
 
   it.each([
-    ['the author', 'in check', 'author'], ['an approver', 'in check', 'approver'], ['the checker', 'draft', 'checker'], ['the checker', 'checked', 'checker'],
-  ] as const)('when %s ticks an item while the revision is %s, then it is refused with 403 and nothing is ticked', async (_who, state, role) => {
-    // Arrange
-    const t = await team(state === 'in check' ? 'in_check' : state);
-    const before = (await revisionOf(t.sessions.author, t.revisionId)).manualItems;
+    ['the author', 'in check', 'author'],
+    ['an approver', 'in check', 'approver'],
+    ['the checker', 'draft', 'checker'],
+    ['the checker', 'checked', 'checker'],
+  ] as const)(
+    'when %s ticks an item while the revision is %s, then it is refused with 403 and nothing is ticked',
+    async (_who, state, role) => {
+      // Arrange
+      const t = await team(state === 'in check' ? 'in_check' : state);
+      const before = (await revisionOf(t.sessions.author, t.revisionId)).manualItems;
 
-    // Act
-    const res = await tick(t.sessions[role], t.revisionId, 'load-cases');
+      // Act
+      const res = await tick(t.sessions[role], t.revisionId, 'load-cases');
 
-    // Assert
-    expect(res.status).toBe(403);
-    expect(res.body.message).toMatch(/Manual checklist items are ticked by the independent checker while the calc is in check/);
-    expect((await revisionOf(t.sessions.author, t.revisionId)).manualItems).toEqual(before);
-  });
+      // Assert
+      expect(res.status).toBe(403);
+      expect(res.body.message).toMatch(
+        /Manual checklist items are ticked by the independent checker while the calc is in check/,
+      );
+      expect((await revisionOf(t.sessions.author, t.revisionId)).manualItems).toEqual(before);
+    },
+  );
 
   it('when a compliance user ticks an item, then it is refused with 403', async () => {
     // Arrange
@@ -92,7 +121,10 @@ describe('ticking manual items', () => {
     const t = await team();
 
     // Act
-    const res = await t.checker.session.put(`/api/revisions/${t.revisionId}/manual-items/${encodeURIComponent(item)}`, body);
+    const res = await t.checker.session.put(
+      `/api/revisions/${t.revisionId}/manual-items/${encodeURIComponent(item)}`,
+      body,
+    );
 
     // Assert
     expect(res.status).toBe(400);

@@ -35,25 +35,33 @@ beforeAll(async () => {
 });
 
 describe('single-number mutations of valid calcs', () => {
-  it.each(['five-segment-fatigue', 'stepped-us', 'hollow-si'])('when each number of %s becomes 1e200, 1e-200, 0, -x or 1e308, then nothing non-finite is stored and no compliant verdict rests on an error row', async (name) => {
-    const input = fixtureInput(name);
-    let probes = 0;
-    for (const path of numberPaths(input)) {
-      const x = path.reduce<unknown>((o, k) => (o as Record<string | number, unknown>)[k], input) as number;
-      for (const value of [1e200, 1e-200, 0, -x, 1e308]) {
-        const computed = await computeRecord(mutate(input, path, value), doc);
-        const where = `${path.join('.')} = ${value}`;
-        expect([where, nonFinitePath(computed.result), nonFinitePath(computed.checklist)]).toEqual([where, null, null]);
-        expect(() => stored(computed)).not.toThrow();
-        if (computed.verdict === 'compliant') {
-          expect([where, computed.checklist!.rows.filter((r) => r.status === 'error').length]).toEqual([where, 0]);
+  it.each(['five-segment-fatigue', 'stepped-us', 'hollow-si'])(
+    'when each number of %s becomes 1e200, 1e-200, 0, -x or 1e308, then nothing non-finite is stored and no compliant verdict rests on an error row',
+    async (name) => {
+      const input = fixtureInput(name);
+      let probes = 0;
+      for (const path of numberPaths(input)) {
+        const x = path.reduce<unknown>((o, k) => (o as Record<string | number, unknown>)[k], input) as number;
+        for (const value of [1e200, 1e-200, 0, -x, 1e308]) {
+          const computed = await computeRecord(mutate(input, path, value), doc);
+          const where = `${path.join('.')} = ${value}`;
+          expect([where, nonFinitePath(computed.result), nonFinitePath(computed.checklist)]).toEqual([
+            where,
+            null,
+            null,
+          ]);
+          expect(() => stored(computed)).not.toThrow();
+          if (computed.verdict === 'compliant') {
+            expect([where, computed.checklist!.rows.filter((r) => r.status === 'error').length]).toEqual([where, 0]);
+          }
+          if (computed.result === null)
+            expect([where, computed.verdict, computed.inputIssues.length > 0]).toEqual([where, null, true]);
+          probes++;
         }
-        if (computed.result === null) expect([where, computed.verdict, computed.inputIssues.length > 0]).toEqual([where, null, true]);
-        probes++;
       }
-    }
-    expect(probes).toBeGreaterThan(50);
-  });
+      expect(probes).toBeGreaterThan(50);
+    },
+  );
 });
 
 describe('clauses on facts that are not finite', () => {
@@ -79,7 +87,10 @@ describe('signing', () => {
     const r = await revisionOf(team.author.session, team.revisionId);
     const input = structuredClone(r.input);
     input.segments[0].od = 1e200;
-    const saved = await team.author.session.put(`/api/revisions/${team.revisionId}`, { input, lockVersion: r.lockVersion });
+    const saved = await team.author.session.put(`/api/revisions/${team.revisionId}`, {
+      input,
+      lockVersion: r.lockVersion,
+    });
     expect(saved.status).toBe(200);
     expect(saved.body.verdict).not.toBe('compliant');
     const row = (await Revision.findByPk(team.revisionId))!;
@@ -87,18 +98,33 @@ describe('signing', () => {
     // Out of range (and od⁴ would overflow J): no result is stored, never one with nulls.
     expect([row.result, row.checklist, row.verdict]).toEqual([null, null, null]);
     // The engine refuses the value itself (plausible ranges); the server's guard stands behind it.
-    expect(saved.body.inputIssues).toEqual([expect.objectContaining({ path: expect.stringMatching(/^segments\[0\]/) })]);
+    expect(saved.body.inputIssues).toEqual([
+      expect.objectContaining({ path: expect.stringMatching(/^segments\[0\]/) }),
+    ]);
     const signed = await sign(team.author.session, team.revisionId, 'authored');
     expect(signed.status).toBe(403);
   });
 
-  it.each(['authored', 'checked', 'approved'] as const)('when a checklist has an error row, then signing as %s is refused even with a compliant verdict', (meaning) => {
-    const state = { authored: 'draft', checked: 'in_check', approved: 'checked' } as const;
-    const blocker = signingBlocker(meaning, {
-      actor: { id: 9, roles: ['author', 'checker', 'approver'] },
-      revision: { status: state[meaning], authorId: meaning === 'authored' ? 9 : 1, checkerId: 2, hasResult: true, verdict: 'compliant', errorRows: 1 },
-      editorIds: [], openFindings: 0, unresolvedFindings: 0, openManualItems: 0,
-    });
-    expect(blocker).toMatch(/could not be evaluated/);
-  });
+  it.each(['authored', 'checked', 'approved'] as const)(
+    'when a checklist has an error row, then signing as %s is refused even with a compliant verdict',
+    (meaning) => {
+      const state = { authored: 'draft', checked: 'in_check', approved: 'checked' } as const;
+      const blocker = signingBlocker(meaning, {
+        actor: { id: 9, roles: ['author', 'checker', 'approver'] },
+        revision: {
+          status: state[meaning],
+          authorId: meaning === 'authored' ? 9 : 1,
+          checkerId: 2,
+          hasResult: true,
+          verdict: 'compliant',
+          errorRows: 1,
+        },
+        editorIds: [],
+        openFindings: 0,
+        unresolvedFindings: 0,
+        openManualItems: 0,
+      });
+      expect(blocker).toMatch(/could not be evaluated/);
+    },
+  );
 });

@@ -10,7 +10,11 @@ afterAll(() => sequelize.close());
 async function signInWith(username: string, userAgent: string) {
   const agent = request.agent(app).set('user-agent', userAgent);
   const token = (await agent.get('/api/session')).body.csrfToken as string;
-  const login = await agent.post('/api/auth/login').set('x-csrf-token', token).send({ username, password: TEST_PASSWORD }).expect(200);
+  const login = await agent
+    .post('/api/auth/login')
+    .set('x-csrf-token', token)
+    .send({ username, password: TEST_PASSWORD })
+    .expect(200);
   const csrf = login.body.csrfToken as string;
   return {
     get: (url: string) => agent.get(url),
@@ -30,7 +34,9 @@ describe('a password change', () => {
     const laptop = await signInWith(user.username, 'Laptop/1');
     const phone = await signInWith(user.username, 'Phone/1');
 
-    await laptop.post('/api/auth/password', { currentPassword: TEST_PASSWORD, newPassword: 'a much longer new password' }).expect(204);
+    await laptop
+      .post('/api/auth/password', { currentPassword: TEST_PASSWORD, newPassword: 'a much longer new password' })
+      .expect(204);
 
     expect((await phone.get('/api/projects')).status).toBe(401);
     expect((await phone.get('/api/session')).body.user).toBeNull();
@@ -45,7 +51,9 @@ describe('a password change', () => {
     const mine = await signedInAgent(app, me.username);
     const theirs = await signedInAgent(app, other.username);
 
-    await theirs.post('/api/auth/password', { currentPassword: TEST_PASSWORD, newPassword: 'another long new password' }).expect(204);
+    await theirs
+      .post('/api/auth/password', { currentPassword: TEST_PASSWORD, newPassword: 'another long new password' })
+      .expect(204);
 
     expect((await mine.get('/api/projects')).status).toBe(200);
   });
@@ -93,7 +101,7 @@ describe('the list of my sessions', () => {
     expect(res.body.message).toMatch(/sign out/);
   });
 
-  it('when someone names another person\'s session, then it is not found and that session goes on', async () => {
+  it("when someone names another person's session, then it is not found and that session goes on", async () => {
     const victim = await createTestUser(['approver']);
     const intruder = await createTestUser(['admin']);
     const victimSession = await signInWith(victim.username, 'Victim/1');

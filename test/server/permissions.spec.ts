@@ -20,10 +20,22 @@ const MATRIX: [string, Role[], Expected][] = [
   ['author', ['author'], { seesAllUsers: false, managesUsers: false, managesProjects: false, readsAudit: false }],
   ['checker', ['checker'], { seesAllUsers: false, managesUsers: false, managesProjects: false, readsAudit: false }],
   ['approver', ['approver'], { seesAllUsers: false, managesUsers: false, managesProjects: false, readsAudit: false }],
-  ['compliance', ['compliance'], { seesAllUsers: false, managesUsers: false, managesProjects: false, readsAudit: true }],
+  [
+    'compliance',
+    ['compliance'],
+    { seesAllUsers: false, managesUsers: false, managesProjects: false, readsAudit: true },
+  ],
   ['admin', ['admin'], { seesAllUsers: true, managesUsers: true, managesProjects: true, readsAudit: true }],
-  ['author + checker', ['author', 'checker'], { seesAllUsers: false, managesUsers: false, managesProjects: false, readsAudit: false }],
-  ['author + admin', ['author', 'admin'], { seesAllUsers: true, managesUsers: true, managesProjects: true, readsAudit: true }],
+  [
+    'author + checker',
+    ['author', 'checker'],
+    { seesAllUsers: false, managesUsers: false, managesProjects: false, readsAudit: false },
+  ],
+  [
+    'author + admin',
+    ['author', 'admin'],
+    { seesAllUsers: true, managesUsers: true, managesProjects: true, readsAudit: true },
+  ],
 ];
 
 // A forbidden answer must explain itself: the client shows the message as it comes.
@@ -38,8 +50,11 @@ function expectAllowedOr403(res: Response, allowed: boolean, okStatus = 200): vo
 }
 
 const newUserBody = () => ({
-  username: `made-${randomUUID().slice(0, 8)}`, displayName: 'Made In Test', email: 'made@example.test',
-  roles: ['author'], initialPassword: TEST_PASSWORD,
+  username: `made-${randomUUID().slice(0, 8)}`,
+  displayName: 'Made In Test',
+  email: 'made@example.test',
+  roles: ['author'],
+  initialPassword: TEST_PASSWORD,
 });
 
 describe.each(MATRIX)('permission matrix: %s', (_label, roles, expected) => {
@@ -82,7 +97,10 @@ describe.each(MATRIX)('permission matrix: %s', (_label, roles, expected) => {
   });
 
   it(`when they create a project, then the API answers ${expected.managesProjects ? 201 : 403}`, async () => {
-    const res = await s.post('/api/projects', { code: `P-${randomUUID().slice(0, 8)}`.toUpperCase(), name: 'Conveyor head shaft' });
+    const res = await s.post('/api/projects', {
+      code: `P-${randomUUID().slice(0, 8)}`.toUpperCase(),
+      name: 'Conveyor head shaft',
+    });
     expectAllowedOr403(res, expected.managesProjects, 201);
   });
 

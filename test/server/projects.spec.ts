@@ -13,7 +13,9 @@ describe('creating projects', () => {
     const res = await admin.post('/api/projects', { code, name: 'Slurry pump drive shaft', client: 'Invented Mining' });
 
     expect(res.status).toBe(201);
-    expect(res.body).toEqual(expect.objectContaining({ code, status: 'active', revisionScheme: 'letters', description: '', version: 0 }));
+    expect(res.body).toEqual(
+      expect.objectContaining({ code, status: 'active', revisionScheme: 'letters', description: '', version: 0 }),
+    );
   });
 
   it('when the code is already in use, then it is a 409 naming the code', async () => {
@@ -48,7 +50,9 @@ describe('reading projects', () => {
     const { session: admin } = await signedInAs(app, ['admin']);
 
     const [byAuthor, byCompliance, byAdmin] = await Promise.all([
-      author.get(`/api/projects/${archived.id}`), compliance.get(`/api/projects/${archived.id}`), admin.get(`/api/projects/${archived.id}`),
+      author.get(`/api/projects/${archived.id}`),
+      compliance.get(`/api/projects/${archived.id}`),
+      admin.get(`/api/projects/${archived.id}`),
     ]);
 
     expect(byAuthor.status).toBe(403);

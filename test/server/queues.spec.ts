@@ -1,5 +1,15 @@
 import { startTestApp } from '../support/api-harness';
-import { advanceTo, createCalc, expectStatus, person, revisionOf, sign, tickAll, type Session, type Team } from '../support/calc-harness';
+import {
+  advanceTo,
+  createCalc,
+  expectStatus,
+  person,
+  revisionOf,
+  sign,
+  tickAll,
+  type Session,
+  type Team,
+} from '../support/calc-harness';
 import type { Role } from '../../shared/authz/roles';
 
 const { app, sequelize } = startTestApp();
@@ -9,7 +19,9 @@ type QueueKey = 'my-drafts' | 'returned-to-me' | 'awaiting-my-check' | 'awaiting
 
 async function queues(s: Session): Promise<Record<string, number[]>> {
   const res = expectStatus(await s.get('/api/dashboard/queues?size=500'), 200, 'queues');
-  return Object.fromEntries(res.body.map((q: { key: QueueKey; items: { revisionId: number }[] }) => [q.key, q.items.map((i) => i.revisionId)]));
+  return Object.fromEntries(
+    res.body.map((q: { key: QueueKey; items: { revisionId: number }[] }) => [q.key, q.items.map((i) => i.revisionId)]),
+  );
 }
 
 async function team(authorRoles: Role[] = ['author']) {
@@ -27,22 +39,28 @@ describe('which queues a person has', () => {
     [['approver'], ['awaiting-my-approval']],
     [['compliance'], []],
     [['admin'], []],
-    [['author', 'checker'], ['my-drafts', 'returned-to-me', 'awaiting-my-check']],
-  ] as [Role[], QueueKey[]][])('when someone with the roles %j opens their queues, then they get %j', async (roles, keys) => {
-    // Arrange
-    const someone = await person(app, roles);
+    [
+      ['author', 'checker'],
+      ['my-drafts', 'returned-to-me', 'awaiting-my-check'],
+    ],
+  ] as [Role[], QueueKey[]][])(
+    'when someone with the roles %j opens their queues, then they get %j',
+    async (roles, keys) => {
+      // Arrange
+      const someone = await person(app, roles);
 
-    // Act
-    const res = await someone.session.get('/api/dashboard/queues');
+      // Act
+      const res = await someone.session.get('/api/dashboard/queues');
 
-    // Assert
-    expect(res.status).toBe(200);
-    expect(res.body.map((q: { key: string }) => q.key)).toEqual(keys);
-  });
+      // Assert
+      expect(res.status).toBe(200);
+      expect(res.body.map((q: { key: string }) => q.key)).toEqual(keys);
+    },
+  );
 });
 
-describe('the author\'s queues', () => {
-  it('when an author has a draft, then it is in their drafts, not in another author\'s, and leaves once submitted', async () => {
+describe("the author's queues", () => {
+  it("when an author has a draft, then it is in their drafts, not in another author's, and leaves once submitted", async () => {
     // Arrange
     const t = await team();
     const other = await person(app, ['author'], 'other');
@@ -59,13 +77,16 @@ describe('the author\'s queues', () => {
     expect(afterSubmit['my-drafts']).not.toContain(t.revisionId);
   });
 
-  it('when a calc is returned, then it waits in its author\'s returned queue and not in their drafts', async () => {
+  it("when a calc is returned, then it waits in its author's returned queue and not in their drafts", async () => {
     // Arrange
     const t = await team();
     await advanceTo('in_check', t.sessions, t.revisionId);
 
     // Act
-    await t.checker.session.post(`/api/revisions/${t.revisionId}/return`, { reason: 'Missing fatigue data', lockVersion: (await revisionOf(t.author.session, t.revisionId)).lockVersion });
+    await t.checker.session.post(`/api/revisions/${t.revisionId}/return`, {
+      reason: 'Missing fatigue data',
+      lockVersion: (await revisionOf(t.author.session, t.revisionId)).lockVersion,
+    });
 
     // Assert
     const q = await queues(t.author.session);
@@ -74,13 +95,17 @@ describe('the author\'s queues', () => {
   });
 });
 
-describe('the checker\'s queue', () => {
+describe("the checker's queue", () => {
   it('when a calc is submitted, then it waits for every independent checker but not for a checker who edited it', async () => {
     // Arrange
     const t = await team(['author', 'checker']);
     const second = await person(app, ['author'], 'second');
     await advanceTo('approved', t.sessions, t.revisionId);
-    const b = expectStatus(await second.session.post(`/api/calcs/${t.calcId}/revisions`, { reasonForChange: 'Longer coupling seat' }), 201, 'revision B').body;
+    const b = expectStatus(
+      await second.session.post(`/api/calcs/${t.calcId}/revisions`, { reasonForChange: 'Longer coupling seat' }),
+      201,
+      'revision B',
+    ).body;
 
     // Act
     await advanceTo('in_check', { ...t.sessions, author: second.session }, b.id);
@@ -90,7 +115,7 @@ describe('the checker\'s queue', () => {
     expect((await queues(t.author.session))['awaiting-my-check']).not.toContain(b.id);
   });
 
-  it('when a calc in check is signed as checked, then it leaves the checkers\' queue', async () => {
+  it("when a calc in check is signed as checked, then it leaves the checkers' queue", async () => {
     // Arrange
     const t = await team();
     const bystander = await person(app, ['checker']);
@@ -107,7 +132,7 @@ describe('the checker\'s queue', () => {
   });
 });
 
-describe('the approver\'s queue', () => {
+describe("the approver's queue", () => {
   it('when a calc is checked, then it waits for an independent approver but not for the checker+approver who checked it', async () => {
     // Arrange
     const author = await person(app, ['author']);
@@ -116,7 +141,11 @@ describe('the approver\'s queue', () => {
     const { revisionId } = await createCalc(author.session);
 
     // Act
-    await advanceTo('checked', { author: author.session, checker: both.session, approver: approver.session }, revisionId);
+    await advanceTo(
+      'checked',
+      { author: author.session, checker: both.session, approver: approver.session },
+      revisionId,
+    );
 
     // Assert
     expect((await queues(approver.session))['awaiting-my-approval']).toContain(revisionId);
@@ -128,7 +157,11 @@ describe('the approver\'s queue', () => {
     const t = await team(['author', 'approver']);
     const second = await person(app, ['author'], 'second');
     await advanceTo('approved', t.sessions, t.revisionId);
-    const b = expectStatus(await second.session.post(`/api/calcs/${t.calcId}/revisions`, { reasonForChange: 'Longer coupling seat' }), 201, 'revision B').body;
+    const b = expectStatus(
+      await second.session.post(`/api/calcs/${t.calcId}/revisions`, { reasonForChange: 'Longer coupling seat' }),
+      201,
+      'revision B',
+    ).body;
 
     // Act
     await advanceTo('checked', { ...t.sessions, author: second.session }, b.id);

@@ -104,9 +104,12 @@ describe('MariaDB rate-limit store', () => {
     const store = newStore();
     await store.increment('k');
     await store.increment('k');
-    await first.sequelize.query("UPDATE rate_limit_hits SET reset_at = UTC_TIMESTAMP(3) - INTERVAL 1 SECOND WHERE rate_key = :key", {
-      replacements: { key: `${store.prefix}k` },
-    });
+    await first.sequelize.query(
+      'UPDATE rate_limit_hits SET reset_at = UTC_TIMESTAMP(3) - INTERVAL 1 SECOND WHERE rate_key = :key',
+      {
+        replacements: { key: `${store.prefix}k` },
+      },
+    );
 
     expect(await store.get('k')).toBeUndefined();
     expect((await store.increment('k')).totalHits).toBe(1);

@@ -10,11 +10,14 @@ const ctx = appWithTestS3({ ORG_NAME: 'Kestrel Fen Drives' });
 
 type Agent = { agent: { get: (u: string) => import('supertest').Test } };
 const getPdf = (session: Agent, id: number) =>
-  session.agent.get(`/api/revisions/${id}/report.pdf`).buffer(true).parse((res, done) => {
-    const chunks: Buffer[] = [];
-    res.on('data', (c: Buffer) => chunks.push(c));
-    res.on('end', () => done(null, Buffer.concat(chunks)));
-  });
+  session.agent
+    .get(`/api/revisions/${id}/report.pdf`)
+    .buffer(true)
+    .parse((res, done) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => done(null, Buffer.concat(chunks)));
+    });
 
 const flat = (text: string) => text.replace(/\s+/g, ' ');
 // The diagonal DRAFT mark's letters land between table cells in extracted text wherever they cross a row:
@@ -63,7 +66,9 @@ describe('calc report of a whole-shaft calc', () => {
     const { author, revisionId } = await calcTeam(ctx.app, wholeShaftInput());
     const text = flat(readPdf((await getPdf(author.session, revisionId)).body as Buffer).text);
 
-    expect(text).toContain('Blue arrows: forces applied to the shaft; black arrows: bearing reactions on the shaft. The side view shows Fy');
+    expect(text).toContain(
+      'Blue arrows: forces applied to the shaft; black arrows: bearing reactions on the shaft. The side view shows Fy',
+    );
     expect(text).toMatch(/G1 Gear, spur gear: Fy -?[\d.]+ N, Fz -?[\d.]+ N/);
     expect(text).toContain('Bending moment from the forces');
     expect(text).toContain('Deflection of the shaft');

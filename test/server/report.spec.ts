@@ -9,11 +9,14 @@ import { returnedWithFindingOf } from '../support/findings-harness';
 const ctx = appWithTestS3({ ORG_NAME: 'Kestrel Fen Drives' });
 
 const getPdf = (session: { agent: { get: (u: string) => import('supertest').Test } }, id: number) =>
-  session.agent.get(`/api/revisions/${id}/report.pdf`).buffer(true).parse((res, done) => {
-    const chunks: Buffer[] = [];
-    res.on('data', (c: Buffer) => chunks.push(c));
-    res.on('end', () => done(null, Buffer.concat(chunks)));
-  });
+  session.agent
+    .get(`/api/revisions/${id}/report.pdf`)
+    .buffer(true)
+    .parse((res, done) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => done(null, Buffer.concat(chunks)));
+    });
 
 describe('calc report', () => {
   it('when a draft is printed, then the PDF parses and carries the calc number, verdict, hash, DRAFT mark and caution', async () => {
@@ -33,7 +36,9 @@ describe('calc report', () => {
     expect(flat).toContain(revision.contentHash);
     expect(flat).toMatch(revision.verdict === 'compliant' ? /Compliant/ : /Not compliant/);
     expect(flat).toContain('DRAFT · NOT FOR CONSTRUCTION');
-    expect(flat).toContain("Results support, never replace, the judgement of a qualified engineer; local codes and licensed practice govern.");
+    expect(flat).toContain(
+      'Results support, never replace, the judgement of a qualified engineer; local codes and licensed practice govern.',
+    );
     expect(flat).toMatch(/τmax/);
     // Methods are named in words, never by code keys (issue 13, item 18).
     expect(flat).toContain('Torque diagram');
@@ -65,7 +70,9 @@ describe('calc report', () => {
     const { text } = readPdf((await getPdf(t.author.session, t.revisionId)).body as Buffer);
     const findings = text.replace(/\s+/g, ' ').split('Findings and answers')[1];
     // The table header may be extracted before or between the cells; what matters is the row's number.
-    expect(findings).toMatch(new RegExp(`^( [A-Z·])* No\\. .*?\\bF${t.findingId} (Finding )?Name the chart behind the keyseat`));
+    expect(findings).toMatch(
+      new RegExp(`^( [A-Z·])* No\\. .*?\\bF${t.findingId} (Finding )?Name the chart behind the keyseat`),
+    );
     expect(findings).not.toMatch(/\b1 Name the chart behind the keyseat/);
   });
 

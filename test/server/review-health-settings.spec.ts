@@ -5,32 +5,59 @@ import { person } from '../support/calc-harness';
 
 let app: Express;
 let sequelize: Sequelize;
-beforeAll(() => { ({ app, sequelize } = startTestApp()); });
+beforeAll(() => {
+  ({ app, sequelize } = startTestApp());
+});
 afterAll(() => sequelize.close());
 
-const VALID = { quickCheckSecondsPerItem: 15, silentCheckerChecks: 12, pairingSharePercent: 80, pairingMinChecks: 6, refusalRepeatCount: 4, replacedWithinDays: 21 };
+const VALID = {
+  quickCheckSecondsPerItem: 15,
+  silentCheckerChecks: 12,
+  pairingSharePercent: 80,
+  pairingMinChecks: 6,
+  refusalRepeatCount: 4,
+  replacedWithinDays: 21,
+};
 
 // Only refused changes here: review-health.spec.ts owns the stored values (its report depends on them).
 describe('review-health thresholds, refused', () => {
   it.each([
-    ['quickCheckSecondsPerItem', 0, 'Seconds of checking per row, segment or feature: must be a whole number from 1 to 3,600'],
+    [
+      'quickCheckSecondsPerItem',
+      0,
+      'Seconds of checking per row, segment or feature: must be a whole number from 1 to 3,600',
+    ],
     ['silentCheckerChecks', 2.5, 'Checks without a finding before a checker is listed: must be a whole number'],
-    ['pairingSharePercent', 101, 'Share of one author’s checks done by one checker (%): must be a whole number from 50 to 100'],
+    [
+      'pairingSharePercent',
+      101,
+      'Share of one author’s checks done by one checker (%): must be a whole number from 50 to 100',
+    ],
     ['refusalRepeatCount', '3', 'Refused attempts that count as repeated: must be a whole number'],
     ['replacedWithinDays', null, 'Days before a standard version was replaced: must be a whole number'],
   ])('when %s is %p, then 400 naming that field and nothing changes', async (field, value, message) => {
     const compliance = await person(app, ['compliance'], 'rh-comp');
     const before = (await compliance.session.get('/api/review-health/settings')).body;
-    const res = await compliance.session.put('/api/review-health/settings', { ...VALID, [field]: value, lockVersion: before.lockVersion });
+    const res = await compliance.session.put('/api/review-health/settings', {
+      ...VALID,
+      [field]: value,
+      lockVersion: before.lockVersion,
+    });
     expect(res.status).toBe(400);
-    expect(res.body.fieldErrors[field]).toEqual([message.includes('from') ? message : expect.stringContaining(message)]);
+    expect(res.body.fieldErrors[field]).toEqual([
+      message.includes('from') ? message : expect.stringContaining(message),
+    ]);
     expect((await compliance.session.get('/api/review-health/settings')).body.lockVersion).toBe(before.lockVersion);
   });
 
   it('when an unknown field is sent, then 400 naming it', async () => {
     const compliance = await person(app, ['compliance'], 'rh-comp');
     const before = (await compliance.session.get('/api/review-health/settings')).body;
-    const res = await compliance.session.put('/api/review-health/settings', { ...VALID, lockVersion: before.lockVersion, quickCheck: 3 });
+    const res = await compliance.session.put('/api/review-health/settings', {
+      ...VALID,
+      lockVersion: before.lockVersion,
+      quickCheck: 3,
+    });
     expect(res.status).toBe(400);
     expect(res.body.fieldErrors.quickCheck).toEqual(['is not an accepted field']);
   });

@@ -1,6 +1,14 @@
 import { startTestApp } from '../support/api-harness';
 import {
-  advanceTo, auditOf, createCalc, expectStatus, fixtureInput, lastAuditId, person, revisionOf, type Team,
+  advanceTo,
+  auditOf,
+  createCalc,
+  expectStatus,
+  fixtureInput,
+  lastAuditId,
+  person,
+  revisionOf,
+  type Team,
 } from '../support/calc-harness';
 
 const { app, sequelize } = startTestApp();
@@ -31,37 +39,58 @@ describe('approval supersedes', () => {
 
     // Assert
     const calc = (await t.author.session.get(`/api/calcs/${t.calcId}`)).body;
-    expect(calc.revisions.map((r: { label: string; status: string }) => [r.label, r.status])).toEqual([['A', 'superseded'], ['B', 'approved']]);
-    expect(await auditOf('Revision', t.revisionId, since)).toEqual([expect.objectContaining({
-      action: 'revision.superseded', actorId: t.approver.user.id, payload: { calcId: t.calcId, revision: 'A', supersededBy: 'B' },
-    })]);
+    expect(calc.revisions.map((r: { label: string; status: string }) => [r.label, r.status])).toEqual([
+      ['A', 'superseded'],
+      ['B', 'approved'],
+    ]);
+    expect(await auditOf('Revision', t.revisionId, since)).toEqual([
+      expect.objectContaining({
+        action: 'revision.superseded',
+        actorId: t.approver.user.id,
+        payload: { calcId: t.calcId, revision: 'A', supersededBy: 'B' },
+      }),
+    ]);
   });
 });
 
 describe('read-only records', () => {
-  it.each(['approved', 'superseded'] as const)('when the author saves a revision that is %s, then it is 409 saying to start a new revision, and nothing changes', async (state) => {
-    // Arrange
-    const t = await approvedCalc();
-    if (state === 'superseded') await advanceTo('approved', t.sessions, (await newRevision(t.author.session, t.calcId)).body.id);
-    const before = await revisionOf(t.author.session, t.revisionId);
-    const input = { ...before.input, title: 'Quietly changed' };
+  it.each(['approved', 'superseded'] as const)(
+    'when the author saves a revision that is %s, then it is 409 saying to start a new revision, and nothing changes',
+    async (state) => {
+      // Arrange
+      const t = await approvedCalc();
+      if (state === 'superseded')
+        await advanceTo('approved', t.sessions, (await newRevision(t.author.session, t.calcId)).body.id);
+      const before = await revisionOf(t.author.session, t.revisionId);
+      const input = { ...before.input, title: 'Quietly changed' };
 
-    // Act
-    const res = await t.author.session.put(`/api/revisions/${t.revisionId}`, { input, lockVersion: before.lockVersion });
+      // Act
+      const res = await t.author.session.put(`/api/revisions/${t.revisionId}`, {
+        input,
+        lockVersion: before.lockVersion,
+      });
 
-    // Assert
-    expect(res.status).toBe(409);
-    expect(res.body.message).toBe(`Revision A is ${state} and cannot be edited; start a new revision to change it`);
-    const after = await revisionOf(t.author.session, t.revisionId);
-    expect([after.input, after.lockVersion, after.contentHash]).toEqual([before.input, before.lockVersion, before.contentHash]);
-  });
+      // Assert
+      expect(res.status).toBe(409);
+      expect(res.body.message).toBe(`Revision A is ${state} and cannot be edited; start a new revision to change it`);
+      const after = await revisionOf(t.author.session, t.revisionId);
+      expect([after.input, after.lockVersion, after.contentHash]).toEqual([
+        before.input,
+        before.lockVersion,
+        before.contentHash,
+      ]);
+    },
+  );
 
   it('when the author withdraws an approved revision, then it is refused with 403', async () => {
     // Arrange
     const t = await approvedCalc();
 
     // Act
-    const res = await t.author.session.post(`/api/revisions/${t.revisionId}/withdraw`, { reason: 'No longer needed', lockVersion: 0 });
+    const res = await t.author.session.post(`/api/revisions/${t.revisionId}/withdraw`, {
+      reason: 'No longer needed',
+      lockVersion: 0,
+    });
 
     // Assert
     expect(res.status).toBe(403);
@@ -81,13 +110,26 @@ describe('a new revision', () => {
 
     // Assert
     expect(res.status).toBe(201);
-    expect(res.body).toEqual(expect.objectContaining({
-      label: 'B', seq: 1, status: 'draft', reasonForChange: 'Coupling seat lengthened to 50 mm', input: a.input,
-      author: { id: second.user.id, name: second.displayName }, checker: null, approver: null, signatures: [], findings: [], manualItems: {}, lockVersion: 0,
-    }));
+    expect(res.body).toEqual(
+      expect.objectContaining({
+        label: 'B',
+        seq: 1,
+        status: 'draft',
+        reasonForChange: 'Coupling seat lengthened to 50 mm',
+        input: a.input,
+        author: { id: second.user.id, name: second.displayName },
+        checker: null,
+        approver: null,
+        signatures: [],
+        findings: [],
+        manualItems: {},
+        lockVersion: 0,
+      }),
+    );
     expect(res.body.editorIds).toEqual(expect.arrayContaining([t.author.user.id, second.user.id]));
-    expect((await auditOf('Revision', res.body.id)).map((e) => [e.action, e.payload.from, e.payload.reasonForChange]))
-      .toEqual([['revision.created', 'A', 'Coupling seat lengthened to 50 mm']]);
+    expect(
+      (await auditOf('Revision', res.body.id)).map((e) => [e.action, e.payload.from, e.payload.reasonForChange]),
+    ).toEqual([['revision.created', 'A', 'Coupling seat lengthened to 50 mm']]);
   });
 
   it('when the project numbers its revisions, then the revision after 0 is 1', async () => {
@@ -118,20 +160,29 @@ describe('a new revision', () => {
     expect((await t.author.session.get(`/api/calcs/${t.calcId}`)).body.revisions).toHaveLength(1);
   });
 
-  it.each(['draft', 'in_check', 'checked'] as const)('when the latest revision is still %s, then another is refused with 409 naming its state', async (state) => {
-    // Arrange
-    const author = await person(app, ['author']);
-    const sessions: Team = { author: author.session, checker: (await person(app, ['checker'])).session, approver: (await person(app, ['approver'])).session };
-    const { calcId, revisionId } = await createCalc(author.session);
-    if (state !== 'draft') await advanceTo(state, sessions, revisionId);
+  it.each(['draft', 'in_check', 'checked'] as const)(
+    'when the latest revision is still %s, then another is refused with 409 naming its state',
+    async (state) => {
+      // Arrange
+      const author = await person(app, ['author']);
+      const sessions: Team = {
+        author: author.session,
+        checker: (await person(app, ['checker'])).session,
+        approver: (await person(app, ['approver'])).session,
+      };
+      const { calcId, revisionId } = await createCalc(author.session);
+      if (state !== 'draft') await advanceTo(state, sessions, revisionId);
 
-    // Act
-    const res = await newRevision(author.session, calcId);
+      // Act
+      const res = await newRevision(author.session, calcId);
 
-    // Assert
-    expect(res.status).toBe(409);
-    expect(res.body.message).toBe(`Revision A is still ${state.replace('_', ' ')}; finish or withdraw it before starting another`);
-  });
+      // Assert
+      expect(res.status).toBe(409);
+      expect(res.body.message).toBe(
+        `Revision A is still ${state.replace('_', ' ')}; finish or withdraw it before starting another`,
+      );
+    },
+  );
 
   it('when the latest revision was withdrawn, then a new one may start', async () => {
     // Arrange
@@ -165,7 +216,11 @@ describe('a new revision', () => {
     const b = (await newRevision(t.author.session, t.calcId)).body;
     const input = fixtureInput();
     (input.segments as { od: number }[])[4].od = 40;
-    expectStatus(await t.author.session.put(`/api/revisions/${b.id}`, { input, lockVersion: b.lockVersion }), 200, 'save B');
+    expectStatus(
+      await t.author.session.put(`/api/revisions/${b.id}`, { input, lockVersion: b.lockVersion }),
+      200,
+      'save B',
+    );
 
     // Act
     const res = await t.author.session.get(`/api/calcs/${t.calcId}/diff?from=${t.revisionId}&to=${b.id}`);

@@ -55,12 +55,19 @@ describe('routes with an id', () => {
   });
 
   it.each(padded(BY_ID))('when %s %s names an unknown id, then it is a JSON 404', async (method, url, body) => {
-    const res = await send(admin.agent[method](url.replace(':id', String(MISSING))).set('x-csrf-token', admin.csrf), body);
+    const res = await send(
+      admin.agent[method](url.replace(':id', String(MISSING))).set('x-csrf-token', admin.csrf),
+      body,
+    );
     expect(res.status).toBe(404);
     expect(res.body).toEqual({ code: 'not_found', message: expect.stringContaining(`${MISSING} was not found`) });
   });
 
-  it.each(padded(BY_ID).flatMap(([m, u, b]) => ['abc', '1.5', '-3', '0', '1e3x'].map((id) => [m, u.replace(':id', id), b] as const)))(
+  it.each(
+    padded(BY_ID).flatMap(([m, u, b]) =>
+      ['abc', '1.5', '-3', '0', '1e3x'].map((id) => [m, u.replace(':id', id), b] as const),
+    ),
+  )(
     'when %s %s has an id that is not a positive whole number, then it is a 400 naming params.id',
     async (method, url, body) => {
       const res = await send(admin.agent[method](url).set('x-csrf-token', admin.csrf), body);

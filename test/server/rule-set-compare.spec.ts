@@ -1,7 +1,17 @@
 // Comparing versions of a design standard and trying a draft on a calc without storing anything.
 import { startTestApp } from '../support/api-harness';
 import {
-  advanceTo, auditOf, createCalc, draftStandard, expectStatus, person, revisionOf, saveStandard, testStandard, withParameter, type Team,
+  advanceTo,
+  auditOf,
+  createCalc,
+  draftStandard,
+  expectStatus,
+  person,
+  revisionOf,
+  saveStandard,
+  testStandard,
+  withParameter,
+  type Team,
 } from '../support/calc-harness';
 
 const { app, sequelize } = startTestApp();
@@ -13,8 +23,19 @@ describe('comparing and trying a draft', () => {
   it('when two versions are compared, then the clauses that changed are listed with their fields', async () => {
     // Arrange
     const { standard, drafter, draft } = await draftStandard(app);
-    const clauses = (draft.document.clauses as Doc[]).map((c) => (c.id === '4.2' ? { ...c, title: 'Twist: 1° in a length of 25 diameters' } : c));
-    expectStatus(await saveStandard(drafter.session, draft.id, { ...draft.document, clauses, changeSummary: 'Retitled 4.2' }, draft.lockVersion), 200, 'save');
+    const clauses = (draft.document.clauses as Doc[]).map((c) =>
+      c.id === '4.2' ? { ...c, title: 'Twist: 1° in a length of 25 diameters' } : c,
+    );
+    expectStatus(
+      await saveStandard(
+        drafter.session,
+        draft.id,
+        { ...draft.document, clauses, changeSummary: 'Retitled 4.2' },
+        draft.lockVersion,
+      ),
+      200,
+      'save',
+    );
 
     // Act
     const res = await drafter.session.get(`/api/rule-sets/diff?from=${standard.id}&to=${draft.id}`);
@@ -22,7 +43,13 @@ describe('comparing and trying a draft', () => {
     // Assert
     expect(res.status).toBe(200);
     const changed = res.body.changes.clauses.filter((c: { change: string }) => c.change !== 'unchanged');
-    expect(changed).toEqual([expect.objectContaining({ key: '4.2', change: 'changed', fields: [expect.objectContaining({ field: 'title', after: 'Twist: 1° in a length of 25 diameters' })] })]);
+    expect(changed).toEqual([
+      expect.objectContaining({
+        key: '4.2',
+        change: 'changed',
+        fields: [expect.objectContaining({ field: 'title', after: 'Twist: 1° in a length of 25 diameters' })],
+      }),
+    ]);
     expect(res.body.changes.counts.clauses).toEqual({ added: 0, removed: 0, changed: 1 });
   });
 
@@ -43,7 +70,10 @@ describe('comparing and trying a draft', () => {
     const { standard, drafter, draft } = await draftStandard(app);
     const author = await person(app, ['author']);
     const { revisionId } = await createCalc(author.session, { ruleSetId: standard.id });
-    const stricter = { ...withParameter(draft.document, 'asmeSyFraction', 0.03), changeSummary: 'Much lower allowable shear' };
+    const stricter = {
+      ...withParameter(draft.document, 'asmeSyFraction', 0.03),
+      changeSummary: 'Much lower allowable shear',
+    };
     expectStatus(await saveStandard(drafter.session, draft.id, stricter, draft.lockVersion), 200, 'save');
     const before = await revisionOf(author.session, revisionId);
     const trail = await auditOf('Revision', revisionId);
@@ -55,9 +85,16 @@ describe('comparing and trying a draft', () => {
     expect(res.status).toBe(200);
     expect(res.body.ruleSet).toEqual({ id: draft.id, code: standard.code, version: 2 });
     expect([res.body.before.verdict, res.body.checklist.verdict]).toEqual(['compliant', 'not-compliant']);
-    expect(res.body.checklist.rows).toEqual(expect.arrayContaining([expect.objectContaining({ clauseId: '4.1', status: 'fail' })]));
+    expect(res.body.checklist.rows).toEqual(
+      expect.arrayContaining([expect.objectContaining({ clauseId: '4.1', status: 'fail' })]),
+    );
     const after = await revisionOf(author.session, revisionId);
-    expect([after.lockVersion, after.verdict, after.checklist, after.contentHash]).toEqual([before.lockVersion, before.verdict, before.checklist, before.contentHash]);
+    expect([after.lockVersion, after.verdict, after.checklist, after.contentHash]).toEqual([
+      before.lockVersion,
+      before.verdict,
+      before.checklist,
+      before.contentHash,
+    ]);
     expect(await auditOf('Revision', revisionId)).toEqual(trail);
   });
 
@@ -79,7 +116,11 @@ describe('the test standard itself', () => {
   it('when a calc is checked against a test standard, then it can be approved like any other', async () => {
     // Arrange
     const standard = await testStandard();
-    const team: Team = { author: (await person(app, ['author'])).session, checker: (await person(app, ['checker'])).session, approver: (await person(app, ['approver'])).session };
+    const team: Team = {
+      author: (await person(app, ['author'])).session,
+      checker: (await person(app, ['checker'])).session,
+      approver: (await person(app, ['approver'])).session,
+    };
     const { revisionId } = await createCalc(team.author, { ruleSetId: standard.id });
 
     // Act

@@ -1,8 +1,6 @@
 // The two-person rule for a new version of a design standard, and what becomes frozen.
 import { startTestApp, TEST_PASSWORD } from '../support/api-harness';
-import {
-  auditOf, draftStandard, expectStatus, person, proposeStandard, saveStandard,
-} from '../support/calc-harness';
+import { auditOf, draftStandard, expectStatus, person, proposeStandard, saveStandard } from '../support/calc-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
@@ -17,7 +15,11 @@ describe('proposing and confirming', () => {
     const { drafter, draft } = await draftStandard(app);
 
     // Act
-    const res = await drafter.session.post(`/api/rule-sets/${draft.id}/propose`, { lockVersion: draft.lockVersion, ...body, ...(field === 'lockVersion' ? { lockVersion: undefined } : {}) });
+    const res = await drafter.session.post(`/api/rule-sets/${draft.id}/propose`, {
+      lockVersion: draft.lockVersion,
+      ...body,
+      ...(field === 'lockVersion' ? { lockVersion: undefined } : {}),
+    });
 
     // Assert
     expect(res.status).toBe(400);
@@ -29,7 +31,10 @@ describe('proposing and confirming', () => {
     const { drafter, draft, proposal } = await proposeStandard(app);
 
     // Act
-    const res = await drafter.session.post(`/api/rule-sets/${draft.id}/confirm`, { password: TEST_PASSWORD, lockVersion: proposal.lockVersion });
+    const res = await drafter.session.post(`/api/rule-sets/${draft.id}/confirm`, {
+      password: TEST_PASSWORD,
+      lockVersion: proposal.lockVersion,
+    });
 
     // Assert
     expect(res.status).toBe(403);
@@ -43,7 +48,10 @@ describe('proposing and confirming', () => {
     const confirmer = await person(app, ['compliance'], 'confirmer');
 
     // Act
-    const res = await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, { password: 'not my password', lockVersion: proposal.lockVersion });
+    const res = await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, {
+      password: 'not my password',
+      lockVersion: proposal.lockVersion,
+    });
 
     // Assert
     expect(res.status).toBe(400);
@@ -57,7 +65,10 @@ describe('proposing and confirming', () => {
     const confirmer = await person(app, ['compliance'], 'confirmer');
 
     // Act
-    const res = await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, { password: TEST_PASSWORD, lockVersion: draft.lockVersion });
+    const res = await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, {
+      password: TEST_PASSWORD,
+      lockVersion: draft.lockVersion,
+    });
 
     // Assert
     expect(res.status).toBe(409);
@@ -68,10 +79,22 @@ describe('proposing and confirming', () => {
     // Arrange
     const { drafter, draft, proposal } = await proposeStandard(app);
     const confirmer = await person(app, ['compliance'], 'confirmer');
-    expectStatus(await saveStandard(drafter.session, draft.id, { ...proposal.document, changeSummary: 'Changed after proposing' }, proposal.lockVersion), 200, 'late save');
+    expectStatus(
+      await saveStandard(
+        drafter.session,
+        draft.id,
+        { ...proposal.document, changeSummary: 'Changed after proposing' },
+        proposal.lockVersion,
+      ),
+      200,
+      'late save',
+    );
 
     // Act
-    const res = await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, { password: TEST_PASSWORD, lockVersion: proposal.lockVersion });
+    const res = await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, {
+      password: TEST_PASSWORD,
+      lockVersion: proposal.lockVersion,
+    });
 
     // Assert
     expect(res.status).toBe(409);
@@ -84,17 +107,29 @@ describe('proposing and confirming', () => {
     const confirmer = await person(app, ['compliance'], 'confirmer');
 
     // Act
-    const res = await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, { password: TEST_PASSWORD, lockVersion: proposal.lockVersion });
+    const res = await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, {
+      password: TEST_PASSWORD,
+      lockVersion: proposal.lockVersion,
+    });
 
     // Assert
     expect(res.status).toBe(200);
-    expect(res.body).toEqual(expect.objectContaining({
-      status: 'effective', effectiveDate: '2026-11-01', proposedBy: drafter.displayName, confirmedBy: confirmer.displayName,
-    }));
+    expect(res.body).toEqual(
+      expect.objectContaining({
+        status: 'effective',
+        effectiveDate: '2026-11-01',
+        proposedBy: drafter.displayName,
+        confirmedBy: confirmer.displayName,
+      }),
+    );
     expect(res.body.document).toEqual(expect.objectContaining({ status: 'effective', effectiveDate: '2026-11-01' }));
     expect((await confirmer.session.get(`/api/rule-sets/${standard.id}`)).body.status).toBe('retired');
     expect((await auditOf('RuleSet', draft.id)).map((e) => [e.action, e.actorId])).toEqual([
-      ['rule_set.drafted', drafter.user.id], ['rule_set.saved', drafter.user.id], ['rule_set.proposed', drafter.user.id], ['rule_set.confirmed', confirmer.user.id], ['rule_set.effective', confirmer.user.id],
+      ['rule_set.drafted', drafter.user.id],
+      ['rule_set.saved', drafter.user.id],
+      ['rule_set.proposed', drafter.user.id],
+      ['rule_set.confirmed', confirmer.user.id],
+      ['rule_set.effective', confirmer.user.id],
     ]);
     expect((await auditOf('RuleSet', draft.id)).at(-1)!.payload).toEqual(expect.objectContaining({ retired: [1] }));
   });
@@ -105,8 +140,14 @@ describe('proposing and confirming', () => {
     const author = await person(app, ['author']);
 
     // Act
-    const propose = await author.session.post(`/api/rule-sets/${draft.id}/propose`, { effectiveDate: '2026-11-01', lockVersion: proposal.lockVersion });
-    const confirm = await author.session.post(`/api/rule-sets/${draft.id}/confirm`, { password: TEST_PASSWORD, lockVersion: proposal.lockVersion });
+    const propose = await author.session.post(`/api/rule-sets/${draft.id}/propose`, {
+      effectiveDate: '2026-11-01',
+      lockVersion: proposal.lockVersion,
+    });
+    const confirm = await author.session.post(`/api/rule-sets/${draft.id}/confirm`, {
+      password: TEST_PASSWORD,
+      lockVersion: proposal.lockVersion,
+    });
 
     // Assert
     expect([propose.status, confirm.status]).toEqual([403, 403]);
@@ -118,17 +159,36 @@ describe('frozen versions', () => {
     // Arrange
     const { standard, draft, proposal } = await proposeStandard(app);
     const confirmer = await person(app, ['compliance'], 'confirmer');
-    const effective = expectStatus(await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, { password: TEST_PASSWORD, lockVersion: proposal.lockVersion }), 200, 'confirm').body;
+    const effective = expectStatus(
+      await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, {
+        password: TEST_PASSWORD,
+        lockVersion: proposal.lockVersion,
+      }),
+      200,
+      'confirm',
+    ).body;
     const retired = (await confirmer.session.get(`/api/rule-sets/${standard.id}`)).body;
 
     // Act
-    const onEffective = await saveStandard(confirmer.session, effective.id, { ...effective.document, changeSummary: 'Sneaky edit' }, effective.lockVersion);
-    const onRetired = await saveStandard(confirmer.session, retired.id, { ...retired.document, changeSummary: 'Sneaky edit' }, retired.lockVersion);
+    const onEffective = await saveStandard(
+      confirmer.session,
+      effective.id,
+      { ...effective.document, changeSummary: 'Sneaky edit' },
+      effective.lockVersion,
+    );
+    const onRetired = await saveStandard(
+      confirmer.session,
+      retired.id,
+      { ...retired.document, changeSummary: 'Sneaky edit' },
+      retired.lockVersion,
+    );
 
     // Assert
     expect([onEffective.status, onRetired.status]).toEqual([409, 409]);
     expect(onEffective.body.message).toBe(`${standard.code} v2 is effective; it never changes again`);
     expect(onRetired.body.message).toBe(`${standard.code} v1 is retired; it never changes again`);
-    expect((await confirmer.session.get(`/api/rule-sets/${effective.id}`)).body.contentHash).toBe(effective.contentHash);
+    expect((await confirmer.session.get(`/api/rule-sets/${effective.id}`)).body.contentHash).toBe(
+      effective.contentHash,
+    );
   });
 });

@@ -12,9 +12,16 @@ async function proposeAndConfirm(effectiveDate: string) {
   const confirmer = await person(app, ['compliance']);
   const draft = (await drafter.session.post('/api/rule-sets', { fromId: standard.id })).body;
   const doc = { ...draft.document, changeSummary: 'Scheduling test: no technical change' };
-  const saved = (await drafter.session.put(`/api/rule-sets/${draft.id}`, { document: doc, lockVersion: draft.lockVersion })).body;
-  const proposed = (await drafter.session.post(`/api/rule-sets/${draft.id}/propose`, { effectiveDate, lockVersion: saved.lockVersion })).body;
-  const confirmed = await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, { password: TEST_PASSWORD, lockVersion: proposed.lockVersion });
+  const saved = (
+    await drafter.session.put(`/api/rule-sets/${draft.id}`, { document: doc, lockVersion: draft.lockVersion })
+  ).body;
+  const proposed = (
+    await drafter.session.post(`/api/rule-sets/${draft.id}/propose`, { effectiveDate, lockVersion: saved.lockVersion })
+  ).body;
+  const confirmed = await confirmer.session.post(`/api/rule-sets/${draft.id}/confirm`, {
+    password: TEST_PASSWORD,
+    lockVersion: proposed.lockVersion,
+  });
   return { standard, drafter, confirmed };
 }
 
@@ -26,7 +33,10 @@ describe('design standards come into force on their effective date', () => {
     expect(confirmed.body.status).toBe('draft');
     expect(confirmed.body.confirmedBy).not.toBeNull();
     expect((await RuleSetRecord.findByPk(standard.id))!.status).toBe('effective');
-    const edit = await drafter.session.put(`/api/rule-sets/${confirmed.body.id}`, { document: confirmed.body.document, lockVersion: confirmed.body.lockVersion });
+    const edit = await drafter.session.put(`/api/rule-sets/${confirmed.body.id}`, {
+      document: confirmed.body.document,
+      lockVersion: confirmed.body.lockVersion,
+    });
     expect(edit.status).toBe(409);
   });
 

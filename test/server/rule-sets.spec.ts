@@ -1,7 +1,13 @@
 // Reading design standards and drafting a new version of one: who may, and what is checked.
 import { startTestApp } from '../support/api-harness';
 import {
-  auditOf, draftStandard, expectStatus, person, saveStandard, testStandard, withParameter,
+  auditOf,
+  draftStandard,
+  expectStatus,
+  person,
+  saveStandard,
+  testStandard,
+  withParameter,
 } from '../support/calc-harness';
 import type { Role } from '../../shared/authz/roles';
 
@@ -11,7 +17,11 @@ afterAll(() => sequelize.close());
 type Doc = Record<string, unknown>;
 
 describe.each([
-  ['author', true], ['checker', true], ['approver', true], ['compliance', true], ['admin', false],
+  ['author', true],
+  ['checker', true],
+  ['approver', true],
+  ['compliance', true],
+  ['admin', false],
 ] as [Role, boolean][])('reading standards as %s', (role, canRead) => {
   it(`when someone with the ${role} role lists the standards and opens one, then it is ${canRead ? 'answered' : 'refused with 403'}`, async () => {
     // Arrange
@@ -25,8 +35,14 @@ describe.each([
     // Assert
     if (canRead) {
       expect([list.status, one.status]).toEqual([200, 200]);
-      expect(list.body).toEqual(expect.arrayContaining([expect.objectContaining({ id: standard.id, code: standard.code, version: 1, status: 'effective' })]));
-      expect(one.body.document).toEqual(expect.objectContaining({ code: standard.code, version: 1, clauses: expect.any(Array) }));
+      expect(list.body).toEqual(
+        expect.arrayContaining([
+          expect.objectContaining({ id: standard.id, code: standard.code, version: 1, status: 'effective' }),
+        ]),
+      );
+      expect(one.body.document).toEqual(
+        expect.objectContaining({ code: standard.code, version: 1, clauses: expect.any(Array) }),
+      );
     } else {
       expect([list.status, one.status]).toEqual([403, 403]);
     }
@@ -34,27 +50,40 @@ describe.each([
 });
 
 describe('drafting a version', () => {
-  it.each(['author', 'checker', 'approver', 'admin'] as Role[])('when someone with the %s role starts a draft, then it is refused with 403', async (role) => {
-    // Arrange
-    const standard = await testStandard();
-    const someone = await person(app, [role]);
+  it.each(['author', 'checker', 'approver', 'admin'] as Role[])(
+    'when someone with the %s role starts a draft, then it is refused with 403',
+    async (role) => {
+      // Arrange
+      const standard = await testStandard();
+      const someone = await person(app, [role]);
 
-    // Act
-    const res = await someone.session.post('/api/rule-sets', { fromId: standard.id });
+      // Act
+      const res = await someone.session.post('/api/rule-sets', { fromId: standard.id });
 
-    // Assert
-    expect(res.status).toBe(403);
-    expect(res.body.message).toBe('Only compliance drafts design standards');
-  });
+      // Assert
+      expect(res.status).toBe(403);
+      expect(res.body.message).toBe('Only compliance drafts design standards');
+    },
+  );
 
   it('when compliance starts a draft from a version, then it is the next version, a draft without a date, and audited', async () => {
     // Act
     const { standard, drafter, draft } = await draftStandard(app);
 
     // Assert
-    expect(draft).toEqual(expect.objectContaining({ code: standard.code, version: 2, status: 'draft', effectiveDate: null }));
-    expect(draft.document).toEqual(expect.objectContaining({ code: standard.code, version: 2, status: 'draft', effectiveDate: null }));
-    expect(await auditOf('RuleSet', draft.id)).toEqual([expect.objectContaining({ action: 'rule_set.drafted', actorId: drafter.user.id, payload: { code: standard.code, version: 2, from: 1 } })]);
+    expect(draft).toEqual(
+      expect.objectContaining({ code: standard.code, version: 2, status: 'draft', effectiveDate: null }),
+    );
+    expect(draft.document).toEqual(
+      expect.objectContaining({ code: standard.code, version: 2, status: 'draft', effectiveDate: null }),
+    );
+    expect(await auditOf('RuleSet', draft.id)).toEqual([
+      expect.objectContaining({
+        action: 'rule_set.drafted',
+        actorId: drafter.user.id,
+        payload: { code: standard.code, version: 2, from: 1 },
+      }),
+    ]);
   });
 
   it('when compliance saves a draft, then the document is stored, its lockVersion moves on and the diff is audited', async () => {
@@ -74,10 +103,16 @@ describe('drafting a version', () => {
     expect(saved.diff).toMatch(/^\+\s+"value": 0\.04,?$/m);
   });
 
-  it('when the saved document claims another code, version or status, then the record\'s own identity is kept', async () => {
+  it("when the saved document claims another code, version or status, then the record's own identity is kept", async () => {
     // Arrange
     const { standard, drafter, draft } = await draftStandard(app);
-    const document = { ...draft.document, code: 'HIJACKED-001', version: 42, status: 'effective', changeSummary: 'Identity test' };
+    const document = {
+      ...draft.document,
+      code: 'HIJACKED-001',
+      version: 42,
+      status: 'effective',
+      changeSummary: 'Identity test',
+    };
 
     // Act
     const res = await saveStandard(drafter.session, draft.id, document, draft.lockVersion);
@@ -89,29 +124,54 @@ describe('drafting a version', () => {
   });
 
   it.each([
-    ['a clause severity that does not exist', (d: Doc) => ({ ...d, clauses: [{ ...(d.clauses as Doc[])[0], severity: 'sometimes' }, ...(d.clauses as Doc[]).slice(1)] }), 'document.clauses[0].severity'],
+    [
+      'a clause severity that does not exist',
+      (d: Doc) => ({
+        ...d,
+        clauses: [{ ...(d.clauses as Doc[])[0], severity: 'sometimes' }, ...(d.clauses as Doc[]).slice(1)],
+      }),
+      'document.clauses[0].severity',
+    ],
     ['no clauses at all', (d: Doc) => ({ ...d, clauses: [] }), 'document.clauses'],
-    ['a parameter that is not a number', (d: Doc) => ({ ...d, parameters: [{ ...(d.parameters as Doc[])[0], value: { much: 'wow' } }, ...(d.parameters as Doc[]).slice(1)] }), 'document.parameters[0].value'],
-  ])('when the document has %s, then it is 400 naming the path inside the document and nothing is stored', async (_what, spoil, path) => {
-    // Arrange
-    const { drafter, draft } = await draftStandard(app);
+    [
+      'a parameter that is not a number',
+      (d: Doc) => ({
+        ...d,
+        parameters: [{ ...(d.parameters as Doc[])[0], value: { much: 'wow' } }, ...(d.parameters as Doc[]).slice(1)],
+      }),
+      'document.parameters[0].value',
+    ],
+  ])(
+    'when the document has %s, then it is 400 naming the path inside the document and nothing is stored',
+    async (_what, spoil, path) => {
+      // Arrange
+      const { drafter, draft } = await draftStandard(app);
 
-    // Act
-    const res = await saveStandard(drafter.session, draft.id, spoil({ ...draft.document, changeSummary: 'Spoilt' }), draft.lockVersion);
+      // Act
+      const res = await saveStandard(
+        drafter.session,
+        draft.id,
+        spoil({ ...draft.document, changeSummary: 'Spoilt' }),
+        draft.lockVersion,
+      );
 
-    // Assert
-    expect(res.status).toBe(400);
-    expect(Object.keys(res.body.fieldErrors)).toContain(path);
-    const stored = (await drafter.session.get(`/api/rule-sets/${draft.id}`)).body;
-    expect([stored.lockVersion, stored.document]).toEqual([draft.lockVersion, draft.document]);
-  });
+      // Assert
+      expect(res.status).toBe(400);
+      expect(Object.keys(res.body.fieldErrors)).toContain(path);
+      const stored = (await drafter.session.get(`/api/rule-sets/${draft.id}`)).body;
+      expect([stored.lockVersion, stored.document]).toEqual([draft.lockVersion, draft.document]);
+    },
+  );
 
   it('when the document is not an object, then it is 400 naming document', async () => {
     // Arrange
     const { drafter, draft } = await draftStandard(app);
 
     // Act
-    const res = await drafter.session.put(`/api/rule-sets/${draft.id}`, { document: 'clauses go here', lockVersion: draft.lockVersion });
+    const res = await drafter.session.put(`/api/rule-sets/${draft.id}`, {
+      document: 'clauses go here',
+      lockVersion: draft.lockVersion,
+    });
 
     // Assert
     expect(res.status).toBe(400);
@@ -122,15 +182,31 @@ describe('drafting a version', () => {
     // Arrange
     const { drafter, draft } = await draftStandard(app);
     const colleague = await person(app, ['compliance'], 'colleague');
-    const first = expectStatus(await saveStandard(drafter.session, draft.id, { ...draft.document, changeSummary: 'First edit' }, draft.lockVersion), 200, 'first save');
+    const first = expectStatus(
+      await saveStandard(
+        drafter.session,
+        draft.id,
+        { ...draft.document, changeSummary: 'First edit' },
+        draft.lockVersion,
+      ),
+      200,
+      'first save',
+    );
 
     // Act
-    const res = await saveStandard(colleague.session, draft.id, { ...draft.document, changeSummary: 'Second edit' }, draft.lockVersion);
+    const res = await saveStandard(
+      colleague.session,
+      draft.id,
+      { ...draft.document, changeSummary: 'Second edit' },
+      draft.lockVersion,
+    );
 
     // Assert
     expect(res.status).toBe(409);
     expect(res.body.message).toMatch(/Someone else saved this draft since you opened it/);
-    expect((await drafter.session.get(`/api/rule-sets/${draft.id}`)).body.document.changeSummary).toBe(first.body.document.changeSummary);
+    expect((await drafter.session.get(`/api/rule-sets/${draft.id}`)).body.document.changeSummary).toBe(
+      first.body.document.changeSummary,
+    );
   });
 
   it('when an author saves a draft, then it is refused with 403', async () => {
@@ -139,7 +215,12 @@ describe('drafting a version', () => {
     const author = await person(app, ['author']);
 
     // Act
-    const res = await saveStandard(author.session, draft.id, { ...draft.document, changeSummary: 'Not mine to change' }, draft.lockVersion);
+    const res = await saveStandard(
+      author.session,
+      draft.id,
+      { ...draft.document, changeSummary: 'Not mine to change' },
+      draft.lockVersion,
+    );
 
     // Assert
     expect(res.status).toBe(403);

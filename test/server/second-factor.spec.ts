@@ -9,14 +9,22 @@ afterAll(() => sequelize.close());
 async function enrol(session: Awaited<ReturnType<typeof signedInAs>>['session']) {
   const begun = await session.post('/api/auth/second-factor/begin');
   expect(begun.body.qrDataUrl).toMatch(/^data:image\/png;base64,/);
-  const confirmed = await session.post('/api/auth/second-factor/confirm', { code: authenticator.generate(begun.body.secret) });
+  const confirmed = await session.post('/api/auth/second-factor/confirm', {
+    code: authenticator.generate(begun.body.secret),
+  });
   expect(confirmed.body).toEqual({ enrolled: true, required: false });
   return begun.body.secret as string;
 }
 
 async function signBody(session: Awaited<ReturnType<typeof signedInAs>>['session'], id: number, extra: object = {}) {
   const r = (await session.get(`/api/revisions/${id}`)).body;
-  return { password: TEST_PASSWORD, meaning: 'authored', idempotencyKey: randomUUID(), lockVersion: r.lockVersion, ...extra };
+  return {
+    password: TEST_PASSWORD,
+    meaning: 'authored',
+    idempotencyKey: randomUUID(),
+    lockVersion: r.lockVersion,
+    ...extra,
+  };
 }
 
 describe('one-time codes for signatures (RFC 6238)', () => {
@@ -32,9 +40,18 @@ describe('one-time codes for signatures (RFC 6238)', () => {
     const { author, revisionId } = await calcTeam(app);
     const secret = await enrol(author.session);
 
-    const missing = await author.session.post(`/api/revisions/${revisionId}/sign`, await signBody(author.session, revisionId));
-    const wrong = await author.session.post(`/api/revisions/${revisionId}/sign`, await signBody(author.session, revisionId, { oneTimeCode: '123456' }));
-    const right = await author.session.post(`/api/revisions/${revisionId}/sign`, await signBody(author.session, revisionId, { oneTimeCode: authenticator.generate(secret) }));
+    const missing = await author.session.post(
+      `/api/revisions/${revisionId}/sign`,
+      await signBody(author.session, revisionId),
+    );
+    const wrong = await author.session.post(
+      `/api/revisions/${revisionId}/sign`,
+      await signBody(author.session, revisionId, { oneTimeCode: '123456' }),
+    );
+    const right = await author.session.post(
+      `/api/revisions/${revisionId}/sign`,
+      await signBody(author.session, revisionId, { oneTimeCode: authenticator.generate(secret) }),
+    );
 
     expect(missing.status).toBe(400);
     expect(missing.body.fieldErrors.oneTimeCode).toBeDefined();
@@ -51,7 +68,10 @@ describe('one-time codes for signatures (RFC 6238)', () => {
     const set = await admin.patch(`/api/users/${me.id}`, { secondFactorRequired: true, version: user.version });
     expect(set.body.secondFactorRequired).toBe(true);
 
-    const refused = await author.session.post(`/api/revisions/${revisionId}/sign`, await signBody(author.session, revisionId));
+    const refused = await author.session.post(
+      `/api/revisions/${revisionId}/sign`,
+      await signBody(author.session, revisionId),
+    );
 
     expect(refused.status).toBe(403);
     expect(refused.body.message).toMatch(/enrol/);

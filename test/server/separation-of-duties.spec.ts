@@ -24,28 +24,36 @@ async function pendingGrant(userId: number, role: Role): Promise<number> {
 }
 
 async function rolesAudited(userId: number): Promise<string[]> {
-  const rows = await AuditEvent.findAll({ where: { entityType: 'User', entityId: String(userId), action: { [Op.like]: 'user.role%' } }, order: [['id', 'ASC']] });
+  const rows = await AuditEvent.findAll({
+    where: { entityType: 'User', entityId: String(userId), action: { [Op.like]: 'user.role%' } },
+    order: [['id', 'ASC']],
+  });
   return rows.map((r) => `${r.action}:${JSON.parse(r.payload).role}`);
 }
 
 describe('nobody changes their own roles', () => {
-  it.each(ROLES.map((r) => [r]))('when a %s asks for different roles for themselves, then it is a 403 and nothing changes', async (role) => {
-    const { user, session } = await signedInAs(app, [role]);
-    const wanted: Role[] = [role, role === 'approver' ? 'checker' : 'approver'];
+  it.each(ROLES.map((r) => [r]))(
+    'when a %s asks for different roles for themselves, then it is a 403 and nothing changes',
+    async (role) => {
+      const { user, session } = await signedInAs(app, [role]);
+      const wanted: Role[] = [role, role === 'approver' ? 'checker' : 'approver'];
 
-    const res = await session.patch(`/api/users/${user.id}`, { roles: wanted, version: 0 });
+      const res = await session.patch(`/api/users/${user.id}`, { roles: wanted, version: 0 });
 
-    expect(res.status).toBe(403);
-    expect(await RoleGrant.count({ where: { userId: user.id } })).toBe(0);
-    expect((await session.get('/api/session')).body.user.roles).toEqual([role]);
-  });
+      expect(res.status).toBe(403);
+      expect(await RoleGrant.count({ where: { userId: user.id } })).toBe(0);
+      expect((await session.get('/api/session')).body.user.roles).toEqual([role]);
+    },
+  );
 
   it('when an admin gives themselves the approver role, then it is refused and they still cannot approve', async () => {
     const { user, session: admin } = await signedInAs(app, ['admin', 'checker']);
     const author = await person(app, ['author']);
     const checker = await person(app, ['checker']);
     const { revisionId } = await createCalc(author.session);
-    await advanceTo('checked', { author: author.session, checker: checker.session, approver: admin }, revisionId).catch(() => undefined);
+    await advanceTo('checked', { author: author.session, checker: checker.session, approver: admin }, revisionId).catch(
+      () => undefined,
+    );
 
     const res = await askFor(admin, user.id, ['admin', 'approver', 'checker']);
 
@@ -56,28 +64,35 @@ describe('nobody changes their own roles', () => {
 
   it('when an admin keeps their own roles while renaming themselves, then that is allowed', async () => {
     const { user, session: admin } = await signedInAs(app, ['admin']);
-    const res = await admin.patch(`/api/users/${user.id}`, { displayName: 'Renamed Admin', roles: ['admin'], version: 0 });
+    const res = await admin.patch(`/api/users/${user.id}`, {
+      displayName: 'Renamed Admin',
+      roles: ['admin'],
+      version: 0,
+    });
     expect(res.status).toBe(200);
   });
 });
 
 describe('a signing role waits for a second person', () => {
-  it.each([['author'], ['checker'], ['approver']] as [Role][])('when an admin gives someone the %s role, then it is pending until another admin confirms', async (role) => {
-    const { session: asker } = await signedInAs(app, ['admin']);
-    const { session: second } = await signedInAs(app, ['admin']);
-    const grantee = await signedInAs(app, ['compliance']);
+  it.each([['author'], ['checker'], ['approver']] as [Role][])(
+    'when an admin gives someone the %s role, then it is pending until another admin confirms',
+    async (role) => {
+      const { session: asker } = await signedInAs(app, ['admin']);
+      const { session: second } = await signedInAs(app, ['admin']);
+      const grantee = await signedInAs(app, ['compliance']);
 
-    const asked = expectStatus(await askFor(asker, grantee.user.id, ['compliance', role]), 200, 'ask');
-    expect(asked.body).toEqual(expect.objectContaining({ roles: ['compliance'], pendingRoles: [role] }));
-    expect((await grantee.session.get('/api/session')).body.user.roles).toEqual(['compliance']);
-    const id = await pendingGrant(grantee.user.id, role);
-    expect((await second.get('/api/role-grants')).body.map((g: { id: number }) => g.id)).toContain(id);
+      const asked = expectStatus(await askFor(asker, grantee.user.id, ['compliance', role]), 200, 'ask');
+      expect(asked.body).toEqual(expect.objectContaining({ roles: ['compliance'], pendingRoles: [role] }));
+      expect((await grantee.session.get('/api/session')).body.user.roles).toEqual(['compliance']);
+      const id = await pendingGrant(grantee.user.id, role);
+      expect((await second.get('/api/role-grants')).body.map((g: { id: number }) => g.id)).toContain(id);
 
-    expectStatus(await second.post(`/api/role-grants/${id}/confirm`, { password: TEST_PASSWORD }), 200, 'confirm');
+      expectStatus(await second.post(`/api/role-grants/${id}/confirm`, { password: TEST_PASSWORD }), 200, 'confirm');
 
-    expect((await grantee.session.get('/api/session')).body.user.roles).toEqual(['compliance', role].sort());
-    expect(await rolesAudited(grantee.user.id)).toEqual([`user.role_requested:${role}`, `user.role_granted:${role}`]);
-  });
+      expect((await grantee.session.get('/api/session')).body.user.roles).toEqual(['compliance', role].sort());
+      expect(await rolesAudited(grantee.user.id)).toEqual([`user.role_requested:${role}`, `user.role_granted:${role}`]);
+    },
+  );
 
   it('when an admin gives someone the admin or compliance role, then it takes effect at once and is audited', async () => {
     const { session: admin } = await signedInAs(app, ['admin']);
@@ -114,18 +129,21 @@ describe('a signing role waits for a second person', () => {
     expect((await grantee.session.get('/api/session')).body.user.roles).toEqual(['admin', 'compliance']);
   });
 
-  it.each([['author'], ['checker'], ['approver']] as [Role][])('when a %s tries to see or decide a request, then it is a 403', async (role) => {
-    const { session: asker } = await signedInAs(app, ['admin']);
-    const target = await createTestUser(['author']);
-    await askFor(asker, target.id, ['author', 'checker']);
-    const id = await pendingGrant(target.id, 'checker');
-    const { session } = await signedInAs(app, [role]);
+  it.each([['author'], ['checker'], ['approver']] as [Role][])(
+    'when a %s tries to see or decide a request, then it is a 403',
+    async (role) => {
+      const { session: asker } = await signedInAs(app, ['admin']);
+      const target = await createTestUser(['author']);
+      await askFor(asker, target.id, ['author', 'checker']);
+      const id = await pendingGrant(target.id, 'checker');
+      const { session } = await signedInAs(app, [role]);
 
-    expect((await session.get('/api/role-grants')).status).toBe(403);
-    expect((await session.post(`/api/role-grants/${id}/confirm`, { password: TEST_PASSWORD })).status).toBe(403);
-    expect((await session.post(`/api/role-grants/${id}/refuse`, { reason: 'not mine to decide' })).status).toBe(403);
-    expect((await RoleGrant.findByPk(id))!.status).toBe('pending');
-  });
+      expect((await session.get('/api/role-grants')).status).toBe(403);
+      expect((await session.post(`/api/role-grants/${id}/confirm`, { password: TEST_PASSWORD })).status).toBe(403);
+      expect((await session.post(`/api/role-grants/${id}/refuse`, { reason: 'not mine to decide' })).status).toBe(403);
+      expect((await RoleGrant.findByPk(id))!.status).toBe('pending');
+    },
+  );
 
   it('when a compliance officer confirms with a wrong password, then it is a 400 and nothing is granted', async () => {
     const { session: asker } = await signedInAs(app, ['admin']);
@@ -148,17 +166,27 @@ describe('a signing role waits for a second person', () => {
     await askFor(asker, target.id, ['checker', 'approver']);
     const id = await pendingGrant(target.id, 'approver');
 
-    expectStatus(await officer.post(`/api/role-grants/${id}/refuse`, { reason: 'Not yet qualified to approve' }), 200, 'refuse');
+    expectStatus(
+      await officer.post(`/api/role-grants/${id}/refuse`, { reason: 'Not yet qualified to approve' }),
+      200,
+      'refuse',
+    );
 
     expect((await officer.post(`/api/role-grants/${id}/confirm`, { password: TEST_PASSWORD })).status).toBe(409);
-    expect((await asker.get(`/api/users/${target.id}`)).body).toEqual(expect.objectContaining({ roles: ['checker'], pendingRoles: [] }));
+    expect((await asker.get(`/api/users/${target.id}`)).body).toEqual(
+      expect.objectContaining({ roles: ['checker'], pendingRoles: [] }),
+    );
     expect(await rolesAudited(target.id)).toEqual(['user.role_requested:approver', 'user.role_refused:approver']);
   });
 
   it('when a new account is created with signing roles, then they wait for confirmation too', async () => {
     const { session: admin } = await signedInAs(app, ['admin']);
     const res = await admin.post('/api/users', {
-      username: `fresh-${Date.now()}`, displayName: 'Fresh Account', email: 'fresh@example.test', roles: ['approver'], initialPassword: TEST_PASSWORD,
+      username: `fresh-${Date.now()}`,
+      displayName: 'Fresh Account',
+      email: 'fresh@example.test',
+      roles: ['approver'],
+      initialPassword: TEST_PASSWORD,
     });
     expect(res.status).toBe(201);
     expect(res.body).toEqual(expect.objectContaining({ roles: [], pendingRoles: ['approver'] }));
@@ -174,12 +202,21 @@ describe('role changes reach the compliance officers', () => {
     const since = (await MailOutbox.max<number, MailOutbox>('id')) ?? 0;
 
     await askFor(asker, target.id, ['author', 'checker']);
-    await second.post(`/api/role-grants/${await pendingGrant(target.id, 'checker')}/confirm`, { password: TEST_PASSWORD });
+    await second.post(`/api/role-grants/${await pendingGrant(target.id, 'checker')}/confirm`, {
+      password: TEST_PASSWORD,
+    });
     await askFor(asker, target.id, ['checker']);
 
-    const mails = await MailOutbox.findAll({ where: { id: { [Op.gt]: since }, recipient: `${officer.username}@example.test` }, order: [['id', 'ASC']] });
+    const mails = await MailOutbox.findAll({
+      where: { id: { [Op.gt]: since }, recipient: `${officer.username}@example.test` },
+      order: [['id', 'ASC']],
+    });
     expect(mails.map((m) => m.subject.split(':')[0])).toEqual(['Role requested', 'Role granted', 'Role removed']);
     expect(mails.every((m) => m.event === 'role_change' && m.body.includes(target.username))).toBe(true);
-    expect(await rolesAudited(target.id)).toEqual(['user.role_requested:checker', 'user.role_granted:checker', 'user.role_removed:author']);
+    expect(await rolesAudited(target.id)).toEqual([
+      'user.role_requested:checker',
+      'user.role_granted:checker',
+      'user.role_removed:author',
+    ]);
   });
 });

@@ -12,11 +12,15 @@ const children: ChildProcess[] = [];
 function startServer(): Promise<string> {
   return new Promise((resolve, reject) => {
     const child = fork(path.join(ROOT, 'server/main.ts'), [], {
-      cwd: ROOT, execArgv: ['--import', 'tsx'], stdio: ['ignore', 'ignore', 'inherit', 'ipc'],
+      cwd: ROOT,
+      execArgv: ['--import', 'tsx'],
+      stdio: ['ignore', 'ignore', 'inherit', 'ipc'],
       env: { ...process.env, PORT: '0', HOST: '127.0.0.1', NODE_ENV: 'test', LOG_LEVEL: 'silent' },
     });
     children.push(child);
-    child.once('message', (m: { ready?: boolean; port?: number }) => (m.ready ? resolve(`http://127.0.0.1:${m.port}`) : reject(new Error('odd message'))));
+    child.once('message', (m: { ready?: boolean; port?: number }) =>
+      m.ready ? resolve(`http://127.0.0.1:${m.port}`) : reject(new Error('odd message')),
+    );
     child.once('exit', (code) => reject(new Error(`server process exited early with code ${code}`)));
   });
 }
@@ -25,7 +29,10 @@ function stop(child: ChildProcess): Promise<void> {
   if (child.exitCode !== null || child.signalCode !== null) return Promise.resolve();
   return new Promise((resolve) => {
     const force = setTimeout(() => child.kill('SIGKILL'), 5_000);
-    child.once('exit', () => { clearTimeout(force); resolve(); });
+    child.once('exit', () => {
+      clearTimeout(force);
+      resolve();
+    });
     child.kill('SIGTERM');
   });
 }
@@ -46,11 +53,17 @@ describe('sessions across server processes', () => {
     const admin = await createTestUser(['admin']);
     const agent = request.agent(first);
     const token = (await agent.get('/api/session')).body.csrfToken;
-    const login = await agent.post('/api/auth/login').set('x-csrf-token', token).send({ username: admin.username, password: TEST_PASSWORD });
+    const login = await agent
+      .post('/api/auth/login')
+      .set('x-csrf-token', token)
+      .send({ username: admin.username, password: TEST_PASSWORD });
     const cookie = sessionCookieOf(login);
 
     // The write goes first: GET /api/session hands out a new CSRF token, which would retire this one.
-    const write = await request(second).post('/api/projects').set('Cookie', cookie).set('x-csrf-token', login.body.csrfToken)
+    const write = await request(second)
+      .post('/api/projects')
+      .set('Cookie', cookie)
+      .set('x-csrf-token', login.body.csrfToken)
       .send({ code: uniqueCode('MP'), name: 'Two-process shaft' });
     const who = await request(second).get('/api/session').set('Cookie', cookie);
 
@@ -63,7 +76,10 @@ describe('sessions across server processes', () => {
     const user = await createTestUser(['author']);
     const agent = request.agent(second);
     const token = (await agent.get('/api/session')).body.csrfToken;
-    const login = await agent.post('/api/auth/login').set('x-csrf-token', token).send({ username: user.username, password: TEST_PASSWORD });
+    const login = await agent
+      .post('/api/auth/login')
+      .set('x-csrf-token', token)
+      .send({ username: user.username, password: TEST_PASSWORD });
     const cookie = sessionCookieOf(login);
 
     await request(first).post('/api/auth/logout').set('Cookie', cookie).set('x-csrf-token', login.body.csrfToken);

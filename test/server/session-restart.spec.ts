@@ -12,7 +12,10 @@ describe('sessions across a restart', () => {
     const after = startTestApp();
     try {
       // Write first: GET /api/session would hand out a new CSRF token and retire the old one.
-      const write = await request(after.app).post('/api/projects').set('Cookie', cookie).set('x-csrf-token', session.csrf)
+      const write = await request(after.app)
+        .post('/api/projects')
+        .set('Cookie', cookie)
+        .set('x-csrf-token', session.csrf)
         .send({ code: uniqueCode('RS'), name: 'Restart-proof shaft' });
       const who = await request(after.app).get('/api/session').set('Cookie', cookie);
 

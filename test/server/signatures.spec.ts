@@ -2,13 +2,29 @@ import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { startTestApp, TEST_PASSWORD } from '../support/api-harness';
 import {
-  advanceTo, auditOf, createCalc, lastAuditId, mailAbout, person, revisionOf, sign, tickAll, type Team,
+  advanceTo,
+  auditOf,
+  createCalc,
+  lastAuditId,
+  mailAbout,
+  person,
+  revisionOf,
+  sign,
+  tickAll,
+  type Team,
 } from '../support/calc-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
 
-interface SignatureView { printedName: string; role: string; meaning: string; signedAt: string; contentHash: string; isValid: boolean }
+interface SignatureView {
+  printedName: string;
+  role: string;
+  meaning: string;
+  signedAt: string;
+  contentHash: string;
+  isValid: boolean;
+}
 
 async function team() {
   const author = await person(app, ['author']);
@@ -21,10 +37,15 @@ async function team() {
 
 /** What someone with database access but no business in the app might do: change a stored input. */
 async function tamperWithInput(revisionId: number): Promise<void> {
-  const [row] = await sequelize.query<{ input: string }>('SELECT input FROM revisions WHERE id = ?', { replacements: [revisionId], type: QueryTypes.SELECT });
+  const [row] = await sequelize.query<{ input: string }>('SELECT input FROM revisions WHERE id = ?', {
+    replacements: [revisionId],
+    type: QueryTypes.SELECT,
+  });
   const input = JSON.parse(row.input);
   input.segments[1].od = input.segments[1].od + 5;
-  await sequelize.query('UPDATE revisions SET input = ? WHERE id = ?', { replacements: [JSON.stringify(input), revisionId] });
+  await sequelize.query('UPDATE revisions SET input = ? WHERE id = ?', {
+    replacements: [JSON.stringify(input), revisionId],
+  });
 }
 
 describe('the password', () => {
@@ -42,9 +63,13 @@ describe('the password', () => {
     expect(res.body.message).toMatch(/nothing was signed/);
     const r = await revisionOf(t.author.session, t.revisionId);
     expect([r.status, r.signatures]).toEqual(['draft', []]);
-    expect(await auditOf('Revision', t.revisionId, since)).toEqual([expect.objectContaining({
-      action: 'revision.signature_refused', actorId: t.author.user.id, payload: { meaning: 'authored', reason: 'wrong password' },
-    })]);
+    expect(await auditOf('Revision', t.revisionId, since)).toEqual([
+      expect.objectContaining({
+        action: 'revision.signature_refused',
+        actorId: t.author.user.id,
+        payload: { meaning: 'authored', reason: 'wrong password' },
+      }),
+    ]);
     expect(await mailAbout(t.project.code)).toEqual([]);
   });
 
@@ -53,7 +78,11 @@ describe('the password', () => {
     const t = await team();
 
     // Act
-    const res = await t.author.session.post(`/api/revisions/${t.revisionId}/sign`, { meaning: 'authored', idempotencyKey: randomUUID(), lockVersion: 0 });
+    const res = await t.author.session.post(`/api/revisions/${t.revisionId}/sign`, {
+      meaning: 'authored',
+      idempotencyKey: randomUUID(),
+      lockVersion: 0,
+    });
 
     // Assert
     expect(res.status).toBe(400);
@@ -110,7 +139,12 @@ describe('idempotency', () => {
     const first = await sign(t.author.session, t.revisionId, 'authored', { key });
 
     // Act
-    const retry = await t.author.session.post(`/api/revisions/${t.revisionId}/sign`, { password: TEST_PASSWORD, meaning: 'authored', idempotencyKey: key, lockVersion: 0 });
+    const retry = await t.author.session.post(`/api/revisions/${t.revisionId}/sign`, {
+      password: TEST_PASSWORD,
+      meaning: 'authored',
+      idempotencyKey: key,
+      lockVersion: 0,
+    });
 
     // Assert
     expect([first.status, retry.status]).toEqual([200, 200]);
@@ -136,7 +170,7 @@ describe('idempotency', () => {
 });
 
 describe('what a signature records', () => {
-  it('when the author signs, then the signature holds their printed name, role, meaning, the server\'s UTC time and the content hash', async () => {
+  it("when the author signs, then the signature holds their printed name, role, meaning, the server's UTC time and the content hash", async () => {
     // Arrange
     const t = await team();
     const before = Date.now();
@@ -148,7 +182,15 @@ describe('what a signature records', () => {
     const after = Date.now();
     expect(res.status).toBe(200);
     const [s] = res.body.signatures as SignatureView[];
-    expect(s).toEqual(expect.objectContaining({ printedName: t.author.displayName, role: 'author', meaning: 'authored', contentHash: res.body.contentHash, isValid: true }));
+    expect(s).toEqual(
+      expect.objectContaining({
+        printedName: t.author.displayName,
+        role: 'author',
+        meaning: 'authored',
+        contentHash: res.body.contentHash,
+        isValid: true,
+      }),
+    );
     expect(s.contentHash).toMatch(/^[0-9a-f]{64}$/);
     expect(s.signedAt).toMatch(/^\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d\.\d{3}Z$/);
     // The database stores milliseconds, so the bounds are whole milliseconds too.
@@ -171,7 +213,9 @@ describe('tampering', () => {
     const r = await revisionOf(t.author.session, t.revisionId);
     expect(signed.signatures.map((s: SignatureView) => s.isValid)).toEqual([true, true, true]);
     expect(r.signatures.map((s: SignatureView) => s.isValid)).toEqual([false, false, false]);
-    expect(r.signatures.map((s: SignatureView) => s.contentHash)).toEqual(signed.signatures.map((s: SignatureView) => s.contentHash));
+    expect(r.signatures.map((s: SignatureView) => s.contentHash)).toEqual(
+      signed.signatures.map((s: SignatureView) => s.contentHash),
+    );
   });
 
   it('when a stored input of a revision in check is changed in the database, then signing it is refused with an integrity message', async () => {

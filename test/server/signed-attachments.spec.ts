@@ -20,7 +20,17 @@ describe('attachments inside what is signed', () => {
     await upload(author.session, revisionId, pdfBytes(900, 'drawing'), { kind: 'drawing' }, 'DRG-1.pdf');
     expect((await sign(author.session, revisionId, 'authored')).status).toBe(200);
 
-    expect((await upload(checker.session, revisionId, pdfBytes(700, 'mill cert'), { kind: 'material-certificate' }, 'mill cert.pdf')).status).toBe(201);
+    expect(
+      (
+        await upload(
+          checker.session,
+          revisionId,
+          pdfBytes(700, 'mill cert'),
+          { kind: 'material-certificate' },
+          'mill cert.pdf',
+        )
+      ).status,
+    ).toBe(201);
     const afterUpload = byMeaning((await revisionOf(checker.session, revisionId)).signatures);
     await tickAll(checker.session, revisionId);
     expect((await sign(checker.session, revisionId, 'checked')).status).toBe(200);
@@ -30,7 +40,9 @@ describe('attachments inside what is signed', () => {
     expect(sigs.authored.attachments!.map((a) => a.name)).toContain('DRG-1.pdf');
     expect(sigs.authored.attachments!.map((a) => a.name)).not.toContain('mill cert.pdf');
     expect(sigs.checked.isValid).toBe(true);
-    expect(sigs.checked.attachments!.map((a) => a.name)).toEqual(expect.arrayContaining(['DRG-1.pdf', 'mill cert.pdf']));
+    expect(sigs.checked.attachments!.map((a) => a.name)).toEqual(
+      expect.arrayContaining(['DRG-1.pdf', 'mill cert.pdf']),
+    );
   });
 
   it('when the approver attaches a file after the check, then author and checker signatures no longer hold and the approval covers it', async () => {
@@ -39,7 +51,10 @@ describe('attachments inside what is signed', () => {
     await tickAll(checker.session, revisionId);
     await sign(checker.session, revisionId, 'checked');
 
-    expect((await upload(approver.session, revisionId, pdfBytes(500, 'site note'), { kind: 'other' }, 'site note.pdf')).status).toBe(201);
+    expect(
+      (await upload(approver.session, revisionId, pdfBytes(500, 'site note'), { kind: 'other' }, 'site note.pdf'))
+        .status,
+    ).toBe(201);
     expect((await sign(approver.session, revisionId, 'approved')).status).toBe(200);
     const sigs = byMeaning((await revisionOf(approver.session, revisionId)).signatures);
 
@@ -48,12 +63,18 @@ describe('attachments inside what is signed', () => {
     expect(sigs.checked.attachments!.map((a) => a.name)).not.toContain('site note.pdf');
   });
 
-  it('when the checker attached a file during check, then the approved calc\'s evidence pack still verifies, naming what each signature covered', async () => {
+  it("when the checker attached a file during check, then the approved calc's evidence pack still verifies, naming what each signature covered", async () => {
     const team = await calcTeam(ctx.app);
     const { author, checker, approver, revisionId } = team;
     // The author's own files are uploaded (the harness would otherwise insert rows for the kinds manual items need).
     await upload(author.session, revisionId, pdfBytes(900, 'drawing'), { kind: 'drawing' }, 'DRG-1.pdf');
-    await upload(author.session, revisionId, pdfBytes(800, 'certificate'), { kind: 'material-certificate' }, 'cert.pdf');
+    await upload(
+      author.session,
+      revisionId,
+      pdfBytes(800, 'certificate'),
+      { kind: 'material-certificate' },
+      'cert.pdf',
+    );
     await sign(author.session, revisionId, 'authored');
     await upload(checker.session, revisionId, pdfBytes(700, 'hardness test'), { kind: 'other' }, 'hardness-test.pdf');
     await tickAll(checker.session, revisionId);
@@ -61,7 +82,11 @@ describe('attachments inside what is signed', () => {
     await sign(approver.session, revisionId, 'approved');
     const compliance = await signedInAs(ctx.app, ['compliance']);
     const exported = await getBinary(compliance.session, `/api/calcs/${team.calc.id}/evidence.zip`);
-    expect([exported.status, exported.status === 200 ? '' : String(exported.body), (await revisionOf(approver.session, revisionId)).status]).toEqual([200, '', 'approved']);
+    expect([
+      exported.status,
+      exported.status === 200 ? '' : String(exported.body),
+      (await revisionOf(approver.session, revisionId)).status,
+    ]).toEqual([200, '', 'approved']);
     const pack = exported.body as Buffer;
 
     const verified = await postPack(compliance.session, pack);
@@ -70,7 +95,9 @@ describe('attachments inside what is signed', () => {
 
     expect(verified.body.checks.filter((c: { ok: boolean }) => !c.ok)).toEqual([]);
     expect(verified.body.ok).toBe(true);
-    expect(authored.detail).toMatch(/attachments DRG-1\.pdf, cert\.pdf; added after this signature: hardness-test\.pdf/);
+    expect(authored.detail).toMatch(
+      /attachments DRG-1\.pdf, cert\.pdf; added after this signature: hardness-test\.pdf/,
+    );
   });
 
   it('when anyone tries to attach a file after approval, then it is refused and the signatures still hold', async () => {
@@ -83,7 +110,11 @@ describe('attachments inside what is signed', () => {
     const res = await upload(approver.session, revisionId, pdfBytes(500, 'late'), { kind: 'other' }, 'late.pdf');
 
     expect(res.status).toBe(409);
-    expect((await revisionOf(approver.session, revisionId)).signatures.map((s: Sig) => s.isValid)).toEqual([true, true, true]);
+    expect((await revisionOf(approver.session, revisionId)).signatures.map((s: Sig) => s.isValid)).toEqual([
+      true,
+      true,
+      true,
+    ]);
   });
 
   it('when a signature was made before attachments were signed (format 1), then it still verifies as it did', async () => {
@@ -102,13 +133,21 @@ describe('attachments inside what is signed', () => {
     const team = await calcTeam(ctx.app);
     const { author, checker, approver, revisionId } = team;
     await upload(author.session, revisionId, pdfBytes(900, 'drawing'), { kind: 'drawing' }, 'DRG-1.pdf');
-    await upload(author.session, revisionId, pdfBytes(800, 'certificate'), { kind: 'material-certificate' }, 'cert.pdf');
+    await upload(
+      author.session,
+      revisionId,
+      pdfBytes(800, 'certificate'),
+      { kind: 'material-certificate' },
+      'cert.pdf',
+    );
     await sign(author.session, revisionId, 'authored');
     await tickAll(checker.session, revisionId);
     await sign(checker.session, revisionId, 'checked');
     await sign(approver.session, revisionId, 'approved');
     const compliance = await signedInAs(ctx.app, ['compliance']);
-    const files = await unzip((await getBinary(compliance.session, `/api/calcs/${team.calc.id}/evidence.zip`)).body as Buffer);
+    const files = await unzip(
+      (await getBinary(compliance.session, `/api/calcs/${team.calc.id}/evidence.zip`)).body as Buffer,
+    );
     const record = JSON.parse(files.get('revisions/A/record.json')!.toString('utf8'));
     record.attachments = record.attachments.filter((a: { fileName: string }) => a.fileName !== 'DRG-1.pdf');
     files.set('revisions/A/record.json', Buffer.from(JSON.stringify(record, null, 2)));
@@ -116,9 +155,14 @@ describe('attachments inside what is signed', () => {
     const verified = await postPack(compliance.session, await rezip(files));
 
     expect(verified.body.ok).toBe(false);
-    expect(verified.body.checks).toEqual(expect.arrayContaining([expect.objectContaining({ name: 'revisions/A/record.json attachment list', ok: false })]));
+    expect(verified.body.checks).toEqual(
+      expect.arrayContaining([expect.objectContaining({ name: 'revisions/A/record.json attachment list', ok: false })]),
+    );
 
-    const carried = await author.session.post(`/api/calcs/${team.calc.id}/revisions`, { reasonForChange: 'Keyway moved 5 mm', carryAttachments: true });
+    const carried = await author.session.post(`/api/calcs/${team.calc.id}/revisions`, {
+      reasonForChange: 'Keyway moved 5 mm',
+      carryAttachments: true,
+    });
     expect(carried.status).toBe(201);
     const listed = await author.session.get(`/api/revisions/${carried.body.id}/attachments`);
     expect(listed.body.items.map((a: { fileName: string }) => a.fileName)).toContain('DRG-1.pdf');

@@ -13,11 +13,18 @@ afterAll(async () => {
 
 async function attempt(app: Express, username: string, forwardedFor: string, password = 'not the password') {
   const { agent, token } = await anonymousAgent(app);
-  return agent.post('/api/auth/login').set('x-csrf-token', token).set('x-forwarded-for', forwardedFor).send({ username, password });
+  return agent
+    .post('/api/auth/login')
+    .set('x-csrf-token', token)
+    .set('x-forwarded-for', forwardedFor)
+    .send({ username, password });
 }
 
 async function lastSignInIp(userId: number): Promise<string | null> {
-  const row = await AuditEvent.findOne({ where: { action: 'auth.signed_in', actorId: userId }, order: [['id', 'DESC']] });
+  const row = await AuditEvent.findOne({
+    where: { action: 'auth.signed_in', actorId: userId },
+    order: [['id', 'DESC']],
+  });
   if (!row) throw new Error(`no sign-in recorded for user ${userId}`);
   return row.ip;
 }
@@ -25,7 +32,8 @@ async function lastSignInIp(userId: number): Promise<string | null> {
 describe('X-Forwarded-For with the default configuration', () => {
   it('when each failed attempt claims a new address, then they still count against one limit', async () => {
     const user = await createTestUser(['author']);
-    for (let i = 0; i < 3; i++) expect((await attempt(plain.app, user.username, `203.0.113.${i + 1}`)).status).toBe(401);
+    for (let i = 0; i < 3; i++)
+      expect((await attempt(plain.app, user.username, `203.0.113.${i + 1}`)).status).toBe(401);
 
     const res = await attempt(plain.app, user.username, '198.51.100.77', TEST_PASSWORD);
 
@@ -36,7 +44,10 @@ describe('X-Forwarded-For with the default configuration', () => {
     const user = await createTestUser(['checker']);
     const { agent, token } = await anonymousAgent(plain.app);
 
-    const res = await agent.post('/api/auth/login').set('x-csrf-token', token).set('x-forwarded-for', '198.51.100.9')
+    const res = await agent
+      .post('/api/auth/login')
+      .set('x-csrf-token', token)
+      .set('x-forwarded-for', '198.51.100.9')
       .send({ username: user.username, password: TEST_PASSWORD });
 
     expect(res.status).toBe(200);
@@ -49,8 +60,12 @@ describe('X-Forwarded-For with TRUST_PROXY naming the balancer', () => {
     const user = await createTestUser(['approver']);
     const { agent, token } = await anonymousAgent(proxied.app);
 
-    await agent.post('/api/auth/login').set('x-csrf-token', token).set('x-forwarded-for', '198.51.100.10')
-      .send({ username: user.username, password: TEST_PASSWORD }).expect(200);
+    await agent
+      .post('/api/auth/login')
+      .set('x-csrf-token', token)
+      .set('x-forwarded-for', '198.51.100.10')
+      .send({ username: user.username, password: TEST_PASSWORD })
+      .expect(200);
 
     expect(await lastSignInIp(user.id)).toBe('198.51.100.10');
   });

@@ -7,8 +7,12 @@ const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
 
 const newUserBody = (overrides: object = {}) => ({
-  username: `made-${randomUUID().slice(0, 8)}`, displayName: 'Made In Test', email: 'made@example.test',
-  roles: ['author', 'checker'], initialPassword: TEST_PASSWORD, ...overrides,
+  username: `made-${randomUUID().slice(0, 8)}`,
+  displayName: 'Made In Test',
+  email: 'made@example.test',
+  roles: ['author', 'checker'],
+  initialPassword: TEST_PASSWORD,
+  ...overrides,
 });
 
 describe('creating users', () => {
@@ -19,7 +23,15 @@ describe('creating users', () => {
     const res = await admin.post('/api/users', body);
 
     expect(res.status).toBe(201);
-    expect(res.body).toEqual(expect.objectContaining({ username: body.username, roles: [], pendingRoles: ['author', 'checker'], active: true, version: 0 }));
+    expect(res.body).toEqual(
+      expect.objectContaining({
+        username: body.username,
+        roles: [],
+        pendingRoles: ['author', 'checker'],
+        active: true,
+        version: 0,
+      }),
+    );
     expect(JSON.stringify(res.body)).not.toMatch(/password/i);
     await expect(signedInAgent(app, body.username)).resolves.toBeDefined();
   });
@@ -69,7 +81,10 @@ describe("another person's password", () => {
   it('when an admin changes a password, then it is only ever their own', async () => {
     const { user, session: admin } = await signedInAs(app, ['admin']);
 
-    const res = await admin.post('/api/auth/password', { currentPassword: TEST_PASSWORD, newPassword: 'an admin-only new password' });
+    const res = await admin.post('/api/auth/password', {
+      currentPassword: TEST_PASSWORD,
+      newPassword: 'an admin-only new password',
+    });
 
     expect(res.status).toBe(204);
     await expect(signedInAgent(app, user.username, 'an admin-only new password')).resolves.toBeDefined();

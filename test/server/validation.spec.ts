@@ -16,7 +16,10 @@ const expectNoStack = (body: unknown) => expect(JSON.stringify(body)).not.toMatc
 
 describe('malformed bodies', () => {
   it('when a sign-in body is not valid JSON, then it is a 400, not a 500', async () => {
-    const res = await request(app).post('/api/auth/login').set('Content-Type', 'application/json').send('{"username": "a", ');
+    const res = await request(app)
+      .post('/api/auth/login')
+      .set('Content-Type', 'application/json')
+      .send('{"username": "a", ');
     expect(res.status).toBe(400);
     expect(res.body.message).toBe('Request body is not valid JSON');
     expectNoStack(res.body);
@@ -24,8 +27,11 @@ describe('malformed bodies', () => {
 
   it('when a signed-in PATCH body is not valid JSON, then it is a 400, not a 500', async () => {
     const user = await createTestUser(['author']);
-    const res = await admin.agent.patch(`/api/users/${user.id}`).set('x-csrf-token', admin.csrf)
-      .set('Content-Type', 'application/json').send('{"version": 0,,}');
+    const res = await admin.agent
+      .patch(`/api/users/${user.id}`)
+      .set('x-csrf-token', admin.csrf)
+      .set('Content-Type', 'application/json')
+      .send('{"version": 0,,}');
     expect(res.status).toBe(400);
     expectNoStack(res.body);
   });
@@ -39,7 +45,11 @@ describe('malformed bodies', () => {
   });
 
   it('when a body is not JSON at all, then the missing fields are named', async () => {
-    const res = await admin.agent.post('/api/projects').set('x-csrf-token', admin.csrf).set('Content-Type', 'text/plain').send('code=X');
+    const res = await admin.agent
+      .post('/api/projects')
+      .set('x-csrf-token', admin.csrf)
+      .set('Content-Type', 'text/plain')
+      .send('code=X');
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.fieldErrors).sort()).toEqual(['code', 'name']);
   });
@@ -61,7 +71,14 @@ describe('field errors', () => {
     ['roles[0]', { roles: ['superuser'] }],
     ['displayName', { displayName: 'x' }],
   ])('when a new user has a bad %s, then the 400 names it and says why', async (field, change) => {
-    const body = { username: 'valid-name', displayName: 'Valid Name', email: 'v@example.test', roles: ['author'], initialPassword: TEST_PASSWORD, ...change };
+    const body = {
+      username: 'valid-name',
+      displayName: 'Valid Name',
+      email: 'v@example.test',
+      roles: ['author'],
+      initialPassword: TEST_PASSWORD,
+      ...change,
+    };
 
     const res = await admin.post('/api/users', body);
 
@@ -75,7 +92,13 @@ describe('field errors', () => {
   // Create and update schemas are strict: a field that is not on the form is named and refused.
   it('when a new user body carries fields that are not part of the form, then it is refused naming them', async () => {
     const username = `extra-${randomUUID().slice(0, 8)}`;
-    const body = { username, displayName: 'Extra Fields', email: 'e@example.test', roles: ['author'], initialPassword: TEST_PASSWORD };
+    const body = {
+      username,
+      displayName: 'Extra Fields',
+      email: 'e@example.test',
+      roles: ['author'],
+      initialPassword: TEST_PASSWORD,
+    };
 
     const res = await admin.post('/api/users', { ...body, active: false, passwordHash: 'forged' });
 

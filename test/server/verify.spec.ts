@@ -23,13 +23,33 @@ describe('verify a record hash', () => {
     const res = await session.get(`/api/verify/${hash.toUpperCase()}`);
 
     expect(res.status).toBe(200);
-    expect(res.body).toEqual(expect.objectContaining({ hash, found: true, caution: expect.stringMatching(/qualified engineer/) }));
-    expect(res.body.matches).toEqual([expect.objectContaining({
-      calcNumber: calc.number, revision: 'A', state: 'approved', verdict: 'compliant', match: 'current', contentIntact: true,
-    })]);
-    expect(res.body.matches[0].signatures.map((s: { meaning: string; isValid: boolean; coversThisHash: boolean }) => [s.meaning, s.isValid, s.coversThisHash]))
-      .toEqual([['authored', true, true], ['checked', true, true], ['approved', true, true]]);
-    expect(res.body.message).toMatch(/matches .* rev A \(approved\) as stored now; valid signatures: authored, checked, approved/);
+    expect(res.body).toEqual(
+      expect.objectContaining({ hash, found: true, caution: expect.stringMatching(/qualified engineer/) }),
+    );
+    expect(res.body.matches).toEqual([
+      expect.objectContaining({
+        calcNumber: calc.number,
+        revision: 'A',
+        state: 'approved',
+        verdict: 'compliant',
+        match: 'current',
+        contentIntact: true,
+      }),
+    ]);
+    expect(
+      res.body.matches[0].signatures.map((s: { meaning: string; isValid: boolean; coversThisHash: boolean }) => [
+        s.meaning,
+        s.isValid,
+        s.coversThisHash,
+      ]),
+    ).toEqual([
+      ['authored', true, true],
+      ['checked', true, true],
+      ['approved', true, true],
+    ]);
+    expect(res.body.message).toMatch(
+      /matches .* rev A \(approved\) as stored now; valid signatures: authored, checked, approved/,
+    );
   });
 
   it('when a hash was signed and the content changed since, then it is reported as an earlier state of that revision', async () => {
@@ -37,23 +57,33 @@ describe('verify a record hash', () => {
     await sign(author.session, revisionId, 'authored');
     const signedHash = (await revisionOf(author.session, revisionId)).contentHash;
     const r = await revisionOf(checker.session, revisionId);
-    await checker.session.post(`/api/revisions/${revisionId}/return`, { reason: 'Check the coupling seat diameter', lockVersion: r.lockVersion });
+    await checker.session.post(`/api/revisions/${revisionId}/return`, {
+      reason: 'Check the coupling seat diameter',
+      lockVersion: r.lockVersion,
+    });
     const input = fixtureInput() as { segments: { od: number }[] };
     input.segments[4].od = 40;
-    const saved = await author.session.put(`/api/revisions/${revisionId}`, { input, lockVersion: (await revisionOf(author.session, revisionId)).lockVersion });
+    const saved = await author.session.put(`/api/revisions/${revisionId}`, {
+      input,
+      lockVersion: (await revisionOf(author.session, revisionId)).lockVersion,
+    });
     expect(saved.body.contentHash).not.toBe(signedHash);
 
     const res = await checker.session.get(`/api/verify/${signedHash}`);
 
     expect(res.body.matches).toEqual([expect.objectContaining({ match: 'earlier', state: 'returned' })]);
-    expect(res.body.matches[0].signatures).toEqual([expect.objectContaining({ meaning: 'authored', isValid: false, coversThisHash: true })]);
+    expect(res.body.matches[0].signatures).toEqual([
+      expect.objectContaining({ meaning: 'authored', isValid: false, coversThisHash: true }),
+    ]);
     expect(res.body.message).toMatch(/content has changed since/);
   });
 
   it('when the stored content is altered behind the application, then the hash still finds the revision but says it is not intact', async () => {
     const { revisionId, hash, author } = await approved();
     const row = (await Revision.findByPk(revisionId))!;
-    await sequelize.query('UPDATE revisions SET input = ? WHERE id = ?', { replacements: [row.input.replace('"od":35', '"od":36'), revisionId] });
+    await sequelize.query('UPDATE revisions SET input = ? WHERE id = ?', {
+      replacements: [row.input.replace('"od":35', '"od":36'), revisionId],
+    });
 
     const res = await author.session.get(`/api/verify/${hash}`);
 
@@ -76,7 +106,9 @@ describe('verify a record hash', () => {
     const bad = await session.get('/api/verify/not-a-hash');
 
     expect(bad.status).toBe(400);
-    expect(bad.body.fieldErrors['params.hash']).toEqual(['must be the 64 hexadecimal characters of the record hash printed on the report']);
+    expect(bad.body.fieldErrors['params.hash']).toEqual([
+      'must be the 64 hexadecimal characters of the record hash printed on the report',
+    ]);
     expect((await agent.get(`/api/verify/${'ab'.repeat(32)}`)).status).toBe(401);
   });
 });

@@ -1,7 +1,16 @@
 import { randomUUID } from 'node:crypto';
 import { startTestApp, TEST_PASSWORD } from '../support/api-harness';
 import {
-  advanceTo, auditOf, createCalc, lastAuditId, person, revisionOf, tickAll, type Meaning, type Session, type Team,
+  advanceTo,
+  auditOf,
+  createCalc,
+  lastAuditId,
+  person,
+  revisionOf,
+  tickAll,
+  type Meaning,
+  type Session,
+  type Team,
 } from '../support/calc-harness';
 import type { Role } from '../../shared/authz/roles';
 
@@ -16,16 +25,29 @@ afterAll(() => sequelize.close());
 const ACTORS = ['author', 'author+checker', 'other author', 'checker', 'approver', 'compliance', 'admin'] as const;
 type Who = (typeof ACTORS)[number];
 const ROLES_OF: Record<Who, Role[]> = {
-  author: ['author'], 'author+checker': ['author', 'checker'], 'other author': ['author'],
-  checker: ['checker'], approver: ['approver'], compliance: ['compliance'], admin: ['admin'],
+  author: ['author'],
+  'author+checker': ['author', 'checker'],
+  'other author': ['author'],
+  checker: ['checker'],
+  approver: ['approver'],
+  compliance: ['compliance'],
+  admin: ['admin'],
 };
 const isOwnAuthor = (who: Who) => who === 'author' || who === 'author+checker';
 
 type From = 'draft' | 'in_check' | 'checked';
 interface Transition {
-  name: string; from: From; to: string; allowed: readonly Who[]; audit: string;
+  name: string;
+  from: From;
+  to: string;
+  allowed: readonly Who[];
+  audit: string;
   /** `lockVersion` is read by the author: admins may not read revisions, yet must get a well-formed request refused. */
-  act: (s: Session, revisionId: number, lockVersion: number) => Promise<{ status: number; body: { message?: string; status?: string } }>;
+  act: (
+    s: Session,
+    revisionId: number,
+    lockVersion: number,
+  ) => Promise<{ status: number; body: { message?: string; status?: string } }>;
   /** What a refusal says, given who tried. */
   refusal: (who: Who) => RegExp;
 }
@@ -38,28 +60,76 @@ const signRefusal = (role: Role) => (who: Who) => {
 };
 const signAs = (meaning: Meaning) => (s: Session, id: number, lockVersion: number) =>
   s.post(`/api/revisions/${id}/sign`, { password: TEST_PASSWORD, meaning, idempotencyKey: randomUUID(), lockVersion });
-const returnIt = (s: Session, id: number, lockVersion: number) => s.post(`/api/revisions/${id}/return`, { reason: 'Keyseat factor needs a source', lockVersion });
+const returnIt = (s: Session, id: number, lockVersion: number) =>
+  s.post(`/api/revisions/${id}/return`, { reason: 'Keyseat factor needs a source', lockVersion });
 
 const TRANSITIONS: Transition[] = [
-  { name: 'submit (sign as authored)', from: 'draft', to: 'in_check', allowed: ['author', 'author+checker'], audit: 'revision.signed_authored',
-    act: signAs('authored'), refusal: signRefusal('author') },
-  { name: 'sign as checked', from: 'in_check', to: 'checked', allowed: ['checker'], audit: 'revision.signed_checked',
-    act: signAs('checked'), refusal: signRefusal('checker') },
-  { name: 'sign as approved', from: 'checked', to: 'approved', allowed: ['approver'], audit: 'revision.signed_approved',
-    act: signAs('approved'), refusal: signRefusal('approver') },
-  { name: 'return an in-check revision', from: 'in_check', to: 'returned', allowed: ['checker'], audit: 'revision.returned',
-    act: returnIt, refusal: () => RETURN_REFUSAL },
-  { name: 'return a checked revision', from: 'checked', to: 'returned', allowed: ['approver'], audit: 'revision.returned',
-    act: returnIt, refusal: () => RETURN_REFUSAL },
-  { name: 'withdraw a draft', from: 'draft', to: 'withdrawn', allowed: ['author', 'author+checker'], audit: 'revision.withdrawn',
-    act: (s, id, lockVersion) => s.post(`/api/revisions/${id}/withdraw`, { reason: 'Duplicate of another calc', lockVersion }),
-    refusal: () => /Only the author can withdraw a draft or returned revision/ },
+  {
+    name: 'submit (sign as authored)',
+    from: 'draft',
+    to: 'in_check',
+    allowed: ['author', 'author+checker'],
+    audit: 'revision.signed_authored',
+    act: signAs('authored'),
+    refusal: signRefusal('author'),
+  },
+  {
+    name: 'sign as checked',
+    from: 'in_check',
+    to: 'checked',
+    allowed: ['checker'],
+    audit: 'revision.signed_checked',
+    act: signAs('checked'),
+    refusal: signRefusal('checker'),
+  },
+  {
+    name: 'sign as approved',
+    from: 'checked',
+    to: 'approved',
+    allowed: ['approver'],
+    audit: 'revision.signed_approved',
+    act: signAs('approved'),
+    refusal: signRefusal('approver'),
+  },
+  {
+    name: 'return an in-check revision',
+    from: 'in_check',
+    to: 'returned',
+    allowed: ['checker'],
+    audit: 'revision.returned',
+    act: returnIt,
+    refusal: () => RETURN_REFUSAL,
+  },
+  {
+    name: 'return a checked revision',
+    from: 'checked',
+    to: 'returned',
+    allowed: ['approver'],
+    audit: 'revision.returned',
+    act: returnIt,
+    refusal: () => RETURN_REFUSAL,
+  },
+  {
+    name: 'withdraw a draft',
+    from: 'draft',
+    to: 'withdrawn',
+    allowed: ['author', 'author+checker'],
+    audit: 'revision.withdrawn',
+    act: (s, id, lockVersion) =>
+      s.post(`/api/revisions/${id}/withdraw`, { reason: 'Duplicate of another calc', lockVersion }),
+    refusal: () => /Only the author can withdraw a draft or returned revision/,
+  },
 ];
 
 // Admins may not read revisions at all, so every call reads back through the author's session.
 async function scene(who: Who) {
-  const author = who === 'author+checker' ? await person(app, ['author', 'checker'], 'authchk') : await person(app, ['author']);
-  const team: Team = { author: author.session, checker: (await person(app, ['checker'])).session, approver: (await person(app, ['approver'])).session };
+  const author =
+    who === 'author+checker' ? await person(app, ['author', 'checker'], 'authchk') : await person(app, ['author']);
+  const team: Team = {
+    author: author.session,
+    checker: (await person(app, ['checker'])).session,
+    approver: (await person(app, ['approver'])).session,
+  };
   const actor = isOwnAuthor(who) ? author : await person(app, ROLES_OF[who], who.replace(/\W/g, ''));
   const { revisionId } = await createCalc(author.session);
   return { team, actor, revisionId };
@@ -67,7 +137,8 @@ async function scene(who: Who) {
 
 async function arrange(from: From, team: Team, revisionId: number): Promise<void> {
   if (from !== 'draft') await advanceTo(from, team, revisionId);
-  // Manual items are the checker's; ticking them first means a refused check is refused for who tries, not for open items.
+  // Manual items are the checker's; ticking them first means a refused check is refused for who tries, not for open
+  // items.
   if (from === 'in_check') await tickAll(team.checker, revisionId);
 }
 
@@ -90,7 +161,9 @@ describe.each(ACTORS)('as %s', (who) => {
       if (isAllowed) {
         expect(res.status).toBe(200);
         expect(after.status).toBe(t.to);
-        expect(audit).toEqual([expect.objectContaining({ action: t.audit, actorId: actor.user.id, actorName: actor.displayName })]);
+        expect(audit).toEqual([
+          expect.objectContaining({ action: t.audit, actorId: actor.user.id, actorName: actor.displayName }),
+        ]);
       } else {
         expect(res.status).toBe(403);
         expect(res.body.message).toMatch(t.refusal(who));

@@ -19,8 +19,11 @@ describe('from draft to approved', () => {
 
     expect(approved.status).toBe(200);
     expect(approved.body.status).toBe('approved');
-    expect(approved.body.signatures.map((s: { meaning: string; isValid: boolean }) => [s.meaning, s.isValid]))
-      .toEqual([['authored', true], ['checked', true], ['approved', true]]);
+    expect(approved.body.signatures.map((s: { meaning: string; isValid: boolean }) => [s.meaning, s.isValid])).toEqual([
+      ['authored', true],
+      ['checked', true],
+      ['approved', true],
+    ]);
   });
 });
 

@@ -1,8 +1,10 @@
 import { subject } from '@casl/ability';
 import { createAppAbility, defineRulesFor } from '../../shared/authz/app-ability';
 
-const ability = (id: number, roles: Parameters<typeof defineRulesFor>[0] extends infer U ? U extends { roles: infer R } ? R : never : never) =>
-  createAppAbility(defineRulesFor({ id, roles }));
+const ability = (
+  id: number,
+  roles: Parameters<typeof defineRulesFor>[0] extends infer U ? (U extends { roles: infer R } ? R : never) : never,
+) => createAppAbility(defineRulesFor({ id, roles }));
 
 describe('shared abilities', () => {
   it('when a condition names several fields, then all of them must match', () => {

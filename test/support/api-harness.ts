@@ -27,7 +27,12 @@ export function startTestApp(overrides: Partial<Config> = {}): { app: Express; s
 export async function createTestUser(roles: Role[], prefix = roles.join('-') || 'nobody') {
   cachedHash ??= hash(TEST_PASSWORD, TEST_HASH_COST);
   const username = `${prefix}-${randomUUID().slice(0, 8)}`.toLowerCase();
-  const user = await User.create({ username, displayName: `Test ${prefix}`, email: `${username}@example.test`, passwordHash: await cachedHash });
+  const user = await User.create({
+    username,
+    displayName: `Test ${prefix}`,
+    email: `${username}@example.test`,
+    passwordHash: await cachedHash,
+  });
   await UserRole.bulkCreate(roles.map((role) => ({ userId: user.id, role })));
   return { id: user.id, username };
 }
@@ -37,12 +42,15 @@ export async function signedInAgent(app: Express, username: string, password = T
   const agent = request.agent(app);
   let token = (await agent.get('/api/session')).body.csrfToken as string;
   const login = await agent.post('/api/auth/login').set('x-csrf-token', token).send({ username, password });
-  if (login.status !== 200) throw new Error(`sign-in of ${username} failed: ${login.status} ${JSON.stringify(login.body)}`);
+  if (login.status !== 200)
+    throw new Error(`sign-in of ${username} failed: ${login.status} ${JSON.stringify(login.body)}`);
   token = login.body.csrfToken;
   return {
     agent,
     login,
-    get csrf() { return token; },
+    get csrf() {
+      return token;
+    },
     get: (url: string) => agent.get(url),
     post: (url: string, body?: object) => agent.post(url).set('x-csrf-token', token).send(body),
     patch: (url: string, body?: object) => agent.patch(url).set('x-csrf-token', token).send(body),
@@ -57,7 +65,9 @@ export function uniqueCode(prefix = 'T'): string {
 }
 
 /** Inserts a project directly, for tests that need one to exist without going through an admin. */
-export async function createTestProject(overrides: Partial<{ code: string; name: string; status: 'active' | 'archived' }> = {}) {
+export async function createTestProject(
+  overrides: Partial<{ code: string; name: string; status: 'active' | 'archived' }> = {},
+) {
   const project = await Project.create({ code: uniqueCode(), name: 'Test drive shaft', createdBy: null, ...overrides });
   return { id: project.id, code: project.code, version: project.version };
 }

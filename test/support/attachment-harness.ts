@@ -19,10 +19,19 @@ export async function attachRequiredFiles(revisionId: number, manual: ManualRow[
     if (await Attachment.count({ where: { revisionId, kind } })) continue;
     added += 1;
     await Attachment.create({
-      revisionId, kind, fileName: `${kind}.pdf`, mediaType: 'application/pdf', sizeBytes: 4, sha256: '0'.repeat(64),
-      storageKey: 'test-fixture/no-bytes', uploadedBy: revision.authorId, uploadedByName: 'test harness',
+      revisionId,
+      kind,
+      fileName: `${kind}.pdf`,
+      mediaType: 'application/pdf',
+      sizeBytes: 4,
+      sha256: '0'.repeat(64),
+      storageKey: 'test-fixture/no-bytes',
+      uploadedBy: revision.authorId,
+      uploadedByName: 'test harness',
     });
   }
   if (added === 0) return;
-  await Revision.sequelize!.transaction(async (transaction) => refreshAfterAttachmentChange(await loadRevision(revisionId, transaction), transaction));
+  await Revision.sequelize!.transaction(async (transaction) =>
+    refreshAfterAttachmentChange(await loadRevision(revisionId, transaction), transaction),
+  );
 }

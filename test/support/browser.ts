@@ -10,8 +10,14 @@ export const SCREENSHOT_DIR = path.resolve(__dirname, '../../artifacts/screensho
 
 // Debian's chromium, started the way this machine allows: no sandbox as root, no background network.
 const CHROMIUM_ARGS = [
-  '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-  '--disable-background-networking', '--disable-component-update', '--disable-sync',
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
 ];
 
 /** The real app on a free loopback port, plus a fresh Chromium profile. */
@@ -42,7 +48,8 @@ export async function startBrowserSession() {
     baseUrl,
     context,
     outsideRequests,
-    screenshot: (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`), fullPage: true }),
+    screenshot: (page: Page, name: string) =>
+      page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`), fullPage: true }),
     async close() {
       await context.close();
       await new Promise((resolve) => server.close(resolve));
@@ -58,10 +65,25 @@ export async function accessibilityViolations(page: Page) {
   // Evaluated over the DevTools protocol: the app's CSP (rightly) refuses injected script tags.
   await page.evaluate(source);
   const result = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
+    const axe = (
+      window as unknown as {
+        axe: {
+          run: (
+            ctx: Document,
+            opts: object,
+          ) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }>;
+        };
+      }
+    ).axe;
     return axe.run(document, { resultTypes: ['violations'] });
   });
   return result.violations
     .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-    .map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join(', ')}`);
+    .map(
+      (v) =>
+        `${v.id}: ${v.nodes
+          .map((n) => n.target.join(' '))
+          .slice(0, 3)
+          .join(', ')}`,
+    );
 }

@@ -29,7 +29,12 @@ export async function calcTeam(app: Express, input = fixtureInput()) {
   const approver = await signedInAs(app, ['approver'], 'approver');
   const project = await createTestProject();
   const res = await author.session.post('/api/calcs', {
-    projectId: project.id, number: `C-${randomUUID().slice(0, 6)}`, title: 'Test head shaft', partRef: 'DRG-1', ruleSetId: await effectiveRuleSetId(), input,
+    projectId: project.id,
+    number: `C-${randomUUID().slice(0, 6)}`,
+    title: 'Test head shaft',
+    partRef: 'DRG-1',
+    ruleSetId: await effectiveRuleSetId(),
+    input,
   });
   if (res.status !== 201) throw new Error(`calc create failed: ${res.status} ${JSON.stringify(res.body)}`);
   return { author, checker, approver, project, calc: res.body, revisionId: res.body.latest.id as number };
@@ -42,13 +47,22 @@ export async function revisionOf(s: Session, id: number) {
 }
 
 /** Signs with a fresh idempotency key unless one is given. */
-export async function sign(s: Session, id: number, meaning: 'authored' | 'checked' | 'approved', extra: Partial<{ key: string; password: string; withoutRequiredFiles: boolean }> = {}) {
+export async function sign(
+  s: Session,
+  id: number,
+  meaning: 'authored' | 'checked' | 'approved',
+  extra: Partial<{ key: string; password: string; withoutRequiredFiles: boolean }> = {},
+) {
   // The author attaches what the manual items ask for before submitting, so the author's signature
   // covers it; a file added later leaves that signature over earlier content (signed-attachments.spec.ts).
-  if (meaning === 'authored' && !extra.withoutRequiredFiles) await attachRequiredFiles(id, (await revisionOf(s, id)).checklist?.manual ?? []);
+  if (meaning === 'authored' && !extra.withoutRequiredFiles)
+    await attachRequiredFiles(id, (await revisionOf(s, id)).checklist?.manual ?? []);
   const r = await revisionOf(s, id);
   return s.post(`/api/revisions/${id}/sign`, {
-    password: extra.password ?? TEST_PASSWORD, meaning, idempotencyKey: extra.key ?? randomUUID(), lockVersion: r.lockVersion,
+    password: extra.password ?? TEST_PASSWORD,
+    meaning,
+    idempotencyKey: extra.key ?? randomUUID(),
+    lockVersion: r.lockVersion,
   });
 }
 
@@ -57,7 +71,8 @@ export async function tickAll(s: Session, id: number) {
   const r = await revisionOf(s, id);
   // Items like "material certificate attached" can only be ticked once such a file is attached.
   await attachRequiredFiles(id, r.checklist?.manual ?? []);
-  for (const item of r.checklist?.manual ?? []) await s.put(`/api/revisions/${id}/manual-items/${item.id}`, { done: true, note: '' });
+  for (const item of r.checklist?.manual ?? [])
+    await s.put(`/api/revisions/${id}/manual-items/${item.id}`, { done: true, note: '' });
 }
 
 // ---- Additions for the workflow, rule-set and audit specs ----
@@ -84,32 +99,60 @@ let workflowStandard: Promise<{ id: number; code: string }> | undefined;
  */
 export function workflowStandardId(): Promise<number> {
   workflowStandard ??= testStandard((doc) => {
-    doc.manualItems = (doc.manualItems as { requiresAttachment?: string }[]).map(({ requiresAttachment: _dropped, ...item }) => item);
+    doc.manualItems = (doc.manualItems as { requiresAttachment?: string }[]).map(
+      ({ requiresAttachment: _dropped, ...item }) => item,
+    );
   });
   return workflowStandard.then((s) => s.id);
 }
 
 /** A fresh calc written by `author`, in a new project of its own (revision scheme and standard as asked). */
-export async function createCalc(author: Session, opts: { input?: Record<string, unknown>; ruleSetId?: number; scheme?: 'letters' | 'numbers' } = {}) {
-  const project = await Project.create({ code: uniqueCode(), name: 'Test drive shaft', createdBy: null, revisionScheme: opts.scheme ?? 'letters' });
+export async function createCalc(
+  author: Session,
+  opts: { input?: Record<string, unknown>; ruleSetId?: number; scheme?: 'letters' | 'numbers' } = {},
+) {
+  const project = await Project.create({
+    code: uniqueCode(),
+    name: 'Test drive shaft',
+    createdBy: null,
+    revisionScheme: opts.scheme ?? 'letters',
+  });
   const res = await author.post('/api/calcs', {
-    projectId: project.id, number: `C-${randomUUID().slice(0, 6)}`, title: 'Test head shaft', partRef: 'DRG-1',
-    ruleSetId: opts.ruleSetId ?? (await workflowStandardId()), input: opts.input ?? fixtureInput(),
+    projectId: project.id,
+    number: `C-${randomUUID().slice(0, 6)}`,
+    title: 'Test head shaft',
+    partRef: 'DRG-1',
+    ruleSetId: opts.ruleSetId ?? (await workflowStandardId()),
+    input: opts.input ?? fixtureInput(),
   });
   if (res.status !== 201) throw new Error(`calc create failed: ${res.status} ${JSON.stringify(res.body)}`);
-  return { project: { id: project.id, code: project.code }, calc: res.body, calcId: res.body.id as number, revisionId: res.body.latest.id as number };
+  return {
+    project: { id: project.id, code: project.code },
+    calc: res.body,
+    calcId: res.body.id as number,
+    revisionId: res.body.latest.id as number,
+  };
 }
 
 /** Fails loudly with the response body when a set-up step does not answer as expected. */
 export function expectStatus<T extends { status: number; body: unknown }>(res: T, status: number, step: string): T {
-  if (res.status !== status) throw new Error(`${step}: expected ${status}, got ${res.status} ${JSON.stringify(res.body)}`);
+  if (res.status !== status)
+    throw new Error(`${step}: expected ${status}, got ${res.status} ${JSON.stringify(res.body)}`);
   return res;
 }
 
-export interface Team { author: Session; checker: Session; approver: Session }
+export interface Team {
+  author: Session;
+  checker: Session;
+  approver: Session;
+}
 
 /** Set-up through the API: takes a draft (or returned) revision forward to `state` with the given team. */
-export async function advanceTo(state: 'in_check' | 'checked' | 'approved', team: Team, revisionId: number): Promise<void> {
+export async function advanceTo(
+  state: 'in_check' | 'checked' | 'approved',
+  team: Team,
+  revisionId: number,
+): Promise<void> {
   expectStatus(await sign(team.author, revisionId, 'authored'), 200, 'submit');
   if (state === 'in_check') return;
   await tickAll(team.checker, revisionId);
@@ -120,8 +163,18 @@ export async function advanceTo(state: 'in_check' | 'checked' | 'approved', team
 
 /** Audit rows of one entity, oldest first, read from the table (the API has no per-entity filter). */
 export async function auditOf(entityType: string, entityId: number, since = 0) {
-  const rows = await AuditEvent.findAll({ where: { entityType, entityId: String(entityId), id: { [Op.gt]: since } }, order: [['id', 'ASC']] });
-  return rows.map((r) => ({ id: r.id, action: r.action, actorId: r.actorId, actorName: r.actorName, payload: JSON.parse(r.payload), diff: r.diff }));
+  const rows = await AuditEvent.findAll({
+    where: { entityType, entityId: String(entityId), id: { [Op.gt]: since } },
+    order: [['id', 'ASC']],
+  });
+  return rows.map((r) => ({
+    id: r.id,
+    action: r.action,
+    actorId: r.actorId,
+    actorName: r.actorName,
+    payload: JSON.parse(r.payload),
+    diff: r.diff,
+  }));
 }
 
 export async function lastAuditId(): Promise<number> {
@@ -130,13 +183,24 @@ export async function lastAuditId(): Promise<number> {
 
 /** Hand-over mails about one project (its code is unique and is in every subject). */
 export async function mailAbout(projectCode: string, event?: string) {
-  const rows = await MailOutbox.findAll({ where: { subject: { [Op.like]: `%${projectCode}%` }, ...(event ? { event } : {}) }, order: [['id', 'ASC']] });
-  return rows.map((r) => ({ event: r.event, recipient: r.recipient, subject: r.subject, body: r.body, status: r.status }));
+  const rows = await MailOutbox.findAll({
+    where: { subject: { [Op.like]: `%${projectCode}%` }, ...(event ? { event } : {}) },
+    order: [['id', 'ASC']],
+  });
+  return rows.map((r) => ({
+    event: r.event,
+    recipient: r.recipient,
+    subject: r.subject,
+    body: r.body,
+    status: r.status,
+  }));
 }
 
 /** The shipped KFD-ENG-014 v3 document, as compliance would start from. */
 export function standardDocument(): Record<string, unknown> {
-  const { $schema: _ignored, ...doc } = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../rules/kfd-eng-014-v3.json'), 'utf8'));
+  const { $schema: _ignored, ...doc } = JSON.parse(
+    fs.readFileSync(path.resolve(__dirname, '../../rules/kfd-eng-014-v3.json'), 'utf8'),
+  );
   return doc;
 }
 
@@ -147,18 +211,33 @@ export function standardDocument(): Record<string, unknown> {
  */
 export async function testStandard(change: (doc: Record<string, unknown>) => void = () => {}) {
   const code = `TST-${randomUUID().slice(0, 8).toUpperCase()}`;
-  const doc = { ...standardDocument(), code, version: 1, status: 'effective', effectiveDate: '2025-01-01', title: `Test standard ${code}` };
+  const doc = {
+    ...standardDocument(),
+    code,
+    version: 1,
+    status: 'effective',
+    effectiveDate: '2025-01-01',
+    title: `Test standard ${code}`,
+  };
   change(doc);
   const record = await RuleSetRecord.create({
-    code, version: 1, title: doc.title, status: 'effective', effectiveDate: '2025-01-01',
-    document: JSON.stringify(doc), contentHash: documentHash(doc), createdBy: null,
+    code,
+    version: 1,
+    title: doc.title,
+    status: 'effective',
+    effectiveDate: '2025-01-01',
+    document: JSON.stringify(doc),
+    contentHash: documentHash(doc),
+    createdBy: null,
   });
   return { id: record.id, code };
 }
 
 /** Sets one numeric parameter of a rule-set document (a copy; the original is left alone). */
 export function withParameter(doc: Record<string, unknown>, name: string, value: number): Record<string, unknown> {
-  const parameters = (doc.parameters as { name: string; value: unknown }[]).map((p) => (p.name === name ? { ...p, value } : p));
+  const parameters = (doc.parameters as { name: string; value: unknown }[]).map((p) =>
+    p.name === name ? { ...p, value } : p,
+  );
   if (!parameters.some((p) => p.name === name)) throw new Error(`no parameter ${name}`);
   return { ...doc, parameters };
 }
@@ -177,11 +256,27 @@ export async function draftStandard(app: Express) {
   return { standard, drafter, draft };
 }
 
-/** That draft saved with a tighter twist limit and a change summary, proposed by its drafter: ready for a second person. */
+/**
+ * That draft saved with a tighter twist limit and a change summary, proposed by its drafter: ready for a second person.
+ */
 export async function proposeStandard(app: Express) {
   const d = await draftStandard(app);
-  const document = { ...withParameter(d.draft.document, 'maxTwistPerDiameter', 0.04), changeSummary: 'Twist limit tightened to 0.04° per diameter' };
-  const saved = expectStatus(await saveStandard(d.drafter.session, d.draft.id, document, d.draft.lockVersion), 200, 'save').body;
-  const proposal = expectStatus(await d.drafter.session.post(`/api/rule-sets/${d.draft.id}/propose`, { effectiveDate: '2026-11-01', lockVersion: saved.lockVersion }), 200, 'propose').body;
+  const document = {
+    ...withParameter(d.draft.document, 'maxTwistPerDiameter', 0.04),
+    changeSummary: 'Twist limit tightened to 0.04° per diameter',
+  };
+  const saved = expectStatus(
+    await saveStandard(d.drafter.session, d.draft.id, document, d.draft.lockVersion),
+    200,
+    'save',
+  ).body;
+  const proposal = expectStatus(
+    await d.drafter.session.post(`/api/rule-sets/${d.draft.id}/propose`, {
+      effectiveDate: '2026-11-01',
+      lockVersion: saved.lockVersion,
+    }),
+    200,
+    'propose',
+  ).body;
   return { ...d, proposal };
 }

@@ -19,7 +19,11 @@ export async function mountComponent<T>(
   options: { inputs?: Record<string, unknown>; providers?: (Provider | EnvironmentProviders)[] } = {},
 ) {
   TestBed.configureTestingModule({
-    providers: [provideHttpClient(withInterceptors([errorInterceptor])), provideHttpClientTesting(), ...(options.providers ?? [])],
+    providers: [
+      provideHttpClient(withInterceptors([errorInterceptor])),
+      provideHttpClientTesting(),
+      ...(options.providers ?? []),
+    ],
   });
   const fixture: ComponentFixture<T> = TestBed.createComponent(type);
   for (const [name, value] of Object.entries(options.inputs ?? {})) fixture.componentRef.setInput(name, value);

@@ -19,11 +19,34 @@ export const EDITOR_AUTHOR = { id: 1, roles: ['author'] as const };
 
 export function storedRevision(input: unknown, over: Partial<RevisionDto> = {}): RevisionDto {
   return {
-    id: 7, calcId: 3, seq: 0, label: 'A', status: 'draft', verdict: null, author: { id: EDITOR_AUTHOR.id, name: 'Morwenna Hale' },
-    checker: null, approver: null, ruleSet: { id: 2, code: 'KFD-ENG-014', version: 3, title: 'Shaft design' },
-    reasonForChange: 'first issue', updatedAt: '2026-12-01T10:00:00Z', approvedAt: null, lockVersion: 0,
-    input: JSON.parse(JSON.stringify(input)), result: null, checklist: null, inputIssues: [], manualItems: {}, contentHash: null, contentFormat: 2,
-    signatures: [], findings: [], submittedAt: null, checkedAt: null, createdAt: '2026-12-01T09:00:00Z', editorIds: [EDITOR_AUTHOR.id], ...over,
+    id: 7,
+    calcId: 3,
+    seq: 0,
+    label: 'A',
+    status: 'draft',
+    verdict: null,
+    author: { id: EDITOR_AUTHOR.id, name: 'Morwenna Hale' },
+    checker: null,
+    approver: null,
+    ruleSet: { id: 2, code: 'KFD-ENG-014', version: 3, title: 'Shaft design' },
+    reasonForChange: 'first issue',
+    updatedAt: '2026-12-01T10:00:00Z',
+    approvedAt: null,
+    lockVersion: 0,
+    input: JSON.parse(JSON.stringify(input)),
+    result: null,
+    checklist: null,
+    inputIssues: [],
+    manualItems: {},
+    contentHash: null,
+    contentFormat: 2,
+    signatures: [],
+    findings: [],
+    submittedAt: null,
+    checkedAt: null,
+    createdAt: '2026-12-01T09:00:00Z',
+    editorIds: [EDITOR_AUTHOR.id],
+    ...over,
   };
 }
 
@@ -31,8 +54,13 @@ export function configureEditorTestBed(): void {
   localStorage.clear();
   TestBed.configureTestingModule({
     providers: [
-      provideHttpClient(), provideHttpClientTesting(), provideRouter([]),
-      { provide: PureAbility, useValue: createAppAbility(defineRulesFor({ id: EDITOR_AUTHOR.id, roles: [...EDITOR_AUTHOR.roles] })) },
+      provideHttpClient(),
+      provideHttpClientTesting(),
+      provideRouter([]),
+      {
+        provide: PureAbility,
+        useValue: createAppAbility(defineRulesFor({ id: EDITOR_AUTHOR.id, roles: [...EDITOR_AUTHOR.roles] })),
+      },
       { provide: EDITOR_DEBOUNCE_MS, useValue: 0 },
       { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
     ],

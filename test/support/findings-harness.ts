@@ -16,8 +16,13 @@ export async function returnedWithFindingOf(app: Express) {
   const t = await findingsTeam(app);
   await advanceTo('in_check', t.sessions, t.revisionId);
   const lockVersion = (await revisionOf(t.sessions.author, t.revisionId)).lockVersion as number;
-  const returned = expectStatus(await t.checker.session.post(`/api/revisions/${t.revisionId}/return`, {
-    reason: 'Name the chart behind the keyseat Kts', lockVersion,
-  }), 200, 'return');
+  const returned = expectStatus(
+    await t.checker.session.post(`/api/revisions/${t.revisionId}/return`, {
+      reason: 'Name the chart behind the keyseat Kts',
+      lockVersion,
+    }),
+    200,
+    'return',
+  );
   return { ...t, findingId: returned.body.findings[0].id as number };
 }

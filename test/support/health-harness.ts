@@ -5,7 +5,17 @@ import { documentHash } from '../../server/rule-sets/rule-set-mapping';
 import { loadRevision } from '../../server/calcs/calc-access';
 import { refreshAfterAttachmentChange } from '../../server/workflow/signed-content';
 import { TEST_PASSWORD, uniqueCode } from './api-harness';
-import { expectStatus, fixtureInput, person, revisionOf, sign, testStandard, tickAll, withParameter, type Session } from './calc-harness';
+import {
+  expectStatus,
+  fixtureInput,
+  person,
+  revisionOf,
+  sign,
+  testStandard,
+  tickAll,
+  withParameter,
+  type Session,
+} from './calc-harness';
 
 const DAY = 86_400_000;
 export const today = () => new Date().toISOString().slice(0, 10);
@@ -19,10 +29,19 @@ export async function setTimes(revisionId: number, times: { submittedAt?: Date; 
 /** A file added after the check signature, as an approver's late evidence would be (row only, no bytes). */
 export async function addLateFile(revisionId: number, uploadedBy: number) {
   await Attachment.create({
-    revisionId, kind: 'other', fileName: 'late-note.pdf', mediaType: 'application/pdf', sizeBytes: 5, sha256: '1'.repeat(64),
-    storageKey: 'test-fixture/no-bytes', uploadedBy, uploadedByName: 'test harness',
+    revisionId,
+    kind: 'other',
+    fileName: 'late-note.pdf',
+    mediaType: 'application/pdf',
+    sizeBytes: 5,
+    sha256: '1'.repeat(64),
+    storageKey: 'test-fixture/no-bytes',
+    uploadedBy,
+    uploadedByName: 'test harness',
   });
-  await Revision.sequelize!.transaction(async (t) => refreshAfterAttachmentChange(await loadRevision(revisionId, t), t));
+  await Revision.sequelize!.transaction(async (t) =>
+    refreshAfterAttachmentChange(await loadRevision(revisionId, t), t),
+  );
 }
 
 /** Replaces the standard's v1 by a v2 (effective today) under which the fixture shaft no longer complies. */
@@ -30,8 +49,14 @@ export async function replaceStandard(standard: { id: number; code: string }) {
   const v1 = (await RuleSetRecord.findByPk(standard.id))!;
   const doc = { ...withParameter(JSON.parse(v1.document), 'asmeSyFraction', 0.03), version: 2, effectiveDate: today() };
   await RuleSetRecord.create({
-    code: standard.code, version: 2, title: v1.title, status: 'effective', effectiveDate: today(),
-    document: JSON.stringify(doc), contentHash: documentHash(doc), createdBy: null,
+    code: standard.code,
+    version: 2,
+    title: v1.title,
+    status: 'effective',
+    effectiveDate: today(),
+    document: JSON.stringify(doc),
+    contentHash: documentHash(doc),
+    createdBy: null,
   });
   await v1.update({ status: 'retired' });
 }
@@ -43,17 +68,33 @@ export async function replaceStandard(standard: { id: number; code: string }) {
  */
 export async function healthScenario(app: Express) {
   const standard = await testStandard((doc) => {
-    doc.manualItems = (doc.manualItems as { requiresAttachment?: string }[]).map(({ requiresAttachment: _d, ...item }) => item);
+    doc.manualItems = (doc.manualItems as { requiresAttachment?: string }[]).map(
+      ({ requiresAttachment: _d, ...item }) => item,
+    );
   });
   const project = await Project.create({ code: uniqueCode('RH'), name: 'Review health test', createdBy: null });
   const [authorA, authorB, checker1, checker2, approver] = await Promise.all(
-    [['author', 'author-a'], ['author', 'author-b'], ['checker', 'checker-1'], ['checker', 'checker-2'], ['approver', 'approver']]
-      .map(([role, label]) => person(app, [role as 'author'], label)),
+    [
+      ['author', 'author-a'],
+      ['author', 'author-b'],
+      ['checker', 'checker-1'],
+      ['checker', 'checker-2'],
+      ['approver', 'approver'],
+    ].map(([role, label]) => person(app, [role as 'author'], label)),
   );
-  const create = async (author: Session) => expectStatus(await author.post('/api/calcs', {
-    projectId: project.id, number: `RH-${randomUUID().slice(0, 6)}`, title: 'Review health shaft', partRef: 'DRG-RH',
-    ruleSetId: standard.id, input: fixtureInput(),
-  }), 201, 'create').body.latest.id as number;
+  const create = async (author: Session) =>
+    expectStatus(
+      await author.post('/api/calcs', {
+        projectId: project.id,
+        number: `RH-${randomUUID().slice(0, 6)}`,
+        title: 'Review health shaft',
+        partRef: 'DRG-RH',
+        ruleSetId: standard.id,
+        input: fixtureInput(),
+      }),
+      201,
+      'create',
+    ).body.latest.id as number;
   const check = async (checker: Session, id: number) => {
     await tickAll(checker, id);
     expectStatus(await sign(checker, id, 'checked'), 200, 'check');
@@ -64,14 +105,29 @@ export async function healthScenario(app: Express) {
   await check(checker1.session, a1);
   await check(checker1.session, a2);
   // A return is a finding by the checker; the author answers it and submits again, the checker closes it.
-  const returned = expectStatus(await checker2.session.post(`/api/revisions/${b1}/return`, {
-    reason: 'State the keyseat depth used', lockVersion: (await revisionOf(checker2.session, b1)).lockVersion,
-  }), 200, 'return').body;
+  const returned = expectStatus(
+    await checker2.session.post(`/api/revisions/${b1}/return`, {
+      reason: 'State the keyseat depth used',
+      lockVersion: (await revisionOf(checker2.session, b1)).lockVersion,
+    }),
+    200,
+    'return',
+  ).body;
   const findingId = returned.findings[0].id as number;
-  expectStatus(await authorB.session.post(`/api/findings/${findingId}/answer`, { answer: 'Depth is 5 mm, see the drawing' }), 200, 'answer');
+  expectStatus(
+    await authorB.session.post(`/api/findings/${findingId}/answer`, { answer: 'Depth is 5 mm, see the drawing' }),
+    200,
+    'answer',
+  );
   expectStatus(await sign(authorB.session, b1, 'authored'), 200, 'submit again');
   expectStatus(await checker2.session.post(`/api/findings/${findingId}/close`), 200, 'close');
-  const wrong = (s: Session, id: number, meaning: string) => s.post(`/api/revisions/${id}/sign`, { password: `${TEST_PASSWORD}!`, meaning, idempotencyKey: randomUUID(), lockVersion: 0 });
+  const wrong = (s: Session, id: number, meaning: string) =>
+    s.post(`/api/revisions/${id}/sign`, {
+      password: `${TEST_PASSWORD}!`,
+      meaning,
+      idempotencyKey: randomUUID(),
+      lockVersion: 0,
+    });
   await tickAll(checker2.session, b1);
   expectStatus(await wrong(checker2.session, b1, 'checked'), 400, 'refused check');
   await check(checker2.session, b1);
@@ -79,13 +135,32 @@ export async function healthScenario(app: Express) {
   for (let i = 0; i < 3; i++) expectStatus(await wrong(approver.session, b1, 'approved'), 400, 'refused approval');
   for (const id of [a1, a2, b1]) expectStatus(await sign(approver.session, id, 'approved'), 200, 'approve');
   const now = Date.now();
-  await setTimes(a1, { submittedAt: new Date(now - 3 * DAY - 10_000), checkedAt: new Date(now - 3 * DAY), approvedAt: new Date(now - 2 * DAY) });
-  await setTimes(a2, { submittedAt: new Date(now - 70 * DAY), checkedAt: new Date(now - 61 * DAY), approvedAt: new Date(now - 60 * DAY) });
-  await setTimes(b1, { submittedAt: new Date(now - 50 * DAY), checkedAt: new Date(now - 46 * DAY), approvedAt: new Date(now - 45 * DAY) });
+  await setTimes(a1, {
+    submittedAt: new Date(now - 3 * DAY - 10_000),
+    checkedAt: new Date(now - 3 * DAY),
+    approvedAt: new Date(now - 2 * DAY),
+  });
+  await setTimes(a2, {
+    submittedAt: new Date(now - 70 * DAY),
+    checkedAt: new Date(now - 61 * DAY),
+    approvedAt: new Date(now - 60 * DAY),
+  });
+  await setTimes(b1, {
+    submittedAt: new Date(now - 50 * DAY),
+    checkedAt: new Date(now - 46 * DAY),
+    approvedAt: new Date(now - 45 * DAY),
+  });
   await replaceStandard(standard);
   const calcOf = async (id: number) => (await revisionOf(authorA.session, id)).calcId as number;
   return {
-    project: { id: project.id, code: project.code }, standard, authorA, authorB, checker1, checker2, approver,
-    revisions: { a1, a2, b1 }, calcs: { a1: await calcOf(a1), a2: await calcOf(a2), b1: await calcOf(b1) },
+    project: { id: project.id, code: project.code },
+    standard,
+    authorA,
+    authorB,
+    checker1,
+    checker2,
+    approver,
+    revisions: { a1, a2, b1 },
+    calcs: { a1: await calcOf(a1), a2: await calcOf(a2), b1: await calcOf(b1) },
   };
 }

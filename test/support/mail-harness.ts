@@ -7,9 +7,25 @@ import { createMailTransport } from '../../server/mail/transport';
 export const FROM = 'Torquetrail <torquetrail@kestrelfen.example>';
 
 /** A sender like the one in server/main.ts, pointed at `port`, with a clock the test controls. */
-export function senderFor(sequelize: Sequelize, port: number, options: { clock?: () => Date; maxAttempts?: number } = {}) {
-  const transport = createMailTransport({ SMTP_HOST: '127.0.0.1', SMTP_PORT: port, SMTP_SECURE: false, SMTP_USER: 'tt', SMTP_PASSWORD: 'any' });
-  const sender = new MailSender(sequelize, { transport, from: FROM, maxAttempts: options.maxAttempts ?? 5, backoffSeconds: 30, clock: options.clock });
+export function senderFor(
+  sequelize: Sequelize,
+  port: number,
+  options: { clock?: () => Date; maxAttempts?: number } = {},
+) {
+  const transport = createMailTransport({
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: port,
+    SMTP_SECURE: false,
+    SMTP_USER: 'tt',
+    SMTP_PASSWORD: 'any',
+  });
+  const sender = new MailSender(sequelize, {
+    transport,
+    from: FROM,
+    maxAttempts: options.maxAttempts ?? 5,
+    backoffSeconds: 30,
+    clock: options.clock,
+  });
   return { sender, close: () => transport.close() };
 }
 

@@ -1,5 +1,15 @@
 import type { Express } from 'express';
-import { advanceTo, createCalc, expectStatus, fixtureInput, person, revisionOf, testStandard, type Session, type Team } from './calc-harness';
+import {
+  advanceTo,
+  createCalc,
+  expectStatus,
+  fixtureInput,
+  person,
+  revisionOf,
+  testStandard,
+  type Session,
+  type Team,
+} from './calc-harness';
 
 let standard: Promise<number> | undefined;
 
@@ -9,8 +19,15 @@ let standard: Promise<number> | undefined;
  */
 export function modelStandardId(): Promise<number> {
   standard ??= testStandard((doc) => {
-    doc.manualItems = (doc.manualItems as { requiresAttachment?: string }[]).map(({ requiresAttachment: _dropped, ...item }) => item);
-    doc.verification = { method: 'independent-model', scope: { kind: 'all' }, tolerances: { inputs: 0.001, results: 0.02 }, origin: 'house choice' };
+    doc.manualItems = (doc.manualItems as { requiresAttachment?: string }[]).map(
+      ({ requiresAttachment: _dropped, ...item }) => item,
+    );
+    doc.verification = {
+      method: 'independent-model',
+      scope: { kind: 'all' },
+      tolerances: { inputs: 0.001, results: 0.02 },
+      origin: 'house choice',
+    };
   }).then((s) => s.id);
   return standard;
 }
@@ -20,7 +37,10 @@ export async function modelTeam(app: Express) {
   const author = await person(app, ['author']);
   const checker = await person(app, ['checker']);
   const approver = await person(app, ['approver']);
-  const { revisionId, calcId } = await createCalc(author.session, { ruleSetId: await modelStandardId(), input: fixtureInput() });
+  const { revisionId, calcId } = await createCalc(author.session, {
+    ruleSetId: await modelStandardId(),
+    input: fixtureInput(),
+  });
   const sessions: Team = { author: author.session, checker: checker.session, approver: approver.session };
   await advanceTo('in_check', sessions, revisionId);
   return { author, checker, approver, revisionId, calcId, sessions };
@@ -31,13 +51,17 @@ export const modelUrl = (id: number) => `/api/revisions/${id}/independent-model`
 /** Saves the checker's model (from its current lock version) and returns the saved model. */
 export async function saveModel(s: Session, revisionId: number, input: Record<string, unknown>) {
   const current = await s.get(modelUrl(revisionId));
-  const lockVersion = current.status === 200 ? current.body.lockVersion as number : 0;
+  const lockVersion = current.status === 200 ? (current.body.lockVersion as number) : 0;
   return expectStatus(await s.put(modelUrl(revisionId), { input, lockVersion }), 200, 'save model').body;
 }
 
 export async function lockModel(s: Session, revisionId: number) {
   const model = expectStatus(await s.get(modelUrl(revisionId)), 200, 'read model').body;
-  return expectStatus(await s.post(`${modelUrl(revisionId)}/lock`, { lockVersion: model.lockVersion }), 200, 'lock model').body;
+  return expectStatus(
+    await s.post(`${modelUrl(revisionId)}/lock`, { lockVersion: model.lockVersion }),
+    200,
+    'lock model',
+  ).body;
 }
 
 /** The fixture with one segment 2 mm larger: one input difference (and the results that follow). */

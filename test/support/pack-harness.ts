@@ -21,13 +21,19 @@ export async function rezip(files: Map<string, Buffer>): Promise<Buffer> {
 
 /** Binary GET through a signed-in agent. */
 export function getBinary(s: { agent: { get: (u: string) => import('supertest').Test } }, url: string) {
-  return s.agent.get(url).buffer(true).parse((res, done) => {
-    const chunks: Buffer[] = [];
-    res.on('data', (c: Buffer) => chunks.push(c));
-    res.on('end', () => done(null, Buffer.concat(chunks)));
-  });
+  return s.agent
+    .get(url)
+    .buffer(true)
+    .parse((res, done) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => done(null, Buffer.concat(chunks)));
+    });
 }
 
 export function postPack(s: { agent: { post: (u: string) => import('supertest').Test }; csrf: string }, zip: Buffer) {
-  return s.agent.post('/api/verify/pack').set('x-csrf-token', s.csrf).attach('file', zip, { filename: 'pack.zip', contentType: 'application/zip' });
+  return s.agent
+    .post('/api/verify/pack')
+    .set('x-csrf-token', s.csrf)
+    .attach('file', zip, { filename: 'pack.zip', contentType: 'application/zip' });
 }

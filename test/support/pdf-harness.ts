@@ -17,7 +17,18 @@ export function readPdf(bytes: Buffer, keepAs?: string): { text: string; pages: 
       fs.mkdirSync(REPORT_DIR, { recursive: true });
       fs.copyFileSync(file, path.join(REPORT_DIR, `${keepAs}.pdf`));
       // Page one as a picture, to look at the report the way a person would.
-      execFileSync('pdftoppm', ['-png', '-r', '80', '-f', '1', '-l', '1', '-singlefile', file, path.join(REPORT_DIR, `${keepAs}-page1`)]);
+      execFileSync('pdftoppm', [
+        '-png',
+        '-r',
+        '80',
+        '-f',
+        '1',
+        '-l',
+        '1',
+        '-singlefile',
+        file,
+        path.join(REPORT_DIR, `${keepAs}-page1`),
+      ]);
     }
     return { text, pages: Number(/Pages:\s+(\d+)/.exec(info)?.[1] ?? 0) };
   } finally {

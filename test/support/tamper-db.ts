@@ -20,6 +20,7 @@ export function tamperTestApp() {
       throw new Error(
         `cannot prepare database ${TAMPER_DB_NAME} (scripts/test.sh creates it: ` +
           `db_ensure_schema ${TAMPER_DB_NAME} ${ctx.config.DB_USER} ...): ${(error as Error).message}`,
+        { cause: error },
       );
     }
     // The shipped design standards are reference data every calc needs.

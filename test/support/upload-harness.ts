@@ -17,7 +17,13 @@ export function windowsProgram(): Buffer {
 }
 
 /** Uploads like the browser does: multipart with the CSRF header. */
-export function upload(s: Session, revisionId: number, file: Buffer | null, fields: Record<string, string>, filename = 'file.pdf') {
+export function upload(
+  s: Session,
+  revisionId: number,
+  file: Buffer | null,
+  fields: Record<string, string>,
+  filename = 'file.pdf',
+) {
   let req = s.agent.post(`/api/revisions/${revisionId}/attachments`).set('x-csrf-token', s.csrf);
   for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
   return file ? req.attach('file', file, { filename, contentType: 'application/octet-stream' }) : req;

@@ -8,7 +8,11 @@ const FONT = '/usr/share/fonts/truetype/dejavu/DejaVuSans.ttf';
  */
 export function demoDocument(title: string, lines: string[]): Promise<Buffer> {
   return new Promise((resolve, reject) => {
-    const doc = new PDFDocument({ size: 'A4', margin: 56, info: { Title: title, Author: 'Kestrel Fen Drives (invented demo)' } });
+    const doc = new PDFDocument({
+      size: 'A4',
+      margin: 56,
+      info: { Title: title, Author: 'Kestrel Fen Drives (invented demo)' },
+    });
     const chunks: Buffer[] = [];
     doc.on('data', (c: Buffer) => chunks.push(c));
     doc.on('end', () => resolve(Buffer.concat(chunks)));
@@ -21,11 +25,18 @@ export function demoDocument(title: string, lines: string[]): Promise<Buffer> {
   });
 }
 
-export const DEMO_CERTIFICATE = (grade: string, heat: string) => demoDocument(`Mill certificate — ${grade}`, [
-  'Supplier: Fenland Bar & Section (invented)', `Grade: ${grade}`, `Heat number: ${heat}`,
-  'Condition: as stated on the order', 'Tensile and yield results: at or above the specified minimum',
-]);
+export const DEMO_CERTIFICATE = (grade: string, heat: string) =>
+  demoDocument(`Mill certificate — ${grade}`, [
+    'Supplier: Fenland Bar & Section (invented)',
+    `Grade: ${grade}`,
+    `Heat number: ${heat}`,
+    'Condition: as stated on the order',
+    'Tensile and yield results: at or above the specified minimum',
+  ]);
 
-export const DEMO_DRAWING = (number: string, title: string) => demoDocument(`Drawing ${number}`, [
-  `Title: ${title}`, 'Sheet 1 of 1, revision as released', 'Dimensions in millimetres; general tolerances per house standard',
-]);
+export const DEMO_DRAWING = (number: string, title: string) =>
+  demoDocument(`Drawing ${number}`, [
+    `Title: ${title}`,
+    'Sheet 1 of 1, revision as released',
+    'Dimensions in millimetres; general tolerances per house standard',
+  ]);

@@ -1,4 +1,11 @@
-import { Model, DataTypes, type Sequelize, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
+import {
+  Model,
+  DataTypes,
+  type Sequelize,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type CreationOptional,
+} from 'sequelize';
 import { ATTACHMENT_KINDS, type AttachmentKind } from '../../../shared/schemas/attachment.schema';
 
 /** A file attached to a revision; the bytes are in object storage under `storageKey` (their SHA-256). */
@@ -25,7 +32,13 @@ export class Attachment extends Model<InferAttributes<Attachment>, InferCreation
         fileName: { type: DataTypes.STRING(255), allowNull: false },
         mediaType: { type: DataTypes.STRING(120), allowNull: false },
         // BIGINT comes back as a string from the driver; the getter keeps the attribute a number.
-        sizeBytes: { type: DataTypes.BIGINT.UNSIGNED, allowNull: false, get() { return Number(this.getDataValue('sizeBytes')); } },
+        sizeBytes: {
+          type: DataTypes.BIGINT.UNSIGNED,
+          allowNull: false,
+          get() {
+            return Number(this.getDataValue('sizeBytes'));
+          },
+        },
         sha256: { type: DataTypes.CHAR(64), allowNull: false },
         storageKey: { type: DataTypes.STRING(200), allowNull: false },
         note: { type: DataTypes.STRING(500), allowNull: false, defaultValue: '' },

@@ -1,5 +1,10 @@
 import {
-  Model, DataTypes, type Sequelize, type InferAttributes, type InferCreationAttributes, type CreationOptional,
+  Model,
+  DataTypes,
+  type Sequelize,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type CreationOptional,
 } from 'sequelize';
 
 export class Calc extends Model<InferAttributes<Calc>, InferCreationAttributes<Calc>> {

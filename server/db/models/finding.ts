@@ -1,5 +1,10 @@
 import {
-  Model, DataTypes, type Sequelize, type InferAttributes, type InferCreationAttributes, type CreationOptional,
+  Model,
+  DataTypes,
+  type Sequelize,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type CreationOptional,
 } from 'sequelize';
 
 /** A checker's finding on a revision (or one checklist row), and the author's answer to it. */
@@ -21,7 +26,8 @@ export class Finding extends Model<InferAttributes<Finding>, InferCreationAttrib
   declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize): void {
-    // Fresh objects per attribute: Sequelize writes the column name into each definition, so a shared one maps two attributes to one column.
+    // Fresh objects per attribute: Sequelize writes the column name into each definition, so a shared one maps two
+    // attributes to one column.
     const user = () => ({ type: DataTypes.INTEGER.UNSIGNED, allowNull: true });
     const when = () => ({ type: DataTypes.DATE(3), allowNull: true });
     Finding.init(
@@ -34,8 +40,12 @@ export class Finding extends Model<InferAttributes<Finding>, InferCreationAttrib
         status: { type: DataTypes.ENUM('open', 'answered', 'closed'), allowNull: false, defaultValue: 'open' },
         raisedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         answer: { type: DataTypes.TEXT, allowNull: true },
-        answeredBy: user(), answeredAt: when(), closedBy: user(), closedAt: when(),
-        createdAt: DataTypes.DATE(3), updatedAt: DataTypes.DATE(3),
+        answeredBy: user(),
+        answeredAt: when(),
+        closedBy: user(),
+        closedAt: when(),
+        createdAt: DataTypes.DATE(3),
+        updatedAt: DataTypes.DATE(3),
       },
       { sequelize, tableName: 'findings', underscored: true },
     );

@@ -1,12 +1,20 @@
 import {
-  Model, DataTypes, type Sequelize, type InferAttributes, type InferCreationAttributes, type CreationOptional,
+  Model,
+  DataTypes,
+  type Sequelize,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type CreationOptional,
 } from 'sequelize';
 
 /**
  * A checker's independent model of one revision: a calc input in the same format as the author's,
  * the server's result and checklist for it, and once locked the comparison (server/independent/).
  */
-export class IndependentModel extends Model<InferAttributes<IndependentModel>, InferCreationAttributes<IndependentModel>> {
+export class IndependentModel extends Model<
+  InferAttributes<IndependentModel>,
+  InferCreationAttributes<IndependentModel>
+> {
   declare id: CreationOptional<number>;
   declare revisionId: number;
   declare checkerId: number;
@@ -34,7 +42,9 @@ export class IndependentModel extends Model<InferAttributes<IndependentModel>, I
         id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
         revisionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         checkerId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-        input: longText(false), result: longText(true), checklist: longText(true),
+        input: longText(false),
+        result: longText(true),
+        checklist: longText(true),
         verdict: { type: DataTypes.STRING(20), allowNull: true },
         lockedAt: { type: DataTypes.DATE(3), allowNull: true },
         modelHash: { type: DataTypes.CHAR(64), allowNull: true },
@@ -43,7 +53,8 @@ export class IndependentModel extends Model<InferAttributes<IndependentModel>, I
         agrees: { type: DataTypes.BOOLEAN, allowNull: true },
         findingIds: { type: DataTypes.TEXT, allowNull: true },
         lockVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
-        createdAt: DataTypes.DATE(3), updatedAt: DataTypes.DATE(3),
+        createdAt: DataTypes.DATE(3),
+        updatedAt: DataTypes.DATE(3),
       },
       { sequelize, tableName: 'independent_models', underscored: true },
     );

@@ -16,11 +16,45 @@ import { RoleGrant } from './role-grant';
 import { IndependentModel } from './independent-model';
 import { ReviewHealthSettings } from './review-health-settings';
 
-export { User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment, RoleGrant, IndependentModel,
-  ReviewHealthSettings };
+export {
+  User,
+  UserRole,
+  Project,
+  AuditEvent,
+  Session,
+  RuleSetRecord,
+  Calc,
+  CalcEditor,
+  Revision,
+  Finding,
+  Signature,
+  MailOutbox,
+  MailPreference,
+  Attachment,
+  RoleGrant,
+  IndependentModel,
+  ReviewHealthSettings,
+};
 
-const MODELS = [User, UserRole, Project, AuditEvent, Session, RuleSetRecord, Calc, CalcEditor, Revision, Finding, Signature, MailOutbox, MailPreference, Attachment, RoleGrant, IndependentModel,
-  ReviewHealthSettings];
+const MODELS = [
+  User,
+  UserRole,
+  Project,
+  AuditEvent,
+  Session,
+  RuleSetRecord,
+  Calc,
+  CalcEditor,
+  Revision,
+  Finding,
+  Signature,
+  MailOutbox,
+  MailPreference,
+  Attachment,
+  RoleGrant,
+  IndependentModel,
+  ReviewHealthSettings,
+];
 
 /** Initialise every model once, then wire associations in one step. */
 export function initModels(sequelize: Sequelize): void {

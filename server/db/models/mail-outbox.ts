@@ -1,5 +1,10 @@
 import {
-  Model, DataTypes, type Sequelize, type InferAttributes, type InferCreationAttributes, type CreationOptional,
+  Model,
+  DataTypes,
+  type Sequelize,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type CreationOptional,
 } from 'sequelize';
 
 /** Mail written in the same transaction as the hand-over it announces; a sender delivers it later. */

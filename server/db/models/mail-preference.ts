@@ -1,4 +1,11 @@
-import { Model, DataTypes, type Sequelize, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
+import {
+  Model,
+  DataTypes,
+  type Sequelize,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type CreationOptional,
+} from 'sequelize';
 
 /** One person's choice for one mail event; no row means the mail is sent. */
 export class MailPreference extends Model<InferAttributes<MailPreference>, InferCreationAttributes<MailPreference>> {

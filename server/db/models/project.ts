@@ -1,5 +1,10 @@
 import {
-  Model, DataTypes, type Sequelize, type InferAttributes, type InferCreationAttributes, type CreationOptional,
+  Model,
+  DataTypes,
+  type Sequelize,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type CreationOptional,
 } from 'sequelize';
 import { PROJECT_STATUSES, REVISION_SCHEMES } from '../../../shared/schemas/project.schema';
 

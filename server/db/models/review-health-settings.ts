@@ -1,9 +1,17 @@
 import {
-  Model, DataTypes, type Sequelize, type InferAttributes, type InferCreationAttributes, type CreationOptional,
+  Model,
+  DataTypes,
+  type Sequelize,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type CreationOptional,
 } from 'sequelize';
 
 /** The organisation's review-health thresholds: one row (id 1), changed by admin or compliance with an audit entry. */
-export class ReviewHealthSettings extends Model<InferAttributes<ReviewHealthSettings>, InferCreationAttributes<ReviewHealthSettings>> {
+export class ReviewHealthSettings extends Model<
+  InferAttributes<ReviewHealthSettings>,
+  InferCreationAttributes<ReviewHealthSettings>
+> {
   declare id: number;
   declare quickCheckSecondsPerItem: number;
   declare silentCheckerChecks: number;
@@ -20,8 +28,12 @@ export class ReviewHealthSettings extends Model<InferAttributes<ReviewHealthSett
     ReviewHealthSettings.init(
       {
         id: { type: DataTypes.TINYINT.UNSIGNED, primaryKey: true },
-        quickCheckSecondsPerItem: int(), silentCheckerChecks: int(), pairingSharePercent: int(),
-        pairingMinChecks: int(), refusalRepeatCount: int(), replacedWithinDays: int(),
+        quickCheckSecondsPerItem: int(),
+        silentCheckerChecks: int(),
+        pairingSharePercent: int(),
+        pairingMinChecks: int(),
+        refusalRepeatCount: int(),
+        replacedWithinDays: int(),
         lockVersion: int(),
         updatedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         updatedAt: DataTypes.DATE(3),

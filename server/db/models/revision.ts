@@ -1,5 +1,10 @@
 import {
-  Model, DataTypes, type Sequelize, type InferAttributes, type InferCreationAttributes, type CreationOptional,
+  Model,
+  DataTypes,
+  type Sequelize,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type CreationOptional,
   type NonAttribute,
 } from 'sequelize';
 import type { RuleSetRecord } from './rule-set-record';
@@ -44,25 +49,36 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
 
   static initModel(sequelize: Sequelize): void {
     const longText = (allowNull: boolean) => ({ type: DataTypes.TEXT('long'), allowNull });
-    // A fresh object per attribute: Sequelize writes the column name into each definition, so a shared one maps all three to one column.
+    // A fresh object per attribute: Sequelize writes the column name into each definition, so a shared one maps all
+    // three to one column.
     const when = () => ({ type: DataTypes.DATE(3), allowNull: true });
     const userRef = (allowNull: boolean) => ({ type: DataTypes.INTEGER.UNSIGNED, allowNull });
     Revision.init(
       {
         id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
-        calcId: userRef(false), seq: userRef(false),
+        calcId: userRef(false),
+        seq: userRef(false),
         label: { type: DataTypes.STRING(8), allowNull: false },
         status: { type: DataTypes.ENUM(...REVISION_STATES), allowNull: false, defaultValue: 'draft' },
-        authorId: userRef(false), checkerId: userRef(true), approverId: userRef(true), ruleSetId: userRef(false),
-        input: longText(false), result: longText(true), checklist: longText(true), manualItems: longText(false),
+        authorId: userRef(false),
+        checkerId: userRef(true),
+        approverId: userRef(true),
+        ruleSetId: userRef(false),
+        input: longText(false),
+        result: longText(true),
+        checklist: longText(true),
+        manualItems: longText(false),
         verdict: { type: DataTypes.STRING(20), allowNull: true },
         outcome: { type: DataTypes.TEXT, allowNull: true },
         contentHash: { type: DataTypes.CHAR(64), allowNull: true },
         contentFormat: { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 2 },
         reasonForChange: { type: DataTypes.TEXT, allowNull: false },
         lockVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
-        submittedAt: when(), checkedAt: when(), approvedAt: when(),
-        createdAt: DataTypes.DATE(3), updatedAt: DataTypes.DATE(3),
+        submittedAt: when(),
+        checkedAt: when(),
+        approvedAt: when(),
+        createdAt: DataTypes.DATE(3),
+        updatedAt: DataTypes.DATE(3),
       },
       { sequelize, tableName: 'revisions', underscored: true },
     );

@@ -1,5 +1,10 @@
 import {
-  Model, DataTypes, type Sequelize, type InferAttributes, type InferCreationAttributes, type CreationOptional,
+  Model,
+  DataTypes,
+  type Sequelize,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type CreationOptional,
 } from 'sequelize';
 import { ROLES, type Role } from '../../../shared/authz/roles';
 import { GRANT_STATUSES, type GrantStatus } from '../../../shared/schemas/role-grant.schema';

@@ -1,4 +1,11 @@
-import { Model, DataTypes, type Sequelize, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
+import {
+  Model,
+  DataTypes,
+  type Sequelize,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type CreationOptional,
+} from 'sequelize';
 
 /** Server-side sessions, shared by every app instance on the same database. */
 export class Session extends Model<InferAttributes<Session>, InferCreationAttributes<Session>> {

@@ -1,6 +1,11 @@
 import {
-  Model, DataTypes, type Sequelize, type InferAttributes, type InferCreationAttributes,
-  type CreationOptional, type NonAttribute,
+  Model,
+  DataTypes,
+  type Sequelize,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type CreationOptional,
+  type NonAttribute,
 } from 'sequelize';
 import type { Role } from '../../../shared/authz/roles';
 import type { UserRole } from './user-role';

@@ -15,11 +15,17 @@ export function axialReactions(model: Model, loads: readonly PointLoad[]): numbe
   const out = supports.map(() => 0);
   const net = loads.reduce((s, l) => s + l.Fx, 0);
   if (Math.abs(net) <= 0) return out;
-  const locating = supports.map((s, i) => ({ s, i })).filter((e) => e.s.locating).sort((a, b) => a.s.at - b.s.at);
+  const locating = supports
+    .map((s, i) => ({ s, i }))
+    .filter((e) => e.s.locating)
+    .sort((a, b) => a.s.at - b.s.at);
   let taker: number;
   if (locating.length === 0) {
     taker = supports.map((s, i) => ({ s, i })).sort((a, b) => a.s.at - b.s.at)[0].i;
-    model.warnings.push({ path: 'supports', message: 'an axial load acts but no bearing is marked locating: the left-hand bearing is taken to carry it' });
+    model.warnings.push({
+      path: 'supports',
+      message: 'an axial load acts but no bearing is marked locating: the left-hand bearing is taken to carry it',
+    });
   } else {
     taker = net > 0 ? locating[locating.length - 1].i : locating[0].i;
   }
@@ -27,8 +33,10 @@ export function axialReactions(model: Model, loads: readonly PointLoad[]): numbe
   const s = supports[taker];
   if (s.kind !== 'plain' && s.C !== undefined && (s.X === undefined || s.Y === undefined)) {
     const unit = BEAM_LABELS[model.system].force;
-    model.warnings.push({ path: `supports[${taker}].X`,
-      message: `bearing carries an axial load of ${f(Math.abs(net) / BEAM_BASE[model.system].force)} ${unit} but X and Y are not entered: P = Fr is used, which understates P` });
+    model.warnings.push({
+      path: `supports[${taker}].X`,
+      message: `bearing carries an axial load of ${f(Math.abs(net) / BEAM_BASE[model.system].force)} ${unit} but X and Y are not entered: P = Fr is used, which understates P`,
+    });
   }
   return out;
 }

@@ -3,7 +3,13 @@ import type { BeamSolution } from './beam-solve';
 import { hermiteInto } from './stiffness';
 
 /* Deflection and slope along the shaft from the exact Hermite interpolation inside each element. */
-export interface CurvePoint { at: number; y: number; z: number; sy: number; sz: number }
+export interface CurvePoint {
+  at: number;
+  y: number;
+  z: number;
+  sy: number;
+  sz: number;
+}
 
 // Scratch for the interpolation (this runs on every keystroke; no garbage per point).
 const Y = new Float64Array(2);
@@ -65,7 +71,10 @@ function refineMax(beam: BeamSolution, e0: number, bestAt: number, best2: number
 }
 
 /** Curve at every node and element midpoint, and the largest resultant deflection and its station. */
-export function deflectionCurve(beam: BeamSolution, length: number): { curve: DeflectionPoint[]; max: number; at: number } {
+export function deflectionCurve(
+  beam: BeamSolution,
+  length: number,
+): { curve: DeflectionPoint[]; max: number; at: number } {
   const x = beam.mesh.x;
   const [uy, uz] = [beam.y.u, beam.z.u];
   const curve: DeflectionPoint[] = [];
@@ -73,7 +82,15 @@ export function deflectionCurve(beam: BeamSolution, length: number): { curve: De
   // Points are written straight from the nodal values or the scratch interpolation (no temporaries).
   const out = (at: number, y: number, z: number, sy: number, sz: number, e: number): void => {
     const d2 = y * y + z * z;
-    curve.push({ at: at / length, y: y / length, z: z / length, deflection: Math.sqrt(d2) / length, slopeY: sy, slopeZ: sz, slope: Math.hypot(sy, sz) });
+    curve.push({
+      at: at / length,
+      y: y / length,
+      z: z / length,
+      deflection: Math.sqrt(d2) / length,
+      slopeY: sy,
+      slopeZ: sz,
+      slope: Math.hypot(sy, sz),
+    });
     if (d2 > best2) {
       best2 = d2;
       bestAt = at;

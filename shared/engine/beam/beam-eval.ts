@@ -18,7 +18,10 @@ export const BEAM_ASSUMPTIONS = [
   'gravity and the shaft weight are not loads here; masses count only for the critical speed',
 ];
 
-export interface BeamState { solution: BeamSolution | null; results: BeamResults }
+export interface BeamState {
+  solution: BeamSolution | null;
+  results: BeamResults;
+}
 
 /** Operating speed: the calc's speed entry, else the first power entry's speed; null when none. */
 export function operatingSpeed(model: Model): number | null {
@@ -33,16 +36,27 @@ function densities(model: Model): number[] {
   return input.segments.map((s, i) => {
     const m = s.material ?? input.material;
     if (m.density === undefined && (m.kind ?? 'steel') !== 'steel') {
-      model.warnings.push({ path: s.material ? `segments[${i}].material.density` : 'material.density',
-        message: `no density entered for a ${m.kind} material: the steel default ${STEEL_DENSITY[system]} is used for the critical speed` });
+      model.warnings.push({
+        path: s.material ? `segments[${i}].material.density` : 'material.density',
+        message: `no density entered for a ${m.kind} material: the steel default ${STEEL_DENSITY[system]} is used for the critical speed`,
+      });
     }
     return (m.density ?? STEEL_DENSITY[system]) * BEAM_BASE[system].density;
   });
 }
 
 function empty(speed: number | null): BeamResults {
-  return { supports: [], loads: [], masses: [], bendingDiagram: [], deflectionCurve: [], deflection: null, criticalSpeed: null,
-    speed, assumptions: [] };
+  return {
+    supports: [],
+    loads: [],
+    masses: [],
+    bendingDiagram: [],
+    deflectionCurve: [],
+    deflection: null,
+    criticalSpeed: null,
+    speed,
+    assumptions: [],
+  };
 }
 
 function supportResults(model: Model, beam: BeamSolution, speed: number | null): SupportResult[] {
@@ -55,9 +69,25 @@ function supportResults(model: Model, beam: BeamSolution, speed: number | null):
     const Fr = Math.hypot(Fy, Fz);
     const C = s.C === undefined ? null : s.C * BEAM_BASE[system].rating;
     const life = ratingLife(s.kind, C, Fr, axial[i], s.X, s.Y, speed);
-    return { index: i, label: s.label, kind: s.kind, at: s.at, locating: s.locating === true, Fy: Fy / F, Fz: Fz / F, F: Fr / F, Fa: axial[i] / F,
-      slopeY: p.sy, slopeZ: p.sz, slope: Math.hypot(p.sy, p.sz), P: life.P / F, p: lifeExponent(s.kind), C: s.C ?? null,
-      L10: life.L10, L10h: life.L10h } satisfies SupportResult;
+    return {
+      index: i,
+      label: s.label,
+      kind: s.kind,
+      at: s.at,
+      locating: s.locating === true,
+      Fy: Fy / F,
+      Fz: Fz / F,
+      F: Fr / F,
+      Fa: axial[i] / F,
+      slopeY: p.sy,
+      slopeZ: p.sz,
+      slope: Math.hypot(p.sy, p.sz),
+      P: life.P / F,
+      p: lifeExponent(s.kind),
+      C: s.C ?? null,
+      L10: life.L10,
+      L10h: life.L10h,
+    } satisfies SupportResult;
   });
 }
 
@@ -66,9 +96,22 @@ function loadResults(model: Model, beam: BeamSolution): LoadResult[] {
   const F = BEAM_BASE[system].force;
   return beam.loads.map((l, i) => {
     const p = nodePoint(beam, nodeAt(beam.mesh, l.at));
-    return { index: i, label: (input.loads ?? [])[i].label, kind: l.kind, at: l.at / k.length, Fy: l.Fy / F, Fz: l.Fz / F,
-      Fx: l.Fx / F, T: l.T / k.torque, y: p.y / k.length, z: p.z / k.length, deflection: Math.hypot(p.y, p.z) / k.length,
-      slopeY: p.sy, slopeZ: p.sz, slope: Math.hypot(p.sy, p.sz) };
+    return {
+      index: i,
+      label: (input.loads ?? [])[i].label,
+      kind: l.kind,
+      at: l.at / k.length,
+      Fy: l.Fy / F,
+      Fz: l.Fz / F,
+      Fx: l.Fx / F,
+      T: l.T / k.torque,
+      y: p.y / k.length,
+      z: p.z / k.length,
+      deflection: Math.hypot(p.y, p.z) / k.length,
+      slopeY: p.sy,
+      slopeZ: p.sz,
+      slope: Math.hypot(p.sy, p.sz),
+    };
   });
 }
 
@@ -87,8 +130,14 @@ function bendingOut(model: Model, beam: BeamSolution): BendingPoint[] {
   const clean = (v: number, tol: number): number => (Math.abs(v) <= tol ? 0 : v);
   return d.map((p) => {
     const [My, Mz] = [clean(p.My, tm), clean(p.Mz, tm)];
-    return { at: p.at / k.length, Vy: clean(p.Vy, tv) / F, Vz: clean(p.Vz, tv) / F, My: My / k.torque, Mz: Mz / k.torque,
-      M: Math.hypot(My, Mz) / k.torque };
+    return {
+      at: p.at / k.length,
+      Vy: clean(p.Vy, tv) / F,
+      Vz: clean(p.Vz, tv) / F,
+      My: My / k.torque,
+      Mz: Mz / k.torque,
+      M: Math.hypot(My, Mz) / k.torque,
+    };
   });
 }
 
@@ -100,14 +149,29 @@ export function evaluateBeam(model: Model): BeamState {
   if (supports.length < 2) return { solution: null, results: empty(speed) };
   const loads = resolveLoads(input);
   const masses = (input.masses ?? []).map((m) => ({ at: m.at * k.length, mass: m.mass * BEAM_BASE[system].mass }));
-  const stations = [...loads.map((l) => l.at), ...masses.map((m) => m.at), ...(input.features ?? []).map((f) => f.at * k.length)];
-  const beam = solveBeam(model, supports.map((s) => s.at * k.length), loads, stations, densities(model));
+  const stations = [
+    ...loads.map((l) => l.at),
+    ...masses.map((m) => m.at),
+    ...(input.features ?? []).map((f) => f.at * k.length),
+  ];
+  const beam = solveBeam(
+    model,
+    supports.map((s) => s.at * k.length),
+    loads,
+    stations,
+    densities(model),
+  );
   const { curve, max, at } = deflectionCurve(beam, k.length);
   if (!Number.isFinite(max) || beam.y.R.some((r) => !Number.isFinite(r)) || beam.z.R.some((r) => !Number.isFinite(r))) {
-    throw new CalcInputError([{ path: 'loads', message: 'the beam solution overflows: the loads are too large for the shaft section' }]);
+    throw new CalcInputError([
+      { path: 'loads', message: 'the beam solution overflows: the loads are too large for the shaft section' },
+    ]);
   }
   if (max * k.length > model.total / 100) {
-    model.warnings.push({ path: 'segments', message: 'the largest deflection exceeds 1/100 of the shaft length: the small-deflection model no longer holds' });
+    model.warnings.push({
+      path: 'segments',
+      message: 'the largest deflection exceeds 1/100 of the shaft length: the small-deflection model no longer holds',
+    });
   }
   const eigen = firstBendingFrequency(beam, masses);
   const rpm = eigen ? (eigen.omega * 60) / (2 * Math.PI) : null;
@@ -118,11 +182,24 @@ export function evaluateBeam(model: Model): BeamState {
   return {
     solution: beam,
     results: {
-      supports: supportResults(model, beam, speed), loads: loadResults(model, beam), masses: massOut,
-      bendingDiagram: bendingOut(model, beam), deflectionCurve: curve, deflection: { max, at },
-      criticalSpeed: rpm === null || !eigen ? null : { rpm, method: CRITICAL_SPEED_METHOD, operatingSpeed: speed,
-        ratio: speed ? rpm / speed : null, totalMass: eigen.totalMass / BEAM_BASE[system].mass },
-      speed, assumptions: BEAM_ASSUMPTIONS,
+      supports: supportResults(model, beam, speed),
+      loads: loadResults(model, beam),
+      masses: massOut,
+      bendingDiagram: bendingOut(model, beam),
+      deflectionCurve: curve,
+      deflection: { max, at },
+      criticalSpeed:
+        rpm === null || !eigen
+          ? null
+          : {
+              rpm,
+              method: CRITICAL_SPEED_METHOD,
+              operatingSpeed: speed,
+              ratio: speed ? rpm / speed : null,
+              totalMass: eigen.totalMass / BEAM_BASE[system].mass,
+            },
+      speed,
+      assumptions: BEAM_ASSUMPTIONS,
     },
   };
 }

@@ -18,17 +18,22 @@ const RANGES: Record<UnitSystem, Record<Kind, readonly [number, number]>> = {
 export function beamRanges(input: CalcInput): CalcIssue[] {
   const out: CalcIssue[] = [];
   const s = input.units;
-  const unit = (k: Kind | 'length' | 'speed'): string => (k === 'length' ? (s === 'SI' ? 'mm' : 'in') : k === 'speed' ? 'rpm' : BEAM_LABELS[s][k]);
+  const unit = (k: Kind | 'length' | 'speed'): string =>
+    k === 'length' ? (s === 'SI' ? 'mm' : 'in') : k === 'speed' ? 'rpm' : BEAM_LABELS[s][k];
   const check = (v: number | undefined, kind: Kind | 'length' | 'speed', path: string, signed = false): void => {
     if (v === undefined || (signed && v === 0)) return;
     const [lo, hi] = kind === 'length' || kind === 'speed' ? PLAUSIBLE_RANGES[s][kind] : RANGES[s][kind];
     const size = signed ? Math.abs(v) : v;
     if (size >= lo && size <= hi) return;
-    out.push({ path, message: `${v} ${unit(kind)} is outside the range this engine can compute reliably: ${signed ? 'its size must be 0 or ' : ''}from ${lo} to ${hi} ${unit(kind)}` });
+    out.push({
+      path,
+      message: `${v} ${unit(kind)} is outside the range this engine can compute reliably: ${signed ? 'its size must be 0 or ' : ''}from ${lo} to ${hi} ${unit(kind)}`,
+    });
   };
   (input.supports ?? []).forEach((p, i) => check(p.C, 'rating', `supports[${i}].C`));
   (input.loads ?? []).forEach((l, i) => {
-    for (const k of ['Fy', 'Fz', 'Fx'] as const) if (k in l) check((l as unknown as Record<string, number | undefined>)[k], 'force', `loads[${i}].${k}`, true);
+    for (const k of ['Fy', 'Fz', 'Fx'] as const)
+      if (k in l) check((l as unknown as Record<string, number | undefined>)[k], 'force', `loads[${i}].${k}`, true);
     if ('pitchDiameter' in l) check(l.pitchDiameter, 'length', `loads[${i}].pitchDiameter`);
     if ('diameter' in l) check(l.diameter, 'length', `loads[${i}].diameter`);
   });

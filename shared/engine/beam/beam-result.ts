@@ -8,12 +8,19 @@ import type { SupportKind } from './beam-schema';
  * x–y plane), Mz from the z-forces; M = √(My² + Mz²).
  */
 export interface SupportResult {
-  index: number; label: string | undefined; kind: SupportKind; at: number; locating: boolean;
+  index: number;
+  label: string | undefined;
+  kind: SupportKind;
+  at: number;
+  locating: boolean;
   /** Reaction the bearing exerts on the shaft, along +y and +z; F the resultant radial reaction. */
-  Fy: number; Fz: number; F: number;
+  Fy: number;
+  Fz: number;
+  F: number;
   /** Axial reaction (magnitude) taken by this bearing. */
   Fa: number;
-  slopeY: number; slopeZ: number;
+  slopeY: number;
+  slopeZ: number;
   /** Resultant slope of the shaft at the bearing, rad. */
   slope: number;
   /** Equivalent dynamic load P = X·Fr + Y·Fa (P = Fr without axial load). */
@@ -28,23 +35,52 @@ export interface SupportResult {
 }
 
 export interface LoadResult {
-  index: number; label: string | undefined; kind: 'force' | 'gear' | 'pulley' | 'sprocket' | 'coupling'; at: number;
+  index: number;
+  label: string | undefined;
+  kind: 'force' | 'gear' | 'pulley' | 'sprocket' | 'coupling';
+  at: number;
   /** Force on the shaft along +y, +z and +x (axial). */
-  Fy: number; Fz: number; Fx: number;
+  Fy: number;
+  Fz: number;
+  Fx: number;
   /** Torque the element transmits (gear, pulley, sprocket, coupling); 0 for a plain force. */
   T: number;
-  y: number; z: number;
+  y: number;
+  z: number;
   /** Resultant transverse deflection at the load. */
   deflection: number;
-  slopeY: number; slopeZ: number; slope: number;
+  slopeY: number;
+  slopeZ: number;
+  slope: number;
 }
 
-export interface MassResult { index: number; label: string | undefined; at: number; mass: number; deflection: number }
+export interface MassResult {
+  index: number;
+  label: string | undefined;
+  at: number;
+  mass: number;
+  deflection: number;
+}
 
 /** One point of the shear and moment diagrams; at a jump two points share the station (left, then right). */
-export interface BendingPoint { at: number; Vy: number; Vz: number; My: number; Mz: number; M: number }
+export interface BendingPoint {
+  at: number;
+  Vy: number;
+  Vz: number;
+  My: number;
+  Mz: number;
+  M: number;
+}
 
-export interface DeflectionPoint { at: number; y: number; z: number; deflection: number; slopeY: number; slopeZ: number; slope: number }
+export interface DeflectionPoint {
+  at: number;
+  y: number;
+  z: number;
+  deflection: number;
+  slopeY: number;
+  slopeZ: number;
+  slope: number;
+}
 
 export interface CriticalSpeed {
   /** First bending critical speed, rpm. */

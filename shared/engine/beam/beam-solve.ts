@@ -29,7 +29,13 @@ export interface BeamSolution {
   diagram: DiagramPoint[];
 }
 
-export interface DiagramPoint { at: number; Vy: number; Vz: number; My: number; Mz: number }
+export interface DiagramPoint {
+  at: number;
+  Vy: number;
+  Vz: number;
+  My: number;
+  Mz: number;
+}
 
 export class SingularBeamError extends Error {}
 
@@ -58,7 +64,8 @@ function solvePlane(mesh: Mesh, U: BandMatrix, nodes: number[], f: Float64Array)
  */
 function diagram(mesh: Mesh, s: Omit<BeamSolution, 'diagram'>): DiagramPoint[] {
   const acts: { at: number; Fy: number; Fz: number; Cy: number; Cz: number }[] = [
-    ...s.loads, ...s.supportNodes.map((n, k) => ({ at: mesh.x[n], Fy: s.y.R[k], Fz: s.z.R[k], Cy: 0, Cz: 0 })),
+    ...s.loads,
+    ...s.supportNodes.map((n, k) => ({ at: mesh.x[n], Fy: s.y.R[k], Fz: s.z.R[k], Cy: 0, Cz: 0 })),
   ].sort((a, b) => a.at - b.at);
   const out: DiagramPoint[] = [];
   const nodes = acts.map((a) => nodeAt(mesh, a.at));
@@ -106,8 +113,13 @@ function determinate(mesh: Mesh, nodes: number[], loads: readonly PointLoad[], p
 }
 
 /** Solves the beam; `stations` (mm) become nodes, `densities` (t/mm³) are per segment. */
-export function solveBeam(model: Model, supports: readonly number[], loads: PointLoad[], stations: number[],
-  densities: readonly number[]): BeamSolution {
+export function solveBeam(
+  model: Model,
+  supports: readonly number[],
+  loads: PointLoad[],
+  stations: number[],
+  densities: readonly number[],
+): BeamSolution {
   const mesh = buildMesh(model, supports, stations, densities);
   const U = assembleStiffness(mesh);
   const supportNodes = supports.map((x) => nodeAt(mesh, x));

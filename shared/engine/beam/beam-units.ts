@@ -6,7 +6,12 @@ import { MM_PER_IN, N_PER_LBF, type UnitSystem } from '../units';
  */
 export const KG_PER_LB = 0.45359237;
 
-export interface BeamFactors { force: number; rating: number; mass: number; density: number }
+export interface BeamFactors {
+  force: number;
+  rating: number;
+  mass: number;
+  density: number;
+}
 
 /** Multiply a value in the system's display unit by this to get the internal base unit. */
 export const BEAM_BASE: Record<UnitSystem, BeamFactors> = {

@@ -7,7 +7,11 @@ import type { Model } from '../model';
  * author-entered Ma, Mm added on top as magnitudes (their direction is unknown, so adding is the
  * conservative choice). All N·mm.
  */
-export interface Bending { Ma: number; Mm: number; M: number }
+export interface Bending {
+  Ma: number;
+  Mm: number;
+  M: number;
+}
 
 /** Resultant model moment at x; where the diagram jumps (a couple) the larger side. */
 export function modelMoment(model: Model, x: number): number {

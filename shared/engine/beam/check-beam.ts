@@ -10,10 +10,19 @@ import { transmittedTorque } from './resolve-loads';
  * Cross-field checks of the v2 beam inputs: stations on the shaft, enough distinct supports to hold
  * it, elements that have a torque to transmit, and loads that cannot overflow the solution.
  */
-function onShaft(items: readonly { at: number }[], name: string, bounds: number[], len: string, out: CalcIssue[]): void {
+function onShaft(
+  items: readonly { at: number }[],
+  name: string,
+  bounds: number[],
+  len: string,
+  out: CalcIssue[],
+): void {
   items.forEach((item, i) => {
     if (locate(item.at, bounds).left < 0) {
-      out.push({ path: `${name}[${i}].at`, message: `station ${f(item.at)} ${len} is off the shaft (0 to ${f(bounds[bounds.length - 1])} ${len})` });
+      out.push({
+        path: `${name}[${i}].at`,
+        message: `station ${f(item.at)} ${len} is off the shaft (0 to ${f(bounds[bounds.length - 1])} ${len})`,
+      });
     }
   });
 }
@@ -31,12 +40,19 @@ function checkSupports(input: CalcInput, total: number, len: string, out: CalcIs
   } else if (supports.length === 0 && loads.some(isTransverse)) {
     out.push({ path: 'supports', message: 'transverse loads need at least two supports (bearings) to be carried' });
   } else if (supports.length === 0 && (input.masses ?? []).length) {
-    out.push({ path: 'supports', message: 'attached masses are used for the critical speed, which needs at least two supports' });
+    out.push({
+      path: 'supports',
+      message: 'attached masses are used for the critical speed, which needs at least two supports',
+    });
   }
   const tol = STATION_TOLERANCE * total;
   supports.forEach((s, i) => {
     const j = supports.findIndex((o, k) => k < i && Math.abs(o.at - s.at) <= tol);
-    if (j >= 0) out.push({ path: `supports[${i}].at`, message: `two supports at the same station ${f(s.at)} ${len} (also supports[${j}])` });
+    if (j >= 0)
+      out.push({
+        path: `supports[${i}].at`,
+        message: `two supports at the same station ${f(s.at)} ${len} (also supports[${j}])`,
+      });
     if (s.kind === 'plain' && s.C !== undefined) {
       out.push({ path: `supports[${i}].C`, message: 'a plain bearing has no rating life: leave C empty' });
     }
@@ -48,7 +64,10 @@ function checkTorque(input: CalcInput, out: CalcIssue[]): void {
     if (!('kind' in l) || l.kind === 'coupling') return;
     const T = transmittedTorque(input, l);
     if (T === null || T === 0) {
-      out.push({ path: `loads[${i}].T`, message: `this ${l.kind} has no torque to transmit: enter its T or a torque entry at station ${f(l.at)} ${UNIT_LABELS[input.units].length}` });
+      out.push({
+        path: `loads[${i}].T`,
+        message: `this ${l.kind} has no torque to transmit: enter its T or a torque entry at station ${f(l.at)} ${UNIT_LABELS[input.units].length}`,
+      });
     }
   });
 }
@@ -59,12 +78,19 @@ function checkScale(input: CalcInput, total: number, out: CalcIssue[]): void {
   for (const l of input.loads ?? []) {
     const T = 'kind' in l && l.kind !== 'coupling' ? Math.abs(transmittedTorque(input, l) ?? 0) : 0;
     const d = 'kind' in l ? (l.kind === 'gear' ? l.pitchDiameter : l.kind === 'coupling' ? 1 : l.diameter) : 1;
-    sum += Math.abs('Fy' in l ? l.Fy ?? 0 : 0) + Math.abs('Fz' in l ? l.Fz ?? 0 : 0) + Math.abs('Fx' in l ? l.Fx ?? 0 : 0) + (10 * T) / d;
+    sum +=
+      Math.abs('Fy' in l ? (l.Fy ?? 0) : 0) +
+      Math.abs('Fz' in l ? (l.Fz ?? 0) : 0) +
+      Math.abs('Fx' in l ? (l.Fx ?? 0) : 0) +
+      (10 * T) / d;
   }
   const EI = Math.min(...input.segments.map((s) => (s.material ?? input.material).E * (s.od ** 4 - s.id ** 4)));
   const ratio = (sum * total ** 2) / EI;
   if (!Number.isFinite(ratio) || ratio > 1e15) {
-    out.push({ path: 'loads', message: 'the loads are too large for the shaft section: deflections would overflow; check the values and units' });
+    out.push({
+      path: 'loads',
+      message: 'the loads are too large for the shaft section: deflections would overflow; check the values and units',
+    });
   }
 }
 

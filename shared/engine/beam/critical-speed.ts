@@ -11,16 +11,23 @@ import { assembleMass } from './stiffness';
  * not missed. For a shaft the first bending critical speed equals this frequency (no gyroscopic
  * or bearing-flexibility effects: rigid supports).
  */
-export const CRITICAL_SPEED_METHOD = 'eigenvalue of the beam model: K·φ = ω²·M·φ, consistent mass matrix plus '
-  + 'attached point masses, inverse iteration (rigid simple supports, no gyroscopic effect)';
+export const CRITICAL_SPEED_METHOD =
+  'eigenvalue of the beam model: K·φ = ω²·M·φ, consistent mass matrix plus ' +
+  'attached point masses, inverse iteration (rigid simple supports, no gyroscopic effect)';
 
 const MAX_ITERATIONS = 300;
 // On the eigenvalue ω²: the speed is then good to about 5e-8, far below any input's precision.
 const TOLERANCE = 1e-7;
 
-export interface Eigen { omega: number; totalMass: number }
+export interface Eigen {
+  omega: number;
+  totalMass: number;
+}
 
-export function firstBendingFrequency(beam: BeamSolution, masses: readonly { at: number; mass: number }[]): Eigen | null {
+export function firstBendingFrequency(
+  beam: BeamSolution,
+  masses: readonly { at: number; mass: number }[],
+): Eigen | null {
   const { mesh, factored, supportNodes } = beam;
   const points = masses.map((m) => ({ node: nodeAt(mesh, m.at), mass: m.mass }));
   const M = assembleMass(mesh, points);

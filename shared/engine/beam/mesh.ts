@@ -29,7 +29,12 @@ function stepAt(x: number, supports: readonly number[], total: number): number {
   return Math.min(step, (supports[right] - supports[right - 1]) / SPAN_ELEMENTS);
 }
 
-export function buildMesh(model: Model, supports: readonly number[], stations: number[], densities: readonly number[]): Mesh {
+export function buildMesh(
+  model: Model,
+  supports: readonly number[],
+  stations: number[],
+  densities: readonly number[],
+): Mesh {
   const tol = STATION_TOLERANCE * model.total;
   const all = [...model.bounds, ...supports, ...stations].sort((a, b) => a - b);
   const keys: number[] = [];
@@ -48,8 +53,13 @@ export function buildMesh(model: Model, supports: readonly number[], stations: n
   xs.push(keys[keys.length - 1]);
   isKey.push(1);
   const ne = xs.length - 1;
-  const mesh: Mesh = { x: Float64Array.from(xs), isKey: Uint8Array.from(isKey), EI: new Float64Array(ne),
-    rhoA: new Float64Array(ne), seg: new Int32Array(ne) };
+  const mesh: Mesh = {
+    x: Float64Array.from(xs),
+    isKey: Uint8Array.from(isKey),
+    EI: new Float64Array(ne),
+    rhoA: new Float64Array(ne),
+    seg: new Int32Array(ne),
+  };
   let s = 0;
   for (let e = 0; e < ne; e++) {
     const mid = (xs[e] + xs[e + 1]) / 2;

@@ -16,17 +16,24 @@ function cosSin(deg: number): [number, number] {
 
 /** A load reduced to forces on the shaft axis (N) and couples (N·mm) in the two planes. */
 export interface PointLoad {
-  index: number; kind: 'force' | 'gear' | 'pulley' | 'sprocket' | 'coupling'; at: number;
-  Fy: number; Fz: number; Fx: number;
+  index: number;
+  kind: 'force' | 'gear' | 'pulley' | 'sprocket' | 'coupling';
+  at: number;
+  Fy: number;
+  Fz: number;
+  Fx: number;
   /** Couples on the slope unknowns dv/dx and dw/dx (from an axial gear force acting off the axis). */
-  Cy: number; Cz: number;
+  Cy: number;
+  Cz: number;
   /** Transmitted torque, N·mm. */
   T: number;
 }
 
-export const GEAR_METHOD = 'Wt = 2T/d tangential; Wr = Wt·tan φn/cos ψ towards the axis; Wa = Wt·tan ψ axial '
-  + '(Shigley 9th Eqs. 13-36, 13-40); Wa acts at the pitch radius, giving a couple Wa·d/2';
-export const BELT_METHOD = 'shaft load = pull factor × net pull 2T/D (pull factor 1.5 V-belt, 1.0 chain; Mott, from memory)';
+export const GEAR_METHOD =
+  'Wt = 2T/d tangential; Wr = Wt·tan φn/cos ψ towards the axis; Wa = Wt·tan ψ axial ' +
+  '(Shigley 9th Eqs. 13-36, 13-40); Wa acts at the pitch radius, giving a couple Wa·d/2';
+export const BELT_METHOD =
+  'shaft load = pull factor × net pull 2T/D (pull factor 1.5 V-belt, 1.0 chain; Mott, from memory)';
 export const DEFAULT_PULL_FACTOR = { pulley: 1.5, sprocket: 1.0 } as const;
 
 /** The torque an element transmits in the calc's unit: its own T, else the torque entry at its station, else null. */
@@ -70,7 +77,8 @@ export function resolveLoads(input: CalcInput): PointLoad[] {
     } else if (load.kind === 'coupling') {
       [p.Fy, p.Fz] = [(load.Fy ?? 0) * F, (load.Fz ?? 0) * F];
     } else {
-      const pull = (load.pullFactor ?? DEFAULT_PULL_FACTOR[load.kind]) * Math.abs((2 * p.T) / (load.diameter * k.length));
+      const pull =
+        (load.pullFactor ?? DEFAULT_PULL_FACTOR[load.kind]) * Math.abs((2 * p.T) / (load.diameter * k.length));
       const [c, s] = cosSin(load.direction ?? 0);
       [p.Fy, p.Fz] = [pull * c, pull * s];
     }

@@ -14,9 +14,15 @@ export function assembleStiffness(mesh: Mesh): BandMatrix {
     const L = mesh.x[e + 1] - mesh.x[e];
     const c = mesh.EI[e] / L ** 3;
     const i = 2 * e;
-    K.add(i, i, 12 * c); K.add(i, i + 1, 6 * L * c); K.add(i, i + 2, -12 * c); K.add(i, i + 3, 6 * L * c);
-    K.add(i + 1, i + 1, 4 * L * L * c); K.add(i + 1, i + 2, -6 * L * c); K.add(i + 1, i + 3, 2 * L * L * c);
-    K.add(i + 2, i + 2, 12 * c); K.add(i + 2, i + 3, -6 * L * c);
+    K.add(i, i, 12 * c);
+    K.add(i, i + 1, 6 * L * c);
+    K.add(i, i + 2, -12 * c);
+    K.add(i, i + 3, 6 * L * c);
+    K.add(i + 1, i + 1, 4 * L * L * c);
+    K.add(i + 1, i + 2, -6 * L * c);
+    K.add(i + 1, i + 3, 2 * L * L * c);
+    K.add(i + 2, i + 2, 12 * c);
+    K.add(i + 2, i + 3, -6 * L * c);
     K.add(i + 3, i + 3, 4 * L * L * c);
   }
   return K;
@@ -29,9 +35,15 @@ export function assembleMass(mesh: Mesh, pointMasses: readonly { node: number; m
     const L = mesh.x[e + 1] - mesh.x[e];
     const c = (mesh.rhoA[e] * L) / 420;
     const i = 2 * e;
-    M.add(i, i, 156 * c); M.add(i, i + 1, 22 * L * c); M.add(i, i + 2, 54 * c); M.add(i, i + 3, -13 * L * c);
-    M.add(i + 1, i + 1, 4 * L * L * c); M.add(i + 1, i + 2, 13 * L * c); M.add(i + 1, i + 3, -3 * L * L * c);
-    M.add(i + 2, i + 2, 156 * c); M.add(i + 2, i + 3, -22 * L * c);
+    M.add(i, i, 156 * c);
+    M.add(i, i + 1, 22 * L * c);
+    M.add(i, i + 2, 54 * c);
+    M.add(i, i + 3, -13 * L * c);
+    M.add(i + 1, i + 1, 4 * L * L * c);
+    M.add(i + 1, i + 2, 13 * L * c);
+    M.add(i + 1, i + 3, -3 * L * L * c);
+    M.add(i + 2, i + 2, 156 * c);
+    M.add(i + 2, i + 3, -22 * L * c);
     M.add(i + 3, i + 3, 4 * L * L * c);
   }
   for (const p of pointMasses) M.add(2 * p.node, 2 * p.node, p.mass);
@@ -50,7 +62,10 @@ export function nodalForce(mesh: Mesh, u: Float64Array, node: number): number {
     const t1 = u[j + 1];
     const v2 = u[j + 2];
     const t2 = u[j + 3];
-    f += e === node ? c * (12 * v1 + 6 * L * t1 - 12 * v2 + 6 * L * t2) : c * (-12 * v1 - 6 * L * t1 + 12 * v2 - 6 * L * t2);
+    f +=
+      e === node
+        ? c * (12 * v1 + 6 * L * t1 - 12 * v2 + 6 * L * t2)
+        : c * (-12 * v1 - 6 * L * t1 + 12 * v2 - 6 * L * t2);
   }
   return f;
 }
@@ -63,7 +78,11 @@ export function hermiteInto(mesh: Mesh, u: Float64Array, e: number, x: number, o
   const s2 = s * s;
   const s3 = s2 * s;
   const j = 2 * e;
-  out[0] = (1 - 3 * s2 + 2 * s3) * u[j] + L * (s - 2 * s2 + s3) * u[j + 1] + (3 * s2 - 2 * s3) * u[j + 2] + L * (s3 - s2) * u[j + 3];
+  out[0] =
+    (1 - 3 * s2 + 2 * s3) * u[j] +
+    L * (s - 2 * s2 + s3) * u[j + 1] +
+    (3 * s2 - 2 * s3) * u[j + 2] +
+    L * (s3 - s2) * u[j + 3];
   out[1] = ((6 * s2 - 6 * s) * (u[j] - u[j + 2])) / L + (1 - 4 * s + 3 * s2) * u[j + 1] + (3 * s2 - 2 * s) * u[j + 3];
 }
 

@@ -15,10 +15,29 @@ import { MatIconModule } from '@angular/material/icon';
     </div>
   `,
   styles: `
-    .empty { display: flex; gap: 14px; align-items: flex-start; padding: 18px 20px; color: var(--tt-ink-soft); }
-    mat-icon { font-size: 28px; width: 28px; height: 28px; color: #8aa3a6; }
-    .title { margin: 0 0 4px; font-weight: 500; color: var(--tt-ink); }
-    .hint { margin: 0; font-size: 13px; line-height: 1.5; }
+    .empty {
+      display: flex;
+      gap: 14px;
+      align-items: flex-start;
+      padding: 18px 20px;
+      color: var(--tt-ink-soft);
+    }
+    mat-icon {
+      font-size: 28px;
+      width: 28px;
+      height: 28px;
+      color: #8aa3a6;
+    }
+    .title {
+      margin: 0 0 4px;
+      font-weight: 500;
+      color: var(--tt-ink);
+    }
+    .hint {
+      margin: 0;
+      font-size: 13px;
+      line-height: 1.5;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

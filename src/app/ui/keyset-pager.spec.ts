@@ -1,6 +1,12 @@
 import { KeysetPager } from './keyset-pager';
 
-const page = (next: string | null, total: number | null = null, totalIsAtLeast = false) => ({ items: [], size: 25, next, total, totalIsAtLeast });
+const page = (next: string | null, total: number | null = null, totalIsAtLeast = false) => ({
+  items: [],
+  size: 25,
+  next,
+  total,
+  totalIsAtLeast,
+});
 
 describe('KeysetPager', () => {
   it('when pages are turned on and back, then each page starts at the cursor its predecessor gave', () => {
@@ -17,7 +23,7 @@ describe('KeysetPager', () => {
     expect(pager.after()).toBeUndefined();
   });
 
-  it('when later pages carry no total, then the first page\'s count stays shown', () => {
+  it("when later pages carry no total, then the first page's count stays shown", () => {
     const pager = new KeysetPager(25);
     pager.remember(page('c1', 10_000, true));
     pager.turn({ pageIndex: 1, pageSize: 25, previousPageIndex: 0, length: 10_000 });

@@ -13,11 +13,28 @@ import { CAUTION } from '../../../shared/engine';
     </aside>
   `,
   styles: `
-    .note { display: flex; gap: 10px; align-items: flex-start; padding: 10px 14px; border-radius: 4px;
-            background: #fbf1e4; border-left: 4px solid var(--tt-copper); color: #4a3620; }
-    .note p { margin: 0; font-size: 13px; line-height: 1.45; }
-    .note mat-icon { color: var(--tt-copper); flex: none; }
-    .compact p { font-size: 12px; }
+    .note {
+      display: flex;
+      gap: 10px;
+      align-items: flex-start;
+      padding: 10px 14px;
+      border-radius: 4px;
+      background: #fbf1e4;
+      border-left: 4px solid var(--tt-copper);
+      color: #4a3620;
+    }
+    .note p {
+      margin: 0;
+      font-size: 13px;
+      line-height: 1.45;
+    }
+    .note mat-icon {
+      color: var(--tt-copper);
+      flex: none;
+    }
+    .compact p {
+      font-size: 12px;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -27,6 +27,9 @@ export function simpleShaft(od: number, T: number, length = 1000, id = 0): Recor
     units: 'SI',
     material: { E: 207, G: 79.3, Sy: 530, Su: 630 },
     segments: [{ length, od, id }],
-    torques: [{ at: 0, T }, { at: length, T: -T }],
+    torques: [
+      { at: 0, T },
+      { at: length, T: -T },
+    ],
   };
 }

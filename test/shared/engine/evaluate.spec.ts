@@ -19,11 +19,36 @@ describe('evaluateShaft on the five-segment conveyor shaft (keyseat, fillet, rin
   });
 
   it('when evaluated, then each segment has the facts the rule sets need', () => {
-    const keys = ['index', 'start', 'end', 'od', 'id', 'isHollow', 'J', 'Zp', 'T', 'tauMax', 'tauInner', 'gamma', 'twist',
-      'twistPerLength', 'hasKeyseat', 'sigmaVonMises', 'tauTresca', 'yieldSafety', 'fatigueSafety'];
+    const keys = [
+      'index',
+      'start',
+      'end',
+      'od',
+      'id',
+      'isHollow',
+      'J',
+      'Zp',
+      'T',
+      'tauMax',
+      'tauInner',
+      'gamma',
+      'twist',
+      'twistPerLength',
+      'hasKeyseat',
+      'sigmaVonMises',
+      'tauTresca',
+      'yieldSafety',
+      'fatigueSafety',
+    ];
     for (const s of r.segments) for (const k of keys) expect(s).toHaveProperty(k);
     expect(r.segments.map((s) => s.hasKeyseat)).toEqual([false, true, false, false, false]);
-    expect(r.segments.map((s) => [s.start, s.end])).toEqual([[0, 40], [40, 160], [160, 220], [220, 370], [370, 410]]);
+    expect(r.segments.map((s) => [s.start, s.end])).toEqual([
+      [0, 40],
+      [40, 160],
+      [160, 220],
+      [220, 370],
+      [370, 410],
+    ]);
   });
 
   it('when the fillet at 160 mm is recomputed by hand from the published equations, then the engine agrees', () => {
@@ -35,8 +60,12 @@ describe('evaluateShaft on the five-segment conveyor shaft (keyseat, fillet, rin
     const Kt = k12 + ((0.93836 * rd ** -0.25759 - k12) * (D / d - 1.2)) / 0.3;
     const tr = (D - d) / 2 / rr;
     const x = (D - d) / D;
-    const c = [0.905 + 0.783 * Math.sqrt(tr) - 0.075 * tr, -0.437 - 1.969 * Math.sqrt(tr) + 0.553 * tr,
-      1.557 + 1.073 * Math.sqrt(tr) - 0.578 * tr, -1.061 + 0.171 * Math.sqrt(tr) + 0.086 * tr];
+    const c = [
+      0.905 + 0.783 * Math.sqrt(tr) - 0.075 * tr,
+      -0.437 - 1.969 * Math.sqrt(tr) + 0.553 * tr,
+      1.557 + 1.073 * Math.sqrt(tr) - 0.578 * tr,
+      -1.061 + 0.171 * Math.sqrt(tr) + 0.086 * tr,
+    ];
     const Kts = c[0] + c[1] * x + c[2] * x ** 2 + c[3] * x ** 3;
     const S = 630 / 6.894757293168361;
     const rIn = Math.sqrt(rr / 25.4);
@@ -51,8 +80,18 @@ describe('evaluateShaft on the five-segment conveyor shaft (keyseat, fillet, rin
     const B = Math.sqrt(3 * (Kfs * Tm) ** 2);
     const nGoodman = 1 / ((16 / (Math.PI * d ** 3)) * (A / Se + B / 630));
     const f = r.features[1];
-    for (const [actual, expected] of [[f.Kt, Kt], [f.Kts, Kts], [f.q, q], [f.qs, qs], [f.Kf, Kf], [f.Kfs, Kfs],
-      [f.Ma, Ma / 1e3], [f.Tm, Tm / 1e3], [f.endurance?.Se, Se], [f.fatigueSafety?.goodman, nGoodman]] as const) {
+    for (const [actual, expected] of [
+      [f.Kt, Kt],
+      [f.Kts, Kts],
+      [f.q, q],
+      [f.qs, qs],
+      [f.Kf, Kf],
+      [f.Kfs, Kfs],
+      [f.Ma, Ma / 1e3],
+      [f.Tm, Tm / 1e3],
+      [f.endurance?.Se, Se],
+      [f.fatigueSafety?.goodman, nGoodman],
+    ] as const) {
       expectClose(actual, expected, 1e-9);
     }
   });

@@ -13,7 +13,10 @@ describe('DE fatigue criteria', () => {
   const s = fatigueSafety((c * A) / 1000, (c * B) / 1000, 35, 90, 70);
 
   it.each([
-    ['goodman', 1.39395], ['gerber', 1.71574], ['asmeElliptic', 1.74052], ['soderberg', 1.286],
+    ['goodman', 1.39395],
+    ['gerber', 1.71574],
+    ['asmeElliptic', 1.74052],
+    ['soderberg', 1.286],
   ] as const)('when the %s criterion is applied, then n = %s (1e-5)', (criterion, n) => {
     expectClose(s[criterion], n, 1e-5);
   });
@@ -29,6 +32,11 @@ describe('DE fatigue criteria', () => {
   });
 
   it('when nothing is loaded, then every factor is null (an infinite factor cannot travel in JSON)', () => {
-    expect(fatigueSafety(0, 0, 35, 90, 70)).toEqual({ goodman: null, asmeElliptic: null, gerber: null, soderberg: null });
+    expect(fatigueSafety(0, 0, 35, 90, 70)).toEqual({
+      goodman: null,
+      asmeElliptic: null,
+      gerber: null,
+      soderberg: null,
+    });
   });
 });

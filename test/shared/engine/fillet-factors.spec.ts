@@ -5,14 +5,25 @@ import { expectClose } from './check-helpers';
 // Peterson polynomial: Pilkey & Pilkey, Peterson's Stress Concentration Factors, 3rd ed. [sourced].
 // Norton fits: Norton, Machine Design: An Integrated Approach, 2nd ed., App. E [sourced].
 const fillet = (D: number, d: number, r: number) => ({
-  units: 'SI', material: { E: 207, G: 79.3, Sy: 530, Su: 630 },
-  segments: [{ length: 100, od: D, id: 0 }, { length: 100, od: d, id: 0 }],
-  torques: [{ at: 0, T: 500 }, { at: 200, T: -500 }],
+  units: 'SI',
+  material: { E: 207, G: 79.3, Sy: 530, Su: 630 },
+  segments: [
+    { length: 100, od: D, id: 0 },
+    { length: 100, od: d, id: 0 },
+  ],
+  torques: [
+    { at: 0, T: 500 },
+    { at: 200, T: -500 },
+  ],
   features: [{ type: 'shoulder-fillet', at: 100, r }],
 });
 
 describe('Norton bending fit (docs/references.md C-10, tolerance 1e-5)', () => {
-  it.each([[0.02, 2.57044], [0.05, 2.03003], [0.1, 1.69809]])('when D/d = 1.5 and r/d = %s, then Kt = %s', (rd, kt) => {
+  it.each([
+    [0.02, 2.57044],
+    [0.05, 2.03003],
+    [0.1, 1.69809],
+  ])('when D/d = 1.5 and r/d = %s, then Kt = %s', (rd, kt) => {
     expectClose(nortonFit(NORTON_BENDING, 1.5, rd).value, kt, 1e-5);
   });
 
@@ -34,7 +45,10 @@ describe('Norton bending fit (docs/references.md C-10, tolerance 1e-5)', () => {
 });
 
 describe('Peterson torsion polynomial (docs/references.md C-11, tolerance 1e-5)', () => {
-  it.each([[1.2, 0.05, 1.56003], [2.0, 0.25, 1.20325]])('when D/d = %s and r/d = %s, then Kts = %s', (Dd, rd, kts) => {
+  it.each([
+    [1.2, 0.05, 1.56003],
+    [2.0, 0.25, 1.20325],
+  ])('when D/d = %s and r/d = %s, then Kts = %s', (Dd, rd, kts) => {
     expectClose(petersonTorsion(Dd * 10, 10, rd * 10), kts, 1e-5);
   });
 
@@ -56,13 +70,17 @@ describe('Peterson torsion polynomial (docs/references.md C-11, tolerance 1e-5)'
     const r = evaluateShaft(fillet(60, 50, 0.5)); // t/r = 10
     expect(r.features[0].method.Kts).toMatch(/Norton/);
     expectClose(r.features[0].Kts, nortonFit(NORTON_TORSION, 1.2, 0.01).value, 1e-12);
-    expect(r.warnings).toEqual([expect.objectContaining({ path: 'features[0]', message: expect.stringMatching(/outside the Peterson/) })]);
+    expect(r.warnings).toEqual([
+      expect.objectContaining({ path: 'features[0]', message: expect.stringMatching(/outside the Peterson/) }),
+    ]);
   });
 
   it('when either shoulder segment is hollow, then a warning says the fits are for solid shafts', () => {
     const input = fillet(60, 50, 2.5);
     input.segments[1].id = 30;
-    expect(evaluateShaft(input).warnings).toEqual([{ path: 'features[0]', message: expect.stringMatching(/solid shafts/) }]);
+    expect(evaluateShaft(input).warnings).toEqual([
+      { path: 'features[0]', message: expect.stringMatching(/solid shafts/) },
+    ]);
   });
 
   it('when the author enters Kts with a source, then it replaces the computed one and the method says so', () => {

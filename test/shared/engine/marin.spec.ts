@@ -1,5 +1,11 @@
 import {
-  RELIABILITY_FACTORS, SURFACE_COEFFICIENTS, sizeFactor, sizeFactorInch, surfaceFactor, temperatureFactor, unmodifiedEndurance,
+  RELIABILITY_FACTORS,
+  SURFACE_COEFFICIENTS,
+  sizeFactor,
+  sizeFactorInch,
+  surfaceFactor,
+  temperatureFactor,
+  unmodifiedEndurance,
 } from '../../../shared/engine/marin';
 import { expectClose } from './check-helpers';
 
@@ -7,7 +13,11 @@ import { expectClose } from './check-helpers';
 describe('Marin factors', () => {
   it.each([
     // docs/references.md C-13 [computed from Table 6-2, MPa coefficients, sourced]
-    ['ground', 0.914753], ['machined', 0.820716], ['cold-drawn', 0.820716], ['hot-rolled', 0.570478], ['as-forged', 0.453043],
+    ['ground', 0.914753],
+    ['machined', 0.820716],
+    ['cold-drawn', 0.820716],
+    ['hot-rolled', 0.570478],
+    ['as-forged', 0.453043],
   ] as const)('when the surface is %s and Sut = 620 MPa, then ka = %s', (surface, ka) => {
     expectClose(surfaceFactor(surface, 620), ka);
   });
@@ -32,7 +42,12 @@ describe('Marin factors', () => {
 
   it.each([
     // Table 6-4 ST/SRT in °F (from memory) against the Eq. 6-27 polynomial (from memory): within ±0.005.
-    [70, 1.0], [200, 1.02], [400, 1.018], [600, 0.963], [800, 0.872], [1000, 0.698],
+    [70, 1.0],
+    [200, 1.02],
+    [400, 1.018],
+    [600, 0.963],
+    [800, 0.872],
+    [1000, 0.698],
   ])('when the temperature is %s °F, then kd is close to the tabulated %s', (tf, ratio) => {
     expect(Math.abs(temperatureFactor((tf - 32) / 1.8) - ratio)).toBeLessThanOrEqual(0.005);
   });
@@ -40,10 +55,19 @@ describe('Marin factors', () => {
   it.each([
     // kpsi coefficients recalled from memory: 9th ed. 1.34, 2.70, 14.4, 39.9; 11th ed. 1.21, 2.00, 11.0, 12.7.
     // a_MPa = a_kpsi · 6.894757^(−b): the recalled MPa and kpsi rows agree to their printed 3 digits.
-    ['9th-10th', 'ground', 1.34], ['9th-10th', 'machined', 2.7], ['9th-10th', 'hot-rolled', 14.4], ['9th-10th', 'as-forged', 39.9],
-    ['11th', 'ground', 1.21], ['11th', 'machined', 2.0], ['11th', 'hot-rolled', 11.0], ['11th', 'as-forged', 12.7],
-  ] as const)('when the %s %s coefficients are converted to kpsi, then they match the kpsi row', (table, surface, aKpsi) => {
-    const [a, b] = SURFACE_COEFFICIENTS[table][surface];
-    expectClose(a * 6.894757293168361 ** b, aKpsi, 0.005);
-  });
+    ['9th-10th', 'ground', 1.34],
+    ['9th-10th', 'machined', 2.7],
+    ['9th-10th', 'hot-rolled', 14.4],
+    ['9th-10th', 'as-forged', 39.9],
+    ['11th', 'ground', 1.21],
+    ['11th', 'machined', 2.0],
+    ['11th', 'hot-rolled', 11.0],
+    ['11th', 'as-forged', 12.7],
+  ] as const)(
+    'when the %s %s coefficients are converted to kpsi, then they match the kpsi row',
+    (table, surface, aKpsi) => {
+      const [a, b] = SURFACE_COEFFICIENTS[table][surface];
+      expectClose(a * 6.894757293168361 ** b, aKpsi, 0.005);
+    },
+  );
 });

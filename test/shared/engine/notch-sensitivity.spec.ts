@@ -25,8 +25,11 @@ describe('notch sensitivity', () => {
 
   it('when the engine meets such a material, then it warns on material.Su', () => {
     const r = evaluateShaft({
-      units: 'SI', material: { E: 207, G: 79.3, Sy: 1700, Su: 2000 }, segments: [{ length: 100, od: 20, id: 0 }],
-      torques: [], features: [{ type: 'keyseat', form: 'end-mill', at: 50 }],
+      units: 'SI',
+      material: { E: 207, G: 79.3, Sy: 1700, Su: 2000 },
+      segments: [{ length: 100, od: 20, id: 0 }],
+      torques: [],
+      features: [{ type: 'keyseat', form: 'end-mill', at: 50 }],
     });
     expect(r.warnings.map((w) => w.path)).toContain('material.Su');
   });

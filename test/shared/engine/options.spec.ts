@@ -7,7 +7,11 @@ import { expectClose, simpleShaft } from './check-helpers';
 const keyed = (extra: Record<string, unknown> = {}, fatigue: Record<string, unknown> = {}): Record<string, any> => ({
   ...simpleShaft(40, 400, 300),
   features: [{ type: 'keyseat', form: 'end-mill', at: 150 }],
-  bending: [{ at: 0, Ma: 0 }, { at: 150, Ma: 300 }, { at: 300, Ma: 0 }],
+  bending: [
+    { at: 0, Ma: 0 },
+    { at: 150, Ma: 300 },
+    { at: 300, Ma: 0 },
+  ],
   fatigue: { surface: 'machined', ...fatigue },
   ...extra,
 });
@@ -15,7 +19,10 @@ const keyed = (extra: Record<string, unknown> = {}, fatigue: Record<string, unkn
 describe('calc options', () => {
   it('when torques carry Ta, then the alternating diagram is their running sum (in phase)', () => {
     const input = keyed();
-    input.torques = [{ at: 0, T: 400, Ta: 80 }, { at: 300, T: -400, Ta: -80 }];
+    input.torques = [
+      { at: 0, T: 400, Ta: 80 },
+      { at: 300, T: -400, Ta: -80 },
+    ];
     const r = evaluateShaft(input);
     expect(r.torqueDiagram.map((p) => p.Ta)).toEqual([80]);
     expect(r.features[0].Ta).toBe(80);
@@ -56,8 +63,15 @@ describe('calc options', () => {
 
   it('when a segment has its own aluminium material, then its G is used and the steel-only methods are flagged', () => {
     const input = keyed();
-    input.segments = [{ length: 150, od: 40, id: 0 },
-      { length: 150, od: 40, id: 0, material: { name: 'Al 6061-T6', kind: 'aluminium', E: 71.7, G: 26.9, Sy: 276, Su: 310 } }];
+    input.segments = [
+      { length: 150, od: 40, id: 0 },
+      {
+        length: 150,
+        od: 40,
+        id: 0,
+        material: { name: 'Al 6061-T6', kind: 'aluminium', E: 71.7, G: 26.9, Sy: 276, Su: 310 },
+      },
+    ];
     const r = evaluateShaft(input);
     // Shigley 9th Table A-5 aluminium alloys G = 26.9 GPa [sourced]: twist ratio follows G.
     expectClose(r.segments[1].twist / r.segments[0].twist, 79.3 / 26.9, 1e-12);

@@ -17,8 +17,13 @@ describe('torque from power and speed', () => {
 
   it('when a power entry drives the shaft, then the resolved torque is listed with its origin', () => {
     const r = evaluateShaft({
-      units: 'SI', material: { E: 207, G: 79.3, Sy: 530, Su: 630 }, segments: [{ length: 300, od: 30, id: 0 }],
-      torques: [{ at: 0, power: 10, speed: 1450 }, { at: 300, power: -10, speed: 1450 }],
+      units: 'SI',
+      material: { E: 207, G: 79.3, Sy: 530, Su: 630 },
+      segments: [{ length: 300, od: 30, id: 0 }],
+      torques: [
+        { at: 0, power: 10, speed: 1450 },
+        { at: 300, power: -10, speed: 1450 },
+      ],
     });
     expectClose(r.torques[0].T, 65.85722);
     expect(r.torques[0].isFromPower).toBe(true);
@@ -41,7 +46,7 @@ describe('unit conversions (NIST SP 811 factors, from memory; 1 in = 25.4 mm exa
     expectClose(fromSI(si, q), us, 1e-12);
   });
 
-  it('when 0.08 deg/ft is converted, then it is 0.2624672 deg/m (Schaum\'s Outline of Machine Design limit, docs/references.md)', () => {
+  it("when 0.08 deg/ft is converted, then it is 0.2624672 deg/m (Schaum's Outline of Machine Design limit, docs/references.md)", () => {
     expectClose(toSI(0.08, 'twistPerLength'), 0.2624672, 1e-6);
   });
 

@@ -39,17 +39,30 @@ describe('torque diagram', () => {
   const stepped = {
     units: 'SI',
     material: { E: 207, G: 79.3, Sy: 530, Su: 630 },
-    segments: [{ length: 200, od: 40, id: 0 }, { length: 300, od: 50, id: 0 }],
-    torques: [{ at: 0, T: 600 }, { at: 350, T: -400 }, { at: 500, T: -200 }],
+    segments: [
+      { length: 200, od: 40, id: 0 },
+      { length: 300, od: 50, id: 0 },
+    ],
+    torques: [
+      { at: 0, T: 600 },
+      { at: 350, T: -400 },
+      { at: 500, T: -200 },
+    ],
   };
 
   it('when a load is taken off mid-segment, then the segment reports its largest torque and twist adds over the pieces', () => {
     const r = evaluateShaft(stepped);
     expect(r.segments.map((s) => s.T)).toEqual([-600, -600]);
-    expect(r.torqueDiagram.map((p) => [p.start, p.end, p.T])).toEqual([[0, 200, -600], [200, 350, -600], [350, 500, -200]]);
+    expect(r.torqueDiagram.map((p) => [p.start, p.end, p.T])).toEqual([
+      [0, 200, -600],
+      [200, 350, -600],
+      [350, 500, -200],
+    ]);
     // Independent: θ = Σ T·L/(G·J) in N·mm, mm, MPa, mm⁴ → rad → deg.
     const J = (d: number): number => (Math.PI * d ** 4) / 32;
-    const expected = -((600e3 * 200) / (79300 * J(40)) + (600e3 * 150) / (79300 * J(50)) + (200e3 * 150) / (79300 * J(50))) * (180 / Math.PI);
+    const expected =
+      -((600e3 * 200) / (79300 * J(40)) + (600e3 * 150) / (79300 * J(50)) + (200e3 * 150) / (79300 * J(50))) *
+      (180 / Math.PI);
     expectClose(r.twistTotal, expected, 1e-12);
     expectClose(twistBetween(r, 0, 500), expected, 1e-12);
   });

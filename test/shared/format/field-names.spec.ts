@@ -1,7 +1,7 @@
 import { fieldLabel, namePathsIn, placeOf } from '../../../shared/engine/field-places';
 import { AppError } from '../../../server/errors/app-error';
 
-describe('internal paths in the screen\'s words', () => {
+describe("internal paths in the screen's words", () => {
   it.each([
     ['segments[2].diameter', [], 'Segment 3, hole ⌀'],
     ['torques[0].speed', [], 'Torque 1, speed'],
@@ -17,7 +17,7 @@ describe('internal paths in the screen\'s words', () => {
     expect(placeOf(path, types)).toBe(words);
   });
 
-  it('when an API error names a request field or an input path, then the label is the form\'s', () => {
+  it("when an API error names a request field or an input path, then the label is the form's", () => {
     expect(fieldLabel('input.segments[2].od')).toBe('Segment 3, outer ⌀');
     expect(fieldLabel('reasonForChange')).toBe('Reason for the change');
     expect(fieldLabel('params.itemId')).toBe('The address (itemId)');
@@ -26,7 +26,9 @@ describe('internal paths in the screen\'s words', () => {
   });
 
   it('when a free text carries paths, then each is replaced by its place', () => {
-    expect(namePathsIn('value at segments[2].J is not finite; see torques[0]')).toBe('value at Segment 3, polar moment is not finite; see Torque 1');
+    expect(namePathsIn('value at segments[2].J is not finite; see torques[0]')).toBe(
+      'value at Segment 3, polar moment is not finite; see Torque 1',
+    );
   });
 
   it('when the server refuses a body, then its message names the first field as the screen does, not by its path', () => {

@@ -6,8 +6,15 @@ import { nonFinitePath, stringifyFinite } from '../../../shared/json/finite-json
 // source (docs/references.md, "Reading JSON", which notes what RFC 8259 leaves open).
 describe('parseStrictJson', () => {
   it('when a key appears twice, then it is refused with the path and both positions', () => {
-    expect(parseStrictJson('{\n  "units": "SI",\n  "units": "US"\n}')).toEqual({ ok: false, issue: {
-      path: 'units', message: expect.stringMatching(/the key "units" appears twice in one object \(line 2, column 3 and line 3, column 3\)/) } });
+    expect(parseStrictJson('{\n  "units": "SI",\n  "units": "US"\n}')).toEqual({
+      ok: false,
+      issue: {
+        path: 'units',
+        message: expect.stringMatching(
+          /the key "units" appears twice in one object \(line 2, column 3 and line 3, column 3\)/,
+        ),
+      },
+    });
   });
 
   it('when the duplicate is nested in a list, then the path leads to it', () => {
@@ -16,7 +23,10 @@ describe('parseStrictJson', () => {
   });
 
   it('when equal keys sit in different objects, then that is fine', () => {
-    expect(parseStrictJson('{"a":{"x":1},"b":{"x":2},"c":[{"x":3},{"x":4}]}')).toEqual({ ok: true, value: { a: { x: 1 }, b: { x: 2 }, c: [{ x: 3 }, { x: 4 }] } });
+    expect(parseStrictJson('{"a":{"x":1},"b":{"x":2},"c":[{"x":3},{"x":4}]}')).toEqual({
+      ok: true,
+      value: { a: { x: 1 }, b: { x: 2 }, c: [{ x: 3 }, { x: 4 }] },
+    });
   });
 
   it('when the text starts with a UTF-8 byte-order mark, then it parses as without one', () => {
@@ -44,11 +54,14 @@ describe('parseStrictJson on hostile input', () => {
   it('when JSON has no problem, then it parses exactly as JSON.parse does', () => {
     // fc.json may produce keys such as "__proto__"; those are refused on purpose, so leave them out.
     const ok = fc.json({ maxDepth: 6 }).filter((t) => !/"(__proto__|constructor|prototype)"\s*:/.test(t));
-    fc.assert(fc.property(ok, (text) => {
-      const parsed = parseStrictJson(text);
-      if (parsed.ok) expect(parsed.value).toEqual(JSON.parse(text));
-      else expect(parsed.issue.message).toMatch(/appears twice|lone surrogate/);
-    }), { numRuns: 500 });
+    fc.assert(
+      fc.property(ok, (text) => {
+        const parsed = parseStrictJson(text);
+        if (parsed.ok) expect(parsed.value).toEqual(JSON.parse(text));
+        else expect(parsed.issue.message).toMatch(/appears twice|lone surrogate/);
+      }),
+      { numRuns: 500 },
+    );
   });
 
   it.each([

@@ -1,5 +1,12 @@
 import {
-  MATERIAL_LIBRARY, SHIGLEY_A5, SHIGLEY_A20, findMaterial, matchMaterial, sourceText, toMaterialInput, valueIn,
+  MATERIAL_LIBRARY,
+  SHIGLEY_A5,
+  SHIGLEY_A20,
+  findMaterial,
+  matchMaterial,
+  sourceText,
+  toMaterialInput,
+  valueIn,
 } from '../../../shared/materials';
 import { validateCalcInput } from '../../../shared/engine';
 
@@ -72,7 +79,10 @@ describe('material values in a calc', () => {
   it('when a carbon steel is turned into calc input, then the engine accepts it as the calc material', () => {
     const material = toMaterialInput(findMaterial('aisi-1050-cd')!, 'US');
     const checked = validateCalcInput({
-      units: 'US', material, segments: [{ length: 10, od: 2, id: 0 }], torques: [],
+      units: 'US',
+      material,
+      segments: [{ length: 10, od: 2, id: 0 }],
+      torques: [],
     });
     expect(checked.ok).toBe(true);
     expect(material.source).toMatch(/Table A-5.*typical.*Table A-20.*specified minimum/);

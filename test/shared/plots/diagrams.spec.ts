@@ -18,7 +18,10 @@ describe('torque diagram', () => {
   });
 
   it('when the calc has an alternating part, then it is a second, dashed series', () => {
-    expect(chart.series.map((s) => [s.id, s.style])).toEqual([['T', 'solid'], ['Ta', 'dashed']]);
+    expect(chart.series.map((s) => [s.id, s.style])).toEqual([
+      ['T', 'solid'],
+      ['Ta', 'dashed'],
+    ]);
   });
 
   it('when drawn, then axes carry the result units and cover the data with zero on the y axis', () => {
@@ -51,7 +54,10 @@ describe('shear stress along the shaft', () => {
   });
 
   it('when a limit is not finite or lies off the shaft, then it is dropped rather than drawn wrong', () => {
-    const chart = shearPlot(conveyor, [{ value: Number.NaN, label: 'x' }, { value: 10, label: 'y', from: 500, to: 600 }]);
+    const chart = shearPlot(conveyor, [
+      { value: Number.NaN, label: 'x' },
+      { value: 10, label: 'y', from: 500, to: 600 },
+    ]);
     expect(chart.limits).toEqual([]);
   });
 });

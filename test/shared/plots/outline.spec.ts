@@ -19,7 +19,11 @@ describe('shaft outline to scale', () => {
   const o = shaftOutline(conveyor);
 
   it('when drawn, then each segment is a rectangle at its station, as long as the segment and as high as its diameter', () => {
-    expect(o.segments.map((s) => [s.x, s.width, s.y, s.height])).toEqual([[0, 40, -17.5, 35], [40, 120, -22.5, 45], [160, 60, -27.5, 55]]);
+    expect(o.segments.map((s) => [s.x, s.width, s.y, s.height])).toEqual([
+      [0, 40, -17.5, 35],
+      [40, 120, -22.5, 45],
+      [160, 60, -27.5, 55],
+    ]);
     expect([o.length, o.maxRadius]).toEqual([220, 27.5]);
   });
 
@@ -28,7 +32,13 @@ describe('shaft outline to scale', () => {
   });
 
   it('when features are marked, then each gets a short tag, a name and the radius of its section', () => {
-    expect(o.features.map((f) => [f.tag, f.top])).toEqual([['KS1', 22.5], ['SF2', 22.5], ['RG3', 17.5], ['CH4', 27.5], ['SF5', 27.5]]);
+    expect(o.features.map((f) => [f.tag, f.top])).toEqual([
+      ['KS1', 22.5],
+      ['SF2', 22.5],
+      ['RG3', 17.5],
+      ['CH4', 27.5],
+      ['SF5', 27.5],
+    ]);
     expect(o.features[3].name).toBe('Cross hole, grease');
     expect(featureTag('keyseat', 0)).toBe('KS1');
   });

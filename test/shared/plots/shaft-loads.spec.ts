@@ -3,10 +3,21 @@ import { bendingPlot, deflectionPlot, hasBeamModel, shaftLoads, shaftOutline, sl
 
 // An invented countershaft: bearings at 20 and 380 mm, a spur gear at 120 and a V-belt pulley at 300.
 const COUNTERSHAFT: CalcInput = {
-  units: 'SI', material: { E: 207, G: 79.3, Sy: 530, Su: 630 },
-  segments: [{ length: 40, od: 40, id: 0 }, { length: 300, od: 50, id: 0 }, { length: 60, od: 40, id: 0 }],
-  torques: [{ at: 120, T: 400 }, { at: 300, T: -400 }],
-  supports: [{ at: 20, kind: 'deep-groove-ball', C: 30 }, { at: 380, kind: 'cylindrical-roller', C: 45 }],
+  units: 'SI',
+  material: { E: 207, G: 79.3, Sy: 530, Su: 630 },
+  segments: [
+    { length: 40, od: 40, id: 0 },
+    { length: 300, od: 50, id: 0 },
+    { length: 60, od: 40, id: 0 },
+  ],
+  torques: [
+    { at: 120, T: 400 },
+    { at: 300, T: -400 },
+  ],
+  supports: [
+    { at: 20, kind: 'deep-groove-ball', C: 30 },
+    { at: 380, kind: 'cylindrical-roller', C: 45 },
+  ],
   loads: [
     { at: 120, kind: 'gear', pitchDiameter: 160, direction: 0, label: 'pinion' },
     { at: 300, kind: 'pulley', diameter: 250, direction: 90 },
@@ -20,7 +31,10 @@ const loads = shaftLoads(result, outline);
 
 describe('bearings and forces on the outline plot', () => {
   it('when a calc has bearings, then each is marked at its station on the shaft surface, tagged B1, B2', () => {
-    expect(loads.bearings.map((b) => [b.tag, b.at, b.top])).toEqual([['B1', 20, 20], ['B2', 380, 20]]);
+    expect(loads.bearings.map((b) => [b.tag, b.at, b.top])).toEqual([
+      ['B1', 20, 20],
+      ['B2', 380, 20],
+    ]);
     const upper = loads.bearings[0].shapes[0];
     expect(upper.kind === 'rect' && [upper.y, upper.x + upper.width / 2]).toEqual([20, 20]);
   });
@@ -64,7 +78,10 @@ describe('bending, deflection and slope diagrams', () => {
   });
 
   it('when a deflection limit applies at a gear, then it is a short line centred on the gear station, and shaft-wide limits span the shaft', () => {
-    const c = deflectionPlot(result, [{ at: 120, value: 0.1, label: '§6.1 0.1 mm' }, { at: null, value: 0.2, label: 'overall' }]);
+    const c = deflectionPlot(result, [
+      { at: 120, value: 0.1, label: '§6.1 0.1 mm' },
+      { at: null, value: 0.2, label: 'overall' },
+    ]);
     expect(c.limits[0]).toEqual({ y: 0.1, x1: 120 - 8, x2: 120 + 8, label: '§6.1 0.1 mm' });
     expect(c.limits[1]).toMatchObject({ y: 0.2, x1: 0, x2: 400 });
     const largest = Math.max(...c.series[0].points.map((p) => p[1]));
@@ -82,17 +99,46 @@ describe('bending, deflection and slope diagrams', () => {
 
 describe('limits from the standard on the deflection and slope plots', () => {
   const row = (clauseId: string, at: number | null, limit: number, unit: string) => ({
-    clauseId, clauseTitle: '', reference: '', severity: 'mandatory', status: 'pass', location: { scope: 'shaft', index: null, at, label: '' },
-    actual: 0, limit, unit, utilisation: 0, utilisationBasis: 'actual/limit', message: '', warnings: [],
+    clauseId,
+    clauseTitle: '',
+    reference: '',
+    severity: 'mandatory',
+    status: 'pass',
+    location: { scope: 'shaft', index: null, at, label: '' },
+    actual: 0,
+    limit,
+    unit,
+    utilisation: 0,
+    utilisationBasis: 'actual/limit',
+    message: '',
+    warnings: [],
   });
-  const ruleSet = { clauses: [{ id: '6.1', measure: { actual: 'gearDeflection' } }, { id: '6.2', measure: { actual: 'bearingSlope' } }, { id: '4.1', measure: { actual: 'tauMax' } }] };
-  const checklist = { rows: [row('6.1', 120, 0.13, 'mm'), row('6.2', 20, 1, 'mrad'), row('6.2', 380, 1, 'mrad'), row('4.1', 40, 60, 'MPa')] };
+  const ruleSet = {
+    clauses: [
+      { id: '6.1', measure: { actual: 'gearDeflection' } },
+      { id: '6.2', measure: { actual: 'bearingSlope' } },
+      { id: '4.1', measure: { actual: 'tauMax' } },
+    ],
+  };
+  const checklist = {
+    rows: [
+      row('6.1', 120, 0.13, 'mm'),
+      row('6.2', 20, 1, 'mrad'),
+      row('6.2', 380, 1, 'mrad'),
+      row('4.1', 40, 60, 'MPa'),
+    ],
+  };
 
-  it('when clauses measure a deflection or a slope, then each row becomes a limit at its station, in the curve\'s unit, the clause named once', async () => {
+  it("when clauses measure a deflection or a slope, then each row becomes a limit at its station, in the curve's unit, the clause named once", async () => {
     const { shaftLimits } = await import('../../../shared/plots');
-    expect(shaftLimits(checklist as never, ruleSet as never, result, 'deflection')).toEqual([{ at: 120, value: 0.13, label: '§6.1 0.13 mm' }]);
+    expect(shaftLimits(checklist as never, ruleSet as never, result, 'deflection')).toEqual([
+      { at: 120, value: 0.13, label: '§6.1 0.13 mm' },
+    ]);
     const slope = shaftLimits(checklist as never, ruleSet as never, result, 'slope');
-    expect(slope.map((l) => [l.at, l.value, l.label])).toEqual([[20, 0.001, '§6.2 1 mrad'], [380, 0.001, '1 mrad']]);
+    expect(slope.map((l) => [l.at, l.value, l.label])).toEqual([
+      [20, 0.001, '§6.2 1 mrad'],
+      [380, 0.001, '1 mrad'],
+    ]);
   });
 
   it('when a pulley pulls straight along z, then its arrow has no stub in y from round-off', () => {

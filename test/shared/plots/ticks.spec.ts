@@ -2,7 +2,16 @@ import { niceAxis, niceStep, valueRange } from '../../../shared/plots';
 
 describe('nice axis ticks', () => {
   it.each([
-    [0.7, 0.5], [1, 1], [1.3, 1], [2.2, 2], [3, 2.5], [7, 5], [0.013, 0.01], [420, 500], [2400, 2500], [8, 10],
+    [0.7, 0.5],
+    [1, 1],
+    [1.3, 1],
+    [2.2, 2],
+    [3, 2.5],
+    [7, 5],
+    [0.013, 0.01],
+    [420, 500],
+    [2400, 2500],
+    [8, 10],
   ])('when the raw step is %p, then the nice step is %p', (raw, nice) => {
     expect(niceStep(raw)).toBeCloseTo(nice, 12);
   });

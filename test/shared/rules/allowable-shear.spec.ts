@@ -1,4 +1,15 @@
-import { checklistAsync, checklistSync, only, rowsOf, shaft, STEEL_1018_HR, STEEL_1045_CD, torqueForShear, V3, type Material } from './rules-helpers';
+import {
+  checklistAsync,
+  checklistSync,
+  only,
+  rowsOf,
+  shaft,
+  STEEL_1018_HR,
+  STEEL_1045_CD,
+  torqueForShear,
+  V3,
+  type Material,
+} from './rules-helpers';
 
 // Old ASME Code for Design of Transmission Shafting, sourced via Schaum's Outline of Machine Design:
 // allowable shear = lesser of 0.30·Sy and 0.18·Su, × 0.75 where keyways are present.
@@ -24,14 +35,20 @@ describe.each([
   });
 
   it('when τmax is 1e-6 below the limit, then the row passes and the calc is compliant', async () => {
-    for (const c of [checklistSync(calc(allowable * (1 - 1e-6)), ASME_ONLY), await checklistAsync(calc(allowable * (1 - 1e-6)), ASME_ONLY)]) {
+    for (const c of [
+      checklistSync(calc(allowable * (1 - 1e-6)), ASME_ONLY),
+      await checklistAsync(calc(allowable * (1 - 1e-6)), ASME_ONLY),
+    ]) {
       expect(rowsOf(c, '4.1')[0].status).toBe('pass');
       expect(c.verdict).toBe('compliant');
     }
   });
 
   it('when τmax is 1e-6 above the limit, then the row fails and the calc is not compliant', async () => {
-    for (const c of [checklistSync(calc(allowable * (1 + 1e-6)), ASME_ONLY), await checklistAsync(calc(allowable * (1 + 1e-6)), ASME_ONLY)]) {
+    for (const c of [
+      checklistSync(calc(allowable * (1 + 1e-6)), ASME_ONLY),
+      await checklistAsync(calc(allowable * (1 + 1e-6)), ASME_ONLY),
+    ]) {
       const [row] = rowsOf(c, '4.1');
       expect(row.status).toBe('fail');
       expect(row.message).toMatch(/exceeds the limit of/);

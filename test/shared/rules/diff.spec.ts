@@ -13,8 +13,11 @@ describe('diffRuleSets', () => {
   });
 
   it('when a parameter value changes, then before, after and the clauses that use it are given', () => {
-    expect(param('minYieldSafety')).toMatchObject({ change: 'changed', usedBy: ['5.1', '5.2'],
-      fields: [{ field: 'value', before: 1.5, after: 2 }] });
+    expect(param('minYieldSafety')).toMatchObject({
+      change: 'changed',
+      usedBy: ['5.1', '5.2'],
+      fields: [{ field: 'value', before: 1.5, after: 2 }],
+    });
     expect(param('minKeySafety')).toMatchObject({ change: 'added', before: null, usedBy: ['7.1', '7.2'] });
     expect(param('asmeSyFraction')).toMatchObject({ change: 'unchanged', fields: [] });
   });
@@ -35,10 +38,22 @@ describe('diffRuleSets', () => {
   });
 
   it('when a document is compared with a copy whose keys are in another order, then nothing differs', () => {
-    const reversed = (v: unknown): unknown => (Array.isArray(v) ? v.map(reversed)
-      : v && typeof v === 'object' ? Object.fromEntries(Object.entries(v).reverse().map(([k, x]) => [k, reversed(x)])) : v);
+    const reversed = (v: unknown): unknown =>
+      Array.isArray(v)
+        ? v.map(reversed)
+        : v && typeof v === 'object'
+          ? Object.fromEntries(
+              Object.entries(v)
+                .reverse()
+                .map(([k, x]) => [k, reversed(x)]),
+            )
+          : v;
     const same = diffRuleSets(LIFT, reversed(LIFT) as typeof LIFT);
     expect(same.identity).toEqual([]);
-    expect(same.counts).toEqual({ parameters: { added: 0, removed: 0, changed: 0 }, clauses: { added: 0, removed: 0, changed: 0 }, manualItems: { added: 0, removed: 0, changed: 0 } });
+    expect(same.counts).toEqual({
+      parameters: { added: 0, removed: 0, changed: 0 },
+      clauses: { added: 0, removed: 0, changed: 0 },
+      manualItems: { added: 0, removed: 0, changed: 0 },
+    });
   });
 });

@@ -25,7 +25,10 @@ describe('author-entered keyseat factors', () => {
   });
 
   it('when the factors are computed from Table 7-1 (not entered), then the entered-factor clauses do not apply', () => {
-    const c = checklistSync(shaft(50, 500, undefined, { features: [{ type: 'keyseat', form: 'end-mill', at: 500 }] }), RS);
+    const c = checklistSync(
+      shaft(50, 500, undefined, { features: [{ type: 'keyseat', form: 'end-mill', at: 500 }] }),
+      RS,
+    );
     expect(c.rows.map((r) => r.status)).toEqual(['not-applicable', 'not-applicable', 'not-applicable']);
   });
 

@@ -1,4 +1,12 @@
-import { LIMIT_TOLERANCE, minimumDiameters, nearlyEqual, TOLERANT_OPERATORS, withinLimit, evaluateChecklistSync, applyRuleSetMethods } from '../../../shared/rules';
+import {
+  LIMIT_TOLERANCE,
+  minimumDiameters,
+  nearlyEqual,
+  TOLERANT_OPERATORS,
+  withinLimit,
+  evaluateChecklistSync,
+  applyRuleSetMethods,
+} from '../../../shared/rules';
 import { evaluateValidInput } from '../../../shared/engine';
 import { outcomeOf } from '../../../shared/schemas/outcome';
 import { checklistAsync, checklistSync, only, rowsOf, shaft, STEEL_1045_CD, V3 } from './rules-helpers';
@@ -59,7 +67,10 @@ describe('comparing at a limit (one relative tolerance)', () => {
 
   it('when the ordering operators meet nearly equal numbers, then inclusive ones pass and strict ones fail; other values compare exactly', () => {
     const { greaterThan, greaterThanInclusive, lessThan, lessThanInclusive } = TOLERANT_OPERATORS;
-    expect([greaterThanInclusive(1.9999999999999996, 2), lessThanInclusive(2.0000000000000004, 2)]).toEqual([true, true]);
+    expect([greaterThanInclusive(1.9999999999999996, 2), lessThanInclusive(2.0000000000000004, 2)]).toEqual([
+      true,
+      true,
+    ]);
     expect([greaterThan(2.0000000000000004, 2), lessThan(1.9999999999999996, 2)]).toEqual([false, false]);
     expect([greaterThan(3, 2), lessThan(1, 2), greaterThanInclusive(1, 2)]).toEqual([true, true, false]);
     expect([greaterThan('3', 2), lessThanInclusive(null, 0)]).toEqual([true, true]);

@@ -5,13 +5,22 @@ import { loadCalc, only, shaft, STEEL_1045_CD, V3 } from './rules-helpers';
 /** Whether every mandatory row the segment influences passes at outer diameter od (as the search judges). */
 function passesAt(input: CalcInput, rs: RuleSet, index: number, od: number): boolean {
   const seg = input.segments[index];
-  const v = validateCalcInput({ ...input, segments: input.segments.map((s, i) => (i === index ? { ...s, od, id: (seg.id / seg.od) * od } : s)) });
+  const v = validateCalcInput({
+    ...input,
+    segments: input.segments.map((s, i) => (i === index ? { ...s, od, id: (seg.id / seg.od) * od } : s)),
+  });
   if (!v.ok) return false;
   const eff = applyRuleSetMethods(v.value, rs);
   const result = evaluateValidInput(eff);
   const { start, end } = result.segments[index];
-  return evaluateChecklistSync(eff, result, rs).rows.filter((r) => r.severity === 'mandatory' && (r.location.scope === 'shaft'
-    || (r.location.scope === 'segment' && r.location.index === index) || (r.location.scope === 'feature' && r.location.at! >= start && r.location.at! <= end)))
+  return evaluateChecklistSync(eff, result, rs)
+    .rows.filter(
+      (r) =>
+        r.severity === 'mandatory' &&
+        (r.location.scope === 'shaft' ||
+          (r.location.scope === 'segment' && r.location.index === index) ||
+          (r.location.scope === 'feature' && r.location.at! >= start && r.location.at! <= end)),
+    )
     .every((r) => r.status === 'pass' || r.status === 'not-applicable');
 }
 

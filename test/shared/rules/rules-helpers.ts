@@ -2,12 +2,23 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { evaluateValidInput, validateCalcInput, type CalcInput } from '../../../shared/engine';
 import {
-  applyRuleSetMethods, evaluateChecklist, evaluateChecklistSync, validateRuleSet, type Checklist, type ChecklistRow, type RuleSet,
+  applyRuleSetMethods,
+  evaluateChecklist,
+  evaluateChecklistSync,
+  validateRuleSet,
+  type Checklist,
+  type ChecklistRow,
+  type RuleSet,
 } from '../../../shared/rules';
 
 const ROOT = join(__dirname, '..', '..', '..');
 
-export const RULE_FILES = ['kfd-eng-014-v4.json', 'kfd-eng-014-v3.json', 'kfd-eng-014-v2.json', 'kfd-eng-021-v1.json'] as const;
+export const RULE_FILES = [
+  'kfd-eng-014-v4.json',
+  'kfd-eng-014-v3.json',
+  'kfd-eng-014-v2.json',
+  'kfd-eng-021-v1.json',
+] as const;
 
 export function rawRuleSet(file: string): Record<string, any> {
   return JSON.parse(readFileSync(join(ROOT, 'rules', file), 'utf8'));
@@ -34,16 +45,37 @@ export function loadCalc(name: string): CalcInput {
   return v.value;
 }
 
-export interface Material { name?: string; kind?: 'steel' | 'aluminium'; E: number; G: number; Sy: number; Su: number }
+export interface Material {
+  name?: string;
+  kind?: 'steel' | 'aluminium';
+  E: number;
+  G: number;
+  Sy: number;
+  Su: number;
+}
 
 /** AISI 1045 CD and 1018 HR as docs/references.md C-9 gives them (Sy/Su in MPa; E, G Shigley Table A-5). */
 export const STEEL_1045_CD: Material = { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, Sy: 530, Su: 630 };
 export const STEEL_1018_HR: Material = { name: 'AISI 1018 HR', kind: 'steel', E: 207, G: 79.3, Sy: 220, Su: 400 };
 
 /** One solid or hollow SI segment carrying T (N·m) end to end, with optional features. */
-export function shaft(od: number, T: number, material: Material = STEEL_1045_CD, extra: Partial<CalcInput> = {}, id = 0, length = 1000): CalcInput {
+export function shaft(
+  od: number,
+  T: number,
+  material: Material = STEEL_1045_CD,
+  extra: Partial<CalcInput> = {},
+  id = 0,
+  length = 1000,
+): CalcInput {
   const v = validateCalcInput({
-    units: 'SI', material, segments: [{ length, od, id }], torques: [{ at: 0, T }, { at: length, T: -T }], ...extra,
+    units: 'SI',
+    material,
+    segments: [{ length, od, id }],
+    torques: [
+      { at: 0, T },
+      { at: length, T: -T },
+    ],
+    ...extra,
   });
   if (!v.ok) throw new Error(JSON.stringify(v.issues));
   return v.value;

@@ -26,20 +26,30 @@ function inUS(si: CalcInput): CalcInput {
   const len = (v: number) => v / IN;
   const m = si.material;
   return {
-    ...si, units: 'US',
-    material: { ...m, E: (m.E * 1000) / KSI / 1000, G: (m.G * 1000) / KSI / 1000, Sy: m.Sy / KSI, Su: m.Su / KSI, density: (m.density! * (IN / 1000) ** 3) / LB },
+    ...si,
+    units: 'US',
+    material: {
+      ...m,
+      E: (m.E * 1000) / KSI / 1000,
+      G: (m.G * 1000) / KSI / 1000,
+      Sy: m.Sy / KSI,
+      Su: m.Su / KSI,
+      density: (m.density! * (IN / 1000) ** 3) / LB,
+    },
     segments: si.segments.map((s) => ({ ...s, length: len(s.length), od: len(s.od), id: len(s.id) })),
     torques: si.torques.map((t) => ('power' in t ? { ...t, at: len(t.at), power: t.power / HP } : t)),
     supports: si.supports!.map((s) => ({ ...s, at: len(s.at), C: (s.C! * 1000) / LBF })),
     loads: si.loads!.map((l) => {
       const moved = { ...l, at: len(l.at) } as Record<string, unknown>;
-      for (const k of ['pitchDiameter', 'diameter']) if (typeof moved[k] === 'number') moved[k] = len(moved[k] as number);
+      for (const k of ['pitchDiameter', 'diameter'])
+        if (typeof moved[k] === 'number') moved[k] = len(moved[k] as number);
       return moved as typeof l;
     }),
     masses: si.masses!.map((x) => ({ ...x, at: len(x.at), mass: x.mass / LB })),
     features: si.features!.map((f) => {
       const moved = { ...f } as Record<string, unknown>;
-      for (const k of ['at', 'width', 'height', 'length', 'r', 'depth']) if (typeof moved[k] === 'number') moved[k] = len(moved[k] as number);
+      for (const k of ['at', 'width', 'height', 'length', 'r', 'depth'])
+        if (typeof moved[k] === 'number') moved[k] = len(moved[k] as number);
       if (typeof moved.Sy === 'number') moved.Sy = (moved.Sy as number) / KSI;
       return moved as typeof f;
     }),
@@ -53,11 +63,25 @@ describe('independent model comparison', () => {
     const c = compareModels(modelOf(countershaft()), modelOf(countershaft()), TOL);
     expect(c.agrees).toBe(true);
     expect(c.inputs.differences + c.results.differences).toBe(0);
-    expect(c.rows.map((r) => r.key)).toEqual(expect.arrayContaining([
-      'material.E', 'segments[4].od', 'torques[1].T', 'features[2].depth', 'supports[0].C', 'loads[0].pitchDiameter', 'masses[1].mass',
-      'fatigue.reliability', 'result.maxShear', 'result.twistTotal', 'result.minYieldSafety', 'result.minFatigueSafety.soderberg',
-      'result.supports[0].F', 'result.criticalSpeed', 'result.verdict',
-    ]));
+    expect(c.rows.map((r) => r.key)).toEqual(
+      expect.arrayContaining([
+        'material.E',
+        'segments[4].od',
+        'torques[1].T',
+        'features[2].depth',
+        'supports[0].C',
+        'loads[0].pitchDiameter',
+        'masses[1].mass',
+        'fatigue.reliability',
+        'result.maxShear',
+        'result.twistTotal',
+        'result.minYieldSafety',
+        'result.minFatigueSafety.soderberg',
+        'result.supports[0].F',
+        'result.criticalSpeed',
+        'result.verdict',
+      ]),
+    );
     expect(c.rows.some((r) => r.group === 'clause')).toBe(true);
   });
 
@@ -77,13 +101,17 @@ describe('independent model comparison', () => {
     theirs.segments[1] = { ...theirs.segments[1], od: 47 };
     const c = compareModels(modelOf(mine), modelOf(theirs), TOL);
     const row = c.rows.find((r) => r.key === 'segments[1].od')!;
-    expect(row).toEqual(expect.objectContaining({ section: 'input', group: 'segment', author: 45, checker: 47, agrees: false }));
+    expect(row).toEqual(
+      expect.objectContaining({ section: 'input', group: 'segment', author: 45, checker: 47, agrees: false }),
+    );
     expect(row.relative).toBeCloseTo(2 / 47, 12);
     expect(c.agrees).toBe(false);
-    expect(describeDifference(row)).toBe("Segment 2 outer diameter: author's model 45 mm, independent model 47 mm (differs by 4.26 %)");
+    expect(describeDifference(row)).toBe(
+      "Segment 2 outer diameter: author's model 45 mm, independent model 47 mm (differs by 4.26 %)",
+    );
   });
 
-  it('when a result differs by less than the standard\'s 2 %, then it agrees; more, and it is a difference', () => {
+  it("when a result differs by less than the standard's 2 %, then it agrees; more, and it is a difference", () => {
     const mine = countershaft();
     const near = countershaft();
     near.segments[4] = { ...near.segments[4], od: 35.02 }; // 0.06 %: an input difference, results within 2 %
@@ -101,14 +129,19 @@ describe('independent model comparison', () => {
     theirs.segments[3] = { ...theirs.segments[3], length: 220 };
     const c = compareModels(modelOf(countershaft()), modelOf(theirs), TOL);
     const rows = c.rows.filter((r) => r.key.startsWith('segments[4]'));
-    expect(rows).toEqual([expect.objectContaining({ key: 'segments[4]', author: 'entered', checker: null, agrees: false })]);
+    expect(rows).toEqual([
+      expect.objectContaining({ key: 'segments[4]', author: 'entered', checker: null, agrees: false }),
+    ]);
   });
 
   it('when one model gives a torque as power and speed and the other as the same torque, then they agree', () => {
     const mine = countershaft();
     const theirs = countershaft();
     const T = (9549.296585513721 * 15) / 950;
-    theirs.torques = [{ at: 100, T }, { at: 400, T: -T }];
+    theirs.torques = [
+      { at: 100, T },
+      { at: 400, T: -T },
+    ];
     const c = compareModels(modelOf(mine), modelOf(theirs), TOL);
     expect(c.rows.filter((r) => r.key.startsWith('torques')).every((r) => r.agrees)).toBe(true);
   });
@@ -118,10 +151,14 @@ describe('verification requirement', () => {
   const input = countershaft();
   it('when the standard asks for a model for every calc, then the calc needs one with the tolerances named', () => {
     const need = verificationNeed(LIFT2.verification, 'KFD-ENG-021', input);
-    expect(need).toEqual({ method: 'independent-model', tolerances: TOL, reason: expect.stringContaining('results within 2 %') });
+    expect(need).toEqual({
+      method: 'independent-model',
+      tolerances: TOL,
+      reason: expect.stringContaining('results within 2 %'),
+    });
   });
 
-  it('when the standard asks only above a duty level, then the author\'s largest torque decides, in N·m whatever the units', () => {
+  it("when the standard asks only above a duty level, then the author's largest torque decides, in N·m whatever the units", () => {
     const level = (value: number) => ({ ...LIFT2.verification!, scope: { kind: 'torque-at-least' as const, value } });
     // 15 kW at 950 rpm: 150.8 N·m.
     expect(verificationNeed(level(150), 'X', input).method).toBe('independent-model');
@@ -132,6 +169,8 @@ describe('verification requirement', () => {
   });
 
   it('when the standard says nothing, then review by an independent checker applies', () => {
-    expect(verificationNeed(undefined, 'KFD-ENG-014', input)).toEqual(expect.objectContaining({ method: 'review', tolerances: null }));
+    expect(verificationNeed(undefined, 'KFD-ENG-014', input)).toEqual(
+      expect.objectContaining({ method: 'review', tolerances: null }),
+    );
   });
 });

@@ -22,7 +22,9 @@ const RULES_BY_ROLE: Record<Role, (user: AbilityUser, b: Builder) => void> = {
   approver(user, { can }) {
     can('read', ['Calc', 'Revision', 'RuleSet']);
     can(['approve', 'return', 'sign'], 'Revision', {
-      status: 'checked', authorId: { $ne: user.id }, checkerId: { $ne: user.id },
+      status: 'checked',
+      authorId: { $ne: user.id },
+      checkerId: { $ne: user.id },
     });
   },
   compliance(user, { can }) {

@@ -35,7 +35,12 @@ describe('the workflow table', () => {
     const seen = new Set<RevisionState>(['draft']);
     const queue: RevisionState[] = ['draft'];
     while (queue.length)
-      for (const next of nextStates(queue.shift()!)) if (!seen.has(next)) queue.push(next) && seen.add(next);
+      for (const next of nextStates(queue.shift()!)) {
+        if (!seen.has(next)) {
+          queue.push(next);
+          seen.add(next);
+        }
+      }
     expect([...seen].sort()).toEqual([...REVISION_STATES].sort());
   });
 

@@ -15,7 +15,9 @@ export class AppErrorHandler implements ErrorHandler {
     const message = error instanceof Error ? error.message : String(error);
     const isChunkError = /Loading chunk|dynamically imported module|Failed to fetch dynamically/i.test(message);
     const ref = this.snackBar.open(
-      isChunkError ? 'A newer version of Torquetrail is available.' : 'Something went wrong on this page; it has been logged.',
+      isChunkError
+        ? 'A newer version of Torquetrail is available.'
+        : 'Something went wrong on this page; it has been logged.',
       isChunkError ? 'Reload' : 'Dismiss',
       { duration: isChunkError ? undefined : 8000 },
     );

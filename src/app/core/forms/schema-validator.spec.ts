@@ -8,11 +8,35 @@ const check = (field: Parameters<typeof schemaValidator>[0], label: string, valu
 
 describe('schemaValidator', () => {
   it.each([
-    ['a one-letter project code', createProjectSchema.shape.code, 'Project code', 'K', 'Project code must be at least 2 characters'],
-    ['a 33-character project code', createProjectSchema.shape.code, 'Project code', 'K'.repeat(33), 'Project code is at most 32 characters'],
-    ['a lower-case project code', createProjectSchema.shape.code, 'Project code', 'kfd', 'Project code may use capital letters, digits and dashes'],
-    ['a 65-character username', createUserSchema.shape.username, 'Username', 'a'.repeat(65), 'Username is at most 64 characters'],
-  ])('when the value is %s, then the control carries the server\'s own words', (_case, field, label, value, message) => {
+    [
+      'a one-letter project code',
+      createProjectSchema.shape.code,
+      'Project code',
+      'K',
+      'Project code must be at least 2 characters',
+    ],
+    [
+      'a 33-character project code',
+      createProjectSchema.shape.code,
+      'Project code',
+      'K'.repeat(33),
+      'Project code is at most 32 characters',
+    ],
+    [
+      'a lower-case project code',
+      createProjectSchema.shape.code,
+      'Project code',
+      'kfd',
+      'Project code may use capital letters, digits and dashes',
+    ],
+    [
+      'a 65-character username',
+      createUserSchema.shape.username,
+      'Username',
+      'a'.repeat(65),
+      'Username is at most 64 characters',
+    ],
+  ])("when the value is %s, then the control carries the server's own words", (_case, field, label, value, message) => {
     expect(check(field, label, value)).toEqual({ schema: message });
   });
 

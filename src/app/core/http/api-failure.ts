@@ -40,7 +40,9 @@ export class ApiFailure extends Error implements ApiError {
 
   /** One line per field, named as the form names it, with its reasons; or the message alone. */
   lines(): string[] {
-    const fields = Object.entries(this.fieldErrors).map(([field, reasons]) => `${fieldLabel(field)}: ${reasons.join('; ')}`);
+    const fields = Object.entries(this.fieldErrors).map(
+      ([field, reasons]) => `${fieldLabel(field)}: ${reasons.join('; ')}`,
+    );
     return fields.length ? fields : [this.message];
   }
 }

@@ -27,7 +27,10 @@ export const errorInterceptor: HttpInterceptorFn = (req, next) => {
       // Reading the body may load the schema first; the app is not stable until the failure is delivered.
       const done = pendingTasks.add();
       const failure = ApiFailure.fromResponse(error.status, error.error);
-      return from(failure).pipe(switchMap((f) => throwError(() => f)), finalize(done));
+      return from(failure).pipe(
+        switchMap((f) => throwError(() => f)),
+        finalize(done),
+      );
     }),
   );
 };

@@ -13,7 +13,16 @@ import { NAV_ITEMS } from './nav-items';
 
 @Component({
   selector: 'tt-shell',
-  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, MatButtonModule, MatMenuModule, MatTooltipModule, LogoMark],
+  imports: [
+    RouterOutlet,
+    RouterLink,
+    RouterLinkActive,
+    MatIconModule,
+    MatButtonModule,
+    MatMenuModule,
+    MatTooltipModule,
+    LogoMark,
+  ],
   templateUrl: './shell.html',
   styleUrl: './shell.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -29,9 +38,16 @@ export default class Shell {
   protected readonly organisation = this.session.organisation;
   protected readonly roleLabels = computed(() => (this.user()?.roles ?? []).map((r) => ROLE_LABELS[r]));
   protected readonly initials = computed(() =>
-    (this.user()?.displayName ?? '?').split(/\s+/).map((p) => p[0]).slice(0, 2).join('').toUpperCase());
+    (this.user()?.displayName ?? '?')
+      .split(/\s+/)
+      .map((p) => p[0])
+      .slice(0, 2)
+      .join('')
+      .toUpperCase(),
+  );
   protected readonly navItems = computed(() =>
-    NAV_ITEMS.filter((item) => !item.needs || this.ability.can(item.needs[0], item.needs[1])));
+    NAV_ITEMS.filter((item) => !item.needs || this.ability.can(item.needs[0], item.needs[1])),
+  );
 
   protected async signOut(): Promise<void> {
     await this.session.signOut();

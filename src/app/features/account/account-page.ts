@@ -16,7 +16,15 @@ import { AccountApi } from './account-api';
 
 @Component({
   selector: 'tt-account-page',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MailPreferences, SecondFactorPanel, SessionsPanel],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MailPreferences,
+    SecondFactorPanel,
+    SessionsPanel,
+  ],
   templateUrl: './account-page.html',
   styleUrl: './account-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,9 +1,16 @@
 const BROWSERS: [RegExp, string][] = [
-  [/Edg\/(\d+)/, 'Edge'], [/Firefox\/(\d+)/, 'Firefox'], [/HeadlessChrome\/(\d+)/, 'Headless Chrome'],
-  [/Chrome\/(\d+)/, 'Chrome'], [/Version\/(\d+)[^ ]* Safari/, 'Safari'],
+  [/Edg\/(\d+)/, 'Edge'],
+  [/Firefox\/(\d+)/, 'Firefox'],
+  [/HeadlessChrome\/(\d+)/, 'Headless Chrome'],
+  [/Chrome\/(\d+)/, 'Chrome'],
+  [/Version\/(\d+)[^ ]* Safari/, 'Safari'],
 ];
 const SYSTEMS: [RegExp, string][] = [
-  [/Windows/, 'Windows'], [/Android/, 'Android'], [/iPhone|iPad/, 'iOS'], [/Mac OS X/, 'macOS'], [/Linux/, 'Linux'],
+  [/Windows/, 'Windows'],
+  [/Android/, 'Android'],
+  [/iPhone|iPad/, 'iOS'],
+  [/Mac OS X/, 'macOS'],
+  [/Linux/, 'Linux'],
 ];
 
 /** "Firefox 133 on Windows" from a user-agent string; the raw string when nothing is recognised. */

@@ -13,6 +13,8 @@ export class MailPreferencesApi {
   }
 
   save(event: MailEvent, enabled: boolean): Promise<MailPreferenceDto[]> {
-    return firstValueFrom(this.http.put<MailPreferenceDto[]>('/api/mail/preferences', { preferences: { [event]: enabled } }));
+    return firstValueFrom(
+      this.http.put<MailPreferenceDto[]>('/api/mail/preferences', { preferences: { [event]: enabled } }),
+    );
   }
 }

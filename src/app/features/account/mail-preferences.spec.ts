@@ -42,7 +42,7 @@ describe('e-mail preferences', () => {
     const [mine] = await d.toggles();
     await mine.toggle();
     const req = d.http.expectOne({ method: 'PUT', url: URL });
-    expect(req.request.body).toEqual({ preferences: { 'submitted': false } });
+    expect(req.request.body).toEqual({ preferences: { submitted: false } });
     req.flush(PREFS.map((p) => (p.event === 'submitted' ? { ...p, enabled: false } : p)));
     await d.settle();
 

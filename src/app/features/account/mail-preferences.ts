@@ -11,24 +11,52 @@ import { MailPreferencesApi } from './mail-preferences-api';
   imports: [MatSlideToggleModule, LoadFailure],
   template: `
     <h2 id="mail-title">E-mail</h2>
-    <p class="tt-muted small">Torquetrail mails you at each hand-over that concerns you. Turn off what you do not want; the work itself still reaches your overview.</p>
-    @if (resource.error(); as error) { <tt-load-failure [error]="error" what="e-mail settings" (retry)="resource.reload()" /> }
-    @if (problem(); as p) { <p class="problem" role="alert">{{ p }}</p> }
+    <p class="tt-muted small">
+      Torquetrail mails you at each hand-over that concerns you. Turn off what you do not want; the work itself still
+      reaches your overview.
+    </p>
+    @if (resource.error(); as error) {
+      <tt-load-failure [error]="error" what="e-mail settings" (retry)="resource.reload()" />
+    }
+    @if (problem(); as p) {
+      <p class="problem" role="alert">{{ p }}</p>
+    }
     <ul class="events" aria-labelledby="mail-title">
       @for (p of rows(); track p.event) {
         <li>
-          <mat-slide-toggle [checked]="p.enabled" [disabled]="saving() === p.event" (change)="toggle(p, $event.checked)">{{ p.label }}</mat-slide-toggle>
+          <mat-slide-toggle
+            [checked]="p.enabled"
+            [disabled]="saving() === p.event"
+            (change)="toggle(p, $event.checked)"
+            >{{ p.label }}</mat-slide-toggle
+          >
           <span class="tt-muted small">{{ p.description }}{{ p.appliesToYou ? '' : ' (not one of your roles)' }}</span>
         </li>
       }
     </ul>
   `,
   styles: `
-    h2 { margin: 0 0 6px; font: var(--mat-sys-title-medium); }
-    .small { font-size: 12px; }
-    .events { list-style: none; padding: 0; margin: 8px 0 0; display: grid; gap: 10px; }
-    li { display: grid; gap: 2px; }
-    .problem { color: var(--tt-fail); }
+    h2 {
+      margin: 0 0 6px;
+      font: var(--mat-sys-title-medium);
+    }
+    .small {
+      font-size: 12px;
+    }
+    .events {
+      list-style: none;
+      padding: 0;
+      margin: 8px 0 0;
+      display: grid;
+      gap: 10px;
+    }
+    li {
+      display: grid;
+      gap: 2px;
+    }
+    .problem {
+      color: var(--tt-fail);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -14,28 +14,60 @@ import { AccountApi } from './account-api';
   imports: [FormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, LoadFailure],
   template: `
     <h2 id="tf-title">One-time code for signatures</h2>
-    @if (status.error(); as error) { <tt-load-failure [error]="error" what="one-time code settings" (retry)="status.reload()" /> }
+    @if (status.error(); as error) {
+      <tt-load-failure [error]="error" what="one-time code settings" (retry)="status.reload()" />
+    }
     @if (current(); as s) {
       @if (s.enrolled) {
         <p>Your signatures ask for a code from your authenticator app as well as your password.</p>
         @if (!s.required) {
-          <mat-form-field><mat-label>Password, to switch it off</mat-label><input matInput type="password" [ngModel]="password()" (ngModelChange)="password.set($event)" autocomplete="current-password" /></mat-form-field>
+          <mat-form-field
+            ><mat-label>Password, to switch it off</mat-label
+            ><input
+              matInput
+              type="password"
+              [ngModel]="password()"
+              (ngModelChange)="password.set($event)"
+              autocomplete="current-password"
+          /></mat-form-field>
           <button mat-stroked-button (click)="disable()" [disabled]="!password()">Switch off</button>
-        } @else { <p class="tt-muted small">An administrator requires it for your signatures.</p> }
+        } @else {
+          <p class="tt-muted small">An administrator requires it for your signatures.</p>
+        }
       } @else if (enrolment(); as e) {
         <p>Scan this with an authenticator app, then enter the code it shows.</p>
         <img [src]="e.qrDataUrl" width="180" height="180" alt="QR code holding your one-time-code set-up" />
-        <p class="tt-muted small">Or type this key: <span class="tt-mono">{{ e.secret }}</span></p>
-        <mat-form-field><mat-label>Code from the app</mat-label><input matInput inputmode="numeric" maxlength="6" [ngModel]="code()" (ngModelChange)="code.set($event)" autocomplete="one-time-code" /></mat-form-field>
+        <p class="tt-muted small">
+          Or type this key: <span class="tt-mono">{{ e.secret }}</span>
+        </p>
+        <mat-form-field
+          ><mat-label>Code from the app</mat-label
+          ><input
+            matInput
+            inputmode="numeric"
+            maxlength="6"
+            [ngModel]="code()"
+            (ngModelChange)="code.set($event)"
+            autocomplete="one-time-code"
+        /></mat-form-field>
         <button mat-flat-button (click)="confirm()" [disabled]="code().length !== 6">Confirm</button>
       } @else {
-        <p>{{ s.required ? 'An administrator requires a one-time code for your signatures; set it up before you next sign.' : 'Optional: ask for a code from an authenticator app whenever you sign.' }}</p>
+        <p>
+          {{
+            s.required
+              ? 'An administrator requires a one-time code for your signatures; set it up before you next sign.'
+              : 'Optional: ask for a code from an authenticator app whenever you sign.'
+          }}
+        </p>
         <button mat-flat-button (click)="begin()">Set up</button>
       }
     }
-    @if (problem(); as p) { <p class="problem" role="alert">{{ p }}</p> }
+    @if (problem(); as p) {
+      <p class="problem" role="alert">{{ p }}</p>
+    }
   `,
-  styles: 'h2 { margin: 0 0 12px; font: var(--mat-sys-title-medium); } .small { font-size: 12px; } .problem { color: var(--tt-fail); } :host { display: grid; gap: 8px; justify-items: start; }',
+  styles:
+    'h2 { margin: 0 0 12px; font: var(--mat-sys-title-medium); } .small { font-size: 12px; } .problem { color: var(--tt-fail); } :host { display: grid; gap: 8px; justify-items: start; }',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SecondFactorPanel {

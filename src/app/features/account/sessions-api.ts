@@ -9,7 +9,9 @@ export class SessionsApi {
   private readonly http = inject(HttpClient);
 
   sessions() {
-    return httpResource<ActiveSessionDto[]>(() => '/api/auth/sessions', { parse: (raw) => activeSessionsSchema.parse(raw) });
+    return httpResource<ActiveSessionDto[]>(() => '/api/auth/sessions', {
+      parse: (raw) => activeSessionsSchema.parse(raw),
+    });
   }
 
   end(id: string): Promise<void> {

@@ -9,10 +9,20 @@ import { SessionsPanel } from './sessions-panel';
 import { browserLabel } from './browser-label';
 
 const HERE: ActiveSessionDto = {
-  id: 'a'.repeat(32), startedAt: '2026-12-01T08:00:00Z', lastSeenAt: '2026-12-01T09:30:00Z', ip: '127.0.0.1', userAgent: 'Laptop browser', current: true,
+  id: 'a'.repeat(32),
+  startedAt: '2026-12-01T08:00:00Z',
+  lastSeenAt: '2026-12-01T09:30:00Z',
+  ip: '127.0.0.1',
+  userAgent: 'Laptop browser',
+  current: true,
 };
 const PHONE: ActiveSessionDto = {
-  id: 'b'.repeat(32), startedAt: '2026-11-30T07:00:00Z', lastSeenAt: '2026-11-30T07:05:00Z', ip: '192.0.2.44', userAgent: 'Phone browser', current: false,
+  id: 'b'.repeat(32),
+  startedAt: '2026-11-30T07:00:00Z',
+  lastSeenAt: '2026-11-30T07:05:00Z',
+  ip: '192.0.2.44',
+  userAgent: 'Phone browser',
+  current: false,
 };
 
 let fixture: ComponentFixture<SessionsPanel>;
@@ -33,7 +43,9 @@ async function turn(): Promise<void> {
 }
 
 beforeEach(async () => {
-  TestBed.configureTestingModule({ providers: [provideHttpClient(withInterceptors([errorInterceptor])), provideHttpClientTesting()] });
+  TestBed.configureTestingModule({
+    providers: [provideHttpClient(withInterceptors([errorInterceptor])), provideHttpClientTesting()],
+  });
   fixture = TestBed.createComponent(SessionsPanel);
   http = TestBed.inject(HttpTestingController);
   fixture.detectChanges();
@@ -49,14 +61,24 @@ describe('sessions panel', () => {
     expect(items[0].textContent).toContain('Laptop browser');
     expect(items[0].textContent).toContain('this session');
     expect(items[1].textContent).toContain('From 192.0.2.44');
-    const buttons = await TestbedHarnessEnvironment.loader(fixture).getAllHarnesses(MatButtonHarness.with({ text: 'End session' }));
+    const buttons = await TestbedHarnessEnvironment.loader(fixture).getAllHarnesses(
+      MatButtonHarness.with({ text: 'End session' }),
+    );
     expect(buttons).toHaveLength(1);
-    expect(await (await buttons[0].host()).getAttribute('aria-label')).toBe('End the session of Phone browser from 192.0.2.44');
+    expect(await (await buttons[0].host()).getAttribute('aria-label')).toBe(
+      'End the session of Phone browser from 192.0.2.44',
+    );
   });
 
   it('when a browser sends a full user-agent string, then a short name is shown with the full string on hover', () => {
-    expect(browserLabel('Mozilla/5.0 (Windows NT 10.0; Win64; x64; rv:133.0) Gecko/20100101 Firefox/133.0')).toBe('Firefox 133 on Windows');
-    expect(browserLabel('Mozilla/5.0 (X11; Linux x86_64) AppleWebKit/537.36 (KHTML, like Gecko) Chrome/131.0.0.0 Safari/537.36')).toBe('Chrome 131 on Linux');
+    expect(browserLabel('Mozilla/5.0 (Windows NT 10.0; Win64; x64; rv:133.0) Gecko/20100101 Firefox/133.0')).toBe(
+      'Firefox 133 on Windows',
+    );
+    expect(
+      browserLabel(
+        'Mozilla/5.0 (X11; Linux x86_64) AppleWebKit/537.36 (KHTML, like Gecko) Chrome/131.0.0.0 Safari/537.36',
+      ),
+    ).toBe('Chrome 131 on Linux');
     expect(browserLabel(null)).toBe('Unknown browser');
   });
 
@@ -64,7 +86,9 @@ describe('sessions panel', () => {
     // A native click: a harness click waits for the app to be stable, which the pending request prevents.
     el().querySelector<HTMLButtonElement>('li:not(.current) button')!.click();
     await tick();
-    http.expectOne({ method: 'DELETE', url: `/api/auth/sessions/${PHONE.id}` }).flush(null, { status: 204, statusText: 'No Content' });
+    http
+      .expectOne({ method: 'DELETE', url: `/api/auth/sessions/${PHONE.id}` })
+      .flush(null, { status: 204, statusText: 'No Content' });
     await tick();
     http.expectOne('/api/auth/sessions').flush([HERE]);
     await turn();
@@ -77,7 +101,8 @@ describe('sessions panel', () => {
     // A native click: a harness click waits for the app to be stable, which the pending request prevents.
     el().querySelector<HTMLButtonElement>('li:not(.current) button')!.click();
     await tick();
-    http.expectOne({ method: 'DELETE', url: `/api/auth/sessions/${PHONE.id}` })
+    http
+      .expectOne({ method: 'DELETE', url: `/api/auth/sessions/${PHONE.id}` })
       .flush({ code: 'not_found', message: 'That session was not found' }, { status: 404, statusText: 'Not Found' });
     await tick();
     http.expectOne('/api/auth/sessions').flush([HERE]);

@@ -5,7 +5,15 @@ import type { KeysetPage } from '../../../../shared/schemas/common.schema';
 import type { AuditChainStatus, AuditEventDto } from '../../../../shared/schemas/audit.schema';
 
 export interface AuditListParams {
-  size: number; after?: string; entityType: string; action: string; projectId: number | null; calcId: number | null; userId: number | null; from: string; to: string;
+  size: number;
+  after?: string;
+  entityType: string;
+  action: string;
+  projectId: number | null;
+  calcId: number | null;
+  userId: number | null;
+  from: string;
+  to: string;
 }
 
 @Injectable({ providedIn: 'root' })
@@ -15,7 +23,9 @@ export class AuditApi {
   list(params: Signal<AuditListParams>) {
     return httpResource<KeysetPage<AuditEventDto>>(() => ({
       url: '/api/audit',
-      params: Object.fromEntries(Object.entries(params()).filter(([, v]) => v !== '' && v !== null && v !== undefined)) as Record<string, string | number>,
+      params: Object.fromEntries(
+        Object.entries(params()).filter(([, v]) => v !== '' && v !== null && v !== undefined),
+      ) as Record<string, string | number>,
     }));
   }
 

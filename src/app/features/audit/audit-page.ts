@@ -29,28 +29,65 @@ function filtersFromUrl(q: ParamMap): Omit<AuditListParams, 'size' | 'after'> {
   const id = (key: string) => (/^[1-9]\d{0,14}$/.test(q.get(key) ?? '') ? Number(q.get(key)) : null);
   const text = (key: string, pattern = /^[\w.]{0,64}$/) => (pattern.test(q.get(key) ?? '') ? (q.get(key) ?? '') : '');
   return {
-    entityType: text('entityType'), action: text('action'), projectId: id('projectId'), calcId: id('calcId'), userId: id('userId'),
-    from: text('from', ISO_DAY), to: text('to', ISO_DAY),
+    entityType: text('entityType'),
+    action: text('action'),
+    projectId: id('projectId'),
+    calcId: id('calcId'),
+    userId: id('userId'),
+    from: text('from', ISO_DAY),
+    to: text('to', ISO_DAY),
   };
 }
 
 @Component({
   selector: 'tt-audit-page',
-  imports: [DatePipe, JsonPipe, SlicePipe, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatSelectModule, MatFormFieldModule, MatProgressBarModule, AuditActionLabelPipe, EmptyState, DiffView, MatInputModule, RouterLink, ReactiveFormsModule, LoadFailure],
+  imports: [
+    DatePipe,
+    JsonPipe,
+    SlicePipe,
+    MatTableModule,
+    MatPaginatorModule,
+    MatButtonModule,
+    MatIconModule,
+    MatSelectModule,
+    MatFormFieldModule,
+    MatProgressBarModule,
+    AuditActionLabelPipe,
+    EmptyState,
+    DiffView,
+    MatInputModule,
+    RouterLink,
+    ReactiveFormsModule,
+    LoadFailure,
+  ],
   templateUrl: './audit-page.html',
   styleUrl: './audit-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export default class AuditPage {
   private readonly api = inject(AuditApi);
-  // Filters may arrive in the address (links from review-health signals and elsewhere), e.g. /audit?calcId=7&action=revision.signed.
-  protected readonly params = signal<Omit<AuditListParams, 'size' | 'after'>>(filtersFromUrl(inject(ActivatedRoute).snapshot.queryParamMap));
+  // Filters may arrive in the address (links from review-health signals and elsewhere), e.g.
+  // /audit?calcId=7&action=revision.signed.
+  protected readonly params = signal<Omit<AuditListParams, 'size' | 'after'>>(
+    filtersFromUrl(inject(ActivatedRoute).snapshot.queryParamMap),
+  );
   protected readonly pager = new KeysetPager(25);
   protected readonly projects = inject(ProjectsApi).list(signal({ page: 0, size: 200, q: '' }));
-  protected readonly events = this.api.list(computed(() => ({ ...this.params(), size: this.pager.size(), after: this.pager.after() })));
+  protected readonly events = this.api.list(
+    computed(() => ({ ...this.params(), size: this.pager.size(), after: this.pager.after() })),
+  );
   protected readonly rows = computed(() => (this.events.hasValue() ? this.events.value().items : []));
   protected readonly people = this.api.people();
-  protected readonly calcs = inject(CalcsApi).list(computed(() => ({ size: 200, sort: 'number' as const, dir: 'asc' as const, projectId: this.params().projectId ?? undefined, status: undefined, q: '' })));
+  protected readonly calcs = inject(CalcsApi).list(
+    computed(() => ({
+      size: 200,
+      sort: 'number' as const,
+      dir: 'asc' as const,
+      projectId: this.params().projectId ?? undefined,
+      status: undefined,
+      q: '',
+    })),
+  );
   /** Dates typed the ISO way whatever the browser's locale (a date input shows mm/dd/yyyy in US English). */
   protected readonly from = new FormControl('', { nonNullable: true, validators: Validators.pattern(ISO_DAY) });
   protected readonly to = new FormControl('', { nonNullable: true, validators: Validators.pattern(ISO_DAY) });
@@ -60,10 +97,12 @@ export default class AuditPage {
   protected readonly filterError = computed(() => this.projects.error() ?? this.calcs.error() ?? this.people.error());
   protected readonly expanded = signal<number | null>(null);
   // Lists leave diffs out; the open entry's diff is read on its own.
-  protected readonly openEntry = this.api.entry(computed(() => {
-    const id = this.expanded();
-    return id !== null && this.rows().find((e) => e.id === id)?.hasDiff ? id : null;
-  }));
+  protected readonly openEntry = this.api.entry(
+    computed(() => {
+      const id = this.expanded();
+      return id !== null && this.rows().find((e) => e.id === id)?.hasDiff ? id : null;
+    }),
+  );
   protected readonly openDiff = computed(() => (this.openEntry.hasValue() ? this.openEntry.value().diff : null));
   protected readonly chain = signal<AuditChainStatus | null>(null);
   protected readonly chainError = signal<string | null>(null);
@@ -71,12 +110,21 @@ export default class AuditPage {
   protected readonly columns = ['id', 'occurredAt', 'actorName', 'action', 'entity', 'hash'];
   protected readonly entityTypes = ['', 'User', 'Project', 'Calc', 'Revision', 'RuleSet'];
   protected readonly actions = [
-    { value: '', label: 'Any action' }, { value: 'auth.', label: 'Sign-in and passwords' }, { value: 'user.', label: 'Accounts and roles' },
-    { value: 'calc.', label: 'Calcs created' }, { value: 'revision.saved', label: 'Content saved' }, { value: 'revision.signed', label: 'Signatures' },
-    { value: 'revision.', label: 'Any revision event' }, { value: 'finding.', label: 'Findings' }, { value: 'rule_set.', label: 'Standards' },
-    { value: 'attachment.', label: 'Attachments' }, { value: 'revision.signed_checked', label: 'Check signatures' },
-    { value: 'revision.signed_approved', label: 'Approval signatures' }, { value: 'revision.signed_authored', label: 'Submissions' },
-    { value: 'revision.signature_refused', label: 'Refused signatures' }, { value: 'review_health.', label: 'Review-health settings' },
+    { value: '', label: 'Any action' },
+    { value: 'auth.', label: 'Sign-in and passwords' },
+    { value: 'user.', label: 'Accounts and roles' },
+    { value: 'calc.', label: 'Calcs created' },
+    { value: 'revision.saved', label: 'Content saved' },
+    { value: 'revision.signed', label: 'Signatures' },
+    { value: 'revision.', label: 'Any revision event' },
+    { value: 'finding.', label: 'Findings' },
+    { value: 'rule_set.', label: 'Standards' },
+    { value: 'attachment.', label: 'Attachments' },
+    { value: 'revision.signed_checked', label: 'Check signatures' },
+    { value: 'revision.signed_approved', label: 'Approval signatures' },
+    { value: 'revision.signed_authored', label: 'Submissions' },
+    { value: 'revision.signature_refused', label: 'Refused signatures' },
+    { value: 'review_health.', label: 'Review-health settings' },
   ];
 
   constructor() {
@@ -85,10 +133,14 @@ export default class AuditPage {
     effect(() => {
       if (this.events.hasValue()) this.pager.remember(this.events.value());
     });
-    for (const [control, key] of [[this.from, 'from'], [this.to, 'to']] as const) {
+    for (const [control, key] of [
+      [this.from, 'from'],
+      [this.to, 'to'],
+    ] as const) {
       control.valueChanges.pipe(takeUntilDestroyed()).subscribe((v) => {
         const day = v.trim();
-        if (day === '' || (ISO_DAY.test(day) && !Number.isNaN(Date.parse(`${day}T00:00:00Z`)))) this.filter({ [key]: day });
+        if (day === '' || (ISO_DAY.test(day) && !Number.isNaN(Date.parse(`${day}T00:00:00Z`))))
+          this.filter({ [key]: day });
       });
     }
   }
@@ -106,7 +158,9 @@ export default class AuditPage {
 
   protected linkQuery(link: string): Record<string, string> {
     const query: Record<string, string> = {};
-    new URLSearchParams(link.split('?')[1] ?? '').forEach((value, key) => { query[key] = value; });
+    new URLSearchParams(link.split('?')[1] ?? '').forEach((value, key) => {
+      query[key] = value;
+    });
     return query;
   }
 

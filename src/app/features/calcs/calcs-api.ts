@@ -11,7 +11,15 @@ import type { RuleSetDto, RuleSetSummary } from '../../../../shared/schemas/rule
 /** Rows per page of a queue on the overview; the first page of every queue comes with the overview. */
 export const QUEUE_PAGE = 5;
 
-export interface CalcListParams { projectId?: number; status?: string; q: string; size: number; after?: string; sort: string; dir: 'asc' | 'desc' }
+export interface CalcListParams {
+  projectId?: number;
+  status?: string;
+  q: string;
+  size: number;
+  after?: string;
+  sort: string;
+  dir: 'asc' | 'desc';
+}
 
 /** Server state of calcs and revisions; pages read its resources and call its commands. */
 @Injectable({ providedIn: 'root' })
@@ -87,12 +95,21 @@ export class CalcsApi {
   }
 
   newRevision(calcId: number, reasonForChange: string, carryAttachments: boolean): Promise<RevisionDto> {
-    return firstValueFrom(this.http.post<RevisionDto>(`/api/calcs/${calcId}/revisions`, { reasonForChange, carryAttachments }));
+    return firstValueFrom(
+      this.http.post<RevisionDto>(`/api/calcs/${calcId}/revisions`, { reasonForChange, carryAttachments }),
+    );
   }
 
   /** A finding on the calc, or anchored to a checklist row (clause and location) or a named input. */
-  raiseFinding(revisionId: number, text: string, anchor: FindingAnchor = { clauseRef: null, anchorPath: null }): Promise<RevisionDto> {
-    const where = { ...(anchor.clauseRef ? { clauseRef: anchor.clauseRef } : {}), ...(anchor.anchorPath ? { anchorPath: anchor.anchorPath } : {}) };
+  raiseFinding(
+    revisionId: number,
+    text: string,
+    anchor: FindingAnchor = { clauseRef: null, anchorPath: null },
+  ): Promise<RevisionDto> {
+    const where = {
+      ...(anchor.clauseRef ? { clauseRef: anchor.clauseRef } : {}),
+      ...(anchor.anchorPath ? { anchorPath: anchor.anchorPath } : {}),
+    };
     return firstValueFrom(this.http.post<RevisionDto>(`/api/revisions/${revisionId}/findings`, { text, ...where }));
   }
 
@@ -105,10 +122,16 @@ export class CalcsApi {
   }
 
   setManualItem(revisionId: number, itemId: string, done: boolean, note = ''): Promise<RevisionDto> {
-    return firstValueFrom(this.http.put<RevisionDto>(`/api/revisions/${revisionId}/manual-items/${itemId}`, { done, note }));
+    return firstValueFrom(
+      this.http.put<RevisionDto>(`/api/revisions/${revisionId}/manual-items/${itemId}`, { done, note }),
+    );
   }
 
   diff(calcId: number, from: number, to: number) {
-    return firstValueFrom(this.http.get<{ input: string | null; checklist: string | null }>(`/api/calcs/${calcId}/diff`, { params: { from, to } }));
+    return firstValueFrom(
+      this.http.get<{ input: string | null; checklist: string | null }>(`/api/calcs/${calcId}/diff`, {
+        params: { from, to },
+      }),
+    );
   }
 }

@@ -16,7 +16,17 @@ import { CalcsApi } from '../calcs/calcs-api';
 
 @Component({
   selector: 'tt-dashboard',
-  imports: [DatePipe, RouterLink, MatIconModule, MatProgressBarModule, EmptyState, SafetyNote, AuditActionLabelPipe, QueueTable, LoadFailure],
+  imports: [
+    DatePipe,
+    RouterLink,
+    MatIconModule,
+    MatProgressBarModule,
+    EmptyState,
+    SafetyNote,
+    AuditActionLabelPipe,
+    QueueTable,
+    LoadFailure,
+  ],
   templateUrl: './dashboard.html',
   styleUrl: './dashboard.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -32,5 +42,11 @@ export default class Dashboard {
   protected readonly user = this.session.user;
   protected readonly firstName = computed(() => this.user()?.displayName.split(' ')[0] ?? '');
   protected readonly duties = computed(() =>
-    (this.user()?.roles ?? []).map((role) => ({ role, label: ROLE_LABELS[role], duty: ROLE_DUTIES[role], hint: WAITING_HINTS[role] })));
+    (this.user()?.roles ?? []).map((role) => ({
+      role,
+      label: ROLE_LABELS[role],
+      duty: ROLE_DUTIES[role],
+      hint: WAITING_HINTS[role],
+    })),
+  );
 }

@@ -18,11 +18,17 @@ import { CalcsApi, QUEUE_PAGE } from '../calcs/calcs-api';
     <table mat-table [dataSource]="rows()" [attr.aria-label]="queue().label">
       <ng-container matColumnDef="number">
         <th mat-header-cell *matHeaderCellDef>Calc</th>
-        <td mat-cell *matCellDef="let i"><a [routerLink]="['/calcs', i.calcId]" [queryParams]="{ rev: i.revisionId }" class="tt-mono">{{ i.projectCode }} {{ i.number }}</a></td>
+        <td mat-cell *matCellDef="let i">
+          <a [routerLink]="['/calcs', i.calcId]" [queryParams]="{ rev: i.revisionId }" class="tt-mono"
+            >{{ i.projectCode }} {{ i.number }}</a
+          >
+        </td>
       </ng-container>
       <ng-container matColumnDef="title">
         <th mat-header-cell *matHeaderCellDef>Title</th>
-        <td mat-cell *matCellDef="let i">{{ i.title }} <span class="tt-muted">rev {{ i.revision }}</span></td>
+        <td mat-cell *matCellDef="let i">
+          {{ i.title }} <span class="tt-muted">rev {{ i.revision }}</span>
+        </td>
       </ng-container>
       <ng-container matColumnDef="status">
         <th mat-header-cell *matHeaderCellDef>State</th>
@@ -38,15 +44,25 @@ import { CalcsApi, QUEUE_PAGE } from '../calcs/calcs-api';
       </ng-container>
       <ng-container matColumnDef="since">
         <th mat-header-cell *matHeaderCellDef>Waiting since</th>
-        <td mat-cell *matCellDef="let i">{{ i.since | date: 'd MMM, HH:mm' }} <span class="tt-muted">({{ ageOf(i) }})</span></td>
+        <td mat-cell *matCellDef="let i">
+          {{ i.since | date: 'd MMM, HH:mm' }} <span class="tt-muted">({{ ageOf(i) }})</span>
+        </td>
       </ng-container>
       <tr mat-header-row *matHeaderRowDef="columns"></tr>
       <tr mat-row *matRowDef="let row; columns: columns"></tr>
     </table>
-    @if (laterError(); as error) { <tt-load-failure [error]="error" what="page of this queue" (retry)="reloadPage()" /> }
+    @if (laterError(); as error) {
+      <tt-load-failure [error]="error" what="page of this queue" (retry)="reloadPage()" />
+    }
     @if (pager.length() > firstPage) {
-      <mat-paginator [length]="pager.length()" [pageIndex]="pager.pageIndex()" [pageSize]="pager.size()" [pageSizeOptions]="[5, 10, 25]"
-                     (page)="turn($event)" [attr.aria-label]="queue().label + ' pages'" />
+      <mat-paginator
+        [length]="pager.length()"
+        [pageIndex]="pager.pageIndex()"
+        [pageSize]="pager.size()"
+        [pageSizeOptions]="[5, 10, 25]"
+        (page)="turn($event)"
+        [attr.aria-label]="queue().label + ' pages'"
+      />
     }
   `,
   styles: 'table { width: 100%; background: transparent; } a { font-weight: 700; }',
@@ -60,9 +76,12 @@ export class QueueTable {
   // Later pages (or another page size) are read on their own; the overview's copy is page one.
   private readonly isFirstPage = computed(() => this.pager.pageIndex() === 0 && this.pager.size() === QUEUE_PAGE);
   private readonly later = inject(CalcsApi).queuePage(
-    computed(() => this.queue().key), computed(() => (this.isFirstPage() ? undefined : { size: this.pager.size(), after: this.pager.after() })),
+    computed(() => this.queue().key),
+    computed(() => (this.isFirstPage() ? undefined : { size: this.pager.size(), after: this.pager.after() })),
   );
-  private readonly page = computed(() => (this.isFirstPage() ? this.queue() : this.later.hasValue() ? this.later.value() : null));
+  private readonly page = computed(() =>
+    this.isFirstPage() ? this.queue() : this.later.hasValue() ? this.later.value() : null,
+  );
   protected readonly rows = computed(() => this.page()?.items ?? []);
   protected readonly laterError = computed(() => (this.isFirstPage() ? undefined : this.later.error()));
   private readonly now = computed(() => (this.queue(), Date.now()));

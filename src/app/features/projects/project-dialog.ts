@@ -17,7 +17,8 @@ const FIELDS = createProjectSchema.shape;
   selector: 'tt-project-dialog',
   imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule],
   templateUrl: './project-dialog.html',
-  styles: '.form { display: grid; gap: 12px; min-width: min(520px, 80vw); padding-top: 8px; } .problem { color: var(--tt-fail); margin: 0; }',
+  styles:
+    '.form { display: grid; gap: 12px; min-width: min(520px, 80vw); padding-top: 8px; } .problem { color: var(--tt-fail); margin: 0; }',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ProjectDialog {

@@ -4,7 +4,11 @@ import { firstValueFrom } from 'rxjs';
 import type { Page } from '../../../../shared/schemas/common.schema';
 import type { CreateProjectRequest, ProjectDto, UpdateProjectRequest } from '../../../../shared/schemas/project.schema';
 
-export interface ProjectListParams { page: number; size: number; q: string }
+export interface ProjectListParams {
+  page: number;
+  size: number;
+  q: string;
+}
 
 @Injectable({ providedIn: 'root' })
 export class ProjectsApi {

@@ -19,7 +19,19 @@ import { ProjectDialog } from './project-dialog';
 
 @Component({
   selector: 'tt-projects-page',
-  imports: [DatePipe, RouterLink, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, EmptyState, LoadFailure],
+  imports: [
+    DatePipe,
+    RouterLink,
+    MatTableModule,
+    MatPaginatorModule,
+    MatButtonModule,
+    MatIconModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatProgressBarModule,
+    EmptyState,
+    LoadFailure,
+  ],
   templateUrl: './projects-page.html',
   styleUrl: './projects-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -35,7 +47,13 @@ export default class ProjectsPage {
   protected readonly canCreate = computed(() => this.ability.can('create', 'Project'));
   protected readonly canEdit = computed(() => this.ability.can('update', 'Project'));
   protected readonly columns = computed(() => [
-    'code', 'name', 'client', 'revisionScheme', 'status', 'createdAt', ...(this.canEdit() ? ['actions'] : []),
+    'code',
+    'name',
+    'client',
+    'revisionScheme',
+    'status',
+    'createdAt',
+    ...(this.canEdit() ? ['actions'] : []),
   ]);
 
   protected search(q: string): void {
@@ -47,8 +65,11 @@ export default class ProjectsPage {
   }
 
   protected openEditor(project: ProjectDto | null): void {
-    this.dialog.open(ProjectDialog, { data: project, autoFocus: 'first-tabbable' }).afterClosed().subscribe((saved) => {
-      if (saved) this.projects.reload();
-    });
+    this.dialog
+      .open(ProjectDialog, { data: project, autoFocus: 'first-tabbable' })
+      .afterClosed()
+      .subscribe((saved) => {
+        if (saved) this.projects.reload();
+      });
   }
 }

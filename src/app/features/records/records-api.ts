@@ -5,7 +5,11 @@ import type { Page } from '../../../../shared/schemas/common.schema';
 import type { SentMailDto } from '../../../../shared/schemas/mail.schema';
 import type { PackVerification, VerifyResult } from '../../../../shared/schemas/verify.schema';
 
-export interface SentMailParams { page: number; size: number; status: '' | SentMailDto['status'] }
+export interface SentMailParams {
+  page: number;
+  size: number;
+  status: '' | SentMailDto['status'];
+}
 
 /** Server state of the record pages: hash look-ups, pack checks and the sent-mail outbox. */
 @Injectable({ providedIn: 'root' })

@@ -15,7 +15,17 @@ import { RecordsApi, type SentMailParams } from './records-api';
 /** Admins read the mail outbox: what was sent, to whom, and what is still retrying or gave up. */
 @Component({
   selector: 'tt-sent-mail-page',
-  imports: [DatePipe, MatTableModule, MatPaginatorModule, MatFormFieldModule, MatSelectModule, MatIconModule, MatProgressBarModule, EmptyState, LoadFailure],
+  imports: [
+    DatePipe,
+    MatTableModule,
+    MatPaginatorModule,
+    MatFormFieldModule,
+    MatSelectModule,
+    MatIconModule,
+    MatProgressBarModule,
+    EmptyState,
+    LoadFailure,
+  ],
   templateUrl: './sent-mail-page.html',
   styleUrl: './sent-mail-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -29,7 +39,12 @@ export default class SentMailPage {
   protected readonly opened = signal<SentMailDto | null>(null);
   protected readonly openError = signal<string | null>(null);
   protected readonly columns = ['id', 'createdAt', 'event', 'recipient', 'subject', 'status'];
-  protected readonly statuses = [{ value: '', label: 'Any status' }, { value: 'sent', label: 'Sent' }, { value: 'pending', label: 'Waiting or retrying' }, { value: 'failed', label: 'Gave up' }] as const;
+  protected readonly statuses = [
+    { value: '', label: 'Any status' },
+    { value: 'sent', label: 'Sent' },
+    { value: 'pending', label: 'Waiting or retrying' },
+    { value: 'failed', label: 'Gave up' },
+  ] as const;
 
   protected filterStatus(status: SentMailParams['status']): void {
     this.params.update((p) => ({ ...p, status, page: 0 }));

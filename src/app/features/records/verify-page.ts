@@ -19,7 +19,17 @@ const HASH = /^[0-9a-fA-F\s]{64,80}$/;
 /** Anyone signed in checks a printed record hash (or a scanned QR code), or a whole evidence pack. */
 @Component({
   selector: 'tt-verify-page',
-  imports: [DatePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatIconModule, MatProgressBarModule, LoadFailure, SafetyNote],
+  imports: [
+    DatePipe,
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatIconModule,
+    MatProgressBarModule,
+    LoadFailure,
+    SafetyNote,
+  ],
   templateUrl: './verify-page.html',
   styleUrl: './verify-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -29,7 +39,9 @@ export default class VerifyPage {
   private readonly router = inject(Router);
 
   readonly hash = input<string | undefined>(undefined);
-  protected readonly form = inject(NonNullableFormBuilder).group({ hash: ['', [Validators.required, Validators.pattern(HASH)]] });
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    hash: ['', [Validators.required, Validators.pattern(HASH)]],
+  });
   protected readonly result = this.api.verify(this.hash);
   protected readonly pack = signal<PackVerification | null>(null);
   protected readonly packError = signal<string | null>(null);

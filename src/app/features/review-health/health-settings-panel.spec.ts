@@ -7,15 +7,23 @@ import { HealthSettingsPanel } from './health-settings-panel';
 jest.setTimeout(30_000);
 
 const STORED: HealthSettingsDto = {
-  quickCheckSecondsPerItem: 20, silentCheckerChecks: 10, pairingSharePercent: 75, pairingMinChecks: 5, refusalRepeatCount: 3,
-  replacedWithinDays: 30, lockVersion: 4, updatedAt: '2026-12-01T08:00:00Z', updatedBy: 'Priya Raman',
+  quickCheckSecondsPerItem: 20,
+  silentCheckerChecks: 10,
+  pairingSharePercent: 75,
+  pairingMinChecks: 5,
+  refusalRepeatCount: 3,
+  replacedWithinDays: 30,
+  lockVersion: 4,
+  updatedAt: '2026-12-01T08:00:00Z',
+  updatedBy: 'Priya Raman',
 };
 
 let fixture: ComponentFixture<HealthSettingsPanel>;
 let http: HttpTestingController;
 const el = () => fixture.nativeElement as HTMLElement;
 // Inputs in the form's order, which is the order of the shared field list.
-const input = (name: keyof typeof HEALTH_SETTING_FIELDS) => el().querySelectorAll('input')[Object.keys(HEALTH_SETTING_FIELDS).indexOf(name)] as HTMLInputElement;
+const input = (name: keyof typeof HEALTH_SETTING_FIELDS) =>
+  el().querySelectorAll('input')[Object.keys(HEALTH_SETTING_FIELDS).indexOf(name)] as HTMLInputElement;
 const submit = () => (el().querySelector('button[type="submit"]') as HTMLButtonElement).click();
 
 async function turn(): Promise<void> {
@@ -45,7 +53,9 @@ describe('review-health thresholds form', () => {
     input('pairingSharePercent').dispatchEvent(new Event('input'));
     submit();
     await turn();
-    expect(el().querySelector('mat-error')?.textContent).toContain('Share of one author’s checks done by one checker (%): enter a whole number from 50 to 100');
+    expect(el().querySelector('mat-error')?.textContent).toContain(
+      'Share of one author’s checks done by one checker (%): enter a whole number from 50 to 100',
+    );
     http.expectNone('/api/review-health/settings');
   });
 
@@ -55,7 +65,16 @@ describe('review-health thresholds form', () => {
     submit();
     const req = http.expectOne({ method: 'PUT', url: '/api/review-health/settings' });
     expect(req.request.body).toMatchObject({ replacedWithinDays: 40, lockVersion: 4 });
-    req.flush({ code: 'validation', message: 'Invalid input', fieldErrors: { replacedWithinDays: ['Days before a standard version was replaced: must be a whole number from 1 to 3,650'] } }, { status: 400, statusText: 'Bad Request' });
+    req.flush(
+      {
+        code: 'validation',
+        message: 'Invalid input',
+        fieldErrors: {
+          replacedWithinDays: ['Days before a standard version was replaced: must be a whole number from 1 to 3,650'],
+        },
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
     await turn();
     input('replacedWithinDays').dispatchEvent(new Event('blur'));
     await turn();

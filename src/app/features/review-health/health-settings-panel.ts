@@ -1,10 +1,14 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, effect, inject, output, signal } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { HEALTH_SETTING_FIELDS, type HealthSettingKey, type HealthSettings } from '../../../../shared/schemas/review-health.schema';
+import {
+  HEALTH_SETTING_FIELDS,
+  type HealthSettingKey,
+  type HealthSettings,
+} from '../../../../shared/schemas/review-health.schema';
 import { assertApiFailure } from '../../core/http/api-failure';
 import { LoadFailure } from '../../ui/load-failure';
 import { ReviewHealthApi } from './review-health-api';
@@ -25,9 +29,19 @@ export class HealthSettingsPanel {
   readonly saved = output<void>();
   protected readonly settings = this.api.settings();
   protected readonly fields = KEYS.map((key) => ({ key, ...HEALTH_SETTING_FIELDS[key] }));
-  protected readonly form = new FormGroup<SettingsForm>(Object.fromEntries(KEYS.map((k) => [k, new FormControl<number | null>(null, [
-    Validators.required, Validators.min(HEALTH_SETTING_FIELDS[k].min), Validators.max(HEALTH_SETTING_FIELDS[k].max), Validators.pattern(/^\d+$/),
-  ])])) as SettingsForm);
+  protected readonly form = new FormGroup<SettingsForm>(
+    Object.fromEntries(
+      KEYS.map((k) => [
+        k,
+        new FormControl<number | null>(null, [
+          Validators.required,
+          Validators.min(HEALTH_SETTING_FIELDS[k].min),
+          Validators.max(HEALTH_SETTING_FIELDS[k].max),
+          Validators.pattern(/^\d+$/),
+        ]),
+      ]),
+    ) as SettingsForm,
+  );
   protected readonly isSaving = signal(false);
   protected readonly problem = signal<string | null>(null);
   protected readonly notice = signal<string | null>(null);

@@ -1,9 +1,17 @@
 import { Injectable, inject, type Signal } from '@angular/core';
 import { HttpClient, httpResource } from '@angular/common/http';
 import { firstValueFrom } from 'rxjs';
-import type { HealthReport, HealthSettingsDto, UpdateHealthSettings } from '../../../../shared/schemas/review-health.schema';
+import type {
+  HealthReport,
+  HealthSettingsDto,
+  UpdateHealthSettings,
+} from '../../../../shared/schemas/review-health.schema';
 
-export interface HealthParams { projectId: number | null; from: string; to: string }
+export interface HealthParams {
+  projectId: number | null;
+  from: string;
+  to: string;
+}
 
 /** The query string of the report and its CSV: the project only when one is chosen. */
 export function healthQuery(p: HealthParams): Record<string, string> {

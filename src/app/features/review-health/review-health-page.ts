@@ -1,6 +1,13 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { FormControl, FormGroup, ReactiveFormsModule, Validators, type AbstractControl, type ValidationErrors } from '@angular/forms';
+import {
+  FormControl,
+  FormGroup,
+  ReactiveFormsModule,
+  Validators,
+  type AbstractControl,
+  type ValidationErrors,
+} from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -20,21 +27,37 @@ import { HealthSettingsPanel } from './health-settings-panel';
 
 const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/;
 const day = (offsetDays: number) => new Date(Date.now() - offsetDays * 86_400_000).toISOString().slice(0, 10);
-const isDay = (v: string) => ISO_DAY.test(v) && !Number.isNaN(Date.parse(`${v}T00:00:00Z`)) && new Date(`${v}T00:00:00Z`).toISOString().startsWith(v);
+const isDay = (v: string) =>
+  ISO_DAY.test(v) &&
+  !Number.isNaN(Date.parse(`${v}T00:00:00Z`)) &&
+  new Date(`${v}T00:00:00Z`).toISOString().startsWith(v);
 
 /** The period must be two real days in order and no longer than the server accepts. */
 function periodProblem(group: AbstractControl): ValidationErrors | null {
   const { from, to } = group.value as { from: string; to: string };
   if (!isDay(from) || !isDay(to)) return null;
   if (from > to) return { order: 'From must not be after To' };
-  if (Date.parse(to) - Date.parse(from) > MAX_PERIOD_DAYS * 86_400_000) return { span: `The period may span at most ${MAX_PERIOD_DAYS} days` };
+  if (Date.parse(to) - Date.parse(from) > MAX_PERIOD_DAYS * 86_400_000)
+    return { span: `The period may span at most ${MAX_PERIOD_DAYS} days` };
   return null;
 }
 
 /** Review-health signals of a project and period, for compliance: facts with the trail behind them. */
 @Component({
   selector: 'tt-review-health-page',
-  imports: [LoadFailure, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, SignalSection, FindingRates, HealthSettingsPanel],
+  imports: [
+    LoadFailure,
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    SignalSection,
+    FindingRates,
+    HealthSettingsPanel,
+  ],
   templateUrl: './review-health-page.html',
   styleUrl: './review-health-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -44,11 +67,20 @@ export default class ReviewHealthPage {
   private readonly ability = inject<AbilityServiceSignal<AppAbility>>(AbilityServiceSignal);
   protected readonly projects = inject(ProjectsApi).list(signal({ page: 0, size: 200, q: '' }));
   protected readonly projectList = computed(() => (this.projects.hasValue() ? this.projects.value().items : []));
-  protected readonly filters = new FormGroup({
-    projectId: new FormControl<number | null>(null),
-    from: new FormControl(day(90), { nonNullable: true, validators: [Validators.required, (c) => (isDay(c.value) ? null : { day: true })] }),
-    to: new FormControl(day(0), { nonNullable: true, validators: [Validators.required, (c) => (isDay(c.value) ? null : { day: true })] }),
-  }, { validators: periodProblem });
+  protected readonly filters = new FormGroup(
+    {
+      projectId: new FormControl<number | null>(null),
+      from: new FormControl(day(90), {
+        nonNullable: true,
+        validators: [Validators.required, (c) => (isDay(c.value) ? null : { day: true })],
+      }),
+      to: new FormControl(day(0), {
+        nonNullable: true,
+        validators: [Validators.required, (c) => (isDay(c.value) ? null : { day: true })],
+      }),
+    },
+    { validators: periodProblem },
+  );
   private readonly filterValue = toSignal(this.filters.valueChanges, { initialValue: this.filters.getRawValue() });
   /** Only a complete, valid period is asked for; the form shows what is wrong meanwhile. */
   protected readonly params = computed<HealthParams | null>(() => {
@@ -63,7 +95,9 @@ export default class ReviewHealthPage {
   });
   protected readonly csvLink = computed(() => (this.params() ? this.api.csvLink(this.params()!) : null));
   protected readonly canEditSettings = computed(() => this.ability.can('update', 'HealthSettings'));
-  protected readonly observations = computed(() => (this.report.hasValue() ? this.report.value().signals.reduce((n, s) => n + s.rows.length, 0) : 0));
+  protected readonly observations = computed(() =>
+    this.report.hasValue() ? this.report.value().signals.reduce((n, s) => n + s.rows.length, 0) : 0,
+  );
   protected readonly caution = HEALTH_CAUTION;
 
   protected reloadReport(): void {

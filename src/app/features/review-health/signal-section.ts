@@ -16,7 +16,9 @@ import { SIGNAL_TEXTS } from '../../../../shared/review-health/signal-texts';
         <span class="count" [class.none]="rows().length === 0">{{ countText() }}</span>
       </header>
       <p class="meaning">{{ text().meaning }}</p>
-      <p class="limits"><mat-icon aria-hidden="true">info</mat-icon><span><strong>Limits:</strong> {{ text().limits }}</span></p>
+      <p class="limits">
+        <mat-icon aria-hidden="true">info</mat-icon><span><strong>Limits:</strong> {{ text().limits }}</span>
+      </p>
       @if (rows().length === 0) {
         <p class="tt-muted nothing">Nothing observed in this period.</p>
       } @else {
@@ -25,19 +27,33 @@ import { SIGNAL_TEXTS } from '../../../../shared/review-health/signal-texts';
             <li>
               <div class="fact">{{ r.fact }}</div>
               <div class="meta">
-                @if (r.calcId) { <a [routerLink]="['/calcs', r.calcId]">{{ r.projectCode }} · {{ r.calcNumber }} rev {{ r.revision }}</a> }
-                @if (r.people) { <span>{{ r.people }}</span> }
-                @if (r.at) { <span class="tt-mono">{{ r.at | date: 'y-MM-dd HH:mm' : 'UTC' }} UTC</span> }
+                @if (r.calcId) {
+                  <a [routerLink]="['/calcs', r.calcId]"
+                    >{{ r.projectCode }} · {{ r.calcNumber }} rev {{ r.revision }}</a
+                  >
+                }
+                @if (r.people) {
+                  <span>{{ r.people }}</span>
+                }
+                @if (r.at) {
+                  <span class="tt-mono">{{ r.at | date: 'y-MM-dd HH:mm' : 'UTC' }} UTC</span>
+                }
               </div>
               <div class="evidence">
                 @for (e of r.evidence; track e.label) {
-                  <a [routerLink]="'/audit'" [queryParams]="e.query"><mat-icon aria-hidden="true">fact_check</mat-icon>{{ e.label }}</a>
+                  <a [routerLink]="'/audit'" [queryParams]="e.query"
+                    ><mat-icon aria-hidden="true">fact_check</mat-icon>{{ e.label }}</a
+                  >
                 }
               </div>
             </li>
           }
         </ul>
-        @if (more()) { <p class="tt-muted">Only the first {{ rows().length }} are listed; narrow the period or choose a project, or export the CSV.</p> }
+        @if (more()) {
+          <p class="tt-muted">
+            Only the first {{ rows().length }} are listed; narrow the period or choose a project, or export the CSV.
+          </p>
+        }
       }
     </section>
   `,
@@ -49,5 +65,7 @@ export class SignalSection {
   readonly rows = input.required<SignalRow[]>();
   readonly more = input(false);
   protected readonly text = computed(() => SIGNAL_TEXTS[this.key()]);
-  protected readonly countText = computed(() => (this.rows().length === 1 ? '1 observation' : `${this.rows().length} observations`));
+  protected readonly countText = computed(() =>
+    this.rows().length === 1 ? '1 observation' : `${this.rows().length} observations`,
+  );
 }

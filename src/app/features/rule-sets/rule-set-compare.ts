@@ -20,10 +20,18 @@ export default class RuleSetCompare {
   protected readonly diff = inject(RuleSetsApi).diff(this.from, this.to);
   protected readonly result = computed(() => (this.diff.hasValue() ? this.diff.value() : undefined));
   protected readonly changes = computed(() => this.result()?.changes);
-  protected readonly changedClauses = computed(() => (this.changes()?.clauses ?? []).filter((c) => c.change !== 'unchanged'));
-  protected readonly changedParameters = computed(() => (this.changes()?.parameters ?? []).filter((p) => p.change !== 'unchanged'));
-  protected readonly changedManual = computed(() => (this.changes()?.manualItems ?? []).filter((m) => m.change !== 'unchanged'));
-  protected readonly unchangedClauses = computed(() => (this.changes()?.clauses ?? []).filter((c) => c.change === 'unchanged').length);
+  protected readonly changedClauses = computed(() =>
+    (this.changes()?.clauses ?? []).filter((c) => c.change !== 'unchanged'),
+  );
+  protected readonly changedParameters = computed(() =>
+    (this.changes()?.parameters ?? []).filter((p) => p.change !== 'unchanged'),
+  );
+  protected readonly changedManual = computed(() =>
+    (this.changes()?.manualItems ?? []).filter((m) => m.change !== 'unchanged'),
+  );
+  protected readonly unchangedClauses = computed(
+    () => (this.changes()?.clauses ?? []).filter((c) => c.change === 'unchanged').length,
+  );
 
   /** Dimensionless parameters carry the unit "1", which reads as a stray digit: leave it out. */
   protected withUnit(value: unknown, unit: string | undefined): string {

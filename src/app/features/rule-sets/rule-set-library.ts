@@ -30,7 +30,8 @@ export default class RuleSetLibrary {
   protected readonly versions = this.api.list();
   protected readonly groups = computed(() => {
     const byCode = new Map<string, RuleSetSummary[]>();
-    for (const v of this.versions.hasValue() ? this.versions.value() : []) byCode.set(v.code, [...(byCode.get(v.code) ?? []), v]);
+    for (const v of this.versions.hasValue() ? this.versions.value() : [])
+      byCode.set(v.code, [...(byCode.get(v.code) ?? []), v]);
     return [...byCode.entries()].map(([code, list]) => ({ code, title: list[0].title, list }));
   });
   protected readonly picked = signal<number[]>([]);

@@ -1,14 +1,30 @@
 import type { RuleSet } from '../../../../shared/rules';
 import type { ApiError } from '../../../../shared/schemas/api-error.schema';
 
-export interface RuleSetProblem { text: string; tab: number }
+export interface RuleSetProblem {
+  text: string;
+  tab: number;
+}
 
 // Tabs of the standard's page: Clauses (with title, change summary, scope), Parameters, Methods and manual items, JSON.
 const TOP: Record<string, [label: string, tab: number]> = {
-  title: ['Title (Clauses tab)', 0], changeSummary: ['What changes in this version (Clauses tab)', 0], scope: ['Scope (Clauses tab)', 0],
-  code: ['Code', 3], version: ['Version', 3], effectiveDate: ['Effective date', 3], methods: ['Methods (Methods and manual items tab)', 2],
+  title: ['Title (Clauses tab)', 0],
+  changeSummary: ['What changes in this version (Clauses tab)', 0],
+  scope: ['Scope (Clauses tab)', 0],
+  code: ['Code', 3],
+  version: ['Version', 3],
+  effectiveDate: ['Effective date', 3],
+  methods: ['Methods (Methods and manual items tab)', 2],
 };
-const CLAUSE_FIELDS: Record<string, string> = { title: 'title', text: 'clause text', severity: 'severity', id: 'number', check: 'check', applicability: 'where it applies', measure: 'measure' };
+const CLAUSE_FIELDS: Record<string, string> = {
+  title: 'title',
+  text: 'clause text',
+  severity: 'severity',
+  id: 'number',
+  check: 'check',
+  applicability: 'where it applies',
+  measure: 'measure',
+};
 
 /** "document.clauses[2].text" → "§4.2 clause text", on the tab where that field is edited. */
 export function ruleSetPlace(path: string, doc: RuleSet | null): { label: string; tab: number } {
@@ -16,12 +32,18 @@ export function ruleSetPlace(path: string, doc: RuleSet | null): { label: string
   const clause = /^clauses\[(\d+)\](?:\.(\w+))?/.exec(p);
   if (clause) {
     const id = doc?.clauses[Number(clause[1])]?.id;
-    return { label: `${id ? `§${id}` : `clause ${Number(clause[1]) + 1}`}${clause[2] ? ` ${CLAUSE_FIELDS[clause[2]] ?? clause[2]}` : ''} (Clauses tab)`, tab: 0 };
+    return {
+      label: `${id ? `§${id}` : `clause ${Number(clause[1]) + 1}`}${clause[2] ? ` ${CLAUSE_FIELDS[clause[2]] ?? clause[2]}` : ''} (Clauses tab)`,
+      tab: 0,
+    };
   }
   const param = /^parameters\[(\d+)\](?:\.(\w+))?/.exec(p);
   if (param) {
     const name = doc?.parameters[Number(param[1])]?.name;
-    return { label: `parameter ${name ?? Number(param[1]) + 1}${param[2] ? ` ${param[2]}` : ''} (Parameters tab)`, tab: 1 };
+    return {
+      label: `parameter ${name ?? Number(param[1]) + 1}${param[2] ? ` ${param[2]}` : ''} (Parameters tab)`,
+      tab: 1,
+    };
   }
   const item = /^manualItems\[(\d+)\]/.exec(p);
   if (item) return { label: `manual item ${Number(item[1]) + 1} (Methods and manual items tab)`, tab: 2 };

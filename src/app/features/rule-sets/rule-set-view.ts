@@ -1,5 +1,14 @@
 import { FILLET_KTS_NAMES } from '../../../../shared/engine';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, numberAttribute, signal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  effect,
+  inject,
+  input,
+  numberAttribute,
+  signal,
+} from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { RouterLink } from '@angular/router';
 import { FormsModule, ReactiveFormsModule } from '@angular/forms';
@@ -27,8 +36,23 @@ import { ImpactPanel } from './impact-panel';
 /** One version of a standard: read by everyone, edited (as a draft) by compliance only. */
 @Component({
   selector: 'tt-rule-set-view',
-  imports: [DatePipe, RouterLink, FormsModule, ReactiveFormsModule, MatTabsModule, MatButtonModule, MatIconModule, MatFormFieldModule,
-    MatInputModule, MatSelectModule, MatProgressBarModule, PublishPanel, TryItPanel, ImpactPanel, LoadFailure],
+  imports: [
+    DatePipe,
+    RouterLink,
+    FormsModule,
+    ReactiveFormsModule,
+    MatTabsModule,
+    MatButtonModule,
+    MatIconModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatProgressBarModule,
+    PublishPanel,
+    TryItPanel,
+    ImpactPanel,
+    LoadFailure,
+  ],
   templateUrl: './rule-set-view.html',
   styleUrl: './rule-set-view.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -36,7 +60,7 @@ import { ImpactPanel } from './impact-panel';
 export default class RuleSetView {
   /** The published method, named as a reader cites it, not its code. */
   protected ktsName(key: string | undefined): string {
-    return key ? FILLET_KTS_NAMES[key] ?? key : '—';
+    return key ? (FILLET_KTS_NAMES[key] ?? key) : '—';
   }
 
   private readonly api = inject(RuleSetsApi);
@@ -48,9 +72,13 @@ export default class RuleSetView {
   protected readonly doc = computed(() => this.current()?.document as RuleSet | undefined);
   protected readonly canEdit = computed(() => {
     const v = this.current();
-    return v?.status === 'draft' && !v.confirmedBy && this.ability.can('update', subject('RuleSet', { status: 'draft' }));
+    return (
+      v?.status === 'draft' && !v.confirmedBy && this.ability.can('update', subject('RuleSet', { status: 'draft' }))
+    );
   });
-  protected readonly canPublish = computed(() => this.current()?.status === 'draft' && this.ability.can('publish', 'RuleSet'));
+  protected readonly canPublish = computed(
+    () => this.current()?.status === 'draft' && this.ability.can('publish', 'RuleSet'),
+  );
   protected readonly canImpact = computed(() => this.ability.can('impact', 'RuleSet'));
   protected readonly form = signal<RuleSetForm | null>(null);
   protected readonly jsonText = signal('');
@@ -79,7 +107,11 @@ export default class RuleSetView {
       return null;
     }
     const result = validateRuleSet(parsed);
-    this.jsonIssues.set(result.ok ? [] : result.issues.map((i) => `${ruleSetPlace(i.path, this.doc() ?? null).label} — ${i.path}: ${i.message}`));
+    this.jsonIssues.set(
+      result.ok
+        ? []
+        : result.issues.map((i) => `${ruleSetPlace(i.path, this.doc() ?? null).label} — ${i.path}: ${i.message}`),
+    );
     return result.ok ? result.value : null;
   }
 
@@ -96,7 +128,11 @@ export default class RuleSetView {
     this.isSaving.set(true);
     this.problems.set([]);
     try {
-      const saved = await this.api.save(this.id(), doc as unknown as Record<string, unknown>, this.current()!.lockVersion);
+      const saved = await this.api.save(
+        this.id(),
+        doc as unknown as Record<string, unknown>,
+        this.current()!.lockVersion,
+      );
       this.version.set(saved);
       this.snackBar.open(`Draft v${saved.version} saved.`, 'OK', { duration: 4000 });
     } catch (error) {

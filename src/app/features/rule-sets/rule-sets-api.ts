@@ -4,8 +4,17 @@ import { firstValueFrom } from 'rxjs';
 import type { Checklist, RuleSetDiff } from '../../../../shared/rules';
 import type { ImpactReport, RuleSetDto, RuleSetSummary } from '../../../../shared/schemas/rule-set.schema';
 
-export interface DiffResponse { from: { id: number; code: string; version: number }; to: { id: number; code: string; version: number }; changes: RuleSetDiff }
-export interface TryItResponse { ruleSet: { code: string; version: number }; revision: { id: number; label: string }; checklist: Checklist; before: Checklist | null }
+export interface DiffResponse {
+  from: { id: number; code: string; version: number };
+  to: { id: number; code: string; version: number };
+  changes: RuleSetDiff;
+}
+export interface TryItResponse {
+  ruleSet: { code: string; version: number };
+  revision: { id: number; label: string };
+  checklist: Checklist;
+  before: Checklist | null;
+}
 
 /** Design standards: versions, drafts, confirmation, diff, try-it and impact analysis. */
 @Injectable({ providedIn: 'root' })
@@ -21,7 +30,9 @@ export class RuleSetsApi {
   }
 
   diff(from: Signal<number>, to: Signal<number>) {
-    return httpResource<DiffResponse>(() => (from() && to() ? { url: '/api/rule-sets/diff', params: { from: from(), to: to() } } : undefined));
+    return httpResource<DiffResponse>(() =>
+      from() && to() ? { url: '/api/rule-sets/diff', params: { from: from(), to: to() } } : undefined,
+    );
   }
 
   createDraft(fromId: number): Promise<RuleSetDto> {

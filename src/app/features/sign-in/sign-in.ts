@@ -18,7 +18,16 @@ interface SignInForm {
 
 @Component({
   selector: 'tt-sign-in',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatIconModule, MatProgressBarModule, LogoMark, SafetyNote],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatIconModule,
+    MatProgressBarModule,
+    LogoMark,
+    SafetyNote,
+  ],
   templateUrl: './sign-in.html',
   styleUrl: './sign-in.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -53,7 +62,8 @@ export default class SignIn {
     } catch (error) {
       assertApiFailure(error);
       this.failure.set(error.message);
-      // One error, the server's: resetForm also forgets "submitted", so the emptied password is not reddened as missing too.
+      // One error, the server's: resetForm also forgets "submitted", so the emptied password is not reddened as missing
+      // too.
       this.formDirective().resetForm({ username: this.form.controls.username.value, password: '' });
     } finally {
       this.isBusy.set(false);

@@ -4,14 +4,34 @@ import { formatNumber } from '../../../../shared/engine';
 /** Pixel margins: room for monospace tick labels on the left and below. */
 export const CHART_MARGIN = { top: 22, right: 18, bottom: 34, left: 62 } as const;
 
-export interface PixelTick { at: number; label: string }
-export interface PixelSeries { id: string; label: string; d: string; fill: string | null; isDashed: boolean; isDotted: boolean }
-export interface PixelLimit { x1: number; x2: number; y: number; label: string; labelX: number; labelY: number; labelAnchor: 'start' | 'end' }
+export interface PixelTick {
+  at: number;
+  label: string;
+}
+export interface PixelSeries {
+  id: string;
+  label: string;
+  d: string;
+  fill: string | null;
+  isDashed: boolean;
+  isDotted: boolean;
+}
+export interface PixelLimit {
+  x1: number;
+  x2: number;
+  y: number;
+  label: string;
+  labelX: number;
+  labelY: number;
+  labelAnchor: 'start' | 'end';
+}
 
 export interface ChartLayout {
-  width: number; height: number;
+  width: number;
+  height: number;
   plot: { left: number; right: number; top: number; bottom: number };
-  xTicks: PixelTick[]; yTicks: PixelTick[];
+  xTicks: PixelTick[];
+  yTicks: PixelTick[];
   zeroY: number | null;
   series: PixelSeries[];
   limits: PixelLimit[];
@@ -43,7 +63,8 @@ export function layoutChart(chart: Chart, width: number, height: number): ChartL
     const first = s.points[0];
     const last = s.points[s.points.length - 1];
     const base = zero ?? plot.bottom;
-    const fill = i === 0 && first && last ? `${d} L${px(sx(last[0]))},${px(base)} L${px(sx(first[0]))},${px(base)} Z` : null;
+    const fill =
+      i === 0 && first && last ? `${d} L${px(sx(last[0]))},${px(base)} L${px(sx(first[0]))},${px(base)} Z` : null;
     return { id: s.id, label: s.label, d, fill, isDashed: s.style === 'dashed', isDotted: s.style === 'dotted' };
   });
   const limits = chart.limits.map((l): PixelLimit => {
@@ -53,10 +74,23 @@ export function layoutChart(chart: Chart, width: number, height: number): ChartL
     const y = sy(l.y);
     // Above the line, unless that would touch the frame's top edge.
     const labelY = y - plot.top < 16 ? y + 13 : y - 5;
-    return { x1, x2, y, label: l.label, labelX: atRight ? x2 - 4 : x1 + 4, labelY, labelAnchor: atRight ? 'end' : 'start' };
+    return {
+      x1,
+      x2,
+      y,
+      label: l.label,
+      labelX: atRight ? x2 - 4 : x1 + 4,
+      labelY,
+      labelAnchor: atRight ? 'end' : 'start',
+    };
   });
   return {
-    width, height, plot, zeroY: zero, series, limits,
+    width,
+    height,
+    plot,
+    zeroY: zero,
+    series,
+    limits,
     xTicks: chart.x.ticks.map((t) => ({ at: sx(t), label: tickLabel(t) })),
     yTicks: chart.y.ticks.map((t) => ({ at: sy(t), label: tickLabel(t) })),
   };

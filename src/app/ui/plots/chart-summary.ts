@@ -1,8 +1,14 @@
 import type { Chart, Series } from '../../../../shared/plots';
 import { formatNumber } from '../../../../shared/engine';
 
-export interface SummaryRow { where: string; value: string }
-export interface SeriesSummary { label: string; rows: SummaryRow[] }
+export interface SummaryRow {
+  where: string;
+  value: string;
+}
+export interface SeriesSummary {
+  label: string;
+  rows: SummaryRow[];
+}
 
 const f = (v: number): string => formatNumber(v, 4);
 
@@ -28,7 +34,9 @@ export function summariseChart(chart: Chart): SeriesSummary[] {
 export function describeChart(chart: Chart): string {
   const parts = chart.series.map((s) => {
     const ys = s.points.map((p) => p[1]);
-    return ys.length ? `${s.label} from ${f(Math.min(...ys))} to ${f(Math.max(...ys))} ${chart.yUnit}` : `${s.label}: no data`;
+    return ys.length
+      ? `${s.label} from ${f(Math.min(...ys))} to ${f(Math.max(...ys))} ${chart.yUnit}`
+      : `${s.label}: no data`;
   });
   const limits = chart.limits.map((l) => `limit ${l.label} at ${f(l.y)} ${chart.yUnit}`);
   const span = `along ${f(chart.x.max)} ${chart.xUnit}`;

@@ -5,10 +5,18 @@ import { ARROW_PX, LOADS_ROOM, layoutLoads } from './loads-layout';
 
 // An invented shaft: bearings at both ends, a downward force mid-span and a force along +z off-centre.
 const INPUT: CalcInput = {
-  units: 'SI', material: { E: 207, G: 79.3, Sy: 530, Su: 630 },
-  segments: [{ length: 300, od: 40, id: 0 }], torques: [],
-  supports: [{ at: 0, kind: 'deep-groove-ball' }, { at: 300, kind: 'deep-groove-ball' }],
-  loads: [{ at: 150, Fy: -2000 }, { at: 100, Fz: 500 }],
+  units: 'SI',
+  material: { E: 207, G: 79.3, Sy: 530, Su: 630 },
+  segments: [{ length: 300, od: 40, id: 0 }],
+  torques: [],
+  supports: [
+    { at: 0, kind: 'deep-groove-ball' },
+    { at: 300, kind: 'deep-groove-ball' },
+  ],
+  loads: [
+    { at: 150, Fy: -2000 },
+    { at: 100, Fz: 500 },
+  ],
 };
 const result = evaluateShaft(INPUT);
 const outline = shaftOutline(INPUT);
@@ -38,7 +46,7 @@ describe('force arrows in pixels', () => {
     expect(l.bearings.map((b) => b.tag)).toEqual(['B1', 'B2']);
   });
 
-  it('when a force acts along +z, then the x–z strip below shows it as an upward arrow ending on the strip\'s axis, below the side view', () => {
+  it("when a force acts along +z, then the x–z strip below shows it as an upward arrow ending on the strip's axis, below the side view", () => {
     const [fz] = l.plan.arrows.filter((a) => !a.isReaction);
     expect(fz.tag).toBe('F2');
     const [x, tip] = end(fz.d);

@@ -8,9 +8,16 @@ import { DiagramChart } from './diagram-chart';
 
 // An invented stepped shaft: 40 mm then 50 mm, 800 N·m between stations 20 and 280.
 const INPUT = {
-  units: 'SI' as const, material: { E: 207, G: 79.3, Sy: 530, Su: 630 },
-  segments: [{ length: 100, od: 40, id: 0 }, { length: 200, od: 50, id: 20 }],
-  torques: [{ at: 20, T: 800 }, { at: 280, T: -800 }],
+  units: 'SI' as const,
+  material: { E: 207, G: 79.3, Sy: 530, Su: 630 },
+  segments: [
+    { length: 100, od: 40, id: 0 },
+    { length: 200, od: 50, id: 20 },
+  ],
+  torques: [
+    { at: 20, T: 800 },
+    { at: 280, T: -800 },
+  ],
   features: [{ type: 'shoulder-fillet' as const, at: 100, r: 2 }],
 };
 const result = evaluateShaft(INPUT);
@@ -29,7 +36,9 @@ describe('chart layout in pixels', () => {
   });
 
   it('when a chart is summarised, then the aria text names the range and the limit, and the rows give each stretch', () => {
-    expect(describeChart(chart)).toMatch(/^Shear stress along the shaft, along 300 mm: .*limit §4\.1 allowable τ 60 MPa at 60 MPa\.$/);
+    expect(describeChart(chart)).toMatch(
+      /^Shear stress along the shaft, along 300 mm: .*limit §4\.1 allowable τ 60 MPa at 60 MPa\.$/,
+    );
     expect(summariseChart(chart)[0].rows[0]).toEqual({ where: '0–20 mm', value: '0' });
   });
 });
@@ -53,7 +62,9 @@ describe('DiagramChart', () => {
     const svg: SVGElement = fixture.nativeElement.querySelector('svg');
     expect(svg.getAttribute('role')).toBe('img');
     expect(svg.getAttribute('aria-label')).toContain('allowable τ');
-    expect(fixture.nativeElement.querySelector('.tt-visually-hidden table caption').textContent).toContain('Shear stress τmax (MPa)');
+    expect(fixture.nativeElement.querySelector('.tt-visually-hidden table caption').textContent).toContain(
+      'Shear stress τmax (MPa)',
+    );
     expect(fixture.nativeElement.querySelector('.limit-label').textContent).toContain('§4.1');
   });
 });

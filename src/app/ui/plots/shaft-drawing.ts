@@ -24,8 +24,12 @@ export class ShaftDrawing {
   readonly loads = input<ShaftLoads | null>(null);
 
   private readonly width = hostWidth(640);
-  private readonly hasLoads = computed(() => !!this.loads() && (this.loads()!.arrows.length > 0 || this.loads()!.bearings.length > 0));
-  protected readonly layout = computed(() => layoutOutline(this.outline(), this.width(), this.hasLoads() ? LOADS_ROOM : undefined));
+  private readonly hasLoads = computed(
+    () => !!this.loads() && (this.loads()!.arrows.length > 0 || this.loads()!.bearings.length > 0),
+  );
+  protected readonly layout = computed(() =>
+    layoutOutline(this.outline(), this.width(), this.hasLoads() ? LOADS_ROOM : undefined),
+  );
   protected readonly loadsLayout = computed(() => {
     const loads = this.loads();
     return loads && this.hasLoads() ? layoutLoads(loads, this.layout()) : null;
@@ -36,9 +40,11 @@ export class ShaftDrawing {
     const o = this.outline();
     const u = this.unit();
     const feats = o.features.map((x) => `${x.tag} ${x.name.toLowerCase()} at ${this.f(x.at)} ${u}`);
-    return `Shaft outline to scale: ${o.segments.length} segments, ${this.f(o.length)} ${u} long, largest diameter `
-      + `${this.f(2 * o.maxRadius)} ${u}${feats.length ? `; features: ${feats.join(', ')}` : '; no features'}`
-      + `${this.loadWords()}.`;
+    return (
+      `Shaft outline to scale: ${o.segments.length} segments, ${this.f(o.length)} ${u} long, largest diameter ` +
+      `${this.f(2 * o.maxRadius)} ${u}${feats.length ? `; features: ${feats.join(', ')}` : '; no features'}` +
+      `${this.loadWords()}.`
+    );
   });
 
   private loadWords(): string {

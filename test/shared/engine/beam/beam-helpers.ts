@@ -17,12 +17,19 @@ export interface BeamCase {
 
 /** A uniform (or stepped) SI shaft on deep-groove ball bearings carrying point forces. */
 export function beamInput(c: BeamCase): Record<string, unknown> {
-  const segments = (c.segments ?? [{ length: c.length, od: D }]).map((s) => ({ length: s.length, od: s.od, id: s.id ?? 0 }));
+  const segments = (c.segments ?? [{ length: c.length, od: D }]).map((s) => ({
+    length: s.length,
+    od: s.od,
+    id: s.id ?? 0,
+  }));
   return {
-    units: 'SI', material: { E: E / 1000, G: 80, Sy: 400, Su: 600, ...(c.density ? { density: c.density } : {}) },
-    segments, torques: [],
+    units: 'SI',
+    material: { E: E / 1000, G: 80, Sy: 400, Su: 600, ...(c.density ? { density: c.density } : {}) },
+    segments,
+    torques: [],
     supports: c.supports.map((at) => ({ at, kind: 'deep-groove-ball' })),
-    loads: c.loads, ...(c.masses ? { masses: c.masses } : {}),
+    loads: c.loads,
+    ...(c.masses ? { masses: c.masses } : {}),
   };
 }
 

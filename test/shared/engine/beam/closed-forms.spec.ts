@@ -60,7 +60,14 @@ describe('two-span continuous beam, equal spans (AISC Steel Construction Manual 
   const [L, P] = [500, -1000];
 
   it('when each span carries P at its middle, then the reactions are 5P/16, 11P/8, 5P/16', () => {
-    const r = solve({ length: 2 * L, supports: [0, L, 2 * L], loads: [{ at: L / 2, Fy: P }, { at: 1.5 * L, Fy: P }] });
+    const r = solve({
+      length: 2 * L,
+      supports: [0, L, 2 * L],
+      loads: [
+        { at: L / 2, Fy: P },
+        { at: 1.5 * L, Fy: P },
+      ],
+    });
     expectClose(r.supports[0].Fy, (-5 * P) / 16);
     expectClose(r.supports[1].Fy, (-11 * P) / 8);
     expectClose(r.supports[2].Fy, (-5 * P) / 16);

@@ -8,10 +8,20 @@ import { expectClose } from '../check-helpers';
  * bearings. Nothing of the engine is used but its answer.
  */
 const E = 207_000; // MPa
-const segs = [{ length: 60, od: 40 }, { length: 140, od: 55 }, { length: 200, od: 65 }, { length: 120, od: 50 }, { length: 80, od: 38 }];
+const segs = [
+  { length: 60, od: 40 },
+  { length: 140, od: 55 },
+  { length: 200, od: 65 },
+  { length: 120, od: 50 },
+  { length: 80, od: 38 },
+];
 const bounds = segs.reduce((b, s) => [...b, b[b.length - 1] + s.length], [0]);
 const [A, B] = [30, 480];
-const loads = [{ at: 130, F: -3500 }, { at: 320, F: 1200 }, { at: 560, F: -900 }];
+const loads = [
+  { at: 130, F: -3500 },
+  { at: 320, F: 1200 },
+  { at: 560, F: -900 },
+];
 
 function reactions(): [number, number] {
   // ΣM about A and ΣF = 0.
@@ -52,8 +62,14 @@ const Y = (x: number): number => piecewise(scaledSlope, x, 1e-7) / S;
 
 describe('stepped-shaft deflection by an independent route (double integration of M/EI)', () => {
   const input = {
-    units: 'SI', material: { E: E / 1000, G: 80, Sy: 500, Su: 700 }, segments: segs.map((s) => ({ ...s, id: 0 })), torques: [],
-    supports: [{ at: A, kind: 'deep-groove-ball' }, { at: B, kind: 'cylindrical-roller' }],
+    units: 'SI',
+    material: { E: E / 1000, G: 80, Sy: 500, Su: 700 },
+    segments: segs.map((s) => ({ ...s, id: 0 })),
+    torques: [],
+    supports: [
+      { at: A, kind: 'deep-groove-ball' },
+      { at: B, kind: 'cylindrical-roller' },
+    ],
     loads: loads.map((l) => ({ at: l.at, Fy: l.F })),
   };
   const r = evaluateShaft(input);
@@ -77,7 +93,8 @@ describe('stepped-shaft deflection by an independent route (double integration o
   });
 
   it('when solved, then every point of the curve matches, ends included', () => {
-    for (const p of r.deflectionCurve) expect(Math.abs(p.y - y(p.at))).toBeLessThanOrEqual(1e-6 * r.deflection!.max + 1e-12);
+    for (const p of r.deflectionCurve)
+      expect(Math.abs(p.y - y(p.at))).toBeLessThanOrEqual(1e-6 * r.deflection!.max + 1e-12);
   });
 
   it('when solved, then the moment diagram matches hand statics at every station', () => {

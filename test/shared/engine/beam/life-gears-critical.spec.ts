@@ -7,7 +7,7 @@ describe('first bending critical speed', () => {
   it('when a uniform shaft rests on end supports, then it matches ω₁ = π²·√(EI/(ρA·L⁴)) (Blevins, Formulas for Natural Frequency and Mode Shape, Table 8-1)', () => {
     const L = 1000;
     const r = solve({ length: L, supports: [0, L], loads: [], density: 7850 });
-    const rhoA = 7850e-12 * (Math.PI * D * D) / 4; // t/mm
+    const rhoA = (7850e-12 * (Math.PI * D * D)) / 4; // t/mm
     const omega = Math.PI ** 2 * Math.sqrt(EI / (rhoA * L ** 4));
     expectClose(r.criticalSpeed!.rpm, (omega * 60) / (2 * Math.PI), 1e-5);
     expect(r.criticalSpeed!.method).toMatch(/eigenvalue of the beam model/);
@@ -18,7 +18,7 @@ describe('first bending critical speed', () => {
   it('when a uniform shaft runs over two equal spans, then the first mode is antisymmetric, at the one-span frequency (Blevins Table 8-1)', () => {
     const L = 600;
     const r = solve({ length: 2 * L, supports: [0, L, 2 * L], loads: [], density: 7850 });
-    const rhoA = 7850e-12 * (Math.PI * D * D) / 4;
+    const rhoA = (7850e-12 * (Math.PI * D * D)) / 4;
     const omega = Math.PI ** 2 * Math.sqrt(EI / (rhoA * L ** 4));
     // Eight consistent-mass elements a span: within 2e-5 (the symmetric start could never find this mode).
     expectClose(r.criticalSpeed!.rpm, (omega * 60) / (2 * Math.PI), 2e-5);
@@ -30,23 +30,32 @@ describe('first bending critical speed', () => {
     const r = solve({ length: L, supports: [0, L], loads: [], masses: [{ at: L / 2, mass: m }], density: 7850 });
     const omega = Math.sqrt((48 * EI) / ((m / 1000) * L ** 3));
     const rpm = (omega * 60) / (2 * Math.PI);
-    // The shaft's own mass lowers it a little: 17/35 of it acts at mid-span by Rayleigh's method (Rao, Mechanical Vibrations, effective mass of a beam, from memory).
-    const shaft = (7850e-12 * Math.PI * D * D * L) / 4 * 1000;
+    // The shaft's own mass lowers it a little: 17/35 of it acts at mid-span by Rayleigh's method (Rao, Mechanical
+    // Vibrations, effective mass of a beam, from memory).
+    const shaft = ((7850e-12 * Math.PI * D * D * L) / 4) * 1000;
     const rayleigh = (Math.sqrt((48 * EI) / (((m + (17 / 35) * shaft) / 1000) * L ** 3)) * 60) / (2 * Math.PI);
     expect(r.criticalSpeed!.rpm).toBeLessThan(rpm);
     expectClose(r.criticalSpeed!.rpm, rayleigh, 1e-3);
   });
 
   it('when an operating speed is given, then the ratio is critical speed over it', () => {
-    const input = { ...(solveInput()), speed: 1500 };
+    const input = { ...solveInput(), speed: 1500 };
     const r = evaluateShaft(input);
     expectClose(r.criticalSpeed!.ratio, r.criticalSpeed!.rpm / 1500);
   });
 });
 
 function solveInput(): Record<string, unknown> {
-  return { units: 'SI', material: { E: 200, G: 80, Sy: 400, Su: 600 }, segments: [{ length: 600, od: 40, id: 0 }], torques: [],
-    supports: [{ at: 50, kind: 'deep-groove-ball' }, { at: 550, kind: 'cylindrical-roller' }] };
+  return {
+    units: 'SI',
+    material: { E: 200, G: 80, Sy: 400, Su: 600 },
+    segments: [{ length: 600, od: 40, id: 0 }],
+    torques: [],
+    supports: [
+      { at: 50, kind: 'deep-groove-ball' },
+      { at: 550, kind: 'cylindrical-roller' },
+    ],
+  };
 }
 
 describe('bearing basic rating life (ISO 281:2007 §6, from memory)', () => {
@@ -70,8 +79,15 @@ describe('bearing basic rating life (ISO 281:2007 §6, from memory)', () => {
   });
 
   it('when the shaft is solved, then each bearing life uses its own reaction and the operating speed', () => {
-    const input = { ...solveInput(), speed: 1000, supports: [{ at: 50, kind: 'deep-groove-ball', C: 20 }, { at: 550, kind: 'deep-groove-ball', C: 20 }],
-      loads: [{ at: 300, Fy: -4000 }] };
+    const input = {
+      ...solveInput(),
+      speed: 1000,
+      supports: [
+        { at: 50, kind: 'deep-groove-ball', C: 20 },
+        { at: 550, kind: 'deep-groove-ball', C: 20 },
+      ],
+      loads: [{ at: 300, Fy: -4000 }],
+    };
     const r = evaluateShaft(input);
     expectClose(r.supports[0].F, 2000);
     expectClose(r.supports[0].L10, 10 ** 3);
@@ -81,7 +97,12 @@ describe('bearing basic rating life (ISO 281:2007 §6, from memory)', () => {
 
 describe('gear and belt forces (Shigley 9th Eqs. 13-36 and 13-40, from memory; Mott for the belt factor)', () => {
   const shaft = (load: Record<string, unknown>, T = 100): Record<string, unknown> => ({
-    ...solveInput(), torques: [{ at: 300, T }, { at: 0, T: -T }], loads: [{ at: 300, ...load }],
+    ...solveInput(),
+    torques: [
+      { at: 300, T },
+      { at: 0, T: -T },
+    ],
+    loads: [{ at: 300, ...load }],
   });
 
   it('when a spur gear transmits T with d = 100 mm, then Wt = 2T/d and Wr = Wt·tan 20°', () => {
@@ -100,8 +121,14 @@ describe('gear and belt forces (Shigley 9th Eqs. 13-36 and 13-40, from memory; M
     expectClose(l.Fx, 2000 * Math.tan(psi));
   });
 
-  it('when a helical gear\'s axial force acts at the pitch radius, then the moment jumps by Wa·d/2 there and closes to zero at the ends', () => {
-    const input = { ...shaft({ kind: 'gear', pitchDiameter: 100, helixAngle: 30 }), supports: [{ at: 50, kind: 'deep-groove-ball', locating: true }, { at: 550, kind: 'deep-groove-ball' }] };
+  it("when a helical gear's axial force acts at the pitch radius, then the moment jumps by Wa·d/2 there and closes to zero at the ends", () => {
+    const input = {
+      ...shaft({ kind: 'gear', pitchDiameter: 100, helixAngle: 30 }),
+      supports: [
+        { at: 50, kind: 'deep-groove-ball', locating: true },
+        { at: 550, kind: 'deep-groove-ball' },
+      ],
+    };
     const r = evaluateShaft(input);
     const at = r.bendingDiagram.filter((p) => p.at === 300);
     expectClose(Math.abs(at[1].My - at[0].My), (r.loads[0].Fx * 0.1) / 2, 1e-9);

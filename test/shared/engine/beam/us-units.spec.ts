@@ -13,11 +13,22 @@ function toUS(si: Record<string, any>): Record<string, any> {
   const us = JSON.parse(JSON.stringify(si));
   us.units = 'US';
   const m = us.material;
-  Object.assign(m, { E: m.E / KSI, G: m.G / KSI, Sy: m.Sy / KSI, Su: m.Su / KSI, density: (m.density * 1e-9 * IN ** 3) / LB });
+  Object.assign(m, {
+    E: m.E / KSI,
+    G: m.G / KSI,
+    Sy: m.Sy / KSI,
+    Su: m.Su / KSI,
+    density: (m.density * 1e-9 * IN ** 3) / LB,
+  });
   for (const s of us.segments) Object.assign(s, { length: s.length / IN, od: s.od / IN, id: s.id / IN });
   for (const t of us.torques) Object.assign(t, { at: t.at / IN, power: t.power / HP });
   for (const s of us.supports) Object.assign(s, { at: s.at / IN, C: (s.C * 1000) / LBF });
-  for (const l of us.loads) Object.assign(l, { at: l.at / IN, ...(l.pitchDiameter ? { pitchDiameter: l.pitchDiameter / IN } : {}), ...(l.diameter ? { diameter: l.diameter / IN } : {}) });
+  for (const l of us.loads)
+    Object.assign(l, {
+      at: l.at / IN,
+      ...(l.pitchDiameter ? { pitchDiameter: l.pitchDiameter / IN } : {}),
+      ...(l.diameter ? { diameter: l.diameter / IN } : {}),
+    });
   for (const x of us.masses) Object.assign(x, { at: x.at / IN, mass: x.mass / LB });
   for (const f of us.features) {
     for (const k of ['at', 'r', 'width', 'height', 'length', 'depth', 'diameter']) if (f[k] !== undefined) f[k] /= IN;
@@ -48,9 +59,36 @@ describe('SI and US inputs of the same shaft', () => {
   });
 
   it('when fields are read, then the new numbers carry the unit of their system', () => {
-    expect([a.fields.F.unit, a.fields.C.unit, a.fields.mass.unit, a.fields.L10h.unit, a.fields.slope.unit]).toEqual(['N', 'kN', 'kg', 'h', 'rad']);
-    expect([b.fields.F.unit, b.fields.C.unit, b.fields.mass.unit, b.fields.deflection.unit, b.fields.My.unit]).toEqual(['lbf', 'lbf', 'lb', 'in', 'lbf·in']);
-    for (const name of ['Fy', 'Fz', 'F', 'Fa', 'slope', 'L10', 'L10h', 'deflection', 'max', 'rpm', 'ratio', 'My', 'Mz', 'M']) {
+    expect([a.fields.F.unit, a.fields.C.unit, a.fields.mass.unit, a.fields.L10h.unit, a.fields.slope.unit]).toEqual([
+      'N',
+      'kN',
+      'kg',
+      'h',
+      'rad',
+    ]);
+    expect([b.fields.F.unit, b.fields.C.unit, b.fields.mass.unit, b.fields.deflection.unit, b.fields.My.unit]).toEqual([
+      'lbf',
+      'lbf',
+      'lb',
+      'in',
+      'lbf·in',
+    ]);
+    for (const name of [
+      'Fy',
+      'Fz',
+      'F',
+      'Fa',
+      'slope',
+      'L10',
+      'L10h',
+      'deflection',
+      'max',
+      'rpm',
+      'ratio',
+      'My',
+      'Mz',
+      'M',
+    ]) {
       expect(a.fields[name]?.formula).toBeTruthy();
     }
   });

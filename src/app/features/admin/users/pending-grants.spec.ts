@@ -9,8 +9,15 @@ import { PendingGrants } from './pending-grants';
 
 const ME = 5;
 const grant = (id: number, over: Partial<RoleGrantDto> = {}): RoleGrantDto => ({
-  id, user: { id: 20 + id, name: `Person ${id}`, username: `person${id}` }, role: 'approver', status: 'pending',
-  requestedBy: { id: 9, name: 'Other Admin' }, requestedAt: '2026-12-01T10:00:00Z', decidedBy: null, decidedAt: null, ...over,
+  id,
+  user: { id: 20 + id, name: `Person ${id}`, username: `person${id}` },
+  role: 'approver',
+  status: 'pending',
+  requestedBy: { id: 9, name: 'Other Admin' },
+  requestedAt: '2026-12-01T10:00:00Z',
+  decidedBy: null,
+  decidedAt: null,
+  ...over,
 });
 const MINE = grant(2, { role: 'checker', requestedBy: { id: ME, name: 'Me' } });
 
@@ -38,7 +45,11 @@ function type(input: HTMLInputElement, value: string): void {
 
 beforeEach(async () => {
   TestBed.configureTestingModule({
-    providers: [provideHttpClient(withInterceptors([errorInterceptor])), provideHttpClientTesting(), { provide: PureAbility, useValue: createAppAbility(defineRulesFor({ id: ME, roles: ['admin'] })) }],
+    providers: [
+      provideHttpClient(withInterceptors([errorInterceptor])),
+      provideHttpClientTesting(),
+      { provide: PureAbility, useValue: createAppAbility(defineRulesFor({ id: ME, roles: ['admin'] })) },
+    ],
   });
   fixture = TestBed.createComponent(PendingGrants);
   http = TestBed.inject(HttpTestingController);
@@ -49,7 +60,7 @@ beforeEach(async () => {
 afterEach(() => http?.verify());
 
 describe('pending role grants', () => {
-  it('when I asked for a role myself, then I cannot decide it; another person\'s request I can', () => {
+  it("when I asked for a role myself, then I cannot decide it; another person's request I can", () => {
     const [theirs, mine] = el().querySelectorAll('li');
     expect(theirs.textContent).toContain('Approver for Person 1');
     expect(button('Confirm', theirs)).toBeDefined();
@@ -84,8 +95,12 @@ describe('pending role grants', () => {
     button('Confirm Approver')!.click();
     await tick();
 
-    http.expectOne({ method: 'POST', url: '/api/role-grants/1/confirm' })
-      .flush({ code: 'validation', message: 'Password is not correct', fieldErrors: { password: ['is not correct'] } }, { status: 400, statusText: 'Bad Request' });
+    http
+      .expectOne({ method: 'POST', url: '/api/role-grants/1/confirm' })
+      .flush(
+        { code: 'validation', message: 'Password is not correct', fieldErrors: { password: ['is not correct'] } },
+        { status: 400, statusText: 'Bad Request' },
+      );
     await turn();
 
     expect(el().querySelector('[role="alert"]')?.textContent).toContain('password: is not correct');

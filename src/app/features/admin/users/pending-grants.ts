@@ -21,7 +21,15 @@ type Decision = { id: number; kind: 'confirm' | 'refuse' };
  */
 @Component({
   selector: 'tt-pending-grants',
-  imports: [DatePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, RoleLabelPipe, LoadFailure],
+  imports: [
+    DatePipe,
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    RoleLabelPipe,
+    LoadFailure,
+  ],
   templateUrl: './pending-grants.html',
   styleUrl: './pending-grants.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -38,7 +46,10 @@ export class PendingGrants {
   protected readonly problems = signal<string[]>([]);
   protected readonly isSending = signal(false);
   protected readonly password = new FormControl('', { nonNullable: true, validators: [Validators.required] });
-  protected readonly reason = new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.minLength(3)] });
+  protected readonly reason = new FormControl('', {
+    nonNullable: true,
+    validators: [Validators.required, Validators.minLength(3)],
+  });
 
   /** Called by the page after it asked for a role, so the new request shows at once. */
   reload(): void {
@@ -64,7 +75,10 @@ export class PendingGrants {
     this.isSending.set(true);
     this.problems.set([]);
     try {
-      const done = kind === 'confirm' ? await this.api.confirm(g.id, this.password.value) : await this.api.refuse(g.id, this.reason.value);
+      const done =
+        kind === 'confirm'
+          ? await this.api.confirm(g.id, this.password.value)
+          : await this.api.refuse(g.id, this.reason.value);
       this.open.set(null);
       this.decided.emit(done);
       this.grants.reload();

@@ -9,7 +9,9 @@ export class RoleGrantsApi {
   private readonly http = inject(HttpClient);
 
   pending() {
-    return httpResource<RoleGrantDto[]>(() => '/api/role-grants', { parse: (raw) => roleGrantListSchema.parse(raw) as RoleGrantDto[] });
+    return httpResource<RoleGrantDto[]>(() => '/api/role-grants', {
+      parse: (raw) => roleGrantListSchema.parse(raw) as RoleGrantDto[],
+    });
   }
 
   confirm(id: number, password: string): Promise<RoleGrantDto> {

@@ -16,7 +16,12 @@ import { PendingGrants } from './pending-grants';
       <section class="tt-sheet box" aria-labelledby="grants-title"><tt-pending-grants /></section>
     </div>
   `,
-  styles: `.box { padding: 16px; max-width: 760px; }`,
+  styles: `
+    .box {
+      padding: 16px;
+      max-width: 760px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export default class RoleGrantsPage {}

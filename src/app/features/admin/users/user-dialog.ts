@@ -16,7 +16,14 @@ const FIELDS = createUserSchema.shape;
 
 @Component({
   selector: 'tt-user-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatCheckboxModule],
+  imports: [
+    ReactiveFormsModule,
+    MatDialogModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatCheckboxModule,
+  ],
   templateUrl: './user-dialog.html',
   styleUrl: './user-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -30,12 +37,20 @@ export class UserDialog {
   protected readonly roleOptions = ROLES.map((role) => ({ role, label: ROLE_LABELS[role], duty: ROLE_DUTIES[role] }));
   protected readonly form = this.fb.group({
     username: [this.existing?.username ?? '', [Validators.required, schemaValidator(FIELDS.username, 'Username')]],
-    displayName: [this.existing?.displayName ?? '', [Validators.required, schemaValidator(FIELDS.displayName, 'Printed name')]],
+    displayName: [
+      this.existing?.displayName ?? '',
+      [Validators.required, schemaValidator(FIELDS.displayName, 'Printed name')],
+    ],
     email: [this.existing?.email ?? '', [Validators.required, schemaValidator(FIELDS.email, 'E-mail')]],
-    initialPassword: ['', this.existing ? [] : [Validators.required, schemaValidator(FIELDS.initialPassword, 'First password')]],
+    initialPassword: [
+      '',
+      this.existing ? [] : [Validators.required, schemaValidator(FIELDS.initialPassword, 'First password')],
+    ],
   });
   // Roles awaiting confirmation stay ticked: unticking one withdraws the request.
-  protected readonly roles = signal<Set<Role>>(new Set([...(this.existing?.roles ?? []), ...(this.existing?.pendingRoles ?? [])]));
+  protected readonly roles = signal<Set<Role>>(
+    new Set([...(this.existing?.roles ?? []), ...(this.existing?.pendingRoles ?? [])]),
+  );
   protected readonly pending = new Set<Role>(this.existing?.pendingRoles ?? []);
   protected readonly requireCode = signal(this.existing?.secondFactorRequired ?? false);
   protected readonly problems = signal<string[]>([]);
@@ -65,7 +80,13 @@ export class UserDialog {
     const roles = ROLES.filter((r) => this.roles().has(r));
     try {
       const saved = this.existing
-        ? await this.api.update(this.existing.id, { displayName, email, roles, secondFactorRequired: this.requireCode(), version: this.existing.version })
+        ? await this.api.update(this.existing.id, {
+            displayName,
+            email,
+            roles,
+            secondFactorRequired: this.requireCode(),
+            version: this.existing.version,
+          })
         : await this.api.create({ username, displayName, email, roles, initialPassword });
       this.ref.close(saved);
     } catch (error) {

@@ -4,7 +4,11 @@ import { firstValueFrom } from 'rxjs';
 import type { Page } from '../../../../../shared/schemas/common.schema';
 import type { CreateUserRequest, UpdateUserRequest, UserDto } from '../../../../../shared/schemas/user.schema';
 
-export interface UserListParams { page: number; size: number; q: string }
+export interface UserListParams {
+  page: number;
+  size: number;
+  q: string;
+}
 
 @Injectable({ providedIn: 'root' })
 export class UsersApi {

@@ -22,7 +22,21 @@ import { PendingGrants } from './pending-grants';
 
 @Component({
   selector: 'tt-users-page',
-  imports: [DatePipe, MatTableModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule, MatTooltipModule, MatProgressBarModule, EmptyState, LoadFailure, RoleLabelPipe, PendingGrants],
+  imports: [
+    DatePipe,
+    MatTableModule,
+    MatPaginatorModule,
+    MatButtonModule,
+    MatIconModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatTooltipModule,
+    MatProgressBarModule,
+    EmptyState,
+    LoadFailure,
+    RoleLabelPipe,
+    PendingGrants,
+  ],
   templateUrl: './users-page.html',
   styleUrl: './users-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -49,17 +63,24 @@ export default class UsersPage {
   }
 
   protected openEditor(user: UserDto | null): void {
-    this.dialog.open(UserDialog, { data: user, autoFocus: 'first-tabbable' }).afterClosed().subscribe((saved) => {
-      if (!saved) return;
-      this.users.reload();
-      this.pendingGrants().reload();
-    });
+    this.dialog
+      .open(UserDialog, { data: user, autoFocus: 'first-tabbable' })
+      .afterClosed()
+      .subscribe((saved) => {
+        if (!saved) return;
+        this.users.reload();
+        this.pendingGrants().reload();
+      });
   }
 
   protected async toggleActive(user: UserDto): Promise<void> {
     try {
       await this.api.setActive(user.id, !user.active);
-      this.snackBar.open(`${user.displayName} is now ${user.active ? 'deactivated; their sessions have ended' : 'active again'}.`, 'OK', { duration: 5000 });
+      this.snackBar.open(
+        `${user.displayName} is now ${user.active ? 'deactivated; their sessions have ended' : 'active again'}.`,
+        'OK',
+        { duration: 5000 },
+      );
       this.users.reload();
     } catch (error) {
       assertApiFailure(error);

@@ -12,13 +12,34 @@ import { AttachmentsPanel } from './attachments-panel';
 import { SessionStore } from '../../../core/auth/session-store';
 
 const LIST: AttachmentListDto = {
-  canAdd: true, maxBytes: 20 * 1024 * 1024, acceptedTypes: ['PDF', 'PNG'],
-  items: [{ id: 4, revisionId: 7, kind: 'drawing', fileName: 'DRG-7 sheet 1.pdf', mediaType: 'application/pdf', sizeBytes: 4096,
-    sha256: 'ab'.repeat(32), note: '', uploadedBy: { id: 1, name: 'Morwenna Hale' }, createdAt: '2026-12-01T10:00:00Z' }],
+  canAdd: true,
+  maxBytes: 20 * 1024 * 1024,
+  acceptedTypes: ['PDF', 'PNG'],
+  items: [
+    {
+      id: 4,
+      revisionId: 7,
+      kind: 'drawing',
+      fileName: 'DRG-7 sheet 1.pdf',
+      mediaType: 'application/pdf',
+      sizeBytes: 4096,
+      sha256: 'ab'.repeat(32),
+      note: '',
+      uploadedBy: { id: 1, name: 'Morwenna Hale' },
+      createdAt: '2026-12-01T10:00:00Z',
+    },
+  ],
 };
 const REVISION = {
-  id: 7, calcId: 3, status: 'draft',
-  checklist: { manual: [{ id: 'material-certificate', requiresAttachment: 'material-certificate' }, { id: 'drawing-reference', requiresAttachment: 'drawing' }] },
+  id: 7,
+  calcId: 3,
+  status: 'draft',
+  checklist: {
+    manual: [
+      { id: 'material-certificate', requiresAttachment: 'material-certificate' },
+      { id: 'drawing-reference', requiresAttachment: 'drawing' },
+    ],
+  },
 } as unknown as RevisionDto;
 
 let fixture: ComponentFixture<AttachmentsPanel>;
@@ -32,7 +53,11 @@ async function turn(): Promise<void> {
 
 beforeEach(async () => {
   TestBed.configureTestingModule({
-    providers: [provideHttpClient(withInterceptors([errorInterceptor])), provideHttpClientTesting(), { provide: PureAbility, useValue: createAppAbility(defineRulesFor({ id: 1, roles: ['author'] })) }],
+    providers: [
+      provideHttpClient(withInterceptors([errorInterceptor])),
+      provideHttpClientTesting(),
+      { provide: PureAbility, useValue: createAppAbility(defineRulesFor({ id: 1, roles: ['author'] })) },
+    ],
   });
   fixture = TestBed.createComponent(AttachmentsPanel);
   fixture.componentRef.setInput('revision', REVISION);
@@ -49,14 +74,22 @@ describe('attachments panel', () => {
     expect(el.textContent).toContain('application/pdf · 4.0 kB ·');
     const session = TestBed.inject(SessionStore);
     const load = session.load();
-    http.expectOne('/api/session').flush({ user: { id: 1, username: 'mhale', displayName: 'Morwenna Hale', roles: ['author'] }, rules: [], csrfToken: 't' });
+    http.expectOne('/api/session').flush({
+      user: { id: 1, username: 'mhale', displayName: 'Morwenna Hale', roles: ['author'] },
+      rules: [],
+      csrfToken: 't',
+    });
     await load;
     fixture.componentRef.setInput('revision', { ...REVISION, id: 8, author: { id: 1, name: 'Morwenna Hale' } });
     fixture.detectChanges();
-    http.expectOne('/api/revisions/8/attachments').flush({ ...LIST, items: [{ ...LIST.items[0], sizeBytes: 212, uploadedBy: { id: 5, name: 'A co-editor' } }] });
+    http
+      .expectOne('/api/revisions/8/attachments')
+      .flush({ ...LIST, items: [{ ...LIST.items[0], sizeBytes: 212, uploadedBy: { id: 5, name: 'A co-editor' } }] });
     await turn();
     expect(el.textContent).toContain('application/pdf · 212 bytes ·');
-    expect((await TestbedHarnessEnvironment.loader(fixture).getAllHarnesses(MatButtonHarness.with({ text: /Remove/ })))).toHaveLength(1);
+    expect(
+      await TestbedHarnessEnvironment.loader(fixture).getAllHarnesses(MatButtonHarness.with({ text: /Remove/ })),
+    ).toHaveLength(1);
   });
 
   it('when a drawing is attached but no certificate, then the file is a download link and the missing kind is named', () => {
@@ -71,13 +104,21 @@ describe('attachments panel', () => {
     const input = (fixture.nativeElement as HTMLElement).querySelector('input[type="file"]') as HTMLInputElement;
     Object.defineProperty(input, 'files', { value: { item: () => new File(['MZ'], 'drawing.pdf') } });
     input.dispatchEvent(new Event('change'));
-    const attach = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatButtonHarness.with({ text: /Attach/ }));
+    const attach = await TestbedHarnessEnvironment.loader(fixture).getHarness(
+      MatButtonHarness.with({ text: /Attach/ }),
+    );
 
     await attach.click();
-    http.expectOne({ method: 'POST', url: '/api/revisions/7/attachments' })
-      .flush({ code: 'validation', message: 'Invalid input', fieldErrors: { file: ['its content is a Windows program'] } }, { status: 400, statusText: 'Bad Request' });
+    http
+      .expectOne({ method: 'POST', url: '/api/revisions/7/attachments' })
+      .flush(
+        { code: 'validation', message: 'Invalid input', fieldErrors: { file: ['its content is a Windows program'] } },
+        { status: 400, statusText: 'Bad Request' },
+      );
     await turn();
 
-    expect((fixture.nativeElement as HTMLElement).querySelector('[role="alert"]')?.textContent).toBe('The file its content is a Windows program');
+    expect((fixture.nativeElement as HTMLElement).querySelector('[role="alert"]')?.textContent).toBe(
+      'The file its content is a Windows program',
+    );
   });
 });

@@ -1,4 +1,14 @@
-import { ChangeDetectionStrategy, Component, ElementRef, computed, inject, input, output, signal, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  ElementRef,
+  computed,
+  inject,
+  input,
+  output,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { DatePipe, DecimalPipe } from '@angular/common';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -6,7 +16,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatIconModule } from '@angular/material/icon';
-import { ATTACHMENT_KINDS, ATTACHMENT_KIND_LABELS, type AttachmentDto, type AttachmentKind } from '../../../../../shared/schemas/attachment.schema';
+import {
+  ATTACHMENT_KINDS,
+  ATTACHMENT_KIND_LABELS,
+  type AttachmentDto,
+  type AttachmentKind,
+} from '../../../../../shared/schemas/attachment.schema';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { SessionStore } from '../../../core/auth/session-store';
 import { assertApiFailure } from '../../../core/http/api-failure';
@@ -19,7 +34,18 @@ import { EDITABLE_STATES } from '../../../../../shared/schemas/revision.schema';
 /** Drawings, certificates and supporting files of the selected revision, and the form to add one. */
 @Component({
   selector: 'tt-attachments-panel',
-  imports: [DatePipe, DecimalPipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatIconModule, EmptyState, LoadFailure],
+  imports: [
+    DatePipe,
+    DecimalPipe,
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatIconModule,
+    EmptyState,
+    LoadFailure,
+  ],
   templateUrl: './attachments-panel.html',
   styleUrl: './attachments-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -42,12 +68,19 @@ export class AttachmentsPanel {
   protected readonly maxMb = computed(() => (this.list.hasValue() ? this.list.value().maxBytes / 1024 / 1024 : null));
   /** Kinds the standard's manual items ask for that the revision does not have yet. */
   protected readonly missing = computed(() => {
-    const manual = ((this.revision().checklist as { manual?: { requiresAttachment: AttachmentKind | null }[] } | null)?.manual ?? []);
+    const manual =
+      (this.revision().checklist as { manual?: { requiresAttachment: AttachmentKind | null }[] } | null)?.manual ?? [];
     const have = new Set((this.list.hasValue() ? this.list.value().items : []).map((a) => a.kind));
-    return [...new Set(manual.map((m) => m.requiresAttachment).filter((k): k is AttachmentKind => !!k && !have.has(k)))];
+    return [
+      ...new Set(manual.map((m) => m.requiresAttachment).filter((k): k is AttachmentKind => !!k && !have.has(k))),
+    ];
   });
 
-  protected readonly missingText = computed(() => this.missing().map((k) => ATTACHMENT_KIND_LABELS[k].toLowerCase()).join(', '));
+  protected readonly missingText = computed(() =>
+    this.missing()
+      .map((k) => ATTACHMENT_KIND_LABELS[k].toLowerCase())
+      .join(', '),
+  );
 
   protected canRemove(a: AttachmentDto): boolean {
     const me = this.me()?.id;

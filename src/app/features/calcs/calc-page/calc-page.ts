@@ -1,4 +1,12 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, numberAttribute } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  inject,
+  input,
+  linkedSignal,
+  numberAttribute,
+} from '@angular/core';
 import { Router, RouterLink } from '@angular/router';
 import { MatTabsModule } from '@angular/material/tabs';
 import { MatButtonModule } from '@angular/material/button';
@@ -35,8 +43,27 @@ import { IndependentModelPanel } from './independent-model-panel';
 
 @Component({
   selector: 'tt-calc-page',
-  imports: [IndependentModelPanel, RouterLink, MatTabsModule, MatButtonModule, MatIconModule, MatProgressBarModule,
-    SafetyNote, StateBadge, VerdictBadge, ChecklistTable, FindingsPanel, SignaturesPanel, RevisionHistory, AttachmentsPanel, RecordExports, MinimumDiameters, ManualItems, ShaftResults, LoadFailure],
+  imports: [
+    IndependentModelPanel,
+    RouterLink,
+    MatTabsModule,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    SafetyNote,
+    StateBadge,
+    VerdictBadge,
+    ChecklistTable,
+    FindingsPanel,
+    SignaturesPanel,
+    RevisionHistory,
+    AttachmentsPanel,
+    RecordExports,
+    MinimumDiameters,
+    ManualItems,
+    ShaftResults,
+    LoadFailure,
+  ],
   templateUrl: './calc-page.html',
   styleUrl: './calc-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -49,19 +76,24 @@ export default class CalcPage {
   protected readonly me = inject(SessionStore).user;
 
   readonly id = input.required({ transform: numberAttribute });
-  readonly rev = input<number | undefined, unknown>(undefined, { transform: (v) => (v == null ? undefined : Number(v)) });
+  readonly rev = input<number | undefined, unknown>(undefined, {
+    transform: (v) => (v == null ? undefined : Number(v)),
+  });
 
   protected readonly calc = this.api.calc(this.id);
   protected readonly calcInfo = computed(() => (this.calc.hasValue() ? this.calc.value() : undefined));
   protected readonly selectedId = linkedSignal(() => this.rev() ?? this.calcInfo()?.latest.id);
   protected readonly revision = this.api.revision(this.selectedId);
-  protected readonly current = linkedSignal<RevisionDto | undefined>(() => (this.revision.hasValue() ? this.revision.value() : undefined));
+  protected readonly current = linkedSignal<RevisionDto | undefined>(() =>
+    this.revision.hasValue() ? this.revision.value() : undefined,
+  );
   protected readonly isLatest = computed(() => this.current()?.id === this.calcInfo()?.latest.id);
   protected readonly plan = computed(() => {
     const r = this.current();
     if (!r) return null;
     // An archived project is a closed record: the server refuses every write, so nothing is offered.
-    if (this.calcInfo()?.projectArchived) return { actions: new Set<RevisionAction>(), nextStep: 'Nothing more happens here: the project is archived.' };
+    if (this.calcInfo()?.projectArchived)
+      return { actions: new Set<RevisionAction>(), nextStep: 'Nothing more happens here: the project is archived.' };
     return planActions(r, this.me(), this.isLatest());
   });
   protected readonly checklist = computed(() => (this.current()?.checklist ?? null) as Checklist | null);
@@ -72,7 +104,9 @@ export default class CalcPage {
   protected readonly eng = formatEng;
   /** An input issue's place in the editor's words (Segment 3, hole ⌀), features by their tags. */
   protected readonly inputPlace = (path: string) => placeOf(path, featureTypesOf(this.current()?.input));
-  protected readonly findingsLabel = computed(() => findingsTabLabel(countFindings(this.current() ?? { findings: [] })));
+  protected readonly findingsLabel = computed(() =>
+    findingsTabLabel(countFindings(this.current() ?? { findings: [] })),
+  );
 
   protected select(revisionId: number): void {
     void this.router.navigate([], { queryParams: { rev: revisionId }, replaceUrl: true });
@@ -86,36 +120,62 @@ export default class CalcPage {
   protected sign(meaning: SignDialogData['meaning']): void {
     const revision = this.current()!;
     const calcLabel = `${this.calcInfo()?.number} rev ${revision.label}`;
-    this.dialog.open(SignDialog, { data: { revision, meaning, calcLabel } satisfies SignDialogData, width: '600px' })
-      .afterClosed().subscribe((signed?: RevisionDto) => {
+    this.dialog
+      .open(SignDialog, { data: { revision, meaning, calcLabel } satisfies SignDialogData, width: '600px' })
+      .afterClosed()
+      .subscribe((signed?: RevisionDto) => {
         if (!signed) return;
         this.updated(signed);
-        this.snackBar.open(`Signed as ${meaning}. The revision is now ${signed.status.replace('_', ' ')}.`, 'OK', { duration: 6000 });
+        this.snackBar.open(`Signed as ${meaning}. The revision is now ${signed.status.replace('_', ' ')}.`, 'OK', {
+          duration: 6000,
+        });
       });
   }
 
   protected askReason(kind: 'return' | 'withdraw' | 'new-revision'): void {
     const texts: Record<typeof kind, ReasonDialogData> = {
       return: { title: 'Return to the author', label: 'What must change', hint: this.returnHint(), action: 'Return' },
-      withdraw: { title: 'Withdraw this revision', label: 'Reason for withdrawal', hint: 'Kept on the record.', action: 'Withdraw' },
+      withdraw: {
+        title: 'Withdraw this revision',
+        label: 'Reason for withdrawal',
+        hint: 'Kept on the record.',
+        action: 'Withdraw',
+      },
       'new-revision': {
-        title: 'Start a new revision', label: 'Reason for change', hint: 'Printed on the report and kept on the record.', action: 'Start revision',
-        choice: { label: 'Carry over this revision’s attachments', hint: 'Copies the files into the new revision; its signatures will cover them. The audit trail lists what was carried over.' },
+        title: 'Start a new revision',
+        label: 'Reason for change',
+        hint: 'Printed on the report and kept on the record.',
+        action: 'Start revision',
+        choice: {
+          label: 'Carry over this revision’s attachments',
+          hint: 'Copies the files into the new revision; its signatures will cover them. The audit trail lists what was carried over.',
+        },
       },
     };
-    this.dialog.open(ReasonDialog, { data: texts[kind] }).afterClosed().subscribe((answer?: ReasonDialogResult) => {
-      if (answer) void this.applyReason(kind, answer.reason, answer.choice);
-    });
+    this.dialog
+      .open(ReasonDialog, { data: texts[kind] })
+      .afterClosed()
+      .subscribe((answer?: ReasonDialogResult) => {
+        if (answer) void this.applyReason(kind, answer.reason, answer.choice);
+      });
   }
 
-  /** The reason becomes a finding only when none is open; otherwise the open findings go back and the reason rides with the return. */
+  /**
+   * The reason becomes a finding only when none is open; otherwise the open findings go back and the reason rides with
+   * the return.
+   */
   private returnHint(): string {
     const open = (this.current()?.findings ?? []).filter((f) => f.status === 'open').map((f) => `F${f.id}`);
-    return open.length ? `Open ${open.join(', ')} go back for answers; this reason is kept with the return, not added as another finding.`
+    return open.length
+      ? `Open ${open.join(', ')} go back for answers; this reason is kept with the return, not added as another finding.`
       : 'This becomes a finding the author must answer.';
   }
 
-  private async applyReason(kind: 'return' | 'withdraw' | 'new-revision', reason: string, carryAttachments: boolean): Promise<void> {
+  private async applyReason(
+    kind: 'return' | 'withdraw' | 'new-revision',
+    reason: string,
+    carryAttachments: boolean,
+  ): Promise<void> {
     const r = this.current()!;
     try {
       if (kind === 'new-revision') {
@@ -123,7 +183,11 @@ export default class CalcPage {
         await this.router.navigate(['/revisions', created.id, 'edit']);
         return;
       }
-      this.updated(kind === 'return' ? await this.api.returnToAuthor(r.id, reason, r.lockVersion) : await this.api.withdraw(r.id, reason, r.lockVersion));
+      this.updated(
+        kind === 'return'
+          ? await this.api.returnToAuthor(r.id, reason, r.lockVersion)
+          : await this.api.withdraw(r.id, reason, r.lockVersion),
+      );
     } catch (error) {
       assertApiFailure(error);
       this.snackBar.open(error.message, 'OK', { duration: 8000 });

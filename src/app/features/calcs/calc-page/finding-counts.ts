@@ -1,6 +1,10 @@
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 
-export interface FindingCounts { open: number; answered: number; closed: number }
+export interface FindingCounts {
+  open: number;
+  answered: number;
+  closed: number;
+}
 
 /**
  * One count of findings for the tab, the status line and the buttons, so they never disagree:

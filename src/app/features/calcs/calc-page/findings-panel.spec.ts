@@ -9,11 +9,30 @@ import { mountComponent } from '../../../../../test/support/client-harness';
 
 const person = { id: 2, name: 'Idris Penhallow' };
 function finding(id: number, status: FindingDto['status'], answer: string | null = null): FindingDto {
-  return { id, clauseRef: null, text: `Point ${id}`, status, raisedBy: person, createdAt: '2026-12-01T10:00:00Z', answer,
-    answeredBy: answer ? { id: 1, name: 'Morwenna Hale' } : null, answeredAt: answer ? '2026-12-01T11:00:00Z' : null, closedBy: null, closedAt: null } as FindingDto;
+  return {
+    id,
+    clauseRef: null,
+    text: `Point ${id}`,
+    status,
+    raisedBy: person,
+    createdAt: '2026-12-01T10:00:00Z',
+    answer,
+    answeredBy: answer ? { id: 1, name: 'Morwenna Hale' } : null,
+    answeredAt: answer ? '2026-12-01T11:00:00Z' : null,
+    closedBy: null,
+    closedAt: null,
+  } as FindingDto;
 }
-const REVISION = { id: 7, calcId: 3, status: 'returned', author: { id: 1, name: 'Morwenna Hale' }, editorIds: [1], result: {}, verdict: 'compliant',
-  findings: [finding(3, 'answered', 'Chart cited in the notes'), finding(4, 'open')] } as unknown as RevisionDto;
+const REVISION = {
+  id: 7,
+  calcId: 3,
+  status: 'returned',
+  author: { id: 1, name: 'Morwenna Hale' },
+  editorIds: [1],
+  result: {},
+  verdict: 'compliant',
+  findings: [finding(3, 'answered', 'Chart cited in the notes'), finding(4, 'open')],
+} as unknown as RevisionDto;
 
 let d: Awaited<ReturnType<typeof mountComponent<FindingsPanel>>>;
 
@@ -38,7 +57,10 @@ describe('findings', () => {
     await button.click();
     expect(await button.isDisabled()).toBe(true);
     const req = d.http.expectOne({ method: 'POST', url: '/api/findings/4/answer' });
-    req.flush({ ...REVISION, findings: [REVISION.findings[0], finding(4, 'answered', 'Fillet radius raised to 3 mm')] });
+    req.flush({
+      ...REVISION,
+      findings: [REVISION.findings[0], finding(4, 'answered', 'Fillet radius raised to 3 mm')],
+    });
     await d.settle();
     expect(d.element.textContent).not.toContain('Fillet radius raised to 3 mm'.repeat(2));
   });

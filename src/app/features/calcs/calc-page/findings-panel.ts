@@ -13,7 +13,9 @@ import { assertApiFailure } from '../../../core/http/api-failure';
 import { EmptyState } from '../../../ui/empty-state';
 import { CalcsApi } from '../calcs-api';
 
-/** Findings stay on the record with their answers: raised by the reviewer, answered by the author, closed by a reviewer. */
+/**
+ * Findings stay on the record with their answers: raised by the reviewer, answered by the author, closed by a reviewer.
+ */
 @Component({
   selector: 'tt-findings-panel',
   imports: [DatePipe, FormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, EmptyState],
@@ -39,11 +41,14 @@ export class FindingsPanel {
   /** One call at a time: a double click must not answer or raise the same finding twice. */
   protected readonly busy = signal(false);
   protected readonly statusText: Record<FindingDto['status'], string> = {
-    open: 'open: waiting for the author', answered: 'answered: waiting for a reviewer to close it', closed: 'closed',
+    open: 'open: waiting for the author',
+    answered: 'answered: waiting for a reviewer to close it',
+    closed: 'closed',
   };
 
   protected async raise(): Promise<void> {
-    const chosen: AnchorOption = [...this.rowChoices(), ...this.inputChoices()].find((o) => o.key === this.anchorKey()) ?? WHOLE_CALC;
+    const chosen: AnchorOption =
+      [...this.rowChoices(), ...this.inputChoices()].find((o) => o.key === this.anchorKey()) ?? WHOLE_CALC;
     if (await this.run(() => this.api.raiseFinding(this.revision().id, this.draft().trim(), chosen.anchor))) {
       this.draft.set('');
       this.anchorKey.set('');

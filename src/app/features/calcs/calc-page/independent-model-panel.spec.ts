@@ -7,10 +7,24 @@ import { IndependentModelPanel } from './independent-model-panel';
 
 jest.setTimeout(30_000);
 
-const need = { method: 'independent-model' as const, reason: 'KFD-ENG-021 asks for an independent model for every calc: inputs equal within 0.1 % after unit conversion, results within 2 %', tolerances: { inputs: 0.001, results: 0.02 } };
+const need = {
+  method: 'independent-model' as const,
+  reason:
+    'KFD-ENG-021 asks for an independent model for every calc: inputs equal within 0.1 % after unit conversion, results within 2 %',
+  tolerances: { inputs: 0.001, results: 0.02 },
+};
 const checker = { id: 2, name: 'Tobias Okafor' };
-const row = (key: string, label: string, author: number, theirs: number, agrees: boolean) =>
-  ({ key, section: 'input' as const, group: 'segment' as const, label, unit: 'mm', author, checker: theirs, relative: Math.abs(author - theirs) / Math.max(author, theirs), agrees });
+const row = (key: string, label: string, author: number, theirs: number, agrees: boolean) => ({
+  key,
+  section: 'input' as const,
+  group: 'segment' as const,
+  label,
+  unit: 'mm',
+  author,
+  checker: theirs,
+  relative: Math.abs(author - theirs) / Math.max(author, theirs),
+  agrees,
+});
 
 function revision(verification: RevisionVerification): RevisionDto {
   return { id: 7, calcId: 3, status: 'in_check', verification } as unknown as RevisionDto;
@@ -32,7 +46,7 @@ async function render(r: RevisionDto, canBuild = false): Promise<void> {
 
 afterEach(() => http.verify());
 
-it('when a checker has no model yet, then the panel names the required verification and says why the author\'s numbers are hidden', async () => {
+it("when a checker has no model yet, then the panel names the required verification and says why the author's numbers are hidden", async () => {
   await render(revision({ need, blind: true, model: null, signed: null }), true);
   expect(text()).toContain('Verification required: independent model (alternate calculation)');
   expect(text()).toContain('You check this calc blind');
@@ -41,14 +55,34 @@ it('when a checker has no model yet, then the panel names the required verificat
 
 it('when the model is locked with one difference, then the comparison shows both values, the gap and the caution', async () => {
   const comparison = {
-    agrees: false, tolerances: need.tolerances, inputs: { compared: 2, differences: 1 }, results: { compared: 0, differences: 0 },
-    rows: [row('segments[2].od', 'Segment 3 outer diameter', 130, 132, false), row('segments[0].od', 'Segment 1 outer diameter', 100, 100, true)],
+    agrees: false,
+    tolerances: need.tolerances,
+    inputs: { compared: 2, differences: 1 },
+    results: { compared: 0, differences: 0 },
+    rows: [
+      row('segments[2].od', 'Segment 3 outer diameter', 130, 132, false),
+      row('segments[0].od', 'Segment 1 outer diameter', 100, 100, true),
+    ],
   };
-  await render(revision({
-    need, blind: false, model: { state: 'locked', checker, lockedAt: '2026-12-02T07:00:00Z', agrees: false, differences: 1 },
-    signed: { checker: checker.name, lockedAt: '2026-12-02T07:00:00Z', input: {}, modelHash: 'a'.repeat(64), authorHash: 'b'.repeat(64), agrees: false, comparison },
-  }));
-  http.expectOne('/api/revisions/7/independent-model').flush({ message: 'not yours' }, { status: 403, statusText: 'Forbidden' });
+  await render(
+    revision({
+      need,
+      blind: false,
+      model: { state: 'locked', checker, lockedAt: '2026-12-02T07:00:00Z', agrees: false, differences: 1 },
+      signed: {
+        checker: checker.name,
+        lockedAt: '2026-12-02T07:00:00Z',
+        input: {},
+        modelHash: 'a'.repeat(64),
+        authorHash: 'b'.repeat(64),
+        agrees: false,
+        comparison,
+      },
+    }),
+  );
+  http
+    .expectOne('/api/revisions/7/independent-model')
+    .flush({ message: 'not yours' }, { status: 403, statusText: 'Forbidden' });
   fixture.detectChanges();
   await fixture.whenStable();
   expect(text()).toContain('1 difference(s)');

@@ -8,7 +8,8 @@ import { assertApiFailure } from '../../../core/http/api-failure';
 import { SafetyNote } from '../../../ui/safety-note';
 import { IndependentModelApi } from './independent-model-api';
 
-const show = (v: ComparisonRow['author'], unit: string) => (v === null ? '—' : typeof v === 'number' ? `${+v.toPrecision(5)}${unit ? ` ${unit}` : ''}` : String(v));
+const show = (v: ComparisonRow['author'], unit: string) =>
+  v === null ? '—' : typeof v === 'number' ? `${+v.toPrecision(5)}${unit ? ` ${unit}` : ''}` : String(v);
 
 /**
  * Which verification the standard asks for, and the independent model: the checker loads their own
@@ -62,7 +63,8 @@ export class IndependentModelPanel {
       this.model.set(await this.api.save(this.revision().id, input, this.model()?.lockVersion ?? 0));
       this.changed.emit();
     } catch (err) {
-      if (err instanceof SyntaxError) return this.message.set(`${file.name} is not a calc input file (JSON): ${err.message}`);
+      if (err instanceof SyntaxError)
+        return this.message.set(`${file.name} is not a calc input file (JSON): ${err.message}`);
       assertApiFailure(err);
       this.message.set(err.lines().join('; '));
     }

@@ -4,10 +4,23 @@ import { ManualItems } from './manual-items';
 import { mountComponent } from '../../../../../test/support/client-harness';
 
 const MANUAL = [
-  { id: 'material-certificate', text: 'Material certificate attached', requiresAttachment: 'material-certificate', done: false, by: null, note: null },
+  {
+    id: 'material-certificate',
+    text: 'Material certificate attached',
+    requiresAttachment: 'material-certificate',
+    done: false,
+    by: null,
+    note: null,
+  },
   { id: 'load-cases', text: 'Load cases match', requiresAttachment: null, done: false, by: null, note: null },
 ];
-const REVISION = { id: 7, calcId: 3, status: 'in_check', manualItems: {}, checklist: { manual: MANUAL } } as unknown as RevisionDto;
+const REVISION = {
+  id: 7,
+  calcId: 3,
+  status: 'in_check',
+  manualItems: {},
+  checklist: { manual: MANUAL },
+} as unknown as RevisionDto;
 
 let d: Awaited<ReturnType<typeof mountComponent<ManualItems>>>;
 
@@ -17,8 +30,10 @@ beforeEach(async () => {
 afterEach(() => d.http.verify());
 
 const box = (label: RegExp) => d.loader.getHarness(MatCheckboxHarness.with({ label }));
-const refuse = (url: string, message: string) => d.http.expectOne({ method: 'PUT', url })
-  .flush({ code: 'conflict', message }, { status: 409, statusText: 'Conflict' });
+const refuse = (url: string, message: string) =>
+  d.http
+    .expectOne({ method: 'PUT', url })
+    .flush({ code: 'conflict', message }, { status: 409, statusText: 'Conflict' });
 
 describe('manual checklist items', () => {
   it('when the server refuses two ticks, then both boxes show unticked and each keeps its own reason', async () => {
@@ -34,7 +49,10 @@ describe('manual checklist items', () => {
     expect(await certificate.isChecked()).toBe(false);
     expect(await loads.isChecked()).toBe(false);
     const alerts = d.alerts();
-    expect(alerts).toEqual(['Not ticked: Attach a material certificate first', 'Not ticked: The revision changed since you opened it; reload it']);
+    expect(alerts).toEqual([
+      'Not ticked: Attach a material certificate first',
+      'Not ticked: The revision changed since you opened it; reload it',
+    ]);
   });
 
   it('when the server stores the tick, then the stored revision is passed on and the box stays ticked', async () => {
@@ -42,7 +60,10 @@ describe('manual checklist items', () => {
     d.fixture.componentInstance.changed.subscribe((r) => emitted.push(r));
     const loads = await box(/Load cases/);
     await loads.check();
-    const stored = { ...REVISION, manualItems: { 'load-cases': { done: true, note: '', by: 'Idris Penhallow', at: '2026-12-01T10:00:00Z' } } };
+    const stored = {
+      ...REVISION,
+      manualItems: { 'load-cases': { done: true, note: '', by: 'Idris Penhallow', at: '2026-12-01T10:00:00Z' } },
+    };
     d.http.expectOne({ method: 'PUT', url: '/api/revisions/7/manual-items/load-cases' }).flush(stored);
     await d.settle();
     d.fixture.componentRef.setInput('revision', stored);

@@ -16,18 +16,43 @@ import { CalcsApi } from '../calcs-api';
     <ul class="manual">
       @for (m of rows(); track m.id) {
         <li>
-          <mat-checkbox [checked]="m.state?.done ?? false" [disabled]="!canTick() || busy() === m.id"
-            (change)="tick(m.id, $event)">{{ m.text }}</mat-checkbox>
-          @if (m.state?.by) { <span class="tt-muted small">{{ m.state?.done ? 'ticked' : 'unticked' }} by {{ m.state?.by }}</span> }
-          @if (refusals()[m.id]; as why) { <p class="refused" role="alert">Not {{ m.state?.done ? 'unticked' : 'ticked' }}: {{ why }}</p> }
+          <mat-checkbox
+            [checked]="m.state?.done ?? false"
+            [disabled]="!canTick() || busy() === m.id"
+            (change)="tick(m.id, $event)"
+            >{{ m.text }}</mat-checkbox
+          >
+          @if (m.state?.by) {
+            <span class="tt-muted small">{{ m.state?.done ? 'ticked' : 'unticked' }} by {{ m.state?.by }}</span>
+          }
+          @if (refusals()[m.id]; as why) {
+            <p class="refused" role="alert">Not {{ m.state?.done ? 'unticked' : 'ticked' }}: {{ why }}</p>
+          }
         </li>
       }
     </ul>
   `,
   styles: `
-    .manual { list-style: none; padding: 0; margin: 0; li { display: flex; flex-wrap: wrap; align-items: center; gap: 0 10px; } }
-    .small { font-size: 12px; }
-    .refused { flex-basis: 100%; margin: 0 0 6px 40px; color: var(--tt-fail); font-size: 13px; }
+    .manual {
+      list-style: none;
+      padding: 0;
+      margin: 0;
+      li {
+        display: flex;
+        flex-wrap: wrap;
+        align-items: center;
+        gap: 0 10px;
+      }
+    }
+    .small {
+      font-size: 12px;
+    }
+    .refused {
+      flex-basis: 100%;
+      margin: 0 0 6px 40px;
+      color: var(--tt-fail);
+      font-size: 13px;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -17,8 +17,23 @@ import { RuleSetsApi } from '../../rule-sets/rule-sets-api';
   template: `
     @if (rows(); as list) {
       <table class="mins">
-        <caption>Smallest outer diameter per segment that meets every mandatory clause of {{ revision().ruleSet.code }} v{{ revision().ruleSet.version }}</caption>
-        <thead><tr><th>Segment</th><th class="num">Actual od</th><th class="num">Minimum od</th><th>Governing clause</th></tr></thead>
+        <caption>
+          Smallest outer diameter per segment that meets every mandatory clause of
+          {{
+            revision().ruleSet.code
+          }}
+          v{{
+            revision().ruleSet.version
+          }}
+        </caption>
+        <thead>
+          <tr>
+            <th>Segment</th>
+            <th class="num">Actual od</th>
+            <th class="num">Minimum od</th>
+            <th>Governing clause</th>
+          </tr>
+        </thead>
         <tbody>
           @for (m of list; track m.index) {
             <tr [class.under]="m.minimum !== null && m.minimum > m.actual">
@@ -32,27 +47,53 @@ import { RuleSetsApi } from '../../rule-sets/rule-sets-api';
       </table>
     } @else if (ruleSet.error(); as error) {
       <tt-load-failure [error]="error" what="standard's text for minimum diameters" (retry)="ruleSet.reload()" />
-    } @else { <p class="tt-muted">Minimum diameters need valid input and the standard's text; they appear once both are loaded.</p> }
+    } @else {
+      <p class="tt-muted">
+        Minimum diameters need valid input and the standard's text; they appear once both are loaded.
+      </p>
+    }
   `,
   styles: `
-    .mins { width: 100%; border-collapse: collapse; font-size: 13px; }
-    caption { text-align: left; font-weight: 500; padding: 0 0 6px; }
-    th, td { text-align: left; padding: 5px 8px; border-bottom: 1px solid var(--tt-rule); }
-    .num { text-align: right; }
-    tr.under td { background: #fbefed; }
+    .mins {
+      width: 100%;
+      border-collapse: collapse;
+      font-size: 13px;
+    }
+    caption {
+      text-align: left;
+      font-weight: 500;
+      padding: 0 0 6px;
+    }
+    th,
+    td {
+      text-align: left;
+      padding: 5px 8px;
+      border-bottom: 1px solid var(--tt-rule);
+    }
+    .num {
+      text-align: right;
+    }
+    tr.under td {
+      background: #fbefed;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class MinimumDiameters {
   readonly revision = input.required<RevisionDto>();
   protected readonly ruleSet = inject(RuleSetsApi).one(computed(() => this.revision().ruleSet.id));
-  protected readonly unit = computed(() => ((this.revision().input as { units?: string }).units === 'US' ? 'in' : 'mm'));
+  protected readonly unit = computed(() =>
+    (this.revision().input as { units?: string }).units === 'US' ? 'in' : 'mm',
+  );
   protected readonly rows = computed(() => {
     const doc = (this.ruleSet.hasValue() ? this.ruleSet.value().document : undefined) as RuleSet | undefined;
     const checked = validateCalcInput(this.revision().input);
     if (!doc || !checked.ok) return null;
     return minimumDiameters(checked.value, doc).map((m) => ({
-      index: m.segment, label: m.label, actual: m.current, minimum: m.minimum,
+      index: m.segment,
+      label: m.label,
+      actual: m.current,
+      minimum: m.minimum,
       note: m.governing && m.status === 'found' ? `§${m.governing.clauseId} ${m.governing.clauseTitle}` : m.message,
     }));
   });

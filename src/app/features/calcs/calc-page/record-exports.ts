@@ -19,7 +19,11 @@ import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
       <a mat-button [routerLink]="['/verify', hash]"><mat-icon>verified</mat-icon> Verify record</a>
     }
   `,
-  styles: `:host { display: contents; }`,
+  styles: `
+    :host {
+      display: contents;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class RecordExports {

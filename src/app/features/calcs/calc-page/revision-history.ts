@@ -13,15 +13,27 @@ import { CalcsApi } from '../calcs-api';
   imports: [FormsModule, MatButtonModule, MatFormFieldModule, MatSelectModule],
   template: `
     <div class="pick">
-      <mat-form-field><mat-label>From</mat-label>
-        <mat-select [(ngModel)]="from">@for (r of revisions(); track r.id) { <mat-option [value]="r.id">rev {{ r.label }}</mat-option> }</mat-select>
+      <mat-form-field
+        ><mat-label>From</mat-label>
+        <mat-select [(ngModel)]="from">
+          @for (r of revisions(); track r.id) {
+            <mat-option [value]="r.id">rev {{ r.label }}</mat-option>
+          }
+        </mat-select>
       </mat-form-field>
-      <mat-form-field><mat-label>To</mat-label>
-        <mat-select [(ngModel)]="to">@for (r of revisions(); track r.id) { <mat-option [value]="r.id">rev {{ r.label }}</mat-option> }</mat-select>
+      <mat-form-field
+        ><mat-label>To</mat-label>
+        <mat-select [(ngModel)]="to">
+          @for (r of revisions(); track r.id) {
+            <mat-option [value]="r.id">rev {{ r.label }}</mat-option>
+          }
+        </mat-select>
       </mat-form-field>
       <button mat-stroked-button (click)="compare()" [disabled]="!from || !to">Compare</button>
     </div>
-    @if (problem(); as p) { <p class="problem" role="alert">{{ p }}</p> }
+    @if (problem(); as p) {
+      <p class="problem" role="alert">{{ p }}</p>
+    }
     @if (diff(); as d) {
       <h3>Inputs</h3>
       <pre class="diff">{{ d.input ?? 'No differences in the inputs.' }}</pre>
@@ -30,10 +42,28 @@ import { CalcsApi } from '../calcs-api';
     }
   `,
   styles: `
-    .pick { display: flex; gap: 12px; align-items: center; flex-wrap: wrap; }
-    .diff { background: #f3efe6; padding: 10px; border-radius: 4px; font-family: var(--tt-mono); font-size: 12px; overflow-x: auto; white-space: pre; }
-    h3 { font: var(--mat-sys-title-small); margin: 14px 0 6px; }
-    .problem { color: var(--tt-fail); }
+    .pick {
+      display: flex;
+      gap: 12px;
+      align-items: center;
+      flex-wrap: wrap;
+    }
+    .diff {
+      background: #f3efe6;
+      padding: 10px;
+      border-radius: 4px;
+      font-family: var(--tt-mono);
+      font-size: 12px;
+      overflow-x: auto;
+      white-space: pre;
+    }
+    h3 {
+      font: var(--mat-sys-title-small);
+      margin: 14px 0 6px;
+    }
+    .problem {
+      color: var(--tt-fail);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

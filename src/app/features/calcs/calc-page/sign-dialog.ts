@@ -13,7 +13,11 @@ import { AccountApi } from '../../account/account-api';
 import { failingRowText, signingReadiness } from './signing-readiness';
 import { CalcsApi } from '../calcs-api';
 
-export interface SignDialogData { revision: RevisionDto; meaning: 'authored' | 'checked' | 'approved'; calcLabel: string }
+export interface SignDialogData {
+  revision: RevisionDto;
+  meaning: 'authored' | 'checked' | 'approved';
+  calcLabel: string;
+}
 
 const STATEMENTS: Record<SignDialogData['meaning'], string> = {
   authored: 'I prepared this revision, its inputs are as I intend them, and I submit it for independent check.',
@@ -24,7 +28,15 @@ const STATEMENTS: Record<SignDialogData['meaning'], string> = {
 /** Re-authentication for an e-signature: the signer's password, the meaning, and one idempotency key. */
 @Component({
   selector: 'tt-sign-dialog',
-  imports: [ReactiveFormsModule, RouterLink, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, LoadFailure],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatDialogModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    LoadFailure,
+  ],
   templateUrl: './sign-dialog.html',
   styleUrl: './sign-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -37,9 +49,14 @@ export class SignDialog {
   protected readonly statement = STATEMENTS[this.data.meaning];
   // One key per dialog: a double click or a retried request still yields exactly one signature.
   private readonly idempotencyKey = crypto.randomUUID();
-  protected readonly form = inject(NonNullableFormBuilder).group({ password: ['', Validators.required], oneTimeCode: [''] });
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    password: ['', Validators.required],
+    oneTimeCode: [''],
+  });
   protected readonly secondFactor = inject(AccountApi).secondFactor();
-  protected readonly codeSetting = computed(() => (this.secondFactor.hasValue() ? this.secondFactor.value() : undefined));
+  protected readonly codeSetting = computed(() =>
+    this.secondFactor.hasValue() ? this.secondFactor.value() : undefined,
+  );
   protected readonly problem = signal<string | null>(null);
   protected readonly isSigning = signal(false);
   protected readonly readiness = signingReadiness(this.data.revision, this.data.meaning, this.me());
@@ -52,9 +69,11 @@ export class SignDialog {
     this.problem.set(null);
     try {
       const signed = await this.api.sign(this.data.revision.id, {
-        password: this.form.getRawValue().password, meaning: this.data.meaning,
+        password: this.form.getRawValue().password,
+        meaning: this.data.meaning,
         ...(this.codeSetting()?.enrolled ? { oneTimeCode: this.form.getRawValue().oneTimeCode.trim() } : {}),
-        idempotencyKey: this.idempotencyKey, lockVersion: this.data.revision.lockVersion,
+        idempotencyKey: this.idempotencyKey,
+        lockVersion: this.data.revision.lockVersion,
       });
       this.ref.close(signed);
     } catch (error) {
@@ -65,7 +84,10 @@ export class SignDialog {
     }
   }
 
-  /** One error, on the right thing: a wrong password or code marks that field; anything else is a message and the password stays. */
+  /**
+   * One error, on the right thing: a wrong password or code marks that field; anything else is a message and the
+   * password stays.
+   */
   private showFailure(failure: ApiFailure): void {
     const fields = Object.keys(failure.fieldErrors) as ('password' | 'oneTimeCode')[];
     const own = fields.filter((f) => f === 'password' || f === 'oneTimeCode');

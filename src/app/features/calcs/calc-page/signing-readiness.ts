@@ -17,7 +17,9 @@ export interface SigningReadiness {
 /** Mandatory clause rows that fail or could not be evaluated. */
 export function failingMandatoryRows(r: RevisionDto): ChecklistRow[] {
   const checklist = r.checklist as Checklist | null;
-  return (checklist?.rows ?? []).filter((row) => row.severity === 'mandatory' && (row.status === 'fail' || row.status === 'error'));
+  return (checklist?.rows ?? []).filter(
+    (row) => row.severity === 'mandatory' && (row.status === 'fail' || row.status === 'error'),
+  );
 }
 
 /**

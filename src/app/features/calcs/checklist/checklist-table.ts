@@ -5,7 +5,12 @@ import type { Checklist, ChecklistRow } from '../../../../../shared/rules';
 import { formatBeside, formatUtilisation, rowPath, unitText } from '../../../../../shared/format';
 import type { FindingDto } from '../../../../../shared/schemas/calc-dto';
 
-const STATUS_TEXT: Record<ChecklistRow['status'], string> = { pass: 'Pass', fail: 'Fail', 'not-applicable': 'n/a', error: 'Error' };
+const STATUS_TEXT: Record<ChecklistRow['status'], string> = {
+  pass: 'Pass',
+  fail: 'Fail',
+  'not-applicable': 'n/a',
+  error: 'Error',
+};
 
 /** One row per clause and location: status, actual against limit, utilisation, clause reference. */
 @Component({
@@ -20,7 +25,10 @@ const STATUS_TEXT: Record<ChecklistRow['status'], string> = { pass: 'Pass', fail
 export class ChecklistTable {
   readonly checklist = input.required<Checklist>();
   readonly showNotApplicable = input(false);
-  /** Findings raised on this revision: each shows on the row it is anchored to (clause-wide ones on the clause's first row). */
+  /**
+   * Findings raised on this revision: each shows on the row it is anchored to (clause-wide ones on the clause's first
+   * row).
+   */
   readonly findings = input<readonly FindingDto[]>([]);
   private readonly findingsByRow = computed(() => {
     const byRow = new Map<string, FindingDto[]>();
@@ -36,8 +44,15 @@ export class ChecklistTable {
   protected readonly columns = ['clause', 'location', 'status', 'actual', 'limit', 'use'];
 
   // A row that does not apply stays in view when a finding is anchored to it ("this clause should apply here").
-  protected readonly rows = computed(() => this.checklist().rows.filter((r) => this.showNotApplicable() || r.status !== 'not-applicable'
-    || this.findingsByRow().has(`${r.clauseId}|${rowPath(r.location) ?? '*'}`) || this.findingsByRow().has(`${r.clauseId}|*`)));
+  protected readonly rows = computed(() =>
+    this.checklist().rows.filter(
+      (r) =>
+        this.showNotApplicable() ||
+        r.status !== 'not-applicable' ||
+        this.findingsByRow().has(`${r.clauseId}|${rowPath(r.location) ?? '*'}`) ||
+        this.findingsByRow().has(`${r.clauseId}|*`),
+    ),
+  );
 
   /** Rows come grouped by clause; the clause's name is printed once, on its first row. */
   protected isFirstOfClause(index: number): boolean {
@@ -49,13 +64,16 @@ export class ChecklistTable {
     const byRow = this.findingsByRow();
     const here = byRow.get(`${row.clauseId}|${rowPath(row.location) ?? '*'}`) ?? [];
     // A finding on the clause as a whole sits on its first row; a whole-shaft row already matched '*'.
-    const clauseWide = rowPath(row.location) !== null && this.isFirstOfClause(index) ? byRow.get(`${row.clauseId}|*`) ?? [] : [];
+    const clauseWide =
+      rowPath(row.location) !== null && this.isFirstOfClause(index) ? (byRow.get(`${row.clauseId}|*`) ?? []) : [];
     return [...clauseWide, ...here];
   }
 
   /** An advisory failure says so in words, not only in a different colour. */
   protected statusLabel(row: ChecklistRow): string {
-    return row.severity === 'advisory' && (row.status === 'fail' || row.status === 'error') ? `${STATUS_TEXT[row.status]} · advisory` : STATUS_TEXT[row.status];
+    return row.severity === 'advisory' && (row.status === 'fail' || row.status === 'error')
+      ? `${STATUS_TEXT[row.status]} · advisory`
+      : STATUS_TEXT[row.status];
   }
 
   /** Actual and limit with enough digits that the printed pair compares as the numbers do. */

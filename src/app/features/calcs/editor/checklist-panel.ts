@@ -14,18 +14,39 @@ import { placeOf } from './issue-map';
       @case ('ready') {
         @let c = s.checklist;
         <div class="verdict" [attr.data-verdict]="c.verdict">
-          <strong>{{ c.verdict === 'compliant' ? 'Meets' : 'Does not meet' }} {{ c.ruleSet.code }} v{{ c.ruleSet.version }}</strong>
-          <span class="tt-mono">{{ c.counts.pass }} pass · {{ c.counts.mandatoryFail }} mandatory fail · {{ c.counts.error }} error · {{ c.counts.notApplicable }} n/a</span>
-          @if (c.counts.advisoryFail) { <span class="advisory">{{ c.counts.advisoryFail }} advisory not met</span> }
+          <strong
+            >{{ c.verdict === 'compliant' ? 'Meets' : 'Does not meet' }} {{ c.ruleSet.code }} v{{
+              c.ruleSet.version
+            }}</strong
+          >
+          <span class="tt-mono"
+            >{{ c.counts.pass }} pass · {{ c.counts.mandatoryFail }} mandatory fail · {{ c.counts.error }} error ·
+            {{ c.counts.notApplicable }} n/a</span
+          >
+          @if (c.counts.advisoryFail) {
+            <span class="advisory">{{ c.counts.advisoryFail }} advisory not met</span>
+          }
         </div>
-        @for (r of c.verdictReasons; track r) { <p class="reason">{{ r }}</p> }
-        @for (m of c.methodIssues; track m.path) { <p class="reason">{{ place(m.path) }}: {{ m.message }}</p> }
-        <mat-slide-toggle [checked]="showAll()" (change)="showAll.set($event.checked)">Show clauses that do not apply</mat-slide-toggle>
+        @for (r of c.verdictReasons; track r) {
+          <p class="reason">{{ r }}</p>
+        }
+        @for (m of c.methodIssues; track m.path) {
+          <p class="reason">{{ place(m.path) }}: {{ m.message }}</p>
+        }
+        <mat-slide-toggle [checked]="showAll()" (change)="showAll.set($event.checked)"
+          >Show clauses that do not apply</mat-slide-toggle
+        >
         <tt-checklist-table [checklist]="c" [showNotApplicable]="showAll()" />
-        @if (c.manual.length) { <p class="tt-muted small">{{ c.manual.length }} manual items are ticked by the checker on the calc page.</p> }
+        @if (c.manual.length) {
+          <p class="tt-muted small">{{ c.manual.length }} manual items are ticked by the checker on the calc page.</p>
+        }
       }
-      @case ('failed') { <p class="reason" role="alert">{{ s.message }}</p> }
-      @case ('none') { <p class="tt-muted">{{ emptyText() }}</p> }
+      @case ('failed') {
+        <p class="reason" role="alert">{{ s.message }}</p>
+      }
+      @case ('none') {
+        <p class="tt-muted">{{ emptyText() }}</p>
+      }
     }
   `,
   styleUrl: './results.scss',
@@ -37,5 +58,7 @@ export class ChecklistPanel {
   readonly problem = input<string | null>(null);
   protected readonly showAll = signal(false);
   protected readonly place = placeOf;
-  protected readonly emptyText = computed(() => this.problem() ?? 'The checklist appears once the input is complete and valid.');
+  protected readonly emptyText = computed(
+    () => this.problem() ?? 'The checklist appears once the input is complete and valid.',
+  );
 }

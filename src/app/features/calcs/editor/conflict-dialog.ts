@@ -29,5 +29,6 @@ export type ConflictChoice = 'keep-mine' | 'take-theirs' | undefined;
 export class ConflictDialog {
   protected readonly data = inject<ConflictData>(MAT_DIALOG_DATA);
   protected readonly rows = computed(() =>
-    compareInputs(this.data.mine, this.data.theirs.input).map((d) => ({ ...d, place: placeOf(d.path) })));
+    compareInputs(this.data.mine, this.data.theirs.input).map((d) => ({ ...d, place: placeOf(d.path) })),
+  );
 }

@@ -20,7 +20,8 @@ export class DraftStorage {
       const raw = globalThis.localStorage?.getItem(KEY(revisionId));
       if (!raw) return null;
       const d = JSON.parse(raw) as Partial<LocalDraft>;
-      const isValid = typeof d.lockVersion === 'number' && typeof d.savedAt === 'string' && !!d.input && typeof d.input === 'object';
+      const isValid =
+        typeof d.lockVersion === 'number' && typeof d.savedAt === 'string' && !!d.input && typeof d.input === 'object';
       return isValid ? (d as LocalDraft) : null;
     } catch {
       // Private mode or a corrupted entry: behave as if there were no copy rather than break the editor.

@@ -82,7 +82,11 @@ export class EditorSession {
       this.drafts.clear(this.revisionId);
       return;
     }
-    const ok = this.drafts.write(this.revisionId, { lockVersion: this.store.baseLockVersion(), savedAt: new Date().toISOString(), input });
+    const ok = this.drafts.write(this.revisionId, {
+      lockVersion: this.store.baseLockVersion(),
+      savedAt: new Date().toISOString(),
+      input,
+    });
     this.localNote.set(ok ? null : 'This browser refused to keep a local copy (storage full or blocked): save soon.');
   }
 
@@ -119,13 +123,19 @@ export class EditorSession {
     this.drafts.clear(this.revisionId);
     // Edits typed while the save was in flight are kept as a new local copy.
     this.keepLocalCopy();
-    this.snackBar.open(`Saved revision ${outcome.revision.label} (version ${outcome.revision.lockVersion}).`, 'OK', { duration: 4000 });
+    this.snackBar.open(`Saved revision ${outcome.revision.label} (version ${outcome.revision.lockVersion}).`, 'OK', {
+      duration: 4000,
+    });
   }
 
   private async resolve(mine: Record<string, unknown>, current: RevisionDto): Promise<void> {
     this.pendingConflict.set({ mine, current });
     const data: ConflictData = { mine, myBase: this.store.baseLockVersion(), theirs: current };
-    const ref = this.dialog.open<ConflictDialog, ConflictData, ConflictChoice>(ConflictDialog, { data, width: '920px', maxWidth: '96vw' });
+    const ref = this.dialog.open<ConflictDialog, ConflictData, ConflictChoice>(ConflictDialog, {
+      data,
+      width: '920px',
+      maxWidth: '96vw',
+    });
     const choice = await firstValueFrom(ref.afterClosed());
     if (choice === 'keep-mine') await this.settle(await this.store.save(mine, current.lockVersion), mine);
     if (choice === 'take-theirs') {

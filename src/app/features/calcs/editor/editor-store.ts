@@ -31,7 +31,9 @@ export class EditorStore {
   // Keyed on the calc id alone, so a save (a new revision object) does not fetch the heading again.
   private readonly calcId = computed(() => this.stored()?.calcId);
   readonly calc = this.api.calc(this.calcId);
-  readonly calcLabel = computed(() => (this.calc.hasValue() ? `${this.calc.value().number} · ${this.calc.value().title}` : ''));
+  readonly calcLabel = computed(() =>
+    this.calc.hasValue() ? `${this.calc.value().number} · ${this.calc.value().title}` : '',
+  );
 
   async load(id: number): Promise<void> {
     this.loadError.set(null);
@@ -49,7 +51,9 @@ export class EditorStore {
     try {
       const parsed = ruleSetSchema.safeParse((await this.api.getRuleSet(id)).document);
       this.ruleSet.set(parsed.success ? parsed.data : null);
-      this.ruleSetProblem.set(parsed.success ? null : `The design standard ${name} could not be read, so no checklist is shown.`);
+      this.ruleSetProblem.set(
+        parsed.success ? null : `The design standard ${name} could not be read, so no checklist is shown.`,
+      );
     } catch (error) {
       assertApiFailure(error);
       this.ruleSetProblem.set(`The design standard ${name} could not be loaded: ${error.message}`);

@@ -35,7 +35,10 @@ export class FatiguePanel {
   protected readonly imposedText = computed(() => {
     const m = this.imposed();
     if (!m) return null;
-    const parts = [`Table 6-2 ${m.surfaceTable} edition`, m.kfOnMidrange ? 'Kf on midrange stresses' : 'no Kf on midrange stresses'];
+    const parts = [
+      `Table 6-2 ${m.surfaceTable} edition`,
+      m.kfOnMidrange ? 'Kf on midrange stresses' : 'no Kf on midrange stresses',
+    ];
     if (m.reliability !== undefined) parts.push(`${m.reliability} % reliability`);
     return `${parts.join(', ')}; criterion ${m.fatigueCriterion}`;
   });

@@ -13,25 +13,46 @@ import type { IssueMap } from './issue-map';
 import { moveRow } from './row-moves';
 
 type Field = { key: keyof FeatureForm; label: string; quantity: 'length' | 'stress' | null; isOptional: boolean };
-const L = (key: keyof FeatureForm, label: string, isOptional = false): Field => ({ key, label, quantity: 'length', isOptional });
+const L = (key: keyof FeatureForm, label: string, isOptional = false): Field => ({
+  key,
+  label,
+  quantity: 'length',
+  isOptional,
+});
 
 /** The geometry each feature type needs (schema.ts); optional ones say so in their label. */
 const FIELDS: Record<FeatureType, Field[]> = {
   'shoulder-fillet': [L('r', 'Fillet radius r')],
-  keyseat: [L('r', 'Root r', true), L('width', 'Key width', true), L('height', 'Key height', true),
-    L('length', 'Key length', true), { key: 'keySy', label: 'Key Sy', quantity: 'stress', isOptional: true }],
+  keyseat: [
+    L('r', 'Root r', true),
+    L('width', 'Key width', true),
+    L('height', 'Key height', true),
+    L('length', 'Key length', true),
+    { key: 'keySy', label: 'Key Sy', quantity: 'stress', isOptional: true },
+  ],
   'ring-groove': [L('depth', 'Depth'), L('r', 'Root r'), L('width', 'Width', true)],
   'cross-hole': [L('diameter', 'Hole diameter')],
 };
 
 export const FEATURE_NAMES: Record<FeatureType, string> = {
-  'shoulder-fillet': 'Shoulder fillet', keyseat: 'Keyseat', 'ring-groove': 'Ring groove', 'cross-hole': 'Cross hole',
+  'shoulder-fillet': 'Shoulder fillet',
+  keyseat: 'Keyseat',
+  'ring-groove': 'Ring groove',
+  'cross-hole': 'Cross hole',
 };
 
 /** Features at stations, each with the fields of its type and optional chart factors with their source. */
 @Component({
   selector: 'tt-features-list',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, MatMenuModule],
+  imports: [
+    ReactiveFormsModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatIconModule,
+    MatMenuModule,
+  ],
   templateUrl: './features-list.html',
   styleUrl: './editor-panels.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -10,10 +10,17 @@ import type { IssueMap } from './issue-map';
 import { FORCE_KINDS, FORCE_NAMES, forceGroup, type ForceForm, type ForceKind } from './shaft-form';
 import { shaftUnits } from './shaft-units';
 
-interface Field { key: keyof ForceForm; label: string; unit: keyof ReturnType<typeof shaftUnits> | 'deg' | ''; hint?: string }
+interface Field {
+  key: keyof ForceForm;
+  label: string;
+  unit: keyof ReturnType<typeof shaftUnits> | 'deg' | '';
+  hint?: string;
+}
 
 const FORCE_XYZ: Field[] = [
-  { key: 'Fy', label: 'Fy', unit: 'force' }, { key: 'Fz', label: 'Fz', unit: 'force' }, { key: 'Fx', label: 'Fx axial', unit: 'force' },
+  { key: 'Fy', label: 'Fy', unit: 'force' },
+  { key: 'Fz', label: 'Fz', unit: 'force' },
+  { key: 'Fx', label: 'Fx axial', unit: 'force' },
 ];
 const OWN_T: Field = { key: 'T', label: 'T', unit: 'torque', hint: 'blank: torque entry here' };
 const DIRECTION: Field = { key: 'direction', label: 'Direction', unit: 'deg', hint: 'pull, from +y to +z' };
@@ -22,11 +29,24 @@ const DIRECTION: Field = { key: 'direction', label: 'Direction', unit: 'deg', hi
 const FIELDS: Record<ForceKind, Field[]> = {
   point: FORCE_XYZ,
   gear: [
-    { key: 'pitchDiameter', label: 'Pitch ⌀', unit: 'length' }, { key: 'pressureAngle', label: 'Pressure angle', unit: 'deg', hint: 'blank: 20°' },
-    { key: 'helixAngle', label: 'Helix angle', unit: 'deg', hint: 'blank: 0° (spur)' }, { ...DIRECTION, hint: 'mesh, from +y to +z' }, OWN_T,
+    { key: 'pitchDiameter', label: 'Pitch ⌀', unit: 'length' },
+    { key: 'pressureAngle', label: 'Pressure angle', unit: 'deg', hint: 'blank: 20°' },
+    { key: 'helixAngle', label: 'Helix angle', unit: 'deg', hint: 'blank: 0° (spur)' },
+    { ...DIRECTION, hint: 'mesh, from +y to +z' },
+    OWN_T,
   ],
-  pulley: [{ key: 'diameter', label: 'Pitch ⌀', unit: 'length' }, { key: 'pullFactor', label: 'Pull factor', unit: '', hint: 'blank: 1.5 (V-belt)' }, DIRECTION, OWN_T],
-  sprocket: [{ key: 'diameter', label: 'Pitch ⌀', unit: 'length' }, { key: 'pullFactor', label: 'Pull factor', unit: '', hint: 'blank: 1 (chain)' }, DIRECTION, OWN_T],
+  pulley: [
+    { key: 'diameter', label: 'Pitch ⌀', unit: 'length' },
+    { key: 'pullFactor', label: 'Pull factor', unit: '', hint: 'blank: 1.5 (V-belt)' },
+    DIRECTION,
+    OWN_T,
+  ],
+  sprocket: [
+    { key: 'diameter', label: 'Pitch ⌀', unit: 'length' },
+    { key: 'pullFactor', label: 'Pull factor', unit: '', hint: 'blank: 1 (chain)' },
+    DIRECTION,
+    OWN_T,
+  ],
   coupling: [...FORCE_XYZ.slice(0, 2).map((f) => ({ ...f, hint: 'blank: 0' })), OWN_T],
 };
 

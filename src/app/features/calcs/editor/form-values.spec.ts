@@ -7,16 +7,43 @@ import { controlAt, placeOf, toIssueMap } from './issue-map';
 import { editorForm } from './editor-form';
 
 const HEAD = {
-  units: 'SI', title: 'head shaft', notes: 'belt pull from the tension calc',
-  material: { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, Sy: 530, Su: 630, nu: 0.292, source: 'Shigley Table A-20' },
-  segments: [{ label: 'coupling', length: 105, od: 100, id: 0 }, { length: 900, od: 125, id: 40 }],
-  torques: [{ label: 'gearbox', at: 52.5, power: 37, speed: 55 }, { at: 595, T: -6424.0, Ta: -640 }],
+  units: 'SI',
+  title: 'head shaft',
+  notes: 'belt pull from the tension calc',
+  material: {
+    name: 'AISI 1045 CD',
+    kind: 'steel',
+    E: 207,
+    G: 79.3,
+    Sy: 530,
+    Su: 630,
+    nu: 0.292,
+    source: 'Shigley Table A-20',
+  },
+  segments: [
+    { label: 'coupling', length: 105, od: 100, id: 0 },
+    { length: 900, od: 125, id: 40 },
+  ],
+  torques: [
+    { label: 'gearbox', at: 52.5, power: 37, speed: 55 },
+    { at: 595, T: -6424.0, Ta: -640 },
+  ],
   features: [
     { type: 'keyseat', form: 'end-mill', at: 52.5, width: 28, height: 16, length: 100, Sy: 390 },
     { type: 'shoulder-fillet', at: 105, r: 5, Kt: 1.9, Kts: 1.5, source: 'Peterson chart 3.1' },
   ],
-  bending: [{ at: 145, Ma: 0 }, { at: 260, Ma: 4500, Mm: 100 }],
-  fatigue: { surface: 'machined', reliability: 90, temperature: 40, SePrime: 300, SePrimeSource: 'test data', kfOnMidrange: false },
+  bending: [
+    { at: 145, Ma: 0 },
+    { at: 260, Ma: 4500, Mm: 100 },
+  ],
+  fatigue: {
+    surface: 'machined',
+    reliability: 90,
+    temperature: 40,
+    SePrime: 300,
+    SePrimeSource: 'test data',
+    kfOnMidrange: false,
+  },
 };
 
 describe('form values and calc input', () => {
@@ -43,21 +70,28 @@ describe('form values and calc input', () => {
     expect((input['segments'] as object[])[1]).not.toHaveProperty('length');
   });
 
-  it.each([['12', 12], [' -3.5e2 ', -350], ['.5', 0.5], ['', undefined], ['0x10', '0x10'], ['Infinity', 'Infinity'], ['1,5', '1,5']])(
-    'when %p is typed, then the calc value is %p', (text, value) => {
-      expect(fromText(text)).toEqual(value);
-    });
+  it.each([
+    ['12', 12],
+    [' -3.5e2 ', -350],
+    ['.5', 0.5],
+    ['', undefined],
+    ['0x10', '0x10'],
+    ['Infinity', 'Infinity'],
+    ['1,5', '1,5'],
+  ])('when %p is typed, then the calc value is %p', (text, value) => {
+    expect(fromText(text)).toEqual(value);
+  });
 });
 
 describe('switching units converts the values', () => {
   it('when SI goes to US, then values are converted by the engine unit factors to six significant figures, not ten', () => {
     const us = convertValue(inputToValue(HEAD), 'US');
-    expect(us.segments[0].od).toBe('3.93701');      // 100 mm / 25.4
-    expect(us.material.Su).toBe('91.3738');          // 630 MPa / 6.894757 MPa per ksi
-    expect(us.torques[0].power).toBe('49.6178');     // 37 kW / 0.7456999 kW per hp
-    expect(us.torques[0].speed).toBe('55');           // rpm is rpm
-    expect(us.fatigue.temperature).toBe('104');       // 40 °C = 104 °F
-    expect(us.features[1].Kt).toBe('1.9');            // factors have no unit
+    expect(us.segments[0].od).toBe('3.93701'); // 100 mm / 25.4
+    expect(us.material.Su).toBe('91.3738'); // 630 MPa / 6.894757 MPa per ksi
+    expect(us.torques[0].power).toBe('49.6178'); // 37 kW / 0.7456999 kW per hp
+    expect(us.torques[0].speed).toBe('55'); // rpm is rpm
+    expect(us.fatigue.temperature).toBe('104'); // 40 °C = 104 °F
+    expect(us.features[1].Kt).toBe('1.9'); // factors have no unit
     const back = valueToInput(convertValue(us, 'SI'));
     expect(Number(back['material'] && (back['material'] as { G: number }).G)).toBeCloseTo(79.3, 3);
   });
@@ -87,7 +121,12 @@ describe('engine issues and the form', () => {
     expect(controlAt(form, 'segments[9].od')).toBeNull();
     expect(placeOf('bending[1].Ma')).toBe('Bending moment 2, alternating moment');
     expect(placeOf('bending[1]')).toBe('Bending moment 2');
-    expect(toIssueMap([{ path: 'a', message: 'x' }, { path: 'a', message: 'y' }])).toEqual({ a: 'x; y' });
+    expect(
+      toIssueMap([
+        { path: 'a', message: 'x' },
+        { path: 'a', message: 'y' },
+      ]),
+    ).toEqual({ a: 'x; y' });
   });
 
   it('when two inputs differ, then the comparison lists each differing field with both values', () => {

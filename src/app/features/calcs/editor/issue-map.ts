@@ -15,7 +15,10 @@ const RENAMES: Record<string, string> = { Sy: 'keySy' };
 
 /** The form control an engine path names, or null (e.g. `torques` for the balance, `segments[0].material.E`). */
 export function controlAt(form: AbstractControl, path: string): AbstractControl | null {
-  const parts = path.replace(/\[(\d+)\]/g, '.$1').split('.').filter(Boolean);
+  const parts = path
+    .replace(/\[(\d+)\]/g, '.$1')
+    .split('.')
+    .filter(Boolean);
   let c: AbstractControl | null = form;
   parts.forEach((p, k) => {
     const isFeatureSy = parts[0] === 'features' && k === parts.length - 1 && p in RENAMES;

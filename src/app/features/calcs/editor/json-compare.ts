@@ -1,4 +1,8 @@
-export interface FieldDifference { path: string; mine: string; theirs: string }
+export interface FieldDifference {
+  path: string;
+  mine: string;
+  theirs: string;
+}
 
 type Flat = Map<string, string>;
 

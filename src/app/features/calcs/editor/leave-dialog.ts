@@ -12,8 +12,10 @@ export type LeaveChoice = 'leave' | 'stay' | 'save';
   template: `
     <h2 mat-dialog-title>Leave without saving?</h2>
     <mat-dialog-content>
-      <p>Your changes are not saved to the revision. A copy stays in this browser and is offered again when you come back,
-        but nobody else sees it until you save.</p>
+      <p>
+        Your changes are not saved to the revision. A copy stays in this browser and is offered again when you come
+        back, but nobody else sees it until you save.
+      </p>
     </mat-dialog-content>
     <mat-dialog-actions align="end">
       <button mat-button mat-dialog-close="leave">Leave without saving</button>

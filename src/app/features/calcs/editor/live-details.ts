@@ -13,7 +13,13 @@ import type { CriterionKey } from './result-format';
     @if (evaluated(); as ev) {
       <div class="details" [class.is-stale]="isStale()">
         <section aria-labelledby="results-h">
-          <h2 id="results-h">Results <span class="tt-muted engine">engine {{ ev.result.engineVersion }} · {{ ev.result.units }}{{ isStale() ? ' · for the last valid input' : '' }}</span></h2>
+          <h2 id="results-h">
+            Results
+            <span class="tt-muted engine"
+              >engine {{ ev.result.engineVersion }} · {{ ev.result.units
+              }}{{ isStale() ? ' · for the last valid input' : '' }}</span
+            >
+          </h2>
           <tt-shaft-results [result]="ev.result" />
           <tt-results-tables [result]="ev.result" [criterion]="criterion()" [criterionName]="criterionName()" />
         </section>

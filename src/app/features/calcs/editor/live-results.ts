@@ -31,9 +31,15 @@ export class LiveResults {
   readonly ruleSet = input<RuleSet | null>(null);
 
   protected readonly noLimits = NO_LIMITS;
-  private readonly featureTypes = computed(() => ((this.evaluated()?.input as { features?: { type: string }[] } | undefined)?.features ?? []).map((f) => f.type));
-  protected readonly listed = computed(() => this.issues().map((i) => ({ ...i, place: placeOf(i.path, this.featureTypes()) })));
-  protected readonly warnings = computed(() => (this.evaluated()?.result.warnings ?? []).map((w) => ({ ...w, place: placeOf(w.path, this.featureTypes()) })));
+  private readonly featureTypes = computed(() =>
+    ((this.evaluated()?.input as { features?: { type: string }[] } | undefined)?.features ?? []).map((f) => f.type),
+  );
+  protected readonly listed = computed(() =>
+    this.issues().map((i) => ({ ...i, place: placeOf(i.path, this.featureTypes()) })),
+  );
+  protected readonly warnings = computed(() =>
+    (this.evaluated()?.result.warnings ?? []).map((w) => ({ ...w, place: placeOf(w.path, this.featureTypes()) })),
+  );
 
   /** Takes the author to the field an issue names, where the same message is shown. */
   protected focusField(path: string): void {

@@ -13,7 +13,14 @@ import type { IssueMap } from './issue-map';
  * order carries no meaning (stations do), so rows are added and removed but not reordered. */
 @Component({
   selector: 'tt-loads-panel',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatButtonToggleModule, MatIconModule],
+  imports: [
+    ReactiveFormsModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatButtonModule,
+    MatButtonToggleModule,
+    MatIconModule,
+  ],
   templateUrl: './loads-panel.html',
   styleUrl: './editor-panels.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

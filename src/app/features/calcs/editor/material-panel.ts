@@ -5,14 +5,24 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatIconModule } from '@angular/material/icon';
 import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine';
-import { BASIS_LABELS, MATERIAL_LIBRARY, findMaterial, toMaterialInput, valueIn, type MaterialProperty } from '../../../../../shared/materials';
+import {
+  BASIS_LABELS,
+  MATERIAL_LIBRARY,
+  findMaterial,
+  toMaterialInput,
+  valueIn,
+  type MaterialProperty,
+} from '../../../../../shared/materials';
 import type { EditorValue, MaterialForm } from './editor-form';
 import type { IssueMap } from './issue-map';
 import { convertedText, fromText } from './number-text';
 
 const PROPS: [MaterialProperty, string, 'modulus' | 'stress' | null][] = [
-  ['E', "Young's modulus E", 'modulus'], ['G', 'Shear modulus G', 'modulus'], ['nu', "Poisson's ratio ν", null],
-  ['Sy', 'Yield strength Sy', 'stress'], ['Su', 'Ultimate strength Su', 'stress'],
+  ['E', "Young's modulus E", 'modulus'],
+  ['G', 'Shear modulus G', 'modulus'],
+  ['nu', "Poisson's ratio ν", null],
+  ['Sy', 'Yield strength Sy', 'stress'],
+  ['Su', 'Ultimate strength Su', 'stress'],
 ];
 
 const SHORT: Record<MaterialProperty, string> = { E: 'E', G: 'G', nu: 'ν', Sy: 'Sy', Su: 'Su' };
@@ -34,7 +44,9 @@ export class MaterialPanel {
   protected readonly library = MATERIAL_LIBRARY;
   protected readonly labels = computed(() => UNIT_LABELS[this.units()]);
   protected readonly entry = computed(() => findMaterial(this.value().libraryId));
-  protected readonly fields = computed(() => PROPS.map(([key, label, q]) => ({ key, label, unit: q ? this.labels()[q] : '' })));
+  protected readonly fields = computed(() =>
+    PROPS.map(([key, label, q]) => ({ key, label, unit: q ? this.labels()[q] : '' })),
+  );
 
   /** Per value: where it comes from now. A library value the author changed is shown as entered. */
   protected readonly provenance = computed(() => {
@@ -46,15 +58,18 @@ export class MaterialPanel {
       const sourced = e[key];
       const isSame = lib !== null && typeof typed === 'number' && Math.abs(typed - lib) <= 1e-6 * Math.abs(lib);
       const unit = q ? this.labels()[q] : '';
-      const origin = !sourced ? 'no sourced value: enter it with its source'
-        : isSame ? `${sourced.source} · ${BASIS_LABELS[sourced.basis]}`
+      const origin = !sourced
+        ? 'no sourced value: enter it with its source'
+        : isSame
+          ? `${sourced.source} · ${BASIS_LABELS[sourced.basis]}`
           : `entered by the author (library: ${convertedText(lib!)} ${unit}, ${BASIS_LABELS[sourced.basis]})`;
       return { key: key as string, label: SHORT[key], origin, isLibrary: isSame };
     });
     // Values with the same origin are listed together (E, G, ν: Table A-5 · typical value).
     return rows.reduce<typeof rows>((out, r) => {
       const last = out[out.length - 1];
-      if (last && last.origin === r.origin) out[out.length - 1] = { ...last, key: last.key + r.key, label: `${last.label}, ${r.label}` };
+      if (last && last.origin === r.origin)
+        out[out.length - 1] = { ...last, key: last.key + r.key, label: `${last.label}, ${r.label}` };
       else out.push(r);
       return out;
     }, []);
@@ -70,7 +85,15 @@ export class MaterialPanel {
     const m = toMaterialInput(e, this.units());
     const t = (v: number | undefined) => (v === undefined ? '' : String(v));
     this.group().patchValue({
-      libraryId: id, name: e.name, kind: e.kind, E: t(m.E), G: t(m.G), nu: t(m.nu), Sy: t(m.Sy), Su: t(m.Su), source: m.source ?? '',
+      libraryId: id,
+      name: e.name,
+      kind: e.kind,
+      E: t(m.E),
+      G: t(m.G),
+      nu: t(m.nu),
+      Sy: t(m.Sy),
+      Su: t(m.Su),
+      source: m.source ?? '',
     });
   }
 }

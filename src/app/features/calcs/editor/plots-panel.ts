@@ -1,7 +1,15 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { UNIT_LABELS } from '../../../../../shared/engine';
 import {
-  bendingPlot, deflectionPlot, hasBeamModel, shaftLoads, shearPlot, slopePlot, torquePlot, twistPlot, twistRatePlot,
+  bendingPlot,
+  deflectionPlot,
+  hasBeamModel,
+  shaftLoads,
+  shearPlot,
+  slopePlot,
+  torquePlot,
+  twistPlot,
+  twistRatePlot,
 } from '../../../../../shared/plots';
 import { DiagramChart } from '../../../ui/plots/diagram-chart';
 import { ShaftDrawing } from '../../../ui/plots/shaft-drawing';
@@ -27,7 +35,12 @@ import { NO_LIMITS, type PlotLimits } from './plot-limits';
     <tt-diagram-chart [chart]="twist()" />
     <tt-diagram-chart [chart]="twistRate()" />
   `,
-  styles: `:host { display: grid; gap: 18px; }`,
+  styles: `
+    :host {
+      display: grid;
+      gap: 18px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PlotsPanel {
@@ -36,7 +49,9 @@ export class PlotsPanel {
 
   protected readonly lengthUnit = computed(() => UNIT_LABELS[this.evaluated().result.units].length);
   protected readonly hasModel = computed(() => hasBeamModel(this.evaluated().result));
-  protected readonly loads = computed(() => (this.hasModel() ? shaftLoads(this.evaluated().result, this.evaluated().outline) : null));
+  protected readonly loads = computed(() =>
+    this.hasModel() ? shaftLoads(this.evaluated().result, this.evaluated().outline) : null,
+  );
   protected readonly torque = computed(() => torquePlot(this.evaluated().result));
   protected readonly bending = computed(() => bendingPlot(this.evaluated().result));
   protected readonly deflection = computed(() => deflectionPlot(this.evaluated().result, this.limits().deflection));

@@ -14,5 +14,8 @@ export function unitOf(result: CalcResult, field: string): string {
 export type CriterionKey = 'goodman' | 'asmeElliptic' | 'gerber' | 'soderberg';
 
 export const CRITERION_KEYS: Record<string, CriterionKey> = {
-  'DE-Goodman': 'goodman', 'DE-ASME-elliptic': 'asmeElliptic', 'DE-Gerber': 'gerber', 'DE-Soderberg': 'soderberg',
+  'DE-Goodman': 'goodman',
+  'DE-ASME-elliptic': 'asmeElliptic',
+  'DE-Gerber': 'gerber',
+  'DE-Soderberg': 'soderberg',
 };

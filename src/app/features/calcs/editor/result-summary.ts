@@ -5,9 +5,21 @@ import { beamUnit, featureTag, hasBeamModel } from '../../../../../shared/plots'
 import { formatEng, headlineMark, unitText, type HeadlineOutcome } from '../../../../../shared/format';
 import type { CriterionKey } from './result-format';
 
-interface Figure { label: string; value: string; unit: string; where: string; outcome: HeadlineOutcome; limit: string }
+interface Figure {
+  label: string;
+  value: string;
+  unit: string;
+  where: string;
+  outcome: HeadlineOutcome;
+  limit: string;
+}
 
-const OUTCOME_TEXT: Record<HeadlineOutcome, string> = { pass: 'meets', fail: 'FAILS', 'advisory-fail': 'advisory not met', unchecked: '' };
+const OUTCOME_TEXT: Record<HeadlineOutcome, string> = {
+  pass: 'meets',
+  fail: 'FAILS',
+  'advisory-fail': 'advisory not met',
+  unchecked: '',
+};
 
 /**
  * The few numbers an engineer looks at first: largest shear, total twist, lowest safety factors.
@@ -20,9 +32,16 @@ const OUTCOME_TEXT: Record<HeadlineOutcome, string> = { pass: 'meets', fail: 'FA
       @for (f of figures(); track f.label) {
         <div class="figure" [attr.data-outcome]="f.outcome">
           <dt>{{ f.label }}</dt>
-          <dd><span class="value tt-mono">{{ f.value }}</span>@if (f.unit) { <span class="unit">{{ f.unit }}</span> }
-            @if (f.outcome !== 'unchecked') { <span class="mark">{{ outcomeText[f.outcome] }} {{ f.limit }}</span> }
-            <span class="where">{{ f.where }}</span></dd>
+          <dd>
+            <span class="value tt-mono">{{ f.value }}</span>
+            @if (f.unit) {
+              <span class="unit">{{ f.unit }}</span>
+            }
+            @if (f.outcome !== 'unchecked') {
+              <span class="mark">{{ outcomeText[f.outcome] }} {{ f.limit }}</span>
+            }
+            <span class="where">{{ f.where }}</span>
+          </dd>
         </div>
       }
     </dl>
@@ -49,7 +68,14 @@ export class ResultSummary {
     return `segment ${e.index + 1} at ${at}`;
   }
 
-  private figure(label: string, value: number | null | undefined, fact: string, unit: string, where: string, sig: number): Figure {
+  private figure(
+    label: string,
+    value: number | null | undefined,
+    fact: string,
+    unit: string,
+    where: string,
+    sig: number,
+  ): Figure {
     const mark = headlineMark(value, fact, this.checklist(), this.ruleSet(), sig);
     return { label, value: mark.text, unit: unitText(unit), where, outcome: mark.outcome, limit: mark.limitText };
   }
@@ -58,18 +84,59 @@ export class ResultSummary {
     const r = this.result();
     const len = r.fields['at']?.unit ?? '';
     const out: Figure[] = [
-      this.figure('Largest shear τmax', r.maxShear.value, 'tauMax', r.fields['tauMax']?.unit ?? '', `segment ${r.maxShear.segment + 1} at ${formatEng(r.maxShear.at)} ${len}`, 4),
-      this.figure('Total twist φ', r.twistTotal, 'twistTotal', r.fields['twistTotal']?.unit ?? '', `over ${formatEng(r.length)} ${len}`, 4),
+      this.figure(
+        'Largest shear τmax',
+        r.maxShear.value,
+        'tauMax',
+        r.fields['tauMax']?.unit ?? '',
+        `segment ${r.maxShear.segment + 1} at ${formatEng(r.maxShear.at)} ${len}`,
+        4,
+      ),
+      this.figure(
+        'Total twist φ',
+        r.twistTotal,
+        'twistTotal',
+        r.fields['twistTotal']?.unit ?? '',
+        `over ${formatEng(r.length)} ${len}`,
+        4,
+      ),
       this.figure('Lowest yield safety', r.minYieldSafety?.value, 'yieldSafety', '1', this.where(r.minYieldSafety), 3),
     ];
     if (r.minFatigueSafety) {
       const e = r.minFatigueSafety[this.criterion()];
-      out.push(this.figure('Lowest fatigue safety', e?.value, 'fatigueSafety', '1', `${this.criterionName()}, ${this.where(e)}`, 3));
+      out.push(
+        this.figure(
+          'Lowest fatigue safety',
+          e?.value,
+          'fatigueSafety',
+          '1',
+          `${this.criterionName()}, ${this.where(e)}`,
+          3,
+        ),
+      );
     }
     if (hasBeamModel(r)) {
       const c = r.criticalSpeed;
-      out.push(this.figure('Largest deflection δ', r.deflection?.max, 'maxDeflection', beamUnit(r, 'deflection'), `at ${formatEng(r.deflection?.at)} ${len}`, 3));
-      out.push(this.figure('Critical / operating speed', c?.ratio, 'criticalSpeedRatio', '1', c ? `first critical ${formatEng(c.rpm)} rpm` : 'not computed', 3));
+      out.push(
+        this.figure(
+          'Largest deflection δ',
+          r.deflection?.max,
+          'maxDeflection',
+          beamUnit(r, 'deflection'),
+          `at ${formatEng(r.deflection?.at)} ${len}`,
+          3,
+        ),
+      );
+      out.push(
+        this.figure(
+          'Critical / operating speed',
+          c?.ratio,
+          'criticalSpeedRatio',
+          '1',
+          c ? `first critical ${formatEng(c.rpm)} rpm` : 'not computed',
+          3,
+        ),
+      );
     }
     return out;
   });

@@ -21,10 +21,23 @@ export class ResultsTables {
   protected readonly fmt = fmt;
   protected readonly segmentColumns = ['seg', 'dia', 'J', 'T', 'tauMax', 'twist', 'twistPerLength', 'ny', 'nf'];
   // With bearings, the bending moment the model gives at each feature is shown beside its factors.
-  protected readonly featureColumns = computed(() => ['tag', 'at', ...(hasBeamModel(this.result()) ? ['M'] : []), 'Kt', 'Kts', 'q', 'Kf', 'Kfs', 'ny', 'nf']);
+  protected readonly featureColumns = computed(() => [
+    'tag',
+    'at',
+    ...(hasBeamModel(this.result()) ? ['M'] : []),
+    'Kt',
+    'Kts',
+    'q',
+    'Kf',
+    'Kfs',
+    'ny',
+    'nf',
+  ]);
   protected readonly u = computed(() => {
     const r = this.result();
-    return Object.fromEntries(['od', 'J', 'T', 'tauMax', 'twist', 'twistPerLength', 'at', 'M'].map((f) => [f, unitOf(r, f)]));
+    return Object.fromEntries(
+      ['od', 'J', 'T', 'tauMax', 'twist', 'twistPerLength', 'at', 'M'].map((f) => [f, unitOf(r, f)]),
+    );
   });
   protected readonly notchMethod = computed(() => this.result().features[0]?.method.notch ?? null);
 

@@ -21,20 +21,51 @@ import { EDITOR_DEBOUNCE_MS } from './editor-support';
 
 // An invented two-step head shaft with a keyseat: small enough to read, complete enough to evaluate.
 const INPUT = {
-  units: 'SI', material: { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, Sy: 530, Su: 630, nu: 0.292 },
-  segments: [{ label: 'coupling seat', length: 100, od: 60, id: 0 }, { label: 'body', length: 300, od: 70, id: 0 }],
-  torques: [{ at: 50, T: 1500 }, { at: 350, T: -1500 }],
-  features: [{ type: 'keyseat', form: 'end-mill', at: 50 }], bending: [],
+  units: 'SI',
+  material: { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, Sy: 530, Su: 630, nu: 0.292 },
+  segments: [
+    { label: 'coupling seat', length: 100, od: 60, id: 0 },
+    { label: 'body', length: 300, od: 70, id: 0 },
+  ],
+  torques: [
+    { at: 50, T: 1500 },
+    { at: 350, T: -1500 },
+  ],
+  features: [{ type: 'keyseat', form: 'end-mill', at: 50 }],
+  bending: [],
 };
 const ME = { id: 1, roles: ['author'] as const };
 
 function revision(over: Partial<RevisionDto> = {}): RevisionDto {
   return {
-    id: 7, calcId: 3, seq: 0, contentFormat: 2, label: 'A', status: 'draft', verdict: null, author: { id: ME.id, name: 'Morwenna Hale' },
-    checker: null, approver: null, ruleSet: { id: 2, code: 'KFD-ENG-014', version: 3, title: 'Shaft design' },
-    reasonForChange: 'first issue', updatedAt: '2026-12-01T10:00:00Z', approvedAt: null, lockVersion: 0,
-    input: JSON.parse(JSON.stringify(INPUT)), result: null, checklist: null, inputIssues: [], manualItems: {}, contentHash: null,
-    signatures: [], findings: [], submittedAt: null, checkedAt: null, createdAt: '2026-12-01T09:00:00Z', editorIds: [ME.id], ...over,
+    id: 7,
+    calcId: 3,
+    seq: 0,
+    contentFormat: 2,
+    label: 'A',
+    status: 'draft',
+    verdict: null,
+    author: { id: ME.id, name: 'Morwenna Hale' },
+    checker: null,
+    approver: null,
+    ruleSet: { id: 2, code: 'KFD-ENG-014', version: 3, title: 'Shaft design' },
+    reasonForChange: 'first issue',
+    updatedAt: '2026-12-01T10:00:00Z',
+    approvedAt: null,
+    lockVersion: 0,
+    input: JSON.parse(JSON.stringify(INPUT)),
+    result: null,
+    checklist: null,
+    inputIssues: [],
+    manualItems: {},
+    contentHash: null,
+    signatures: [],
+    findings: [],
+    submittedAt: null,
+    checkedAt: null,
+    createdAt: '2026-12-01T09:00:00Z',
+    editorIds: [ME.id],
+    ...over,
   };
 }
 
@@ -79,7 +110,9 @@ beforeEach(() => {
   localStorage.clear();
   TestBed.configureTestingModule({
     providers: [
-      provideHttpClient(withInterceptors([errorInterceptor])), provideHttpClientTesting(), provideRouter([]),
+      provideHttpClient(withInterceptors([errorInterceptor])),
+      provideHttpClientTesting(),
+      provideRouter([]),
       { provide: PureAbility, useValue: createAppAbility(defineRulesFor({ id: ME.id, roles: [...ME.roles] })) },
       { provide: EDITOR_DEBOUNCE_MS, useValue: 0 },
       // Dialogs close on an animation event jsdom never fires; without animations they close at once.
@@ -99,7 +132,8 @@ describe('the calc editor, live in the browser', () => {
     await (await segmentField('segments[0].od')).setValue('75');
     await settle();
 
-    const after = evaluateShaft({ ...INPUT, segments: [{ ...INPUT.segments[0], od: 75 }, INPUT.segments[1]] }).segments[0].tauMax;
+    const after = evaluateShaft({ ...INPUT, segments: [{ ...INPUT.segments[0], od: 75 }, INPUT.segments[1]] })
+      .segments[0].tauMax;
     expect(after).toBeLessThan(before);
     expect(await cell('tauMax')).toBe(formatNumber(after, 4));
   });
@@ -112,11 +146,12 @@ describe('the calc editor, live in the browser', () => {
     await settle();
 
     expect(await od.getValue()).toBe('75');
-    const after = evaluateShaft({ ...INPUT, segments: [{ ...INPUT.segments[0], od: 75 }, INPUT.segments[1]] }).segments[0].tauMax;
+    const after = evaluateShaft({ ...INPUT, segments: [{ ...INPUT.segments[0], od: 75 }, INPUT.segments[1]] })
+      .segments[0].tauMax;
     expect(await cell('tauMax')).toBe(formatNumber(after, 4));
   }, 120_000);
 
-  it('when an inner diameter is not below the outer one, then the engine message shows on that row\'s field', async () => {
+  it("when an inner diameter is not below the outer one, then the engine message shows on that row's field", async () => {
     await open();
     await (await segmentField('segments[1].id')).setValue('80');
     await settle();
@@ -124,7 +159,9 @@ describe('the calc editor, live in the browser', () => {
     const field = await loader.getHarness(MatFormFieldHarness.with({ selector: '[data-field="segments[1].id"]' }));
     expect(await field.getTextErrors()).toEqual(['inner diameter 80 mm is not smaller than outer diameter 70 mm']);
     expect(await field.isControlValid()).toBe(false);
-    expect(fixture.nativeElement.textContent).toContain('Inner ⌀: inner diameter 80 mm is not smaller than outer diameter 70 mm');
+    expect(fixture.nativeElement.textContent).toContain(
+      'Inner ⌀: inner diameter 80 mm is not smaller than outer diameter 70 mm',
+    );
     expect(fixture.nativeElement.textContent).toContain('Results below are for the last valid input');
     expect(fixture.nativeElement.textContent).not.toMatch(/NaN|Infinity/);
   });
@@ -145,10 +182,16 @@ describe('saving and keeping work', () => {
     await open();
     await (await segmentField('segments[0].length')).setValue('120');
     await (await loader.getHarness(MatButtonHarness.with({ text: /Save revision/ }))).click();
-    const theirs = revision({ lockVersion: 1, input: { ...JSON.parse(JSON.stringify(INPUT)), notes: 'changed in another tab' } });
+    const theirs = revision({
+      lockVersion: 1,
+      input: { ...JSON.parse(JSON.stringify(INPUT)), notes: 'changed in another tab' },
+    });
     const put = http.expectOne({ method: 'PUT', url: '/api/revisions/7' });
     expect(put.request.body.lockVersion).toBe(0);
-    put.flush({ code: 'conflict', message: 'saved elsewhere', current: theirs }, { status: 409, statusText: 'Conflict' });
+    put.flush(
+      { code: 'conflict', message: 'saved elsewhere', current: theirs },
+      { status: 409, statusText: 'Conflict' },
+    );
     await settle();
 
     const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
@@ -211,8 +254,12 @@ describe('saving and keeping work', () => {
     const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
     await (await dialog.getHarness(MatButtonHarness.with({ text: 'Save and leave' }))).click();
     await turn();
-    http.expectOne({ method: 'PUT', url: '/api/revisions/7' })
-      .flush({ code: 'validation', message: 'Invalid input', fieldErrors: { 'input.segments': ['is too long'] } }, { status: 400, statusText: 'Bad Request' });
+    http
+      .expectOne({ method: 'PUT', url: '/api/revisions/7' })
+      .flush(
+        { code: 'validation', message: 'Invalid input', fieldErrors: { 'input.segments': ['is too long'] } },
+        { status: 400, statusText: 'Bad Request' },
+      );
     expect(await leaving).toBe(false);
     expect(await (await segmentField('segments[0].label')).getValue()).toBe('drive end');
   });

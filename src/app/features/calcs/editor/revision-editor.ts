@@ -1,4 +1,14 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, numberAttribute, signal, untracked } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  effect,
+  inject,
+  input,
+  numberAttribute,
+  signal,
+  untracked,
+} from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { RouterLink } from '@angular/router';
 import { debounceTime, identity, map, startWith, switchMap } from 'rxjs';
@@ -45,8 +55,26 @@ import { VerdictStrip } from './verdict-strip';
  */
 @Component({
   selector: 'tt-revision-editor',
-  imports: [RouterLink, MatButtonModule, MatButtonToggleModule, MatIconModule, MatProgressBarModule, StateBadge,
-    MaterialPanel, SegmentsTable, FeaturesList, SupportsPanel, LoadsPanel, ForcesPanel, DynamicsPanel, FatiguePanel, NotesPanel, LiveResults, LiveDetails, VerdictStrip],
+  imports: [
+    RouterLink,
+    MatButtonModule,
+    MatButtonToggleModule,
+    MatIconModule,
+    MatProgressBarModule,
+    StateBadge,
+    MaterialPanel,
+    SegmentsTable,
+    FeaturesList,
+    SupportsPanel,
+    LoadsPanel,
+    ForcesPanel,
+    DynamicsPanel,
+    FatiguePanel,
+    NotesPanel,
+    LiveResults,
+    LiveDetails,
+    VerdictStrip,
+  ],
   templateUrl: './revision-editor.html',
   styleUrl: './revision-editor.scss',
   providers: [EditorStore, EditorSession, { provide: ErrorStateMatcher, useClass: EngineErrorState }],
@@ -64,23 +92,41 @@ export default class RevisionEditor {
   protected readonly form = signal<EditorForm>(editorForm(inputToValue({})));
   protected readonly units = signal<UnitSystem>('SI');
   private lastConversion: Conversion | null = null;
-  private readonly value = toSignal(toObservable(this.form).pipe(
-    switchMap((f) => f.valueChanges.pipe(startWith(null), map(() => f.getRawValue()))),
-    this.debounceMs > 0 ? debounceTime(this.debounceMs) : identity,
-  ), { initialValue: this.form().getRawValue() });
+  private readonly value = toSignal(
+    toObservable(this.form).pipe(
+      switchMap((f) =>
+        f.valueChanges.pipe(
+          startWith(null),
+          map(() => f.getRawValue()),
+        ),
+      ),
+      this.debounceMs > 0 ? debounceTime(this.debounceMs) : identity,
+    ),
+    { initialValue: this.form().getRawValue() },
+  );
 
   protected readonly authorValue = this.value;
   protected readonly authorInput = computed(() => valueToInput(this.value()));
   protected readonly live = liveCalc(this.authorInput, this.store.ruleSet);
   protected readonly issueMap = computed(() => toIssueMap(this.live.issues()));
   protected readonly revision = this.store.revision;
-  protected readonly isEditableState = computed(() => !!this.revision() && EDITABLE_STATES.includes(this.revision()!.status));
+  protected readonly isEditableState = computed(
+    () => !!this.revision() && EDITABLE_STATES.includes(this.revision()!.status),
+  );
   protected readonly canEdit = computed(() => {
     const r = this.revision();
-    return !!r && EDITABLE_STATES.includes(r.status)
-      && this.ability.can('update', subject('Revision', { id: r.id, calcId: r.calcId, status: r.status, authorId: r.author.id }));
+    return (
+      !!r &&
+      EDITABLE_STATES.includes(r.status) &&
+      this.ability.can(
+        'update',
+        subject('Revision', { id: r.id, calcId: r.calcId, status: r.status, authorId: r.author.id }),
+      )
+    );
   });
-  protected readonly isDirty = computed(() => this.session.isLoaded() && canonical(this.authorInput()) !== this.session.baseline());
+  protected readonly isDirty = computed(
+    () => this.session.isLoaded() && canonical(this.authorInput()) !== this.session.baseline(),
+  );
   protected readonly criterionName = computed(() => this.store.ruleSet()?.methods.fatigueCriterion ?? 'DE-Goodman');
   protected readonly criterion = computed(() => CRITERION_KEYS[this.criterionName()] ?? 'goodman');
   protected readonly readyChecklist = computed(() => {
@@ -94,7 +140,12 @@ export default class RevisionEditor {
   });
 
   constructor() {
-    this.session.attach({ form: () => this.form(), replace: (v) => this.replaceForm(v), canEdit: this.canEdit, authorInput: this.authorInput });
+    this.session.attach({
+      form: () => this.form(),
+      replace: (v) => this.replaceForm(v),
+      canEdit: this.canEdit,
+      authorInput: this.authorInput,
+    });
     effect(() => {
       const id = this.id();
       untracked(() => void this.session.open(id));

@@ -48,7 +48,11 @@ export class SegmentsTable {
   }
 
   protected add(): void {
-    const last = this.rows().length ? this.rows().at(this.rows().length - 1).getRawValue() : undefined;
+    const last = this.rows().length
+      ? this.rows()
+          .at(this.rows().length - 1)
+          .getRawValue()
+      : undefined;
     // A new segment starts like the last one, which is usually the next step's neighbour.
     this.rows().push(segmentGroup(last ? { od: last.od, id: last.id } : {}));
   }

@@ -4,15 +4,29 @@ import { switchUnits } from './unit-convert';
 
 // Format v2 parts of an invented calc: every kind of force element, X and Y factors, masses, density, speed.
 const V2 = {
-  units: 'SI', material: { name: 'AISI 4140 QT', kind: 'steel', E: 205, G: 80, Sy: 655, Su: 1020, density: 7850 },
-  segments: [{ length: 500, od: 60, id: 0 }], torques: [{ at: 100, T: 800 }, { at: 400, T: -800 }],
-  features: [], bending: [],
+  units: 'SI',
+  material: { name: 'AISI 4140 QT', kind: 'steel', E: 205, G: 80, Sy: 655, Su: 1020, density: 7850 },
+  segments: [{ length: 500, od: 60, id: 0 }],
+  torques: [
+    { at: 100, T: 800 },
+    { at: 400, T: -800 },
+  ],
+  features: [],
+  bending: [],
   supports: [
     { at: 20, kind: 'tapered-roller', C: 80, X: 0.4, Y: 1.6, locating: true, label: 'drive end' },
     { at: 480, kind: 'plain' },
   ],
   loads: [
-    { at: 100, kind: 'gear', pitchDiameter: 180, pressureAngle: 20, helixAngle: 15, direction: 30, label: 'helical pinion' },
+    {
+      at: 100,
+      kind: 'gear',
+      pitchDiameter: 180,
+      pressureAngle: 20,
+      helixAngle: 15,
+      direction: 30,
+      label: 'helical pinion',
+    },
     { at: 400, kind: 'sprocket', diameter: 220, pullFactor: 1, direction: 180, T: -800 },
     { at: 250, Fy: -500, Fz: 200, Fx: 50 },
     { at: 480, kind: 'coupling', Fy: 40 },
@@ -28,7 +42,14 @@ describe('whole-shaft form values', () => {
   });
 
   it('when a calc has no bearings, then the input gains no empty lists or speed, so a v1 calc stays byte-for-byte the same', () => {
-    const v1 = { units: 'SI', material: { kind: 'steel', E: 207, G: 79.3, Sy: 530, Su: 630 }, segments: [{ length: 100, od: 40, id: 0 }], torques: [], features: [], bending: [] };
+    const v1 = {
+      units: 'SI',
+      material: { kind: 'steel', E: 207, G: 79.3, Sy: 530, Su: 630 },
+      segments: [{ length: 100, od: 40, id: 0 }],
+      torques: [],
+      features: [],
+      bending: [],
+    };
     const out = valueToInput(inputToValue(v1));
     expect(out).toEqual(v1);
     expect(Object.keys(out)).not.toEqual(expect.arrayContaining(['supports']));

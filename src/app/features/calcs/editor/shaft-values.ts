@@ -1,6 +1,13 @@
 import { fromText, toText } from './number-text';
 import {
-  BEARING_KINDS, FORCE_FIELDS, FORCE_KINDS, type BearingKind, type ForceKind, type ForceValue, type MassValue, type SupportValue,
+  BEARING_KINDS,
+  FORCE_FIELDS,
+  FORCE_KINDS,
+  type BearingKind,
+  type ForceKind,
+  type ForceValue,
+  type MassValue,
+  type SupportValue,
 } from './shaft-form';
 
 type Json = Record<string, unknown>;
@@ -9,21 +16,40 @@ const obj = (v: unknown): Json => (v && typeof v === 'object' && !Array.isArray(
 const list = (v: unknown): Json[] => (Array.isArray(v) ? v.map(obj) : []);
 const str = (v: unknown): string => (typeof v === 'string' ? v : '');
 
-export interface ShaftValues { supports: SupportValue[]; loads: ForceValue[]; masses: MassValue[]; speed: string }
+export interface ShaftValues {
+  supports: SupportValue[];
+  loads: ForceValue[];
+  masses: MassValue[];
+  speed: string;
+}
 
 /** The whole-shaft parts of a stored input of any completeness; a v1 input gives empty lists. */
 export function inputToShaftValues(input: unknown): ShaftValues {
   const i = obj(input);
   return {
     supports: list(i['supports']).map((s) => ({
-      label: str(s['label']), at: toText(s['at']), C: toText(s['C']), locating: s['locating'] === true, X: toText(s['X']), Y: toText(s['Y']),
+      label: str(s['label']),
+      at: toText(s['at']),
+      C: toText(s['C']),
+      locating: s['locating'] === true,
+      X: toText(s['X']),
+      Y: toText(s['Y']),
       kind: BEARING_KINDS.includes(s['kind'] as BearingKind) ? (s['kind'] as BearingKind) : 'deep-groove-ball',
     })),
     loads: list(i['loads']).map((l) => ({
       kind: FORCE_KINDS.includes(l['kind'] as ForceKind) ? (l['kind'] as ForceKind) : 'point',
-      label: str(l['label']), at: toText(l['at']), Fy: toText(l['Fy']), Fz: toText(l['Fz']), Fx: toText(l['Fx']),
-      pitchDiameter: toText(l['pitchDiameter']), pressureAngle: toText(l['pressureAngle']), helixAngle: toText(l['helixAngle']),
-      diameter: toText(l['diameter']), pullFactor: toText(l['pullFactor']), direction: toText(l['direction']), T: toText(l['T']),
+      label: str(l['label']),
+      at: toText(l['at']),
+      Fy: toText(l['Fy']),
+      Fz: toText(l['Fz']),
+      Fx: toText(l['Fx']),
+      pitchDiameter: toText(l['pitchDiameter']),
+      pressureAngle: toText(l['pressureAngle']),
+      helixAngle: toText(l['helixAngle']),
+      diameter: toText(l['diameter']),
+      pullFactor: toText(l['pullFactor']),
+      direction: toText(l['direction']),
+      T: toText(l['T']),
     })),
     masses: list(i['masses']).map((m) => ({ label: str(m['label']), at: toText(m['at']), mass: toText(m['mass']) })),
     speed: toText(i['speed']),
@@ -48,10 +74,18 @@ function numbers(row: object, keys: readonly string[]): Json {
 export function shaftValuesToInput(v: ShaftValues): Json {
   const out: Json = {};
   if (v.supports.length) {
-    out['supports'] = v.supports.map((s) => ({ ...numbers(s, ['at']), kind: s.kind, ...numbers(s, ['C', 'X', 'Y']), ...(s.locating ? { locating: true } : {}) }));
+    out['supports'] = v.supports.map((s) => ({
+      ...numbers(s, ['at']),
+      kind: s.kind,
+      ...numbers(s, ['C', 'X', 'Y']),
+      ...(s.locating ? { locating: true } : {}),
+    }));
   }
   if (v.loads.length) {
-    out['loads'] = v.loads.map((l) => ({ ...(l.kind === 'point' ? {} : { kind: l.kind }), ...numbers(l, FORCE_FIELDS[l.kind]) }));
+    out['loads'] = v.loads.map((l) => ({
+      ...(l.kind === 'point' ? {} : { kind: l.kind }),
+      ...numbers(l, FORCE_FIELDS[l.kind]),
+    }));
   }
   if (v.masses.length) out['masses'] = v.masses.map((m) => numbers(m, ['at', 'mass']));
   const speed = fromText(v.speed);

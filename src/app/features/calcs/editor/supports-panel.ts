@@ -14,7 +14,15 @@ import { shaftUnits } from './shaft-units';
 /** The bearings: where each sits, its kind (which fixes the life exponent and the slope limit), C and location. */
 @Component({
   selector: 'tt-supports-panel',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatCheckboxModule, MatButtonModule, MatIconModule],
+  imports: [
+    ReactiveFormsModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatCheckboxModule,
+    MatButtonModule,
+    MatIconModule,
+  ],
   templateUrl: './supports-panel.html',
   styleUrl: './editor-panels.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -7,25 +7,48 @@ import { convertedText, fromText, toText } from './number-text';
 type Quantity = EngineQuantity | keyof BeamFactors;
 
 function inBase(v: number, q: Quantity, system: UnitSystem): number {
-  return q in BEAM_BASE[system] ? v * BEAM_BASE[system][q as keyof BeamFactors] : toBase(v, q as EngineQuantity, system);
+  return q in BEAM_BASE[system]
+    ? v * BEAM_BASE[system][q as keyof BeamFactors]
+    : toBase(v, q as EngineQuantity, system);
 }
 
 function fromBaseOf(v: number, q: Quantity, system: UnitSystem): number {
-  return q in BEAM_BASE[system] ? v / BEAM_BASE[system][q as keyof BeamFactors] : fromBase(v, q as EngineQuantity, system);
+  return q in BEAM_BASE[system]
+    ? v / BEAM_BASE[system][q as keyof BeamFactors]
+    : fromBase(v, q as EngineQuantity, system);
 }
 
 // The quantity behind each numeric field, so switching units converts values instead of relabelling them.
-const MATERIAL: Record<string, Quantity> = { E: 'modulus', G: 'modulus', Sy: 'stress', Su: 'stress', density: 'density' };
+const MATERIAL: Record<string, Quantity> = {
+  E: 'modulus',
+  G: 'modulus',
+  Sy: 'stress',
+  Su: 'stress',
+  density: 'density',
+};
 const SEGMENT: Record<string, Quantity> = { length: 'length', od: 'length', id: 'length' };
 const TORQUE: Record<string, Quantity> = { at: 'length', T: 'torque', power: 'power', Ta: 'torque' };
 const FEATURE: Record<string, Quantity> = {
-  at: 'length', r: 'length', width: 'length', height: 'length', length: 'length', depth: 'length', diameter: 'length', keySy: 'stress',
+  at: 'length',
+  r: 'length',
+  width: 'length',
+  height: 'length',
+  length: 'length',
+  depth: 'length',
+  diameter: 'length',
+  keySy: 'stress',
 };
 const BENDING: Record<string, Quantity> = { at: 'length', Ma: 'torque', Mm: 'torque' };
 const SUPPORT: Record<string, Quantity> = { at: 'length', C: 'rating' };
 // Angles, pull factors and the speed have no unit system; everything else on a force element converts.
 const FORCE: Record<string, Quantity> = {
-  at: 'length', Fy: 'force', Fz: 'force', Fx: 'force', pitchDiameter: 'length', diameter: 'length', T: 'torque',
+  at: 'length',
+  Fy: 'force',
+  Fz: 'force',
+  Fx: 'force',
+  pitchDiameter: 'length',
+  diameter: 'length',
+  T: 'torque',
 };
 const MASS: Record<string, Quantity> = { at: 'length', mass: 'mass' };
 const FATIGUE: Record<string, Quantity> = { temperature: 'temperature', SePrime: 'stress' };
@@ -36,7 +59,12 @@ function convertText(text: string, q: Quantity, from: UnitSystem, to: UnitSystem
   return typeof v === 'number' ? convertedText(fromBaseOf(inBase(v, q, from), q, to)) : text;
 }
 
-function convertFields<T extends object>(row: T, fields: Record<string, Quantity>, from: UnitSystem, to: UnitSystem): T {
+function convertFields<T extends object>(
+  row: T,
+  fields: Record<string, Quantity>,
+  from: UnitSystem,
+  to: UnitSystem,
+): T {
   const out = { ...row } as Record<string, unknown>;
   for (const [k, q] of Object.entries(fields)) {
     if (typeof out[k] === 'string') out[k] = convertText(out[k] as string, q, from, to);
@@ -63,9 +91,13 @@ export function convertValue(v: EditorValue, to: UnitSystem): EditorValue {
   const from = v.units;
   if (from === to) return v;
   return {
-    ...v, units: to,
+    ...v,
+    units: to,
     material: convertFields(v.material, MATERIAL, from, to),
-    segments: v.segments.map((s) => ({ ...convertFields(s, SEGMENT, from, to), material: convertMaterialJson(s.material, from, to) })),
+    segments: v.segments.map((s) => ({
+      ...convertFields(s, SEGMENT, from, to),
+      material: convertMaterialJson(s.material, from, to),
+    })),
     torques: v.torques.map((t) => convertFields(t, TORQUE, from, to)),
     features: v.features.map((f) => convertFields(f, FEATURE, from, to)),
     bending: v.bending.map((b) => convertFields(b, BENDING, from, to)),
@@ -77,13 +109,20 @@ export function convertValue(v: EditorValue, to: UnitSystem): EditorValue {
 }
 
 /** The last switch: the values before it and right after it. */
-export interface Conversion { before: EditorValue; after: EditorValue }
+export interface Conversion {
+  before: EditorValue;
+  after: EditorValue;
+}
 
 // Leaf by leaf: a value untouched since the last switch goes back to exactly what was there before it.
 function mergeBack(converted: unknown, current: unknown, after: unknown, before: unknown): unknown {
   if (typeof converted === 'string') return current === after && typeof before === 'string' ? before : converted;
   if (Array.isArray(converted)) {
-    const same = Array.isArray(after) && Array.isArray(before) && (current as unknown[]).length === after.length && after.length === before.length;
+    const same =
+      Array.isArray(after) &&
+      Array.isArray(before) &&
+      (current as unknown[]).length === after.length &&
+      after.length === before.length;
     return same ? converted.map((c, i) => mergeBack(c, (current as unknown[])[i], after[i], before[i])) : converted;
   }
   if (converted && typeof converted === 'object') {
@@ -101,10 +140,15 @@ function mergeBack(converted: unknown, current: unknown, after: unknown, before:
  * Switches units. Switching back restores the values typed before the last switch wherever they were
  * not edited in between, so SI → US → SI never turns 28 into 28.00000001; edited values are converted.
  */
-export function switchUnits(current: EditorValue, to: UnitSystem, last: Conversion | null): { value: EditorValue; conversion: Conversion } {
+export function switchUnits(
+  current: EditorValue,
+  to: UnitSystem,
+  last: Conversion | null,
+): { value: EditorValue; conversion: Conversion } {
   const converted = convertValue(current, to);
-  const value = last && last.before.units === to && last.after.units === current.units
-    ? (mergeBack(converted, current, last.after, last.before) as EditorValue)
-    : converted;
+  const value =
+    last && last.before.units === to && last.after.units === current.units
+      ? (mergeBack(converted, current, last.after, last.before) as EditorValue)
+      : converted;
   return { value, conversion: { before: current, after: value } };
 }

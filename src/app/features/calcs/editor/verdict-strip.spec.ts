@@ -4,15 +4,35 @@ import type { CalcResult } from '../../../../../shared/engine';
 import { VerdictStrip } from './verdict-strip';
 import { ChecklistTable } from '../checklist/checklist-table';
 
-const row = (clauseId: string, severity: string, status: string) => ({ clauseId, clauseTitle: `Clause ${clauseId}`, severity, status,
-  location: { label: 'segment 2' }, actual: null, limit: null, unit: '', utilisation: null, message: 'fails', warnings: [] });
-const CHECKLIST = { verdict: 'compliant', ruleSet: { code: 'KFD-ENG-014', version: 3 }, manual: [],
-  rows: [row('4.1', 'mandatory', 'pass'), row('4.3', 'advisory', 'fail')] } as unknown as Checklist;
+const row = (clauseId: string, severity: string, status: string) => ({
+  clauseId,
+  clauseTitle: `Clause ${clauseId}`,
+  severity,
+  status,
+  location: { label: 'segment 2' },
+  actual: null,
+  limit: null,
+  unit: '',
+  utilisation: null,
+  message: 'fails',
+  warnings: [],
+});
+const CHECKLIST = {
+  verdict: 'compliant',
+  ruleSet: { code: 'KFD-ENG-014', version: 3 },
+  manual: [],
+  rows: [row('4.1', 'mandatory', 'pass'), row('4.3', 'advisory', 'fail')],
+} as unknown as Checklist;
 
 describe('verdict and severity while editing', () => {
   it('when a compliant calc has an advisory failure, then the sticky strip says "meets" and names it as advisory, not as a failure', () => {
     const fixture = TestBed.createComponent(VerdictStrip);
-    fixture.componentRef.setInput('state', { kind: 'ready', checklist: CHECKLIST, ruleSet: {} as RuleSet, result: {} as CalcResult });
+    fixture.componentRef.setInput('state', {
+      kind: 'ready',
+      checklist: CHECKLIST,
+      ruleSet: {} as RuleSet,
+      result: {} as CalcResult,
+    });
     fixture.detectChanges();
     const text = (fixture.nativeElement as HTMLElement).textContent!.replace(/\s+/g, ' ');
     expect(text).toContain('✓ Meets KFD-ENG-014 v3');
@@ -23,9 +43,18 @@ describe('verdict and severity while editing', () => {
 
   it('when an advisory clause fails, then its result reads "Fail · advisory", apart from a mandatory failure', () => {
     const fixture = TestBed.createComponent(ChecklistTable);
-    fixture.componentRef.setInput('checklist', { ...CHECKLIST, rows: [row('5.3', 'mandatory', 'fail'), row('4.3', 'advisory', 'fail')] });
+    fixture.componentRef.setInput('checklist', {
+      ...CHECKLIST,
+      rows: [row('5.3', 'mandatory', 'fail'), row('4.3', 'advisory', 'fail')],
+    });
     fixture.detectChanges();
-    const labels = [...(fixture.nativeElement as HTMLElement).querySelectorAll('.status')].map((s) => [s.textContent!.trim(), s.getAttribute('data-severity')]);
-    expect(labels).toEqual([['Fail', 'mandatory'], ['Fail · advisory', 'advisory']]);
+    const labels = [...(fixture.nativeElement as HTMLElement).querySelectorAll('.status')].map((s) => [
+      s.textContent!.trim(),
+      s.getAttribute('data-severity'),
+    ]);
+    expect(labels).toEqual([
+      ['Fail', 'mandatory'],
+      ['Fail · advisory', 'advisory'],
+    ]);
   });
 });

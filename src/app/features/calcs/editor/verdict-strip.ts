@@ -2,7 +2,11 @@ import { ChangeDetectionStrategy, Component, DOCUMENT, computed, inject, input }
 import type { ChecklistRow } from '../../../../../shared/rules';
 import type { ChecklistState } from './live-calc';
 
-interface Failing { key: string; text: string; advisory: boolean }
+interface Failing {
+  key: string;
+  text: string;
+  advisory: boolean;
+}
 
 /**
  * The live verdict and the clauses that fail, kept in view (sticky) while the author edits, so a
@@ -16,35 +20,106 @@ interface Failing { key: string; text: string; advisory: boolean }
     @if (s.kind === 'ready') {
       @let c = s.checklist;
       <div class="strip" [attr.data-verdict]="c.verdict" role="status" aria-live="polite">
-        <strong class="head">{{ c.verdict === 'compliant' ? '✓ Meets' : '✗ Does not meet' }} {{ c.ruleSet.code }} v{{ c.ruleSet.version }}</strong>
-        @if (mandatory().length) { <span class="count bad">{{ mandatory().length }} mandatory failing</span> }
-        @if (advisory().length) { <span class="count adv">{{ advisory().length }} advisory not met</span> }
+        <strong class="head"
+          >{{ c.verdict === 'compliant' ? '✓ Meets' : '✗ Does not meet' }} {{ c.ruleSet.code }} v{{
+            c.ruleSet.version
+          }}</strong
+        >
+        @if (mandatory().length) {
+          <span class="count bad">{{ mandatory().length }} mandatory failing</span>
+        }
+        @if (advisory().length) {
+          <span class="count adv">{{ advisory().length }} advisory not met</span>
+        }
         <button type="button" class="link" (click)="toChecklist()">Checklist</button>
         @if (failing().length) {
           <ul class="rows" tabindex="0" aria-label="Failing clause rows">
-            @for (f of failing(); track f.key) { <li [class.adv]="f.advisory">{{ f.advisory ? 'advisory' : 'mandatory' }} · {{ f.text }}</li> }
+            @for (f of failing(); track f.key) {
+              <li [class.adv]="f.advisory">{{ f.advisory ? 'advisory' : 'mandatory' }} · {{ f.text }}</li>
+            }
           </ul>
         }
       </div>
     }
   `,
   styles: `
-    :host { display: block; position: sticky; top: 0; z-index: 5; }
-    .strip { display: flex; flex-wrap: wrap; align-items: center; gap: 4px 12px; padding: 6px 12px; margin: 0 0 12px;
-      background: #eef6f0; border: 1px solid #b9d8c4; border-left: 5px solid var(--tt-pass); border-radius: 4px; box-shadow: 0 2px 6px rgb(0 0 0 / 8%);
-      &[data-verdict='not-compliant'] { background: #fbefed; border-color: #e8c4be; border-left-color: var(--tt-fail); }
+    :host {
+      display: block;
+      position: sticky;
+      top: 0;
+      z-index: 5;
     }
-    .head { font-size: 14px; }
-    [data-verdict='compliant'] .head { color: var(--tt-pass); }
-    [data-verdict='not-compliant'] .head { color: var(--tt-fail); }
-    .count { font-size: 12px; font-weight: 600; padding: 1px 6px; border-radius: 3px; }
-    .bad { color: #fff; background: var(--tt-fail); }
-    .adv { color: var(--tt-warn); }
-    .count.adv { background: #fdf1d8; }
-    .link { background: none; border: 0; padding: 0; font: inherit; font-size: 13px; text-decoration: underline; cursor: pointer; color: var(--tt-ink); margin-left: auto; }
-    .rows { flex-basis: 100%; margin: 2px 0 0; padding-left: 18px; font-size: 12.5px; max-height: 7.5em; overflow-y: auto; color: var(--tt-fail); }
-    .rows li.adv { color: var(--tt-warn); }
-    @media (max-width: 700px) { .rows { max-height: 4.6em; } }
+    .strip {
+      display: flex;
+      flex-wrap: wrap;
+      align-items: center;
+      gap: 4px 12px;
+      padding: 6px 12px;
+      margin: 0 0 12px;
+      background: #eef6f0;
+      border: 1px solid #b9d8c4;
+      border-left: 5px solid var(--tt-pass);
+      border-radius: 4px;
+      box-shadow: 0 2px 6px rgb(0 0 0 / 8%);
+      &[data-verdict='not-compliant'] {
+        background: #fbefed;
+        border-color: #e8c4be;
+        border-left-color: var(--tt-fail);
+      }
+    }
+    .head {
+      font-size: 14px;
+    }
+    [data-verdict='compliant'] .head {
+      color: var(--tt-pass);
+    }
+    [data-verdict='not-compliant'] .head {
+      color: var(--tt-fail);
+    }
+    .count {
+      font-size: 12px;
+      font-weight: 600;
+      padding: 1px 6px;
+      border-radius: 3px;
+    }
+    .bad {
+      color: #fff;
+      background: var(--tt-fail);
+    }
+    .adv {
+      color: var(--tt-warn);
+    }
+    .count.adv {
+      background: #fdf1d8;
+    }
+    .link {
+      background: none;
+      border: 0;
+      padding: 0;
+      font: inherit;
+      font-size: 13px;
+      text-decoration: underline;
+      cursor: pointer;
+      color: var(--tt-ink);
+      margin-left: auto;
+    }
+    .rows {
+      flex-basis: 100%;
+      margin: 2px 0 0;
+      padding-left: 18px;
+      font-size: 12.5px;
+      max-height: 7.5em;
+      overflow-y: auto;
+      color: var(--tt-fail);
+    }
+    .rows li.adv {
+      color: var(--tt-warn);
+    }
+    @media (max-width: 700px) {
+      .rows {
+        max-height: 4.6em;
+      }
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -55,7 +130,8 @@ export class VerdictStrip {
   protected readonly failing = computed((): Failing[] => {
     const s = this.state();
     if (s.kind !== 'ready') return [];
-    return s.checklist.rows.filter((r) => r.status === 'fail' || r.status === 'error')
+    return s.checklist.rows
+      .filter((r) => r.status === 'fail' || r.status === 'error')
       .sort((a, b) => Number(a.severity === 'advisory') - Number(b.severity === 'advisory'))
       .map((r, i) => ({ key: `${r.clauseId}-${i}`, text: rowText(r), advisory: r.severity === 'advisory' }));
   });

@@ -19,9 +19,19 @@ const FIELDS = createCalcSchema.shape;
 
 @Component({
   selector: 'tt-new-calc-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonToggleModule, LoadFailure],
+  imports: [
+    ReactiveFormsModule,
+    MatDialogModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonToggleModule,
+    LoadFailure,
+  ],
   templateUrl: './new-calc-dialog.html',
-  styles: '.form { display: grid; gap: 12px; padding-top: 8px; } .problem { color: var(--tt-fail); margin: 0; } .units { display: flex; align-items: center; gap: 12px; }',
+  styles:
+    '.form { display: grid; gap: 12px; padding-top: 8px; } .problem { color: var(--tt-fail); margin: 0; } .units { display: flex; align-items: center; gap: 12px; }',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class NewCalcDialog {
@@ -29,7 +39,9 @@ export class NewCalcDialog {
   private readonly ref = inject(MatDialogRef<NewCalcDialog>);
   protected readonly project = inject<ProjectDto>(MAT_DIALOG_DATA);
   protected readonly ruleSetList = this.api.ruleSets();
-  protected readonly effective = computed(() => (this.ruleSetList.hasValue() ? this.ruleSetList.value() : []).filter((r) => r.status === 'effective'));
+  protected readonly effective = computed(() =>
+    (this.ruleSetList.hasValue() ? this.ruleSetList.value() : []).filter((r) => r.status === 'effective'),
+  );
   protected readonly form = inject(NonNullableFormBuilder).group({
     number: ['', [Validators.required, schemaValidator(FIELDS.number, 'Calc number')]],
     title: ['', [Validators.required, schemaValidator(FIELDS.title, 'Title')]],

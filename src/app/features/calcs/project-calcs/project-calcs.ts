@@ -1,4 +1,13 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, numberAttribute, signal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  effect,
+  inject,
+  input,
+  numberAttribute,
+  signal,
+} from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { Router, RouterLink } from '@angular/router';
 import { MatTableModule } from '@angular/material/table';
@@ -25,7 +34,23 @@ import { NewCalcDialog } from '../new-calc/new-calc-dialog';
 
 @Component({
   selector: 'tt-project-calcs',
-  imports: [DatePipe, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatSelectModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, EmptyState, StateBadge, VerdictBadge, LoadFailure],
+  imports: [
+    DatePipe,
+    RouterLink,
+    MatTableModule,
+    MatSortModule,
+    MatPaginatorModule,
+    MatButtonModule,
+    MatIconModule,
+    MatSelectModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatProgressBarModule,
+    EmptyState,
+    StateBadge,
+    VerdictBadge,
+    LoadFailure,
+  ],
   templateUrl: './project-calcs.html',
   styleUrl: './project-calcs.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -38,11 +63,19 @@ export default class ProjectCalcs {
 
   protected readonly project = inject(ProjectsApi).one(this.id);
   protected readonly projectInfo = computed(() => (this.project.hasValue() ? this.project.value() : undefined));
-  protected readonly params = signal<Omit<CalcListParams, 'projectId' | 'size' | 'after'>>({ q: '', sort: 'updatedAt', dir: 'desc' });
+  protected readonly params = signal<Omit<CalcListParams, 'projectId' | 'size' | 'after'>>({
+    q: '',
+    sort: 'updatedAt',
+    dir: 'desc',
+  });
   protected readonly pager = new KeysetPager(25);
-  protected readonly calcs = inject(CalcsApi).list(computed(() => ({ ...this.params(), projectId: this.id(), size: this.pager.size(), after: this.pager.after() })));
+  protected readonly calcs = inject(CalcsApi).list(
+    computed(() => ({ ...this.params(), projectId: this.id(), size: this.pager.size(), after: this.pager.after() })),
+  );
   protected readonly rows = computed(() => (this.calcs.hasValue() ? this.calcs.value().items : []));
-  protected readonly canCreate = computed(() => this.ability.can('create', 'Calc') && this.projectInfo()?.status === 'active');
+  protected readonly canCreate = computed(
+    () => this.ability.can('create', 'Calc') && this.projectInfo()?.status === 'active',
+  );
   protected readonly states = REVISION_STATES.map((s) => ({ value: s, label: STATE_LABELS[s] }));
   protected readonly columns = ['number', 'title', 'revision', 'status', 'verdict', 'author', 'updatedAt'];
 
@@ -59,7 +92,11 @@ export default class ProjectCalcs {
 
   protected sortBy(sort: Sort): void {
     this.pager.reset();
-    this.params.update((p) => ({ ...p, sort: sort.direction ? sort.active : 'updatedAt', dir: sort.direction || 'desc' }));
+    this.params.update((p) => ({
+      ...p,
+      sort: sort.direction ? sort.active : 'updatedAt',
+      dir: sort.direction || 'desc',
+    }));
   }
 
   protected changePage(e: PageEvent): void {
@@ -67,10 +104,11 @@ export default class ProjectCalcs {
   }
 
   protected startCalc(): void {
-    this.dialog.open(NewCalcDialog, { data: this.projectInfo(), autoFocus: 'first-tabbable', width: '620px' })
-      .afterClosed().subscribe((created?: { calcId: number; revisionId: number }) => {
+    this.dialog
+      .open(NewCalcDialog, { data: this.projectInfo(), autoFocus: 'first-tabbable', width: '620px' })
+      .afterClosed()
+      .subscribe((created?: { calcId: number; revisionId: number }) => {
         if (created) void this.router.navigate(['/revisions', created.revisionId, 'edit']);
       });
   }
 }
-

@@ -152,7 +152,8 @@ const REQUEST_FIELDS: Record<string, string> = {
   partRef: 'Part or drawing reference',
   projectId: 'Project',
   ruleSetId: 'Design standard',
-  code: 'Project code',
+  // Both a project's code and a one-time code are sent as `code`: the label must fit both forms.
+  code: 'Code',
   name: 'Name',
   username: 'Username',
   email: 'Email',

@@ -1,3 +1,4 @@
+import { fieldLabel } from '../../shared/engine/field-places';
 import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import { createTestUser, signedInAs, startTestApp, TEST_PASSWORD } from '../support/api-harness';
@@ -86,7 +87,8 @@ describe('field errors', () => {
     expect(res.body.code).toBe('validation');
     expect(Object.keys(res.body.fieldErrors)).toEqual([field]);
     expect(res.body.fieldErrors[field][0]).toMatch(/\w{3,}/);
-    expect(res.body.message).toContain(field);
+    // The summary names the field as the form labels it (Username, Email, Roles).
+    expect(res.body.message).toContain(fieldLabel(field));
   });
 
   // Create and update schemas are strict: a field that is not on the form is named and refused.

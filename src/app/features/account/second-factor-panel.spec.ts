@@ -53,7 +53,7 @@ describe('the one-time code panel', () => {
       .flush(...refusal(400, 'Invalid input', { code: ['The code does not match; try the next one'] }));
     await d.settle();
 
-    expect(d.alerts()).toEqual(['code: The code does not match; try the next one']);
+    expect(d.alerts()).toEqual(['Code: The code does not match; try the next one']);
     expect(await d.button('Confirm')).toBeTruthy();
     d.http.verify();
   });

@@ -37,7 +37,9 @@ describe('the project dialog', () => {
     await d.settle();
 
     d.http.expectNone('/api/projects');
-    expect(await (await d.field(/Project code/)).getTextErrors()).toEqual(['Use capital letters, digits and dashes']);
+    expect(await (await d.field(/Project code/)).getTextErrors()).toEqual([
+      'Project code may use capital letters, digits and dashes',
+    ]);
   });
 
   it('when a new project is valid, then it is created with the chosen revision scheme and the dialog closes with it', async () => {

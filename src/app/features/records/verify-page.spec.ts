@@ -84,7 +84,9 @@ describe('the verify page', () => {
     d.http.expectOne(`/api/verify/${HASH}`).flush(...refusal(500, 'The record store cannot be read just now'));
     await d.settle();
 
-    expect(d.alerts()).toEqual(['The record store cannot be read just now']);
+    const [alert] = d.alerts();
+    expect(alert).toContain('The server failed to load the record for this hash');
+    expect(alert).toContain('The record store cannot be read just now');
     d.http.verify();
   });
 });

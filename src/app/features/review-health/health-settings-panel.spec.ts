@@ -1,5 +1,6 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
-import { provideHttpClient } from '@angular/common/http';
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { errorInterceptor } from '../../core/http/error-interceptor';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { HEALTH_SETTING_FIELDS, type HealthSettingsDto } from '../../../../shared/schemas/review-health.schema';
 import { HealthSettingsPanel } from './health-settings-panel';
@@ -33,7 +34,9 @@ async function turn(): Promise<void> {
 }
 
 beforeEach(async () => {
-  TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] });
+  TestBed.configureTestingModule({
+    providers: [provideHttpClient(withInterceptors([errorInterceptor])), provideHttpClientTesting()],
+  });
   fixture = TestBed.createComponent(HealthSettingsPanel);
   http = TestBed.inject(HttpTestingController);
   fixture.detectChanges();

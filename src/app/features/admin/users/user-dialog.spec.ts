@@ -44,10 +44,10 @@ describe('the account dialog', () => {
     expect(d.alerts()).toEqual(['Give the person at least one role']);
     const username = await d.loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: /Username/ }));
     expect(await username.getTextErrors()).toEqual([
-      'At least 3 characters: lower-case letters, digits, dot, dash, underscore',
+      'Username may use lower-case letters, digits, dot, dash and underscore, starting with a letter or digit',
     ]);
     const password = await d.loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: /First password/ }));
-    expect(await password.getTextErrors()).toEqual(['At least 12 characters']);
+    expect(await password.getTextErrors()).toEqual(['First password must be at least 12 characters']);
     expect(d.closed).toEqual([]);
   });
 

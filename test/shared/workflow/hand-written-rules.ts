@@ -32,6 +32,7 @@ const RULES_BY_ROLE: Record<Role, (user: AbilityUser, b: Builder) => void> = {
     can(['create', 'update'], 'RuleSet', { status: 'draft' });
     can(['publish', 'impact'], 'RuleSet');
     can('audit', 'all');
+    reviewHealth(can);
     secondPersonForRoles(user, can);
   },
   admin(user, { can }) {
@@ -42,9 +43,16 @@ const RULES_BY_ROLE: Record<Role, (user: AbilityUser, b: Builder) => void> = {
     can('assignRoles', 'User', { id: { $ne: user.id } });
     can('deactivate', 'User');
     can('update', 'Project');
+    reviewHealth(can);
     secondPersonForRoles(user, can);
   },
 };
+
+// Added with the review-health signals (not revision rules, so not derived from the workflow table).
+function reviewHealth(can: Builder['can']): void {
+  can('read', 'ReviewHealth');
+  can(['read', 'update'], 'HealthSettings');
+}
 
 function secondPersonForRoles(user: AbilityUser, can: Builder['can']): void {
   can('read', 'RoleGrant');

@@ -118,6 +118,10 @@ describe('the buttons a revision offers, read from the workflow table', () => {
     expect(planActions(checked, person(CHECKER, ['approver']), true).nextStep).toBe(
       'Waiting for approval by someone other than its checker.',
     );
+    // The checker who just signed, holding no approver role, is told the same.
+    expect(planActions(checked, person(CHECKER, ['checker']), true).nextStep).toBe(
+      'Waiting for approval by someone other than its checker.',
+    );
     expect(
       planActions(revision({ status: 'in_check', editorIds: [AUTHOR, CHECKER] }), person(CHECKER, ['checker']), true)
         .nextStep,

@@ -66,9 +66,10 @@ function turnRefusal(turn: Turn, r: RevisionDto, me: SessionUser): string | null
   if (holdsRole && RELATION[turn.relation].holds(me.id, parties)) return null;
   const waiting =
     turn.relation === 'own' ? `With its author, ${r.author.name}.` : `Waiting for ${WAITING[turn.signs]}.`;
-  if (!holdsRole || turn.relation === 'own') return waiting;
+  // Its checker is told who is awaited, whether or not they also hold the role that signs next.
   if (turn.relation === 'independent-of-checker' && me.id === parties.checkerId) {
     return `Waiting for ${WAITING[turn.signs]} by someone other than its checker.`;
   }
+  if (!holdsRole || turn.relation === 'own') return waiting;
   return `${waiting} You edited this calc, so you cannot ${VERB[turn.signs]} it.`;
 }

@@ -8,9 +8,21 @@ export interface Tally {
   slowestMs: number;
   /** Requests that got no HTTP answer at all, and why (the client retries them). */
   noAnswer: string[];
+  /**
+   * Answers whose headers came but whose body was cut off because the instance died while sending
+   * it: nothing can turn those into a 503 any more; the client sees the cut and retries.
+   */
+  cutMidAnswer: string[];
 }
 
-export const newTally = (): Tally => ({ byStatus: {}, hangs: 0, unclean503: 0, slowestMs: 0, noAnswer: [] });
+export const newTally = (): Tally => ({
+  byStatus: {},
+  hangs: 0,
+  unclean503: 0,
+  slowestMs: 0,
+  noAnswer: [],
+  cutMidAnswer: [],
+});
 
 export interface Reply {
   status: number;
@@ -48,7 +60,17 @@ export class ApiClient {
       });
       const cookie = res.headers.getSetCookie().find((c) => c.startsWith('tt.sid='));
       if (cookie) this.cookie = cookie.split(';')[0];
-      const text = await res.text();
+      const text = await res.text().catch((err: Error) => {
+        if (err.name === 'TimeoutError') throw err; // a hang, counted below
+        this.tally.cutMidAnswer.push(
+          `${new Date().toISOString()} ${method} ${url} (${res.status}): ${String(err.cause ?? err)}`,
+        );
+        return null;
+      });
+      if (text === null) {
+        this.tally.byStatus['cut'] = (this.tally.byStatus['cut'] ?? 0) + 1;
+        return { status: 0, body: 'answer cut off', retryAfter: 1 };
+      }
       reply = {
         status: res.status,
         body: text.startsWith('{') || text.startsWith('[') ? JSON.parse(text) : text,

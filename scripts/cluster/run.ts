@@ -127,6 +127,7 @@ async function main(root: string): Promise<number> {
     );
 
     for (const line of tally.noAnswer) log(`no HTTP answer: ${line}`);
+    for (const line of tally.cutMidAnswer) log(`answer cut off mid-body by the killed instance (retried): ${line}`);
     for (const node of cluster.nodes) await cluster.waitSynced(node);
     const problems: string[] = [];
     if (tally.hangs) problems.push(`${tally.hangs} requests waited longer than 10 s`);

@@ -15,6 +15,7 @@ import { requireSignIn } from './authz/require-sign-in';
 import { apiNotFound, errorHandler } from './errors/error-handler';
 import { createServices } from './services';
 import { apiMounts } from './routes';
+import { installPlainWords } from '../shared/schemas/plain-words';
 
 export interface AppDeps {
   sequelize: Sequelize;
@@ -23,6 +24,7 @@ export interface AppDeps {
 
 /** Builds the Express app (API and, when built, the client) without listening. */
 export function createApp({ sequelize, config }: AppDeps): Express {
+  installPlainWords();
   const app = express();
   const passport = createPassport();
   app.disable('x-powered-by');

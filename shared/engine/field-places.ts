@@ -107,13 +107,18 @@ const GROUPS: Record<string, string> = {
   beam: 'Beam model',
 };
 
+/** A map's own entry only: a key such as `constructor` or `__proto__` must not find Object's members. */
+function own(map: Record<string, string>, key: string): string | undefined {
+  return Object.hasOwn(map, key) ? map[key] : undefined;
+}
+
 const ENTRY = /^(segments|torques|features|bending|supports|loads|masses)\[(\d+)\]((?:\.\w+)*)/;
 
 function fieldWords(rest: string): string[] {
   return rest
     .split('.')
     .filter(Boolean)
-    .map((k) => FIELD_WORDS[k] ?? k);
+    .map((k) => own(FIELD_WORDS, k) ?? k);
 }
 
 /**
@@ -133,8 +138,9 @@ export function placeOf(path: string, featureTypes: readonly string[] = []): str
   }
   const [head, ...rest] = path.split('.');
   const group = head.replace(/\[\d+\]$/, '');
-  if (!(group in GROUPS)) return path;
-  return [GROUPS[group], ...fieldWords(rest.join('.'))].join(', ');
+  const words = own(GROUPS, group);
+  if (words === undefined) return path;
+  return [words, ...fieldWords(rest.join('.'))].join(', ');
 }
 
 // Request fields as the forms label them (the calc header, sign-in, signing, findings, returns).
@@ -180,11 +186,9 @@ export function fieldLabel(key: string, featureTypes: readonly string[] = []): s
   if (key === '' || key === 'record') return 'Request';
   if (key.startsWith('input.')) return placeOf(key.slice('input.'.length), featureTypes);
   if (key === 'input') return 'Calc input';
-  if (key.startsWith('params.')) return `The address (${REQUEST_FIELDS[key.slice(7)] ?? key.slice(7)})`;
-  if (key.startsWith('query.')) return REQUEST_FIELDS[key.slice(6)] ?? key.slice(6);
-  if (key in REQUEST_FIELDS) return REQUEST_FIELDS[key];
-  const place = placeOf(key, featureTypes);
-  return place;
+  if (key.startsWith('params.')) return `The address (${own(REQUEST_FIELDS, key.slice(7)) ?? key.slice(7)})`;
+  if (key.startsWith('query.')) return own(REQUEST_FIELDS, key.slice(6)) ?? key.slice(6);
+  return own(REQUEST_FIELDS, key) ?? placeOf(key, featureTypes);
 }
 
 /** `torques[1].at` and its kin inside a free text, each replaced by its place ("Torque 2, station"). */

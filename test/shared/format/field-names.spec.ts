@@ -36,4 +36,13 @@ describe("internal paths in the screen's words", () => {
     expect(error.message).toBe('Invalid input — Torque 1, speed: must be a number');
     expect(error.details?.fieldErrors).toEqual({ 'input.torques[0].speed': ['must be a number'] });
   });
+
+  it.each(['__proto__', 'constructor', 'toString', 'params.constructor', 'query.__proto__', 'material.constructor'])(
+    'when a refused key is an Object member (%s), then the message names the key, never "[object Object]"',
+    (key) => {
+      const error = AppError.validation({ [key]: ['is not an accepted field name'] });
+      expect(error.message).not.toMatch(/object Object|native code|function/);
+      expect(error.message).toContain(key.split('.').pop());
+    },
+  );
 });

@@ -26,6 +26,9 @@ export function calcsRouter(calcs: CalcsService, lifecycle: LifecycleService): R
   router.get('/:id', async (req, res) => {
     res.json(await calcs.get(req.ability, idParam(req)));
   });
+  router.get('/:id/latest-revision', async (req, res) => {
+    res.json(await calcs.latestRevision(req.ability, idParam(req)));
+  });
   router.post('/:id/revisions', validate({ body: newRevisionSchema }), async (req, res) => {
     res
       .status(201)

@@ -45,6 +45,17 @@ export class CalcsService {
     return toCalcDto(calc, revisions);
   }
 
+  /**
+   * The calc's newest revision, read as `GET /api/revisions/:id` reads it: the calc page asks for it beside the
+   * calc instead of after it, so the two reads no longer wait for each other.
+   */
+  async latestRevision(ability: AppAbility, calcId: number): Promise<RevisionDto> {
+    ForbiddenError.from(ability).throwUnlessCan('read', 'Calc');
+    const latest = await Revision.findOne({ where: { calcId }, order: [['seq', 'DESC']], attributes: ['id'] });
+    if (!latest) throw AppError.notFound(`Calc ${calcId}`);
+    return readRevision(ability, latest.id);
+  }
+
   async create(ability: AppAbility, actor: Actor & { id: number }, dto: CreateCalcRequest): Promise<CalcDto> {
     ForbiddenError.from(ability).setMessage('Only authors start calcs').throwUnlessCan('create', 'Calc');
     const project = await Project.findByPk(dto.projectId);

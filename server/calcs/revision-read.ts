@@ -6,7 +6,9 @@ import { validateCalcInput } from '../../shared/engine';
 import { Attachment, Calc, Finding, Project, Revision, Signature, User } from '../db/models';
 import { toRevisionDto } from './calc-mapping';
 import { editorIdsOf, loadRevision } from './calc-access';
-import { computeRecord, contentHashOf, hashedContentOf } from './revision-content';
+import { computeRecord, contentHashOf, hashedContentOf, signedAttachments } from './revision-content';
+import { contentKeyOf, memoisedHash, memoisedValidation } from './content-hash-memo';
+import { timed } from '../http/server-timing';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { expandResult } from './stored-result';
 import { withVerification } from '../independent/blind';
@@ -34,17 +36,27 @@ export async function currentHashOf(
     format >= 2 ? Attachment.findAll({ where: { revisionId: revision.id }, transaction }) : [],
   ]);
   const model = format >= 3 ? await lockedModelOf(revision.id, transaction) : null;
-  return contentHashOf(
-    hashedContentOf(
-      calc,
-      revision.label,
-      JSON.parse(revision.input),
-      expanded,
-      JSON.parse(revision.checklist),
-      revision.ruleSet,
-      format,
-      attachments,
-      model,
+  const key = contentKeyOf([
+    format,
+    ...[calc.Project.code, calc.number, calc.title, calc.partRef, revision.label],
+    ...[revision.input, revision.result, revision.checklist],
+    ...[revision.ruleSet?.code, revision.ruleSet?.version, revision.ruleSet?.contentHash],
+    JSON.stringify(signedAttachments(attachments)),
+    JSON.stringify(model),
+  ]);
+  return memoisedHash(key, () =>
+    contentHashOf(
+      hashedContentOf(
+        calc,
+        revision.label,
+        JSON.parse(revision.input),
+        expanded,
+        JSON.parse(revision.checklist!),
+        revision.ruleSet,
+        format,
+        attachments,
+        model,
+      ),
     ),
   );
 }
@@ -65,32 +77,36 @@ export async function currentHashesOf(
   return hashes;
 }
 
+/** A revision as the screens show it; Server-Timing names its phases (read, hash, input, verification). */
 export async function readRevision(ability: AppAbility, id: number, transaction?: Transaction): Promise<RevisionDto> {
-  const revision = await loadRevision(id, transaction);
+  const revision = await timed('read', () => loadRevision(id, transaction));
   ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
-  const result = await expandResult(Revision.sequelize!, revision.result, transaction);
-  const [signatures, findings, editorIds] = await Promise.all([
-    Signature.findAll({ where: { revisionId: id }, order: [['signedAt', 'ASC']], transaction }),
-    Finding.findAll({ where: { revisionId: id }, order: [['id', 'ASC']], transaction }),
-    editorIdsOf(revision.calcId, transaction),
+  const [result, signatures, findings, editorIds] = await timed('read', () =>
+    Promise.all([
+      expandResult(Revision.sequelize!, revision.result, transaction),
+      Signature.findAll({ where: { revisionId: id }, order: [['signedAt', 'ASC']], transaction }),
+      Finding.findAll({ where: { revisionId: id }, order: [['id', 'ASC']], transaction }),
+      editorIdsOf(revision.calcId, transaction),
+    ]),
+  );
+  // Independent of each other: asked together, so the database round trips overlap.
+  const [currentHashes, names, inputIssues] = await Promise.all([
+    timed('hash', () => currentHashesOf(revision, signatures, transaction, result)),
+    timed('names', () => namesOf(findings, transaction)),
+    timed('input', () => inputIssuesOf(revision)),
   ]);
-  const currentHashes = await currentHashesOf(revision, signatures, transaction, result);
+  const dto = toRevisionDto(revision, { result, signatures, findings, editorIds, currentHashes, names, inputIssues });
+  return timed('verification', () => withVerification(ability, revision, dto, transaction));
+}
+
+async function namesOf(findings: readonly Finding[], transaction?: Transaction): Promise<Map<number, string>> {
   const userIds = new Set(
     findings.flatMap((f) => [f.raisedBy, f.answeredBy, f.closedBy]).filter((v): v is number => v != null),
   );
   const users = userIds.size
     ? await User.findAll({ where: { id: { [Op.in]: [...userIds] } }, attributes: ['id', 'displayName'], transaction })
     : [];
-  const dto = toRevisionDto(revision, {
-    result,
-    signatures,
-    findings,
-    editorIds,
-    currentHashes,
-    names: new Map(users.map((u) => [u.id, u.displayName])),
-    inputIssues: await inputIssuesOf(revision),
-  });
-  return withVerification(ability, revision, dto, transaction);
+  return new Map(users.map((u) => [u.id, u.displayName]));
 }
 
 /**
@@ -98,9 +114,10 @@ export async function readRevision(ability: AppAbility, id: number, transaction?
  * value outside what the calculation can handle): evaluate again, rarely, to name where.
  */
 async function inputIssuesOf(revision: Revision): Promise<InputIssue[]> {
-  const input: unknown = JSON.parse(revision.input);
-  const validated = validateCalcInput(input);
-  if (!validated.ok) return validated.issues;
-  if (revision.result !== null || !revision.ruleSet) return [];
-  return (await computeRecord(input, parseRuleSet(revision.ruleSet))).inputIssues;
+  const issues = memoisedValidation(revision.input, (text) => {
+    const validated = validateCalcInput(JSON.parse(text));
+    return validated.ok ? [] : validated.issues;
+  });
+  if (issues.length || revision.result !== null || !revision.ruleSet) return issues;
+  return (await computeRecord(JSON.parse(revision.input), parseRuleSet(revision.ruleSet))).inputIssues;
 }

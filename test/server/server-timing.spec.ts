@@ -1,4 +1,5 @@
 import { startTestApp, signedInAs } from '../support/api-harness';
+import { calcTeam } from '../support/calc-harness';
 
 // Speed is measured, not asserted: the header is there to read in the browser's network panel.
 const { app, sequelize } = startTestApp();
@@ -9,5 +10,21 @@ describe('server timing', () => {
     const { session } = await signedInAs(app, ['author'], 'timing');
     const res = await session.get('/api/dashboard');
     expect(res.headers['server-timing']).toMatch(/^app;dur=\d+(\.\d)?$/);
+  });
+
+  it('when a revision is read, then the answer also names the time of each phase of the read', async () => {
+    const { author, revisionId } = await calcTeam(app);
+    const res = await author.session.get(`/api/revisions/${revisionId}`);
+    const phases = String(res.headers['server-timing']).split(', ');
+    expect(phases[0]).toMatch(/^app;dur=/);
+    expect(phases.map((p) => p.split(';')[0]).sort()).toEqual([
+      'app',
+      'hash',
+      'input',
+      'names',
+      'read',
+      'verification',
+    ]);
+    for (const p of phases) expect(p).toMatch(/^[a-z]+;dur=\d+\.\d$/);
   });
 });

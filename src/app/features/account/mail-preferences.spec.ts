@@ -51,17 +51,31 @@ describe('e-mail preferences', () => {
     d.http.verify();
   });
 
-  it('when the server refuses the change, then its reason shows and the stored choices are read again', async () => {
+  it('when the server refuses the change, then its reason shows and the switch shows what is stored', async () => {
     const d = await mount();
     await (await d.toggles())[0].toggle();
     d.http.expectOne({ method: 'PUT', url: URL }).flush(...refusal(403, 'You cannot change these preferences'));
     await d.settle();
 
     expect(d.alerts()).toEqual(['You cannot change these preferences']);
-    // The list is read again so the page holds what is stored (the switch itself is not put back today:
-    // reported, not asserted here).
     d.http.expectOne({ method: 'GET', url: URL }).flush(PREFS);
     await d.settle();
+    // Stored: still on. The switch the person moved is back where the server keeps it.
+    expect(await (await d.toggles())[0].isChecked()).toBe(true);
+    d.http.verify();
+  });
+
+  it('when the server refuses and the list read again differs, then the switch shows the stored value', async () => {
+    const d = await mount();
+    await (await d.toggles())[0].toggle();
+    d.http.expectOne({ method: 'PUT', url: URL }).flush(...refusal(409, 'Changed elsewhere'));
+    await d.settle();
+    d.http
+      .expectOne({ method: 'GET', url: URL })
+      .flush(PREFS.map((p) => (p.event === 'submitted' ? { ...p, enabled: false } : p)));
+    await d.settle();
+
+    expect(await (await d.toggles())[0].isChecked()).toBe(false);
     d.http.verify();
   });
 });

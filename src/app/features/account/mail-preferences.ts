@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
-import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { MatSlideToggleModule, type MatSlideToggleChange } from '@angular/material/slide-toggle';
 import type { MailPreferenceDto } from '../../../../shared/schemas/mail.schema';
 import { assertApiFailure } from '../../core/http/api-failure';
 import { LoadFailure } from '../../ui/load-failure';
@@ -24,12 +24,9 @@ import { MailPreferencesApi } from './mail-preferences-api';
     <ul class="events" aria-labelledby="mail-title">
       @for (p of rows(); track p.event) {
         <li>
-          <mat-slide-toggle
-            [checked]="p.enabled"
-            [disabled]="saving() === p.event"
-            (change)="toggle(p, $event.checked)"
-            >{{ p.label }}</mat-slide-toggle
-          >
+          <mat-slide-toggle [checked]="p.enabled" [disabled]="saving() === p.event" (change)="toggle(p, $event)">{{
+            p.label
+          }}</mat-slide-toggle>
           <span class="tt-muted small">{{ p.description }}{{ p.appliesToYou ? '' : ' (not one of your roles)' }}</span>
         </li>
       }
@@ -70,14 +67,17 @@ export class MailPreferences {
   protected readonly saving = signal<string | null>(null);
   protected readonly problem = signal<string | null>(null);
 
-  protected async toggle(p: MailPreferenceDto, enabled: boolean): Promise<void> {
+  protected async toggle(p: MailPreferenceDto, change: MatSlideToggleChange): Promise<void> {
     this.saving.set(p.event);
     this.problem.set(null);
     try {
-      this.resource.set(await this.api.save(p.event, enabled));
+      this.resource.set(await this.api.save(p.event, change.checked));
     } catch (error) {
       assertApiFailure(error);
       this.problem.set(error.message);
+      // The switch moved itself; the binding is unchanged (the stored value is), so it is put back by hand,
+      // and the list is read again in case it changed meanwhile.
+      change.source.checked = p.enabled;
       this.resource.reload();
     } finally {
       this.saving.set(null);

@@ -46,6 +46,14 @@ export class CalcsApi {
     return httpResource<RevisionDto>(() => (id() ? `/api/revisions/${id()}` : undefined));
   }
 
+  /** A revision by id, or without one the calc's newest: read beside the calc, never after it. */
+  revisionOf(calcId: Signal<number | undefined>, revisionId: Signal<number | undefined>) {
+    return httpResource<RevisionDto>(() => {
+      if (revisionId()) return `/api/revisions/${revisionId()}`;
+      return calcId() ? `/api/calcs/${calcId()}/latest-revision` : undefined;
+    });
+  }
+
   queues() {
     return httpResource<QueueDto[]>(() => ({ url: '/api/dashboard/queues', params: { size: QUEUE_PAGE } }));
   }

@@ -83,7 +83,7 @@ export default class CalcPage {
   protected readonly calc = this.api.calc(this.id);
   protected readonly calcInfo = computed(() => (this.calc.hasValue() ? this.calc.value() : undefined));
   protected readonly selectedId = linkedSignal(() => this.rev() ?? this.calcInfo()?.latest.id);
-  protected readonly revision = this.api.revision(this.selectedId);
+  protected readonly revision = this.api.revisionOf(this.id, this.rev);
   protected readonly current = linkedSignal<RevisionDto | undefined>(() =>
     this.revision.hasValue() ? this.revision.value() : undefined,
   );

@@ -27,7 +27,8 @@ import { placeOf } from './issue-map';
             <span class="advisory">{{ c.counts.advisoryFail }} advisory not met</span>
           }
         </div>
-        @for (r of c.verdictReasons; track r) {
+        <!-- Reasons are texts with counts in them: an edit rewrites them, so their place is their key. -->
+        @for (r of c.verdictReasons; track $index) {
           <p class="reason">{{ r }}</p>
         }
         @for (m of c.methodIssues; track m.path) {

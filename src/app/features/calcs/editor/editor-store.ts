@@ -40,7 +40,8 @@ export class EditorStore {
     try {
       const revision = await this.api.getRevision(id);
       this.adopt(revision);
-      await this.loadRuleSet(revision.ruleSet.id, `${revision.ruleSet.code} v${revision.ruleSet.version}`);
+      // Not awaited: the stored input and verdict go on screen now; the live checklist follows the standard.
+      void this.loadRuleSet(revision.ruleSet.id, `${revision.ruleSet.code} v${revision.ruleSet.version}`);
     } catch (error) {
       assertApiFailure(error);
       this.loadError.set(loadFailureText(error, `revision ${id}`));

@@ -29,7 +29,7 @@ import { EDITOR_DEBOUNCE_MS, EngineErrorState, canonical } from './editor-suppor
 import { inputToValue, valueToInput } from './form-values';
 import { toIssueMap } from './issue-map';
 import { applyIssues } from './apply-issues';
-import { liveCalc } from './live-calc';
+import { liveCalc, type ChecklistState } from './live-calc';
 import { plotLimits } from './plot-limits';
 import { CRITERION_KEYS } from './result-format';
 import { switchUnits, type Conversion } from './unit-convert';
@@ -46,7 +46,9 @@ import { NotesPanel } from './notes-panel';
 import { LiveResults } from './live-results';
 import { LiveDetails } from './live-details';
 import { plainDecimal } from './number-text';
-import { VerdictStrip } from './verdict-strip';
+import { VerdictStrip, type StoredChecklist } from './verdict-strip';
+import { InputFindings } from './input-findings';
+import type { Checklist } from '../../../../../shared/rules';
 
 /**
  * The author's calc editor. The form is replaced as a whole on load, restore, "take theirs" and unit
@@ -74,6 +76,7 @@ import { VerdictStrip } from './verdict-strip';
     LiveResults,
     LiveDetails,
     VerdictStrip,
+    InputFindings,
   ],
   templateUrl: './revision-editor.html',
   styleUrl: './revision-editor.scss',
@@ -92,6 +95,8 @@ export default class RevisionEditor {
   protected readonly form = signal<EditorForm>(editorForm(inputToValue({})));
   protected readonly units = signal<UnitSystem>('SI');
   private lastConversion: Conversion | null = null;
+  // The empty form's value until the stored input has passed the debounce: not an edit by the author.
+  private readonly placeholder = this.form().getRawValue();
   private readonly value = toSignal(
     toObservable(this.form).pipe(
       switchMap((f) =>
@@ -102,7 +107,7 @@ export default class RevisionEditor {
       ),
       this.debounceMs > 0 ? debounceTime(this.debounceMs) : identity,
     ),
-    { initialValue: this.form().getRawValue() },
+    { initialValue: this.placeholder },
   );
 
   protected readonly authorValue = this.value;
@@ -133,6 +138,17 @@ export default class RevisionEditor {
     const c = this.live.checklist();
     return c.kind === 'ready' ? c : null;
   });
+  /** The stored verdict shows with the stored input at once; the live one replaces it once evaluated. */
+  protected readonly verdictState = computed((): ChecklistState | StoredChecklist => {
+    const live = this.live.checklist();
+    const stored = this.revision()?.checklist as Checklist | null | undefined;
+    const isEdited = this.value() !== this.placeholder && this.isDirty();
+    return live.kind === 'none' && stored && !isEdited ? { kind: 'stored', checklist: stored } : live;
+  });
+  /** Findings anchored to an input (not to a checklist clause), shown beside their fields. */
+  protected readonly inputFindings = computed(() =>
+    (this.revision()?.findings ?? []).filter((f) => f.anchorPath && !f.clauseRef),
+  );
   protected readonly limits = computed(() => {
     const ev = this.live.evaluated();
     const c = this.live.checklist();

@@ -1,6 +1,12 @@
 import { ChangeDetectionStrategy, Component, DOCUMENT, computed, inject, input } from '@angular/core';
-import type { ChecklistRow } from '../../../../../shared/rules';
+import type { Checklist, ChecklistRow } from '../../../../../shared/rules';
 import type { ChecklistState } from './live-calc';
+
+/** The checklist stored with the revision, shown until the live one (same input, same engine) is ready. */
+export interface StoredChecklist {
+  kind: 'stored';
+  checklist: Checklist;
+}
 
 interface Failing {
   key: string;
@@ -17,7 +23,7 @@ interface Failing {
   selector: 'tt-verdict-strip',
   template: `
     @let s = state();
-    @if (s.kind === 'ready') {
+    @if (s.kind === 'ready' || s.kind === 'stored') {
       @let c = s.checklist;
       <div class="strip" [attr.data-verdict]="c.verdict" role="status" aria-live="polite">
         <strong class="head"
@@ -125,11 +131,11 @@ interface Failing {
 })
 export class VerdictStrip {
   private readonly document = inject(DOCUMENT);
-  readonly state = input.required<ChecklistState>();
+  readonly state = input.required<ChecklistState | StoredChecklist>();
 
   protected readonly failing = computed((): Failing[] => {
     const s = this.state();
-    if (s.kind !== 'ready') return [];
+    if (s.kind !== 'ready' && s.kind !== 'stored') return [];
     return s.checklist.rows
       .filter((r) => r.status === 'fail' || r.status === 'error')
       .sort((a, b) => Number(a.severity === 'advisory') - Number(b.severity === 'advisory'))

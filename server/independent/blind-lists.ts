@@ -1,9 +1,9 @@
-import { Op } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
-import { IndependentModel, RuleSetRecord } from '../db/models';
+import { IndependentModel, RuleSetRecord, type Revision } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
-import { BLIND_STATES } from './blind';
+import { BLIND_STATES, isBlind, modelOfRevision, needOf } from './blind';
 import { viewerOf } from './viewer';
 
 export interface ListedRevision {
@@ -54,5 +54,20 @@ export function blindError(): AppError {
     'forbidden',
     403,
     "Build and lock your independent model first: until then the author's numbers stay hidden from you",
+  );
+}
+
+/**
+ * Manual items wait for the lock: each one compares the author's calc with a source document (the material
+ * certificate's grade with the calc material, the load cases with the duty specification), so a blind tick would
+ * vouch for values the checker has not seen, and its stored state would show the author's side of the check.
+ */
+export async function assertNotBlind(ability: AppAbility, revision: Revision, transaction: Transaction): Promise<void> {
+  const model = await modelOfRevision(revision.id, transaction);
+  if (!isBlind(viewerOf(ability), revision, needOf(revision), model)) return;
+  throw new AppError(
+    'forbidden',
+    403,
+    "Lock your independent model first: the manual items compare the author's calc with its documents, which you see after the lock",
   );
 }

@@ -9,6 +9,7 @@ import { readRevision } from '../calcs/revision-read';
 import type { WorkflowService } from './workflow.service';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { assertAttachmentFor } from '../attachments/attachment-rules';
+import { assertNotBlind } from '../independent/blind-lists';
 import { runTransaction } from '../db/transaction';
 import { RETURNED_STATE } from '../../shared/workflow/revision-states';
 import { checkFindingAnchor } from './finding-anchor';
@@ -172,6 +173,7 @@ export class ReviewService {
         'Manual checklist items are ticked by the independent checker while the calc is in check',
       );
       await this.assertIndependent(actor, revision.calcId, revision.authorId);
+      await assertNotBlind(ability, revision, transaction);
       assertKnownItem(revision, itemId);
       if (done) await assertAttachmentFor(revision, itemId, transaction);
       const items = JSON.parse(revision.manualItems) as Record<string, unknown>;

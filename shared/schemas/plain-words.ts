@@ -6,7 +6,7 @@ import { z } from 'zod';
  * catches the rest, so a refusal always reads as a sentence about the field ("is at most 100
  * characters"). Installed once where parsing starts (the server app and the calc command).
  */
-type Issue = Parameters<NonNullable<Parameters<typeof z.config>[0]['customError']>>[0];
+type Issue = Parameters<NonNullable<NonNullable<Parameters<typeof z.config>[0]>['customError']>>[0];
 
 const UNIT: Record<string, string> = { string: 'characters', array: 'entries', set: 'entries', file: 'bytes' };
 

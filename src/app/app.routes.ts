@@ -62,6 +62,13 @@ export const routes: Routes = [
         loadComponent: () => import('./features/calcs/editor/revision-editor'),
       },
       {
+        path: 'revisions/:id/independent-model',
+        title: 'Independent model · Torquetrail',
+        canActivate: [abilityGuard('read', 'Revision')],
+        canDeactivate: [(page: { confirmLeave(): boolean }) => page.confirmLeave()],
+        loadComponent: () => import('./features/calcs/independent/model-editor'),
+      },
+      {
         path: 'audit',
         title: 'Audit trail · Torquetrail',
         canActivate: [abilityGuard('read', 'AuditEvent')],

@@ -33,13 +33,13 @@ export function modelStandardId(): Promise<number> {
 }
 
 /** A calc under that standard, submitted: in check, waiting for the independent model. */
-export async function modelTeam(app: Express) {
+export async function modelTeam(app: Express, input = fixtureInput()) {
   const author = await person(app, ['author']);
   const checker = await person(app, ['checker']);
   const approver = await person(app, ['approver']);
   const { revisionId, calcId } = await createCalc(author.session, {
     ruleSetId: await modelStandardId(),
-    input: fixtureInput(),
+    input,
   });
   const sessions: Team = { author: author.session, checker: checker.session, approver: approver.session };
   await advanceTo('in_check', sessions, revisionId);

@@ -1,8 +1,11 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
-import { provideHttpClient } from '@angular/common/http';
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { errorInterceptor } from '../../../core/http/error-interceptor';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import type { RevisionVerification } from '../../../../../shared/schemas/independent-model.schema';
+import { provideRouter } from '@angular/router';
+import { provideAbility } from '../../../core/authz/ability.providers';
 import { IndependentModelPanel } from './independent-model-panel';
 
 jest.setTimeout(30_000);
@@ -34,14 +37,22 @@ let fixture: ComponentFixture<IndependentModelPanel>;
 let http: HttpTestingController;
 const text = () => (fixture.nativeElement as HTMLElement).textContent ?? '';
 
-async function render(r: RevisionDto, canBuild = false): Promise<void> {
-  TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] });
+/** Mounts the panel; a panel that reads stays busy until its request is answered, so it is not awaited then. */
+async function render(r: RevisionDto, canBuild = false, reads = false): Promise<void> {
+  TestBed.configureTestingModule({
+    providers: [
+      provideHttpClient(withInterceptors([errorInterceptor])),
+      provideHttpClientTesting(),
+      provideRouter([]),
+      ...provideAbility(),
+    ],
+  });
   fixture = TestBed.createComponent(IndependentModelPanel);
   fixture.componentRef.setInput('revision', r);
   fixture.componentRef.setInput('canBuild', canBuild);
   http = TestBed.inject(HttpTestingController);
   fixture.detectChanges();
-  await fixture.whenStable();
+  if (!reads) await fixture.whenStable();
 }
 
 afterEach(() => http.verify());
@@ -50,7 +61,40 @@ it("when a checker has no model yet, then the panel names the required verificat
   await render(revision({ need, blind: true, model: null, signed: null }), true);
   expect(text()).toContain('Verification required: independent model (alternate calculation)');
   expect(text()).toContain('You check this calc blind');
-  expect(text()).toContain('Load your model');
+  expect(text()).toContain('Build independent model');
+  expect(text()).toContain('Or load a calc input file');
+});
+
+it("when the reader is blind and the model is someone else's open one, then nothing is read and the summary says why", async () => {
+  await render(
+    revision({
+      need,
+      blind: true,
+      model: { state: 'open', checker, lockedAt: null, agrees: null, differences: null },
+      signed: null,
+    }),
+  );
+  expect(text()).toContain('It is shown here once locked');
+});
+
+it('when the model read fails, then the panel says so inline instead of hiding it', async () => {
+  await render(
+    revision({
+      need,
+      blind: false,
+      model: { state: 'locked', checker, lockedAt: '2026-12-02T07:00:00Z', agrees: true, differences: 0 },
+      signed: null,
+    }),
+    false,
+    true,
+  );
+  http
+    .expectOne('/api/revisions/7/independent-model')
+    .flush({ message: 'database unreachable' }, { status: 503, statusText: 'Unavailable' });
+  fixture.detectChanges();
+  await fixture.whenStable();
+  expect(text()).toContain('The server failed to load the independent model');
+  expect(text()).toContain('Try again');
 });
 
 it('when the model is locked with one difference, then the comparison shows both values, the gap and the caution', async () => {
@@ -79,6 +123,8 @@ it('when the model is locked with one difference, then the comparison shows both
         comparison,
       },
     }),
+    false,
+    true,
   );
   http
     .expectOne('/api/revisions/7/independent-model')
@@ -92,4 +138,5 @@ it('when the model is locked with one difference, then the comparison shows both
   expect(text()).toContain('1.52 %');
   expect(text()).not.toContain('Segment 1 outer diameter');
   expect(text()).toContain('never replace');
+  expect(text()).toContain('You do not have permission to see the independent model');
 });

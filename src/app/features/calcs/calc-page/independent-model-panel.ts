@@ -1,10 +1,12 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
+import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
-import type { IndependentModelDto } from '../../../../../shared/schemas/independent-model.schema';
 import type { ComparisonRow } from '../../../../../shared/verification';
+import { SessionStore } from '../../../core/auth/session-store';
 import { assertApiFailure } from '../../../core/http/api-failure';
+import { LoadFailure } from '../../../ui/load-failure';
 import { SafetyNote } from '../../../ui/safety-note';
 import { IndependentModelApi } from './independent-model-api';
 
@@ -12,28 +14,37 @@ const show = (v: ComparisonRow['author'], unit: string) =>
   v === null ? '—' : typeof v === 'number' ? `${+v.toPrecision(5)}${unit ? ` ${unit}` : ''}` : String(v);
 
 /**
- * Which verification the standard asks for, and the independent model: the checker loads their own
- * calc input (same file format as the author's), sees its verdict, locks it, and everyone then sees
- * the comparison row by row. A blind checker is told why the author's numbers are hidden.
+ * Which verification the standard asks for, and the independent model: the checker builds their own in the
+ * model editor (or loads a calc input file, same format as the author's), sees its verdict, locks it, and
+ * everyone then sees the comparison row by row. A blind checker is told why the author's numbers are hidden.
  */
 @Component({
   selector: 'tt-independent-model-panel',
-  imports: [MatButtonModule, MatIconModule, SafetyNote],
+  imports: [RouterLink, MatButtonModule, MatIconModule, SafetyNote, LoadFailure],
   templateUrl: './independent-model-panel.html',
   styleUrl: './independent-model-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class IndependentModelPanel {
   private readonly api = inject(IndependentModelApi);
+  private readonly me = inject(SessionStore).user;
   readonly revision = input.required<RevisionDto>();
   /** The reader may build the model (an independent checker while the revision is in check). */
   readonly canBuild = input(false);
   readonly changed = output<void>();
 
-  protected readonly model = signal<IndependentModelDto | null>(null);
+  protected readonly v = computed(() => this.revision().verification ?? null);
+  /** Read only what the server shows this reader: their own model, or a locked one once they are not blind. */
+  private readonly readableId = computed(() => {
+    const v = this.v();
+    const m = v?.model;
+    if (!v || !m) return undefined;
+    return m.checker.id === this.me()?.id || (m.state === 'locked' && !v.blind) ? this.revision().id : undefined;
+  });
+  protected readonly modelRead = this.api.model(this.readableId);
+  protected readonly model = computed(() => (this.modelRead.hasValue() ? this.modelRead.value() : null));
   protected readonly message = signal<string | null>(null);
   protected readonly showAll = signal(false);
-  protected readonly v = computed(() => this.revision().verification ?? null);
   protected readonly comparison = computed(() => this.model()?.comparison ?? this.v()?.signed?.comparison ?? null);
   protected readonly rows = computed(() => {
     const rows = this.comparison()?.rows ?? [];
@@ -41,26 +52,13 @@ export class IndependentModelPanel {
   });
   protected readonly show = show;
 
-  constructor() {
-    effect(() => this.loadModel(this.revision()));
-  }
-
-  private async loadModel(r: RevisionDto): Promise<void> {
-    if (!r.verification?.model) return this.model.set(null);
-    try {
-      this.model.set(await this.api.read(r.id));
-    } catch {
-      this.model.set(null); // not theirs to see yet: the verification summary says why
-    }
-  }
-
   protected async loadFile(event: Event): Promise<void> {
     const file = (event.target as HTMLInputElement).files?.[0];
     if (!file) return;
     this.message.set(null);
     try {
       const input = JSON.parse(await file.text()) as Record<string, unknown>;
-      this.model.set(await this.api.save(this.revision().id, input, this.model()?.lockVersion ?? 0));
+      this.modelRead.set(await this.api.save(this.revision().id, input, this.model()?.lockVersion ?? 0));
       this.changed.emit();
     } catch (err) {
       if (err instanceof SyntaxError)
@@ -74,7 +72,7 @@ export class IndependentModelPanel {
     const m = this.model();
     if (!m) return;
     try {
-      this.model.set(await this.api.lock(this.revision().id, m.lockVersion));
+      this.modelRead.set(await this.api.lock(this.revision().id, m.lockVersion));
       this.changed.emit();
     } catch (err) {
       assertApiFailure(err);

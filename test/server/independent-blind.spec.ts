@@ -1,0 +1,135 @@
+import { fixtureInput, person, type Session } from '../support/calc-harness';
+import { startTestApp } from '../support/api-harness';
+import { lockModel, modelTeam, modelUrl, revisionOf, saveModel } from '../support/model-harness';
+
+const { app, sequelize } = startTestApp();
+afterAll(() => sequelize.close());
+
+// The author's calc carries numbers nobody would type by chance, so any answer that holds one of them leaked it.
+const OD = [35.0173, 45.0271, 55.0313, 45.0419, 35.0523];
+function authorInput(): Record<string, unknown> {
+  const input = fixtureInput();
+  input.title = 'Author title QX7 marker';
+  (input.segments as { od: number }[]).forEach((s, i) => (s.od = OD[i]));
+  (input.material as { Sy: number }).Sy = 531.0731;
+  return input;
+}
+
+type Team = Awaited<ReturnType<typeof modelTeam>>;
+
+/** Every number or text of the author's input, results and checklist that a blind reader must never receive. */
+async function authorMarkers(t: Team): Promise<string[]> {
+  const rev = await revisionOf(t.author.session, t.revisionId);
+  const segments = rev.result.segments as { tauMax: number; yieldSafety: number }[];
+  return [
+    ...OD.map(String),
+    '531.0731',
+    'Author title QX7 marker',
+    ...segments.flatMap((s) => [JSON.stringify(s.tauMax), JSON.stringify(s.yieldSafety)]),
+    JSON.stringify(rev.result.twistTotal),
+  ].filter((m) => m.length >= 6); // a 0 or a round figure could come from anywhere
+}
+
+/** Every read a checker can make about this calc, with its answer as text (binary bodies as latin1). */
+async function everyRead(s: Session, t: Team): Promise<{ what: string; status: number; text: string }[]> {
+  const calc = (await s.get(`/api/calcs/${t.calcId}`)).body as { number?: string };
+  const urls = [
+    `/api/revisions/${t.revisionId}`,
+    `/api/calcs/${t.calcId}`,
+    `/api/calcs?q=${encodeURIComponent(calc.number ?? '')}`,
+    '/api/dashboard',
+    '/api/dashboard/queues',
+    `/api/revisions/${t.revisionId}/attachments`,
+    `/api/calcs/${t.calcId}/diff?from=${t.revisionId}&to=${t.revisionId}`,
+    `/api/revisions/${t.revisionId}/report.pdf`,
+    `/api/calcs/${t.calcId}/evidence.zip`,
+    modelUrl(t.revisionId),
+    `/api/audit?calcId=${t.calcId}`,
+  ];
+  const answers = [];
+  for (const url of urls) {
+    const res = await s.get(url).buffer(true);
+    const text = res.text ?? (Buffer.isBuffer(res.body) ? res.body.toString('latin1') : JSON.stringify(res.body));
+    answers.push({ what: `GET ${url}`, status: res.status, text });
+  }
+  return answers;
+}
+
+const leaksIn = (answers: { what: string; text: string }[], markers: string[]) =>
+  answers.flatMap((a) => markers.filter((m) => a.text.includes(m)).map((m) => `${a.what} holds ${m}`));
+
+type Who = 'model owner' | 'other checker' | 'author' | 'approver' | 'compliance';
+const BLIND: Who[] = ['model owner', 'other checker'];
+
+describe.each<Who>(['model owner', 'other checker', 'author', 'approver', 'compliance'])(
+  'the blind rule over every read, for the %s, before the model is locked',
+  (who) => {
+    let t: Team;
+    let s: Session;
+    let markers: string[];
+    beforeAll(async () => {
+      t = await modelTeam(app, authorInput());
+      markers = await authorMarkers(t);
+      // The owner's own model is the unchanged fixture: none of its numbers is one of the author's markers.
+      await saveModel(t.checker.session, t.revisionId, fixtureInput());
+      const roles = { 'other checker': 'checker', approver: 'approver', compliance: 'compliance' } as const;
+      s =
+        who === 'author'
+          ? t.author.session
+          : who === 'model owner'
+            ? t.checker.session
+            : (await person(app, [roles[who]])).session;
+    });
+
+    it(
+      BLIND.includes(who) ? "then no answer holds any of the author's numbers" : "then they read the author's numbers",
+      async () => {
+        const answers = await everyRead(s, t);
+        expect(answers.every((a) => a.status < 500)).toBe(true);
+        const leaks = leaksIn(answers, markers);
+        if (BLIND.includes(who)) expect(leaks).toEqual([]);
+        else expect(leaks.length).toBeGreaterThan(0);
+      },
+    );
+
+    it(`then the revision read ${BLIND.includes(who) ? 'leaves out' : 'holds'} the input, results, checklist and verdict`, async () => {
+      const rev = await revisionOf(s, t.revisionId);
+      const hidden = [rev.input, rev.result, rev.checklist, rev.verdict, rev.manualItems];
+      if (BLIND.includes(who)) expect(hidden).toEqual([{}, null, null, null, {}]);
+      else
+        expect([Object.keys(rev.input).length > 0, rev.result !== null, rev.checklist !== null]).toEqual([
+          true,
+          true,
+          true,
+        ]);
+    });
+  },
+);
+
+describe('manual checklist items and the blind rule', () => {
+  it('when a blind checker ticks a manual item, then 403 says to lock first, and nothing is stored; after the lock the tick is taken', async () => {
+    const t = await modelTeam(app, authorInput());
+    const markers = await authorMarkers(t);
+    await saveModel(t.checker.session, t.revisionId, fixtureInput());
+    const url = `/api/revisions/${t.revisionId}/manual-items/load-cases`;
+    const refused = await t.checker.session.put(url, { done: true, note: '' });
+    expect(refused.status).toBe(403);
+    expect(refused.body.message).toMatch(/Lock your independent model first/);
+    expect(leaksIn([{ what: 'tick', text: JSON.stringify(refused.body) }], markers)).toEqual([]);
+    expect((await revisionOf(t.author.session, t.revisionId)).manualItems).toEqual({});
+
+    await lockModel(t.checker.session, t.revisionId);
+    const ticked = await t.checker.session.put(url, { done: true, note: '' });
+    expect(ticked.status).toBe(200);
+    expect(ticked.body.manualItems['load-cases']).toEqual(expect.objectContaining({ done: true }));
+  });
+
+  it("when the owner locks, then the lock answer and their reads hold the author's numbers (the comparison)", async () => {
+    const t = await modelTeam(app, authorInput());
+    const markers = await authorMarkers(t);
+    await saveModel(t.checker.session, t.revisionId, fixtureInput());
+    const locked = await lockModel(t.checker.session, t.revisionId);
+    expect(locked.agrees).toBe(false);
+    expect(leaksIn(await everyRead(t.checker.session, t), markers).length).toBeGreaterThan(0);
+  });
+});

@@ -1,29 +1,13 @@
 import { z } from 'zod';
 import { beamInputFields, densityField } from './beam/beam-schema';
+import { featureSchema } from './feature-schema';
+import { LEN, STRESS, TRQ, label, positive, source, station } from './schema-fields';
 
 /*
  * Interchange format v2 of a shaft calc (v1 plus bearings, loads, masses and speed: beam/beam-schema.ts). The schema
  * holds no transforms or defaults, so the JSON Schema generated from it (calc-input.schema.json) describes exactly what
  * the engine accepts; defaults are applied in model.ts and cross-field rules live in the semantic checks.
  */
-const LEN = 'mm (SI) or in (US)';
-const TRQ = 'N·m (SI) or lbf·in (US)';
-const STRESS = 'MPa (SI) or ksi (US)';
-
-const positive = (what: string) =>
-  z
-    .number()
-    .positive()
-    .meta({ description: `${what}, ${LEN}` });
-const station = z.number().meta({ description: `Station from the left end of the first segment, ${LEN}` });
-const label = z.string().max(200).optional();
-const source = z
-  .string()
-  .min(1)
-  .max(500)
-  .optional()
-  .meta({ description: 'Where an author-entered factor comes from (book, edition, chart)' });
-
 export const materialSchema = z.strictObject({
   name: label,
   kind: z
@@ -76,54 +60,6 @@ const torqueSchema = z.union([
     speed: z.number().positive().meta({ description: 'Speed, rpm' }),
   }),
 ]);
-
-const factorFields = {
-  label,
-  source,
-  Kt: z.number().min(1).optional().meta({ description: 'Author-entered bending stress-concentration factor' }),
-  Kts: z.number().min(1).optional().meta({ description: 'Author-entered torsion stress-concentration factor' }),
-};
-
-const filletSchema = z.strictObject({
-  type: z.literal('shoulder-fillet'),
-  at: station,
-  ...factorFields,
-  r: positive('Fillet radius'),
-});
-
-const keyseatSchema = z.strictObject({
-  type: z.literal('keyseat'),
-  at: station,
-  ...factorFields,
-  form: z.enum(['end-mill', 'sled-runner']),
-  r: positive('Keyseat root radius (default 0.02·d, Shigley Table 7-1)').optional(),
-  width: positive('Key width').optional(),
-  height: positive('Key height').optional(),
-  length: positive('Key length').optional(),
-  Sy: z
-    .number()
-    .positive()
-    .optional()
-    .meta({ description: `Key material yield strength, ${STRESS}` }),
-});
-
-const ringGrooveSchema = z.strictObject({
-  type: z.literal('ring-groove'),
-  at: station,
-  ...factorFields,
-  depth: positive('Groove depth'),
-  r: positive('Groove root radius'),
-  width: positive('Groove width').optional(),
-});
-
-const crossHoleSchema = z.strictObject({
-  type: z.literal('cross-hole'),
-  at: station,
-  ...factorFields,
-  diameter: positive('Hole diameter'),
-});
-
-const featureSchema = z.discriminatedUnion('type', [filletSchema, keyseatSchema, ringGrooveSchema, crossHoleSchema]);
 
 const bendingSchema = z.strictObject({
   label,
@@ -193,6 +129,6 @@ export type CalcInput = z.infer<typeof calcInputSchema>;
 export type MaterialInput = z.infer<typeof materialSchema>;
 export type SegmentInput = z.infer<typeof segmentSchema>;
 export type TorqueInput = z.infer<typeof torqueSchema>;
-export type FeatureInput = z.infer<typeof featureSchema>;
+export type { FeatureInput } from './feature-schema';
 export type BendingInput = z.infer<typeof bendingSchema>;
 export type FatigueInput = z.infer<typeof fatigueSchema>;

@@ -54,70 +54,66 @@ export interface StateSpec {
 }
 
 const AUTHOR_TURN: Turn = { role: 'author', relation: 'own', may: ['update', 'submit', 'sign'], signs: 'authored' };
+const CHECKER_TURN: Turn = {
+  role: 'checker',
+  relation: 'independent',
+  may: ['check', 'return', 'sign'],
+  signs: 'checked',
+};
+const APPROVER_TURN: Turn = {
+  role: 'approver',
+  relation: 'independent-of-checker',
+  may: ['approve', 'return', 'sign'],
+  signs: 'approved',
+};
+
+type Shown = Pick<StateSpec, 'label' | 'badge'>;
+
+/** The author holds it: content and files change, and every report page says it is a draft. */
+function heldByAuthor(shown: Shown): StateSpec {
+  const report: StateSpec['report'] = { tone: 'fail', mark: 'DRAFT · NOT FOR CONSTRUCTION' };
+  return { ...shown, report, isEditable: true, turn: AUTHOR_TURN, allowsNextRevision: false };
+}
+
+/** A reviewer holds it: the content is frozen for their signature and not yet fit to build from. */
+function underReview(shown: Shown, stage: string, turn: Turn): StateSpec {
+  const report: StateSpec['report'] = { tone: 'warn', mark: `${stage} · NOT FOR CONSTRUCTION` };
+  return { ...shown, report, isEditable: false, allowsNextRevision: false, turn };
+}
+
+/** Nobody acts on it any more: a read-only record, files included. */
+function closedRecord(spec: Omit<StateSpec, 'isEditable' | 'turn'>): StateSpec {
+  return { ...spec, isEditable: false, turn: null };
+}
 
 export const WORKFLOW: Record<RevisionState, StateSpec> = {
-  draft: {
-    label: 'Draft',
-    badge: { glyph: '✎', tone: 'open' },
-    report: { tone: 'fail', mark: 'DRAFT · NOT FOR CONSTRUCTION' },
-    isEditable: true,
-    turn: AUTHOR_TURN,
-    allowsNextRevision: false,
-  },
-  in_check: {
-    label: 'In check',
-    badge: { glyph: '◔', tone: 'waiting' },
-    report: { tone: 'warn', mark: 'IN CHECK · NOT FOR CONSTRUCTION' },
-    isEditable: false,
-    allowsNextRevision: false,
-    turn: { role: 'checker', relation: 'independent', may: ['check', 'return', 'sign'], signs: 'checked' },
-  },
-  returned: {
-    label: 'Returned',
-    badge: { glyph: '↩', tone: 'returned' },
-    report: { tone: 'fail', mark: 'DRAFT · NOT FOR CONSTRUCTION' },
-    isEditable: true,
-    turn: AUTHOR_TURN,
-    allowsNextRevision: false,
-  },
-  checked: {
-    label: 'Checked',
-    badge: { glyph: '◑', tone: 'checked' },
-    report: { tone: 'warn', mark: 'AWAITING APPROVAL · NOT FOR CONSTRUCTION' },
-    isEditable: false,
-    allowsNextRevision: false,
-    turn: {
-      role: 'approver',
-      relation: 'independent-of-checker',
-      may: ['approve', 'return', 'sign'],
-      signs: 'approved',
-    },
-  },
-  approved: {
+  draft: heldByAuthor({ label: 'Draft', badge: { glyph: '✎', tone: 'open' } }),
+  in_check: underReview({ label: 'In check', badge: { glyph: '◔', tone: 'waiting' } }, 'IN CHECK', CHECKER_TURN),
+  returned: heldByAuthor({ label: 'Returned', badge: { glyph: '↩', tone: 'returned' } }),
+  checked: underReview(
+    { label: 'Checked', badge: { glyph: '◑', tone: 'checked' } },
+    'AWAITING APPROVAL',
+    APPROVER_TURN,
+  ),
+  approved: closedRecord({
     label: 'Approved',
     badge: { glyph: '●', tone: 'released' },
     report: { tone: 'pass', mark: null },
-    isEditable: false,
-    turn: null,
     allowsNextRevision: true,
     screenNote: 'Released. Approved revisions are read-only; a change needs a new revision with a reason.',
-  },
-  superseded: {
+  }),
+  superseded: closedRecord({
     label: 'Superseded',
     badge: { glyph: '○', tone: 'closed' },
     report: { tone: 'fail', mark: 'SUPERSEDED · DO NOT USE' },
-    isEditable: false,
-    turn: null,
     allowsNextRevision: false,
-  },
-  withdrawn: {
+  }),
+  withdrawn: closedRecord({
     label: 'Withdrawn',
     badge: { glyph: '×', tone: 'closed' },
     report: { tone: 'fail', mark: 'WITHDRAWN · DO NOT USE' },
-    isEditable: false,
-    turn: null,
     allowsNextRevision: true,
-  },
+  }),
 };
 
 /**

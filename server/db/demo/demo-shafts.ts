@@ -4,36 +4,35 @@
  * (dimensions, duties, loads, bearing ratings, names) is invented for the demo. Bending moments come
  * from the bearings and loads (beam model), not from hand-entered values.
  */
-const STEEL_1045_CD = {
-  name: 'AISI 1045 CD',
-  kind: 'steel',
-  E: 207,
-  G: 79.3,
-  nu: 0.292,
-  Sy: 530,
-  Su: 630,
-  source: 'Shigley Table A-20 (minimum), Table A-5',
-};
-const STEEL_1045_HR = {
-  name: 'AISI 1045 HR',
-  kind: 'steel',
-  E: 207,
-  G: 79.3,
-  nu: 0.292,
-  Sy: 310,
-  Su: 570,
-  source: 'Shigley Table A-20 (minimum), Table A-5',
-};
-const STEEL_1020_CD = {
-  name: 'AISI 1020 CD',
-  kind: 'steel',
-  E: 207,
-  G: 79.3,
-  nu: 0.292,
-  Sy: 390,
-  Su: 470,
-  source: 'Shigley Table A-20 (minimum), Table A-5',
-};
+
+/** A carbon steel by its minimum strengths [MPa]; the elastic constants are the same for every grade here. */
+function carbonSteel(name: string, Sy: number, Su: number) {
+  return { name, kind: 'steel', E: 207, G: 79.3, nu: 0.292, Sy, Su, source: 'Shigley Table A-20 (minimum), Table A-5' };
+}
+const STEEL_1045_CD = carbonSteel('AISI 1045 CD', 530, 630);
+const STEEL_1045_HR = carbonSteel('AISI 1045 HR', 310, 570);
+const STEEL_1020_CD = carbonSteel('AISI 1020 CD', 390, 470);
+
+/** A solid segment (no bore). */
+function solid(label: string, length: number, od: number) {
+  return { label, length, od, id: 0 };
+}
+
+/** Torques given as power at the one speed the whole shaft turns at: positive drives, negative is taken off. */
+function atSpeed(speed: number, entries: [label: string, at: number, power: number][]) {
+  return entries.map(([label, at, power]) => ({ label, at, power, speed }));
+}
+
+/** A keyseat for a key of the demo's key steel (Sy 390 MPa); a chart factor, when given, comes with its source. */
+function keyseat(
+  form: 'end-mill' | 'sled-runner',
+  at: number,
+  [width, height, length]: [number, number, number],
+  label: string,
+  chart?: { Kts: number; source: string },
+) {
+  return { type: 'keyseat', form, at, width, height, length, Sy: 390, ...chart, label };
+}
 
 /** SP-450 slurry pump drive shaft: 75 kW at 1480 rpm from the motor coupling to the overhung impeller. */
 export function slurryPumpShaft(impellerSeat = 55): Record<string, unknown> {
@@ -42,31 +41,22 @@ export function slurryPumpShaft(impellerSeat = 55): Record<string, unknown> {
     units: 'SI',
     material: STEEL_1045_CD,
     segments: [
-      { label: 'coupling seat', length: 110, od: 55, id: 0 },
-      { label: 'seal sleeve', length: 90, od: 65, id: 0 },
-      { label: 'drive-end bearing', length: 45, od: 75, id: 0 },
-      { label: 'body', length: 380, od: 85, id: 0 },
-      { label: 'wet-end bearing', length: 45, od: 75, id: 0 },
-      { label: 'impeller seat', length: 120, od: impellerSeat, id: 0 },
+      solid('coupling seat', 110, 55),
+      solid('seal sleeve', 90, 65),
+      solid('drive-end bearing', 45, 75),
+      solid('body', 380, 85),
+      solid('wet-end bearing', 45, 75),
+      solid('impeller seat', 120, impellerSeat),
     ],
-    torques: [
-      { label: 'motor coupling', at: 40, power: 75, speed: 1480 },
-      { label: 'impeller', at: 730, power: -75, speed: 1480 },
-    ],
+    torques: atSpeed(1480, [
+      ['motor coupling', 40, 75],
+      ['impeller', 730, -75],
+    ]),
     features: [
-      { type: 'keyseat', form: 'end-mill', at: 40, width: 16, height: 10, length: 90, Sy: 390, label: 'coupling key' },
+      keyseat('end-mill', 40, [16, 10, 90], 'coupling key'),
       { type: 'shoulder-fillet', at: 110, r: 2.5, label: 'coupling shoulder' },
       { type: 'shoulder-fillet', at: 200, r: 2.5, label: 'sleeve shoulder' },
-      {
-        type: 'keyseat',
-        form: 'end-mill',
-        at: 730,
-        width: 16,
-        height: 10,
-        length: 100,
-        Sy: 390,
-        label: 'impeller key',
-      },
+      keyseat('end-mill', 730, [16, 10, 100], 'impeller key'),
     ],
     supports: [
       { label: 'drive-end bearing', at: 222.5, kind: 'deep-groove-ball', C: 119, locating: true, X: 0.56, Y: 1.6 },
@@ -84,6 +74,8 @@ export function slurryPumpShaft(impellerSeat = 55): Record<string, unknown> {
   };
 }
 
+const HUB_KEY_CHART = { Kts: 1.6, source: 'Peterson chart value read by the author (demo)' };
+
 /**
  * CV-1200 conveyor head shaft: 30 kW at 45 rpm from an overhung final-drive gear to the two keyed hubs of the belt
  * drum.
@@ -94,44 +86,22 @@ export function conveyorHeadShaft(hubSeat = 120): Record<string, unknown> {
     units: 'SI',
     material: STEEL_1045_HR,
     segments: [
-      { label: 'final-drive gear seat', length: 220, od: 110, id: 0 },
-      { label: 'bearing', length: 90, od: 125, id: 0 },
-      { label: 'hub seat', length: 180, od: hubSeat, id: 0 },
-      { label: 'body', length: 1050, od: 140, id: 0 },
-      { label: 'hub seat', length: 180, od: hubSeat, id: 0 },
-      { label: 'bearing', length: 90, od: 125, id: 0 },
+      solid('final-drive gear seat', 220, 110),
+      solid('bearing', 90, 125),
+      solid('hub seat', 180, hubSeat),
+      solid('body', 1050, 140),
+      solid('hub seat', 180, hubSeat),
+      solid('bearing', 90, 125),
     ],
-    torques: [
-      { label: 'final-drive gear', at: 110, power: 30, speed: 45 },
-      { label: 'drive-side hub', at: 400, power: -18, speed: 45 },
-      { label: 'idle-side hub', at: 1630, power: -12, speed: 45 },
-    ],
+    torques: atSpeed(45, [
+      ['final-drive gear', 110, 30],
+      ['drive-side hub', 400, -18],
+      ['idle-side hub', 1630, -12],
+    ]),
     features: [
       { type: 'shoulder-fillet', at: 220, r: 4, label: 'gear seat shoulder' },
-      {
-        type: 'keyseat',
-        form: 'sled-runner',
-        at: 400,
-        width: 32,
-        height: 18,
-        length: 160,
-        Sy: 390,
-        Kts: 1.6,
-        source: 'Peterson chart value read by the author (demo)',
-        label: 'drive hub key',
-      },
-      {
-        type: 'keyseat',
-        form: 'sled-runner',
-        at: 1630,
-        width: 32,
-        height: 18,
-        length: 160,
-        Sy: 390,
-        Kts: 1.6,
-        source: 'Peterson chart value read by the author (demo)',
-        label: 'idle hub key',
-      },
+      keyseat('sled-runner', 400, [32, 18, 160], 'drive hub key', HUB_KEY_CHART),
+      keyseat('sled-runner', 1630, [32, 18, 160], 'idle hub key', HUB_KEY_CHART),
     ],
     supports: [
       { label: 'drive-side bearing', at: 265, kind: 'spherical-roller', C: 1020, locating: true },
@@ -158,26 +128,15 @@ export function mixerShaft(hubSeat = 90, od = 114.3, id = 98): Record<string, un
     units: 'SI',
     material: STEEL_1020_CD,
     segments: [
-      { label: 'flange spigot', length: 150, od: 90, id: 0 },
+      solid('flange spigot', 150, 90),
       { label: 'tube', length: 4200, od, id },
-      { label: 'impeller hub seat', length: 200, od: hubSeat, id: 0 },
+      solid('impeller hub seat', 200, hubSeat),
     ],
-    torques: [
-      { label: 'gearbox flange', at: 60, power: 15, speed: 60 },
-      { label: 'impeller', at: 4450, power: -15, speed: 60 },
-    ],
-    features: [
-      {
-        type: 'keyseat',
-        form: 'end-mill',
-        at: 4450,
-        width: 25,
-        height: 14,
-        length: 160,
-        Sy: 390,
-        label: 'impeller key',
-      },
-    ],
+    torques: atSpeed(60, [
+      ['gearbox flange', 60, 15],
+      ['impeller', 4450, -15],
+    ]),
+    features: [keyseat('end-mill', 4450, [25, 14, 160], 'impeller key')],
     supports: [
       {
         label: 'gearbox output bearing, lower',
@@ -206,17 +165,17 @@ export function hoistDrumShaft(farBearingC = 300): Record<string, unknown> {
     units: 'SI',
     material: STEEL_1045_CD,
     segments: [
-      { label: 'coupling seat', length: 130, od: 100, id: 0 },
-      { label: 'bearing', length: 60, od: 115, id: 0 },
-      { label: 'drum seat', length: 520, od: 130, id: 0 },
-      { label: 'bearing', length: 60, od: 115, id: 0 },
+      solid('coupling seat', 130, 100),
+      solid('bearing', 60, 115),
+      solid('drum seat', 520, 130),
+      solid('bearing', 60, 115),
     ],
-    torques: [
-      { label: 'gearbox coupling', at: 65, power: 7.5, speed: 24 },
-      { label: 'rope drum', at: 450, power: -7.5, speed: 24 },
-    ],
+    torques: atSpeed(24, [
+      ['gearbox coupling', 65, 7.5],
+      ['rope drum', 450, -7.5],
+    ]),
     features: [
-      { type: 'keyseat', form: 'end-mill', at: 65, width: 28, height: 16, length: 110, Sy: 390, label: 'coupling key' },
+      keyseat('end-mill', 65, [28, 16, 110], 'coupling key'),
       { type: 'shoulder-fillet', at: 130, r: 5.5, label: 'coupling shoulder' },
       { type: 'shoulder-fillet', at: 190, r: 6, label: 'drum seat shoulder' },
     ],

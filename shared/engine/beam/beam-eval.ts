@@ -1,10 +1,9 @@
 import type { Model } from '../model';
-import type { BeamResults, BendingPoint, LoadResult, SupportResult } from './beam-result';
-import { solveBeam, type BeamSolution, type DiagramPoint } from './beam-solve';
+import type { BeamResults } from './beam-result';
+import { solveBeam, type BeamSolution } from './beam-solve';
 import { BEAM_BASE, STEEL_DENSITY } from './beam-units';
 import { deflectionCurve, nodePoint } from './beam-curve';
-import { lifeExponent, ratingLife } from './bearing-life';
-import { axialReactions } from './axial';
+import { bendingOut, loadResults, supportResults } from './beam-outputs';
 import { CRITICAL_SPEED_METHOD, firstBendingFrequency } from './critical-speed';
 import { nodeAt } from './mesh';
 import { resolveLoads } from './resolve-loads';
@@ -57,88 +56,6 @@ function empty(speed: number | null): BeamResults {
     speed,
     assumptions: [],
   };
-}
-
-function supportResults(model: Model, beam: BeamSolution, speed: number | null): SupportResult[] {
-  const { system, input } = model;
-  const F = BEAM_BASE[system].force;
-  const axial = axialReactions(model, beam.loads);
-  return (input.supports ?? []).map((s, i) => {
-    const p = nodePoint(beam, beam.supportNodes[i]);
-    const [Fy, Fz] = [beam.y.R[i], beam.z.R[i]];
-    const Fr = Math.hypot(Fy, Fz);
-    const C = s.C === undefined ? null : s.C * BEAM_BASE[system].rating;
-    const life = ratingLife(s.kind, C, Fr, axial[i], s.X, s.Y, speed);
-    return {
-      index: i,
-      label: s.label,
-      kind: s.kind,
-      at: s.at,
-      locating: s.locating === true,
-      Fy: Fy / F,
-      Fz: Fz / F,
-      F: Fr / F,
-      Fa: axial[i] / F,
-      slopeY: p.sy,
-      slopeZ: p.sz,
-      slope: Math.hypot(p.sy, p.sz),
-      P: life.P / F,
-      p: lifeExponent(s.kind),
-      C: s.C ?? null,
-      L10: life.L10,
-      L10h: life.L10h,
-    } satisfies SupportResult;
-  });
-}
-
-function loadResults(model: Model, beam: BeamSolution): LoadResult[] {
-  const { k, system, input } = model;
-  const F = BEAM_BASE[system].force;
-  return beam.loads.map((l, i) => {
-    const p = nodePoint(beam, nodeAt(beam.mesh, l.at));
-    return {
-      index: i,
-      label: (input.loads ?? [])[i].label,
-      kind: l.kind,
-      at: l.at / k.length,
-      Fy: l.Fy / F,
-      Fz: l.Fz / F,
-      Fx: l.Fx / F,
-      T: l.T / k.torque,
-      y: p.y / k.length,
-      z: p.z / k.length,
-      deflection: Math.hypot(p.y, p.z) / k.length,
-      slopeY: p.sy,
-      slopeZ: p.sz,
-      slope: Math.hypot(p.sy, p.sz),
-    };
-  });
-}
-
-// Rounding leaves residues near 1e-12 of the largest value where the exact value is zero (beyond the last bearing).
-function largest(d: readonly DiagramPoint[], a: 'My' | 'Vy', b: 'Mz' | 'Vz'): number {
-  let m = 0;
-  for (const p of d) m = Math.max(m, Math.abs(p[a]), Math.abs(p[b]));
-  return 1e-11 * m;
-}
-
-function bendingOut(model: Model, beam: BeamSolution): BendingPoint[] {
-  const { k, system } = model;
-  const F = BEAM_BASE[system].force;
-  const d = beam.diagram;
-  const [tm, tv] = [largest(d, 'My', 'Mz'), largest(d, 'Vy', 'Vz')];
-  const clean = (v: number, tol: number): number => (Math.abs(v) <= tol ? 0 : v);
-  return d.map((p) => {
-    const [My, Mz] = [clean(p.My, tm), clean(p.Mz, tm)];
-    return {
-      at: p.at / k.length,
-      Vy: clean(p.Vy, tv) / F,
-      Vz: clean(p.Vz, tv) / F,
-      My: My / k.torque,
-      Mz: Mz / k.torque,
-      M: Math.hypot(My, Mz) / k.torque,
-    };
-  });
 }
 
 /** The beam model of a validated calc: statics, deflection, bearing life and critical speed. */

@@ -11,6 +11,7 @@ import { featureTag } from '../../../../../shared/plots';
 import { featureGroup, type FeatureForm, type FeatureType } from './editor-form';
 import type { IssueMap } from './issue-map';
 import { moveRow } from './row-moves';
+import { RowActions } from './row-actions';
 
 type Field = { key: keyof FeatureForm; label: string; quantity: 'length' | 'stress' | null; isOptional: boolean };
 const L = (key: keyof FeatureForm, label: string, isOptional = false): Field => ({
@@ -52,6 +53,7 @@ export const FEATURE_NAMES: Record<FeatureType, string> = {
     MatButtonModule,
     MatIconModule,
     MatMenuModule,
+    RowActions,
   ],
   templateUrl: './features-list.html',
   styleUrl: './editor-panels.scss',
@@ -67,6 +69,8 @@ export class FeaturesList {
   protected readonly labels = computed(() => UNIT_LABELS[this.units()]);
   protected readonly fieldsOf = FIELDS;
   protected readonly tag = featureTag;
+  /** Stress concentration factors read off a chart; blank means the published fit computes them. */
+  protected readonly chartFactors = ['Kt', 'Kts'] as const;
 
   protected unitOf(f: Field): string {
     return f.quantity ? this.labels()[f.quantity] : '';

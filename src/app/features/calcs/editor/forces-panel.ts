@@ -9,6 +9,7 @@ import type { UnitSystem } from '../../../../../shared/engine';
 import type { IssueMap } from './issue-map';
 import { FORCE_KINDS, FORCE_NAMES, forceGroup, type ForceForm, type ForceKind } from './shaft-form';
 import { shaftUnits } from './shaft-units';
+import { RowActions } from './row-actions';
 
 interface Field {
   key: keyof ForceForm;
@@ -58,7 +59,15 @@ const TAGS: Record<ForceKind, string> = { point: 'F', gear: 'G', pulley: 'P', sp
  */
 @Component({
   selector: 'tt-forces-panel',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
+  imports: [
+    ReactiveFormsModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatIconModule,
+    RowActions,
+  ],
   templateUrl: './forces-panel.html',
   styleUrl: './editor-panels.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

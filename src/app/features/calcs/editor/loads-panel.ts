@@ -8,6 +8,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine';
 import { bendingGroup, torqueGroup, type BendingForm, type TorqueForm } from './editor-form';
 import type { IssueMap } from './issue-map';
+import { RowActions } from './row-actions';
+import { StationTable, type StationTableSpec } from './station-table';
 
 /** Load cases: external torques (or power at a speed) at stations, and bending moments for fatigue. Their
  * order carries no meaning (stations do), so rows are added and removed but not reordered. */
@@ -20,6 +22,8 @@ import type { IssueMap } from './issue-map';
     MatButtonModule,
     MatButtonToggleModule,
     MatIconModule,
+    RowActions,
+    StationTable,
   ],
   templateUrl: './loads-panel.html',
   styleUrl: './editor-panels.scss',
@@ -33,9 +37,25 @@ export class LoadsPanel {
   readonly canEdit = input(true);
 
   protected readonly u = computed(() => UNIT_LABELS[this.units()]);
+  protected readonly bendingTable = computed<StationTableSpec>(() => {
+    const u = this.u();
+    return {
+      list: 'bending',
+      caption: 'Bending moments',
+      rowName: 'Bending',
+      removeName: 'moment',
+      tagPrefix: '',
+      hasIndexHeadAligned: false,
+      columns: [
+        { key: 'at', head: 'Station', name: 'station', unit: u.length },
+        { key: 'Ma', head: 'Ma', name: 'alternating moment Ma', unit: u.torque },
+        { key: 'Mm', head: 'Mm', name: 'midrange moment Mm', unit: u.torque, placeholder: '0' },
+      ],
+    };
+  });
 
-  protected issue(list: 'torques' | 'bending', i: number, key: string): string | undefined {
-    return this.issues()[`${list}[${i}].${key}`];
+  protected issue(i: number, key: string): string | undefined {
+    return this.issues()[`torques[${i}].${key}`];
   }
 
   protected addTorque(): void {
@@ -46,7 +66,7 @@ export class LoadsPanel {
     this.bending().push(bendingGroup());
   }
 
-  protected remove(list: FormArray, i: number): void {
-    list.removeAt(i);
+  protected removeTorque(i: number): void {
+    this.torques().removeAt(i);
   }
 }

@@ -9,6 +9,7 @@ import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine';
 import { segmentGroup, type SegmentForm } from './editor-form';
 import type { IssueMap } from './issue-map';
 import { moveRow } from './row-moves';
+import { RowActions } from './row-actions';
 
 const FIELDS = ['length', 'od', 'id'] as const;
 const NAMES: Record<(typeof FIELDS)[number], string> = { length: 'length', od: 'outer diameter', id: 'inner diameter' };
@@ -17,7 +18,15 @@ const LABELS: Record<string, string> = { length: 'Length', od: 'Outer ⌀', id: 
 /** The shaft's segments from left to right: an editable table with add, remove and reorder. */
 @Component({
   selector: 'tt-segments-table',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatTooltipModule],
+  imports: [
+    ReactiveFormsModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatButtonModule,
+    MatIconModule,
+    MatTooltipModule,
+    RowActions,
+  ],
   templateUrl: './segments-table.html',
   styleUrl: './editor-panels.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -10,6 +10,7 @@ import type { UnitSystem } from '../../../../../shared/engine';
 import type { IssueMap } from './issue-map';
 import { BEARING_KINDS, BEARING_NAMES, supportGroup, type SupportForm } from './shaft-form';
 import { shaftUnits } from './shaft-units';
+import { RowActions } from './row-actions';
 
 /** The bearings: where each sits, its kind (which fixes the life exponent and the slope limit), C and location. */
 @Component({
@@ -22,6 +23,7 @@ import { shaftUnits } from './shaft-units';
     MatCheckboxModule,
     MatButtonModule,
     MatIconModule,
+    RowActions,
   ],
   templateUrl: './supports-panel.html',
   styleUrl: './editor-panels.scss',

@@ -1,10 +1,29 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import { MatTableModule } from '@angular/material/table';
 import type { CalcResult } from '../../../../../shared/engine';
 import { beamUnit, hasBeamModel } from '../../../../../shared/plots';
 import { fmt } from '../editor/result-format';
 import { ModelAssumptions } from './model-assumptions';
+import { ResultTable, type ResultColumn } from './result-table';
 import { loadRows, reactionRows } from './shaft-rows';
+
+const AT_FY_FZ: ResultColumn[] = [
+  { key: 'at', head: 'at' },
+  { key: 'Fy', head: 'Fy' },
+  { key: 'Fz', head: 'Fz' },
+];
+const REACTION_COLUMNS: ResultColumn[] = [
+  ...AT_FY_FZ,
+  { key: 'F', head: 'F radial' },
+  { key: 'Fa', head: 'Fa axial' },
+  { key: 'slope', head: 'slope' },
+  { key: 'L10', head: 'L10' },
+  { key: 'L10h', head: 'L10h' },
+];
+const LOAD_COLUMNS: ResultColumn[] = [
+  ...AT_FY_FZ,
+  { key: 'deflection', head: 'deflection' },
+  { key: 'slope', head: 'slope' },
+];
 
 /**
  * Results of the whole-shaft model: bearing reactions and life, deflection and slope at each force,
@@ -13,7 +32,7 @@ import { loadRows, reactionRows } from './shaft-rows';
  */
 @Component({
   selector: 'tt-shaft-results',
-  imports: [MatTableModule, ModelAssumptions],
+  imports: [ModelAssumptions, ResultTable],
   templateUrl: './shaft-results.html',
   styleUrl: '../editor/results.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -25,8 +44,8 @@ export class ShaftResults {
   protected readonly hasModel = computed(() => hasBeamModel(this.result()));
   protected readonly reactions = computed(() => reactionRows(this.result()));
   protected readonly loads = computed(() => loadRows(this.result()));
-  protected readonly reactionColumns = ['tag', 'at', 'Fy', 'Fz', 'F', 'Fa', 'slope', 'L10', 'L10h'];
-  protected readonly loadColumns = ['tag', 'at', 'Fy', 'Fz', 'deflection', 'slope'];
+  protected readonly reactionColumns = REACTION_COLUMNS;
+  protected readonly loadColumns = LOAD_COLUMNS;
   protected readonly unit = computed(() => {
     const r = this.result();
     return (key: string) => beamUnit(r, key);

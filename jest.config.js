@@ -8,6 +8,8 @@ const tsJest = ['ts-jest', { tsconfig: '<rootDir>/tsconfig.spec.json' }];
 /** @type {import('jest').Config} */
 module.exports = {
   testTimeout: 180_000,
+  // The longest files start first, so no worker runs one alone at the end (see the file).
+  testSequencer: '<rootDir>/test/support/test-sequencer.cjs',
   projects: [
     {
       displayName: 'unit',

@@ -23,13 +23,18 @@ fakes_start "$dir/fakes"
 trap 'fakes_stop; db_stop; rm -rf "$dir"' EXIT
 
 # Types, lint and format first; each counts as one test in the closing line, and a failure fails npm test, but the
-# jest projects still run so one run shows everything.
+# jest projects still run so one run shows everything. The client build for the end-to-end tests runs beside them:
+# all five are independent, and side by side they keep both cores busy (see DEVELOPERS.md, "Tests").
+log "building the client for the end-to-end tests (beside the static checks)"
+npx ng build --configuration production >/dev/null 2>"$dir/ng-build.log" &
+build_pid=$!
 checks="$dir/static-checks.txt"
 bash scripts/static-checks.sh "$checks"
 checks_status=$?
-
-log "building the client for the end-to-end tests"
-npx ng build --configuration production >/dev/null || die "client build failed"
+wait "$build_pid"
+build_status=$?
+cat "$dir/ng-build.log" >&2 # its warnings and errors, after the checks' output rather than inside it
+[ "$build_status" -eq 0 ] || die "client build failed"
 
 export NODE_ENV=test DB_ACQUIRE_MS=${DB_ACQUIRE_MS:-300000}
 results="$dir/jest-results.json"

@@ -1,15 +1,9 @@
-import { spawnSync } from 'node:child_process';
+import { runCalcCommand as calc } from '../support/calc-command';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
-// The calc command with --rules, run as a user would. Each spawn costs about a second.
-const ROOT = join(__dirname, '..', '..');
-
-function calc(args: string[]) {
-  const r = spawnSync('npx', ['tsx', 'scripts/calc.ts', ...args], { cwd: ROOT, encoding: 'utf8', timeout: 60_000 });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
+// The calc command with --rules, run as a user would (test/support/calc-command.ts).
 
 describe('calc command with a design standard', () => {
   it('when given --rules FILE, then the output gains the checklist and the verdict', () => {

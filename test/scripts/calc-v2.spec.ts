@@ -1,14 +1,7 @@
-import { spawnSync } from 'node:child_process';
-import { join } from 'node:path';
+import { runCalcCommand as calc } from '../support/calc-command';
 
 // The batch command on interchange format v2 (bearings, loads, masses), run as a user would.
-const ROOT = join(__dirname, '..', '..');
 const SHAFT = 'test/fixtures/calcs/two-bearing-gear-pulley.json';
-
-function calc(args: string[]) {
-  const r = spawnSync('npx', ['tsx', 'scripts/calc.ts', ...args], { cwd: ROOT, encoding: 'utf8', timeout: 60_000 });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
 
 describe('calc command with format v2', () => {
   it('when given a v2 file, then the JSON carries reactions, lives, deflection, critical speed and the moment diagram', () => {

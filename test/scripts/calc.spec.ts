@@ -1,20 +1,10 @@
-import { spawnSync } from 'node:child_process';
+import { runCalcCommand as calc } from '../support/calc-command';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 
-// The batch command, run as a user would (npx tsx scripts/calc.ts). Each spawn costs about a second.
+// The batch command, run as a user would (test/support/calc-command.ts).
 const ROOT = join(__dirname, '..', '..');
 const FIXTURES = 'test/fixtures/calcs';
-
-function calc(args: string[], input?: string) {
-  const r = spawnSync('npx', ['tsx', 'scripts/calc.ts', ...args], {
-    cwd: ROOT,
-    input,
-    encoding: 'utf8',
-    timeout: 60_000,
-  });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
 
 describe('calc command', () => {
   it('when given a valid file, then it prints only the result JSON and exits 0', () => {

@@ -10,9 +10,10 @@ import { createCalc, expectStatus, person, revisionOf, tickAll, type Meaning } f
 
 /**
  * Real server processes (server/main.ts) are killed with SIGKILL at random points while calcs are
- * signed off, and restarted; every sign request is retried with its own idempotency key until it
- * gets an answer, as a browser would. Afterwards the record must be whole. Correctness never
- * depends on when a kill lands; the generous limits only cover a slow, busy machine.
+ * signed off, and replaced; every sign request is retried with its own idempotency key until it
+ * gets an answer, as a browser would (from the next process, started beforehand as a spare).
+ * Afterwards the record must be whole. Correctness never depends on when a kill lands; the
+ * generous limits only cover a slow, busy machine.
  */
 const ROOT = path.resolve(__dirname, '../..');
 const REVISIONS = 8;
@@ -31,7 +32,7 @@ class ServerProcess {
   private child: ChildProcess | null = null;
   base = '';
 
-  start(): Promise<void> {
+  start(): Promise<this> {
     return new Promise((resolve, reject) => {
       const child = fork(path.join(ROOT, 'server/main.ts'), [], {
         cwd: ROOT,
@@ -52,7 +53,7 @@ class ServerProcess {
       child.once('message', (m: { ready?: boolean; port?: number }) => {
         child.off('exit', early);
         this.base = `http://127.0.0.1:${m.port}`;
-        resolve();
+        resolve(this);
       });
     });
   }
@@ -68,11 +69,48 @@ class ServerProcess {
   }
 }
 
-const server = new ServerProcess();
+/**
+ * The process that serves, and a spare started beside it, so that after a kill the replacement is already up:
+ * loading the whole server takes seconds on a busy machine, and the spec would otherwise wait for it once per kill.
+ * The spare has seen no request when it takes over, exactly like a process started after the kill.
+ */
+class Servers {
+  private current = new ServerProcess();
+  private spare: Promise<ServerProcess> | null = null;
+
+  get base() {
+    return this.current.base;
+  }
+
+  async start(): Promise<void> {
+    await this.current.start();
+    this.startSpare();
+  }
+
+  /** SIGKILL for the serving process; the spare takes over and a new spare starts. */
+  async killAndReplace(): Promise<void> {
+    await this.current.kill();
+    this.current = await (this.spare ?? new ServerProcess().start());
+    this.startSpare();
+  }
+
+  async stop(): Promise<void> {
+    await this.current.kill();
+    await (await this.spare?.catch(() => null))?.kill();
+  }
+
+  private startSpare() {
+    this.spare = new ServerProcess().start();
+    // Awaited when it takes over; until then a failed start must not count as an unhandled rejection.
+    this.spare.catch(() => undefined);
+  }
+}
+
+const server = new Servers();
 let kills = 0;
 
 afterAll(async () => {
-  await server.kill();
+  await server.stop();
   await sequelize.close();
 });
 
@@ -122,9 +160,8 @@ async function signThroughCrashes(
   );
   if (random() < KILL_CHANCE || forceKill) {
     await new Promise((resolve) => setTimeout(resolve, Math.floor(random() * 400)));
-    await server.kill();
+    await server.killAndReplace();
     kills++;
-    await server.start();
   }
   for (;;) {
     const outcome = await attempt;

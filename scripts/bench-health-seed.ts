@@ -5,6 +5,13 @@ import { createHash } from 'node:crypto';
 import type { Connection } from 'mariadb';
 import { prng } from './bench-seed-data';
 
+// Seven in ten refusals a wrong password, then a missing, a wrong and a one-time code not set up.
+const REASONS = [
+  ...Array(7).fill('wrong password'),
+  'one-time code missing',
+  'one-time code wrong',
+  'one-time code not set up',
+];
 const hex = (text: string) => createHash('sha256').update(text).digest('hex');
 const FILE = (name: string, sha: string) => ({ name, kind: 'drawing', sizeBytes: 2048, sha256: sha });
 
@@ -12,10 +19,13 @@ async function batches(conn: Connection, sql: string, rows: unknown[][]): Promis
   for (let i = 0; i < rows.length; i += 2000) await conn.batch(sql, rows.slice(i, i + 2000));
 }
 
-/** Adds the signals' material once; a library that has it (findings present) is left alone. */
-export async function seedHealthMaterial(conn: Connection): Promise<void> {
+/**
+ * Adds the signals' material once; a library that has it (findings present) is left alone. True when it added
+ * rows, which the signing path's facts (review-facts.ts) must then be worked out for.
+ */
+export async function seedHealthMaterial(conn: Connection): Promise<boolean> {
   const [{ n }] = await conn.query("SELECT COUNT(*) AS n FROM findings WHERE text LIKE 'Bench finding%'");
-  if (Number(n) > 0) return;
+  if (Number(n) > 0) return false;
   const rnd = prng(15);
   const checked: {
     id: number;
@@ -52,6 +62,7 @@ export async function seedHealthMaterial(conn: Connection): Promise<void> {
   console.log(
     `  review-health material: ${findings.length.toLocaleString('en-US')} findings, ${quick.length.toLocaleString('en-US')} quick checks, ${changed.length} changed attachment sets`,
   );
+  return true;
 }
 
 /** Refused attempts as the signing path records them: audit entries with the calc and project they fall under. */
@@ -67,7 +78,7 @@ async function seedRefusals(
       const at = new Date(r.checkedAt.getTime() - (attempts - a) * 20_000);
       const payload = JSON.stringify({
         meaning: 'checked',
-        reason: rnd() < 0.7 ? 'wrong password' : 'one-time code missing or wrong',
+        reason: REASONS[Math.min(REASONS.length - 1, Math.floor(rnd() * 10))],
       });
       rows.push([
         at,

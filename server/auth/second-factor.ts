@@ -11,21 +11,35 @@ import { runTransaction } from '../db/transaction';
 // One step either side of the current 30-second window absorbs clock drift on phones.
 authenticator.options = { window: 1 };
 
-/** Checks a signer's one-time code when they have enrolled one; refuses signing when required but missing. */
-export function assertSecondFactor(user: User, code: string | undefined): void {
+/** Why a signature's one-time code is refused; each reason is its own audit entry and its own message. */
+export type SecondFactorRefusal = 'one-time code not set up' | 'one-time code missing' | 'one-time code wrong';
+
+/** The refusal of a signer's one-time code, if any: required but not set up, missing, or wrong (or expired). */
+export function secondFactorRefusal(
+  user: User,
+  code: string | undefined,
+): { reason: SecondFactorRefusal; error: AppError } | null {
   if (!user.totpSecret) {
-    if (user.totpRequired)
-      throw new AppError(
+    if (!user.totpRequired) return null;
+    return {
+      reason: 'one-time code not set up',
+      error: new AppError(
         'second_factor_required',
         403,
         'An administrator requires a one-time code for your signatures: enrol an authenticator app under Your account first',
-      );
-    return;
+      ),
+    };
   }
-  if (!code)
-    throw AppError.validation({ oneTimeCode: ['is required: enter the 6 digits your authenticator app shows'] });
+  const refused = (reason: SecondFactorRefusal, problem: string) => ({
+    reason,
+    error: new AppError('validation', 400, `One-time code ${problem}; nothing was signed`, {
+      fieldErrors: { oneTimeCode: [problem] },
+    }),
+  });
+  if (!code) return refused('one-time code missing', 'is required: enter the 6 digits your authenticator app shows');
   if (!authenticator.check(code, user.totpSecret))
-    throw AppError.validation({ oneTimeCode: ['is not correct or has expired'] });
+    return refused('one-time code wrong', 'is not correct or has expired');
+  return null;
 }
 
 /**

@@ -1,14 +1,10 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { HealthSettings, SignalRow } from '../../shared/schemas/review-health.schema';
-import type { SignedAttachment } from '../calcs/revision-content';
-import { auditLink, plural, projectClause, ROW_CAP, type HealthScope } from './health-scope';
+import { auditLink, coverFrom, plural, ROW_CAP, type HealthScope } from './health-scope';
+import { setChange } from './review-facts';
 import type { VersionFacts } from './standard-versions';
 
 const APPROVED = `r.approved_at >= ? AND r.approved_at < ? AND r.status IN ('approved', 'superseded')`;
-const COLUMNS = `r.id, r.calc_id AS calcId, r.label, r.rule_set_id AS ruleSetId, r.approved_at AS approvedAt, c.number, p.code,
-  u.display_name AS approver`;
-const FROM = `FROM revisions r JOIN calcs c ON c.id = r.calc_id JOIN projects p ON p.id = c.project_id LEFT JOIN users u ON u.id = r.approver_id`;
-const BASE = `SELECT ${COLUMNS} ${FROM}`;
 
 interface Approved {
   id: number;
@@ -21,26 +17,45 @@ interface Approved {
   approver: string | null;
 }
 
-const whereOf = (scope: HealthScope) => {
-  const project = projectClause(scope);
-  return { sql: `WHERE ${APPROVED}${project.sql}`, values: [scope.start, scope.end, ...project.values] };
-};
+/**
+ * The period's approvals matching `filter` (on columns of the covering index), newest first, capped; only the
+ * listed rows are joined to their calc, project and approver. `extra` adds columns over the listed rows (alias r).
+ */
+async function approvals<T>(
+  sequelize: Sequelize,
+  scope: HealthScope,
+  filter: { sql: string; values: unknown[] },
+  extra = '',
+): Promise<(Approved & T)[]> {
+  const { from, project } = coverFrom(scope, 'revisions_approved_cover');
+  return sequelize.query<Approved & T>(
+    `SELECT q.id, q.calcId, r.label, q.ruleSetId, q.approvedAt, c.number, p.code, u.display_name AS approver${extra}
+     FROM (SELECT r.id, r.calc_id AS calcId, r.rule_set_id AS ruleSetId, r.approved_at AS approvedAt, r.approver_id AS approverId
+           ${from} WHERE ${APPROVED}${project.sql} AND (${filter.sql})
+           ORDER BY r.approved_at DESC, r.id DESC LIMIT ${ROW_CAP + 1}) q
+       JOIN revisions r ON r.id = q.id JOIN calcs c ON c.id = q.calcId JOIN projects p ON p.id = c.project_id
+       LEFT JOIN users u ON u.id = q.approverId
+     ORDER BY q.approvedAt DESC, q.id DESC`,
+    { replacements: [scope.start, scope.end, ...project.values, ...filter.values], type: QueryTypes.SELECT },
+  );
+}
 
 const calcOf = (r: Approved) => ({ projectCode: r.code, calcId: r.calcId, calcNumber: r.number, revision: r.label });
 const signaturesLink = (r: Approved) =>
   auditLink('Signatures on this calc', { calcId: r.calcId, action: 'revision.signed' });
 
-/** Approved revisions whose attachment set at approval differs from the set the last check signature covered. */
+/**
+ * Approved revisions whose attachment set at approval differs from the set the last check signature covered:
+ * found by the count the approval signature recorded (review-facts.ts), named from the two signatures themselves.
+ */
 export async function attachmentsAfterCheck(sequelize: Sequelize, scope: HealthScope): Promise<SignalRow[]> {
-  const where = whereOf(scope);
-  // The latest signature of each meaning (ids grow with time), found on the (revision_id, meaning) index.
   const last = (meaning: string) =>
-    `(SELECT s.attachments FROM signatures s WHERE s.id = (SELECT MAX(x.id) FROM signatures x WHERE x.revision_id = r.id AND x.meaning = '${meaning}'))`;
-  const rows = await sequelize.query<Approved & { checkedSet: string; approvedSet: string }>(
-    `SELECT * FROM (SELECT ${COLUMNS}, ${last('checked')} AS checkedSet, ${last('approved')} AS approvedSet ${FROM} ${where.sql}) t
-     WHERE t.checkedSet IS NOT NULL AND t.approvedSet IS NOT NULL AND t.checkedSet <> t.approvedSet
-     ORDER BY t.approvedAt DESC LIMIT ${ROW_CAP + 1}`,
-    { replacements: where.values, type: QueryTypes.SELECT },
+    `(SELECT s.attachments FROM signatures s WHERE s.revision_id = q.id AND s.meaning = '${meaning}' ORDER BY s.id DESC LIMIT 1)`;
+  const rows = await approvals<{ checkedSet: string; approvedSet: string }>(
+    sequelize,
+    scope,
+    { sql: 'r.attachments_changed > 0', values: [] },
+    `, ${last('checked')} AS checkedSet, ${last('approved')} AS approvedSet`,
   );
   return rows.map((r) => {
     const { added, removed } = setChange(JSON.parse(r.checkedSet), JSON.parse(r.approvedSet));
@@ -60,16 +75,6 @@ export async function attachmentsAfterCheck(sequelize: Sequelize, scope: HealthS
   });
 }
 
-function setChange(before: SignedAttachment[], after: SignedAttachment[]): { added: string[]; removed: string[] } {
-  const key = (a: SignedAttachment) => `${a.sha256}|${a.name}|${a.kind}`;
-  const had = new Set(before.map(key));
-  const has = new Set(after.map(key));
-  return {
-    added: after.filter((a) => !had.has(key(a))).map((a) => a.name),
-    removed: before.filter((a) => !has.has(key(a))).map((a) => a.name),
-  };
-}
-
 /** Approvals under a version that was replaced within the set number of days after them (or had been before them). */
 export async function replacedStandard(
   sequelize: Sequelize,
@@ -79,17 +84,13 @@ export async function replacedStandard(
 ): Promise<SignalRow[]> {
   const replaced = [...versions.values()].filter((v) => v.replacedBy);
   if (replaced.length === 0) return [];
-  const where = whereOf(scope);
   // Per replaced version, only approvals from N days before its successor took effect on.
   const near = replaced.map(() => '(r.rule_set_id = ? AND r.approved_at >= ?)').join(' OR ');
   const bounds = replaced.flatMap((v) => [
     v.id,
     new Date(Date.parse(`${v.replacedBy!.on}T00:00:00Z`) - settings.replacedWithinDays * 86_400_000),
   ]);
-  const rows = await sequelize.query<Approved>(
-    `${BASE} ${where.sql} AND (${near}) ORDER BY r.approved_at DESC LIMIT ${ROW_CAP + 1}`,
-    { replacements: [...where.values, ...bounds], type: QueryTypes.SELECT },
-  );
+  const rows = await approvals(sequelize, scope, { sql: near, values: bounds });
   const out: SignalRow[] = [];
   for (const r of rows) {
     const v = versions.get(r.ruleSetId)!;

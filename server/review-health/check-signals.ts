@@ -1,6 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { HealthSettings, SignalRow } from '../../shared/schemas/review-health.schema';
-import { auditLink, durationText, plural, projectClause, ROW_CAP, type HealthScope } from './health-scope';
+import { auditLink, coverFrom, durationText, plural, ROW_CAP, type HealthScope } from './health-scope';
 
 // Checks that count: the revision still holds the content its checker signed.
 const CHECKED = `r.checked_at >= ? AND r.checked_at < ? AND r.status IN ('checked', 'approved', 'superseded')`;
@@ -20,22 +20,29 @@ interface QuickRow {
   features: number;
 }
 
-/** Checks signed sooner after submission than the set seconds per checklist row, segment and feature. */
+/**
+ * Checks signed sooner after submission than the set seconds per checklist row, segment and feature. The sizes
+ * recorded at the check signature sit in the covering index, so the period is filtered on index entries alone
+ * and only the listed rows are joined to their names.
+ */
 export async function quickChecks(
   sequelize: Sequelize,
   scope: HealthScope,
   settings: HealthSettings,
 ): Promise<SignalRow[]> {
-  const project = projectClause(scope);
+  const { from, project } = coverFrom(scope, 'revisions_checked_cover');
+  const seconds = 'TIMESTAMPDIFF(SECOND, r.submitted_at, r.checked_at)';
   const rows = await sequelize.query<QuickRow>(
-    `SELECT r.id, r.calc_id AS calcId, r.label, c.number, p.code, a.display_name AS author, k.display_name AS checker,
-       r.checked_at AS checkedAt, TIMESTAMPDIFF(SECOND, r.submitted_at, r.checked_at) AS seconds,
-       z.checklist_rows AS \`rows\`, z.segments, z.features
-     FROM revisions r JOIN calcs c ON c.id = r.calc_id JOIN projects p ON p.id = c.project_id
-       JOIN review_sizes z ON z.revision_id = r.id AND z.checked_at = r.checked_at JOIN users a ON a.id = r.author_id JOIN users k ON k.id = r.checker_id
-     WHERE ${CHECKED}${project.sql}
-       AND TIMESTAMPDIFF(SECOND, r.submitted_at, r.checked_at) < ? * (z.checklist_rows + z.segments + z.features)
-     ORDER BY seconds ASC, r.id ASC LIMIT ${ROW_CAP + 1}`,
+    `SELECT q.id, q.calcId, r.label, c.number, p.code, a.display_name AS author, k.display_name AS checker,
+       q.checkedAt, q.seconds, q.rows, q.segments, q.features
+     FROM (SELECT r.id, r.calc_id AS calcId, r.author_id AS authorId, r.checker_id AS checkerId, r.checked_at AS checkedAt,
+             ${seconds} AS seconds, r.check_rows AS \`rows\`, r.check_segments AS segments, r.check_features AS features
+           ${from} WHERE ${CHECKED}${project.sql}
+             AND ${seconds} < ? * (r.check_rows + r.check_segments + r.check_features)
+           ORDER BY seconds ASC, r.id ASC LIMIT ${ROW_CAP + 1}) q
+       JOIN revisions r ON r.id = q.id JOIN calcs c ON c.id = q.calcId JOIN projects p ON p.id = c.project_id
+       JOIN users a ON a.id = q.authorId JOIN users k ON k.id = q.checkerId
+     ORDER BY q.seconds ASC, q.id ASC`,
     {
       replacements: [scope.start, scope.end, ...project.values, settings.quickCheckSecondsPerItem],
       type: QueryTypes.SELECT,
@@ -64,16 +71,15 @@ export interface PairCount {
 }
 
 /**
- * Checks and findings per author–checker pair in the period: findings the checker raised on the revision they signed.
+ * Checks and findings per author–checker pair in the period: findings the checker raised on the revision they
+ * signed, as recorded at the check signature (review-facts.ts); one pass over the covering index.
  */
 export async function pairCounts(sequelize: Sequelize, scope: HealthScope): Promise<PairCount[]> {
-  const project = projectClause(scope);
+  const { from, project } = coverFrom(scope, 'revisions_checked_cover');
   const rows = await sequelize.query<PairCount>(
-    `SELECT t.checkerId, t.authorId, COUNT(*) AS checks, SUM(t.n > 0) AS withFindings, SUM(t.n) AS findings
-     FROM (SELECT r.checker_id AS checkerId, r.author_id AS authorId,
-             (SELECT COUNT(*) FROM findings f WHERE f.revision_id = r.id AND f.raised_by = r.checker_id) AS n
-           FROM revisions r JOIN calcs c ON c.id = r.calc_id WHERE ${CHECKED}${project.sql}) t
-     GROUP BY t.checkerId, t.authorId`,
+    `SELECT r.checker_id AS checkerId, r.author_id AS authorId, COUNT(*) AS checks,
+       COALESCE(SUM(r.check_findings > 0), 0) AS withFindings, COALESCE(SUM(r.check_findings), 0) AS findings
+     ${from} WHERE ${CHECKED}${project.sql} GROUP BY r.checker_id, r.author_id`,
     { replacements: [scope.start, scope.end, ...project.values], type: QueryTypes.SELECT },
   );
   return rows.map((r) => ({

@@ -42,6 +42,17 @@ export function projectClause(
   return { sql: '', values: [] };
 }
 
+/**
+ * The period's revisions read from a covering index (the period leads it, the project is in it), never the
+ * optimiser's guess at a calc-first plan: the index bounds the work, and nothing is read beyond it.
+ */
+export function coverFrom(
+  scope: HealthScope,
+  index: 'revisions_checked_cover' | 'revisions_approved_cover',
+): { from: string; project: ReturnType<typeof projectClause> } {
+  return { from: `FROM revisions r FORCE INDEX (${index})`, project: projectClause(scope, 'r.project_id') };
+}
+
 /** A link to the audit screen with its own filters; only non-empty values become query parameters. */
 export function auditLink(label: string, query: Record<string, string | number | null | undefined>): AuditLink {
   const clean: Record<string, string> = {};

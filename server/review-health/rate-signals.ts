@@ -18,7 +18,12 @@ function sum(rows: readonly PairCount[]): Omit<PairCount, 'checkerId' | 'authorI
 
 function groupBy<K>(rows: readonly PairCount[], key: (r: PairCount) => K): Map<K, PairCount[]> {
   const out = new Map<K, PairCount[]>();
-  for (const r of rows) out.set(key(r), [...(out.get(key(r)) ?? []), r]);
+  for (const r of rows) {
+    const k = key(r);
+    const group = out.get(k);
+    if (group) group.push(r);
+    else out.set(k, [r]);
+  }
   return out;
 }
 

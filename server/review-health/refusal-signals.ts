@@ -12,13 +12,25 @@ interface Refusal {
   label: string | null;
   attempts: number;
   wrongPassword: number;
+  codeMissing: number;
+  codeWrong: number;
+  codeNotSetUp: number;
   first: Date;
   last: Date;
 }
 
+/** Each refusal reason the signing path records (workflow.service.ts, second-factor.ts), as counted here. */
+const REASONS = [
+  ['wrongPassword', 'wrong password'],
+  ['codeMissing', 'one-time code missing'],
+  ['codeWrong', 'one-time code wrong'],
+  ['codeNotSetUp', 'one-time code not set up'],
+] as const;
+const EARLIER_CODE_REASON = 'one-time code missing or wrong';
+
 /**
- * Signing attempts refused for a wrong password or one-time code. The signing path records each
- * refusal as an audit entry (`revision.signature_refused`, workflow.service.ts) before it answers,
+ * Signing attempts refused for a wrong password, or a one-time code missing, wrong or not set up. The signing path
+ * records each refusal as an audit entry (`revision.signature_refused`, workflow.service.ts) before it answers,
  * so the trail is the record; grouped here per person and revision.
  */
 export async function refusedSignatures(
@@ -28,23 +40,27 @@ export async function refusedSignatures(
 ): Promise<SignalRow[]> {
   const project = projectClause(scope, 'e.project_id');
   const rows = await sequelize.query<Refusal>(
-    `SELECT e.actor_id AS actorId, MAX(e.actor_name) AS actorName, e.entity_id AS entityId, MAX(e.calc_id) AS calcId,
-       MAX(c.number) AS number, MAX(p.code) AS code, MAX(r.label) AS label, COUNT(*) AS attempts,
-       SUM(JSON_VALUE(e.payload, '$.reason') = 'wrong password') AS wrongPassword, MIN(e.occurred_at) AS first, MAX(e.occurred_at) AS last
-     FROM audit_events e LEFT JOIN calcs c ON c.id = e.calc_id LEFT JOIN projects p ON p.id = c.project_id
-       LEFT JOIN revisions r ON r.id = CAST(e.entity_id AS UNSIGNED)
-     WHERE e.action = 'revision.signature_refused' AND e.occurred_at >= ? AND e.occurred_at < ?${project.sql}
-     GROUP BY e.actor_id, e.entity_id ORDER BY attempts DESC, last DESC LIMIT ${ROW_CAP + 1}`,
+    `SELECT g.*, c.number, p.code, r.label
+     FROM (SELECT e.actor_id AS actorId, MAX(e.actor_name) AS actorName, e.entity_id AS entityId,
+             MAX(e.calc_id) AS calcId, COUNT(*) AS attempts,
+             ${REASONS.map(([key, reason]) => `SUM(JSON_VALUE(e.payload, '$.reason') = '${reason}') AS ${key}`).join(', ')},
+             MIN(e.occurred_at) AS first, MAX(e.occurred_at) AS last
+           FROM audit_events e
+           WHERE e.action = 'revision.signature_refused' AND e.occurred_at >= ? AND e.occurred_at < ?${project.sql}
+           GROUP BY e.actor_id, e.entity_id ORDER BY attempts DESC, last DESC LIMIT ${ROW_CAP + 1}) g
+       LEFT JOIN calcs c ON c.id = g.calcId LEFT JOIN projects p ON p.id = c.project_id
+       LEFT JOIN revisions r ON r.id = CAST(g.entityId AS UNSIGNED)
+     ORDER BY g.attempts DESC, g.last DESC`,
     { replacements: [scope.start, scope.end, ...project.values], type: QueryTypes.SELECT },
   );
   return rows.map((r) => {
     const attempts = Number(r.attempts);
-    const password = Number(r.wrongPassword);
-    const reasons = [
-      password ? `wrong password ×${password}` : '',
-      attempts - password ? `one-time code missing or wrong ×${attempts - password}` : '',
-    ]
-      .filter(Boolean)
+    const counted = REASONS.map(([key, reason]) => [reason, Number(r[key])] as const);
+    // Entries written before a missing and a wrong code were told apart carry one reason for both.
+    const earlier = attempts - counted.reduce((n, [, c]) => n + c, 0);
+    const reasons = [...counted, [EARLIER_CODE_REASON, earlier] as const]
+      .filter(([, n]) => n > 0)
+      .map(([reason, n]) => `${reason} ×${n}`)
       .join(', ');
     const repeated = attempts >= settings.refusalRepeatCount ? 'Repeated: ' : '';
     const span =

@@ -13,7 +13,6 @@ import { AppError } from '../errors/app-error';
 import { accessibleWhere } from '../authz/accessible-where';
 import { loadHealthSettings, settingsOf } from './health-settings.service';
 import { ROW_CAP, scopeOf, type HealthScope } from './health-scope';
-import { fillReviewSizes } from './review-sizes';
 import { pairCounts, quickChecks } from './check-signals';
 import { concentratedPairs, findingRates, silentCheckers } from './rate-signals';
 import { refusedSignatures } from './refusal-signals';
@@ -35,7 +34,6 @@ export class ReviewHealthService {
       .throwUnlessCan('read', 'ReviewHealth');
     const { scope, project } = await this.scope(ability, query);
     const settings = settingsOf(await loadHealthSettings());
-    await fillReviewSizes(this.sequelize, scope);
     const versions = await versionFacts();
     const [quick, pairs, refusals, attachments, replaced, flips] = await Promise.all([
       quickChecks(this.sequelize, scope, settings),

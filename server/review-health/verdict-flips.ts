@@ -4,7 +4,7 @@ import { ENGINE_VERSION } from '../../shared/engine';
 import type { RuleSet } from '../../shared/rules';
 import { loadRuleSet } from '../rule-sets/rule-set-cache';
 import { outcomeUnder, storedOutcome } from '../rule-sets/impact-compare';
-import { auditLink, projectClause, ROW_CAP, type HealthScope } from './health-scope';
+import { auditLink, coverFrom, ROW_CAP, type HealthScope } from './health-scope';
 import type { VersionFacts } from './standard-versions';
 
 interface Candidate {
@@ -43,10 +43,10 @@ export async function verdictFlips(
 ): Promise<SignalRow[]> {
   const outdated = [...versions.values()].filter((v) => v.currentId !== null);
   if (outdated.length === 0) return [];
-  const project = projectClause(scope);
-  // Read from the covering index (revisions_approved_cover): ids, versions and verdicts only.
+  const { from, project } = coverFrom(scope, 'revisions_approved_cover');
+  // Read from the covering index: ids, versions and verdicts only.
   const candidates = await sequelize.query<Candidate>(
-    `SELECT r.id, r.rule_set_id AS ruleSetId, r.verdict FROM revisions r JOIN calcs c ON c.id = r.calc_id
+    `SELECT r.id, r.rule_set_id AS ruleSetId, r.verdict ${from}
      WHERE r.approved_at >= ? AND r.approved_at < ? AND r.status = 'approved' AND r.rule_set_id IN (?)${project.sql}
      ORDER BY r.approved_at DESC, r.id DESC`,
     { replacements: [scope.start, scope.end, outdated.map((v) => v.id), ...project.values], type: QueryTypes.SELECT },

@@ -7,7 +7,7 @@ import { Calc, Finding, Project, Revision, Signature, User } from '../db/models'
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { verifyPassword } from '../auth/password';
-import { assertSecondFactor } from '../auth/second-factor';
+import { secondFactorRefusal } from '../auth/second-factor';
 import { editorIdsOf, loadRevision, loadRevisionForChange } from '../calcs/calc-access';
 import { currentHashOf, readRevision } from '../calcs/revision-read';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
@@ -19,6 +19,7 @@ import { independentModelBlockerFor } from '../independent/signing-blocker';
 import { queueHandOverMail, type HandOverFacts } from './hand-over-mail';
 import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
+import { recordApprovalFacts, recordCheckFacts } from '../review-health/review-facts';
 
 export interface Signer extends Actor {
   id: number;
@@ -89,6 +90,9 @@ export class WorkflowService {
           { transaction },
         );
         await this.advance(revision, dto.meaning, signer, new Date(now), transaction);
+        if (dto.meaning === 'checked') await recordCheckFacts(this.sequelize, revisionId, transaction);
+        if (dto.meaning === 'approved')
+          await recordApprovalFacts(this.sequelize, revisionId, JSON.stringify(signed.attachments), transaction);
         await appendAudit(
           this.sequelize,
           signer,
@@ -117,18 +121,15 @@ export class WorkflowService {
   private async checkPassword(signer: Signer, revisionId: number, dto: SignRequest): Promise<void> {
     const user = await User.scope('withPassword').findByPk(signer.id);
     if (user && (await verifyPassword(user.passwordHash, dto.password))) {
-      try {
-        assertSecondFactor(user, dto.oneTimeCode);
-        return;
-      } catch (err) {
-        await appendAudit(this.sequelize, signer, {
-          action: 'revision.signature_refused',
-          entityType: 'Revision',
-          entityId: revisionId,
-          payload: { meaning: dto.meaning, reason: 'one-time code missing or wrong' },
-        });
-        throw err;
-      }
+      const refusal = secondFactorRefusal(user, dto.oneTimeCode);
+      if (!refusal) return;
+      await appendAudit(this.sequelize, signer, {
+        action: 'revision.signature_refused',
+        entityType: 'Revision',
+        entityId: revisionId,
+        payload: { meaning: dto.meaning, reason: refusal.reason },
+      });
+      throw refusal.error;
     }
     await appendAudit(this.sequelize, signer, {
       action: 'revision.signature_refused',

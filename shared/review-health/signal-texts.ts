@@ -31,7 +31,7 @@ export const SIGNAL_TEXTS: Record<SignalKey, SignalText> = {
   refusals: {
     title: 'Signatures refused',
     meaning:
-      'Signing attempts refused for a wrong password or a missing or wrong one-time code, per person and revision; several attempts are marked repeated.',
+      'Signing attempts refused, per person and revision, with each reason counted: a wrong password, a one-time code missing, wrong or not set up; several attempts are marked repeated.',
     limits: 'Mistyped passwords and expired codes are common; a refusal means nothing was signed.',
   },
   'attachments-after-check': {

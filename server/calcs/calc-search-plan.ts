@@ -9,9 +9,7 @@ export const SEARCH_LIMITS = {
   /** Words are counted only up to here: enough to tell a rare word from a broad one. */
   probe: 2_000,
   /** Calcs looked at for one page: a page not full by then says so, and its `next` searches on. */
-  pageBudget: 5_000,
-  /** Calcs looked at to count a search's matches (first page only); past it the total is "at least". */
-  countBudget: 10_000,
+  pageBudget: 2_000,
   /** Candidates read at once, growing fourfold while the page is not full. */
   firstChunk: 200,
 };
@@ -83,6 +81,8 @@ export async function chooseDriver(
 ): Promise<Driver | null> {
   const drivers = words.map((w) => termDriver(w, words, filter, sort));
   if (filter.projectId) drivers.push(filterDriver(filter, sort));
+  // One word and no project: nothing to choose between (an unknown word simply walks an empty range).
+  if (drivers.length === 1) return drivers[0];
   const cap = SEARCH_LIMITS.probe + 1;
   const sql = drivers
     .map(

@@ -77,12 +77,16 @@ export async function searchCalcs(db: Sequelize, r: SearchRequest): Promise<Sear
   let examined = 0;
   let chunk = driver.isExact ? r.size + 1 : Math.max(SEARCH_LIMITS.firstChunk, 4 * (r.size + 1));
   let exhausted = false;
+  let matched = 0;
   while (found.length <= r.size && examined < SEARCH_LIMITS.pageBudget) {
     const limit = Math.min(chunk, SEARCH_LIMITS.pageBudget - examined);
     const list = await candidates(db, driver, r, after, limit);
     examined += list.length;
     const ok = await matching(db, driver, r, list);
-    for (const c of list) if (ok.has(c.id) && found.length <= r.size) found.push(c);
+    for (const c of list.filter((x) => ok.has(x.id))) {
+      matched++;
+      if (found.length <= r.size) found.push(c);
+    }
     if (list.length < limit) {
       exhausted = true;
       break;
@@ -95,9 +99,7 @@ export async function searchCalcs(db: Sequelize, r: SearchRequest): Promise<Sear
   const rows = await rowsOf(db, shown);
   const stoppedEarly = !full && !exhausted;
   const next = full ? shown[shown.length - 1].key : stoppedEarly ? after : null;
-  let counted: SearchPage['counted'] = null;
-  if (!r.after)
-    counted = !full && exhausted ? { total: found.length, totalIsAtLeast: false } : await countOf(db, driver, r);
+  const counted = r.after ? null : await countOf(db, driver, matched, exhausted);
   return { rows, next, stoppedEarly, counted };
 }
 
@@ -108,29 +110,20 @@ async function rowsOf(db: Sequelize, shown: Candidate[]): Promise<CalcRow[]> {
   return shown.flatMap((c) => byId.get(c.id) ?? []);
 }
 
-/** The number of matches, counted up to TOTAL_CAP over at most SEARCH_LIMITS.countBudget candidates. */
-async function countOf(db: Sequelize, d: Driver, r: SearchRequest): Promise<SearchPage['counted']> {
+/**
+ * The number of matches. A one-word search without other conditions counts its index range up to
+ * TOTAL_CAP (index entries alone). Anything else reports what the page walk saw: every match when
+ * it ran out of candidates, else "at least" the matches found, since counting further would check
+ * every remaining candidate by look-ups in the term table, which a broad word makes tens of thousands.
+ */
+async function countOf(db: Sequelize, d: Driver, found: number, exhausted: boolean): Promise<SearchPage['counted']> {
+  if (!d.isExact) return { total: Math.min(found, TOTAL_CAP), totalIsAtLeast: !exhausted || found > TOTAL_CAP };
   const scope = `FROM ${d.from} WHERE ${d.where.join(' AND ')}`;
-  const id = d.columns[d.columns.length - 1].sql;
-  if (d.isExact) {
-    const [row] = await select<{ n: number }>(
-      db,
-      `SELECT COUNT(*) AS n FROM (SELECT 1 ${scope} LIMIT ${TOTAL_CAP + 1}) x`,
-      d.params,
-    );
-    const n = Number(row.n);
-    return { total: Math.min(n, TOTAL_CAP), totalIsAtLeast: n > TOTAL_CAP };
-  }
-  const m = matchCondition(r.words, r.filter);
-  const [row] = await select<{ examined: number; n: number | null }>(
+  const [row] = await select<{ n: number }>(
     db,
-    `SELECT COUNT(*) AS examined, SUM(ok) AS n FROM (SELECT (${m.sql}) AS ok FROM (SELECT ${id} AS id ${scope}
-      LIMIT ${SEARCH_LIMITS.countBudget + 1}) d JOIN calcs c ON c.id = d.id) x`,
-    [...m.params, ...d.params],
+    `SELECT COUNT(*) AS n FROM (SELECT 1 ${scope} LIMIT ${TOTAL_CAP + 1}) x`,
+    d.params,
   );
-  const n = Number(row.n ?? 0);
-  return {
-    total: Math.min(n, TOTAL_CAP),
-    totalIsAtLeast: n > TOTAL_CAP || Number(row.examined) > SEARCH_LIMITS.countBudget,
-  };
+  const n = Number(row.n);
+  return { total: Math.min(n, TOTAL_CAP), totalIsAtLeast: n > TOTAL_CAP };
 }

@@ -134,7 +134,7 @@ describe('search pages', () => {
     for (const n of [1, 2, 3]) await addCalc(t, `B-${n}`, `${a} only`);
     for (const n of [4, 5, 6]) await addCalc(t, `B-${n}`, `${b} only`);
     const saved = { ...SEARCH_LIMITS };
-    Object.assign(SEARCH_LIMITS, { pageBudget: 2, firstChunk: 1, countBudget: 2 });
+    Object.assign(SEARCH_LIMITS, { pageBudget: 2, firstChunk: 1 });
     try {
       // Act
       const pages = await allPages(t, `q=${a}%20${b}&sort=updatedAt&dir=desc`);

@@ -79,11 +79,18 @@ async function attachAssociations(revision: Revision, transaction: Transaction):
     checker: revision.checkerId ? (users.get(revision.checkerId) ?? null) : null,
     approver: revision.approverId ? (users.get(revision.approverId) ?? null) : null,
   };
-  // The same shape an include gives: both the property and dataValues, so DTO mapping sees no difference.
-  for (const [key, value] of Object.entries(found)) {
-    (revision.dataValues as Record<string, unknown>)[key] = value;
-    (revision as unknown as Record<string, unknown>)[key] = value;
-  }
+  for (const [key, value] of Object.entries(found)) attach(revision, key, value);
+}
+
+// The same shape an include gives: both the property and dataValues, so DTO mapping sees no difference.
+function attach(revision: Revision, key: string, value: unknown): void {
+  (revision.dataValues as Record<string, unknown>)[key] = value;
+  (revision as unknown as Record<string, unknown>)[key] = value;
+}
+
+/** A save that switches the standard: the revision in memory carries the new one, as a reload would. */
+export function attachRuleSet(revision: Revision, record: RuleSetRecord): void {
+  attach(revision, 'ruleSet', record);
 }
 
 export async function loadCalc(id: number, transaction?: Transaction): Promise<Calc> {

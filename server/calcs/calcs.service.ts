@@ -9,7 +9,7 @@ import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { loadRuleSet } from '../rule-sets/rule-set-cache';
 import { REVISION_INCLUDE, toCalcDto } from './calc-mapping';
-import { assertCan, loadRevision, recordEditor } from './calc-access';
+import { assertCan, attachRuleSet, loadRevision, recordEditor } from './calc-access';
 import { CONTENT_FORMAT, computeRecord } from './revision-content';
 import { currentHashOf, readRevision } from './revision-read';
 import { jsonDiff } from './content-diff';
@@ -167,9 +167,13 @@ export class CalcsService {
           lockVersion: revision.lockVersion + 1,
           ...stored(computed),
         });
+        // The hash is taken from the values about to be stored, so the row is written once: each
+        // write of a revision also runs the summary and search-term triggers of its calc.
+        if (ruleSetId !== revision.ruleSet?.id) attachRuleSet(revision, record);
+        await registerEngineMetadata(this.sequelize);
+        revision.contentFormat = CONTENT_FORMAT;
+        revision.contentHash = await currentHashOf(revision, transaction);
         await revision.save({ transaction });
-        await revision.reload({ include: REVISION_INCLUDE, transaction });
-        await this.refreshHash(revision, transaction);
         await recordEditor(revision.calcId, actor.id, transaction);
         await appendAudit(
           this.sequelize,

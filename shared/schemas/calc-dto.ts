@@ -1,4 +1,5 @@
 import type { RevisionState } from './revision.schema';
+import type { KeysetPage } from './common.schema';
 
 export interface PersonRef {
   id: number;
@@ -105,6 +106,15 @@ export interface CalcDto {
   createdAt: string;
   latest: RevisionSummary;
   revisions: RevisionSummary[];
+}
+
+/**
+ * A page of the calc list. `stoppedEarly` is true when a search looked through its bound of calcs
+ * (the rarest word's, in the list's order) without filling the page: the rows shown are all the
+ * matches up to there, more may follow, and `next` goes on searching from where it stopped.
+ */
+export interface CalcListPage extends KeysetPage<CalcListItem> {
+  stoppedEarly: boolean;
 }
 
 /** One row of a calc list, read from the summary columns kept on the calc (never the revision texts). */

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { cursorSchema, decimalId, jsonDocumentSchema } from './common.schema';
 import { MEANINGS, REVISION_STATES } from '../workflow/revision-states';
+import { SEARCH_MAX_WORDS, searchWords } from '../search/search-words';
 
 // The states, their labels and which are editable are defined by the workflow table.
 export { REVISION_STATES, type RevisionState } from '../workflow/revision-states';
@@ -112,7 +113,17 @@ export const manualItemSchema = z
 export const calcListQuerySchema = z.object({
   projectId: decimalId('a project id').optional(),
   status: z.enum(REVISION_STATES).optional(),
-  q: z.string().trim().max(100).optional(),
+  /** The search box: every word must start a word of the calc's number, title, drawing, project, author or state. */
+  q: z
+    .string()
+    .trim()
+    .max(100, 'must be at most 100 characters')
+    .refine((q) => q === '' || q.length > 100 || searchWords(q).length > 0, 'needs a letter or digit to search for')
+    .refine(
+      (q) => q.length > 100 || searchWords(q).length <= SEARCH_MAX_WORDS,
+      `may hold at most ${SEARCH_MAX_WORDS} words`,
+    )
+    .optional(),
   /** The `next` cursor of the previous page; without it the list starts at the top and is counted. */
   after: cursorSchema,
   size: z.coerce.number().int().min(1).max(200).default(50),

@@ -35,6 +35,12 @@ const LISTS: [string, () => Promise<string>][] = [
   ],
   ['search box by words', async () => '/api/calcs?q=plan%20shaft&size=50'],
   ['search box by a short number', async () => '/api/calcs?q=P-&size=50'],
+  [
+    'search box within a project and state, by number',
+    async () => `/api/calcs?projectId=${seeded.projectId}&status=draft&q=plan%20sh&sort=number&dir=asc&size=50`,
+  ],
+  ['search box by state, by title', async () => '/api/calcs?q=shaft&status=approved&sort=title&size=50'],
+  ['search box, ordered by state', async () => '/api/calcs?q=plan&sort=status&size=50'],
   ['queues', async () => '/api/dashboard/queues'],
   ['one queue, second page', async () => '/api/dashboard/queues/awaiting-my-check?size=5'],
   ['projects', async () => '/api/projects?size=50'],

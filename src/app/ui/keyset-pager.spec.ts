@@ -28,7 +28,7 @@ describe('KeysetPager', () => {
     pager.remember(page('c1', 10_000, true));
     pager.turn({ pageIndex: 1, pageSize: 25, previousPageIndex: 0, length: 10_000 });
     pager.remember(page('c2'));
-    expect(pager.totalLabel()).toBe('more than 10,000');
+    expect(pager.totalLabel()).toBe('at least 10,000');
     expect(pager.length()).toBe(10_000);
   });
 

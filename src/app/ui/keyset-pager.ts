@@ -27,10 +27,13 @@ export class KeysetPager {
     return Math.max(this.total()?.total ?? 0, seen);
   });
 
-  /** "1,234" or "more than 10,000", for a line beside the table. */
+  /**
+   * "1,234" or "at least 10,000", for a line beside the table. "At least": a capped count knows
+   * there are more than its cap, and a search counted over a bounded walk knows only a lower bound.
+   */
   readonly totalLabel = computed(() => {
     const t = this.total();
-    return t ? `${t.isAtLeast ? 'more than ' : ''}${t.total.toLocaleString('en-US')}` : '';
+    return t ? `${t.isAtLeast ? 'at least ' : ''}${t.total.toLocaleString('en-US')}` : '';
   });
 
   /** Called (from an effect) with every page the resource returns; reads no signal the effect should follow. */

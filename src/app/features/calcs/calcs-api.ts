@@ -1,8 +1,7 @@
 import { Injectable, inject, type Signal } from '@angular/core';
 import { HttpClient, httpResource } from '@angular/common/http';
 import { firstValueFrom } from 'rxjs';
-import type { KeysetPage } from '../../../../shared/schemas/common.schema';
-import type { CalcDto, CalcListItem, RevisionDto } from '../../../../shared/schemas/calc-dto';
+import type { CalcDto, CalcListPage, RevisionDto } from '../../../../shared/schemas/calc-dto';
 import type { CreateCalcRequest, SaveRevisionRequest, SignRequest } from '../../../../shared/schemas/revision.schema';
 import type { QueueDto } from '../../../../shared/schemas/queue.schema';
 import type { FindingAnchor } from '../../../../shared/format';
@@ -27,7 +26,7 @@ export class CalcsApi {
   private readonly http = inject(HttpClient);
 
   list(params: Signal<CalcListParams>) {
-    return httpResource<KeysetPage<CalcListItem>>(() => {
+    return httpResource<CalcListPage>(() => {
       const p = params();
       const query: Record<string, string | number> = { size: p.size, sort: p.sort, dir: p.dir };
       if (p.after) query['after'] = p.after;

@@ -73,6 +73,9 @@ export default class ProjectCalcs {
     computed(() => ({ ...this.params(), projectId: this.id(), size: this.pager.size(), after: this.pager.after() })),
   );
   protected readonly rows = computed(() => (this.calcs.hasValue() ? this.calcs.value().items : []));
+  /** The search looked through its bound of calcs before this page filled: the rows are all matches so far. */
+  protected readonly stoppedEarly = computed(() => this.calcs.hasValue() && this.calcs.value().stoppedEarly);
+  protected readonly isFiltered = computed(() => Boolean(this.params().q || this.params().status));
   protected readonly canCreate = computed(
     () => this.ability.can('create', 'Calc') && this.projectInfo()?.status === 'active',
   );

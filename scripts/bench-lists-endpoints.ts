@@ -1,0 +1,76 @@
+// The list and read endpoints the list benchmark drives, each with the addresses it cycles through.
+import type { Session } from './bench-http';
+
+export interface BenchPeople {
+  compliance: Session;
+  worker: Session;
+  auditorId: number;
+  projects: number[];
+  revisions: number[];
+  deep: string;
+}
+
+const search = (words: string[], extra = '') =>
+  words.map((w) => `/api/calcs?q=${encodeURIComponent(w)}&size=50${extra}`);
+
+/**
+ * The search rows name the share of the 100,000 calcs each word matches (titles are built from
+ * 8 machines × 10 parts, 8 of the parts ending in the word "shaft"), so broad and rare words are
+ * both measured; every one is a first page, counted.
+ */
+export function endpointsOf(b: BenchPeople): [string, Session, string[]][] {
+  const { compliance, projects } = b;
+  const p = (i: number) => projects[i % projects.length];
+  return [
+    ['calc list · project, newest first', compliance, projects.map((id) => `/api/calcs?projectId=${id}&size=50`)],
+    [
+      'calc list · project + state, by number',
+      compliance,
+      projects.map(
+        (id, i) =>
+          `/api/calcs?projectId=${id}&status=${['approved', 'draft', 'in_check'][i % 3]}&sort=number&dir=asc&size=50`,
+      ),
+    ],
+    [
+      'calc list · whole library, by title',
+      compliance,
+      ['asc', 'desc'].map((d) => `/api/calcs?sort=title&dir=${d}&size=50`),
+    ],
+    [
+      'calc list · 20th page by keyset',
+      compliance,
+      [`/api/calcs?projectId=${p(7)}&size=50${b.deep ? `&after=${b.deep}` : ''}`],
+    ],
+    ['search · "shaft" (80 %), newest first', compliance, search(['shaft'])],
+    [
+      'search · "shaft" (80 %), by title / number',
+      compliance,
+      [...search(['shaft'], '&sort=title&dir=asc'), ...search(['shaft'], '&sort=number&dir=desc')],
+    ],
+    ['search · pulley / Ashdown / Returned (8–20 %)', compliance, search(['pulley', 'Ashdown', 'Returned'])],
+    ['search · two words (mixer agitator, pulley Ashdown)', compliance, search(['mixer agitator', 'pulley Ashdown'])],
+    ['search · numbers (KFD-B03-0000, DRG-4)', compliance, search(['KFD-B03-0000', 'DRG-4'])],
+    ['search · one or two letters (s, dr)', compliance, search(['s', 'dr'])],
+    [
+      'search · "shaft" in a project, in a state',
+      compliance,
+      projects.map((id, i) => `/api/calcs?projectId=${id}&q=shaft${i % 2 ? '&status=approved' : ''}&size=50`),
+    ],
+    ['queues (author + checker)', b.worker, ['/api/dashboard/queues']],
+    ['projects', compliance, ['/api/projects?size=50']],
+    ['audit list · newest', compliance, ['/api/audit?size=50']],
+    [
+      'audit list · by project / calc / person',
+      compliance,
+      projects
+        .slice(0, 10)
+        .flatMap((id, i) => [
+          `/api/audit?projectId=${id}&size=50`,
+          `/api/audit?userId=${b.auditorId + i}&size=50`,
+          `/api/audit?action=revision.signed&projectId=${p(i + 3)}&size=50`,
+        ]),
+    ],
+    ['standards library', compliance, ['/api/rule-sets']],
+    ['one revision with results and checklist', compliance, b.revisions.map((id) => `/api/revisions/${id}`)],
+  ];
+}

@@ -1,0 +1,114 @@
+// Where a search starts: the rarest of its words, or the project's own list when that is smaller.
+import { QueryTypes, type Sequelize } from 'sequelize';
+import type { RevisionState } from '../../shared/schemas/revision.schema';
+import type { KeyColumn } from '../http/keyset';
+import { sortColumns, type CalcSort } from './calc-list-rows';
+
+/** Bounds of one search request; specs lower them to reach each bound with a handful of calcs. */
+export const SEARCH_LIMITS = {
+  /** Words are counted only up to here: enough to tell a rare word from a broad one. */
+  probe: 2_000,
+  /** Calcs looked at for one page: a page not full by then says so, and its `next` searches on. */
+  pageBudget: 2_000,
+  /** Candidates read at once, growing fourfold while the page is not full. */
+  firstChunk: 200,
+};
+
+export interface SearchFilter {
+  projectId?: number;
+  status?: RevisionState;
+}
+
+/** An index walked in the list's order: its candidates, and whether they need checking against the rest. */
+export interface Driver {
+  from: string;
+  where: string[];
+  params: unknown[];
+  columns: KeyColumn[];
+  /** True when the driver's own condition is the whole search, so every candidate matches. */
+  isExact: boolean;
+}
+
+const TERM_INDEX: Record<CalcSort, string> = {
+  number: 'terms_number',
+  title: 'terms_title',
+  updatedAt: 'terms_updated',
+  status: 'terms_state',
+};
+
+function termDriver(word: string, words: string[], filter: SearchFilter, sort: CalcSort): Driver {
+  // The state index serves a state filter for the two orders that lead with the state or the time.
+  const hasState = Boolean(filter.status) && (sort === 'updatedAt' || sort === 'status');
+  return {
+    from: `calc_search_terms t FORCE INDEX (${hasState ? 'terms_state' : TERM_INDEX[sort]})`,
+    where: hasState ? ['t.term = ?', 't.latest_status = ?'] : ['t.term = ?'],
+    params: hasState ? [word, filter.status] : [word],
+    columns: sortColumns(sort, 't', 'calc_id'),
+    isExact: words.length === 1 && !filter.projectId && (!filter.status || hasState),
+  };
+}
+
+/** The list's own filters as SQL on `calcs c`. */
+export function filterConditions(filter: SearchFilter): { parts: string[]; params: unknown[] } {
+  const parts: string[] = [];
+  const params: unknown[] = [];
+  if (filter.projectId) {
+    parts.push('c.project_id = ?');
+    params.push(filter.projectId);
+  }
+  if (filter.status) {
+    parts.push('c.latest_status = ?');
+    params.push(filter.status);
+  }
+  return { parts, params };
+}
+
+function filterDriver(filter: SearchFilter, sort: CalcSort): Driver {
+  const { parts, params } = filterConditions(filter);
+  return { from: 'calcs c', where: parts, params, columns: sortColumns(sort, 'c', 'id'), isExact: false };
+}
+
+/**
+ * Counts each word's calcs (and the filtered list's, when there is a filter) up to the probe,
+ * in one round trip, and picks the smallest: walking it in the list's order finds a page after
+ * the fewest candidates. A word with no calc at all means an empty answer without a walk.
+ */
+export async function chooseDriver(
+  sequelize: Sequelize,
+  words: string[],
+  filter: SearchFilter,
+  sort: CalcSort,
+): Promise<Driver | null> {
+  const drivers = words.map((w) => termDriver(w, words, filter, sort));
+  if (filter.projectId) drivers.push(filterDriver(filter, sort));
+  // One word and no project: nothing to choose between (an unknown word simply walks an empty range).
+  if (drivers.length === 1) return drivers[0];
+  const cap = SEARCH_LIMITS.probe + 1;
+  const sql = drivers
+    .map(
+      (d, i) =>
+        `SELECT ${i} AS k, COUNT(*) AS n FROM (SELECT 1 FROM ${d.from} WHERE ${d.where.join(' AND ')} LIMIT ${cap}) x${i}`,
+    )
+    .join(' UNION ALL ');
+  const counts = await sequelize.query<{ k: number; n: number }>(sql, {
+    replacements: drivers.flatMap((d) => d.params),
+    type: QueryTypes.SELECT,
+  });
+  const sizes = drivers.map((_, i) => Number(counts.find((c) => Number(c.k) === i)?.n ?? 0));
+  if (sizes.some((n) => n === 0)) return null;
+  // Ties (every word at the probe) go to the longest word, which is the likelier to be rare.
+  const best = sizes
+    .map((n, i) => ({ n, i, length: words[i]?.length ?? 0 }))
+    .sort((a, b) => a.n - b.n || b.length - a.length)[0];
+  return drivers[best.i];
+}
+
+/** The rest of the search as SQL on `calcs c`: the filters, and every word as a look-up of its term. */
+export function matchCondition(words: string[], filter: SearchFilter): { sql: string; params: unknown[] } {
+  const { parts, params } = filterConditions(filter);
+  for (const w of words) {
+    parts.push('EXISTS (SELECT 1 FROM calc_search_terms w WHERE w.calc_id = c.id AND w.term = ?)');
+    params.push(w);
+  }
+  return { sql: parts.join(' AND ') || 'TRUE', params };
+}

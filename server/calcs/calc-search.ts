@@ -1,0 +1,129 @@
+import { QueryTypes, type Sequelize } from 'sequelize';
+import { TOTAL_CAP, keysetCondition, orderBy } from '../http/keyset';
+import { CALC_ROW_SQL, type CalcRow, type CalcSort } from './calc-list-rows';
+import { SEARCH_LIMITS, chooseDriver, matchCondition, type Driver, type SearchFilter } from './calc-search-plan';
+
+type KeyValue = string | number;
+
+export interface SearchRequest {
+  words: string[];
+  filter: SearchFilter;
+  sort: CalcSort;
+  dir: 'asc' | 'desc';
+  size: number;
+  after: KeyValue[] | null;
+}
+
+export interface SearchPage {
+  rows: CalcRow[];
+  next: KeyValue[] | null;
+  /** The page stopped after SEARCH_LIMITS.pageBudget candidates without filling up; `next` searches on. */
+  stoppedEarly: boolean;
+  counted: { total: number; totalIsAtLeast: boolean } | null;
+}
+
+interface Candidate {
+  id: number;
+  key: KeyValue[];
+}
+
+const select = <T extends object>(db: Sequelize, sql: string, replacements: unknown[]) =>
+  db.query<T>(sql, { replacements, type: QueryTypes.SELECT });
+
+/** The next `limit` candidates of the driver after `after`, in the list's order, from its index alone. */
+async function candidates(db: Sequelize, d: Driver, r: SearchRequest, after: KeyValue[] | null, limit: number) {
+  const where = [...d.where];
+  const params = [...d.params];
+  if (after) {
+    const k = keysetCondition(d.columns, after, r.dir);
+    where.push(k.sql);
+    params.push(...k.replacements);
+  }
+  const keys = d.columns.map((c, i) => `${c.sql} AS k${i}`).join(', ');
+  const rows = await select<Record<string, string | number | Date>>(
+    db,
+    `SELECT ${keys} FROM ${d.from} WHERE ${where.join(' AND ')} ORDER BY ${orderBy(d.columns, r.dir)} LIMIT ${limit}`,
+    params,
+  );
+  return rows.map((row): Candidate => {
+    const key = d.columns.map((c, i) => (c.isDate ? new Date(row[`k${i}`]).toISOString() : row[`k${i}`])) as KeyValue[];
+    return { id: Number(key[key.length - 1]), key };
+  });
+}
+
+/** Which of the candidates satisfy every word and filter (look-ups by primary key, a few per candidate). */
+async function matching(db: Sequelize, d: Driver, r: SearchRequest, list: Candidate[]): Promise<Set<number>> {
+  if (d.isExact || list.length === 0) return new Set(list.map((c) => c.id));
+  const m = matchCondition(r.words, r.filter);
+  const ids = list.map((c) => c.id);
+  const rows = await select<{ id: number }>(db, `SELECT c.id FROM calcs c WHERE c.id IN (?) AND ${m.sql}`, [
+    ids,
+    ...m.params,
+  ]);
+  return new Set(rows.map((row) => Number(row.id)));
+}
+
+/**
+ * One page of a search: walks the driver's index in the list's order, checks each chunk of
+ * candidates against the other words and filters, and stops once the page (plus one, to know
+ * there is more) is full, the candidates run out, or SEARCH_LIMITS.pageBudget were looked at.
+ */
+export async function searchCalcs(db: Sequelize, r: SearchRequest): Promise<SearchPage> {
+  const driver = await chooseDriver(db, r.words, r.filter, r.sort);
+  if (!driver)
+    return { rows: [], next: null, stoppedEarly: false, counted: r.after ? null : { total: 0, totalIsAtLeast: false } };
+  const found: Candidate[] = [];
+  let after = r.after;
+  let examined = 0;
+  let chunk = driver.isExact ? r.size + 1 : Math.max(SEARCH_LIMITS.firstChunk, 4 * (r.size + 1));
+  let exhausted = false;
+  let matched = 0;
+  while (found.length <= r.size && examined < SEARCH_LIMITS.pageBudget) {
+    const limit = Math.min(chunk, SEARCH_LIMITS.pageBudget - examined);
+    const list = await candidates(db, driver, r, after, limit);
+    examined += list.length;
+    const ok = await matching(db, driver, r, list);
+    for (const c of list.filter((x) => ok.has(x.id))) {
+      matched++;
+      if (found.length <= r.size) found.push(c);
+    }
+    if (list.length < limit) {
+      exhausted = true;
+      break;
+    }
+    after = list[list.length - 1].key;
+    chunk *= 4;
+  }
+  const full = found.length > r.size;
+  const shown = found.slice(0, r.size);
+  const rows = await rowsOf(db, shown);
+  const stoppedEarly = !full && !exhausted;
+  const next = full ? shown[shown.length - 1].key : stoppedEarly ? after : null;
+  const counted = r.after ? null : await countOf(db, driver, matched, exhausted);
+  return { rows, next, stoppedEarly, counted };
+}
+
+async function rowsOf(db: Sequelize, shown: Candidate[]): Promise<CalcRow[]> {
+  if (shown.length === 0) return [];
+  const rows = await select<CalcRow>(db, `${CALC_ROW_SQL} WHERE c.id IN (?)`, [shown.map((c) => c.id)]);
+  const byId = new Map(rows.map((row) => [Number(row.id), row]));
+  return shown.flatMap((c) => byId.get(c.id) ?? []);
+}
+
+/**
+ * The number of matches. A one-word search without other conditions counts its index range up to
+ * TOTAL_CAP (index entries alone). Anything else reports what the page walk saw: every match when
+ * it ran out of candidates, else "at least" the matches found, since counting further would check
+ * every remaining candidate by look-ups in the term table, which a broad word makes tens of thousands.
+ */
+async function countOf(db: Sequelize, d: Driver, found: number, exhausted: boolean): Promise<SearchPage['counted']> {
+  if (!d.isExact) return { total: Math.min(found, TOTAL_CAP), totalIsAtLeast: !exhausted || found > TOTAL_CAP };
+  const scope = `FROM ${d.from} WHERE ${d.where.join(' AND ')}`;
+  const [row] = await select<{ n: number }>(
+    db,
+    `SELECT COUNT(*) AS n FROM (SELECT 1 ${scope} LIMIT ${TOTAL_CAP + 1}) x`,
+    d.params,
+  );
+  const n = Number(row.n);
+  return { total: Math.min(n, TOTAL_CAP), totalIsAtLeast: n > TOTAL_CAP };
+}

@@ -1,0 +1,180 @@
+import { randomBytes } from 'node:crypto';
+import { startTestApp } from '../support/api-harness';
+import { calcTeam, fixtureInput, sign } from '../support/calc-harness';
+import { SEARCH_LIMITS } from '../../server/calcs/calc-search-plan';
+
+const { app, sequelize } = startTestApp();
+afterAll(() => sequelize.close());
+
+type Team = Awaited<ReturnType<typeof calcTeam>>;
+type Page = {
+  items: { id: number; number: string }[];
+  next: string | null;
+  total: number | null;
+  totalIsAtLeast: boolean;
+  stoppedEarly: boolean;
+};
+
+/** A word no other spec's calc holds, so searches across the whole library see only this test's calcs. */
+const uniqueWord = () => `zq${BigInt(`0x${randomBytes(6).toString('hex')}`).toString(36)}`.slice(0, 10);
+
+async function addCalc(t: Team, number: string, title: string): Promise<number> {
+  const res = await t.author.session.post('/api/calcs', {
+    projectId: t.project.id,
+    number,
+    title,
+    partRef: 'DRG-2040-A',
+    ruleSetId: t.calc.latest.ruleSet.id,
+    input: fixtureInput(),
+  });
+  expect(res.status).toBe(201);
+  return res.body.id;
+}
+
+const search = async (t: Team, query: string): Promise<Page> => {
+  const res = await t.author.session.get(`/api/calcs?${query}`);
+  expect(res.status).toBe(200);
+  return res.body;
+};
+
+/** Every page of a search, following `next` to the end. */
+async function allPages(t: Team, query: string): Promise<Page[]> {
+  const pages = [await search(t, query)];
+  while (pages[pages.length - 1].next) pages.push(await search(t, `${query}&after=${pages[pages.length - 1].next}`));
+  return pages;
+}
+
+describe('the search box finds calcs by the starts of their words', () => {
+  it('when every typed word starts a word of the calc, then it is found, and only then', async () => {
+    // Arrange
+    const t = await calcTeam(app);
+    const w = uniqueWord();
+    const gearbox = await addCalc(t, 'S-1', `${w} Gearbox input shaft`);
+    const pump = await addCalc(t, 'S-2', `${w} Pump impeller shaft`);
+    const fan = await addCalc(t, 'S-3', `${w} Fan countershaft`);
+    const ids = async (q: string) =>
+      (await search(t, `q=${encodeURIComponent(q)}&sort=number&dir=asc`)).items.map((r) => r.id);
+
+    // Act and Assert: across the whole library, and within the project
+    expect(await ids(`${w} shaf`)).toEqual([gearbox, pump]);
+    expect(await ids(`${w} COUNTER`)).toEqual([fan]);
+    expect(await ids(`${w} gearbox impeller`)).toEqual([]);
+    expect(await ids(`"${w}" +pump* -impeller`)).toEqual([pump]);
+    // One letter: every calc of the project with a word starting with s (the team's first is a shaft too).
+    const inProject = await search(t, `projectId=${t.project.id}&q=S-&sort=number&dir=asc`);
+    expect(inProject.items.map((r) => r.id)).toEqual([t.calc.id, gearbox, pump, fan]);
+  });
+
+  it('when letters carry accents or capitals, then either spelling finds the calc', async () => {
+    const t = await calcTeam(app);
+    const w = uniqueWord();
+    const id = await addCalc(t, 'A-1', `${w} Ölpumpe Welle`);
+    expect((await search(t, `q=${w}%20olpu`)).items.map((r) => r.id)).toEqual([id]);
+    expect((await search(t, `q=${w.toUpperCase()}%20WEL`)).items.map((r) => r.id)).toEqual([id]);
+  });
+
+  it('when a calc changes state, or its project or author is renamed, then the next search sees it', async () => {
+    // Arrange
+    const t = await calcTeam(app);
+    const w = uniqueWord();
+    const found = async (q: string) => (await search(t, `q=${w}%20${encodeURIComponent(q)}`)).items.map((r) => r.id);
+    await sequelize.query('UPDATE calcs SET title = ? WHERE id = ?', { replacements: [`${w} shaft`, t.calc.id] });
+    expect(await found('draft')).toEqual([t.calc.id]);
+
+    // Act
+    expect((await sign(t.author.session, t.revisionId, 'authored')).status).toBe(200);
+    await sequelize.query('UPDATE projects SET code = ? WHERE id = ?', { replacements: [`P${w}`, t.project.id] });
+    await sequelize.query('UPDATE users SET display_name = ? WHERE id = ?', {
+      replacements: [`Orla Q${w}`, t.calc.latest.author.id],
+    });
+
+    // Assert
+    expect(await found('draft')).toEqual([]);
+    expect(await found('in check')).toEqual([t.calc.id]);
+    expect(await found(`p${w}`)).toEqual([t.calc.id]);
+    expect(await found(`q${w}`)).toEqual([t.calc.id]);
+  });
+});
+
+describe('search pages', () => {
+  it('when a search is read page by page in each order, then it lists what the plain list lists, in the same order', async () => {
+    // Arrange: five calcs, three with the word
+    const t = await calcTeam(app);
+    const w = uniqueWord();
+    for (const [n, title] of [
+      ['P-5', `${w} idler`],
+      ['P-1', 'plain drum'],
+      ['P-3', `${w} drum`],
+      ['P-2', `${w} hoist`],
+    ])
+      await addCalc(t, n, title);
+
+    for (const order of [
+      'sort=number&dir=asc',
+      'sort=title&dir=desc',
+      'sort=updatedAt&dir=desc',
+      'sort=status&dir=asc',
+    ]) {
+      // Act
+      const plain = (await search(t, `projectId=${t.project.id}&size=50&${order}`)).items;
+      const pages = await allPages(t, `projectId=${t.project.id}&q=${w}&size=2&${order}`);
+
+      // Assert
+      const wanted = plain.filter((r) => ['P-5', 'P-3', 'P-2'].includes(r.number)).map((r) => r.id);
+      expect(pages.flatMap((p) => p.items.map((r) => r.id))).toEqual(wanted);
+      expect(pages.map((p) => p.total)).toEqual([3, null]);
+    }
+  });
+
+  it('when the page bound is reached before a page fills, then the answer says so and the next page searches on', async () => {
+    // Arrange: two words, each in four calcs, together only in the oldest
+    const t = await calcTeam(app);
+    const [a, b] = [uniqueWord(), uniqueWord()];
+    const both = await addCalc(t, 'B-0', `${a} ${b}`);
+    for (const n of [1, 2, 3]) await addCalc(t, `B-${n}`, `${a} only`);
+    for (const n of [4, 5, 6]) await addCalc(t, `B-${n}`, `${b} only`);
+    const saved = { ...SEARCH_LIMITS };
+    Object.assign(SEARCH_LIMITS, { pageBudget: 2, firstChunk: 1 });
+    try {
+      // Act
+      const pages = await allPages(t, `q=${a}%20${b}&sort=updatedAt&dir=desc`);
+
+      // Assert
+      expect(pages[0]).toMatchObject({ items: [], stoppedEarly: true, totalIsAtLeast: true });
+      expect(pages[0].next).toEqual(expect.any(String));
+      expect(pages.flatMap((p) => p.items.map((r) => r.id))).toEqual([both]);
+      expect(pages[pages.length - 1]).toMatchObject({ next: null, stoppedEarly: false });
+    } finally {
+      Object.assign(SEARCH_LIMITS, saved);
+    }
+  });
+});
+
+describe('hostile search input', () => {
+  it.each([
+    ['nothing', '', 200],
+    ['spaces', '    ', 200],
+    ['one letter', 'c', 200],
+    ['two letters', 'C-', 200],
+    ['SQL', "'; DROP TABLE calcs; --", 200],
+    ['a word far past the index', 'countershaftcountershaftcountershaft', 200],
+  ])('when the search box holds %s, then the answer is a list', async (_what, q, status) => {
+    const t = await calcTeam(app);
+    const res = await t.author.session.get(`/api/calcs?projectId=${t.project.id}&q=${encodeURIComponent(q)}`);
+    expect(res.status).toBe(status);
+    expect(Array.isArray(res.body.items)).toBe(true);
+  });
+
+  it.each([
+    ['signs only', '+*', 'needs a letter or digit to search for'],
+    ['quotes and wildcards only', '"%_*"', 'needs a letter or digit to search for'],
+    ['10,000 characters', 'x'.repeat(10_000), 'must be at most 100 characters'],
+    ['nine words', 'a1 b2 c3 d4 e5 f6 g7 h8 i9', 'may hold at most 8 words'],
+  ])('when the search box holds %s, then it is a 400 naming the search', async (_what, q, message) => {
+    const t = await calcTeam(app);
+    const res = await t.author.session.get(`/api/calcs?q=${encodeURIComponent(q)}`);
+    expect(res.status).toBe(400);
+    expect(res.body.fieldErrors).toEqual({ 'query.q': [message] });
+    expect(res.body.message).toBe(`Invalid input — Search: ${message}`);
+  });
+});

@@ -35,7 +35,9 @@ export function independentModelBlocker(meaning: string, c: ModelBlockerContext)
   if (c.model.authorHash !== c.authorHashNow)
     return "The author's calc changed after your comparison; compare again before signing";
   if (!c.model.agrees && c.unclosedDifferences > 0)
-    return `${c.unclosedDifferences} difference(s) between the two models have findings that are not closed`;
+    return c.unclosedDifferences === 1
+      ? 'A difference between the two models has a finding that is not closed'
+      : `${c.unclosedDifferences} differences between the two models have findings that are not closed`;
   return null;
 }
 

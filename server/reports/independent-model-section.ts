@@ -33,7 +33,8 @@ export function drawIndependentModel(doc: PDFKit.PDFDocument, d: ReportData, num
       `${compared} values compared (${s.comparison.inputs.compared} inputs, ${s.comparison.results.compared} results): ` +
       (s.agrees
         ? "the two models agree within the standard's tolerances."
-        : `${differences.length} difference(s), each raised as a finding for the author to answer.`),
+        : `${differences.length === 1 ? '1 difference' : `${differences.length} differences`}, ` +
+          'each raised as a finding for the author to answer.'),
     { color: s.agrees ? PASS : undefined },
   );
   paragraph(doc, `Independent model hash ${s.modelHash}; compared with the author's model hash ${s.authorHash}.`, {

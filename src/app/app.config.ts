@@ -22,7 +22,12 @@ export const appConfig: ApplicationConfig = {
     provideHttpClient(withFetch(), withInterceptors([csrfInterceptor, errorInterceptor])),
     provideAbility(),
     { provide: ErrorHandler, useClass: AppErrorHandler },
-    { provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline', subscriptSizing: 'dynamic' } },
+    // Labels always sit above their box: an empty field's label would otherwise run into its unit (GPa, rpm) on a
+    // narrow screen, and an engineer reads the label before typing, not after.
+    {
+      provide: MAT_FORM_FIELD_DEFAULT_OPTIONS,
+      useValue: { appearance: 'outline', subscriptSizing: 'dynamic', floatLabel: 'always' },
+    },
     // Knowing who is signed in before the first route renders avoids a flash of the sign-in page.
     provideAppInitializer(() => inject(SessionStore).load()),
   ],

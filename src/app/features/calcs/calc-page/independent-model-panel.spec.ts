@@ -131,7 +131,8 @@ it('when the model is locked with one difference, then the comparison shows both
     .flush({ message: 'not yours' }, { status: 403, statusText: 'Forbidden' });
   fixture.detectChanges();
   await fixture.whenStable();
-  expect(text()).toContain('1 difference(s)');
+  expect(text()).toContain('1 difference:');
+  expect(text()).not.toContain('segments[2].od');
   expect(text()).toContain('Segment 3 outer diameter');
   expect(text()).toContain('130 mm');
   expect(text()).toContain('132 mm');

@@ -3,7 +3,7 @@ import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
-import type { ComparisonRow } from '../../../../../shared/verification';
+import type { Comparison, ComparisonRow } from '../../../../../shared/verification';
 import { SessionStore } from '../../../core/auth/session-store';
 import { assertApiFailure } from '../../../core/http/api-failure';
 import { LoadFailure } from '../../../ui/load-failure';
@@ -78,6 +78,11 @@ export class IndependentModelPanel {
       assertApiFailure(err);
       this.message.set(err.lines().join('; '));
     }
+  }
+
+  protected differenceCount(c: Comparison): string {
+    const n = c.inputs.differences + c.results.differences;
+    return n === 1 ? '1 difference' : `${n} differences`;
   }
 
   protected percent(r: ComparisonRow): string {

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
 import { MatCheckboxModule, type MatCheckboxChange } from '@angular/material/checkbox';
 import type { Checklist } from '../../../../../shared/rules';
-import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
+import type { ManualItemState, RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { assertApiFailure } from '../../../core/http/api-failure';
 import { CalcsApi } from '../calcs-api';
 
@@ -65,7 +65,10 @@ export class ManualItems {
   protected readonly refusals = signal<Record<string, string>>({});
   protected readonly rows = computed(() => {
     const r = this.revision();
-    return ((r.checklist as Checklist | null)?.manual ?? []).map((m) => ({ ...m, state: r.manualItems[m.id] ?? null }));
+    // An item nobody has ticked yet has no stored state.
+    const stateOf = (id: string): ManualItemState | null =>
+      Object.hasOwn(r.manualItems, id) ? r.manualItems[id] : null;
+    return ((r.checklist as Checklist | null)?.manual ?? []).map((m) => ({ ...m, state: stateOf(m.id) }));
   });
 
   protected async tick(itemId: string, event: MatCheckboxChange): Promise<void> {

@@ -29,21 +29,24 @@ function groupBy<K>(rows: readonly PairCount[], key: (r: PairCount) => K): Map<K
 
 const byChecks = (a: FindingRate, b: FindingRate) => b.checks - a.checks || a.checkerName.localeCompare(b.checkerName);
 
-/** Finding rates per checker and per author–checker pair, most checks first. */
+/** Finding rates per checker and per author–checker pair (all, or only the `listed` ones), most checks first. */
 export function findingRates(
   pairs: readonly PairCount[],
   names: Names,
+  listed?: ReadonlySet<PairCount>,
 ): { checkers: FindingRate[]; pairs: FindingRate[] } {
   const checkers = [...groupBy(pairs, (p) => p.checkerId)].map(([id, rows]) => ({
     checkerName: nameOf(names, id),
     authorName: null,
     ...countsOf(sum(rows)),
   }));
-  const perPair = pairs.map((p) => ({
-    checkerName: nameOf(names, p.checkerId),
-    authorName: nameOf(names, p.authorId),
-    ...countsOf(p),
-  }));
+  const perPair = pairs
+    .filter((p) => !listed || listed.has(p))
+    .map((p) => ({
+      checkerName: nameOf(names, p.checkerId),
+      authorName: nameOf(names, p.authorId),
+      ...countsOf(p),
+    }));
   return { checkers: checkers.sort(byChecks), pairs: perPair.sort(byChecks) };
 }
 

@@ -15,7 +15,7 @@ export function reviewHealthRouter(sequelize: Sequelize): Router {
     res.json(await health.report(req.ability, res.locals.query));
   });
   router.get('/signals.csv', validate({ query: healthQuerySchema }), async (req, res) => {
-    const report = await health.report(req.ability, res.locals.query);
+    const report = await health.report(req.ability, res.locals.query, { allPairs: true });
     const name = `review-health-${report.project?.code ?? 'all'}-${report.from}-${report.to}.csv`.replace(
       /[^A-Za-z0-9._-]/g,
       '_',

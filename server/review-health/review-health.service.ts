@@ -19,6 +19,7 @@ import { refusedSignatures } from './refusal-signals';
 import { attachmentsAfterCheck, replacedStandard } from './approval-signals';
 import { versionFacts } from './standard-versions';
 import { verdictFlips } from './verdict-flips';
+import { listedPairs } from './listed-pairs';
 
 /**
  * Review-health signals for one project (or every project the reader may see) and a period of UTC days.
@@ -27,7 +28,8 @@ import { verdictFlips } from './verdict-flips';
 export class ReviewHealthService {
   constructor(private readonly sequelize: Sequelize) {}
 
-  async report(ability: AppAbility, query: HealthQuery): Promise<HealthReport> {
+  /** `allPairs` for the CSV export: every author–checker pair, not only those the screen lists. */
+  async report(ability: AppAbility, query: HealthQuery, { allPairs = false } = {}): Promise<HealthReport> {
     const started = Date.now();
     ForbiddenError.from(ability)
       .setMessage('Review-health signals are for compliance and administrators')
@@ -44,7 +46,7 @@ export class ReviewHealthService {
       verdictFlips(this.sequelize, scope, versions),
     ]);
     const names = await this.names(pairs.flatMap((p) => [p.checkerId, p.authorId]));
-    const rates = findingRates(pairs, names);
+    const rates = findingRates(pairs, names, allPairs ? undefined : listedPairs(pairs, settings));
     const rows: Record<SignalKey, SignalRow[]> = {
       'quick-check': quick,
       'no-findings': silentCheckers(pairs, names, scope, settings),
@@ -62,6 +64,7 @@ export class ReviewHealthService {
       signals: SIGNAL_KEYS.map((key) => ({ key, rows: rows[key].slice(0, ROW_CAP), more: rows[key].length > ROW_CAP })),
       checkerRates: rates.checkers,
       pairRates: rates.pairs,
+      pairRatesTotal: pairs.length,
       checksInPeriod: pairs.reduce((n, p) => n + p.checks, 0),
       elapsedMs: Date.now() - started,
     };

@@ -29,10 +29,12 @@ interface Detail {
  */
 const CACHE_LIMIT = 200_000;
 const verdictCache = new Map<string, string>();
+/** The same verdicts by (input content hash, version, engine): one evaluation per distinct input. */
+const verdictByInput = new Map<string, string>();
 
-function remember(key: string, value: string): void {
-  if (verdictCache.size >= CACHE_LIMIT) verdictCache.delete(verdictCache.keys().next().value!);
-  verdictCache.set(key, value);
+function remember(cache: Map<string, string>, key: string, value: string): void {
+  if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
+  cache.set(key, value);
 }
 
 /** Approved revisions whose verdict differs under the version of their standard in force today (impact analysis). */
@@ -91,7 +93,11 @@ export async function verdictFlips(
   });
 }
 
-/** Reads the inputs (large texts) only of revisions not yet judged, in batches, and judges them. */
+/**
+ * Judges the revisions not yet judged. Many revisions share one stored input (copies, repeat designs), so the
+ * database hashes the inputs and each distinct input is read, parsed and judged once per current version; the
+ * verdict is remembered by content hash too, so a later revision with a known input costs no evaluation.
+ */
 async function evaluateMissing(
   sequelize: Sequelize,
   missing: Candidate[],
@@ -99,17 +105,35 @@ async function evaluateMissing(
   keyOf: (c: Candidate) => string,
 ): Promise<void> {
   const docs = new Map<number, RuleSet>();
-  for (let i = 0; i < missing.length; i += 500) {
-    const batch = missing.slice(i, i + 500);
-    const inputs = await sequelize.query<{ id: number; input: string }>(
-      'SELECT id, input FROM revisions WHERE id IN (?)',
+  const docOf = async (id: number) => docs.get(id) ?? docs.set(id, (await loadRuleSet(id)).doc).get(id)!;
+  const hashKey = (hash: string, currentId: number) => `${hash}|${currentId}|${ENGINE_VERSION}`;
+  for (let i = 0; i < missing.length; i += 2000) {
+    const batch = missing.slice(i, i + 2000);
+    const hashes = await sequelize.query<{ id: number; hash: string }>(
+      'SELECT id, SHA2(input, 256) AS hash FROM revisions WHERE id IN (?)',
       { replacements: [batch.map((c) => c.id)], type: QueryTypes.SELECT },
     );
-    const byId = new Map(inputs.map((r) => [r.id, r.input]));
+    const hashOf = new Map(hashes.map((r) => [r.id, r.hash]));
+    const currentOf = (c: Candidate) => versions.get(c.ruleSetId)!.currentId!;
+    const unjudged = new Map<string, number>();
     for (const c of batch) {
-      const currentId = versions.get(c.ruleSetId)!.currentId!;
-      if (!docs.has(currentId)) docs.set(currentId, (await loadRuleSet(currentId)).doc);
-      remember(keyOf(c), outcomeUnder(JSON.parse(byId.get(c.id)!), docs.get(currentId)!).verdict ?? 'none');
+      const key = hashKey(hashOf.get(c.id)!, currentOf(c));
+      if (!verdictByInput.has(key) && !unjudged.has(key)) unjudged.set(key, c.id);
     }
+    if (unjudged.size > 0) {
+      const ids = [...unjudged.values()];
+      const inputs = await sequelize.query<{ id: number; input: string }>(
+        'SELECT id, input FROM revisions WHERE id IN (?)',
+        { replacements: [ids], type: QueryTypes.SELECT },
+      );
+      const inputOf = new Map(inputs.map((r) => [r.id, r.input]));
+      for (const [key, id] of unjudged) {
+        const currentId = Number(key.split('|')[1]);
+        const verdict = outcomeUnder(JSON.parse(inputOf.get(id)!), await docOf(currentId)).verdict ?? 'none';
+        remember(verdictByInput, key, verdict);
+      }
+    }
+    for (const c of batch)
+      remember(verdictCache, keyOf(c), verdictByInput.get(hashKey(hashOf.get(c.id)!, currentOf(c)))!);
   }
 }

@@ -97,6 +97,9 @@ export interface FindingRate {
   findings: number;
 }
 
+/** The screen lists this many author–checker pairs with the most checks, plus every pair past a threshold. */
+export const PAIR_RATES_LISTED = 50;
+
 export interface HealthReport {
   from: string;
   to: string;
@@ -105,7 +108,10 @@ export interface HealthReport {
   /** Each signal's rows; `more` when there were more than the screen shows (500). */
   signals: { key: SignalKey; rows: SignalRow[]; more: boolean }[];
   checkerRates: FindingRate[];
+  /** On screen: the pairs that matter (see PAIR_RATES_LISTED); in the CSV export: every pair. */
   pairRates: FindingRate[];
+  /** How many author–checker pairs signed checks in the period, listed or not. */
+  pairRatesTotal: number;
   checksInPeriod: number;
   elapsedMs: number;
 }

@@ -71,6 +71,11 @@ describe('review-health signals on constructed data', () => {
     });
   });
 
+  it('when few pairs signed checks, then every pair is listed and the total counts them', () => {
+    expect(report.pairRatesTotal).toBeGreaterThan(0);
+    expect(report.pairRates).toHaveLength(report.pairRatesTotal);
+  });
+
   it('when every check of author A was by checker 1, then the pairing is listed; author B with one check is not', () => {
     expect(rowsOf('pairing')).toEqual([
       expect.objectContaining({
@@ -134,6 +139,8 @@ describe('review-health signals on constructed data', () => {
       /Refused attempts: http[^"]*\/audit\?calcId=\d+&userId=\d+&action=revision\.signature_refused/,
     );
     expect(res.text).toContain('"Finding rate per author and checker"');
+    const pairLines = res.text.split('\r\n').filter((l) => l.startsWith('"Finding rate per author and checker"'));
+    expect(pairLines).toHaveLength(report.pairRatesTotal);
     expect(res.text.trim().split('\r\n').at(-1)).toMatch(/judge no person.*licensed practice govern/);
   });
 });

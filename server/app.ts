@@ -22,7 +22,10 @@ export interface AppDeps {
   config: Config;
 }
 
-/** Builds the Express app (API and, when built, the client) without listening. */
+// What each app holds open (worker threads, object-store sockets, the session sweep timer), for closeApp.
+const closers = new WeakMap<Express, () => Promise<void>>();
+
+/** Builds the Express app (API and, when built, the client) without listening; closeApp(app) releases it. */
 export function createApp({ sequelize, config }: AppDeps): Express {
   installPlainWords();
   const app = express();
@@ -34,7 +37,8 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   app.get('/api/health', healthCheck(sequelize));
   app.use('/api', serverTiming());
   app.use('/api', jsonBody('1mb'));
-  app.use('/api', sessionMiddleware(sequelize, config), absoluteSessionLimit(config));
+  const sessions = sessionMiddleware(sequelize, config);
+  app.use('/api', sessions.middleware, absoluteSessionLimit(config));
   app.use('/api', passport.session(), attachAbility);
   app.use('/api', csrfProtection);
 
@@ -46,7 +50,21 @@ export function createApp({ sequelize, config }: AppDeps): Express {
 
   serveClient(app, config);
   app.use(errorHandler);
+  closers.set(app, async () => {
+    sessions.close();
+    await services.close();
+  });
   return app;
+}
+
+/**
+ * Stops what createApp started (not the database: its owner closes that). Safe to call twice.
+ * Without it the worker pool and sockets keep a test worker or a stopping server alive.
+ */
+export async function closeApp(app: Express): Promise<void> {
+  const close = closers.get(app);
+  closers.delete(app);
+  await close?.();
 }
 
 function serveClient(app: Express, config: Config): void {

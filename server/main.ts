@@ -2,7 +2,7 @@ import type { Server } from 'node:http';
 import { CAUTION } from '../shared/engine';
 import { loadConfig } from './config';
 import { createSequelize } from './db';
-import { createApp } from './app';
+import { closeApp, createApp } from './app';
 import { logger } from './logger';
 import { startMailSender } from './mail/start-sender';
 
@@ -33,8 +33,8 @@ async function main(): Promise<void> {
     logger.info({ signal }, 'shutting down');
     server.close(
       () =>
-        void mailSender
-          .stop()
+        void closeApp(app)
+          .then(() => mailSender.stop())
           .then(() => sequelize.close())
           .finally(() => process.exit(0)),
     );

@@ -41,6 +41,11 @@ export function createServices(sequelize: Sequelize, config: Config) {
     evidence: new EvidenceService(sequelize, store, reports),
     independent: new IndependentModelService(sequelize),
     packs: new PackCheckService(Math.round(config.EVIDENCE_PACK_MAX_MB * MB), work),
+    /** Ends the worker threads and the object store's sockets, so the process can exit by itself. */
+    async close(): Promise<void> {
+      store.destroy();
+      await work.close();
+    },
   };
 }
 export type Services = ReturnType<typeof createServices>;

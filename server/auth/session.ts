@@ -12,7 +12,10 @@ export const SESSION_COOKIE = 'tt.sid';
  * balancer sees the same ones. `rolling` renews the idle deadline on each response; the
  * absolute deadline is enforced by `absoluteSessionLimit` below.
  */
-export function sessionMiddleware(sequelize: Sequelize, config: Config): RequestHandler {
+export function sessionMiddleware(
+  sequelize: Sequelize,
+  config: Config,
+): { middleware: RequestHandler; close: () => void } {
   const SequelizeStore = connectSessionSequelize(session.Store);
   const store = new SequelizeStore({
     db: sequelize,
@@ -38,7 +41,7 @@ export function sessionMiddleware(sequelize: Sequelize, config: Config): Request
       .then((row) => (row?.data ? JSON.parse(row.data) : null))
       .then((data) => callback(null, data), callback);
   };
-  return session({
+  const middleware = session({
     name: SESSION_COOKIE,
     secret: config.SESSION_SECRET,
     store,
@@ -48,6 +51,8 @@ export function sessionMiddleware(sequelize: Sequelize, config: Config): Request
     proxy: config.TLS,
     cookie: { httpOnly: true, sameSite: 'lax', secure: config.TLS, maxAge: config.SESSION_IDLE_MINUTES * 60_000 },
   });
+  // The store sweeps expired rows on a timer of its own; closing the app stops it.
+  return { middleware, close: () => store.stopExpiringSessions() };
 }
 
 export function absoluteSessionLimit(config: Config): RequestHandler {

@@ -31,6 +31,7 @@ const MAX_DELAY_SECONDS = 6 * 3600;
 export class MailSender {
   private timer: NodeJS.Timeout | undefined;
   private running: Promise<unknown> | undefined;
+  private stopping = false;
   private readonly clock: () => Date;
 
   constructor(
@@ -43,7 +44,8 @@ export class MailSender {
   /** Sends every row due now (optionally only the given ids) and reports what happened. */
   async runOnce(filter: { ids?: number[] } = {}): Promise<SendRound> {
     const round: SendRound = { sent: 0, retrying: 0, failed: 0 };
-    for (let i = 0; i < 1000; i++) {
+    // After stop() the round ends at the row in hand, so a shutdown need not wait for a long queue.
+    for (let i = 0; i < 1000 && !this.stopping; i++) {
       const outcome = await this.sequelize.transaction((t) => this.sendNext(t, filter));
       if (!outcome) break;
       round[outcome]++;
@@ -52,6 +54,7 @@ export class MailSender {
   }
 
   start(pollSeconds: number): void {
+    this.stopping = false;
     const tick = () => {
       this.running = this.runOnce()
         .catch((err) => logger.error({ err }, 'mail sender round failed; will retry'))
@@ -63,6 +66,7 @@ export class MailSender {
   }
 
   async stop(): Promise<void> {
+    this.stopping = true;
     clearTimeout(this.timer);
     this.timer = undefined;
     await this.running;

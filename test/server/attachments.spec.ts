@@ -4,7 +4,7 @@ import { calcTeam, revisionOf, sign, tickAll } from '../support/calc-harness';
 import { appWithTestS3 } from '../support/s3-app';
 import { pdfBytes, upload, windowsProgram } from '../support/upload-harness';
 import { Attachment } from '../../server/db/models';
-import { createApp } from '../../server/app';
+import { closeApp, createApp } from '../../server/app';
 
 // Uploads go through multer to s3rver (the S3 API) in this process; the size limit is set low
 // so "over the limit" needs only a small file.
@@ -237,6 +237,7 @@ describe('storage outage', () => {
 
     const res = await upload(author.session, revisionId, pdfBytes(), { kind: 'drawing' });
     const rows = await Attachment.count({ where: { revisionId } });
+    await closeApp(down);
 
     expect(res.status).toBe(503);
     expect(res.body.message).toMatch(/Attachment storage is unavailable.*nothing was lost/);

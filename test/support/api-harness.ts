@@ -4,7 +4,7 @@ import type { Sequelize } from 'sequelize';
 import { randomUUID } from 'node:crypto';
 import { loadConfig, type Config } from '../../server/config';
 import { createSequelize } from '../../server/db';
-import { createApp } from '../../server/app';
+import { closeApp, createApp } from '../../server/app';
 import { Project, User, UserRole } from '../../server/db/models';
 import { hash } from '@node-rs/argon2';
 import type { Role } from '../../shared/authz/roles';
@@ -16,11 +16,27 @@ let cachedHash: Promise<string> | undefined;
 // proves that the product's own hashes use the production cost.
 const TEST_HASH_COST = { algorithm: 2 /* Argon2id */, memoryCost: 1_024, timeCost: 1, parallelism: 1 } as const;
 
-/** A real app on the real test database; one per test file. */
-export function startTestApp(overrides: Partial<Config> = {}): { app: Express; sequelize: Sequelize; config: Config } {
+/**
+ * A real app on the real test database; one per test file. `close()` ends the app's worker pool, sockets and
+ * timers, then the database; so does `sequelize.close()`, which is what the spec files' afterAll calls, so that
+ * nothing keeps the jest worker alive after the file (issue 14).
+ */
+export function startTestApp(overrides: Partial<Config> = {}): {
+  app: Express;
+  sequelize: Sequelize;
+  config: Config;
+  close: () => Promise<void>;
+} {
   const config = Object.freeze({ ...loadConfig(), ...overrides });
   const sequelize = createSequelize(config);
-  return { app: createApp({ sequelize, config }), sequelize, config };
+  const app = createApp({ sequelize, config });
+  const closeDb = sequelize.close.bind(sequelize);
+  const close = async () => {
+    await closeApp(app);
+    await closeDb();
+  };
+  sequelize.close = close;
+  return { app, sequelize, config, close };
 }
 
 /** Inserts a user with the given roles; usernames are unique per call so tests never collide. */

@@ -22,7 +22,7 @@ const CHROMIUM_ARGS = [
 
 /** The real app on a free loopback port, plus a fresh Chromium profile. */
 export async function startBrowserSession() {
-  const { app, sequelize } = startTestApp();
+  const { app, close } = startTestApp();
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });
@@ -53,7 +53,7 @@ export async function startBrowserSession() {
     async close() {
       await context.close();
       await new Promise((resolve) => server.close(resolve));
-      await sequelize.close();
+      await close(); // the app's worker pool, sockets and timers, then the database
       fs.rmSync(profile, { recursive: true, force: true });
     },
   };

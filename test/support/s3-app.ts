@@ -14,7 +14,7 @@ export function appWithTestS3(overrides: Partial<Config> = {}) {
     ctx = startTestApp({ ...s3.config, ...overrides });
   });
   afterAll(async () => {
-    await ctx?.sequelize.close();
+    await ctx?.close();
     await s3?.close();
   });
   const started = () => {

@@ -26,6 +26,6 @@ export function tamperTestApp() {
     // The shipped design standards are reference data every calc needs.
     await seedRuleSets(ctx.sequelize);
   });
-  afterAll(() => ctx.sequelize.close());
+  afterAll(() => ctx.close());
   return ctx;
 }

@@ -40,4 +40,5 @@ export {
   type GoverningRow,
 } from './minimum-diameter';
 export { diffRuleSets, type RuleSetDiff, type ItemDiff, type FieldChange, type Change } from './rule-set-diff';
+export { verificationLines } from './verification-text';
 export { ruleSetJsonSchemaText } from './json-schema';

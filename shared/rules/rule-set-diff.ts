@@ -1,5 +1,6 @@
 import type { Clause, ManualItem, Parameter, RuleSet } from './rule-set-schema';
 import { clauseParameters } from './validate-rule-set';
+import { verificationLines } from './verification-text';
 
 export interface FieldChange {
   field: string;
@@ -24,6 +25,8 @@ export interface RuleSetDiff {
   to: { code: string; version: number };
   identity: FieldChange[];
   methods: FieldChange[];
+  /** How calcs are checked (independent model, scope, tolerances), in plain words, line by line. */
+  verification: FieldChange[];
   parameters: (ItemDiff<Parameter> & { usedBy: string[] })[];
   clauses: ItemDiff<Clause>[];
   manualItems: ItemDiff<ManualItem>[];
@@ -113,6 +116,12 @@ export function diffRuleSets(a: RuleSet, b: RuleSet): RuleSetDiff {
       'fatigueCriterion',
       'reliability',
     ]),
+    verification: fieldChanges(verificationLines(a.verification), verificationLines(b.verification), [
+      'requirement',
+      'inputs',
+      'results',
+      'origin',
+    ]).map((f) => ({ ...f, field: `checking ${f.field}` })),
     parameters,
     clauses,
     manualItems,

@@ -1,5 +1,5 @@
 import { diffRuleSets } from '../../../shared/rules';
-import { LIFT, V2, V3 } from './rules-helpers';
+import { LIFT, V2, V3, loadRuleSet } from './rules-helpers';
 
 describe('diffRuleSets', () => {
   const d = diffRuleSets(V2, V3);
@@ -55,5 +55,24 @@ describe('diffRuleSets', () => {
       clauses: { added: 0, removed: 0, changed: 0 },
       manualItems: { added: 0, removed: 0, changed: 0 },
     });
+  });
+
+  it('when the independent-model requirement or a tolerance changes, then each shows as a changed line', () => {
+    const lift2 = loadRuleSet('kfd-eng-021-v2.json');
+    const tighter = {
+      ...lift2,
+      verification: { ...lift2.verification!, scope: { kind: 'torque-at-least' as const, value: 500 } },
+    };
+    tighter.verification.tolerances = { inputs: 0.001, results: 0.01 };
+    expect(diffRuleSets(lift2, tighter).verification).toEqual([
+      {
+        field: 'checking requirement',
+        before: 'Independent model required for every calc under this standard',
+        after: 'Independent model required for calcs with largest external torque ≥ 500 N·m',
+      },
+      { field: 'checking results', before: 'Results agree when within 2 %', after: 'Results agree when within 1 %' },
+    ]);
+    expect(diffRuleSets(LIFT, lift2).verification.map((f) => f.field)).toContain('checking requirement');
+    expect(diffRuleSets(lift2, lift2).verification).toEqual([]);
   });
 });

@@ -22,7 +22,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { AbilityServiceSignal } from '@casl/angular';
 import { subject } from '@casl/ability';
-import { validateRuleSet, type RuleSet } from '../../../../shared/rules';
+import { validateRuleSet, verificationLines, type RuleSet } from '../../../../shared/rules';
 import type { AppAbility } from '../../../../shared/authz/app-ability';
 import { assertApiFailure } from '../../core/http/api-failure';
 import { LoadFailure } from '../../ui/load-failure';
@@ -70,6 +70,11 @@ export default class RuleSetView {
   protected readonly version = this.api.one(this.id);
   protected readonly current = computed(() => (this.version.hasValue() ? this.version.value() : undefined));
   protected readonly doc = computed(() => this.current()?.document as RuleSet | undefined);
+  /** The standard's verification block (independent model, scope, tolerances) in plain words. */
+  protected readonly checking = computed(() => {
+    const doc = this.doc();
+    return doc ? verificationLines(doc.verification) : undefined;
+  });
   protected readonly canEdit = computed(() => {
     const v = this.current();
     return (

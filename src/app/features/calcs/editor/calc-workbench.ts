@@ -66,6 +66,7 @@ export class CalcWorkbench {
   readonly storedChecklist = input<Checklist | null>(null);
   /** Findings anchored to an input (not to a checklist clause), shown beside their fields. */
   readonly inputFindings = input<readonly FindingDto[]>([]);
+  readonly notesLabel = input('Notes for the checker');
   /** A whole new form value: the entered values converted to the other unit system. */
   readonly replace = output<EditorValue>();
   private lastConversion: Conversion | null = null;

@@ -15,7 +15,7 @@ import { MatInputModule } from '@angular/material/input';
         <input matInput [formControl]="title()" maxlength="200" />
       </mat-form-field>
       <mat-form-field class="full">
-        <mat-label>Notes for the checker</mat-label>
+        <mat-label>{{ notesLabel() }}</mat-label>
         <textarea matInput [formControl]="notes()" rows="4" maxlength="5000" data-path="notes"></textarea>
         <mat-hint>Assumptions, load sources, drawing references. {{ notes().value.length }} / 5000</mat-hint>
       </mat-form-field>
@@ -27,4 +27,6 @@ import { MatInputModule } from '@angular/material/input';
 export class NotesPanel {
   readonly title = input.required<FormControl<string>>();
   readonly notes = input.required<FormControl<string>>();
+  /** The author writes for the checker; a checker's independent model keeps its own notes. */
+  readonly notesLabel = input('Notes for the checker');
 }

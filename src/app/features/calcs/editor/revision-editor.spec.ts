@@ -197,7 +197,7 @@ describe('saving and keeping work', () => {
     const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
     const text = await (await dialog.host()).text();
     expect(text).toContain('This revision was saved elsewhere');
-    expect(text).toMatch(/segments\[0\]\.length\s*120\s*100/);
+    expect(text).toMatch(/Segment 1, length\s*120\s*100/);
     expect(text).toContain('changed in another tab');
 
     await (await dialog.getHarness(MatButtonHarness.with({ text: /Keep mine/ }))).click();

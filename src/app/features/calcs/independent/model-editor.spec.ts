@@ -109,6 +109,9 @@ describe("the checker's model editor", () => {
     expect(text()).toContain('You check this calc blind');
     expect(field('segments[0].od').value).toBe('');
     expect(text()).toContain('Not saved yet');
+    // The panels speak to whoever builds the model: no "for the checker" or "by the author" on the checker's page.
+    expect(text()).toContain('Notes on your independent model');
+    expect(text()).not.toMatch(/Notes for the checker|Entered by the author/);
   });
 
   it('when the stored draft moved on since it was opened, then saving says so, keeps the typing, and offers the stored draft', async () => {

@@ -110,7 +110,7 @@ describe('independent model signing blocker (the rule on its own)', () => {
     ["another checker's model", { signerId: 8 }, /Tobias built the independent model/],
     ['an open model', { model: { ...model, locked: false } }, /Lock your independent model first/],
     ['the author changed the calc since', { authorHashNow: 'b' }, /compare again/],
-    ['differences with findings not closed', { unclosedDifferences: 2 }, /2 difference\(s\)/],
+    ['differences with findings not closed', { unclosedDifferences: 2 }, /2 differences between the two models/],
   ])('when there is %s, then signing as checked is refused with the reason', (_what, change, message) => {
     expect(independentModelBlocker('checked', { ...base, ...change })).toMatch(message);
   });

@@ -133,8 +133,17 @@ async function signInThroughServer(username: string): Promise<Signer> {
   return { cookie: sessionCookieOf(login), csrf: login.body.csrfToken };
 }
 
-const isConnectionError = (err: unknown) =>
-  /ECONNRESET|ECONNREFUSED|socket hang up|EPIPE/i.test(String((err as Error)?.message ?? err));
+/**
+ * The process died before or while answering. A kill that lands after the headers left but before the body ends
+ * reaches the client as the response stream's "aborted" error (code ECONNRESET), not as a refused connection.
+ */
+const isConnectionError = (err: unknown) => {
+  const { code, message } = (err ?? {}) as NodeJS.ErrnoException;
+  return (
+    ['ECONNRESET', 'ECONNREFUSED', 'EPIPE'].includes(code ?? '') ||
+    /ECONNRESET|ECONNREFUSED|socket hang up|EPIPE|^aborted$/i.test(String(message ?? err))
+  );
+};
 
 /**
  * One signature, sent to the current server process. Sometimes the process is killed at a random

@@ -1,15 +1,15 @@
 import { ForbiddenError, subject } from '@casl/ability';
-import { Op, type Sequelize, type Transaction } from 'sequelize';
-import { validateRuleSet } from '../../shared/rules';
+import type { Sequelize } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { RuleSetDto, RuleSetSummary } from '../../shared/schemas/rule-set.schema';
-import { RuleSetRecord, User } from '../db/models';
+import { RuleSetRecord } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
-import { verifyPassword } from '../auth/password';
 import { jsonDiff } from '../calcs/content-diff';
 import { documentHash, toRuleSetDto, toRuleSetSummary } from './rule-set-mapping';
 import { runTransaction } from '../db/transaction';
+import { assertDraft, loadRuleSet, namesOf, validDocument } from './rule-set-records';
+import { RuleSetPublication } from './rule-set-publication';
 
 type Person = Actor & { id: number };
 
@@ -18,11 +18,15 @@ type Person = Actor & { id: number };
  * effective date, and a second compliance user confirms it; effective and retired versions are frozen.
  */
 export class RuleSetsService {
+  private readonly publication: RuleSetPublication;
+
   /** `onEffective` hears of every version that comes into force (impact mail to compliance). */
   constructor(
     private readonly sequelize: Sequelize,
-    private readonly onEffective?: (actor: Actor, id: number) => Promise<void>,
-  ) {}
+    onEffective?: (actor: Actor, id: number) => Promise<void>,
+  ) {
+    this.publication = new RuleSetPublication(sequelize, onEffective);
+  }
 
   async list(ability: AppAbility): Promise<RuleSetSummary[]> {
     ForbiddenError.from(ability).throwUnlessCan('read', 'RuleSet');
@@ -41,7 +45,7 @@ export class RuleSetsService {
 
   async get(ability: AppAbility, id: number): Promise<RuleSetDto> {
     ForbiddenError.from(ability).throwUnlessCan('read', 'RuleSet');
-    const record = await this.load(id);
+    const record = await loadRuleSet(id);
     return toRuleSetDto(record, await namesOf([record.proposedBy, record.confirmedBy]));
   }
 
@@ -50,7 +54,7 @@ export class RuleSetsService {
       .setMessage('Only compliance drafts design standards')
       .throwUnlessCan('create', subject('RuleSet', { status: 'draft' }));
     const id = await runTransaction(this.sequelize, async (transaction) => {
-      const from = await this.load(fromId, transaction);
+      const from = await loadRuleSet(fromId, transaction);
       const latest = await RuleSetRecord.max<number, RuleSetRecord>('version', {
         where: { code: from.code },
         transaction,
@@ -98,15 +102,13 @@ export class RuleSetsService {
     lockVersion: number,
   ): Promise<RuleSetDto> {
     await runTransaction(this.sequelize, async (transaction) => {
-      const record = await this.load(id, transaction, true);
-      this.assertDraft(ability, record, 'update');
+      const record = await loadRuleSet(id, transaction, true);
+      assertDraft(ability, record, 'update');
       if (record.lockVersion !== lockVersion)
         throw AppError.conflict('Someone else saved this draft since you opened it; reload to see their version');
       // Identity fields belong to the record, not to what the editor sends.
       const doc = { ...document, code: record.code, version: record.version, status: 'draft' };
-      const checked = validateRuleSet(doc);
-      if (!checked.ok)
-        throw AppError.validation(Object.fromEntries(checked.issues.map((i) => [`document.${i.path}`, [i.message]])));
+      const checked = { value: validDocument(doc) };
       const diff = jsonDiff(
         JSON.parse(record.document),
         checked.value,
@@ -145,14 +147,12 @@ export class RuleSetsService {
     lockVersion: number,
   ): Promise<RuleSetDto> {
     await runTransaction(this.sequelize, async (transaction) => {
-      const record = await this.load(id, transaction, true);
-      this.assertDraft(ability, record, 'publish');
+      const record = await loadRuleSet(id, transaction, true);
+      assertDraft(ability, record, 'publish');
       if (record.lockVersion !== lockVersion)
         throw AppError.conflict('The draft changed since you opened it; review it again');
       // Only a complete, valid document can be proposed (a fresh draft still lacks its change summary).
-      const checked = validateRuleSet(JSON.parse(record.document));
-      if (!checked.ok)
-        throw AppError.validation(Object.fromEntries(checked.issues.map((i) => [`document.${i.path}`, [i.message]])));
+      validDocument(JSON.parse(record.document));
       record.set({ proposedBy: actor.id, effectiveDate });
       await record.save({ transaction });
       await appendAudit(
@@ -178,129 +178,12 @@ export class RuleSetsService {
     password: string,
     lockVersion: number,
   ): Promise<RuleSetDto> {
-    const user = await User.scope('withPassword').findByPk(actor.id);
-    if (!user || !(await verifyPassword(user.passwordHash, password))) {
-      await appendAudit(this.sequelize, actor, {
-        action: 'rule_set.confirmation_refused',
-        entityType: 'RuleSet',
-        entityId: id,
-        payload: { reason: 'wrong password' },
-      });
-      throw new AppError('validation', 400, 'Password is not correct; nothing was confirmed', {
-        fieldErrors: { password: ['is not correct'] },
-      });
-    }
-    const isEffective = await runTransaction(this.sequelize, async (transaction) => {
-      const record = await this.load(id, transaction, true);
-      this.assertDraft(ability, record, 'publish');
-      if (record.lockVersion !== lockVersion)
-        throw AppError.conflict('The draft changed since you opened it; review it again');
-      if (!record.proposedBy) throw AppError.conflict('Propose the version with an effective date first');
-      if (record.proposedBy === actor.id)
-        throw new AppError('forbidden', 403, 'A second compliance user must confirm; you proposed this version');
-      record.confirmedBy = actor.id;
-      await record.save({ transaction });
-      await appendAudit(
-        this.sequelize,
-        actor,
-        {
-          action: 'rule_set.confirmed',
-          entityType: 'RuleSet',
-          entityId: id,
-          payload: { code: record.code, version: record.version, effectiveDate: record.effectiveDate },
-        },
-        transaction,
-      );
-      // A version confirmed for a later date waits, confirmed but not yet in force, until that day.
-      if (record.effectiveDate! > todayUtc()) return false;
-      await this.makeEffective(record, actor, transaction);
-      return true;
-    });
-    if (isEffective) await this.onEffective?.(actor, id);
+    await this.publication.confirm(ability, actor, id, password, lockVersion);
     return this.get(ability, id);
   }
 
   /** Puts confirmed versions whose effective date has come into force; cheap, and idempotent. */
-  async promoteDue(): Promise<void> {
-    const due = await RuleSetRecord.findAll({
-      where: { status: 'draft', confirmedBy: { [Op.ne]: null }, effectiveDate: { [Op.lte]: todayUtc() } },
-    });
-    const clock: Actor = { id: null, name: 'effective-date clock', ip: null };
-    for (const record of due) {
-      const promoted = await runTransaction(this.sequelize, async (transaction) => {
-        const fresh = await this.load(record.id, transaction, true);
-        if (fresh.status !== 'draft') return false;
-        await this.makeEffective(fresh, clock, transaction);
-        return true;
-      });
-      if (promoted) await this.onEffective?.(clock, record.id);
-    }
+  promoteDue(): Promise<void> {
+    return this.publication.promoteDue();
   }
-
-  private async makeEffective(record: RuleSetRecord, actor: Actor, transaction: Transaction): Promise<void> {
-    const previous = await RuleSetRecord.findAll({
-      where: { code: record.code, status: 'effective', id: { [Op.ne]: record.id } },
-      transaction,
-      lock: transaction.LOCK.UPDATE,
-    });
-    for (const p of previous) await p.update({ status: 'retired' }, { transaction });
-    const doc = { ...JSON.parse(record.document), status: 'effective', effectiveDate: record.effectiveDate };
-    record.set({ status: 'effective', document: JSON.stringify(doc), contentHash: documentHash(doc) });
-    await record.save({ transaction });
-    await appendAudit(
-      this.sequelize,
-      actor,
-      {
-        action: 'rule_set.effective',
-        entityType: 'RuleSet',
-        entityId: record.id,
-        payload: {
-          code: record.code,
-          version: record.version,
-          effectiveDate: record.effectiveDate,
-          retired: previous.map((p) => p.version),
-        },
-      },
-      transaction,
-    );
-  }
-
-  private assertDraft(ability: AppAbility, record: RuleSetRecord, action: 'update' | 'publish'): void {
-    // Who may act comes first (403); only then whether the version can still change (409).
-    ForbiddenError.from(ability)
-      .setMessage('Only compliance edits and publishes design standards')
-      .throwUnlessCan(action, subject('RuleSet', { status: 'draft' }));
-    if (record.status !== 'draft')
-      throw new AppError(
-        'read_only',
-        409,
-        `${record.code} v${record.version} is ${record.status}; it never changes again`,
-      );
-    if (record.confirmedBy)
-      throw new AppError(
-        'read_only',
-        409,
-        `${record.code} v${record.version} is confirmed and waits for ${record.effectiveDate}; it no longer changes`,
-      );
-  }
-
-  private async load(id: number, transaction?: Transaction, lock = false): Promise<RuleSetRecord> {
-    const record = await RuleSetRecord.findByPk(id, {
-      transaction,
-      lock: lock && transaction ? transaction.LOCK.UPDATE : undefined,
-    });
-    if (!record) throw AppError.notFound(`Design standard version ${id}`);
-    return record;
-  }
-}
-
-function todayUtc(): string {
-  return new Date().toISOString().slice(0, 10);
-}
-
-async function namesOf(ids: (number | null)[]): Promise<Map<number, string>> {
-  const wanted = [...new Set(ids.filter((v): v is number => v != null))];
-  if (wanted.length === 0) return new Map();
-  const users = await User.findAll({ where: { id: { [Op.in]: wanted } }, attributes: ['id', 'displayName'] });
-  return new Map(users.map((u) => [u.id, u.displayName]));
 }

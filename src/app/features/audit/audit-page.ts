@@ -139,6 +139,8 @@ export default class AuditPage {
     ] as const) {
       control.valueChanges.pipe(takeUntilDestroyed()).subscribe((v) => {
         const day = v.trim();
+        // Only a changed, complete date reads the list again (clearing an empty field changes nothing).
+        if (day === this.params()[key]) return;
         if (day === '' || (ISO_DAY.test(day) && !Number.isNaN(Date.parse(`${day}T00:00:00Z`))))
           this.filter({ [key]: day });
       });

@@ -19,12 +19,26 @@ const REPEATS = Number(process.env.BENCH_HEALTH_REPEATS ?? 15);
 async function timed(
   url: string,
   cookie: string,
-): Promise<{ ms: number; status: number; serverMs: number | null; bytes: number }> {
+): Promise<{ ms: number; status: number; serverMs: number | null; bytes: number; phases: Map<string, number> }> {
   const t0 = performance.now();
   const res = await fetch(url, { headers: { cookie } });
   const text = await res.text();
   const body = JSON.parse(text) as { elapsedMs?: number };
-  return { ms: performance.now() - t0, status: res.status, serverMs: body.elapsedMs ?? null, bytes: text.length };
+  // Server-Timing: `name;dur=12.3` per phase of the answer (server/http/server-timing.ts).
+  const phases = new Map(
+    (res.headers.get('server-timing') ?? '')
+      .split(',')
+      .map((p) => p.trim().match(/^([\w-]+);dur=([\d.]+)$/))
+      .filter((m) => m !== null)
+      .map((m) => [m[1], Number(m[2])] as const),
+  );
+  return {
+    ms: performance.now() - t0,
+    status: res.status,
+    serverMs: body.elapsedMs ?? null,
+    bytes: text.length,
+    phases,
+  };
 }
 
 /** CPU time the server process has used (user + system, ms): steadier than wall time on a shared machine. */
@@ -94,7 +108,7 @@ async function main(): Promise<void> {
       ['one project, one year', `/api/review-health?projectId=${project.id}&from=${oneYear}&to=${today}`],
     ] as const) {
       const first = await timed(server.url + path, session.cookie);
-      const runs: { ms: number; serverMs: number | null }[] = [];
+      const runs: { ms: number; serverMs: number | null; phases: Map<string, number> }[] = [];
       const cpu0 = cpuMs(server.child.pid!);
       for (let i = 0; i < REPEATS; i++) runs.push(await timed(server.url + path, session.cookie));
       const cpuPer = (cpuMs(server.child.pid!) - cpu0) / REPEATS;
@@ -105,6 +119,18 @@ async function main(): Promise<void> {
       const service = runs.map((r) => r.serverMs ?? NaN);
       console.log(
         `  ${name.padEnd(26)} first ${first.ms.toFixed(0)} ms (status ${first.status}); then p50 ${pct(times, 0.5)} ms, p95 ${pct(times, 0.95)} ms, max ${pct(times, 1)} ms over ${REPEATS} (service p50 ${pct(service, 0.5)} ms; server CPU ${cpuPer.toFixed(0)} ms and ${(first.bytes / 1024).toFixed(0)} kB per answer; load ${loadavg()[0].toFixed(1)})`,
+      );
+      const names = [...runs[0].phases.keys()].filter((k) => k !== 'app');
+      console.log(
+        `    phases p50 (ms, phases run side by side): ${names
+          .map(
+            (k) =>
+              `${k} ${pct(
+                runs.map((r) => r.phases.get(k) ?? 0),
+                0.5,
+              )}`,
+          )
+          .join(', ')}`,
       );
     }
   } finally {

@@ -2,6 +2,7 @@
 // plus findings, refusals and changed attachment sets (bench-health-seed.ts) and a stricter standard version
 // in force today. Prints the first answer (which counts sizes and re-evaluates approvals once) and then
 // p50/p95/max of repeated answers. Nothing here is a test and nothing asserts a figure.
+import { readFileSync } from 'node:fs';
 import { cpus, loadavg } from 'node:os';
 import mariadb from 'mariadb';
 import { QueryTypes } from 'sequelize';
@@ -15,11 +16,35 @@ import { backfillReviewFacts } from '../server/review-health/review-facts';
 
 const REPEATS = Number(process.env.BENCH_HEALTH_REPEATS ?? 15);
 
-async function timed(url: string, cookie: string): Promise<{ ms: number; status: number; serverMs: number | null }> {
+async function timed(
+  url: string,
+  cookie: string,
+): Promise<{ ms: number; status: number; serverMs: number | null; bytes: number; phases: Map<string, number> }> {
   const t0 = performance.now();
   const res = await fetch(url, { headers: { cookie } });
-  const body = (await res.json()) as { elapsedMs?: number };
-  return { ms: performance.now() - t0, status: res.status, serverMs: body.elapsedMs ?? null };
+  const text = await res.text();
+  const body = JSON.parse(text) as { elapsedMs?: number };
+  // Server-Timing: `name;dur=12.3` per phase of the answer (server/http/server-timing.ts).
+  const phases = new Map(
+    (res.headers.get('server-timing') ?? '')
+      .split(',')
+      .map((p) => p.trim().match(/^([\w-]+);dur=([\d.]+)$/))
+      .filter((m) => m !== null)
+      .map((m) => [m[1], Number(m[2])] as const),
+  );
+  return {
+    ms: performance.now() - t0,
+    status: res.status,
+    serverMs: body.elapsedMs ?? null,
+    bytes: text.length,
+    phases,
+  };
+}
+
+/** CPU time the server process has used (user + system, ms): steadier than wall time on a shared machine. */
+function cpuMs(pid: number): number {
+  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+  return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100;
 }
 
 async function main(): Promise<void> {
@@ -83,15 +108,29 @@ async function main(): Promise<void> {
       ['one project, one year', `/api/review-health?projectId=${project.id}&from=${oneYear}&to=${today}`],
     ] as const) {
       const first = await timed(server.url + path, session.cookie);
-      const runs: { ms: number; serverMs: number | null }[] = [];
+      const runs: { ms: number; serverMs: number | null; phases: Map<string, number> }[] = [];
+      const cpu0 = cpuMs(server.child.pid!);
       for (let i = 0; i < REPEATS; i++) runs.push(await timed(server.url + path, session.cookie));
+      const cpuPer = (cpuMs(server.child.pid!) - cpu0) / REPEATS;
       const pct = (values: number[], p: number) =>
         [...values].sort((a, b) => a - b)[Math.min(values.length - 1, Math.floor(p * values.length))].toFixed(0);
       const times = runs.map((r) => r.ms);
       // The service's own time (elapsedMs) beside the whole answer: the rest is JSON, HTTP and the event loop.
       const service = runs.map((r) => r.serverMs ?? NaN);
       console.log(
-        `  ${name.padEnd(26)} first ${first.ms.toFixed(0)} ms (status ${first.status}); then p50 ${pct(times, 0.5)} ms, p95 ${pct(times, 0.95)} ms, max ${pct(times, 1)} ms over ${REPEATS} (service p50 ${pct(service, 0.5)} ms)`,
+        `  ${name.padEnd(26)} first ${first.ms.toFixed(0)} ms (status ${first.status}); then p50 ${pct(times, 0.5)} ms, p95 ${pct(times, 0.95)} ms, max ${pct(times, 1)} ms over ${REPEATS} (service p50 ${pct(service, 0.5)} ms; server CPU ${cpuPer.toFixed(0)} ms and ${(first.bytes / 1024).toFixed(0)} kB per answer; load ${loadavg()[0].toFixed(1)})`,
+      );
+      const names = [...runs[0].phases.keys()].filter((k) => k !== 'app');
+      console.log(
+        `    phases p50 (ms, phases run side by side): ${names
+          .map(
+            (k) =>
+              `${k} ${pct(
+                runs.map((r) => r.phases.get(k) ?? 0),
+                0.5,
+              )}`,
+          )
+          .join(', ')}`,
       );
     }
   } finally {

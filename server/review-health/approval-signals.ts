@@ -1,6 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { HealthSettings, SignalRow } from '../../shared/schemas/review-health.schema';
-import { auditLink, coverFrom, plural, ROW_CAP, type HealthScope } from './health-scope';
+import { auditLink, coverFrom, plural, type HealthScope } from './health-scope';
+import { afterCursor, keysetPage, limitOf, totalOf, type Listed, type PageAsk } from './signal-page';
 import { setChange } from './review-facts';
 import type { VersionFacts } from './standard-versions';
 
@@ -15,29 +16,40 @@ interface Approved {
   number: string;
   code: string;
   approver: string | null;
+  total: number;
 }
 
+const NEWEST = [{ sql: 'r.approved_at', isDate: true }, { sql: 'r.id' }];
+
 /**
- * The period's approvals matching `filter` (on columns of the covering index), newest first, capped; only the
- * listed rows are joined to their calc, project and approver. `extra` adds columns over the listed rows (alias r).
+ * A page of the period's approvals matching `filter` (on columns of the covering index), newest first, with their
+ * count; only the page's rows are joined to their calc, project and approver. `extra` adds columns over them (alias r).
  */
 async function approvals<T>(
   sequelize: Sequelize,
   scope: HealthScope,
   filter: { sql: string; values: unknown[] },
+  ask: PageAsk,
   extra = '',
-): Promise<(Approved & T)[]> {
+): Promise<{ rows: (Approved & T)[]; total: number; next: string | null }> {
   const { from, project } = coverFrom(scope, 'revisions_approved_cover');
-  return sequelize.query<Approved & T>(
-    `SELECT q.id, q.calcId, r.label, q.ruleSetId, q.approvedAt, c.number, p.code, u.display_name AS approver${extra}
-     FROM (SELECT r.id, r.calc_id AS calcId, r.rule_set_id AS ruleSetId, r.approved_at AS approvedAt, r.approver_id AS approverId
-           ${from} WHERE ${APPROVED}${project.sql} AND (${filter.sql})
-           ORDER BY r.approved_at DESC, r.id DESC LIMIT ${ROW_CAP + 1}) q
+  const after = afterCursor(ask, NEWEST, 'desc');
+  const found = await sequelize.query<Approved & T>(
+    `SELECT q.id, q.calcId, r.label, q.ruleSetId, q.approvedAt, c.number, p.code, u.display_name AS approver, q.total${extra}
+     FROM (SELECT r.id, r.calc_id AS calcId, r.rule_set_id AS ruleSetId, r.approved_at AS approvedAt, r.approver_id AS approverId,
+             COUNT(*) OVER () AS total
+           ${from} WHERE ${APPROVED}${project.sql} AND (${filter.sql}) AND ${after.sql}
+           ORDER BY r.approved_at DESC, r.id DESC ${limitOf(ask)}) q
        JOIN revisions r ON r.id = q.id JOIN calcs c ON c.id = q.calcId JOIN projects p ON p.id = c.project_id
        LEFT JOIN users u ON u.id = q.approverId
      ORDER BY q.approvedAt DESC, q.id DESC`,
-    { replacements: [scope.start, scope.end, ...project.values, ...filter.values], type: QueryTypes.SELECT },
+    {
+      replacements: [scope.start, scope.end, ...project.values, ...filter.values, ...after.replacements],
+      type: QueryTypes.SELECT,
+    },
   );
+  const page = keysetPage(found, ask, (r) => [new Date(r.approvedAt).toISOString(), r.id]);
+  return { ...page, total: totalOf(found) };
 }
 
 const calcOf = (r: Approved) => ({ projectCode: r.code, calcId: r.calcId, calcNumber: r.number, revision: r.label });
@@ -48,16 +60,17 @@ const signaturesLink = (r: Approved) =>
  * Approved revisions whose attachment set at approval differs from the set the last check signature covered:
  * found by the count the approval signature recorded (review-facts.ts), named from the two signatures themselves.
  */
-export async function attachmentsAfterCheck(sequelize: Sequelize, scope: HealthScope): Promise<SignalRow[]> {
+export async function attachmentsAfterCheck(sequelize: Sequelize, scope: HealthScope, ask: PageAsk): Promise<Listed> {
   const last = (meaning: string) =>
     `(SELECT s.attachments FROM signatures s WHERE s.revision_id = q.id AND s.meaning = '${meaning}' ORDER BY s.id DESC LIMIT 1)`;
-  const rows = await approvals<{ checkedSet: string; approvedSet: string }>(
+  const page = await approvals<{ checkedSet: string; approvedSet: string }>(
     sequelize,
     scope,
     { sql: 'r.attachments_changed > 0', values: [] },
+    ask,
     `, ${last('checked')} AS checkedSet, ${last('approved')} AS approvedSet`,
   );
-  return rows.map((r) => {
+  const rows = page.rows.map((r): SignalRow => {
     const { added, removed } = setChange(JSON.parse(r.checkedSet), JSON.parse(r.approvedSet));
     const parts = [
       added.length ? `added after the check: ${added.join(', ')}` : '',
@@ -73,6 +86,7 @@ export async function attachmentsAfterCheck(sequelize: Sequelize, scope: HealthS
       evidence: [auditLink('Attachment changes', { calcId: r.calcId, action: 'attachment.' }), signaturesLink(r)],
     };
   });
+  return { ...page, rows };
 }
 
 /** Approvals under a version that was replaced within the set number of days after them (or had been before them). */
@@ -81,28 +95,27 @@ export async function replacedStandard(
   scope: HealthScope,
   settings: HealthSettings,
   versions: Map<number, VersionFacts>,
-): Promise<SignalRow[]> {
+  ask: PageAsk,
+): Promise<Listed> {
   const replaced = [...versions.values()].filter((v) => v.replacedBy);
-  if (replaced.length === 0) return [];
+  if (replaced.length === 0) return { rows: [], total: 0, next: null };
   // Per replaced version, only approvals from N days before its successor took effect on.
   const near = replaced.map(() => '(r.rule_set_id = ? AND r.approved_at >= ?)').join(' OR ');
   const bounds = replaced.flatMap((v) => [
     v.id,
     new Date(Date.parse(`${v.replacedBy!.on}T00:00:00Z`) - settings.replacedWithinDays * 86_400_000),
   ]);
-  const rows = await approvals(sequelize, scope, { sql: near, values: bounds });
-  const out: SignalRow[] = [];
-  for (const r of rows) {
+  const page = await approvals(sequelize, scope, { sql: near, values: bounds }, ask);
+  const rows = page.rows.map((r): SignalRow => {
     const v = versions.get(r.ruleSetId)!;
     const days = (Date.parse(`${v.replacedBy!.on}T00:00:00Z`) - new Date(r.approvedAt).getTime()) / 86_400_000;
-    if (days > settings.replacedWithinDays) continue;
     const when =
       Math.abs(days) < 1
         ? 'on the day'
         : days >= 0
           ? `${plural(Math.ceil(days), 'day')} before`
           : `${plural(Math.floor(-days), 'day')} after`;
-    out.push({
+    return {
       signal: 'replaced-standard',
       ...calcOf(r),
       fact: `Approved under ${v.code} v${v.version} ${when} v${v.replacedBy!.version} took effect (${v.replacedBy!.on})`,
@@ -113,8 +126,7 @@ export async function replacedStandard(
         signaturesLink(r),
         auditLink('The standard’s version changes', { entityType: 'RuleSet', action: 'rule_set.effective' }),
       ],
-    });
-    if (out.length > ROW_CAP) break;
-  }
-  return out;
+    };
+  });
+  return { ...page, rows };
 }

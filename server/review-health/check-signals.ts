@@ -1,6 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { HealthSettings, SignalRow } from '../../shared/schemas/review-health.schema';
-import { auditLink, coverFrom, durationText, plural, ROW_CAP, type HealthScope } from './health-scope';
+import { auditLink, coverFrom, durationText, plural, type HealthScope } from './health-scope';
+import { afterCursor, keysetPage, limitOf, totalOf, type Listed, type PageAsk } from './signal-page';
 
 // Checks that count: the revision still holds the content its checker signed.
 const CHECKED = `r.checked_at >= ? AND r.checked_at < ? AND r.status IN ('checked', 'approved', 'superseded')`;
@@ -18,7 +19,11 @@ interface QuickRow {
   rows: number;
   segments: number;
   features: number;
+  total: number;
 }
+
+const SECONDS = 'TIMESTAMPDIFF(SECOND, r.submitted_at, r.checked_at)';
+const QUICK_ORDER = [{ sql: SECONDS }, { sql: 'r.id' }];
 
 /**
  * Checks signed sooner after submission than the set seconds per checklist row, segment and feature. The sizes
@@ -29,38 +34,49 @@ export async function quickChecks(
   sequelize: Sequelize,
   scope: HealthScope,
   settings: HealthSettings,
-): Promise<SignalRow[]> {
+  ask: PageAsk,
+): Promise<Listed> {
   const { from, project } = coverFrom(scope, 'revisions_checked_cover');
-  const seconds = 'TIMESTAMPDIFF(SECOND, r.submitted_at, r.checked_at)';
-  const rows = await sequelize.query<QuickRow>(
+  const after = afterCursor(ask, QUICK_ORDER, 'asc');
+  const found = await sequelize.query<QuickRow>(
     `SELECT q.id, q.calcId, r.label, c.number, p.code, a.display_name AS author, k.display_name AS checker,
-       q.checkedAt, q.seconds, q.rows, q.segments, q.features
+       q.checkedAt, q.seconds, q.rows, q.segments, q.features, q.total
      FROM (SELECT r.id, r.calc_id AS calcId, r.author_id AS authorId, r.checker_id AS checkerId, r.checked_at AS checkedAt,
-             ${seconds} AS seconds, r.check_rows AS \`rows\`, r.check_segments AS segments, r.check_features AS features
+             ${SECONDS} AS seconds, r.check_rows AS \`rows\`, r.check_segments AS segments, r.check_features AS features,
+             COUNT(*) OVER () AS total
            ${from} WHERE ${CHECKED}${project.sql}
-             AND ${seconds} < ? * (r.check_rows + r.check_segments + r.check_features)
-           ORDER BY seconds ASC, r.id ASC LIMIT ${ROW_CAP + 1}) q
+             AND ${SECONDS} < ? * (r.check_rows + r.check_segments + r.check_features) AND ${after.sql}
+           ORDER BY seconds ASC, r.id ASC ${limitOf(ask)}) q
        JOIN revisions r ON r.id = q.id JOIN calcs c ON c.id = q.calcId JOIN projects p ON p.id = c.project_id
        JOIN users a ON a.id = q.authorId JOIN users k ON k.id = q.checkerId
      ORDER BY q.seconds ASC, q.id ASC`,
     {
-      replacements: [scope.start, scope.end, ...project.values, settings.quickCheckSecondsPerItem],
+      replacements: [
+        scope.start,
+        scope.end,
+        ...project.values,
+        settings.quickCheckSecondsPerItem,
+        ...after.replacements,
+      ],
       type: QueryTypes.SELECT,
     },
   );
-  return rows.map((r) => ({
-    signal: 'quick-check',
-    fact: `Checked in ${durationText(Number(r.seconds))}: ${plural(Number(r.rows), 'checklist row')}, ${plural(Number(r.segments), 'segment')}, ${plural(Number(r.features), 'feature')}`,
-    projectCode: r.code,
-    calcId: r.calcId,
-    calcNumber: r.number,
-    revision: r.label,
-    people: `checker ${r.checker}; author ${r.author}`,
-    at: new Date(r.checkedAt).toISOString(),
-    measure: Math.round(Number(r.seconds) / 6) / 10,
-    evidence: [auditLink('Submission and check signatures', { calcId: r.calcId, action: 'revision.signed' })],
-  }));
+  const { rows, next } = keysetPage(found, ask, (r) => [Number(r.seconds), r.id]);
+  return { rows: rows.map(quickRow), total: totalOf(found), next };
 }
+
+const quickRow = (r: QuickRow): SignalRow => ({
+  signal: 'quick-check',
+  fact: `Checked in ${durationText(Number(r.seconds))}: ${plural(Number(r.rows), 'checklist row')}, ${plural(Number(r.segments), 'segment')}, ${plural(Number(r.features), 'feature')}`,
+  projectCode: r.code,
+  calcId: r.calcId,
+  calcNumber: r.number,
+  revision: r.label,
+  people: `checker ${r.checker}; author ${r.author}`,
+  at: new Date(r.checkedAt).toISOString(),
+  measure: Math.round(Number(r.seconds) / 6) / 10,
+  evidence: [auditLink('Submission and check signatures', { calcId: r.calcId, action: 'revision.signed' })],
+});
 
 export interface PairCount {
   checkerId: number;

@@ -54,9 +54,6 @@ export function healthCsv(report: HealthReport): string {
   return toCsv(COLUMNS, lines, [
     `Review-health signals for ${report.project ? `project ${report.project.code}` : 'all projects'}, ${report.from} to ${report.to} (UTC days); ${report.checksInPeriod} checks in the period`,
     `Thresholds: ${settings.join('; ')}`,
-    ...report.signals
-      .filter((s) => s.more)
-      .map((s) => `${SIGNAL_TEXTS[s.key].title}: only the first ${s.rows.length} rows are listed`),
     HEALTH_CAUTION,
   ]);
 }

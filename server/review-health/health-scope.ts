@@ -80,6 +80,3 @@ export function durationText(seconds: number): string {
 
 export const plural = (n: number, word: string, many = `${word}s`): string =>
   `${n.toLocaleString('en-GB')} ${n === 1 ? word : many}`;
-
-/** Rows shown per signal; the screen says when there are more. */
-export const ROW_CAP = 500;

@@ -1,6 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { HealthSettings, SignalRow } from '../../shared/schemas/review-health.schema';
-import { auditLink, plural, projectClause, ROW_CAP, type HealthScope } from './health-scope';
+import { auditLink, plural, projectClause, type HealthScope } from './health-scope';
+import { afterCursor, keysetPage, limitOf, totalOf, type Listed, type PageAsk } from './signal-page';
 
 interface Refusal {
   actorId: number | null;
@@ -17,7 +18,12 @@ interface Refusal {
   codeNotSetUp: number;
   first: Date;
   last: Date;
+  actorKey: number;
+  total: number;
 }
+
+/** Most attempts first, then the latest; the person and revision make each group's place unique. */
+const GROUP_ORDER = [{ sql: 'attempts' }, { sql: 'last', isDate: true }, { sql: 'actorKey' }, { sql: 'entityId' }];
 
 /** Each refusal reason the signing path records (workflow.service.ts, second-factor.ts), as counted here. */
 const REASONS = [
@@ -37,23 +43,31 @@ export async function refusedSignatures(
   sequelize: Sequelize,
   scope: HealthScope,
   settings: HealthSettings,
-): Promise<SignalRow[]> {
+  ask: PageAsk,
+): Promise<Listed> {
   const project = projectClause(scope, 'e.project_id');
-  const rows = await sequelize.query<Refusal>(
+  const after = afterCursor(ask, GROUP_ORDER, 'desc');
+  const found = await sequelize.query<Refusal>(
     `SELECT g.*, c.number, p.code, r.label
      FROM (SELECT e.actor_id AS actorId, MAX(e.actor_name) AS actorName, e.entity_id AS entityId,
              MAX(e.calc_id) AS calcId, COUNT(*) AS attempts,
              ${REASONS.map(([key, reason]) => `SUM(JSON_VALUE(e.payload, '$.reason') = '${reason}') AS ${key}`).join(', ')},
-             MIN(e.occurred_at) AS first, MAX(e.occurred_at) AS last
+             MIN(e.occurred_at) AS first, MAX(e.occurred_at) AS last, COALESCE(e.actor_id, 0) AS actorKey,
+             COUNT(*) OVER () AS total
            FROM audit_events e
            WHERE e.action = 'revision.signature_refused' AND e.occurred_at >= ? AND e.occurred_at < ?${project.sql}
-           GROUP BY e.actor_id, e.entity_id ORDER BY attempts DESC, last DESC LIMIT ${ROW_CAP + 1}) g
+           GROUP BY e.actor_id, e.entity_id HAVING ${after.sql}
+           ORDER BY attempts DESC, last DESC, actorKey DESC, entityId DESC ${limitOf(ask)}) g
        LEFT JOIN calcs c ON c.id = g.calcId LEFT JOIN projects p ON p.id = c.project_id
        LEFT JOIN revisions r ON r.id = CAST(g.entityId AS UNSIGNED)
-     ORDER BY g.attempts DESC, g.last DESC`,
-    { replacements: [scope.start, scope.end, ...project.values], type: QueryTypes.SELECT },
+     ORDER BY g.attempts DESC, g.last DESC, g.actorKey DESC, g.entityId DESC`,
+    {
+      replacements: [scope.start, scope.end, ...project.values, ...after.replacements],
+      type: QueryTypes.SELECT,
+    },
   );
-  return rows.map((r) => {
+  const page = keysetPage(found, ask, (r) => [Number(r.attempts), iso8601(r.last), Number(r.actorKey), r.entityId]);
+  const rows = page.rows.map((r): SignalRow => {
     const attempts = Number(r.attempts);
     const counted = REASONS.map(([key, reason]) => [reason, Number(r[key])] as const);
     // Entries written before a missing and a wrong code were told apart carry one reason for both.
@@ -83,6 +97,8 @@ export async function refusedSignatures(
       ],
     };
   });
+  return { ...page, rows, total: totalOf(found) };
 }
 
+const iso8601 = (d: Date) => new Date(d).toISOString();
 const iso = (d: Date) => `${new Date(d).toISOString().slice(0, 16).replace('T', ' ')} UTC`;

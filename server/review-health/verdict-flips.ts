@@ -4,14 +4,17 @@ import { ENGINE_VERSION } from '../../shared/engine';
 import type { RuleSet } from '../../shared/rules';
 import { loadRuleSet } from '../rule-sets/rule-set-cache';
 import { outcomeUnder, storedOutcome } from '../rule-sets/impact-compare';
-import { auditLink, coverFrom, ROW_CAP, type HealthScope } from './health-scope';
+import { auditLink, coverFrom, type HealthScope } from './health-scope';
+import { decodeAfter, keysetPage, type Listed, type PageAsk } from './signal-page';
 import type { VersionFacts } from './standard-versions';
 
 interface Candidate {
   id: number;
   ruleSetId: number;
   verdict: string | null;
+  approvedAt: Date;
 }
+const NEWEST = [{ sql: 'approvedAt', isDate: true }, { sql: 'id' }];
 interface Detail {
   id: number;
   calcId: number;
@@ -42,13 +45,14 @@ export async function verdictFlips(
   sequelize: Sequelize,
   scope: HealthScope,
   versions: Map<number, VersionFacts>,
-): Promise<SignalRow[]> {
+  ask: PageAsk,
+): Promise<Listed> {
   const outdated = [...versions.values()].filter((v) => v.currentId !== null);
-  if (outdated.length === 0) return [];
+  if (outdated.length === 0) return { rows: [], total: 0, next: null };
   const { from, project } = coverFrom(scope, 'revisions_approved_cover');
   // Read from the covering index: ids, versions and verdicts only.
   const candidates = await sequelize.query<Candidate>(
-    `SELECT r.id, r.rule_set_id AS ruleSetId, r.verdict ${from}
+    `SELECT r.id, r.rule_set_id AS ruleSetId, r.verdict, r.approved_at AS approvedAt ${from}
      WHERE r.approved_at >= ? AND r.approved_at < ? AND r.status = 'approved' AND r.rule_set_id IN (?)${project.sql}
      ORDER BY r.approved_at DESC, r.id DESC`,
     { replacements: [scope.start, scope.end, outdated.map((v) => v.id), ...project.values], type: QueryTypes.SELECT },
@@ -60,18 +64,20 @@ export async function verdictFlips(
     versions,
     keyOf,
   );
-  const flipped = candidates.filter((c) => verdictCache.get(keyOf(c)) !== (c.verdict ?? 'none')).slice(0, ROW_CAP + 1);
-  if (flipped.length === 0) return [];
+  const flipped = candidates.filter((c) => verdictCache.get(keyOf(c)) !== (c.verdict ?? 'none'));
+  const rest = flipped.filter(afterIn(ask));
+  const page = keysetPage(rest, ask, (c) => [new Date(c.approvedAt).toISOString(), c.id]);
+  if (page.rows.length === 0) return { rows: [], total: 0, next: null };
   const details = new Map(
     (
       await sequelize.query<Detail>(
         `SELECT r.id, r.calc_id AS calcId, r.label, r.approved_at AS approvedAt, c.number, p.code, r.outcome
      FROM revisions r JOIN calcs c ON c.id = r.calc_id JOIN projects p ON p.id = c.project_id WHERE r.id IN (?)`,
-        { replacements: [flipped.map((c) => c.id)], type: QueryTypes.SELECT },
+        { replacements: [page.rows.map((c) => c.id)], type: QueryTypes.SELECT },
       )
     ).map((d) => [d.id, d]),
   );
-  return flipped.map((c) => {
+  const rows = page.rows.map((c): SignalRow => {
     const d = details.get(c.id)!;
     const v = versions.get(c.ruleSetId)!;
     const now = versions.get(v.currentId!)!;
@@ -91,6 +97,18 @@ export async function verdictFlips(
       ],
     };
   });
+  return { rows, total: rest.length, next: page.next };
+}
+
+/** Candidates after the cursor, as the keyset condition would pick them in SQL (newest first). */
+function afterIn(ask: PageAsk): (c: Candidate) => boolean {
+  if (!ask.after) return () => true;
+  const [at, id] = decodeAfter(ask.after, NEWEST);
+  const time = Date.parse(String(at));
+  return (c) => {
+    const t = new Date(c.approvedAt).getTime();
+    return t < time || (t === time && c.id < Number(id));
+  };
 }
 
 /**

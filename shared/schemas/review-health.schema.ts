@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { decimalId } from './common.schema';
+import { cursorSchema, decimalId } from './common.schema';
 
 /** Organisation thresholds of the review-health signals, as the settings form names them. */
 export const HEALTH_SETTING_FIELDS = {
@@ -42,19 +42,42 @@ export interface HealthSettingsDto extends HealthSettings {
 const day = (label: string) => z.iso.date({ error: `${label}: must be a date (YYYY-MM-DD)` });
 export const MAX_PERIOD_DAYS = 3660;
 
+const periodFields = {
+  projectId: decimalId('a project').optional(),
+  from: day('From'),
+  to: day('To'),
+};
+type Period = { from: string; to: string };
+const periodRules = <T extends z.ZodType<Period>>(schema: T) =>
+  schema
+    .refine((q) => q.from <= q.to, { message: 'From: must not be after To', path: ['from'] })
+    .refine((q) => Date.parse(q.to) - Date.parse(q.from) <= MAX_PERIOD_DAYS * 86_400_000, {
+      message: `To: the period may span at most ${MAX_PERIOD_DAYS} days`,
+      path: ['to'],
+    });
+
 /** One project (or all) and a period of UTC days, both ends included. */
-export const healthQuerySchema = z
-  .object({
-    projectId: decimalId('a project').optional(),
-    from: day('From'),
-    to: day('To'),
-  })
-  .refine((q) => q.from <= q.to, { message: 'From: must not be after To', path: ['from'] })
-  .refine((q) => Date.parse(q.to) - Date.parse(q.from) <= MAX_PERIOD_DAYS * 86_400_000, {
-    message: `To: the period may span at most ${MAX_PERIOD_DAYS} days`,
-    path: ['to'],
-  });
+export const healthQuerySchema = periodRules(z.object(periodFields));
 export type HealthQuery = z.infer<typeof healthQuerySchema>;
+
+/** Rows of each signal in the report; the screen asks for the next pages one signal at a time. */
+export const SIGNAL_PAGE = 25;
+export const SIGNAL_PAGE_MAX = 100;
+
+/** The next page of one signal's rows: the report's period and project, and the `next` cursor it gave. */
+export const signalPageQuerySchema = periodRules(
+  z.object({
+    ...periodFields,
+    after: cursorSchema,
+    size: z.coerce
+      .number({ error: `must be a whole number from 1 to ${SIGNAL_PAGE_MAX}` })
+      .int(`must be a whole number from 1 to ${SIGNAL_PAGE_MAX}`)
+      .min(1, `must be a whole number from 1 to ${SIGNAL_PAGE_MAX}`)
+      .max(SIGNAL_PAGE_MAX, `must be a whole number from 1 to ${SIGNAL_PAGE_MAX}`)
+      .default(SIGNAL_PAGE),
+  }),
+);
+export type SignalPageQuery = z.infer<typeof signalPageQuerySchema>;
 
 export const SIGNAL_KEYS = [
   'quick-check',
@@ -66,6 +89,17 @@ export const SIGNAL_KEYS = [
   'verdict-flip',
 ] as const;
 export type SignalKey = (typeof SIGNAL_KEYS)[number];
+export const signalKeyParamsSchema = z.object({
+  key: z.enum(SIGNAL_KEYS, { error: `must be one of ${SIGNAL_KEYS.join(', ')}` }),
+});
+
+/** A page of one signal's rows: `total` counts them all (from the cursor on), `next` continues the list. */
+export interface SignalPage {
+  key: SignalKey;
+  rows: SignalRow[];
+  total: number;
+  next: string | null;
+}
 
 /** A link to the audit trail, as the audit screen's own filters (query parameters of /audit). */
 export interface AuditLink {
@@ -105,8 +139,8 @@ export interface HealthReport {
   to: string;
   project: { id: number; code: string } | null;
   settings: HealthSettings;
-  /** Each signal's rows; `more` when there were more than the screen shows (500). */
-  signals: { key: SignalKey; rows: SignalRow[]; more: boolean }[];
+  /** Each signal's first page (SIGNAL_PAGE rows; every row in the CSV export), its total and the next cursor. */
+  signals: SignalPage[];
   checkerRates: FindingRate[];
   /** On screen: the pairs that matter (see PAIR_RATES_LISTED); in the CSV export: every pair. */
   pairRates: FindingRate[];

@@ -20,6 +20,19 @@ async function nextCursor(url: string): Promise<string> {
   return res.body.next;
 }
 
+const day = (offset: number) => new Date(Date.now() - offset * 86_400_000).toISOString().slice(0, 10);
+const TEN_YEARS = `from=${day(3650)}&to=${day(0)}`;
+const cursor = (values: unknown[]) => Buffer.from(JSON.stringify(values)).toString('base64url');
+const LATE = new Date().toISOString();
+/** Each signal list paged in SQL, with a cursor as its previous page would give it. */
+const HEALTH_PAGES: [string, unknown[]][] = [
+  ['quick-check', [30, 1]],
+  ['refusals', [2, LATE, 1, '1']],
+  ['attachments-after-check', [LATE, 1_000_000]],
+  ['replaced-standard', [LATE, 1_000_000]],
+  ['verdict-flip', [LATE, 1_000_000]],
+];
+
 const LISTS: [string, () => Promise<string>][] = [
   ['calc list of a project, newest first', async () => `/api/calcs?projectId=${seeded.projectId}&size=50`],
   [
@@ -56,6 +69,12 @@ const LISTS: [string, () => Promise<string>][] = [
       `/api/audit?projectId=${seeded.projectId}&size=50&after=${await nextCursor(`/api/audit?projectId=${seeded.projectId}&size=50`)}`,
   ],
   ['a calc with its revision history', async () => `/api/calcs/${seeded.calcId}`],
+  ['review-health report, all projects over ten years', async () => `/api/review-health?${TEN_YEARS}`],
+  ['review-health report, one project', async () => `/api/review-health?projectId=${seeded.projectId}&${TEN_YEARS}`],
+  ...HEALTH_PAGES.map(([key, after]): [string, () => Promise<string>] => [
+    `review-health ${key} list, a later page by keyset`,
+    async () => `/api/review-health/signals/${key}?${TEN_YEARS}&size=25&after=${cursor(after)}`,
+  ]),
 ];
 
 describe('every list query is served by an index', () => {

@@ -4,6 +4,8 @@ import { firstValueFrom } from 'rxjs';
 import type {
   HealthReport,
   HealthSettingsDto,
+  SignalKey,
+  SignalPage,
   UpdateHealthSettings,
 } from '../../../../shared/schemas/review-health.schema';
 
@@ -29,6 +31,13 @@ export class ReviewHealthApi {
       const p = params();
       return p ? { url: '/api/review-health', params: healthQuery(p) } : undefined;
     });
+  }
+
+  /** The page of one signal's rows after `after` (the `next` of the page before), for the same project and period. */
+  signalPage(key: SignalKey, p: HealthParams, after: string): Promise<SignalPage> {
+    return firstValueFrom(
+      this.http.get<SignalPage>(`/api/review-health/signals/${key}`, { params: { ...healthQuery(p), after } }),
+    );
   }
 
   settings() {

@@ -96,7 +96,7 @@ export default class ReviewHealthPage {
   protected readonly csvLink = computed(() => (this.params() ? this.api.csvLink(this.params()!) : null));
   protected readonly canEditSettings = computed(() => this.ability.can('update', 'HealthSettings'));
   protected readonly observations = computed(() =>
-    this.report.hasValue() ? this.report.value().signals.reduce((n, s) => n + s.rows.length, 0) : 0,
+    this.report.hasValue() ? this.report.value().signals.reduce((n, s) => n + s.total, 0) : 0,
   );
   protected readonly caution = HEALTH_CAUTION;
 

@@ -1,19 +1,22 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { RouterLink } from '@angular/router';
+import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import type { SignalKey, SignalRow } from '../../../../shared/schemas/review-health.schema';
+import type { SignalPage } from '../../../../shared/schemas/review-health.schema';
 import { SIGNAL_TEXTS } from '../../../../shared/review-health/signal-texts';
+import { assertApiFailure } from '../../core/http/api-failure';
+import { ReviewHealthApi, type HealthParams } from './review-health-api';
 
 /** One signal: what it observes, what it cannot tell, and its rows with links to the trail behind them. */
 @Component({
   selector: 'tt-signal-section',
-  imports: [DatePipe, RouterLink, MatIconModule],
+  imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule],
   template: `
-    <section class="signal" [attr.aria-labelledby]="'signal-' + key()">
+    <section class="signal" [attr.aria-labelledby]="'signal-' + key()" [attr.aria-busy]="isLoading()">
       <header>
         <h2 [id]="'signal-' + key()">{{ text().title }}</h2>
-        <span class="count" [class.none]="rows().length === 0">{{ countText() }}</span>
+        <span class="count" [class.none]="page().total === 0">{{ countText() }}</span>
       </header>
       <p class="meaning">{{ text().meaning }}</p>
       <p class="limits">
@@ -49,10 +52,18 @@ import { SIGNAL_TEXTS } from '../../../../shared/review-health/signal-texts';
             </li>
           }
         </ul>
-        @if (more()) {
-          <p class="tt-muted">
-            Only the first {{ rows().length }} are listed; narrow the period or choose a project, or export the CSV.
-          </p>
+        @if (next() || problem()) {
+          <div class="more">
+            <span class="tt-muted" role="status">{{ shownText() }}</span>
+            @if (next()) {
+              <button mat-stroked-button type="button" (click)="showMore()" [disabled]="isLoading()">
+                Show {{ nextSize() }} more
+              </button>
+            }
+            @if (problem(); as m) {
+              <span class="error" role="alert">{{ m }}</span>
+            }
+          </div>
         }
       }
     </section>
@@ -61,11 +72,47 @@ import { SIGNAL_TEXTS } from '../../../../shared/review-health/signal-texts';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SignalSection {
-  readonly key = input.required<SignalKey>();
-  readonly rows = input.required<SignalRow[]>();
-  readonly more = input(false);
+  private readonly api = inject(ReviewHealthApi);
+  /** The signal's first page, as the report carries it. */
+  readonly page = input.required<SignalPage>();
+  /** The project and period the report was read for; later pages are asked for the same. */
+  readonly params = input.required<HealthParams>();
+  protected readonly key = computed(() => this.page().key);
   protected readonly text = computed(() => SIGNAL_TEXTS[this.key()]);
-  protected readonly countText = computed(() =>
-    this.rows().length === 1 ? '1 observation' : `${this.rows().length} observations`,
+  /** The rows shown so far and where the list continues; a new report starts them again. */
+  protected readonly rows = linkedSignal(() => this.page().rows);
+  protected readonly next = linkedSignal(() => this.page().next);
+  protected readonly isLoading = signal(false);
+  protected readonly problem = linkedSignal<SignalPage, string | null>({ source: this.page, computation: () => null });
+  protected readonly countText = computed(() => {
+    const n = this.page().total;
+    return `${n.toLocaleString('en-GB')} observation${n === 1 ? '' : 's'}`;
+  });
+  protected readonly shownText = computed(
+    () =>
+      `${this.rows().length.toLocaleString('en-GB')} of ${this.page().total.toLocaleString('en-GB')} shown; ` +
+      'the CSV export has every one.',
   );
+  protected readonly nextSize = computed(() =>
+    Math.min(this.page().rows.length, this.page().total - this.rows().length),
+  );
+
+  protected async showMore(): Promise<void> {
+    const after = this.next();
+    if (!after || this.isLoading()) return;
+    this.isLoading.set(true);
+    this.problem.set(null);
+    const page = this.page();
+    try {
+      const more = await this.api.signalPage(page.key, this.params(), after);
+      if (this.page() !== page) return; // a new report arrived meanwhile
+      this.rows.update((rows) => [...rows, ...more.rows]);
+      this.next.set(more.next);
+    } catch (error) {
+      assertApiFailure(error);
+      this.problem.set(`The next rows could not be read: ${error.lines().join('; ')}`);
+    } finally {
+      this.isLoading.set(false);
+    }
+  }
 }

@@ -1,0 +1,54 @@
+import type { Page } from 'playwright-core';
+import path from 'node:path';
+import { startBrowserSession, accessibilityViolations, SCREENSHOT_DIR } from '../support/browser';
+import { TEST_PASSWORD, createTestUser } from '../support/api-harness';
+import { testStandard } from '../support/calc-harness';
+
+// The standards view's "How calcs are checked" at 1440, 768 and 390 px: screenshots to look at
+// (artifacts/screenshots/standard-checking-*), no sideways page scroll, axe-core with no serious or critical violation.
+jest.setTimeout(600_000);
+let session: Awaited<ReturnType<typeof startBrowserSession>>;
+beforeAll(async () => {
+  session = await startBrowserSession();
+});
+afterAll(async () => {
+  await session?.close();
+});
+
+async function signIn(page: Page, username: string) {
+  await session.context.clearCookies();
+  await page.goto('/sign-in');
+  await page.getByLabel('Username').fill(username);
+  await page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: /Good to see you/ }).waitFor();
+}
+
+it('when a reader opens a standard that asks for an independent model, then its methods tab says how calcs are checked, at three widths', async () => {
+  const standard = await testStandard((doc) => {
+    doc['verification'] = {
+      method: 'independent-model',
+      scope: { kind: 'torque-at-least', value: 500 },
+      tolerances: { inputs: 0.001, results: 0.02 },
+      origin: 'house choice, after the design-verification practice of alternate calculations',
+    };
+  });
+  const page = await session.context.newPage();
+  const user = await createTestUser(['author'], 'e2e-checking');
+  await signIn(page, user.username);
+  await page.goto(`/rule-sets/${standard.id}`);
+  await page.getByRole('tab', { name: 'Methods and manual items' }).click();
+  await page.getByRole('heading', { name: 'How calcs are checked' }).waitFor();
+  const problems: string[] = [];
+  for (const width of [1440, 768, 390]) {
+    await page.setViewportSize({ width, height: 900 });
+    await page.getByText('Independent model required for calcs with largest external torque ≥ 500 N·m').waitFor();
+    const sideways = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    if (sideways > 1) problems.push(`@${width}: page scrolls sideways by ${sideways}px`);
+    await page.getByRole('heading', { name: 'How calcs are checked' }).scrollIntoViewIfNeeded();
+    await page.screenshot({ path: path.join(SCREENSHOT_DIR, `standard-checking-${width}.png`) });
+    problems.push(...(await accessibilityViolations(page)).map((v) => `@${width}: ${v}`));
+  }
+  expect(problems).toEqual([]);
+  await page.close();
+});

@@ -1,0 +1,91 @@
+import type { Sequelize } from 'sequelize';
+import type { Express } from 'express';
+import {
+  SIGNAL_PAGE,
+  type HealthReport,
+  type SignalKey,
+  type SignalPage,
+} from '../../shared/schemas/review-health.schema';
+import { startTestApp } from '../support/api-harness';
+import { daysAgo, healthScenario, today } from '../support/health-harness';
+import { person, type Session } from '../support/calc-harness';
+
+let app: Express;
+let sequelize: Sequelize;
+let scenario: Awaited<ReturnType<typeof healthScenario>>;
+let compliance: Session;
+let report: HealthReport;
+
+const period = () => `projectId=${scenario.project.id}&from=${daysAgo(90)}&to=${today()}`;
+const signalOf = (key: SignalKey) => report.signals.find((s) => s.key === key)!;
+
+/** Every row of one signal, read one page of `size` at a time by following `next`. */
+async function allPages(key: SignalKey, size: number): Promise<SignalPage[]> {
+  const pages: SignalPage[] = [];
+  let after = '';
+  do {
+    const res = await compliance.get(
+      `/api/review-health/signals/${key}?${period()}&size=${size}${after ? `&after=${after}` : ''}`,
+    );
+    expect(res.status).toBe(200);
+    pages.push(res.body);
+    after = res.body.next ?? '';
+  } while (after && pages.length < 20);
+  return pages;
+}
+
+beforeAll(async () => {
+  ({ app, sequelize } = startTestApp());
+  compliance = (await person(app, ['compliance'], 'rh-pages')).session;
+  scenario = await healthScenario(app);
+  const res = await compliance.get(`/api/review-health?${period()}`);
+  expect(res.status).toBe(200);
+  report = res.body;
+});
+afterAll(() => sequelize.close());
+
+describe('each signal list is paged on its own', () => {
+  it('when the report is read, then each signal carries its total, its first page and no cursor when that is all', () => {
+    for (const s of report.signals) {
+      expect(s.rows.length).toBe(Math.min(s.total, SIGNAL_PAGE));
+      expect(s.next).toBeNull();
+    }
+    expect(signalOf('verdict-flip').total).toBe(Object.keys(scenario.calcs).length);
+  });
+
+  it.each<SignalKey>(['verdict-flip', 'refusals', 'no-findings'])(
+    'when the %s list is read one row at a time, then the pages hold the report’s rows in its order, once each',
+    async (key) => {
+      const pages = await allPages(key, 1);
+      expect(pages.flatMap((p) => p.rows)).toEqual(signalOf(key).rows);
+      expect(pages[0].total).toBe(signalOf(key).total);
+      expect(pages.at(-1)!.next).toBeNull();
+    },
+  );
+});
+
+describe('bad page requests', () => {
+  it.each([
+    ['quick-check', 'size=0', 'query.size', 'must be a whole number from 1 to 100'],
+    ['quick-check', 'size=many', 'query.size', 'must be a whole number from 1 to 100'],
+    ['refusals', 'after=bm90LWEtY3Vyc29y', 'after', 'is not a page cursor of this list'],
+    ['verdict-flip', `after=${Buffer.from('["yesterday",3]').toString('base64url')}`, 'after', 'is not a page cursor'],
+    ['no-findings', `after=${Buffer.from('[-4]').toString('base64url')}`, 'after', 'is not a page cursor'],
+    ['everything', '', 'params.key', 'must be one of quick-check'],
+  ])('when the %s list is asked with %s, then 400 naming %s', async (key, q, field, message) => {
+    const res = await compliance.get(`/api/review-health/signals/${key}?${period()}&${q}`);
+    expect(res.status).toBe(400);
+    expect(res.body.fieldErrors[field][0]).toContain(message);
+  });
+
+  it('when the period is wrong, then 400 naming From, as for the report', async () => {
+    const res = await compliance.get('/api/review-health/signals/refusals?from=2026-12-02&to=2026-12-01');
+    expect(res.status).toBe(400);
+    expect(res.body.fieldErrors['query.from'][0]).toBe('From: must not be after To');
+  });
+
+  it('when someone without compliance reads a page, then 403', async () => {
+    const author = await person(app, ['author'], 'rh-pages-author');
+    expect((await author.session.get(`/api/review-health/signals/refusals?${period()}`)).status).toBe(403);
+  });
+});

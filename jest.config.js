@@ -23,6 +23,10 @@ const swc = [
 /** @type {import('jest').Config} */
 module.exports = {
   testTimeout: 180_000,
+  // After its last file a worker gets this long to exit before jest kills it and prints "A worker process has failed
+  // to exit gracefully". jest's 500 ms default is too short on a loaded two-core machine: with nothing left open
+  // (checked per file, DEVELOPERS.md "Tests") workers still missed it there. A real leak still shows, 10 s later.
+  workerGracefulExitTimeout: 10_000,
   // The longest files start first, so no worker runs one alone at the end (see the file).
   testSequencer: '<rootDir>/test/support/test-sequencer.cjs',
   projects: [

@@ -1,5 +1,4 @@
 import { authenticator } from 'otplib';
-import QRCode from 'qrcode';
 import type { Sequelize } from 'sequelize';
 import type { SecondFactorEnrolment, SecondFactorStatus } from '../../shared/schemas/second-factor.schema';
 import { User } from '../db/models';
@@ -62,7 +61,7 @@ export class SecondFactorService {
     const otpauthUrl = authenticator.keyuri(username, 'Torquetrail', secret);
     return {
       secret,
-      enrolment: { otpauthUrl, secret, qrDataUrl: await QRCode.toDataURL(otpauthUrl, { margin: 1, width: 220 }) },
+      enrolment: { otpauthUrl, secret, qrDataUrl: await qrDataUrl(otpauthUrl) },
     };
   }
 
@@ -106,4 +105,10 @@ export class SecondFactorService {
     });
     return this.status(actor.id);
   }
+}
+
+/** The enrolment QR code as a data URL; qrcode is loaded on first enrolment, not with the server (issue 14). */
+async function qrDataUrl(text: string): Promise<string> {
+  const { default: QRCode } = await import('qrcode');
+  return QRCode.toDataURL(text, { margin: 1, width: 220 });
 }

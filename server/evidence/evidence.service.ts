@@ -1,5 +1,4 @@
 import { ForbiddenError } from '@casl/ability';
-import archiver from 'archiver';
 import type { Sequelize } from 'sequelize';
 import type { Writable } from 'node:stream';
 import type { AppAbility } from '../../shared/authz/app-ability';
@@ -66,6 +65,8 @@ export class EvidenceService {
 
 /** Streams the pack as a zip; every entry is already in memory, so this cannot fail half-way for data. */
 export async function writeZip(files: Map<string, Buffer>, out: Writable): Promise<void> {
+  // Loaded on first export, not with the server (issue 14: every process and test app paid for it at start).
+  const { default: archiver } = await import('archiver');
   const zip = archiver('zip', { zlib: { level: 6 } });
   const done = new Promise<void>((resolve, reject) => {
     out.on('finish', resolve);

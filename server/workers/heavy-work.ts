@@ -7,7 +7,7 @@ import {
   type Manifest,
   type PackRecord,
 } from '../evidence/pack-verify';
-import { renderReport } from '../reports/report.service';
+import { renderReport } from '../reports/render-report';
 import type { ReportData } from '../reports/report-data';
 import type { PackCheck } from '../../shared/schemas/verify.schema';
 import { AppError } from '../errors/app-error';

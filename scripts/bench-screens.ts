@@ -9,6 +9,8 @@ import { Calc, Project } from '../server/db/models';
 import { DEMO_PASSWORD } from '../server/db/demo-data';
 
 const RUNS = Number(process.env.BENCH_SCREEN_RUNS ?? 3);
+/** BENCH_SCREENS="editor,calc page" measures only the named screens (all by default). */
+const ONLY = process.env.BENCH_SCREENS?.split(',').map((s) => s.trim());
 
 /*
  * "Usable" is measured, per screen, as: its main content and (where it has one) the verdict are on screen, and it
@@ -136,7 +138,7 @@ async function visit(page: Page, s: Screen) {
 }
 
 async function main(): Promise<void> {
-  const list = await screens();
+  const list = (await screens()).filter((s) => !ONLY || ONLY.includes(s.name));
   const { url, child } = await startServer({ LOG_LEVEL: 'silent', MAIL_SENDER: 'false' });
   const browser = await chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',

@@ -67,8 +67,12 @@ export function configureEditorTestBed(): void {
   });
 }
 
-/** Opens the editor on `stored`; `settle()` lets effects and promises run, then waits until stable. */
-export async function openEditor(stored: RevisionDto) {
+/**
+ * Opens the editor on `stored`; `settle()` lets effects and promises run, then waits until stable. The panels
+ * below the segments are built in turn after the first render (PanelPacer): it waits for them unless `hold`, which
+ * a spec gives with PANEL_PACING 'hold' to see the editor before they are built.
+ */
+export async function openEditor(stored: RevisionDto, opts: { hold?: boolean } = {}) {
   const fixture: ComponentFixture<RevisionEditor> = TestBed.createComponent(RevisionEditor);
   fixture.componentRef.setInput('id', stored.id);
   const http = TestBed.inject(HttpTestingController);
@@ -88,5 +92,12 @@ export async function openEditor(stored: RevisionDto) {
   await turn();
   http.expectOne(`/api/calcs/${stored.calcId}`).flush({ number: 'CV-7', title: 'Countershaft' });
   await settle();
+  if (!opts.hold) await panelsBuilt(fixture.nativeElement as HTMLElement, settle);
   return { fixture, http, loader, settle };
+}
+
+/** Settles until no panel of the editor waits to be built (each is built in its own turn). */
+export async function panelsBuilt(root: HTMLElement, settle: () => Promise<void>): Promise<void> {
+  for (let turns = 0; turns < 40 && root.querySelector('tt-panel-placeholder, .plots-wait'); turns++) await settle();
+  await settle();
 }

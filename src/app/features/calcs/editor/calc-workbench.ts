@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, input, output } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output } from '@angular/core';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import type { UnitSystem } from '../../../../../shared/engine';
 import type { Checklist, RuleSet } from '../../../../../shared/rules';
@@ -25,6 +25,9 @@ import { LiveResults } from './live-results';
 import { LiveDetails } from './live-details';
 import { VerdictStrip, type StoredChecklist } from './verdict-strip';
 import { InputFindings } from './input-findings';
+import { PanelPacer } from './panel-pacer';
+import { PanelPlaceholder } from './panel-placeholder';
+import { placeholderHeights } from './placeholder-heights';
 
 /**
  * The calc editor's inputs beside their live results, plots and checklist, for a form its page owns: the
@@ -48,7 +51,9 @@ import { InputFindings } from './input-findings';
     LiveDetails,
     VerdictStrip,
     InputFindings,
+    PanelPlaceholder,
   ],
+  providers: [PanelPacer],
   templateUrl: './calc-workbench.html',
   styleUrl: './calc-workbench.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -70,9 +75,12 @@ export class CalcWorkbench {
   /** A whole new form value: the entered values converted to the other unit system. */
   readonly replace = output<EditorValue>();
   private lastConversion: Conversion | null = null;
+  protected readonly pacer = inject(PanelPacer);
 
   protected readonly calcInput = computed(() => valueToInput(this.value()));
   protected readonly live = liveCalc(this.calcInput, this.ruleSet);
+  /** Room kept for each panel not yet built, from its number of rows, so nothing below it jumps. */
+  protected readonly heights = computed(() => placeholderHeights(this.form()));
   protected readonly issueMap = computed(() => toIssueMap(this.live.issues()));
   protected readonly criterionName = computed(() => this.ruleSet()?.methods.fatigueCriterion ?? 'DE-Goodman');
   protected readonly criterion = computed(() => CRITERION_KEYS[this.criterionName()] ?? 'goodman');

@@ -15,13 +15,15 @@ export function debouncedValue(
 ): Signal<EditorValue> {
   return toSignal(
     toObservable(form).pipe(
+      // A new form (load, restore, unit change) counts at once: waiting out the typing pause would first show the
+      // results and red fields of the value it replaced, then build them all again for its own.
       switchMap((f) =>
         f.valueChanges.pipe(
-          startWith(null),
           map(() => f.getRawValue()),
+          debounceMs > 0 ? debounceTime(debounceMs) : identity,
+          startWith(f.getRawValue()),
         ),
       ),
-      debounceMs > 0 ? debounceTime(debounceMs) : identity,
     ),
     { initialValue },
   );

@@ -8,6 +8,7 @@ import type { Evaluated } from './live-calc';
 import { PlotsPanel } from './plots-panel';
 import { NO_LIMITS, type PlotLimits } from './plot-limits';
 import { ResultSummary } from './result-summary';
+import { PanelPacer } from './panel-pacer';
 import type { CriterionKey } from './result-format';
 
 /** What is computed live from the input and read at a glance: issues, key figures and the plots. */
@@ -20,6 +21,9 @@ import type { CriterionKey } from './result-format';
 })
 export class LiveResults {
   private readonly document = inject(DOCUMENT);
+  private readonly pacer = inject(PanelPacer, { optional: true });
+  /** The plots are built in their turn after the fields (or when scrolled to), see PanelPacer. */
+  protected readonly plotsTurn = computed(() => this.pacer?.reached(8) ?? true);
 
   readonly issues = input.required<readonly CalcIssue[]>();
   readonly evaluated = input.required<Evaluated | null>();
@@ -42,8 +46,10 @@ export class LiveResults {
   );
 
   /** Takes the author to the field an issue names, where the same message is shown. */
-  protected focusField(path: string): void {
-    const el = this.document.querySelector<HTMLElement>(`[data-path="${CSS.escape(path)}"]`);
+  protected async focusField(path: string): Promise<void> {
+    const selector = `[data-path=${JSON.stringify(path)}]`;
+    // A field of a panel not built yet: build the panels, then go to it.
+    const el = this.document.querySelector<HTMLElement>(selector) ?? (await this.pacer?.reveal(selector)) ?? null;
     el?.focus();
     el?.scrollIntoView({ block: 'center' });
   }

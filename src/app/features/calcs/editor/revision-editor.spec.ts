@@ -17,6 +17,7 @@ import { evaluateShaft, formatNumber } from '../../../../../shared/engine';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import ruleSetDocument from '../../../../../rules/kfd-eng-014-v3.json';
 import RevisionEditor from './revision-editor';
+import { panelsBuilt } from '../../../../../test/support/editor-harness';
 import { EDITOR_DEBOUNCE_MS } from './editor-support';
 
 // An invented two-step head shaft with a keyseat: small enough to read, complete enough to evaluate.
@@ -97,6 +98,7 @@ async function open(stored = revision()): Promise<void> {
   await turn();
   http.expectOne('/api/calcs/3').flush({ number: 'CV-7', title: 'Head shaft' });
   await settle();
+  await panelsBuilt(fixture.nativeElement as HTMLElement, settle);
 }
 
 async function cell(column: string, row = 0): Promise<string> {

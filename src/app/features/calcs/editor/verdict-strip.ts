@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, DOCUMENT, computed, inject, input } from '@angular/core';
 import type { Checklist, ChecklistRow } from '../../../../../shared/rules';
 import type { ChecklistState } from './live-calc';
+import { PanelPacer } from './panel-pacer';
 
 /** The checklist stored with the revision, shown until the live one (same input, same engine) is ready. */
 export interface StoredChecklist {
@@ -131,6 +132,7 @@ interface Failing {
 })
 export class VerdictStrip {
   private readonly document = inject(DOCUMENT);
+  private readonly pacer = inject(PanelPacer, { optional: true });
   readonly state = input.required<ChecklistState | StoredChecklist>();
 
   protected readonly failing = computed((): Failing[] => {
@@ -144,8 +146,10 @@ export class VerdictStrip {
   protected readonly mandatory = computed(() => this.failing().filter((f) => !f.advisory));
   protected readonly advisory = computed(() => this.failing().filter((f) => f.advisory));
 
-  protected toChecklist(): void {
-    this.document.getElementById('checklist-h')?.scrollIntoView({ block: 'start' });
+  protected async toChecklist(): Promise<void> {
+    // The checklist is built after the fields; asked for, it is built now.
+    const heading = this.document.getElementById('checklist-h') ?? (await this.pacer?.reveal('#checklist-h'));
+    heading?.scrollIntoView({ block: 'start' });
   }
 }
 

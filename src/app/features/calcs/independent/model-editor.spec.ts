@@ -7,6 +7,7 @@ import { createAppAbility, defineRulesFor } from '../../../../../shared/authz/ap
 import { errorInterceptor } from '../../../core/http/error-interceptor';
 import { SessionStore } from '../../../core/auth/session-store';
 import { EDITOR_DEBOUNCE_MS } from '../editor/editor-support';
+import { panelsBuilt } from '../../../../../test/support/editor-harness';
 import ModelEditor from './model-editor';
 
 const CHECKER = { id: 2, username: 'tokafor', displayName: 'Tobias Okafor', roles: ['checker'] };
@@ -90,6 +91,7 @@ async function open(model: typeof MODEL | null): Promise<void> {
     .match('/api/revisions/7/attachments')
     .forEach((r) => r.flush({ items: [], canAdd: true, maxBytes: 1, acceptedTypes: [] }));
   await turn();
+  await panelsBuilt(fixture.nativeElement as HTMLElement, turn);
 }
 
 const field = (path: string) =>

@@ -18,7 +18,6 @@ import type { UnitSystem } from '../../../../../shared/engine';
 import { ruleSetSchema } from '../../../../../shared/rules';
 import { SessionStore } from '../../../core/auth/session-store';
 import { LoadFailure } from '../../../ui/load-failure';
-import { SafetyNote } from '../../../ui/safety-note';
 import { StateBadge } from '../../../ui/state-badge';
 import { CalcsApi } from '../calcs-api';
 import { planActions } from '../calc-page/revision-actions';
@@ -47,7 +46,6 @@ const EMPTY = inputToValue({});
     MatIconModule,
     MatProgressBarModule,
     LoadFailure,
-    SafetyNote,
     StateBadge,
     CalcWorkbench,
     SourceDocuments,

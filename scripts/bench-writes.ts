@@ -24,6 +24,7 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number):
   );
   const sessions = await Promise.all(drafts.map((d) => signIn(url, d.username, BENCH_PASSWORD)));
   const latencies: number[] = [];
+  const phases = new Map<string, number[]>();
   let failures = 0;
   const until = performance.now() + seconds * 1000;
   await Promise.all(
@@ -42,9 +43,11 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number):
         const body = (await res.json()) as { lockVersion?: number };
         if (res.status === 200 && body.lockVersion != null) {
           latencies.push(performance.now() - t0);
+          collectPhases(phases, res.headers.get('server-timing'));
           lockVersion = body.lockVersion;
         } else {
-          failures++;
+          // The first refusal says why (a 409 from an earlier run's lock version, a 503 …); the rest are counted.
+          if (failures++ === 0) console.log(`  first refused: ${res.status} ${JSON.stringify(body).slice(0, 200)}`);
         }
       }
     }),
@@ -54,6 +57,25 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number):
   );
   console.log(line('PUT /api/revisions/:id', figuresOf(latencies, seconds, failures)));
   console.log('  target: ≥ 150 saves/s with p95 ≤ 150 ms');
+  printPhases(phases);
+}
+
+/** Adds each phase of a save's Server-Timing header (lock, engine, digest, write, audit, commit, answer …). */
+function collectPhases(into: Map<string, number[]>, header: string | null): void {
+  for (const part of (header ?? '').split(', ')) {
+    const [name, dur] = part.split(';dur=');
+    if (name && dur) into.set(name, [...(into.get(name) ?? []), Number(dur)]);
+  }
+}
+
+/** Where a save's time goes: mean and p95 of each phase the server measured (ms, summed per request). */
+function printPhases(phases: Map<string, number[]>): void {
+  const cells = [...phases].map(([name, ms]) => {
+    const f = figuresOf(ms, 1, 0);
+    const mean = ms.reduce((a, b) => a + b, 0) / ms.length;
+    return `${name} ${mean.toFixed(1)}/${f.p95.toFixed(1)}`;
+  });
+  console.log(`  phases, mean/p95 ms: ${cells.join(' · ')}`);
 }
 
 /**

@@ -67,7 +67,7 @@ async function main(): Promise<void> {
       );
     }
     console.log('  targets: p95 ≤ 50 ms each (32 concurrent)');
-    if (!ONLY || ONLY.test('saves')) await saves(server.url, sequelize, SECONDS);
+    if (!ONLY || ONLY.test('saves')) await saves(server.url, sequelize, SECONDS, server.child.pid);
   } finally {
     server.child.kill('SIGTERM');
   }

@@ -7,7 +7,7 @@ import { EDITABLE_STATES } from '../../shared/schemas/revision.schema';
 import { Calc, Project, Revision } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
-import { loadRuleSet } from '../rule-sets/rule-set-cache';
+import { loadRuleSet, parseRuleSet } from '../rule-sets/rule-set-cache';
 import { REVISION_INCLUDE, toCalcDto } from './calc-mapping';
 import { assertCan, attachRuleSet, loadRevision, recordEditor } from './calc-access';
 import { CONTENT_FORMAT, computeRecord } from './revision-content';
@@ -153,7 +153,11 @@ export class CalcsService {
           throw new AppError('conflict', 409, 'This revision was saved elsewhere since you opened it', { current });
         }
         const ruleSetId = dto.ruleSetId ?? revision.ruleSetId;
-        const { record, doc } = await loadRuleSet(ruleSetId, transaction);
+        // The revision's own standard came with it (document and version included): read again only to switch.
+        const { record, doc } =
+          ruleSetId === revision.ruleSetId && revision.ruleSet
+            ? { record: revision.ruleSet, doc: parseRuleSet(revision.ruleSet) }
+            : await loadRuleSet(ruleSetId, transaction);
         if (ruleSetId !== revision.ruleSetId && record.status !== 'effective') {
           throw new AppError('validation', 400, 'Only an effective standard can be chosen', {
             fieldErrors: { ruleSetId: ['is not an effective version'] },

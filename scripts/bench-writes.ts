@@ -1,4 +1,5 @@
 // Write figures of the list benchmark: concurrent saves through the API, and the audit chain head's ceiling.
+import { existsSync, readFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { appendAudit } from '../server/audit/audit.service';
@@ -15,7 +16,7 @@ interface Draft {
 }
 
 /** Twenty authors each save their own draft as fast as the server answers, for `seconds`. */
-export async function saves(url: string, sequelize: Sequelize, seconds: number): Promise<void> {
+export async function saves(url: string, sequelize: Sequelize, seconds: number, serverPid?: number): Promise<void> {
   const drafts = await sequelize.query<Draft>(
     `SELECT u.username, r.id AS revisionId, r.lock_version AS lockVersion, r.input FROM users u
      JOIN calcs c ON c.id = (SELECT c2.id FROM calcs c2 WHERE c2.latest_author_id = u.id AND c2.latest_status = 'draft' ORDER BY c2.id LIMIT 1)
@@ -24,8 +25,10 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number):
   );
   const sessions = await Promise.all(drafts.map((d) => signIn(url, d.username, BENCH_PASSWORD)));
   const latencies: number[] = [];
+  const phases = new Map<string, number[]>();
   let failures = 0;
   const until = performance.now() + seconds * 1000;
+  const cpuBefore = cpuSeconds(serverPid);
   await Promise.all(
     drafts.map(async (draft, w) => {
       const input = JSON.parse(draft.input);
@@ -42,9 +45,11 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number):
         const body = (await res.json()) as { lockVersion?: number };
         if (res.status === 200 && body.lockVersion != null) {
           latencies.push(performance.now() - t0);
+          collectPhases(phases, res.headers.get('server-timing'));
           lockVersion = body.lockVersion;
         } else {
-          failures++;
+          // The first refusal says why (a 409 from an earlier run's lock version, a 503 …); the rest are counted.
+          if (failures++ === 0) console.log(`  first refused: ${res.status} ${JSON.stringify(body).slice(0, 200)}`);
         }
       }
     }),
@@ -54,6 +59,35 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number):
   );
   console.log(line('PUT /api/revisions/:id', figuresOf(latencies, seconds, failures)));
   console.log('  target: ≥ 150 saves/s with p95 ≤ 150 ms');
+  printPhases(phases);
+  // CPU seconds hardly move with other jobs' load, so they compare two versions better than wall-clock figures.
+  const cpu = cpuSeconds(serverPid) - cpuBefore;
+  if (latencies.length) console.log(`  app process CPU per save: ${((cpu * 1000) / latencies.length).toFixed(1)} ms`);
+}
+
+/** User + system CPU seconds of a process so far (Linux /proc), or NaN when unknown. */
+function cpuSeconds(pid?: number): number {
+  if (!pid || !existsSync(`/proc/${pid}/stat`)) return NaN;
+  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+  return (Number(fields[11]) + Number(fields[12])) / 100;
+}
+
+/** Adds each phase of a save's Server-Timing header (lock, engine, digest, write, audit, commit, answer …). */
+function collectPhases(into: Map<string, number[]>, header: string | null): void {
+  for (const part of (header ?? '').split(', ')) {
+    const [name, dur] = part.split(';dur=');
+    if (name && dur) into.set(name, [...(into.get(name) ?? []), Number(dur)]);
+  }
+}
+
+/** Where a save's time goes: mean and p95 of each phase the server measured (ms, summed per request). */
+function printPhases(phases: Map<string, number[]>): void {
+  const cells = [...phases].map(([name, ms]) => {
+    const f = figuresOf(ms, 1, 0);
+    const mean = ms.reduce((a, b) => a + b, 0) / ms.length;
+    return `${name} ${mean.toFixed(1)}/${f.p95.toFixed(1)}`;
+  });
+  console.log(`  phases, mean/p95 ms: ${cells.join(' · ')}`);
 }
 
 /**

@@ -4,6 +4,7 @@ import canonicalize from 'canonicalize';
 import { AuditEvent } from '../db/models';
 import { chainHash, GENESIS_HASH, type ChainedContent } from './audit-chain';
 import { runTransaction } from '../db/transaction';
+import { timed, timeSince } from '../http/server-timing';
 
 export interface Actor {
   id: number | null;
@@ -17,13 +18,19 @@ export interface AuditEntry {
   entityId?: string | number | null;
   payload?: unknown;
   diff?: string | null;
+  /** The calc and project the entry falls under, when the caller already knows them (else looked up). */
+  scope?: { calcId: number | null; projectId: number | null };
 }
 
 /**
- * Appends one event to the hash-chained audit trail. The chain head row is locked for the
- * length of the transaction, so concurrent appends from several app instances line up one
- * behind the other and every row's `prevHash` is the row before it. Pass the caller's
- * transaction so the audit entry commits (or rolls back) with the change it records.
+ * Appends one event to the hash-chained audit trail. The chain head row is locked until the
+ * transaction commits, so concurrent appends from several app instances line up one behind the
+ * other and every row's `prevHash` is the row before it. Pass the caller's transaction so the
+ * audit entry commits (or rolls back) with the change it records, and call this as the last
+ * statement before the commit: everything else (the scope look-up, the canonical JSON) is done
+ * before the lock, and the lock, the hash, the insert and the head's move are one statement
+ * (`audit_append`, migrations/20261231-06-saves-audit-append.ts), so the head is held for one
+ * round trip and the commit.
  */
 export async function appendAudit(
   sequelize: Sequelize,
@@ -32,14 +39,9 @@ export async function appendAudit(
   transaction?: Transaction,
 ): Promise<void> {
   const run = async (t: Transaction) => {
-    // Before the chain head is locked, so the look-up does not lengthen the time every writer waits.
-    const scope = await scopeOf(sequelize, entry, t);
-    const [head] = await sequelize.query<{ last_hash: string; now: Date }>(
-      'SELECT last_hash, UTC_TIMESTAMP(3) AS now FROM audit_chain_head WHERE id = 1 FOR UPDATE',
-      { type: QueryTypes.SELECT, transaction: t },
-    );
-    const content: ChainedContent = {
-      occurredAt: new Date(head.now).toISOString(),
+    const scope = entry.scope ?? (await scopeOf(sequelize, entry, t));
+    const c: ChainedContent = {
+      occurredAt: TIME_MARK,
       actorId: actor.id,
       actorName: actor.name,
       action: entry.action,
@@ -49,18 +51,34 @@ export async function appendAudit(
       diff: entry.diff ?? null,
       ip: actor.ip ?? null,
     };
-    const hash = chainHash(head.last_hash, content);
-    const row = await AuditEvent.create(
-      { ...content, occurredAt: new Date(content.occurredAt), prevHash: head.last_hash, hash, ...scope },
-      { transaction: t },
+    const { before, after } = canonicalHalves(c);
+    const params = [c.actorId, c.actorName, c.action, c.entityType, c.entityId, c.payload, c.diff, c.ip];
+    // `chain`: waiting for the head, then the append; `chain-held`: from the append to the commit that frees it.
+    await timed('chain', () =>
+      sequelize.query('CALL audit_append(?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)', {
+        replacements: [...params, scope.calcId, scope.projectId, before, after],
+        transaction: t,
+      }),
     );
-    await sequelize.query('UPDATE audit_chain_head SET last_id = ?, last_hash = ? WHERE id = 1', {
-      replacements: [row.id, hash],
-      transaction: t,
-    });
+    const since = process.hrtime.bigint();
+    t.afterCommit(() => timeSince('chain-held', since));
   };
   if (transaction) return run(transaction);
   return runTransaction(sequelize, run);
+}
+
+// A stand-in for the time in the canonical JSON; the database puts the time it takes under the lock in its place.
+const TIME_MARK = '0000-00-00T00:00:00.000Z';
+
+/**
+ * The canonical JSON (RFC 8785, as chainHash hashes it) split where the time goes. Keys are sorted and every value
+ * is a string, a number or null, so `"occurredAt":"` occurs once outside a string: quotes inside strings are escaped.
+ */
+function canonicalHalves(content: ChainedContent): { before: string; after: string } {
+  const text = canonicalize(content) ?? '';
+  const key = `"occurredAt":"${TIME_MARK}"`;
+  const at = text.indexOf(key);
+  return { before: text.slice(0, at + 14), after: text.slice(at + key.length - 1) };
 }
 
 const SCOPE_SQL: Record<string, string> = {

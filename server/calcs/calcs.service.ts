@@ -7,7 +7,7 @@ import { EDITABLE_STATES } from '../../shared/schemas/revision.schema';
 import { Calc, Project, Revision } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
-import { loadRuleSet } from '../rule-sets/rule-set-cache';
+import { loadRuleSet, parseRuleSet } from '../rule-sets/rule-set-cache';
 import { REVISION_INCLUDE, toCalcDto } from './calc-mapping';
 import { assertCan, attachRuleSet, loadRevision, recordEditor } from './calc-access';
 import { CONTENT_FORMAT, computeRecord } from './revision-content';
@@ -20,6 +20,7 @@ import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
 import { compactResult, registerEngineMetadata } from './stored-result';
 import { blindRevisionIds } from '../independent/blind-lists';
+import { timed } from '../http/server-timing';
 
 /** Calcs and the content of their revisions. Workflow transitions live in server/workflow. */
 export class CalcsService {
@@ -76,6 +77,7 @@ export class CalcsService {
       });
     }
     const computed = await computeRecord(dto.input, doc);
+    await registerEngineMetadata(this.sequelize);
     const calcId = await runTransaction(this.sequelize, async (transaction) => {
       const calc = await Calc.create(
         { projectId: project.id, number: dto.number, title: dto.title, partRef: dto.partRef, createdBy: actor.id },
@@ -126,15 +128,18 @@ export class CalcsService {
     revisionId: number,
     dto: SaveRevisionRequest,
   ): Promise<RevisionDto> {
+    // Before the transaction: the first call of a process writes on a connection of its own, and inside it
+    // twenty saves holding every pooled connection would each wait for a twenty-first (the pool's time-out).
+    await registerEngineMetadata(this.sequelize);
     await runTransaction(
       this.sequelize,
       async (transaction, attempt) => {
-        const revision = await loadRevision(revisionId, transaction);
+        const revision = await timed('lock', () => loadRevision(revisionId, transaction));
         // A run after a COMMIT whose answer was lost: this exact save is already stored.
         if (attempt > 1 && revision.lockVersion === dto.lockVersion + 1 && revision.input === JSON.stringify(dto.input))
           return;
         // Checked after the replay above (not by loadRevisionForChange): a replayed save answers as the first did.
-        await assertProjectOpen(revision.calcId, transaction);
+        const projectId = await assertProjectOpen(revision.calcId, transaction);
         if (!EDITABLE_STATES.includes(revision.status)) {
           throw new AppError(
             'read_only',
@@ -148,13 +153,17 @@ export class CalcsService {
           throw new AppError('conflict', 409, 'This revision was saved elsewhere since you opened it', { current });
         }
         const ruleSetId = dto.ruleSetId ?? revision.ruleSetId;
-        const { record, doc } = await loadRuleSet(ruleSetId, transaction);
+        // The revision's own standard came with it (document and version included): read again only to switch.
+        const { record, doc } =
+          ruleSetId === revision.ruleSetId && revision.ruleSet
+            ? { record: revision.ruleSet, doc: parseRuleSet(revision.ruleSet) }
+            : await loadRuleSet(ruleSetId, transaction);
         if (ruleSetId !== revision.ruleSetId && record.status !== 'effective') {
           throw new AppError('validation', 400, 'Only an effective standard can be chosen', {
             fieldErrors: { ruleSetId: ['is not an effective version'] },
           });
         }
-        const computed = await computeRecord(dto.input, doc);
+        const computed = await timed('engine', () => computeRecord(dto.input, doc));
         const diff = jsonDiff(
           JSON.parse(revision.input),
           dto.input,
@@ -172,31 +181,34 @@ export class CalcsService {
         if (ruleSetId !== revision.ruleSet?.id) attachRuleSet(revision, record);
         await registerEngineMetadata(this.sequelize);
         revision.contentFormat = CONTENT_FORMAT;
-        revision.contentHash = await currentHashOf(revision, transaction);
-        await revision.save({ transaction });
-        await recordEditor(revision.calcId, actor.id, transaction);
-        await appendAudit(
-          this.sequelize,
-          actor,
-          {
-            action: 'revision.saved',
-            entityType: 'Revision',
-            entityId: revision.id,
-            payload: {
-              calcId: revision.calcId,
-              revision: revision.label,
-              lockVersion: revision.lockVersion,
-              verdict: revision.verdict,
-              ruleSet: `${record.code} v${record.version}`,
+        revision.contentHash = await timed('digest', () => currentHashOf(revision, transaction));
+        await timed('write', () => revision.save({ transaction }));
+        await timed('editor', () => recordEditor(revision.calcId, actor.id, transaction));
+        await timed('audit', () =>
+          appendAudit(
+            this.sequelize,
+            actor,
+            {
+              action: 'revision.saved',
+              entityType: 'Revision',
+              entityId: revision.id,
+              payload: {
+                calcId: revision.calcId,
+                revision: revision.label,
+                lockVersion: revision.lockVersion,
+                verdict: revision.verdict,
+                ruleSet: `${record.code} v${record.version}`,
+              },
+              diff,
+              scope: { calcId: revision.calcId, projectId: projectId ?? null },
             },
-            diff,
-          },
-          transaction,
+            transaction,
+          ),
         );
       },
       { idempotent: true },
     );
-    return readRevision(ability, revisionId);
+    return timed('answer', () => readRevision(ability, revisionId));
   }
 
   async refreshHash(revision: Revision, transaction: Transaction): Promise<void> {

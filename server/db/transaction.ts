@@ -2,6 +2,7 @@ import type { Sequelize, Transaction } from 'sequelize';
 import { AppError } from '../errors/app-error';
 import { logger } from '../logger';
 import { classifyDbError } from './db-errors';
+import { timed } from '../http/server-timing';
 
 export interface TransactionOptions {
   /**
@@ -42,7 +43,7 @@ export async function runTransaction<T>(
       t = await sequelize.transaction();
       const result = await work(t, attempt);
       committing = true;
-      await t.commit();
+      await timed('commit', () => t!.commit());
       return result;
     } catch (err) {
       if (t && !committing) await t.rollback().catch(() => undefined);

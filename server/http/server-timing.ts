@@ -37,3 +37,9 @@ export async function timed<T>(name: string, work: () => Promise<T> | T): Promis
     measured.set(name, (measured.get(name) ?? 0) + Number(process.hrtime.bigint() - start) / 1e6);
   }
 }
+
+/** Adds the time since `start` (process.hrtime.bigint()) to the current answer's Server-Timing under `name`. */
+export function timeSince(name: string, start: bigint): void {
+  const measured = phases.getStore();
+  if (measured) measured.set(name, (measured.get(name) ?? 0) + Number(process.hrtime.bigint() - start) / 1e6);
+}

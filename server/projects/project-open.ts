@@ -8,7 +8,7 @@ import { AppError } from '../errors/app-error';
  * transaction. A plain read, not a locking one: archiving is rare, and a write that commits just
  * before the archive is simply earlier than it.
  */
-export async function assertProjectOpen(calcId: number, transaction?: Transaction): Promise<void> {
+export async function assertProjectOpen(calcId: number, transaction?: Transaction): Promise<number | undefined> {
   const project = await projectOf(calcId, transaction);
   if (project?.status === 'archived') {
     throw new AppError(
@@ -17,6 +17,8 @@ export async function assertProjectOpen(calcId: number, transaction?: Transactio
       `Project ${project.code} is archived: its calcs are read-only. An administrator can reopen the project.`,
     );
   }
+  // The project's id, for a write's audit entry (its scope), so the entry needs no look-up of its own.
+  return project?.id;
 }
 
 export async function isProjectArchived(calcId: number): Promise<boolean> {

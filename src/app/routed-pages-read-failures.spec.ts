@@ -16,8 +16,6 @@ import { ROLES } from '../../shared/authz/roles';
 import { errorInterceptor } from './core/http/error-interceptor';
 import { routes } from './app.routes';
 
-jest.setTimeout(120_000);
-
 /** Pages that read nothing from the API when opened; every other routed page must show its failed reads inline. */
 const NO_READS: Record<string, string> = {
   'sign-in': 'a form; its one call is the sign-in itself',

@@ -7,7 +7,6 @@ import { attachRequiredFiles } from '../support/attachment-harness';
 
 // The whole sign-off without a mouse: every step is reached with Tab (focus visible on arrival) and
 // done with Enter, Space or typing; axe-core runs on each screen on the way.
-jest.setTimeout(600_000);
 let session: Awaited<ReturnType<typeof startBrowserSession>>;
 beforeAll(async () => {
   session = await startBrowserSession();

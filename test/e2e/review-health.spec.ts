@@ -8,7 +8,6 @@ import { healthScenario } from '../support/health-harness';
 // The review-health screen at 1440, 768 and 390 px over constructed signals: screenshots to look at
 // (artifacts/screenshots/review-health-*), no sideways page scroll, axe-core with no serious or critical
 // violation, an inline error for a threshold out of range, and a signal's evidence link landing on the audit list.
-jest.setTimeout(600_000);
 let session: Awaited<ReturnType<typeof startBrowserSession>>;
 let scenario: Awaited<ReturnType<typeof healthScenario>>;
 beforeAll(async () => {

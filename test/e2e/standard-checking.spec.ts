@@ -6,7 +6,6 @@ import { testStandard } from '../support/calc-harness';
 
 // The standards view's "How calcs are checked" at 1440, 768 and 390 px: screenshots to look at
 // (artifacts/screenshots/standard-checking-*), no sideways page scroll, axe-core with no serious or critical violation.
-jest.setTimeout(600_000);
 let session: Awaited<ReturnType<typeof startBrowserSession>>;
 beforeAll(async () => {
   session = await startBrowserSession();

@@ -5,7 +5,6 @@ import { findingsTeam } from '../support/findings-harness';
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
 // Each step signs in or signs with a password (Argon2) on a shared two-core machine: allow whole workflows.
-jest.setTimeout(60_000);
 
 type Row = { clauseId: string; status: string; location: { scope: string; index: number | null } };
 

@@ -2,8 +2,6 @@ import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { PAIR_RATES_LISTED, type FindingRate } from '../../../../shared/schemas/review-health.schema';
 import { FindingRates } from './finding-rates';
 
-jest.setTimeout(30_000);
-
 const rate = (i: number): FindingRate => ({
   checkerName: `Checker ${i}`,
   authorName: `Author ${i}`,

@@ -5,8 +5,6 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { HEALTH_SETTING_FIELDS, type HealthSettingsDto } from '../../../../shared/schemas/review-health.schema';
 import { HealthSettingsPanel } from './health-settings-panel';
 
-jest.setTimeout(30_000);
-
 const STORED: HealthSettingsDto = {
   quickCheckSecondsPerItem: 20,
   silentCheckerChecks: 10,

@@ -3,8 +3,6 @@ import type { SignalPage, SignalRow } from '../../../../shared/schemas/review-he
 import { mountComponent, refusal } from '../../../../test/support/client-harness';
 import { SignalSection } from './signal-section';
 
-jest.setTimeout(30_000);
-
 const PARAMS = { projectId: 7, from: '2026-09-01', to: '2026-12-01' };
 const row = (i: number): SignalRow => ({
   signal: 'quick-check',

@@ -10,8 +10,6 @@ import type { FindingDto, RevisionDto } from '../../../../../shared/schemas/calc
 import { ChecklistTable } from '../checklist/checklist-table';
 import { FindingsPanel } from './findings-panel';
 
-jest.setTimeout(30_000);
-
 const row = (clauseId: string, title: string, index: number | null, label: string) => ({
   clauseId,
   clauseTitle: title,

@@ -8,8 +8,6 @@ import { provideRouter } from '@angular/router';
 import { provideAbility } from '../../../core/authz/ability.providers';
 import { IndependentModelPanel } from './independent-model-panel';
 
-jest.setTimeout(30_000);
-
 const need = {
   method: 'independent-model' as const,
   reason:

@@ -96,7 +96,12 @@ export async function load(
   return figuresOf(latencies, seconds, errors + result.errors + result.timeouts);
 }
 
+/** "12.3 ms", or "no answer" where no request was answered in time (never a NaN in the figures). */
+export function msText(v: number): string {
+  return Number.isFinite(v) ? `${v.toFixed(1).padStart(7)} ms` : ' no answer';
+}
+
 export function line(name: string, f: Figures): string {
-  const ms = (v: number) => `${v.toFixed(1).padStart(7)} ms`;
+  const ms = msText;
   return `  ${name.padEnd(46)} ${ms(f.p50)} ${ms(f.p95)} ${ms(f.p99)} ${f.rps.toFixed(0).padStart(7)} req/s${f.errors ? `  (${f.errors} failed)` : ''}`;
 }

@@ -6,7 +6,7 @@ import { QueryTypes } from 'sequelize';
 import { loadConfig } from '../server/config';
 import { createSequelize } from '../server/db';
 import { BENCH_PASSWORD } from './bench-seed-data';
-import { line, load, signIn, startServer } from './bench-http';
+import { line, load, msText, signIn, startServer } from './bench-http';
 import { endpointsOf } from './bench-lists-endpoints';
 import { chainCeiling, saves } from './bench-writes';
 
@@ -63,7 +63,7 @@ async function main(): Promise<void> {
       const alone = await load(server.url, session, paths, 1, ALONE_SECONDS);
       const busy = await load(server.url, session, paths, CONNECTIONS, SECONDS);
       console.log(
-        `${line(name, busy).replace(name.padEnd(46), `${name.padEnd(46)} ${alone.p50.toFixed(1).padStart(7)} ms`)}  ${loadavg()[0].toFixed(1)}`,
+        `${line(name, busy).replace(name.padEnd(46), `${name.padEnd(46)} ${msText(alone.p50)}`)}  ${loadavg()[0].toFixed(1)}${alone.errors ? `  (alone: ${alone.errors} failed or timed out)` : ''}`,
       );
     }
     console.log('  targets: p95 ≤ 50 ms each (32 concurrent)');

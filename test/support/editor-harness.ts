@@ -15,6 +15,16 @@ import { EDITOR_DEBOUNCE_MS } from '../../src/app/features/calcs/editor/editor-s
  * The calc editor under jest with its three reads answered (revision, standard, calc heading) and
  * live results without debounce, for component specs that drive it through Material harnesses.
  */
+/** An invented two-step shaft in AISI 1045 CD (the editor specs add their loads and features to it). */
+export const TWO_STEP_SHAFT = {
+  units: 'SI',
+  material: { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, Sy: 530, Su: 630, nu: 0.292 },
+  segments: [
+    { label: 'coupling seat', length: 100, od: 60, id: 0 },
+    { label: 'body', length: 300, od: 70, id: 0 },
+  ],
+};
+
 export const EDITOR_AUTHOR = { id: 1, roles: ['author'] as const };
 
 export function storedRevision(input: unknown, over: Partial<RevisionDto> = {}): RevisionDto {

@@ -2,17 +2,17 @@ import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import type { FindingDto } from '../../../../../shared/schemas/calc-dto';
-import { configureEditorTestBed, openEditor, storedRevision } from '../../../../../test/support/editor-harness';
+import {
+  configureEditorTestBed,
+  openEditor,
+  storedRevision,
+  TWO_STEP_SHAFT,
+} from '../../../../../test/support/editor-harness';
 import { PANEL_PACING } from './panel-pacer';
 
 // A shaft on two bearings with a torque, a force and fatigue settings: fields in panels built after the first render.
 const INPUT = {
-  units: 'SI',
-  material: { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, Sy: 530, Su: 630, nu: 0.292 },
-  segments: [
-    { label: 'coupling seat', length: 100, od: 60, id: 0 },
-    { label: 'body', length: 300, od: 70, id: 0 },
-  ],
+  ...TWO_STEP_SHAFT,
   supports: [
     { at: 20, kind: 'deep-groove-ball', label: 'drive end' },
     { at: 380, kind: 'cylindrical-roller', label: 'free end' },

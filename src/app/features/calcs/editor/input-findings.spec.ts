@@ -1,14 +1,14 @@
 import type { FindingDto } from '../../../../../shared/schemas/calc-dto';
-import { configureEditorTestBed, openEditor, storedRevision } from '../../../../../test/support/editor-harness';
+import {
+  configureEditorTestBed,
+  openEditor,
+  storedRevision,
+  TWO_STEP_SHAFT,
+} from '../../../../../test/support/editor-harness';
 
 // A two-step shaft, enough for the editor's panels to show their fields.
 const INPUT = {
-  units: 'SI',
-  material: { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, Sy: 530, Su: 630, nu: 0.292 },
-  segments: [
-    { label: 'coupling seat', length: 100, od: 60, id: 0 },
-    { label: 'body', length: 300, od: 70, id: 0 },
-  ],
+  ...TWO_STEP_SHAFT,
   torques: [
     { at: 50, T: 1500 },
     { at: 350, T: -1500 },

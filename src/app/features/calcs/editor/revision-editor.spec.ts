@@ -17,17 +17,12 @@ import { evaluateShaft, formatNumber } from '../../../../../shared/engine';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import ruleSetDocument from '../../../../../rules/kfd-eng-014-v3.json';
 import RevisionEditor from './revision-editor';
-import { panelsBuilt } from '../../../../../test/support/editor-harness';
+import { panelsBuilt, TWO_STEP_SHAFT } from '../../../../../test/support/editor-harness';
 import { EDITOR_DEBOUNCE_MS } from './editor-support';
 
 // An invented two-step head shaft with a keyseat: small enough to read, complete enough to evaluate.
 const INPUT = {
-  units: 'SI',
-  material: { name: 'AISI 1045 CD', kind: 'steel', E: 207, G: 79.3, Sy: 530, Su: 630, nu: 0.292 },
-  segments: [
-    { label: 'coupling seat', length: 100, od: 60, id: 0 },
-    { label: 'body', length: 300, od: 70, id: 0 },
-  ],
+  ...TWO_STEP_SHAFT,
   torques: [
     { at: 50, T: 1500 },
     { at: 350, T: -1500 },

@@ -62,7 +62,7 @@ export function apiMounts({ sequelize, config, passport, services: s }: MountDep
         independentModelRouter(s.independent),
       ],
     },
-    { path: '/api/findings', routers: [findingsRouter(s.review)] },
+    { path: '/api/findings', routers: [findingsRouter(s.findings)] },
     { path: '/api/rule-sets', routers: [ruleSetsRouter(s.ruleSets, s.impact)] },
     { path: '/api/mail', routers: [mailRouter(sequelize, s.sentMail)] },
     { path: '/api/attachments', routers: [attachmentsRouter(s.attachments)] },

@@ -4,6 +4,7 @@ import { CalcsService } from './calcs/calcs.service';
 import { LifecycleService } from './calcs/lifecycle.service';
 import { WorkflowService } from './workflow/workflow.service';
 import { ReviewService } from './workflow/review.service';
+import { FindingsService } from './workflow/findings.service';
 import { RuleSetsService } from './rule-sets/rule-sets.service';
 import { ImpactService } from './rule-sets/impact.service';
 import { SentMailService } from './mail/sent-mail.service';
@@ -35,6 +36,7 @@ export function createServices(sequelize: Sequelize, config: Config) {
     reports,
     lifecycle: new LifecycleService(sequelize, calcs),
     review: new ReviewService(sequelize, workflow),
+    findings: new FindingsService(sequelize),
     ruleSets: new RuleSetsService(sequelize, (actor, id) => impact.notifyIfAffected(actor, id)),
     sentMail: new SentMailService(config.MAIL_FROM, config.SENT_MAIL_SCREEN),
     attachments: new AttachmentsService(sequelize, store, Math.round(config.ATTACHMENT_MAX_MB * MB)),

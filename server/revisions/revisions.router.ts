@@ -17,6 +17,7 @@ import type { LifecycleService } from '../calcs/lifecycle.service';
 import { readRevision } from '../calcs/revision-read';
 import type { WorkflowService } from '../workflow/workflow.service';
 import type { ReviewService } from '../workflow/review.service';
+import type { FindingsService } from '../workflow/findings.service';
 
 const itemParamsSchema = z.object({ itemId: z.string().regex(/^[A-Za-z0-9._-]{1,40}$/, 'is not a checklist item id') });
 
@@ -25,6 +26,7 @@ export interface RevisionServices {
   lifecycle: LifecycleService;
   workflow: WorkflowService;
   review: ReviewService;
+  findings: FindingsService;
 }
 
 export function revisionsRouter(s: RevisionServices): Router {
@@ -60,7 +62,7 @@ export function revisionsRouter(s: RevisionServices): Router {
     const anchor = { clauseRef: req.body.clauseRef ?? null, anchorPath: req.body.anchorPath ?? null };
     res
       .status(201)
-      .json(await s.review.raiseFinding(req.ability, signedInActor(req), idParam(req), req.body.text, anchor));
+      .json(await s.findings.raiseFinding(req.ability, signedInActor(req), idParam(req), req.body.text, anchor));
   });
   router.put(
     '/:id/manual-items/:itemId',
@@ -81,13 +83,13 @@ export function revisionsRouter(s: RevisionServices): Router {
   return router;
 }
 
-export function findingsRouter(review: ReviewService): Router {
+export function findingsRouter(findings: FindingsService): Router {
   const router = idRouter();
   router.post('/:id/answer', validate({ body: answerSchema }), async (req, res) => {
-    res.json(await review.answerFinding(req.ability, signedInActor(req), idParam(req), req.body.answer));
+    res.json(await findings.answerFinding(req.ability, signedInActor(req), idParam(req), req.body.answer));
   });
   router.post('/:id/close', async (req, res) => {
-    res.json(await review.closeFinding(req.ability, signedInActor(req), idParam(req)));
+    res.json(await findings.closeFinding(req.ability, signedInActor(req), idParam(req)));
   });
   return router;
 }

@@ -3,19 +3,16 @@ import type { AppAbility } from '../../shared/authz/app-ability';
 import type { Role } from '../../shared/authz/roles';
 import type { RevisionDto } from '../../shared/schemas/calc-dto';
 import type { SignRequest } from '../../shared/schemas/revision.schema';
-import { Calc, Finding, Project, Revision, Signature, User } from '../db/models';
+import { Calc, Project, Revision, Signature } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
-import { verifyPassword } from '../auth/password';
-import { secondFactorRefusal } from '../auth/second-factor';
 import { editorIdsOf, loadRevision, loadRevisionForChange } from '../calcs/calc-access';
 import { currentHashOf, readRevision } from '../calcs/revision-read';
-import { parseRuleSet } from '../rule-sets/rule-set-cache';
-import { signingBlocker, type Meaning } from './independence';
+import type { Meaning } from './independence';
+import { assertMaySign, checkSigningPassword } from './signing-checks';
 import { SIGNATURES, roleFor } from '../../shared/workflow/signatures';
 import { SUPERSEDED_STATE } from '../../shared/workflow/revision-states';
 import { signedContentFor } from './signed-content';
-import { independentModelBlockerFor } from '../independent/signing-blocker';
 import { queueHandOverMail, type HandOverFacts } from './hand-over-mail';
 import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
@@ -43,9 +40,9 @@ export class WorkflowService {
     const retried = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey } });
     if (!retried) {
       const revision = await loadRevisionForChange(revisionId);
-      await this.assertMaySign(dto.meaning, signer, revision);
+      await assertMaySign(dto.meaning, signer, revision);
     }
-    await this.checkPassword(signer, revisionId, dto);
+    await checkSigningPassword(this.sequelize, signer, revisionId, dto);
     await runTransaction(
       this.sequelize,
       async (transaction) => {
@@ -61,7 +58,7 @@ export class WorkflowService {
         await assertProjectOpen(revision.calcId, transaction);
         if (revision.lockVersion !== dto.lockVersion)
           throw AppError.conflict('The revision changed since you opened it; review the new content before signing');
-        await this.assertMaySign(dto.meaning, signer, revision, transaction);
+        await assertMaySign(dto.meaning, signer, revision, transaction);
         const hash = await currentHashOf(revision, transaction);
         if (!hash || hash !== revision.contentHash)
           throw new AppError(
@@ -116,58 +113,6 @@ export class WorkflowService {
       { idempotent: true },
     ); // a second run finds its own signature by the idempotency key
     return readRevision(ability, revisionId);
-  }
-
-  private async checkPassword(signer: Signer, revisionId: number, dto: SignRequest): Promise<void> {
-    const user = await User.scope('withPassword').findByPk(signer.id);
-    if (user && (await verifyPassword(user.passwordHash, dto.password))) {
-      const refusal = secondFactorRefusal(user, dto.oneTimeCode);
-      if (!refusal) return;
-      await appendAudit(this.sequelize, signer, {
-        action: 'revision.signature_refused',
-        entityType: 'Revision',
-        entityId: revisionId,
-        payload: { meaning: dto.meaning, reason: refusal.reason },
-      });
-      throw refusal.error;
-    }
-    await appendAudit(this.sequelize, signer, {
-      action: 'revision.signature_refused',
-      entityType: 'Revision',
-      entityId: revisionId,
-      payload: { meaning: dto.meaning, reason: 'wrong password' },
-    });
-    throw new AppError('validation', 400, 'Password is not correct; nothing was signed', {
-      fieldErrors: { password: ['is not correct'] },
-    });
-  }
-
-  private async assertMaySign(
-    meaning: Meaning,
-    signer: Signer,
-    revision: Revision,
-    transaction?: Transaction,
-  ): Promise<void> {
-    const findings = await Finding.findAll({ where: { revisionId: revision.id }, transaction });
-    const manual = JSON.parse(revision.manualItems) as Record<string, { done: boolean }>;
-    const items = revision.ruleSet ? (parseRuleSet(revision.ruleSet).manualItems ?? []) : [];
-    const blocker = signingBlocker(meaning, {
-      actor: signer,
-      revision: {
-        status: revision.status,
-        authorId: revision.authorId,
-        checkerId: revision.checkerId,
-        hasResult: revision.result !== null,
-        verdict: revision.verdict,
-        errorRows: errorRowsOf(revision.checklist),
-      },
-      editorIds: await editorIdsOf(revision.calcId, transaction),
-      openFindings: findings.filter((f) => f.status === 'open').length,
-      unresolvedFindings: findings.filter((f) => f.status !== 'closed').length,
-      openManualItems: items.filter((i) => !manual[i.id]?.done).length,
-    });
-    const modelBlocker = blocker ?? (await independentModelBlockerFor(meaning, signer.id, revision, transaction));
-    if (modelBlocker) throw new AppError('forbidden', 403, modelBlocker);
   }
 
   /** The state change and stamps a signature makes, as the workflow table gives them. */
@@ -237,16 +182,5 @@ export class WorkflowService {
       },
       transaction,
     );
-  }
-}
-
-/** Rows that could not be evaluated; a stored checklist that cannot be read counts as one. */
-function errorRowsOf(checklist: string | null): number {
-  if (checklist === null) return 0;
-  try {
-    const rows = (JSON.parse(checklist) as { rows?: { status?: unknown }[] }).rows;
-    return Array.isArray(rows) ? rows.filter((r) => r?.status === 'error').length : 1;
-  } catch {
-    return 1;
   }
 }

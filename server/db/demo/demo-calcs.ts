@@ -6,6 +6,7 @@ import { CalcsService } from '../../calcs/calcs.service';
 import { LifecycleService } from '../../calcs/lifecycle.service';
 import { WorkflowService } from '../../workflow/workflow.service';
 import { ReviewService } from '../../workflow/review.service';
+import { FindingsService } from '../../workflow/findings.service';
 import { readRevision } from '../../calcs/revision-read';
 import { conveyorHeadShaft, mixerShaft, slurryPumpShaft } from './demo-shafts';
 import { DEMO_PASSWORD } from '../demo-data';
@@ -41,6 +42,7 @@ export async function seedDemoCalcs(
   const calcs = new CalcsService(sequelize);
   const workflow = new WorkflowService(sequelize, baseUrl);
   const review = new ReviewService(sequelize, workflow);
+  const findings = new FindingsService(sequelize);
   const lifecycle = new LifecycleService(sequelize, calcs);
   const [hale, okafor, lindqvist, marsh] = await Promise.all(['author', 'checker', 'approver', 'senior'].map(personOf));
   const ruleSetId = (await RuleSetRecord.findOne({
@@ -140,7 +142,7 @@ export async function seedDemoCalcs(
     conveyorHeadShaft(),
   );
   await submit(hale, head);
-  await review.raiseFinding(
+  await findings.raiseFinding(
     okafor.ability,
     okafor,
     head,
@@ -205,6 +207,7 @@ export async function seedDemoCalcs(
     {
       calcs,
       review,
+      findings,
       submit: async (p, id) => {
         await attachPlan(p, id);
         await submit(p, id);

@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { Project, RuleSetRecord } from '../models';
 import type { CalcsService } from '../../calcs/calcs.service';
 import type { ReviewService } from '../../workflow/review.service';
+import type { FindingsService } from '../../workflow/findings.service';
 import { readRevision } from '../../calcs/revision-read';
 import { IndependentModelService } from '../../independent/independent-model.service';
 import { hoistDrumShaft } from './demo-shafts';
@@ -10,6 +11,7 @@ type Person = Awaited<ReturnType<typeof import('./demo-calcs').personOf>>;
 interface Steps {
   calcs: CalcsService;
   review: ReviewService;
+  findings: FindingsService;
   submit: (p: Person, id: number) => Promise<void>;
   tickAll: (p: Person, id: number) => Promise<void>;
   signAs: (p: Person, id: number, meaning: 'authored' | 'checked') => Promise<void>;
@@ -60,11 +62,11 @@ export async function seedIndependentModelCalc(
       f.clauseRef === 'supports[1].C'
         ? "The drawing calls up the sealed variant of the far bearing; its maker's sheet gives C = 300 kN (320 kN is the open one). Calc unchanged."
         : 'The far bearing is the sealed variant with C = 300 kN (see the bearing finding); nothing to change.';
-    await s.review.answerFinding(author.ability, author, f.id, answer);
+    await s.findings.answerFinding(author.ability, author, f.id, answer);
   }
   await s.signAs(author, id, 'authored');
   for (const f of (await readRevision(checker.ability, id)).findings)
-    await s.review.closeFinding(checker.ability, checker, f.id);
+    await s.findings.closeFinding(checker.ability, checker, f.id);
   await s.tickAll(checker, id);
   await s.signAs(checker, id, 'checked');
 }

@@ -1,5 +1,6 @@
 import session from 'express-session';
 import connectSessionSequelize from 'connect-session-sequelize';
+import { LRUCache } from 'lru-cache';
 import type { RequestHandler } from 'express';
 import { Op, type Sequelize } from 'sequelize';
 import type { Config } from '../config';
@@ -36,10 +37,27 @@ export function sessionMiddleware(
   });
   // The package's get() ignores `expires` until its sweep runs, so a replayed cookie would outlive
   // the idle limit (and `rolling` would then renew it). Only rows still in date count.
+  const storedExpiry = new LRUCache<string, number>({ max: 10_000 });
   store.get = (sid, callback) => {
     Session.findOne({ where: { sid, expires: { [Op.gt]: new Date() } } })
-      .then((row) => (row?.data ? JSON.parse(row.data) : null))
+      .then((row) => {
+        if (row?.expires) storedExpiry.set(sid, row.expires.getTime());
+        return row?.data ? JSON.parse(row.data) : null;
+      })
       .then((data) => callback(null, data), callback);
+  };
+  // `rolling` renews the row's deadline after every answer: a write (and a log flush) behind every read. The row
+  // is renewed only once it lags the new deadline by a tenth of the idle limit (at most a minute), so a session
+  // can end up to that much sooner than its cookie says, never later. The expiry compared is the one this very
+  // request read above, so it holds across app instances.
+  const touchStepMs = Math.min(60_000, (config.SESSION_IDLE_MINUTES * 60_000) / 10);
+  const touch = store.touch.bind(store);
+  store.touch = (sid, data, callback) => {
+    const next = data.cookie.expires ? new Date(data.cookie.expires).getTime() : undefined;
+    const stored = storedExpiry.get(sid);
+    if (next !== undefined && stored !== undefined && next - stored < touchStepMs) return callback?.();
+    if (next !== undefined) storedExpiry.set(sid, next);
+    return touch(sid, data, callback);
   };
   const middleware = session({
     name: SESSION_COOKIE,

@@ -66,7 +66,9 @@ export class RuleSetPublication {
 
   /** Puts confirmed versions whose effective date has come into force; cheap, and idempotent. */
   async promoteDue(): Promise<void> {
+    // Asked on every read of the library: only the ids (each version is read whole, locked, when it is promoted).
     const due = await RuleSetRecord.findAll({
+      attributes: ['id'],
       where: { status: 'draft', confirmedBy: { [Op.ne]: null }, effectiveDate: { [Op.lte]: todayUtc() } },
     });
     const clock: Actor = { id: null, name: 'effective-date clock', ip: null };

@@ -147,6 +147,9 @@ export function placeOf(path: string, featureTypes: readonly string[] = []): str
 const REQUEST_FIELDS: Record<string, string> = {
   text: 'Finding',
   answer: 'Answer',
+  // A period's ends (audit trail, review health): the screens' own words.
+  from: 'From',
+  to: 'To',
   reason: 'Reason',
   reasonForChange: 'Reason for the change',
   password: 'Your password',

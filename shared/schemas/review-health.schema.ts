@@ -39,20 +39,20 @@ export interface HealthSettingsDto extends HealthSettings {
   updatedBy: string | null;
 }
 
-const day = (label: string) => z.iso.date({ error: `${label}: must be a date (YYYY-MM-DD)` });
+const day = z.iso.date({ error: 'must be a date (YYYY-MM-DD)' });
 export const MAX_PERIOD_DAYS = 3660;
 
 const periodFields = {
   projectId: decimalId('a project').optional(),
-  from: day('From'),
-  to: day('To'),
+  from: day,
+  to: day,
 };
 type Period = { from: string; to: string };
 const periodRules = <T extends z.ZodType<Period>>(schema: T) =>
   schema
-    .refine((q) => q.from <= q.to, { message: 'From: must not be after To', path: ['from'] })
+    .refine((q) => q.from <= q.to, { message: 'must not be after To', path: ['from'] })
     .refine((q) => Date.parse(q.to) - Date.parse(q.from) <= MAX_PERIOD_DAYS * 86_400_000, {
-      message: `To: the period may span at most ${MAX_PERIOD_DAYS} days`,
+      message: `the period may span at most ${MAX_PERIOD_DAYS} days`,
       path: ['to'],
     });
 

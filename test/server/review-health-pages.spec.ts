@@ -81,7 +81,7 @@ describe('bad page requests', () => {
   it('when the period is wrong, then 400 naming From, as for the report', async () => {
     const res = await compliance.get('/api/review-health/signals/refusals?from=2026-12-02&to=2026-12-01');
     expect(res.status).toBe(400);
-    expect(res.body.fieldErrors['query.from'][0]).toBe('From: must not be after To');
+    expect(res.body.fieldErrors['query.from'][0]).toBe('must not be after To');
   });
 
   it('when someone without compliance reads a page, then 403', async () => {

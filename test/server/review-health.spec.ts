@@ -165,15 +165,20 @@ describe('bad input', () => {
   });
 
   it.each([
-    ['from=2026-13-01&to=2026-12-01', 'query.from', 'From: must be a date'],
-    ['from=2026-12-02&to=2026-12-01', 'query.from', 'From: must not be after To'],
-    ['to=2026-12-01', 'query.from', 'From: must be a date'],
-    ['from=2000-01-01&to=2026-12-01', 'query.to', 'To: the period may span at most'],
+    ['from=2026-13-01&to=2026-12-01', 'query.from', 'must be a date'],
+    ['from=2026-12-02&to=2026-12-01', 'query.from', 'must not be after To'],
+    ['to=2026-12-01', 'query.from', 'must be a date'],
+    ['from=2000-01-01&to=2026-12-01', 'query.to', 'the period may span at most'],
     ['from=2026-11-01&to=2026-12-01&projectId=0x10', 'query.projectId', 'must be a project'],
   ])('when the query is %s, then 400 naming %s', async (q, field, message) => {
     const res = await compliance.get(`/api/review-health?${q}`);
     expect(res.status).toBe(400);
     expect(res.body.fieldErrors[field][0]).toContain(message);
+  });
+
+  it("when From is not a date, then the message names the field once, in the screen's word", async () => {
+    const res = await compliance.get(`/api/review-health?from=2026-13-01&to=2026-12-01`);
+    expect(res.body.message).toBe('Invalid input — From: must be a date (YYYY-MM-DD)');
   });
 
   it('when the project does not exist, then 404', async () => {

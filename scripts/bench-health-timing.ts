@@ -76,14 +76,10 @@ export function spread(values: number[]): string {
 /** The p50 of each Server-Timing phase over the answers (the phases run side by side). */
 export function phaseMedians(runs: Answer[]): string {
   const names = [...runs[0].phases.keys()].filter((k) => k !== 'app');
-  return names
-    .map(
-      (k) =>
-        `${k} ${figuresOf(
-          runs.map((r) => r.phases.get(k) ?? 0),
-          1,
-          0,
-        ).p50.toFixed(0)}`,
-    )
-    .join(', ');
+  const p50 = (k: string) =>
+    percentile(
+      runs.map((r) => r.phases.get(k) ?? 0),
+      0.5,
+    ).toFixed(0);
+  return names.map((k) => `${k} ${p50(k)}`).join(', ');
 }

@@ -59,7 +59,9 @@ export async function verdictFlips(
      ORDER BY r.approved_at DESC, r.id DESC`,
     { replacements: [scope.start, scope.end, outdated.map((v) => v.id), ...project.values], type: QueryTypes.SELECT },
   );
-  const keyOf = (c: Candidate) => `${c.id}|${versions.get(c.ruleSetId)!.currentId}|${ENGINE_VERSION}`;
+  // The key's tail per version, worked out once: thousands of candidates are keyed per answer.
+  const tails = new Map(outdated.map((v) => [v.id, `|${v.currentId}|${ENGINE_VERSION}`]));
+  const keyOf = (c: Candidate) => `${c.id}${tails.get(c.ruleSetId)}`;
   await evaluateMissing(
     sequelize,
     candidates.filter((c) => !verdictCache.has(keyOf(c))),

@@ -29,7 +29,8 @@ END`;
 
 export async function up({ context: qi }: { context: QueryInterface }): Promise<void> {
   const q = (sql: string) => qi.sequelize.query(sql);
-  // Clustered by day, so a period is one range of whole rows; the columns match audit_events' own.
+  // Clustered by day, so a period over every project is one range of whole rows; one project's by its own index.
+  // The columns match audit_events' own.
   await q(`CREATE TABLE signing_refusal_days (
     id INT UNSIGNED NOT NULL AUTO_INCREMENT,
     day DATE NOT NULL,
@@ -43,7 +44,8 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
     first_at DATETIME(3) NOT NULL,
     last_at DATETIME(3) NOT NULL,
     PRIMARY KEY (day, id),
-    KEY signing_refusal_days_id (id)
+    KEY signing_refusal_days_id (id),
+    KEY signing_refusal_days_project (project_id, day)
   ) ENGINE=InnoDB DEFAULT CHARSET=utf8mb4 COLLATE=utf8mb4_unicode_ci`);
   await q(TRIGGER);
   // Entries appended before the trigger (migrations run before the app serves, so none arrive meanwhile).

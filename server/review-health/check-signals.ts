@@ -118,12 +118,20 @@ export const PAIR_INDEX_SHARE = 0.4;
  * the time since the first check is read by pair. Either way the counts are the same; only the work differs.
  */
 async function pairSource(sequelize: Sequelize, scope: HealthScope): Promise<RevisionCover> {
-  const [{ first }] = await sequelize.query<{ first: Date | null }>('SELECT MIN(checked_at) AS first FROM revisions', {
-    type: QueryTypes.SELECT,
-  });
-  if (first === null) return 'revisions_checked_cover';
-  const since = new Date(first).getTime();
+  const since = await firstCheck(sequelize);
+  if (since === null) return 'revisions_checked_cover';
   const span = Math.max(Date.now(), since + 1) - since;
   const covered = Math.min(scope.end.getTime(), Date.now()) - Math.max(scope.start.getTime(), since);
   return covered > PAIR_INDEX_SHARE * span ? 'revisions_pair_checks' : 'revisions_checked_cover';
+}
+
+/** When the first check on record was signed (ms), read at most once a minute: it only steers the plan. */
+let first: { at: number | null; readAt: number } | null = null;
+async function firstCheck(sequelize: Sequelize): Promise<number | null> {
+  if (first && Date.now() - first.readAt < 60_000) return first.at;
+  const [row] = await sequelize.query<{ at: Date | null }>('SELECT MIN(checked_at) AS at FROM revisions', {
+    type: QueryTypes.SELECT,
+  });
+  first = { at: row.at === null ? null : new Date(row.at).getTime(), readAt: Date.now() };
+  return first.at;
 }

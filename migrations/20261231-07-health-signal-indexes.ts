@@ -26,6 +26,7 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
 
 export async function down({ context: qi }: { context: QueryInterface }): Promise<void> {
   // MariaDB drops the index it made for the checker's foreign key once the pair-led index can serve it: back first.
-  await qi.addIndex('revisions', ['checker_id'], { name: 'checker_id' });
+  const [kept] = await qi.sequelize.query("SHOW INDEX FROM revisions WHERE Key_name = 'checker_id'");
+  if (kept.length === 0) await qi.addIndex('revisions', ['checker_id'], { name: 'checker_id' });
   for (const [name] of INDEXES) await qi.removeIndex('revisions', name);
 }

@@ -88,10 +88,15 @@ export interface PairCount {
 
 /**
  * Checks and findings per author–checker pair in the period: findings the checker raised on the revision they
- * signed, as recorded at the check signature (review-facts.ts); one pass over a covering index (`pairSource`).
+ * signed, as recorded at the check signature (review-facts.ts); one pass over a covering index (`pairSource`, or
+ * `index` where a spec compares the two).
  */
-export async function pairCounts(sequelize: Sequelize, scope: HealthScope): Promise<PairCount[]> {
-  const { from, project } = coverFrom(scope, await pairSource(sequelize, scope));
+export async function pairCounts(
+  sequelize: Sequelize,
+  scope: HealthScope,
+  index?: 'revisions_checked_cover' | 'revisions_pair_checks',
+): Promise<PairCount[]> {
+  const { from, project } = coverFrom(scope, index ?? (await pairSource(sequelize, scope)));
   const rows = await sequelize.query<PairCount>(
     `SELECT r.checker_id AS checkerId, r.author_id AS authorId, COUNT(*) AS checks,
        CAST(COALESCE(SUM(r.check_findings > 0), 0) AS UNSIGNED) AS withFindings,

@@ -1,8 +1,7 @@
 // Review-health endpoint latency (npm run bench, issue 15): the library seeded at a tenth (10,000 calcs),
 // plus findings, refusals and changed attachment sets (bench-health-seed.ts) and a stricter standard version
 // in force today. Prints the first answer (which counts sizes and re-evaluates approvals once) and then
-// p50/p95/max of repeated answers. Nothing here is a test and nothing asserts a figure.
-import { readFileSync } from 'node:fs';
+// p50/p95/p99/max of repeated answers. Nothing here is a test and nothing asserts a figure.
 import { cpus, loadavg } from 'node:os';
 import mariadb from 'mariadb';
 import { QueryTypes } from 'sequelize';
@@ -12,40 +11,11 @@ import { BENCH_PASSWORD } from './bench-seed-data';
 import { signIn, startServer } from './bench-http';
 import { seedHealthMaterial } from './bench-health-seed';
 import { replaceStandardForBench } from './bench-health-standard';
+import { cpuMs, cpuPer, phaseMedians, pidFromFile, spread, timed, type Answer } from './bench-health-timing';
 import { backfillReviewFacts } from '../server/review-health/review-facts';
 
-const REPEATS = Number(process.env.BENCH_HEALTH_REPEATS ?? 15);
-
-async function timed(
-  url: string,
-  cookie: string,
-): Promise<{ ms: number; status: number; serverMs: number | null; bytes: number; phases: Map<string, number> }> {
-  const t0 = performance.now();
-  const res = await fetch(url, { headers: { cookie } });
-  const text = await res.text();
-  const body = JSON.parse(text) as { elapsedMs?: number };
-  // Server-Timing: `name;dur=12.3` per phase of the answer (server/http/server-timing.ts).
-  const phases = new Map(
-    (res.headers.get('server-timing') ?? '')
-      .split(',')
-      .map((p) => p.trim().match(/^([\w-]+);dur=([\d.]+)$/))
-      .filter((m) => m !== null)
-      .map((m) => [m[1], Number(m[2])] as const),
-  );
-  return {
-    ms: performance.now() - t0,
-    status: res.status,
-    serverMs: body.elapsedMs ?? null,
-    bytes: text.length,
-    phases,
-  };
-}
-
-/** CPU time the server process has used (user + system, ms): steadier than wall time on a shared machine. */
-function cpuMs(pid: number): number {
-  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
-  return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100;
-}
+// Enough answers for a p99 that is not simply the slowest one.
+const REPEATS = Number(process.env.BENCH_HEALTH_REPEATS ?? 100);
 
 async function main(): Promise<void> {
   const config = loadConfig();
@@ -58,6 +28,8 @@ async function main(): Promise<void> {
     timezone: 'Z',
   });
   const sequelize = createSequelize(config);
+  // The database's own CPU time per answer, when it runs on this machine (scripts/lib.sh db_start).
+  const dbPid = pidFromFile(((await conn.query('SELECT @@pid_file AS f')) as { f: string }[])[0].f);
   try {
     if (await seedHealthMaterial(conn)) await backfillReviewFacts(sequelize);
     await replaceStandardForBench(conn);
@@ -108,30 +80,16 @@ async function main(): Promise<void> {
       ['one project, one year', `/api/review-health?projectId=${project.id}&from=${oneYear}&to=${today}`],
     ] as const) {
       const first = await timed(server.url + path, session.cookie);
-      const runs: { ms: number; serverMs: number | null; phases: Map<string, number> }[] = [];
-      const cpu0 = cpuMs(server.child.pid!);
+      const runs: Answer[] = [];
+      const [app0, db0] = [cpuMs(server.child.pid!), cpuMs(dbPid)];
       for (let i = 0; i < REPEATS; i++) runs.push(await timed(server.url + path, session.cookie));
-      const cpuPer = (cpuMs(server.child.pid!) - cpu0) / REPEATS;
-      const pct = (values: number[], p: number) =>
-        [...values].sort((a, b) => a - b)[Math.min(values.length - 1, Math.floor(p * values.length))].toFixed(0);
-      const times = runs.map((r) => r.ms);
+      const [app, db] = [cpuPer(app0, cpuMs(server.child.pid!), REPEATS), cpuPer(db0, cpuMs(dbPid), REPEATS)];
       // The service's own time (elapsedMs) beside the whole answer: the rest is JSON, HTTP and the event loop.
-      const service = runs.map((r) => r.serverMs ?? NaN);
+      const service = spread(runs.map((r) => r.serverMs ?? NaN)).split(',')[0];
       console.log(
-        `  ${name.padEnd(26)} first ${first.ms.toFixed(0)} ms (status ${first.status}); then p50 ${pct(times, 0.5)} ms, p95 ${pct(times, 0.95)} ms, max ${pct(times, 1)} ms over ${REPEATS} (service p50 ${pct(service, 0.5)} ms; server CPU ${cpuPer.toFixed(0)} ms and ${(first.bytes / 1024).toFixed(0)} kB per answer; load ${loadavg()[0].toFixed(1)})`,
+        `  ${name.padEnd(26)} first ${first.ms.toFixed(0)} ms (status ${first.status}); then ${spread(runs.map((r) => r.ms))} over ${REPEATS} (service ${service}; CPU per answer: server ${app}, database ${db}; ${(first.bytes / 1024).toFixed(0)} kB; load ${loadavg()[0].toFixed(1)})`,
       );
-      const names = [...runs[0].phases.keys()].filter((k) => k !== 'app');
-      console.log(
-        `    phases p50 (ms, phases run side by side): ${names
-          .map(
-            (k) =>
-              `${k} ${pct(
-                runs.map((r) => r.phases.get(k) ?? 0),
-                0.5,
-              )}`,
-          )
-          .join(', ')}`,
-      );
+      console.log(`    phases p50 (ms, phases run side by side): ${phaseMedians(runs)}`);
     }
   } finally {
     server.child.kill();

@@ -1,6 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { HealthSettings, SignalRow } from '../../shared/schemas/review-health.schema';
-import { auditLink, coverFrom, plural, type HealthScope } from './health-scope';
+import { auditLink, coverFrom, plural, type HealthScope, type RevisionCover } from './health-scope';
 import { afterCursor, keysetPage, limitOf, totalOf, type Listed, type PageAsk } from './signal-page';
 import { setChange } from './review-facts';
 import type { VersionFacts } from './standard-versions';
@@ -23,16 +23,17 @@ const NEWEST = [{ sql: 'r.approved_at', isDate: true }, { sql: 'r.id' }];
 
 /**
  * A page of the period's approvals matching `filter` (on columns of the covering index), newest first, with their
- * count; only the page's rows are joined to their calc, project and approver. `extra` adds columns over them (alias r).
+ * count; only the page's rows are joined to their calc, project and approver. `extra` adds columns over them (alias r);
+ * `index` is the covering index that holds the filter's entries (the period's approvals unless told otherwise).
  */
 async function approvals<T>(
   sequelize: Sequelize,
   scope: HealthScope,
-  filter: { sql: string; values: unknown[] },
+  filter: { sql: string; values: unknown[]; index?: RevisionCover },
   ask: PageAsk,
   extra = '',
 ): Promise<{ rows: (Approved & T)[]; total: number; next: string | null }> {
-  const { from, project } = coverFrom(scope, 'revisions_approved_cover');
+  const { from, project } = coverFrom(scope, filter.index ?? 'revisions_approved_cover');
   const after = afterCursor(ask, NEWEST, 'desc');
   const found = await sequelize.query<Approved & T>(
     `SELECT q.id, q.calcId, r.label, q.ruleSetId, q.approvedAt, c.number, p.code, u.display_name AS approver, q.total${extra}
@@ -58,7 +59,8 @@ const signaturesLink = (r: Approved) =>
 
 /**
  * Approved revisions whose attachment set at approval differs from the set the last check signature covered:
- * found by the count the approval signature recorded (review-facts.ts), named from the two signatures themselves.
+ * found by the count the approval signature recorded (review-facts.ts; the index leads with it, so only those
+ * approvals are read), named from the two signatures themselves.
  */
 export async function attachmentsAfterCheck(sequelize: Sequelize, scope: HealthScope, ask: PageAsk): Promise<Listed> {
   const last = (meaning: string) =>
@@ -66,7 +68,7 @@ export async function attachmentsAfterCheck(sequelize: Sequelize, scope: HealthS
   const page = await approvals<{ checkedSet: string; approvedSet: string }>(
     sequelize,
     scope,
-    { sql: 'r.attachments_changed > 0', values: [] },
+    { sql: 'r.attachments_changed > 0', values: [], index: 'revisions_attachments_changed' },
     ask,
     `, ${last('checked')} AS checkedSet, ${last('approved')} AS approvedSet`,
   );

@@ -42,13 +42,21 @@ export function projectClause(
   return { sql: '', values: [] };
 }
 
+/** The covering indexes of the signals (migrations 20261231-03 and 20261231-07). */
+export type RevisionCover =
+  | 'revisions_checked_cover'
+  | 'revisions_approved_cover'
+  | 'revisions_open_approvals'
+  | 'revisions_attachments_changed'
+  | 'revisions_pair_checks';
+
 /**
  * The period's revisions read from a covering index (the period leads it, the project is in it), never the
  * optimiser's guess at a calc-first plan: the index bounds the work, and nothing is read beyond it.
  */
 export function coverFrom(
   scope: HealthScope,
-  index: 'revisions_checked_cover' | 'revisions_approved_cover',
+  index: RevisionCover,
 ): { from: string; project: ReturnType<typeof projectClause> } {
   return { from: `FROM revisions r FORCE INDEX (${index})`, project: projectClause(scope, 'r.project_id') };
 }

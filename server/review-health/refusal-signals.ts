@@ -37,7 +37,8 @@ const EARLIER_CODE_REASON = 'one-time code missing or wrong';
 /**
  * Signing attempts refused for a wrong password, or a one-time code missing, wrong or not set up. The signing path
  * records each refusal as an audit entry (`revision.signature_refused`, workflow.service.ts) before it answers,
- * so the trail is the record; grouped here per person and revision.
+ * so the trail is the record; grouped here per person and revision from the per-day sums a trigger keeps beside
+ * the trail (`signing_refusal_days`, migration 20261231-08): the same counts and times, without reading each entry.
  */
 export async function refusedSignatures(
   sequelize: Sequelize,
@@ -45,18 +46,18 @@ export async function refusedSignatures(
   settings: HealthSettings,
   ask: PageAsk,
 ): Promise<Listed> {
-  const project = projectClause(scope, 'e.project_id');
+  const project = projectClause(scope, 'd.project_id');
   const after = afterCursor(ask, GROUP_ORDER, 'desc');
   const found = await sequelize.query<Refusal>(
     `SELECT g.*, c.number, p.code, r.label
-     FROM (SELECT e.actor_id AS actorId, MAX(e.actor_name) AS actorName, e.entity_id AS entityId,
-             MAX(e.calc_id) AS calcId, COUNT(*) AS attempts,
-             ${REASONS.map(([key, reason]) => `SUM(JSON_VALUE(e.payload, '$.reason') = '${reason}') AS ${key}`).join(', ')},
-             MIN(e.occurred_at) AS first, MAX(e.occurred_at) AS last, COALESCE(e.actor_id, 0) AS actorKey,
+     FROM (SELECT d.actor_id AS actorId, MAX(d.actor_name) AS actorName, d.entity_id AS entityId,
+             MAX(d.calc_id) AS calcId, SUM(d.attempts) AS attempts,
+             ${REASONS.map(([key, reason]) => `SUM(IF(d.reason = '${reason}', d.attempts, 0)) AS ${key}`).join(', ')},
+             MIN(d.first_at) AS first, MAX(d.last_at) AS last, COALESCE(d.actor_id, 0) AS actorKey,
              COUNT(*) OVER () AS total
-           FROM audit_events e
-           WHERE e.action = 'revision.signature_refused' AND e.occurred_at >= ? AND e.occurred_at < ?${project.sql}
-           GROUP BY e.actor_id, e.entity_id HAVING ${after.sql}
+           FROM signing_refusal_days d
+           WHERE d.day >= ? AND d.day < ?${project.sql}
+           GROUP BY d.actor_id, d.entity_id HAVING ${after.sql}
            ORDER BY attempts DESC, last DESC, actorKey DESC, entityId DESC ${limitOf(ask)}) g
        LEFT JOIN calcs c ON c.id = g.calcId LEFT JOIN projects p ON p.id = c.project_id
        LEFT JOIN revisions r ON r.id = CAST(g.entityId AS UNSIGNED)

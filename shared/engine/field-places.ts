@@ -176,6 +176,8 @@ const REQUEST_FIELDS: Record<string, string> = {
   file: 'File',
   q: 'Search',
   after: 'Page',
+  // Lists page with Material's paginator ("Items per page") or "Show 25 more" (review health).
+  size: 'Items per page',
   changeSummary: 'What changes in this version',
   effectiveDate: 'Effective date',
   meaning: 'Meaning',

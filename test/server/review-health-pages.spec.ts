@@ -78,6 +78,12 @@ describe('bad page requests', () => {
     expect(res.body.fieldErrors[field][0]).toContain(message);
   });
 
+  it('when the page size is bad, then the 400 names it as the screen does, never by its code name', async () => {
+    const res = await compliance.get(`/api/review-health/signals/quick-check?${period()}&size=500`);
+    expect(res.status).toBe(400);
+    expect(res.body.message).toBe('Invalid input — Items per page: must be a whole number from 1 to 100');
+  });
+
   it('when the period is wrong, then 400 naming From, as for the report', async () => {
     const res = await compliance.get('/api/review-health/signals/refusals?from=2026-12-02&to=2026-12-01');
     expect(res.status).toBe(400);

@@ -23,6 +23,7 @@ describe("internal paths in the screen's words", () => {
     expect(fieldLabel('params.itemId')).toBe('The address (itemId)');
     expect(fieldLabel('number')).toBe('Calc number');
     expect(fieldLabel('anchorPath')).toBe('Concerns');
+    expect(fieldLabel('query.size')).toBe('Items per page');
   });
 
   it('when a free text carries paths, then each is replaced by its place', () => {

@@ -20,6 +20,9 @@ const swc = [
   },
 ];
 
+// SPEC_CPU_LOG=<file> logs each spec file's CPU time (test/support/cpu-log.ts), a measuring aid.
+const cpuLog = process.env.SPEC_CPU_LOG ? ['<rootDir>/test/support/cpu-log.ts'] : [];
+
 /** @type {import('jest').Config} */
 module.exports = {
   testTimeout: 180_000,
@@ -35,6 +38,7 @@ module.exports = {
       testEnvironment: 'node',
       testMatch: ['<rootDir>/test/shared/**/*.spec.ts', '<rootDir>/test/scripts/**/*.spec.ts'],
       transform: { '^.+\\.ts$': swc },
+      setupFilesAfterEnv: cpuLog,
     },
     {
       displayName: 'api',
@@ -42,13 +46,13 @@ module.exports = {
       testMatch: ['<rootDir>/test/server/**/*.spec.ts'],
       transform: { '^.+\\.ts$': swc },
       globalSetup: '<rootDir>/test/support/api-global-setup.ts',
-      setupFilesAfterEnv: ['<rootDir>/test/support/long-test-timeout.ts'],
+      setupFilesAfterEnv: ['<rootDir>/test/support/long-test-timeout.ts', ...cpuLog],
     },
     {
       displayName: 'client',
       preset: 'jest-preset-angular',
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
-      setupFilesAfterEnv: ['<rootDir>/test/support/client-setup.ts'],
+      setupFilesAfterEnv: ['<rootDir>/test/support/client-setup.ts', ...cpuLog],
       // Under jsdom, json-rules-engine's jsonpath-plus resolves to its ESM browser build, which jest cannot load.
       moduleNameMapper: { '^jsonpath-plus$': '<rootDir>/node_modules/jsonpath-plus/dist/index-browser-umd.cjs' },
       testMatch: ['<rootDir>/src/**/*.spec.ts'],
@@ -66,7 +70,7 @@ module.exports = {
       testMatch: ['<rootDir>/test/e2e/**/*.spec.ts'],
       transform: { '^.+\\.ts$': swc },
       globalSetup: '<rootDir>/test/support/api-global-setup.ts',
-      setupFilesAfterEnv: ['<rootDir>/test/support/long-test-timeout.ts'],
+      setupFilesAfterEnv: ['<rootDir>/test/support/long-test-timeout.ts', ...cpuLog],
     },
   ],
 };

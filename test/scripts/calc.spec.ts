@@ -16,6 +16,13 @@ describe('calc command', () => {
     expect(r.stderr).toBe('');
   });
 
+  it('when run through tsx as `npm run calc` runs it, then it answers exactly as the bundle the other tests run', () => {
+    const args = [`${FIXTURES}/five-segment-fatigue.json`, '--format', 'table'];
+    const viaTsx = calc(args, undefined, { tsx: true });
+    expect(viaTsx.status).toBe(0);
+    expect(viaTsx).toEqual(calc(args));
+  });
+
   it('when reading standard input ("-"), then it evaluates it the same way', () => {
     const r = calc(['-'], readFileSync(join(ROOT, FIXTURES, 'hollow-si.json'), 'utf8'));
     expect(r.status).toBe(0);

@@ -2,17 +2,19 @@ import path from 'node:path';
 import { fork, type ChildProcess } from 'node:child_process';
 import request from 'supertest';
 import { createTestUser, sessionCookieOf, startTestApp, TEST_PASSWORD, uniqueCode } from '../support/api-harness';
+import { serverProcessArgs } from '../support/bundle';
 
 const ROOT = path.resolve(__dirname, '../..');
 const { sequelize } = startTestApp();
 const children: ChildProcess[] = [];
 
 /** Starts server/main.ts in its own process on a free port; it reports `{ ready, port }` when listening. */
-function startServer(): Promise<string> {
+async function startServer(options: { tsx?: boolean }): Promise<string> {
+  const { modulePath, execArgv } = await serverProcessArgs(options);
   return new Promise((resolve, reject) => {
-    const child = fork(path.join(ROOT, 'server/main.ts'), [], {
+    const child = fork(modulePath, [], {
       cwd: ROOT,
-      execArgv: ['--import', 'tsx'],
+      execArgv,
       stdio: ['ignore', 'ignore', 'inherit', 'ipc'],
       env: { ...process.env, PORT: '0', HOST: '127.0.0.1', NODE_ENV: 'test', LOG_LEVEL: 'silent' },
     });
@@ -41,7 +43,8 @@ let second: string;
 // Starting two server processes took over 30 s at load 39 on two cores, so the hooks set no limit of their own: the
 // api project's hang detector (test/support/long-test-timeout.ts) covers them, as it covers every other spec.
 beforeAll(async () => {
-  [first, second] = await Promise.all([startServer(), startServer()]);
+  // One as `npm start` runs it (under tsx), one bundled by esbuild as crash-signoff.spec.ts starts them: same sources.
+  [first, second] = await Promise.all([startServer({ tsx: true }), startServer({ tsx: false })]);
 });
 afterAll(async () => {
   await Promise.all(children.map(stop));

@@ -14,12 +14,13 @@ import { errorInterceptor } from './core/http/error-interceptor';
 import { AppErrorHandler } from './core/errors/app-error-handler';
 import { provideAbility } from './core/authz/ability.providers';
 import { SessionStore } from './core/auth/session-store';
+import { RoutePrefetch, prefetchInterceptor } from './core/http/route-prefetch';
 
 export const appConfig: ApplicationConfig = {
   providers: [
     provideBrowserGlobalErrorListeners(),
     provideRouter(routes, withComponentInputBinding(), withInMemoryScrolling({ scrollPositionRestoration: 'top' })),
-    provideHttpClient(withFetch(), withInterceptors([csrfInterceptor, errorInterceptor])),
+    provideHttpClient(withFetch(), withInterceptors([csrfInterceptor, errorInterceptor, prefetchInterceptor])),
     provideAbility(),
     { provide: ErrorHandler, useClass: AppErrorHandler },
     // Labels always sit above their box: an empty field's label would otherwise run into its unit (GPa, rpm) on a
@@ -28,7 +29,11 @@ export const appConfig: ApplicationConfig = {
       provide: MAT_FORM_FIELD_DEFAULT_OPTIONS,
       useValue: { appearance: 'outline', subscriptSizing: 'dynamic', floatLabel: 'always' },
     },
-    // Knowing who is signed in before the first route renders avoids a flash of the sign-in page.
-    provideAppInitializer(() => inject(SessionStore).load()),
+    // Knowing who is signed in before the first route renders avoids a flash of the sign-in page. Meanwhile the
+    // first screen's reads and scripts are already on their way (RoutePrefetch), not queued behind it.
+    provideAppInitializer(() => {
+      inject(RoutePrefetch).boot(routes, location.pathname, location.search);
+      return inject(SessionStore).load();
+    }),
   ],
 };

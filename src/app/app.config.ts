@@ -5,7 +5,7 @@ import {
   provideAppInitializer,
   provideBrowserGlobalErrorListeners,
 } from '@angular/core';
-import { provideRouter, withComponentInputBinding, withInMemoryScrolling } from '@angular/router';
+import { provideRouter, withComponentInputBinding, withInMemoryScrolling, withPreloading } from '@angular/router';
 import { provideHttpClient, withFetch, withInterceptors } from '@angular/common/http';
 import { MAT_FORM_FIELD_DEFAULT_OPTIONS } from '@angular/material/form-field';
 import { routes } from './app.routes';
@@ -14,12 +14,18 @@ import { errorInterceptor } from './core/http/error-interceptor';
 import { AppErrorHandler } from './core/errors/app-error-handler';
 import { provideAbility } from './core/authz/ability.providers';
 import { SessionStore } from './core/auth/session-store';
+import { IdlePreloading } from './core/idle-preloading';
 import { RoutePrefetch, prefetchInterceptor } from './core/http/route-prefetch';
 
 export const appConfig: ApplicationConfig = {
   providers: [
     provideBrowserGlobalErrorListeners(),
-    provideRouter(routes, withComponentInputBinding(), withInMemoryScrolling({ scrollPositionRestoration: 'top' })),
+    provideRouter(
+      routes,
+      withComponentInputBinding(),
+      withInMemoryScrolling({ scrollPositionRestoration: 'top' }),
+      withPreloading(IdlePreloading),
+    ),
     provideHttpClient(withFetch(), withInterceptors([csrfInterceptor, errorInterceptor, prefetchInterceptor])),
     provideAbility(),
     { provide: ErrorHandler, useClass: AppErrorHandler },

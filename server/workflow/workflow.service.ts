@@ -7,6 +7,7 @@ import { Calc, Finding, Project, Revision, Signature, User } from '../db/models'
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { verifyPassword } from '../auth/password';
+import { timed } from '../http/server-timing';
 import { secondFactorRefusal } from '../auth/second-factor';
 import { editorIdsOf, loadRevision, loadRevisionForChange } from '../calcs/calc-access';
 import { currentHashOf, readRevision } from '../calcs/revision-read';
@@ -40,12 +41,19 @@ export class WorkflowService {
     // Why the signature cannot happen comes first, so a blocked signer never sees "wrong password"
     // beside it; the same check runs again under the transaction below.
     // A retried request (same key) skips this: the revision has already moved on by its own signature.
-    const retried = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey } });
-    if (!retried) {
+    // Server-Timing names the phases of a signature: checks, password, write, then the read of the revision.
+    await timed('checks', async () => {
+      const retried = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey } });
+      if (retried) return;
       const revision = await loadRevisionForChange(revisionId);
       await this.assertMaySign(dto.meaning, signer, revision);
-    }
-    await this.checkPassword(signer, revisionId, dto);
+    });
+    await timed('password', () => this.checkPassword(signer, revisionId, dto));
+    await timed('write', () => this.signInTransaction(signer, revisionId, dto));
+    return readRevision(ability, revisionId);
+  }
+
+  private async signInTransaction(signer: Signer, revisionId: number, dto: SignRequest): Promise<void> {
     await runTransaction(
       this.sequelize,
       async (transaction) => {
@@ -115,7 +123,6 @@ export class WorkflowService {
       },
       { idempotent: true },
     ); // a second run finds its own signature by the idempotency key
-    return readRevision(ability, revisionId);
   }
 
   private async checkPassword(signer: Signer, revisionId: number, dto: SignRequest): Promise<void> {

@@ -67,8 +67,9 @@ export class RoutePrefetch {
     this.early.set(url, { at: Date.now(), events });
     this.backend.handle(new HttpRequest('GET', url)).subscribe({
       next: (e) => {
-        events.next(e);
+        // Follow-ups first: the page, handed the answer next, then finds them already started.
         if (then && e instanceof HttpResponse && e.ok) for (const next of then(e.body)) this.start({ url: next });
+        events.next(e);
       },
       error: (err) => {
         events.error(err);

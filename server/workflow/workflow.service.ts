@@ -41,7 +41,8 @@ export class WorkflowService {
     // Why the signature cannot happen comes first, so a blocked signer never sees "wrong password"
     // beside it; the same check runs again under the transaction below.
     // A retried request (same key) skips this: the revision has already moved on by its own signature.
-    // Server-Timing names the phases of a signature: checks, password, write, then the read of the revision.
+    // Server-Timing names the phases of a signature: checks, password, write (integrity, content, advance, facts,
+    // mail, the audit chain), then the read of the revision.
     await timed('checks', async () => {
       const retried = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey } });
       if (retried) return;
@@ -70,7 +71,7 @@ export class WorkflowService {
         if (revision.lockVersion !== dto.lockVersion)
           throw AppError.conflict('The revision changed since you opened it; review the new content before signing');
         await this.assertMaySign(dto.meaning, signer, revision, transaction);
-        const hash = await currentHashOf(revision, transaction);
+        const hash = await timed('integrity', () => currentHashOf(revision, transaction));
         if (!hash || hash !== revision.contentHash)
           throw new AppError(
             'integrity',
@@ -81,7 +82,8 @@ export class WorkflowService {
           type: QueryTypes.SELECT,
           transaction,
         });
-        const signed = await signedContentFor(revision, transaction);
+        const known = { format: revision.contentFormat ?? 1, hash };
+        const signed = await timed('content', () => signedContentFor(revision, transaction, known));
         await Signature.create(
           {
             revisionId,
@@ -97,10 +99,12 @@ export class WorkflowService {
           },
           { transaction },
         );
-        await this.advance(revision, dto.meaning, signer, new Date(now), transaction);
-        if (dto.meaning === 'checked') await recordCheckFacts(this.sequelize, revisionId, transaction);
-        if (dto.meaning === 'approved')
-          await recordApprovalFacts(this.sequelize, revisionId, JSON.stringify(signed.attachments), transaction);
+        await timed('advance', () => this.advance(revision, dto.meaning, signer, new Date(now), transaction));
+        await timed('facts', async () => {
+          if (dto.meaning === 'checked') await recordCheckFacts(this.sequelize, revisionId, transaction);
+          if (dto.meaning === 'approved')
+            await recordApprovalFacts(this.sequelize, revisionId, JSON.stringify(signed.attachments), transaction);
+        });
         await appendAudit(
           this.sequelize,
           signer,
@@ -119,7 +123,7 @@ export class WorkflowService {
           },
           transaction,
         );
-        await this.mail(SIGNATURES[dto.meaning].event, revision, signer, transaction);
+        await timed('mail', () => this.mail(SIGNATURES[dto.meaning].event, revision, signer, transaction));
       },
       { idempotent: true },
     ); // a second run finds its own signature by the idempotency key

@@ -7,10 +7,13 @@ import { loadConfig } from '../server/config';
 import { createSequelize } from '../server/db';
 import { Calc, Project } from '../server/db/models';
 import { DEMO_PASSWORD } from '../server/db/demo-data';
+import { waterfall } from './bench-screens-trace';
 
 const RUNS = Number(process.env.BENCH_SCREEN_RUNS ?? 3);
 /** BENCH_SCREENS="editor,calc page" measures only the named screens (all by default). */
 const ONLY = process.env.BENCH_SCREENS?.split(',').map((s) => s.trim());
+/** BENCH_SCREEN_TRACE=1 prints each screen's first-visit timeline (scripts, API calls, server phases). */
+const TRACE = process.env.BENCH_SCREEN_TRACE === '1';
 
 /*
  * "Usable" is measured, per screen, as: its main content and (where it has one) the verdict are on screen, and it
@@ -133,8 +136,9 @@ async function visit(page: Page, s: Screen) {
   await s.ready(page);
   const ms = Date.now() - started;
   page.off('response', onResponse);
+  const trace = TRACE ? await waterfall(page, ms) : [];
   const slowest = api.reduce((a, b) => (b.serverMs > a.serverMs ? b : a), { url: '-', serverMs: 0 });
-  return { ms, calls: api.length, slowest, scriptKb: scriptBytes / 1024 };
+  return { ms, calls: api.length, slowest, scriptKb: scriptBytes / 1024, trace };
 }
 
 async function main(): Promise<void> {
@@ -161,6 +165,7 @@ async function main(): Promise<void> {
         `  ${s.name.padEnd(14)} ${String(median).padStart(5)} ms (first ${first.ms} ms)  ${first.calls} API calls, slowest ${first.slowest.url} ` +
           `${first.slowest.serverMs.toFixed(0)} ms on the server, ${first.scriptKb.toFixed(0)} kB script on first visit`,
       );
+      for (const line of first.trace) console.log(line);
       await context.close();
     }
   } finally {

@@ -71,7 +71,18 @@ function serveClient(app: Express, config: Config): void {
   const dist = path.resolve(__dirname, '..', config.CLIENT_DIST);
   const index = path.join(dist, 'index.html');
   if (!fs.existsSync(index)) return;
-  app.use(express.static(dist, { index: false, maxAge: '1h' }));
+  // The build names scripts, styles and fonts by their content (main-3KQ2XYZA.js): such a name never changes
+  // content, so a browser keeps it a year without asking again; other files (the logo) are checked hourly.
+  const isHashed = (file: string) => /-[A-Z0-9]{8}\.(js|css|woff2?|ttf)$/.test(file);
+  app.use(
+    express.static(dist, {
+      index: false,
+      maxAge: '1h',
+      setHeaders: (res, file) => {
+        if (isHashed(file)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+      },
+    }),
+  );
   // Client-side routes all load the same page; the Angular router takes it from there.
   app.get('/{*splat}', (_req, res) => res.sendFile(index, { maxAge: 0 }));
 }

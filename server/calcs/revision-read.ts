@@ -64,14 +64,18 @@ export async function currentHashOf(
 /**
  * The current hash in every format a signature of this revision was made in, so each signature
  * is judged by the content it covered: tampering or a changed attachment set shows as broken.
+ * `withOwnFormat: false` leaves out the revision's own format when no signature needs it (a plain
+ * read of an unsigned revision then reads and hashes nothing: only signatures are judged by it).
  */
 export async function currentHashesOf(
   revision: Revision,
   signatures: readonly Signature[],
   transaction?: Transaction,
   result?: unknown,
+  withOwnFormat = true,
 ): Promise<Map<number, string | null>> {
-  const formats = new Set([revision.contentFormat ?? 1, ...signatures.map((s) => s.contentFormat ?? 1)]);
+  const own = withOwnFormat ? [revision.contentFormat ?? 1] : [];
+  const formats = new Set([...own, ...signatures.map((s) => s.contentFormat ?? 1)]);
   const hashes = new Map<number, string | null>();
   for (const f of formats) hashes.set(f, await currentHashOf(revision, transaction, result, f));
   return hashes;
@@ -91,7 +95,7 @@ export async function readRevision(ability: AppAbility, id: number, transaction?
   );
   // Independent of each other: asked together, so the database round trips overlap.
   const [currentHashes, names, inputIssues] = await Promise.all([
-    timed('hash', () => currentHashesOf(revision, signatures, transaction, result)),
+    timed('hash', () => currentHashesOf(revision, signatures, transaction, result, false)),
     timed('names', () => namesOf(findings, transaction)),
     timed('input', () => inputIssuesOf(revision)),
   ]);

@@ -9,15 +9,18 @@ import { signingFormatOf } from '../independent/signed-model';
 /**
  * What a new signature covers: the content in the current format, attachments included. A revision
  * still in format 1 (made before attachments were signed) moves to format 2 here; its earlier
- * signatures keep their format and are judged in it, so they verify exactly as before.
+ * signatures keep their format and are judged in it, so they verify exactly as before. `known`: the
+ * content's hash in one format, computed under this same transaction.
  */
 export async function signedContentFor(
   revision: Revision,
   transaction: Transaction,
+  known?: { format: number; hash: string | null },
 ): Promise<{ hash: string; format: number; attachments: SignedAttachment[] }> {
   const rows = await Attachment.findAll({ where: { revisionId: revision.id }, transaction });
   const format = await signingFormatOf(revision.id, CONTENT_FORMAT, transaction);
-  const hash = await currentHashOf(revision, transaction, undefined, format);
+  // The hash just recomputed in the same transaction (the integrity check) is the one to sign when its format is.
+  const hash = known?.format === format ? known.hash : await currentHashOf(revision, transaction, undefined, format);
   if (!hash) throw new AppError('integrity', 409, 'The revision has no result to sign');
   revision.contentFormat = format;
   revision.contentHash = hash;

@@ -6,6 +6,7 @@ import type { SignRequest } from '../../shared/schemas/revision.schema';
 import { Calc, Project, Revision, Signature } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
+import { timed } from '../http/server-timing';
 import { editorIdsOf, loadRevision, loadRevisionForChange } from '../calcs/calc-access';
 import { currentHashOf, readRevision } from '../calcs/revision-read';
 import type { Meaning } from './independence';
@@ -37,12 +38,20 @@ export class WorkflowService {
     // Why the signature cannot happen comes first, so a blocked signer never sees "wrong password"
     // beside it; the same check runs again under the transaction below.
     // A retried request (same key) skips this: the revision has already moved on by its own signature.
-    const retried = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey } });
-    if (!retried) {
+    // Server-Timing names the phases of a signature: checks, password, write (integrity, content, advance, facts,
+    // mail, the audit chain), then the read of the revision.
+    await timed('checks', async () => {
+      const retried = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey } });
+      if (retried) return;
       const revision = await loadRevisionForChange(revisionId);
       await assertMaySign(dto.meaning, signer, revision);
-    }
-    await checkSigningPassword(this.sequelize, signer, revisionId, dto);
+    });
+    await timed('password', () => checkSigningPassword(this.sequelize, signer, revisionId, dto));
+    await timed('write', () => this.signInTransaction(signer, revisionId, dto));
+    return readRevision(ability, revisionId);
+  }
+
+  private async signInTransaction(signer: Signer, revisionId: number, dto: SignRequest): Promise<void> {
     await runTransaction(
       this.sequelize,
       async (transaction) => {
@@ -59,7 +68,7 @@ export class WorkflowService {
         if (revision.lockVersion !== dto.lockVersion)
           throw AppError.conflict('The revision changed since you opened it; review the new content before signing');
         await assertMaySign(dto.meaning, signer, revision, transaction);
-        const hash = await currentHashOf(revision, transaction);
+        const hash = await timed('integrity', () => currentHashOf(revision, transaction));
         if (!hash || hash !== revision.contentHash)
           throw new AppError(
             'integrity',
@@ -70,7 +79,8 @@ export class WorkflowService {
           type: QueryTypes.SELECT,
           transaction,
         });
-        const signed = await signedContentFor(revision, transaction);
+        const known = { format: revision.contentFormat ?? 1, hash };
+        const signed = await timed('content', () => signedContentFor(revision, transaction, known));
         await Signature.create(
           {
             revisionId,
@@ -86,10 +96,12 @@ export class WorkflowService {
           },
           { transaction },
         );
-        await this.advance(revision, dto.meaning, signer, new Date(now), transaction);
-        if (dto.meaning === 'checked') await recordCheckFacts(this.sequelize, revisionId, transaction);
-        if (dto.meaning === 'approved')
-          await recordApprovalFacts(this.sequelize, revisionId, JSON.stringify(signed.attachments), transaction);
+        await timed('advance', () => this.advance(revision, dto.meaning, signer, new Date(now), transaction));
+        await timed('facts', async () => {
+          if (dto.meaning === 'checked') await recordCheckFacts(this.sequelize, revisionId, transaction);
+          if (dto.meaning === 'approved')
+            await recordApprovalFacts(this.sequelize, revisionId, JSON.stringify(signed.attachments), transaction);
+        });
         await appendAudit(
           this.sequelize,
           signer,
@@ -108,11 +120,10 @@ export class WorkflowService {
           },
           transaction,
         );
-        await this.mail(SIGNATURES[dto.meaning].event, revision, signer, transaction);
+        await timed('mail', () => this.mail(SIGNATURES[dto.meaning].event, revision, signer, transaction));
       },
       { idempotent: true },
     ); // a second run finds its own signature by the idempotency key
-    return readRevision(ability, revisionId);
   }
 
   /** The state change and stamps a signature makes, as the workflow table gives them. */

@@ -5,7 +5,7 @@ import {
   provideAppInitializer,
   provideBrowserGlobalErrorListeners,
 } from '@angular/core';
-import { provideRouter, withComponentInputBinding, withInMemoryScrolling } from '@angular/router';
+import { provideRouter, withComponentInputBinding, withInMemoryScrolling, withPreloading } from '@angular/router';
 import { provideHttpClient, withFetch, withInterceptors } from '@angular/common/http';
 import { MAT_FORM_FIELD_DEFAULT_OPTIONS } from '@angular/material/form-field';
 import { routes } from './app.routes';
@@ -14,12 +14,19 @@ import { errorInterceptor } from './core/http/error-interceptor';
 import { AppErrorHandler } from './core/errors/app-error-handler';
 import { provideAbility } from './core/authz/ability.providers';
 import { SessionStore } from './core/auth/session-store';
+import { IdlePreloading } from './core/idle-preloading';
+import { RoutePrefetch, prefetchInterceptor } from './core/http/route-prefetch';
 
 export const appConfig: ApplicationConfig = {
   providers: [
     provideBrowserGlobalErrorListeners(),
-    provideRouter(routes, withComponentInputBinding(), withInMemoryScrolling({ scrollPositionRestoration: 'top' })),
-    provideHttpClient(withFetch(), withInterceptors([csrfInterceptor, errorInterceptor])),
+    provideRouter(
+      routes,
+      withComponentInputBinding(),
+      withInMemoryScrolling({ scrollPositionRestoration: 'top' }),
+      withPreloading(IdlePreloading),
+    ),
+    provideHttpClient(withFetch(), withInterceptors([csrfInterceptor, errorInterceptor, prefetchInterceptor])),
     provideAbility(),
     { provide: ErrorHandler, useClass: AppErrorHandler },
     // Labels always sit above their box: an empty field's label would otherwise run into its unit (GPa, rpm) on a
@@ -28,7 +35,11 @@ export const appConfig: ApplicationConfig = {
       provide: MAT_FORM_FIELD_DEFAULT_OPTIONS,
       useValue: { appearance: 'outline', subscriptSizing: 'dynamic', floatLabel: 'always' },
     },
-    // Knowing who is signed in before the first route renders avoids a flash of the sign-in page.
-    provideAppInitializer(() => inject(SessionStore).load()),
+    // Knowing who is signed in before the first route renders avoids a flash of the sign-in page. Meanwhile the
+    // first screen's reads and scripts are already on their way (RoutePrefetch), not queued behind it.
+    provideAppInitializer(() => {
+      inject(RoutePrefetch).boot(routes, location.pathname, location.search);
+      return inject(SessionStore).load();
+    }),
   ],
 };

@@ -1,5 +1,7 @@
 import { Routes } from '@angular/router';
 import { abilityGuard, anonymousGuard, signedInGuard } from './core/auth/auth-guard';
+import { PREFETCH } from './core/http/route-prefetch';
+import { calcPageReads, editorReads, overviewReads } from './route-reads';
 
 export const routes: Routes = [
   {
@@ -17,6 +19,7 @@ export const routes: Routes = [
         path: '',
         pathMatch: 'full',
         title: 'Overview · Torquetrail',
+        data: { [PREFETCH]: overviewReads },
         loadComponent: () => import('./features/dashboard/dashboard'),
       },
       {
@@ -34,6 +37,7 @@ export const routes: Routes = [
       {
         path: 'calcs/:id',
         title: 'Calc · Torquetrail',
+        data: { [PREFETCH]: calcPageReads },
         canActivate: [abilityGuard('read', 'Calc')],
         loadComponent: () => import('./features/calcs/calc-page/calc-page'),
       },
@@ -58,6 +62,7 @@ export const routes: Routes = [
       {
         path: 'revisions/:id/edit',
         title: 'Calc editor · Torquetrail',
+        data: { [PREFETCH]: editorReads },
         canDeactivate: [(page: { confirmLeave(): boolean | Promise<boolean> }) => page.confirmLeave()],
         loadComponent: () => import('./features/calcs/editor/revision-editor'),
       },

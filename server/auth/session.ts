@@ -55,7 +55,7 @@ export function sessionMiddleware(
   store.touch = (sid, data, callback) => {
     const next = data.cookie.expires ? new Date(data.cookie.expires).getTime() : undefined;
     const stored = storedExpiry.get(sid);
-    if (next !== undefined && stored !== undefined && next - stored < touchStepMs) return callback?.();
+    if (next !== undefined && stored !== undefined && next - stored < touchStepMs) return callback?.(null);
     if (next !== undefined) storedExpiry.set(sid, next);
     return touch(sid, data, callback);
   };

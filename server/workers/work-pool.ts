@@ -17,13 +17,16 @@ export interface WorkPoolLimits {
  * The pool of worker threads for heavy work (piscina). It bounds concurrency (threads), memory
  * (each worker's heap limit) and waiting (queue length), so four large evidence packs and four
  * reports at once leave the event loop free for everyone else's requests.
+ * Each thread loads heavy-work.ts through tsx (heavy-work.entry.cjs). HEAVY_WORK_BUNDLE may name a prebuilt CommonJS
+ * bundle of heavy-work.ts instead: the tests build one per run (test/support/bundle.ts), which saves tsx's compile
+ * in every thread they start (DEVELOPERS.md, "Tests").
  */
 export class WorkPool {
   private readonly pool: Piscina;
 
   constructor(limits: WorkPoolLimits) {
     this.pool = new Piscina({
-      filename: path.join(__dirname, 'heavy-work.entry.cjs'),
+      filename: process.env.HEAVY_WORK_BUNDLE || path.join(__dirname, 'heavy-work.entry.cjs'),
       minThreads: 0,
       maxThreads: limits.threads,
       maxQueue: limits.queue,

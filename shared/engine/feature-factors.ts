@@ -38,8 +38,9 @@ function tableRangeWarning(ft: FeatureInput, g: FeatureGeometry, path: string, w
       path,
       message:
         `the Table 7-1 ring-groove factors are for standard retaining-ring grooves (depth up to ` +
-        `${100 * RING_GROOVE_LIMITS.depthOverD} % of d, root radius up to ${RING_GROOVE_LIMITS.rOverDepth} × depth); this groove has ` +
-        `depth/d = ${f(depth / g.seg.od, 3)} and r/depth = ${f(g.r / depth, 3)}: enter Kt and Kts from a chart for its shape`,
+        `${100 * RING_GROOVE_LIMITS.depthOverD} % of d, root radius up to ${RING_GROOVE_LIMITS.rOverDepth} × depth); ` +
+        `this groove has depth/d = ${f(depth / g.seg.od, 3)} and r/depth = ${f(g.r / depth, 3)}: ` +
+        'enter Kt and Kts from a chart for its shape',
     });
   }
 }

@@ -97,7 +97,9 @@ function nortonTorsion(
   if (!nortonRdInRange(rd) && ft.Kts === undefined) {
     warn.push({
       path,
-      message: `r/d = ${f(rd)} is outside ${NORTON_RD_RANGE.join('–')}, the span of Norton's fillet charts; Kts from the fit is extrapolated`,
+      message:
+        `r/d = ${f(rd)} is outside ${NORTON_RD_RANGE.join('–')}, the span of Norton's fillet charts; ` +
+        'Kts from the fit is extrapolated',
     });
   }
   return { Kt, Kts: tors.value, ktMethod: NORTON_BENDING_METHOD, ktsMethod: NORTON_TORSION_METHOD };

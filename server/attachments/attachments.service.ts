@@ -1,10 +1,9 @@
 import { createHash } from 'node:crypto';
 import { ForbiddenError } from '@casl/ability';
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { AttachmentDto, AttachmentListDto, UploadFields } from '../../shared/schemas/attachment.schema';
-import { EDITABLE_STATES } from '../../shared/schemas/revision.schema';
-import { Attachment, Revision } from '../db/models';
+import { Attachment } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { loadRevision, loadRevisionForChange } from '../calcs/calc-access';
@@ -12,13 +11,22 @@ import { ObjectStore } from './object-store';
 import { refreshAfterAttachmentChange } from '../workflow/signed-content';
 import { ACCEPTED_TYPE_NAMES, detectMediaType } from './content-type';
 import { assertDeclaredKind } from './declared-kind';
-import { READ_ONLY_STATES, cleanFileName, mayAddFiles, toAttachmentDto } from './attachment-access';
+import { assertMayAdd, assertMayRemove, cleanFileName, mayAddFiles, toAttachmentDto } from './attachment-access';
 import { isProjectArchived } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
 
 export interface UploadedFile {
   buffer: Buffer;
   originalname: string;
+}
+
+/** An upload once its content is checked and its bytes stored under `key`. */
+interface CheckedUpload {
+  file: UploadedFile;
+  fields: UploadFields;
+  mediaType: string;
+  sha256: string;
+  key: string;
 }
 
 /** Drawings, certificates and supporting files of a revision: checked by content, stored by hash. */
@@ -53,50 +61,60 @@ export class AttachmentsService {
     assertDeclaredKind(file.originalname, fields.kind, mediaType);
     const sha256 = createHash('sha256').update(file.buffer).digest('hex');
     const key = ObjectStore.keyFor(sha256);
-    this.assertMayAdd(ability, await loadRevisionForChange(revisionId));
+    assertMayAdd(ability, await loadRevisionForChange(revisionId));
     // Bytes first: an orphaned blob after a failed insert is harmless, a row without bytes is not.
     await this.store.putIfAbsent(key, file.buffer, mediaType);
-    const id = await runTransaction(this.sequelize, async (transaction) => {
-      const revision = await loadRevisionForChange(revisionId, transaction);
-      this.assertMayAdd(ability, revision);
-      const row = await Attachment.create(
-        {
-          revisionId,
-          kind: fields.kind,
-          fileName: cleanFileName(file.originalname),
-          mediaType,
-          sizeBytes: file.buffer.length,
-          sha256,
-          storageKey: key,
-          note: fields.note,
-          uploadedBy: actor.id,
-          uploadedByName: actor.name,
-        },
-        { transaction },
-      );
-      await refreshAfterAttachmentChange(revision, transaction);
-      await appendAudit(
-        this.sequelize,
-        actor,
-        {
-          action: 'attachment.added',
-          entityType: 'Revision',
-          entityId: revisionId,
-          payload: {
-            attachmentId: row.id,
-            kind: row.kind,
-            fileName: row.fileName,
-            mediaType,
-            sizeBytes: row.sizeBytes,
-            sha256,
-            contentHash: revision.contentHash,
-          },
-        },
-        transaction,
-      );
-      return row.id;
-    });
+    const id = await runTransaction(this.sequelize, (transaction) =>
+      this.addInTransaction(ability, actor, revisionId, { file, fields, mediaType, sha256, key }, transaction),
+    );
     return toAttachmentDto((await Attachment.findByPk(id))!);
+  }
+
+  private async addInTransaction(
+    ability: AppAbility,
+    actor: Actor & { id: number },
+    revisionId: number,
+    { file, fields, mediaType, sha256, key }: CheckedUpload,
+    transaction: Transaction,
+  ): Promise<number> {
+    const revision = await loadRevisionForChange(revisionId, transaction);
+    assertMayAdd(ability, revision);
+    const row = await Attachment.create(
+      {
+        revisionId,
+        kind: fields.kind,
+        fileName: cleanFileName(file.originalname),
+        mediaType,
+        sizeBytes: file.buffer.length,
+        sha256,
+        storageKey: key,
+        note: fields.note,
+        uploadedBy: actor.id,
+        uploadedByName: actor.name,
+      },
+      { transaction },
+    );
+    await refreshAfterAttachmentChange(revision, transaction);
+    await appendAudit(
+      this.sequelize,
+      actor,
+      {
+        action: 'attachment.added',
+        entityType: 'Revision',
+        entityId: revisionId,
+        payload: {
+          attachmentId: row.id,
+          kind: row.kind,
+          fileName: row.fileName,
+          mediaType,
+          sizeBytes: row.sizeBytes,
+          sha256,
+          contentHash: revision.contentHash,
+        },
+      },
+      transaction,
+    );
+    return row.id;
   }
 
   async download(ability: AppAbility, id: number): Promise<{ attachment: AttachmentDto; bytes: Buffer }> {
@@ -106,24 +124,13 @@ export class AttachmentsService {
     return { attachment: toAttachmentDto(row), bytes: await this.store.get(row.storageKey) };
   }
 
-  /** The uploader or the revision's author removes a file, and only before the revision is submitted. */
+  /** Removing a file changes the revision's content hash, like adding one (see `assertMayRemove` for who and when). */
   async remove(ability: AppAbility, actor: Actor & { id: number }, id: number): Promise<void> {
     await runTransaction(this.sequelize, async (transaction) => {
       const row = await Attachment.findByPk(id, { transaction });
       if (!row) throw AppError.notFound(`Attachment ${id}`);
       const revision = await loadRevisionForChange(row.revisionId, transaction);
-      if (READ_ONLY_STATES.includes(revision.status)) throw this.readOnly(revision, 'removed');
-      if (!EDITABLE_STATES.includes(revision.status))
-        throw AppError.conflict(
-          `Files are removed only before submission; revision ${revision.label} is ${revision.status.replace('_', ' ')}`,
-        );
-      // The author answers for every file of their draft, so they can take out one a co-editor attached by mistake.
-      if (row.uploadedBy !== actor.id && revision.authorId !== actor.id)
-        throw new AppError(
-          'forbidden',
-          403,
-          'Only the person who attached a file, or the author of the revision, can remove it',
-        );
+      assertMayRemove(actor.id, row, revision);
       await row.destroy({ transaction });
       await refreshAfterAttachmentChange(revision, transaction);
       await appendAudit(
@@ -147,26 +154,6 @@ export class AttachmentsService {
   }
 
   async assertMayAddTo(ability: AppAbility, revisionId: number): Promise<void> {
-    this.assertMayAdd(ability, await loadRevisionForChange(revisionId));
-  }
-
-  private assertMayAdd(ability: AppAbility, revision: Revision): void {
-    if (READ_ONLY_STATES.includes(revision.status)) throw this.readOnly(revision, 'added');
-    if (!mayAddFiles(ability, revision)) {
-      throw new AppError(
-        'forbidden',
-        403,
-        'Files are added by the author while editing, or by the independent checker or approver while reviewing',
-      );
-    }
-  }
-
-  private readOnly(revision: Revision, verb: string): AppError {
-    const state = revision.status.replace('_', ' ');
-    return new AppError(
-      'read_only',
-      409,
-      `Revision ${revision.label} is ${state}; its attachments are read-only and none can be ${verb}. Start a new revision to change them.`,
-    );
+    assertMayAdd(ability, await loadRevisionForChange(revisionId));
   }
 }

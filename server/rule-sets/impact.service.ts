@@ -1,64 +1,23 @@
 import { placeOf } from '../../shared/engine/field-places';
 import { ForbiddenError } from '@casl/ability';
 import { Op, type Sequelize } from 'sequelize';
-import { CAUTION, evaluateValidInput, validateCalcInput } from '../../shared/engine';
-import { applyRuleSetMethods, diffRuleSets, evaluateChecklist, type RuleSet } from '../../shared/rules';
-import type { OutcomeSummary } from '../../shared/schemas/outcome';
-import { outcomeUnder, storedOutcome } from './impact-compare';
+import { evaluateValidInput, validateCalcInput } from '../../shared/engine';
+import { applyRuleSetMethods, diffRuleSets, evaluateChecklist } from '../../shared/rules';
+import { impactRowOf, type ScannedRevision } from './impact-compare';
+import { impactCsv, impactMail } from './impact-report';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { ImpactReport, ImpactRow } from '../../shared/schemas/rule-set.schema';
 import { Calc, Project, Revision, RuleSetRecord } from '../db/models';
 import { AppError } from '../errors/app-error';
-import { toCsv, type CsvColumn } from '../http/csv';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { enqueueMail, emailsOfRole } from '../mail/outbox';
-import { appLink } from '../mail/links';
 import { loadRuleSet } from './rule-set-cache';
 import { readRevision } from '../calcs/revision-read';
 import { runTransaction } from '../db/transaction';
 
 const BATCH = 1000;
 
-/**
- * Mandatory rows that fail under one version but not under the other, each with its clause title
- * (from the new version where it exists there). Keys are "clause|location|status".
- */
-export function changedClauses(before: OutcomeSummary, after: OutcomeSummary, doc: RuleSet): ImpactRow['clauses'] {
-  const strip = (key: string) => key.split('|').slice(0, 2).join('|');
-  const was = new Map(before.failing.map((k) => [strip(k), k.split('|')[2]]));
-  const now = new Map(after.failing.map((k) => [strip(k), k.split('|')[2]]));
-  const titles = new Map(doc.clauses.map((c) => [c.id, c.title]));
-  return [...new Set([...was.keys(), ...now.keys()])]
-    .filter((k) => was.has(k) !== now.has(k))
-    .map((k) => {
-      const [clauseId, location] = k.split('|');
-      return {
-        clauseId,
-        location,
-        title: titles.get(clauseId) ?? '(not in this version)',
-        before: was.get(k) ?? 'pass',
-        after: now.get(k) ?? 'pass',
-      };
-    });
-}
-
 /** Impact analysis: which approved calcs would change verdict under another version of a standard. */
-/** Impact CSV columns: titles and clause texts are people's words, so the CSV writer neutralises them. */
-const IMPACT_COLUMNS: CsvColumn<ImpactRow>[] = [
-  { header: 'project', value: (r) => r.projectCode },
-  { header: 'calc', value: (r) => r.number },
-  { header: 'title', value: (r) => r.title },
-  { header: 'revision', value: (r) => r.revision },
-  { header: 'approved at (UTC, ISO 8601)', value: (r) => r.approvedAt },
-  { header: 'verdict before', value: (r) => r.before },
-  { header: 'verdict after', value: (r) => r.after },
-  { header: 'clauses that change (count)', value: (r) => r.clauses.length, numeric: true },
-  {
-    header: 'clauses that change',
-    value: (r) => r.clauses.map((c) => `${c.clauseId} ${c.location}: ${c.before}→${c.after}`).join('; '),
-  },
-];
-
 export class ImpactService {
   constructor(private readonly sequelize: Sequelize) {}
 
@@ -76,24 +35,13 @@ export class ImpactService {
     );
     const rows: ImpactRow[] = [];
     let evaluated = 0;
-    for (let lastId = 0; ;) {
-      // Only the input and the compact outcome are read: full results and checklists are large.
-      const batch = await Revision.findAll({
-        attributes: ['id', 'calcId', 'label', 'input', 'verdict', 'outcome', 'approvedAt'],
-        where: { status: 'approved', ruleSetId: { [Op.in]: versionIds }, id: { [Op.gt]: lastId } },
-        include: [
-          { model: Calc, attributes: ['id', 'number', 'title'], include: [{ model: Project, attributes: ['code'] }] },
-        ],
-        order: [['id', 'ASC']],
-        limit: BATCH,
-      });
-      if (batch.length === 0) break;
-      lastId = batch[batch.length - 1].id;
+    for (let batch = await approvedBatch(versionIds, 0); batch.length > 0;) {
+      evaluated += batch.length;
       for (const revision of batch) {
-        evaluated++;
-        const row = this.compare(revision as Revision & { Calc: Calc & { Project: Project } }, doc);
+        const row = impactRowOf(revision, doc);
         if (row) rows.push(row);
       }
+      batch = await approvedBatch(versionIds, batch[batch.length - 1].id);
     }
     return {
       ruleSet: { id: record.id, code: record.code, version: record.version },
@@ -104,31 +52,8 @@ export class ImpactService {
     };
   }
 
-  /** A row when the verdict changes; the clauses behind it are the mandatory rows that flip. */
-  private compare(revision: Revision & { Calc: Calc & { Project: Project } }, doc: RuleSet): ImpactRow | null {
-    const before = storedOutcome(revision.outcome, revision.verdict);
-    const after = outcomeUnder(JSON.parse(revision.input), doc);
-    if (before.verdict === after.verdict) return null;
-    const c = revision.Calc;
-    return {
-      calcId: c.id,
-      revisionId: revision.id,
-      projectCode: c.Project.code,
-      number: c.number,
-      title: c.title,
-      revision: revision.label,
-      approvedAt: revision.approvedAt ? revision.approvedAt.toISOString() : null,
-      before: before.verdict,
-      after: after.verdict,
-      clauses: changedClauses(before, after, doc),
-    };
-  }
-
   async csv(ability: AppAbility, ruleSetId: number): Promise<string> {
-    const report = await this.analyse(ability, ruleSetId);
-    // Header first so spreadsheet tools read the columns; the summary and the caution close the file.
-    const summary = `${report.evaluated} approved revisions re-evaluated under ${report.ruleSet.code} v${report.ruleSet.version}; ${report.changed} change verdict`;
-    return toCsv(IMPACT_COLUMNS, report.rows, [summary, CAUTION]);
+    return impactCsv(await this.analyse(ability, ruleSetId));
   }
 
   async diff(ability: AppAbility, fromId: number, toId: number) {
@@ -168,19 +93,8 @@ export class ImpactService {
     const report = await this.run(record.id);
     if (report.changed === 0) return;
     await runTransaction(this.sequelize, async (transaction) => {
-      const list = report.rows
-        .slice(0, 50)
-        .map((r) => `- ${r.projectCode} ${r.number} rev ${r.revision}: ${r.before} → ${r.after}`)
-        .join('\n');
-      await enqueueMail(
-        await emailsOfRole('compliance', [], transaction),
-        {
-          event: 'impact',
-          subject: `${record.code} v${record.version} changes the verdict of ${report.changed} approved calc(s)`,
-          body: `${record.code} v${record.version} is now effective (${actor.id === null ? `in force from its effective date, ${record.effectiveDate}` : `confirmed by ${actor.name}`}). Re-evaluated ${report.evaluated} approved calcs; ${report.changed} change:\n\n${list}\n\nImpact report: ${appLink(`/rule-sets/${record.id}`)}\n\n${CAUTION}`,
-        },
-        transaction,
-      );
+      const to = await emailsOfRole('compliance', [], transaction);
+      await enqueueMail(to, { event: 'impact', ...impactMail(record, report, actor) }, transaction);
       await appendAudit(
         this.sequelize,
         actor,
@@ -194,4 +108,19 @@ export class ImpactService {
       );
     });
   }
+}
+
+/** The next approved revisions after `lastId` under any of the versions, read in id order a batch at a time. */
+async function approvedBatch(versionIds: number[], lastId: number): Promise<ScannedRevision[]> {
+  // Only the input and the compact outcome are read: full results and checklists are large.
+  const batch = await Revision.findAll({
+    attributes: ['id', 'calcId', 'label', 'input', 'verdict', 'outcome', 'approvedAt'],
+    where: { status: 'approved', ruleSetId: { [Op.in]: versionIds }, id: { [Op.gt]: lastId } },
+    include: [
+      { model: Calc, attributes: ['id', 'number', 'title'], include: [{ model: Project, attributes: ['code'] }] },
+    ],
+    order: [['id', 'ASC']],
+    limit: BATCH,
+  });
+  return batch as ScannedRevision[];
 }

@@ -6,9 +6,7 @@ import { appendAudit, type Actor } from '../audit/audit.service';
 import { verifyPassword } from '../auth/password';
 import { documentHash } from './rule-set-mapping';
 import { runTransaction } from '../db/transaction';
-import { assertDraft, loadRuleSet, todayUtc } from './rule-set-records';
-
-type Person = Actor & { id: number };
+import { assertDraft, loadRuleSet, todayUtc, type Person } from './rule-set-records';
 
 /**
  * How a proposed version comes into force: a second compliance user confirms it with their password, and on its

@@ -5,6 +5,10 @@ import type { RuleSet } from '../../shared/rules/rule-set-schema';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import { RuleSetRecord, User } from '../db/models';
 import { AppError } from '../errors/app-error';
+import type { Actor } from '../audit/audit.service';
+
+/** A signed-in compliance user acting on a design standard. */
+export type Person = Actor & { id: number };
 
 /** One design standard version, locked for the transaction's update when asked; 404 when there is none. */
 export async function loadRuleSet(id: number, transaction?: Transaction, lock = false): Promise<RuleSetRecord> {

@@ -1,23 +1,20 @@
-import { ForbiddenError, subject } from '@casl/ability';
+import { ForbiddenError } from '@casl/ability';
 import type { Sequelize } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { RuleSetDto, RuleSetSummary } from '../../shared/schemas/rule-set.schema';
 import { RuleSetRecord } from '../db/models';
-import { AppError } from '../errors/app-error';
-import { appendAudit, type Actor } from '../audit/audit.service';
-import { jsonDiff } from '../calcs/content-diff';
-import { documentHash, toRuleSetDto, toRuleSetSummary } from './rule-set-mapping';
-import { runTransaction } from '../db/transaction';
-import { assertDraft, loadRuleSet, namesOf, validDocument } from './rule-set-records';
+import type { Actor } from '../audit/audit.service';
+import { toRuleSetDto, toRuleSetSummary } from './rule-set-mapping';
+import { loadRuleSet, namesOf, type Person } from './rule-set-records';
+import { RuleSetDrafts } from './rule-set-drafts';
 import { RuleSetPublication } from './rule-set-publication';
-
-type Person = Actor & { id: number };
 
 /**
  * Design standards as controlled documents. Compliance drafts a new version, proposes it with an
  * effective date, and a second compliance user confirms it; effective and retired versions are frozen.
  */
 export class RuleSetsService {
+  private readonly drafts: RuleSetDrafts;
   private readonly publication: RuleSetPublication;
 
   /** `onEffective` hears of every version that comes into force (impact mail to compliance). */
@@ -25,6 +22,7 @@ export class RuleSetsService {
     private readonly sequelize: Sequelize,
     onEffective?: (actor: Actor, id: number) => Promise<void>,
   ) {
+    this.drafts = new RuleSetDrafts(sequelize);
     this.publication = new RuleSetPublication(sequelize, onEffective);
   }
 
@@ -50,48 +48,7 @@ export class RuleSetsService {
   }
 
   async createDraft(ability: AppAbility, actor: Person, fromId: number): Promise<RuleSetDto> {
-    ForbiddenError.from(ability)
-      .setMessage('Only compliance drafts design standards')
-      .throwUnlessCan('create', subject('RuleSet', { status: 'draft' }));
-    const id = await runTransaction(this.sequelize, async (transaction) => {
-      const from = await loadRuleSet(fromId, transaction);
-      const latest = await RuleSetRecord.max<number, RuleSetRecord>('version', {
-        where: { code: from.code },
-        transaction,
-      });
-      const doc = {
-        ...JSON.parse(from.document),
-        version: latest + 1,
-        status: 'draft',
-        effectiveDate: null,
-        changeSummary: '',
-      };
-      const record = await RuleSetRecord.create(
-        {
-          code: from.code,
-          version: latest + 1,
-          title: from.title,
-          effectiveDate: null,
-          document: JSON.stringify(doc),
-          contentHash: documentHash(doc),
-          createdBy: actor.id,
-        },
-        { transaction },
-      );
-      await appendAudit(
-        this.sequelize,
-        actor,
-        {
-          action: 'rule_set.drafted',
-          entityType: 'RuleSet',
-          entityId: record.id,
-          payload: { code: from.code, version: latest + 1, from: from.version },
-        },
-        transaction,
-      );
-      return record.id;
-    });
-    return this.get(ability, id);
+    return this.get(ability, await this.drafts.create(ability, actor, fromId));
   }
 
   async updateDraft(
@@ -101,41 +58,7 @@ export class RuleSetsService {
     document: Record<string, unknown>,
     lockVersion: number,
   ): Promise<RuleSetDto> {
-    await runTransaction(this.sequelize, async (transaction) => {
-      const record = await loadRuleSet(id, transaction, true);
-      assertDraft(ability, record, 'update');
-      if (record.lockVersion !== lockVersion)
-        throw AppError.conflict('Someone else saved this draft since you opened it; reload to see their version');
-      // Identity fields belong to the record, not to what the editor sends.
-      const doc = { ...document, code: record.code, version: record.version, status: 'draft' };
-      const checked = { value: validDocument(doc) };
-      const diff = jsonDiff(
-        JSON.parse(record.document),
-        checked.value,
-        `${record.code} v${record.version} (saved)`,
-        `${record.code} v${record.version} (new)`,
-      );
-      record.set({
-        document: JSON.stringify(checked.value),
-        title: String(checked.value.title),
-        contentHash: documentHash(checked.value),
-        proposedBy: null,
-        effectiveDate: null,
-      });
-      await record.save({ transaction });
-      await appendAudit(
-        this.sequelize,
-        actor,
-        {
-          action: 'rule_set.saved',
-          entityType: 'RuleSet',
-          entityId: id,
-          payload: { code: record.code, version: record.version },
-          diff,
-        },
-        transaction,
-      );
-    });
+    await this.drafts.save(ability, actor, id, document, lockVersion);
     return this.get(ability, id);
   }
 
@@ -146,27 +69,7 @@ export class RuleSetsService {
     effectiveDate: string,
     lockVersion: number,
   ): Promise<RuleSetDto> {
-    await runTransaction(this.sequelize, async (transaction) => {
-      const record = await loadRuleSet(id, transaction, true);
-      assertDraft(ability, record, 'publish');
-      if (record.lockVersion !== lockVersion)
-        throw AppError.conflict('The draft changed since you opened it; review it again');
-      // Only a complete, valid document can be proposed (a fresh draft still lacks its change summary).
-      validDocument(JSON.parse(record.document));
-      record.set({ proposedBy: actor.id, effectiveDate });
-      await record.save({ transaction });
-      await appendAudit(
-        this.sequelize,
-        actor,
-        {
-          action: 'rule_set.proposed',
-          entityType: 'RuleSet',
-          entityId: id,
-          payload: { code: record.code, version: record.version, effectiveDate },
-        },
-        transaction,
-      );
-    });
+    await this.drafts.propose(ability, actor, id, effectiveDate, lockVersion);
     return this.get(ability, id);
   }
 

@@ -5,10 +5,11 @@ import { SIGNING_ROLES, type Role } from '../../shared/authz/roles';
 import type { RoleGrantDto } from '../../shared/schemas/role-grant.schema';
 import { RoleGrant, User, UserRole } from '../db/models';
 import { AppError } from '../errors/app-error';
-import { appendAudit, type Actor } from '../audit/audit.service';
+import type { Actor } from '../audit/audit.service';
 import { runTransaction } from '../db/transaction';
 import { verifyPassword } from '../auth/password';
-import { queueRoleChangeMail, type RoleChange } from './role-change-mail';
+import { recordRoleChange, type RoleChangeFacts } from './role-change-record';
+import { toRoleGrantDtos } from './role-grant-dto';
 
 type Person = Actor & { id: number };
 
@@ -29,20 +30,20 @@ export class RoleGrantsService {
     for (const role of current) {
       if (desired.includes(role)) continue;
       await UserRole.destroy({ where: { userId: user.id, role }, transaction });
-      await this.record(actor, 'removed', user, role, null, transaction);
+      await this.record(actor, { change: 'removed', user, role, grantId: null }, transaction);
       changed = true;
     }
     for (const grant of pending.filter((g) => !desired.includes(g.role))) {
       await grant.update({ status: 'withdrawn', decidedBy: actor.id, decidedAt: new Date() }, { transaction });
-      await this.record(actor, 'withdrawn', user, grant.role, grant.id, transaction);
+      await this.record(actor, { change: 'withdrawn', user, role: grant.role, grantId: grant.id }, transaction);
     }
     for (const role of desired.filter((r) => !current.has(r) && !pendingRoles.has(r))) {
       if (SIGNING_ROLES.includes(role)) {
         const grant = await RoleGrant.create({ userId: user.id, role, requestedBy: actor.id }, { transaction });
-        await this.record(actor, 'requested', user, role, grant.id, transaction);
+        await this.record(actor, { change: 'requested', user, role, grantId: grant.id }, transaction);
       } else {
         await UserRole.create({ userId: user.id, role }, { transaction });
-        await this.record(actor, 'granted', user, role, null, transaction);
+        await this.record(actor, { change: 'granted', user, role, grantId: null }, transaction);
         changed = true;
       }
     }
@@ -60,7 +61,7 @@ export class RoleGrantsService {
         ['id', 'ASC'],
       ],
     });
-    return this.toDtos(grants);
+    return toRoleGrantDtos(grants);
   }
 
   async pendingRolesOf(userIds: number[]): Promise<Map<number, Role[]>> {
@@ -87,6 +88,10 @@ export class RoleGrantsService {
     return this.decide(ability, actor, grantId, 'refused', reason);
   }
 
+  private record(actor: Person, facts: RoleChangeFacts, transaction: Transaction): Promise<void> {
+    return recordRoleChange(this.sequelize, actor, facts, transaction);
+  }
+
   private async decide(
     ability: AppAbility,
     actor: Person,
@@ -97,14 +102,7 @@ export class RoleGrantsService {
     const found = await RoleGrant.findByPk(grantId);
     if (!found) throw AppError.notFound(`Role request ${grantId}`);
     await runTransaction(this.sequelize, async (transaction) => {
-      // The person's row first, then the request: the same order as a role change, so the two never deadlock.
-      const user = await User.findByPk(found.userId, {
-        include: [{ model: UserRole, as: 'roleRows' }],
-        transaction,
-        lock: transaction.LOCK.UPDATE,
-      });
-      const grant = await RoleGrant.findByPk(grantId, { transaction, lock: transaction.LOCK.UPDATE });
-      if (!user || !grant) throw AppError.notFound(`Role request ${grantId}`);
+      const { user, grant } = await lockPersonAndGrant(found.userId, grantId, transaction);
       assertMayDecide(ability, actor, grant);
       if (grant.status !== 'pending') throw AppError.conflict(`This request was already ${grant.status}`);
       await grant.update({ status, decidedBy: actor.id, decidedAt: new Date() }, { transaction });
@@ -114,72 +112,28 @@ export class RoleGrantsService {
         user.changed('updatedAt', true);
         await user.save({ transaction });
       }
-      await this.record(
-        actor,
-        status === 'confirmed' ? 'granted' : 'refused',
-        user,
-        grant.role,
-        grant.id,
-        transaction,
-        reason,
-      );
+      const change = status === 'confirmed' ? 'granted' : 'refused';
+      await this.record(actor, { change, user, role: grant.role, grantId: grant.id, reason }, transaction);
     });
-    const [dto] = await this.toDtos([(await RoleGrant.findByPk(grantId))!]);
+    const [dto] = await toRoleGrantDtos([(await RoleGrant.findByPk(grantId))!]);
     return dto;
   }
+}
 
-  private async record(
-    actor: Person,
-    change: RoleChange,
-    user: User,
-    role: Role,
-    grantId: number | null,
-    transaction: Transaction,
-    reason?: string,
-  ) {
-    const action = {
-      requested: 'user.role_requested',
-      granted: 'user.role_granted',
-      refused: 'user.role_refused',
-      withdrawn: 'user.role_request_withdrawn',
-      removed: 'user.role_removed',
-    }[change];
-    await appendAudit(
-      this.sequelize,
-      actor,
-      {
-        action,
-        entityType: 'User',
-        entityId: user.id,
-        payload: {
-          username: user.username,
-          role,
-          ...(grantId ? { request: grantId } : {}),
-          ...(reason ? { reason } : {}),
-        },
-      },
-      transaction,
-    );
-    await queueRoleChangeMail(change, role, `${user.displayName} (${user.username})`, actor.name, transaction, reason);
-  }
-
-  private async toDtos(grants: RoleGrant[]): Promise<RoleGrantDto[]> {
-    const ids = [...new Set(grants.flatMap((g) => [g.userId, g.requestedBy, ...(g.decidedBy ? [g.decidedBy] : [])]))];
-    const people = new Map(
-      (await User.findAll({ where: { id: { [Op.in]: ids.length ? ids : [0] } } })).map((u) => [u.id, u]),
-    );
-    const ref = (id: number) => ({ id, name: people.get(id)?.displayName ?? 'unknown' });
-    return grants.map((g) => ({
-      id: g.id,
-      user: { ...ref(g.userId), username: people.get(g.userId)?.username ?? '' },
-      role: g.role,
-      status: g.status,
-      requestedBy: ref(g.requestedBy),
-      requestedAt: g.createdAt.toISOString(),
-      decidedBy: g.decidedBy ? ref(g.decidedBy) : null,
-      decidedAt: g.decidedAt ? g.decidedAt.toISOString() : null,
-    }));
-  }
+/** The person's row first, then the request: the same order as a role change, so the two never deadlock. */
+async function lockPersonAndGrant(
+  userId: number,
+  grantId: number,
+  transaction: Transaction,
+): Promise<{ user: User; grant: RoleGrant }> {
+  const user = await User.findByPk(userId, {
+    include: [{ model: UserRole, as: 'roleRows' }],
+    transaction,
+    lock: transaction.LOCK.UPDATE,
+  });
+  const grant = await RoleGrant.findByPk(grantId, { transaction, lock: transaction.LOCK.UPDATE });
+  if (!user || !grant) throw AppError.notFound(`Role request ${grantId}`);
+  return { user, grant };
 }
 
 function assertMayDecide(ability: AppAbility, actor: Person, grant: RoleGrant): void {

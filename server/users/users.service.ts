@@ -1,7 +1,6 @@
 import { ForbiddenError, subject } from '@casl/ability';
-import { Op, type Sequelize } from 'sequelize';
+import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
-import type { Role } from '../../shared/authz/roles';
 import type { Page, PageQuery } from '../../shared/schemas/common.schema';
 import type { CreateUserRequest, UpdateUserRequest, UserDto } from '../../shared/schemas/user.schema';
 import { User, UserRole, Session } from '../db/models';
@@ -10,6 +9,7 @@ import { accessibleWhere } from '../authz/accessible-where';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { hashPassword } from '../auth/password';
 import { toUserDto } from './user-dto';
+import { applyUserUpdate, pendingOf } from './user-update';
 import { RoleGrantsService } from './role-grants.service';
 import { runTransaction } from '../db/transaction';
 
@@ -90,42 +90,7 @@ export class UsersService {
   async update(ability: AppAbility, actor: Actor, id: number, dto: UpdateUserRequest): Promise<UserDto> {
     await runTransaction(this.sequelize, async (transaction) => {
       const user = await this.load(id, transaction);
-      const before = toUserDto(user);
-      // Checked before the version and even when no field is given, so a bare `{ version }` is no back door.
-      ForbiddenError.from(ability).throwUnlessCan('update', subject('User', before));
-      if (user.version !== dto.version)
-        throw AppError.conflict(`User ${user.username} was changed by someone else; reload and try again`);
-      const rolesChange = dto.roles && !sameRoles(dto.roles, [...before.roles, ...(await this.pendingOf(id))]);
-      if (rolesChange && actor.id === id)
-        throw new AppError('own_roles', 403, 'Nobody changes their own roles; ask another administrator');
-      const fields = (['displayName', 'email', 'secondFactorRequired'] as const).filter((f) => dto[f] !== undefined);
-      for (const field of [...fields, ...(rolesChange ? ['roles' as const] : [])])
-        ForbiddenError.from(ability).throwUnlessCan('update', subject('User', before), field);
-      if (rolesChange) {
-        ForbiddenError.from(ability).throwUnlessCan('assignRoles', subject('User', before));
-        await this.grants.changeRoles(actor as Actor & { id: number }, user, dto.roles!, transaction);
-      }
-      user.set({
-        displayName: dto.displayName ?? user.displayName,
-        email: dto.email ?? user.email,
-        totpRequired: dto.secondFactorRequired ?? user.totpRequired,
-      });
-      user.changed('updatedAt', true);
-      await user.save({ transaction });
-      // Role changes have their own audit entries (requested, granted, removed), one per role.
-      const after = { ...before, ...dto };
-      if (fields.length)
-        await appendAudit(
-          this.sequelize,
-          actor,
-          {
-            action: 'user.updated',
-            entityType: 'User',
-            entityId: id,
-            payload: { before: pick(before, fields), after: pick(after, fields) },
-          },
-          transaction,
-        );
+      await applyUserUpdate(this.sequelize, this.grants, { ability, actor }, user, dto, transaction);
     });
     return this.dto(await this.load(id));
   }
@@ -155,15 +120,11 @@ export class UsersService {
     return this.dto(await this.load(id));
   }
 
-  private async pendingOf(id: number): Promise<Role[]> {
-    return (await this.grants.pendingRolesOf([id])).get(id) ?? [];
-  }
-
   private async dto(user: User): Promise<UserDto> {
-    return toUserDto(user, await this.pendingOf(user.id));
+    return toUserDto(user, await pendingOf(this.grants, user.id));
   }
 
-  private async load(id: number, transaction?: import('sequelize').Transaction): Promise<User> {
+  private async load(id: number, transaction?: Transaction): Promise<User> {
     const user = await User.findByPk(id, {
       include: [withRoles],
       transaction,
@@ -172,12 +133,4 @@ export class UsersService {
     if (!user) throw AppError.notFound(`User ${id}`);
     return user;
   }
-}
-
-function sameRoles(a: readonly Role[], b: readonly Role[]): boolean {
-  return new Set(a).size === new Set(b).size && a.every((r) => b.includes(r));
-}
-
-function pick<T extends object>(obj: T, keys: readonly string[]): Partial<T> {
-  return Object.fromEntries(Object.entries(obj).filter(([k]) => keys.includes(k))) as Partial<T>;
 }

@@ -9,9 +9,11 @@ import { assertCan, loadRevisionForChange } from '../calcs/calc-access';
 import { readRevision } from '../calcs/revision-read';
 import { runTransaction } from '../db/transaction';
 import { checkFindingAnchor } from './finding-anchor';
-import { assertIndependentReviewer, type Reviewer } from './reviewer';
+import { loadRevisionForReview, type Reviewer } from './reviewer';
 
 const NO_ANCHOR: FindingAnchor = { clauseRef: null, anchorPath: null };
+const RAISE_REFUSAL = 'Only an independent checker or approver reviewing this revision can raise findings';
+const CLOSE_REFUSAL = 'Only an independent checker or approver reviewing this revision can close findings';
 
 /**
  * Findings: a reviewer raises one on a clause row or a named input, the author answers it once, a reviewer closes
@@ -28,14 +30,7 @@ export class FindingsService {
     anchor: FindingAnchor = NO_ANCHOR,
   ): Promise<RevisionDto> {
     await runTransaction(this.sequelize, async (transaction) => {
-      const revision = await loadRevisionForChange(revisionId, transaction);
-      assertCan(
-        ability,
-        'return',
-        revision,
-        'Only an independent checker or approver reviewing this revision can raise findings',
-      );
-      await assertIndependentReviewer(actor, revision.calcId, revision.authorId);
+      const revision = await loadRevisionForReview(ability, actor, revisionId, RAISE_REFUSAL, transaction);
       const { clauseRef, anchorPath } = checkFindingAnchor(revision, anchor);
       const finding = await Finding.create(
         { revisionId, text, clauseRef, anchorPath, raisedBy: actor.id },
@@ -83,14 +78,7 @@ export class FindingsService {
   async closeFinding(ability: AppAbility, actor: Reviewer, findingId: number): Promise<RevisionDto> {
     const revisionId = await runTransaction(this.sequelize, async (transaction) => {
       const finding = await this.loadFinding(findingId, transaction);
-      const revision = await loadRevisionForChange(finding.revisionId, transaction);
-      assertCan(
-        ability,
-        'return',
-        revision,
-        'Only an independent checker or approver reviewing this revision can close findings',
-      );
-      await assertIndependentReviewer(actor, revision.calcId, revision.authorId);
+      const revision = await loadRevisionForReview(ability, actor, finding.revisionId, CLOSE_REFUSAL, transaction);
       if (finding.status !== 'answered') throw AppError.conflict('A finding is closed once its author has answered it');
       Object.assign(finding, { status: 'closed', closedBy: actor.id, closedAt: new Date() });
       await finding.save({ transaction });

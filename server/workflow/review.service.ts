@@ -12,7 +12,9 @@ import { assertAttachmentFor } from '../attachments/attachment-rules';
 import { assertNotBlind } from '../independent/blind-lists';
 import { runTransaction } from '../db/transaction';
 import { RETURNED_STATE } from '../../shared/workflow/revision-states';
-import { assertIndependentReviewer, type Reviewer } from './reviewer';
+import { assertIndependentReviewer, loadRevisionForReview, type Reviewer } from './reviewer';
+
+const RETURN_REFUSAL = 'Only an independent checker (in check) or approver (checked) can return this revision';
 
 /** The checker's and approver's side: manual items and returning a calc to its author (findings: FindingsService). */
 export class ReviewService {
@@ -34,14 +36,7 @@ export class ReviewService {
     lockVersion: number,
   ): Promise<RevisionDto> {
     await runTransaction(this.sequelize, async (transaction) => {
-      const revision = await loadRevisionForChange(revisionId, transaction);
-      assertCan(
-        ability,
-        'return',
-        revision,
-        'Only an independent checker (in check) or approver (checked) can return this revision',
-      );
-      await assertIndependentReviewer(actor, revision.calcId, revision.authorId);
+      const revision = await loadRevisionForReview(ability, actor, revisionId, RETURN_REFUSAL, transaction);
       if (revision.lockVersion !== lockVersion)
         throw AppError.conflict('The revision changed since you opened it; reload it');
       const from = revision.status;

@@ -9,7 +9,7 @@ import { editorIdsOf } from '../calcs/calc-access';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { independentModelBlockerFor } from '../independent/signing-blocker';
 import { signingBlocker, type Meaning } from './independence';
-import type { Signer } from './workflow.service';
+import type { Signer } from './signature-record';
 
 /**
  * Refuses a signature the workflow table does not allow: wrong state or person, open findings or manual items,

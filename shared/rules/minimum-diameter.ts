@@ -1,8 +1,8 @@
-import { evaluateValidInput, UNIT_LABELS, validateCalcInput, type CalcInput } from '../engine';
-import { evaluateChecklistSync } from './checklist';
-import type { ChecklistRow } from './checklist-types';
-import { applyRuleSetMethods } from './rule-set-methods';
+import { UNIT_LABELS, type CalcInput } from '../engine';
 import type { RuleSet } from './rule-set-schema';
+import { trial, type GoverningRow, type Trial } from './diameter-trial';
+
+export type { GoverningRow } from './diameter-trial';
 
 export interface MinimumDiameterOptions {
   /** Search range as factors of the segment's present outer diameter; default 0.25 and 4. */
@@ -12,16 +12,6 @@ export interface MinimumDiameterOptions {
   tolerance?: number;
   /** Points of the first scan, spaced geometrically over the range; default 48. */
   scanPoints?: number;
-}
-
-export interface GoverningRow {
-  clauseId: string;
-  reference: string;
-  clauseTitle: string;
-  location: string;
-  status: ChecklistRow['status'];
-  utilisation: number | null;
-  message: string;
 }
 
 export interface MinimumDiameter {
@@ -39,72 +29,6 @@ export interface MinimumDiameter {
   governing: GoverningRow | null;
   message: string;
   evaluations: number;
-}
-
-interface Trial {
-  passes: boolean;
-  governing: GoverningRow | null;
-}
-
-function governingOf(rows: ChecklistRow[]): GoverningRow | null {
-  const bad = rows.filter((r) => r.status === 'fail' || r.status === 'error');
-  const pool = bad.length ? bad : rows.filter((r) => r.status === 'pass');
-  const top = pool.reduce<ChecklistRow | null>(
-    (best, r) => (best === null || (r.utilisation ?? 0) > (best.utilisation ?? 0) ? r : best),
-    null,
-  );
-  return (
-    top && {
-      clauseId: top.clauseId,
-      reference: top.reference,
-      clauseTitle: top.clauseTitle,
-      location: top.location.label,
-      status: top.status,
-      utilisation: top.utilisation,
-      message: top.message,
-    }
-  );
-}
-
-/*
- * One trial diameter: the segment resized (the bore scaled with it), validated, evaluated with the
- * rule set's methods and checked synchronously. Only mandatory rows that the segment can influence
- * count: the shaft's, its own and those of features on it or at its ends. Invalid geometry (a fillet
- * larger than the step, a groove through the wall) fails the trial with the reason.
- */
-function trial(input: CalcInput, ruleSet: RuleSet, index: number, od: number): Trial {
-  const seg = input.segments[index];
-  const segments = input.segments.map((s, i) => (i === index ? { ...s, od, id: (seg.id / seg.od) * od } : s));
-  const checked = validateCalcInput({ ...input, segments });
-  if (!checked.ok) {
-    const { path, message } = checked.issues[0];
-    return {
-      passes: false,
-      governing: {
-        clauseId: '',
-        reference: '',
-        clauseTitle: 'calc input invalid at this diameter',
-        location: path,
-        status: 'error',
-        utilisation: null,
-        message,
-      },
-    };
-  }
-  const effective = applyRuleSetMethods(checked.value, ruleSet);
-  const result = evaluateValidInput(effective);
-  const [start, end] = [result.segments[index].start, result.segments[index].end];
-  const influenced = (r: ChecklistRow): boolean =>
-    r.location.scope === 'shaft' ||
-    (r.location.scope === 'segment' && r.location.index === index) ||
-    (r.location.scope === 'feature' && r.location.at !== null && r.location.at >= start && r.location.at <= end);
-  const rows = evaluateChecklistSync(effective, result, ruleSet).rows.filter(
-    (r) => r.severity === 'mandatory' && influenced(r),
-  );
-  return {
-    passes: rows.every((r) => r.status === 'pass' || r.status === 'not-applicable'),
-    governing: governingOf(rows),
-  };
 }
 
 function scanGrid(lo: number, hi: number, n: number): number[] {
@@ -150,37 +74,48 @@ function searchSegment(
     range,
     tolerance: o.tolerance,
   };
-  if (!at.passes) {
-    return {
-      ...base,
-      status: 'none-in-range',
-      minimum: null,
-      inner: null,
-      governing: at.governing,
-      evaluations,
-      message: `no diameter within [${range[0].toPrecision(4)}, ${range[1].toPrecision(4)}] ${unit} passes every mandatory clause`,
-    };
-  }
-  if (k === 0) {
-    return {
-      ...base,
-      status: 'lower-end-passes',
-      minimum: grid[0],
-      inner: (seg.id / seg.od) * grid[0],
-      governing: at.governing,
-      evaluations,
-      message: 'the lower end of the search range already passes; the minimum may be smaller',
-    };
-  }
+  if (!at.passes) return { ...base, ...noneInRange(range, unit, at, evaluations) };
+  if (k === 0) return { ...base, ...lowerEndPasses(grid[0], seg, at, evaluations) };
   const [minimum, best] = bisect(run, grid[k - 1], grid[k], at, o.tolerance);
+  return { ...base, ...found(minimum, seg, best, o.tolerance, evaluations) };
+}
+
+// Keys in the order the result has always listed them.
+type Outcome = Pick<MinimumDiameter, 'status' | 'minimum' | 'inner' | 'governing' | 'evaluations' | 'message'>;
+type Segment = CalcInput['segments'][number];
+
+function noneInRange(range: [number, number], unit: string, at: Trial, evaluations: number): Outcome {
+  const [lo, hi] = range.map((d) => d.toPrecision(4));
   return {
-    ...base,
+    status: 'none-in-range',
+    minimum: null,
+    inner: null,
+    governing: at.governing,
+    evaluations,
+    message: `no diameter within [${lo}, ${hi}] ${unit} passes every mandatory clause`,
+  };
+}
+
+function lowerEndPasses(lowest: number, seg: Segment, at: Trial, evaluations: number): Outcome {
+  return {
+    status: 'lower-end-passes',
+    minimum: lowest,
+    inner: (seg.id / seg.od) * lowest,
+    governing: at.governing,
+    evaluations,
+    message: 'the lower end of the search range already passes; the minimum may be smaller',
+  };
+}
+
+function found(minimum: number, seg: Segment, best: Trial, tolerance: number, evaluations: number): Outcome {
+  const clause = best.governing?.reference ?? 'no clause';
+  return {
     status: 'found',
     minimum,
     inner: (seg.id / seg.od) * minimum,
     governing: best.governing,
     evaluations,
-    message: `smallest passing outer diameter, within ${o.tolerance * 100} %; governed by ${best.governing?.reference ?? 'no clause'}`,
+    message: `smallest passing outer diameter, within ${tolerance * 100} %; governed by ${clause}`,
   };
 }
 

@@ -1,7 +1,8 @@
-import type { CalcInput, UnitSystem } from '../engine';
+import type { CalcInput } from '../engine';
 import { torqueFromPower } from '../engine/power';
-import type { CompareValue, ComparisonRow, RowGroup } from './comparison-types';
+import type { ComparisonRow, RowGroup } from './comparison-types';
 import { compareRow } from './row-compare';
+import { compareEntry, compareList, type Entry } from './entry-compare';
 import {
   BENDING_FIELDS,
   FATIGUE_FIELDS,
@@ -12,87 +13,8 @@ import {
   SEGMENT_FIELDS,
   SUPPORT_FIELDS,
   TORQUE_FIELDS,
-  inSI,
-  unitOf,
   type FieldSpec,
 } from './input-fields';
-
-type Entry = Record<string, unknown> | undefined;
-interface Side {
-  units: UnitSystem;
-  entry: Entry;
-}
-
-function valueOf(side: Side, spec: FieldSpec): CompareValue {
-  const raw = side.entry?.[spec.name] ?? spec.fallback;
-  if (typeof raw === 'number') return spec.q === 'text' ? raw : inSI(raw, spec.q, side.units);
-  return typeof raw === 'string' || typeof raw === 'boolean' ? raw : null;
-}
-
-const upper = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
-
-/** Compares two entries field by field; an entry only one model has is one row ("entered" / none). */
-function compareEntry(
-  out: ComparisonRow[],
-  group: RowGroup,
-  path: string,
-  title: string,
-  fields: FieldSpec[],
-  a: Side,
-  b: Side,
-  tol: number,
-): void {
-  if (!a.entry && !b.entry) return;
-  if (!a.entry || !b.entry) {
-    out.push(
-      compareRow(
-        { key: path, section: 'input', group, label: title, unit: '' },
-        a.entry ? 'entered' : null,
-        b.entry ? 'entered' : null,
-        tol,
-      ),
-    );
-    return;
-  }
-  for (const spec of fields) {
-    const av = valueOf(a, spec);
-    const bv = valueOf(b, spec);
-    if (av === null && bv === null) continue;
-    out.push(
-      compareRow(
-        { key: `${path}.${spec.name}`, section: 'input', group, label: `${title} ${spec.label}`, unit: unitOf(spec.q) },
-        av,
-        bv,
-        tol,
-      ),
-    );
-  }
-}
-
-function compareList(
-  out: ComparisonRow[],
-  group: RowGroup,
-  name: string,
-  noun: string,
-  fields: FieldSpec[],
-  a: { units: UnitSystem; list: Entry[] },
-  b: { units: UnitSystem; list: Entry[] },
-  tol: number,
-): void {
-  const n = Math.max(a.list.length, b.list.length);
-  for (let i = 0; i < n; i++) {
-    compareEntry(
-      out,
-      group,
-      `${name}[${i}]`,
-      `${upper(noun)} ${i + 1}`,
-      fields,
-      { units: a.units, entry: a.list[i] },
-      { units: b.units, entry: b.list[i] },
-      tol,
-    );
-  }
-}
 
 /** Torque entries compare by the torque they put on the shaft, whether entered as T or as power and speed. */
 function torques(input: CalcInput): Entry[] {
@@ -121,6 +43,22 @@ function segmentMaterials(out: ComparisonRow[], a: CalcInput, b: CalcInput, tol:
   }
 }
 
+/** The entry lists compared after the segments and their materials, in the order their rows are listed. */
+const LISTS: {
+  group: RowGroup;
+  name: string;
+  noun: string;
+  fields: FieldSpec[];
+  of: (i: CalcInput) => unknown[] | undefined;
+}[] = [
+  { group: 'torque', name: 'torques', noun: 'torque', fields: TORQUE_FIELDS, of: torques },
+  { group: 'feature', name: 'features', noun: 'feature', fields: FEATURE_FIELDS, of: (i) => i.features },
+  { group: 'bending', name: 'bending', noun: 'bending moment', fields: BENDING_FIELDS, of: (i) => i.bending },
+  { group: 'support', name: 'supports', noun: 'bearing', fields: SUPPORT_FIELDS, of: (i) => i.supports },
+  { group: 'load', name: 'loads', noun: 'load', fields: LOAD_FIELDS, of: (i) => i.loads },
+  { group: 'mass', name: 'masses', noun: 'mass', fields: MASS_FIELDS, of: (i) => i.masses },
+];
+
 /**
  * Input by input: material, segments, torques, features, bending, bearings, loads, masses,
  * fatigue data, methods and speed. Labels, titles and notes are free text and not compared.
@@ -140,12 +78,7 @@ export function compareInputs(a: CalcInput, b: CalcInput, tol: number): Comparis
   );
   compareList(out, 'segment', 'segments', 'segment', SEGMENT_FIELDS, list(a, a.segments), list(b, b.segments), tol);
   segmentMaterials(out, a, b, tol);
-  compareList(out, 'torque', 'torques', 'torque', TORQUE_FIELDS, list(a, torques(a)), list(b, torques(b)), tol);
-  compareList(out, 'feature', 'features', 'feature', FEATURE_FIELDS, list(a, a.features), list(b, b.features), tol);
-  compareList(out, 'bending', 'bending', 'bending moment', BENDING_FIELDS, list(a, a.bending), list(b, b.bending), tol);
-  compareList(out, 'support', 'supports', 'bearing', SUPPORT_FIELDS, list(a, a.supports), list(b, b.supports), tol);
-  compareList(out, 'load', 'loads', 'load', LOAD_FIELDS, list(a, a.loads), list(b, b.loads), tol);
-  compareList(out, 'mass', 'masses', 'mass', MASS_FIELDS, list(a, a.masses), list(b, b.masses), tol);
+  for (const l of LISTS) compareList(out, l.group, l.name, l.noun, l.fields, list(a, l.of(a)), list(b, l.of(b)), tol);
   compareEntry(
     out,
     'fatigue',

@@ -1,33 +1,11 @@
-import { randomUUID } from 'node:crypto';
 import type { Sequelize } from 'sequelize';
-import { createAppAbility, defineRulesFor } from '../../../shared/authz/app-ability';
-import { Project, RuleSetRecord, User, UserRole } from '../models';
-import { CalcsService } from '../../calcs/calcs.service';
+import { RuleSetRecord } from '../models';
 import { LifecycleService } from '../../calcs/lifecycle.service';
-import { WorkflowService } from '../../workflow/workflow.service';
-import { ReviewService } from '../../workflow/review.service';
-import { FindingsService } from '../../workflow/findings.service';
-import { readRevision } from '../../calcs/revision-read';
 import { conveyorHeadShaft, mixerShaft, slurryPumpShaft } from './demo-shafts';
-import { DEMO_PASSWORD } from '../demo-data';
-import { AttachmentsService } from '../../attachments/attachments.service';
-import { DEMO_CERTIFICATE, DEMO_DRAWING } from './demo-files';
+import type { AttachmentsService } from '../../attachments/attachments.service';
+import { DEMO_DRAWING } from './demo-files';
 import { seedIndependentModelCalc } from './demo-independent';
-
-type Person = Awaited<ReturnType<typeof personOf>>;
-
-export async function personOf(username: string) {
-  const user = await User.findOne({ where: { username }, include: [{ model: UserRole, as: 'roleRows' }] });
-  if (!user) throw new Error(`demo user ${username} is missing`);
-  const roles = user.roles;
-  return {
-    id: user.id,
-    name: user.displayName,
-    ip: null,
-    roles,
-    ability: createAppAbility(defineRulesFor({ id: user.id, roles })),
-  };
-}
+import { DemoSteps, personOf, type Person } from './demo-steps';
 
 /**
  * Walks the invented Kestrel Fen Drives calcs through the real workflow services, so that a
@@ -39,101 +17,56 @@ export async function seedDemoCalcs(
   baseUrl: string,
   attachments: AttachmentsService,
 ): Promise<void> {
-  const calcs = new CalcsService(sequelize);
-  const workflow = new WorkflowService(sequelize, baseUrl);
-  const review = new ReviewService(sequelize, workflow);
-  const findings = new FindingsService(sequelize);
-  const lifecycle = new LifecycleService(sequelize, calcs);
   const [hale, okafor, lindqvist, marsh] = await Promise.all(['author', 'checker', 'approver', 'senior'].map(personOf));
   const ruleSetId = (await RuleSetRecord.findOne({
     where: { code: 'KFD-ENG-014', status: 'effective' },
     order: [['version', 'DESC']],
   }))!.id;
-  const project = async (code: string) => (await Project.findOne({ where: { code } }))!.id;
-  const readAs = (p: Person, id: number) => readRevision(p.ability, id);
-
-  const start = async (
-    author: Person,
-    code: string,
-    number: string,
-    title: string,
-    partRef: string,
-    input: Record<string, unknown>,
-  ) =>
-    (
-      await calcs.create(author.ability, author, {
-        projectId: await project(code),
-        number,
-        title,
-        partRef,
-        ruleSetId,
-        input,
-      })
-    ).latest.id;
-  const signAs = async (p: Person, id: number, meaning: 'authored' | 'checked' | 'approved') => {
-    const rev = await readAs(p, id);
-    await workflow.sign(p.ability, p, id, {
-      password: DEMO_PASSWORD,
-      meaning,
-      idempotencyKey: randomUUID(),
-      lockVersion: rev.lockVersion,
-    });
-  };
-  const tickAll = async (p: Person, id: number) => {
-    for (const item of ((await readAs(p, id)).checklist as { manual?: { id: string }[] } | null)?.manual ?? []) {
-      await review.setManualItem(p.ability, p, id, item.id, true, 'Seen in the demo record');
-    }
-  };
-  // The standard's manual items ask for a drawing and a material certificate on file.
-  const attachDocuments = async (p: Person, id: number) => {
-    const rev = await readAs(p, id);
-    const input = rev.input as { material?: { name?: string } };
-    const calc = await calcs.get(p.ability, rev.calcId);
-    await attachments.upload(
-      p.ability,
-      p,
-      id,
-      {
-        buffer: await DEMO_DRAWING(calc.partRef, calc.title),
-        originalname: `${calc.partRef.replace(/\s+/g, '-')}.pdf`,
-      },
-      { kind: 'drawing', note: 'Released drawing' },
-    );
-    await attachments.upload(
-      p.ability,
-      p,
-      id,
-      {
-        buffer: await DEMO_CERTIFICATE(input.material?.name ?? 'steel', `KF-${2200 + id}`),
-        originalname: `certificate-${id}.pdf`,
-      },
-      { kind: 'material-certificate', note: 'Mill certificate for the bar used' },
-    );
+  const s = new DemoSteps(sequelize, baseUrl, attachments, ruleSetId);
+  await seedPumpShafts(sequelize, s, hale, okafor, lindqvist, marsh);
+  await seedConveyorAndMixer(s, hale, okafor, marsh);
+  // The lifting-duty standard also asks for the proof-load test plan on file.
+  const attachPlan = async (p: Person, id: number) => {
+    const plan = await DEMO_DRAWING('KFD-TP-0450', 'Proof-load test plan, winch drum shaft');
+    await s.attach(p, id, plan, 'proof-load-test-plan.pdf', { kind: 'other', note: 'Proof-load test plan' });
   };
   const submit = async (p: Person, id: number) => {
-    await attachDocuments(p, id);
-    await signAs(p, id, 'authored');
+    await attachPlan(p, id);
+    await s.submit(p, id);
   };
-  const release = async (id: number, checker: Person) => {
-    await submit(hale, id);
-    await tickAll(checker, id);
-    await signAs(checker, id, 'checked');
-    await signAs(lindqvist, id, 'approved');
-  };
+  await seedIndependentModelCalc(sequelize, { ...stepsOf(s), submit }, hale, okafor);
+}
 
-  const pumpA = await start(hale, 'KFD-SP450', 'SP450-SH-001', 'Pump drive shaft', 'DRG SP450-2101', slurryPumpShaft());
-  await release(pumpA, okafor);
-  const pumpB = await lifecycle.newRevision(
-    hale.ability,
+/** Revision A approved, then revision B (a smaller impeller seat) approved, superseding A. */
+async function seedPumpShafts(
+  sequelize: Sequelize,
+  s: DemoSteps,
+  hale: Person,
+  okafor: Person,
+  lindqvist: Person,
+  marsh: Person,
+): Promise<void> {
+  const lifecycle = new LifecycleService(sequelize, s.calcs);
+  const pumpA = await s.start(
     hale,
-    (await readAs(hale, pumpA)).calcId,
-    'Impeller seat reduced to 50 mm to suit the new impeller hub',
+    'KFD-SP450',
+    'SP450-SH-001',
+    'Pump drive shaft',
+    'DRG SP450-2101',
+    slurryPumpShaft(),
   );
-  const pumpBRev = await readAs(hale, pumpB.id);
-  await calcs.save(hale.ability, hale, pumpB.id, { input: slurryPumpShaft(50), lockVersion: pumpBRev.lockVersion });
-  await release(pumpB.id, marsh);
+  await s.release(pumpA, hale, okafor, lindqvist);
+  const calcId = (await s.readAs(hale, pumpA)).calcId;
+  const why = 'Impeller seat reduced to 50 mm to suit the new impeller hub';
+  const pumpB = await lifecycle.newRevision(hale.ability, hale, calcId, why);
+  const pumpBRev = await s.readAs(hale, pumpB.id);
+  await s.calcs.save(hale.ability, hale, pumpB.id, { input: slurryPumpShaft(50), lockVersion: pumpBRev.lockVersion });
+  await s.release(pumpB.id, hale, marsh, lindqvist);
+}
 
-  const head = await start(
+/** In check with an open finding, checked, a draft, and one returned to its author. */
+async function seedConveyorAndMixer(s: DemoSteps, hale: Person, okafor: Person, marsh: Person): Promise<void> {
+  const head = await s.start(
     hale,
     'KFD-CV1200',
     'CV1200-SH-001',
@@ -141,16 +74,15 @@ export async function seedDemoCalcs(
     'DRG CV1200-3004',
     conveyorHeadShaft(),
   );
-  await submit(hale, head);
-  await findings.raiseFinding(
+  await s.submit(hale, head);
+  await s.findings.raiseFinding(
     okafor.ability,
     okafor,
     head,
     'Attach the Peterson chart page behind the sled-runner Kts of 1.6 and state the keyseat depth used.',
     { clauseRef: '6.5', anchorPath: 'features[1]' },
   );
-
-  const tail = await start(
+  const tail = await s.start(
     marsh,
     'KFD-CV1200',
     'CV1200-SH-002',
@@ -158,20 +90,12 @@ export async function seedDemoCalcs(
     'DRG CV1200-3010',
     conveyorHeadShaft(125),
   );
-  await submit(marsh, tail);
-  await tickAll(okafor, tail);
-  await signAs(okafor, tail, 'checked');
-
-  await start(
-    hale,
-    'KFD-MX80',
-    'MX80-SH-001',
-    'Agitator shaft, reduced hub seat option',
-    'DRG MX80-1200 option B',
-    mixerShaft(55),
-  );
-
-  const stub = await start(
+  await s.submit(marsh, tail);
+  await s.tickAll(okafor, tail);
+  await s.signAs(okafor, tail, 'checked');
+  const optionB = 'Agitator shaft, reduced hub seat option';
+  await s.start(hale, 'KFD-MX80', 'MX80-SH-001', optionB, 'DRG MX80-1200 option B', mixerShaft(55));
+  const stub = await s.start(
     hale,
     'KFD-MX80',
     'MX80-SH-002',
@@ -179,43 +103,18 @@ export async function seedDemoCalcs(
     'DRG MX80-1200',
     mixerShaft(),
   );
-  await submit(hale, stub);
-  const stubRev = await readAs(okafor, stub);
-  await review.returnToAuthor(
+  await s.submit(hale, stub);
+  const stubRev = await s.readAs(okafor, stub);
+  await s.review.returnToAuthor(
     okafor.ability,
     okafor,
     stub,
-    'The impeller side load of 580 N looks low for an 80 m³ tank; show where it comes from (hydraulic side load at the design liquid level).',
+    'The impeller side load of 580 N looks low for an 80 m³ tank; show where it comes from ' +
+      '(hydraulic side load at the design liquid level).',
     stubRev.lockVersion,
   );
+}
 
-  // The lifting-duty standard also asks for the proof-load test plan on file.
-  const attachPlan = async (p: Person, id: number) => {
-    await attachments.upload(
-      p.ability,
-      p,
-      id,
-      {
-        buffer: await DEMO_DRAWING('KFD-TP-0450', 'Proof-load test plan, winch drum shaft'),
-        originalname: 'proof-load-test-plan.pdf',
-      },
-      { kind: 'other', note: 'Proof-load test plan' },
-    );
-  };
-  await seedIndependentModelCalc(
-    sequelize,
-    {
-      calcs,
-      review,
-      findings,
-      submit: async (p, id) => {
-        await attachPlan(p, id);
-        await submit(p, id);
-      },
-      tickAll,
-      signAs,
-    },
-    hale,
-    okafor,
-  );
+function stepsOf(s: DemoSteps) {
+  return { calcs: s.calcs, review: s.review, findings: s.findings, tickAll: s.tickAll, signAs: s.signAs };
 }

@@ -7,7 +7,8 @@ import { readRevision } from '../../calcs/revision-read';
 import { IndependentModelService } from '../../independent/independent-model.service';
 import { hoistDrumShaft } from './demo-shafts';
 
-type Person = Awaited<ReturnType<typeof import('./demo-calcs').personOf>>;
+import type { Person } from './demo-steps';
+
 interface Steps {
   calcs: CalcsService;
   review: ReviewService;

@@ -11,9 +11,7 @@ import { readRevision } from '../../calcs/revision-read';
 import { DEMO_PASSWORD } from '../demo-data';
 import { mixerShaft } from './demo-shafts';
 import { DEMO_CERTIFICATE, DEMO_DRAWING, demoDocument } from './demo-files';
-import { personOf } from './demo-calcs';
-
-type Person = Awaited<ReturnType<typeof personOf>>;
+import { personOf, type Person } from './demo-steps';
 
 /**
  * Review-health material for the demo, through the real services: the organisation lowers two thresholds to

@@ -98,39 +98,37 @@ function fatigueFigures(d: ReportData, f: Lookup, at: (v: { at: number } | null)
   }));
 }
 
-/** Deflection, bearing life and critical speed, for a calc with a beam model; not judged by a clause here. */
-function beamRows(r: CalcResult, f: Lookup, at: (v: { at: number } | null) => string): Cell[][] {
+/**
+ * Deflection, bearing life and critical speed, for a calc with a beam model. Each is marked by the clause that judges
+ * it, as on the calc page: the shortest life by the bearing-life clause, the speed ratio by the critical-speed clause;
+ * the largest deflection anywhere is not what the gear-deflection clause measures, so it stays unjudged here.
+ */
+function beamFigures(r: CalcResult, f: Lookup, at: (v: { at: number } | null) => string): Figure[] {
   if (!hasBeamModel(r)) return [];
   const c = r.criticalSpeed;
   const life = r.supports.filter((s) => s.L10h !== null).sort((a, b) => a.L10h! - b.L10h!)[0];
-  const deflection = r.deflection;
-  return [
-    [
-      'Largest deflection δ',
-      num(deflection?.max ?? null, 3),
-      beamUnit(r, 'deflection'),
-      at(deflection),
-      f('deflection').formula,
-    ],
-    ...(life
-      ? [
-          [
-            'Shortest bearing life L10h',
-            num(life.L10h, 3),
-            'h',
-            `bearing ${life.index + 1} at ${num(life.at)} ${f('at').unit}`,
-            f('L10h').formula,
-          ],
-        ]
-      : []),
-    [
-      'Critical / operating speed',
-      num(c?.ratio ?? null, 3),
-      '–',
-      c ? `first critical ${num(c.rpm)} rpm` : 'not computed',
-      c?.method ?? '',
-    ],
-  ];
+  const deflection = {
+    label: 'Largest deflection δ',
+    value: r.deflection?.max ?? null,
+    fact: 'maxDeflection',
+    unit: beamUnit(r, 'deflection'),
+    where: at(r.deflection),
+    formula: f('deflection').formula,
+    sig: 3,
+  };
+  const speed = {
+    label: 'Critical / operating speed',
+    value: c?.ratio ?? null,
+    fact: 'criticalSpeedRatio',
+    unit: '1',
+    where: c ? `first critical ${num(c.rpm)} rpm` : 'not computed',
+    formula: c?.method ?? '',
+    sig: 3,
+  };
+  if (!life) return [deflection, speed];
+  const where = `bearing ${life.index + 1} at ${num(life.at)} ${f('at').unit}`;
+  const lifeFigure = { label: 'Shortest bearing life L10h', value: life.L10h, fact: 'L10h', unit: 'h', where, sig: 3 };
+  return [deflection, { ...lifeFigure, formula: f('L10h').formula }, speed];
 }
 
 /**
@@ -142,6 +140,10 @@ export function drawKeyResults(doc: PDFKit.PDFDocument, d: ReportData): void {
   if (!r) return;
   const f: Lookup = (k) => r.fields[k] ?? { unit: '', formula: '' };
   const at = (v: { at: number } | null) => (v ? `at ${num(v.at)} ${f('at').unit}` : 'no load');
-  const figures = [...stressFigures(r, f, at), ...fatigueFigures(d, f, at)];
-  drawTable(doc, COLUMNS, [...figures.map((fig) => figureRow(d, fig)), ...beamRows(r, f, at)]);
+  const figures = [...stressFigures(r, f, at), ...fatigueFigures(d, f, at), ...beamFigures(r, f, at)];
+  drawTable(
+    doc,
+    COLUMNS,
+    figures.map((fig) => figureRow(d, fig)),
+  );
 }

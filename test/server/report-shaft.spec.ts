@@ -50,6 +50,11 @@ describe('calc report of a whole-shaft calc', () => {
 
     expect(text).toMatch(/Largest deflection δ [\d.]+ mm/);
     expect(text).toContain('Shortest bearing life L10h');
+    // Each key-result row fills every column: the outcome of the clause that judges it sits under "Against the
+    // standard" (life and speed ratio; the largest deflection anywhere is not what the gear clause measures).
+    expect(text).toMatch(cells('Largest deflection δ', formatNumber(r.deflection.max, 3), 'mm', '—', 'at 410 mm'));
+    expect(text).toMatch(cells('Shortest bearing life L10h', '141000', 'h', 'meets min 20000 (§9.4)', 'bearing 1'));
+    expect(text).toMatch(cells('Critical / operating speed', '45.8', 'meets min 2 (§9.5)', 'first critical'));
     expect(text).toContain('Bearings, deflection and critical speed');
     expect(text).toContain('Bearing reactions on the shaft and basic rating life');
     const fmt = (v: number) => formatNumber(v, 4);

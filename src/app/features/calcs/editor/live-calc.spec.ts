@@ -16,7 +16,7 @@ const BAD = {
 const GOOD = { ...BAD, segments: TWO_STEP_SHAFT.segments };
 
 describe('the live calc with its validating engine loaded on its own', () => {
-  it('when the engine has not arrived, then nothing is judged; once it has, the messages are the shared schema’s', async () => {
+  it('when the engine has not arrived, then nothing is judged; then the shared schema’s messages', async () => {
     const input = signal<Record<string, unknown>>(BAD);
     const live = TestBed.runInInjectionContext(() => liveCalc(input, signal(null)));
     expect(live.issues()).toEqual([]);

@@ -62,6 +62,28 @@ export default defineConfig(
     },
   },
   {
+    // The engine and rules barrels run the shared zod schemas when loaded (zod's whole 450 kB namespace). The calc
+    // page and the editor must be usable fast, so their first view imports helpers from their own modules; the code
+    // that validates is loaded where it is needed (DEVELOPERS.md, "a screen"). Type imports cost nothing.
+    files: ['src/app/ui/**/*.ts', 'src/app/core/**/*.ts', 'src/app/features/calcs/{calc-page,editor}/*.ts'],
+    // Loaded on their own: the live engine, and panels of tabs built when opened.
+    ignores: ['**/*.spec.ts', '**/live-engine.ts', '**/minimum-diameters.ts', '**/attachments-panel.ts'],
+    rules: {
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              regex: 'shared/(engine|rules)$|shared/schemas/.*\\.schema$',
+              allowTypeImports: true,
+              message: 'Import from the module that defines it; these run zod schemas on load.',
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
     files: ['src/**/*.spec.ts'],
     languageOptions: { globals: globals.jest },
   },

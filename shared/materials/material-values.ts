@@ -1,4 +1,6 @@
-import { formatNumber, fromSI, type MaterialInput, type UnitSystem } from '../engine';
+import { formatNumber } from '../engine/number-format';
+import { fromSI, type UnitSystem } from '../engine/units';
+import type { MaterialInput } from '../engine';
 import { MATERIAL_LIBRARY } from './library';
 import { BASIS_LABELS, type LibraryMaterial, type MaterialProperty, type SourcedValue } from './material-types';
 

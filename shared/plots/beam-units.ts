@@ -1,4 +1,5 @@
-import { UNIT_LABELS, type CalcResult } from '../engine';
+import { UNIT_LABELS } from '../engine/units';
+import type { CalcResult } from '../engine';
 import { BEAM_LABELS } from '../engine/beam/beam-units';
 
 // What each whole-shaft result field is measured in, as beam-result.ts documents it, for a result

@@ -1,4 +1,5 @@
-import { fromBase, toBase, type CalcResult } from '../engine';
+import { fromBase, toBase } from '../engine/units';
+import type { CalcResult } from '../engine';
 import type { Chart, LimitLine, PlacedLimit, Point, Series } from './plot-types';
 import { niceAxis, valueRange } from './ticks';
 

@@ -1,4 +1,5 @@
-import { featureTag, type FeatureInput } from '../engine';
+import { featureTag } from '../engine/field-places';
+import type { FeatureInput } from '../engine';
 import type { Axis, Point } from './plot-types';
 import { niceAxis } from './ticks';
 import { featureMarks } from './feature-marks';

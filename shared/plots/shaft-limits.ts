@@ -1,4 +1,5 @@
-import { formatNumber, type CalcResult } from '../engine';
+import { formatNumber } from '../engine/number-format';
+import type { CalcResult } from '../engine';
 import type { Checklist, RuleSet } from '../rules';
 import type { StationLimit } from './shaft-diagrams';
 import { beamUnit } from './beam-units';

@@ -1,4 +1,5 @@
-import { formatNumber, type CalcResult } from '../engine';
+import { formatNumber } from '../engine/number-format';
+import type { CalcResult } from '../engine';
 import { beamUnit, forceCleaner } from './beam-units';
 import type { MarkShape, ShaftOutline } from './outline';
 

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, booleanAttribute, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import { CAUTION } from '../../../shared/engine';
+import { CAUTION } from '../../../shared/engine/version';
 
 /** The caution every place with results carries: the product supports engineers, it does not replace them. */
 @Component({

@@ -1,4 +1,4 @@
-import { FILLET_KTS_NAMES } from '../../../../shared/engine';
+import { FILLET_KTS_NAMES } from '../../../../shared/engine/methods';
 import {
   ChangeDetectionStrategy,
   Component,

@@ -1,5 +1,5 @@
 import type { Chart, Point } from '../../../../shared/plots';
-import { formatNumber } from '../../../../shared/engine';
+import { formatNumber } from '../../../../shared/engine/number-format';
 
 /** Pixel margins: room for monospace tick labels on the left and below. */
 export const CHART_MARGIN = { top: 22, right: 18, bottom: 34, left: 62 } as const;

@@ -1,5 +1,5 @@
 import type { Chart, Series } from '../../../../shared/plots';
-import { formatNumber } from '../../../../shared/engine';
+import { formatNumber } from '../../../../shared/engine/number-format';
 
 export interface SummaryRow {
   where: string;

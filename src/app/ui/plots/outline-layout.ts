@@ -1,5 +1,5 @@
 import type { MarkShape, ShaftOutline } from '../../../../shared/plots';
-import { formatNumber } from '../../../../shared/engine';
+import { formatNumber } from '../../../../shared/engine/number-format';
 import { tickLabel, type PixelTick } from './chart-layout';
 
 const SIDE = 24;

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import { formatNumber } from '../../../../shared/engine';
+import { formatNumber } from '../../../../shared/engine/number-format';
 import type { ShaftLoads, ShaftOutline } from '../../../../shared/plots';
 import { hostWidth } from './element-width';
 import { layoutOutline } from './outline-layout';

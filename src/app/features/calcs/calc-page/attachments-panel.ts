@@ -29,7 +29,7 @@ import { LoadFailure } from '../../../ui/load-failure';
 import { formatBytes } from '../../../../../shared/format';
 import { EmptyState } from '../../../ui/empty-state';
 import { AttachmentsApi } from './attachments-api';
-import { EDITABLE_STATES } from '../../../../../shared/schemas/revision.schema';
+import { EDITABLE_STATES } from '../../../../../shared/workflow/state-sets';
 
 /** Drawings, certificates and supporting files of the selected revision, and the form to add one. */
 @Component({

@@ -28,17 +28,17 @@ import { CalcsApi } from '../calcs-api';
 import { FindingsPanel } from './findings-panel';
 import { SignaturesPanel } from './signatures-panel';
 import { RevisionHistory } from './revision-history';
-import { MinimumDiameters } from './minimum-diameters';
-import { ShaftResults } from '../shaft-results/shaft-results';
 import { AttachmentsPanel } from './attachments-panel';
 import { RecordExports } from './record-exports';
 import { ManualItems } from './manual-items';
 import { countFindings, findingsTabLabel } from './finding-counts';
 import { failingMandatoryRows, failingRowText } from './signing-readiness';
-import { featureTypesOf, formatEng, placeOf } from '../../../../../shared/format';
+import { featureTypesOf, placeOf } from '../../../../../shared/format';
 import { planActions, type RevisionAction } from './revision-actions';
 import { SignDialog, type SignDialogData } from './sign-dialog';
-import { ReasonDialog, type ReasonDialogData, type ReasonDialogResult } from './reason-dialog';
+import { ReasonDialog, type ReasonDialogResult } from './reason-dialog';
+import { reasonDialogTexts, type ReasonKind } from './reason-texts';
+import { ResultsTab } from './results-tab';
 import { IndependentModelPanel } from './independent-model-panel';
 
 @Component({
@@ -59,9 +59,8 @@ import { IndependentModelPanel } from './independent-model-panel';
     RevisionHistory,
     AttachmentsPanel,
     RecordExports,
-    MinimumDiameters,
     ManualItems,
-    ShaftResults,
+    ResultsTab,
     LoadFailure,
   ],
   templateUrl: './calc-page.html',
@@ -101,7 +100,6 @@ export default class CalcPage {
   protected readonly canTick = computed(() => !!this.plan()?.actions.has('sign-checked'));
   protected readonly failingMandatory = computed(() => (this.current() ? failingMandatoryRows(this.current()!) : []));
   protected readonly failingRowText = failingRowText;
-  protected readonly eng = formatEng;
   /** An input issue's place in the editor's words (Segment 3, hole ⌀), features by their tags. */
   protected readonly inputPlace = (path: string) => placeOf(path, featureTypesOf(this.current()?.input));
   protected readonly findingsLabel = computed(() =>
@@ -132,50 +130,17 @@ export default class CalcPage {
       });
   }
 
-  protected askReason(kind: 'return' | 'withdraw' | 'new-revision'): void {
-    const texts: Record<typeof kind, ReasonDialogData> = {
-      return: { title: 'Return to the author', label: 'What must change', hint: this.returnHint(), action: 'Return' },
-      withdraw: {
-        title: 'Withdraw this revision',
-        label: 'Reason for withdrawal',
-        hint: 'Kept on the record.',
-        action: 'Withdraw',
-      },
-      'new-revision': {
-        title: 'Start a new revision',
-        label: 'Reason for change',
-        hint: 'Printed on the report and kept on the record.',
-        action: 'Start revision',
-        choice: {
-          label: 'Carry over this revision’s attachments',
-          hint: 'Copies the files into the new revision; its signatures will cover them. The audit trail lists what was carried over.',
-        },
-      },
-    };
+  protected askReason(kind: ReasonKind): void {
+    const open = (this.current()?.findings ?? []).filter((f) => f.status === 'open').map((f) => `F${f.id}`);
     this.dialog
-      .open(ReasonDialog, { data: texts[kind] })
+      .open(ReasonDialog, { data: reasonDialogTexts(kind, open) })
       .afterClosed()
       .subscribe((answer?: ReasonDialogResult) => {
         if (answer) void this.applyReason(kind, answer.reason, answer.choice);
       });
   }
 
-  /**
-   * The reason becomes a finding only when none is open; otherwise the open findings go back and the reason rides with
-   * the return.
-   */
-  private returnHint(): string {
-    const open = (this.current()?.findings ?? []).filter((f) => f.status === 'open').map((f) => `F${f.id}`);
-    return open.length
-      ? `Open ${open.join(', ')} go back for answers; this reason is kept with the return, not added as another finding.`
-      : 'This becomes a finding the author must answer.';
-  }
-
-  private async applyReason(
-    kind: 'return' | 'withdraw' | 'new-revision',
-    reason: string,
-    carryAttachments: boolean,
-  ): Promise<void> {
+  private async applyReason(kind: ReasonKind, reason: string, carryAttachments: boolean): Promise<void> {
     const r = this.current()!;
     try {
       if (kind === 'new-revision') {

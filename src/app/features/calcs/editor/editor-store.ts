@@ -1,5 +1,5 @@
 import { Injectable, computed, inject, signal } from '@angular/core';
-import { ruleSetSchema, type RuleSet } from '../../../../../shared/rules';
+import type { RuleSet } from '../../../../../shared/rules';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { assertApiFailure } from '../../../core/http/api-failure';
 import { loadFailureText } from '../../../ui/load-failure';
@@ -50,7 +50,12 @@ export class EditorStore {
 
   private async loadRuleSet(id: number, name: string): Promise<void> {
     try {
-      const parsed = ruleSetSchema.safeParse((await this.api.getRuleSet(id)).document);
+      // The schema is fetched beside the standard, not before the editor's first view.
+      const [{ ruleSetSchema }, stored] = await Promise.all([
+        import('../../../../../shared/rules/rule-set-schema'),
+        this.api.getRuleSet(id),
+      ]);
+      const parsed = ruleSetSchema.safeParse(stored.document);
       this.ruleSet.set(parsed.success ? parsed.data : null);
       this.ruleSetProblem.set(
         parsed.success ? null : `The design standard ${name} could not be read, so no checklist is shown.`,

@@ -4,7 +4,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatCheckboxModule } from '@angular/material/checkbox';
-import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine';
+import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine/units';
 import type { RuleSetMethods } from '../../../../../shared/rules';
 import type { FatigueForm } from './editor-form';
 import type { IssueMap } from './issue-map';

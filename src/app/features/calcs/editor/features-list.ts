@@ -6,7 +6,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
-import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine';
+import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine/units';
 import { featureTag } from '../../../../../shared/plots';
 import { featureGroup, type FeatureForm, type FeatureType } from './editor-form';
 import type { IssueMap } from './issue-map';

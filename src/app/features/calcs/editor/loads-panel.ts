@@ -5,7 +5,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatIconModule } from '@angular/material/icon';
-import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine';
+import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine/units';
 import { bendingGroup, torqueGroup, type BendingForm, type TorqueForm } from './editor-form';
 import type { IssueMap } from './issue-map';
 import { RowActions } from './row-actions';

@@ -4,7 +4,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatIconModule } from '@angular/material/icon';
-import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine';
+import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine/units';
 import {
   BASIS_LABELS,
   MATERIAL_LIBRARY,

@@ -1,4 +1,4 @@
-import { formatNumber } from '../../../../../shared/engine';
+import { formatNumber } from '../../../../../shared/engine/number-format';
 
 // Plain decimal notation only: "0x10", "1,5" or "Infinity" stay text so the engine names the field.
 const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;

@@ -1,4 +1,6 @@
-import { formatNumber, fromBase, toBase, type CalcResult } from '../../../../../shared/engine';
+import { formatNumber } from '../../../../../shared/engine/number-format';
+import { fromBase, toBase } from '../../../../../shared/engine/units';
+import type { CalcResult } from '../../../../../shared/engine';
 import { shaftLimits, type LimitLine, type StationLimit } from '../../../../../shared/plots';
 import type { Checklist, ChecklistRow, RuleSet } from '../../../../../shared/rules';
 

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import { UNIT_LABELS } from '../../../../../shared/engine';
+import { UNIT_LABELS } from '../../../../../shared/engine/units';
 import {
   bendingPlot,
   deflectionPlot,

@@ -1,4 +1,5 @@
-import { formatNumber, type CalcResult } from '../../../../../shared/engine';
+import { formatNumber } from '../../../../../shared/engine/number-format';
+import type { CalcResult } from '../../../../../shared/engine';
 
 /** A result number for a table: four significant digits; a missing value (no load) as a dash, never NaN. */
 export function fmt(value: number | null | undefined, digits = 4): string {

@@ -18,7 +18,7 @@ import { AbilityServiceSignal } from '@casl/angular';
 import { subject } from '@casl/ability';
 import type { UnitSystem } from '../../../../../shared/engine';
 import type { AppAbility } from '../../../../../shared/authz/app-ability';
-import { EDITABLE_STATES } from '../../../../../shared/schemas/revision.schema';
+import { EDITABLE_STATES } from '../../../../../shared/workflow/state-sets';
 import { StateBadge } from '../../../ui/state-badge';
 import { editorForm, type EditorForm, type EditorValue } from './editor-form';
 import { EditorStore } from './editor-store';

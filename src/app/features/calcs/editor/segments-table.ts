@@ -5,7 +5,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine';
+import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine/units';
 import { segmentGroup, type SegmentForm } from './editor-form';
 import type { IssueMap } from './issue-map';
 import { moveRow } from './row-moves';

@@ -1,4 +1,4 @@
-import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine';
+import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine/units';
 import { BEAM_LABELS, STEEL_DENSITY } from '../../../../../shared/engine/beam/beam-units';
 
 /** Unit labels the whole-shaft fields show: the engine's own, so the screen and the result always agree. */

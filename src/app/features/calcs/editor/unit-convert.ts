@@ -1,4 +1,4 @@
-import { fromBase, toBase, type Quantity as EngineQuantity, type UnitSystem } from '../../../../../shared/engine';
+import { fromBase, toBase, type Quantity as EngineQuantity, type UnitSystem } from '../../../../../shared/engine/units';
 import { BEAM_BASE, type BeamFactors } from '../../../../../shared/engine/beam/beam-units';
 import type { EditorValue } from './editor-form';
 import { convertedText, fromText, toText } from './number-text';

@@ -20,6 +20,12 @@ export interface AuditEntry {
   diff?: string | null;
   /** The calc and project the entry falls under, when the caller already knows them (else looked up). */
   scope?: { calcId: number | null; projectId: number | null };
+  /**
+   * The entry is the last statement of the caller's transaction: the database commits it right after the append
+   * (`audit_append_commit`), so the head is freed without a trip back to the app. Only for work run with
+   * `idempotent: true`: a connection lost during that statement may have committed, and the work runs again.
+   */
+  commits?: true;
 }
 
 /**
@@ -55,10 +61,13 @@ export async function appendAudit(
     const params = [c.actorId, c.actorName, c.action, c.entityType, c.entityId, c.payload, c.diff, c.ip];
     // `chain`: waiting for the head, then the append; `chain-held`: from the append to the commit that frees it.
     await timed('chain', () =>
-      sequelize.query('CALL audit_append(?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)', {
-        replacements: [...params, scope.calcId, scope.projectId, before, after],
-        transaction: t,
-      }),
+      sequelize.query(
+        `CALL ${entry.commits ? 'audit_append_commit' : 'audit_append'}(?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
+        {
+          replacements: [...params, scope.calcId, scope.projectId, before, after],
+          transaction: t,
+        },
+      ),
     );
     const since = process.hrtime.bigint();
     t.afterCommit(() => timeSince('chain-held', since));

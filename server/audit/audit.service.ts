@@ -69,8 +69,9 @@ export async function appendAudit(
         },
       ),
     );
+    // An append that commits has already freed the head.
     const since = process.hrtime.bigint();
-    t.afterCommit(() => timeSince('chain-held', since));
+    if (!entry.commits) t.afterCommit(() => timeSince('chain-held', since));
   };
   if (transaction) return run(transaction);
   return runTransaction(sequelize, run);

@@ -66,7 +66,7 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number, 
 }
 
 /** User + system CPU seconds of a process so far (Linux /proc), or NaN when unknown. */
-function cpuSeconds(pid?: number): number {
+export function cpuSeconds(pid?: number): number {
   if (!pid || !existsSync(`/proc/${pid}/stat`)) return NaN;
   const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
   return (Number(fields[11]) + Number(fields[12])) / 100;

@@ -2,9 +2,9 @@ import session from 'express-session';
 import connectSessionSequelize from 'connect-session-sequelize';
 import { LRUCache } from 'lru-cache';
 import type { RequestHandler } from 'express';
-import { Op, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import type { Config } from '../config';
-import { Session } from '../db/models';
+import { readSession, withSessionRequest } from './session-user';
 
 export const SESSION_COOKIE = 'tt.sid';
 
@@ -36,10 +36,11 @@ export function sessionMiddleware(
     }),
   });
   // The package's get() ignores `expires` until its sweep runs, so a replayed cookie would outlive
-  // the idle limit (and `rolling` would then renew it). Only rows still in date count.
+  // the idle limit (and `rolling` would then renew it). Only rows still in date count; the same
+  // statement reads the person the session names (session-user.ts).
   const storedExpiry = new LRUCache<string, number>({ max: 10_000 });
   store.get = (sid, callback) => {
-    Session.findOne({ where: { sid, expires: { [Op.gt]: new Date() } } })
+    readSession(sequelize, sid)
       .then((row) => {
         if (row?.expires) storedExpiry.set(sid, row.expires.getTime());
         return row?.data ? JSON.parse(row.data) : null;
@@ -70,7 +71,7 @@ export function sessionMiddleware(
     cookie: { httpOnly: true, sameSite: 'lax', secure: config.TLS, maxAge: config.SESSION_IDLE_MINUTES * 60_000 },
   });
   // The store sweeps expired rows on a timer of its own; closing the app stops it.
-  return { middleware, close: () => store.stopExpiringSessions() };
+  return { middleware: withSessionRequest(middleware), close: () => store.stopExpiringSessions() };
 }
 
 export function absoluteSessionLimit(config: Config): RequestHandler {

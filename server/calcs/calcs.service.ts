@@ -3,24 +3,22 @@ import type { Sequelize, Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { CalcDto, RevisionDto } from '../../shared/schemas/calc-dto';
 import type { CreateCalcRequest, SaveRevisionRequest } from '../../shared/schemas/revision.schema';
-import { EDITABLE_STATES } from '../../shared/schemas/revision.schema';
 import { Calc, Project, Revision } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
-import { loadRuleSet, parseRuleSet } from '../rule-sets/rule-set-cache';
+import { loadRuleSet } from '../rule-sets/rule-set-cache';
 import { REVISION_INCLUDE, toCalcDto } from './calc-mapping';
-import { assertCan, attachRuleSet, loadRevision, recordEditor } from './calc-access';
+import { recordEditor } from './calc-access';
 import { CONTENT_FORMAT, computeRecord } from './revision-content';
 import { currentHashOf, readRevision } from './revision-read';
-import { jsonDiff } from './content-diff';
+import { saveRevision, stored } from './revision-save';
 import { revisionLabel } from './revision-label';
-import { outcomeOf } from '../../shared/schemas/outcome';
-import { stringifyFinite } from '../../shared/json/finite-json';
-import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
-import { compactResult, registerEngineMetadata } from './stored-result';
+import { registerEngineMetadata } from './stored-result';
 import { blindRevisionIds } from '../independent/blind-lists';
-import { timed } from '../http/server-timing';
+
+// A save's stored columns: scripts and specs import them from here.
+export { stored } from './revision-save';
 
 /** Calcs and the content of their revisions. Workflow transitions live in server/workflow. */
 export class CalcsService {
@@ -122,93 +120,8 @@ export class CalcsService {
   }
 
   /** Saves the author's input. A stale `lockVersion` is a 409 carrying the stored version, never an overwrite. */
-  async save(
-    ability: AppAbility,
-    actor: Actor & { id: number },
-    revisionId: number,
-    dto: SaveRevisionRequest,
-  ): Promise<RevisionDto> {
-    // Before the transaction: the first call of a process writes on a connection of its own, and inside it
-    // twenty saves holding every pooled connection would each wait for a twenty-first (the pool's time-out).
-    await registerEngineMetadata(this.sequelize);
-    await runTransaction(
-      this.sequelize,
-      async (transaction, attempt) => {
-        const revision = await timed('lock', () => loadRevision(revisionId, transaction));
-        // A run after a COMMIT whose answer was lost: this exact save is already stored.
-        if (attempt > 1 && revision.lockVersion === dto.lockVersion + 1 && revision.input === JSON.stringify(dto.input))
-          return;
-        // Checked after the replay above (not by loadRevisionForChange): a replayed save answers as the first did.
-        const projectId = await assertProjectOpen(revision.calcId, transaction);
-        if (!EDITABLE_STATES.includes(revision.status)) {
-          throw new AppError(
-            'read_only',
-            409,
-            `Revision ${revision.label} is ${revision.status.replace('_', ' ')} and cannot be edited; start a new revision to change it`,
-          );
-        }
-        assertCan(ability, 'update', revision, 'Only the author of this revision can edit it');
-        if (revision.lockVersion !== dto.lockVersion) {
-          const current = await readRevision(ability, revisionId, transaction);
-          throw new AppError('conflict', 409, 'This revision was saved elsewhere since you opened it', { current });
-        }
-        const ruleSetId = dto.ruleSetId ?? revision.ruleSetId;
-        // The revision's own standard came with it (document and version included): read again only to switch.
-        const { record, doc } =
-          ruleSetId === revision.ruleSetId && revision.ruleSet
-            ? { record: revision.ruleSet, doc: parseRuleSet(revision.ruleSet) }
-            : await loadRuleSet(ruleSetId, transaction);
-        if (ruleSetId !== revision.ruleSetId && record.status !== 'effective') {
-          throw new AppError('validation', 400, 'Only an effective standard can be chosen', {
-            fieldErrors: { ruleSetId: ['is not an effective version'] },
-          });
-        }
-        const computed = await timed('engine', () => computeRecord(dto.input, doc));
-        const diff = jsonDiff(
-          JSON.parse(revision.input),
-          dto.input,
-          `${revision.label}@${revision.lockVersion}`,
-          `${revision.label}@${revision.lockVersion + 1}`,
-        );
-        revision.set({
-          input: JSON.stringify(dto.input),
-          ruleSetId,
-          lockVersion: revision.lockVersion + 1,
-          ...stored(computed),
-        });
-        // The hash is taken from the values about to be stored, so the row is written once: each
-        // write of a revision also runs the summary and search-term triggers of its calc.
-        if (ruleSetId !== revision.ruleSet?.id) attachRuleSet(revision, record);
-        await registerEngineMetadata(this.sequelize);
-        revision.contentFormat = CONTENT_FORMAT;
-        revision.contentHash = await timed('digest', () => currentHashOf(revision, transaction));
-        await timed('write', () => revision.save({ transaction }));
-        await timed('editor', () => recordEditor(revision.calcId, actor.id, transaction));
-        await timed('audit', () =>
-          appendAudit(
-            this.sequelize,
-            actor,
-            {
-              action: 'revision.saved',
-              entityType: 'Revision',
-              entityId: revision.id,
-              payload: {
-                calcId: revision.calcId,
-                revision: revision.label,
-                lockVersion: revision.lockVersion,
-                verdict: revision.verdict,
-                ruleSet: `${record.code} v${record.version}`,
-              },
-              diff,
-              scope: { calcId: revision.calcId, projectId: projectId ?? null },
-            },
-            transaction,
-          ),
-        );
-      },
-      { idempotent: true },
-    );
-    return timed('answer', () => readRevision(ability, revisionId));
+  save(ability: AppAbility, actor: Actor & { id: number }, revisionId: number, dto: SaveRevisionRequest) {
+    return saveRevision(this.sequelize, ability, actor, revisionId, dto);
   }
 
   async refreshHash(revision: Revision, transaction: Transaction): Promise<void> {
@@ -219,13 +132,4 @@ export class CalcsService {
     revision.contentHash = await currentHashOf(revision, transaction);
     await revision.save({ transaction });
   }
-}
-
-export function stored(c: Awaited<ReturnType<typeof computeRecord>>) {
-  return {
-    result: compactResult(c.result),
-    checklist: c.checklist ? stringifyFinite(c.checklist) : null,
-    verdict: c.verdict,
-    outcome: JSON.stringify(outcomeOf(c.checklist)),
-  };
 }

@@ -1,3 +1,4 @@
+import { LRUCache } from 'lru-cache';
 import { Op, type Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import { IndependentModel, RuleSetRecord, type Revision } from '../db/models';
@@ -23,12 +24,7 @@ export async function blindRevisionIds(ability: AppAbility, rows: readonly Liste
   const viewer = viewerOf(ability);
   const candidates = rows.filter((r) => viewer.mayCheck && r.authorId !== viewer.id && BLIND_STATES.includes(r.status));
   if (!candidates.length) return new Set();
-  const ruleSetIds = [...new Set(candidates.map((r) => r.ruleSetId))];
-  const records = await RuleSetRecord.findAll({
-    where: { id: ruleSetIds },
-    attributes: ['id', 'lockVersion', 'document'],
-  });
-  const asking = new Set(records.filter((r) => parseRuleSet(r).verification).map((r) => r.id));
+  const asking = await askingForModels([...new Set(candidates.map((r) => r.ruleSetId))]);
   const inScope = candidates.filter((r) => asking.has(r.ruleSetId));
   if (!inScope.length) return new Set();
   const own = await IndependentModel.findAll({
@@ -37,6 +33,32 @@ export async function blindRevisionIds(ability: AppAbility, rows: readonly Liste
   });
   const done = new Set(own.map((m) => m.revisionId));
   return new Set(inScope.filter((r) => !done.has(r.revisionId)).map((r) => r.revisionId));
+}
+
+// Whether a standard asks for an independent model, by id and lock version (a document never changes under one).
+const asksByVersion = new LRUCache<string, boolean>({ max: 1_000 });
+
+/**
+ * The standards among these that ask for an independent model. Their versions are read every time; a document
+ * only when this process has not judged that version yet.
+ */
+async function askingForModels(ids: number[]): Promise<Set<number>> {
+  const versions = await RuleSetRecord.findAll({ where: { id: ids }, attributes: ['id', 'lockVersion'], raw: true });
+  const keyOf = (r: { id: number; lockVersion: number }) => `${r.id}:${r.lockVersion}`;
+  const asking = new Set(versions.filter((r) => asksByVersion.get(keyOf(r))).map((r) => r.id));
+  const unknown = versions.filter((r) => !asksByVersion.has(keyOf(r))).map((r) => r.id);
+  if (!unknown.length) return asking;
+  // Judged from the document as read now, whatever version it has reached since.
+  const records = await RuleSetRecord.findAll({
+    where: { id: unknown },
+    attributes: ['id', 'lockVersion', 'document'],
+  });
+  for (const r of records) {
+    const asks = Boolean(parseRuleSet(r).verification);
+    asksByVersion.set(keyOf(r), asks);
+    if (asks) asking.add(r.id);
+  }
+  return asking;
 }
 
 /** Hides the verdict of each listed revision the reader must not see yet. */

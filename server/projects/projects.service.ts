@@ -9,7 +9,13 @@ import { accessibleWhere } from '../authz/accessible-where';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { runTransaction } from '../db/transaction';
 
-export function toProjectDto(p: Project): ProjectDto {
+/** A project row, as a model or as the plain values a list reads (`raw`: no model built per row). */
+type ProjectRow = Pick<
+  Project,
+  'id' | 'code' | 'name' | 'client' | 'description' | 'revisionScheme' | 'status' | 'createdAt' | 'version'
+>;
+
+export function toProjectDto(p: ProjectRow): ProjectDto {
   return {
     id: p.id,
     code: p.code,
@@ -37,6 +43,7 @@ export class ProjectsService {
       order: [['code', 'ASC']],
       offset: query.page * query.size,
       limit: query.size,
+      raw: true,
     });
     return { items: rows.map(toProjectDto), total: count, page: query.page, size: query.size };
   }

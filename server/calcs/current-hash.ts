@@ -1,0 +1,102 @@
+import type { Transaction } from 'sequelize';
+import { Attachment, Calc, Project, Revision, type Signature } from '../db/models';
+import { contentHashOf, hashedContentOf, signedAttachments } from './revision-content';
+import { contentKeyOf, memoisedHash } from './content-hash-memo';
+import { expandResult } from './stored-result';
+import { lockedModelOf } from '../independent/signed-model';
+
+/** What a revision's content hash covers besides the row itself, read once for every format asked. */
+interface HashSources {
+  calc: Calc & { Project: Project };
+  expanded: unknown;
+  attachments: Attachment[];
+  model: Awaited<ReturnType<typeof lockedModelOf>>;
+}
+
+async function hashSourcesOf(
+  revision: Revision,
+  transaction: Transaction | undefined,
+  result: unknown,
+  maxFormat: number,
+): Promise<HashSources> {
+  const [calc, expanded, attachments, model] = await Promise.all([
+    Calc.findByPk(revision.calcId, {
+      include: [Project],
+      attributes: ['id', 'number', 'title', 'partRef', 'projectId'],
+      transaction,
+    }) as Promise<Calc & { Project: Project }>,
+    result ?? expandResult(Revision.sequelize!, revision.result, transaction),
+    maxFormat >= 2 ? Attachment.findAll({ where: { revisionId: revision.id }, transaction }) : [],
+    maxFormat >= 3 ? lockedModelOf(revision.id, transaction) : null,
+  ]);
+  return { calc, expanded, attachments, model };
+}
+
+/** The hash in one format: that format's own share of the sources (attachments from 2, the locked model from 3). */
+function hashInFormat(revision: Revision, sources: HashSources, format: number): string {
+  const { calc, expanded } = sources;
+  const attachments = format >= 2 ? sources.attachments : [];
+  const model = format >= 3 ? sources.model : null;
+  const key = contentKeyOf([
+    format,
+    ...[calc.Project.code, calc.number, calc.title, calc.partRef, revision.label],
+    ...[revision.input, revision.result, revision.checklist],
+    ...[revision.ruleSet?.code, revision.ruleSet?.version, revision.ruleSet?.contentHash],
+    JSON.stringify(signedAttachments(attachments)),
+    JSON.stringify(model),
+  ]);
+  return memoisedHash(key, () =>
+    contentHashOf(
+      hashedContentOf(
+        calc,
+        revision.label,
+        JSON.parse(revision.input),
+        expanded,
+        JSON.parse(revision.checklist!),
+        revision.ruleSet,
+        format,
+        attachments,
+        model,
+      ),
+    ),
+  );
+}
+
+/**
+ * Recomputes the content hash from what is stored now, so tampering shows as a broken signature.
+ * The hash covers the result as the engine returned it, with its units and formulas put back, and
+ * (format 2, the default for the revision's own format) the attachment set as stored now.
+ */
+export async function currentHashOf(
+  revision: Revision,
+  transaction?: Transaction,
+  result?: unknown,
+  format = revision.contentFormat ?? 1,
+): Promise<string | null> {
+  if (!revision.result || !revision.checklist) return null;
+  return hashInFormat(revision, await hashSourcesOf(revision, transaction, result, format), format);
+}
+
+/**
+ * The current hash in every format a signature of this revision was made in, so each signature
+ * is judged by the content it covered: tampering or a changed attachment set shows as broken.
+ * `withOwnFormat: false` leaves out the revision's own format when no signature needs it (a plain
+ * read of an unsigned revision then reads and hashes nothing: only signatures are judged by it).
+ * What the formats share (the calc, its attachments, the locked model) is read once.
+ */
+export async function currentHashesOf(
+  revision: Revision,
+  signatures: readonly Signature[],
+  transaction?: Transaction,
+  result?: unknown,
+  withOwnFormat = true,
+): Promise<Map<number, string | null>> {
+  const own = withOwnFormat ? [revision.contentFormat ?? 1] : [];
+  const formats = [...new Set([...own, ...signatures.map((s) => s.contentFormat ?? 1)])];
+  const hashes = new Map<number, string | null>();
+  if (!formats.length) return hashes;
+  if (!revision.result || !revision.checklist) return new Map(formats.map((f) => [f, null]));
+  const sources = await hashSourcesOf(revision, transaction, result, Math.max(...formats));
+  for (const f of formats) hashes.set(f, hashInFormat(revision, sources, f));
+  return hashes;
+}

@@ -1,13 +1,12 @@
 // Screen benchmark: how long each main screen takes from navigation to usable, in Debian's headless
 // Chromium against the demo database, with the API calls behind it (count, slowest by Server-Timing)
 // and the script fetched. Prints figures only; tests never depend on them. Needs the built client.
-import { chromium, type Page } from 'playwright-core';
-import { startServer } from './bench-http';
+import type { Page } from 'playwright-core';
 import { loadConfig } from '../server/config';
 import { createSequelize } from '../server/db';
 import { Calc, Project } from '../server/db/models';
-import { DEMO_PASSWORD } from '../server/db/demo-data';
 import { waterfall } from './bench-screens-trace';
+import { runInBrowser, signedInPage } from './bench-browser';
 
 const RUNS = Number(process.env.BENCH_SCREEN_RUNS ?? 3);
 /** BENCH_SCREENS="editor,calc page" measures only the named screens (all by default). */
@@ -109,15 +108,6 @@ async function calcLatest(calcId: number): Promise<number> {
   return Number((rows as { id: number }[])[0].id);
 }
 
-async function signIn(page: Page, username: string): Promise<void> {
-  await page.context().clearCookies();
-  await page.goto('/sign-in');
-  await page.getByLabel('Username').fill(username);
-  await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: /Good to see you/ }).waitFor();
-}
-
 /** One visit: ms from navigation to usable, API calls, the slowest call's server time, script bytes. */
 async function visit(page: Page, s: Screen) {
   const api: { url: string; serverMs: number }[] = [];
@@ -141,40 +131,23 @@ async function visit(page: Page, s: Screen) {
   return { ms, calls: api.length, slowest, scriptKb: scriptBytes / 1024, trace };
 }
 
-async function main(): Promise<void> {
+runInBrowser(async (browser, url) => {
   const list = (await screens()).filter((s) => !ONLY || ONLY.includes(s.name));
-  const { url, child } = await startServer({ LOG_LEVEL: 'silent', MAIL_SENDER: 'false' });
-  const browser = await chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update'],
-  });
-  try {
+  console.log(
+    `Screens, navigation to usable in headless Chromium (median of ${RUNS}; after sign-in, scripts cached as a returning user has them):`,
+  );
+  for (const s of list) {
+    const page = await signedInPage(browser, url, s.user);
+    const first = await visit(page, s);
+    const runs = [first];
+    for (let i = 1; i < RUNS; i++) runs.push(await visit(page, s));
+    const sorted = runs.map((r) => r.ms).sort((a, b) => a - b);
+    const median = sorted[Math.floor(sorted.length / 2)];
     console.log(
-      `Screens, navigation to usable in headless Chromium (median of ${RUNS}; after sign-in, scripts cached as a returning user has them):`,
+      `  ${s.name.padEnd(14)} ${String(median).padStart(5)} ms (first ${first.ms} ms)  ${first.calls} API calls, slowest ${first.slowest.url} ` +
+        `${first.slowest.serverMs.toFixed(0)} ms on the server, ${first.scriptKb.toFixed(0)} kB script on first visit`,
     );
-    for (const s of list) {
-      const context = await browser.newContext({ baseURL: url, viewport: { width: 1440, height: 900 } });
-      const page = await context.newPage();
-      await signIn(page, s.user);
-      const first = await visit(page, s);
-      const runs = [first];
-      for (let i = 1; i < RUNS; i++) runs.push(await visit(page, s));
-      const sorted = runs.map((r) => r.ms).sort((a, b) => a - b);
-      const median = sorted[Math.floor(sorted.length / 2)];
-      console.log(
-        `  ${s.name.padEnd(14)} ${String(median).padStart(5)} ms (first ${first.ms} ms)  ${first.calls} API calls, slowest ${first.slowest.url} ` +
-          `${first.slowest.serverMs.toFixed(0)} ms on the server, ${first.scriptKb.toFixed(0)} kB script on first visit`,
-      );
-      for (const line of first.trace) console.log(line);
-      await context.close();
-    }
-  } finally {
-    await browser.close();
-    child.kill();
+    for (const line of first.trace) console.log(line);
+    await page.context().close();
   }
-}
-
-main().catch((err) => {
-  console.error(err);
-  process.exit(1);
 });

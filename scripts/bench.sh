@@ -63,4 +63,7 @@ DB_NAME=torquetrail_screens DB_USER=torquetrail_screens DB_PASSWORD=bench-only n
 DB_NAME=torquetrail_screens DB_USER=torquetrail_screens DB_PASSWORD=bench-only npx tsx server/db/seed.ts >/dev/null
 DB_NAME=torquetrail_screens DB_USER=torquetrail_screens DB_PASSWORD=bench-only npx tsx scripts/bench-screens.ts
 echo
+# Returning and signing on the calc page, on revisions of their own added to the same demo database.
+DB_NAME=torquetrail_screens DB_USER=torquetrail_screens DB_PASSWORD=bench-only npx tsx scripts/bench-signing.ts
+echo
 echo "Figures measure this machine at this moment; they support, never replace, engineering judgement of the product's fitness."

@@ -94,13 +94,29 @@ export async function signOff(
   });
   ledger.saves.push({ revisionId: rid, lockVersion: saved, title });
 
+  await attachRequired(author, rid, start, ctx.number, ledger);
+  await sign(author, rid, 'authored', password, ledger);
+  await tickAll(checker, rid, ledger);
+  await sign(checker, rid, 'checked', password, ledger);
+  await sign(approver, rid, 'approved', password, ledger);
+  return rid;
+}
+
+/** Uploads one file of each kind the standard's manual items require (a tick needs one as evidence). */
+export async function attachRequired(
+  author: ApiClient,
+  rid: number,
+  start: { checklist?: { manual?: { requiresAttachment?: string }[] } },
+  number: string,
+  ledger: Ledger,
+): Promise<void> {
   const kinds = [
     ...new Set(
       (start.checklist?.manual ?? []).map((m: { requiresAttachment?: string }) => m.requiresAttachment).filter(Boolean),
     ),
   ] as string[];
   for (const kind of kinds) {
-    const fileName = `${ctx.number}-${kind}.pdf`;
+    const fileName = `${number}-${kind}.pdf`;
     await retrying(`upload ${fileName}`, async () => {
       const form = new FormData();
       form.append('kind', kind);
@@ -116,8 +132,10 @@ export async function signOff(
     });
     ledger.attachments.push({ revisionId: rid, fileName });
   }
+}
 
-  await sign(author, rid, 'authored', password, ledger);
+/** Ticks every manual item of the revision as its checker, looking after a lost answer whether it was stored. */
+export async function tickAll(checker: ApiClient, rid: number, ledger: Ledger): Promise<void> {
   const inCheck = await readRevision(checker, rid);
   for (const item of inCheck.checklist?.manual ?? []) {
     await retrying(`tick ${item.id}`, async () => {
@@ -129,13 +147,16 @@ export async function signOff(
     });
     ledger.ticks.push({ revisionId: rid, itemId: item.id });
   }
-  await sign(checker, rid, 'checked', password, ledger);
-  await sign(approver, rid, 'approved', password, ledger);
-  return rid;
 }
 
 /** Signs once: every retry carries the same idempotency key, so a lost answer never signs twice. */
-async function sign(c: ApiClient, rid: number, meaning: string, password: string, ledger: Ledger): Promise<void> {
+export async function sign(
+  c: ApiClient,
+  rid: number,
+  meaning: string,
+  password: string,
+  ledger: Ledger,
+): Promise<void> {
   const key = randomUUID();
   const { lockVersion } = await readRevision(c, rid);
   await retrying(`sign ${meaning} ${rid}`, async () => {

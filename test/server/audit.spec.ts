@@ -125,16 +125,33 @@ describe('audit chain', () => {
   });
 
   // The triggers guard against anyone with SQL access, not just the app, so raw SQL on the app's connection is the
-  // test. Each first appends a row, so the statement always has something to touch.
+  // test. Each first appends a row of its own and then touches that row by its key: other spec files append to the
+  // same table at the same time, and "the last row" (ORDER BY id DESC LIMIT 1) locks the gap their inserts need,
+  // which MariaDB may end as a deadlock before the trigger runs.
+  async function appendOwnRow(): Promise<number> {
+    const { username } = await createTestUser(['author']);
+    await attemptSignIn(username, 'wrong password');
+    const rows = await AuditEvent.findAll({
+      where: { action: 'auth.sign_in_failed' },
+      order: [['id', 'DESC']],
+      limit: 50,
+    });
+    const own = rows.find((r) => JSON.parse(r.payload).username === username);
+    if (!own) throw new Error(`no sign-in failure entry for ${username}`);
+    return own.id;
+  }
+
   it('when anyone runs UPDATE on audit_events directly, then the database refuses', async () => {
-    await createTestUser(['author']).then(({ username }) => attemptSignIn(username, 'wrong password'));
+    const id = await appendOwnRow();
     await expect(
-      sequelize.query("UPDATE audit_events SET actor_name = 'someone else' ORDER BY id DESC LIMIT 1"),
+      sequelize.query("UPDATE audit_events SET actor_name = 'someone else' WHERE id = ?", { replacements: [id] }),
     ).rejects.toThrow(/append-only/);
   });
 
   it('when anyone runs DELETE on audit_events directly, then the database refuses', async () => {
-    await createTestUser(['author']).then(({ username }) => attemptSignIn(username, 'wrong password'));
-    await expect(sequelize.query('DELETE FROM audit_events ORDER BY id DESC LIMIT 1')).rejects.toThrow(/append-only/);
+    const id = await appendOwnRow();
+    await expect(sequelize.query('DELETE FROM audit_events WHERE id = ?', { replacements: [id] })).rejects.toThrow(
+      /append-only/,
+    );
   });
 });

@@ -1,3 +1,4 @@
+import type { Response } from 'playwright-core';
 import { accessibilityViolations } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { createTestUser } from '../support/api-harness';
@@ -78,18 +79,23 @@ describe('records in the browser', () => {
     const admin = await createTestUser(['admin']);
     const page = await suite.session.context.newPage();
     await suite.signIn(page, admin.username);
+    const subject = `Ready for check: ${team.project.code}`;
     const listed = () => page.waitForResponse((r) => new URL(r.url()).pathname === '/api/mail/sent');
+    const holdsOurs = async (read: Promise<Response>) =>
+      ((await (await read).json()) as { items: { subject: string }[] }).items.some((m) =>
+        m.subject.startsWith(subject),
+      );
     let read = listed();
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Sent mail' }).click();
-    await read;
     // Specs beside this one queue mail too, newest first: this calc's mail may already sit on a later page.
-    // New mail only pushes it further on, so paging forward cannot pass it.
-    const mail = page.getByRole('button', { name: new RegExp(`Ready for check: ${team.project.code}`) }).first();
-    for (let turn = 0; turn < 40 && !(await mail.isVisible()); turn++) {
+    // New mail only pushes it further on, so paging forward cannot pass it. Each page is judged by the answer the
+    // screen received, not by what it has drawn so far (under load the rows follow the answer a moment later).
+    for (let turn = 0; !(await holdsOurs(read)); turn++) {
+      if (turn === 40) throw new Error(`no "${subject}" mail in the first 40 pages`);
       read = listed();
       await page.getByRole('button', { name: 'Next page' }).click();
-      await read;
     }
+    const mail = page.getByRole('button', { name: new RegExp(subject) }).first();
     await mail.click();
     await page.getByText('Open it to check:').first().waitFor();
     await suite.session.screenshot(page, 'sent-mail');

@@ -123,4 +123,24 @@ describe('MariaDB rate-limit store', () => {
     await store.increment(long);
     expect((await store.increment(long)).totalHits).toBe(2);
   });
+
+  it('when the sweep of expired rows fails, then the hit that ran it is still counted', async () => {
+    // The sweep runs on every hundredth hit; here the database refuses it as it would after a deadlock retried in vain.
+    const refusing = new Proxy(first.sequelize, {
+      get(target, name, receiver) {
+        if (name !== 'query') return Reflect.get(target, name, receiver);
+        return (sql: string, ...rest: unknown[]) =>
+          /^DELETE FROM rate_limit_hits WHERE reset_at/.test(sql)
+            ? Promise.reject(new Error('sweep refused by test'))
+            : (target.query as (...a: unknown[]) => Promise<unknown>).call(target, sql, ...rest);
+      },
+    });
+    const store = new MariaDbRateLimitStore(refusing, { prefix: `test-${randomUUID().slice(0, 8)}:` });
+    store.init({ windowMs: 60_000 } as Options);
+
+    const hits = [];
+    for (let i = 0; i < 100; i++) hits.push((await store.increment('k')).totalHits);
+
+    expect(hits.at(-1)).toBe(100);
+  });
 });

@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { ClientRateLimitInfo, Options, Store } from 'express-rate-limit';
 import { runTransaction } from '../db/transaction';
+import { logger } from '../logger';
 
 const MAX_KEY_LENGTH = 191;
 const SWEEP_EVERY = 100;
@@ -64,19 +65,19 @@ export class MariaDbRateLimitStore implements Store {
     });
   }
 
+  // Retried like the upsert: the sweep's range delete can deadlock with it, and a lost decrement would count a
+  // successful sign-in as a failed attempt.
   async decrement(key: string): Promise<void> {
-    await this.sequelize.query(DECREMENT, { replacements: { key: this.#key(key) } });
+    await this.#write(DECREMENT, { key: this.#key(key) });
   }
 
   async resetKey(key: string): Promise<void> {
-    await this.sequelize.query('DELETE FROM rate_limit_hits WHERE rate_key = :key', {
-      replacements: { key: this.#key(key) },
-    });
+    await this.#write('DELETE FROM rate_limit_hits WHERE rate_key = :key', { key: this.#key(key) });
   }
 
   async resetAll(): Promise<void> {
-    await this.sequelize.query('DELETE FROM rate_limit_hits WHERE rate_key LIKE :pattern', {
-      replacements: { pattern: `${this.prefix.replace(/[\\%_]/g, '\\$&')}%` },
+    await this.#write('DELETE FROM rate_limit_hits WHERE rate_key LIKE :pattern', {
+      pattern: `${this.prefix.replace(/[\\%_]/g, '\\$&')}%`,
     });
   }
 
@@ -87,11 +88,20 @@ export class MariaDbRateLimitStore implements Store {
     return `${this.prefix}sha256:${createHash('sha256').update(key).digest('hex')}`;
   }
 
-  // Expired rows are harmless (the upsert restarts them) but would pile up; clear them now and then.
+  /** One statement in a transaction of its own, run again on a deadlock or lock-wait timeout. */
+  async #write(sql: string, replacements: Record<string, string>): Promise<void> {
+    await runTransaction(this.sequelize, (transaction) => this.sequelize.query(sql, { replacements, transaction }));
+  }
+
+  // Expired rows are harmless (the upsert restarts them) but would pile up; clear them now and then. The delete locks
+  // a range of the reset_at index, which other instances' upserts also write, so it is retried on a deadlock; if it
+  // still fails, the next sweep clears the rows, and the sign-in that ran it must not fail for housekeeping.
   async #sweepSometimes(): Promise<void> {
     if (++this.#sinceSweep < SWEEP_EVERY) return;
     this.#sinceSweep = 0;
-    await this.sequelize.query('DELETE FROM rate_limit_hits WHERE reset_at < UTC_TIMESTAMP(3) LIMIT 1000');
+    await this.#write('DELETE FROM rate_limit_hits WHERE reset_at < UTC_TIMESTAMP(3) LIMIT 1000', {}).catch((err) =>
+      logger.warn({ err }, 'rate-limit sweep skipped; the next one clears the expired rows'),
+    );
   }
 }
 

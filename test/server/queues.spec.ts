@@ -17,11 +17,29 @@ afterAll(() => sequelize.close());
 
 type QueueKey = 'my-drafts' | 'returned-to-me' | 'awaiting-my-check' | 'awaiting-my-approval';
 
+interface QueuePage {
+  key: QueueKey;
+  items: { revisionId: number }[];
+  next: string | null;
+}
+
+/**
+ * Every revision in each of this person's queues, following the cursor to the end. The checkers' and approvers' queues
+ * hold every independent calc waiting in the shared database, oldest first, and other spec files fill them while this
+ * one runs: a calc just submitted may lie beyond the first page.
+ */
 async function queues(s: Session): Promise<Record<string, number[]>> {
   const res = expectStatus(await s.get('/api/dashboard/queues?size=500'), 200, 'queues');
-  return Object.fromEntries(
-    res.body.map((q: { key: QueueKey; items: { revisionId: number }[] }) => [q.key, q.items.map((i) => i.revisionId)]),
-  );
+  const all: Record<string, number[]> = {};
+  for (let page of res.body as QueuePage[]) {
+    all[page.key] = page.items.map((i) => i.revisionId);
+    while (page.next) {
+      const more = await s.get(`/api/dashboard/queues/${page.key}?size=500&after=${page.next}`);
+      page = expectStatus(more, 200, `queue ${page.key}`).body;
+      all[page.key].push(...page.items.map((i) => i.revisionId));
+    }
+  }
+  return all;
 }
 
 async function team(authorRoles: Role[] = ['author']) {

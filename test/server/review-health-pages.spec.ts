@@ -34,6 +34,25 @@ async function allPages(key: SignalKey, size: number): Promise<SignalPage[]> {
   return pages;
 }
 
+const settingsVersion = async (): Promise<number> =>
+  (await compliance.get('/api/review-health/settings')).body.lockVersion;
+
+/**
+ * The report and one signal's pages read under one version of the thresholds. review-health.spec.ts changes them while
+ * this file runs (a signal such as no-findings then lists other rows), so a read that spans a change is read again.
+ */
+async function pagesBesideReport(key: SignalKey, size: number): Promise<{ pages: SignalPage[]; signal: SignalRows }> {
+  for (let attempt = 1; ; attempt++) {
+    const version = await settingsVersion();
+    const res = await compliance.get(`/api/review-health?${period()}`);
+    const pages = await allPages(key, size);
+    if ((await settingsVersion()) === version || attempt === 5) {
+      return { pages, signal: (res.body as HealthReport).signals.find((s) => s.key === key)! };
+    }
+  }
+}
+type SignalRows = HealthReport['signals'][number];
+
 beforeAll(async () => {
   ({ app, sequelize } = startTestApp());
   compliance = (await person(app, ['compliance'], 'rh-pages')).session;
@@ -56,9 +75,9 @@ describe('each signal list is paged on its own', () => {
   it.each<SignalKey>(['verdict-flip', 'refusals', 'no-findings'])(
     'when the %s list is read one row at a time, then the pages hold the report’s rows in its order, once each',
     async (key) => {
-      const pages = await allPages(key, 1);
-      expect(pages.flatMap((p) => p.rows)).toEqual(signalOf(key).rows);
-      expect(pages[0].total).toBe(signalOf(key).total);
+      const { pages, signal } = await pagesBesideReport(key, 1);
+      expect(pages.flatMap((p) => p.rows)).toEqual(signal.rows);
+      expect(pages[0].total).toBe(signal.total);
       expect(pages.at(-1)!.next).toBeNull();
     },
   );

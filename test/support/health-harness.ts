@@ -44,16 +44,16 @@ export async function addLateFile(revisionId: number, uploadedBy: number) {
   );
 }
 
-/** Replaces the standard's v1 by a v2 (effective today) under which the fixture shaft no longer complies. */
-export async function replaceStandard(standard: { id: number; code: string }) {
+/** Replaces the standard's v1 by a v2 (effective `on`, today) under which the fixture shaft no longer complies. */
+export async function replaceStandard(standard: { id: number; code: string }, on = today()) {
   const v1 = (await RuleSetRecord.findByPk(standard.id))!;
-  const doc = { ...withParameter(JSON.parse(v1.document), 'asmeSyFraction', 0.03), version: 2, effectiveDate: today() };
+  const doc = { ...withParameter(JSON.parse(v1.document), 'asmeSyFraction', 0.03), version: 2, effectiveDate: on };
   await RuleSetRecord.create({
     code: standard.code,
     version: 2,
     title: v1.title,
     status: 'effective',
-    effectiveDate: today(),
+    effectiveDate: on,
     document: JSON.stringify(doc),
     contentHash: documentHash(doc),
     createdBy: null,
@@ -150,11 +150,13 @@ export async function healthScenario(app: Express) {
     checkedAt: new Date(now - 46 * DAY),
     approvedAt: new Date(now - 45 * DAY),
   });
-  await replaceStandard(standard);
+  // The day v2 took effect, kept for assertions: a run that passes midnight (UTC) must not expect the next day.
+  const v2On = today();
+  await replaceStandard(standard, v2On);
   const calcOf = async (id: number) => (await revisionOf(authorA.session, id)).calcId as number;
   return {
     project: { id: project.id, code: project.code },
-    standard,
+    standard: { ...standard, v2On },
     authorA,
     authorB,
     checker1,

@@ -1,5 +1,5 @@
 import path from 'node:path';
-import { SCREENSHOT_DIR } from '../support/browser';
+import { SCREENSHOT_DIR, pageSettled } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { calcTeam } from '../support/calc-harness';
 
@@ -18,6 +18,8 @@ describe('the editor at desktop and tablet widths', () => {
       const edition = page.locator('tt-fatigue-panel mat-form-field', { hasText: 'Table 6-2 edition' });
       await edition.getByText('9th–10th (default)').waitFor();
       await page.locator('tt-verdict-strip .strip').waitFor();
+      // Measured in the page's own font: the fallback one is wider and cuts labels that fit.
+      await pageSettled(page);
       await suite.session.screenshot(page, `editor-fit-editor-${width}`);
       await page
         .locator('tt-fatigue-panel')

@@ -1,5 +1,5 @@
 import type { Response } from 'playwright-core';
-import { accessibilityViolations } from '../support/browser';
+import { accessibilityViolations, pageSettled } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { createTestUser } from '../support/api-harness';
 import { advanceTo, calcTeam, revisionOf } from '../support/calc-harness';
@@ -21,6 +21,8 @@ describe('records in the browser', () => {
       .setInputFiles({ name: 'DRG-1 sheet 1.pdf', mimeType: 'application/pdf', buffer: pdfBytes(4000) });
     await page.getByRole('button', { name: 'Attach', exact: true }).click();
     await page.getByRole('link', { name: 'DRG-1 sheet 1.pdf' }).waitFor();
+    // The attachment set is signed content: the page reads the revision again after the upload.
+    await pageSettled(page);
     expect(await page.getByRole('link', { name: 'Calc report (PDF)' }).getAttribute('href')).toBe(
       `/api/revisions/${calc.latest.id}/report.pdf`,
     );
@@ -45,6 +47,7 @@ describe('records in the browser', () => {
       .getByRole('status')
       .filter({ hasText: 'as stored now; valid signatures: authored, checked, approved' })
       .waitFor();
+    await pageSettled(page);
     await suite.session.screenshot(page, 'verify-record');
     expect(await accessibilityViolations(page)).toEqual([]);
     await page.close();
@@ -100,6 +103,7 @@ describe('records in the browser', () => {
     const mail = page.getByRole('button', { name: /Ready for check: / }).first();
     await mail.click();
     await page.getByText('Open it to check:').first().waitFor();
+    await pageSettled(page);
     await suite.session.screenshot(page, 'sent-mail');
     expect(await accessibilityViolations(page)).toEqual([]);
     await page.close();

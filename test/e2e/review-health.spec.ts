@@ -1,7 +1,7 @@
 import type { Express } from 'express';
 import type { Page } from 'playwright-core';
 import path from 'node:path';
-import { startBrowserSession, accessibilityViolations, SCREENSHOT_DIR } from '../support/browser';
+import { startBrowserSession, accessibilityViolations, pageSettled, SCREENSHOT_DIR } from '../support/browser';
 import { TEST_PASSWORD, createTestUser } from '../support/api-harness';
 import { healthScenario } from '../support/health-harness';
 
@@ -33,7 +33,12 @@ async function openReport(page: Page) {
   await page.getByRole('option', { name: new RegExp(scenario.project.code) }).click();
   // The option list is an overlay outside the page; measure the page once it has gone.
   await page.getByRole('listbox').waitFor({ state: 'detached' });
-  await page.getByText(/checks signed, \d+ observations/).waitFor();
+  // The report of all projects comes first and reads the same but for its name: wait for this project's.
+  await page
+    .getByRole('status')
+    .filter({ hasText: new RegExp(`${scenario.project.code},[\\s\\S]*checks signed, \\d+ observations`) })
+    .waitFor();
+  await pageSettled(page);
 }
 
 it('when compliance opens review health, then every signal reads as a fact with its limits, at three widths', async () => {
@@ -45,6 +50,7 @@ it('when compliance opens review health, then every signal reads as a fact with 
   for (const width of [1440, 768, 390]) {
     await page.setViewportSize({ width, height: 900 });
     await page.getByRole('heading', { name: 'Short checks for the size of the calc' }).waitFor();
+    await pageSettled(page);
     const { sideways, widest } = await page.evaluate(() => {
       const inScrollBox = (el: Element) => {
         for (let p = el.parentElement; p; p = p.parentElement)

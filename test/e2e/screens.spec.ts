@@ -1,6 +1,6 @@
 import type { Page } from 'playwright-core';
 import path from 'node:path';
-import { accessibilityViolations, SCREENSHOT_DIR } from '../support/browser';
+import { accessibilityViolations, pageSettled, SCREENSHOT_DIR } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { createTestUser } from '../support/api-harness';
 import { advanceTo, calcTeam } from '../support/calc-harness';
@@ -42,6 +42,8 @@ async function visit(page: Page, name: string, ready: () => Promise<unknown>) {
   for (const width of WIDTHS) {
     await page.setViewportSize({ width, height: 900 });
     await ready();
+    // The whole screen, not the moment its heading came: lists loaded, the editor's later panels built, fonts in.
+    await pageSettled(page);
     const layout = await layoutOf(page);
     if (layout.sideways > 1)
       problems.push(`${name}@${width}: page scrolls sideways by ${layout.sideways}px (${layout.widest})`);
@@ -121,8 +123,11 @@ describe('screens at desk, tablet and phone widths', () => {
 
     // On a phone the menu opens from the top bar and closes once a page is chosen.
     await page.setViewportSize({ width: 390, height: 900 });
-    await page.getByRole('button', { name: 'Main menu' }).click();
+    const menu = page.getByRole('button', { name: 'Main menu' });
+    await menu.click();
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link').first().click();
+    // The click only asks for the menu to close; the page is drawn again a moment later (with the toggle's state).
+    await page.locator('button[aria-label="Main menu"][aria-expanded="false"]').waitFor();
     expect((await layoutOf(page)).navShare).toBe(0);
 
     expect(problems).toEqual([]);

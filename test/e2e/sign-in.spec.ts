@@ -1,5 +1,5 @@
 import type { Page } from 'playwright-core';
-import { accessibilityViolations } from '../support/browser';
+import { accessibilityViolations, pageSettled } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { createTestUser, TEST_PASSWORD } from '../support/api-harness';
 
@@ -47,6 +47,7 @@ describe('signing in through the real page', () => {
     for (const label of visible) await nav.getByRole('link', { name: label }).waitFor();
     for (const label of hidden) expect(await nav.getByRole('link', { name: label }).count()).toBe(0);
     await page.getByRole('heading', { name: 'Waiting for you' }).waitFor();
+    await pageSettled(page);
     await suite.session.screenshot(page, `dashboard-${roles.join('-')}`);
     expect(await accessibilityViolations(page)).toEqual([]);
     expect(suite.session.outsideRequests).toEqual([]);

@@ -1,5 +1,5 @@
 import type { Page } from 'playwright-core';
-import { accessibilityViolations } from '../support/browser';
+import { accessibilityViolations, pageSettled } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { createTestProject, createTestUser, TEST_PASSWORD } from '../support/api-harness';
 import { demoDocument } from '../../server/db/demo/demo-files';
@@ -76,6 +76,7 @@ describe('one calc from draft to approved, by three people', () => {
         .getByText(/^ticked by /)
         .waitFor();
     }
+    await pageSettled(page);
     await suite.session.screenshot(page, 'walk-3-checker');
     expect(await accessibilityViolations(page)).toEqual([]);
     await signDialog(page, /Sign as checked/);

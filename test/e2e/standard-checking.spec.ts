@@ -1,6 +1,6 @@
 import type { Page } from 'playwright-core';
 import path from 'node:path';
-import { startBrowserSession, accessibilityViolations, SCREENSHOT_DIR } from '../support/browser';
+import { startBrowserSession, accessibilityViolations, pageSettled, SCREENSHOT_DIR } from '../support/browser';
 import { TEST_PASSWORD, createTestUser } from '../support/api-harness';
 import { testStandard } from '../support/calc-harness';
 
@@ -42,6 +42,7 @@ it('when a reader opens a standard that asks for an independent model, then its 
   for (const width of [1440, 768, 390]) {
     await page.setViewportSize({ width, height: 900 });
     await page.getByText('Independent model required for calcs with largest external torque ≥ 500 N·m').waitFor();
+    await pageSettled(page);
     const sideways = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     if (sideways > 1) problems.push(`@${width}: page scrolls sideways by ${sideways}px`);
     await page.getByRole('heading', { name: 'How calcs are checked' }).scrollIntoViewIfNeeded();

@@ -1,5 +1,5 @@
 import path from 'node:path';
-import { SCREENSHOT_DIR, accessibilityViolations } from '../support/browser';
+import { SCREENSHOT_DIR, accessibilityViolations, pageSettled } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { calcTeam } from '../support/calc-harness';
 import { wholeShaftInput } from '../support/shaft-fixture';
@@ -18,6 +18,8 @@ describe('the whole shaft in the browser', () => {
       await page.goto(`/revisions/${revisionId}/edit`);
       await page.getByRole('table', { name: 'Bearing reactions and life' }).waitFor();
       await page.getByRole('img', { name: /bearings B1 at 20 mm, B2 at 300 mm/ }).waitFor();
+      // The result tables come before the input panels below the segments are built; axe reads all of them.
+      await pageSettled(page);
       await suite.session.screenshot(page, `whole-shaft-editor-${width}`);
       await page.screenshot({ path: path.join(SCREENSHOT_DIR, `whole-shaft-editor-${width}-top.png`) });
       // The parts to look at closely, one picture each (the full page is too tall to read).
@@ -60,6 +62,7 @@ describe('the whole shaft in the browser', () => {
     await page.getByRole('tab', { name: 'Results' }).click();
     await page.getByRole('table', { name: 'Bearing reactions and life' }).waitFor();
     await page.getByText('What this model assumes').waitFor();
+    await pageSettled(page);
     await suite.session.screenshot(page, 'whole-shaft-calc-page');
     expect(await accessibilityViolations(page)).toEqual([]);
     await page.close();

@@ -59,6 +59,19 @@ export async function startBrowserSession() {
   };
 }
 
+/**
+ * Waits until the page is finished: nothing loading, no editor panel or plot still to be built, and its web fonts
+ * in (until then text is set in a wider fallback font). Layout and axe checks then read the page a person would
+ * read, not one moment of its loading.
+ */
+export async function pageSettled(page: Page): Promise<void> {
+  await page.waitForFunction(
+    () =>
+      document.fonts.status === 'loaded' &&
+      !document.querySelector('mat-progress-bar, tt-panel-placeholder, .plots-wait'),
+  );
+}
+
 /** Runs axe-core in the page and returns the serious and critical violations. */
 export async function accessibilityViolations(page: Page) {
   const source = fs.readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');

@@ -49,6 +49,18 @@ describe('review-health thresholds form', () => {
     expect(el().textContent).toContain('by Priya Raman');
   });
 
+  it('when the stored values have not arrived, then the fields take no typing until they do', async () => {
+    const early = TestBed.createComponent(HealthSettingsPanel);
+    early.detectChanges();
+    const fields = () => Array.from((early.nativeElement as HTMLElement).querySelectorAll('input'));
+    const share = () => fields()[Object.keys(HEALTH_SETTING_FIELDS).indexOf('pairingSharePercent')];
+    expect(fields().filter((f) => !f.disabled)).toEqual([]);
+    http.expectOne('/api/review-health/settings').flush(STORED);
+    await new Promise((resolve) => setTimeout(resolve));
+    early.detectChanges();
+    expect([share().disabled, share().value]).toEqual([false, '75']);
+  });
+
   it('when a value is out of range, then the field says so inline and nothing is sent', async () => {
     input('pairingSharePercent').value = '120';
     input('pairingSharePercent').dispatchEvent(new Event('input'));

@@ -47,8 +47,12 @@ export class HealthSettingsPanel {
   protected readonly notice = signal<string | null>(null);
 
   constructor() {
+    // Closed until the stored values arrive: a value typed sooner would be overwritten by them without a word.
+    this.form.disable();
     effect(() => {
-      if (this.settings.hasValue()) this.form.reset(this.pick(this.settings.value()));
+      if (!this.settings.hasValue()) return;
+      this.form.reset(this.pick(this.settings.value()));
+      this.form.enable();
     });
   }
 

@@ -55,6 +55,14 @@ describe('manual checklist items', () => {
     ]);
   });
 
+  it('when a tick is being stored, then no other box can be ticked until its answer is in', async () => {
+    await (await box(/Load cases/)).check();
+    expect(await (await box(/Material certificate/)).isDisabled()).toBe(true);
+    d.http.expectOne({ method: 'PUT', url: '/api/revisions/7/manual-items/load-cases' }).flush(REVISION);
+    await d.settle();
+    expect(await (await box(/Material certificate/)).isDisabled()).toBe(false);
+  });
+
   it('when the server stores the tick, then the stored revision is passed on and the box stays ticked', async () => {
     const emitted: RevisionDto[] = [];
     d.fixture.componentInstance.changed.subscribe((r) => emitted.push(r));

@@ -8,6 +8,8 @@ import { CalcsApi } from '../calcs-api';
 /**
  * The checker's manual items. A tick is a quality record, so the box shows only what the server
  * stored: a refused tick is put back at once and its reason stays beside that item until it changes.
+ * One tick at a time: each answer is the whole revision, and two in flight could arrive in either order,
+ * leaving the page (and the signing dialog opened from it) with the older one.
  */
 @Component({
   selector: 'tt-manual-items',
@@ -18,7 +20,7 @@ import { CalcsApi } from '../calcs-api';
         <li>
           <mat-checkbox
             [checked]="m.state?.done ?? false"
-            [disabled]="!canTick() || busy() === m.id"
+            [disabled]="!canTick() || busy() !== null"
             (change)="tick(m.id, $event)"
             >{{ m.text }}</mat-checkbox
           >

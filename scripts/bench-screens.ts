@@ -78,7 +78,10 @@ async function screens(): Promise<Screen[]> {
       user: 'author',
       url: `/revisions/${latest}/edit`,
       ready: (p) =>
-        all(p.locator('tt-verdict-strip .strip').waitFor(), p.locator('[data-path="segments[0].od"]').waitFor()),
+        all(
+          p.locator('tt-verdict-strip [data-verdict]').waitFor(),
+          p.locator('[data-path="segments[0].od"]').waitFor(),
+        ),
     },
     {
       name: 'audit trail',

@@ -17,7 +17,7 @@ describe('the editor at desktop and tablet widths', () => {
       await page.goto(`/revisions/${revisionId}/edit`);
       const edition = page.locator('tt-fatigue-panel mat-form-field', { hasText: 'Table 6-2 edition' });
       await edition.getByText('9th–10th (default)').waitFor();
-      await page.locator('tt-verdict-strip .strip').waitFor();
+      await page.locator('tt-verdict-strip [data-verdict]').waitFor();
       // Measured in the page's own font: the fallback one is wider and cuts labels that fit.
       await pageSettled(page);
       await suite.session.screenshot(page, `editor-fit-editor-${width}`);

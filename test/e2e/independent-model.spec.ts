@@ -55,6 +55,12 @@ async function type(page: Page, dataPath: string, text: string): Promise<void> {
   await page.keyboard.type(text);
 }
 
+/** Where the "Add segment" button is on the page (not the viewport), in px from the top. */
+const addSegmentTop = (page: Page) =>
+  page
+    .getByRole('button', { name: 'Add segment' })
+    .evaluate((b) => Math.round(b.getBoundingClientRect().top + window.scrollY));
+
 async function shots(page: Page, name: string): Promise<void> {
   for (const width of [1440, 768, 390]) {
     await page.setViewportSize({ width, height: 900 });
@@ -88,6 +94,11 @@ describe('the independent model in the browser', () => {
     // Material from the library with the mouse; segments and torques by keyboard.
     await page.locator('[data-path="material.libraryId"]').click();
     await page.getByRole('option', { name: 'AISI 1045 CD' }).click();
+    await page.getByRole('table', { name: 'Where each material value comes from' }).waitFor();
+    // The first complete input brings the first verdict, above the form, just as "Add segment" is clicked: it must
+    // fill the place kept for it, not push the form down under the pointer between press and release.
+    await expect(page.locator('tt-verdict-strip [data-verdict]').count()).resolves.toBe(0);
+    const addSegmentAt = await addSegmentTop(page);
     await type(page, 'segments[0].length', '100');
     await page.keyboard.press('Tab');
     await page.keyboard.type('41.3');
@@ -107,6 +118,8 @@ describe('the independent model in the browser', () => {
       .getByText(/τ|shear/i)
       .first()
       .waitFor();
+    await page.locator('tt-verdict-strip [data-verdict]').waitFor();
+    await expect(addSegmentTop(page)).resolves.toBe(addSegmentAt);
 
     await page.getByRole('button', { name: 'Save draft' }).click();
     await page.getByText('Draft saved').waitFor();

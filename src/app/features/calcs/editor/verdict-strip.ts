@@ -18,116 +18,50 @@ interface Failing {
 /**
  * The live verdict and the clauses that fail, kept in view (sticky) while the author edits, so a
  * change that breaks a clause is seen at once rather than 3000 px further down. Advisory failures
- * are told apart from mandatory ones in words as well as colour.
+ * are told apart from mandatory ones in words as well as colour. The strip keeps one height from the
+ * first render, verdict or not, however many clauses fail: the form below it never moves when a verdict
+ * arrives or changes, so a click made at that moment lands where it was aimed (verdict-strip.scss).
  */
 @Component({
   selector: 'tt-verdict-strip',
   template: `
     @let s = state();
-    @if (s.kind === 'ready' || s.kind === 'stored') {
-      @let c = s.checklist;
-      <div class="strip" [attr.data-verdict]="c.verdict" role="status" aria-live="polite">
-        <strong class="head"
-          >{{ c.verdict === 'compliant' ? '✓ Meets' : '✗ Does not meet' }} {{ c.ruleSet.code }} v{{
-            c.ruleSet.version
-          }}</strong
-        >
-        @if (mandatory().length) {
-          <span class="count bad">{{ mandatory().length }} mandatory failing</span>
-        }
-        @if (advisory().length) {
-          <span class="count adv">{{ advisory().length }} advisory not met</span>
-        }
-        <button type="button" class="link" (click)="toChecklist()">Checklist</button>
-        @if (failing().length) {
-          <ul class="rows" tabindex="0" aria-label="Failing clause rows">
-            @for (f of failing(); track f.key) {
-              <li [class.adv]="f.advisory">{{ f.advisory ? 'advisory' : 'mandatory' }} · {{ f.text }}</li>
-            }
-          </ul>
+    @let c = s.kind === 'ready' || s.kind === 'stored' ? s.checklist : null;
+    <div class="strip" [attr.data-verdict]="c?.verdict ?? null" role="status" aria-live="polite">
+      <div class="line">
+        @if (c) {
+          <strong class="head"
+            >{{ c.verdict === 'compliant' ? '✓ Meets' : '✗ Does not meet' }} {{ c.ruleSet.code }} v{{
+              c.ruleSet.version
+            }}</strong
+          >
+          @if (mandatory().length) {
+            <span class="count bad">{{ mandatory().length }} mandatory failing</span>
+          }
+          @if (advisory().length) {
+            <span class="count adv">{{ advisory().length }} advisory not met</span>
+          }
+          <button type="button" class="link" (click)="toChecklist()">Checklist</button>
+        } @else {
+          <strong class="head">{{
+            s.kind === 'failed' ? 'No verdict: the checklist failed' : 'No verdict yet'
+          }}</strong>
         }
       </div>
-    }
-  `,
-  styles: `
-    :host {
-      display: block;
-      position: sticky;
-      top: 0;
-      z-index: 5;
-    }
-    .strip {
-      display: flex;
-      flex-wrap: wrap;
-      align-items: center;
-      gap: 4px 12px;
-      padding: 6px 12px;
-      margin: 0 0 12px;
-      background: #eef6f0;
-      border: 1px solid #b9d8c4;
-      border-left: 5px solid var(--tt-pass);
-      border-radius: 4px;
-      box-shadow: 0 2px 6px rgb(0 0 0 / 8%);
-      &[data-verdict='not-compliant'] {
-        background: #fbefed;
-        border-color: #e8c4be;
-        border-left-color: var(--tt-fail);
+      @if (failing().length) {
+        <ul class="rows" tabindex="0" aria-label="Failing clause rows">
+          @for (f of failing(); track f.key) {
+            <li [class.adv]="f.advisory">{{ f.advisory ? 'advisory' : 'mandatory' }} · {{ f.text }}</li>
+          }
+        </ul>
+      } @else {
+        <p class="rows calm">
+          {{ c ? 'No clause fails.' : 'The verdict against the standard shows here once the input can be evaluated.' }}
+        </p>
       }
-    }
-    .head {
-      font-size: 14px;
-    }
-    [data-verdict='compliant'] .head {
-      color: var(--tt-pass);
-    }
-    [data-verdict='not-compliant'] .head {
-      color: var(--tt-fail);
-    }
-    .count {
-      font-size: 12px;
-      font-weight: 600;
-      padding: 1px 6px;
-      border-radius: 3px;
-    }
-    .bad {
-      color: #fff;
-      background: var(--tt-fail);
-    }
-    .adv {
-      color: var(--tt-warn);
-    }
-    .count.adv {
-      background: #fdf1d8;
-    }
-    .link {
-      background: none;
-      border: 0;
-      padding: 0;
-      font: inherit;
-      font-size: 13px;
-      text-decoration: underline;
-      cursor: pointer;
-      color: var(--tt-ink);
-      margin-left: auto;
-    }
-    .rows {
-      flex-basis: 100%;
-      margin: 2px 0 0;
-      padding-left: 18px;
-      font-size: 12.5px;
-      max-height: 7.5em;
-      overflow-y: auto;
-      color: var(--tt-fail);
-    }
-    .rows li.adv {
-      color: var(--tt-warn);
-    }
-    @media (max-width: 700px) {
-      .rows {
-        max-height: 4.6em;
-      }
-    }
+    </div>
   `,
+  styleUrl: './verdict-strip.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class VerdictStrip {

@@ -1,6 +1,7 @@
 import type { UnitSystem } from '../../../../../shared/engine';
 import { matchMaterial } from '../../../../../shared/materials';
-import type { EditorValue, FeatureType, MaterialKindOption } from './editor-form';
+import type { EditorValue, MaterialKindOption } from './editor-form';
+import type { FeatureType } from './row-forms';
 import { fromText, toText } from './number-text';
 import { inputToShaftValues, shaftValuesToInput } from './shaft-values';
 

@@ -16,7 +16,8 @@ import {
  * Typed form model of the calc editor: the whole form with its material and fatigue groups (list rows are
  * in row-forms.ts and shaft-form.ts). Numbers are held as the text the author typed (never null):
  * a blank or half-typed field is kept exactly, autosaved, and named by the engine's own message,
- * instead of turning into null or NaN on the way. form-values.ts converts to and from calc input.
+ * instead of turning into null or NaN on the way. form-values.ts and form-to-input.ts convert from
+ * and to calc input.
  */
 export type MaterialKindOption = 'steel' | 'stainless-steel' | 'aluminium' | 'cast-iron' | 'other';
 

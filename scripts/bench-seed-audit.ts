@@ -3,7 +3,8 @@
 import canonicalize from 'canonicalize';
 import type { Connection } from 'mariadb';
 import { chainHash, type ChainedContent } from '../server/audit/audit-chain';
-import { BENCH, pick, prng, type Person } from './bench-seed-data';
+import { BENCH, pick, prng } from './bench-seed-data';
+import type { Person } from './bench-seed-names';
 import type { Library } from './bench-seed-library';
 
 const BATCH = 2_000;

@@ -3,17 +3,8 @@ import { createHash } from 'node:crypto';
 import type { Connection } from 'mariadb';
 import type { RuleSetRecord } from '../server/db/models';
 import type { RevisionState } from '../shared/schemas/revision.schema';
-import {
-  BENCH,
-  insertRows,
-  partOf,
-  pick,
-  prng,
-  titleOf,
-  type Person,
-  type ProjectRow,
-  type Variant,
-} from './bench-seed-data';
+import { BENCH, insertRows, pick, prng, type Variant } from './bench-seed-data';
+import { partOf, titleOf, type Person, type ProjectRow } from './bench-seed-names';
 
 const YEAR_MS = 365.25 * 86_400_000;
 const CHUNK = 1000;

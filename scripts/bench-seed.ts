@@ -11,7 +11,8 @@ import { RuleSetRecord } from '../server/db/models';
 import { seedRuleSets } from '../server/rule-sets/seed-rule-sets';
 import { registerEngineMetadata } from '../server/calcs/stored-result';
 import { hashPassword } from '../server/auth/password';
-import { BENCH, BENCH_PASSWORD, peopleOf, projectsOf, variantsOf } from './bench-seed-data';
+import { BENCH, BENCH_PASSWORD, variantsOf } from './bench-seed-data';
+import { peopleOf, projectsOf } from './bench-seed-names';
 import { seedLibrary } from './bench-seed-library';
 import { seedAudit } from './bench-seed-audit';
 

@@ -2,7 +2,7 @@
 // cookie and its CSRF token on every write): before anything is timed, each run gets a calc of its own in the
 // state its action needs, with its blockers cleared (the required files attached, the manual items ticked).
 import { ApiClient, newTally, type Reply } from './cluster/client';
-import { attachRequired, newLedger, sign, tickAll } from './cluster/signoff';
+import { attachRequired, newLedger, sign, tickAll } from './cluster/signoff-steps';
 import { DEMO_PASSWORD } from '../server/db/demo-data';
 
 export type Action = 'return' | 'checked' | 'approved';

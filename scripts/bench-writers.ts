@@ -10,7 +10,8 @@ import { createMigrator } from '../server/db/migrator';
 import { createApp } from '../server/app';
 import { retryStats } from '../server/db/transaction';
 import { ApiClient, newTally } from './cluster/client';
-import { newLedger, signOff } from './cluster/signoff';
+import { signOff } from './cluster/signoff';
+import { newLedger } from './cluster/signoff-steps';
 import { setUpData } from './cluster/setup-data';
 
 const WRITERS = Number(process.env.BENCH_WRITERS ?? 20);

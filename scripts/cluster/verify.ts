@@ -1,7 +1,7 @@
 import { execFile } from 'node:child_process';
 import { promisify } from 'node:util';
 import type { GaleraCluster, GaleraNode } from './galera';
-import type { Ledger } from './signoff';
+import type { Ledger } from './signoff-steps';
 
 const run = promisify(execFile);
 

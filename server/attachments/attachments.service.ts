@@ -5,29 +5,15 @@ import type { AppAbility } from '../../shared/authz/app-ability';
 import type { AttachmentDto, AttachmentListDto, UploadFields } from '../../shared/schemas/attachment.schema';
 import { Attachment } from '../db/models';
 import { AppError } from '../errors/app-error';
-import { appendAudit, type Actor } from '../audit/audit.service';
+import type { Actor } from '../audit/audit.service';
 import { loadRevision, loadRevisionForChange } from '../calcs/calc-access';
 import { ObjectStore } from './object-store';
-import { refreshAfterAttachmentChange } from '../workflow/signed-content';
 import { ACCEPTED_TYPE_NAMES, detectMediaType } from './content-type';
 import { assertDeclaredKind } from './declared-kind';
-import { assertMayAdd, assertMayRemove, cleanFileName, mayAddFiles, toAttachmentDto } from './attachment-access';
+import { assertMayAdd, assertMayRemove, mayAddFiles, toAttachmentDto } from './attachment-access';
+import { addAttachmentRow, removeAttachmentRow, type CheckedUpload, type UploadedFile } from './attachment-records';
 import { isProjectArchived } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
-
-export interface UploadedFile {
-  buffer: Buffer;
-  originalname: string;
-}
-
-/** An upload once its content is checked and its bytes stored under `key`. */
-interface CheckedUpload {
-  file: UploadedFile;
-  fields: UploadFields;
-  mediaType: string;
-  sha256: string;
-  key: string;
-}
 
 /** Drawings, certificates and supporting files of a revision: checked by content, stored by hash. */
 export class AttachmentsService {
@@ -74,47 +60,12 @@ export class AttachmentsService {
     ability: AppAbility,
     actor: Actor & { id: number },
     revisionId: number,
-    { file, fields, mediaType, sha256, key }: CheckedUpload,
+    upload: CheckedUpload,
     transaction: Transaction,
   ): Promise<number> {
     const revision = await loadRevisionForChange(revisionId, transaction);
     assertMayAdd(ability, revision);
-    const row = await Attachment.create(
-      {
-        revisionId,
-        kind: fields.kind,
-        fileName: cleanFileName(file.originalname),
-        mediaType,
-        sizeBytes: file.buffer.length,
-        sha256,
-        storageKey: key,
-        note: fields.note,
-        uploadedBy: actor.id,
-        uploadedByName: actor.name,
-      },
-      { transaction },
-    );
-    await refreshAfterAttachmentChange(revision, transaction);
-    await appendAudit(
-      this.sequelize,
-      actor,
-      {
-        action: 'attachment.added',
-        entityType: 'Revision',
-        entityId: revisionId,
-        payload: {
-          attachmentId: row.id,
-          kind: row.kind,
-          fileName: row.fileName,
-          mediaType,
-          sizeBytes: row.sizeBytes,
-          sha256,
-          contentHash: revision.contentHash,
-        },
-      },
-      transaction,
-    );
-    return row.id;
+    return addAttachmentRow(this.sequelize, actor, revision, upload, transaction);
   }
 
   async download(ability: AppAbility, id: number): Promise<{ attachment: AttachmentDto; bytes: Buffer }> {
@@ -131,25 +82,7 @@ export class AttachmentsService {
       if (!row) throw AppError.notFound(`Attachment ${id}`);
       const revision = await loadRevisionForChange(row.revisionId, transaction);
       assertMayRemove(actor.id, row, revision);
-      await row.destroy({ transaction });
-      await refreshAfterAttachmentChange(revision, transaction);
-      await appendAudit(
-        this.sequelize,
-        actor,
-        {
-          action: 'attachment.removed',
-          entityType: 'Revision',
-          entityId: row.revisionId,
-          payload: {
-            attachmentId: row.id,
-            kind: row.kind,
-            fileName: row.fileName,
-            sha256: row.sha256,
-            contentHash: revision.contentHash,
-          },
-        },
-        transaction,
-      );
+      await removeAttachmentRow(this.sequelize, actor, row, revision, transaction);
     });
   }
 

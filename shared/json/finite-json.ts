@@ -1,4 +1,4 @@
-import { indexPath, keyPath } from './strict-json';
+import { indexPath, keyPath } from './json-value-check';
 
 /** The path of the first Infinity or NaN in a value built by code (a result), or null. */
 export function nonFinitePath(value: unknown): string | null {

@@ -1,4 +1,12 @@
 import { parse, type AnyNode } from '@humanwhocodes/momoa';
+import {
+  JSON_LIMITS,
+  jsonValueProblem,
+  pathText,
+  type JsonIssue,
+  type JsonLimits,
+  type Part,
+} from './json-value-check';
 
 /*
  * JSON as Torquetrail accepts it from outside: request bodies, evidence packs, calc files on the
@@ -11,11 +19,6 @@ import { parse, type AnyNode } from '@humanwhocodes/momoa';
  * is accepted. Plain TypeScript plus @humanwhocodes/momoa (a JSON syntax tree with positions):
  * runs in the server, the browser and the command line.
  */
-export interface JsonIssue {
-  path: string;
-  message: string;
-}
-
 export type StrictJsonResult = { ok: true; value: unknown } | { ok: false; issue: JsonIssue };
 
 /** Path text for the root of a document in issues. */
@@ -29,81 +32,6 @@ const INVISIBLE = /[\u0000-\u001f\u007f-\u00a0\u00ad\u200b-\u200f\u2028-\u202f\u
 
 function visible(text: string): string {
   return text.replace(INVISIBLE, (c) => `U+${c.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}`);
-}
-
-export interface JsonLimits {
-  /** Levels of objects and arrays; Torquetrail's own documents need fewer than 10. */
-  maxDepth: number;
-  /** Values in the whole document (objects, arrays, strings, numbers, ...). */
-  maxNodes: number;
-}
-
-export const JSON_LIMITS: Readonly<JsonLimits> = { maxDepth: 32, maxNodes: 200_000 };
-
-/** Keys that would reach an object's prototype when code builds objects from user keys. */
-const FORBIDDEN_KEYS = new Set(['__proto__', 'constructor', 'prototype']);
-const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
-
-export const keyPath = (parent: string, key: string): string => (parent ? `${parent}.${key}` : key);
-export const indexPath = (parent: string, index: number): string => `${parent}[${index}]`;
-
-/** True when the text holds a UTF-16 surrogate without its partner (not representable in UTF-8). */
-export function hasLoneSurrogate(text: string): boolean {
-  return LONE_SURROGATE.test(text);
-}
-
-function keyProblem(key: string): string | null {
-  if (FORBIDDEN_KEYS.has(key)) return 'is not an accepted field name';
-  if (hasLoneSurrogate(key)) return 'is a field name with invalid text (a lone surrogate); nothing was changed';
-  return null;
-}
-
-function leafProblem(value: unknown): string | null {
-  if (typeof value === 'number' && !Number.isFinite(value))
-    return 'is a number beyond the range that can be stored (±1.8e308)';
-  if (typeof value === 'string' && hasLoneSurrogate(value))
-    return 'contains invalid text (a lone surrogate); nothing was changed';
-  return null;
-}
-
-type Part = string | number;
-const pathText = (parts: readonly Part[], root: string): string =>
-  parts.reduce<string>((acc, k) => (typeof k === 'number' ? indexPath(acc, k) : keyPath(acc, k)), root);
-
-/**
- * Checks an already-parsed value (a request body, a stored document) against the limits above.
- * Iterative, so a document nested beyond any limit cannot overflow the stack while being checked.
- * `parts` is the same path as `path`, as zod wants it for an issue.
- */
-export function jsonValueProblem(
-  value: unknown,
-  limits: JsonLimits = JSON_LIMITS,
-  root = '',
-): (JsonIssue & { parts: Part[] }) | null {
-  const stack: [unknown, Part[]][] = [[value, []]];
-  let nodes = 0;
-  const problem = (parts: Part[], message: string) => ({ path: pathText(parts, root), parts, message });
-  while (stack.length > 0) {
-    const [v, parts] = stack.pop()!;
-    if (++nodes > limits.maxNodes) return problem([], `holds more than ${limits.maxNodes} values`);
-    if (v === null || typeof v !== 'object') {
-      const leaf = leafProblem(v);
-      if (leaf) return problem(parts, leaf);
-      continue;
-    }
-    if (parts.length >= limits.maxDepth) return problem(parts, `is nested deeper than ${limits.maxDepth} levels`);
-    if (Array.isArray(v)) {
-      for (let i = v.length - 1; i >= 0; i--) stack.push([v[i], [...parts, i]]);
-      continue;
-    }
-    const keys = Object.keys(v);
-    for (let i = keys.length - 1; i >= 0; i--) {
-      const bad = keyProblem(keys[i]);
-      if (bad) return problem([...parts, keys[i]], bad);
-      stack.push([(v as Record<string, unknown>)[keys[i]], [...parts, keys[i]]]);
-    }
-  }
-  return null;
 }
 
 // A number that reads as 0 though a digit before its exponent is not zero (1e-400) underflowed.

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { jsonValueProblem } from '../json/strict-json';
+import { jsonValueProblem } from '../json/json-value-check';
 
 /**
  * The one parser of record ids in paths and queries: decimal digits only. `Number()` would read

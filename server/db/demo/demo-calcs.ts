@@ -1,7 +1,8 @@
 import type { Sequelize } from 'sequelize';
 import { RuleSetRecord } from '../models';
 import { LifecycleService } from '../../calcs/lifecycle.service';
-import { conveyorHeadShaft, mixerShaft, slurryPumpShaft } from './demo-shafts';
+import { conveyorHeadShaft } from './demo-handling-shafts';
+import { mixerShaft, slurryPumpShaft } from './demo-process-shafts';
 import type { AttachmentsService } from '../../attachments/attachments.service';
 import { DEMO_DRAWING } from './demo-files';
 import { seedIndependentModelCalc } from './demo-independent';

@@ -5,7 +5,7 @@ import type { ReviewService } from '../../workflow/review.service';
 import type { FindingsService } from '../../workflow/findings.service';
 import { readRevision } from '../../calcs/revision-read';
 import { IndependentModelService } from '../../independent/independent-model.service';
-import { hoistDrumShaft } from './demo-shafts';
+import { hoistDrumShaft } from './demo-handling-shafts';
 
 import type { Person } from './demo-steps';
 

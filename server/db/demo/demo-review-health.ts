@@ -9,7 +9,7 @@ import { HealthSettingsService } from '../../review-health/health-settings.servi
 import type { AttachmentsService } from '../../attachments/attachments.service';
 import { readRevision } from '../../calcs/revision-read';
 import { DEMO_PASSWORD } from '../demo-data';
-import { mixerShaft } from './demo-shafts';
+import { mixerShaft } from './demo-process-shafts';
 import { DEMO_CERTIFICATE, DEMO_DRAWING, demoDocument } from './demo-files';
 import { personOf, type Person } from './demo-steps';
 

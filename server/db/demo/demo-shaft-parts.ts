@@ -1,7 +1,7 @@
 /*
- * Building blocks of the Kestrel Fen Drives demo shafts (demo-shafts.ts). Material values: AISI grades' minimum
- * strengths from Shigley Table A-20 and carbon-steel elastic constants from Table A-5; key sizes and the key
- * steel are invented for the demo.
+ * Building blocks of the Kestrel Fen Drives demo shafts (demo-process-shafts.ts, demo-handling-shafts.ts).
+ * Material values: AISI grades' minimum strengths from Shigley Table A-20 and carbon-steel elastic constants
+ * from Table A-5; key sizes and the key steel are invented for the demo.
  */
 
 /** A carbon steel by its minimum strengths [MPa]; the elastic constants are the same for every grade here. */

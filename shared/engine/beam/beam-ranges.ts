@@ -1,6 +1,6 @@
 import type { CalcIssue } from '../issue-messages';
 import type { CalcInput } from '../schema';
-import { PLAUSIBLE_RANGES } from '../check-ranges';
+import { PLAUSIBLE_RANGES } from '../plausible-ranges';
 import { BEAM_LABELS } from './beam-units';
 import type { UnitSystem } from '../units';
 

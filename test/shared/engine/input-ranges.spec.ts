@@ -5,7 +5,7 @@ import {
   validateCalcInput,
   type CalcInput,
 } from '../../../shared/engine';
-import { PLAUSIBLE_RANGES } from '../../../shared/engine/check-ranges';
+import { PLAUSIBLE_RANGES } from '../../../shared/engine/plausible-ranges';
 import { safetyFactor } from '../../../shared/engine/combined';
 import { fatigueSafety } from '../../../shared/engine/fatigue-criteria';
 import { numbersIn } from './check-helpers';

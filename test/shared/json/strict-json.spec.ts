@@ -1,5 +1,6 @@
 import fc from 'fast-check';
-import { jsonValueProblem, parseStrictJson } from '../../../shared/json/strict-json';
+import { parseStrictJson } from '../../../shared/json/strict-json';
+import { jsonValueProblem } from '../../../shared/json/json-value-check';
 import { nonFinitePath, stringifyFinite } from '../../../shared/json/finite-json';
 
 // Issue 9, items 9 and 11. Refusing duplicate keys and accepting a BOM (U+FEFF): common practice, no

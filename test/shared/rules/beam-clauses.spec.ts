@@ -1,6 +1,7 @@
 import { evaluateValidInput, validateCalcInput, type CalcInput } from '../../../shared/engine';
 import { evaluateChecklist, evaluateChecklistSync, validateRuleSet } from '../../../shared/rules';
-import { conveyorHeadShaft, mixerShaft, slurryPumpShaft } from '../../../server/db/demo/demo-shafts';
+import { conveyorHeadShaft } from '../../../server/db/demo/demo-handling-shafts';
+import { mixerShaft, slurryPumpShaft } from '../../../server/db/demo/demo-process-shafts';
 import { checklistSync, loadCalc, loadRuleSet, only, V3 } from './rules-helpers';
 
 // KFD-ENG-014 v4: the clauses on bearings, gears and the critical speed, on the fixtures and demo shafts.

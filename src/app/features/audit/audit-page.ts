@@ -7,11 +7,10 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatSelectModule } from '@angular/material/select';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import type { AuditChainStatus, AuditEventDto } from '../../../../shared/schemas/audit.schema';
-import { assertApiFailure } from '../../core/http/api-failure';
+import type { AuditEventDto } from '../../../../shared/schemas/audit.schema';
 import { LoadFailure } from '../../ui/load-failure';
 import { AuditActionLabelPipe } from '../../ui/audit-action-label';
-import { ActivatedRoute, RouterLink, type ParamMap } from '@angular/router';
+import { ActivatedRoute, RouterLink } from '@angular/router';
 import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { CalcsApi } from '../calcs/calcs-api';
@@ -21,23 +20,8 @@ import { KeysetPager } from '../../ui/keyset-pager';
 import { ProjectsApi } from '../projects/projects-api';
 import { DiffView } from '../../ui/diff-view';
 import { MatInputModule } from '@angular/material/input';
-
-const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/;
-
-/** The audit filters named in the address; anything malformed is left out (the server validates the rest). */
-function filtersFromUrl(q: ParamMap): Omit<AuditListParams, 'size' | 'after'> {
-  const id = (key: string) => (/^[1-9]\d{0,14}$/.test(q.get(key) ?? '') ? Number(q.get(key)) : null);
-  const text = (key: string, pattern = /^[\w.]{0,64}$/) => (pattern.test(q.get(key) ?? '') ? (q.get(key) ?? '') : '');
-  return {
-    entityType: text('entityType'),
-    action: text('action'),
-    projectId: id('projectId'),
-    calcId: id('calcId'),
-    userId: id('userId'),
-    from: text('from', ISO_DAY),
-    to: text('to', ISO_DAY),
-  };
-}
+import { AUDIT_ACTION_FILTERS, AUDIT_ENTITY_TYPES, ISO_DAY, filtersFromUrl } from './audit-filters';
+import { ChainCheck } from './chain-check';
 
 @Component({
   selector: 'tt-audit-page',
@@ -60,12 +44,14 @@ function filtersFromUrl(q: ParamMap): Omit<AuditListParams, 'size' | 'after'> {
     ReactiveFormsModule,
     LoadFailure,
   ],
+  providers: [ChainCheck],
   templateUrl: './audit-page.html',
   styleUrl: './audit-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export default class AuditPage {
   private readonly api = inject(AuditApi);
+  protected readonly chainCheck = inject(ChainCheck);
   // Filters may arrive in the address (links from review-health signals and elsewhere), e.g.
   // /audit?calcId=7&action=revision.signed.
   protected readonly params = signal<Omit<AuditListParams, 'size' | 'after'>>(
@@ -104,28 +90,9 @@ export default class AuditPage {
     }),
   );
   protected readonly openDiff = computed(() => (this.openEntry.hasValue() ? this.openEntry.value().diff : null));
-  protected readonly chain = signal<AuditChainStatus | null>(null);
-  protected readonly chainError = signal<string | null>(null);
-  protected readonly isVerifying = signal(false);
   protected readonly columns = ['id', 'occurredAt', 'actorName', 'action', 'entity', 'hash'];
-  protected readonly entityTypes = ['', 'User', 'Project', 'Calc', 'Revision', 'RuleSet'];
-  protected readonly actions = [
-    { value: '', label: 'Any action' },
-    { value: 'auth.', label: 'Sign-in and passwords' },
-    { value: 'user.', label: 'Accounts and roles' },
-    { value: 'calc.', label: 'Calcs created' },
-    { value: 'revision.saved', label: 'Content saved' },
-    { value: 'revision.signed', label: 'Signatures' },
-    { value: 'revision.', label: 'Any revision event' },
-    { value: 'finding.', label: 'Findings' },
-    { value: 'rule_set.', label: 'Standards' },
-    { value: 'attachment.', label: 'Attachments' },
-    { value: 'revision.signed_checked', label: 'Check signatures' },
-    { value: 'revision.signed_approved', label: 'Approval signatures' },
-    { value: 'revision.signed_authored', label: 'Submissions' },
-    { value: 'revision.signature_refused', label: 'Refused signatures' },
-    { value: 'review_health.', label: 'Review-health settings' },
-  ];
+  protected readonly entityTypes = AUDIT_ENTITY_TYPES;
+  protected readonly actions = AUDIT_ACTION_FILTERS;
 
   constructor() {
     this.from.setValue(this.params().from, { emitEvent: false });
@@ -176,18 +143,5 @@ export default class AuditPage {
 
   protected toggle(event: AuditEventDto): void {
     this.expanded.update((id) => (id === event.id ? null : event.id));
-  }
-
-  protected async verify(): Promise<void> {
-    this.isVerifying.set(true);
-    this.chainError.set(null);
-    try {
-      this.chain.set(await this.api.verifyChain());
-    } catch (error) {
-      assertApiFailure(error);
-      this.chainError.set(error.message);
-    } finally {
-      this.isVerifying.set(false);
-    }
   }
 }

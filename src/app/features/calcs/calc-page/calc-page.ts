@@ -12,13 +12,10 @@ import { MatTabsModule } from '@angular/material/tabs';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatDialog } from '@angular/material/dialog';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import type { Checklist } from '../../../../../shared/rules';
 import type { CalcResult } from '../../../../../shared/engine';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { SessionStore } from '../../../core/auth/session-store';
-import { assertApiFailure } from '../../../core/http/api-failure';
 import { LoadFailure } from '../../../ui/load-failure';
 import { SafetyNote } from '../../../ui/safety-note';
 import { StateBadge } from '../../../ui/state-badge';
@@ -35,9 +32,9 @@ import { countFindings, findingsTabLabel } from './finding-counts';
 import { failingMandatoryRows, failingRowText } from './signing-readiness';
 import { featureTypesOf, placeOf } from '../../../../../shared/format';
 import { planActions, type RevisionAction } from './revision-actions';
-import { SignDialog, type SignDialogData } from './sign-dialog';
-import { ReasonDialog, type ReasonDialogResult } from './reason-dialog';
-import { reasonDialogTexts, type ReasonKind } from './reason-texts';
+import type { SignDialogData } from './sign-dialog';
+import type { ReasonKind } from './reason-texts';
+import { WorkflowDialogs } from './workflow-dialogs';
 import { ResultsTab } from './results-tab';
 import { IndependentModelPanel } from './independent-model-panel';
 
@@ -63,14 +60,14 @@ import { IndependentModelPanel } from './independent-model-panel';
     ResultsTab,
     LoadFailure,
   ],
+  providers: [WorkflowDialogs],
   templateUrl: './calc-page.html',
   styleUrl: './calc-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export default class CalcPage {
   private readonly api = inject(CalcsApi);
-  private readonly dialog = inject(MatDialog);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly dialogs = inject(WorkflowDialogs);
   private readonly router = inject(Router);
   protected readonly me = inject(SessionStore).user;
 
@@ -118,44 +115,14 @@ export default class CalcPage {
   protected sign(meaning: SignDialogData['meaning']): void {
     const revision = this.current()!;
     const calcLabel = `${this.calcInfo()?.number} rev ${revision.label}`;
-    this.dialog
-      .open(SignDialog, { data: { revision, meaning, calcLabel } satisfies SignDialogData, width: '600px' })
-      .afterClosed()
-      .subscribe((signed?: RevisionDto) => {
-        if (!signed) return;
-        this.updated(signed);
-        this.snackBar.open(`Signed as ${meaning}. The revision is now ${signed.status.replace('_', ' ')}.`, 'OK', {
-          duration: 6000,
-        });
-      });
+    this.dialogs.sign(revision, meaning, calcLabel, (signed) => this.updated(signed));
   }
 
   protected askReason(kind: ReasonKind): void {
-    const open = (this.current()?.findings ?? []).filter((f) => f.status === 'open').map((f) => `F${f.id}`);
-    this.dialog
-      .open(ReasonDialog, { data: reasonDialogTexts(kind, open) })
-      .afterClosed()
-      .subscribe((answer?: ReasonDialogResult) => {
-        if (answer) void this.applyReason(kind, answer.reason, answer.choice);
-      });
-  }
-
-  private async applyReason(kind: ReasonKind, reason: string, carryAttachments: boolean): Promise<void> {
-    const r = this.current()!;
-    try {
-      if (kind === 'new-revision') {
-        const created = await this.api.newRevision(r.calcId, reason, carryAttachments);
-        await this.router.navigate(['/revisions', created.id, 'edit']);
-        return;
-      }
-      this.updated(
-        kind === 'return'
-          ? await this.api.returnToAuthor(r.id, reason, r.lockVersion)
-          : await this.api.withdraw(r.id, reason, r.lockVersion),
-      );
-    } catch (error) {
-      assertApiFailure(error);
-      this.snackBar.open(error.message, 'OK', { duration: 8000 });
-    }
+    this.dialogs.askReason(
+      kind,
+      () => this.current(),
+      (r) => this.updated(r),
+    );
   }
 }

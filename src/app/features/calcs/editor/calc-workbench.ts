@@ -4,7 +4,7 @@ import type { UnitSystem } from '../../../../../shared/engine';
 import type { Checklist, RuleSet } from '../../../../../shared/rules';
 import type { FindingDto } from '../../../../../shared/schemas/calc-dto';
 import type { EditorForm, EditorValue } from './editor-form';
-import { valueToInput } from './form-values';
+import { valueToInput } from './form-to-input';
 import { toIssueMap } from './issue-map';
 import { applyIssues } from './apply-issues';
 import { liveCalc, type ChecklistState } from './live-calc';

@@ -1,13 +1,24 @@
 import { FormArray, FormControl, FormGroup } from '@angular/forms';
 import type { UnitSystem } from '../../../../../shared/engine';
 import { forceGroup, massGroup, supportGroup, type ForceForm, type MassForm, type SupportForm } from './shaft-form';
+import {
+  bendingGroup,
+  featureGroup,
+  segmentGroup,
+  torqueGroup,
+  type BendingForm,
+  type FeatureForm,
+  type SegmentForm,
+  type TorqueForm,
+} from './row-forms';
 
 /*
- * Typed form model of the calc editor. Numbers are held as the text the author typed (never null):
+ * Typed form model of the calc editor: the whole form with its material and fatigue groups (list rows are
+ * in row-forms.ts and shaft-form.ts). Numbers are held as the text the author typed (never null):
  * a blank or half-typed field is kept exactly, autosaved, and named by the engine's own message,
- * instead of turning into null or NaN on the way. form-values.ts converts to and from calc input.
+ * instead of turning into null or NaN on the way. form-values.ts and form-to-input.ts convert from
+ * and to calc input.
  */
-export type FeatureType = 'shoulder-fillet' | 'keyseat' | 'ring-groove' | 'cross-hole';
 export type MaterialKindOption = 'steel' | 'stainless-steel' | 'aluminium' | 'cast-iron' | 'other';
 
 const text = (value = '') => new FormControl(value, { nonNullable: true });
@@ -25,49 +36,6 @@ export interface MaterialForm {
   source: FormControl<string>;
   /** Shown with the masses (it matters for the critical speed), kept here because the format has it on the material. */
   density: FormControl<string>;
-}
-
-export interface SegmentForm {
-  label: FormControl<string>;
-  length: FormControl<string>;
-  od: FormControl<string>;
-  id: FormControl<string>;
-  /** A per-segment material from an imported calc, kept verbatim as JSON ('' for none). */
-  material: FormControl<string>;
-}
-
-export interface TorqueForm {
-  label: FormControl<string>;
-  at: FormControl<string>;
-  mode: FormControl<'torque' | 'power'>;
-  T: FormControl<string>;
-  power: FormControl<string>;
-  speed: FormControl<string>;
-  Ta: FormControl<string>;
-}
-
-export interface FeatureForm {
-  type: FormControl<FeatureType>;
-  label: FormControl<string>;
-  at: FormControl<string>;
-  r: FormControl<string>;
-  form: FormControl<'end-mill' | 'sled-runner'>;
-  width: FormControl<string>;
-  height: FormControl<string>;
-  length: FormControl<string>;
-  keySy: FormControl<string>;
-  depth: FormControl<string>;
-  diameter: FormControl<string>;
-  Kt: FormControl<string>;
-  Kts: FormControl<string>;
-  source: FormControl<string>;
-}
-
-export interface BendingForm {
-  label: FormControl<string>;
-  at: FormControl<string>;
-  Ma: FormControl<string>;
-  Mm: FormControl<string>;
 }
 
 export interface FatigueForm {
@@ -103,55 +71,6 @@ export interface EditorFormShape {
 
 export type EditorForm = FormGroup<EditorFormShape>;
 export type EditorValue = ReturnType<EditorForm['getRawValue']>;
-export type SegmentValue = EditorValue['segments'][number];
-export type TorqueValue = EditorValue['torques'][number];
-export type FeatureValue = EditorValue['features'][number];
-export type BendingValue = EditorValue['bending'][number];
-
-export function segmentGroup(v: Partial<SegmentValue> = {}): FormGroup<SegmentForm> {
-  return new FormGroup({
-    label: text(v.label),
-    length: text(v.length),
-    od: text(v.od),
-    id: text(v.id ?? '0'),
-    material: text(v.material),
-  });
-}
-
-export function torqueGroup(v: Partial<TorqueValue> = {}): FormGroup<TorqueForm> {
-  return new FormGroup({
-    label: text(v.label),
-    at: text(v.at),
-    mode: new FormControl(v.mode ?? 'torque', { nonNullable: true }),
-    T: text(v.T),
-    power: text(v.power),
-    speed: text(v.speed),
-    Ta: text(v.Ta),
-  });
-}
-
-export function featureGroup(v: Partial<FeatureValue> = {}): FormGroup<FeatureForm> {
-  return new FormGroup({
-    type: new FormControl<FeatureType>(v.type ?? 'shoulder-fillet', { nonNullable: true }),
-    label: text(v.label),
-    at: text(v.at),
-    r: text(v.r),
-    form: new FormControl(v.form ?? 'end-mill', { nonNullable: true }),
-    width: text(v.width),
-    height: text(v.height),
-    length: text(v.length),
-    keySy: text(v.keySy),
-    depth: text(v.depth),
-    diameter: text(v.diameter),
-    Kt: text(v.Kt),
-    Kts: text(v.Kts),
-    source: text(v.source),
-  });
-}
-
-export function bendingGroup(v: Partial<BendingValue> = {}): FormGroup<BendingForm> {
-  return new FormGroup({ label: text(v.label), at: text(v.at), Ma: text(v.Ma), Mm: text(v.Mm) });
-}
 
 /** A fresh form holding `v`; the editor replaces the whole form on load, restore and unit change. */
 export function editorForm(v: EditorValue): EditorForm {

@@ -7,7 +7,8 @@ import type { EditorForm, EditorValue } from './editor-form';
 import { EditorStore, type SaveOutcome } from './editor-store';
 import { DraftStorage, type LocalDraft } from './draft-storage';
 import { canonical } from './editor-support';
-import { inputToValue, valueToInput } from './form-values';
+import { inputToValue } from './form-values';
+import { valueToInput } from './form-to-input';
 import { ConflictDialog, type ConflictChoice, type ConflictData } from './conflict-dialog';
 import { LeaveDialog, type LeaveChoice } from './leave-dialog';
 

@@ -8,7 +8,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine/units';
 import { featureTag } from '../../../../../shared/plots';
-import { featureGroup, type FeatureForm, type FeatureType } from './editor-form';
+import { featureGroup, type FeatureForm, type FeatureType } from './row-forms';
 import type { IssueMap } from './issue-map';
 import { moveRow } from './row-moves';
 import { RowActions } from './row-actions';

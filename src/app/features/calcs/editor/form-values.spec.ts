@@ -1,5 +1,6 @@
 import { validateCalcInput } from '../../../../../shared/engine';
-import { inputToValue, valueToInput } from './form-values';
+import { inputToValue } from './form-values';
+import { valueToInput } from './form-to-input';
 import { fromText } from './number-text';
 import { convertValue, switchUnits } from './unit-convert';
 import { compareInputs } from './json-compare';

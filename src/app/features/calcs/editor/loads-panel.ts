@@ -6,7 +6,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatIconModule } from '@angular/material/icon';
 import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine/units';
-import { bendingGroup, torqueGroup, type BendingForm, type TorqueForm } from './editor-form';
+import { bendingGroup, torqueGroup, type BendingForm, type TorqueForm } from './row-forms';
 import type { IssueMap } from './issue-map';
 import { RowActions } from './row-actions';
 import { StationTable, type StationTableSpec } from './station-table';

@@ -2,7 +2,7 @@ import { FormArray, type FormGroup } from '@angular/forms';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { mountComponent } from '../../../../../test/support/client-harness';
-import { segmentGroup, type SegmentForm } from './editor-form';
+import { segmentGroup, type SegmentForm } from './row-forms';
 import { SegmentsTable } from './segments-table';
 
 function rows() {

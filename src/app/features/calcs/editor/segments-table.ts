@@ -6,7 +6,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { UNIT_LABELS, type UnitSystem } from '../../../../../shared/engine/units';
-import { segmentGroup, type SegmentForm } from './editor-form';
+import { segmentGroup, type SegmentForm } from './row-forms';
 import type { IssueMap } from './issue-map';
 import { moveRow } from './row-moves';
 import { RowActions } from './row-actions';

@@ -1,5 +1,6 @@
 import { validateCalcInput } from '../../../../../shared/engine';
-import { inputToValue, valueToInput } from './form-values';
+import { inputToValue } from './form-values';
+import { valueToInput } from './form-to-input';
 import { switchUnits } from './unit-convert';
 
 // Format v2 parts of an invented calc: every kind of force element, X and Y factors, masses, density, speed.

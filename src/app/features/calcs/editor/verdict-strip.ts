@@ -24,43 +24,7 @@ interface Failing {
  */
 @Component({
   selector: 'tt-verdict-strip',
-  template: `
-    @let s = state();
-    @let c = s.kind === 'ready' || s.kind === 'stored' ? s.checklist : null;
-    <div class="strip" [attr.data-verdict]="c?.verdict ?? null" role="status" aria-live="polite">
-      <div class="line">
-        @if (c) {
-          <strong class="head"
-            >{{ c.verdict === 'compliant' ? '✓ Meets' : '✗ Does not meet' }} {{ c.ruleSet.code }} v{{
-              c.ruleSet.version
-            }}</strong
-          >
-          @if (mandatory().length) {
-            <span class="count bad">{{ mandatory().length }} mandatory failing</span>
-          }
-          @if (advisory().length) {
-            <span class="count adv">{{ advisory().length }} advisory not met</span>
-          }
-          <button type="button" class="link" (click)="toChecklist()">Checklist</button>
-        } @else {
-          <strong class="head">{{
-            s.kind === 'failed' ? 'No verdict: the checklist failed' : 'No verdict yet'
-          }}</strong>
-        }
-      </div>
-      @if (failing().length) {
-        <ul class="rows" tabindex="0" aria-label="Failing clause rows">
-          @for (f of failing(); track f.key) {
-            <li [class.adv]="f.advisory">{{ f.advisory ? 'advisory' : 'mandatory' }} · {{ f.text }}</li>
-          }
-        </ul>
-      } @else {
-        <p class="rows calm">
-          {{ c ? 'No clause fails.' : 'The verdict against the standard shows here once the input can be evaluated.' }}
-        </p>
-      }
-    </div>
-  `,
+  templateUrl: './verdict-strip.html',
   styleUrl: './verdict-strip.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -27,7 +27,8 @@ import { CalcWorkbench } from '../editor/calc-workbench';
 import { editorForm, type EditorValue } from '../editor/editor-form';
 import { EDITOR_DEBOUNCE_MS, EngineErrorState, canonical } from '../editor/editor-support';
 import { debouncedValue } from '../editor/form-stream';
-import { inputToValue, valueToInput } from '../editor/form-values';
+import { inputToValue } from '../editor/form-values';
+import { valueToInput } from '../editor/form-to-input';
 import { ModelDraft } from './model-draft';
 import { SourceDocuments } from './source-documents';
 

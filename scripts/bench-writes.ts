@@ -67,13 +67,13 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number, 
   const dbCpu = cpuSeconds(dbPid) - dbBefore.cpu;
   const status = await dbStatus(sequelize);
   const per = (name: string) => ((status[name] - dbBefore.status[name]) / latencies.length).toFixed(1);
+  const ms = (seconds: number) => ((seconds * 1000) / latencies.length).toFixed(1);
   if (!latencies.length) return;
-  console.log(
-    `  CPU per save: app process ${((cpu * 1000) / latencies.length).toFixed(1)} ms, MariaDB ${((dbCpu * 1000) / latencies.length).toFixed(1)} ms`,
-  );
+  console.log(`  CPU per save: app process ${ms(cpu)} ms, MariaDB ${ms(dbCpu)} ms`);
   // Sent by the app (Questions: not the statements a procedure runs inside), bytes both ways, per save (refused too).
   console.log(
-    `  per save: statements ${per('Questions')}, bytes to MariaDB ${per('Bytes_received')}, from it ${per('Bytes_sent')}`,
+    `  per save: statements ${per('Questions')}, bytes to MariaDB ${per('Bytes_received')}, ` +
+      `from it ${per('Bytes_sent')}`,
   );
 }
 

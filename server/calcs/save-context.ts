@@ -18,7 +18,8 @@ export interface SaveContext {
  * A plain read like assertProjectOpen's; the revision row's lock already orders the saves of one calc.
  */
 export async function saveContextOf(calcId: number, userId: number, transaction: Transaction): Promise<SaveContext> {
-  const edited = `EXISTS(SELECT 1 FROM calc_editors e WHERE e.calc_id = ${Number(calcId)} AND e.user_id = ${Number(userId)})`;
+  const [calcKey, userKey] = [Number(calcId), Number(userId)];
+  const edited = `EXISTS(SELECT 1 FROM calc_editors e WHERE e.calc_id = ${calcKey} AND e.user_id = ${userKey})`;
   const calc = (await Calc.findByPk(calcId, {
     attributes: ['id', 'number', 'title', 'partRef', 'projectId', [literal(edited), 'edited']],
     include: [{ model: Project, attributes: ['id', 'code', 'status'] }],

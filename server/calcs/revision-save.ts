@@ -15,6 +15,7 @@ import { stringifyFinite } from '../../shared/json/finite-json';
 import { runTransaction } from '../db/transaction';
 import { compactResult, expandResult, registerEngineMetadata } from './stored-result';
 import { saveContextOf } from './save-context';
+import { rememberValidation } from './content-hash-memo';
 import { timed } from '../http/server-timing';
 
 /** Saves the author's input. A stale `lockVersion` is a 409 carrying the stored version, never an overwrite. */
@@ -62,6 +63,8 @@ export async function saveRevision(
         });
       }
       const computed = await timed('engine', () => computeRecord(dto.input, doc));
+      // The answer names the input's issues: the engine run has just validated this very text.
+      rememberValidation(inputText, computed.schemaIssues);
       const diff = jsonDiff(
         JSON.parse(revision.input),
         dto.input,

@@ -28,7 +28,9 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number, 
   const phases = new Map<string, number[]>();
   let failures = 0;
   const until = performance.now() + seconds * 1000;
+  const dbPid = await databasePid(sequelize);
   const cpuBefore = cpuSeconds(serverPid);
+  const dbBefore = { cpu: cpuSeconds(dbPid), status: await dbStatus(sequelize) };
   await Promise.all(
     drafts.map(async (draft, w) => {
       const input = JSON.parse(draft.input);
@@ -62,7 +64,32 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number, 
   printPhases(phases);
   // CPU seconds hardly move with other jobs' load, so they compare two versions better than wall-clock figures.
   const cpu = cpuSeconds(serverPid) - cpuBefore;
-  if (latencies.length) console.log(`  app process CPU per save: ${((cpu * 1000) / latencies.length).toFixed(1)} ms`);
+  const dbCpu = cpuSeconds(dbPid) - dbBefore.cpu;
+  const status = await dbStatus(sequelize);
+  const per = (name: string) => ((status[name] - dbBefore.status[name]) / latencies.length).toFixed(1);
+  const ms = (seconds: number) => ((seconds * 1000) / latencies.length).toFixed(1);
+  if (!latencies.length) return;
+  console.log(`  CPU per save: app process ${ms(cpu)} ms, MariaDB ${ms(dbCpu)} ms`);
+  // Sent by the app (Questions: not the statements a procedure runs inside), bytes both ways, per save (refused too).
+  console.log(
+    `  per save: statements ${per('Questions')}, bytes to MariaDB ${per('Bytes_received')}, ` +
+      `from it ${per('Bytes_sent')}`,
+  );
+}
+
+/** MariaDB's own counters (statements the clients sent, bytes both ways), from its global status. */
+async function dbStatus(sequelize: Sequelize): Promise<Record<string, number>> {
+  const rows = await sequelize.query<{ Variable_name: string; Value: string }>(
+    "SHOW GLOBAL STATUS WHERE Variable_name IN ('Questions', 'Bytes_received', 'Bytes_sent')",
+    { type: QueryTypes.SELECT },
+  );
+  return Object.fromEntries(rows.map((r) => [r.Variable_name, Number(r.Value)]));
+}
+
+/** The database server's process id, from its pid file (it runs on this machine in every bench). */
+async function databasePid(sequelize: Sequelize): Promise<number | undefined> {
+  const [row] = await sequelize.query<{ file: string }>('SELECT @@pid_file AS file', { type: QueryTypes.SELECT });
+  return row && existsSync(row.file) ? Number(readFileSync(row.file, 'utf8').trim()) : undefined;
 }
 
 /** User + system CPU seconds of a process so far (Linux /proc), or NaN when unknown. */

@@ -2,7 +2,7 @@ import type { Sequelize, Transaction } from 'sequelize';
 import { QueryTypes } from 'sequelize';
 import canonicalize from 'canonicalize';
 import type { ChainedContent } from './audit-chain';
-import { runTransaction } from '../db/transaction';
+import { committedByDatabase, runTransaction } from '../db/transaction';
 import { timed, timeSince } from '../http/server-timing';
 
 // The chain's verification lives beside the append; callers keep importing it from here.
@@ -71,9 +71,10 @@ export async function appendAudit(
         },
       ),
     );
-    // An append that commits has already freed the head.
+    // An append that commits has already freed the head, and ended the transaction: runTransaction sends no COMMIT.
+    if (entry.commits) return committedByDatabase(t);
     const since = process.hrtime.bigint();
-    if (!entry.commits) t.afterCommit(() => timeSince('chain-held', since));
+    t.afterCommit(() => timeSince('chain-held', since));
   };
   if (transaction) return run(transaction);
   return runTransaction(sequelize, run);

@@ -40,3 +40,8 @@ export function memoisedValidation<T>(inputText: string, validate: (text: string
   validations.set(key, { value });
   return value;
 }
+
+/** Remembers what `validate` would answer for this input text, known already (a save's engine run validated it). */
+export function rememberValidation<T>(inputText: string, value: T): void {
+  validations.set(contentKeyOf([inputText]), { value });
+}

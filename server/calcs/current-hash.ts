@@ -6,7 +6,8 @@ import { expandResult } from './stored-result';
 import { lockedModelOf } from '../independent/signed-model';
 
 /** What a revision's content hash covers besides the row itself, read once for every format asked. */
-interface HashSources {
+export interface HashSources {
+  /** Its number, title, part reference and project code (the hash reads no more of them). */
   calc: Calc & { Project: Project };
   expanded: unknown;
   attachments: Attachment[];
@@ -18,13 +19,15 @@ async function hashSourcesOf(
   transaction: Transaction | undefined,
   result: unknown,
   maxFormat: number,
+  known?: HashSources['calc'],
 ): Promise<HashSources> {
   const [calc, expanded, attachments, model] = await Promise.all([
-    Calc.findByPk(revision.calcId, {
-      include: [Project],
-      attributes: ['id', 'number', 'title', 'partRef', 'projectId'],
-      transaction,
-    }) as Promise<Calc & { Project: Project }>,
+    known ??
+      (Calc.findByPk(revision.calcId, {
+        include: [Project],
+        attributes: ['id', 'number', 'title', 'partRef', 'projectId'],
+        transaction,
+      }) as Promise<HashSources['calc']>),
     result ?? expandResult(Revision.sequelize!, revision.result, transaction),
     maxFormat >= 2 ? Attachment.findAll({ where: { revisionId: revision.id }, transaction }) : [],
     maxFormat >= 3 ? lockedModelOf(revision.id, transaction) : null,
@@ -65,16 +68,18 @@ function hashInFormat(revision: Revision, sources: HashSources, format: number):
 /**
  * Recomputes the content hash from what is stored now, so tampering shows as a broken signature.
  * The hash covers the result as the engine returned it, with its units and formulas put back, and
- * (format 2, the default for the revision's own format) the attachment set as stored now.
+ * (format 2, the default for the revision's own format) the attachment set as stored now. A caller that has
+ * just read the calc with its project (a save) passes it as `calc`, so it is not read again.
  */
 export async function currentHashOf(
   revision: Revision,
   transaction?: Transaction,
   result?: unknown,
   format = revision.contentFormat ?? 1,
+  calc?: HashSources['calc'],
 ): Promise<string | null> {
   if (!revision.result || !revision.checklist) return null;
-  return hashInFormat(revision, await hashSourcesOf(revision, transaction, result, format), format);
+  return hashInFormat(revision, await hashSourcesOf(revision, transaction, result, format, calc), format);
 }
 
 /**

@@ -19,6 +19,8 @@ export interface ComputedRecord {
   checklist: Checklist | null;
   verdict: string | null;
   inputIssues: InputIssue[];
+  /** What the input schema alone said ([] when the input is valid, even if it then could not be evaluated). */
+  schemaIssues: InputIssue[];
 }
 
 /**
@@ -27,7 +29,7 @@ export interface ComputedRecord {
  */
 export async function computeRecord(input: unknown, ruleSet: RuleSet): Promise<ComputedRecord> {
   const validated = validateCalcInput(input);
-  if (!validated.ok) return { result: null, checklist: null, verdict: null, inputIssues: validated.issues };
+  if (!validated.ok) return { ...nothing(), inputIssues: validated.issues, schemaIssues: validated.issues };
   const effective: CalcInput = applyRuleSetMethods(validated.value, ruleSet);
   try {
     const result = evaluateValidInput(effective);
@@ -36,18 +38,18 @@ export async function computeRecord(input: unknown, ruleSet: RuleSet): Promise<C
     const checklist = await evaluateChecklist(effective, result, ruleSet);
     const inChecklist = nonFinitePath(checklist);
     if (inChecklist !== null) return notComputable(`checklist.${inChecklist}`);
-    return { result, checklist, verdict: checklist.verdict, inputIssues: [] };
+    return { result, checklist, verdict: checklist.verdict, inputIssues: [], schemaIssues: [] };
   } catch (err) {
     // The engine's own non-finite backstop names the input entry; keep its paths.
-    if (err instanceof CalcInputError) return { result: null, checklist: null, verdict: null, inputIssues: err.issues };
+    if (err instanceof CalcInputError) return { ...nothing(), inputIssues: err.issues };
     const message = err instanceof Error ? err.message : String(err);
-    return {
-      result: null,
-      checklist: null,
-      verdict: null,
-      inputIssues: [{ path: '', message: `could not be evaluated: ${message}` }],
-    };
+    return { ...nothing(), inputIssues: [{ path: '', message: `could not be evaluated: ${message}` }] };
   }
+}
+
+/** No result: the caller adds the issues (the schema's, or the evaluation's own for valid input). */
+function nothing(): Omit<ComputedRecord, 'inputIssues'> {
+  return { result: null, checklist: null, verdict: null, schemaIssues: [] };
 }
 
 // result.segments[2].J → segments[2]: the input entry whose values led there.
@@ -61,9 +63,7 @@ const INPUT_ENTRY = /^result\.(segments|features|torques)\[(\d+)\]/;
 function notComputable(where: string): ComputedRecord {
   const entry = INPUT_ENTRY.exec(where);
   return {
-    result: null,
-    checklist: null,
-    verdict: null,
+    ...nothing(),
     inputIssues: [
       {
         path: entry ? `${entry[1]}[${entry[2]}]` : '',

@@ -17,13 +17,22 @@ import { currentHashesOf } from './current-hash';
 // Where the hashes were first written; callers keep importing them from here.
 export { currentHashOf, currentHashesOf } from './current-hash';
 
-/** A revision as the screens show it; Server-Timing names its phases (read, hash, input, verification). */
-export async function readRevision(ability: AppAbility, id: number, transaction?: Transaction): Promise<RevisionDto> {
-  const revision = await timed('read', () => loadRevision(id, transaction));
+/**
+ * A revision as the screens show it; Server-Timing names its phases (read, hash, input, verification). `known` is
+ * the row as a save has just written it, with its standard and people attached and its result expanded (the
+ * answer to that save): then the row is not read again.
+ */
+export async function readRevision(
+  ability: AppAbility,
+  id: number,
+  transaction?: Transaction,
+  known?: { revision: Revision; result: unknown },
+): Promise<RevisionDto> {
+  const revision = known?.revision ?? (await timed('read', () => loadRevision(id, transaction)));
   ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
   const [result, signatures, findings, editorIds] = await timed('read', () =>
     Promise.all([
-      expandResult(Revision.sequelize!, revision.result, transaction),
+      known ? known.result : expandResult(Revision.sequelize!, revision.result, transaction),
       Signature.findAll({ where: { revisionId: id }, order: [['signedAt', 'ASC']], transaction }),
       Finding.findAll({ where: { revisionId: id }, order: [['id', 'ASC']], transaction }),
       editorIdsOf(revision.calcId, transaction),

@@ -12,9 +12,10 @@ import { currentHashOf, readRevision } from './revision-read';
 import { jsonDiff } from './content-diff';
 import { outcomeOf } from '../../shared/schemas/outcome';
 import { stringifyFinite } from '../../shared/json/finite-json';
-import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
-import { compactResult, registerEngineMetadata } from './stored-result';
+import { compactResult, expandResult, registerEngineMetadata } from './stored-result';
+import { saveContextOf } from './save-context';
+import { rememberValidation } from './content-hash-memo';
 import { timed } from '../http/server-timing';
 
 /** Saves the author's input. A stale `lockVersion` is a 409 carrying the stored version, never an overwrite. */
@@ -28,15 +29,16 @@ export async function saveRevision(
   // Before the transaction: the first call of a process writes on a connection of its own, and inside it
   // twenty saves holding every pooled connection would each wait for a twenty-first (the pool's time-out).
   await registerEngineMetadata(sequelize);
-  await runTransaction(
+  const inputText = JSON.stringify(dto.input);
+  const saved = await runTransaction(
     sequelize,
     async (transaction, attempt) => {
       const revision = await timed('lock', () => loadRevision(revisionId, transaction));
       // A run after a COMMIT whose answer was lost: this exact save is already stored.
-      if (attempt > 1 && revision.lockVersion === dto.lockVersion + 1 && revision.input === JSON.stringify(dto.input))
-        return;
+      if (attempt > 1 && revision.lockVersion === dto.lockVersion + 1 && revision.input === inputText)
+        return { revision, result: await expandResult(sequelize, revision.result, transaction) };
       // Checked after the replay above (not by loadRevisionForChange): a replayed save answers as the first did.
-      const projectId = await assertProjectOpen(revision.calcId, transaction);
+      const context = await saveContextOf(revision.calcId, actor.id, transaction);
       if (!EDITABLE_STATES.includes(revision.status)) {
         throw new AppError(
           'read_only',
@@ -61,6 +63,8 @@ export async function saveRevision(
         });
       }
       const computed = await timed('engine', () => computeRecord(dto.input, doc));
+      // The answer names the input's issues: the engine run has just validated this very text.
+      rememberValidation(inputText, computed.schemaIssues);
       const diff = jsonDiff(
         JSON.parse(revision.input),
         dto.input,
@@ -68,7 +72,7 @@ export async function saveRevision(
         `${revision.label}@${revision.lockVersion + 1}`,
       );
       revision.set({
-        input: JSON.stringify(dto.input),
+        input: inputText,
         ruleSetId,
         lockVersion: revision.lockVersion + 1,
         ...stored(computed),
@@ -78,9 +82,13 @@ export async function saveRevision(
       if (ruleSetId !== revision.ruleSet?.id) attachRuleSet(revision, record);
       await registerEngineMetadata(sequelize);
       revision.contentFormat = CONTENT_FORMAT;
-      revision.contentHash = await timed('digest', () => currentHashOf(revision, transaction));
+      // Expanded once: the hash covers it and the answer shows it.
+      const result = await expandResult(sequelize, revision.result, transaction);
+      revision.contentHash = await timed('digest', () =>
+        currentHashOf(revision, transaction, result, CONTENT_FORMAT, context.calc),
+      );
       await timed('write', () => revision.save({ transaction }));
-      await timed('editor', () => recordEditor(revision.calcId, actor.id, transaction));
+      if (!context.edited) await timed('editor', () => recordEditor(revision.calcId, actor.id, transaction));
       await timed('audit', () =>
         appendAudit(
           sequelize,
@@ -97,16 +105,18 @@ export async function saveRevision(
               ruleSet: `${record.code} v${record.version}`,
             },
             diff,
-            scope: { calcId: revision.calcId, projectId: projectId ?? null },
+            scope: { calcId: revision.calcId, projectId: context.projectId ?? null },
             commits: true,
           },
           transaction,
         ),
       );
+      return { revision, result };
     },
     { idempotent: true },
   );
-  return timed('answer', () => readRevision(ability, revisionId));
+  // The row as written (the save holds it with its standard and people): the answer reads only what hangs off it.
+  return timed('answer', () => readRevision(ability, revisionId, undefined, saved));
 }
 
 export function stored(c: Awaited<ReturnType<typeof computeRecord>>) {

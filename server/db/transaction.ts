@@ -21,6 +21,30 @@ export const retryStats = { transactions: 0, retries: 0, gaveUp: 0, byCause: {} 
 
 export const RETRY_AFTER_SECONDS = 2;
 
+/** Transactions whose last statement committed them inside the database (`audit_append_commit`). */
+const committedInside = new WeakSet<Transaction>();
+
+/**
+ * Called by the work right after a statement that ended with COMMIT inside the database returned: runTransaction
+ * then sends no COMMIT of its own (it would find no transaction and do nothing, one round trip) and only hands the
+ * connection back to the pool and runs the afterCommit hooks, as Sequelize's commit() does after its COMMIT.
+ */
+export function committedByDatabase(t: Transaction): void {
+  committedInside.add(t);
+}
+
+async function finishCommitted(t: Transaction): Promise<void> {
+  // Sequelize's own commit() minus the statement: cleanup() releases the connection; then the state and hooks.
+  const internal = t as unknown as {
+    cleanup(): void;
+    finished?: string;
+    _afterCommitHooks: ((t: Transaction) => unknown)[];
+  };
+  internal.cleanup();
+  internal.finished = 'commit';
+  for (const hook of internal._afterCommitHooks) await hook.apply(t, [t]);
+}
+
 /**
  * Runs `work` in one transaction and runs the whole of it again when the database aborted it for
  * a deadlock (1213, also Galera's certification failure at commit), a lock-wait timeout (1205) or
@@ -43,7 +67,8 @@ export async function runTransaction<T>(
       t = await sequelize.transaction();
       const result = await work(t, attempt);
       committing = true;
-      await timed('commit', () => t!.commit());
+      if (committedInside.has(t)) await finishCommitted(t);
+      else await timed('commit', () => t!.commit());
       return result;
     } catch (err) {
       if (t && !committing) await t.rollback().catch(() => undefined);

@@ -9,7 +9,11 @@ import { AppError } from '../errors/app-error';
  * before the archive is simply earlier than it.
  */
 export async function assertProjectOpen(calcId: number, transaction?: Transaction): Promise<number | undefined> {
-  const project = await projectOf(calcId, transaction);
+  return assertOpen(await projectOf(calcId, transaction));
+}
+
+/** The same check on a project the caller has already read (its id, code and status). */
+export function assertOpen(project: Pick<Project, 'id' | 'code' | 'status'> | undefined): number | undefined {
   if (project?.status === 'archived') {
     throw new AppError(
       'archived',

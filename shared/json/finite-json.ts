@@ -1,7 +1,21 @@
 import { indexPath, keyPath } from './json-value-check';
 
-/** The path of the first Infinity or NaN in a value built by code (a result), or null. */
+/**
+ * The path of the first Infinity or NaN in a value built by code (a result), or null. Values are almost always
+ * finite: a walk that builds no paths answers those, and only a value that has one is walked again for its path.
+ */
 export function nonFinitePath(value: unknown): string | null {
+  return allFinite(value) ? null : firstNonFinitePath(value);
+}
+
+function allFinite(v: unknown): boolean {
+  if (typeof v === 'number') return Number.isFinite(v);
+  if (v === null || typeof v !== 'object') return true;
+  if (Array.isArray(v)) return v.every(allFinite);
+  return Object.values(v).every(allFinite);
+}
+
+function firstNonFinitePath(value: unknown): string | null {
   const stack: [unknown, string][] = [[value, '']];
   while (stack.length > 0) {
     const [v, path] = stack.pop()!;

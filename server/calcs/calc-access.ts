@@ -39,9 +39,15 @@ export async function loadRevision(id: number, transaction?: Transaction): Promi
     if (!revision) throw AppError.notFound(`Revision ${id}`);
     return revision;
   }
+  const revision = await lockRevision(id, transaction);
+  await attachAssociations(revision, transaction);
+  return revision;
+}
+
+/** The revision row alone, locked for update (a save takes its standard and people from its context read). */
+export async function lockRevision(id: number, transaction: Transaction): Promise<Revision> {
   const revision = await Revision.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
   if (!revision) throw AppError.notFound(`Revision ${id}`);
-  await attachAssociations(revision, transaction);
   return revision;
 }
 
@@ -82,6 +88,21 @@ async function attachAssociations(revision: Revision, transaction: Transaction):
   for (const [key, value] of Object.entries(found)) attach(revision, key, value);
 }
 
+/** Attaches what a read with REVISION_INCLUDE attaches, known already: the standard's row and the people's names. */
+export function attachKnown(revision: Revision, ruleSet: RuleSetRecord | null, names: Map<number, string>): void {
+  const person = (id: number | null) => {
+    const name = id == null ? undefined : names.get(id);
+    return name === undefined ? null : User.build({ id, displayName: name } as User, { isNewRecord: false, raw: true });
+  };
+  const found = {
+    ruleSet,
+    author: person(revision.authorId),
+    checker: person(revision.checkerId),
+    approver: person(revision.approverId),
+  };
+  for (const [key, value] of Object.entries(found)) attach(revision, key, value);
+}
+
 // The same shape an include gives: both the property and dataValues, so DTO mapping sees no difference.
 function attach(revision: Revision, key: string, value: unknown): void {
   (revision.dataValues as Record<string, unknown>)[key] = value;
@@ -100,7 +121,8 @@ export async function loadCalc(id: number, transaction?: Transaction): Promise<C
 }
 
 export async function editorIdsOf(calcId: number, transaction?: Transaction): Promise<number[]> {
-  const rows = await CalcEditor.findAll({ where: { calcId }, transaction });
+  // In user order, as a save's context statement lists them (save-context.ts).
+  const rows = await CalcEditor.findAll({ where: { calcId }, order: [['userId', 'ASC']], transaction });
   return rows.map((r) => r.userId);
 }
 

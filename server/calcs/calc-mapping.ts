@@ -9,13 +9,14 @@ import type {
   SignatureDto,
 } from '../../shared/schemas/calc-dto';
 import { Calc, Finding, Project, Revision, RuleSetRecord, Signature, User } from '../db/models';
+import { REVISION_RULE_SET_ATTRIBUTES } from '../rule-sets/rule-set-cache';
 
 /** Associations every revision read needs, loaded in one query. */
 export const REVISION_INCLUDE = [
   {
     model: RuleSetRecord,
     as: 'ruleSet',
-    attributes: ['id', 'code', 'version', 'title', 'contentHash', 'document', 'lockVersion'],
+    attributes: REVISION_RULE_SET_ATTRIBUTES,
   },
   { model: User, as: 'author', attributes: ['id', 'displayName'] },
   { model: User, as: 'checker', attributes: ['id', 'displayName'] },

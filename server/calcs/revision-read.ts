@@ -19,14 +19,14 @@ export { currentHashOf, currentHashesOf } from './current-hash';
 
 /**
  * A revision as the screens show it; Server-Timing names its phases (read, hash, input, verification). `known` is
- * the row as a save has just written it, with its standard and people attached and its result expanded (the
- * answer to that save): then the row is not read again.
+ * the row as a save has just written it, with its standard and people attached, its result expanded and the calc's
+ * editors when the save knows them (the answer to that save): then none of them is read again.
  */
 export async function readRevision(
   ability: AppAbility,
   id: number,
   transaction?: Transaction,
-  known?: { revision: Revision; result: unknown },
+  known?: { revision: Revision; result: unknown; editorIds: number[] | null },
 ): Promise<RevisionDto> {
   const revision = known?.revision ?? (await timed('read', () => loadRevision(id, transaction)));
   ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
@@ -35,7 +35,7 @@ export async function readRevision(
       known ? known.result : expandResult(Revision.sequelize!, revision.result, transaction),
       Signature.findAll({ where: { revisionId: id }, order: [['signedAt', 'ASC']], transaction }),
       Finding.findAll({ where: { revisionId: id }, order: [['id', 'ASC']], transaction }),
-      editorIdsOf(revision.calcId, transaction),
+      known?.editorIds ?? editorIdsOf(revision.calcId, transaction),
     ]),
   );
   // Independent of each other: asked together, so the database round trips overlap.

@@ -6,7 +6,7 @@ import { EDITABLE_STATES } from '../../shared/schemas/revision.schema';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { loadRuleSet, parseRuleSet } from '../rule-sets/rule-set-cache';
-import { assertCan, attachRuleSet, loadRevision, recordEditor } from './calc-access';
+import { assertCan, attachRuleSet, recordEditor } from './calc-access';
 import { CONTENT_FORMAT, computeRecord } from './revision-content';
 import { currentHashOf, readRevision } from './revision-read';
 import { jsonDiff } from './content-diff';
@@ -14,7 +14,8 @@ import { outcomeOf } from '../../shared/schemas/outcome';
 import { stringifyFinite } from '../../shared/json/finite-json';
 import { runTransaction } from '../db/transaction';
 import { compactResult, expandResult, registerEngineMetadata } from './stored-result';
-import { saveContextOf } from './save-context';
+import { lockWithContext, withEditor } from './save-context';
+import { assertOpen } from '../projects/project-open';
 import { rememberValidation } from './content-hash-memo';
 import { timed } from '../http/server-timing';
 
@@ -33,12 +34,14 @@ export async function saveRevision(
   const saved = await runTransaction(
     sequelize,
     async (transaction, attempt) => {
-      const revision = await timed('lock', () => loadRevision(revisionId, transaction));
+      const { revision, context } = await timed('lock', () => lockWithContext(revisionId, actor.id, transaction));
       // A run after a COMMIT whose answer was lost: this exact save is already stored.
-      if (attempt > 1 && revision.lockVersion === dto.lockVersion + 1 && revision.input === inputText)
-        return { revision, result: await expandResult(sequelize, revision.result, transaction) };
+      if (attempt > 1 && revision.lockVersion === dto.lockVersion + 1 && revision.input === inputText) {
+        const result = await expandResult(sequelize, revision.result, transaction);
+        return { revision, result, editorIds: context.editorIds };
+      }
       // Checked after the replay above (not by loadRevisionForChange): a replayed save answers as the first did.
-      const context = await saveContextOf(revision.calcId, actor.id, transaction);
+      const projectId = assertOpen(context.project);
       if (!EDITABLE_STATES.includes(revision.status)) {
         throw new AppError(
           'read_only',
@@ -89,6 +92,7 @@ export async function saveRevision(
       );
       await timed('write', () => revision.save({ transaction }));
       if (!context.edited) await timed('editor', () => recordEditor(revision.calcId, actor.id, transaction));
+      const editorIds = context.edited ? context.editorIds : withEditor(context.editorIds, actor.id);
       await timed('audit', () =>
         appendAudit(
           sequelize,
@@ -105,17 +109,18 @@ export async function saveRevision(
               ruleSet: `${record.code} v${record.version}`,
             },
             diff,
-            scope: { calcId: revision.calcId, projectId: context.projectId ?? null },
+            scope: { calcId: revision.calcId, projectId: projectId ?? null },
             commits: true,
           },
           transaction,
         ),
       );
-      return { revision, result };
+      return { revision, result, editorIds };
     },
     { idempotent: true },
   );
-  // The row as written (the save holds it with its standard and people): the answer reads only what hangs off it.
+  // The row as written (the save holds it with its standard, people and editors): the answer reads only what hangs
+  // off the revision (signatures, findings, the independent model).
   return timed('answer', () => readRevision(ability, revisionId, undefined, saved));
 }
 

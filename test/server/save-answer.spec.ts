@@ -1,0 +1,79 @@
+import { startTestApp } from '../support/api-harness';
+import { createCalc, expectStatus, person, revisionOf, testStandard, type Session } from '../support/calc-harness';
+import { returnedWithFindingOf } from '../support/findings-harness';
+
+const { app, sequelize } = startTestApp();
+afterAll(() => sequelize.close());
+
+/*
+ * A save answers with the revision as it wrote it, built from what the save read and wrote rather than read back
+ * (its standard's row from memory while the row's stamp is unchanged, its people and editors from one statement).
+ * Whatever it skipped reading, the answer must be what a GET of the revision returns right after.
+ */
+async function saveAndRead(s: Session, revisionId: number, change: (input: Record<string, unknown>) => void) {
+  const before = await revisionOf(s, revisionId);
+  const input = structuredClone(before.input) as Record<string, unknown>;
+  change(input);
+  const saved = expectStatus(
+    await s.put(`/api/revisions/${revisionId}`, { input, lockVersion: before.lockVersion }),
+    200,
+    'save',
+  );
+  return { saved: saved.body, read: await revisionOf(s, revisionId) };
+}
+
+const retitle = (title: string) => (input: Record<string, unknown>) => {
+  input.title = title;
+};
+
+describe("a save's answer", () => {
+  it('when an author saves a fresh draft twice, then each answer is what a GET returns after it', async () => {
+    // Arrange
+    const author = await person(app, ['author']);
+    const { revisionId } = await createCalc(author.session);
+
+    // Act
+    const first = await saveAndRead(author.session, revisionId, retitle('Head shaft, first save'));
+    const second = await saveAndRead(author.session, revisionId, retitle('Head shaft, second save'));
+
+    // Assert
+    expect(first.saved).toEqual(first.read);
+    expect(second.saved).toEqual(second.read);
+    expect(second.saved.editorIds).toEqual([author.user.id]);
+    expect(second.saved.author).toEqual({ id: author.user.id, name: author.displayName });
+  });
+
+  it('when a returned revision with a finding and a signature is saved, then the answer is what a GET returns', async () => {
+    // Arrange
+    const t = await returnedWithFindingOf(app);
+
+    // Act
+    const { saved, read } = await saveAndRead(t.author.session, t.revisionId, retitle('Answered: chart named'));
+
+    // Assert
+    expect(saved.findings).toHaveLength(1);
+    expect(saved).toEqual(read);
+  });
+
+  it("when the standard's row changes between two saves, then the second answer shows the row as stored", async () => {
+    // Arrange
+    const author = await person(app, ['author']);
+    const standard = await testStandard();
+    const { revisionId } = await createCalc(author.session, { ruleSetId: standard.id });
+    await saveAndRead(author.session, revisionId, retitle('Before the change'));
+    // Behind the app's back, without a new lock version: the stamp's content hash still tells the row changed.
+    await sequelize.query(
+      "UPDATE rule_sets SET title = 'Retitled standard', content_hash = REPEAT('a', 64) WHERE id = ?",
+      {
+        replacements: [standard.id],
+      },
+    );
+
+    // Act
+    const { saved, read } = await saveAndRead(author.session, revisionId, retitle('After the change'));
+
+    // Assert
+    expect(saved.ruleSet.title).toBe('Retitled standard');
+    expect(saved).toEqual(read);
+  });
+});

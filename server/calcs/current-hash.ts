@@ -19,17 +19,17 @@ async function hashSourcesOf(
   transaction: Transaction | undefined,
   result: unknown,
   maxFormat: number,
-  known?: HashSources['calc'],
+  known: Partial<Pick<HashSources, 'calc' | 'attachments'>> = {},
 ): Promise<HashSources> {
   const [calc, expanded, attachments, model] = await Promise.all([
-    known ??
+    known.calc ??
       (Calc.findByPk(revision.calcId, {
         include: [Project],
         attributes: ['id', 'number', 'title', 'partRef', 'projectId'],
         transaction,
       }) as Promise<HashSources['calc']>),
     result ?? expandResult(Revision.sequelize!, revision.result, transaction),
-    maxFormat >= 2 ? Attachment.findAll({ where: { revisionId: revision.id }, transaction }) : [],
+    maxFormat < 2 ? [] : (known.attachments ?? Attachment.findAll({ where: { revisionId: revision.id }, transaction })),
     maxFormat >= 3 ? lockedModelOf(revision.id, transaction) : null,
   ]);
   return { calc, expanded, attachments, model };
@@ -69,17 +69,18 @@ function hashInFormat(revision: Revision, sources: HashSources, format: number):
  * Recomputes the content hash from what is stored now, so tampering shows as a broken signature.
  * The hash covers the result as the engine returned it, with its units and formulas put back, and
  * (format 2, the default for the revision's own format) the attachment set as stored now. A caller that has
- * just read the calc with its project (a save) passes it as `calc`, so it is not read again.
+ * just read the calc with its project (a save) passes it in `known`, so it is not read again, and so are the
+ * attachments when it knows there are none.
  */
 export async function currentHashOf(
   revision: Revision,
   transaction?: Transaction,
   result?: unknown,
   format = revision.contentFormat ?? 1,
-  calc?: HashSources['calc'],
+  known?: Partial<Pick<HashSources, 'calc' | 'attachments'>>,
 ): Promise<string | null> {
   if (!revision.result || !revision.checklist) return null;
-  return hashInFormat(revision, await hashSourcesOf(revision, transaction, result, format, calc), format);
+  return hashInFormat(revision, await hashSourcesOf(revision, transaction, result, format, known), format);
 }
 
 /**

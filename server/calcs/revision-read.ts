@@ -13,6 +13,7 @@ import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { expandResult } from './stored-result';
 import { withVerification } from '../independent/blind';
 import { currentHashesOf } from './current-hash';
+import type { SaveContext } from './save-context';
 
 // Where the hashes were first written; callers keep importing them from here.
 export { currentHashOf, currentHashesOf } from './current-hash';
@@ -20,21 +21,27 @@ export { currentHashOf, currentHashesOf } from './current-hash';
 /**
  * A revision as the screens show it; Server-Timing names its phases (read, hash, input, verification). `known` is
  * the row as a save has just written it, with its standard and people attached, its result expanded and the calc's
- * editors when the save knows them (the answer to that save): then none of them is read again.
+ * editors when the save knows them, and which rows hang off it (the answer to that save): then none of them is read
+ * again, nor the signatures, findings or independent model it has none of (their writers all lock the revision row,
+ * so none appeared while the save held it).
  */
 export async function readRevision(
   ability: AppAbility,
   id: number,
   transaction?: Transaction,
-  known?: { revision: Revision; result: unknown; editorIds: number[] | null },
+  known?: { revision: Revision; result: unknown; editorIds: number[] | null; has?: SaveContext['has'] },
 ): Promise<RevisionDto> {
   const revision = known?.revision ?? (await timed('read', () => loadRevision(id, transaction)));
   ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
   const [result, signatures, findings, editorIds] = await timed('read', () =>
     Promise.all([
       known ? known.result : expandResult(Revision.sequelize!, revision.result, transaction),
-      Signature.findAll({ where: { revisionId: id }, order: [['signedAt', 'ASC']], transaction }),
-      Finding.findAll({ where: { revisionId: id }, order: [['id', 'ASC']], transaction }),
+      known?.has?.signatures === false
+        ? []
+        : Signature.findAll({ where: { revisionId: id }, order: [['signedAt', 'ASC']], transaction }),
+      known?.has?.findings === false
+        ? []
+        : Finding.findAll({ where: { revisionId: id }, order: [['id', 'ASC']], transaction }),
       known?.editorIds ?? editorIdsOf(revision.calcId, transaction),
     ]),
   );
@@ -45,7 +52,8 @@ export async function readRevision(
     timed('input', () => inputIssuesOf(revision)),
   ]);
   const dto = toRevisionDto(revision, { result, signatures, findings, editorIds, currentHashes, names, inputIssues });
-  return timed('verification', () => withVerification(ability, revision, dto, transaction));
+  const noModel = known?.has?.independent_models === false;
+  return timed('verification', () => withVerification(ability, revision, dto, transaction, noModel));
 }
 
 async function namesOf(findings: readonly Finding[], transaction?: Transaction): Promise<Map<number, string>> {

@@ -38,7 +38,7 @@ export async function saveRevision(
       // A run after a COMMIT whose answer was lost: this exact save is already stored.
       if (attempt > 1 && revision.lockVersion === dto.lockVersion + 1 && revision.input === inputText) {
         const result = await expandResult(sequelize, revision.result, transaction);
-        return { revision, result, editorIds: context.editorIds };
+        return { revision, result, editorIds: context.editorIds, has: context.has };
       }
       // Checked after the replay above (not by loadRevisionForChange): a replayed save answers as the first did.
       const projectId = assertOpen(context.project);
@@ -88,7 +88,10 @@ export async function saveRevision(
       // Expanded once: the hash covers it and the answer shows it.
       const result = await expandResult(sequelize, revision.result, transaction);
       revision.contentHash = await timed('digest', () =>
-        currentHashOf(revision, transaction, result, CONTENT_FORMAT, context.calc),
+        currentHashOf(revision, transaction, result, CONTENT_FORMAT, {
+          calc: context.calc,
+          attachments: context.has.attachments ? undefined : [],
+        }),
       );
       await timed('write', () => revision.save({ transaction }));
       if (!context.edited) await timed('editor', () => recordEditor(revision.calcId, actor.id, transaction));
@@ -115,7 +118,7 @@ export async function saveRevision(
           transaction,
         ),
       );
-      return { revision, result, editorIds };
+      return { revision, result, editorIds, has: context.has };
     },
     { idempotent: true },
   );

@@ -17,9 +17,13 @@ export interface SaveContext {
   names: Map<number, string>;
   /** What identifies the standard's row as stored: its document is taken from memory when the stamp matches. */
   ruleSet: RuleSetStamp | null;
+  /** Which rows hang off the revision: those it has none of are not read for the hash or the answer. */
+  has: Record<(typeof HANGING)[number], boolean>;
 }
 
 const PEOPLE = ['author', 'checker', 'approver'] as const;
+// Rows whose writers all lock the revision row first, so none appears while a save holds it.
+const HANGING = ['signatures', 'findings', 'attachments', 'independent_models'] as const;
 
 /**
  * The calc of a locked revision with its project, whether `userId` already edited it, the calc's editors, the names
@@ -49,6 +53,7 @@ export async function saveContextOf(
       [ruleSet('lock_version'), 'ruleSetLockVersion'],
       [ruleSet('content_hash'), 'ruleSetContentHash'],
       ...people,
+      ...HANGING.map((t) => [literal(`EXISTS(SELECT 1 FROM ${t} WHERE revision_id = ${Number(revision.id)})`), t]),
     ] as never,
     include: [{ model: Project, attributes: ['id', 'code', 'status'] }],
     transaction,
@@ -72,6 +77,7 @@ export async function saveContextOf(
       lockVersion == null
         ? null
         : { id: ruleSetKey, lockVersion: Number(lockVersion), contentHash: String(raw('ruleSetContentHash')) },
+    has: Object.fromEntries(HANGING.map((t) => [t, Number(raw(t)) === 1])) as SaveContext['has'],
   };
 }
 

@@ -41,9 +41,10 @@ export async function verificationFor(
   ability: AppAbility,
   revision: Revision,
   transaction?: Transaction,
+  noModel = false,
 ): Promise<RevisionVerification> {
   const need = needOf(revision);
-  const model = await modelOfRevision(revision.id, transaction);
+  const model = noModel ? null : await modelOfRevision(revision.id, transaction);
   const checker = model
     ? await User.findByPk(model.checkerId, { attributes: ['id', 'displayName'], transaction })
     : null;
@@ -82,14 +83,18 @@ export function blindRead(dto: RevisionDto): RevisionDto {
   };
 }
 
-/** Adds the verification part to a revision read and applies the blind rule (server/calcs/revision-read.ts). */
+/**
+ * Adds the verification part to a revision read and applies the blind rule (server/calcs/revision-read.ts); `noModel`
+ * when the caller knows the revision has no independent model (a save's answer), so none is looked for.
+ */
 export async function withVerification(
   ability: AppAbility,
   revision: Revision,
   dto: RevisionDto,
   transaction?: Transaction,
+  noModel = false,
 ): Promise<RevisionDto> {
-  const verification = await verificationFor(ability, revision, transaction);
+  const verification = await verificationFor(ability, revision, transaction, noModel);
   if (!verification.blind) return { ...dto, verification };
   return { ...blindRead(dto), verification: { ...verification, signed: null } };
 }

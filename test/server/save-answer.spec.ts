@@ -1,6 +1,15 @@
 import { startTestApp } from '../support/api-harness';
-import { createCalc, expectStatus, person, revisionOf, testStandard, type Session } from '../support/calc-harness';
+import {
+  createCalc,
+  expectStatus,
+  person,
+  revisionOf,
+  sign,
+  testStandard,
+  type Session,
+} from '../support/calc-harness';
 import { returnedWithFindingOf } from '../support/findings-harness';
+import { pdfBytes, upload } from '../support/upload-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
@@ -75,5 +84,22 @@ describe("a save's answer", () => {
     // Assert
     expect(saved.ruleSet.title).toBe('Retitled standard');
     expect(saved).toEqual(read);
+  });
+
+  it('when a draft with an attachment is saved, then the answer is what a GET returns and its hash covers the file', async () => {
+    // Arrange
+    const author = await person(app, ['author']);
+    const { revisionId } = await createCalc(author.session);
+    expectStatus(await upload(author.session, revisionId, pdfBytes(), { kind: 'drawing' }, 'seat.pdf'), 201, 'upload');
+
+    // Act
+    const { saved, read } = await saveAndRead(author.session, revisionId, retitle('With the seat drawing'));
+    const submitted = await sign(author.session, revisionId, 'authored');
+
+    // Assert
+    expect(saved).toEqual(read);
+    expect(submitted.status).toBe(200);
+    const signatures = (await revisionOf(author.session, revisionId)).signatures;
+    expect(signatures.map((x: { isValid: boolean }) => x.isValid)).toEqual([true]);
   });
 });

@@ -14,7 +14,7 @@ import { outcomeOf } from '../../shared/schemas/outcome';
 import { stringifyFinite } from '../../shared/json/finite-json';
 import { runTransaction } from '../db/transaction';
 import { compactResult, expandResult, registerEngineMetadata } from './stored-result';
-import { lockWithContext, withEditor } from './save-context';
+import { lockWithContext, withEditor, withStoredResult } from './save-context';
 import { assertOpen } from '../projects/project-open';
 import { rememberValidation } from './content-hash-memo';
 import { timed } from '../http/server-timing';
@@ -37,7 +37,11 @@ export async function saveRevision(
       const { revision, context } = await timed('lock', () => lockWithContext(revisionId, actor.id, transaction));
       // A run after a COMMIT whose answer was lost: this exact save is already stored.
       if (attempt > 1 && revision.lockVersion === dto.lockVersion + 1 && revision.input === inputText) {
-        const result = await expandResult(sequelize, revision.result, transaction);
+        const result = await expandResult(
+          sequelize,
+          (await withStoredResult(revision, transaction)).result,
+          transaction,
+        );
         return { revision, result, editorIds: context.editorIds, has: context.has };
       }
       // Checked after the replay above (not by loadRevisionForChange): a replayed save answers as the first did.

@@ -1,5 +1,5 @@
 import { literal, type Transaction } from 'sequelize';
-import { Calc, Project, type Revision } from '../db/models';
+import { Calc, Project, Revision } from '../db/models';
 import { attachKnown, lockRevision } from './calc-access';
 import { AppError } from '../errors/app-error';
 import { revisionRuleSet, type RuleSetStamp } from '../rule-sets/rule-set-cache';
@@ -86,10 +86,20 @@ export async function saveContextOf(
  * standard's row comes from memory while its stamp (read in the context statement) is unchanged.
  */
 export async function lockWithContext(revisionId: number, userId: number, transaction: Transaction) {
-  const revision = await lockRevision(revisionId, transaction);
+  const revision = await lockRevision(revisionId, transaction, [...REPLACED]);
   const context = await saveContextOf(revision, userId, transaction);
   attachKnown(revision, context.ruleSet && (await revisionRuleSet(context.ruleSet, transaction)), context.names);
   return { revision, context };
+}
+
+/** What a save replaces without reading it; a run that finds its save already stored reads them (withStoredResult). */
+export const REPLACED = ['result', 'checklist'] as const;
+
+/** The result and checklist of a row locked without them, put on it as stored. */
+export async function withStoredResult(revision: Revision, transaction: Transaction): Promise<Revision> {
+  const row = await Revision.findByPk(revision.id, { attributes: [...REPLACED], transaction });
+  revision.set({ result: row?.result ?? null, checklist: row?.checklist ?? null }, { raw: true });
+  return revision;
 }
 
 /** The editor list once `userId` is added, in the order editorIdsOf reads it. */

@@ -10,6 +10,8 @@ import {
 } from '../support/calc-harness';
 import { returnedWithFindingOf } from '../support/findings-harness';
 import { pdfBytes, upload } from '../support/upload-harness';
+import { Revision } from '../../server/db/models';
+import { lockWithContext, withStoredResult } from '../../server/calcs/save-context';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
@@ -101,5 +103,26 @@ describe("a save's answer", () => {
     expect(submitted.status).toBe(200);
     const signatures = (await revisionOf(author.session, revisionId)).signatures;
     expect(signatures.map((x: { isValid: boolean }) => x.isValid)).toEqual([true]);
+  });
+
+  it('when a save runs again and finds itself stored, then the row it locked gets the result and checklist as stored', async () => {
+    // Arrange: a save locks its row without the two texts it replaces; a run after a lost answer needs them.
+    const author = await person(app, ['author']);
+    const { revisionId } = await createCalc(author.session);
+    await saveAndRead(author.session, revisionId, retitle('Stored once'));
+    const stored = (await Revision.findByPk(revisionId))!;
+
+    // Act
+    const found = await sequelize.transaction(async (transaction) => {
+      const { revision } = await lockWithContext(revisionId, author.user.id, transaction);
+      const before = { result: revision.result, checklist: revision.checklist };
+      await withStoredResult(revision, transaction);
+      return { before, after: { result: revision.result, checklist: revision.checklist } };
+    });
+
+    // Assert
+    expect(found.before).toEqual({ result: undefined, checklist: undefined });
+    expect(found.after).toEqual({ result: stored.result, checklist: stored.checklist });
+    expect(found.after.result).toEqual(expect.any(String));
   });
 });

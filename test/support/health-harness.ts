@@ -4,18 +4,9 @@ import { Attachment, Project, Revision, RuleSetRecord } from '../../server/db/mo
 import { documentHash } from '../../server/rule-sets/rule-set-mapping';
 import { loadRevision } from '../../server/calcs/calc-access';
 import { refreshAfterAttachmentChange } from '../../server/workflow/signed-content';
-import { TEST_PASSWORD, uniqueCode } from './api-harness';
-import {
-  expectStatus,
-  fixtureInput,
-  person,
-  revisionOf,
-  sign,
-  testStandard,
-  tickAll,
-  withParameter,
-  type Session,
-} from './calc-harness';
+import { TEST_PASSWORD, uniqueCode, expectStatus, person, type Session } from './api-harness';
+import { fixtureInput, revisionOf, sign, tickAll } from './calc-harness';
+import { testStandard, withParameter } from './standard-harness';
 
 const DAY = 86_400_000;
 export const today = () => new Date().toISOString().slice(0, 10);

@@ -5,7 +5,7 @@ import type { Express } from 'express';
 import { Project, RuleSetRecord } from '../../server/db/models';
 import { TEST_PASSWORD, createTestProject, expectStatus, signedInAs, uniqueCode, type Session } from './api-harness';
 import { attachRequiredFiles } from './attachment-harness';
-import { testStandard } from './standard-harness';
+import { standardWithoutAttachments } from './standard-harness';
 
 /** The engine's five-segment fixture: a valid shaft with features and fatigue data. */
 export function fixtureInput(name = 'five-segment-fatigue'): Record<string, unknown> {
@@ -81,11 +81,7 @@ let workflowStandard: Promise<{ id: number; code: string }> | undefined;
  * rules are tested on their own (attachments have their own specs).
  */
 export function workflowStandardId(): Promise<number> {
-  workflowStandard ??= testStandard((doc) => {
-    doc.manualItems = (doc.manualItems as { requiresAttachment?: string }[]).map(
-      ({ requiresAttachment: _dropped, ...item }) => item,
-    );
-  });
+  workflowStandard ??= standardWithoutAttachments();
   return workflowStandard.then((s) => s.id);
 }
 

@@ -43,6 +43,15 @@ export async function testStandard(change: (doc: Record<string, unknown>) => voi
   return { id: record.id, code };
 }
 
+/** A fresh test standard whose manual items ask for no attachment, so sign-off is tested on its own. */
+export function standardWithoutAttachments() {
+  return testStandard((doc) => {
+    doc.manualItems = (doc.manualItems as { requiresAttachment?: string }[]).map(
+      ({ requiresAttachment: _dropped, ...item }) => item,
+    );
+  });
+}
+
 /** Sets one numeric parameter of a rule-set document (a copy; the original is left alone). */
 export function withParameter(doc: Record<string, unknown>, name: string, value: number): Record<string, unknown> {
   const parameters = (doc.parameters as { name: string; value: unknown }[]).map((p) =>
@@ -87,4 +96,21 @@ export async function proposeStandard(app: Express) {
     'propose',
   ).body;
   return { ...d, proposal };
+}
+
+/** Replaces the standard's v1 by a v2 (effective `on`, today) under which the fixture shaft no longer complies. */
+export async function replaceStandard(standard: { id: number; code: string }, on: string) {
+  const v1 = (await RuleSetRecord.findByPk(standard.id))!;
+  const doc = { ...withParameter(JSON.parse(v1.document), 'asmeSyFraction', 0.03), version: 2, effectiveDate: on };
+  await RuleSetRecord.create({
+    code: standard.code,
+    version: 2,
+    title: v1.title,
+    status: 'effective',
+    effectiveDate: on,
+    document: JSON.stringify(doc),
+    contentHash: documentHash(doc),
+    createdBy: null,
+  });
+  await v1.update({ status: 'retired' });
 }

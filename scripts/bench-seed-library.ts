@@ -1,22 +1,12 @@
 // Calcs, revisions, signatures and editors for the list benchmark, inserted in batches.
-import { createHash } from 'node:crypto';
 import type { Connection } from 'mariadb';
 import type { RuleSetRecord } from '../server/db/models';
-import type { RevisionState } from '../shared/schemas/revision.schema';
 import { BENCH, insertRows, pick, prng, type Variant } from './bench-seed-data';
+import { revisionHistory } from './bench-seed-history';
 import { partOf, titleOf, type Person, type ProjectRow } from './bench-seed-names';
 
 const YEAR_MS = 365.25 * 86_400_000;
 const CHUNK = 1000;
-// Where each calc's newest revision stands; older revisions were approved then superseded, or withdrawn.
-const LATEST: [RevisionState, number][] = [
-  ['approved', 0.45],
-  ['draft', 0.2],
-  ['in_check', 0.12],
-  ['checked', 0.08],
-  ['returned', 0.08],
-  ['withdrawn', 0.07],
-];
 
 export interface Library {
   calcs: number;
@@ -27,15 +17,6 @@ export interface Library {
   revisionCalc: Int32Array;
   calcProject: Int32Array;
 }
-
-function latestState(rnd: () => number): RevisionState {
-  let x = rnd();
-  for (const [state, share] of LATEST) if ((x -= share) < 0) return state;
-  return 'approved';
-}
-
-const label = (seq: number) => String.fromCharCode(65 + seq);
-const hex = (text: string) => createHash('sha256').update(text).digest('hex');
 
 /**
  * The forty contents go to the server once; each revision row then copies one of them inside the
@@ -93,50 +74,17 @@ export async function seedLibrary(
       const approver = pick(rnd, approvers);
       const n = 1 + (k % 5);
       const born = start + (k / BENCH.calcs) * 10 * YEAR_MS;
-      const latest = latestState(rnd);
-      let last: unknown[] = [];
-      for (let j = 0; j < n; j++) {
-        const id = lib.firstRevisionId + lib.revisions++;
-        lib.revisionCalc[id - lib.firstRevisionId] = k;
-        const state: RevisionState = j < n - 1 ? (rnd() < 0.8 ? 'superseded' : 'withdrawn') : latest;
-        const at = new Date(Math.min(Date.now() - 60_000, born + j * 30 * 86_400_000));
-        const isSubmitted = !['draft', 'withdrawn'].includes(state);
-        const isChecked = ['checked', 'approved', 'superseded'].includes(state);
-        const isApproved = ['approved', 'superseded'].includes(state);
-        const variant = (k + j) % ctx.variants.length;
-        const hash = hex(`${id}:${variant}`);
-        const row = [
-          id,
-          calcId,
-          j,
-          label(j),
-          state,
-          author.id,
-          isChecked ? checker.id : null,
-          isApproved ? approver.id : null,
-          ctx.ruleSet.id,
-          variant,
-          null,
-          null,
-          ctx.variants[variant].verdict,
-          null,
-          hash,
-          j === 0 ? 'First issue' : 'Longer coupling seat after site survey',
-          isSubmitted ? new Date(at.getTime() - 3_600_000) : null,
-          isChecked ? new Date(at.getTime() - 1_800_000) : null,
-          isApproved ? at : null,
-          new Date(at.getTime() - 86_400_000),
-          at,
-        ];
-        revisions.push(row);
-        if (isSubmitted)
-          signatures.push([id, author.id, author.displayName, 'author', 'authored', row[16], hash, `bench-${id}-a`]);
-        if (isChecked)
-          signatures.push([id, checker.id, checker.displayName, 'checker', 'checked', row[17], hash, `bench-${id}-c`]);
-        if (isApproved)
-          signatures.push([id, approver.id, approver.displayName, 'approver', 'approved', at, hash, `bench-${id}-p`]);
-        last = row;
-      }
+      const history = revisionHistory(
+        rnd,
+        { id: calcId, index: k, born, n, firstId: lib.firstRevisionId + lib.revisions },
+        { author, checker, approver },
+        { variants: ctx.variants, ruleSetId: ctx.ruleSet.id },
+      );
+      lib.revisionCalc.fill(k, lib.revisions, lib.revisions + n);
+      lib.revisions += n;
+      revisions.push(...history.revisions);
+      signatures.push(...history.signatures);
+      const last = history.revisions[n - 1];
       const since = (last[4] === 'in_check' ? last[16] : last[4] === 'checked' ? last[17] : null) ?? last[20];
       calcs.push([
         calcId,

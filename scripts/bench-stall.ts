@@ -16,6 +16,7 @@ import { seedRuleSets } from '../server/rule-sets/seed-rule-sets';
 import { hashPassword } from '../server/auth/password';
 import { writeZip } from '../server/evidence/evidence.service';
 import { MANIFEST_FORMAT } from '../server/evidence/pack-verify';
+import { latencySummary, sampleSession } from './bench-latency';
 
 const PACKS = 4;
 const REPORTS = 4;
@@ -43,36 +44,6 @@ async function bigPack(): Promise<Buffer> {
   out.on('data', (c: Buffer) => chunks.push(c));
   await writeZip(files, out);
   return Buffer.concat(chunks);
-}
-
-function percentile(sorted: number[], p: number): number {
-  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
-}
-
-function summary(label: string, samples: number[]): string {
-  const s = [...samples].sort((a, b) => a - b);
-  const f = (v: number) => `${v.toFixed(1)} ms`;
-  return `  ${label}: ${s.length} requests · p50 ${f(percentile(s, 50))} · p95 ${f(percentile(s, 95))} · p99 ${f(percentile(s, 99))} · max ${f(s[s.length - 1])}`;
-}
-
-/** Sequential GET /api/session until `until` settles; returns each request's latency. */
-async function sample(agent: request.Agent, until: Promise<unknown> | number): Promise<number[]> {
-  let done = false;
-  if (typeof until === 'number')
-    setTimeout(() => {
-      done = true;
-    }, until);
-  else
-    void until.finally(() => {
-      done = true;
-    });
-  const times: number[] = [];
-  while (!done) {
-    const t = performance.now();
-    await agent.get('/api/session').expect(200);
-    times.push(performance.now() - t);
-  }
-  return times;
 }
 
 async function main(): Promise<void> {
@@ -113,7 +84,7 @@ async function main(): Promise<void> {
     .expect(201);
   const pack = await bigPack();
 
-  const idle = await sample(agent, 3000);
+  const idle = await sampleSession(agent, 3000);
   global.gc?.();
   const startRss = process.memoryUsage().rss;
   let peakRss = startRss;
@@ -130,7 +101,7 @@ async function main(): Promise<void> {
     ),
     ...Array.from({ length: REPORTS }, () => agent.get(`/api/revisions/${calc.body.latest.id}/report.pdf`).expect(200)),
   ]);
-  const loaded = await sample(agent, heavy);
+  const loaded = await sampleSession(agent, heavy);
   await heavy;
   const wall = performance.now() - t0;
   clearInterval(rssTimer);
@@ -139,8 +110,8 @@ async function main(): Promise<void> {
   console.log(
     `Event loop under heavy work · ${PACKS} evidence packs (${UNPACKED_MIB} MiB unpacked each, ${(pack.length / 1024).toFixed(0)} KiB zipped) and ${REPORTS} report PDFs at once`,
   );
-  console.log(summary('GET /api/session, idle      ', idle));
-  console.log(summary('GET /api/session, under load', loaded));
+  console.log(latencySummary('GET /api/session, idle      ', idle));
+  console.log(latencySummary('GET /api/session, under load', loaded));
   console.log(
     `  event-loop delay under load: p50 ${(loopDelay.percentile(50) / 1e6).toFixed(1)} ms · p99 ${(loopDelay.percentile(99) / 1e6).toFixed(1)} ms · max ${(loopDelay.max / 1e6).toFixed(1)} ms`,
   );

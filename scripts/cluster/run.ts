@@ -7,12 +7,12 @@ import { promisify } from 'node:util';
 import { GaleraCluster } from './galera';
 import { serverStates, startHaproxy, startNodeChecks } from './haproxy';
 import { Processes, freePort, waitFor } from './processes';
-import { ApiClient, newTally } from './client';
-import { signOff } from './signoff';
+import { newTally } from './client';
 import { newLedger } from './signoff-steps';
 import { setUpData } from './setup-data';
 import { verifyChainOn, verifyNode } from './verify';
 import { AppInstances } from './apps';
+import { startWorkload } from './workload';
 
 const CLIENTS = 4;
 const SIGN_OFFS = 100;
@@ -70,36 +70,10 @@ async function main(root: string): Promise<number> {
     const tally = newTally();
     const ledger = newLedger();
     const base = `http://127.0.0.1:${ends.webPort}`;
-    let completed = 0;
-    let next = 0;
     const runStart = Date.now();
-    const client = async (i: number) => {
-      const team = {
-        author: new ApiClient(base, tally),
-        checker: new ApiClient(base, tally),
-        approver: new ApiClient(base, tally),
-        password: data.password,
-      };
-      const names = data.teams[i];
-      await team.author.signIn(names.author, data.password);
-      await team.checker.signIn(names.checker, data.password);
-      await team.approver.signIn(names.approver, data.password);
-      while (next < SIGN_OFFS) {
-        const n = ++next;
-        await signOff(
-          team,
-          {
-            projectId: data.projectId,
-            ruleSetId: data.ruleSetId,
-            input: data.input,
-            number: `CL-${String(n).padStart(3, '0')}`,
-          },
-          ledger,
-        );
-        completed++;
-      }
-    };
-    const reached = (n: number) => waitFor(`${n} sign-offs`, async () => completed >= n, 900_000, 100);
+    const work = startWorkload(base, data, { clients: CLIENTS, signOffs: SIGN_OFFS, tally, ledger });
+    const completed = work.completed;
+    const reached = (n: number) => waitFor(`${n} sign-offs`, async () => completed() >= n, 900_000, 100);
     const events: string[] = [];
     const note = (m: string) => {
       events.push(`${since()} ${m}`);
@@ -107,7 +81,7 @@ async function main(root: string): Promise<number> {
     };
     const faults = async () => {
       await reached(15);
-      note(`SIGKILL database node db1 (the writer) after ${completed} sign-offs`);
+      note(`SIGKILL database node db1 (the writer) after ${completed()} sign-offs`);
       await cluster.kill(db1);
       await reached(30);
       const down = Date.now();
@@ -115,16 +89,16 @@ async function main(root: string): Promise<number> {
       await cluster.waitSynced(db1);
       note(`db1 restarted and Synced again in ${((Date.now() - down) / 1000).toFixed(1)} s (incremental transfer)`);
       await reached(45);
-      note(`SIGKILL app instance 1 after ${completed} sign-offs`);
+      note(`SIGKILL app instance 1 after ${completed()} sign-offs`);
       await apps.kill(0);
       await reached(60);
       await apps.start(0);
       note('app instance 1 restarted and healthy');
     };
-    await Promise.all([...Array.from({ length: CLIENTS }, (_v, i) => client(i)), faults()]);
+    await Promise.all([work.done, faults()]);
     const runSeconds = (Date.now() - runStart) / 1000;
     log(
-      `${completed} sign-offs done in ${runSeconds.toFixed(1)} s; responses by status ${JSON.stringify(tally.byStatus)}; slowest ${tally.slowestMs} ms`,
+      `${completed()} sign-offs done in ${runSeconds.toFixed(1)} s; responses by status ${JSON.stringify(tally.byStatus)}; slowest ${tally.slowestMs} ms`,
     );
 
     for (const line of tally.noAnswer) log(`no HTTP answer: ${line}`);

@@ -1,25 +1,6 @@
 import { AbilityBuilder, PureAbility, fieldPatternMatcher, type RawRuleOf, type ForcedSubject } from '@casl/ability';
-import {
-  createFactory,
-  $eq,
-  $ne,
-  $in,
-  $nin,
-  $lt,
-  $lte,
-  $gt,
-  $gte,
-  and,
-  eq,
-  ne,
-  within,
-  nin,
-  lt,
-  lte,
-  gt,
-  gte,
-} from '@ucast/mongo2js';
 import type { Role } from './roles';
+import { conditionsMatcher, type RestrictedConditions } from './restricted-conditions';
 import { defineWorkflowRules } from '../workflow/workflow-abilities';
 
 export const ACTIONS = [
@@ -55,21 +36,6 @@ export const SUBJECTS = [
 export type Action = (typeof ACTIONS)[number];
 export type SubjectName = (typeof SUBJECTS)[number];
 type Subjects = SubjectName | ForcedSubject<Exclude<SubjectName, 'all'>>;
-
-/**
- * Conditions are limited to operators that translate one-to-one into SQL, so every rule
- * the client sees can also filter a database query on the server (see accessible-where.ts).
- */
-export const RESTRICTED_OPERATORS = ['$eq', '$ne', '$in', '$nin', '$lt', '$lte', '$gt', '$gte'] as const;
-type Op = (typeof RESTRICTED_OPERATORS)[number];
-type Scalar = string | number | boolean | null;
-export type RestrictedConditions = Record<string, Scalar | Partial<Record<Op, Scalar | Scalar[]>>>;
-
-const conditionsMatcher = createFactory(
-  { $eq, $ne, $in, $nin, $lt, $lte, $gt, $gte },
-  // `and` joins the fields of one condition object; it is implicit, not an operator rules may write.
-  { and, eq, ne, in: within, nin, lt, lte, gt, gte },
-) as unknown as (conditions: RestrictedConditions) => (object: object) => boolean;
 
 export type AppAbility = PureAbility<[Action, Subjects], RestrictedConditions>;
 export type AppRawRule = RawRuleOf<AppAbility>;

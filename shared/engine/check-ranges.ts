@@ -1,5 +1,5 @@
 import type { CalcIssue } from './issue-messages';
-import { fieldOf } from './issue-messages';
+import { fieldOf } from './issue-fields';
 import { formatNumber as f } from './number-format';
 import { torqueFromPower } from './power';
 import type { CalcInput, MaterialInput } from './schema';

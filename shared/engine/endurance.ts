@@ -1,4 +1,5 @@
-import type { FatigueSettings, Mat } from './model';
+import type { FatigueSettings } from './fatigue-settings';
+import type { Mat } from './model';
 import type { Endurance } from './result';
 import { sizeFactor, surfaceFactor, unmodifiedEndurance } from './marin';
 

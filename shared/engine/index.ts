@@ -43,7 +43,8 @@ export type {
   DeflectionPoint,
   CriticalSpeed,
 } from './beam/beam-result';
-export { SUPPORT_KINDS, type SupportInput, type LoadInput, type MassInput, type SupportKind } from './beam/beam-schema';
+export { SUPPORT_KINDS, type SupportInput, type MassInput, type SupportKind } from './beam/beam-schema';
+export type { LoadInput } from './beam/load-schema';
 export { formatNumber } from './number-format';
 export { formatResultTable } from './result-table';
 export { calcInputJsonSchemaText } from './json-schema';

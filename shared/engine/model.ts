@@ -1,11 +1,11 @@
 import type { BeamSolution } from './beam/beam-solve';
 import type { CalcIssue } from './issue-messages';
-import { RELIABILITY_FACTORS, SE_PRIME_CAP_MPA, temperatureFactor, type Surface, type SurfaceTable } from './marin';
 import { entryTorque } from './check-loads';
+import { fatigueSettings, type FatigueSettings } from './fatigue-settings';
 import type { CalcInput, MaterialInput } from './schema';
 import { sectionProps } from './section';
 import { segmentBounds } from './shaft-geometry';
-import { BASE_PER_UNIT, toBase, type FactorTable, type UnitSystem } from './units';
+import { BASE_PER_UNIT, type FactorTable, type UnitSystem } from './units';
 
 /*
  * The validated input in the internal base units (mm, N·mm, MPa). Everything downstream works on
@@ -50,20 +50,6 @@ export interface MomentEntry {
   Mm: number;
 }
 
-export interface FatigueSettings {
-  surface: Surface;
-  table: SurfaceTable;
-  kc: number;
-  kd: number;
-  ke: number;
-  kf: number;
-  isKfOnMidrange: boolean;
-  taFraction: number;
-  SePrime: number | null;
-  /** Cap of Se′ = 0.5·Sut in MPa: Eq. 6-8 in the calc's own unit system. */
-  sePrimeCap: number;
-}
-
 export interface Model {
   system: UnitSystem;
   k: FactorTable;
@@ -91,25 +77,6 @@ function toMat(m: MaterialInput, path: string, k: FactorTable): Mat {
     Sy: m.Sy * k.stress,
     Su: m.Su * k.stress,
     nu: m.nu,
-  };
-}
-
-function toFatigue(input: CalcInput, k: FactorTable): FatigueSettings | null {
-  const f = input.fatigue;
-  if (!f) return null;
-  const kd =
-    f.kd ?? (f.temperature === undefined ? 1 : temperatureFactor(toBase(f.temperature, 'temperature', input.units)));
-  return {
-    surface: f.surface,
-    table: f.surfaceTable ?? '9th-10th',
-    kc: f.kc ?? 1,
-    kd,
-    kf: f.kf ?? 1,
-    ke: RELIABILITY_FACTORS[f.reliability ?? 50],
-    isKfOnMidrange: f.kfOnMidrange ?? true,
-    taFraction: f.alternatingTorqueFraction ?? 0,
-    SePrime: f.SePrime === undefined ? null : f.SePrime * k.stress,
-    sePrimeCap: SE_PRIME_CAP_MPA[input.units],
   };
 }
 
@@ -147,7 +114,7 @@ export function buildModel(input: CalcInput): Model {
     torques: torques.slice().sort((a, b) => a.at - b.at),
     moments: moments.sort((a, b) => a.at - b.at),
     hasTa: input.torques.some((t) => t.Ta !== undefined),
-    fatigue: toFatigue(input, k),
+    fatigue: fatigueSettings(input, k),
     warnings: [],
   };
 }

@@ -1,15 +1,7 @@
-import {
-  Engine,
-  Operator,
-  Rule,
-  type EngineResult,
-  type RuleProperties,
-  type TopLevelCondition,
-} from 'json-rules-engine';
+import type { Engine, Rule } from 'json-rules-engine';
 import { errorText, failed, notApplicable, type ClauseOutcome } from './clause-outcome';
-import type { TopCondition } from './condition-schema';
+import { clauseRule, newEngine, resultsByName } from './clause-rules';
 import type { Facts } from './facts';
-import { TOLERANT_OPERATORS } from './limit-tolerance';
 import { preparedFor } from './prepared-rule-set';
 import { RuleSetCache } from './rule-set-cache';
 import { SCOPES, type RuleSet, type Scope } from './rule-set-schema';
@@ -19,42 +11,6 @@ import { SCOPES, type RuleSet, type Scope } from './rule-set-schema';
  * check); one run per location evaluates them all. A run that rejects (a rule threw) is redone
  * clause by clause on single-rule engines, so only the clause at fault becomes "error".
  */
-const EVENT = { type: 'clause-evaluated' };
-
-function rule(name: string, conditions: TopCondition): Rule {
-  // A deep copy: the engine keeps and annotates the condition objects it is given.
-  const props: RuleProperties = {
-    name,
-    conditions: JSON.parse(JSON.stringify(conditions)) as TopLevelCondition,
-    event: EVENT,
-  };
-  return new Rule(props);
-}
-
-// json-rules-engine's own check on the fact of an ordering operator: parseFloat must give a number.
-const isNumberLike = (v: unknown): boolean => Number.parseFloat(v as string).toString() !== 'NaN';
-
-/**
- * Replaces the engine's four ordering operators by the ones that compare at a limit with the
- * project's tolerance (limit-tolerance.ts), so both evaluators decide a value at its limit alike.
- */
-export function useLimitOperators(engine: Engine): Engine {
-  for (const [name, cb] of Object.entries(TOLERANT_OPERATORS)) engine.addOperator(new Operator(name, cb, isNumberLike));
-  return engine;
-}
-
-function newEngine(params: Facts, rules: Rule[]): Engine {
-  const engine = useLimitOperators(new Engine(rules, { allowUndefinedFacts: false }));
-  for (const [name, value] of Object.entries(params)) engine.addFact(name, value);
-  return engine;
-}
-
-function resultsByName(r: EngineResult): Map<string, boolean> {
-  const out = new Map<string, boolean>();
-  for (const x of r.results) out.set(x.name, true);
-  for (const x of r.failureResults) out.set(x.name, false);
-  return out;
-}
 
 const MISSING = 'json-rules-engine returned no result for this rule';
 
@@ -80,7 +36,7 @@ export class RuleSetRunner {
   #rulesOf(i: number): Rule[] {
     const clause = this.ruleSet.clauses[i];
     try {
-      return [rule(`${i}:a`, clause.applicability), rule(`${i}:c`, clause.check)];
+      return [clauseRule(`${i}:a`, clause.applicability), clauseRule(`${i}:c`, clause.check)];
     } catch (err) {
       this.#broken.set(i, errorText(err));
       return [];
@@ -139,7 +95,7 @@ export class RuleSetRunner {
     let engine = this.#single.get(name);
     if (!engine) {
       const clause = this.ruleSet.clauses[Number(name.split(':')[0])];
-      engine = newEngine(this.#params, [rule(name, name.endsWith(':a') ? clause.applicability : clause.check)]);
+      engine = newEngine(this.#params, [clauseRule(name, name.endsWith(':a') ? clause.applicability : clause.check)]);
       this.#single.set(name, engine);
     }
     const result = resultsByName(await engine.run(facts)).get(name);

@@ -29,7 +29,7 @@ export type {
 } from './checklist-types';
 export { compileCondition, type Compiled } from './sync-evaluator';
 export { LIMIT_TOLERANCE, nearlyEqual, withinLimit, TOLERANT_OPERATORS } from './limit-tolerance';
-export { useLimitOperators } from './engine-runner';
+export { useLimitOperators } from './clause-rules';
 export { locationFacts, type Facts, type LocationFacts } from './facts';
 export { validateRuleSet, clauseParameters, type RuleSetValidation } from './validate-rule-set';
 export type { RuleSetIssue } from './rule-set-issues';

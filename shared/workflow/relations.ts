@@ -1,4 +1,4 @@
-import type { RestrictedConditions } from '../authz/app-ability';
+import type { RestrictedConditions } from '../authz/restricted-conditions';
 
 /** How the person acting must stand to a revision: its author, or someone independent of it. */
 export const RELATIONS = ['own', 'independent', 'independent-of-checker'] as const;

@@ -3,7 +3,8 @@ import type { Page } from 'playwright-core';
 import { findMaterial, toMaterialInput } from '../../shared/materials';
 import { SCREENSHOT_DIR, accessibilityViolations } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
-import { advanceTo, createCalc, expectStatus, person } from '../support/calc-harness';
+import { advanceTo, createCalc } from '../support/calc-harness';
+import { expectStatus, person } from '../support/api-harness';
 import { modelStandardId } from '../support/model-harness';
 import { pdfBytes, upload } from '../support/upload-harness';
 

@@ -2,7 +2,7 @@ import type { Page } from 'playwright-core';
 import path from 'node:path';
 import { startBrowserSession, accessibilityViolations, pageSettled, SCREENSHOT_DIR } from '../support/browser';
 import { TEST_PASSWORD, createTestUser } from '../support/api-harness';
-import { testStandard } from '../support/calc-harness';
+import { testStandard } from '../support/standard-harness';
 
 // The standards view's "How calcs are checked" at 1440, 768 and 390 px: screenshots to look at
 // (artifacts/screenshots/standard-checking-*), no sideways page scroll, axe-core with no serious or critical violation.

@@ -1,16 +1,9 @@
 import type { Response } from 'supertest';
 import { Op } from 'sequelize';
 import { AuditEvent, Project, Revision } from '../../server/db/models';
-import { startTestApp } from '../support/api-harness';
-import {
-  advanceTo,
-  expectStatus,
-  fixtureInput,
-  lastAuditId,
-  revisionOf,
-  sign,
-  type Session,
-} from '../support/calc-harness';
+import { startTestApp, expectStatus, type Session } from '../support/api-harness';
+import { advanceTo, fixtureInput, revisionOf, sign } from '../support/calc-harness';
+import { lastAuditId } from '../support/audit-harness';
 import { findingsTeam, returnedWithFindingOf } from '../support/findings-harness';
 import { pdfBytes, upload } from '../support/upload-harness';
 

@@ -1,15 +1,6 @@
-import { startTestApp } from '../support/api-harness';
-import {
-  advanceTo,
-  auditOf,
-  createCalc,
-  expectStatus,
-  person,
-  revisionOf,
-  sign,
-  tickAll,
-  type Team,
-} from '../support/calc-harness';
+import { startTestApp, expectStatus, person } from '../support/api-harness';
+import { advanceTo, createCalc, revisionOf, sign, tickAll, type Team } from '../support/calc-harness';
+import { auditOf } from '../support/audit-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

@@ -1,6 +1,8 @@
 import mariadb, { type Connection } from 'mariadb';
 import { tamperTestApp } from '../support/tamper-db';
-import { auditOf, createCalc, expectStatus, person } from '../support/calc-harness';
+import { auditOf } from '../support/audit-harness';
+import { createCalc } from '../support/calc-harness';
+import { expectStatus, person } from '../support/api-harness';
 
 // Breaking the audit chain on purpose and showing that verify finds the break, in a database of its own.
 const { app, sequelize, config } = tamperTestApp();

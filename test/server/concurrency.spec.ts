@@ -1,14 +1,6 @@
-import { startTestApp } from '../support/api-harness';
-import {
-  advanceTo,
-  auditOf,
-  createCalc,
-  person,
-  revisionOf,
-  sign,
-  tickAll,
-  type Session,
-} from '../support/calc-harness';
+import { startTestApp, person, type Session } from '../support/api-harness';
+import { advanceTo, createCalc, revisionOf, sign, tickAll } from '../support/calc-harness';
+import { auditOf } from '../support/audit-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

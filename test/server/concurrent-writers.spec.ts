@@ -1,16 +1,7 @@
 import { randomUUID } from 'node:crypto';
-import { createTestProject, startTestApp } from '../support/api-harness';
-import {
-  auditOf,
-  createCalc,
-  fixtureInput,
-  person,
-  revisionOf,
-  sign,
-  tickAll,
-  workflowStandardId,
-  type Session,
-} from '../support/calc-harness';
+import { createTestProject, startTestApp, person, type Session } from '../support/api-harness';
+import { auditOf } from '../support/audit-harness';
+import { createCalc, fixtureInput, revisionOf, sign, tickAll, workflowStandardId } from '../support/calc-harness';
 import { pdfBytes, upload } from '../support/upload-harness';
 import { verifyAuditChain } from '../../server/audit/audit.service';
 import { Attachment, Calc, Signature } from '../../server/db/models';

@@ -5,9 +5,16 @@ import request from 'supertest';
 import { Op, QueryTypes } from 'sequelize';
 import { AuditEvent, Revision, Signature } from '../../server/db/models';
 import { verifyAuditChain } from '../../server/audit/audit.service';
-import { createTestUser, sessionCookieOf, startTestApp, TEST_PASSWORD } from '../support/api-harness';
+import {
+  createTestUser,
+  sessionCookieOf,
+  startTestApp,
+  TEST_PASSWORD,
+  expectStatus,
+  person,
+} from '../support/api-harness';
 import { serverProcessArgs } from '../support/bundle';
-import { createCalc, expectStatus, person, revisionOf, tickAll, type Meaning } from '../support/calc-harness';
+import { createCalc, revisionOf, tickAll, type Meaning } from '../support/calc-harness';
 
 /**
  * Real server processes (server/main.ts) are killed with SIGKILL at random points while calcs are

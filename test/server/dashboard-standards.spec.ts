@@ -1,5 +1,5 @@
-import { startTestApp } from '../support/api-harness';
-import { person, testStandard } from '../support/calc-harness';
+import { startTestApp, person } from '../support/api-harness';
+import { testStandard } from '../support/standard-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

@@ -1,9 +1,9 @@
 import { QueryTypes, type Transaction } from 'sequelize';
-import { createTestProject, startTestApp } from '../support/api-harness';
+import { createTestProject, startTestApp, person } from '../support/api-harness';
 import { Project, RuleSetRecord } from '../../server/db/models';
 import { retryStats, runTransaction } from '../../server/db/transaction';
 import { loadRevision } from '../../server/calcs/calc-access';
-import { createCalc, person } from '../support/calc-harness';
+import { createCalc } from '../support/calc-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

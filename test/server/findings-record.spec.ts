@@ -1,5 +1,6 @@
-import { startTestApp } from '../support/api-harness';
-import { advanceTo, auditOf, expectStatus, revisionOf, sign, tickAll } from '../support/calc-harness';
+import { startTestApp, expectStatus } from '../support/api-harness';
+import { advanceTo, revisionOf, sign, tickAll } from '../support/calc-harness';
+import { auditOf } from '../support/audit-harness';
 import { returnedWithFindingOf } from '../support/findings-harness';
 
 // Findings once a calc moves on: approval waits for every finding to be closed, and findings with

@@ -1,5 +1,6 @@
 import { startTestApp } from '../support/api-harness';
-import { advanceTo, auditOf, lastAuditId, revisionOf, sign, tickAll } from '../support/calc-harness';
+import { advanceTo, revisionOf, sign, tickAll } from '../support/calc-harness';
+import { auditOf, lastAuditId } from '../support/audit-harness';
 import { findingsTeam, returnedWithFindingOf } from '../support/findings-harness';
 
 const { app, sequelize } = startTestApp();

@@ -1,17 +1,9 @@
 import { Op } from 'sequelize';
 import { Calc, MailOutbox } from '../../server/db/models';
-import { startTestApp, TEST_PASSWORD } from '../support/api-harness';
-import {
-  advanceTo,
-  auditOf,
-  createCalc,
-  expectStatus,
-  person,
-  testStandard,
-  withParameter,
-  workflowStandardId,
-  type Team,
-} from '../support/calc-harness';
+import { startTestApp, TEST_PASSWORD, expectStatus, person } from '../support/api-harness';
+import { advanceTo, createCalc, workflowStandardId, type Team } from '../support/calc-harness';
+import { auditOf } from '../support/audit-harness';
+import { testStandard, withParameter } from '../support/standard-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

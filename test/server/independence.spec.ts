@@ -1,16 +1,6 @@
-import { startTestApp } from '../support/api-harness';
-import {
-  advanceTo,
-  auditOf,
-  createCalc,
-  expectStatus,
-  lastAuditId,
-  person,
-  revisionOf,
-  sign,
-  tickAll,
-  type Person,
-} from '../support/calc-harness';
+import { startTestApp, expectStatus, person, type Person } from '../support/api-harness';
+import { advanceTo, createCalc, revisionOf, sign, tickAll } from '../support/calc-harness';
+import { auditOf, lastAuditId } from '../support/audit-harness';
 import type { Role } from '../../shared/authz/roles';
 
 const { app, sequelize } = startTestApp();

@@ -1,5 +1,5 @@
-import { fixtureInput, person, type Session } from '../support/calc-harness';
-import { startTestApp } from '../support/api-harness';
+import { fixtureInput } from '../support/calc-harness';
+import { person, type Session, startTestApp } from '../support/api-harness';
 import { lockModel, modelTeam, modelUrl, revisionOf, saveModel } from '../support/model-harness';
 
 const { app, sequelize } = startTestApp();

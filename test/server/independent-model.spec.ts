@@ -1,5 +1,6 @@
-import { fixtureInput, person, sign, tickAll, expectStatus, auditOf } from '../support/calc-harness';
-import { startTestApp } from '../support/api-harness';
+import { fixtureInput, sign, tickAll } from '../support/calc-harness';
+import { person, expectStatus, startTestApp } from '../support/api-harness';
+import { auditOf } from '../support/audit-harness';
 import { independentModelBlocker } from '../../server/independent/signing-blocker';
 import { differentInput, lockModel, modelTeam, modelUrl, revisionOf, saveModel } from '../support/model-harness';
 

@@ -1,6 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import { signedInAs, startTestApp } from '../support/api-harness';
-import { capturedSelects, fullScans, seedPlanRows } from '../support/plan-harness';
+import { capturedSelects, fullScans } from '../support/explain-harness';
+import { seedPlanRows } from '../support/plan-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

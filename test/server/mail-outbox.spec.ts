@@ -1,16 +1,7 @@
 import { randomUUID } from 'node:crypto';
-import { startTestApp, TEST_PASSWORD } from '../support/api-harness';
-import {
-  advanceTo,
-  createCalc,
-  expectStatus,
-  mailAbout,
-  person,
-  revisionOf,
-  sign,
-  tickAll,
-  type Team,
-} from '../support/calc-harness';
+import { startTestApp, TEST_PASSWORD, expectStatus, person } from '../support/api-harness';
+import { advanceTo, createCalc, revisionOf, sign, tickAll, type Team } from '../support/calc-harness';
+import { mailAbout } from '../support/mail-harness';
 import type { Role } from '../../shared/authz/roles';
 
 const { app, sequelize } = startTestApp();

@@ -1,16 +1,6 @@
-import { TEST_PASSWORD, startTestApp } from '../support/api-harness';
-import {
-  advanceTo,
-  calcTeam,
-  createCalc,
-  expectStatus,
-  person,
-  revisionOf,
-  sign,
-  testStandard,
-  tickAll,
-  withParameter,
-} from '../support/calc-harness';
+import { TEST_PASSWORD, startTestApp, expectStatus, person } from '../support/api-harness';
+import { advanceTo, calcTeam, createCalc, revisionOf, sign, tickAll } from '../support/calc-harness';
+import { testStandard, withParameter } from '../support/standard-harness';
 import { startTestSmtp } from '../support/fake-servers';
 import { emailsOf, outboxFor, senderFor } from '../support/mail-harness';
 

@@ -1,15 +1,6 @@
-import { startTestApp } from '../support/api-harness';
-import {
-  advanceTo,
-  auditOf,
-  createCalc,
-  lastAuditId,
-  person,
-  revisionOf,
-  sign,
-  tickAll,
-  type Team,
-} from '../support/calc-harness';
+import { startTestApp, person } from '../support/api-harness';
+import { advanceTo, createCalc, revisionOf, sign, tickAll, type Team } from '../support/calc-harness';
+import { auditOf, lastAuditId } from '../support/audit-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

@@ -1,15 +1,5 @@
-import { startTestApp } from '../support/api-harness';
-import {
-  advanceTo,
-  createCalc,
-  expectStatus,
-  person,
-  revisionOf,
-  sign,
-  tickAll,
-  type Session,
-  type Team,
-} from '../support/calc-harness';
+import { startTestApp, expectStatus, person, type Session } from '../support/api-harness';
+import { advanceTo, createCalc, revisionOf, sign, tickAll, type Team } from '../support/calc-harness';
 import type { Role } from '../../shared/authz/roles';
 
 const { app, sequelize } = startTestApp();

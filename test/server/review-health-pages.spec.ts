@@ -6,9 +6,8 @@ import {
   type SignalKey,
   type SignalPage,
 } from '../../shared/schemas/review-health.schema';
-import { startTestApp } from '../support/api-harness';
+import { startTestApp, person, type Session } from '../support/api-harness';
 import { daysAgo, healthScenario, today } from '../support/health-harness';
-import { person, type Session } from '../support/calc-harness';
 
 let app: Express;
 let sequelize: Sequelize;

@@ -1,7 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { SignalRow } from '../../shared/schemas/review-health.schema';
-import { startTestApp } from '../support/api-harness';
-import { advanceTo, calcTeam, expectStatus, person, sign, tickAll, type Session } from '../support/calc-harness';
+import { startTestApp, expectStatus, person, type Session } from '../support/api-harness';
+import { advanceTo, calcTeam, sign, tickAll } from '../support/calc-harness';
 import { daysAgo, today } from '../support/health-harness';
 import { appendAudit } from '../../server/audit/audit.service';
 

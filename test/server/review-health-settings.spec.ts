@@ -1,7 +1,6 @@
 import type { Sequelize } from 'sequelize';
 import type { Express } from 'express';
-import { startTestApp } from '../support/api-harness';
-import { person } from '../support/calc-harness';
+import { startTestApp, person } from '../support/api-harness';
 import { AuditEvent } from '../../server/db/models';
 
 let app: Express;

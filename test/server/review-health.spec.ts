@@ -3,9 +3,8 @@ import type { Sequelize } from 'sequelize';
 import type { Express } from 'express';
 import type { HealthReport, SignalKey, SignalRow } from '../../shared/schemas/review-health.schema';
 import type { Role } from '../../shared/authz/roles';
-import { signedInAs, startTestApp } from '../support/api-harness';
+import { signedInAs, startTestApp, person, type Session } from '../support/api-harness';
 import { daysAgo, healthScenario, today } from '../support/health-harness';
-import { person, type Session } from '../support/calc-harness';
 import { AuditEvent } from '../../server/db/models';
 
 let app: Express;

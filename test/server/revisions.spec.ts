@@ -1,15 +1,6 @@
-import { startTestApp } from '../support/api-harness';
-import {
-  advanceTo,
-  auditOf,
-  createCalc,
-  expectStatus,
-  fixtureInput,
-  lastAuditId,
-  person,
-  revisionOf,
-  type Team,
-} from '../support/calc-harness';
+import { startTestApp, expectStatus, person } from '../support/api-harness';
+import { advanceTo, createCalc, fixtureInput, revisionOf, type Team } from '../support/calc-harness';
+import { auditOf, lastAuditId } from '../support/audit-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

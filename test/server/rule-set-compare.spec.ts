@@ -1,18 +1,8 @@
 // Comparing versions of a design standard and trying a draft on a calc without storing anything.
-import { startTestApp } from '../support/api-harness';
-import {
-  advanceTo,
-  auditOf,
-  createCalc,
-  draftStandard,
-  expectStatus,
-  person,
-  revisionOf,
-  saveStandard,
-  testStandard,
-  withParameter,
-  type Team,
-} from '../support/calc-harness';
+import { startTestApp, expectStatus, person } from '../support/api-harness';
+import { advanceTo, createCalc, revisionOf, type Team } from '../support/calc-harness';
+import { auditOf } from '../support/audit-harness';
+import { draftStandard, saveStandard, testStandard, withParameter } from '../support/standard-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

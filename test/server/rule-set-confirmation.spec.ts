@@ -1,6 +1,7 @@
 // The two-person rule for a new version of a design standard, and what becomes frozen.
-import { startTestApp, TEST_PASSWORD } from '../support/api-harness';
-import { auditOf, draftStandard, expectStatus, person, proposeStandard, saveStandard } from '../support/calc-harness';
+import { startTestApp, TEST_PASSWORD, expectStatus, person } from '../support/api-harness';
+import { auditOf } from '../support/audit-harness';
+import { draftStandard, proposeStandard, saveStandard } from '../support/standard-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

@@ -1,7 +1,7 @@
-import { startTestApp, TEST_PASSWORD } from '../support/api-harness';
+import { startTestApp, TEST_PASSWORD, person } from '../support/api-harness';
 import { RuleSetRecord } from '../../server/db/models';
 import { RuleSetsService } from '../../server/rule-sets/rule-sets.service';
-import { person, testStandard } from '../support/calc-harness';
+import { testStandard } from '../support/standard-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

@@ -1,14 +1,7 @@
 // Reading design standards and drafting a new version of one: who may, and what is checked.
-import { startTestApp } from '../support/api-harness';
-import {
-  auditOf,
-  draftStandard,
-  expectStatus,
-  person,
-  saveStandard,
-  testStandard,
-  withParameter,
-} from '../support/calc-harness';
+import { startTestApp, expectStatus, person } from '../support/api-harness';
+import { auditOf } from '../support/audit-harness';
+import { draftStandard, saveStandard, testStandard, withParameter } from '../support/standard-harness';
 import type { Role } from '../../shared/authz/roles';
 
 const { app, sequelize } = startTestApp();

@@ -1,7 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { authenticator } from 'otplib';
 import { TEST_PASSWORD, signedInAs, startTestApp } from '../support/api-harness';
-import { auditOf, calcTeam, lastAuditId } from '../support/calc-harness';
+import { auditOf, lastAuditId } from '../support/audit-harness';
+import { calcTeam } from '../support/calc-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

@@ -1,8 +1,8 @@
 import { Op } from 'sequelize';
 import { AuditEvent, MailOutbox, RoleGrant } from '../../server/db/models';
 import { ROLES, type Role } from '../../shared/authz/roles';
-import { createTestUser, signedInAs, startTestApp, TEST_PASSWORD } from '../support/api-harness';
-import { advanceTo, createCalc, expectStatus, person, sign } from '../support/calc-harness';
+import { createTestUser, signedInAs, startTestApp, TEST_PASSWORD, expectStatus, person } from '../support/api-harness';
+import { advanceTo, createCalc, sign } from '../support/calc-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

@@ -1,18 +1,9 @@
 import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
-import { startTestApp, TEST_PASSWORD } from '../support/api-harness';
-import {
-  advanceTo,
-  auditOf,
-  createCalc,
-  lastAuditId,
-  mailAbout,
-  person,
-  revisionOf,
-  sign,
-  tickAll,
-  type Team,
-} from '../support/calc-harness';
+import { startTestApp, TEST_PASSWORD, person } from '../support/api-harness';
+import { advanceTo, createCalc, revisionOf, sign, tickAll, type Team } from '../support/calc-harness';
+import { auditOf, lastAuditId } from '../support/audit-harness';
+import { mailAbout } from '../support/mail-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());

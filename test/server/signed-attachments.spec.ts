@@ -1,5 +1,6 @@
 import { signedInAs } from '../support/api-harness';
-import { auditOf, calcTeam, revisionOf, sign, tickAll } from '../support/calc-harness';
+import { auditOf } from '../support/audit-harness';
+import { calcTeam, revisionOf, sign, tickAll } from '../support/calc-harness';
 import { appWithTestS3 } from '../support/s3-app';
 import { pdfBytes, upload } from '../support/upload-harness';
 import { getBinary, postPack, rezip, unzip } from '../support/pack-harness';

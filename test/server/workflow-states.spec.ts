@@ -1,15 +1,6 @@
 import { randomUUID } from 'node:crypto';
-import { startTestApp, TEST_PASSWORD } from '../support/api-harness';
-import {
-  advanceTo,
-  createCalc,
-  person,
-  revisionOf,
-  sign,
-  tickAll,
-  type Session,
-  type Team,
-} from '../support/calc-harness';
+import { startTestApp, TEST_PASSWORD, person, type Session } from '../support/api-harness';
+import { advanceTo, createCalc, revisionOf, sign, tickAll, type Team } from '../support/calc-harness';
 
 // What a sign-off step records when it is allowed, and how a step in the wrong state or a
 // signature on someone else's behalf is refused. The role-by-role matrix is workflow-transitions.spec.ts.

@@ -1,17 +1,7 @@
 import { randomUUID } from 'node:crypto';
-import { startTestApp, TEST_PASSWORD } from '../support/api-harness';
-import {
-  advanceTo,
-  auditOf,
-  createCalc,
-  lastAuditId,
-  person,
-  revisionOf,
-  tickAll,
-  type Meaning,
-  type Session,
-  type Team,
-} from '../support/calc-harness';
+import { startTestApp, TEST_PASSWORD, person, type Session } from '../support/api-harness';
+import { advanceTo, createCalc, revisionOf, tickAll, type Meaning, type Team } from '../support/calc-harness';
+import { auditOf, lastAuditId } from '../support/audit-harness';
 import type { Role } from '../../shared/authz/roles';
 
 const { app, sequelize } = startTestApp();

@@ -108,3 +108,23 @@ export function sessionCookieOf(res: { headers: Record<string, unknown> }): stri
   if (!cookie) throw new Error('response set no session cookie');
   return cookie.split(';')[0];
 }
+
+export type Session = Awaited<ReturnType<typeof signedInAs>>['session'];
+export type Person = Awaited<ReturnType<typeof signedInAs>>;
+
+/**
+ * A signed-in test person whose display name is unique, so a printed name on a signature can
+ * only have come from them. `label` is short and lower-case (it is part of the username).
+ */
+export async function person(app: Express, roles: Role[], label = roles.join('-')) {
+  const tag = `${label}-${randomUUID().slice(0, 4)}`;
+  const p = await signedInAs(app, roles, tag);
+  return { ...p, displayName: `Test ${tag}`, email: `${p.user.username}@example.test` };
+}
+
+/** Fails loudly with the response body when a set-up step does not answer as expected. */
+export function expectStatus<T extends { status: number; body: unknown }>(res: T, status: number, step: string): T {
+  if (res.status !== status)
+    throw new Error(`${step}: expected ${status}, got ${res.status} ${JSON.stringify(res.body)}`);
+  return res;
+}

@@ -1,5 +1,6 @@
 import type { Express } from 'express';
-import { advanceTo, createCalc, expectStatus, person, revisionOf, type Team } from './calc-harness';
+import { advanceTo, createCalc, revisionOf, type Team } from './calc-harness';
+import { expectStatus, person } from './api-harness';
 
 /** An author with a fresh calc, an independent checker and an approver. */
 export async function findingsTeam(app: Express) {

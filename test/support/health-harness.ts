@@ -1,21 +1,11 @@
 import { randomUUID } from 'node:crypto';
 import type { Express } from 'express';
-import { Attachment, Project, Revision, RuleSetRecord } from '../../server/db/models';
-import { documentHash } from '../../server/rule-sets/rule-set-mapping';
+import { Attachment, Project, Revision } from '../../server/db/models';
 import { loadRevision } from '../../server/calcs/calc-access';
 import { refreshAfterAttachmentChange } from '../../server/workflow/signed-content';
-import { TEST_PASSWORD, uniqueCode } from './api-harness';
-import {
-  expectStatus,
-  fixtureInput,
-  person,
-  revisionOf,
-  sign,
-  testStandard,
-  tickAll,
-  withParameter,
-  type Session,
-} from './calc-harness';
+import { TEST_PASSWORD, uniqueCode, expectStatus, person, type Session } from './api-harness';
+import { fixtureInput, revisionOf, sign, tickAll } from './calc-harness';
+import { replaceStandard, standardWithoutAttachments } from './standard-harness';
 
 const DAY = 86_400_000;
 export const today = () => new Date().toISOString().slice(0, 10);
@@ -44,34 +34,13 @@ export async function addLateFile(revisionId: number, uploadedBy: number) {
   );
 }
 
-/** Replaces the standard's v1 by a v2 (effective `on`, today) under which the fixture shaft no longer complies. */
-export async function replaceStandard(standard: { id: number; code: string }, on = today()) {
-  const v1 = (await RuleSetRecord.findByPk(standard.id))!;
-  const doc = { ...withParameter(JSON.parse(v1.document), 'asmeSyFraction', 0.03), version: 2, effectiveDate: on };
-  await RuleSetRecord.create({
-    code: standard.code,
-    version: 2,
-    title: v1.title,
-    status: 'effective',
-    effectiveDate: on,
-    document: JSON.stringify(doc),
-    contentHash: documentHash(doc),
-    createdBy: null,
-  });
-  await v1.update({ status: 'retired' });
-}
-
 /**
  * One project with three calcs under a test standard: A1 and A2 by author A, both checked by
  * checker 1 without findings; B1 by author B, checked by checker 2 after a finding. The approver
  * is refused three times on B1 for a wrong password, checker 2 once.
  */
 export async function healthScenario(app: Express) {
-  const standard = await testStandard((doc) => {
-    doc.manualItems = (doc.manualItems as { requiresAttachment?: string }[]).map(
-      ({ requiresAttachment: _d, ...item }) => item,
-    );
-  });
+  const standard = await standardWithoutAttachments();
   const project = await Project.create({ code: uniqueCode('RH'), name: 'Review health test', createdBy: null });
   const [authorA, authorB, checker1, checker2, approver] = await Promise.all(
     [

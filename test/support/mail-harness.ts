@@ -47,3 +47,18 @@ export async function emailsOf(...userIds: number[]): Promise<string[]> {
 export function outboxFor(addresses: string[]) {
   return MailOutbox.findAll({ where: { recipient: { [Op.in]: addresses } }, order: [['id', 'ASC']] });
 }
+
+/** Hand-over mails about one project (its code is unique and is in every subject). */
+export async function mailAbout(projectCode: string, event?: string) {
+  const rows = await MailOutbox.findAll({
+    where: { subject: { [Op.like]: `%${projectCode}%` }, ...(event ? { event } : {}) },
+    order: [['id', 'ASC']],
+  });
+  return rows.map((r) => ({
+    event: r.event,
+    recipient: r.recipient,
+    subject: r.subject,
+    body: r.body,
+    status: r.status,
+  }));
+}

@@ -1,15 +1,7 @@
 import type { Express } from 'express';
-import {
-  advanceTo,
-  createCalc,
-  expectStatus,
-  fixtureInput,
-  person,
-  revisionOf,
-  testStandard,
-  type Session,
-  type Team,
-} from './calc-harness';
+import { advanceTo, createCalc, fixtureInput, revisionOf, type Team } from './calc-harness';
+import { expectStatus, person, type Session } from './api-harness';
+import { testStandard } from './standard-harness';
 
 let standard: Promise<number> | undefined;
 

@@ -1,4 +1,4 @@
-import type { Session } from './calc-harness';
+import type { Session } from './api-harness';
 
 /** A tiny but genuine PDF header: enough for content detection, which reads the first bytes. */
 export function pdfBytes(size = 200, text = 'test document'): Buffer {

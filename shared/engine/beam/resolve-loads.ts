@@ -2,7 +2,7 @@ import { entryTorque } from '../check-loads';
 import type { CalcInput } from '../schema';
 import { STATION_TOLERANCE } from '../shaft-geometry';
 import { BASE_PER_UNIT } from '../units';
-import type { LoadInput } from './beam-schema';
+import type { LoadInput } from './load-schema';
 import { BEAM_BASE } from './beam-units';
 
 const RAD = Math.PI / 180;

@@ -1,4 +1,4 @@
-import type { RuleSet } from '../../../../shared/rules';
+import { validateRuleSet, type RuleSet } from '../../../../shared/rules';
 import type { ApiError } from '../../../../shared/schemas/api-error.schema';
 
 export interface RuleSetProblem {
@@ -60,4 +60,20 @@ export function ruleSetProblems(f: ApiError, doc: RuleSet | null): RuleSetProble
     const why = reasons.map((r) => (/at least 1 characters?/.test(r) ? 'is empty' : r)).join('; ');
     return { text: `${place.label}: ${why}`, tab: place.tab };
   });
+}
+
+/** The JSON tab's text checked as a standard: the document, or the reader's list of what is wrong with it. */
+export function checkRuleSetText(text: string, doc: RuleSet | null): { value: RuleSet | null; issues: string[] } {
+  let parsed: unknown;
+  try {
+    parsed = JSON.parse(text);
+  } catch (e) {
+    return { value: null, issues: [`The text is not valid JSON: ${(e as Error).message}`] };
+  }
+  const result = validateRuleSet(parsed);
+  if (result.ok) return { value: result.value, issues: [] };
+  return {
+    value: null,
+    issues: result.issues.map((i) => `${ruleSetPlace(i.path, doc).label} — ${i.path}: ${i.message}`),
+  };
 }

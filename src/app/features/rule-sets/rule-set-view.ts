@@ -22,11 +22,11 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { AbilityServiceSignal } from '@casl/angular';
 import { subject } from '@casl/ability';
-import { validateRuleSet, verificationLines, type RuleSet } from '../../../../shared/rules';
+import { verificationLines, type RuleSet } from '../../../../shared/rules';
 import type { AppAbility } from '../../../../shared/authz/app-ability';
 import { assertApiFailure } from '../../core/http/api-failure';
 import { LoadFailure } from '../../ui/load-failure';
-import { ruleSetPlace, ruleSetProblems, type RuleSetProblem } from './rule-set-messages';
+import { checkRuleSetText, ruleSetProblems, type RuleSetProblem } from './rule-set-messages';
 import { RuleSetsApi } from './rule-sets-api';
 import { applyRuleSetForm, buildRuleSetForm, type RuleSetForm } from './rule-set-form';
 import { PublishPanel } from './publish-panel';
@@ -104,20 +104,9 @@ export default class RuleSetView {
   }
 
   protected checkJson(): RuleSet | null {
-    let parsed: unknown;
-    try {
-      parsed = JSON.parse(this.jsonText());
-    } catch (e) {
-      this.jsonIssues.set([`The text is not valid JSON: ${(e as Error).message}`]);
-      return null;
-    }
-    const result = validateRuleSet(parsed);
-    this.jsonIssues.set(
-      result.ok
-        ? []
-        : result.issues.map((i) => `${ruleSetPlace(i.path, this.doc() ?? null).label} — ${i.path}: ${i.message}`),
-    );
-    return result.ok ? result.value : null;
+    const checked = checkRuleSetText(this.jsonText(), this.doc() ?? null);
+    this.jsonIssues.set(checked.issues);
+    return checked.value;
   }
 
   protected saveForm(): Promise<void> {

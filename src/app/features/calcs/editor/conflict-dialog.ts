@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { firstValueFrom } from 'rxjs';
 import { DatePipe } from '@angular/common';
-import { MAT_DIALOG_DATA, MatDialogModule } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogModule } from '@angular/material/dialog';
 import { MatButtonModule } from '@angular/material/button';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import { compareInputs } from './json-compare';
@@ -31,4 +32,14 @@ export class ConflictDialog {
   protected readonly rows = computed(() =>
     compareInputs(this.data.mine, this.data.theirs.input).map((d) => ({ ...d, place: placeOf(d.path) })),
   );
+}
+
+/** Opens the dialog wide enough for both versions side by side; settles with the author's choice. */
+export function askConflict(dialog: MatDialog, data: ConflictData): Promise<ConflictChoice> {
+  const ref = dialog.open<ConflictDialog, ConflictData, ConflictChoice>(ConflictDialog, {
+    data,
+    width: '920px',
+    maxWidth: '96vw',
+  });
+  return firstValueFrom(ref.afterClosed());
 }

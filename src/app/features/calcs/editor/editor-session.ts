@@ -5,11 +5,12 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import type { RevisionDto } from '../../../../../shared/schemas/calc-dto';
 import type { EditorForm, EditorValue } from './editor-form';
 import { EditorStore, type SaveOutcome } from './editor-store';
-import { DraftStorage, type LocalDraft } from './draft-storage';
+import { DraftStorage } from './draft-storage';
 import { canonical } from './editor-support';
 import { inputToValue } from './form-values';
 import { valueToInput } from './form-to-input';
-import { ConflictDialog, type ConflictChoice, type ConflictData } from './conflict-dialog';
+import { LocalCopy } from './local-copy';
+import { askConflict } from './conflict-dialog';
 import { LeaveDialog, type LeaveChoice } from './leave-dialog';
 
 export interface SessionHooks {
@@ -27,19 +28,18 @@ export interface SessionHooks {
 @Injectable()
 export class EditorSession {
   private readonly store = inject(EditorStore);
-  private readonly drafts = inject(DraftStorage);
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
   private readonly hooks = signal<SessionHooks | null>(null);
-  private revisionId = 0;
+  private readonly local = new LocalCopy(inject(DraftStorage));
 
   readonly isLoaded = signal(false);
   /** Canonical input as stored on the server; anything else is an unsaved change. */
   readonly baseline = signal('');
-  readonly restoreOffer = signal<LocalDraft | null>(null);
+  readonly restoreOffer = this.local.offer;
   readonly pendingConflict = signal<{ mine: Record<string, unknown>; current: RevisionDto } | null>(null);
   readonly saveError = signal<string | null>(null);
-  readonly localNote = signal<string | null>(null);
+  readonly localNote = this.local.note;
 
   constructor() {
     // Autosave to this browser on every (debounced) change once the stored revision is on screen.
@@ -63,15 +63,13 @@ export class EditorSession {
   }
 
   async open(id: number): Promise<void> {
-    this.revisionId = id;
+    this.local.follow(id);
     this.isLoaded.set(false);
     await this.store.load(id);
     const revision = this.store.revision();
     if (!revision) return;
     this.showStored(revision);
-    const draft = this.drafts.read(id);
-    const draftText = draft ? canonical(valueToInput(inputToValue(draft.input))) : null;
-    this.restoreOffer.set(draft && draftText !== this.baseline() ? draft : null);
+    this.local.offerIfDifferent(this.baseline());
     this.isLoaded.set(true);
   }
 
@@ -79,30 +77,19 @@ export class EditorSession {
   keepLocalCopy(input: Record<string, unknown> = this.current()): void {
     // While a copy is offered for restore it must not be overwritten by what the form shows.
     if (!this.isLoaded() || !this.hooks()?.canEdit() || this.restoreOffer()) return;
-    if (canonical(input) === this.baseline()) {
-      this.drafts.clear(this.revisionId);
-      return;
-    }
-    const ok = this.drafts.write(this.revisionId, {
-      lockVersion: this.store.baseLockVersion(),
-      savedAt: new Date().toISOString(),
-      input,
-    });
-    this.localNote.set(ok ? null : 'This browser refused to keep a local copy (storage full or blocked): save soon.');
+    this.local.keep(input, this.baseline(), this.store.baseLockVersion());
   }
 
   restore(): void {
-    const d = this.restoreOffer();
+    const d = this.local.take();
     if (!d) return;
-    this.restoreOffer.set(null);
     // The copy keeps the version it started from, so saving it over newer work gives a 409, not an overwrite.
     this.store.baseLockVersion.set(d.lockVersion);
     this.hooks()!.replace(inputToValue(d.input));
   }
 
   discardLocal(): void {
-    this.drafts.clear(this.revisionId);
-    this.restoreOffer.set(null);
+    this.local.discard();
   }
 
   hasUnsavedChanges(): boolean {
@@ -121,7 +108,7 @@ export class EditorSession {
     if (outcome.kind !== 'saved') return;
     this.pendingConflict.set(null);
     this.baseline.set(canonical(mine));
-    this.drafts.clear(this.revisionId);
+    this.local.clear();
     // Edits typed while the save was in flight are kept as a new local copy.
     this.keepLocalCopy();
     this.snackBar.open(`Saved revision ${outcome.revision.label} (version ${outcome.revision.lockVersion}).`, 'OK', {
@@ -131,19 +118,13 @@ export class EditorSession {
 
   private async resolve(mine: Record<string, unknown>, current: RevisionDto): Promise<void> {
     this.pendingConflict.set({ mine, current });
-    const data: ConflictData = { mine, myBase: this.store.baseLockVersion(), theirs: current };
-    const ref = this.dialog.open<ConflictDialog, ConflictData, ConflictChoice>(ConflictDialog, {
-      data,
-      width: '920px',
-      maxWidth: '96vw',
-    });
-    const choice = await firstValueFrom(ref.afterClosed());
+    const choice = await askConflict(this.dialog, { mine, myBase: this.store.baseLockVersion(), theirs: current });
     if (choice === 'keep-mine') await this.settle(await this.store.save(mine, current.lockVersion), mine);
     if (choice === 'take-theirs') {
       this.pendingConflict.set(null);
       this.store.adopt(current);
       this.showStored(current);
-      this.drafts.clear(this.revisionId);
+      this.local.clear();
     }
   }
 

@@ -15,7 +15,6 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ErrorStateMatcher } from '@angular/material/core';
 import type { UnitSystem } from '../../../../../shared/engine';
-import { ruleSetSchema } from '../../../../../shared/rules';
 import { SessionStore } from '../../../core/auth/session-store';
 import { LoadFailure } from '../../../ui/load-failure';
 import { StateBadge } from '../../../ui/state-badge';
@@ -30,6 +29,7 @@ import { debouncedValue } from '../editor/form-stream';
 import { inputToValue } from '../editor/form-values';
 import { valueToInput } from '../editor/form-to-input';
 import { ModelDraft } from './model-draft';
+import { modelStandard } from './model-standard';
 import { SourceDocuments } from './source-documents';
 
 const EMPTY = inputToValue({});
@@ -69,15 +69,9 @@ export default class ModelEditor {
   private readonly calc = this.calcs.calc(computed(() => this.revision()?.calcId));
   protected readonly calcInfo = computed(() => (this.calc.hasValue() ? this.calc.value() : null));
   protected readonly standardRead = inject(IndependentModelApi).standard(computed(() => this.revision()?.ruleSet.id));
-  private readonly parsedStandard = computed(() =>
-    this.standardRead.hasValue() ? ruleSetSchema.safeParse(this.standardRead.value().document) : null,
-  );
-  protected readonly ruleSet = computed(() => (this.parsedStandard()?.success ? this.parsedStandard()!.data! : null));
-  protected readonly ruleSetProblem = computed(() =>
-    this.parsedStandard()?.success === false
-      ? 'The design standard could not be read, so no checklist is shown.'
-      : null,
-  );
+  private readonly standard = modelStandard(this.standardRead);
+  protected readonly ruleSet = this.standard.ruleSet;
+  protected readonly ruleSetProblem = this.standard.problem;
 
   protected readonly form = signal(editorForm(EMPTY));
   protected readonly units = signal<UnitSystem>('SI');

@@ -1,13 +1,6 @@
-import { startTestApp } from '../support/api-harness';
-import {
-  createCalc,
-  expectStatus,
-  person,
-  revisionOf,
-  sign,
-  testStandard,
-  type Session,
-} from '../support/calc-harness';
+import { expectStatus, person, startTestApp, type Session } from '../support/api-harness';
+import { createCalc, revisionOf, sign } from '../support/calc-harness';
+import { testStandard } from '../support/standard-harness';
 import { returnedWithFindingOf } from '../support/findings-harness';
 import { pdfBytes, upload } from '../support/upload-harness';
 import { Revision } from '../../server/db/models';

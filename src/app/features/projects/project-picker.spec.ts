@@ -92,7 +92,11 @@ describe('the project picker', () => {
     expect(await picker.getValue()).toBe('KF-0230 · Kestrel Fen line 230');
     await picker.focus();
     const offered = await Promise.all((await picker.getOptions()).map((o) => o.getText()));
-    expect(offered.slice(0, 2)).toEqual(['All projects', 'KF-0230 · Kestrel Fen line 230']);
+    expect(offered.slice(0, 3)).toEqual([
+      'All projects',
+      '215 more — type to narrow',
+      'KF-0230 · Kestrel Fen line 230',
+    ]);
   });
 
   it('when a search is typed but nothing is chosen, then leaving the list shows the chosen project again', async () => {

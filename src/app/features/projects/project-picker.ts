@@ -34,6 +34,9 @@ const projectText = (p: ProjectDto | string | null) => (typeof p === 'string' ? 
     .failure {
       color: var(--tt-fail);
     }
+    .more {
+      font-style: italic;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -60,8 +60,9 @@ async function open() {
   await settle();
   const element = fixture.nativeElement as HTMLElement;
   const actions = () => element.querySelector('.actions') as HTMLElement;
+  const next = () => element.querySelector('.next[role="status"]') as HTMLElement;
   const buttons = () => [...actions().querySelectorAll('button')] as HTMLButtonElement[];
-  return { fixture, http, settle, actions, buttons };
+  return { fixture, http, settle, actions, next, buttons };
 }
 
 describe('the calc page while its revision is read again', () => {
@@ -76,13 +77,13 @@ describe('the calc page while its revision is read again', () => {
 
     expect(d.buttons().every((b) => b.disabled)).toBe(true);
     expect(d.actions().getAttribute('aria-busy')).toBe('true');
-    expect(d.actions().querySelector('[role="status"]')?.textContent).toContain('Updating the revision…');
+    expect(d.next().textContent).toContain('Updating the revision…');
 
     d.http.expectOne('/api/calcs/3/latest-revision').flush({ ...REVISION, contentHash: 'f'.repeat(64) });
     await d.settle();
 
     expect(d.buttons().every((b) => !b.disabled)).toBe(true);
     expect(d.actions().getAttribute('aria-busy')).toBe('false');
-    expect(d.actions().textContent).not.toContain('Updating');
+    expect(d.next().textContent).not.toContain('Updating');
   });
 });

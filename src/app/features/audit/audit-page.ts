@@ -17,7 +17,7 @@ import { CalcsApi } from '../calcs/calcs-api';
 import { EmptyState } from '../../ui/empty-state';
 import { AuditApi, type AuditListParams } from './audit-api';
 import { KeysetPager } from '../../ui/keyset-pager';
-import { ProjectsApi } from '../projects/projects-api';
+import { ProjectPicker } from '../projects/project-picker';
 import { DiffView } from '../../ui/diff-view';
 import { MatInputModule } from '@angular/material/input';
 import { AUDIT_ACTION_FILTERS, AUDIT_ENTITY_TYPES, ISO_DAY, filtersFromUrl } from './audit-filters';
@@ -43,6 +43,7 @@ import { ChainCheck } from './chain-check';
     RouterLink,
     ReactiveFormsModule,
     LoadFailure,
+    ProjectPicker,
   ],
   providers: [ChainCheck],
   templateUrl: './audit-page.html',
@@ -58,7 +59,6 @@ export default class AuditPage {
     filtersFromUrl(inject(ActivatedRoute).snapshot.queryParamMap),
   );
   protected readonly pager = new KeysetPager(25);
-  protected readonly projects = inject(ProjectsApi).list(signal({ page: 0, size: 200, q: '' }));
   protected readonly events = this.api.list(
     computed(() => ({ ...this.params(), size: this.pager.size(), after: this.pager.after() })),
   );
@@ -77,10 +77,9 @@ export default class AuditPage {
   /** Dates typed the ISO way whatever the browser's locale (a date input shows mm/dd/yyyy in US English). */
   protected readonly from = new FormControl('', { nonNullable: true, validators: Validators.pattern(ISO_DAY) });
   protected readonly to = new FormControl('', { nonNullable: true, validators: Validators.pattern(ISO_DAY) });
-  protected readonly projectOptions = computed(() => (this.projects.hasValue() ? this.projects.value().items : []));
   protected readonly calcOptions = computed(() => (this.calcs.hasValue() ? this.calcs.value().items : []));
   protected readonly personOptions = computed(() => (this.people.hasValue() ? this.people.value() : []));
-  protected readonly filterError = computed(() => this.projects.error() ?? this.calcs.error() ?? this.people.error());
+  protected readonly filterError = computed(() => this.calcs.error() ?? this.people.error());
   protected readonly expanded = signal<number | null>(null);
   // Lists leave diffs out; the open entry's diff is read on its own.
   protected readonly openEntry = this.api.entry(
@@ -138,7 +137,7 @@ export default class AuditPage {
   }
 
   protected reloadFilters(): void {
-    for (const list of [this.projects, this.calcs, this.people]) if (list.error()) list.reload();
+    for (const list of [this.calcs, this.people]) if (list.error()) list.reload();
   }
 
   protected toggle(event: AuditEventDto): void {

@@ -22,8 +22,9 @@ export class ProjectsApi {
     }));
   }
 
-  one(id: Signal<number>) {
-    return httpResource<ProjectDto>(() => `/api/projects/${id()}`);
+  /** One project by id; no request while the id is null. */
+  one(id: Signal<number | null>) {
+    return httpResource<ProjectDto>(() => (id() === null ? undefined : `/api/projects/${id()}`));
   }
 
   create(dto: CreateProjectRequest): Promise<ProjectDto> {

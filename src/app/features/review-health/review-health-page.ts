@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import {
   FormControl,
@@ -13,13 +13,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSelectModule } from '@angular/material/select';
 import { AbilityServiceSignal } from '@casl/angular';
 import type { AppAbility } from '../../../../shared/authz/app-ability';
 import { HEALTH_CAUTION } from '../../../../shared/review-health/signal-texts';
 import { MAX_PERIOD_DAYS } from '../../../../shared/schemas/review-health.schema';
 import { LoadFailure } from '../../ui/load-failure';
-import { ProjectsApi } from '../projects/projects-api';
+import { ProjectPicker } from '../projects/project-picker';
 import { ReviewHealthApi, type HealthParams } from './review-health-api';
 import { SignalSection } from './signal-section';
 import { FindingRates } from './finding-rates';
@@ -53,7 +52,7 @@ function periodProblem(group: AbstractControl): ValidationErrors | null {
     MatIconModule,
     MatInputModule,
     MatProgressBarModule,
-    MatSelectModule,
+    ProjectPicker,
     SignalSection,
     FindingRates,
     HealthSettingsPanel,
@@ -65,8 +64,6 @@ function periodProblem(group: AbstractControl): ValidationErrors | null {
 export default class ReviewHealthPage {
   private readonly api = inject(ReviewHealthApi);
   private readonly ability = inject<AbilityServiceSignal<AppAbility>>(AbilityServiceSignal);
-  protected readonly projects = inject(ProjectsApi).list(signal({ page: 0, size: 200, q: '' }));
-  protected readonly projectList = computed(() => (this.projects.hasValue() ? this.projects.value().items : []));
   protected readonly filters = new FormGroup(
     {
       projectId: new FormControl<number | null>(null),

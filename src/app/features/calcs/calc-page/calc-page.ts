@@ -83,6 +83,11 @@ export default class CalcPage {
   protected readonly current = linkedSignal<RevisionDto | undefined>(() =>
     this.revision.hasValue() ? this.revision.value() : undefined,
   );
+  /**
+   * The revision is being read again (after an attachment or a model changed its signed content): until the fresh
+   * copy arrives, a signature would be made against the old content hash and refused, so the actions wait.
+   */
+  protected readonly refreshing = computed(() => this.revision.isLoading() && this.current() !== undefined);
   protected readonly isLatest = computed(() => this.current()?.id === this.calcInfo()?.latest.id);
   protected readonly plan = computed(() => {
     const r = this.current();

@@ -1,0 +1,118 @@
+import { Component, signal } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import type { HttpRequest } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting, type TestRequest } from '@angular/common/http/testing';
+import { TestKey } from '@angular/cdk/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatAutocompleteHarness } from '@angular/material/autocomplete/testing';
+import type { ProjectDto } from '../../../../shared/schemas/project.schema';
+import { errorInterceptor } from '../../core/http/error-interceptor';
+import { PICKER_SIZE, ProjectPicker } from './project-picker';
+
+const project = (id: number): ProjectDto => ({
+  id,
+  code: `KF-${String(id).padStart(4, '0')}`,
+  name: `Kestrel Fen line ${id}`,
+  client: 'Kestrel Fen Drives',
+  description: '',
+  revisionScheme: 'letters',
+  status: 'active',
+  createdAt: '2026-11-02T08:00:00Z',
+  version: 1,
+});
+const answer = (items: ProjectDto[], total: number) => ({ items, total, page: 0, size: PICKER_SIZE });
+const firstPage = Array.from({ length: PICKER_SIZE }, (_, i) => project(i + 1));
+
+@Component({
+  imports: [ProjectPicker],
+  template: `<tt-project-picker [value]="value()" (picked)="value.set($event); picks.push($event)" />`,
+})
+class Host {
+  readonly value = signal<number | null>(null);
+  readonly picks: (number | null)[] = [];
+}
+
+async function open() {
+  TestBed.configureTestingModule({
+    providers: [provideHttpClient(withInterceptors([errorInterceptor])), provideHttpClientTesting()],
+  });
+  const fixture = TestBed.createComponent(Host);
+  const http = TestBed.inject(HttpTestingController);
+  const settle = async () => {
+    await new Promise((resolve) => setTimeout(resolve));
+    TestBed.tick();
+    fixture.detectChanges();
+  };
+  /** Waits for the request the picker sends (a search waits for a pause in typing): a condition, not a time. */
+  const request = async (matches: (r: HttpRequest<unknown>) => boolean): Promise<TestRequest> => {
+    for (;;) {
+      await settle();
+      const found = http.match(matches);
+      if (found.length) return found[0];
+    }
+  };
+  await settle();
+  return { fixture, http, settle, request, loader: TestbedHarnessEnvironment.documentRootLoader(fixture) };
+}
+
+const isList = (q: string) => (r: HttpRequest<unknown>) => r.url === '/api/projects' && (r.params.get('q') ?? '') === q;
+
+describe('the project picker', () => {
+  it('when an office has more projects than one answer holds, then typing finds any of them and says how many more', async () => {
+    const d = await open();
+    (await d.request(isList(''))).flush(answer(firstPage, 240));
+    await d.settle();
+    const picker = await d.loader.getHarness(MatAutocompleteHarness);
+    await picker.focus();
+    const before = await Promise.all((await picker.getOptions()).map((o) => o.getText()));
+
+    expect(before).toContain('215 more — type to narrow');
+    expect(before).not.toContain('KF-0201 · Kestrel Fen line 201');
+    expect(d.fixture.nativeElement.textContent).toContain('Showing 25 of 240: type a code or name');
+
+    await picker.enterText('KF-0201');
+    (await d.request(isList('KF-0201'))).flush(answer([project(201)], 1));
+    await d.settle();
+    await picker.selectOption({ text: 'KF-0201 · Kestrel Fen line 201' });
+    await d.settle();
+
+    expect(d.fixture.componentInstance.picks).toEqual([201]);
+    expect(await picker.getValue()).toBe('KF-0201 · Kestrel Fen line 201');
+  });
+
+  it('when the chosen project is in no answer, then it is read by id and stays shown and offered', async () => {
+    const d = await open();
+    d.fixture.componentInstance.value.set(230);
+    (await d.request((r) => r.url === '/api/projects/230')).flush(project(230));
+    (await d.request(isList(''))).flush(answer(firstPage, 240));
+    await d.settle();
+    const picker = await d.loader.getHarness(MatAutocompleteHarness);
+
+    expect(await picker.getValue()).toBe('KF-0230 · Kestrel Fen line 230');
+    await picker.focus();
+    const offered = await Promise.all((await picker.getOptions()).map((o) => o.getText()));
+    expect(offered.slice(0, 3)).toEqual([
+      'All projects',
+      '215 more — type to narrow',
+      'KF-0230 · Kestrel Fen line 230',
+    ]);
+  });
+
+  it('when a search is typed but nothing is chosen, then leaving the list shows the chosen project again', async () => {
+    const d = await open();
+    (await d.request(isList(''))).flush(answer(firstPage, 240));
+    await d.settle();
+    const picker = await d.loader.getHarness(MatAutocompleteHarness);
+    await picker.enterText('zzz');
+    (await d.request(isList('zzz'))).flush(answer([], 0));
+    await d.settle();
+
+    const offered = await Promise.all((await picker.getOptions()).map((o) => o.getText()));
+    expect(offered).toEqual(['All projects', 'No project matches “zzz”']);
+    await (await picker.host()).sendKeys(TestKey.ESCAPE);
+    await d.settle();
+    expect(await picker.getValue()).toBe('');
+    expect(d.fixture.componentInstance.picks).toEqual([]);
+  });
+});

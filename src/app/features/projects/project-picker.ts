@@ -1,0 +1,104 @@
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { FormControl, ReactiveFormsModule } from '@angular/forms';
+import { MatAutocompleteModule, type MatAutocompleteSelectedEvent } from '@angular/material/autocomplete';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { debounceTime, distinctUntilChanged, map } from 'rxjs';
+import type { ProjectDto } from '../../../../shared/schemas/project.schema';
+import { loadFailureText } from '../../ui/load-failure';
+import { ProjectsApi } from './projects-api';
+
+/** How many matches one answer lists; more are reached by typing, never by a longer list. */
+export const PICKER_SIZE = 25;
+/** Waits for a pause in typing, so a word is one request, not one per letter. */
+export const PICKER_DEBOUNCE_MS = 250;
+
+const projectText = (p: ProjectDto | string | null) => (typeof p === 'string' ? p : p ? `${p.code} · ${p.name}` : '');
+
+/**
+ * Chooses one project (or all) out of any number: typing searches code and name on the server, the answer
+ * says how many more there are, and the chosen project stays shown even when a search leaves it out.
+ */
+@Component({
+  selector: 'tt-project-picker',
+  imports: [ReactiveFormsModule, MatAutocompleteModule, MatFormFieldModule, MatInputModule],
+  templateUrl: './project-picker.html',
+  styles: `
+    :host {
+      display: block;
+    }
+    mat-form-field {
+      width: 100%;
+    }
+    .failure {
+      color: var(--tt-fail);
+    }
+    .more {
+      font-style: italic;
+    }
+  `,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ProjectPicker {
+  private readonly api = inject(ProjectsApi);
+  readonly value = input<number | null>(null);
+  readonly label = input('Project');
+  readonly picked = output<number | null>();
+
+  protected readonly text = new FormControl<ProjectDto | string | null>(null);
+  protected readonly typed = toSignal(
+    this.text.valueChanges.pipe(
+      map((v) => (typeof v === 'string' ? v.trim() : '')),
+      debounceTime(PICKER_DEBOUNCE_MS),
+      distinctUntilChanged(),
+    ),
+    { initialValue: '' },
+  );
+  protected readonly matches = this.api.list(computed(() => ({ page: 0, size: PICKER_SIZE, q: this.typed() })));
+  private readonly lastPicked = signal<ProjectDto | null>(null);
+  /** A project chosen elsewhere (an address, a saved filter) is read by id: it need not be in any answer. */
+  private readonly lookup = this.api.one(
+    computed(() => (this.value() === null || this.lastPicked()?.id === this.value() ? null : this.value())),
+  );
+  protected readonly chosen = computed(() => {
+    const id = this.value();
+    if (id === null) return null;
+    if (this.lastPicked()?.id === id) return this.lastPicked();
+    return this.lookup.hasValue() && this.lookup.value().id === id ? this.lookup.value() : null;
+  });
+  protected readonly found = computed(() => (this.matches.hasValue() ? this.matches.value().items : []));
+  protected readonly options = computed(() => {
+    const chosen = this.chosen();
+    return chosen && !this.found().some((p) => p.id === chosen.id) ? [chosen, ...this.found()] : this.found();
+  });
+  protected readonly more = computed(() =>
+    this.matches.hasValue() ? Math.max(0, this.matches.value().total - this.matches.value().items.length) : 0,
+  );
+  protected readonly failure = computed(() => {
+    const error = this.matches.error() ?? this.lookup.error();
+    return error ? loadFailureText(error, 'project list') : null;
+  });
+  protected readonly display = projectText;
+
+  constructor() {
+    effect(() => this.showChosen());
+  }
+
+  protected pick(event: MatAutocompleteSelectedEvent): void {
+    const project = event.option.value as ProjectDto | null;
+    this.lastPicked.set(project);
+    if ((project?.id ?? null) !== this.value()) this.picked.emit(project?.id ?? null);
+  }
+
+  /** Leaving the list without choosing puts back what is chosen: the field never shows a search as a filter. */
+  protected showChosen(): void {
+    const chosen = this.chosen();
+    if (this.text.value !== chosen) this.text.setValue(chosen);
+  }
+
+  protected retryIfFailed(): void {
+    if (this.matches.error()) this.matches.reload();
+    if (this.lookup.error()) this.lookup.reload();
+  }
+}

@@ -1,0 +1,55 @@
+import { randomUUID } from 'node:crypto';
+import path from 'node:path';
+import type { Page } from 'playwright-core';
+import { SCREENSHOT_DIR, accessibilityViolations, pageSettled } from '../support/browser';
+import { browserSuite } from '../support/browser-suite';
+import { createTestProject, createTestUser } from '../support/api-harness';
+
+// An office with more projects than one answer lists: the audit trail's project field finds any of them by typing,
+// says how many more there are, is used from the keyboard, and reads cleanly to axe (artifacts/screenshots/
+// project-picker-*).
+const suite = browserSuite();
+
+const picker = (page: Page) => page.getByRole('combobox', { name: 'Project' });
+
+it('when the office has more projects than one answer lists, then typing finds and chooses any of them', async () => {
+  const run = randomUUID().slice(0, 6);
+  const projects = [];
+  for (let i = 1; i <= 30; i++) projects.push(await createTestProject({ name: `Fen picker ${run} line ${i}` }));
+  const last = projects[29];
+  const user = await createTestUser(['compliance'], 'e2e-picker');
+  const page = await suite.signedInPage(user.username);
+  await page.goto('/audit');
+  const problems: string[] = [];
+  for (const width of [1440, 768, 390]) {
+    await page.setViewportSize({ width, height: 900 });
+    await picker(page).click();
+    await page.getByRole('option', { name: /more — type to narrow/ }).waitFor();
+    await pageSettled(page);
+    await suite.session.screenshot(page, `project-picker-open-${width}`);
+    problems.push(...(await accessibilityViolations(page)).map((v) => `@${width}: ${v}`));
+    await page.keyboard.press('Escape');
+  }
+  expect(problems).toEqual([]);
+
+  // From the keyboard: type part of a name, arrow down to the match, Enter.
+  await page.setViewportSize({ width: 1440, height: 900 });
+  const filtered = page.waitForRequest(
+    (r) => r.url().includes(`/api/audit?`) && r.url().includes(`projectId=${last.id}`),
+  );
+  await picker(page).focus();
+  await page.keyboard.type(`${run} line 30`);
+  await page.getByRole('option', { name: `${last.code} · Fen picker ${run} line 30` }).waitFor();
+  const wanted = `${last.code} · Fen picker ${run} line 30`;
+  const active = () =>
+    page.evaluate(() => document.querySelector('mat-option.mat-mdc-option-active')?.textContent?.trim() ?? '');
+  for (let presses = 0; presses < 4 && (await active()) !== wanted; presses++) await page.keyboard.press('ArrowDown');
+  await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'project-picker-keyboard-1440.png') });
+  expect(await active()).toBe(wanted);
+  await page.keyboard.press('Enter');
+  await filtered;
+  await expect(picker(page).inputValue()).resolves.toBe(wanted);
+  await pageSettled(page);
+  await suite.session.screenshot(page, 'project-picker-chosen-1440');
+  await page.close();
+});

@@ -39,8 +39,14 @@ it('when the office has more projects than one answer lists, then typing finds a
   );
   await picker(page).focus();
   await page.keyboard.type(`${run} line 30`);
-  await page.getByRole('option', { name: `${last.code} · Fen picker ${run} line 30` }).waitFor();
   const wanted = `${last.code} · Fen picker ${run} line 30`;
+  // The newest project is already in the list before the search answers; arrowing then would be undone when the
+  // answer redraws the list. Wait until every project listed is the one typed for: the search has answered.
+  await page.waitForFunction((name) => {
+    const texts = [...document.querySelectorAll('mat-option')].map((o) => o.textContent?.trim() ?? '');
+    const listed = texts.filter((t) => t !== 'All projects');
+    return listed.length > 0 && listed.every((t) => t === name);
+  }, wanted);
   const active = () =>
     page.evaluate(() => document.querySelector('mat-option.mat-mdc-option-active')?.textContent?.trim() ?? '');
   for (let presses = 0; presses < 4 && (await active()) !== wanted; presses++) await page.keyboard.press('ArrowDown');

@@ -16,8 +16,11 @@ it('when an attachment is added, then signing waits, visibly, until the fresh re
   const submit = page.getByRole('button', { name: 'Sign and submit for check' });
   await submit.waitFor();
   const held: Route[] = [];
+  let heldOne = () => {};
+  const readHeld = new Promise<void>((resolve) => (heldOne = resolve));
   await page.route(/\/api\/calcs\/\d+\/latest-revision$/, (route) => {
     held.push(route);
+    heldOne();
   });
   await page.getByRole('tab', { name: 'Attachments' }).click();
   await page
@@ -36,9 +39,12 @@ it('when an attachment is added, then signing waits, visibly, until the fresh re
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, `calc-updating-${width}.png`) });
   }
 
+  // The read may reach the route a moment after the screen says it is updating: release it only once it is held.
+  await readHeld;
   for (const route of held) await route.continue();
   await page.unroute(/\/api\/calcs\/\d+\/latest-revision$/);
   await page.getByRole('status').filter({ hasText: 'Updating the revision…' }).waitFor({ state: 'detached' });
+  await submit.click({ trial: true }); // waits until the button is enabled again
   await expect(submit.isEnabled()).resolves.toBe(true);
   await page.close();
 });

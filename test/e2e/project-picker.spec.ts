@@ -43,7 +43,7 @@ it('when the office has more projects than one answer lists, then typing finds a
   // The newest project is already in the list before the search answers; arrowing then would be undone when the
   // answer redraws the list. Wait until every project listed is the one typed for: the search has answered.
   await page.waitForFunction((name) => {
-    const texts = [...document.querySelectorAll('mat-option')].map((o) => o.textContent?.trim() ?? '');
+    const texts = Array.from(document.querySelectorAll('mat-option'), (o) => o.textContent?.trim() ?? '');
     const listed = texts.filter((t) => t !== 'All projects');
     return listed.length > 0 && listed.every((t) => t === name);
   }, wanted);

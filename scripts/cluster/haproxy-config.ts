@@ -68,6 +68,10 @@ listen web
   # that was not the first on its client connection by closing that connection without a word (the keep-alive
   # convention that lets a browser resend); with one request per connection it sends the 503 below instead.
   option httpclose
+  # The whole request body is taken before an instance is chosen (uploads here fit the buffer): an instance dying
+  # mid-request then meets a client that has finished sending and reads the 503, instead of one still writing its
+  # upload into a closed connection (EPIPE, no answer at all).
+  option http-buffer-request
   # Only a connection that never reached an instance is sent elsewhere: nothing ran, so it is safe.
   retries 3
   retry-on conn-failure

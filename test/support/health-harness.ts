@@ -3,6 +3,7 @@ import type { Express } from 'express';
 import { Attachment, Project, Revision } from '../../server/db/models';
 import { loadRevision } from '../../server/calcs/calc-access';
 import { refreshAfterAttachmentChange } from '../../server/workflow/signed-content';
+import { runTransaction } from '../../server/db/transaction';
 import { TEST_PASSWORD, uniqueCode, expectStatus, person, type Session } from './api-harness';
 import { fixtureInput, revisionOf, sign, tickAll } from './calc-harness';
 import { replaceStandard, standardWithoutAttachments } from './standard-harness';
@@ -29,7 +30,7 @@ export async function addLateFile(revisionId: number, uploadedBy: number) {
     uploadedBy,
     uploadedByName: 'test harness',
   });
-  await Revision.sequelize!.transaction(async (t) =>
+  await runTransaction(Revision.sequelize!, async (t) =>
     refreshAfterAttachmentChange(await loadRevision(revisionId, t), t),
   );
 }

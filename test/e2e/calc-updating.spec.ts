@@ -1,5 +1,5 @@
 import type { Route } from 'playwright-core';
-import { SCREENSHOT_DIR } from '../support/browser';
+import { SCREENSHOT_DIR, pageSettled } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { calcTeam } from '../support/calc-harness';
 import { pdfBytes } from '../support/upload-harness';
@@ -27,6 +27,8 @@ it('when an attachment is added, then signing waits, visibly, until the fresh re
     .getByLabel('File to attach')
     .setInputFiles({ name: 'DRG-1 sheet 2.pdf', mimeType: 'application/pdf', buffer: pdfBytes(4000) });
   const tabsTop = () => page.locator('mat-tab-group').evaluate((el) => el.getBoundingClientRect().top + window.scrollY);
+  // Measured on the finished page (nothing loading, fonts in), not on a moment of its drawing.
+  await pageSettled(page);
   const before = await tabsTop();
   await page.getByRole('button', { name: 'Attach', exact: true }).click();
   await page.getByRole('status').filter({ hasText: 'Updating the revision…' }).waitFor();

@@ -1,7 +1,7 @@
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { findMaterial, toMaterialInput } from '../../shared/materials';
-import { SCREENSHOT_DIR, accessibilityViolations } from '../support/browser';
+import { SCREENSHOT_DIR, accessibilityViolations, pageSettled } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { advanceTo, createCalc } from '../support/calc-harness';
 import { expectStatus, person } from '../support/api-harness';
@@ -65,6 +65,8 @@ const addSegmentTop = (page: Page) =>
 async function shots(page: Page, name: string): Promise<void> {
   for (const width of [1440, 768, 390]) {
     await page.setViewportSize({ width, height: 900 });
+    // Panels a new width brings into view are built first; the layout and axe read the finished page.
+    await pageSettled(page);
     await suite.session.screenshot(page, `${name}-${width}`);
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}-${width}-top.png`) });
     expect(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)).toBe(true);
@@ -99,6 +101,8 @@ describe('the independent model in the browser', () => {
     // The first complete input brings the first verdict, above the form, just as "Add segment" is clicked: it must
     // fill the place kept for it, not push the form down under the pointer between press and release.
     await expect(page.locator('tt-verdict-strip [data-verdict]').count()).resolves.toBe(0);
+    // Measured on the finished page (nothing loading, fonts in), not on a moment of its drawing.
+    await pageSettled(page);
     const addSegmentAt = await addSegmentTop(page);
     await type(page, 'segments[0].length', '100');
     await page.keyboard.press('Tab');

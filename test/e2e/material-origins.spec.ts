@@ -29,6 +29,8 @@ describe('the material panel in the editor', () => {
       await pageSettled(page);
       await chooseMaterial(page, 'Entered by hand');
       await page.locator('tt-material-panel table.provenance').waitFor({ state: 'detached' });
+      // Measured once the page has answered the first pick too (its live results and panels redrawn, fonts in).
+      await pageSettled(page);
       const before = await segmentsTop(page);
       await page
         .locator('tt-material-panel')

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import { Op } from 'sequelize';
 import { AuditEvent } from '../../server/db/models';
@@ -38,7 +39,7 @@ describe('audit addresses', () => {
 
   it('when a failed sign-in comes with a long X-Forwarded-For, then it is a 401 with its audit entry', async () => {
     const { agent, token } = await anonymousAgent(app);
-    const name = `nobody-${Date.now()}`;
+    const name = `nobody-${randomUUID().slice(0, 8)}`;
     const res = await agent
       .post('/api/auth/login')
       .set('x-csrf-token', token)

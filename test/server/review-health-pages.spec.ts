@@ -15,7 +15,9 @@ let scenario: Awaited<ReturnType<typeof healthScenario>>;
 let compliance: Session;
 let report: HealthReport;
 
-const period = () => `projectId=${scenario.project.id}&from=${daysAgo(90)}&to=${today()}`;
+// Fixed once the scenario is built, so a run that passes midnight (UTC) reads the report and its pages over one period.
+let days: { from: string; to: string };
+const period = () => `projectId=${scenario.project.id}&from=${days.from}&to=${days.to}`;
 const signalOf = (key: SignalKey) => report.signals.find((s) => s.key === key)!;
 
 /** Every row of one signal, read one page of `size` at a time by following `next`. */
@@ -56,6 +58,7 @@ beforeAll(async () => {
   ({ app, sequelize } = startTestApp());
   compliance = (await person(app, ['compliance'], 'rh-pages')).session;
   scenario = await healthScenario(app);
+  days = { from: daysAgo(90), to: today() };
   const res = await compliance.get(`/api/review-health?${period()}`);
   expect(res.status).toBe(200);
   report = res.body;

@@ -62,12 +62,14 @@ describe('one-time codes for signatures (RFC 6238)', () => {
     await enrol(author.session);
     const { session: compliance } = await signedInAs(app, ['compliance']);
     const since = await lastAuditId();
+    // The days (UTC) the attempts fall in, read before and after them: a run that passes midnight spans two.
+    const day = () => new Date().toISOString().slice(0, 10);
+    const from = day();
 
     // Act
     const missing = await attempt(author.session, revisionId);
     const wrong = await attempt(author.session, revisionId, { oneTimeCode: '123456' });
-    const day = new Date().toISOString().slice(0, 10);
-    const health = await compliance.get(`/api/review-health?projectId=${project.id}&from=${day}&to=${day}`);
+    const health = await compliance.get(`/api/review-health?projectId=${project.id}&from=${from}&to=${day()}`);
 
     // Assert
     expect([missing.status, wrong.status]).toEqual([400, 400]);

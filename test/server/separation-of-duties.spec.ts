@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { Op } from 'sequelize';
 import { AuditEvent, MailOutbox, RoleGrant } from '../../server/db/models';
 import { ROLES, type Role } from '../../shared/authz/roles';
@@ -182,7 +183,7 @@ describe('a signing role waits for a second person', () => {
   it('when a new account is created with signing roles, then they wait for confirmation too', async () => {
     const { session: admin } = await signedInAs(app, ['admin']);
     const res = await admin.post('/api/users', {
-      username: `fresh-${Date.now()}`,
+      username: `fresh-${randomUUID().slice(0, 8)}`,
       displayName: 'Fresh Account',
       email: 'fresh@example.test',
       roles: ['approver'],

@@ -1,6 +1,7 @@
 import { Revision, Attachment } from '../../server/db/models';
 import { loadRevision } from '../../server/calcs/calc-access';
 import { refreshAfterAttachmentChange } from '../../server/workflow/signed-content';
+import { runTransaction } from '../../server/db/transaction';
 
 type ManualRow = { requiresAttachment?: string | null };
 
@@ -31,7 +32,8 @@ export async function attachRequiredFiles(revisionId: number, manual: ManualRow[
     });
   }
   if (added === 0) return;
-  await Revision.sequelize!.transaction(async (transaction) =>
+  // Run again on a deadlock, as the product's own writes are: other spec files write beside this one.
+  await runTransaction(Revision.sequelize!, async (transaction) =>
     refreshAfterAttachmentChange(await loadRevision(revisionId, transaction), transaction),
   );
 }

@@ -3,6 +3,7 @@ import type { Express } from 'express';
 import { Attachment, Project, Revision } from '../../server/db/models';
 import { loadRevision } from '../../server/calcs/calc-access';
 import { refreshAfterAttachmentChange } from '../../server/workflow/signed-content';
+import { runTransaction } from '../../server/db/transaction';
 import { TEST_PASSWORD, uniqueCode, expectStatus, person, type Session } from './api-harness';
 import { fixtureInput, revisionOf, sign, tickAll } from './calc-harness';
 import { replaceStandard, standardWithoutAttachments } from './standard-harness';
@@ -29,7 +30,7 @@ export async function addLateFile(revisionId: number, uploadedBy: number) {
     uploadedBy,
     uploadedByName: 'test harness',
   });
-  await Revision.sequelize!.transaction(async (t) =>
+  await runTransaction(Revision.sequelize!, async (t) =>
     refreshAfterAttachmentChange(await loadRevision(revisionId, t), t),
   );
 }
@@ -119,8 +120,9 @@ export async function healthScenario(app: Express) {
     checkedAt: new Date(now - 46 * DAY),
     approvedAt: new Date(now - 45 * DAY),
   });
-  // The day v2 took effect, kept for assertions: a run that passes midnight (UTC) must not expect the next day.
-  const v2On = today();
+  // The day v2 took effect, kept for assertions: the day of `now`, so that a1's approval is 2 days before it (1 to 2
+  // days by the clock) even when the run passes midnight (UTC) between setting the times and this line.
+  const v2On = new Date(now).toISOString().slice(0, 10);
   await replaceStandard(standard, v2On);
   const calcOf = async (id: number) => (await revisionOf(authorA.session, id)).calcId as number;
   return {

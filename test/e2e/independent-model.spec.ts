@@ -1,7 +1,7 @@
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { findMaterial, toMaterialInput } from '../../shared/materials';
-import { SCREENSHOT_DIR, accessibilityViolations } from '../support/browser';
+import { SCREENSHOT_DIR, accessibilityViolations, pageSettled } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { advanceTo, createCalc } from '../support/calc-harness';
 import { expectStatus, person } from '../support/api-harness';
@@ -65,6 +65,8 @@ const addSegmentTop = (page: Page) =>
 async function shots(page: Page, name: string): Promise<void> {
   for (const width of [1440, 768, 390]) {
     await page.setViewportSize({ width, height: 900 });
+    // The page a person reads at this width: panels and plots built, fonts in (the checks below read it too).
+    await pageSettled(page);
     await suite.session.screenshot(page, `${name}-${width}`);
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}-${width}-top.png`) });
     expect(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)).toBe(true);

@@ -66,6 +66,9 @@ it('when the office has more projects than one answer lists, then typing finds a
     const listed = texts.filter((t) => t !== 'All projects');
     return listed.length > 0 && listed.every((t) => t === name);
   }, wanted);
+  // After each redraw of the list, Material's autocomplete clears the active option from a timer; Chromium may handle
+  // key presses before a waiting timer, so on a busy machine arrowing was undone. Let the waiting timers run first.
+  await page.evaluate(() => new Promise((resolve) => setTimeout(resolve)));
   const active = () =>
     page.evaluate(() => document.querySelector('mat-option.mat-mdc-option-active')?.textContent?.trim() ?? '');
   for (let presses = 0; presses < 4 && (await active()) !== wanted; presses++) await page.keyboard.press('ArrowDown');

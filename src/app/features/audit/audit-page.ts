@@ -17,6 +17,7 @@ import { CalcsApi } from '../calcs/calcs-api';
 import { EmptyState } from '../../ui/empty-state';
 import { AuditApi, type AuditListParams } from './audit-api';
 import { KeysetPager } from '../../ui/keyset-pager';
+import { ListFilters } from '../../ui/list-filters';
 import { ProjectPicker } from '../projects/project-picker';
 import { DiffView } from '../../ui/diff-view';
 import { MatInputModule } from '@angular/material/input';
@@ -53,12 +54,14 @@ import { ChainCheck } from './chain-check';
 export default class AuditPage {
   private readonly api = inject(AuditApi);
   protected readonly chainCheck = inject(ChainCheck);
+  protected readonly pager = new KeysetPager(25);
   // Filters may arrive in the address (links from review-health signals and elsewhere), e.g.
   // /audit?calcId=7&action=revision.signed.
-  protected readonly params = signal<Omit<AuditListParams, 'size' | 'after'>>(
+  private readonly filters = new ListFilters<Omit<AuditListParams, 'size' | 'after'>>(
     filtersFromUrl(inject(ActivatedRoute).snapshot.queryParamMap),
+    () => this.pager.reset(),
   );
-  protected readonly pager = new KeysetPager(25);
+  protected readonly params = this.filters.value;
   protected readonly events = this.api.list(
     computed(() => ({ ...this.params(), size: this.pager.size(), after: this.pager.after() })),
   );
@@ -116,8 +119,7 @@ export default class AuditPage {
   protected filter(patch: Partial<AuditListParams>): void {
     // A calc belongs to one project: changing the project clears the calc.
     const calc = 'projectId' in patch ? { calcId: null } : {};
-    this.pager.reset();
-    this.params.update((p) => ({ ...p, ...calc, ...patch }));
+    this.filters.set({ ...calc, ...patch });
   }
 
   protected linkPath(link: string): string {

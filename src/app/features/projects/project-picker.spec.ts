@@ -6,6 +6,7 @@ import { HttpTestingController, provideHttpClientTesting, type TestRequest } fro
 import { TestKey } from '@angular/cdk/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatAutocompleteHarness } from '@angular/material/autocomplete/testing';
+import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import type { ProjectDto } from '../../../../shared/schemas/project.schema';
 import { errorInterceptor } from '../../core/http/error-interceptor';
 import { PICKER_SIZE, ProjectPicker } from './project-picker';
@@ -64,21 +65,27 @@ describe('the project picker', () => {
     (await d.request(isList(''))).flush(answer(firstPage, 240));
     await d.settle();
     const picker = await d.loader.getHarness(MatAutocompleteHarness);
+    const field = await d.loader.getHarness(MatFormFieldHarness);
+    expect(await field.getTextHints()).toEqual([]); // no list shown yet, so nothing says what it shows
     await picker.focus();
     const before = await Promise.all((await picker.getOptions()).map((o) => o.getText()));
 
     expect(before).toContain('215 more — type to narrow');
     expect(before).not.toContain('KF-0201 · Kestrel Fen line 201');
-    expect(d.fixture.nativeElement.textContent).toContain('Showing 25 of 240: type a code or name');
+    expect(await field.getTextHints()).toEqual(['Showing 25 of 240: type a code or name']);
 
     await picker.enterText('KF-0201');
     (await d.request(isList('KF-0201'))).flush(answer([project(201)], 1));
     await d.settle();
     await picker.selectOption({ text: 'KF-0201 · Kestrel Fen line 201' });
+    // The search gives way to the choice: the unfiltered list is read again, for the next time it opens.
+    (await d.request(isList(''))).flush(answer(firstPage, 240));
     await d.settle();
 
     expect(d.fixture.componentInstance.picks).toEqual([201]);
     expect(await picker.getValue()).toBe('KF-0201 · Kestrel Fen line 201');
+    expect(await picker.isOpen()).toBe(false);
+    expect(await field.getTextHints()).toEqual([]);
   });
 
   it('when the chosen project is in no answer, then it is read by id and stays shown and offered', async () => {

@@ -80,6 +80,7 @@ export class ProjectPicker {
     return error ? loadFailureText(error, 'project list') : null;
   });
   protected readonly display = projectText;
+  protected readonly isListOpen = signal(false);
 
   constructor() {
     effect(() => this.showChosen());
@@ -89,6 +90,11 @@ export class ProjectPicker {
     const project = event.option.value as ProjectDto | null;
     this.lastPicked.set(project);
     if ((project?.id ?? null) !== this.value()) this.picked.emit(project?.id ?? null);
+  }
+
+  protected leaveList(): void {
+    this.isListOpen.set(false);
+    this.showChosen();
   }
 
   /** Leaving the list without choosing puts back what is chosen: the field never shows a search as a filter. */

@@ -10,6 +10,7 @@ import type { SentMailDto } from '../../../../shared/schemas/mail.schema';
 import { assertApiFailure } from '../../core/http/api-failure';
 import { EmptyState } from '../../ui/empty-state';
 import { LoadFailure } from '../../ui/load-failure';
+import { ListFilters } from '../../ui/list-filters';
 import { RecordsApi, type SentMailParams } from './records-api';
 
 /** Admins read the mail outbox: what was sent, to whom, and what is still retrying or gave up. */
@@ -32,7 +33,11 @@ import { RecordsApi, type SentMailParams } from './records-api';
 })
 export default class SentMailPage {
   private readonly api = inject(RecordsApi);
-  protected readonly params = signal<SentMailParams>({ page: 0, size: 25, status: '' });
+  private readonly paging = signal({ page: 0, size: 25 });
+  private readonly filters = new ListFilters<Pick<SentMailParams, 'status'>>({ status: '' }, () =>
+    this.paging.update((p) => ({ ...p, page: 0 })),
+  );
+  protected readonly params = computed<SentMailParams>(() => ({ ...this.paging(), ...this.filters.value() }));
   protected readonly mail = this.api.sentMail(this.params);
   protected readonly rows = computed(() => (this.mail.hasValue() ? this.mail.value().items : []));
   protected readonly total = computed(() => (this.mail.hasValue() ? this.mail.value().total : 0));
@@ -47,11 +52,11 @@ export default class SentMailPage {
   ] as const;
 
   protected filterStatus(status: SentMailParams['status']): void {
-    this.params.update((p) => ({ ...p, status, page: 0 }));
+    this.filters.set({ status });
   }
 
   protected changePage(event: PageEvent): void {
-    this.params.update((p) => ({ ...p, page: event.pageIndex, size: event.pageSize }));
+    this.paging.set({ page: event.pageIndex, size: event.pageSize });
   }
 
   protected async open(row: SentMailDto): Promise<void> {

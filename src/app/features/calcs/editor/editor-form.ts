@@ -11,6 +11,7 @@ import {
   type SegmentForm,
   type TorqueForm,
 } from './row-forms';
+import { takeOverRowKeys } from './row-keys';
 
 /*
  * Typed form model of the calc editor: the whole form with its material and fatigue groups (list rows are
@@ -72,11 +73,16 @@ export interface EditorFormShape {
 export type EditorForm = FormGroup<EditorFormShape>;
 export type EditorValue = ReturnType<EditorForm['getRawValue']>;
 
-/** A fresh form holding `v`; the editor replaces the whole form on load, restore and unit change. */
-export function editorForm(v: EditorValue): EditorForm {
+const LISTS = ['segments', 'torques', 'features', 'bending', 'supports', 'loads', 'masses'] as const;
+
+/**
+ * A fresh form holding `v`; the editor replaces the whole form on load, restore and unit change. Given the form it
+ * `replaces`, its list rows take over that form's row keys (row-keys.ts), so the screen keeps its rows.
+ */
+export function editorForm(v: EditorValue, replaces?: EditorForm): EditorForm {
   const m = v.material;
   const f = v.fatigue;
-  return new FormGroup<EditorFormShape>({
+  const form = new FormGroup<EditorFormShape>({
     units: new FormControl<UnitSystem>(v.units, { nonNullable: true }),
     title: text(v.title),
     material: new FormGroup({
@@ -115,4 +121,6 @@ export function editorForm(v: EditorValue): EditorForm {
     }),
     notes: text(v.notes),
   });
+  if (replaces) for (const list of LISTS) takeOverRowKeys(replaces.controls[list], form.controls[list]);
+  return form;
 }

@@ -12,6 +12,7 @@ import { featureGroup, type FeatureForm, type FeatureType } from './row-forms';
 import type { IssueMap } from './issue-map';
 import { moveRow } from './row-moves';
 import { RowActions } from './row-actions';
+import { rowKey } from './row-keys';
 
 type Field = { key: keyof FeatureForm; label: string; quantity: 'length' | 'stress' | null; isOptional: boolean };
 const L = (key: keyof FeatureForm, label: string, isOptional = false): Field => ({
@@ -64,6 +65,7 @@ export class FeaturesList {
   readonly units = input.required<UnitSystem>();
   readonly issues = input.required<IssueMap>();
   readonly canEdit = input(true);
+  protected readonly rowKey = rowKey;
 
   protected readonly types = Object.entries(FEATURE_NAMES) as [FeatureType, string][];
   protected readonly labels = computed(() => UNIT_LABELS[this.units()]);

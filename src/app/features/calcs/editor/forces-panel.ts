@@ -10,6 +10,7 @@ import type { IssueMap } from './issue-map';
 import { FORCE_KINDS, FORCE_NAMES, forceGroup, type ForceForm, type ForceKind } from './shaft-form';
 import { shaftUnits } from './shaft-units';
 import { RowActions } from './row-actions';
+import { rowKey } from './row-keys';
 
 interface Field {
   key: keyof ForceForm;
@@ -77,6 +78,7 @@ export class ForcesPanel {
   readonly units = input.required<UnitSystem>();
   readonly issues = input.required<IssueMap>();
   readonly canEdit = input(true);
+  protected readonly rowKey = rowKey;
 
   protected readonly u = computed(() => shaftUnits(this.units()) as Record<string, string>);
   protected readonly kinds = FORCE_KINDS;

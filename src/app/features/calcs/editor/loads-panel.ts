@@ -10,6 +10,7 @@ import { bendingGroup, torqueGroup, type BendingForm, type TorqueForm } from './
 import type { IssueMap } from './issue-map';
 import { RowActions } from './row-actions';
 import { StationTable, type StationTableSpec } from './station-table';
+import { rowKey } from './row-keys';
 
 /** Load cases: external torques (or power at a speed) at stations, and bending moments for fatigue. Their
  * order carries no meaning (stations do), so rows are added and removed but not reordered. */
@@ -35,6 +36,7 @@ export class LoadsPanel {
   readonly units = input.required<UnitSystem>();
   readonly issues = input.required<IssueMap>();
   readonly canEdit = input(true);
+  protected readonly rowKey = rowKey;
 
   protected readonly u = computed(() => UNIT_LABELS[this.units()]);
   protected readonly bendingTable = computed<StationTableSpec>(() => {

@@ -103,7 +103,7 @@ export default class RevisionEditor {
 
   protected replaceForm(v: EditorValue): void {
     this.units.set(v.units);
-    this.form.set(editorForm(v));
+    this.form.set(editorForm(v, untracked(this.form)));
   }
 
   protected warnBeforeUnload(event: BeforeUnloadEvent): void {

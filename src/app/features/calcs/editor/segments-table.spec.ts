@@ -3,6 +3,7 @@ import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { mountComponent } from '../../../../../test/support/client-harness';
 import { segmentGroup, type SegmentForm } from './row-forms';
+import { takeOverRowKeys } from './row-keys';
 import { SegmentsTable } from './segments-table';
 
 function rows() {
@@ -44,6 +45,33 @@ describe('the segments table', () => {
     await (await d.button('Remove segment 1')).click();
     await d.settle();
     expect(d.labels()).toEqual(['journal']);
+  });
+
+  it('when the form is replaced (load, restore, unit change), then its rows take over the rows on screen', async () => {
+    const d = await mount();
+    const rowsShown = () => Array.from(d.element.querySelectorAll('tbody tr'));
+    /** The very elements (toEqual would accept look-alikes built again). */
+    const isShowing = (expected: Element[]) =>
+      rowsShown().length === expected.length && rowsShown().every((row, i) => row === expected[i]);
+    const shown = rowsShown();
+    const fresh = new FormArray([
+      segmentGroup({ label: 'journal', length: '1.575', od: '1.772' }),
+      segmentGroup({ label: 'hub seat', length: '3.150', od: '1.969', id: '0.472' }),
+    ]);
+    takeOverRowKeys(d.array, fresh);
+    d.fixture.componentRef.setInput('rows', fresh);
+    d.fixture.componentRef.setInput('units', 'US');
+    await d.settle();
+
+    expect(isShowing(shown)).toBe(true);
+    const length = await d.loader.getHarness(
+      MatInputHarness.with({ selector: '[aria-label="Segment 2 length in in"]' }),
+    );
+    expect(await length.getValue()).toBe('3.150');
+    await (await d.button('Move segment 2 left')).click();
+    await d.settle();
+    expect(fresh.controls.map((c) => c.controls.label.value)).toEqual(['hub seat', 'journal']);
+    expect(isShowing([shown[1], shown[0]])).toBe(true); // a row moves whole, as before
   });
 
   it('when the live calc reports issues, then each shows under its row with the field named', async () => {

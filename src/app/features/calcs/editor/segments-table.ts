@@ -10,6 +10,7 @@ import { segmentGroup, type SegmentForm } from './row-forms';
 import type { IssueMap } from './issue-map';
 import { moveRow } from './row-moves';
 import { RowActions } from './row-actions';
+import { rowKey } from './row-keys';
 
 const FIELDS = ['length', 'od', 'id'] as const;
 const NAMES: Record<(typeof FIELDS)[number], string> = { length: 'length', od: 'outer diameter', id: 'inner diameter' };
@@ -36,6 +37,7 @@ export class SegmentsTable {
   readonly units = input.required<UnitSystem>();
   readonly issues = input.required<IssueMap>();
   readonly canEdit = input(true);
+  protected readonly rowKey = rowKey;
 
   protected readonly len = computed(() => UNIT_LABELS[this.units()].length);
   protected readonly fields = FIELDS;

@@ -4,6 +4,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import type { IssueMap } from './issue-map';
 import { RowActions } from './row-actions';
+import { rowKey } from './row-keys';
 
 /** One number column: the form control's key, its header word, how a screen reader names it, its unit. */
 export interface StationColumn {
@@ -46,6 +47,7 @@ export class StationTable {
   readonly spec = input.required<StationTableSpec>();
   readonly issues = input.required<IssueMap>();
   readonly canEdit = input(true);
+  protected readonly rowKey = rowKey;
 
   protected path(i: number, key: string): string {
     return `${this.spec().list}[${i}].${key}`;

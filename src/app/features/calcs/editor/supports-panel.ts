@@ -11,6 +11,7 @@ import type { IssueMap } from './issue-map';
 import { BEARING_KINDS, BEARING_NAMES, supportGroup, type SupportForm } from './shaft-form';
 import { shaftUnits } from './shaft-units';
 import { RowActions } from './row-actions';
+import { rowKey } from './row-keys';
 
 /** The bearings: where each sits, its kind (which fixes the life exponent and the slope limit), C and location. */
 @Component({
@@ -34,6 +35,7 @@ export class SupportsPanel {
   readonly units = input.required<UnitSystem>();
   readonly issues = input.required<IssueMap>();
   readonly canEdit = input(true);
+  protected readonly rowKey = rowKey;
 
   protected readonly u = computed(() => shaftUnits(this.units()));
   protected readonly kinds = BEARING_KINDS;

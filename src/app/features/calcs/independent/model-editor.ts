@@ -113,7 +113,7 @@ export default class ModelEditor {
 
   protected replaceForm(v: EditorValue): void {
     this.units.set(v.units);
-    this.form.set(editorForm(v));
+    this.form.set(editorForm(v, untracked(this.form)));
   }
 
   protected save(): Promise<boolean> {

@@ -10,6 +10,7 @@ import type {
 } from '../../shared/schemas/calc-dto';
 import { Calc, Finding, Project, Revision, RuleSetRecord, Signature, User } from '../db/models';
 import { REVISION_RULE_SET_ATTRIBUTES } from '../rule-sets/rule-set-cache';
+import { expandChecklist } from './stored-checklist';
 
 /** Associations every revision read needs, loaded in one query. */
 export const REVISION_INCLUDE = [
@@ -102,7 +103,7 @@ export function toRevisionDto(r: Loaded, parts: RevisionParts): RevisionDto {
     lockVersion: r.lockVersion,
     input: JSON.parse(r.input),
     result: parts.result,
-    checklist: r.checklist ? JSON.parse(r.checklist) : null,
+    checklist: expandChecklist(r.checklist),
     inputIssues: parts.inputIssues,
     manualItems: JSON.parse(r.manualItems) as Record<string, ManualItemState>,
     contentHash: r.contentHash,

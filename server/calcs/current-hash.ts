@@ -3,6 +3,7 @@ import { Attachment, Calc, Project, Revision, type Signature } from '../db/model
 import { contentHashOf, hashedContentOf, signedAttachments } from './revision-content';
 import { contentKeyOf, memoisedHash } from './content-hash-memo';
 import { expandResult } from './stored-result';
+import { expandChecklist } from './stored-checklist';
 import { lockedModelOf } from '../independent/signed-model';
 
 /** What a revision's content hash covers besides the row itself, read once for every format asked. */
@@ -55,7 +56,7 @@ function hashInFormat(revision: Revision, sources: HashSources, format: number):
         revision.label,
         JSON.parse(revision.input),
         expanded,
-        JSON.parse(revision.checklist!),
+        expandChecklist(revision.checklist),
         revision.ruleSet,
         format,
         attachments,

@@ -3,6 +3,7 @@ import type { AppAbility } from '../../shared/authz/app-ability';
 import { Revision } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { jsonDiff } from './content-diff';
+import { expandChecklist } from './stored-checklist';
 import { blindError, blindRevisionIds } from '../independent/blind-lists';
 
 export interface RevisionDiffDto {
@@ -33,11 +34,10 @@ export async function diffRevisions(
   )
     throw blindError();
   const rows = (r: Revision) => {
-    const checklist = r.checklist
-      ? (JSON.parse(r.checklist) as {
-          rows?: { clauseId: string; location?: { label?: string; index?: number }; status: string }[];
-        })
-      : null;
+    // Rows stored long ago may lack a location: read loosely.
+    const checklist = expandChecklist(r.checklist) as {
+      rows?: { clauseId: string; location?: { label?: string; index?: number }; status: string }[];
+    } | null;
     return (checklist?.rows ?? []).map(
       (row) => `${row.clauseId} ${row.location?.label ?? row.location?.index ?? ''}: ${row.status}`,
     );

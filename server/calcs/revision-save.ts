@@ -11,9 +11,9 @@ import { CONTENT_FORMAT, computeRecord } from './revision-content';
 import { currentHashOf, readRevision } from './revision-read';
 import { jsonDiff } from './content-diff';
 import { outcomeOf } from '../../shared/schemas/outcome';
-import { stringifyFinite } from '../../shared/json/finite-json';
 import { runTransaction } from '../db/transaction';
 import { compactResult, expandResult, registerEngineMetadata } from './stored-result';
+import { compactChecklist } from './stored-checklist';
 import { lockWithContext, withEditor, withStoredResult } from './save-context';
 import { assertOpen } from '../projects/project-open';
 import { rememberValidation } from './content-hash-memo';
@@ -134,7 +134,7 @@ export async function saveRevision(
 export function stored(c: Awaited<ReturnType<typeof computeRecord>>) {
   return {
     result: compactResult(c.result),
-    checklist: c.checklist ? stringifyFinite(c.checklist) : null,
+    checklist: compactChecklist(c.checklist),
     verdict: c.verdict,
     outcome: JSON.stringify(outcomeOf(c.checklist)),
   };

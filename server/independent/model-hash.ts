@@ -5,6 +5,7 @@ import type { SignedModel } from '../../shared/schemas/independent-model.schema'
 import type { Transaction } from 'sequelize';
 import { Revision, type IndependentModel } from '../db/models';
 import { expandResult } from '../calcs/stored-result';
+import { expandChecklist } from '../calcs/stored-checklist';
 
 const sha256 = (value: unknown) =>
   createHash('sha256')
@@ -44,5 +45,5 @@ export function signedModelOf(row: IndependentModel, checkerName: string): Signe
 export async function authorModelHash(revision: Revision, transaction?: Transaction): Promise<string | null> {
   if (!revision.result || !revision.checklist) return null;
   const result = await expandResult(Revision.sequelize!, revision.result, transaction);
-  return sha256({ input: JSON.parse(revision.input), result, checklist: JSON.parse(revision.checklist) });
+  return sha256({ input: JSON.parse(revision.input), result, checklist: expandChecklist(revision.checklist) });
 }

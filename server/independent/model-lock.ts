@@ -6,6 +6,7 @@ import { Finding, type IndependentModel, type Revision } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { expandResult } from '../calcs/stored-result';
+import { expandChecklist } from '../calcs/stored-checklist';
 import { needOf } from './blind';
 import { authorModelHash, modelHashOf } from './model-hash';
 
@@ -42,7 +43,7 @@ export async function compareWithAuthor(
     {
       input: validInput(revision.input, "The author's calc"),
       result: authorResult,
-      checklist: JSON.parse(revision.checklist) as Checklist,
+      checklist: expandChecklist(revision.checklist)!,
     },
     {
       input: checkerInput,

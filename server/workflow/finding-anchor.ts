@@ -2,13 +2,13 @@ import type { Revision } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { rowPath, type FindingAnchor } from '../../shared/format/finding-place';
 import type { ChecklistRow } from '../../shared/rules';
+import { expandChecklist } from '../calcs/stored-checklist';
 
 const refuse = (field: 'clauseRef' | 'anchorPath', reason: string, message: string) =>
   new AppError('validation', 400, message, { fieldErrors: { [field]: [reason] } });
 
 function rowsOf(revision: Revision): ChecklistRow[] {
-  const checklist = revision.checklist ? (JSON.parse(revision.checklist) as { rows?: ChecklistRow[] }) : null;
-  return checklist?.rows ?? [];
+  return (expandChecklist(revision.checklist) as { rows?: ChecklistRow[] } | null)?.rows ?? [];
 }
 
 // `segments[1].od` → ['segments', 1, 'od'], walked through the stored input: an anchor names something that exists.

@@ -6,6 +6,7 @@ import { appendAudit } from '../audit/audit.service';
 import { verifyPassword } from '../auth/password';
 import { secondFactorRefusal } from '../auth/second-factor';
 import { editorIdsOf } from '../calcs/calc-access';
+import { expandChecklist } from '../calcs/stored-checklist';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { independentModelBlockerFor } from '../independent/signing-blocker';
 import { signingBlocker, type Meaning } from './independence';
@@ -73,7 +74,7 @@ export async function checkSigningPassword(
 function errorRowsOf(checklist: string | null): number {
   if (checklist === null) return 0;
   try {
-    const rows = (JSON.parse(checklist) as { rows?: { status?: unknown }[] }).rows;
+    const rows = (expandChecklist(checklist) as { rows?: { status?: unknown }[] }).rows;
     return Array.isArray(rows) ? rows.filter((r) => r?.status === 'error').length : 1;
   } catch {
     return 1;

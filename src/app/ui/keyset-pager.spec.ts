@@ -1,7 +1,7 @@
 import { KeysetPager } from './keyset-pager';
 
-const page = (next: string | null, total: number | null = null, totalIsAtLeast = false) => ({
-  items: [],
+const page = (next: string | null, total: number | null = null, totalIsAtLeast = false, rows = 25) => ({
+  items: Array.from({ length: rows }, (_, i) => i),
   size: 25,
   next,
   total,
@@ -34,8 +34,25 @@ describe('KeysetPager', () => {
 
   it('when the server still offers a next page past the counted total, then the paginator can go on', () => {
     const pager = new KeysetPager(2);
-    pager.remember(page('c1', 2));
+    pager.remember(page('c1', 2, false, 2));
     expect(pager.length()).toBe(3);
+  });
+
+  it('when the only page is short or empty, then the paginator counts the rows it holds, not a full page', () => {
+    const pager = new KeysetPager(25);
+    pager.remember(page(null, 8, false, 8));
+    expect(pager.length()).toBe(8);
+    pager.reset();
+    pager.remember(page(null, 0, false, 0));
+    expect(pager.length()).toBe(0);
+  });
+
+  it('when the last of several pages is short, then the length ends at its last row', () => {
+    const pager = new KeysetPager(25);
+    pager.remember(page('c1', null));
+    pager.turn({ pageIndex: 1, pageSize: 25, previousPageIndex: 0, length: 26 });
+    pager.remember(page(null, null, false, 3));
+    expect(pager.length()).toBe(28);
   });
 
   it('when the page size changes, then paging starts again from the top and is counted again', () => {

@@ -15,15 +15,20 @@ export class KeysetPager {
   readonly after = signal<string | undefined>(undefined);
   private readonly total = signal<{ total: number; isAtLeast: boolean } | null>(null);
   private readonly next = signal<string | null>(null);
+  /** Rows on the page shown; a page being fetched counts as full (every page before the last is). */
+  private readonly rows = signal(0);
   private cursors: (string | undefined)[] = [undefined];
 
   constructor(size: number) {
     this.size = signal(size);
   }
 
-  /** Paginator length: the counted total, extended while the server still offers a next page. */
+  /**
+   * Paginator length: the counted total, extended by the rows seen so far and by one while the server still offers
+   * a next page. A short page counts its own rows: 8 entries read "1 – 8 of 8", never "1 – 25 of 25".
+   */
   readonly length = computed(() => {
-    const seen = (this.pageIndex() + 1) * this.size() + (this.next() ? 1 : 0);
+    const seen = this.pageIndex() * this.size() + this.rows() + (this.next() ? 1 : 0);
     return Math.max(this.total()?.total ?? 0, seen);
   });
 
@@ -41,6 +46,7 @@ export class KeysetPager {
     untracked(() => {
       if (page.total !== null) this.total.set({ total: page.total, isAtLeast: page.totalIsAtLeast });
       this.next.set(page.next);
+      this.rows.set(page.items.length);
       this.cursors[this.pageIndex() + 1] = page.next ?? undefined;
     });
   }
@@ -51,6 +57,7 @@ export class KeysetPager {
     this.cursors = [undefined];
     this.total.set(null);
     this.next.set(null);
+    this.rows.set(0);
     this.pageIndex.set(0);
     this.after.set(undefined);
   }
@@ -59,6 +66,7 @@ export class KeysetPager {
   turn(event: PageEvent): void {
     if (event.pageSize !== this.size()) return this.reset(event.pageSize);
     this.pageIndex.set(event.pageIndex);
+    this.rows.set(this.size());
     this.after.set(this.cursors[event.pageIndex]);
   }
 }

@@ -1,11 +1,13 @@
 import canonicalize from 'canonicalize';
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { chainHash, type ChainedContent } from '../../server/audit/audit-chain';
+import { runTransaction } from '../../server/db/transaction';
 import { createTestProject, createTestUser } from './api-harness';
 import { effectiveRuleSetId } from './calc-harness';
 
 export const PLAN_CALCS = 3_000;
 export const PLAN_AUDIT = 20_000;
+const PLAN_AUDIT_BATCH = 1_000;
 const PLAN_PROJECTS = 30;
 
 /**
@@ -60,62 +62,70 @@ export async function seedPlanRows(
   return { projectId: project.id, calcId: calc.id, authorId: author.id };
 }
 
-// Appended under the chain head's lock with correct hashes, so the chain still verifies for every other spec.
+// Appended under the chain head's lock with correct hashes, so the chain still verifies for every other spec. Each
+// batch of 1,000 is a transaction of its own: holding the head for all 20,000 made every audited write in the other
+// spec files (a sign-in, a signature) wait for it.
 async function appendPlanAudit(
   sequelize: Sequelize,
   calcs: { id: number; project_id: number; created_by: number }[],
 ): Promise<void> {
-  await sequelize.transaction(async (transaction) => {
-    const [head] = await sequelize.query<{ last_hash: string }>(
-      'SELECT last_hash FROM audit_chain_head WHERE id = 1 FOR UPDATE',
-      { type: QueryTypes.SELECT, transaction },
-    );
-    let prev = head.last_hash;
-    let lastId = 0;
-    for (let from = 0; from < PLAN_AUDIT; from += 1000) {
-      const rows: unknown[] = [];
-      for (let i = from; i < from + 1000; i++) {
-        const { id: calcId, project_id: projectId, created_by: actorId } = calcs[i % calcs.length];
-        const content: ChainedContent = {
-          occurredAt: new Date().toISOString(),
-          actorId,
-          actorName: 'Plan author',
-          action: 'revision.saved',
-          entityType: 'Calc',
-          entityId: String(calcId),
-          payload: canonicalize({ i }) ?? '{}',
-          diff: null,
-          ip: null,
-        };
-        const hash = chainHash(prev, content);
-        rows.push([
-          new Date(content.occurredAt),
-          actorId,
-          content.actorName,
-          content.action,
-          content.entityType,
-          content.entityId,
-          content.payload,
-          prev,
-          hash,
-          calcId,
-          projectId,
-        ]);
-        prev = hash;
-      }
-      await sequelize.query(
-        `INSERT INTO audit_events (occurred_at, actor_id, actor_name, action, entity_type, entity_id, payload, prev_hash, hash, calc_id, project_id) VALUES ${rows.map(() => '(?)').join(', ')}`,
-        { replacements: rows, transaction },
-      );
-      const [last] = await sequelize.query<{ id: number }>('SELECT MAX(id) AS id FROM audit_events', {
-        type: QueryTypes.SELECT,
-        transaction,
-      });
-      lastId = last.id;
-    }
-    await sequelize.query('UPDATE audit_chain_head SET last_id = ?, last_hash = ? WHERE id = 1', {
-      replacements: [lastId, prev],
-      transaction,
-    });
+  for (let from = 0; from < PLAN_AUDIT; from += PLAN_AUDIT_BATCH) {
+    await runTransaction(sequelize, (transaction) => appendBatch(sequelize, calcs, from, transaction));
+  }
+}
+
+async function appendBatch(
+  sequelize: Sequelize,
+  calcs: { id: number; project_id: number; created_by: number }[],
+  from: number,
+  transaction: Transaction,
+): Promise<void> {
+  const [head] = await sequelize.query<{ last_hash: string }>(
+    'SELECT last_hash FROM audit_chain_head WHERE id = 1 FOR UPDATE',
+    { type: QueryTypes.SELECT, transaction },
+  );
+  let prev = head.last_hash;
+  const rows: unknown[] = [];
+  for (let i = from; i < from + PLAN_AUDIT_BATCH; i++) {
+    const { id: calcId, project_id: projectId, created_by: actorId } = calcs[i % calcs.length];
+    const content: ChainedContent = {
+      occurredAt: new Date().toISOString(),
+      actorId,
+      actorName: 'Plan author',
+      action: 'revision.saved',
+      entityType: 'Calc',
+      entityId: String(calcId),
+      payload: canonicalize({ i }) ?? '{}',
+      diff: null,
+      ip: null,
+    };
+    const hash = chainHash(prev, content);
+    rows.push([
+      new Date(content.occurredAt),
+      actorId,
+      content.actorName,
+      content.action,
+      content.entityType,
+      content.entityId,
+      content.payload,
+      prev,
+      hash,
+      calcId,
+      projectId,
+    ]);
+    prev = hash;
+  }
+  await sequelize.query(
+    `INSERT INTO audit_events (occurred_at, actor_id, actor_name, action, entity_type, entity_id, payload, prev_hash, hash, calc_id, project_id) VALUES ${rows.map(() => '(?)').join(', ')}`,
+    { replacements: rows, transaction },
+  );
+  // No one else appends while the head is held, so the largest id is this batch's last.
+  const [last] = await sequelize.query<{ id: number }>('SELECT MAX(id) AS id FROM audit_events', {
+    type: QueryTypes.SELECT,
+    transaction,
+  });
+  await sequelize.query('UPDATE audit_chain_head SET last_id = ?, last_hash = ? WHERE id = 1', {
+    replacements: [last.id, prev],
+    transaction,
   });
 }

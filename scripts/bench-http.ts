@@ -31,9 +31,7 @@ export function figuresOf(latencies: number[], seconds: number, errors: number):
  * Starts server/main.ts under tsx on a free port and resolves with its base URL once it listens.
  * BENCH_CPU_PROF=<folder> has the server write a V8 CPU profile there when it stops (open it in Chrome's DevTools).
  */
-export function startServer(
-  env: Record<string, string>,
-): Promise<{ url: string; child: ChildProcess; pids: number[] }> {
+export function startServer(env: Record<string, string>): Promise<{ url: string; child: ChildProcess }> {
   const profile = process.env.BENCH_CPU_PROF ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_CPU_PROF}`] : [];
   return new Promise((resolve, reject) => {
     const child = fork(join(__dirname, '..', 'server', 'main.ts'), [], {
@@ -42,9 +40,8 @@ export function startServer(
       stdio: ['ignore', 'ignore', 'inherit', 'ipc'],
     });
     child.once('exit', (code) => reject(new Error(`the server exited with ${code} before listening`)));
-    // With APP_PROCESSES > 1 the app's CPU is its workers' (the primary only hands out connections).
-    child.on('message', (m: { ready?: boolean; port?: number; workers?: number[] }) => {
-      if (m.ready) resolve({ url: `http://127.0.0.1:${m.port}`, child, pids: m.workers ?? [child.pid!] });
+    child.on('message', (m: { ready?: boolean; port?: number }) => {
+      if (m.ready) resolve({ url: `http://127.0.0.1:${m.port}`, child });
     });
   });
 }

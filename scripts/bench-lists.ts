@@ -20,14 +20,6 @@ const ALONE_SECONDS = Number(process.env.BENCH_ALONE_SECONDS ?? 5);
 /** BENCH_ONLY=search runs only the endpoints whose name matches (and the saves only if it matches "saves"). */
 const ONLY = process.env.BENCH_ONLY ? new RegExp(process.env.BENCH_ONLY, 'i') : null;
 
-const SERVER_ENV = {
-  LOG_LEVEL: 'silent',
-  MAIL_SENDER: 'false',
-  LOGIN_RATE_LIMIT: '10000',
-  NODE_ENV: 'production',
-  TLS: 'false',
-};
-
 async function main(): Promise<void> {
   const sequelize = createSequelize(loadConfig());
   const q = <T extends object>(sql: string) => sequelize.query<T>(sql, { type: QueryTypes.SELECT });
@@ -45,7 +37,13 @@ async function main(): Promise<void> {
   const [auditor] = await q<{ username: string; id: number }>(
     "SELECT u.username, u.id FROM users u JOIN user_roles r ON r.user_id = u.id AND r.role = 'compliance' WHERE u.username LIKE 'kfd-%' LIMIT 1",
   );
-  const server = await startServer(SERVER_ENV);
+  const server = await startServer({
+    LOG_LEVEL: 'silent',
+    MAIL_SENDER: 'false',
+    LOGIN_RATE_LIMIT: '10000',
+    NODE_ENV: 'production',
+    TLS: 'false',
+  });
   try {
     const compliance = await signIn(server.url, auditor.username, BENCH_PASSWORD);
     const worker = await signIn(server.url, dual.username, BENCH_PASSWORD);
@@ -72,18 +70,9 @@ async function main(): Promise<void> {
       );
     }
     console.log('  targets: p95 ≤ 50 ms each (32 concurrent)');
-    if (!ONLY || ONLY.test('saves')) await saves(server.url, sequelize, SECONDS, server.pids);
+    if (!ONLY || ONLY.test('saves')) await saves(server.url, sequelize, SECONDS, server.child.pid);
   } finally {
     server.child.kill('SIGTERM');
-  }
-  if (!ONLY || ONLY.test('saves')) {
-    // The same saves with the app on both cores: two app processes sharing one port (APP_PROCESSES).
-    const two = await startServer({ ...SERVER_ENV, APP_PROCESSES: '2' });
-    try {
-      await saves(two.url, sequelize, SECONDS, two.pids);
-    } finally {
-      two.child.kill('SIGTERM');
-    }
   }
   if (!ONLY || ONLY.test('saves')) await chainCeiling(sequelize, SECONDS);
   await sequelize.close();

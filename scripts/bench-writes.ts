@@ -16,7 +16,7 @@ interface Draft {
 }
 
 /** Twenty authors each save their own draft as fast as the server answers, for `seconds`. */
-export async function saves(url: string, sequelize: Sequelize, seconds: number, serverPids: number[]): Promise<void> {
+export async function saves(url: string, sequelize: Sequelize, seconds: number, serverPid?: number): Promise<void> {
   const drafts = await sequelize.query<Draft>(
     `SELECT u.username, r.id AS revisionId, r.lock_version AS lockVersion, r.input FROM users u
      JOIN calcs c ON c.id = (SELECT c2.id FROM calcs c2 WHERE c2.latest_author_id = u.id AND c2.latest_status = 'draft' ORDER BY c2.id LIMIT 1)
@@ -29,7 +29,7 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number, 
   let failures = 0;
   const until = performance.now() + seconds * 1000;
   const dbPid = await databasePid(sequelize);
-  const cpuBefore = cpuSeconds(...serverPids);
+  const cpuBefore = cpuSeconds(serverPid);
   const dbBefore = { cpu: cpuSeconds(dbPid), status: await dbStatus(sequelize) };
   await Promise.all(
     drafts.map(async (draft, w) => {
@@ -56,22 +56,20 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number, 
       }
     }),
   );
-  const processes = serverPids.length === 1 ? 'one app process' : `${serverPids.length} app processes`;
   console.log(
-    `Saves · ${drafts.length} writers on their own drafts · ${seconds} s · ${processes} (engine, checklist, diff, hash, ` +
-      'audit entry, answer)',
+    `Saves · ${drafts.length} writers on their own drafts · ${seconds} s (engine, checklist, diff, hash, audit entry, answer)`,
   );
   console.log(line('PUT /api/revisions/:id', figuresOf(latencies, seconds, failures)));
   console.log('  target: ≥ 150 saves/s with p95 ≤ 150 ms');
   printPhases(phases);
   // CPU seconds hardly move with other jobs' load, so they compare two versions better than wall-clock figures.
-  const cpu = cpuSeconds(...serverPids) - cpuBefore;
+  const cpu = cpuSeconds(serverPid) - cpuBefore;
   const dbCpu = cpuSeconds(dbPid) - dbBefore.cpu;
   const status = await dbStatus(sequelize);
   const per = (name: string) => ((status[name] - dbBefore.status[name]) / latencies.length).toFixed(1);
   const ms = (seconds: number) => ((seconds * 1000) / latencies.length).toFixed(1);
   if (!latencies.length) return;
-  console.log(`  CPU per save: app ${ms(cpu)} ms, MariaDB ${ms(dbCpu)} ms`);
+  console.log(`  CPU per save: app process ${ms(cpu)} ms, MariaDB ${ms(dbCpu)} ms`);
   // Sent by the app (Questions: not the statements a procedure runs inside), bytes both ways, per save (refused too).
   console.log(
     `  per save: statements ${per('Questions')}, bytes to MariaDB ${per('Bytes_received')}, ` +
@@ -94,15 +92,11 @@ async function databasePid(sequelize: Sequelize): Promise<number | undefined> {
   return row && existsSync(row.file) ? Number(readFileSync(row.file, 'utf8').trim()) : undefined;
 }
 
-/** User + system CPU seconds of these processes so far (Linux /proc), or NaN when one is unknown. */
-export function cpuSeconds(...pids: (number | undefined)[]): number {
-  let sum = 0;
-  for (const pid of pids) {
-    if (!pid || !existsSync(`/proc/${pid}/stat`)) return NaN;
-    const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
-    sum += (Number(fields[11]) + Number(fields[12])) / 100;
-  }
-  return pids.length ? sum : NaN;
+/** User + system CPU seconds of a process so far (Linux /proc), or NaN when unknown. */
+export function cpuSeconds(pid?: number): number {
+  if (!pid || !existsSync(`/proc/${pid}/stat`)) return NaN;
+  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+  return (Number(fields[11]) + Number(fields[12])) / 100;
 }
 
 /** Adds each phase of a save's Server-Timing header (lock, engine, digest, write, audit, commit, answer …). */

@@ -67,8 +67,6 @@ const envSchema = z.object({
     .min(1)
     .max(16)
     .default(Math.min(4, Math.max(1, availableParallelism() - 1))),
-  // App processes on this machine sharing PORT (node:cluster); each is a whole instance with its own DB_POOL_MAX.
-  APP_PROCESSES: z.coerce.number().int().min(1).max(64).default(1),
   WORK_MEMORY_MB: z.coerce.number().int().min(64).max(4096).default(512),
   WORK_QUEUE: z.coerce.number().int().min(0).max(1000).default(32),
 });

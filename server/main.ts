@@ -1,13 +1,13 @@
-import cluster from 'node:cluster';
 import type { Server } from 'node:http';
-import { announce, runAppProcesses } from './app-processes';
-import { loadConfig, type Config } from './config';
+import { CAUTION } from '../shared/engine';
+import { loadConfig } from './config';
 import { createSequelize } from './db';
 import { closeApp, createApp } from './app';
 import { logger } from './logger';
 import { startMailSender } from './mail/start-sender';
 
-async function main(config: Config): Promise<void> {
+async function main(): Promise<void> {
+  const config = loadConfig();
   const sequelize = createSequelize(config);
   try {
     await sequelize.authenticate();
@@ -20,9 +20,13 @@ async function main(config: Config): Promise<void> {
   const server: Server = app.listen(config.PORT, config.HOST, () => {
     const address = server.address();
     const port = typeof address === 'object' && address ? address.port : config.PORT;
-    // A worker tells its primary, which says it once for all of them.
-    if (cluster.isWorker) process.send?.({ ready: true, port });
-    else announce(config, port);
+    logger.info({ port }, 'Torquetrail is listening');
+    if (config.NODE_ENV !== 'test') {
+      process.stdout.write(
+        `\nTorquetrail is running at http://${config.HOST}:${port}/  (Ctrl-C stops it)\n` + `${CAUTION}\n\n`,
+      );
+    }
+    if (process.send) process.send({ ready: true, port });
   });
 
   const shutdown = (signal: string) => {
@@ -43,6 +47,4 @@ async function main(config: Config): Promise<void> {
   });
 }
 
-const config = loadConfig();
-if (cluster.isPrimary && config.APP_PROCESSES > 1) runAppProcesses(config);
-else void main(config);
+void main();

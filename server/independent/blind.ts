@@ -64,7 +64,7 @@ export async function verificationFor(
           differences,
         }
       : null,
-    signed: model ? signedModelOf(model, name) : null,
+    signed: model ? await signedModelOf(model, name, transaction) : null,
   };
 }
 

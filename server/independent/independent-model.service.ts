@@ -7,6 +7,8 @@ import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { loadRevision } from '../calcs/calc-access';
 import { computeRecord } from '../calcs/revision-content';
+import { compactResult, registerEngineMetadata } from '../calcs/stored-result';
+import { compactChecklist } from '../calcs/stored-checklist';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { assertProjectOpen } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
@@ -42,6 +44,9 @@ export class IndependentModelService {
     input: Record<string, unknown>,
     lockVersion: number,
   ): Promise<IndependentModelDto> {
+    // The result is stored without the engine version's units and formulas (as a revision's is): they are
+    // recorded first, outside the transaction (server/calcs/revision-save.ts says why).
+    await registerEngineMetadata(this.sequelize);
     const id = await runTransaction(this.sequelize, async (transaction) => {
       const revision = await loadRevision(revisionId, transaction);
       await assertProjectOpen(revision.calcId, transaction);
@@ -56,8 +61,8 @@ export class IndependentModelService {
       const record = await computeRecord(input, parseRuleSet(revision.ruleSet!));
       const values = {
         input: JSON.stringify(input),
-        result: record.result ? JSON.stringify(record.result) : null,
-        checklist: record.checklist ? JSON.stringify(record.checklist) : null,
+        result: compactResult(record.result),
+        checklist: compactChecklist(record.checklist),
         verdict: record.verdict,
       };
       const saved = model

@@ -2,10 +2,11 @@ import type { IndependentModelDto } from '../../shared/schemas/independent-model
 import type { Comparison } from '../../shared/verification';
 import { validateCalcInput } from '../../shared/engine';
 import type { IndependentModel } from '../db/models';
+import { modelContentOf } from './model-hash';
 
 /** The checker's model as the API gives it: the same parts as a revision's own content. */
-export function toModelDto(m: IndependentModel, checkerName: string): IndependentModelDto {
-  const input = JSON.parse(m.input) as Record<string, unknown>;
+export async function toModelDto(m: IndependentModel, checkerName: string): Promise<IndependentModelDto> {
+  const { input, result, checklist } = await modelContentOf(m);
   const validated = validateCalcInput(input);
   return {
     id: m.id,
@@ -13,8 +14,8 @@ export function toModelDto(m: IndependentModel, checkerName: string): Independen
     checker: { id: m.checkerId, name: checkerName },
     state: m.lockedAt ? 'locked' : 'open',
     input,
-    result: m.result ? JSON.parse(m.result) : null,
-    checklist: m.checklist ? JSON.parse(m.checklist) : null,
+    result,
+    checklist,
     verdict: m.verdict,
     inputIssues: validated.ok ? (m.result ? [] : [{ path: '', message: 'could not be evaluated' }]) : validated.issues,
     lockedAt: m.lockedAt?.toISOString() ?? null,

@@ -3,7 +3,9 @@ import canonicalize from 'canonicalize';
 import type { Comparison } from '../../shared/verification';
 import type { SignedModel } from '../../shared/schemas/independent-model.schema';
 import type { Transaction } from 'sequelize';
-import { Revision, type IndependentModel } from '../db/models';
+import type { CalcResult } from '../../shared/engine';
+import type { Checklist } from '../../shared/rules';
+import { IndependentModel, Revision } from '../db/models';
 import { expandResult } from '../calcs/stored-result';
 import { expandChecklist } from '../calcs/stored-checklist';
 
@@ -12,26 +14,43 @@ const sha256 = (value: unknown) =>
     .update(canonicalize(value) ?? '')
     .digest('hex');
 
-/** SHA-256 over the RFC 8785 JSON of the checker's input, result and checklist as stored. */
-export function modelHashOf(row: Pick<IndependentModel, 'input' | 'result' | 'checklist'>): string {
-  return sha256({
-    input: JSON.parse(row.input),
-    result: row.result ? JSON.parse(row.result) : null,
-    checklist: row.checklist ? JSON.parse(row.checklist) : null,
-  });
+type StoredModel = Pick<IndependentModel, 'input' | 'result' | 'checklist'>;
+
+/**
+ * The checker's input, and the result and checklist as the engine and evaluator returned them: stored compactly
+ * like a revision's (server/calcs/stored-result.ts, stored-checklist.ts), or whole in rows saved before that.
+ */
+export async function modelContentOf(row: StoredModel, transaction?: Transaction) {
+  return {
+    input: JSON.parse(row.input) as Record<string, unknown>,
+    result: (await expandResult(IndependentModel.sequelize!, row.result, transaction)) as CalcResult | null,
+    checklist: expandChecklist(row.checklist) as Checklist | null,
+  };
+}
+
+/**
+ * SHA-256 over the RFC 8785 JSON of the checker's input, result and checklist as the engine and evaluator
+ * returned them (read back from the stored form), so a compactly stored model hashes as one stored whole.
+ */
+export async function modelHashOf(row: StoredModel, transaction?: Transaction): Promise<string> {
+  return sha256(await modelContentOf(row, transaction));
 }
 
 /**
  * The part of a locked model a signature covers (content format 3), rebuilt from what is stored
  * now: a changed input, result or comparison changes the hash, so tampering shows as a broken signature.
  */
-export function signedModelOf(row: IndependentModel, checkerName: string): SignedModel | null {
+export async function signedModelOf(
+  row: IndependentModel,
+  checkerName: string,
+  transaction?: Transaction,
+): Promise<SignedModel | null> {
   if (!row.lockedAt || !row.comparison || !row.authorHash) return null;
   return {
     checker: checkerName,
     lockedAt: row.lockedAt.toISOString(),
     input: JSON.parse(row.input),
-    modelHash: modelHashOf(row),
+    modelHash: await modelHashOf(row, transaction),
     authorHash: row.authorHash,
     agrees: row.agrees === true,
     comparison: JSON.parse(row.comparison) as Comparison,

@@ -1,6 +1,5 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { validateCalcInput, type CalcInput, type CalcResult } from '../../shared/engine';
-import type { Checklist } from '../../shared/rules';
+import { validateCalcInput, type CalcInput } from '../../shared/engine';
 import { compareModels, describeDifference, type Comparison } from '../../shared/verification';
 import { Finding, type IndependentModel, type Revision } from '../db/models';
 import { AppError } from '../errors/app-error';
@@ -8,7 +7,7 @@ import { appendAudit, type Actor } from '../audit/audit.service';
 import { expandResult } from '../calcs/stored-result';
 import { expandChecklist } from '../calcs/stored-checklist';
 import { needOf } from './blind';
-import { authorModelHash, modelHashOf } from './model-hash';
+import { authorModelHash, modelContentOf, modelHashOf } from './model-hash';
 
 type Checker = Actor & { id: number };
 
@@ -38,6 +37,7 @@ export async function compareWithAuthor(
       { fieldErrors: { input: ['could not be evaluated'] } },
     );
   const authorResult = await expandResult(sequelize, revision.result, transaction);
+  const checker = await modelContentOf(model, transaction);
   if (!authorResult || !revision.checklist) throw AppError.conflict("The author's calc has no result to compare with");
   return compareModels(
     {
@@ -47,8 +47,8 @@ export async function compareWithAuthor(
     },
     {
       input: checkerInput,
-      result: JSON.parse(model.result) as CalcResult,
-      checklist: JSON.parse(model.checklist) as Checklist,
+      result: checker.result!,
+      checklist: checker.checklist!,
     },
     tolerances,
   );
@@ -87,7 +87,7 @@ export async function lockAndCompare(
   await model.update(
     {
       lockedAt: new Date(now),
-      modelHash: modelHashOf(model),
+      modelHash: await modelHashOf(model, transaction),
       authorHash,
       comparison: JSON.stringify(comparison),
       agrees: comparison.agrees,

@@ -14,7 +14,7 @@ export async function lockedModelOf(revisionId: number, transaction?: Transactio
   const row = await IndependentModel.findOne({ where: { revisionId }, transaction });
   if (!row?.lockedAt) return null;
   const checker = await User.findByPk(row.checkerId, { attributes: ['id', 'displayName'], transaction });
-  return signedModelOf(row, checker?.displayName ?? 'unknown');
+  return signedModelOf(row, checker?.displayName ?? 'unknown', transaction);
 }
 
 /** The format a new signature of this revision is made in. */

@@ -1,8 +1,8 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import type { EnvironmentProviders, Provider, Type } from '@angular/core';
-import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { provideHttpClient, withInterceptors, type HttpRequest } from '@angular/common/http';
 import { errorInterceptor } from '../../src/app/core/http/error-interceptor';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { HttpTestingController, provideHttpClientTesting, type TestRequest } from '@angular/common/http/testing';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 
@@ -49,6 +49,29 @@ export async function mountComponent<T>(
       await new Promise((resolve) => setTimeout(resolve));
       TestBed.tick();
       fixture.detectChanges();
+    },
+    /**
+     * Settles until the component has sent a request `matches` picks, and returns it: a condition, not a time. Run it
+     * beside a harness action that sends one (the harness waits for stability, which the open request holds off).
+     */
+    async request(matches: (r: HttpRequest<unknown>) => boolean): Promise<TestRequest> {
+      for (;;) {
+        await mounted.settle();
+        const found = http.match(matches);
+        if (found.length) return found[0];
+      }
+    },
+    /** Runs a harness action that sends a request, answers that request with `body`, and returns it once both end. */
+    async answerDuring(
+      action: () => Promise<unknown>,
+      matches: (r: HttpRequest<unknown>) => boolean,
+      body: object,
+    ): Promise<HttpRequest<unknown>> {
+      const acting = action();
+      const sent = await mounted.request(matches);
+      sent.flush(body);
+      await acting;
+      return sent.request;
     },
   };
   await mounted.settle();

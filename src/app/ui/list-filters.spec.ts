@@ -1,4 +1,5 @@
-import { ListFilters } from './list-filters';
+import type { PageEvent } from '@angular/material/paginator';
+import { ListFilters, pagedFilters } from './list-filters';
 
 describe('ListFilters', () => {
   it('when a filter changes, then the list goes back to its first page and the other filters stay', () => {
@@ -11,5 +12,15 @@ describe('ListFilters', () => {
 
     expect(steps).toEqual(["first page, status ''"]);
     expect(filters.value()).toEqual({ status: 'failed', q: 'shaft' });
+  });
+
+  it('when a page-numbered list is turned and then filtered, then it is on page 0 with the size kept', () => {
+    const list = pagedFilters({ q: '' });
+    list.turn({ pageIndex: 3, pageSize: 50 } as PageEvent);
+    expect(list.params()).toEqual({ page: 3, size: 50, q: '' });
+
+    list.filters.set({ q: 'KF-02' });
+
+    expect(list.params()).toEqual({ page: 0, size: 50, q: 'KF-02' });
   });
 });

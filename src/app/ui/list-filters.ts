@@ -1,9 +1,11 @@
-import { signal, type Signal, type WritableSignal } from '@angular/core';
+import { computed, signal, type Signal, type WritableSignal } from '@angular/core';
+import type { PageEvent } from '@angular/material/paginator';
 
 /**
  * The filters of a server-paged list, in one signal its resource reads. Changing a filter first sends the list back
  * to its first page (`toFirstPage`): a page number or cursor kept from the old filter would name rows of another
- * list. The audit trail and the sent-mail outbox filter this way.
+ * list. Every filtered list filters this way: the audit trail (by cursor) directly, the page-numbered lists (sent
+ * mail, people, projects) through `pagedFilters`.
  */
 export class ListFilters<F extends object> {
   readonly #value: WritableSignal<F>;
@@ -22,4 +24,18 @@ export class ListFilters<F extends object> {
     this.toFirstPage();
     this.#value.update((filters) => ({ ...filters, ...patch }));
   }
+}
+
+/**
+ * A page-numbered list's filters and page together: `params` (page, size and filters) is what its resource reads,
+ * `turn` follows the paginator, and a filter change returns to page 0 (keeping the page size).
+ */
+export function pagedFilters<F extends object>(initial: F, size = 25) {
+  const paging = signal({ page: 0, size });
+  const filters = new ListFilters(initial, () => paging.update((p) => ({ ...p, page: 0 })));
+  return {
+    filters,
+    params: computed(() => ({ ...paging(), ...filters.value() })),
+    turn: (event: PageEvent) => paging.set({ page: event.pageIndex, size: event.pageSize }),
+  };
 }

@@ -9,19 +9,9 @@ import { MatAutocompleteHarness } from '@angular/material/autocomplete/testing';
 import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import type { ProjectDto } from '../../../../shared/schemas/project.schema';
 import { errorInterceptor } from '../../core/http/error-interceptor';
+import { project } from '../../../../test/support/project-fixture';
 import { PICKER_SIZE, ProjectPicker } from './project-picker';
 
-const project = (id: number): ProjectDto => ({
-  id,
-  code: `KF-${String(id).padStart(4, '0')}`,
-  name: `Kestrel Fen line ${id}`,
-  client: 'Kestrel Fen Drives',
-  description: '',
-  revisionScheme: 'letters',
-  status: 'active',
-  createdAt: '2026-11-02T08:00:00Z',
-  version: 1,
-});
 const answer = (items: ProjectDto[], total: number) => ({ items, total, page: 0, size: PICKER_SIZE });
 const firstPage = Array.from({ length: PICKER_SIZE }, (_, i) => project(i + 1));
 

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, type Signal } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { RouterLink } from '@angular/router';
 import { MatTableModule } from '@angular/material/table';
@@ -14,6 +14,7 @@ import type { AppAbility } from '../../../../shared/authz/app-ability';
 import type { ProjectDto } from '../../../../shared/schemas/project.schema';
 import { EmptyState } from '../../ui/empty-state';
 import { LoadFailure } from '../../ui/load-failure';
+import { pagedFilters } from '../../ui/list-filters';
 import { ProjectsApi, type ProjectListParams } from './projects-api';
 import { ProjectDialog } from './project-dialog';
 
@@ -40,7 +41,8 @@ export default class ProjectsPage {
   private readonly dialog = inject(MatDialog);
   private readonly ability = inject<AbilityServiceSignal<AppAbility>>(AbilityServiceSignal);
 
-  protected readonly params = signal<ProjectListParams>({ page: 0, size: 25, q: '' });
+  private readonly list = pagedFilters<Pick<ProjectListParams, 'q'>>({ q: '' });
+  protected readonly params: Signal<ProjectListParams> = this.list.params;
   protected readonly projects = inject(ProjectsApi).list(this.params);
   protected readonly rows = computed(() => (this.projects.hasValue() ? this.projects.value().items : []));
   protected readonly total = computed(() => (this.projects.hasValue() ? this.projects.value().total : 0));
@@ -57,11 +59,11 @@ export default class ProjectsPage {
   ]);
 
   protected search(q: string): void {
-    this.params.update((p) => ({ ...p, q: q.trim(), page: 0 }));
+    this.list.filters.set({ q: q.trim() });
   }
 
   protected changePage(event: PageEvent): void {
-    this.params.update((p) => ({ ...p, page: event.pageIndex, size: event.pageSize }));
+    this.list.turn(event);
   }
 
   protected openEditor(project: ProjectDto | null): void {

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal, type Signal } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { MatTableModule } from '@angular/material/table';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
@@ -10,7 +10,7 @@ import type { SentMailDto } from '../../../../shared/schemas/mail.schema';
 import { assertApiFailure } from '../../core/http/api-failure';
 import { EmptyState } from '../../ui/empty-state';
 import { LoadFailure } from '../../ui/load-failure';
-import { ListFilters } from '../../ui/list-filters';
+import { pagedFilters } from '../../ui/list-filters';
 import { RecordsApi, type SentMailParams } from './records-api';
 
 /** Admins read the mail outbox: what was sent, to whom, and what is still retrying or gave up. */
@@ -33,11 +33,8 @@ import { RecordsApi, type SentMailParams } from './records-api';
 })
 export default class SentMailPage {
   private readonly api = inject(RecordsApi);
-  private readonly paging = signal({ page: 0, size: 25 });
-  private readonly filters = new ListFilters<Pick<SentMailParams, 'status'>>({ status: '' }, () =>
-    this.paging.update((p) => ({ ...p, page: 0 })),
-  );
-  protected readonly params = computed<SentMailParams>(() => ({ ...this.paging(), ...this.filters.value() }));
+  private readonly list = pagedFilters<Pick<SentMailParams, 'status'>>({ status: '' });
+  protected readonly params: Signal<SentMailParams> = this.list.params;
   protected readonly mail = this.api.sentMail(this.params);
   protected readonly rows = computed(() => (this.mail.hasValue() ? this.mail.value().items : []));
   protected readonly total = computed(() => (this.mail.hasValue() ? this.mail.value().total : 0));
@@ -52,11 +49,11 @@ export default class SentMailPage {
   ] as const;
 
   protected filterStatus(status: SentMailParams['status']): void {
-    this.filters.set({ status });
+    this.list.filters.set({ status });
   }
 
   protected changePage(event: PageEvent): void {
-    this.paging.set({ page: event.pageIndex, size: event.pageSize });
+    this.list.turn(event);
   }
 
   protected async open(row: SentMailDto): Promise<void> {

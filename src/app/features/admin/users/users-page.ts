@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, type Signal, viewChild } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { MatTableModule } from '@angular/material/table';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
@@ -16,6 +16,7 @@ import { SessionStore } from '../../../core/auth/session-store';
 import { assertApiFailure } from '../../../core/http/api-failure';
 import { EmptyState } from '../../../ui/empty-state';
 import { LoadFailure } from '../../../ui/load-failure';
+import { pagedFilters } from '../../../ui/list-filters';
 import { UsersApi, type UserListParams } from './users-api';
 import { UserDialog } from './user-dialog';
 import { PendingGrants } from './pending-grants';
@@ -47,7 +48,8 @@ export default class UsersPage {
   private readonly snackBar = inject(MatSnackBar);
   protected readonly me = inject(SessionStore).user;
 
-  protected readonly params = signal<UserListParams>({ page: 0, size: 25, q: '' });
+  private readonly list = pagedFilters<Pick<UserListParams, 'q'>>({ q: '' });
+  protected readonly params: Signal<UserListParams> = this.list.params;
   protected readonly users = this.api.list(this.params);
   protected readonly rows = computed(() => (this.users.hasValue() ? this.users.value().items : []));
   protected readonly total = computed(() => (this.users.hasValue() ? this.users.value().total : 0));
@@ -55,11 +57,11 @@ export default class UsersPage {
   protected readonly columns = ['username', 'displayName', 'roles', 'status', 'lastSignInAt', 'actions'];
 
   protected search(q: string): void {
-    this.params.update((p) => ({ ...p, q: q.trim(), page: 0 }));
+    this.list.filters.set({ q: q.trim() });
   }
 
   protected changePage(event: PageEvent): void {
-    this.params.update((p) => ({ ...p, page: event.pageIndex, size: event.pageSize }));
+    this.list.turn(event);
   }
 
   protected openEditor(user: UserDto | null): void {

@@ -89,22 +89,39 @@ describe('the project picker', () => {
     expect(await field.getTextHints()).toEqual([]);
   });
 
-  it('when the chosen project is in no answer, then it is read by id and stays shown and offered', async () => {
+  it('when the chosen project is past the first answer, then it is read by id, offered and counted once', async () => {
     const d = await open();
     d.fixture.componentInstance.value.set(230);
     (await d.request((r) => r.url === '/api/projects/230')).flush(project(230));
     (await d.request(isList(''))).flush(answer(firstPage, 240));
     await d.settle();
     const picker = await d.loader.getHarness(MatAutocompleteHarness);
+    const field = await d.loader.getHarness(MatFormFieldHarness);
 
     expect(await picker.getValue()).toBe('KF-0230 · Kestrel Fen line 230');
     await picker.focus();
     const offered = await Promise.all((await picker.getOptions()).map((o) => o.getText()));
     expect(offered.slice(0, 3)).toEqual([
       'All projects',
-      '215 more — type to narrow',
+      '214 more — type to narrow',
       'KF-0230 · Kestrel Fen line 230',
     ]);
+    // 26 project rows: the first answer's 25 and the chosen one, which is one of the 240.
+    expect(offered.filter((o) => o.startsWith('KF-'))).toHaveLength(26);
+    expect(await field.getTextHints()).toEqual(['Showing 26 of 240: type a code or name']);
+
+    // A search lists what the server found, so the rows and the count agree.
+    await typeAll(picker, 'line 1');
+    // Of projects 1–240, 111 have 'line 1' in their names (1, 10–19, 100–199); the first answer lists 25.
+    const range = (from: number, to: number) => Array.from({ length: to - from + 1 }, (_, i) => from + i);
+    const lineOne = [1, ...range(10, 19), ...range(100, 113)].map(project);
+    (await d.request(isList('line 1'))).flush(answer(lineOne, 111));
+    await d.settle();
+    const searched = await Promise.all((await picker.getOptions()).map((o) => o.getText()));
+    expect(searched.filter((o) => o.startsWith('KF-'))).toHaveLength(25);
+    expect(searched).not.toContain('KF-0230 · Kestrel Fen line 230');
+    expect(searched).toContain('86 more — type to narrow');
+    expect(await field.getTextHints()).toEqual(['Showing 25 of 111: type a code or name']);
   });
 
   it('when a search is typed but nothing is chosen, then leaving the list shows the chosen project again', async () => {

@@ -18,7 +18,7 @@ const projectText = (p: ProjectDto | string | null) => (typeof p === 'string' ? 
 
 /**
  * Chooses one project (or all) out of any number: typing searches code and name on the server, the answer
- * says how many more there are, and the chosen project stays shown even when a search leaves it out.
+ * says how many more there are, and the unfiltered list offers the chosen project even beyond its first answer.
  */
 @Component({
   selector: 'tt-project-picker',
@@ -68,13 +68,20 @@ export class ProjectPicker {
     return this.lookup.hasValue() && this.lookup.value().id === id ? this.lookup.value() : null;
   });
   protected readonly found = computed(() => (this.matches.hasValue() ? this.matches.value().items : []));
+  /**
+   * The unfiltered list adds the chosen project when its answer leaves it out: it is then one of the answer's total,
+   * so the counts stay exact. A search lists only its answer: whether the chosen project matches is the server's
+   * call, and offering it anyway would miscount (or sit beside "No project matches").
+   */
   protected readonly options = computed(() => {
     const chosen = this.chosen();
-    return chosen && !this.found().some((p) => p.id === chosen.id) ? [chosen, ...this.found()] : this.found();
+    const add = chosen && this.typed() === '' && !this.found().some((p) => p.id === chosen.id);
+    return add ? [chosen, ...this.found()] : this.found();
   });
-  protected readonly more = computed(() =>
-    this.matches.hasValue() ? Math.max(0, this.matches.value().total - this.matches.value().items.length) : 0,
-  );
+  /** How many projects there are in all (for the search, if any). */
+  protected readonly total = computed(() => (this.matches.hasValue() ? this.matches.value().total : 0));
+  /** How many of them the list does not show. */
+  protected readonly more = computed(() => Math.max(0, this.total() - this.options().length));
   protected readonly failure = computed(() => {
     const error = this.matches.error() ?? this.lookup.error();
     return error ? loadFailureText(error, 'project list') : null;

@@ -69,9 +69,20 @@ it('when the office has more projects than one answer lists, then typing finds a
   // After each redraw of the list, Material's autocomplete clears the active option from a timer; Chromium may handle
   // key presses before a waiting timer, so on a busy machine arrowing was undone. Let the waiting timers run first.
   await page.evaluate(() => new Promise((resolve) => setTimeout(resolve)));
-  const active = () =>
-    page.evaluate(() => document.querySelector('mat-option.mat-mdc-option-active')?.textContent?.trim() ?? '');
-  for (let presses = 0; presses < 4 && (await active()) !== wanted; presses++) await page.keyboard.press('ArrowDown');
+  const activeText = (selector: string) => document.querySelector(selector)?.textContent?.trim() ?? '';
+  const ACTIVE = 'mat-option.mat-mdc-option-active';
+  const active = () => page.evaluate(activeText, ACTIVE);
+  // A key press moves the active option at once, but the page shows it only after its next change detection: read
+  // too early, the old option still looks active and one more press passes the wanted one. Each press changes the
+  // active option (the list wraps), so wait for the page to show that change before judging it.
+  for (let presses = 0; presses < 4 && (await active()) !== wanted; presses++) {
+    const before = await active();
+    await page.keyboard.press('ArrowDown');
+    await page.waitForFunction(
+      ([selector, previous]) => (document.querySelector(selector)?.textContent?.trim() ?? '') !== previous,
+      [ACTIVE, before],
+    );
+  }
   await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'project-picker-keyboard-1440.png') });
   expect(await active()).toBe(wanted);
   const relisted = fullList(page);

@@ -1,7 +1,7 @@
 import { Pipe, PipeTransform } from '@angular/core';
 
-// Plain-English names for audit actions. The codes stay in the data (and the detail and export);
-// an action without a name here shows its code, so a new action is never hidden.
+// Plain-English names for audit actions. The codes stay in the data (and the detail and export); an action without
+// a name here would show its code, so a spec (audit-action-label.spec.ts) names every action the server writes.
 const LABELS: Record<string, string> = {
   'auth.signed_in': 'signed in',
   'auth.signed_out': 'signed out',
@@ -39,6 +39,9 @@ const LABELS: Record<string, string> = {
   'attachment.added': 'attached a file',
   'attachment.removed': 'removed a file',
   'evidence.exported': 'exported an evidence pack',
+  'independent_model.started': 'started an independent model of the calc',
+  'independent_model.saved': 'saved their independent model',
+  'independent_model.locked': "locked their independent model and compared it with the author's calc",
   'rule_set.loaded': 'loaded a design standard',
   'rule_set.drafted': 'drafted a standard change',
   'rule_set.saved': 'saved a standard draft',
@@ -46,6 +49,7 @@ const LABELS: Record<string, string> = {
   'rule_set.confirmed': 'confirmed a standard',
   'rule_set.confirmation_refused': 'was refused confirming a standard',
   'rule_set.effective': 'made a standard effective',
+  'rule_set.retired': 'retired a standard version (a later version took effect)',
   'rule_set.impact_notified': 'notified the impact of a standard change',
   'review_health.settings_changed': 'changed the review-health thresholds',
 };

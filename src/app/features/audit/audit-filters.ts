@@ -34,6 +34,8 @@ export const AUDIT_ACTION_FILTERS = [
   { value: 'finding.', label: 'Findings' },
   { value: 'rule_set.', label: 'Standards' },
   { value: 'attachment.', label: 'Attachments' },
+  { value: 'independent_model.', label: 'Independent models' },
+  { value: 'evidence.', label: 'Evidence packs' },
   { value: 'revision.signed_checked', label: 'Check signatures' },
   { value: 'revision.signed_approved', label: 'Approval signatures' },
   { value: 'revision.signed_authored', label: 'Submissions' },

@@ -15,6 +15,14 @@ import { MatIconModule } from '@angular/material/icon';
     </div>
   `,
   styles: `
+    /* In a table wider than a phone's screen the empty row spans the whole table: the message stays in view at
+       the left edge of the scrolling box and wraps within the screen's width, not the table's. */
+    :host {
+      display: block;
+      position: sticky;
+      left: 0;
+      max-width: min(100%, calc(100vw - 48px));
+    }
     .empty {
       display: flex;
       gap: 14px;

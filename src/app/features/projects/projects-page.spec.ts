@@ -15,12 +15,12 @@ const ids = (from: number, count: number) => Array.from({ length: count }, (_, i
 const isList = (page: number) => (r: HttpRequest<unknown>) =>
   r.url === '/api/projects' && r.params.get('page') === String(page);
 
-async function open() {
+async function open(first = answer(0, ids(1, 25), 240)) {
   const reader = createAppAbility(defineRulesFor({ id: 1, roles: ['author'] }));
   const d = await mountComponent(ProjectsPage, {
     providers: [provideRouter([]), { provide: PureAbility, useValue: reader }],
   });
-  (await d.request(isList(0))).flush(answer(0, ids(1, 25), 240));
+  (await d.request(isList(0))).flush(first);
   await d.settle();
   return d;
 }
@@ -42,6 +42,20 @@ describe('the projects page', () => {
     expect([sent.params.get('q'), sent.params.get('page')]).toEqual(['line 20', '0']);
     expect(await paginator.getRangeLabel()).toBe('1 – 2 of 2');
     expect(d.text()).toContain('KF-0200');
+    d.http.verify();
+  });
+
+  it('given no projects at all, then the empty list says none exist yet; after a search, that none match', async () => {
+    const d = await open(answer(0, [], 0));
+    expect(d.text()).toContain('No projects yet');
+    expect(d.text()).not.toContain('No projects match');
+
+    const field = await d.loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Find by code or name' }));
+    const search = (await field.getControl(MatInputHarness))!;
+    await search.setValue('zzz');
+    const enter = async () => (await search.host()).sendKeys(TestKey.ENTER);
+    await d.answerDuring(enter, (r) => r.url === '/api/projects', answer(0, [], 0));
+    expect(d.text()).toContain('No projects match');
     d.http.verify();
   });
 });

@@ -71,7 +71,7 @@ describe('screens at desk, tablet and phone widths', () => {
       checkerTeam.revisionId,
     );
     const draft = await calcTeam(suite.server());
-    const compliance = await createTestUser(['compliance'], 'e2e-screens-compliance');
+    const compliance = await createTestUser(['compliance', 'admin'], 'e2e-screens-compliance');
     const problems: string[] = [];
     const page = await suite.session.context.newPage();
 
@@ -88,6 +88,8 @@ describe('screens at desk, tablet and phone widths', () => {
           .waitFor(),
       )),
     );
+    await page.goto(`/projects/${draft.project.id}`);
+    problems.push(...(await visit(page, 'project-calcs', () => page.locator('mat-paginator').waitFor())));
     await page.goto(`/calcs/${draft.calc.id}`);
     problems.push(
       ...(await visit(page, 'calc-draft', () => page.getByRole('button', { name: /Sign and submit/ }).waitFor())),
@@ -116,6 +118,19 @@ describe('screens at desk, tablet and phone widths', () => {
     );
     await page.goto('/rule-sets');
     problems.push(...(await visit(page, 'rule-sets', () => page.getByRole('heading').first().waitFor())));
+    await page.goto('/projects');
+    problems.push(...(await visit(page, 'projects', () => page.locator('mat-paginator').waitFor())));
+    await page.goto('/admin/users');
+    problems.push(...(await visit(page, 'people', () => page.locator('mat-paginator').waitFor())));
+    await page.goto('/review-health');
+    problems.push(
+      ...(await visit(page, 'review-health', () =>
+        page
+          .getByText(/checks signed/)
+          .first()
+          .waitFor(),
+      )),
+    );
     await page.goto('/verify');
     problems.push(
       ...(await visit(page, 'verify', () => page.getByRole('heading', { name: 'Verify a record' }).waitFor())),

@@ -29,6 +29,7 @@ describe('KeysetPager', () => {
     pager.turn({ pageIndex: 1, pageSize: 25, previousPageIndex: 0, length: 10_000 });
     pager.remember(page('c2'));
     expect(pager.totalLabel()).toBe('at least 10,000');
+    expect(pager.totalOf('calc', 'calcs')).toBe('at least 10,000 calcs');
     expect(pager.length()).toBe(10_000);
   });
 
@@ -45,6 +46,16 @@ describe('KeysetPager', () => {
     pager.reset();
     pager.remember(page(null, 0, false, 0));
     expect(pager.length()).toBe(0);
+  });
+
+  it('when exactly one row is counted, then the line beside the table names it in the singular', () => {
+    const pager = new KeysetPager(25);
+    expect(pager.totalOf('calc', 'calcs')).toBe('');
+    pager.remember(page(null, 1, false, 1));
+    expect(pager.totalOf('calc', 'calcs')).toBe('1 calc');
+    pager.reset();
+    pager.remember(page(null, 8, false, 8));
+    expect(pager.totalOf('entry', 'entries')).toBe('8 entries');
   });
 
   it('when the last of several pages is short, then the length ends at its last row', () => {

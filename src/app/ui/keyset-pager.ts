@@ -41,6 +41,12 @@ export class KeysetPager {
     return t ? `${t.isAtLeast ? 'at least ' : ''}${t.total.toLocaleString('en-US')}` : '';
   });
 
+  /** The count with its noun: "1 calc", "8 calcs", "at least 10,000 calcs"; empty until a count is known. */
+  totalOf(one: string, many: string): string {
+    const t = this.total();
+    return t ? `${this.totalLabel()} ${t.total === 1 && !t.isAtLeast ? one : many}` : '';
+  }
+
   /** Called (from an effect) with every page the resource returns; reads no signal the effect should follow. */
   remember(page: KeysetPage<unknown>): void {
     untracked(() => {

@@ -84,7 +84,7 @@ describe('the audit trail page', () => {
     const link = d.element.querySelector<HTMLAnchorElement>('td a');
     expect(link?.textContent?.trim()).toBe('CV-12 rev B');
     expect(link?.getAttribute('href')).toBe('/calcs/5?revision=7');
-    expect(d.text()).toContain('1 entries');
+    expect(d.text()).toContain('1 entry ');
   });
 
   it('when an entry is opened, then its code, hashes and changes are shown, the changes read on their own', async () => {

@@ -118,6 +118,15 @@ describe('screens at desk, tablet and phone widths', () => {
     );
     await page.goto('/rule-sets');
     problems.push(...(await visit(page, 'rule-sets', () => page.getByRole('heading').first().waitFor())));
+    // Two versions of one standard side by side: its tables held the widest text of any screen.
+    const versions = await page.evaluate(async () => await (await fetch('/api/rule-sets')).json());
+    const [older, newer] = (versions as { id: number; code: string; version: number }[])
+      .filter((v) => v.code === 'KFD-ENG-014')
+      .sort((a, b) => a.version - b.version);
+    await page.goto(`/rule-sets/compare?from=${older.id}&to=${newer.id}`);
+    problems.push(
+      ...(await visit(page, 'compare', () => page.getByRole('heading', { name: 'Parameters', exact: true }).waitFor())),
+    );
     await page.goto('/projects');
     problems.push(...(await visit(page, 'projects', () => page.locator('mat-paginator').waitFor())));
     await page.goto('/admin/users');

@@ -33,7 +33,7 @@ export class SentMailService {
   async list(ability: AppAbility, query: SentMailQuery): Promise<Page<SentMailDto>> {
     this.assertAllowed(ability);
     const { rows, count } = await MailOutbox.findAndCountAll({
-      where: query.status ? { status: query.status } : {},
+      where: { ...(query.status ? { status: query.status } : {}), ...(query.event ? { event: query.event } : {}) },
       order: [['id', 'DESC']],
       offset: query.page * query.size,
       limit: query.size,

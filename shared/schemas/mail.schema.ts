@@ -51,11 +51,14 @@ export const mailPreferencesSchema = z
 export type MailPreferencesRequest = z.infer<typeof mailPreferencesSchema>;
 
 export const SENT_MAIL_STATUSES = ['pending', 'sent', 'failed'] as const;
+/** Every kind of mail the outbox holds: the hand-overs and impact notices people choose, and role changes. */
+export const OUTBOX_EVENTS = [...MAIL_EVENTS, 'role_change'] as const;
 
 export const sentMailQuerySchema = z.object({
   page: z.coerce.number({ error: 'must be a number' }).int().min(0).default(0),
   size: z.coerce.number({ error: 'must be a number' }).int().min(1).max(200).default(25),
   status: z.enum(SENT_MAIL_STATUSES, { error: 'must be pending, sent or failed' }).optional(),
+  event: z.enum(OUTBOX_EVENTS, { error: 'is not a kind of mail' }).optional(),
 });
 export type SentMailQuery = z.infer<typeof sentMailQuerySchema>;
 

@@ -117,6 +117,15 @@ describe('sent mail screen', () => {
     );
   });
 
+  it('when an admin lists one kind of mail, then only mail of that kind comes back', async () => {
+    await queue();
+    const { session } = await signedInAs(app, ['admin']);
+    const list = await session.get('/api/mail/sent?size=50&event=submitted');
+    expect(list.status).toBe(200);
+    expect(list.body.items.length).toBeGreaterThan(0);
+    expect(new Set(list.body.items.map((m: { event: string }) => m.event))).toEqual(new Set(['submitted']));
+  });
+
   it.each([['author'], ['checker'], ['compliance']] as const)(
     'when a %s asks for sent mail, then it is refused (403)',
     async (role) => {
@@ -133,6 +142,8 @@ describe('sent mail screen', () => {
     const bad = await session.get('/api/mail/sent?status=lost');
     expect(bad.status).toBe(400);
     expect(bad.body.fieldErrors['query.status']).toEqual(['must be pending, sent or failed']);
+    const kind = await session.get('/api/mail/sent?event=gossip');
+    expect([kind.status, kind.body.fieldErrors['query.event']]).toEqual([400, ['is not a kind of mail']]);
     expect((await session.get('/api/mail/sent/999999999')).status).toBe(404);
   });
 

@@ -2,13 +2,14 @@ import { Injectable, inject, type Signal } from '@angular/core';
 import { HttpClient, httpResource } from '@angular/common/http';
 import { firstValueFrom } from 'rxjs';
 import type { Page } from '../../../../shared/schemas/common.schema';
-import type { SentMailDto } from '../../../../shared/schemas/mail.schema';
+import type { OUTBOX_EVENTS, SentMailDto } from '../../../../shared/schemas/mail.schema';
 import type { PackVerification, VerifyResult } from '../../../../shared/schemas/verify.schema';
 
 export interface SentMailParams {
   page: number;
   size: number;
   status: '' | SentMailDto['status'];
+  event: '' | (typeof OUTBOX_EVENTS)[number];
 }
 
 /** Server state of the record pages: hash look-ups, pack checks and the sent-mail outbox. */
@@ -28,8 +29,8 @@ export class RecordsApi {
 
   sentMail(params: Signal<SentMailParams>) {
     return httpResource<Page<SentMailDto>>(() => {
-      const { status, ...rest } = params();
-      return { url: '/api/mail/sent', params: status ? { ...rest, status } : rest };
+      const { status, event, ...rest } = params();
+      return { url: '/api/mail/sent', params: { ...rest, ...(status ? { status } : {}), ...(event ? { event } : {}) } };
     });
   }
 

@@ -33,7 +33,7 @@ import { RecordsApi, type SentMailParams } from './records-api';
 })
 export default class SentMailPage {
   private readonly api = inject(RecordsApi);
-  private readonly list = pagedFilters<Pick<SentMailParams, 'status'>>({ status: '' });
+  private readonly list = pagedFilters<Pick<SentMailParams, 'status' | 'event'>>({ status: '', event: '' });
   protected readonly params: Signal<SentMailParams> = this.list.params;
   protected readonly mail = this.api.sentMail(this.params);
   protected readonly rows = computed(() => (this.mail.hasValue() ? this.mail.value().items : []));
@@ -48,8 +48,22 @@ export default class SentMailPage {
     { value: 'failed', label: 'Gave up' },
   ] as const;
 
+  protected readonly kinds = [
+    { value: '', label: 'Any kind' },
+    { value: 'submitted', label: 'Submitted for check' },
+    { value: 'checked', label: 'Checked, for approval' },
+    { value: 'returned', label: 'Returned with findings' },
+    { value: 'approved', label: 'Approved' },
+    { value: 'impact', label: 'Standard change impact' },
+    { value: 'role_change', label: 'Role changes' },
+  ] as const;
+
   protected filterStatus(status: SentMailParams['status']): void {
     this.list.filters.set({ status });
+  }
+
+  protected filterKind(event: SentMailParams['event']): void {
+    this.list.filters.set({ event });
   }
 
   protected changePage(event: PageEvent): void {

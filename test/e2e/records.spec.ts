@@ -95,7 +95,7 @@ describe('records in the browser', () => {
     // database), which pushed the hand-overs to check beyond 40 pages during a busy run.
     await page.getByRole('combobox', { name: 'Kind' }).click();
     let read = listed();
-    await page.getByRole('option', { name: 'Submitted for check' }).click();
+    await page.getByRole('option', { name: 'Calc ready for check' }).click();
     // Specs beside this one queue mail too, newest first, and every submission is told to every checker in the
     // database: during a run, more mail than a page can arrive between two page turns, so this calc's mail may drift
     // out of reach. Any hand-over to check shows the same screen; this calc's submission makes sure there is one.

@@ -131,6 +131,8 @@ describe('screens at desk, tablet and phone widths', () => {
     problems.push(...(await visit(page, 'projects', () => page.locator('mat-paginator').waitFor())));
     await page.goto('/admin/users');
     problems.push(...(await visit(page, 'people', () => page.locator('mat-paginator').waitFor())));
+    await page.goto('/admin/sent-mail');
+    problems.push(...(await visit(page, 'sent-mail', () => page.locator('mat-paginator').waitFor())));
     await page.goto('/review-health');
     problems.push(
       ...(await visit(page, 'review-health', () =>

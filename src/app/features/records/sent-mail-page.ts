@@ -6,7 +6,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatSelectModule } from '@angular/material/select';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import type { SentMailDto } from '../../../../shared/schemas/mail.schema';
+import { MAIL_EVENT_INFO, MAIL_EVENTS, type SentMailDto } from '../../../../shared/schemas/mail.schema';
 import { assertApiFailure } from '../../core/http/api-failure';
 import { EmptyState } from '../../ui/empty-state';
 import { LoadFailure } from '../../ui/load-failure';
@@ -48,15 +48,17 @@ export default class SentMailPage {
     { value: 'failed', label: 'Gave up' },
   ] as const;
 
-  protected readonly kinds = [
+  /** The hand-overs named as a person's mail settings name them, then the role-change notices. */
+  protected readonly kinds: readonly { value: SentMailParams['event']; label: string }[] = [
     { value: '', label: 'Any kind' },
-    { value: 'submitted', label: 'Submitted for check' },
-    { value: 'checked', label: 'Checked, for approval' },
-    { value: 'returned', label: 'Returned with findings' },
-    { value: 'approved', label: 'Approved' },
-    { value: 'impact', label: 'Standard change impact' },
-    { value: 'role_change', label: 'Role changes' },
-  ] as const;
+    ...MAIL_EVENTS.map((value) => ({ value, label: MAIL_EVENT_INFO[value].label })),
+    { value: 'role_change', label: 'Role changed' },
+  ];
+
+  /** The kind's words as the filter names it; a kind this screen does not know yet shows as stored. */
+  protected kindOf(event: string): string {
+    return this.kinds.find((k) => k.value === event)?.label ?? event;
+  }
 
   protected filterStatus(status: SentMailParams['status']): void {
     this.list.filters.set({ status });

@@ -2,7 +2,7 @@ import { placeOf } from '../../shared/engine/field-places';
 import { ForbiddenError } from '@casl/ability';
 import { Op, type Sequelize } from 'sequelize';
 import { evaluateValidInput, validateCalcInput } from '../../shared/engine';
-import { applyRuleSetMethods, diffRuleSets, evaluateChecklist } from '../../shared/rules';
+import { applyRuleSetMethods, diffRuleSets, evaluateChecklistSync } from '../../shared/rules';
 import { impactRowOf, type ScannedRevision } from './impact-compare';
 import { impactCsv, impactMail } from './impact-report';
 import type { AppAbility } from '../../shared/authz/app-ability';
@@ -77,7 +77,7 @@ export class ImpactService {
         fieldErrors: { revisionId: validated.issues.map((i) => `${placeOf(i.path)}: ${i.message}`) },
       });
     const input = applyRuleSetMethods(validated.value, doc);
-    const checklist = await evaluateChecklist(input, evaluateValidInput(input), doc);
+    const checklist = evaluateChecklistSync(input, evaluateValidInput(input), doc);
     return {
       ruleSet: { id: record.id, code: record.code, version: record.version },
       revision: { id: revision.id, label: revision.label },

@@ -8,7 +8,11 @@ import {
   type Condition,
   type TopCondition,
 } from '../../../shared/rules';
-import { checklistAsync, checklistSync, LIFT, loadCalc, V2, V3 } from './rules-helpers';
+import { readdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { conveyorHeadShaft, hoistDrumShaft } from '../../../server/db/demo/demo-handling-shafts';
+import { mixerShaft, slurryPumpShaft } from '../../../server/db/demo/demo-process-shafts';
+import { checklistAsync, checklistSync, LIFT, loadCalc, loadRuleSet, V2, V3 } from './rules-helpers';
 
 /*
  * The synchronous evaluator must give json-rules-engine 7.3.1's answers: the same checklist for every
@@ -23,6 +27,30 @@ describe('sync evaluator ≡ json-rules-engine on the shipped standards', () => 
     async (_name, fixture, rs) => {
       const input = loadCalc(fixture);
       expect(checklistSync(input, rs)).toEqual(await checklistAsync(input, rs));
+    },
+  );
+
+  // The server stores the compiled evaluator's checklist on every save: every standard in rules/ on every whole
+  // shaft the product ships (bearings, gears, pulleys, masses: the support and load clauses) and every fixture.
+  const ALL_RULE_SETS = readdirSync(join(__dirname, '../../../rules'))
+    .filter((f) => f.endsWith('.json'))
+    .map((f) => [f, loadRuleSet(f)] as const);
+  const SHAFTS: [string, unknown][] = [
+    ['the demo conveyor head shaft', conveyorHeadShaft()],
+    ['the demo conveyor head shaft, short hub seat', conveyorHeadShaft(40)],
+    ['the demo hoist drum shaft', hoistDrumShaft()],
+    ['the demo hoist drum shaft, far bearing moved', hoistDrumShaft(900)],
+    ['the demo slurry pump shaft', slurryPumpShaft()],
+    ['the demo mixer shaft', mixerShaft()],
+    ['the demo mixer shaft, thin wall', mixerShaft(90, 114.3, 110)],
+    ...['two-bearing-gear-pulley.json', ...FIXTURES].map((f): [string, unknown] => [f, loadCalc(f)]),
+  ];
+  it.each(ALL_RULE_SETS.flatMap(([file, rs]) => SHAFTS.map(([name, raw]) => [file, name, rs, raw] as const)))(
+    'when %s is evaluated on %s, then both paths give the same checklist',
+    async (_file, _name, rs, raw) => {
+      const v = validateCalcInput(raw);
+      if (!v.ok) throw new Error(JSON.stringify(v.issues));
+      expect(checklistSync(v.value, rs)).toEqual(await checklistAsync(v.value, rs));
     },
   );
 

@@ -131,7 +131,15 @@ describe('the independent model in the browser', () => {
     await page.getByText('draft version 1').waitFor();
     await shots(page, 'independent-model-draft');
 
-    await page.getByRole('button', { name: 'Lock and compare' }).click();
+    // The final step asks first, with focus on the harmless answer; Escape leaves it and focus goes back.
+    const lockButton = page.getByRole('button', { name: 'Lock and compare', exact: true });
+    await lockButton.click();
+    const question = page.getByRole('alertdialog');
+    await question.getByRole('button', { name: 'Not yet' }).and(page.locator(':focus')).waitFor();
+    await page.keyboard.press('Escape');
+    await question.waitFor({ state: 'detached' });
+    await lockButton.and(page.locator(':focus')).waitFor();
+    await lockButton.click();
     await page.getByRole('button', { name: 'Lock and compare now' }).click();
     await page.getByRole('heading', { name: "Comparison with the author's model" }).waitFor();
     const table = page.getByRole('region', { name: 'Compared rows' });

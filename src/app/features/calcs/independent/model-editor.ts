@@ -10,6 +10,7 @@ import {
   untracked,
 } from '@angular/core';
 import { RouterLink } from '@angular/router';
+import { A11yModule } from '@angular/cdk/a11y';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -43,6 +44,7 @@ const EMPTY = inputToValue({});
   selector: 'tt-model-editor',
   imports: [
     RouterLink,
+    A11yModule,
     MatButtonModule,
     MatIconModule,
     MatProgressBarModule,

@@ -80,7 +80,7 @@ const LISTS: [string, () => Promise<string>][] = [
 
 describe('every list query is served by an index', () => {
   it.each(LISTS)(
-    'when the %s is read, then no query scans revisions, calcs or audit entries end to end',
+    'when the %s is read, then no query scans or sorts revisions, calcs or audit entries end to end',
     async (_name, urlOf) => {
       // Arrange
       const url = await urlOf();

@@ -27,9 +27,18 @@ export interface PlanRow {
   Extra: string | null;
 }
 
-/** The plan rows that read a large table from end to end (type ALL over 1,000 rows or more). */
+/**
+ * The plan rows that read a large table from end to end (type ALL over 1,000 rows or more), or that sort what a
+ * join of 1,000 rows or more gave before a page of it is kept: a small table read first and joined to a large one
+ * by index still reads the large one whole ("Using filesort" on the first row, the rows multiplying to the table).
+ */
 export async function fullScans(sequelize: Sequelize, sql: string): Promise<PlanRow[]> {
-  const plan = await sequelize.query<PlanRow>(`EXPLAIN ${sql}`, { type: QueryTypes.SELECT });
+  const plan = await sequelize.query<PlanRow & { id: number | null }>(`EXPLAIN ${sql}`, { type: QueryTypes.SELECT });
   // A derived table is the capped count's own bounded result (at most 10,001 rows), not a stored table.
-  return plan.filter((r) => r.type === 'ALL' && Number(r.rows) >= 1000 && !r.table?.startsWith('<derived'));
+  const stored = plan.filter((r) => !r.table?.startsWith('<derived'));
+  const scans = stored.filter((r) => r.type === 'ALL' && Number(r.rows) >= 1000);
+  const sorted = stored.filter((r) => r.Extra?.includes('Using filesort'));
+  const joined = (id: number | null) =>
+    stored.filter((r) => r.id === id).reduce((product, r) => product * Math.max(1, Number(r.rows) || 1), 1);
+  return [...scans, ...sorted.filter((r) => !scans.includes(r) && joined(r.id) >= 1000)];
 }

@@ -23,7 +23,7 @@ export function toAuditDto(e: Listed): AuditEventDto {
     entityId: e.entityId,
     payload: JSON.parse(e.payload),
     diff: e.diff ?? null,
-    hasDiff: e.diff != null || Boolean(e.get?.('hasDiff')),
+    hasDiff: e.diff != null || Boolean(e.hasDiff ?? e.get?.('hasDiff')),
     prevHash: e.prevHash,
     hash: e.hash,
   };
@@ -58,7 +58,9 @@ export async function listAudit(
       order: [['id', 'DESC']],
       offset: query.after ? 0 : (query.page ?? 0) * query.size,
       limit: query.size + 1,
-    }),
+      // Plain rows: a page of fifty model instances cost more CPU than the rest of the answer.
+      raw: true,
+    }) as Promise<Listed[]>,
     query.after ? null : countAudit(query),
   ]);
   const items = rows.slice(0, query.size);

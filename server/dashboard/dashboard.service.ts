@@ -14,6 +14,8 @@ async function standardsToConfirm(ability: AppAbility, userId: number): Promise<
   if (!ability.can('publish', 'RuleSet')) return [];
   const rows = await RuleSetRecord.findAll({
     where: { status: 'draft', proposedBy: { [Op.and]: [{ [Op.ne]: null }, { [Op.ne]: userId }] }, confirmedBy: null },
+    // What the line shows, not the standard's document.
+    attributes: ['id', 'code', 'version', 'title', 'effectiveDate', 'updatedAt'],
     order: [['updatedAt', 'ASC']],
   });
   return rows.map((r) => ({
@@ -28,15 +30,18 @@ async function standardsToConfirm(ability: AppAbility, userId: number): Promise<
 /** The overview: counts, the latest audit entries for those who read them, and items beyond the calc queues. */
 export async function dashboardFor(ability: AppAbility, userId: number): Promise<DashboardDto> {
   const open = { [Op.and]: [accessibleWhere(ability, 'read', 'Project'), { status: 'active' }] };
-  const counts: DashboardDto['counts'] = { activeProjects: await Project.count({ where: open }) };
-  if (ability.can('create', 'User')) {
-    counts.activeUsers = await User.count({ where: { active: true } });
-    counts.inactiveUsers = await User.count({ where: { active: false } });
-  }
-  const recentActivity = ability.can('read', 'AuditEvent')
-    ? (await listAudit(ability, { page: 0, size: 8 })).items
-    : null;
-  return { waiting: await standardsToConfirm(ability, userId), counts, recentActivity };
+  const admin = ability.can('create', 'User');
+  // Independent reads, asked together so their round trips overlap.
+  const [activeProjects, activeUsers, inactiveUsers, recent, waiting] = await Promise.all([
+    Project.count({ where: open }),
+    admin ? User.count({ where: { active: true } }) : undefined,
+    admin ? User.count({ where: { active: false } }) : undefined,
+    ability.can('read', 'AuditEvent') ? listAudit(ability, { page: 0, size: 8 }) : null,
+    standardsToConfirm(ability, userId),
+  ]);
+  const counts: DashboardDto['counts'] = { activeProjects };
+  if (admin) Object.assign(counts, { activeUsers, inactiveUsers });
+  return { waiting, counts, recentActivity: recent?.items ?? null };
 }
 
 /** One of the person's own queues; another role's queue is a 403, not an empty page. */

@@ -23,4 +23,13 @@ describe('ListFilters', () => {
 
     expect(list.params()).toEqual({ page: 0, size: 50, q: 'KF-02' });
   });
+
+  it('when a filter is set to the value it has (a search box left unchanged), then the page stays', () => {
+    const list = pagedFilters({ q: 'KF-02', status: '' });
+    list.turn({ pageIndex: 2, pageSize: 25 } as PageEvent);
+
+    list.filters.set({ q: 'KF-02' });
+
+    expect(list.params()).toEqual({ page: 2, size: 25, q: 'KF-02', status: '' });
+  });
 });

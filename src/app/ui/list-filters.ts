@@ -19,10 +19,15 @@ export class ListFilters<F extends object> {
     this.value = this.#value.asReadonly();
   }
 
-  /** Sets the filters named in `patch`; the others keep theirs. */
+  /**
+   * Sets the filters named in `patch`; the others keep theirs. A patch that changes nothing (a search box left
+   * without a new word, say) keeps the page too.
+   */
   set(patch: Partial<F>): void {
+    const current = this.#value();
+    if (Object.entries(patch).every(([key, value]) => Object.is(current[key as keyof F], value))) return;
     this.toFirstPage();
-    this.#value.update((filters) => ({ ...filters, ...patch }));
+    this.#value.set({ ...current, ...patch });
   }
 }
 

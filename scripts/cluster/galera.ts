@@ -42,13 +42,7 @@ export class GaleraCluster {
   }
 
   async start(node: GaleraNode, bootstrap = false): Promise<void> {
-    if (!fs.existsSync(`${node.dir}/data/mysql`)) {
-      execFileSync(
-        'mariadb-install-db',
-        ['--user=root', `--datadir=${node.dir}/data`, '--auth-root-authentication-method=normal', '--skip-test-db'],
-        { stdio: ['ignore', fs.openSync(`${node.dir}/install.log`, 'a'), fs.openSync(`${node.dir}/install.log`, 'a')] },
-      );
-    }
+    if (!fs.existsSync(`${node.dir}/data/mysql`)) installDataFolder(node);
     fs.rmSync(node.socket, { force: true });
     fs.writeFileSync(`${node.dir}/my.cnf`, galeraOptionFile(node, this.nodes));
     const args = [`--defaults-file=${node.dir}/my.cnf`, ...(bootstrap ? ['--wsrep-new-cluster'] : [])];
@@ -93,5 +87,33 @@ export class GaleraCluster {
     } finally {
       await conn.end().catch(() => undefined);
     }
+  }
+}
+
+/**
+ * A new node's data folder from mariadb-install-db. It failed once, unexplained, in a run with both cores kept busy
+ * (the folder and its log were removed with the run): a failure now prints the end of the tool's log, and the
+ * install is tried once more from an empty folder before the run gives up.
+ */
+function installDataFolder(node: GaleraNode): void {
+  const logFile = `${node.dir}/install.log`;
+  const install = () =>
+    execFileSync(
+      'mariadb-install-db',
+      ['--user=root', `--datadir=${node.dir}/data`, '--auth-root-authentication-method=normal', '--skip-test-db'],
+      { stdio: ['ignore', fs.openSync(logFile, 'a'), fs.openSync(logFile, 'a')] },
+    );
+  const logEnd = () => fs.readFileSync(logFile, 'utf8').split('\n').slice(-25).join('\n');
+  try {
+    install();
+  } catch (error) {
+    console.error(`mariadb-install-db failed for ${node.name} (${String(error)}); its log ends:\n${logEnd()}`);
+    fs.rmSync(`${node.dir}/data`, { recursive: true, force: true });
+    try {
+      install();
+    } catch (again) {
+      throw new Error(`mariadb-install-db failed twice for ${node.name}; its log ends:\n${logEnd()}`, { cause: again });
+    }
+    console.error(`mariadb-install-db for ${node.name} succeeded on the second try`);
   }
 }

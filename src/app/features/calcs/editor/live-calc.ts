@@ -1,6 +1,4 @@
 import { computed, linkedSignal, signal, type Signal } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { catchError, from, map, of, switchMap } from 'rxjs';
 import type { Checklist, RuleSet } from '../../../../../shared/rules';
 import type { CalcResult } from '../../../../../shared/engine';
 import type { Attempt, Evaluated } from './live-engine';
@@ -34,22 +32,20 @@ export function liveCalc(input: Signal<Record<string, unknown>>, ruleSet: Signal
     computation: (a, previous) => (a && 'evaluated' in a ? a.evaluated : (previous?.value ?? null)),
   });
   const isStale = computed(() => issues().length > 0 && evaluated() !== null);
-  const job = computed(() => ({ ev: evaluated(), rs: ruleSet(), e: engine() }));
-  // The checklist is asynchronous (json-rules-engine): switchMap drops an answer overtaken by newer input.
-  const checklist = toSignal(
-    toObservable(job).pipe(
-      switchMap(({ ev, rs, e }) =>
-        !ev || !rs || !e
-          ? of<ChecklistState>({ kind: 'none' })
-          : from(e.evaluateChecklist(ev.input, ev.result, rs)).pipe(
-              map((c): ChecklistState => ({ kind: 'ready', checklist: c, ruleSet: rs, result: ev.result })),
-              catchError((err: unknown) =>
-                of<ChecklistState>({ kind: 'failed', message: `The checklist could not be evaluated: ${String(err)}` }),
-              ),
-            ),
-      ),
-    ),
-    { initialValue: { kind: 'none' } as ChecklistState },
-  );
+  // The compiled evaluator answers at once (about 0.1–0.3 ms for a whole shaft), so the checklist follows each result.
+  const checklist = computed((): ChecklistState => {
+    const [ev, rs, e] = [evaluated(), ruleSet(), engine()];
+    if (!ev || !rs || !e) return { kind: 'none' };
+    try {
+      return {
+        kind: 'ready',
+        checklist: e.evaluateChecklistSync(ev.input, ev.result, rs),
+        ruleSet: rs,
+        result: ev.result,
+      };
+    } catch (err) {
+      return { kind: 'failed', message: `The checklist could not be evaluated: ${String(err)}` };
+    }
+  });
   return { issues, evaluated, isStale, checklist };
 }

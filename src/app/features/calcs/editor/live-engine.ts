@@ -7,7 +7,9 @@ import { shaftOutline, type ShaftOutline } from '../../../../../shared/plots';
  * The part of the live calc that validates and evaluates: the shared input schema, engine and rule set. The editor
  * loads it on its own (live-calc.ts) so its first view does not wait for the schema library to be run.
  */
-export { evaluateChecklist } from '../../../../../shared/rules';
+// The compiled checklist evaluator: synchronous, the server's own (json-rules-engine, the reference it is held equal
+// to, is not fetched for the editor).
+export { evaluateChecklistSync } from '../../../../../shared/rules';
 
 export interface Evaluated {
   input: CalcInput;

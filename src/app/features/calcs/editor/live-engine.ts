@@ -7,8 +7,8 @@ import { shaftOutline, type ShaftOutline } from '../../../../../shared/plots';
  * The part of the live calc that validates and evaluates: the shared input schema, engine and rule set. The editor
  * loads it on its own (live-calc.ts) so its first view does not wait for the schema library to be run.
  */
-// The compiled checklist evaluator: synchronous, the server's own (json-rules-engine, the reference it is held equal
-// to, is not fetched for the editor).
+// The compiled checklist evaluator: synchronous, and the one the server stores a save's checklist with
+// (json-rules-engine is the reference both are held equal to in test/shared/rules/equivalence.spec.ts).
 export { evaluateChecklistSync } from '../../../../../shared/rules';
 
 export interface Evaluated {

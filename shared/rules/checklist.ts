@@ -114,8 +114,9 @@ export async function evaluateChecklist(
 /**
  * The same checklist as evaluateChecklist, computed synchronously by the compiled evaluator
  * (sync-evaluator.ts) at about a tenth of the CPU: what the server stores on every save, the editor's live
- * checklist, and bulk work (impact analysis, minimum diameters). json-rules-engine stays the reference: tests hold the two to
- * identical output on every shipped standard and whole shaft, and on generated conditions and calcs.
+ * checklist, and bulk work (impact analysis, minimum diameters). json-rules-engine stays the reference:
+ * tests hold the two to identical output on every shipped standard and whole shaft, and on generated
+ * conditions and calcs.
  */
 export function evaluateChecklistSync(
   input: CalcInput,

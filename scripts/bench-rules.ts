@@ -4,13 +4,8 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { evaluateValidInput, validateCalcInput, type CalcInput } from '../shared/engine';
-import {
-  applyRuleSetMethods,
-  evaluateChecklist,
-  evaluateChecklistSync,
-  validateRuleSet,
-  type RuleSet,
-} from '../shared/rules';
+import { applyRuleSetMethods, evaluateChecklistSync, validateRuleSet, type RuleSet } from '../shared/rules';
+import { evaluateChecklist } from '../shared/rules/reference-checklist';
 
 const ROOT = join(__dirname, '..');
 const RUN_MS = 1500;

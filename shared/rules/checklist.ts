@@ -3,19 +3,19 @@ import type { ClauseOutcome } from './clause-outcome';
 import { buildRow } from './checklist-row';
 import type { Checklist, ChecklistRow, ManualState } from './checklist-types';
 import { compiledFor, outcomeSync } from './compiled-rule-set';
-import { runnerFor } from './engine-runner';
 import { locationFacts } from './facts';
 import { targetsOf, type Target } from './locations';
 import { manualRows, summarize } from './verdict';
 import { methodsUsed } from './rule-set-methods';
 import { preparedFor } from './prepared-rule-set';
-import { SCOPES, type RuleSet, type Scope } from './rule-set-schema';
+import type { RuleSet, Scope } from './rule-set-schema';
 
 /** Outcomes per clause index, then per location (the order of targetsOf). */
-type Outcomes = ClauseOutcome[][];
-type Targets = Record<Scope, Target[]>;
+export type Outcomes = ClauseOutcome[][];
+export type Targets = Record<Scope, Target[]>;
 
-function targetsByScope(input: CalcInput, result: CalcResult, ruleSet: RuleSet): Targets {
+/** Every location a clause of each scope is checked at, with its facts. */
+export function targetsByScope(input: CalcInput, result: CalcResult, ruleSet: RuleSet): Targets {
   // A result of another calc would give facts of the wrong shaft: refuse it rather than guess.
   const nf = (input.features ?? []).length;
   if (
@@ -49,7 +49,8 @@ function engineWarnings(result: CalcResult, loc: ChecklistRow['location'], featu
     .map((w) => `${placeOf(w.path, featureTypes)}: ${w.message}`);
 }
 
-function assemble(
+/** The checklist from each clause's outcome at each location (as either evaluator gives them). */
+export function assemble(
   input: CalcInput,
   result: CalcResult,
   ruleSet: RuleSet,
@@ -87,36 +88,14 @@ function assemble(
 }
 
 /**
- * The checklist of a calc against a rule set, through json-rules-engine: one row per clause and
- * location (shaft, each segment, each feature), the manual items with their state, and the verdict.
- * `input` must be the calc as evaluated, i.e. after applyRuleSetMethods; a method that differs from
- * the rule set's choice is reported in methodIssues and blocks "compliant". A clause that throws
- * gives "error" rows with the reason, never a pass. The json-rules-engine Engine is built once per
- * rule set (code + version and content) and reused.
- */
-export async function evaluateChecklist(
-  input: CalcInput,
-  result: CalcResult,
-  ruleSet: RuleSet,
-  manual?: Record<string, ManualState>,
-): Promise<Checklist> {
-  const targets = targetsByScope(input, result, ruleSet);
-  const runner = runnerFor(ruleSet);
-  const outcomes: Outcomes = ruleSet.clauses.map(() => []);
-  for (const scope of SCOPES) {
-    for (const t of targets[scope]) {
-      for (const [i, outcome] of await runner.evaluate(scope, t.facts)) outcomes[i].push(outcome);
-    }
-  }
-  return assemble(input, result, ruleSet, targets, outcomes, manual);
-}
-
-/**
- * The same checklist as evaluateChecklist, computed synchronously by the compiled evaluator
- * (sync-evaluator.ts) at about a tenth of the CPU: what the server stores on every save, the editor's live
- * checklist, and bulk work (impact analysis, minimum diameters). json-rules-engine stays the reference:
- * tests hold the two to identical output on every shipped standard and whole shaft, and on generated
- * conditions and calcs.
+ * The checklist of a calc against a rule set: one row per clause and location (shaft, each segment, each
+ * feature, support and load), the manual items with their state, and the verdict. `input` must be the calc
+ * as evaluated, i.e. after applyRuleSetMethods; a method that differs from the rule set's choice is reported
+ * in methodIssues and blocks "compliant". A clause that throws gives "error" rows with the reason, never a
+ * pass. Computed synchronously by the compiled evaluator (sync-evaluator.ts): what the server stores on every
+ * save, the editor's live checklist, and bulk work (impact analysis, minimum diameters). The same checklist
+ * through json-rules-engine (reference-checklist.ts) is the reference: tests hold the two to identical output
+ * on every shipped standard and whole shaft, and on generated conditions and calcs.
  */
 export function evaluateChecklistSync(
   input: CalcInput,

@@ -1,6 +1,6 @@
 /*
  * Torquetrail rule sets (design standards): the document format, its validation, the checklist
- * evaluation (json-rules-engine, and a synchronous evaluator of the same conditions for bulk work),
+ * evaluation (a compiled evaluator; json-rules-engine, the reference, is in reference-checklist.ts),
  * minimum diameters and the diff between versions. Plain TypeScript: runs in server and browser.
  */
 export * from './condition-schema';
@@ -17,7 +17,7 @@ export {
   type FactQuantity,
 } from './fact-registry';
 export { applyRuleSetMethods, methodsUsed, type MethodsUsed, type MethodIssue } from './rule-set-methods';
-export { evaluateChecklist, evaluateChecklistSync } from './checklist';
+export { evaluateChecklistSync } from './checklist';
 export type {
   Checklist,
   ChecklistRow,
@@ -29,7 +29,6 @@ export type {
 } from './checklist-types';
 export { compileCondition, type Compiled } from './sync-evaluator';
 export { LIMIT_TOLERANCE, nearlyEqual, withinLimit, TOLERANT_OPERATORS } from './limit-tolerance';
-export { useLimitOperators } from './clause-rules';
 export { locationFacts, type Facts, type LocationFacts } from './facts';
 export { validateRuleSet, clauseParameters, type RuleSetValidation } from './validate-rule-set';
 export type { RuleSetIssue } from './rule-set-issues';

@@ -1,5 +1,6 @@
 import { evaluateValidInput } from '../../shared/engine';
-import { applyRuleSetMethods, evaluateChecklist, evaluateChecklistSync, type RuleSet } from '../../shared/rules';
+import { applyRuleSetMethods, evaluateChecklistSync, type RuleSet } from '../../shared/rules';
+import { evaluateChecklist } from '../../shared/rules/reference-checklist';
 import { nonFinitePath } from '../../shared/json/finite-json';
 import { computeRecord } from '../../server/calcs/revision-content';
 import { stored } from '../../server/calcs/calcs.service';

@@ -1,5 +1,6 @@
 import { evaluateValidInput, validateCalcInput, type CalcInput } from '../../../shared/engine';
-import { evaluateChecklist, evaluateChecklistSync, validateRuleSet } from '../../../shared/rules';
+import { evaluateChecklistSync, validateRuleSet } from '../../../shared/rules';
+import { evaluateChecklist } from '../../../shared/rules/reference-checklist';
 import { conveyorHeadShaft } from '../../../server/db/demo/demo-handling-shafts';
 import { mixerShaft, slurryPumpShaft } from '../../../server/db/demo/demo-process-shafts';
 import { checklistSync, loadCalc, loadRuleSet, only, V3 } from './rules-helpers';

@@ -1,13 +1,8 @@
 import fc from 'fast-check';
 import { Engine } from 'json-rules-engine';
 import { validateCalcInput, type CalcInput } from '../../../shared/engine';
-import {
-  compileCondition,
-  OPERATORS,
-  useLimitOperators,
-  type Condition,
-  type TopCondition,
-} from '../../../shared/rules';
+import { compileCondition, OPERATORS, type Condition, type TopCondition } from '../../../shared/rules';
+import { useLimitOperators } from '../../../shared/rules/reference-checklist';
 import { readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { conveyorHeadShaft, hoistDrumShaft } from '../../../server/db/demo/demo-handling-shafts';

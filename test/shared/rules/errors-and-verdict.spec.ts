@@ -1,5 +1,6 @@
 import { evaluateValidInput } from '../../../shared/engine';
-import { applyRuleSetMethods, evaluateChecklist, evaluateChecklistSync, type RuleSet } from '../../../shared/rules';
+import { applyRuleSetMethods, evaluateChecklistSync, type RuleSet } from '../../../shared/rules';
+import { evaluateChecklist } from '../../../shared/rules/reference-checklist';
 import { checklistAsync, checklistSync, loadCalc, only, rowsOf, shaft, V3 } from './rules-helpers';
 
 /** v3 with one clause's check replaced, bypassing validation (as a hand-edited database row could). */

@@ -3,13 +3,13 @@ import { join } from 'node:path';
 import { evaluateValidInput, validateCalcInput, type CalcInput } from '../../../shared/engine';
 import {
   applyRuleSetMethods,
-  evaluateChecklist,
   evaluateChecklistSync,
   validateRuleSet,
   type Checklist,
   type ChecklistRow,
   type RuleSet,
 } from '../../../shared/rules';
+import { evaluateChecklist } from '../../../shared/rules/reference-checklist';
 
 const ROOT = join(__dirname, '..', '..', '..');
 

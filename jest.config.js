@@ -58,8 +58,6 @@ module.exports = {
       preset: 'jest-preset-angular',
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
       setupFilesAfterEnv: ['<rootDir>/test/support/client-setup.ts', ...cpuLog],
-      // Under jsdom, json-rules-engine's jsonpath-plus resolves to its ESM browser build, which jest cannot load.
-      moduleNameMapper: { '^jsonpath-plus$': '<rootDir>/node_modules/jsonpath-plus/dist/index-browser-umd.cjs' },
       testMatch: ['<rootDir>/src/**/*.spec.ts'],
       // The first pattern that matches a file picks its transform. jest-preset-angular compiles components the way
       // Angular's JIT needs (templates inlined, signal inputs declared) and hands .mjs bundles to esbuild.

@@ -22,6 +22,9 @@ export function endpointsOf(b: BenchPeople): [string, Session, string[]][] {
   const { compliance, projects } = b;
   const p = (i: number) => projects[i % projects.length];
   return [
+    // Not a target: the smallest answer behind sign-in (session, user, ability, CSRF token; one small query), the
+    // floor under every line below on this machine.
+    ['for scale · GET /api/session (no list)', compliance, ['/api/session']],
     ['calc list · project, newest first', compliance, projects.map((id) => `/api/calcs?projectId=${id}&size=50`)],
     [
       'calc list · project + state, by number',

@@ -69,7 +69,7 @@ async function main(): Promise<void> {
         `${line(name, busy).replace(name.padEnd(46), `${name.padEnd(46)} ${msText(alone.p50)}`)}  ${loadavg()[0].toFixed(1)}  app CPU ${cpu.toFixed(1)} ms${alone.errors ? `  (alone: ${alone.errors} failed or timed out)` : ''}`,
       );
     }
-    console.log('  targets: p95 ≤ 50 ms each (32 concurrent)');
+    console.log('  targets: p95 ≤ 50 ms each (32 concurrent), every line but the first ("for scale")');
     if (!ONLY || ONLY.test('saves')) await saves(server.url, sequelize, SECONDS, server.child.pid);
   } finally {
     server.child.kill('SIGTERM');

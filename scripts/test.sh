@@ -40,7 +40,7 @@ export NODE_ENV=test DB_ACQUIRE_MS=${DB_ACQUIRE_MS:-300000}
 results="$dir/jest-results.json"
 # jest's default on two cores is one worker, but API and browser specs mostly wait on MariaDB and Chromium.
 # Measured here (6 API spec files, 89 tests, same busy machine, one run after the other): 1 worker 376 s,
-# 3 workers 267 s, all green both times; the whole suite from a fresh clone, quiet: 3 workers 706 s, 4 workers 704 s.
+# 3 workers 267 s, all green both times; the whole suite from a fresh clone, quiet: 3 workers 706 and 622 s, 4 workers 704 s.
 # TEST_WORKERS overrides it (1 runs everything in sequence).
 npx jest --ci --maxWorkers="${TEST_WORKERS:-3}" --json --outputFile="$results" "$@"
 status=$?

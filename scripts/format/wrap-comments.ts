@@ -14,7 +14,12 @@ function defaultFiles(): string[] {
   return listed.split('\n').filter((f) => CODE.test(f));
 }
 
-const files = process.argv.length > 2 ? process.argv.slice(2) : defaultFiles();
+// Named files that are not code (Markdown, JSON…) are left alone: their text is not comments, and a line of a
+// Markdown table once came back cut in two with comment markers.
+const named = process.argv.slice(2);
+const notCode = named.filter((f) => !CODE.test(f));
+if (notCode.length > 0) console.log(`wrap-comments: not code, left alone: ${notCode.join(', ')}`);
+const files = named.length > 0 ? named.filter((f) => CODE.test(f)) : defaultFiles();
 const codeOf = (fileName: string, text: string) =>
   ts.transpileModule(text, { fileName, compilerOptions: { removeComments: true, target: ts.ScriptTarget.ESNext } })
     .outputText;

@@ -2,7 +2,7 @@ import { QueryTypes, Op, type Sequelize, type Transaction } from 'sequelize';
 import type { Transporter } from 'nodemailer';
 import { MailOutbox } from '../db/models';
 import { logger } from '../logger';
-import { messageIdOf } from './transport';
+import { messageIdOf } from './message-id';
 
 export interface SenderOptions {
   transport: Transporter;

@@ -4,7 +4,7 @@ import type { Page } from '../../shared/schemas/common.schema';
 import type { SentMailDto, SentMailQuery } from '../../shared/schemas/mail.schema';
 import { MailOutbox } from '../db/models';
 import { AppError } from '../errors/app-error';
-import { messageIdOf } from './transport';
+import { messageIdOf } from './message-id';
 
 function toDto(row: MailOutbox, from: string, withBody: boolean): SentMailDto {
   return {

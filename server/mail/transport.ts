@@ -18,9 +18,3 @@ export function createMailTransport(config: SmtpSettings): Transporter {
     socketTimeout: 20_000,
   });
 }
-
-/** Stable per outbox row, so a message delivered twice after a crash is recognisably the same one. */
-export function messageIdOf(row: { id: number; createdAt: Date }, from: string): string {
-  const domain = /@([^>\s]+)/.exec(from)?.[1] ?? 'torquetrail.invalid';
-  return `<tt-outbox-${row.id}-${row.createdAt.getTime()}@${domain}>`;
-}

@@ -1,9 +1,8 @@
 import type { Route } from 'playwright-core';
-import { SCREENSHOT_DIR, pageSettled } from '../support/browser';
+import { pageSettled, screenshotAsSeen } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { calcTeam } from '../support/calc-harness';
 import { pdfBytes } from '../support/upload-harness';
-import path from 'node:path';
 
 // An attachment changes the revision's signed content, so the calc page reads the revision again. While that read is
 // held back here, the workflow actions wait and say why (artifacts/screenshots/calc-updating-*).
@@ -38,7 +37,7 @@ it('when an attachment is added, then signing waits, visibly, until the fresh re
   await expect(submit.isDisabled()).resolves.toBe(true);
   for (const width of [1440, 768, 390]) {
     await page.setViewportSize({ width, height: 900 });
-    await page.screenshot({ path: path.join(SCREENSHOT_DIR, `calc-updating-${width}.png`) });
+    await screenshotAsSeen(page, `calc-updating-${width}`);
   }
 
   // The read may reach the route a moment after the screen says it is updating: release it only once it is held.

@@ -1,5 +1,4 @@
-import path from 'node:path';
-import { SCREENSHOT_DIR, pageSettled } from '../support/browser';
+import { pageSettled, screenshotAsSeen } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { calcTeam } from '../support/calc-harness';
 
@@ -21,9 +20,7 @@ describe('the editor at desktop and tablet widths', () => {
       // Measured in the page's own font: the fallback one is wider and cuts labels that fit.
       await pageSettled(page);
       await suite.session.screenshot(page, `editor-fit-editor-${width}`);
-      await page
-        .locator('tt-fatigue-panel')
-        .screenshot({ path: path.join(SCREENSHOT_DIR, `editor-fit-fatigue-${width}.png`) });
+      await screenshotAsSeen(page.locator('tt-fatigue-panel'), `editor-fit-fatigue-${width}`);
       // The select's value text is clipped with an ellipsis when its box is narrower than the words.
       const cut = await page
         .locator('tt-fatigue-panel .mat-mdc-select-value')

@@ -1,7 +1,6 @@
-import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { findMaterial, toMaterialInput } from '../../shared/materials';
-import { SCREENSHOT_DIR, accessibilityViolations, pageSettled } from '../support/browser';
+import { accessibilityViolations, pageSettled, screenshotAsSeen } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { advanceTo, createCalc } from '../support/calc-harness';
 import { expectStatus, person } from '../support/api-harness';
@@ -68,7 +67,7 @@ async function shots(page: Page, name: string): Promise<void> {
     // Panels a new width brings into view are built first; the layout and axe read the finished page.
     await pageSettled(page);
     await suite.session.screenshot(page, `${name}-${width}`);
-    await page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}-${width}-top.png`) });
+    await screenshotAsSeen(page, `${name}-${width}-top`);
     expect(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)).toBe(true);
     expect(await accessibilityViolations(page)).toEqual([]);
   }

@@ -1,6 +1,5 @@
-import path from 'node:path';
 import type { Page } from 'playwright-core';
-import { SCREENSHOT_DIR, pageSettled } from '../support/browser';
+import { pageSettled, screenshotAsSeen } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { calcTeam } from '../support/calc-harness';
 
@@ -32,18 +31,14 @@ describe('the material panel in the editor', () => {
       // Measured once the page has answered the first pick too (its live results and panels redrawn, fonts in).
       await pageSettled(page);
       const before = await segmentsTop(page);
-      await page
-        .locator('tt-material-panel')
-        .screenshot({ path: path.join(SCREENSHOT_DIR, `material-origins-by-hand-${width}.png`) });
+      await screenshotAsSeen(page.locator('tt-material-panel'), `material-origins-by-hand-${width}`);
 
       await chooseMaterial(page, 'AISI 1045 CD');
       await page.locator('tt-material-panel table.provenance').waitFor();
       await pageSettled(page);
 
       expect({ width, top: await segmentsTop(page) }).toEqual({ width, top: before });
-      await page
-        .locator('tt-material-panel')
-        .screenshot({ path: path.join(SCREENSHOT_DIR, `material-origins-library-${width}.png`) });
+      await screenshotAsSeen(page.locator('tt-material-panel'), `material-origins-library-${width}`);
       await suite.session.screenshot(page, `material-origins-editor-${width}`);
     }
     await page.close();

@@ -1,7 +1,6 @@
 import { randomUUID } from 'node:crypto';
-import path from 'node:path';
 import type { Page } from 'playwright-core';
-import { SCREENSHOT_DIR, accessibilityViolations, pageSettled } from '../support/browser';
+import { accessibilityViolations, pageSettled, screenshotAsSeen } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { createTestProject, createTestUser } from '../support/api-harness';
 
@@ -83,7 +82,7 @@ it('when the office has more projects than one answer lists, then typing finds a
       [ACTIVE, before],
     );
   }
-  await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'project-picker-keyboard-1440.png') });
+  await screenshotAsSeen(page, 'project-picker-keyboard-1440');
   expect(await active()).toBe(wanted);
   const relisted = fullList(page);
   await page.keyboard.press('Enter');

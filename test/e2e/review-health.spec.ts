@@ -1,7 +1,6 @@
 import type { Express } from 'express';
 import type { Page } from 'playwright-core';
-import path from 'node:path';
-import { startBrowserSession, accessibilityViolations, pageSettled, SCREENSHOT_DIR } from '../support/browser';
+import { startBrowserSession, accessibilityViolations, pageSettled, screenshotAsSeen } from '../support/browser';
 import { TEST_PASSWORD, createTestUser } from '../support/api-harness';
 import { healthScenario } from '../support/health-harness';
 
@@ -67,7 +66,7 @@ it('when compliance opens review health, then every signal reads as a fact with 
     });
     if (sideways > 1) problems.push(`@${width}: page scrolls sideways by ${sideways}px (${widest})`);
     await session.screenshot(page, `review-health-${width}`);
-    await page.screenshot({ path: path.join(SCREENSHOT_DIR, `review-health-${width}-top.png`) });
+    await screenshotAsSeen(page, `review-health-${width}-top`);
     problems.push(...(await accessibilityViolations(page)).map((v) => `@${width}: ${v}`));
   }
   expect(problems).toEqual([]);
@@ -89,7 +88,7 @@ it('when a threshold is out of range, then the field says so inline and nothing 
     .waitFor();
   await page.setViewportSize({ width: 1440, height: 900 });
   await field.scrollIntoViewIfNeeded();
-  await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'review-health-threshold-error.png') });
+  await screenshotAsSeen(page, 'review-health-threshold-error');
   await page.close();
 });
 
@@ -105,6 +104,6 @@ it('when an evidence link is followed, then the audit list opens filtered to the
     .first()
     .waitFor();
   await expect(page.getByRole('cell', { name: /was refused a signature/ }).count()).resolves.toBe(3);
-  await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'review-health-audit-link.png') });
+  await screenshotAsSeen(page, 'review-health-audit-link');
   await page.close();
 });

@@ -1,6 +1,5 @@
 import type { Page } from 'playwright-core';
-import path from 'node:path';
-import { accessibilityViolations, pageSettled, SCREENSHOT_DIR } from '../support/browser';
+import { accessibilityViolations, pageSettled, screenshotAsSeen } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { createTestUser } from '../support/api-harness';
 import { advanceTo, calcTeam } from '../support/calc-harness';
@@ -52,7 +51,7 @@ async function visit(page: Page, name: string, ready: () => Promise<unknown>) {
     if (width === 768 && layout.navShare > 15) problems.push(`${name}@768: menu takes ${layout.navShare}%`);
     await suite.session.screenshot(page, `screens-${name}-${width}`);
     // What a person sees first, without scrolling.
-    await page.screenshot({ path: path.join(SCREENSHOT_DIR, `screens-${name}-${width}-top.png`) });
+    await screenshotAsSeen(page, `screens-${name}-${width}-top`);
     if (width !== 768) problems.push(...(await accessibilityViolations(page)).map((v) => `${name}@${width}: ${v}`));
   }
   return problems;

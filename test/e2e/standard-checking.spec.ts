@@ -1,6 +1,5 @@
 import type { Page } from 'playwright-core';
-import path from 'node:path';
-import { startBrowserSession, accessibilityViolations, pageSettled, SCREENSHOT_DIR } from '../support/browser';
+import { startBrowserSession, accessibilityViolations, pageSettled, screenshotAsSeen } from '../support/browser';
 import { TEST_PASSWORD, createTestUser } from '../support/api-harness';
 import { testStandard } from '../support/standard-harness';
 
@@ -46,7 +45,7 @@ it('when a reader opens a standard that asks for an independent model, then its 
     const sideways = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     if (sideways > 1) problems.push(`@${width}: page scrolls sideways by ${sideways}px`);
     await page.getByRole('heading', { name: 'How calcs are checked' }).scrollIntoViewIfNeeded();
-    await page.screenshot({ path: path.join(SCREENSHOT_DIR, `standard-checking-${width}.png`) });
+    await screenshotAsSeen(page, `standard-checking-${width}`);
     problems.push(...(await accessibilityViolations(page)).map((v) => `@${width}: ${v}`));
   }
   expect(problems).toEqual([]);

@@ -1,5 +1,4 @@
-import path from 'node:path';
-import { SCREENSHOT_DIR, accessibilityViolations, pageSettled } from '../support/browser';
+import { accessibilityViolations, pageSettled, screenshotAsSeen } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { calcTeam } from '../support/calc-harness';
 import { wholeShaftInput } from '../support/shaft-fixture';
@@ -21,7 +20,7 @@ describe('the whole shaft in the browser', () => {
       // The result tables come before the input panels below the segments are built; axe reads all of them.
       await pageSettled(page);
       await suite.session.screenshot(page, `whole-shaft-editor-${width}`);
-      await page.screenshot({ path: path.join(SCREENSHOT_DIR, `whole-shaft-editor-${width}-top.png`) });
+      await screenshotAsSeen(page, `whole-shaft-editor-${width}-top`);
       // The parts to look at closely, one picture each (the full page is too tall to read).
       for (const [part, selector] of [
         ['outline', 'tt-shaft-drawing'],
@@ -31,9 +30,7 @@ describe('the whole shaft in the browser', () => {
         ['deflection', 'tt-plots-panel tt-diagram-chart >> nth=2'],
         ['slope', 'tt-plots-panel tt-diagram-chart >> nth=3'],
       ]) {
-        await page
-          .locator(selector)
-          .screenshot({ path: path.join(SCREENSHOT_DIR, `whole-shaft-${part}-${width}.png`) });
+        await screenshotAsSeen(page.locator(selector), `whole-shaft-${part}-${width}`);
       }
       expect(await accessibilityViolations(page)).toEqual([]);
     }

@@ -3,10 +3,22 @@ import os from 'node:os';
 import path from 'node:path';
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { chromium, type BrowserContext, type Locator, type Page } from 'playwright-core';
 import { startTestApp } from './api-harness';
 
 export const SCREENSHOT_DIR = path.resolve(__dirname, '../../artifacts/screenshots');
+
+/**
+ * Screenshots are pictures for people to look at, not checks: they are taken only when SCREENSHOTS=1 (`npm run
+ * screens`), and `npm test` skips them. In the browser specs they cost about 40 % of the screens spec's CPU time
+ * (DEVELOPERS.md, "Tests"). Every layout, keyboard and axe check runs either way.
+ */
+export const SCREENSHOTS_WANTED = process.env.SCREENSHOTS === '1';
+
+/** What a person sees without scrolling (a page), or one element (a locator), saved as `<name>.png`. */
+export async function screenshotAsSeen(target: Page | Locator, name: string): Promise<void> {
+  if (SCREENSHOTS_WANTED) await target.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`) });
+}
 
 // Debian's chromium, started the way this machine allows: no sandbox as root, no background network.
 const CHROMIUM_ARGS = [
@@ -48,8 +60,10 @@ export async function startBrowserSession() {
     baseUrl,
     context,
     outsideRequests,
-    screenshot: (page: Page, name: string) =>
-      page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`), fullPage: true }),
+    /** The whole page, scrolled through, saved as `<name>.png` (only when SCREENSHOTS=1, see above). */
+    async screenshot(page: Page, name: string): Promise<void> {
+      if (SCREENSHOTS_WANTED) await page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`), fullPage: true });
+    },
     async close() {
       await context.close();
       await new Promise((resolve) => server.close(resolve));

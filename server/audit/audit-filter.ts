@@ -10,7 +10,7 @@ export function auditWhere(q: Omit<AuditQuery, 'page'>): WhereOptions<AuditEvent
   const parts: WhereOptions<AuditEvent>[] = [];
   if (q.entityType) parts.push({ entityType: q.entityType });
   // A prefix match: LIKE wildcards in the text itself are escaped, so "auth.signed_in" means exactly that.
-  if (q.action) parts.push({ action: { [Op.like]: `${q.action.replace(/[\\%_]/g, '\\$&')}%` } });
+  if (q.action) parts.push({ action: { [Op.like]: likePrefix(q.action) } });
   if (q.userId) parts.push({ actorId: q.userId });
   if (q.from) parts.push({ occurredAt: { [Op.gte]: new Date(`${q.from}T00:00:00Z`) } });
   if (q.to) parts.push({ occurredAt: { [Op.lt]: new Date(new Date(`${q.to}T00:00:00Z`).getTime() + 86_400_000) } });
@@ -20,3 +20,6 @@ export function auditWhere(q: Omit<AuditQuery, 'page'>): WhereOptions<AuditEvent
   if (q.after) parts.push({ id: { [Op.lt]: q.after } });
   return { [Op.and]: parts };
 }
+
+/** `text` as a LIKE pattern for the values that start with it, its own wildcards taken literally. */
+export const likePrefix = (text: string) => `${text.replace(/[\\%_]/g, '\\$&')}%`;

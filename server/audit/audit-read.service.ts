@@ -7,7 +7,7 @@ import { AuditEvent, User } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { cappedCount } from '../http/keyset';
 import { verifyAuditChain } from './audit.service';
-import { auditWhere } from './audit-filter';
+import { auditWhere, likePrefix } from './audit-filter';
 import { describeRecords, recordOf } from './audit-records';
 
 type Listed = AuditEvent & { hasDiff?: number };
@@ -64,7 +64,7 @@ export async function listAudit(
     query.after ? null : countAudit(query),
   ]);
   const items = rows.slice(0, query.size);
-  const refs = await describeRecords(items);
+  const refs = await describeRecords(sequelize, items);
   return {
     items: items.map((r) => ({ ...toAuditDto(r), record: recordOf(refs, r) })),
     size: query.size,
@@ -76,15 +76,32 @@ export async function listAudit(
 
 // The same filter as the page, as SQL for the capped count (Sequelize builds it; the page's keyset is left out).
 async function countAudit(query: Omit<AuditQuery, 'page'>) {
+  // An action prefix within a project is counted one matching action at a time through the (action, project, time)
+  // index, reading index entries only; as `action LIKE … AND project_id = …` MariaDB read every row of the project
+  // to test its action (on 100,000 calcs: 29 ms against 1.5 ms for a project of 28,800 entries). The actions come
+  // from the table itself (a loose index scan), so one never written by this version still counts.
+  const byAction = Boolean(query.action && query.projectId);
+  const sql = selectOne({ ...query, after: undefined, ...(byAction ? { action: undefined } : {}) });
+  const from = sql.replace(/^SELECT 1 AS `one` /, '').replace(/;$/, '');
+  if (!byAction) return cappedCount(AuditEvent.sequelize!, from, []);
+  const [table, where] = from.split(/ WHERE /);
+  const actions = 'SELECT DISTINCT action FROM audit_events WHERE action LIKE ?';
+  return cappedCount(
+    AuditEvent.sequelize!,
+    `${table} JOIN (${actions}) actions ON actions.action = \`AuditEvent\`.action WHERE ${where}`,
+    [likePrefix(query.action!)],
+  );
+}
+
+function selectOne(query: Omit<AuditQuery, 'page'>): string {
   type Generator = { selectQuery(t: string, o: object, m: unknown): string };
   const qg = AuditEvent.sequelize!.getQueryInterface().queryGenerator as Generator;
   // Attribute names become column names as findAll would map them (projectId → project_id).
   const options = (Utils as unknown as { mapOptionFieldNames<T>(o: T, m: unknown): T }).mapOptionFieldNames(
-    { attributes: [[AuditEvent.sequelize!.literal('1'), 'one']], where: auditWhere({ ...query, after: undefined }) },
+    { attributes: [[AuditEvent.sequelize!.literal('1'), 'one']], where: auditWhere(query) },
     AuditEvent,
   );
-  const sql = qg.selectQuery('audit_events', options, AuditEvent);
-  return cappedCount(AuditEvent.sequelize!, sql.replace(/^SELECT 1 AS `one` /, '').replace(/;$/, ''), []);
+  return qg.selectQuery('audit_events', options, AuditEvent);
 }
 
 /**

@@ -1,53 +1,61 @@
-import { Op, QueryTypes } from 'sequelize';
+import { QueryTypes, type Sequelize } from 'sequelize';
 import type { AuditRecordRef } from '../../shared/schemas/audit.schema';
-import { Calc, Project, Revision, RuleSetRecord, User } from '../db/models';
 
 type Row = { entityType: string; entityId: string | null };
 
-const idsOf = (rows: Row[], type: string) => [
-  ...new Set(rows.filter((r) => r.entityType === type && r.entityId).map((r) => Number(r.entityId))),
-];
+/** One part of the look-up per record type (each names its columns: any may come first): id and up to three values. */
+const LOOKUPS: Record<string, string> = {
+  Revision: `SELECT 'Revision' AS type, r.id, c.number AS a, r.label AS b, r.calc_id AS c
+    FROM revisions r JOIN calcs c ON c.id = r.calc_id WHERE r.id IN (?)`,
+  Calc: "SELECT 'Calc' AS type, id, number AS a, NULL AS b, NULL AS c FROM calcs WHERE id IN (?)",
+  Project: "SELECT 'Project' AS type, id, code AS a, NULL AS b, NULL AS c FROM projects WHERE id IN (?)",
+  RuleSet: "SELECT 'RuleSet' AS type, id, code AS a, version AS b, NULL AS c FROM rule_sets WHERE id IN (?)",
+  User: "SELECT 'User' AS type, id, display_name AS a, NULL AS b, NULL AS c FROM users WHERE id IN (?)",
+};
 
-type Model = typeof Calc | typeof Project | typeof RuleSetRecord | typeof User;
+interface Found {
+  type: string;
+  id: number;
+  a: string;
+  b: string | number | null;
+  c: number | null;
+}
 
-/** Plain rows of the given ids, or none without asking MariaDB when a page names no record of that type. */
-async function plainRows<T>(model: Model, ids: number[], attributes: string[]): Promise<T[]> {
-  if (!ids.length) return [];
-  return (await (model as typeof Calc).findAll({ where: { id: { [Op.in]: ids } }, attributes, raw: true })) as T[];
+function refOf(r: Found): AuditRecordRef {
+  switch (r.type) {
+    case 'Revision':
+      return { label: `calc ${r.a} rev ${r.b}`, link: `/calcs/${r.c}?rev=${r.id}` };
+    case 'Calc':
+      return { label: `calc ${r.a}`, link: `/calcs/${r.id}` };
+    case 'Project':
+      return { label: `project ${r.a}`, link: `/projects/${r.id}` };
+    case 'RuleSet':
+      return { label: `standard ${r.a} v${r.b}`, link: `/rule-sets/${r.id}` };
+    default:
+      return { label: `account of ${r.a}`, link: null };
+  }
 }
 
 /**
  * What each audit row is about, in the words and numbers people use: "KFD-210 calc CV-7 rev B"
- * with a link, not "Revision 7". Loaded in one query per record type on the page (a revision with its calc's
- * number), side by side, as plain rows.
+ * with a link, not "Revision 7". One statement for the whole page (a part per record type it names, a revision
+ * with its calc's number), as plain rows: a statement per type cost more of the app's time than the page itself.
  */
-export async function describeRecords(rows: Row[]): Promise<Map<string, AuditRecordRef>> {
-  const revisionIds = idsOf(rows, 'Revision');
-  const [revisions, calcs, projects, ruleSets, users] = await Promise.all([
-    revisionIds.length
-      ? Revision.sequelize!.query<{ id: number; calcId: number; label: string; number: string }>(
-          `SELECT r.id, r.calc_id AS calcId, r.label, c.number
-             FROM revisions r JOIN calcs c ON c.id = r.calc_id WHERE r.id IN (?)`,
-          { replacements: [revisionIds], type: QueryTypes.SELECT },
-        )
-      : [],
-    plainRows<{ id: number; number: string }>(Calc, idsOf(rows, 'Calc'), ['id', 'number']),
-    plainRows<{ id: number; code: string }>(Project, idsOf(rows, 'Project'), ['id', 'code']),
-    plainRows<{ id: number; code: string; version: number }>(RuleSetRecord, idsOf(rows, 'RuleSet'), [
-      'id',
-      'code',
-      'version',
-    ]),
-    plainRows<{ id: number; displayName: string }>(User, idsOf(rows, 'User'), ['id', 'displayName']),
-  ]);
+export async function describeRecords(sequelize: Sequelize, rows: Row[]): Promise<Map<string, AuditRecordRef>> {
+  const ids = new Map<string, Set<number>>();
+  for (const r of rows) {
+    if (!r.entityId || !/^\d{1,15}$/.test(r.entityId) || !LOOKUPS[r.entityType]) continue;
+    const set = ids.get(r.entityType) ?? new Set<number>();
+    ids.set(r.entityType, set.add(Number(r.entityId)));
+  }
   const out = new Map<string, AuditRecordRef>();
-  for (const r of revisions)
-    out.set(`Revision:${r.id}`, { label: `calc ${r.number} rev ${r.label}`, link: `/calcs/${r.calcId}?rev=${r.id}` });
-  for (const c of calcs) out.set(`Calc:${c.id}`, { label: `calc ${c.number}`, link: `/calcs/${c.id}` });
-  for (const p of projects) out.set(`Project:${p.id}`, { label: `project ${p.code}`, link: `/projects/${p.id}` });
-  for (const s of ruleSets)
-    out.set(`RuleSet:${s.id}`, { label: `standard ${s.code} v${s.version}`, link: `/rule-sets/${s.id}` });
-  for (const u of users) out.set(`User:${u.id}`, { label: `account of ${u.displayName}`, link: null });
+  if (!ids.size) return out;
+  const types = [...ids.keys()];
+  const found = await sequelize.query<Found>(types.map((t) => `(${LOOKUPS[t]})`).join(' UNION ALL '), {
+    replacements: types.map((t) => [...ids.get(t)!]),
+    type: QueryTypes.SELECT,
+  });
+  for (const r of found) out.set(`${r.type}:${r.id}`, refOf(r));
   return out;
 }
 

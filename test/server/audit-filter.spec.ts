@@ -1,5 +1,5 @@
 import { startTestApp } from '../support/api-harness';
-import { calcTeam, sign } from '../support/calc-harness';
+import { calcTeam, effectiveRuleSetId, fixtureInput, sign } from '../support/calc-harness';
 import { signedInAs } from '../support/api-harness';
 
 const { app, sequelize } = startTestApp();
@@ -41,6 +41,35 @@ describe('audit trail filters', () => {
       expect(e.action.startsWith('revision.signed')).toBe(true);
       expect([from, to]).toContain(e.occurredAt.slice(0, 10));
     }
+  });
+
+  it("when filtered by project and an action group, then the total counts exactly that project's entries of it", async () => {
+    // Two calcs in one project: two creations and two submissions; another project's calc stays out.
+    const { author, project, revisionId } = await calcTeam(app);
+    const second = await author.session.post('/api/calcs', {
+      projectId: project.id,
+      number: `C2-${revisionId}`,
+      title: 'Second shaft',
+      partRef: 'DRG-2',
+      ruleSetId: await effectiveRuleSetId(),
+      input: fixtureInput(),
+    });
+    expect(second.status).toBe(201);
+    await sign(author.session, revisionId, 'authored');
+    await sign(author.session, second.body.latest.id, 'authored');
+    const other = await calcTeam(app);
+    await sign(other.author.session, other.revisionId, 'authored');
+    const { session: auditor } = await signedInAs(app, ['compliance']);
+
+    const signed = await auditor.get(`/api/audit?projectId=${project.id}&action=revision.signed&size=1`);
+    const created = await auditor.get(`/api/audit?projectId=${project.id}&action=calc.&size=50`);
+    const none = await auditor.get(`/api/audit?projectId=${project.id}&action=rule_set.&size=50`);
+
+    expect(signed.body).toEqual(expect.objectContaining({ total: 2, totalIsAtLeast: false }));
+    expect(signed.body.items).toHaveLength(1);
+    expect(created.body.total).toBe(2);
+    expect(created.body.items.map((e: { action: string }) => e.action)).toEqual(['calc.created', 'calc.created']);
+    expect(none.body).toEqual(expect.objectContaining({ total: 0, items: [] }));
   });
 
   it('when "from" is after "to", then it is a 400 naming the field', async () => {

@@ -1,4 +1,4 @@
-import { startTestApp, signedInAs } from '../support/api-harness';
+import { startTestApp, signedInAs, uniqueCode } from '../support/api-harness';
 import { calcTeam, sign } from '../support/calc-harness';
 
 // The audit trail as a compliance officer reads it: what each row is about, named as people name it,
@@ -25,6 +25,21 @@ describe('audit trail in human words', () => {
       }),
     );
     expect(created.record).toEqual({ label: `calc ${calc.number}`, link: `/calcs/${calc.id}` });
+  });
+
+  it('when one page names a project and an account, then each is labelled as people name it', async () => {
+    const admin = await signedInAs(app, ['admin'], 'audit-words-admin');
+    const code = uniqueCode('AW');
+    const created = await admin.session.post('/api/projects', { code, name: 'Labelled conveyor shaft' });
+    expect(created.status).toBe(201);
+    const compliance = await signedInAs(app, ['compliance'], 'audit-words');
+
+    const res = await compliance.session.get(`/api/audit?userId=${admin.user.id}&size=50`);
+
+    const recordOf = (type: string) =>
+      res.body.items.find((e: { entityType: string }) => e.entityType === type)?.record;
+    expect(recordOf('Project')).toEqual({ label: `project ${code}`, link: `/projects/${created.body.id}` });
+    expect(recordOf('User')).toEqual({ label: 'account of Test audit-words-admin', link: null });
   });
 
   it('when compliance opens the person filter, then the people in the trail are listed by name', async () => {

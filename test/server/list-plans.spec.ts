@@ -65,6 +65,10 @@ const LISTS: [string, () => Promise<string>][] = [
   ['audit list of a person', async () => `/api/audit?userId=${seeded.authorId}&size=50`],
   ['audit list by action', async () => '/api/audit?action=revision.signed&size=50'],
   [
+    'audit list of a project by action',
+    async () => `/api/audit?projectId=${seeded.projectId}&action=revision.signed&size=50`,
+  ],
+  [
     'audit list, second page by keyset',
     async () =>
       `/api/audit?projectId=${seeded.projectId}&size=50&after=${await nextCursor(`/api/audit?projectId=${seeded.projectId}&size=50`)}`,

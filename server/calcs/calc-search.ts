@@ -44,11 +44,27 @@ function matchColumn(d: Driver, r: SearchRequest): { sql: string; params: unknow
   return { sql: `EXISTS (SELECT 1 FROM calcs c WHERE c.id = ${id} AND ${m.sql})`, params: m.params };
 }
 
+interface Chunk {
+  /** The candidates of the chunk that satisfy every word and filter, in the list's order. */
+  matches: Candidate[];
+  /** How many candidates the chunk read, and the last of them (where the next chunk starts). */
+  seen: number;
+  last: KeyValue[] | null;
+}
+
 /**
- * The next `limit` candidates of the driver after `after`, in the list's order, from its index alone, each with
- * whether it matches: one statement per chunk (it was two, the second sending the chunk's ids back).
+ * The next `limit` candidates of the driver after `after`, in the list's order, from its index alone, each checked
+ * as it is read: one statement per chunk. Only the matches travel back, with the chunk's last candidate and its
+ * size; a broad word used to send every candidate to the app to be parsed and dropped (on 100,000 calcs a two-word
+ * search read up to 2,000 rows to show 50, and its app CPU went mostly to that).
  */
-async function candidates(db: Sequelize, d: Driver, r: SearchRequest, after: KeyValue[] | null, limit: number) {
+async function candidates(
+  db: Sequelize,
+  d: Driver,
+  r: SearchRequest,
+  after: KeyValue[] | null,
+  limit: number,
+): Promise<Chunk> {
   const where = [...d.where];
   const params = [...d.params];
   if (after) {
@@ -58,16 +74,28 @@ async function candidates(db: Sequelize, d: Driver, r: SearchRequest, after: Key
   }
   const keys = d.columns.map((c, i) => `${c.sql} AS k${i}`).join(', ');
   const match = matchColumn(d, r);
+  const chunk = `SELECT ${keys}, ${match.sql} AS ok FROM ${d.from} WHERE ${where.join(' AND ')}
+      ORDER BY ${orderBy(d.columns, r.dir)} LIMIT ${limit}`;
+  // The chunk's rows keep their column types (an ENUM still sorts by its declared order), so numbering them in
+  // the same order finds the last one.
+  const numbered = orderBy(
+    d.columns.map((c, i) => ({ ...c, sql: `y.k${i}` })),
+    r.dir,
+  );
   const rows = await select<Record<string, string | number | Date>>(
     db,
-    `SELECT ${keys}, ${match.sql} AS ok FROM ${d.from} WHERE ${where.join(' AND ')}
-      ORDER BY ${orderBy(d.columns, r.dir)} LIMIT ${limit}`,
+    d.isExact
+      ? chunk
+      : `SELECT * FROM (SELECT y.*, ROW_NUMBER() OVER (ORDER BY ${numbered}) AS rn, COUNT(*) OVER () AS seen
+          FROM (${chunk}) y) z WHERE z.ok = 1 OR z.rn = z.seen ORDER BY z.rn`,
     [...match.params, ...params],
   );
-  return rows.map((row): Candidate => {
+  const list = rows.map((row): Candidate => {
     const key = d.columns.map((c, i) => (c.isDate ? new Date(row[`k${i}`]).toISOString() : row[`k${i}`])) as KeyValue[];
     return { id: Number(key[key.length - 1]), key, ok: Number(row.ok) === 1 };
   });
+  const seen = d.isExact ? rows.length : Number(rows[0]?.seen ?? 0);
+  return { matches: list.filter((c) => c.ok), seen, last: list.length ? list[list.length - 1].key : null };
 }
 
 /**
@@ -87,17 +115,17 @@ export async function searchCalcs(db: Sequelize, r: SearchRequest): Promise<Sear
   let matched = 0;
   while (found.length <= r.size && examined < SEARCH_LIMITS.pageBudget) {
     const limit = Math.min(chunk, SEARCH_LIMITS.pageBudget - examined);
-    const list = await candidates(db, driver, r, after, limit);
-    examined += list.length;
-    for (const c of list.filter((x) => x.ok)) {
+    const { matches, seen, last } = await candidates(db, driver, r, after, limit);
+    examined += seen;
+    for (const c of matches) {
       matched++;
       if (found.length <= r.size) found.push(c);
     }
-    if (list.length < limit) {
+    if (seen < limit || !last) {
       exhausted = true;
       break;
     }
-    after = list[list.length - 1].key;
+    after = last;
     chunk *= 4;
   }
   const full = found.length > r.size;

@@ -126,6 +126,35 @@ describe('search pages', () => {
     }
   });
 
+  it('when a search reads its candidates in several chunks, then each chunk starts after the last one read, matching or not', async () => {
+    // Arrange: the first word in ten calcs, the second in ten, both in three; a page of one reads 8, then 32.
+    const t = await calcTeam(app);
+    const [a, b] = [uniqueWord(), uniqueWord()];
+    for (let i = 0; i < 10; i++) await addCalc(t, `W-${i}`, [1, 5, 8].includes(i) ? `${a} ${b} shaft` : `${a} shaft`);
+    for (let i = 0; i < 7; i++) await addCalc(t, `V-${i}`, `${b} shaft`);
+
+    const saved = { ...SEARCH_LIMITS };
+    Object.assign(SEARCH_LIMITS, { firstChunk: 1 });
+    try {
+      for (const order of [
+        'sort=number&dir=desc',
+        'sort=title&dir=asc',
+        'sort=updatedAt&dir=desc',
+        'sort=status&dir=asc',
+      ]) {
+        // Act
+        const plain = (await search(t, `projectId=${t.project.id}&size=50&${order}`)).items;
+        const pages = await allPages(t, `q=${a}%20${b}&size=1&${order}`);
+
+        // Assert
+        const wanted = plain.filter((r) => ['W-1', 'W-5', 'W-8'].includes(r.number)).map((r) => r.id);
+        expect(pages.flatMap((p) => p.items.map((r) => r.id))).toEqual(wanted);
+      }
+    } finally {
+      Object.assign(SEARCH_LIMITS, saved);
+    }
+  });
+
   it('when the page bound is reached before a page fills, then the answer says so and the next page searches on', async () => {
     // Arrange: two words, each in four calcs, together only in the oldest
     const t = await calcTeam(app);

@@ -41,6 +41,7 @@ const LISTS: [string, () => Promise<string>][] = [
     async () => `/api/calcs?projectId=${seeded.projectId}&status=draft&sort=number&dir=asc&size=50`,
   ],
   ['calc list of the library, by title', async () => '/api/calcs?sort=title&dir=desc&size=50'],
+  ['calc list of the library in one state, by title', async () => '/api/calcs?status=approved&sort=title&size=50'],
   ['calc list of the library, by state', async () => '/api/calcs?sort=status&size=50'],
   [
     'calc list, second page by keyset',

@@ -13,7 +13,7 @@ import type { RevisionState } from '../../shared/schemas/revision.schema';
 import { QUEUES, WORKFLOW } from '../../shared/workflow/revision-states';
 import type { Relation } from '../../shared/workflow/relations';
 import { Calc } from '../db/models';
-import { cappedCount, decodeCursor, encodeCursor, keysetCondition, type KeyColumn } from '../http/keyset';
+import { decodeCursor, encodeCursor, keysetCondition, type KeyColumn } from '../http/keyset';
 import { blindRevisionIds } from '../independent/blind-lists';
 import { createAppAbility, defineRulesFor } from '../../shared/authz/app-ability';
 
@@ -86,45 +86,94 @@ const toItem = (r: Row): QueueItem => ({
   since: new Date(r.latest_since).toISOString(),
 });
 
-/** One page of one queue, oldest first; counted (up to a cap) only on its first page. */
-export async function queuePage(user: SessionUser, key: QueueKey, query: QueueQuery): Promise<QueueDto> {
+type QueueRows = { rows: Row[]; counted: { total: number; totalIsAtLeast: boolean } | null };
+
+const COLUMNS = `c.id, c.latest_revision_id, c.project_code, c.number, c.title, c.latest_label, c.latest_status,
+  c.latest_verdict, c.author_name, c.latest_since, c.latest_author_id, c.latest_rule_set_id`;
+
+/**
+ * One page of each of these queues (and one more row, to know there is a next page), with each queue's capped count
+ * on a first page: every queue's page in one statement and every count in another, each part on its own index range
+ * (a statement per page and per count cost the app more than reading the rows).
+ */
+async function queueRows(user: SessionUser, keys: QueueKey[], query: QueueQuery): Promise<QueueRows[]> {
   const sequelize = Calc.sequelize!;
-  const filter = filterOf(key, user.id);
+  const filters = keys.map((key) => filterOf(key, user.id));
   const keyset = query.after
     ? keysetCondition(KEY, decodeCursor(query.after, KEY), 'asc')
     : { sql: 'TRUE', replacements: [] };
-  const [rows, counted] = await Promise.all([
-    sequelize.query<Row>(
-      `SELECT c.id, c.latest_revision_id, c.project_code, c.number, c.title, c.latest_label, c.latest_status, c.latest_verdict,
-        c.author_name, c.latest_since, c.latest_author_id, c.latest_rule_set_id FROM calcs c WHERE ${filter.sql} AND ${keyset.sql}
-        ORDER BY c.latest_since ASC, c.id ASC LIMIT ${query.size + 1}`,
-      { replacements: [...filter.params, ...keyset.replacements], type: QueryTypes.SELECT },
-    ),
-    query.after ? null : cappedCount(sequelize, `FROM calcs c WHERE ${filter.sql}`, filter.params, QUEUE_COUNT_CAP),
-  ]);
-  const items = rows.slice(0, query.size);
-  const last = items[items.length - 1];
-  const blind = await blindRevisionIds(
-    createAppAbility(defineRulesFor(user)),
-    items.map((r) => ({
-      revisionId: r.latest_revision_id,
-      ruleSetId: r.latest_rule_set_id,
-      authorId: r.latest_author_id,
-      status: r.latest_status,
-    })),
+  const pages = filters.map(
+    (f, i) => `(SELECT ${i} AS q, ${COLUMNS} FROM calcs c WHERE ${f.sql} AND ${keyset.sql}
+      ORDER BY c.latest_since ASC, c.id ASC LIMIT ${query.size + 1})`,
   );
+  const counts = filters.map(
+    (f, i) =>
+      `SELECT ${i} AS q, COUNT(*) AS n FROM (SELECT 1 FROM calcs c WHERE ${f.sql} LIMIT ${QUEUE_COUNT_CAP + 1}) x${i}`,
+  );
+  const [rows, counted] = await Promise.all([
+    sequelize.query<Row & { q: number }>(`${pages.join(' UNION ALL ')} ORDER BY q, latest_since, id`, {
+      replacements: filters.flatMap((f) => [...f.params, ...keyset.replacements]),
+      type: QueryTypes.SELECT,
+    }),
+    query.after
+      ? null
+      : sequelize.query<{ q: number; n: number }>(counts.join(' UNION ALL '), {
+          replacements: filters.flatMap((f) => f.params),
+          type: QueryTypes.SELECT,
+        }),
+  ]);
+  return keys.map((_, i) => {
+    const n = counted ? Number(counted.find((c) => Number(c.q) === i)?.n ?? 0) : null;
+    return {
+      rows: rows.filter((r) => Number(r.q) === i),
+      counted: n === null ? null : { total: Math.min(n, QUEUE_COUNT_CAP), totalIsAtLeast: n > QUEUE_COUNT_CAP },
+    };
+  });
+}
+
+/** The revisions among these pages whose verdict this person may not see yet (a blind check), asked once. */
+function blindOf(user: SessionUser, pages: QueueRows[], size: number): Promise<Set<number>> {
+  return blindRevisionIds(
+    createAppAbility(defineRulesFor(user)),
+    pages.flatMap((p) =>
+      p.rows.slice(0, size).map((r) => ({
+        revisionId: r.latest_revision_id,
+        ruleSetId: r.latest_rule_set_id,
+        authorId: r.latest_author_id,
+        status: r.latest_status,
+      })),
+    ),
+  );
+}
+
+function queueDto(key: QueueKey, { rows, counted }: QueueRows, size: number, blind: Set<number>): QueueDto {
+  const items = rows.slice(0, size);
+  const last = items[items.length - 1];
   return {
     key,
     label: QUEUE_LABELS[key],
     items: items.map((r) => toItem(blind.has(r.latest_revision_id) ? { ...r, latest_verdict: null } : r)),
     total: counted?.total ?? null,
     totalIsAtLeast: counted?.totalIsAtLeast ?? false,
-    size: query.size,
-    next: rows.length > query.size ? encodeCursor([new Date(last.latest_since).toISOString(), last.id]) : null,
+    size,
+    next: rows.length > size ? encodeCursor([new Date(last.latest_since).toISOString(), last.id]) : null,
   };
 }
 
-/** The first page of every queue this person's roles give them. */
+/** One page of one queue, oldest first; counted (up to a cap) only on its first page. */
+export async function queuePage(user: SessionUser, key: QueueKey, query: QueueQuery): Promise<QueueDto> {
+  const [page] = await queueRows(user, [key], query);
+  return queueDto(key, page, query.size, await blindOf(user, [page], query.size));
+}
+
+/**
+ * The first page of every queue this person's roles give them, read together; whose verdicts stay hidden is then
+ * decided once for all of them (it was a standards read and a models read per queue).
+ */
 export async function queuesOf(user: SessionUser, query: QueueQuery): Promise<QueueDto[]> {
-  return Promise.all(queueKeysOf(user).map((key) => queuePage(user, key, { size: query.size })));
+  const keys = queueKeysOf(user);
+  if (!keys.length) return [];
+  const pages = await queueRows(user, keys, { size: query.size });
+  const blind = await blindOf(user, pages, query.size);
+  return keys.map((key, i) => queueDto(key, pages[i], query.size, blind));
 }

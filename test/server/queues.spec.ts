@@ -103,6 +103,33 @@ describe("the author's queues", () => {
   });
 });
 
+describe('queue pages', () => {
+  it('when an author has three drafts and a returned calc, then each queue counts its own, oldest first, a page at a time', async () => {
+    // Arrange: drafts made one after another (each waits since it was made), then the first submitted and returned
+    const t = await team();
+    const drafts = [(await createCalc(t.author.session)).revisionId, (await createCalc(t.author.session)).revisionId];
+    drafts.push((await createCalc(t.author.session)).revisionId);
+    await advanceTo('in_check', t.sessions, t.revisionId);
+    const back = await t.checker.session.post(`/api/revisions/${t.revisionId}/return`, {
+      reason: 'Missing key seat',
+      lockVersion: (await revisionOf(t.author.session, t.revisionId)).lockVersion,
+    });
+    expectStatus(back, 200, 'return');
+
+    // Act
+    const first = expectStatus(await t.author.session.get('/api/dashboard/queues?size=2'), 200, 'queues').body;
+    const [mine, returned] = first as (QueuePage & { total: number; totalIsAtLeast: boolean })[];
+    const rest = await t.author.session.get(`/api/dashboard/queues/my-drafts?size=2&after=${mine.next}`);
+
+    // Assert
+    expect(mine).toMatchObject({ key: 'my-drafts', total: 3, totalIsAtLeast: false });
+    expect([...mine.items, ...rest.body.items].map((i: { revisionId: number }) => i.revisionId)).toEqual(drafts);
+    expect(rest.body).toMatchObject({ total: null, next: null });
+    expect(returned).toMatchObject({ key: 'returned-to-me', total: 1, next: null });
+    expect(returned.items.map((i) => i.revisionId)).toEqual([t.revisionId]);
+  });
+});
+
 describe("the checker's queue", () => {
   it('when a calc is submitted, then it waits for every independent checker but not for a checker who edited it', async () => {
     // Arrange

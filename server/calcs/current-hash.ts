@@ -20,7 +20,7 @@ async function hashSourcesOf(
   transaction: Transaction | undefined,
   result: unknown,
   maxFormat: number,
-  known: Partial<Pick<HashSources, 'calc' | 'attachments'>> = {},
+  known: Partial<HashSources> = {},
 ): Promise<HashSources> {
   const [calc, expanded, attachments, model] = await Promise.all([
     known.calc ??
@@ -31,7 +31,7 @@ async function hashSourcesOf(
       }) as Promise<HashSources['calc']>),
     result ?? expandResult(Revision.sequelize!, revision.result, transaction),
     maxFormat < 2 ? [] : (known.attachments ?? Attachment.findAll({ where: { revisionId: revision.id }, transaction })),
-    maxFormat >= 3 ? lockedModelOf(revision.id, transaction) : null,
+    maxFormat < 3 ? null : known.model !== undefined ? known.model : lockedModelOf(revision.id, transaction),
   ]);
   return { calc, expanded, attachments, model };
 }
@@ -89,7 +89,8 @@ export async function currentHashOf(
  * is judged by the content it covered: tampering or a changed attachment set shows as broken.
  * `withOwnFormat: false` leaves out the revision's own format when no signature needs it (a plain
  * read of an unsigned revision then reads and hashes nothing: only signatures are judged by it).
- * What the formats share (the calc, its attachments, the locked model) is read once.
+ * What the formats share (the calc, its attachments, the locked model) is read once, or not at all when the caller
+ * knows it (`known`: a plain read knows the calc, and that there are no attachments or no model when there are none).
  */
 export async function currentHashesOf(
   revision: Revision,
@@ -97,13 +98,14 @@ export async function currentHashesOf(
   transaction?: Transaction,
   result?: unknown,
   withOwnFormat = true,
+  known: Partial<HashSources> = {},
 ): Promise<Map<number, string | null>> {
   const own = withOwnFormat ? [revision.contentFormat ?? 1] : [];
   const formats = [...new Set([...own, ...signatures.map((s) => s.contentFormat ?? 1)])];
   const hashes = new Map<number, string | null>();
   if (!formats.length) return hashes;
   if (!revision.result || !revision.checklist) return new Map(formats.map((f) => [f, null]));
-  const sources = await hashSourcesOf(revision, transaction, result, Math.max(...formats));
+  const sources = await hashSourcesOf(revision, transaction, result, Math.max(...formats), known);
   for (const f of formats) hashes.set(f, hashInFormat(revision, sources, f));
   return hashes;
 }

@@ -12,7 +12,8 @@ import { timed } from '../http/server-timing';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { expandResult } from './stored-result';
 import { withVerification } from '../independent/blind';
-import { currentHashesOf } from './current-hash';
+import { currentHashesOf, type HashSources } from './current-hash';
+import { readContextOf, signaturesOf } from './revision-read-context';
 import type { SaveContext } from './save-context';
 
 // Where the hashes were first written; callers keep importing them from here.
@@ -23,37 +24,61 @@ export { currentHashOf, currentHashesOf } from './current-hash';
  * the row as a save has just written it, with its standard and people attached, its result expanded and the calc's
  * editors when the save knows them, and which rows hang off it (the answer to that save): then none of them is read
  * again, nor the signatures, findings or independent model it has none of (their writers all lock the revision row,
- * so none appeared while the save held it).
+ * so none appeared while the save held it). A plain read (no transaction) reads the same in one statement
+ * (readContextOf); a read inside a write's transaction locks the row and reads the rest as before.
  */
 export async function readRevision(
   ability: AppAbility,
   id: number,
   transaction?: Transaction,
-  known?: { revision: Revision; result: unknown; editorIds: number[] | null; has?: SaveContext['has'] },
+  known?: Known,
 ): Promise<RevisionDto> {
-  const revision = known?.revision ?? (await timed('read', () => loadRevision(id, transaction)));
+  const context = known ?? (await timed('read', () => contextOf(id, transaction)));
+  const { revision, has } = context;
   ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
   const [result, signatures, findings, editorIds] = await timed('read', () =>
     Promise.all([
-      known ? known.result : expandResult(Revision.sequelize!, revision.result, transaction),
-      known?.has?.signatures === false
+      context.result !== undefined ? context.result : expandResult(Revision.sequelize!, revision.result, transaction),
+      has?.signatures === false
         ? []
-        : Signature.findAll({ where: { revisionId: id }, order: [['signedAt', 'ASC']], transaction }),
-      known?.has?.findings === false
+        : transaction
+          ? Signature.findAll({ where: { revisionId: id }, order: [['signedAt', 'ASC']], transaction })
+          : signaturesOf(id),
+      has?.findings === false
         ? []
         : Finding.findAll({ where: { revisionId: id }, order: [['id', 'ASC']], transaction }),
-      known?.editorIds ?? editorIdsOf(revision.calcId, transaction),
+      context.editorIds ?? editorIdsOf(revision.calcId, transaction),
     ]),
   );
+  const hashKnown = {
+    calc: context.calc,
+    attachments: has?.attachments === false ? [] : undefined,
+    model: has?.independent_models === false ? null : undefined,
+  };
   // Independent of each other: asked together, so the database round trips overlap.
   const [currentHashes, names, inputIssues] = await Promise.all([
-    timed('hash', () => currentHashesOf(revision, signatures, transaction, result, false)),
+    timed('hash', () => currentHashesOf(revision, signatures, transaction, result, false, hashKnown)),
     timed('names', () => namesOf(findings, transaction)),
     timed('input', () => inputIssuesOf(revision)),
   ]);
   const dto = toRevisionDto(revision, { result, signatures, findings, editorIds, currentHashes, names, inputIssues });
-  const noModel = known?.has?.independent_models === false;
+  const noModel = has?.independent_models === false;
   return timed('verification', () => withVerification(ability, revision, dto, transaction, noModel));
+}
+
+/** What a read starts from: the row with its standard and people, and what it already knows besides. */
+interface Known {
+  revision: Revision;
+  /** The expanded result, when known (undefined: expand the stored one). */
+  result?: unknown;
+  editorIds: number[] | null;
+  has?: SaveContext['has'];
+  calc?: HashSources['calc'];
+}
+
+async function contextOf(id: number, transaction?: Transaction): Promise<Known> {
+  if (!transaction) return readContextOf(id);
+  return { revision: await loadRevision(id, transaction), editorIds: null };
 }
 
 async function namesOf(findings: readonly Finding[], transaction?: Transaction): Promise<Map<number, string>> {

@@ -4,6 +4,7 @@ import { startTestApp, TEST_PASSWORD, person } from '../support/api-harness';
 import { advanceTo, createCalc, revisionOf, sign, tickAll, type Team } from '../support/calc-harness';
 import { auditOf, lastAuditId } from '../support/audit-harness';
 import { mailAbout } from '../support/mail-harness';
+import { testStandard } from '../support/standard-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
@@ -17,11 +18,11 @@ interface SignatureView {
   isValid: boolean;
 }
 
-async function team() {
+async function team(ruleSetId?: number) {
   const author = await person(app, ['author']);
   const checker = await person(app, ['checker']);
   const approver = await person(app, ['approver']);
-  const created = await createCalc(author.session);
+  const created = await createCalc(author.session, { ruleSetId });
   const sessions: Team = { author: author.session, checker: checker.session, approver: approver.session };
   return { author, checker, approver, sessions, ...created };
 }
@@ -230,4 +231,35 @@ describe('tampering', () => {
     expect(await auditOf('Revision', t.revisionId, since)).toEqual([]);
     expect(await mailAbout(t.project.code, 'checked')).toEqual([]);
   });
+
+  // What a signature covers besides the revision row: the calc's identity, its project's code and its standard's.
+  // The read that shows the revision takes them in one statement and the standard from memory while its stamp holds.
+  it.each([
+    ['the calc title', 'UPDATE calcs SET title = CONCAT(title, ?) WHERE id = ?', 'calc'],
+    ["the project's code", 'UPDATE projects SET code = CONCAT(code, ?) WHERE id = ?', 'project'],
+    [
+      "the standard's code, its lock version and content hash unchanged",
+      'UPDATE rule_sets SET code = CONCAT(code, ?) WHERE id = ?',
+      'standard',
+    ],
+  ] as const)(
+    'when %s of an approved revision is changed in the database, then every signature shows as no longer valid',
+    async (_what, sql, row) => {
+      // Arrange: a standard of its own, so changing it touches no other test's calcs
+      const standard = await testStandard();
+      const t = await team(standard.id);
+      await advanceTo('approved', t.sessions, t.revisionId);
+      const signed = await revisionOf(t.author.session, t.revisionId);
+
+      // Act
+      const id = { calc: t.calcId, project: t.project.id, standard: standard.id }[row];
+      await sequelize.query(sql, { replacements: ['-X', id] });
+
+      // Assert
+      const r = await revisionOf(t.author.session, t.revisionId);
+      expect(signed.signatures.map((s: SignatureView) => s.isValid)).toEqual([true, true, true]);
+      expect(r.signatures.map((s: SignatureView) => s.isValid)).toEqual([false, false, false]);
+      expect(r.ruleSet.code).toBe(row === 'standard' ? `${standard.code}-X` : standard.code);
+    },
+  );
 });

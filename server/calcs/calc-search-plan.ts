@@ -27,6 +27,8 @@ export interface Driver {
   columns: KeyColumn[];
   /** True when the driver's own condition is the whole search, so every candidate matches. */
   isExact: boolean;
+  /** A word's index: the word every candidate has, and whether its condition holds the state filter too. */
+  term?: { word: string; hasState: boolean };
 }
 
 const TERM_INDEX: Record<CalcSort, string> = {
@@ -45,6 +47,7 @@ function termDriver(word: string, words: string[], filter: SearchFilter, sort: C
     params: hasState ? [word, filter.status] : [word],
     columns: sortColumns(sort, 't', 'calc_id'),
     isExact: words.length === 1 && !filter.projectId && (!filter.status || hasState),
+    term: { word, hasState },
   };
 }
 
@@ -103,12 +106,20 @@ export async function chooseDriver(
   return drivers[best.i];
 }
 
-/** The rest of the search as SQL on `calcs c`: the filters, and every word as a look-up of its term. */
-export function matchCondition(words: string[], filter: SearchFilter): { sql: string; params: unknown[] } {
-  const { parts, params } = filterConditions(filter);
-  for (const w of words) {
-    parts.push('EXISTS (SELECT 1 FROM calc_search_terms w WHERE w.calc_id = c.id AND w.term = ?)');
-    params.push(w);
-  }
-  return { sql: parts.join(' AND ') || 'TRUE', params };
+/**
+ * The rest of the search as SQL on the candidate whose calc id is `id`: every word as a look-up of its term, and the
+ * filters on `calcs c`. What the driver's own condition already holds is left out: its word (every candidate of a
+ * word's index has it), and the state when that index holds it too; with no filter left, the calc row is not read.
+ */
+export function matchCondition(
+  words: string[],
+  filter: SearchFilter,
+  id: string,
+  term?: Driver['term'],
+): { sql: string; params: unknown[] } {
+  const others = words.filter((w) => w !== term?.word);
+  const parts = others.map(() => `EXISTS (SELECT 1 FROM calc_search_terms w WHERE w.calc_id = ${id} AND w.term = ?)`);
+  const own = filterConditions(term?.hasState ? { ...filter, status: undefined } : filter);
+  if (own.parts.length) parts.push(`EXISTS (SELECT 1 FROM calcs c WHERE c.id = ${id} AND ${own.parts.join(' AND ')})`);
+  return { sql: parts.length ? `(${parts.join(' AND ')})` : 'TRUE', params: [...others, ...own.params] };
 }

@@ -34,14 +34,13 @@ const select = <T extends object>(db: Sequelize, sql: string, replacements: unkn
 
 /**
  * Whether a candidate satisfies the rest of the search, as a column of the walk itself (look-ups by primary key, a
- * few per candidate): the list's own rows (`calcs c`) are checked in place, a word's index rows through their calc.
+ * few per candidate), leaving out what the driver's own condition holds (calc-search-plan.ts, `matchCondition`).
  */
 function matchColumn(d: Driver, r: SearchRequest): { sql: string; params: unknown[] } {
   if (d.isExact) return { sql: '1', params: [] };
-  const m = matchCondition(r.words, r.filter);
-  if (/^calcs c\b/.test(d.from)) return { sql: `(${m.sql})`, params: m.params };
-  const id = d.columns[d.columns.length - 1].sql;
-  return { sql: `EXISTS (SELECT 1 FROM calcs c WHERE c.id = ${id} AND ${m.sql})`, params: m.params };
+  // The list's own rows: the driver's condition is the filter, so only the words are left.
+  if (!d.term) return matchCondition(r.words, {}, 'c.id');
+  return matchCondition(r.words, r.filter, d.columns[d.columns.length - 1].sql, d.term);
 }
 
 interface Chunk {

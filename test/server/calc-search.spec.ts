@@ -155,6 +155,50 @@ describe('search pages', () => {
     }
   });
 
+  it('when two words are searched within a state, a project or both, then only calcs with both words that pass the filter are listed, in every order', async () => {
+    // Arrange: both words in a draft and a calc in check of one project and in a calc in check of another; each word
+    // alone in a calc in check. The state index serves the state filter for two orders, the term index for the rest.
+    const [t, other] = [await calcTeam(app), await calcTeam(app)];
+    const [a, b] = [uniqueWord(), uniqueWord()];
+    const inCheck = async (team: Team, number: string, title: string) => {
+      const id = await addCalc(team, number, title);
+      const calc = (await team.author.session.get(`/api/calcs/${id}`)).body;
+      expect((await sign(team.author.session, calc.latest.id, 'authored')).status).toBe(200);
+      return id;
+    };
+    const both = await addCalc(t, 'T-1', `${a} ${b} shaft`);
+    const bothInCheck = await inCheck(t, 'T-2', `${a} ${b} shaft`);
+    await inCheck(t, 'T-3', `${a} shaft`);
+    await inCheck(t, 'T-4', `${b} shaft`);
+    const elsewhere = await inCheck(other, 'O-1', `${a} ${b} shaft`);
+    const cases = [
+      ['status=in_check', [bothInCheck, elsewhere]],
+      [`projectId=${t.project.id}`, [both, bothInCheck]],
+      [`projectId=${t.project.id}&status=in_check`, [bothInCheck]],
+    ] as const;
+
+    const saved = { ...SEARCH_LIMITS };
+    Object.assign(SEARCH_LIMITS, { firstChunk: 1 });
+    try {
+      for (const [filter, wanted] of cases)
+        for (const order of [
+          'sort=number&dir=asc',
+          'sort=updatedAt&dir=desc',
+          'sort=status&dir=asc',
+          'sort=title&dir=desc',
+        ]) {
+          // Act
+          const pages = await allPages(t, `q=${a}%20${b}&${filter}&size=1&${order}`);
+
+          // Assert
+          const ids = pages.flatMap((p) => p.items.map((r) => r.id));
+          expect({ filter, order, ids: [...ids].sort() }).toEqual({ filter, order, ids: [...wanted].sort() });
+        }
+    } finally {
+      Object.assign(SEARCH_LIMITS, saved);
+    }
+  });
+
   it('when the page bound is reached before a page fills, then the answer says so and the next page searches on', async () => {
     // Arrange: two words, each in four calcs, together only in the oldest
     const t = await calcTeam(app);

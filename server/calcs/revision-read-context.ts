@@ -1,4 +1,5 @@
-import { QueryTypes, type Model, type ModelStatic } from 'sequelize';
+import { QueryTypes } from 'sequelize';
+import { columnsOf, instanceOf } from '../db/plain-rows';
 import { Revision, RuleSetRecord, Signature } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { attachKnown, editorIdsOf } from './calc-access';
@@ -26,13 +27,6 @@ const RULE_SET_COLUMNS = {
   contentHash: 'content_hash',
   lockVersion: 'lock_version',
 };
-
-/** The model's columns under its attribute names, for a raw statement whose rows are built into instances. */
-function columnsOf(model: ModelStatic<Model>, alias: string): string {
-  return Object.entries(model.getAttributes())
-    .map(([name, a]) => `${alias}.\`${a.field ?? name}\` AS \`${name}\``)
-    .join(', ');
-}
 
 let contextSql: string | undefined;
 let signaturesSql: string | undefined;
@@ -82,7 +76,7 @@ async function contextOfRow(row: Record<string, unknown>): Promise<ReadContext> 
     if (key.startsWith('ctx.')) ctx[key.slice(4)] = value;
     else own[key] = value;
   }
-  const revision = Revision.build(own as never, { raw: true, isNewRecord: false });
+  const revision = instanceOf(Revision, own);
   const names = new Map<number, string>();
   for (const role of PEOPLE) {
     const personId = revision[`${role}Id`];
@@ -129,5 +123,5 @@ export async function signaturesOf(revisionId: number): Promise<Signature[]> {
     type: QueryTypes.SELECT,
     replacements: [revisionId],
   });
-  return rows.map((r) => Signature.build(r as never, { raw: true, isNewRecord: false }));
+  return rows.map((r) => instanceOf(Signature, r));
 }

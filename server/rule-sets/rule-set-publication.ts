@@ -62,14 +62,21 @@ export class RuleSetPublication {
     if (isEffective) await this.onEffective?.(actor, id);
   }
 
-  /** Puts confirmed versions whose effective date has come into force; cheap, and idempotent. */
-  async promoteDue(): Promise<void> {
+  /**
+   * Puts confirmed versions whose effective date has come into force; cheap, and idempotent. `known` is every
+   * version as just read (the library's list): the due ones are picked from it instead of asked for. Answers how
+   * many came into force.
+   */
+  async promoteDue(known?: readonly RuleSetRecord[]): Promise<number> {
     // Asked on every read of the library: only the ids (each version is read whole, locked, when it is promoted).
-    const due = await RuleSetRecord.findAll({
-      attributes: ['id'],
-      where: { status: 'draft', confirmedBy: { [Op.ne]: null }, effectiveDate: { [Op.lte]: todayUtc() } },
-    });
+    const due = known
+      ? known.filter(isDue)
+      : await RuleSetRecord.findAll({
+          attributes: ['id'],
+          where: { status: 'draft', confirmedBy: { [Op.ne]: null }, effectiveDate: { [Op.lte]: todayUtc() } },
+        });
     const clock: Actor = { id: null, name: 'effective-date clock', ip: null };
+    let promotedCount = 0;
     for (const record of due) {
       const promoted = await runTransaction(this.sequelize, async (transaction) => {
         const fresh = await loadRuleSet(record.id, transaction, true);
@@ -77,8 +84,12 @@ export class RuleSetPublication {
         await this.makeEffective(fresh, clock, transaction);
         return true;
       });
-      if (promoted) await this.onEffective?.(clock, record.id);
+      if (promoted) {
+        promotedCount++;
+        await this.onEffective?.(clock, record.id);
+      }
     }
+    return promotedCount;
   }
 
   private async makeEffective(record: RuleSetRecord, actor: Actor, transaction: Transaction): Promise<void> {
@@ -108,4 +119,9 @@ export class RuleSetPublication {
       transaction,
     );
   }
+}
+
+/** A confirmed version whose effective date has come (the condition `promoteDue` asks the database for). */
+function isDue(r: Pick<RuleSetRecord, 'status' | 'confirmedBy' | 'effectiveDate'>): boolean {
+  return r.status === 'draft' && r.confirmedBy != null && r.effectiveDate != null && r.effectiveDate <= todayUtc();
 }

@@ -1,8 +1,9 @@
 import { ForbiddenError } from '@casl/ability';
-import type { Sequelize } from 'sequelize';
+import { QueryTypes, type Sequelize } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { RuleSetDto, RuleSetSummary } from '../../shared/schemas/rule-set.schema';
 import { RuleSetRecord } from '../db/models';
+import { columnsOf, instanceOf } from '../db/plain-rows';
 import type { Actor } from '../audit/audit.service';
 import { toRuleSetDto, toRuleSetSummary } from './rule-set-mapping';
 import { loadRuleSet, namesOf, type Person } from './rule-set-records';
@@ -28,17 +29,10 @@ export class RuleSetsService {
 
   async list(ability: AppAbility): Promise<RuleSetSummary[]> {
     ForbiddenError.from(ability).throwUnlessCan('read', 'RuleSet');
-    await this.promoteDue();
-    // The library lists versions; their documents (tens of kilobytes each) are read one at a time when opened.
-    const rows = await RuleSetRecord.findAll({
-      attributes: { exclude: ['document'] },
-      order: [
-        ['code', 'ASC'],
-        ['version', 'DESC'],
-      ],
-    });
-    const names = await namesOf(rows.flatMap((r) => [r.proposedBy, r.confirmedBy]));
-    return rows.map((r) => toRuleSetSummary(r, names));
+    // Versions due to come into force do so before the list is shown, which is then read again.
+    let library = await libraryOf(this.sequelize);
+    if (await this.publication.promoteDue(library.rows)) library = await libraryOf(this.sequelize);
+    return library.rows.map((r) => toRuleSetSummary(r, library.names));
   }
 
   async get(ability: AppAbility, id: number): Promise<RuleSetDto> {
@@ -86,7 +80,29 @@ export class RuleSetsService {
   }
 
   /** Puts confirmed versions whose effective date has come into force; cheap, and idempotent. */
-  promoteDue(): Promise<void> {
-    return this.publication.promoteDue();
+  async promoteDue(): Promise<void> {
+    await this.publication.promoteDue();
   }
+}
+
+let librarySql: string | undefined;
+
+/**
+ * Every version without its document (tens of kilobytes each, read one at a time when opened), with the names of
+ * who proposed and confirmed it, in one plain statement: the library is read on every visit to it.
+ */
+async function libraryOf(sequelize: Sequelize): Promise<{ rows: RuleSetRecord[]; names: Map<number, string> }> {
+  librarySql ??= `SELECT ${columnsOf(RuleSetRecord, 'r', ['document'])},
+      p.display_name AS \`ctx.proposer\`, c.display_name AS \`ctx.confirmer\`
+    FROM rule_sets r LEFT JOIN users p ON p.id = r.proposed_by LEFT JOIN users c ON c.id = r.confirmed_by
+    ORDER BY r.code ASC, r.version DESC`;
+  const found = await sequelize.query<Record<string, unknown>>(librarySql, { type: QueryTypes.SELECT });
+  const names = new Map<number, string>();
+  const rows = found.map(({ 'ctx.proposer': proposer, 'ctx.confirmer': confirmer, ...row }) => {
+    const record = instanceOf(RuleSetRecord, row);
+    if (record.proposedBy != null && proposer != null) names.set(record.proposedBy, String(proposer));
+    if (record.confirmedBy != null && confirmer != null) names.set(record.confirmedBy, String(confirmer));
+    return record;
+  });
+  return { rows, names };
 }

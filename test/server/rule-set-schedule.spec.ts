@@ -49,4 +49,27 @@ describe('design standards come into force on their effective date', () => {
     expect((await RuleSetRecord.findByPk(confirmed.body.id))!.status).toBe('effective');
     expect((await RuleSetRecord.findByPk(standard.id))!.status).toBe('retired');
   });
+
+  it('when its date has come and the library is read, then the list shows it in force, the older version retired, and a later one still waiting', async () => {
+    // Arrange
+    const due = await proposeAndConfirm('2999-01-01');
+    const later = await proposeAndConfirm('2999-01-01');
+    await RuleSetRecord.update({ effectiveDate: '2020-01-01' }, { where: { id: due.confirmed.body.id } });
+
+    // Act
+    const res = await due.drafter.session.get('/api/rule-sets');
+
+    // Assert
+    expect(res.status).toBe(200);
+    expect(due.confirmed.body.proposedBy).toMatch(/^Test compliance-/);
+    const row = (id: number) => res.body.find((r: { id: number }) => r.id === id);
+    expect(row(due.confirmed.body.id)).toMatchObject({
+      status: 'effective',
+      proposedBy: due.confirmed.body.proposedBy,
+      confirmedBy: due.confirmed.body.confirmedBy,
+    });
+    expect(row(due.standard.id).status).toBe('retired');
+    expect(row(later.confirmed.body.id)).toMatchObject({ status: 'draft', effectiveDate: '2999-01-01' });
+    expect(row(later.standard.id).status).toBe('effective');
+  });
 });

@@ -1,6 +1,7 @@
-import { literal, type Transaction } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
 import { Calc, Project, Revision } from '../db/models';
-import { attachKnown, lockRevision } from './calc-access';
+import { attachKnown } from './calc-access';
+import { columnsOf, instanceOf } from '../db/plain-rows';
 import { AppError } from '../errors/app-error';
 import { revisionRuleSet, type RuleSetStamp } from '../rule-sets/rule-set-cache';
 import type { HashSources } from './current-hash';
@@ -29,7 +30,8 @@ const HANGING = ['signatures', 'findings', 'attachments', 'independent_models'] 
  * The calc of a locked revision with its project, whether `userId` already edited it, the calc's editors, the names
  * of the revision's people and its standard's stamp: read once, where a save used six statements (the project's
  * status, the calc for the hash, the editor row, the editor list, the people, the standard with its document).
- * A plain read like assertProjectOpen's; the revision row's lock already orders the saves of one calc.
+ * A plain read like assertProjectOpen's; the revision row's lock already orders the saves of one calc. Sent as a
+ * plain statement (`server/db/plain-rows.ts`): through the model it cost about as much CPU as the engine run.
  */
 export async function saveContextOf(
   revision: Revision,
@@ -38,55 +40,79 @@ export async function saveContextOf(
 ): Promise<SaveContext> {
   const [calcKey, userKey, ruleSetKey] = [Number(revision.calcId), Number(userId), Number(revision.ruleSetId)];
   const editors = `FROM calc_editors e WHERE e.calc_id = ${calcKey}`;
-  const ruleSet = (column: string) => literal(`(SELECT ${column} FROM rule_sets WHERE id = ${ruleSetKey})`);
+  const ruleSet = (column: string) => `(SELECT ${column} FROM rule_sets WHERE id = ${ruleSetKey})`;
   const people = PEOPLE.map((role) => {
     const id = revision[`${role}Id`];
-    return [literal(id == null ? 'NULL' : `(SELECT display_name FROM users WHERE id = ${Number(id)})`), role];
+    return `${id == null ? 'NULL' : `(SELECT display_name FROM users WHERE id = ${Number(id)})`} AS ${role}`;
   });
-  const calc = (await Calc.findByPk(revision.calcId, {
-    attributes: [
-      ...['id', 'number', 'title', 'partRef', 'projectId'],
-      [literal(`EXISTS(SELECT 1 ${editors} AND e.user_id = ${userKey})`), 'edited'],
+  const [row] = await Calc.sequelize!.query<Record<string, unknown>>(
+    [
+      'SELECT c.id, c.number, c.title, c.part_ref AS partRef, c.project_id AS projectId,',
+      'p.id AS projectKey, p.code AS projectCode, p.status AS projectStatus,',
+      `EXISTS(SELECT 1 ${editors} AND e.user_id = ${userKey}) AS edited,`,
       // GROUP_CONCAT is cut at group_concat_max_len: the count tells a cut list, which is then read whole.
-      [literal(`(SELECT GROUP_CONCAT(e.user_id ORDER BY e.user_id) ${editors})`), 'editorList'],
-      [literal(`(SELECT COUNT(*) ${editors})`), 'editorCount'],
-      [ruleSet('lock_version'), 'ruleSetLockVersion'],
-      [ruleSet('content_hash'), 'ruleSetContentHash'],
-      ...people,
-      ...HANGING.map((t) => [literal(`EXISTS(SELECT 1 FROM ${t} WHERE revision_id = ${Number(revision.id)})`), t]),
-    ] as never,
-    include: [{ model: Project, attributes: ['id', 'code', 'status'] }],
-    transaction,
-  })) as (HashSources['calc'] & { Project?: Project }) | null;
-  if (!calc) throw AppError.notFound(`Calc ${revision.calcId}`);
-  const raw = (key: string) => calc.get(key) as string | number | null;
-  const list = raw('editorList') == null ? [] : String(raw('editorList')).split(',').map(Number);
+      `(SELECT GROUP_CONCAT(e.user_id ORDER BY e.user_id) ${editors}) AS editorList,`,
+      `(SELECT COUNT(*) ${editors}) AS editorCount,`,
+      `${ruleSet('lock_version')} AS ruleSetLockVersion, ${ruleSet('content_hash')} AS ruleSetContentHash,`,
+      `${people.join(', ')},`,
+      HANGING.map((t) => `EXISTS(SELECT 1 FROM ${t} WHERE revision_id = ${Number(revision.id)}) AS ${t}`).join(', '),
+      `FROM calcs c LEFT JOIN projects p ON p.id = c.project_id WHERE c.id = ${calcKey}`,
+    ].join('\n'),
+    { type: QueryTypes.SELECT, transaction },
+  );
+  if (!row) throw AppError.notFound(`Calc ${revision.calcId}`);
+  const { calc, project } = calcOf(row);
+  const list = row.editorList == null ? [] : String(row.editorList).split(',').map(Number);
   const names = new Map<number, string>();
   for (const role of PEOPLE) {
     const id = revision[`${role}Id`];
-    if (id != null && raw(role) != null) names.set(id, String(raw(role)));
+    if (id != null && row[role] != null) names.set(id, String(row[role]));
   }
-  const lockVersion = raw('ruleSetLockVersion');
+  const lockVersion = row.ruleSetLockVersion;
   return {
     calc,
-    project: calc.Project,
-    edited: Number(raw('edited')) === 1,
-    editorIds: list.length === Number(raw('editorCount')) ? list : null,
+    project,
+    edited: Number(row.edited) === 1,
+    editorIds: list.length === Number(row.editorCount) ? list : null,
     names,
     ruleSet:
       lockVersion == null
         ? null
-        : { id: ruleSetKey, lockVersion: Number(lockVersion), contentHash: String(raw('ruleSetContentHash')) },
-    has: Object.fromEntries(HANGING.map((t) => [t, Number(raw(t)) === 1])) as SaveContext['has'],
+        : { id: ruleSetKey, lockVersion: Number(lockVersion), contentHash: String(row.ruleSetContentHash) },
+    has: Object.fromEntries(HANGING.map((t) => [t, Number(row[t]) === 1])) as SaveContext['has'],
   };
 }
+
+// What a save uses of the calc (the hash covers its number, title and part reference).
+const CALC_ATTRIBUTES = ['id', 'number', 'title', 'partRef', 'projectId'];
+
+/** The calc with its project (id, code and status), as an include of the project gives it. */
+function calcOf(row: Record<string, unknown>): { calc: SaveContext['calc']; project: Project | undefined } {
+  const calc = instanceOf(Calc, Object.fromEntries(CALC_ATTRIBUTES.map((a) => [a, row[a]])));
+  const project =
+    row.projectKey == null
+      ? undefined
+      : instanceOf(Project, { id: row.projectKey, code: row.projectCode, status: row.projectStatus });
+  (calc.dataValues as Record<string, unknown>).Project = project;
+  (calc as unknown as Record<string, unknown>).Project = project;
+  return { calc: calc as SaveContext['calc'], project };
+}
+
+let lockedSql: string | undefined;
 
 /**
  * The locked row with its standard and people attached, as loadRevision gives it, and the save's context: the
  * standard's row comes from memory while its stamp (read in the context statement) is unchanged.
  */
 export async function lockWithContext(revisionId: number, userId: number, transaction: Transaction) {
-  const revision = await lockRevision(revisionId, transaction, [...REPLACED]);
+  lockedSql ??= `SELECT ${columnsOf(Revision, 'r', REPLACED)} FROM revisions r WHERE r.id = ? FOR UPDATE`;
+  const [row] = await Revision.sequelize!.query<Record<string, unknown>>(lockedSql, {
+    type: QueryTypes.SELECT,
+    replacements: [revisionId],
+    transaction,
+  });
+  if (!row) throw AppError.notFound(`Revision ${revisionId}`);
+  const revision = instanceOf(Revision, row);
   const context = await saveContextOf(revision, userId, transaction);
   attachKnown(revision, context.ruleSet && (await revisionRuleSet(context.ruleSet, transaction)), context.names);
   return { revision, context };

@@ -44,13 +44,9 @@ export async function loadRevision(id: number, transaction?: Transaction): Promi
   return revision;
 }
 
-/**
- * The revision row alone, locked for update (a save takes its standard and people from its context read), without
- * the columns in `exclude` (a save replaces its result and checklist, ~35 kB it need not read).
- */
-export async function lockRevision(id: number, transaction: Transaction, exclude: string[] = []): Promise<Revision> {
-  const attributes = exclude.length ? { exclude } : undefined;
-  const revision = await Revision.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE, attributes });
+/** The revision row alone, locked for update (its standard and people are attached by the caller). */
+export async function lockRevision(id: number, transaction: Transaction): Promise<Revision> {
+  const revision = await Revision.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
   if (!revision) throw AppError.notFound(`Revision ${id}`);
   return revision;
 }

@@ -5,7 +5,7 @@ import { AppError } from '../errors/app-error';
 import { attachKnown, editorIdsOf } from './calc-access';
 import { REVISION_RULE_SET_ATTRIBUTES, revisionRuleSet } from '../rule-sets/rule-set-cache';
 import type { HashSources } from './current-hash';
-import type { SaveContext } from './save-context';
+import { HANGING, PEOPLE, contextColumns, type SaveContext } from './save-context';
 
 /** What a plain read of a revision reads with its row, in one statement. */
 export interface ReadContext {
@@ -17,8 +17,6 @@ export interface ReadContext {
   has: SaveContext['has'];
 }
 
-const HANGING = ['signatures', 'findings', 'attachments', 'independent_models'] as const;
-const PEOPLE = ['author', 'checker', 'approver'] as const;
 const RULE_SET_COLUMNS = {
   id: 'id',
   code: 'code',
@@ -58,7 +56,7 @@ function contextStatement(): string {
     PEOPLE.map((role) => `${role}.display_name AS \`ctx.${role}\``).join(', ') + ',',
     'c.number AS `ctx.number`, c.title AS `ctx.title`, c.part_ref AS `ctx.partRef`, c.project_id AS `ctx.projectId`,',
     'p.code AS `ctx.projectCode`,',
-    // GROUP_CONCAT is cut at group_concat_max_len: the count tells a cut list, which is then read whole.
+    // Read by contextColumns (save-context.ts), as a save's context statement reads them.
     `(SELECT GROUP_CONCAT(e.user_id ORDER BY e.user_id) ${editors}) AS \`ctx.editorList\`,`,
     `(SELECT COUNT(*) ${editors}) AS \`ctx.editorCount\`,`,
     HANGING.map((t) => `EXISTS(SELECT 1 FROM ${t} h WHERE h.revision_id = r.id) AS \`ctx.${t}\``).join(', '),
@@ -77,13 +75,8 @@ async function contextOfRow(row: Record<string, unknown>): Promise<ReadContext> 
     else own[key] = value;
   }
   const revision = instanceOf(Revision, own);
-  const names = new Map<number, string>();
-  for (const role of PEOPLE) {
-    const personId = revision[`${role}Id`];
-    if (personId != null && ctx[role] != null) names.set(personId, String(ctx[role]));
-  }
+  const { names, editorIds, has } = contextColumns(revision, (name) => ctx[name]);
   attachKnown(revision, await ruleSetOf(ctx), names);
-  const list = ctx.editorList == null ? [] : String(ctx.editorList).split(',').map(Number);
   const calc = {
     id: revision.calcId,
     number: ctx.number,
@@ -95,8 +88,8 @@ async function contextOfRow(row: Record<string, unknown>): Promise<ReadContext> 
   return {
     revision,
     calc,
-    editorIds: list.length === Number(ctx.editorCount) ? list : await editorIdsOf(revision.calcId),
-    has: Object.fromEntries(HANGING.map((t) => [t, Number(ctx[t]) === 1])) as SaveContext['has'],
+    editorIds: editorIds ?? (await editorIdsOf(revision.calcId)),
+    has,
   };
 }
 

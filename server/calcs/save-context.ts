@@ -22,9 +22,29 @@ export interface SaveContext {
   has: Record<(typeof HANGING)[number], boolean>;
 }
 
-const PEOPLE = ['author', 'checker', 'approver'] as const;
+export const PEOPLE = ['author', 'checker', 'approver'] as const;
 // Rows whose writers all lock the revision row first, so none appears while a save holds it.
-const HANGING = ['signatures', 'findings', 'attachments', 'independent_models'] as const;
+export const HANGING = ['signatures', 'findings', 'attachments', 'independent_models'] as const;
+
+/**
+ * What a context statement (a save's, or a plain read's in revision-read-context.ts) read besides its rows, by
+ * column: the people's names (a column per role), the calc's editors (`editorList`, cut at group_concat_max_len, so
+ * `editorCount` tells a cut list: null then, to be read whole) and which rows hang off the revision (a column each).
+ */
+export function contextColumns(revision: Revision, column: (name: string) => unknown) {
+  const names = new Map<number, string>();
+  for (const role of PEOPLE) {
+    const id = revision[`${role}Id`];
+    if (id != null && column(role) != null) names.set(id, String(column(role)));
+  }
+  const listed = column('editorList');
+  const list = listed == null ? [] : String(listed).split(',').map(Number);
+  return {
+    names,
+    editorIds: list.length === Number(column('editorCount')) ? list : null,
+    has: Object.fromEntries(HANGING.map((t) => [t, Number(column(t)) === 1])) as SaveContext['has'],
+  };
+}
 
 /**
  * The calc of a locked revision with its project, whether `userId` already edited it, the calc's editors, the names
@@ -61,25 +81,15 @@ export async function saveContextOf(
     { type: QueryTypes.SELECT, transaction },
   );
   if (!row) throw AppError.notFound(`Calc ${revision.calcId}`);
-  const { calc, project } = calcOf(row);
-  const list = row.editorList == null ? [] : String(row.editorList).split(',').map(Number);
-  const names = new Map<number, string>();
-  for (const role of PEOPLE) {
-    const id = revision[`${role}Id`];
-    if (id != null && row[role] != null) names.set(id, String(row[role]));
-  }
   const lockVersion = row.ruleSetLockVersion;
   return {
-    calc,
-    project,
+    ...calcOf(row),
+    ...contextColumns(revision, (name) => row[name]),
     edited: Number(row.edited) === 1,
-    editorIds: list.length === Number(row.editorCount) ? list : null,
-    names,
     ruleSet:
       lockVersion == null
         ? null
         : { id: ruleSetKey, lockVersion: Number(lockVersion), contentHash: String(row.ruleSetContentHash) },
-    has: Object.fromEntries(HANGING.map((t) => [t, Number(row[t]) === 1])) as SaveContext['has'],
   };
 }
 

@@ -8,7 +8,7 @@ import { createSequelize } from '../server/db';
 import { BENCH_PASSWORD } from './bench-seed-data';
 import { line, load, msText, signIn, startServer } from './bench-http';
 import { endpointsOf } from './bench-lists-endpoints';
-import { chainCeiling, cpuSeconds, saves } from './bench-writes';
+import { chainCeiling, cpuSeconds, databasePid, saves } from './bench-writes';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
 /**
@@ -37,6 +37,7 @@ async function main(): Promise<void> {
   const [auditor] = await q<{ username: string; id: number }>(
     "SELECT u.username, u.id FROM users u JOIN user_roles r ON r.user_id = u.id AND r.role = 'compliance' WHERE u.username LIKE 'kfd-%' LIMIT 1",
   );
+  const dbPid = await databasePid(sequelize);
   const server = await startServer({
     LOG_LEVEL: 'silent',
     MAIL_SENDER: 'false',
@@ -62,11 +63,18 @@ async function main(): Promise<void> {
     for (const [name, session, paths] of endpoints) {
       const alone = await load(server.url, session, paths, 1, ALONE_SECONDS);
       const cpuBefore = cpuSeconds(server.child.pid);
+      const dbBefore = cpuSeconds(dbPid);
+      const clientBefore = process.cpuUsage();
       const busy = await load(server.url, session, paths, CONNECTIONS, SECONDS);
-      // The app process's CPU per answer moves far less with other jobs' load than the wall-clock figures.
+      // The app process's CPU per answer moves far less with other jobs' load than the wall-clock figures; MariaDB's
+      // (its whole process, so other clients of the same server count too) says what the statements cost, and the load
+      // generator's (this process: autocannon's requests and reading the answers) what the two cores lose to it.
       const cpu = ((cpuSeconds(server.child.pid) - cpuBefore) * 1000) / busy.requests;
+      const dbCpu = ((cpuSeconds(dbPid) - dbBefore) * 1000) / busy.requests;
+      const client = process.cpuUsage(clientBefore);
+      const clientCpu = (client.user + client.system) / 1000 / busy.requests;
       console.log(
-        `${line(name, busy).replace(name.padEnd(46), `${name.padEnd(46)} ${msText(alone.p50)}`)}  ${loadavg()[0].toFixed(1)}  app CPU ${cpu.toFixed(1)} ms${alone.errors ? `  (alone: ${alone.errors} failed or timed out)` : ''}`,
+        `${line(name, busy).replace(name.padEnd(46), `${name.padEnd(46)} ${msText(alone.p50)}`)}  ${loadavg()[0].toFixed(1)}  app CPU ${cpu.toFixed(1)} ms, MariaDB ${dbCpu.toFixed(1)} ms, load generator ${clientCpu.toFixed(1)} ms${alone.errors ? `  (alone: ${alone.errors} failed or timed out)` : ''}`,
       );
     }
     console.log('  targets: p95 ≤ 50 ms each (32 concurrent), every line but the first ("for scale")');

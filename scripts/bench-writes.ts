@@ -87,7 +87,7 @@ async function dbStatus(sequelize: Sequelize): Promise<Record<string, number>> {
 }
 
 /** The database server's process id, from its pid file (it runs on this machine in every bench). */
-async function databasePid(sequelize: Sequelize): Promise<number | undefined> {
+export async function databasePid(sequelize: Sequelize): Promise<number | undefined> {
   const [row] = await sequelize.query<{ file: string }>('SELECT @@pid_file AS file', { type: QueryTypes.SELECT });
   return row && existsSync(row.file) ? Number(readFileSync(row.file, 'utf8').trim()) : undefined;
 }

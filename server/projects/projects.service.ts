@@ -1,5 +1,5 @@
 import { ForbiddenError, subject } from '@casl/ability';
-import { Op, type Sequelize } from 'sequelize';
+import { literal, Op, QueryTypes, type Sequelize } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { Page, PageQuery } from '../../shared/schemas/common.schema';
 import type { CreateProjectRequest, ProjectDto, UpdateProjectRequest } from '../../shared/schemas/project.schema';
@@ -8,6 +8,7 @@ import { AppError } from '../errors/app-error';
 import { accessibleWhere } from '../authz/accessible-where';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { runTransaction } from '../db/transaction';
+import { selectSql } from '../db/plain-rows';
 
 /** A project row, as a model or as the plain values a list reads (`raw`: no model built per row). */
 type ProjectRow = Pick<
@@ -29,23 +30,41 @@ export function toProjectDto(p: ProjectRow): ProjectDto {
   };
 }
 
+const LIST_ATTRIBUTES: (keyof ProjectRow)[] = [
+  'id',
+  'code',
+  'name',
+  'client',
+  'description',
+  'revisionScheme',
+  'status',
+  'createdAt',
+  'version',
+];
+
 /** Projects group calcs; admins create and archive them, everyone signed in reads the active ones. */
 export class ProjectsService {
   constructor(private readonly sequelize: Sequelize) {}
 
+  /**
+   * A page of the projects this person may read, by code, with their number: one plain statement (the count rides on
+   * each row as a window); only a page past the end asks for the count alone.
+   */
   async list(ability: AppAbility, query: PageQuery): Promise<Page<ProjectDto>> {
-    const where = accessibleWhere(ability, 'read', 'Project');
     const search = query.q
       ? { [Op.or]: [{ code: { [Op.like]: `%${query.q}%` } }, { name: { [Op.like]: `%${query.q}%` } }] }
       : {};
-    const { rows, count } = await Project.findAndCountAll({
-      where: { [Op.and]: [where, search] },
+    const where = { [Op.and]: [accessibleWhere(ability, 'read', 'Project'), search] };
+    const sql = selectSql(Project, {
+      attributes: [...LIST_ATTRIBUTES, [literal('COUNT(*) OVER ()'), 'total']],
+      where,
       order: [['code', 'ASC']],
       offset: query.page * query.size,
       limit: query.size,
-      raw: true,
     });
-    return { items: rows.map(toProjectDto), total: count, page: query.page, size: query.size };
+    const rows = await this.sequelize.query<ProjectRow & { total: number }>(sql, { type: QueryTypes.SELECT });
+    const total = rows.length ? Number(rows[0].total) : query.page ? await Project.count({ where }) : 0;
+    return { items: rows.map(toProjectDto), total, page: query.page, size: query.size };
   }
 
   async get(ability: AppAbility, id: number): Promise<ProjectDto> {

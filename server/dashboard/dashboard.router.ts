@@ -13,10 +13,10 @@ export function dashboardRouter(): Router {
     res.json(await dashboardFor(req.ability, req.user!.id));
   });
   router.get('/queues', validate({ query: queueQuerySchema }), async (req, res) => {
-    res.json(await queuesOf(req.user!, res.locals.query));
+    res.json(await queuesOf(req.user!, req.ability, res.locals.query));
   });
   router.get('/queues/:key', validate({ params: queueParamsSchema, query: queueQuerySchema }), async (req, res) => {
-    res.json(await queueFor(req.user!, req.params.key as QueueKey, res.locals.query));
+    res.json(await queueFor(req.user!, req.ability, req.params.key as QueueKey, res.locals.query));
   });
   return router;
 }

@@ -45,7 +45,12 @@ export async function dashboardFor(ability: AppAbility, userId: number): Promise
 }
 
 /** One of the person's own queues; another role's queue is a 403, not an empty page. */
-export async function queueFor(user: SessionUser, key: QueueKey, query: QueueQuery): Promise<QueueDto> {
+export async function queueFor(
+  user: SessionUser,
+  ability: AppAbility,
+  key: QueueKey,
+  query: QueueQuery,
+): Promise<QueueDto> {
   if (!queueKeysOf(user).includes(key)) throw new AppError('forbidden', 403, 'This queue belongs to another role');
-  return queuePage(user, key, query);
+  return queuePage(user, ability, key, query);
 }

@@ -12,6 +12,11 @@ export interface ListedRevision {
   ruleSetId: number;
   authorId: number;
   status: string;
+  /**
+   * What the list's own statement already read, so no further statement is needed: the lock version of the row's
+   * standard and whether the reader's own independent model of it is locked.
+   */
+  known?: { ruleSetVersion: number; ownModelLocked: boolean };
 }
 
 /**
@@ -24,6 +29,12 @@ export async function blindRevisionIds(ability: AppAbility, rows: readonly Liste
   const viewer = viewerOf(ability);
   const candidates = rows.filter((r) => viewer.mayCheck && r.authorId !== viewer.id && BLIND_STATES.includes(r.status));
   if (!candidates.length) return new Set();
+  if (candidates.every((r) => r.known)) {
+    const asking = await askingAt(candidates.map((r) => ({ id: r.ruleSetId, lockVersion: r.known!.ruleSetVersion })));
+    return new Set(
+      candidates.filter((r) => asking.has(r.ruleSetId) && !r.known!.ownModelLocked).map((r) => r.revisionId),
+    );
+  }
   const asking = await askingForModels([...new Set(candidates.map((r) => r.ruleSetId))]);
   const inScope = candidates.filter((r) => asking.has(r.ruleSetId));
   if (!inScope.length) return new Set();
@@ -43,8 +54,13 @@ const asksByVersion = new LRUCache<string, boolean>({ max: 1_000 });
  * only when this process has not judged that version yet.
  */
 async function askingForModels(ids: number[]): Promise<Set<number>> {
-  const versions = await RuleSetRecord.findAll({ where: { id: ids }, attributes: ['id', 'lockVersion'], raw: true });
+  return askingAt(await RuleSetRecord.findAll({ where: { id: ids }, attributes: ['id', 'lockVersion'], raw: true }));
+}
+
+/** The standards among these versions that ask for an independent model; a document is read only for a new version. */
+async function askingAt(listed: { id: number; lockVersion: number }[]): Promise<Set<number>> {
   const keyOf = (r: { id: number; lockVersion: number }) => `${r.id}:${r.lockVersion}`;
+  const versions = [...new Map(listed.map((r) => [keyOf(r), r])).values()];
   const asking = new Set(versions.filter((r) => asksByVersion.get(keyOf(r))).map((r) => r.id));
   const unknown = versions.filter((r) => !asksByVersion.has(keyOf(r))).map((r) => r.id);
   if (!unknown.length) return asking;

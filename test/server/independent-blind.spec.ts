@@ -1,5 +1,5 @@
-import { fixtureInput } from '../support/calc-harness';
-import { person, type Session, startTestApp } from '../support/api-harness';
+import { createCalc, fixtureInput, sign } from '../support/calc-harness';
+import { expectStatus, person, type Session, startTestApp } from '../support/api-harness';
 import { lockModel, modelTeam, modelUrl, revisionOf, saveModel } from '../support/model-harness';
 
 const { app, sequelize } = startTestApp();
@@ -131,5 +131,53 @@ describe('manual checklist items and the blind rule', () => {
     const locked = await lockModel(t.checker.session, t.revisionId);
     expect(locked.agrees).toBe(false);
     expect(leaksIn(await everyRead(t.checker.session, t), markers).length).toBeGreaterThan(0);
+  });
+});
+
+/**
+ * The verdict a checker's queue shows for one revision, through both ways a queue is read: all of a person's queues
+ * together (the first page), then that queue alone (its later pages). Other files fill the shared queue meanwhile, so
+ * the cursor is followed to the end.
+ */
+async function queuedVerdict(s: Session, revisionId: number): Promise<{ together: unknown; alone: unknown }> {
+  type Page = { key: string; items: { revisionId: number; verdict: string | null }[]; next: string | null };
+  const find = async (first: Page) => {
+    for (let page = first; ;) {
+      const item = page.items.find((i) => i.revisionId === revisionId);
+      if (item) return item.verdict;
+      if (!page.next) return 'not queued';
+      const more = await s.get(`/api/dashboard/queues/awaiting-my-check?size=500&after=${page.next}`);
+      page = expectStatus(more, 200, 'queue page').body;
+    }
+  };
+  const all = expectStatus(await s.get('/api/dashboard/queues?size=500'), 200, 'queues').body as Page[];
+  const alone = expectStatus(await s.get('/api/dashboard/queues/awaiting-my-check?size=500'), 200, 'queue').body;
+  return { together: await find(all.find((p) => p.key === 'awaiting-my-check')!), alone: await find(alone) };
+}
+
+describe("the blind rule in the checkers' queue", () => {
+  it("when a calc waits for an independent model, then every checker's queue lists it without its verdict until that checker's own model is locked", async () => {
+    const t = await modelTeam(app, authorInput());
+    const verdict = (await revisionOf(t.author.session, t.revisionId)).verdict;
+    expect(verdict).toEqual(expect.any(String));
+    const other = await person(app, ['checker']);
+    await saveModel(t.checker.session, t.revisionId, fixtureInput());
+    const hidden = { together: null, alone: null };
+    expect(await queuedVerdict(t.checker.session, t.revisionId)).toEqual(hidden);
+    expect(await queuedVerdict(other.session, t.revisionId)).toEqual(hidden);
+
+    await lockModel(t.checker.session, t.revisionId);
+    expect(await queuedVerdict(t.checker.session, t.revisionId)).toEqual({ together: verdict, alone: verdict });
+    expect(await queuedVerdict(other.session, t.revisionId)).toEqual(hidden);
+  });
+
+  it('when the standard asks for no independent model, then the queue shows the verdict', async () => {
+    const author = await person(app, ['author']);
+    const checker = await person(app, ['checker']);
+    const { revisionId } = await createCalc(author.session);
+    expectStatus(await sign(author.session, revisionId, 'authored'), 200, 'submit');
+    const verdict = (await revisionOf(author.session, revisionId)).verdict;
+    expect(verdict).toEqual(expect.any(String));
+    expect(await queuedVerdict(checker.session, revisionId)).toEqual({ together: verdict, alone: verdict });
   });
 });

@@ -5,9 +5,9 @@ import type { CalcListPage } from '../../shared/schemas/calc-dto';
 import type { CalcListQuery } from '../../shared/schemas/revision.schema';
 import { searchWords } from '../../shared/search/search-words';
 import { Calc } from '../db/models';
-import { cappedCount, decodeCursor, encodeCursor, keysetCondition, orderBy } from '../http/keyset';
+import { decodeCursor, encodeCursor, keysetCondition, orderBy } from '../http/keyset';
 import { blindRevisionIds } from '../independent/blind-lists';
-import { CALC_ROW_SQL, keyOf, sortColumns, toItem, type CalcRow } from './calc-list-rows';
+import { CALC_ROW_COLUMNS, CALC_ROW_FROM, keyOf, sortColumns, toItem, type CalcRow } from './calc-list-rows';
 import { searchCalcs, type SearchPage } from './calc-search';
 import { filterConditions } from './calc-search-plan';
 
@@ -18,29 +18,39 @@ const listedOf = (r: CalcRow) => ({
   status: r.latest_status,
 });
 
-/** A page of the plain list (no search words): the filtered calcs in the order's own index. */
+/**
+ * How many calcs a plain list holds, from the counts kept per project and state (migration 20261231-12): exact at any
+ * size, a sum over at most one row per project and state.
+ */
+function listedCount(query: CalcListQuery): { sql: string; params: unknown[] } {
+  const { parts, params } = filterConditions(query, { project: 'k.project_id', state: 'k.state' });
+  return { sql: `SELECT COALESCE(SUM(k.n), 0) FROM calc_counts k WHERE ${['TRUE', ...parts].join(' AND ')}`, params };
+}
+
+/**
+ * A page of the plain list (no search words): the filtered calcs in the order's own index. A first page carries the
+ * list's total on its rows, so the whole answer is one statement; an empty first page means an empty list.
+ */
 async function plainPage(query: CalcListQuery, after: (string | number)[] | null): Promise<SearchPage> {
   // Every committed calc has a revision (both are written in one transaction), so no "has one" filter is needed.
   const { parts, params } = filterConditions(query);
-  const where = ['TRUE', ...parts];
   const columns = sortColumns(query.sort, 'c', 'id');
-  const page = [...where];
-  const pageParams = [...params];
+  const where = ['TRUE', ...parts];
+  const whereParams = [...params];
   if (after) {
     const k = keysetCondition(columns, after, query.dir);
-    page.push(k.sql);
-    pageParams.push(...k.replacements);
+    where.push(k.sql);
+    whereParams.push(...k.replacements);
   }
-  const sequelize = Calc.sequelize!;
-  const [rows, counted] = await Promise.all([
-    sequelize.query<CalcRow>(
-      `${CALC_ROW_SQL} WHERE ${page.join(' AND ')} ORDER BY ${orderBy(columns, query.dir)} LIMIT ${query.size + 1}`,
-      { replacements: pageParams, type: QueryTypes.SELECT },
-    ),
-    after ? null : cappedCount(sequelize, `FROM calcs c WHERE ${where.join(' AND ')}`, params),
-  ]);
+  const count = after ? null : listedCount(query);
+  const rows = await Calc.sequelize!.query<CalcRow & { listed_total?: number }>(
+    `SELECT ${CALC_ROW_COLUMNS}${count ? `, (${count.sql}) AS listed_total` : ''} ${CALC_ROW_FROM}
+    WHERE ${where.join(' AND ')} ORDER BY ${orderBy(columns, query.dir)} LIMIT ${query.size + 1}`,
+    { replacements: [...(count?.params ?? []), ...whereParams], type: QueryTypes.SELECT },
+  );
   const more = rows.length > query.size;
   const shown = rows.slice(0, query.size);
+  const counted = count ? { total: Number(rows[0]?.listed_total ?? 0), totalIsAtLeast: false } : null;
   return { rows: shown, next: more ? keyOf(shown[shown.length - 1], query.sort) : null, stoppedEarly: false, counted };
 }
 

@@ -51,16 +51,19 @@ function termDriver(word: string, words: string[], filter: SearchFilter, sort: C
   };
 }
 
-/** The list's own filters as SQL on `calcs c`. */
-export function filterConditions(filter: SearchFilter): { parts: string[]; params: unknown[] } {
+/** The list's own filters as SQL on `calcs c` (or on the project and state columns named). */
+export function filterConditions(
+  filter: SearchFilter,
+  columns = { project: 'c.project_id', state: 'c.latest_status' },
+): { parts: string[]; params: unknown[] } {
   const parts: string[] = [];
   const params: unknown[] = [];
   if (filter.projectId) {
-    parts.push('c.project_id = ?');
+    parts.push(`${columns.project} = ?`);
     params.push(filter.projectId);
   }
   if (filter.status) {
-    parts.push('c.latest_status = ?');
+    parts.push(`${columns.state} = ?`);
     params.push(filter.status);
   }
   return { parts, params };

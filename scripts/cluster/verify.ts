@@ -80,6 +80,13 @@ export async function verifyNode(
     'hand-over mail queued more than once',
     "SELECT subject, recipient, COUNT(*) n FROM mail_outbox WHERE subject LIKE '%Cluster run%' GROUP BY subject, recipient HAVING n > 1",
   );
+  await expectNone(
+    "list totals kept per project and state differ from the calcs' own states",
+    `SELECT project_id, state, SUM(kept) kept, SUM(actual) actual FROM (
+      SELECT project_id, state, n kept, 0 actual FROM calc_counts
+      UNION ALL SELECT project_id, COALESCE(latest_status, ''), 0, 1 FROM calcs) x
+    GROUP BY project_id, state HAVING SUM(kept) <> SUM(actual)`,
+  );
   const [mails] = await q<{ n: bigint }>(
     "SELECT COUNT(DISTINCT subject) n FROM mail_outbox WHERE subject LIKE 'Approved:%Cluster run%'",
   );

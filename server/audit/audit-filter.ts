@@ -1,6 +1,7 @@
 import { Op, type WhereOptions } from 'sequelize';
 import type { AuditQuery } from '../../shared/schemas/audit.schema';
 import type { AuditEvent } from '../db/models';
+import { likePrefix } from '../db/like-pattern';
 
 /**
  * The audit trail filtered the way an auditor asks: by project or calc (the records under them:
@@ -20,6 +21,3 @@ export function auditWhere(q: Omit<AuditQuery, 'page'>): WhereOptions<AuditEvent
   if (q.after) parts.push({ id: { [Op.lt]: q.after } });
   return { [Op.and]: parts };
 }
-
-/** `text` as a LIKE pattern for the values that start with it, its own wildcards taken literally. */
-export const likePrefix = (text: string) => `${text.replace(/[\\%_]/g, '\\$&')}%`;

@@ -7,7 +7,8 @@ import { AuditEvent, User } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { cappedCount } from '../http/keyset';
 import { verifyAuditChain } from './audit.service';
-import { auditWhere, likePrefix } from './audit-filter';
+import { auditWhere } from './audit-filter';
+import { likePrefix } from '../db/like-pattern';
 import { describeRecords, recordOf } from './audit-records';
 import { selectSql } from '../db/plain-rows';
 

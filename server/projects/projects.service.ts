@@ -9,6 +9,7 @@ import { accessibleWhere } from '../authz/accessible-where';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { runTransaction } from '../db/transaction';
 import { selectSql } from '../db/plain-rows';
+import { likeContaining } from '../db/like-pattern';
 
 /** A project row, as a model or as the plain values a list reads (`raw`: no model built per row). */
 type ProjectRow = Pick<
@@ -52,7 +53,9 @@ export class ProjectsService {
    */
   async list(ability: AppAbility, query: PageQuery): Promise<Page<ProjectDto>> {
     const search = query.q
-      ? { [Op.or]: [{ code: { [Op.like]: `%${query.q}%` } }, { name: { [Op.like]: `%${query.q}%` } }] }
+      ? {
+          [Op.or]: [{ code: { [Op.like]: likeContaining(query.q) } }, { name: { [Op.like]: likeContaining(query.q) } }],
+        }
       : {};
     const where = { [Op.and]: [accessibleWhere(ability, 'read', 'Project'), search] };
     const sql = selectSql(Project, {

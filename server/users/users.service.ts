@@ -12,6 +12,7 @@ import { toUserDto } from './user-dto';
 import { applyUserUpdate, pendingOf } from './user-update';
 import { RoleGrantsService } from './role-grants.service';
 import { runTransaction } from '../db/transaction';
+import { likeContaining } from '../db/like-pattern';
 
 const withRoles = { model: UserRole, as: 'roleRows' } as const;
 
@@ -29,7 +30,12 @@ export class UsersService {
   async list(ability: AppAbility, query: PageQuery): Promise<Page<UserDto>> {
     const where = accessibleWhere(ability, 'read', 'User');
     const search = query.q
-      ? { [Op.or]: [{ username: { [Op.like]: `%${query.q}%` } }, { displayName: { [Op.like]: `%${query.q}%` } }] }
+      ? {
+          [Op.or]: [
+            { username: { [Op.like]: likeContaining(query.q) } },
+            { displayName: { [Op.like]: likeContaining(query.q) } },
+          ],
+        }
       : {};
     const { rows, count } = await User.findAndCountAll({
       where: { [Op.and]: [where, search] },

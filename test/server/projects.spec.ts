@@ -72,6 +72,21 @@ describe('reading projects', () => {
     expect(bad.body.fieldErrors).toEqual({ 'params.id': ['must be a number'] });
   });
 
+  it.each([
+    ['an underscore where the code has another character', (code: string) => `${code.slice(0, 2)}_${code.slice(3)}`],
+    ['a percent sign inside the code', (code: string) => `${code.slice(0, 2)}%${code.slice(3)}`],
+  ])('when the search holds %s, then it is taken literally, not as a wildcard', async (_what, typed) => {
+    const project = await createTestProject();
+    const { session } = await signedInAs(app, ['author']);
+    const found = async (q: string) =>
+      (await session.get(`/api/projects?q=${encodeURIComponent(q)}&size=100`)).body.items.map(
+        (p: { id: number }) => p.id,
+      );
+
+    expect(await found(project.code)).toEqual([project.id]);
+    expect(await found(typed(project.code))).not.toContain(project.id);
+  });
+
   it('when nobody is signed in, then reading a project is 401', async () => {
     const project = await createTestProject();
     expect((await request(app).get(`/api/projects/${project.id}`)).status).toBe(401);

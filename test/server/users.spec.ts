@@ -167,3 +167,16 @@ describe('changing users', () => {
     expect((await request(app).get(`/api/users/${target.id}`)).status).toBe(401);
   });
 });
+
+describe('searching people', () => {
+  it('when the search holds an underscore, then it is taken literally, not as a wildcard', async () => {
+    const { session: admin } = await signedInAs(app, ['admin']);
+    const person = await createTestUser(['author'], 'lit');
+    const name = person.username;
+    const found = async (q: string) =>
+      (await admin.get(`/api/users?q=${encodeURIComponent(q)}&size=100`)).body.items.map((u: { id: number }) => u.id);
+
+    expect(await found(name)).toEqual([person.id]);
+    expect(await found(`${name.slice(0, 2)}_${name.slice(3)}`)).not.toContain(person.id);
+  });
+});

@@ -157,7 +157,9 @@ async function queuedVerdict(s: Session, revisionId: number): Promise<{ together
 
 describe("the blind rule in the checkers' queue", () => {
   it("when a calc waits for an independent model, then every checker's queue lists it without its verdict until that checker's own model is locked", async () => {
-    const t = await modelTeam(app, authorInput());
+    // The model's owner also authors, so their queues read their own drafts beside the checks (the blind facts are
+    // read for the checks only); the other checker has the checks alone.
+    const t = await modelTeam(app, authorInput(), ['author', 'checker']);
     const verdict = (await revisionOf(t.author.session, t.revisionId)).verdict;
     expect(verdict).toEqual(expect.any(String));
     const other = await person(app, ['checker']);

@@ -2,6 +2,7 @@ import type { Express } from 'express';
 import { advanceTo, createCalc, fixtureInput, revisionOf, type Team } from './calc-harness';
 import { expectStatus, person, type Session } from './api-harness';
 import { testStandard } from './standard-harness';
+import type { Role } from '../../shared/authz/roles';
 
 let standard: Promise<number> | undefined;
 
@@ -24,10 +25,10 @@ export function modelStandardId(): Promise<number> {
   return standard;
 }
 
-/** A calc under that standard, submitted: in check, waiting for the independent model. */
-export async function modelTeam(app: Express, input = fixtureInput()) {
+/** A calc under that standard, submitted: in check, waiting for the independent model (checker roles as given). */
+export async function modelTeam(app: Express, input = fixtureInput(), checkerRoles: Role[] = ['checker']) {
   const author = await person(app, ['author']);
-  const checker = await person(app, ['checker']);
+  const checker = await person(app, checkerRoles);
   const approver = await person(app, ['approver']);
   const { revisionId, calcId } = await createCalc(author.session, {
     ruleSetId: await modelStandardId(),

@@ -1,6 +1,6 @@
 import type { Express } from 'express';
 import type { Locator, Page } from 'playwright-core';
-import { startBrowserSession, accessibilityViolations, pageSettled } from '../support/browser';
+import { startBrowserSession, accessibilityViolations, openSignedOut, pageSettled } from '../support/browser';
 import { TEST_PASSWORD } from '../support/api-harness';
 import { calcTeam, revisionOf } from '../support/calc-harness';
 import { attachRequiredFiles } from '../support/attachment-harness';
@@ -36,8 +36,7 @@ async function tabTo(page: Page, target: Locator, what: string): Promise<void> {
 }
 
 async function signInByKeyboard(page: Page, username: string): Promise<string[]> {
-  await session.context.clearCookies();
-  await page.goto('/sign-in');
+  await openSignedOut(session.context, page);
   await tabTo(page, page.getByLabel('Username'), 'Username');
   await page.keyboard.type(username);
   await tabTo(page, page.getByLabel('Password', { exact: true }), 'Password');

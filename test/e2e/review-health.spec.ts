@@ -1,30 +1,18 @@
-import type { Express } from 'express';
 import type { Page } from 'playwright-core';
-import { startBrowserSession, accessibilityViolations, pageSettled, screenshotAsSeen } from '../support/browser';
-import { TEST_PASSWORD, createTestUser } from '../support/api-harness';
+import { accessibilityViolations, pageSettled, screenshotAsSeen } from '../support/browser';
+import { browserSuite } from '../support/browser-suite';
+import { createTestUser } from '../support/api-harness';
 import { healthScenario } from '../support/health-harness';
 
 // The review-health screen at 1440, 768 and 390 px over constructed signals: screenshots to look at
 // (artifacts/screenshots/review-health-*), no sideways page scroll, axe-core with no serious or critical
 // violation, an inline error for a threshold out of range, and a signal's evidence link landing on the audit list.
-let session: Awaited<ReturnType<typeof startBrowserSession>>;
+const suite = browserSuite();
+const { signIn } = suite;
 let scenario: Awaited<ReturnType<typeof healthScenario>>;
 beforeAll(async () => {
-  session = await startBrowserSession();
-  scenario = await healthScenario(session.baseUrl as unknown as Express);
+  scenario = await healthScenario(suite.server());
 });
-afterAll(async () => {
-  await session?.close();
-});
-
-async function signIn(page: Page, username: string) {
-  await session.context.clearCookies();
-  await page.goto('/sign-in');
-  await page.getByLabel('Username').fill(username);
-  await page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: /Good to see you/ }).waitFor();
-}
 
 async function openReport(page: Page) {
   await page.goto('/review-health');
@@ -41,7 +29,7 @@ async function openReport(page: Page) {
 }
 
 it('when compliance opens review health, then every signal reads as a fact with its limits, at three widths', async () => {
-  const page = await session.context.newPage();
+  const page = await suite.session.context.newPage();
   const user = await createTestUser(['compliance'], 'e2e-health');
   await signIn(page, user.username);
   await openReport(page);
@@ -65,7 +53,7 @@ it('when compliance opens review health, then every signal reads as a fact with 
       };
     });
     if (sideways > 1) problems.push(`@${width}: page scrolls sideways by ${sideways}px (${widest})`);
-    await session.screenshot(page, `review-health-${width}`);
+    await suite.session.screenshot(page, `review-health-${width}`);
     await screenshotAsSeen(page, `review-health-${width}-top`);
     problems.push(...(await accessibilityViolations(page)).map((v) => `@${width}: ${v}`));
   }
@@ -76,7 +64,7 @@ it('when compliance opens review health, then every signal reads as a fact with 
 });
 
 it('when a threshold is out of range, then the field says so inline and nothing is sent', async () => {
-  const page = await session.context.newPage();
+  const page = await suite.session.context.newPage();
   const user = await createTestUser(['admin'], 'e2e-health-admin');
   await signIn(page, user.username);
   await openReport(page);
@@ -93,7 +81,7 @@ it('when a threshold is out of range, then the field says so inline and nothing 
 });
 
 it('when an evidence link is followed, then the audit list opens filtered to the entries behind the signal', async () => {
-  const page = await session.context.newPage();
+  const page = await suite.session.context.newPage();
   const user = await createTestUser(['compliance'], 'e2e-health-link');
   await signIn(page, user.username);
   await openReport(page);

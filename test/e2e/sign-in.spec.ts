@@ -1,13 +1,12 @@
 import type { Page } from 'playwright-core';
-import { accessibilityViolations, pageSettled } from '../support/browser';
+import { accessibilityViolations, openSignedOut, pageSettled } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { createTestUser, TEST_PASSWORD } from '../support/api-harness';
 
 const suite = browserSuite();
 
 async function signIn(page: Page, username: string, password = TEST_PASSWORD) {
-  await suite.session.context.clearCookies();
-  await page.goto('/');
+  await openSignedOut(suite.session.context, page, '/');
   await page.getByLabel('Username').fill(username);
   await page.getByLabel('Password', { exact: true }).fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();

@@ -1,26 +1,12 @@
-import type { Page } from 'playwright-core';
-import { startBrowserSession, accessibilityViolations, pageSettled, screenshotAsSeen } from '../support/browser';
-import { TEST_PASSWORD, createTestUser } from '../support/api-harness';
+import { accessibilityViolations, pageSettled, screenshotAsSeen } from '../support/browser';
+import { browserSuite } from '../support/browser-suite';
+import { createTestUser } from '../support/api-harness';
 import { testStandard } from '../support/standard-harness';
 
 // The standards view's "How calcs are checked" at 1440, 768 and 390 px: screenshots to look at
 // (artifacts/screenshots/standard-checking-*), no sideways page scroll, axe-core with no serious or critical violation.
-let session: Awaited<ReturnType<typeof startBrowserSession>>;
-beforeAll(async () => {
-  session = await startBrowserSession();
-});
-afterAll(async () => {
-  await session?.close();
-});
-
-async function signIn(page: Page, username: string) {
-  await session.context.clearCookies();
-  await page.goto('/sign-in');
-  await page.getByLabel('Username').fill(username);
-  await page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: /Good to see you/ }).waitFor();
-}
+const suite = browserSuite();
+const { signIn } = suite;
 
 it('when a reader opens a standard that asks for an independent model, then its methods tab says how calcs are checked, at three widths', async () => {
   const standard = await testStandard((doc) => {
@@ -31,7 +17,7 @@ it('when a reader opens a standard that asks for an independent model, then its 
       origin: 'house choice, after the design-verification practice of alternate calculations',
     };
   });
-  const page = await session.context.newPage();
+  const page = await suite.session.context.newPage();
   const user = await createTestUser(['author'], 'e2e-checking');
   await signIn(page, user.username);
   await page.goto(`/rule-sets/${standard.id}`);

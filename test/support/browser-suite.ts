@@ -1,7 +1,6 @@
 import type { Express } from 'express';
 import type { Page } from 'playwright-core';
-import { TEST_PASSWORD } from './api-harness';
-import { startBrowserSession } from './browser';
+import { signInThroughPage, startBrowserSession } from './browser';
 import { startTestS3 } from './fake-servers';
 
 type BrowserSession = Awaited<ReturnType<typeof startBrowserSession>>;
@@ -31,14 +30,7 @@ export function browserSuite(options: { s3?: boolean } = {}) {
   };
 
   /** Signs in through the real page and waits for the overview's greeting. */
-  async function signIn(page: Page, username: string): Promise<void> {
-    await started().context.clearCookies();
-    await page.goto('/sign-in');
-    await page.getByLabel('Username').fill(username);
-    await page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('heading', { name: /Good to see you/ }).waitFor();
-  }
+  const signIn = (page: Page, username: string) => signInThroughPage(started().context, page, username);
 
   return {
     get session() {

@@ -4,7 +4,7 @@ import path from 'node:path';
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { chromium, type BrowserContext, type Locator, type Page } from 'playwright-core';
-import { startTestApp } from './api-harness';
+import { startTestApp, TEST_PASSWORD } from './api-harness';
 
 export const SCREENSHOT_DIR = path.resolve(__dirname, '../../artifacts/screenshots');
 
@@ -71,6 +71,27 @@ export async function startBrowserSession() {
       fs.rmSync(profile, { recursive: true, force: true });
     },
   };
+}
+
+/**
+ * Opens `path` signed out. The page leaves the app first (about:blank ends its scripts and cancels what it still has
+ * in flight), then the cookies go: sessions roll, so an answer arriving after the cookies were cleared set the old
+ * session's cookie again, and the sign-in page then sent the signed-in reader on to the overview (a keyboard spec
+ * waited 120 s for the username field that way).
+ */
+export async function openSignedOut(context: BrowserContext, page: Page, path = '/sign-in'): Promise<void> {
+  await page.goto('about:blank');
+  await context.clearCookies();
+  await page.goto(path);
+}
+
+/** Signs in through the real page, from signed out, and waits for the overview's greeting. */
+export async function signInThroughPage(context: BrowserContext, page: Page, username: string): Promise<void> {
+  await openSignedOut(context, page);
+  await page.getByLabel('Username').fill(username);
+  await page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: /Good to see you/ }).waitFor();
 }
 
 /**

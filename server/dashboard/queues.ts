@@ -118,11 +118,12 @@ function needsFacts(key: QueueKey, mayCheck: boolean): boolean {
  */
 async function queueRows(
   user: SessionUser,
+  ability: AppAbility,
   keys: QueueKey[],
   query: QueueQuery,
-  mayCheck: boolean,
 ): Promise<QueueRows[]> {
   const sequelize = Calc.sequelize!;
+  const { mayCheck } = viewerOf(ability);
   const filters = keys.map((key) => filterOf(key, user.id));
   const keyset = query.after
     ? keysetCondition(KEY, decodeCursor(query.after, KEY), 'asc')
@@ -198,7 +199,7 @@ export async function queuePage(
   key: QueueKey,
   query: QueueQuery,
 ): Promise<QueueDto> {
-  const [page] = await queueRows(user, [key], query, viewerOf(ability).mayCheck);
+  const [page] = await queueRows(user, ability, [key], query);
   return queueDto(key, page, query.size, await blindOf(ability, [page], query.size));
 }
 
@@ -209,7 +210,7 @@ export async function queuePage(
 export async function queuesOf(user: SessionUser, ability: AppAbility, query: QueueQuery): Promise<QueueDto[]> {
   const keys = queueKeysOf(user);
   if (!keys.length) return [];
-  const pages = await queueRows(user, keys, { size: query.size }, viewerOf(ability).mayCheck);
+  const pages = await queueRows(user, ability, keys, { size: query.size });
   const blind = await blindOf(ability, pages, query.size);
   return keys.map((key, i) => queueDto(key, pages[i], query.size, blind));
 }

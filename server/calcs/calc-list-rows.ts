@@ -43,8 +43,9 @@ export interface CalcRow {
 export const CALC_ROW_COLUMNS = `c.id, c.project_id, c.project_code, c.number, c.title, c.part_ref, c.latest_revision_id,
   c.latest_label, c.latest_status, c.latest_verdict, c.latest_author_id, c.author_name, c.latest_rule_set_id,
   c.latest_updated_at, rs.code AS rs_code, rs.version AS rs_version, p.status = 'archived' AS project_archived`;
-export const CALC_ROW_FROM =
-  'FROM calcs c LEFT JOIN rule_sets rs ON rs.id = c.latest_rule_set_id LEFT JOIN projects p ON p.id = c.project_id';
+export const CALC_ROW_JOINS =
+  'LEFT JOIN rule_sets rs ON rs.id = c.latest_rule_set_id LEFT JOIN projects p ON p.id = c.project_id';
+export const CALC_ROW_FROM = `FROM calcs c ${CALC_ROW_JOINS}`;
 export const CALC_ROW_SQL = `SELECT ${CALC_ROW_COLUMNS} ${CALC_ROW_FROM}`;
 
 /** The sort values of a row as a cursor holds them (dates as ISO text). */

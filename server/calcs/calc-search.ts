@@ -1,6 +1,14 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { TOTAL_CAP, keysetCondition, orderBy } from '../http/keyset';
-import { CALC_ROW_SQL, type CalcRow, type CalcSort } from './calc-list-rows';
+import {
+  CALC_ROW_COLUMNS,
+  CALC_ROW_JOINS,
+  CALC_ROW_SQL,
+  keyOf,
+  sortColumns,
+  type CalcRow,
+  type CalcSort,
+} from './calc-list-rows';
 import { SEARCH_LIMITS, chooseDriver, matchCondition, type Driver, type SearchFilter } from './calc-search-plan';
 
 type KeyValue = string | number;
@@ -106,6 +114,7 @@ export async function searchCalcs(db: Sequelize, r: SearchRequest): Promise<Sear
   const driver = await chooseDriver(db, r.words, r.filter, r.sort);
   if (!driver)
     return { rows: [], next: null, stoppedEarly: false, counted: r.after ? null : { total: 0, totalIsAtLeast: false } };
+  if (driver.isExact) return exactPage(db, driver, r);
   const found: Candidate[] = [];
   let after = r.after;
   let examined = 0;
@@ -132,7 +141,7 @@ export async function searchCalcs(db: Sequelize, r: SearchRequest): Promise<Sear
   const rows = await rowsOf(db, shown);
   const stoppedEarly = !full && !exhausted;
   const next = full ? shown[shown.length - 1].key : stoppedEarly ? after : null;
-  const counted = r.after ? null : await countOf(db, driver, matched, exhausted);
+  const counted = r.after ? null : countOf(matched, exhausted);
   return { rows, next, stoppedEarly, counted };
 }
 
@@ -144,19 +153,45 @@ async function rowsOf(db: Sequelize, shown: Candidate[]): Promise<CalcRow[]> {
 }
 
 /**
- * The number of matches. A one-word search without other conditions counts its index range up to
- * TOTAL_CAP (index entries alone). Anything else reports what the page walk saw: every match when
- * it ran out of candidates, else "at least" the matches found, since counting further would check
- * every remaining candidate by look-ups in the term table, which a broad word makes tens of thousands.
+ * A one-word search with no other condition in one statement: the word's index entries of the page in the list's
+ * order, their calcs' rows, and on a first page the word's count (index entries alone, up to TOTAL_CAP). The entries
+ * carry their calc's sort values (kept by the same triggers, in the same transaction), so the rows sort as the walk.
  */
-async function countOf(db: Sequelize, d: Driver, found: number, exhausted: boolean): Promise<SearchPage['counted']> {
-  if (!d.isExact) return { total: Math.min(found, TOTAL_CAP), totalIsAtLeast: !exhausted || found > TOTAL_CAP };
-  const scope = `FROM ${d.from} WHERE ${d.where.join(' AND ')}`;
-  const [row] = await select<{ n: number }>(
+async function exactPage(db: Sequelize, d: Driver, r: SearchRequest): Promise<SearchPage> {
+  const where = [...d.where];
+  const params = [...d.params];
+  if (r.after) {
+    const k = keysetCondition(d.columns, r.after, r.dir);
+    where.push(k.sql);
+    params.push(...k.replacements);
+  }
+  const id = d.columns[d.columns.length - 1].sql;
+  const cap = SEARCH_LIMITS.countCap;
+  const count = r.after
+    ? ''
+    : `, (SELECT COUNT(*) FROM (SELECT 1 FROM ${d.from} WHERE ${d.where.join(' AND ')} LIMIT ${cap + 1}) x)
+      AS listed_total`;
+  const rows = await select<CalcRow & { listed_total?: number }>(
     db,
-    `SELECT COUNT(*) AS n FROM (SELECT 1 ${scope} LIMIT ${TOTAL_CAP + 1}) x`,
-    d.params,
+    `SELECT ${CALC_ROW_COLUMNS}${count}
+    FROM (SELECT ${id} AS calc_id FROM ${d.from} WHERE ${where.join(' AND ')}
+      ORDER BY ${orderBy(d.columns, r.dir)} LIMIT ${r.size + 1}) y
+    JOIN calcs c ON c.id = y.calc_id ${CALC_ROW_JOINS}
+    ORDER BY ${orderBy(sortColumns(r.sort, 'c', 'id'), r.dir)}`,
+    [...(r.after ? [] : d.params), ...params],
   );
-  const n = Number(row.n);
-  return { total: Math.min(n, TOTAL_CAP), totalIsAtLeast: n > TOTAL_CAP };
+  const shown = rows.slice(0, r.size);
+  const next = rows.length > r.size ? keyOf(shown[shown.length - 1], r.sort) : null;
+  const n = Number(rows[0]?.listed_total ?? 0);
+  const counted = r.after ? null : { total: Math.min(n, cap), totalIsAtLeast: n > cap };
+  return { rows: shown, next, stoppedEarly: false, counted };
+}
+
+/**
+ * The number of matches of a walk: every match when it ran out of candidates, else "at least" the matches found,
+ * since counting further would check every remaining candidate by look-ups in the term table, which a broad word
+ * makes tens of thousands. (A one-word search without other conditions counts in its own statement, `exactPage`.)
+ */
+function countOf(found: number, exhausted: boolean): SearchPage['counted'] {
+  return { total: Math.min(found, TOTAL_CAP), totalIsAtLeast: !exhausted || found > TOTAL_CAP };
 }

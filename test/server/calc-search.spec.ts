@@ -31,6 +31,11 @@ async function addCalc(t: Team, number: string, title: string): Promise<number> 
   return res.body.id;
 }
 
+/** Calcs of the team's project, by number and title, made in the order given. */
+async function addCalcs(t: Team, rows: [number: string, title: string][]): Promise<void> {
+  for (const [number, title] of rows) await addCalc(t, number, title);
+}
+
 const search = async (t: Team, query: string): Promise<Page> => {
   const res = await t.author.session.get(`/api/calcs?${query}`);
   expect(res.status).toBe(200);
@@ -96,25 +101,22 @@ describe('the search box finds calcs by the starts of their words', () => {
   });
 });
 
+/** Every list order, each in one direction. */
+const ORDERS = ['sort=number&dir=asc', 'sort=title&dir=desc', 'sort=updatedAt&dir=desc', 'sort=status&dir=asc'];
+
 describe('search pages', () => {
   it('when a search is read page by page in each order, then it lists what the plain list lists, in the same order', async () => {
     // Arrange: five calcs, three with the word
     const t = await calcTeam(app);
     const w = uniqueWord();
-    for (const [n, title] of [
+    await addCalcs(t, [
       ['P-5', `${w} idler`],
       ['P-1', 'plain drum'],
       ['P-3', `${w} drum`],
       ['P-2', `${w} hoist`],
-    ])
-      await addCalc(t, n, title);
+    ]);
 
-    for (const order of [
-      'sort=number&dir=asc',
-      'sort=title&dir=desc',
-      'sort=updatedAt&dir=desc',
-      'sort=status&dir=asc',
-    ]) {
+    for (const order of ORDERS) {
       // Act
       const plain = (await search(t, `projectId=${t.project.id}&size=50&${order}`)).items;
       const pages = await allPages(t, `projectId=${t.project.id}&q=${w}&size=2&${order}`);
@@ -123,6 +125,57 @@ describe('search pages', () => {
       const wanted = plain.filter((r) => ['P-5', 'P-3', 'P-2'].includes(r.number)).map((r) => r.id);
       expect(pages.flatMap((p) => p.items.map((r) => r.id))).toEqual(wanted);
       expect(pages.map((p) => p.total)).toEqual([3, null]);
+    }
+  });
+
+  it('when one word alone is searched across the library, then its pages list what the plain list lists, counted up to the cap', async () => {
+    // Arrange: four calcs with the word and one without, in a project of their own
+    const t = await calcTeam(app);
+    const w = uniqueWord();
+    await addCalcs(t, [
+      ['E-4', `${w} idler`],
+      ['E-1', 'plain drum'],
+      ['E-3', `${w} drum`],
+      ['E-2', `${w} hoist`],
+      ['E-5', `${w} winch`],
+    ]);
+    const withWord = ['E-4', 'E-3', 'E-2', 'E-5'];
+
+    for (const order of [
+      'sort=number&dir=asc',
+      'sort=title&dir=desc',
+      'sort=updatedAt&dir=asc',
+      'sort=status&dir=desc',
+    ]) {
+      // Act: the word alone (one statement a page), and with a state the word's index holds
+      const plain = (await search(t, `projectId=${t.project.id}&size=50&${order}`)).items;
+      const pages = await allPages(t, `q=${w}&size=3&${order}`);
+      const drafts = await allPages(t, `q=${w}&status=draft&size=3&${order}`);
+
+      // Assert
+      const wanted = plain.filter((r) => withWord.includes(r.number)).map((r) => r.id);
+      for (const found of [pages, drafts]) {
+        expect(found.flatMap((p) => p.items.map((r) => r.id))).toEqual(wanted);
+        expect(found.map((p) => [p.total, p.totalIsAtLeast])).toEqual([
+          [4, false],
+          [null, false],
+        ]);
+      }
+    }
+    const approved = await search(t, `q=${w}&status=approved&sort=updatedAt`);
+    expect([approved.items, approved.total, approved.next]).toEqual([[], 0, null]);
+
+    // The count stops one past the cap and says "at least".
+    const saved = { ...SEARCH_LIMITS };
+    try {
+      Object.assign(SEARCH_LIMITS, { countCap: 3 });
+      const capped = await search(t, `q=${w}&size=2`);
+      expect([capped.items.length, capped.total, capped.totalIsAtLeast]).toEqual([2, 3, true]);
+      Object.assign(SEARCH_LIMITS, { countCap: 4 });
+      const exact = await search(t, `q=${w}&size=2`);
+      expect([exact.total, exact.totalIsAtLeast]).toEqual([4, false]);
+    } finally {
+      Object.assign(SEARCH_LIMITS, saved);
     }
   });
 

@@ -59,7 +59,14 @@ export function endpointsOf(b: BenchPeople): [string, Session, string[]][] {
       compliance,
       projects.map((id, i) => `/api/calcs?projectId=${id}&q=shaft${i % 2 ? '&status=approved' : ''}&size=50`),
     ],
-    ['queues (author + checker)', b.worker, ['/api/dashboard/queues']],
+    // The overview reads every queue's first page at the size the screen shows (src/app/features/calcs/calcs-api.ts,
+    // QUEUE_PAGE); a queue's own pages go up to 25 rows. Until 5 December 2026 this line read 50 rows per queue.
+    ['queues · overview (author + checker, 5 each)', b.worker, ['/api/dashboard/queues?size=5']],
+    [
+      'queues · one queue, 25 a page (waiting for my check)',
+      b.worker,
+      ['/api/dashboard/queues/awaiting-my-check?size=25'],
+    ],
     ['projects', compliance, ['/api/projects?size=50']],
     ['audit list · newest', compliance, ['/api/audit?size=50']],
     [

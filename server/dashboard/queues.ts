@@ -113,8 +113,9 @@ function needsFacts(key: QueueKey, mayCheck: boolean): boolean {
 
 /**
  * One page of each of these queues (and one more row, to know there is a next page), with each queue's capped count
- * on a first page: every queue's page in one statement and every count in another, each part on its own index range
- * (a statement per page and per count cost the app more than reading the rows).
+ * on a first page, in one statement: each part reads its own index range, and a first page's rows carry their queue's
+ * count (a subquery that does not depend on the row, so MariaDB runs it once); a queue with no row on its first page
+ * has none waiting. A statement per page and per count cost the app more than reading the rows.
  */
 async function queueRows(
   user: SessionUser,
@@ -122,38 +123,35 @@ async function queueRows(
   keys: QueueKey[],
   query: QueueQuery,
 ): Promise<QueueRows[]> {
-  const sequelize = Calc.sequelize!;
   const { mayCheck } = viewerOf(ability);
   const filters = keys.map((key) => filterOf(key, user.id));
   const keyset = query.after
     ? keysetCondition(KEY, decodeCursor(query.after, KEY), 'asc')
     : { sql: 'TRUE', replacements: [] };
   const facts = keys.map((key) => needsFacts(key, mayCheck));
+  const count = (f: Filter) =>
+    query.after
+      ? 'NULL AS n'
+      : `(SELECT COUNT(*) FROM (SELECT 1 FROM calcs c WHERE ${f.sql} LIMIT ${QUEUE_COUNT_CAP + 1}) x) AS n`;
   const pages = filters.map(
-    (f, i) => `(SELECT ${i} AS q, ${COLUMNS}, ${facts[i] ? BLIND_FACTS : NO_FACTS} FROM calcs c
+    (f, i) => `(SELECT ${i} AS q, ${COLUMNS}, ${facts[i] ? BLIND_FACTS : NO_FACTS}, ${count(f)} FROM calcs c
       WHERE ${f.sql} AND ${keyset.sql} ORDER BY c.latest_since ASC, c.id ASC LIMIT ${query.size + 1})`,
   );
-  const counts = filters.map(
-    (f, i) =>
-      `SELECT ${i} AS q, COUNT(*) AS n FROM (SELECT 1 FROM calcs c WHERE ${f.sql} LIMIT ${QUEUE_COUNT_CAP + 1}) x${i}`,
-  );
-  const replacements = filters.flatMap((f, i) => [...(facts[i] ? [user.id] : []), ...f.params, ...keyset.replacements]);
-  const [rows, counted] = await Promise.all([
-    sequelize.query<Row & { q: number }>(`${pages.join(' UNION ALL ')} ORDER BY q, latest_since, id`, {
-      replacements,
-      type: QueryTypes.SELECT,
-    }),
-    query.after
-      ? null
-      : sequelize.query<{ q: number; n: number }>(counts.join(' UNION ALL '), {
-          replacements: filters.flatMap((f) => f.params),
-          type: QueryTypes.SELECT,
-        }),
+  const replacements = filters.flatMap((f, i) => [
+    ...(facts[i] ? [user.id] : []),
+    ...(query.after ? [] : f.params),
+    ...f.params,
+    ...keyset.replacements,
   ]);
+  const rows = await Calc.sequelize!.query<Row & { q: number; n: number | null }>(
+    `${pages.join(' UNION ALL ')} ORDER BY q, latest_since, id`,
+    { replacements, type: QueryTypes.SELECT },
+  );
   return keys.map((_, i) => {
-    const n = counted ? Number(counted.find((c) => Number(c.q) === i)?.n ?? 0) : null;
+    const own = rows.filter((r) => Number(r.q) === i);
+    const n = query.after ? null : Number(own[0]?.n ?? 0);
     return {
-      rows: rows.filter((r) => Number(r.q) === i),
+      rows: own,
       counted: n === null ? null : { total: Math.min(n, QUEUE_COUNT_CAP), totalIsAtLeast: n > QUEUE_COUNT_CAP },
     };
   });

@@ -130,6 +130,15 @@ describe('queue pages', () => {
   });
 });
 
+describe('an empty queue', () => {
+  it('when nothing waits in a queue, then its first page counts none and offers no next page', async () => {
+    const t = await team();
+    const first = expectStatus(await t.author.session.get('/api/dashboard/queues?size=2'), 200, 'queues').body;
+    const returned = (first as (QueuePage & { total: number })[]).find((q) => q.key === 'returned-to-me');
+    expect(returned).toMatchObject({ items: [], total: 0, totalIsAtLeast: false, next: null });
+  });
+});
+
 describe("the checker's queue", () => {
   it('when a calc is submitted, then it waits for every independent checker but not for a checker who edited it', async () => {
     // Arrange

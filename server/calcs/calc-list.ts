@@ -23,8 +23,8 @@ const listedOf = (r: CalcRow) => ({
  * size, a sum over at most one row per project and state.
  */
 function listedCount(query: CalcListQuery): { sql: string; params: unknown[] } {
-  const { parts, params } = filterConditions(query, { project: 'k.project_id', state: 'k.state' });
-  return { sql: `SELECT COALESCE(SUM(k.n), 0) FROM calc_counts k WHERE ${['TRUE', ...parts].join(' AND ')}`, params };
+  const { parts, params } = filterConditions(query, { project: 'calc_counts.project_id', state: 'calc_counts.state' });
+  return { sql: `SELECT COALESCE(SUM(n), 0) FROM calc_counts WHERE ${['TRUE', ...parts].join(' AND ')}`, params };
 }
 
 /**

@@ -1,7 +1,7 @@
 // Where a search starts: the rarest of its words, or the project's own list when that is smaller.
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { RevisionState } from '../../shared/schemas/revision.schema';
-import type { KeyColumn } from '../http/keyset';
+import { TOTAL_CAP, type KeyColumn } from '../http/keyset';
 import { sortColumns, type CalcSort } from './calc-list-rows';
 
 /** Bounds of one search request; specs lower them to reach each bound with a handful of calcs. */
@@ -12,11 +12,8 @@ export const SEARCH_LIMITS = {
   pageBudget: 2_000,
   /** Candidates read at once, growing fourfold while the page is not full. */
   firstChunk: 200,
-  /**
-   * A one-word search counts its matches this far ("at least 1,000"), as the queues do: past a thousand matches the
-   * figure tells nobody more, and counting ten times further was half of MariaDB's work for such a search.
-   */
-  countCap: 1_000,
+  /** A one-word search counts its matches this far, as every walked total (TOTAL_CAP, "at least 1,000"). */
+  countCap: TOTAL_CAP,
 };
 
 export interface SearchFilter {

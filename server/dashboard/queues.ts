@@ -13,7 +13,7 @@ import type { RevisionState } from '../../shared/schemas/revision.schema';
 import { QUEUES, WORKFLOW } from '../../shared/workflow/revision-states';
 import type { Relation } from '../../shared/workflow/relations';
 import { Calc } from '../db/models';
-import { decodeCursor, encodeCursor, keysetCondition, type KeyColumn } from '../http/keyset';
+import { TOTAL_CAP, decodeCursor, encodeCursor, keysetCondition, type KeyColumn } from '../http/keyset';
 import { blindRevisionIds } from '../independent/blind-lists';
 import { BLIND_STATES } from '../independent/blind';
 import type { AppAbility } from '../../shared/authz/app-ability';
@@ -28,8 +28,6 @@ export type QueueQuery = z.infer<typeof queueQuerySchema>;
 // A queue is a filter on the calcs' summary columns (only a calc's newest revision can wait for anyone),
 // oldest first by when it entered its state; indexes calcs_author_state and calcs_state_since serve them.
 const KEY: KeyColumn[] = [{ sql: 'c.latest_since', isDate: true }, { sql: 'c.id' }];
-// A queue waiting on many people is counted only this far ("more than 1,000").
-const QUEUE_COUNT_CAP = 1_000;
 
 const NOT_EDITED_BY = 'NOT EXISTS (SELECT 1 FROM calc_editors e WHERE e.calc_id = c.id AND e.user_id = ?)';
 type Filter = { sql: string; params: unknown[] };
@@ -132,7 +130,7 @@ async function queueRows(
   const count = (f: Filter) =>
     query.after
       ? 'NULL AS n'
-      : `(SELECT COUNT(*) FROM (SELECT 1 FROM calcs c WHERE ${f.sql} LIMIT ${QUEUE_COUNT_CAP + 1}) x) AS n`;
+      : `(SELECT COUNT(*) FROM (SELECT 1 FROM calcs c WHERE ${f.sql} LIMIT ${TOTAL_CAP + 1}) x) AS n`;
   const pages = filters.map(
     (f, i) => `(SELECT ${i} AS q, ${COLUMNS}, ${facts[i] ? BLIND_FACTS : NO_FACTS}, ${count(f)} FROM calcs c
       WHERE ${f.sql} AND ${keyset.sql} ORDER BY c.latest_since ASC, c.id ASC LIMIT ${query.size + 1})`,
@@ -152,7 +150,7 @@ async function queueRows(
     const n = query.after ? null : Number(own[0]?.n ?? 0);
     return {
       rows: own,
-      counted: n === null ? null : { total: Math.min(n, QUEUE_COUNT_CAP), totalIsAtLeast: n > QUEUE_COUNT_CAP },
+      counted: n === null ? null : { total: Math.min(n, TOTAL_CAP), totalIsAtLeast: n > TOTAL_CAP },
     };
   });
 }

@@ -33,7 +33,7 @@ export class KeysetPager {
   });
 
   /**
-   * "1,234" or "at least 10,000", for a line beside the table. "At least": a capped count knows
+   * "1,234" or "at least 1,000", for a line beside the table. "At least": a capped count knows
    * there are more than its cap, and a search counted over a bounded walk knows only a lower bound.
    */
   readonly totalLabel = computed(() => {
@@ -41,7 +41,7 @@ export class KeysetPager {
     return t ? `${t.isAtLeast ? 'at least ' : ''}${t.total.toLocaleString('en-US')}` : '';
   });
 
-  /** The count with its noun: "1 calc", "8 calcs", "at least 10,000 calcs"; empty until a count is known. */
+  /** The count with its noun: "1 calc", "8 calcs", "at least 1,000 calcs"; empty until a count is known. */
   totalOf(one: string, many: string): string {
     const t = this.total();
     return t ? `${this.totalLabel()} ${t.total === 1 && !t.isAtLeast ? one : many}` : '';

@@ -5,7 +5,10 @@ cd "$(dirname "$0")/.."
 source scripts/lib.sh
 
 ensure_debian_packages with-browser
-ensure_node_modules
+# The npm packages and the throw-away MariaDB need nothing of each other: in a fresh clone the database's folder is
+# made and started while npm ci waits on the disk.
+ensure_node_modules &
+modules_pid=$!
 
 dir=".data/test-$$"
 export DB_NAME=torquetrail_test DB_USER=torquetrail_test DB_PASSWORD=test-only
@@ -15,6 +18,7 @@ trap 'db_stop; rm -rf "$dir"' EXIT
 db_ensure_schema "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
 # The audit-tampering specs break the chain on purpose in a database of their own (test/support/tamper-db.ts).
 db_ensure_schema "${DB_NAME}_tamper" "$DB_USER" "$DB_PASSWORD"
+wait "$modules_pid" || die "the npm packages could not be installed (see above)"
 
 # Throw-away fake SMTP and S3 on free ports for anything that uses the configured ones. No server
 # process sends mail during tests: the mail specs drive the sender themselves.

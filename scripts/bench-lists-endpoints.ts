@@ -60,7 +60,7 @@ export function endpointsOf(b: BenchPeople): [string, Session, string[]][] {
       projects.map((id, i) => `/api/calcs?projectId=${id}&q=shaft${i % 2 ? '&status=approved' : ''}&size=50`),
     ],
     // The overview reads every queue's first page at the size the screen shows (src/app/features/calcs/calcs-api.ts,
-    // QUEUE_PAGE); a queue's own pages go up to 25 rows. Until 5 December 2026 this line read 50 rows per queue.
+    // QUEUE_PAGE); a queue's own pages go up to 25 rows. Until 4 December 2026 this line read 50 rows per queue.
     ['queues · overview (author + checker, 5 each)', b.worker, ['/api/dashboard/queues?size=5']],
     [
       'queues · one queue, 25 a page (waiting for my check)',

@@ -41,6 +41,9 @@ export class KeysetPager {
     return t ? `${t.isAtLeast ? 'at least ' : ''}${t.total.toLocaleString('en-US')}` : '';
   });
 
+  /** Whether the count is only a lower bound (a capped count, or a search's bounded walk). */
+  readonly isAtLeast = computed(() => this.total()?.isAtLeast ?? false);
+
   /** The count with its noun: "1 calc", "8 calcs", "at least 1,000 calcs"; empty until a count is known. */
   totalOf(one: string, many: string): string {
     const t = this.total();

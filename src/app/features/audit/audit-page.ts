@@ -16,7 +16,7 @@ import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { CalcsApi } from '../calcs/calcs-api';
 import { EmptyState } from '../../ui/empty-state';
 import { AuditApi, type AuditListParams } from './audit-api';
-import { KeysetPager } from '../../ui/keyset-pager';
+import { KEYSET_PAGINATOR_INTL, keysetPager } from '../../ui/keyset-paginator-intl';
 import { ListFilters } from '../../ui/list-filters';
 import { ProjectPicker } from '../projects/project-picker';
 import { DiffView } from '../../ui/diff-view';
@@ -46,7 +46,7 @@ import { ChainCheck } from './chain-check';
     LoadFailure,
     ProjectPicker,
   ],
-  providers: [ChainCheck],
+  providers: [KEYSET_PAGINATOR_INTL, ChainCheck],
   templateUrl: './audit-page.html',
   styleUrl: './audit-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -54,7 +54,7 @@ import { ChainCheck } from './chain-check';
 export default class AuditPage {
   private readonly api = inject(AuditApi);
   protected readonly chainCheck = inject(ChainCheck);
-  protected readonly pager = new KeysetPager(25);
+  protected readonly pager = keysetPager(25);
   // Filters may arrive in the address (links from review-health signals and elsewhere), e.g.
   // /audit?calcId=7&action=revision.signed.
   private readonly filters = new ListFilters<Omit<AuditListParams, 'size' | 'after'>>(

@@ -48,6 +48,13 @@ describe('a dashboard queue', () => {
     d.http.verify();
   });
 
+  it('when the queue was counted only up to its cap, then the pager says "of at least", never the cap as the size', async () => {
+    const d = await mount(queue([1, 2, 3, 4, 5].map(item), { next: 'cursor-5', total: 1000, totalIsAtLeast: true }));
+    const pager = await d.loader.getHarness(MatPaginatorHarness);
+    expect(await pager.getRangeLabel()).toBe('1 – 5 of at least 1,000');
+    d.http.verify();
+  });
+
   it('when the queue is longer than a page, then the next page is read by its cursor and shown, and going back needs no request', async () => {
     const d = await mount(queue([1, 2, 3, 4, 5].map(item), { next: 'cursor-5', total: 7 }));
     const pager = await d.loader.getHarness(MatPaginatorHarness);

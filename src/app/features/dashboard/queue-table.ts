@@ -6,7 +6,7 @@ import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator'
 import type { QueueDto, QueueItem } from '../../../../shared/schemas/queue.schema';
 import { StateBadge } from '../../ui/state-badge';
 import { VerdictBadge } from '../../ui/verdict-badge';
-import { KeysetPager } from '../../ui/keyset-pager';
+import { KEYSET_PAGINATOR_INTL, keysetPager } from '../../ui/keyset-paginator-intl';
 import { LoadFailure } from '../../ui/load-failure';
 import { CalcsApi, QUEUE_PAGE } from '../calcs/calcs-api';
 
@@ -66,12 +66,13 @@ import { CalcsApi, QUEUE_PAGE } from '../calcs/calcs-api';
     }
   `,
   styles: 'table { width: 100%; background: transparent; } a { font-weight: 700; }',
+  providers: [KEYSET_PAGINATOR_INTL],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class QueueTable {
   readonly queue = input.required<QueueDto>();
   protected readonly firstPage = QUEUE_PAGE;
-  protected readonly pager = new KeysetPager(QUEUE_PAGE);
+  protected readonly pager = keysetPager(QUEUE_PAGE);
   protected readonly columns = ['number', 'title', 'status', 'verdict', 'authorName', 'since'];
   // Later pages (or another page size) are read on their own; the overview's copy is page one.
   private readonly isFirstPage = computed(() => this.pager.pageIndex() === 0 && this.pager.size() === QUEUE_PAGE);

@@ -29,7 +29,7 @@ import { ProjectsApi } from '../../projects/projects-api';
 import { StateBadge } from '../../../ui/state-badge';
 import { VerdictBadge } from '../../../ui/verdict-badge';
 import { CalcsApi, type CalcListParams } from '../calcs-api';
-import { KeysetPager } from '../../../ui/keyset-pager';
+import { KEYSET_PAGINATOR_INTL, keysetPager } from '../../../ui/keyset-paginator-intl';
 import { NewCalcDialog } from '../new-calc/new-calc-dialog';
 
 @Component({
@@ -53,6 +53,7 @@ import { NewCalcDialog } from '../new-calc/new-calc-dialog';
   ],
   templateUrl: './project-calcs.html',
   styleUrl: './project-calcs.scss',
+  providers: [KEYSET_PAGINATOR_INTL],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export default class ProjectCalcs {
@@ -68,7 +69,7 @@ export default class ProjectCalcs {
     sort: 'updatedAt',
     dir: 'desc',
   });
-  protected readonly pager = new KeysetPager(25);
+  protected readonly pager = keysetPager(25);
   protected readonly calcs = inject(CalcsApi).list(
     computed(() => ({ ...this.params(), projectId: this.id(), size: this.pager.size(), after: this.pager.after() })),
   );

@@ -6,7 +6,7 @@ import { Calc, Project, Signature, type Revision } from '../db/models';
 import { AppError } from '../errors/app-error';
 import type { Actor } from '../audit/audit.service';
 import { timed } from '../http/server-timing';
-import { editorIdsOf, loadRevision, loadRevisionForChange } from '../calcs/calc-access';
+import { editorIdsOf, loadRevision } from '../calcs/calc-access';
 import { readRevision } from '../calcs/revision-read';
 import { assertMaySign, checkSigningPassword } from './signing-checks';
 import { SIGNATURES } from '../../shared/workflow/signatures';
@@ -42,10 +42,14 @@ export class WorkflowService {
     // A retried request (same key) skips this: the revision has already moved on by its own signature.
     // Server-Timing names the phases of a signature: checks, password, write (integrity, content, advance, facts,
     // mail, the audit chain), then the read of the revision.
+    // The revision is read before the key is looked for: a twin request (same key) that commits in between has then
+    // left its signature for the look-up to find; in the other order a retry could miss the key, then read the revision
+    // its twin had moved on, and be refused as a signature out of turn (a 409 once in a fresh-clone test run).
     await timed('checks', async () => {
+      const revision = await loadRevision(revisionId);
       const retried = await Signature.findOne({ where: { idempotencyKey: dto.idempotencyKey } });
       if (retried) return;
-      const revision = await loadRevisionForChange(revisionId);
+      await assertProjectOpen(revision.calcId);
       await assertMaySign(dto.meaning, signer, revision);
     });
     await timed('password', () => checkSigningPassword(this.sequelize, signer, revisionId, dto));

@@ -134,7 +134,7 @@ export async function searchCalcs(db: Sequelize, r: SearchRequest): Promise<Sear
       break;
     }
     after = last;
-    chunk *= 4;
+    chunk = nextChunk(chunk, matched, examined, r.size + 1 - found.length);
   }
   const full = found.length > r.size;
   const shown = found.slice(0, r.size);
@@ -143,6 +143,17 @@ export async function searchCalcs(db: Sequelize, r: SearchRequest): Promise<Sear
   const next = full ? shown[shown.length - 1].key : stoppedEarly ? after : null;
   const counted = r.after ? null : countOf(matched, exhausted);
   return { rows, next, stoppedEarly, counted };
+}
+
+/**
+ * The next chunk's size: the candidates the matches still wanted need at the rate seen so far, a quarter more for
+ * luck, growing at most fourfold (fourfold while nothing has matched). Growing fourfold whatever the rate read 816
+ * candidates where a two-word search needed about 300 more to fill its page.
+ */
+function nextChunk(previous: number, matched: number, examined: number, wanted: number): number {
+  if (matched === 0) return previous * 4;
+  const needed = Math.ceil(((wanted * examined) / matched) * 1.25);
+  return Math.max(SEARCH_LIMITS.firstChunk, Math.min(previous * 4, needed));
 }
 
 async function rowsOf(db: Sequelize, shown: Candidate[]): Promise<CalcRow[]> {

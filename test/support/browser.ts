@@ -95,15 +95,19 @@ export async function signInThroughPage(context: BrowserContext, page: Page, use
 }
 
 /**
- * Waits until the page is finished: nothing loading, no editor panel or plot still to be built, and its web fonts
- * in (until then text is set in a wider fallback font). Layout and axe checks then read the page a person would
- * read, not one moment of its loading.
+ * Waits until the page is finished: nothing loading, no editor panel or plot still to be built, its web fonts in
+ * (until then text is set in a wider fallback font), and no opening animation still running (a dialog fading in read
+ * as grey text on grey to axe's contrast check once; endless ones, such as a spinner, are not waited for). Layout and
+ * axe checks then read the page a person would read, not one moment of its loading.
  */
 export async function pageSettled(page: Page): Promise<void> {
   await page.waitForFunction(
     () =>
       document.fonts.status === 'loaded' &&
-      !document.querySelector('mat-progress-bar, tt-panel-placeholder, .plots-wait'),
+      !document.querySelector('mat-progress-bar, tt-panel-placeholder, .plots-wait') &&
+      document
+        .getAnimations()
+        .every((a) => a.playState !== 'running' || a.effect?.getComputedTiming().iterations === Infinity),
   );
 }
 

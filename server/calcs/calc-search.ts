@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import { TOTAL_CAP, keysetCondition, orderBy } from '../http/keyset';
+import { TOTAL_CAP, cappedCountSql, cappedTotal, keysetCondition, orderBy } from '../http/keyset';
 import {
   CALC_ROW_COLUMNS,
   CALC_ROW_JOINS,
@@ -181,8 +181,7 @@ async function exactPage(db: Sequelize, d: Driver, r: SearchRequest): Promise<Se
   const cap = SEARCH_LIMITS.countCap;
   const count = r.after
     ? ''
-    : `, (SELECT COUNT(*) FROM (SELECT 1 FROM ${d.from} WHERE ${d.where.join(' AND ')} LIMIT ${cap + 1}) x)
-      AS listed_total`;
+    : `, ${cappedCountSql(`FROM ${d.from} WHERE ${d.where.join(' AND ')}`, cap)} AS listed_total`;
   const rows = await select<CalcRow & { listed_total?: number }>(
     db,
     `SELECT ${CALC_ROW_COLUMNS}${count}
@@ -194,8 +193,7 @@ async function exactPage(db: Sequelize, d: Driver, r: SearchRequest): Promise<Se
   );
   const shown = rows.slice(0, r.size);
   const next = rows.length > r.size ? keyOf(shown[shown.length - 1], r.sort) : null;
-  const n = Number(rows[0]?.listed_total ?? 0);
-  const counted = r.after ? null : { total: Math.min(n, cap), totalIsAtLeast: n > cap };
+  const counted = r.after ? null : cappedTotal(Number(rows[0]?.listed_total ?? 0), cap);
   return { rows: shown, next, stoppedEarly: false, counted };
 }
 

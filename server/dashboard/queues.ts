@@ -13,7 +13,14 @@ import type { RevisionState } from '../../shared/schemas/revision.schema';
 import { QUEUES, WORKFLOW } from '../../shared/workflow/revision-states';
 import type { Relation } from '../../shared/workflow/relations';
 import { Calc } from '../db/models';
-import { TOTAL_CAP, decodeCursor, encodeCursor, keysetCondition, type KeyColumn } from '../http/keyset';
+import {
+  cappedCountSql,
+  cappedTotal,
+  decodeCursor,
+  encodeCursor,
+  keysetCondition,
+  type KeyColumn,
+} from '../http/keyset';
 import { blindRevisionIds } from '../independent/blind-lists';
 import { BLIND_STATES } from '../independent/blind';
 import type { AppAbility } from '../../shared/authz/app-ability';
@@ -127,10 +134,7 @@ async function queueRows(
     ? keysetCondition(KEY, decodeCursor(query.after, KEY), 'asc')
     : { sql: 'TRUE', replacements: [] };
   const facts = keys.map((key) => needsFacts(key, mayCheck));
-  const count = (f: Filter) =>
-    query.after
-      ? 'NULL AS n'
-      : `(SELECT COUNT(*) FROM (SELECT 1 FROM calcs c WHERE ${f.sql} LIMIT ${TOTAL_CAP + 1}) x) AS n`;
+  const count = (f: Filter) => (query.after ? 'NULL AS n' : `${cappedCountSql(`FROM calcs c WHERE ${f.sql}`)} AS n`);
   const pages = filters.map(
     (f, i) => `(SELECT ${i} AS q, ${COLUMNS}, ${facts[i] ? BLIND_FACTS : NO_FACTS}, ${count(f)} FROM calcs c
       WHERE ${f.sql} AND ${keyset.sql} ORDER BY c.latest_since ASC, c.id ASC LIMIT ${query.size + 1})`,
@@ -147,11 +151,7 @@ async function queueRows(
   );
   return keys.map((_, i) => {
     const own = rows.filter((r) => Number(r.q) === i);
-    const n = query.after ? null : Number(own[0]?.n ?? 0);
-    return {
-      rows: own,
-      counted: n === null ? null : { total: Math.min(n, TOTAL_CAP), totalIsAtLeast: n > TOTAL_CAP },
-    };
+    return { rows: own, counted: query.after ? null : cappedTotal(Number(own[0]?.n ?? 0)) };
   });
 }
 

@@ -77,6 +77,14 @@ export const orderBy = (columns: KeyColumn[], dir: 'asc' | 'desc') =>
  */
 export const TOTAL_CAP = 1_000;
 
+/** A count of `FROM … WHERE …` stopping one past `cap`, as a scalar subquery: a bounded walk, however broad. */
+export const cappedCountSql = (fromWhere: string, cap = TOTAL_CAP) =>
+  `(SELECT COUNT(*) FROM (SELECT 1 ${fromWhere} LIMIT ${cap + 1}) counted)`;
+
+/** What a count that stopped one past `cap` says: the number, or the cap and "at least" past it. */
+export const cappedTotal = (n: number, cap = TOTAL_CAP): { total: number; totalIsAtLeast: boolean } =>
+  n > cap ? { total: cap, totalIsAtLeast: true } : { total: n, totalIsAtLeast: false };
+
 /**
  * Counts the rows of a filter, but stops at TOTAL_CAP + 1 so that a broad filter over a million
  * rows costs a bounded index walk; past the cap the answer is "at least 1,000".
@@ -87,10 +95,9 @@ export async function cappedCount(
   replacements: unknown[],
   cap = TOTAL_CAP,
 ): Promise<{ total: number; totalIsAtLeast: boolean }> {
-  const [row] = await sequelize.query<{ n: number }>(
-    `SELECT COUNT(*) AS n FROM (SELECT 1 ${fromWhere} LIMIT ${cap + 1}) counted`,
-    { replacements, type: QueryTypes.SELECT },
-  );
-  const n = Number(row.n);
-  return n > cap ? { total: cap, totalIsAtLeast: true } : { total: n, totalIsAtLeast: false };
+  const [row] = await sequelize.query<{ n: number }>(`SELECT ${cappedCountSql(fromWhere, cap)} AS n`, {
+    replacements,
+    type: QueryTypes.SELECT,
+  });
+  return cappedTotal(Number(row.n), cap);
 }

@@ -25,6 +25,9 @@ const swc = [
 const escaped = (text) => text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 const sharedTs = `^${escaped(__dirname)}/shared/.+\\.ts$`;
 
+// Every project runs on jest's runtime with V8's compiled code kept per worker between spec files (see the file).
+const runtime = '<rootDir>/test/support/code-cache-runtime.cjs';
+
 // SPEC_CPU_LOG=<file> logs each spec file's CPU time (test/support/cpu-log.ts), a measuring aid.
 const cpuLog = process.env.SPEC_CPU_LOG ? ['<rootDir>/test/support/cpu-log.ts'] : [];
 
@@ -41,6 +44,7 @@ module.exports = {
     {
       displayName: 'unit',
       testEnvironment: 'node',
+      runtime,
       testMatch: ['<rootDir>/test/shared/**/*.spec.ts', '<rootDir>/test/scripts/**/*.spec.ts'],
       transform: { '^.+\\.ts$': swc },
       setupFilesAfterEnv: cpuLog,
@@ -48,6 +52,7 @@ module.exports = {
     {
       displayName: 'api',
       testEnvironment: 'node',
+      runtime,
       testMatch: ['<rootDir>/test/server/**/*.spec.ts'],
       transform: { '^.+\\.ts$': swc },
       globalSetup: '<rootDir>/test/support/api-global-setup.ts',
@@ -56,6 +61,7 @@ module.exports = {
     {
       displayName: 'client',
       preset: 'jest-preset-angular',
+      runtime,
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
       setupFilesAfterEnv: ['<rootDir>/test/support/client-setup.ts', ...cpuLog],
       testMatch: ['<rootDir>/src/**/*.spec.ts'],
@@ -73,6 +79,7 @@ module.exports = {
     {
       displayName: 'e2e',
       testEnvironment: 'node',
+      runtime,
       testMatch: ['<rootDir>/test/e2e/**/*.spec.ts'],
       transform: { '^.+\\.ts$': swc },
       globalSetup: '<rootDir>/test/support/api-global-setup.ts',

@@ -65,10 +65,12 @@ module.exports = {
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
       setupFilesAfterEnv: ['<rootDir>/test/support/client-setup.ts', ...cpuLog],
       testMatch: ['<rootDir>/src/**/*.spec.ts'],
-      // The first pattern that matches a file picks its transform. jest-preset-angular compiles components the way
-      // Angular's JIT needs (templates inlined, signal inputs declared) and hands .mjs bundles to esbuild.
+      // The first pattern that matches a file picks its transform. The ES-module bundles in node_modules (Angular,
+      // Material, CDK) go through Angular's linker, then esbuild (see the file); jest-preset-angular compiles our
+      // components the way Angular's JIT needs (templates inlined, signal inputs declared).
       transform: {
         [sharedTs]: swc,
+        '/node_modules/.+\\.mjs$': '<rootDir>/test/support/angular-link-transform.cjs',
         '^.+\\.(ts|js|mjs|html|svg)$': [
           'jest-preset-angular',
           { tsconfig: '<rootDir>/tsconfig.spec.json', stringifyContentPathRegex: '\\.(html|svg)$' },

@@ -19,7 +19,7 @@ async function open() {
 }
 
 describe("a project's calcs page", () => {
-  it('when the project is not found, then the page says so and shows no count or pages of calcs', async () => {
+  it('when the project is not found, then the page says so and shows no search, table, count or pages', async () => {
     const d = await open();
     (await d.request(isProject)).flush(...refusal(404, 'Project not found'));
     // The calc list of an unknown project is simply empty; only the project's own read fails.
@@ -28,6 +28,7 @@ describe("a project's calcs page", () => {
 
     expect(d.text()).toContain('was not found');
     expect(d.text()).not.toMatch(/\b0 calcs\b/);
+    expect(d.element.querySelector('table, input')).toBeNull();
     expect(await d.loader.getAllHarnesses(MatPaginatorHarness)).toHaveLength(0);
     d.http.verify();
   });

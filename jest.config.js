@@ -25,6 +25,9 @@ const swc = [
 const escaped = (text) => text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 const sharedTs = `^${escaped(__dirname)}/shared/.+\\.ts$`;
 
+// jest-preset-angular's settings, for our components and (after Angular's linker) the bundles in node_modules.
+const ngTransform = { tsconfig: '<rootDir>/tsconfig.spec.json', stringifyContentPathRegex: '\\.(html|svg)$' };
+
 // Every project runs on jest's runtime with V8's compiled code kept per worker between spec files (see the file).
 const runtime = '<rootDir>/test/support/code-cache-runtime.cjs';
 
@@ -65,16 +68,13 @@ module.exports = {
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
       setupFilesAfterEnv: ['<rootDir>/test/support/client-setup.ts', ...cpuLog],
       testMatch: ['<rootDir>/src/**/*.spec.ts'],
-      // The first pattern that matches a file picks its transform. The ES-module bundles in node_modules (Angular,
-      // Material, CDK) go through Angular's linker, then esbuild (see the file); jest-preset-angular compiles our
-      // components the way Angular's JIT needs (templates inlined, signal inputs declared).
+      // The first pattern that matches a file picks its transform. jest-preset-angular compiles our components the way
+      // Angular's JIT needs (templates inlined, signal inputs declared) and hands .mjs bundles to esbuild; the bundles
+      // in node_modules (Angular, Material, CDK) go through Angular's linker first (see the file).
       transform: {
         [sharedTs]: swc,
-        '/node_modules/.+\\.mjs$': '<rootDir>/test/support/angular-link-transform.cjs',
-        '^.+\\.(ts|js|mjs|html|svg)$': [
-          'jest-preset-angular',
-          { tsconfig: '<rootDir>/tsconfig.spec.json', stringifyContentPathRegex: '\\.(html|svg)$' },
-        ],
+        '/node_modules/.+\\.mjs$': ['<rootDir>/test/support/angular-link-transform.cjs', ngTransform],
+        '^.+\\.(ts|js|mjs|html|svg)$': ['jest-preset-angular', ngTransform],
       },
       transformIgnorePatterns: ['node_modules/(?!.*\\.mjs$)'],
     },

@@ -45,11 +45,24 @@ function isPlainText(bytes: Buffer): boolean {
   }
 }
 
+/**
+ * A PDF ends with `%%EOF` (ISO 32000-1, 7.5.5); readers look for it in the last 1,024 bytes, since a little may follow
+ * it. Without it the file was cut short (an interrupted download or copy): kept as evidence, it would not open.
+ */
+function endsLikePdf(bytes: Buffer): boolean {
+  return bytes.subarray(Math.max(0, bytes.length - 1024)).includes('%%EOF', 0, 'latin1');
+}
+
 /** The media type of an upload, from its content; throws a 400 naming the field and the reason. */
 export async function detectMediaType(bytes: Buffer): Promise<string> {
   if (bytes.length === 0) throw AppError.validation({ file: ['is empty'] });
   if (isDwg(bytes)) return 'image/vnd.dwg';
   const found = await fromBuffer(bytes);
+  if (found?.mime === 'application/pdf' && !endsLikePdf(bytes)) {
+    throw AppError.validation({
+      file: ['is a PDF that stops short of its end-of-file marker (%%EOF): upload the whole file again'],
+    });
+  }
   if (found && ACCEPTED[found.mime]) return found.mime;
   if (found) {
     const what = NAMED_DANGERS[found.mime] ?? `a .${found.ext} file`;

@@ -70,6 +70,22 @@ describe('uploading and downloading', () => {
     },
   );
 
+  it('when a PDF is cut short before its end-of-file marker, then it is refused as such and nothing is stored', async () => {
+    const { author, revisionId } = await calcTeam(ctx.app);
+    const whole = pdfBytes(4_000);
+    const cut = whole.subarray(0, 3_000); // an interrupted copy: the header is there, the trailer and %%EOF are not
+
+    const res = await upload(author.session, revisionId, cut, { kind: 'drawing' }, 'DRG-7 sheet 1.pdf');
+
+    expect([res.status, Object.keys(res.body.fieldErrors)]).toEqual([400, ['file']]);
+    expect(res.body.fieldErrors.file[0]).toMatch(/stops short of its end-of-file marker/);
+    expect(await Attachment.count({ where: { revisionId } })).toBe(0);
+    // The whole file is taken.
+    expect((await upload(author.session, revisionId, whole, { kind: 'drawing' }, 'DRG-7 sheet 1.pdf')).status).toBe(
+      201,
+    );
+  });
+
   it.each([
     [
       'a text file named .pdf, as a drawing',

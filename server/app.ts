@@ -3,7 +3,7 @@ import fs from 'node:fs';
 import express, { type Express } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
-import { serverTiming } from './http/server-timing';
+import { releaseServerTiming, serverTiming } from './http/server-timing';
 import { securityHeaders } from './http/security-headers';
 import { jsonBody } from './http/json-body';
 import { sessionMiddleware, absoluteSessionLimit } from './auth/session';
@@ -35,7 +35,7 @@ export function createApp({ sequelize, config }: AppDeps): Express {
 
   app.use(securityHeaders(config));
   app.get('/api/health', healthCheck(sequelize));
-  app.use('/api', serverTiming());
+  app.use('/api', serverTiming(config.SERVER_TIMING_PHASES));
   app.use('/api', jsonBody('1mb'));
   const sessions = sessionMiddleware(sequelize, config);
   app.use('/api', sessions.middleware, absoluteSessionLimit(config));
@@ -53,6 +53,7 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   closers.set(app, async () => {
     sessions.close();
     await services.close();
+    releaseServerTiming();
   });
   return app;
 }

@@ -1,4 +1,3 @@
-import { AsyncLocalStorage } from 'node:async_hooks';
 import type { Request, RequestHandler } from 'express';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { SessionUser } from '../../shared/schemas/auth.schema';
@@ -8,8 +7,14 @@ import type { Role } from '../../shared/authz/roles';
  * Every signed-in request used to read its session row, then its person and their roles: two round trips before
  * any work. `readSession` reads both in one statement, and the person it found waits on the request for
  * passport's deserializer (`userReadWithSession`), so roles and deactivation still take effect on the next request.
+ *
+ * The store's get is not handed the request. express-session's middleware calls it synchronously, before anything
+ * is awaited, so the request is left in `reading` for the length of that call and the get takes it on its first
+ * line. A get outside that call (a session reload) finds none, and passport reads the person itself, as it would
+ * anyway. (An AsyncLocalStorage would carry the request too, but on Node 20 an enabled one adds a step to every
+ * promise in the process: about a tenth of the API's CPU.)
  */
-const requests = new AsyncLocalStorage<Request>();
+let reading: Request | undefined;
 // The person read with this request's own session row (false: the row names nobody, or someone inactive).
 const readWithSession = new WeakMap<Request, { id: number | null; user: SessionUser | false }>();
 
@@ -26,13 +31,28 @@ interface Row {
 
 /** Runs express-session's middleware with the request at hand, so the store's get can leave the person on it. */
 export function withSessionRequest(middleware: RequestHandler): RequestHandler {
-  return (req, res, next) => requests.run(req, () => middleware(req, res, next));
+  return (req, res, next) => {
+    reading = req;
+    try {
+      middleware(req, res, next);
+    } finally {
+      reading = undefined;
+    }
+  };
+}
+
+/** The request whose session is being read, taken once: called on the store's get's first line. */
+export function takeSessionRequest(): Request | undefined {
+  const req = reading;
+  reading = undefined;
+  return req;
 }
 
 /** The session row still in date, with its person and their roles, in one statement. */
 export async function readSession(
   sequelize: Sequelize,
   sid: string,
+  req: Request | undefined,
 ): Promise<{ data: string | null; expires: Date | null } | null> {
   const [row] = await sequelize.query<Row>(
     `SELECT s.data, s.expires, u.id, u.username, u.display_name, u.email, u.active,
@@ -40,7 +60,6 @@ export async function readSession(
      FROM sessions s LEFT JOIN users u ON u.id = s.user_id WHERE s.sid = ? AND s.expires > ?`,
     { replacements: [sid, new Date()], type: QueryTypes.SELECT },
   );
-  const req = requests.getStore();
   if (req && row) {
     const user: SessionUser | false =
       row.id != null && row.active

@@ -4,7 +4,7 @@ import { LRUCache } from 'lru-cache';
 import type { RequestHandler } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { Config } from '../config';
-import { readSession, withSessionRequest } from './session-user';
+import { readSession, takeSessionRequest, withSessionRequest } from './session-user';
 
 export const SESSION_COOKIE = 'tt.sid';
 
@@ -40,7 +40,7 @@ export function sessionMiddleware(
   // statement reads the person the session names (session-user.ts).
   const storedExpiry = new LRUCache<string, number>({ max: 10_000 });
   store.get = (sid, callback) => {
-    readSession(sequelize, sid)
+    readSession(sequelize, sid, takeSessionRequest())
       .then((row) => {
         if (row?.expires) storedExpiry.set(sid, row.expires.getTime());
         return row?.data ? JSON.parse(row.data) : null;

@@ -7,9 +7,10 @@ const phases = new AsyncLocalStorage<Map<string, number>>();
 /**
  * A `Server-Timing` header on every API answer: `app` is the whole answer, then each phase that `timed` measured
  * (e.g. `read`, `hash`): the browser's network panel then shows how much of a slow screen is the server, and which
- * part of it, and how much the page itself, which is where speed work starts.
+ * part of it, and how much the page itself, which is where speed work starts. The phases only with `withPhases`
+ * (config SERVER_TIMING_PHASES): their store switches on Node's async context tracking for the whole process.
  */
-export function serverTiming(): RequestHandler {
+export function serverTiming(withPhases: boolean): RequestHandler {
   return (_req, res, next) => {
     const start = process.hrtime.bigint();
     const measured = new Map<string, number>();
@@ -22,8 +23,14 @@ export function serverTiming(): RequestHandler {
       }
       return writeHead(...args);
     }) as typeof res.writeHead;
-    phases.run(measured, next);
+    if (withPhases) phases.run(measured, next);
+    else next();
   };
+}
+
+/** Switches the phases' store off (Node keeps its tracking on for every promise until then); closeApp calls it. */
+export function releaseServerTiming(): void {
+  phases.disable();
 }
 
 /** Runs `work` and adds its time to the current answer's Server-Timing under `name` (a token: letters, digits, -). */

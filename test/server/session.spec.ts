@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { Session } from '../../server/db/models';
 import { sessionCookieOf, signedInAs, startTestApp } from '../support/api-harness';
+import { capturedSelects } from '../support/explain-harness';
 
 // An idle limit of 7 minutes: its deadlines are easy to tell from the default 30, and a slow sign-in on a busy
 // machine stays inside it (1.2 s used to be chosen here, and a sign-in slower than that lost its own CSRF token).
@@ -123,5 +124,25 @@ describe('absolute limit', () => {
     const { user, session } = await signedInAs(short.app, ['author']);
     await backdateStart(user.id, 0.6 * HOUR);
     expect((await session.get('/api/projects')).status).toBe(401);
+  });
+});
+
+describe('who is asking', () => {
+  it('when a signed-in request arrives, then its session row and its person are read in one statement', async () => {
+    const { user, session } = await signedInAs(standard.app, ['author', 'checker'], 'asking');
+    let answer: request.Response | undefined;
+    const selects = await capturedSelects(standard.sequelize, async () => {
+      answer = await session.get('/api/session');
+    });
+    expect(answer!.body.user).toMatchObject({ id: user.id, username: user.username, roles: ['author', 'checker'] });
+    // The session row joined to its person and roles; passport does not read the person again.
+    expect(selects.filter((sql) => /\busers\b|\buser_roles\b/.test(sql))).toHaveLength(1);
+  });
+
+  it('when several people ask at once, then every answer names the person whose session asked', async () => {
+    const people = await Promise.all([0, 1, 2, 3].map((i) => signedInAs(standard.app, ['author'], `asking-${i}`)));
+    const asked = Array.from({ length: 40 }, (_, i) => people[i % people.length]);
+    const answers = await Promise.all(asked.map(({ session }) => session.get('/api/session')));
+    expect(answers.map((res) => res.body.user?.username)).toEqual(asked.map(({ user }) => user.username));
   });
 });

@@ -23,12 +23,7 @@ export async function signInPage(page: Page, username: string): Promise<void> {
 /** Starts the server and Chromium, runs `work` with them, stops both after; a failure is printed and exits 1. */
 export function runInBrowser(work: (browser: Browser, url: string) => Promise<void>): void {
   const run = async () => {
-    // The screens' traces and the signatures print the server's phases, which are off by default (config.ts).
-    const { url, child } = await startServer({
-      LOG_LEVEL: 'silent',
-      MAIL_SENDER: 'false',
-      SERVER_TIMING_PHASES: 'true',
-    });
+    const { url, child } = await startServer({ LOG_LEVEL: 'silent', MAIL_SENDER: 'false' });
     const browser = await launchChromium();
     try {
       await work(browser, url);

@@ -59,8 +59,6 @@ async function main(): Promise<void> {
     LOGIN_RATE_LIMIT: '10000',
     NODE_ENV: 'production',
     TLS: 'false',
-    // Each signal's time is a Server-Timing phase, printed below; phases are off by default (server/config.ts).
-    SERVER_TIMING_PHASES: 'true',
   });
   try {
     const session = await signIn(server.url, auditor.username, BENCH_PASSWORD);

@@ -114,10 +114,7 @@ function printPhases(phases: Map<string, number[]>): void {
     const mean = ms.reduce((a, b) => a + b, 0) / ms.length;
     return `${name} ${mean.toFixed(1)}/${f.p95.toFixed(1)}`;
   });
-  // The server gives its phases only with SERVER_TIMING_PHASES=true (server/config.ts); the figures above are
-  // measured without them, as a deployment runs by default.
-  if (phases.size <= 1) console.log('  phases: not measured (SERVER_TIMING_PHASES=true npm run bench shows them)');
-  else console.log(`  phases, mean/p95 ms: ${cells.join(' · ')}`);
+  console.log(`  phases, mean/p95 ms: ${cells.join(' · ')}`);
 }
 
 /**

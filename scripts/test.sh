@@ -43,6 +43,9 @@ cat "$dir/ng-build.log" >&2 # its warnings and errors, after the checks' output 
 log "packages, database, checks and client build ready after ${SECONDS} s"
 
 export NODE_ENV=test DB_ACQUIRE_MS=${DB_ACQUIRE_MS:-300000}
+# Server-Timing phases need Node's async context tracking, which costs the API specs (test clients in the server's
+# own process) about 25 of their 200 CPU-seconds; server-timing.spec.ts switches them on for itself.
+export SERVER_TIMING_PHASES=${SERVER_TIMING_PHASES:-false}
 results="$dir/jest-results.json"
 # jest's default on two cores is one worker, but API and browser specs mostly wait on MariaDB and Chromium.
 # Measured here (6 API spec files, 89 tests, same busy machine, one run after the other): 1 worker 376 s,

@@ -48,9 +48,10 @@ const envSchema = z.object({
   // The admin screen shows mail bodies; a deployment that must not expose them turns it off.
   SENT_MAIL_SCREEN: z.stringbool().default(true),
   // Every answer's Server-Timing header gives its whole time; this adds each phase (read, lock, engine, commit …).
-  // Off by default: finding a request's phases deep in its work needs Node's async context tracking, which on Node 20
-  // costs a step on every promise the process makes (about a tenth of the API's CPU, measured by npm test).
-  SERVER_TIMING_PHASES: z.stringbool().default(false),
+  // Finding a request's phases deep in its work needs Node's async context tracking, a step on every promise the
+  // process makes. Per answer the bench shows no clear cost; npm test, where test clients share the server's process,
+  // switches it off (its API specs: 196–207 CPU-seconds with it, 173 without; DEVELOPERS.md, "Tests").
+  SERVER_TIMING_PHASES: z.stringbool().default(true),
   // Attachments live in object storage through the S3 API; the defaults match scripts/fake-services.ts.
   S3_ENDPOINT: z.url().default('http://127.0.0.1:4569'),
   S3_REGION: z.string().default('us-east-1'),

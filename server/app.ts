@@ -3,7 +3,7 @@ import fs from 'node:fs';
 import express, { type Express } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
-import { releaseServerTiming, serverTiming } from './http/server-timing';
+import { serverTiming } from './http/server-timing';
 import { securityHeaders } from './http/security-headers';
 import { jsonBody } from './http/json-body';
 import { sessionMiddleware, absoluteSessionLimit } from './auth/session';
@@ -53,7 +53,6 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   closers.set(app, async () => {
     sessions.close();
     await services.close();
-    releaseServerTiming();
   });
   return app;
 }

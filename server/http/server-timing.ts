@@ -28,11 +28,6 @@ export function serverTiming(withPhases: boolean): RequestHandler {
   };
 }
 
-/** Switches the phases' store off (Node keeps its tracking on for every promise until then); closeApp calls it. */
-export function releaseServerTiming(): void {
-  phases.disable();
-}
-
 /** Runs `work` and adds its time to the current answer's Server-Timing under `name` (a token: letters, digits, -). */
 export async function timed<T>(name: string, work: () => Promise<T> | T): Promise<T> {
   const measured = phases.getStore();

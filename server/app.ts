@@ -4,7 +4,7 @@ import express, { type Express } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
 import { serverTiming } from './http/server-timing';
-import { securityHeaders } from './http/security-headers';
+import { apiNoStore, securityHeaders } from './http/security-headers';
 import { jsonBody } from './http/json-body';
 import { sessionMiddleware, absoluteSessionLimit } from './auth/session';
 import { createPassport } from './auth/passport';
@@ -31,11 +31,12 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   const app = express();
   const passport = createPassport();
   app.disable('x-powered-by');
+  app.set('etag', false);
   app.set('trust proxy', config.TRUST_PROXY);
 
   app.use(securityHeaders(config));
   app.get('/api/health', healthCheck(sequelize));
-  app.use('/api', serverTiming(config.SERVER_TIMING_PHASES));
+  app.use('/api', apiNoStore, serverTiming(config.SERVER_TIMING_PHASES));
   app.use('/api', jsonBody('1mb'));
   const sessions = sessionMiddleware(sequelize, config);
   app.use('/api', sessions.middleware, absoluteSessionLimit(config));

@@ -29,3 +29,15 @@ export function securityHeaders(config: Config): RequestHandler {
     crossOriginEmbedderPolicy: false,
   });
 }
+
+/**
+ * API answers hold calc records and people's names, so no browser cache, proxy or shared computer keeps them
+ * (`private, no-store`, as the report, attachment and evidence downloads already say). With nothing kept there is
+ * nothing to revalidate, so the app computes no ETag either (createApp): Express's default hashes every answer's
+ * body for one. Files of the client build keep their own caching (serveClient) and are asked about by date
+ * (Last-Modified) instead.
+ */
+export const apiNoStore: RequestHandler = (_req, res, next) => {
+  res.setHeader('Cache-Control', 'private, no-store');
+  next();
+};

@@ -28,4 +28,15 @@ describe('client files and caching', () => {
     expect(page.status).toBe(200);
     expect(page.headers['cache-control']).toBe('public, max-age=0');
   });
+
+  it('has every API answer kept by no browser or proxy, and computes no ETag for it', async () => {
+    for (const res of [await request(app).get('/api/session'), await request(app).get('/api/no-such-thing')]) {
+      expect(res.headers['cache-control']).toBe('private, no-store');
+      expect(res.headers.etag).toBeUndefined();
+    }
+    // The page still tells a browser when it last changed, so asking again costs a 304 and no body.
+    const page = await request(app).get('/calcs/1');
+    const again = await request(app).get('/calcs/1').set('If-Modified-Since', page.headers['last-modified']);
+    expect(again.status).toBe(304);
+  });
 });

@@ -9,6 +9,16 @@ import {
 
 export type RuleSetStatus = 'draft' | 'effective' | 'retired';
 
+/**
+ * A DATE column as the app speaks it, `YYYY-MM-DD`: the driver's own decoding (server/db/index.ts) gives a Date at
+ * local midnight, built from the stored year, month and day, which are read back here.
+ */
+export function isoDateOf(value: unknown): string | null {
+  if (!(value instanceof Date)) return (value as string | null) ?? null;
+  const two = (n: number) => String(n).padStart(2, '0');
+  return `${value.getFullYear()}-${two(value.getMonth() + 1)}-${two(value.getDate())}`;
+}
+
 /** One version of a design standard. Effective and retired versions never change again. */
 export class RuleSetRecord extends Model<InferAttributes<RuleSetRecord>, InferCreationAttributes<RuleSetRecord>> {
   declare id: CreationOptional<number>;
@@ -34,7 +44,13 @@ export class RuleSetRecord extends Model<InferAttributes<RuleSetRecord>, InferCr
         version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         title: { type: DataTypes.STRING(200), allowNull: false },
         status: { type: DataTypes.ENUM('draft', 'effective', 'retired'), allowNull: false, defaultValue: 'draft' },
-        effectiveDate: { type: DataTypes.DATEONLY, allowNull: true },
+        effectiveDate: {
+          type: DataTypes.DATEONLY,
+          allowNull: true,
+          get() {
+            return isoDateOf(this.getDataValue('effectiveDate'));
+          },
+        },
         document: { type: DataTypes.TEXT('long'), allowNull: false },
         contentHash: { type: DataTypes.CHAR(64), allowNull: false },
         createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },

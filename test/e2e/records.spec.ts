@@ -1,4 +1,3 @@
-import type { Response } from 'playwright-core';
 import { accessibilityViolations, pageSettled } from '../support/browser';
 import { browserSuite } from '../support/browser-suite';
 import { createTestUser } from '../support/api-harness';
@@ -8,6 +7,10 @@ import { pdfBytes } from '../support/upload-harness';
 // The record pages in Chromium: attachments on the calc page, the verify page, the account's mail
 // choices and the admins' sent mail. Attachments go to an s3rver started here.
 const suite = browserSuite({ s3: true });
+
+interface SentPage {
+  items: { subject: string }[];
+}
 
 describe('records in the browser', () => {
   it('when the author attaches a drawing on the calc page, then it is listed with its hash and the report link is there', async () => {
@@ -83,11 +86,20 @@ describe('records in the browser', () => {
     const page = await suite.session.context.newPage();
     await suite.signIn(page, admin.username);
     const handOver = 'Ready for check: ';
-    const listed = () => page.waitForResponse((r) => new URL(r.url()).pathname === '/api/mail/sent');
-    const holdsOne = async (read: Promise<Response>) =>
-      ((await (await read).json()) as { items: { subject: string }[] }).items.some((m) =>
-        m.subject.startsWith(handOver),
-      );
+    // Each page the screen receives, read as it passes: API answers are `no-store`, so Chromium keeps no copy that
+    // DevTools could hand over later (a Response's json() failed with "No data found for resource" in a full run).
+    let received: ((page: SentPage) => void) | null = null;
+    await page.route(
+      (url) => url.pathname === '/api/mail/sent',
+      async (route) => {
+        const response = await route.fetch();
+        const body = (await response.json()) as SentPage;
+        await route.fulfill({ response, json: body });
+        received?.(body);
+      },
+    );
+    const listed = () => new Promise<SentPage>((resolve) => (received = resolve));
+    const holdsOne = async (read: Promise<SentPage>) => (await read).items.some((m) => m.subject.startsWith(handOver));
     const first = listed();
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Sent mail' }).click();
     await first;

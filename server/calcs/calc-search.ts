@@ -112,8 +112,6 @@ async function candidates(
  */
 export async function searchCalcs(db: Sequelize, r: SearchRequest): Promise<SearchPage> {
   const driver = await chooseDriver(db, r.words, r.filter, r.sort);
-  if (!driver)
-    return { rows: [], next: null, stoppedEarly: false, counted: r.after ? null : { total: 0, totalIsAtLeast: false } };
   if (driver.isExact) return exactPage(db, driver, r);
   const found: Candidate[] = [];
   let after = r.after;

@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { startTestApp } from '../support/api-harness';
 import { calcTeam, fixtureInput, sign } from '../support/calc-harness';
-import { SEARCH_LIMITS } from '../../server/calcs/calc-search-plan';
+import { SEARCH_LIMITS, chooseDriver } from '../../server/calcs/calc-search-plan';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
@@ -272,6 +272,50 @@ describe('search pages', () => {
       expect(pages[pages.length - 1]).toMatchObject({ next: null, stoppedEarly: false });
     } finally {
       Object.assign(SEARCH_LIMITS, saved);
+    }
+  });
+});
+
+describe('where a search starts', () => {
+  it("when two words are searched, then the walk starts from the rarer word's index, by the index's own estimate", async () => {
+    // Arrange: the first word in twelve calcs, the second in three of them.
+    const t = await calcTeam(app);
+    const [broad, rare] = [uniqueWord(), uniqueWord()];
+    for (let i = 0; i < 12; i++) await addCalc(t, `E-${i}`, i < 3 ? `${broad} ${rare} shaft` : `${broad} shaft`);
+
+    for (const words of [
+      [broad, rare],
+      [rare, broad],
+    ]) {
+      // Act
+      const driver = await chooseDriver(sequelize, words, {}, 'updatedAt');
+      const withProject = await chooseDriver(sequelize, words, { projectId: t.project.id }, 'number');
+
+      // Assert
+      expect(driver.term?.word).toBe(rare);
+      expect(withProject.term?.word).toBe(rare);
+    }
+    // A project with fewer calcs than either word starts from the project's own list.
+    const small = await calcTeam(app);
+    const fromProject = await chooseDriver(
+      sequelize,
+      [broad, broad.slice(0, 4)],
+      { projectId: small.project.id },
+      'title',
+    );
+    expect(fromProject.term).toBeUndefined();
+    expect((await search(t, `q=${rare}%20${broad}&size=50`)).items).toHaveLength(3);
+  });
+
+  it('when one of the words is in no calc, then the answer is empty and counted as none', async () => {
+    const t = await calcTeam(app);
+    const w = uniqueWord();
+    await addCalc(t, 'N-1', `${w} shaft`);
+    for (const q of [`${w} ${uniqueWord()}`, `${uniqueWord()} ${w}`, `shaft ${uniqueWord()}`]) {
+      const page = await search(t, `q=${encodeURIComponent(q)}&size=50`);
+      expect(page).toMatchObject({ items: [], total: 0, totalIsAtLeast: false, next: null, stoppedEarly: false });
+      const inProject = await search(t, `q=${encodeURIComponent(q)}&projectId=${t.project.id}&size=50`);
+      expect(inProject).toMatchObject({ items: [], total: 0, totalIsAtLeast: false, next: null });
     }
   });
 });

@@ -8,9 +8,10 @@ import { RuleSetRecord, isoDateOf } from '../../server/db/models/rule-set-record
 // (server/db/index.ts). Both must read every kind of column the schema uses as the same value; a DATE is the one
 // difference (a Date at local midnight instead of text), which the one DATE attribute's getter mends.
 const config = loadConfig();
-const open = (decoding: 'driver' | 'cast') =>
+const open = (decoding?: 'driver' | 'cast') =>
   new Sequelize(config.DB_NAME, config.DB_USER, config.DB_PASSWORD, sequelizeOptions(config, decoding));
-const driver = open('driver');
+// The decoding this process chooses: the driver's own here, where the clock is UTC; the cast in another zone.
+const driver = open();
 const cast = open('cast');
 initModels(driver);
 const table = `decoding_probe_${process.pid}`;
@@ -35,8 +36,12 @@ afterAll(async () => {
 const rows = (db: Sequelize, sql: string) => db.query<Record<string, unknown>>(sql, { type: QueryTypes.SELECT });
 
 describe('values decoded by the driver itself', () => {
-  it('runs here, where the process clock is UTC (as in the container the app ships in)', () => {
-    expect(processClockIsUtc()).toBe(new Date(Date.UTC(2026, 6, 1)).getTimezoneOffset() === 0);
+  it('is used where the process clock is UTC by name, and not in a zone that is at UTC only today', () => {
+    expect(processClockIsUtc('UTC')).toBe(true);
+    for (const zone of ['Europe/London', 'Atlantic/Reykjavik', 'Africa/Abidjan', 'America/Chicago'])
+      expect(processClockIsUtc(zone)).toBe(false);
+    // Node's ICU gives every alias of UTC (Etc/UTC, GMT, Zulu …) as UTC.
+    expect(new Intl.DateTimeFormat('en', { timeZone: 'Etc/UTC' }).resolvedOptions().timeZone).toBe('UTC');
   });
 
   it('reads every column kind as the per-value cast does, a DATE as the same day', async () => {

@@ -49,6 +49,8 @@ export function startServer(env: Record<string, string>): Promise<{ url: string;
 export interface Session {
   cookie: string;
   csrf: string;
+  /** Sent with every request of a load run besides the cookie (the browser's revision form). */
+  headers?: Record<string, string>;
 }
 
 function cookiesOf(res: Response, previous = ''): string {
@@ -86,7 +88,7 @@ export async function load(
         url,
         connections,
         duration: seconds,
-        headers: { cookie: session.cookie },
+        headers: { cookie: session.cookie, ...session.headers },
         requests: [{ method: 'GET', setupRequest: (req) => ({ ...req, path: paths[i++ % paths.length] }) }],
       },
       (err, res) => (err ? reject(err) : resolve(res)),

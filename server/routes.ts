@@ -21,6 +21,7 @@ import { reportRouter } from './reports/report.router';
 import { ruleSetsRouter } from './rule-sets/rule-sets.router';
 import { mailRouter } from './mail/mail.router';
 import { verifyRouter } from './verify/verify.router';
+import { engineMetadataRouter } from './calcs/engine-metadata.router';
 
 /**
  * One API area: its path, once, and the routers that serve it, tried in order. `public` areas
@@ -62,6 +63,7 @@ export function apiMounts({ sequelize, config, passport, services: s }: MountDep
         independentModelRouter(s.independent),
       ],
     },
+    { path: '/api/engine-metadata', routers: [engineMetadataRouter(sequelize)] },
     { path: '/api/findings', routers: [findingsRouter(s.findings)] },
     { path: '/api/rule-sets', routers: [ruleSetsRouter(s.ruleSets, s.impact)] },
     { path: '/api/mail', routers: [mailRouter(sequelize, s.sentMail)] },

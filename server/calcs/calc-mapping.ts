@@ -11,6 +11,7 @@ import type {
 import { Calc, Finding, Project, Revision, RuleSetRecord, Signature, User } from '../db/models';
 import { REVISION_RULE_SET_ATTRIBUTES } from '../rule-sets/rule-set-cache';
 import { expandChecklist } from './stored-checklist';
+import { StoredJson } from './revision-answer';
 
 /** Associations every revision read needs, loaded in one query. */
 export const REVISION_INCLUDE = [
@@ -86,8 +87,12 @@ export function toFindingDto(f: Finding, names: Map<number, string>): FindingDto
 }
 
 export interface RevisionParts {
-  /** The stored result with its units and formulas put back (server/calcs/stored-result.ts). */
+  /**
+   * The stored result with its units and formulas put back (server/calcs/stored-result.ts), or in the stored form
+   * its text as stored (then the checklist is sent as stored too).
+   */
   result: unknown | null;
+  stored?: boolean;
   signatures: Signature[];
   findings: Finding[];
   names: Map<number, string>;
@@ -103,7 +108,7 @@ export function toRevisionDto(r: Loaded, parts: RevisionParts): RevisionDto {
     lockVersion: r.lockVersion,
     input: JSON.parse(r.input),
     result: parts.result,
-    checklist: expandChecklist(r.checklist),
+    checklist: parts.stored ? r.checklist && new StoredJson(r.checklist) : expandChecklist(r.checklist),
     inputIssues: parts.inputIssues,
     manualItems: JSON.parse(r.manualItems) as Record<string, ManualItemState>,
     contentHash: r.contentHash,

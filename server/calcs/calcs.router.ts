@@ -8,6 +8,7 @@ import { signedInActor } from '../authz/actor';
 import type { CalcsService } from './calcs.service';
 import type { LifecycleService } from './lifecycle.service';
 import { listCalcs } from './calc-list';
+import { formOf, sendRevision } from './revision-answer';
 import { diffRevisions } from './revision-history';
 
 const diffQuerySchema = z.object({
@@ -27,7 +28,7 @@ export function calcsRouter(calcs: CalcsService, lifecycle: LifecycleService): R
     res.json(await calcs.get(req.ability, idParam(req)));
   });
   router.get('/:id/latest-revision', async (req, res) => {
-    res.json(await calcs.latestRevision(req.ability, idParam(req)));
+    sendRevision(res, await calcs.latestRevision(req.ability, idParam(req), formOf(req)));
   });
   router.post('/:id/revisions', validate({ body: newRevisionSchema }), async (req, res) => {
     res

@@ -48,11 +48,11 @@ export class CalcsService {
    * The calc's newest revision, read as `GET /api/revisions/:id` reads it: the calc page asks for it beside the
    * calc instead of after it, so the two reads no longer wait for each other.
    */
-  async latestRevision(ability: AppAbility, calcId: number): Promise<RevisionDto> {
+  async latestRevision(ability: AppAbility, calcId: number, form: 'full' | 'stored' = 'full'): Promise<RevisionDto> {
     ForbiddenError.from(ability).throwUnlessCan('read', 'Calc');
     const latest = await Revision.findOne({ where: { calcId }, order: [['seq', 'DESC']], attributes: ['id'] });
     if (!latest) throw AppError.notFound(`Calc ${calcId}`);
-    return readRevision(ability, latest.id);
+    return readRevision(ability, latest.id, undefined, undefined, form);
   }
 
   async create(ability: AppAbility, actor: Actor & { id: number }, dto: CreateCalcRequest): Promise<CalcDto> {

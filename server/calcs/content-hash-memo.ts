@@ -23,10 +23,10 @@ export function contentKeyOf(parts: readonly (string | number | null | undefined
 }
 
 /** The content hash remembered for `key`, or `compute()`'s, remembered. */
-export function memoisedHash(key: string, compute: () => string): string {
+export async function memoisedHash(key: string, compute: () => Promise<string>): Promise<string> {
   const known = hashes.get(key);
   if (known !== undefined) return known;
-  const hash = compute();
+  const hash = await compute();
   hashes.set(key, hash);
   return hash;
 }

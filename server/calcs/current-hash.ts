@@ -10,7 +10,8 @@ import { lockedModelOf } from '../independent/signed-model';
 export interface HashSources {
   /** Its number, title, part reference and project code (the hash reads no more of them). */
   calc: Calc & { Project: Project };
-  expanded: unknown;
+  /** The expanded result: expanded only when a hash is computed afresh (not remembered), and then once. */
+  expanded: () => Promise<unknown>;
   attachments: Attachment[];
   model: Awaited<ReturnType<typeof lockedModelOf>>;
 }
@@ -22,23 +23,25 @@ async function hashSourcesOf(
   maxFormat: number,
   known: Partial<HashSources> = {},
 ): Promise<HashSources> {
-  const [calc, expanded, attachments, model] = await Promise.all([
+  const [calc, attachments, model] = await Promise.all([
     known.calc ??
       (Calc.findByPk(revision.calcId, {
         include: [Project],
         attributes: ['id', 'number', 'title', 'partRef', 'projectId'],
         transaction,
       }) as Promise<HashSources['calc']>),
-    result ?? expandResult(Revision.sequelize!, revision.result, transaction),
     maxFormat < 2 ? [] : (known.attachments ?? Attachment.findAll({ where: { revisionId: revision.id }, transaction })),
     maxFormat < 3 ? null : known.model !== undefined ? known.model : lockedModelOf(revision.id, transaction),
   ]);
+  let expanding: Promise<unknown> | undefined;
+  const expanded = () =>
+    (expanding ??= result ? Promise.resolve(result) : expandResult(Revision.sequelize!, revision.result, transaction));
   return { calc, expanded, attachments, model };
 }
 
 /** The hash in one format: that format's own share of the sources (attachments from 2, the locked model from 3). */
-function hashInFormat(revision: Revision, sources: HashSources, format: number): string {
-  const { calc, expanded } = sources;
+async function hashInFormat(revision: Revision, sources: HashSources, format: number): Promise<string> {
+  const { calc } = sources;
   const attachments = format >= 2 ? sources.attachments : [];
   const model = format >= 3 ? sources.model : null;
   const key = contentKeyOf([
@@ -49,13 +52,13 @@ function hashInFormat(revision: Revision, sources: HashSources, format: number):
     JSON.stringify(signedAttachments(attachments)),
     JSON.stringify(model),
   ]);
-  return memoisedHash(key, () =>
+  return memoisedHash(key, async () =>
     contentHashOf(
       hashedContentOf(
         calc,
         revision.label,
         JSON.parse(revision.input),
-        expanded,
+        await sources.expanded(),
         expandChecklist(revision.checklist),
         revision.ruleSet,
         format,
@@ -106,6 +109,6 @@ export async function currentHashesOf(
   if (!formats.length) return hashes;
   if (!revision.result || !revision.checklist) return new Map(formats.map((f) => [f, null]));
   const sources = await hashSourcesOf(revision, transaction, result, Math.max(...formats), known);
-  for (const f of formats) hashes.set(f, hashInFormat(revision, sources, f));
+  for (const f of formats) hashes.set(f, await hashInFormat(revision, sources, f));
   return hashes;
 }

@@ -11,6 +11,7 @@ import { memoisedValidation } from './content-hash-memo';
 import { timed } from '../http/server-timing';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { expandResult } from './stored-result';
+import { StoredJson } from './revision-answer';
 import { withVerification } from '../independent/blind';
 import { currentHashesOf, type HashSources } from './current-hash';
 import { readContextOf, signaturesOf } from './revision-read-context';
@@ -20,7 +21,9 @@ import type { SaveContext } from './save-context';
 export { currentHashOf, currentHashesOf } from './current-hash';
 
 /**
- * A revision as the screens show it; Server-Timing names its phases (read, hash, input, verification). `known` is
+ * A revision as the screens show it; Server-Timing names its phases (read, hash, input, verification). In the
+ * `stored` form (the browser's: shared/schemas/revision-form.ts) its result and checklist are the stored texts, sent
+ * as they are (revision-answer.ts), and the result is expanded only if its hash must be computed afresh. `known` is
  * the row as a save has just written it, with its standard and people attached, its result expanded and the calc's
  * editors when the save knows them, and which rows hang off it (the answer to that save): then none of them is read
  * again, nor the signatures, findings or independent model it has none of (their writers all lock the revision row,
@@ -32,13 +35,19 @@ export async function readRevision(
   id: number,
   transaction?: Transaction,
   known?: Known,
+  form: 'full' | 'stored' = 'full',
 ): Promise<RevisionDto> {
   const context = known ?? (await timed('read', () => contextOf(id, transaction)));
   const { revision, has } = context;
   ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
+  const stored = form === 'stored';
   const [result, signatures, findings, editorIds] = await timed('read', () =>
     Promise.all([
-      context.result !== undefined ? context.result : expandResult(Revision.sequelize!, revision.result, transaction),
+      stored
+        ? undefined
+        : context.result !== undefined
+          ? context.result
+          : expandResult(Revision.sequelize!, revision.result, transaction),
       has?.signatures === false
         ? []
         : transaction
@@ -61,7 +70,16 @@ export async function readRevision(
     timed('names', () => namesOf(findings, transaction)),
     timed('input', () => inputIssuesOf(revision)),
   ]);
-  const dto = toRevisionDto(revision, { result, signatures, findings, editorIds, currentHashes, names, inputIssues });
+  const dto = toRevisionDto(revision, {
+    result: stored ? revision.result && new StoredJson(revision.result) : result,
+    stored,
+    signatures,
+    findings,
+    editorIds,
+    currentHashes,
+    names,
+    inputIssues,
+  });
   const noModel = has?.independent_models === false;
   return timed('verification', () => withVerification(ability, revision, dto, transaction, noModel));
 }

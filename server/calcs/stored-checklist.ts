@@ -1,95 +1,18 @@
-import type { Checklist, ChecklistRow, RowLocation } from '../../shared/rules';
+import type { Checklist } from '../../shared/rules';
+import { decodeChecklist, encodeChecklist, type StoredChecklist } from '../../shared/rules/stored-checklist';
 import { stringifyFinite } from '../../shared/json/finite-json';
 
-/**
- * Stored checklists keep each row as an array of its values in the order below, with every text (clause title,
- * reference, location label, message…) written once in `storedRows.strings` and named by its index: a row's
- * clause texts repeat at every location, its location texts under every clause. Everything else is stored as
- * the evaluator returned it, and `rows` stays an array of one entry per row (SQL reads its length).
- * Reading builds each row back with the same keys in the same order, so the checklist is deep-equal to the
- * evaluator's and content hashes are unchanged. A checklist whose rows do not have exactly this shape is stored
- * whole, and rows stored whole (before this form) are read as they are.
+/*
+ * A revision row keeps its checklist in the stored form of shared/rules/stored-checklist.ts (rows as arrays, each
+ * text written once); the browser can be sent that form as it is (server/calcs/revision-answer.ts).
  */
-type Kind = 'text' | 'text?' | 'number?' | 'texts' | { [key: string]: Kind };
-
-const LOCATION: Record<keyof RowLocation, Kind> = { scope: 'text', index: 'number?', at: 'number?', label: 'text' };
-
-// Key order is the evaluator's (shared/rules/checklist-row.ts); a spec holds the two to the same order.
-const ROW: Record<keyof ChecklistRow, Kind> = {
-  clauseId: 'text',
-  clauseTitle: 'text',
-  reference: 'text',
-  severity: 'text',
-  status: 'text',
-  location: LOCATION,
-  actual: 'number?',
-  limit: 'number?',
-  unit: 'text',
-  utilisation: 'number?',
-  utilisationBasis: 'text?',
-  message: 'text',
-  warnings: 'texts',
-};
-
-/** Form 1: the columns of ROW above. A change of columns is a new form; older forms must still be read. */
-const FORM = 1;
-
-type Cell = string | number | null | Cell[];
-type Stored = Omit<Checklist, 'rows'> & { rows: unknown[]; storedRows?: { form: number; strings: string[] } };
-
-class Misfit extends Error {}
-
-function encode(value: unknown, kind: Kind, ref: (s: string) => number): Cell {
-  if (kind === 'number?' && (value === null || typeof value === 'number')) return value;
-  if (kind === 'text?' && value === null) return null;
-  if ((kind === 'text' || kind === 'text?') && typeof value === 'string') return ref(value);
-  if (kind === 'texts' && Array.isArray(value)) return value.map((v) => encode(v, 'text', ref));
-  if (typeof kind === 'object' && value !== null && typeof value === 'object' && !Array.isArray(value)) {
-    const keys = Object.keys(kind);
-    const own = Object.keys(value);
-    if (own.length !== keys.length || own.some((k, i) => k !== keys[i])) throw new Misfit();
-    return keys.map((k) => encode((value as Record<string, unknown>)[k], kind[k], ref));
-  }
-  throw new Misfit();
-}
-
-function decode(cell: Cell, kind: Kind, strings: readonly string[]): unknown {
-  if (kind === 'number?' || cell === null) return cell;
-  if (kind === 'text' || kind === 'text?') return strings[cell as number];
-  if (kind === 'texts') return (cell as number[]).map((i) => strings[i]);
-  const cells = cell as Cell[];
-  const out: Record<string, unknown> = {};
-  Object.keys(kind).forEach((k, i) => (out[k] = decode(cells[i], kind[k], strings)));
-  return out;
-}
 
 /** The text a revision row keeps for its checklist (null for none). */
 export function compactChecklist(checklist: Checklist | null): string | null {
-  if (!checklist) return null;
-  const strings: string[] = [];
-  const index = new Map<string, number>();
-  const ref = (s: string): number => {
-    let i = index.get(s);
-    if (i === undefined) index.set(s, (i = strings.push(s) - 1));
-    return i;
-  };
-  let rows: Cell[];
-  try {
-    rows = checklist.rows.map((r) => encode(r, ROW, ref));
-  } catch (err) {
-    if (err instanceof Misfit) return stringifyFinite(checklist);
-    throw err;
-  }
-  const stored: Stored = { ...checklist, rows, storedRows: { form: FORM, strings } };
-  return stringifyFinite(stored);
+  return checklist ? stringifyFinite(encodeChecklist(checklist)) : null;
 }
 
 /** A stored checklist as the evaluator returned it; a whole (older) one as it is. */
 export function expandChecklist(text: string | null): Checklist | null {
-  if (!text) return null;
-  const stored = JSON.parse(text) as Stored;
-  if (stored.storedRows === undefined) return stored as Checklist;
-  const { storedRows, ...rest } = stored;
-  if (storedRows.form !== FORM) throw new Error(`Stored checklist rows are in unknown form ${storedRows.form}`);
-  return { ...rest, rows: rest.rows.map((r) => decode(r as Cell, ROW, storedRows.strings) as ChecklistRow) };
+  return text ? decodeChecklist(JSON.parse(text) as StoredChecklist) : null;
 }

@@ -2,6 +2,7 @@ import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { ENGINE_VERSION, type CalcResult } from '../../shared/engine';
 import { FIELDS } from '../../shared/engine/fields';
 import { METHODS } from '../../shared/engine/methods';
+import { expandStoredResult, type EngineMetadata, type StoredResult } from '../../shared/engine/stored-result';
 import { stringifyFinite } from '../../shared/json/finite-json';
 
 /**
@@ -10,10 +11,8 @@ import { stringifyFinite } from '../../shared/json/finite-json';
  * Reading puts them back exactly as the engine returned them, so content hashes (which cover the
  * whole result) are the same as before; rows stored with them in place are read as they are.
  */
-type Metadata = { fields: typeof FIELDS; methods: typeof METHODS };
-
 // Read from the table, not from the code, so an engine edit that forgot to bump the version cannot change old hashes.
-const known = new Map<string, Metadata>();
+const known = new Map<string, EngineMetadata>();
 let registered: Promise<void> | null = null;
 
 /** The compact text a revision row keeps. */
@@ -41,7 +40,12 @@ export function registerEngineMetadata(sequelize: Sequelize): Promise<void> {
   return registered;
 }
 
-async function metadataOf(sequelize: Sequelize, version: string, transaction?: Transaction): Promise<Metadata> {
+/** An engine version's units and formulas as recorded, or null for a version that has stored no result here. */
+export async function recordedMetadataOf(
+  sequelize: Sequelize,
+  version: string,
+  transaction?: Transaction,
+): Promise<EngineMetadata | null> {
   const cached = known.get(version);
   if (cached) return cached;
   const [row] = await sequelize.query<{ fields: string; methods: string }>(
@@ -49,9 +53,15 @@ async function metadataOf(sequelize: Sequelize, version: string, transaction?: T
     { replacements: [version], type: QueryTypes.SELECT, transaction },
   );
   if (!row && version === ENGINE_VERSION) return { fields: FIELDS, methods: METHODS };
-  if (!row) throw new Error(`No unit and formula metadata is recorded for engine version ${version}`);
-  const meta: Metadata = { fields: JSON.parse(row.fields), methods: JSON.parse(row.methods) };
+  if (!row) return null;
+  const meta: EngineMetadata = { fields: JSON.parse(row.fields), methods: JSON.parse(row.methods) };
   known.set(version, meta);
+  return meta;
+}
+
+async function metadataOf(sequelize: Sequelize, version: string, transaction?: Transaction): Promise<EngineMetadata> {
+  const meta = await recordedMetadataOf(sequelize, version, transaction);
+  if (!meta) throw new Error(`No unit and formula metadata is recorded for engine version ${version}`);
   return meta;
 }
 
@@ -62,8 +72,7 @@ export async function expandResult(
   transaction?: Transaction,
 ): Promise<CalcResult | null> {
   if (!text) return null;
-  const stored = JSON.parse(text) as CalcResult;
-  if (stored.fields) return stored;
-  const meta = await metadataOf(sequelize, stored.engineVersion, transaction);
-  return { ...stored, fields: meta.fields[stored.units], methods: meta.methods };
+  const stored = JSON.parse(text) as StoredResult;
+  if (stored.fields) return stored as CalcResult;
+  return expandStoredResult(stored, await metadataOf(sequelize, stored.engineVersion, transaction));
 }

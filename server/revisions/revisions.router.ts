@@ -15,6 +15,7 @@ import { signedInActor } from '../authz/actor';
 import type { CalcsService } from '../calcs/calcs.service';
 import type { LifecycleService } from '../calcs/lifecycle.service';
 import { readRevision } from '../calcs/revision-read';
+import { formOf, sendRevision } from '../calcs/revision-answer';
 import type { WorkflowService } from '../workflow/workflow.service';
 import type { ReviewService } from '../workflow/review.service';
 import type { FindingsService } from '../workflow/findings.service';
@@ -32,7 +33,7 @@ export interface RevisionServices {
 export function revisionsRouter(s: RevisionServices): Router {
   const router = idRouter();
   router.get('/:id', async (req, res) => {
-    res.json(await readRevision(req.ability, idParam(req)));
+    sendRevision(res, await readRevision(req.ability, idParam(req), undefined, undefined, formOf(req)));
   });
   router.put('/:id', validate({ body: saveRevisionSchema }), async (req, res) => {
     res.json(await s.calcs.save(req.ability, signedInActor(req), idParam(req), req.body));

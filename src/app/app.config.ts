@@ -16,6 +16,7 @@ import { provideAbility } from './core/authz/ability.providers';
 import { SessionStore } from './core/auth/session-store';
 import { IdlePreloading } from './core/idle-preloading';
 import { RoutePrefetch, prefetchInterceptor } from './core/http/route-prefetch';
+import { revisionFormInterceptor } from './core/http/revision-form';
 
 export const appConfig: ApplicationConfig = {
   providers: [
@@ -26,7 +27,10 @@ export const appConfig: ApplicationConfig = {
       withInMemoryScrolling({ scrollPositionRestoration: 'top' }),
       withPreloading(IdlePreloading),
     ),
-    provideHttpClient(withFetch(), withInterceptors([csrfInterceptor, errorInterceptor, prefetchInterceptor])),
+    provideHttpClient(
+      withFetch(),
+      withInterceptors([csrfInterceptor, errorInterceptor, revisionFormInterceptor, prefetchInterceptor]),
+    ),
     provideAbility(),
     { provide: ErrorHandler, useClass: AppErrorHandler },
     // Labels always sit above their box: an empty field's label would otherwise run into its unit (GPa, rpm) on a

@@ -64,8 +64,13 @@ describe('a screen whose reads started before it was built', () => {
     boot('/calcs/7', '?rev=21');
     expect(loaded).toEqual(['shell', 'calc page']);
     const calc = firstValueFrom(http.get('/api/calcs/7'));
-    backend.expectOne('/api/calcs/7').flush({ id: 7 });
-    backend.expectOne('/api/revisions/21').flush({ id: 21 });
+    const calcRead = backend.expectOne('/api/calcs/7');
+    expect(calcRead.request.headers.has('Revision-Form')).toBe(false);
+    calcRead.flush({ id: 7 });
+    // The revision is read as the page's own read asks for it: its result and checklist as stored.
+    const revisionRead = backend.expectOne('/api/revisions/21');
+    expect(revisionRead.request.headers.get('Revision-Form')).toBe('stored');
+    revisionRead.flush({ id: 21 });
     expect(await calc).toEqual({ id: 7 });
     expect(await firstValueFrom(http.get('/api/revisions/21'))).toEqual({ id: 21 });
     // Adopted once: a later read of the same address asks the server.

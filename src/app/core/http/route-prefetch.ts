@@ -3,6 +3,7 @@ import { HttpBackend, HttpEvent, HttpInterceptorFn, HttpRequest, HttpResponse } 
 import { ActivatedRouteSnapshot, Router, RoutesRecognized, type Route } from '@angular/router';
 import { Observable, ReplaySubject, catchError } from 'rxjs';
 import { matchRoutes } from './route-match';
+import { STORED_FORM_HEADERS, readsStoredForm } from './revision-form';
 
 /**
  * A screen's first reads, declared in its route's `data` under PREFETCH: the GET URLs it will ask for, each with
@@ -65,7 +66,8 @@ export class RoutePrefetch {
     for (const [key, e] of this.early) if (Date.now() - e.at >= LIFETIME_MS) this.early.delete(key);
     const events = new ReplaySubject<HttpEvent<unknown>>();
     this.early.set(url, { at: Date.now(), events });
-    this.backend.handle(new HttpRequest('GET', url)).subscribe({
+    const headers = readsStoredForm(url) ? STORED_FORM_HEADERS : undefined;
+    this.backend.handle(new HttpRequest('GET', url, { headers })).subscribe({
       next: (e) => {
         // Follow-ups first: the page, handed the answer next, then finds them already started.
         if (then && e instanceof HttpResponse && e.ok) for (const next of then(e.body)) this.start({ url: next });

@@ -10,8 +10,6 @@ import type {
 } from '../../shared/schemas/calc-dto';
 import { Calc, Finding, Project, Revision, RuleSetRecord, Signature, User } from '../db/models';
 import { REVISION_RULE_SET_ATTRIBUTES } from '../rule-sets/rule-set-cache';
-import { expandChecklist } from './stored-checklist';
-import { StoredJson } from './revision-answer';
 
 /** Associations every revision read needs, loaded in one query. */
 export const REVISION_INCLUDE = [
@@ -88,11 +86,11 @@ export function toFindingDto(f: Finding, names: Map<number, string>): FindingDto
 
 export interface RevisionParts {
   /**
-   * The stored result with its units and formulas put back (server/calcs/stored-result.ts), or in the stored form
-   * its text as stored (then the checklist is sent as stored too).
+   * The result with its units and formulas put back (server/calcs/stored-result.ts) and the checklist as evaluated,
+   * or in the stored form both texts as stored (revision-answer.ts).
    */
   result: unknown | null;
-  stored?: boolean;
+  checklist: unknown | null;
   signatures: Signature[];
   findings: Finding[];
   names: Map<number, string>;
@@ -108,7 +106,7 @@ export function toRevisionDto(r: Loaded, parts: RevisionParts): RevisionDto {
     lockVersion: r.lockVersion,
     input: JSON.parse(r.input),
     result: parts.result,
-    checklist: parts.stored ? r.checklist && new StoredJson(r.checklist) : expandChecklist(r.checklist),
+    checklist: parts.checklist,
     inputIssues: parts.inputIssues,
     manualItems: JSON.parse(r.manualItems) as Record<string, ManualItemState>,
     contentHash: r.contentHash,

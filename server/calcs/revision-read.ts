@@ -12,6 +12,7 @@ import { timed } from '../http/server-timing';
 import { parseRuleSet } from '../rule-sets/rule-set-cache';
 import { expandResult } from './stored-result';
 import { StoredJson } from './revision-answer';
+import { expandChecklist } from './stored-checklist';
 import { withVerification } from '../independent/blind';
 import { currentHashesOf, type HashSources } from './current-hash';
 import { readContextOf, signaturesOf } from './revision-read-context';
@@ -70,9 +71,12 @@ export async function readRevision(
     timed('names', () => namesOf(findings, transaction)),
     timed('input', () => inputIssuesOf(revision)),
   ]);
+  // A hash computed for these texts (now, or remembered under their digest) parsed them: they need no parse again.
+  const parsed = [...currentHashes.values()].some((h) => h !== null);
+  const asStored = (text: string | null) => text && (parsed ? StoredJson.parsed(text) : new StoredJson(text));
   const dto = toRevisionDto(revision, {
-    result: stored ? revision.result && new StoredJson(revision.result) : result,
-    stored,
+    result: stored ? asStored(revision.result) : result,
+    checklist: stored ? asStored(revision.checklist) : expandChecklist(revision.checklist),
     signatures,
     findings,
     editorIds,

@@ -5,6 +5,7 @@ import { QueryTypes, type Sequelize } from 'sequelize';
 import { appendAudit } from '../server/audit/audit.service';
 import { BENCH_PASSWORD } from './bench-seed-data';
 import { figuresOf, line, signIn } from './bench-http';
+import { REVISION_FORM_HEADER, STORED_FORM } from '../shared/schemas/revision-form';
 
 const WRITERS = 20;
 
@@ -41,7 +42,13 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number, 
         const t0 = performance.now();
         const res = await fetch(`${url}/api/revisions/${draft.revisionId}`, {
           method: 'PUT',
-          headers: { 'content-type': 'application/json', cookie: sessions[w].cookie, 'x-csrf-token': sessions[w].csrf },
+          // As the browser saves: the answer's result and checklist as stored (shared/schemas/revision-form.ts).
+          headers: {
+            'content-type': 'application/json',
+            cookie: sessions[w].cookie,
+            'x-csrf-token': sessions[w].csrf,
+            [REVISION_FORM_HEADER]: STORED_FORM,
+          },
           body: JSON.stringify({ input, lockVersion }),
         });
         const body = (await res.json()) as { lockVersion?: number };

@@ -119,9 +119,18 @@ export class CalcsService {
     return this.get(ability, calcId);
   }
 
-  /** Saves the author's input. A stale `lockVersion` is a 409 carrying the stored version, never an overwrite. */
-  save(ability: AppAbility, actor: Actor & { id: number }, revisionId: number, dto: SaveRevisionRequest) {
-    return saveRevision(this.sequelize, ability, actor, revisionId, dto);
+  /**
+   * Saves the author's input. A stale `lockVersion` is a 409 carrying the stored version, never an overwrite. The
+   * answer is the revision as saved, in the form asked for (the browser's: result and checklist as stored).
+   */
+  save(
+    ability: AppAbility,
+    actor: Actor & { id: number },
+    revisionId: number,
+    dto: SaveRevisionRequest,
+    form: 'full' | 'stored' = 'full',
+  ) {
+    return saveRevision(this.sequelize, ability, actor, revisionId, dto, form);
   }
 
   async refreshHash(revision: Revision, transaction: Transaction): Promise<void> {

@@ -26,6 +26,7 @@ export async function saveRevision(
   actor: Actor & { id: number },
   revisionId: number,
   dto: SaveRevisionRequest,
+  form: 'full' | 'stored' = 'full',
 ): Promise<RevisionDto> {
   // Before the transaction: the first call of a process writes on a connection of its own, and inside it
   // twenty saves holding every pooled connection would each wait for a twenty-first (the pool's time-out).
@@ -128,7 +129,7 @@ export async function saveRevision(
   );
   // The row as written (the save holds it with its standard, people and editors): the answer reads only what hangs
   // off the revision (signatures, findings, the independent model).
-  return timed('answer', () => readRevision(ability, revisionId, undefined, saved));
+  return timed('answer', () => readRevision(ability, revisionId, undefined, saved, form));
 }
 
 export function stored(c: Awaited<ReturnType<typeof computeRecord>>) {

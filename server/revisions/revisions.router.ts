@@ -36,7 +36,7 @@ export function revisionsRouter(s: RevisionServices): Router {
     sendRevision(res, await readRevision(req.ability, idParam(req), undefined, undefined, formOf(req)));
   });
   router.put('/:id', validate({ body: saveRevisionSchema }), async (req, res) => {
-    res.json(await s.calcs.save(req.ability, signedInActor(req), idParam(req), req.body));
+    sendRevision(res, await s.calcs.save(req.ability, signedInActor(req), idParam(req), req.body, formOf(req)));
   });
   router.post('/:id/sign', validate({ body: signSchema }), async (req, res) => {
     res.json(

@@ -82,6 +82,31 @@ describe('a revision read in the stored form', () => {
     expect(res.headers['cache-control']).toBe('private, no-store');
   });
 
+  it('answers a save in the form asked for: the stored answer expands to the full read of the saved revision', async () => {
+    const t = await calcTeam(app);
+    const url = `/api/revisions/${t.revisionId}`;
+    const before = (await full(t.author.session, url)).body as { lockVersion: number };
+    const input = fixtureInput();
+    (input['segments'] as { od: number }[])[0].od = 61;
+    const saved = expectStatus(
+      await t.author.session.agent
+        .put(url)
+        .set('x-csrf-token', t.author.session.csrf)
+        .set(REVISION_FORM_HEADER, STORED_FORM)
+        .send({ input, lockVersion: before.lockVersion }),
+      200,
+      'save in the stored form',
+    );
+    const read = saved.body as StoredRevisionDto;
+    expect(read.result).not.toHaveProperty('fields');
+    expect(read.checklist?.storedRows).toBeDefined();
+    const now = await full(t.author.session, url);
+    expect(expandRevision(read, await metadataFor(t.author.session, read))).toEqual(now.body);
+    // Without the header, a save is answered in full, as before.
+    const again = await t.author.session.put(url, { input, lockVersion: now.body.lockVersion });
+    expect(again.body.result.fields).toEqual(FIELDS.SI);
+  });
+
   it('holds each signature as valid, and shows a stored result changed behind the app’s back as breaking them', async () => {
     const team = await calcTeam(app);
     const sessions: Team = {

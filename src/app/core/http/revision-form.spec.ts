@@ -81,11 +81,21 @@ describe('a revision read in the stored form', () => {
     expect(other.request.headers.has('Revision-Form')).toBe(false);
     other.flush({ result: storedResult });
     expect(await list).toEqual({ result: storedResult });
-    const save = firstValueFrom(http.put('/api/revisions/7', {}));
-    const put = backend.expectOne('/api/revisions/7');
-    expect(put.request.headers.has('Revision-Form')).toBe(false);
-    put.flush({ id: 7 });
-    await save;
+    const sign = firstValueFrom(http.post('/api/revisions/7/sign', {}));
+    const post = backend.expectOne('/api/revisions/7/sign');
+    expect(post.request.headers.has('Revision-Form')).toBe(false);
+    post.flush({ id: 7 });
+    await sign;
+  });
+
+  it('takes a save’s answer in the stored form too', async () => {
+    const save = firstValueFrom(http.put('/api/revisions/5', { lockVersion: 3 }));
+    const put = backend.expectOne({ method: 'PUT', url: '/api/revisions/5' });
+    expect(put.request.headers.get('Revision-Form')).toBe('stored');
+    put.flush(storedRead());
+    await Promise.resolve();
+    backend.expectOne('/api/engine-metadata/2.0.0').flush(meta);
+    expect(await save).toEqual(fullRead);
   });
 
   it('fails the read when the units and formulas cannot be read, and asks for them again next time', async () => {

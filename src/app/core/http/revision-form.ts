@@ -6,6 +6,7 @@ import {
   REVISION_FORM_HEADER,
   STORED_FORM,
   STORED_FORM_PATH,
+  STORED_FORM_SAVE_PATH,
   expandRevision,
   metadataVersionOf,
   type StoredRevisionDto,
@@ -16,6 +17,10 @@ const pathOf = (url: string) => url.split('?')[0];
 
 /** Whether a GET of this URL is answered in the stored form when asked (one revision, a calc's newest). */
 export const readsStoredForm = (url: string) => STORED_FORM_PATH.test(pathOf(url));
+
+/** Whether this request's answer may come in the stored form: those reads, and a save (PUT) of a revision. */
+const answersStoredForm = (method: string, url: string) =>
+  method === 'GET' ? readsStoredForm(url) : method === 'PUT' && STORED_FORM_SAVE_PATH.test(pathOf(url));
 
 /** The header that asks for it: the route prefetch's early reads carry it too, so the page can adopt them. */
 export const STORED_FORM_HEADERS = new HttpHeaders({ [REVISION_FORM_HEADER]: STORED_FORM });
@@ -47,12 +52,12 @@ export class EngineMetadataStore {
 }
 
 /**
- * Reads a revision with its result and checklist as stored (about half the bytes, nothing for the server to build
- * again) and expands them here with the engine version's units and formulas (shared/schemas/revision-form.ts), so
- * every screen receives the revision exactly as the full answer would give it.
+ * Reads a revision (and takes a save's answer) with its result and checklist as stored (about half the bytes, nothing
+ * for the server to build again) and expands them here with the engine version's units and formulas
+ * (shared/schemas/revision-form.ts), so every screen receives the revision exactly as the full answer would give it.
  */
 export const revisionFormInterceptor: HttpInterceptorFn = (req, next) => {
-  if (req.method !== 'GET' || !readsStoredForm(req.url)) return next(req);
+  if (!answersStoredForm(req.method, req.url)) return next(req);
   const store = inject(EngineMetadataStore);
   return next(req.clone({ setHeaders: { [REVISION_FORM_HEADER]: STORED_FORM } })).pipe(
     concatMap((event) =>

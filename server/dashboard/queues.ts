@@ -55,10 +55,43 @@ function turnOf(key: QueueKey) {
   return { state, turn: WORKFLOW[state].turn! };
 }
 
-function filterOf(key: QueueKey, userId: number): Filter {
+/** The queue's rows as a filter on the calcs' summary columns. */
+export function filterOf(key: QueueKey, userId: number): Filter {
   const { state, turn } = turnOf(key);
   const relation = RELATION_SQL[turn.relation](userId);
   return { sql: `c.latest_status = ? AND ${relation.sql}`, params: [state, ...relation.params] };
+}
+
+/**
+ * How many calcs wait in a queue, as one SQL expression. A queue of someone else's calcs is counted exactly, from the
+ * per-state counts the triggers keep (`calc_counts`) less the calcs of that state its reader may not take: those they
+ * edited, and for the approvers' turn also those they checked or that name no checker (`latest_checker_id <> ?` is
+ * not true for them). Each of those is a short index range (editor rows carry their calc's state); counting the queue
+ * itself read every waiting calc (up to a cap) with a lookup in `calc_editors` each. An author's own queue is an
+ * index range already, counted up to the cap (`exact: false`).
+ */
+export function queueCountSql(key: QueueKey, userId: number): Filter & { exact: boolean } {
+  const { state, turn } = turnOf(key);
+  if (turn.relation === 'own') {
+    const f = filterOf(key, userId);
+    return { sql: cappedCountSql(`FROM calcs c WHERE ${f.sql}`), params: f.params, exact: false };
+  }
+  const inState = '(SELECT COALESCE(SUM(k.n), 0) FROM calc_counts k WHERE k.state = ?)';
+  // Editor rows carry their calc's latest state (migrations/20261231-14-calc-editor-states.ts).
+  const edited = 'SELECT e.calc_id FROM calc_editors e WHERE e.user_id = ? AND e.latest_status = ?';
+  if (turn.relation === 'independent')
+    return {
+      sql: `(${inState} - (SELECT COUNT(*) FROM calc_editors e WHERE e.user_id = ? AND e.latest_status = ?))`,
+      params: [state, userId, state],
+      exact: true,
+    };
+  const notTheirs = `SELECT c.id FROM calcs c WHERE (c.latest_checker_id IS NULL OR c.latest_checker_id = ?)
+    AND c.latest_status = ?`;
+  return {
+    sql: `(${inState} - (SELECT COUNT(*) FROM (${notTheirs} UNION ${edited}) x))`,
+    params: [state, userId, state, userId, state],
+    exact: true,
+  };
 }
 
 /** The queues a person's roles give them: those whose state waits for one of their roles. */
@@ -134,14 +167,15 @@ async function queueRows(
     ? keysetCondition(KEY, decodeCursor(query.after, KEY), 'asc')
     : { sql: 'TRUE', replacements: [] };
   const facts = keys.map((key) => needsFacts(key, mayCheck));
-  const count = (f: Filter) => (query.after ? 'NULL AS n' : `${cappedCountSql(`FROM calcs c WHERE ${f.sql}`)} AS n`);
+  const counts = keys.map((key) => queueCountSql(key, user.id));
+  const count = (i: number) => (query.after ? 'NULL AS n' : `${counts[i].sql} AS n`);
   const pages = filters.map(
-    (f, i) => `(SELECT ${i} AS q, ${COLUMNS}, ${facts[i] ? BLIND_FACTS : NO_FACTS}, ${count(f)} FROM calcs c
+    (f, i) => `(SELECT ${i} AS q, ${COLUMNS}, ${facts[i] ? BLIND_FACTS : NO_FACTS}, ${count(i)} FROM calcs c
       WHERE ${f.sql} AND ${keyset.sql} ORDER BY c.latest_since ASC, c.id ASC LIMIT ${query.size + 1})`,
   );
   const replacements = filters.flatMap((f, i) => [
     ...(facts[i] ? [user.id] : []),
-    ...(query.after ? [] : f.params),
+    ...(query.after ? [] : counts[i].params),
     ...f.params,
     ...keyset.replacements,
   ]);
@@ -151,7 +185,9 @@ async function queueRows(
   );
   return keys.map((_, i) => {
     const own = rows.filter((r) => Number(r.q) === i);
-    return { rows: own, counted: query.after ? null : cappedTotal(Number(own[0]?.n ?? 0)) };
+    const n = Number(own[0]?.n ?? 0);
+    if (query.after) return { rows: own, counted: null };
+    return { rows: own, counted: counts[i].exact ? { total: n, totalIsAtLeast: false } : cappedTotal(n) };
   });
 }
 

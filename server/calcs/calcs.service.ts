@@ -16,6 +16,7 @@ import { revisionLabel } from './revision-label';
 import { runTransaction } from '../db/transaction';
 import { registerEngineMetadata } from './stored-result';
 import { blindRevisionIds } from '../independent/blind-lists';
+import type { RevisionForm } from '../../shared/schemas/revision-form';
 
 // A save's stored columns: scripts and specs import them from here.
 export { stored } from './revision-save';
@@ -48,7 +49,7 @@ export class CalcsService {
    * The calc's newest revision, read as `GET /api/revisions/:id` reads it: the calc page asks for it beside the
    * calc instead of after it, so the two reads no longer wait for each other.
    */
-  async latestRevision(ability: AppAbility, calcId: number, form: 'full' | 'stored' = 'full'): Promise<RevisionDto> {
+  async latestRevision(ability: AppAbility, calcId: number, form: RevisionForm = 'full'): Promise<RevisionDto> {
     ForbiddenError.from(ability).throwUnlessCan('read', 'Calc');
     const latest = await Revision.findOne({ where: { calcId }, order: [['seq', 'DESC']], attributes: ['id'] });
     if (!latest) throw AppError.notFound(`Calc ${calcId}`);
@@ -128,7 +129,7 @@ export class CalcsService {
     actor: Actor & { id: number },
     revisionId: number,
     dto: SaveRevisionRequest,
-    form: 'full' | 'stored' = 'full',
+    form: RevisionForm = 'full',
   ) {
     return saveRevision(this.sequelize, ability, actor, revisionId, dto, form);
   }

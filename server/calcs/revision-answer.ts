@@ -1,6 +1,6 @@
 import type { Request, Response } from 'express';
 import type { RevisionDto } from '../../shared/schemas/calc-dto';
-import { REVISION_FORM_HEADER, STORED_FORM } from '../../shared/schemas/revision-form';
+import { REVISION_FORM_HEADER, STORED_FORM, type RevisionForm } from '../../shared/schemas/revision-form';
 
 /**
  * A stored JSON text sent as it is, inside an answer: a revision's result or checklist in the stored form. The text
@@ -25,7 +25,7 @@ export class StoredJson {
 }
 
 /** The form the reader asked for: the result and checklist as stored, or in full (shared/schemas/revision-form.ts). */
-export function formOf(req: Request): 'full' | 'stored' {
+export function formOf(req: Request): RevisionForm {
   return req.get(REVISION_FORM_HEADER) === STORED_FORM ? 'stored' : 'full';
 }
 

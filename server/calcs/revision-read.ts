@@ -17,6 +17,7 @@ import { withVerification } from '../independent/blind';
 import { currentHashesOf, type HashSources } from './current-hash';
 import { readContextOf, signaturesOf } from './revision-read-context';
 import type { SaveContext } from './save-context';
+import type { RevisionForm } from '../../shared/schemas/revision-form';
 
 // Where the hashes were first written; callers keep importing them from here.
 export { currentHashOf, currentHashesOf } from './current-hash';
@@ -36,7 +37,7 @@ export async function readRevision(
   id: number,
   transaction?: Transaction,
   known?: Known,
-  form: 'full' | 'stored' = 'full',
+  form: RevisionForm = 'full',
 ): Promise<RevisionDto> {
   const context = known ?? (await timed('read', () => contextOf(id, transaction)));
   const { revision, has } = context;
@@ -44,10 +45,11 @@ export async function readRevision(
   const stored = form === 'stored';
   const [result, signatures, findings, editorIds] = await timed('read', () =>
     Promise.all([
-      stored
-        ? undefined
-        : context.result !== undefined
-          ? context.result
+      // In the stored form a result is expanded only for a hash computed afresh (a save's, known, is passed on).
+      context.result !== undefined
+        ? context.result
+        : stored
+          ? undefined
           : expandResult(Revision.sequelize!, revision.result, transaction),
       has?.signatures === false
         ? []

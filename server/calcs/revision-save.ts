@@ -18,6 +18,7 @@ import { lockWithContext, withEditor, withStoredResult } from './save-context';
 import { assertOpen } from '../projects/project-open';
 import { rememberValidation } from './content-hash-memo';
 import { timed } from '../http/server-timing';
+import type { RevisionForm } from '../../shared/schemas/revision-form';
 
 /** Saves the author's input. A stale `lockVersion` is a 409 carrying the stored version, never an overwrite. */
 export async function saveRevision(
@@ -26,7 +27,7 @@ export async function saveRevision(
   actor: Actor & { id: number },
   revisionId: number,
   dto: SaveRevisionRequest,
-  form: 'full' | 'stored' = 'full',
+  form: RevisionForm = 'full',
 ): Promise<RevisionDto> {
   // Before the transaction: the first call of a process writes on a connection of its own, and inside it
   // twenty saves holding every pooled connection would each wait for a twenty-first (the pool's time-out).

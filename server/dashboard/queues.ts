@@ -81,7 +81,7 @@ export function queueCountSql(key: QueueKey, userId: number): Filter & { exact: 
   const edited = 'SELECT e.calc_id FROM calc_editors e WHERE e.user_id = ? AND e.latest_status = ?';
   if (turn.relation === 'independent')
     return {
-      sql: `(${inState} - (SELECT COUNT(*) FROM calc_editors e WHERE e.user_id = ? AND e.latest_status = ?))`,
+      sql: `(${inState} - (SELECT COUNT(*) FROM (${edited}) x))`,
       params: [state, userId, state],
       exact: true,
     };

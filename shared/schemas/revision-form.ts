@@ -11,6 +11,9 @@ import { decodeChecklist, type StoredChecklist } from '../rules/stored-checklist
 export const REVISION_FORM_HEADER = 'Revision-Form';
 export const STORED_FORM = 'stored';
 
+/** The two forms of a revision read: `full` unless the reader asks for `stored`. */
+export type RevisionForm = 'full' | typeof STORED_FORM;
+
 /** The reads that honour the header: one revision, and a calc's newest; and a save's answer (PUT of a revision). */
 export const STORED_FORM_PATH = /^\/api\/(?:revisions\/\d+|calcs\/\d+\/latest-revision)$/;
 export const STORED_FORM_SAVE_PATH = /^\/api\/revisions\/\d+$/;

@@ -8,7 +8,7 @@ import { sortColumns, type CalcSort } from './calc-list-rows';
 export const SEARCH_LIMITS = {
   /** Calcs looked at for one page: a page not full by then says so, and its `next` searches on. */
   pageBudget: 2_000,
-  /** Candidates read at once, growing fourfold while the page is not full. */
+  /** Candidates read at once (fewer when most are estimated to match), growing fourfold while the page is not full. */
   firstChunk: 200,
   /** A one-word search counts its matches this far, as every walked total (TOTAL_CAP, "at least 1,000"). */
   countCap: TOTAL_CAP,
@@ -29,6 +29,11 @@ export interface Driver {
   isExact: boolean;
   /** A word's index: the word every candidate has, and whether its condition holds the state filter too. */
   term?: { word: string; hasState: boolean };
+  /**
+   * The share of its candidates expected to match the rest of the search, from the indexes' estimates of each
+   * condition as if they were independent; absent when nothing was estimated (one word and no project).
+   */
+  share?: number;
 }
 
 const TERM_INDEX: Record<CalcSort, string> = {
@@ -82,6 +87,7 @@ function filterDriver(filter: SearchFilter, sort: CalcSort): Driver {
  * for a choice the estimate makes as well (the bench's multi-word searches: MariaDB 2.5 → 1.6 ms a search), and a
  * tie at the cap went to the longest word ("DRG-4" walked DRG, in every calc, instead of 4). A word no calc has is
  * estimated at one row or none, so its empty range is walked (or one as small) and the answer is empty at once.
+ * The same EXPLAIN estimates the calcs in all (and in the state filtered on), from which the driver's `share`.
  */
 export async function chooseDriver(
   sequelize: Sequelize,
@@ -93,17 +99,43 @@ export async function chooseDriver(
   if (filter.projectId) drivers.push(filterDriver(filter, sort));
   // One word and no project: nothing to choose between (an unknown word simply walks an empty range).
   if (drivers.length === 1) return drivers[0];
+  const ranges = [
+    ...drivers,
+    { from: 'calcs c', where: ['TRUE'], params: [] as unknown[] },
+    ...(filter.status ? [{ from: 'calcs c', where: ['c.latest_status = ?'], params: [filter.status] }] : []),
+  ];
   const plan = await sequelize.query<{ id: number | null; rows: number | null }>(
-    `EXPLAIN ${drivers.map((d) => `SELECT 1 FROM ${d.from} WHERE ${d.where.join(' AND ')}`).join(' UNION ALL ')}`,
-    { replacements: drivers.flatMap((d) => d.params), type: QueryTypes.SELECT },
+    `EXPLAIN ${ranges.map((d) => `SELECT 1 FROM ${d.from} WHERE ${d.where.join(' AND ')}`).join(' UNION ALL ')}`,
+    { replacements: ranges.flatMap((d) => d.params), type: QueryTypes.SELECT },
   );
   // The plan's rows are numbered by SELECT, 1 for the first; no figure (an impossible condition) means no rows.
-  const sizes = drivers.map((_, i) => Number(plan.find((r) => Number(r.id) === i + 1)?.rows ?? 0));
+  const [calcs, inState, ...sizes] = [drivers.length, drivers.length + 1, ...drivers.keys()].map((i) =>
+    Number(plan.find((r) => Number(r.id) === i + 1)?.rows ?? 0),
+  );
   // Ties go to the longest word, which is the likelier to be rare.
   const best = sizes
     .map((n, i) => ({ n, i, length: words[i]?.length ?? 0 }))
     .sort((a, b) => a.n - b.n || b.length - a.length)[0];
-  return drivers[best.i];
+  return { ...drivers[best.i], share: matchShare(sizes, best.i, { calcs, inState, drivers, filter }) };
+}
+
+/**
+ * The share of the driver's candidates expected to match everything: the estimated matches over the driver's size.
+ * Every range holds the state filter when the word indexes do (then all is counted within that state); a state
+ * filter no range holds (one word, no project, an order the state index does not serve) counts as its own share.
+ */
+function matchShare(
+  sizes: number[],
+  at: number,
+  all: { calcs: number; inState: number; drivers: Driver[]; filter: SearchFilter },
+): number {
+  const withinState = all.drivers[0].term?.hasState ?? false;
+  const universe = withinState ? all.inState : all.calcs;
+  if (universe <= 0 || sizes[at] <= 0) return 1;
+  const stateHeld = withinState || Boolean(all.filter.projectId);
+  let matches = universe * (all.filter.status && !stateHeld ? Math.min(1, all.inState / universe) : 1);
+  for (const n of sizes) matches *= Math.min(1, n / universe);
+  return Math.min(1, matches / sizes[at]);
 }
 
 /**

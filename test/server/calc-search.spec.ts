@@ -307,6 +307,37 @@ describe('where a search starts', () => {
     expect((await search(t, `q=${rare}%20${broad}&size=50`)).items).toHaveLength(3);
   });
 
+  it('when a walk is chosen, then the share of its candidates expected to match is a fraction, whatever the filters', async () => {
+    // Arrange: the share sizes the first read (fewer candidates when most match): never negative, NaN or above 1.
+    const t = await calcTeam(app);
+    const [a, b] = [uniqueWord(), uniqueWord()];
+    for (let i = 0; i < 4; i++) await addCalc(t, `F-${i}`, i < 2 ? `${a} ${b} shaft` : `${a} shaft`);
+    const filters = [
+      {},
+      { projectId: t.project.id },
+      { status: 'draft' as const },
+      { projectId: t.project.id, status: 'draft' as const },
+    ];
+
+    for (const filter of filters)
+      for (const sort of ['updatedAt', 'status', 'number', 'title'] as const)
+        for (const words of [[a, b], ['shaft', a], [a], [uniqueWord(), a]]) {
+          // Act
+          const driver = await chooseDriver(sequelize, words, filter, sort);
+
+          // Assert: estimated wherever there was a choice to make.
+          const share = driver.share ?? 1;
+          expect({ filter, sort, words, finite: Number.isFinite(share), share: share >= 0 && share <= 1 }).toEqual({
+            filter,
+            sort,
+            words,
+            finite: true,
+            share: true,
+          });
+          if (words.length > 1 || filter.projectId) expect(driver.share).toEqual(expect.any(Number));
+        }
+  });
+
   it('when one of the words is in no calc, then the answer is empty and counted as none', async () => {
     const t = await calcTeam(app);
     const w = uniqueWord();

@@ -1,17 +1,40 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
 import type { AuditRecordRef } from '../../shared/schemas/audit.schema';
 
-type Row = { entityType: string; entityId: string | null };
+/** The entity id of audit table `t` as a record's id when it is one: 1 to 15 digits and nothing else. */
+const recordId = (t: string) =>
+  `IF(CHAR_LENGTH(${t}.entity_id) BETWEEN 1 AND 15 AND ${t}.entity_id NOT REGEXP '[^0-9]', ` +
+  `CAST(${t}.entity_id AS UNSIGNED), NULL)`;
 
-/** One part of the look-up per record type (each names its columns: any may come first): id and up to three values. */
-const LOOKUPS: Record<string, string> = {
-  Revision: `SELECT 'Revision' AS type, r.id, c.number AS a, r.label AS b, r.calc_id AS c
-    FROM revisions r JOIN calcs c ON c.id = r.calc_id WHERE r.id IN (?)`,
-  Calc: "SELECT 'Calc' AS type, id, number AS a, NULL AS b, NULL AS c FROM calcs WHERE id IN (?)",
-  Project: "SELECT 'Project' AS type, id, code AS a, NULL AS b, NULL AS c FROM projects WHERE id IN (?)",
-  RuleSet: "SELECT 'RuleSet' AS type, id, code AS a, version AS b, NULL AS c FROM rule_sets WHERE id IN (?)",
-  User: "SELECT 'User' AS type, id, display_name AS a, NULL AS b, NULL AS c FROM users WHERE id IN (?)",
-};
+/**
+ * What each audit row is about, in the words and numbers people use: "KFD-210 calc CV-7 rev B" with a link, not
+ * "Revision 7". Read with the page itself: each row of audit table `t` joined by primary key to the record its type
+ * names, a revision with its calc's number. Read as a statement of its own (one part per record type), the look-up
+ * cost the app a further round trip on every page (DEVELOPERS.md, "Measuring speed").
+ */
+export function recordLookup(t: string): { columns: string; joins: string } {
+  const id = recordId(t);
+  return {
+    columns: `${id} AS recordId, COALESCE(rc.id, cc.id, pp.id, rs.id, uu.id) IS NOT NULL AS recordFound,
+      COALESCE(rc.number, cc.number, pp.code, rs.code, uu.display_name) AS recordA,
+      COALESCE(rv.label, rs.version) AS recordB, rv.calc_id AS recordC`,
+    joins: `LEFT JOIN revisions rv ON ${t}.entity_type = 'Revision' AND rv.id = ${id}
+      LEFT JOIN calcs rc ON rc.id = rv.calc_id
+      LEFT JOIN calcs cc ON ${t}.entity_type = 'Calc' AND cc.id = ${id}
+      LEFT JOIN projects pp ON ${t}.entity_type = 'Project' AND pp.id = ${id}
+      LEFT JOIN rule_sets rs ON ${t}.entity_type = 'RuleSet' AND rs.id = ${id}
+      LEFT JOIN users uu ON ${t}.entity_type = 'User' AND uu.id = ${id}`,
+  };
+}
+
+export interface RecordColumns {
+  entityType: string;
+  entityId: string | null;
+  recordId: number | string | null;
+  recordFound: number | null;
+  recordA: string | null;
+  recordB: string | number | null;
+  recordC: number | null;
+}
 
 interface Found {
   type: string;
@@ -36,35 +59,12 @@ function refOf(r: Found): AuditRecordRef {
   }
 }
 
-/**
- * What each audit row is about, in the words and numbers people use: "KFD-210 calc CV-7 rev B"
- * with a link, not "Revision 7". One statement for the whole page (a part per record type it names, a revision
- * with its calc's number), as plain rows: a statement per type cost more of the app's time than the page itself.
- */
-export async function describeRecords(sequelize: Sequelize, rows: Row[]): Promise<Map<string, AuditRecordRef>> {
-  const ids = new Map<string, Set<number>>();
-  for (const r of rows) {
-    if (!r.entityId || !/^\d{1,15}$/.test(r.entityId) || !LOOKUPS[r.entityType]) continue;
-    const set = ids.get(r.entityType) ?? new Set<number>();
-    ids.set(r.entityType, set.add(Number(r.entityId)));
-  }
-  const out = new Map<string, AuditRecordRef>();
-  if (!ids.size) return out;
-  const types = [...ids.keys()];
-  const found = await sequelize.query<Found>(types.map((t) => `(${LOOKUPS[t]})`).join(' UNION ALL '), {
-    replacements: types.map((t) => [...ids.get(t)!]),
-    type: QueryTypes.SELECT,
-  });
-  for (const r of found) out.set(`${r.type}:${r.id}`, refOf(r));
-  return out;
-}
+const RECORD_TYPES = new Set(['Revision', 'Calc', 'Project', 'RuleSet', 'User']);
 
-export function recordOf(refs: Map<string, AuditRecordRef>, row: Row): AuditRecordRef {
+/** A row's record in words; a type that names no stored record (the review settings) is named as written. */
+export function recordOf(row: RecordColumns): AuditRecordRef {
   if (!row.entityId) return { label: row.entityType, link: null };
-  return (
-    refs.get(`${row.entityType}:${row.entityId}`) ?? {
-      label: `${row.entityType} ${row.entityId} (no longer stored)`,
-      link: null,
-    }
-  );
+  if (!RECORD_TYPES.has(row.entityType)) return { label: `${row.entityType} ${row.entityId}`, link: null };
+  if (!Number(row.recordFound)) return { label: `${row.entityType} ${row.entityId} (no longer stored)`, link: null };
+  return refOf({ type: row.entityType, id: Number(row.recordId), a: row.recordA!, b: row.recordB, c: row.recordC });
 }

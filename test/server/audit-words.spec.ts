@@ -1,5 +1,7 @@
 import { startTestApp, signedInAs, uniqueCode } from '../support/api-harness';
 import { calcTeam, sign } from '../support/calc-harness';
+import { draftStandard } from '../support/standard-harness';
+import { recordOf } from '../../server/audit/audit-records';
 
 // The audit trail as a compliance officer reads it: what each row is about, named as people name it,
 // with a link; and the people in the trail for the person filter.
@@ -40,6 +42,33 @@ describe('audit trail in human words', () => {
       res.body.items.find((e: { entityType: string }) => e.entityType === type)?.record;
     expect(recordOf('Project')).toEqual({ label: `project ${code}`, link: `/projects/${created.body.id}` });
     expect(recordOf('User')).toEqual({ label: 'account of Test audit-words-admin', link: null });
+  });
+
+  it('when a standard is drafted, then its row names the standard and version with a link', async () => {
+    const { drafter, draft } = await draftStandard(app);
+    const compliance = await signedInAs(app, ['compliance'], 'audit-words');
+
+    const res = await compliance.session.get(`/api/audit?userId=${drafter.user.id}&action=rule_set.&size=50`);
+
+    expect(res.status).toBe(200);
+    expect(res.body.items.find((e: { entityId: string }) => e.entityId === String(draft.id))?.record).toEqual({
+      label: `standard ${draft.code} v${draft.version}`,
+      link: `/rule-sets/${draft.id}`,
+    });
+  });
+
+  it.each([
+    ['a record no longer stored', { entityType: 'Calc', entityId: '99999999' }, 'Calc 99999999 (no longer stored)'],
+    ['a number with more after it', { entityType: 'Calc', entityId: '12abc' }, 'Calc 12abc (no longer stored)'],
+    [
+      'the review settings, no stored record',
+      { entityType: 'Settings', entityId: 'review-health' },
+      'Settings review-health',
+    ],
+    ['no record named', { entityType: 'User', entityId: null }, 'User'],
+  ])('when a row names %s, then it says so in words and links nowhere', (_, row, label) => {
+    const found = { recordId: null, recordFound: 0, recordA: null, recordB: null, recordC: null };
+    expect(recordOf({ ...row, ...found })).toEqual({ label, link: null });
   });
 
   it('when compliance opens the person filter, then the people in the trail are listed by name', async () => {

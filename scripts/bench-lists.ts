@@ -8,7 +8,7 @@ import { createSequelize } from '../server/db';
 import { BENCH_PASSWORD } from './bench-seed-data';
 import { line, load, msText, signIn, startServer } from './bench-http';
 import { endpointsOf } from './bench-lists-endpoints';
-import { chainCeiling, cpuSeconds, databasePid, saves } from './bench-writes';
+import { chainCeiling, cpuSeconds, databasePid, dbStatus, saves } from './bench-writes';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
 /**
@@ -65,7 +65,10 @@ async function main(): Promise<void> {
       const cpuBefore = cpuSeconds(server.child.pid);
       const dbBefore = cpuSeconds(dbPid);
       const clientBefore = process.cpuUsage();
+      const statusBefore = await dbStatus(sequelize);
       const busy = await load(server.url, session, paths, CONNECTIONS, SECONDS);
+      // Statements the app sent per answer (the session's look-up included), each a round trip and a parse.
+      const statements = ((await dbStatus(sequelize)).Questions - statusBefore.Questions - 1) / busy.requests;
       // The app process's CPU per answer moves far less with other jobs' load than the wall-clock figures; MariaDB's
       // (its whole process, so other clients of the same server count too) says what the statements cost, and the load
       // generator's (this process: autocannon's requests and reading the answers) what the two cores lose to it.
@@ -74,7 +77,7 @@ async function main(): Promise<void> {
       const client = process.cpuUsage(clientBefore);
       const clientCpu = (client.user + client.system) / 1000 / busy.requests;
       console.log(
-        `${line(name, busy).replace(name.padEnd(46), `${name.padEnd(46)} ${msText(alone.p50)}`)}  ${loadavg()[0].toFixed(1)}  app CPU ${cpu.toFixed(1)} ms, MariaDB ${dbCpu.toFixed(1)} ms, load generator ${clientCpu.toFixed(1)} ms${alone.errors ? `  (alone: ${alone.errors} failed or timed out)` : ''}`,
+        `${line(name, busy).replace(name.padEnd(46), `${name.padEnd(46)} ${msText(alone.p50)}`)}  ${loadavg()[0].toFixed(1)}  app CPU ${cpu.toFixed(1)} ms, MariaDB ${dbCpu.toFixed(1)} ms, load generator ${clientCpu.toFixed(1)} ms, statements ${statements.toFixed(1)}${alone.errors ? `  (alone: ${alone.errors} failed or timed out)` : ''}`,
       );
     }
     console.log('  targets: p95 ≤ 50 ms each (32 concurrent), every line but the first ("for scale")');

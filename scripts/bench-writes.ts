@@ -85,7 +85,7 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number, 
 }
 
 /** MariaDB's own counters (statements the clients sent, bytes both ways), from its global status. */
-async function dbStatus(sequelize: Sequelize): Promise<Record<string, number>> {
+export async function dbStatus(sequelize: Sequelize): Promise<Record<string, number>> {
   const rows = await sequelize.query<{ Variable_name: string; Value: string }>(
     "SHOW GLOBAL STATUS WHERE Variable_name IN ('Questions', 'Bytes_received', 'Bytes_sent')",
     { type: QueryTypes.SELECT },

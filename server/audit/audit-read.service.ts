@@ -67,17 +67,16 @@ export async function listAudit(
   const sequelize = AuditEvent.sequelize!;
   const offset = query.after ? 0 : (query.page ?? 0) * query.size;
   // Sequelize writes the filter, order and bounds; the row is read with its record, so the columns are named here.
-  const parts = selectSql(AuditEvent, {
-    where: auditWhere(query),
-    attributes: ['id'],
-    order: [['id', 'DESC']],
-    offset,
-    limit: query.size + 1,
-  })
-    .replace(/;$/, '')
-    .split(FROM);
-  if (parts.length !== 2) throw new Error(`The audit page's statement has no ${FROM}: ${parts[0]}`);
-  const filter = parts[1];
+  const [, filter] = atFirst(
+    selectSql(AuditEvent, {
+      where: auditWhere(query),
+      attributes: ['id'],
+      order: [['id', 'DESC']],
+      offset,
+      limit: query.size + 1,
+    }).replace(/;$/, ''),
+    FROM,
+  );
   const count = query.after ? null : countSql(query);
   // A page past the first by offset counts on its own: past the end it has no row to carry the count.
   const inline = count && offset === 0 ? count : null;
@@ -111,12 +110,22 @@ function countSql(query: Omit<AuditQuery, 'page'>): { fromWhere: string; params:
   const sql = selectOne({ ...query, after: undefined, ...(byAction ? { action: undefined } : {}) });
   const from = sql.replace(/^SELECT 1 AS `one` /, '').replace(/;$/, '');
   if (!byAction) return { fromWhere: from, params: [] };
-  const [table, where] = from.split(/ WHERE /);
+  const [table, where] = atFirst(from, ' WHERE ');
   const actions = 'SELECT DISTINCT action FROM audit_events WHERE action LIKE ?';
   return {
     fromWhere: `${table} JOIN (${actions}) actions ON actions.action = \`AuditEvent\`.action WHERE ${where}`,
     params: [likePrefix(query.action!)],
   };
+}
+
+/**
+ * A statement Sequelize wrote, cut at the first `marker`: the clause itself, which comes before any value. A filter's
+ * text may hold the same words inside its quoted value (`action=x FROM …`), so only the first is the clause.
+ */
+function atFirst(sql: string, marker: string): [string, string] {
+  const at = sql.indexOf(marker);
+  if (at < 0) throw new Error(`Sequelize wrote the audit statement without "${marker.trim()}": ${sql.slice(0, 200)}`);
+  return [sql.slice(0, at), sql.slice(at + marker.length)];
 }
 
 // Attribute names become column names as findAll would map them (projectId → project_id).

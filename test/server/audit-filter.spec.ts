@@ -78,4 +78,19 @@ describe('audit trail filters', () => {
     expect(res.status).toBe(400);
     expect(res.body.fieldErrors['query.from']).toBeDefined();
   });
+
+  it.each([
+    ['an action naming the table', { action: 'x FROM `audit_events` AS `AuditEvent`' }],
+    ['a record type with WHERE in it, within a project, by action', { entityType: 'a WHERE b', action: 'revision.' }],
+    ['quotes, a question mark and a backslash', { action: "it's? \\ x", entityType: '`?`' }],
+  ])('when a filter holds %s, then the page is answered, empty and counted as none', async (_, filter) => {
+    const { project } = await calcTeam(app);
+    const { session: auditor } = await signedInAs(app, ['compliance']);
+    const q = new URLSearchParams({ ...filter, projectId: String(project.id), size: '50' });
+
+    const res = await auditor.get(`/api/audit?${q}`);
+
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ items: [], total: 0, totalIsAtLeast: false, next: null });
+  });
 });

@@ -71,14 +71,35 @@ export async function signIn(url: string, username: string, password: string): P
   return { cookie: cookiesOf(login, cookiesOf(first)), csrf: body.csrfToken };
 }
 
-/** `connections` concurrent connections for `seconds`, each request on the next of `paths`. */
+/**
+ * `connections` concurrent connections for `seconds`, each request on the next of `paths`; with several app instances
+ * (`url` a list), the connections are shared out among them and their answers counted together.
+ */
 export async function load(
-  url: string,
+  url: string | string[],
   session: Session,
   paths: string[],
   connections: number,
   seconds: number,
 ): Promise<Figures> {
+  const urls = typeof url === 'string' ? [url] : url;
+  const runs = await Promise.all(
+    urls.map((u, k) => answers(u, session, paths, Math.ceil((connections - k) / urls.length), seconds)),
+  );
+  return figuresOf(
+    runs.flatMap((r) => r.latencies),
+    seconds,
+    runs.reduce((n, r) => n + r.errors, 0),
+  );
+}
+
+async function answers(
+  url: string,
+  session: Session,
+  paths: string[],
+  connections: number,
+  seconds: number,
+): Promise<{ latencies: number[]; errors: number }> {
   const latencies: number[] = [];
   let errors = 0;
   let i = 0;
@@ -99,7 +120,7 @@ export async function load(
       else errors++;
     });
   });
-  return figuresOf(latencies, seconds, errors + result.errors + result.timeouts);
+  return { latencies, errors: errors + result.errors + result.timeouts };
 }
 
 /** "12.3 ms", or "no answer" where no request was answered in time (never a NaN in the figures). */

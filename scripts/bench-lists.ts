@@ -17,6 +17,11 @@ const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
  */
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 32);
 const ALONE_SECONDS = Number(process.env.BENCH_ALONE_SECONDS ?? 5);
+/**
+ * App instances sharing the connections (BENCH_APPS=2: one per core of this machine, as README "Scaling out" advises).
+ * One by default, so that the figures compare with every earlier run (DEVELOPERS.md, "Measuring speed").
+ */
+const APPS = Math.max(1, Math.trunc(Number(process.env.BENCH_APPS ?? 1)) || 1);
 /** BENCH_ONLY=search runs only the endpoints whose name matches (and the saves only if it matches "saves"). */
 const ONLY = process.env.BENCH_ONLY ? new RegExp(process.env.BENCH_ONLY, 'i') : null;
 
@@ -38,14 +43,20 @@ async function main(): Promise<void> {
     "SELECT u.username, u.id FROM users u JOIN user_roles r ON r.user_id = u.id AND r.role = 'compliance' WHERE u.username LIKE 'kfd-%' LIMIT 1",
   );
   const dbPid = await databasePid(sequelize);
-  const server = await startServer({
+  const env = {
     LOG_LEVEL: 'silent',
     MAIL_SENDER: 'false',
     LOGIN_RATE_LIMIT: '10000',
     NODE_ENV: 'production',
     TLS: 'false',
-  });
+  };
+  const servers = await Promise.all(Array.from({ length: APPS }, () => startServer(env)));
+  const [server] = servers;
+  const urls = servers.map((s) => s.url);
+  // The app's CPU is every instance's together.
+  const appCpu = () => servers.reduce((sum, s) => sum + cpuSeconds(s.child.pid), 0);
   try {
+    // Sessions live in the database, so one signed in on the first instance is signed in on every other.
     const compliance = await signIn(server.url, auditor.username, BENCH_PASSWORD);
     const worker = await signIn(server.url, dual.username, BENCH_PASSWORD);
     // Only the list endpoints need a deep page's cursor: BENCH_ONLY=saves skips walking there.
@@ -54,7 +65,7 @@ async function main(): Promise<void> {
       ([name]) => !ONLY || ONLY.test(name),
     );
     console.log(
-      `Lists and reads · alone (1 connection, ${ALONE_SECONDS} s) then ${CONNECTIONS} concurrent connections (${SECONDS} s) · one app process (DB_POOL_MAX ${process.env.DB_POOL_MAX ?? 10}) · ${cpus().length} cores`,
+      `Lists and reads · alone (1 connection, ${ALONE_SECONDS} s) then ${CONNECTIONS} concurrent connections (${SECONDS} s) · ${APPS === 1 ? 'one app process' : `${APPS} app processes`} (DB_POOL_MAX ${process.env.DB_POOL_MAX ?? 10}) · ${cpus().length} cores`,
     );
     // Other jobs on the machine change every figure; the 1-minute load average is printed beside each.
     console.log(
@@ -62,17 +73,17 @@ async function main(): Promise<void> {
     );
     for (const [name, session, paths] of endpoints) {
       const alone = await load(server.url, session, paths, 1, ALONE_SECONDS);
-      const cpuBefore = cpuSeconds(server.child.pid);
+      const cpuBefore = appCpu();
       const dbBefore = cpuSeconds(dbPid);
       const clientBefore = process.cpuUsage();
       const statusBefore = await dbStatus(sequelize);
-      const busy = await load(server.url, session, paths, CONNECTIONS, SECONDS);
+      const busy = await load(urls, session, paths, CONNECTIONS, SECONDS);
       // Statements the app sent per answer (the session's look-up included), each a round trip and a parse.
       const statements = ((await dbStatus(sequelize)).Questions - statusBefore.Questions - 1) / busy.requests;
       // The app process's CPU per answer moves far less with other jobs' load than the wall-clock figures; MariaDB's
       // (its whole process, so other clients of the same server count too) says what the statements cost, and the load
       // generator's (this process: autocannon's requests and reading the answers) what the two cores lose to it.
-      const cpu = ((cpuSeconds(server.child.pid) - cpuBefore) * 1000) / busy.requests;
+      const cpu = ((appCpu() - cpuBefore) * 1000) / busy.requests;
       const dbCpu = ((cpuSeconds(dbPid) - dbBefore) * 1000) / busy.requests;
       const client = process.cpuUsage(clientBefore);
       const clientCpu = (client.user + client.system) / 1000 / busy.requests;
@@ -81,9 +92,9 @@ async function main(): Promise<void> {
       );
     }
     console.log('  targets: p95 ≤ 50 ms each (32 concurrent), every line but the first ("for scale")');
-    if (!ONLY || ONLY.test('saves')) await saves(server.url, sequelize, SECONDS, server.child.pid);
+    if (!ONLY || ONLY.test('saves')) await saves(urls, sequelize, SECONDS, appCpu);
   } finally {
-    server.child.kill('SIGTERM');
+    for (const s of servers) s.child.kill('SIGTERM');
   }
   if (!ONLY || ONLY.test('saves')) await chainCeiling(sequelize, SECONDS);
   await sequelize.close();

@@ -17,20 +17,27 @@ interface Draft {
 }
 
 /** Twenty authors each save their own draft as fast as the server answers, for `seconds`. */
-export async function saves(url: string, sequelize: Sequelize, seconds: number, serverPid?: number): Promise<void> {
+/** 20 writers on their own drafts, shared out among the app instances at `urls`; `appCpu` reads their CPU seconds. */
+export async function saves(
+  urls: string[],
+  sequelize: Sequelize,
+  seconds: number,
+  appCpu: () => number,
+): Promise<void> {
   const drafts = await sequelize.query<Draft>(
     `SELECT u.username, r.id AS revisionId, r.lock_version AS lockVersion, r.input FROM users u
      JOIN calcs c ON c.id = (SELECT c2.id FROM calcs c2 WHERE c2.latest_author_id = u.id AND c2.latest_status = 'draft' ORDER BY c2.id LIMIT 1)
      JOIN revisions r ON r.id = c.latest_revision_id WHERE u.username LIKE 'kfd-%' ORDER BY u.id LIMIT ${WRITERS}`,
     { type: QueryTypes.SELECT },
   );
-  const sessions = await Promise.all(drafts.map((d) => signIn(url, d.username, BENCH_PASSWORD)));
+  const urlOf = (w: number) => urls[w % urls.length];
+  const sessions = await Promise.all(drafts.map((d, w) => signIn(urlOf(w), d.username, BENCH_PASSWORD)));
   const latencies: number[] = [];
   const phases = new Map<string, number[]>();
   let failures = 0;
   const until = performance.now() + seconds * 1000;
   const dbPid = await databasePid(sequelize);
-  const cpuBefore = cpuSeconds(serverPid);
+  const cpuBefore = appCpu();
   const dbBefore = { cpu: cpuSeconds(dbPid), status: await dbStatus(sequelize) };
   await Promise.all(
     drafts.map(async (draft, w) => {
@@ -40,7 +47,7 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number, 
         // Each save changes the body diameter a little, so the engine and the diff have real work.
         input.segments[3].od = 60 + (n % 5);
         const t0 = performance.now();
-        const res = await fetch(`${url}/api/revisions/${draft.revisionId}`, {
+        const res = await fetch(`${urlOf(w)}/api/revisions/${draft.revisionId}`, {
           method: 'PUT',
           // As the browser saves: the answer's result and checklist as stored (shared/schemas/revision-form.ts).
           headers: {
@@ -70,7 +77,7 @@ export async function saves(url: string, sequelize: Sequelize, seconds: number, 
   console.log('  target: ≥ 150 saves/s with p95 ≤ 150 ms');
   printPhases(phases);
   // CPU seconds hardly move with other jobs' load, so they compare two versions better than wall-clock figures.
-  const cpu = cpuSeconds(serverPid) - cpuBefore;
+  const cpu = appCpu() - cpuBefore;
   const dbCpu = cpuSeconds(dbPid) - dbBefore.cpu;
   const status = await dbStatus(sequelize);
   const per = (name: string) => ((status[name] - dbBefore.status[name]) / latencies.length).toFixed(1);

@@ -16,8 +16,10 @@ interface Draft {
   input: string;
 }
 
-/** Twenty authors each save their own draft as fast as the server answers, for `seconds`. */
-/** 20 writers on their own drafts, shared out among the app instances at `urls`; `appCpu` reads their CPU seconds. */
+/**
+ * Twenty authors each save their own draft as fast as the server answers, for `seconds`, shared out among the app
+ * instances at `urls`; `appCpu` reads their CPU seconds together.
+ */
 export async function saves(
   urls: string[],
   sequelize: Sequelize,

@@ -59,12 +59,19 @@ function refOf(r: Found): AuditRecordRef {
   }
 }
 
+/** The record types `recordLookup` joins: a row of another type names no stored record. */
 const RECORD_TYPES = new Set(['Revision', 'Calc', 'Project', 'RuleSet', 'User']);
 
-/** A row's record in words; a type that names no stored record (the review settings) is named as written. */
+/** What is named by a key rather than a stored record, in the words of the screen that shows it. */
+const NAMED: Record<string, AuditRecordRef> = {
+  'Settings:review-health': { label: 'review-health thresholds', link: '/review-health' },
+};
+
+/** A row's record in words. */
 export function recordOf(row: RecordColumns): AuditRecordRef {
   if (!row.entityId) return { label: row.entityType, link: null };
-  if (!RECORD_TYPES.has(row.entityType)) return { label: `${row.entityType} ${row.entityId}`, link: null };
+  if (!RECORD_TYPES.has(row.entityType))
+    return NAMED[`${row.entityType}:${row.entityId}`] ?? { label: `${row.entityType} ${row.entityId}`, link: null };
   if (!Number(row.recordFound)) return { label: `${row.entityType} ${row.entityId} (no longer stored)`, link: null };
   return refOf({ type: row.entityType, id: Number(row.recordId), a: row.recordA!, b: row.recordB, c: row.recordC });
 }

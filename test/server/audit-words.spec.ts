@@ -60,15 +60,19 @@ describe('audit trail in human words', () => {
   it.each([
     ['a record no longer stored', { entityType: 'Calc', entityId: '99999999' }, 'Calc 99999999 (no longer stored)'],
     ['a number with more after it', { entityType: 'Calc', entityId: '12abc' }, 'Calc 12abc (no longer stored)'],
-    [
-      'the review settings, no stored record',
-      { entityType: 'Settings', entityId: 'review-health' },
-      'Settings review-health',
-    ],
+    ['a key of no record the product knows', { entityType: 'Settings', entityId: 'other' }, 'Settings other'],
     ['no record named', { entityType: 'User', entityId: null }, 'User'],
   ])('when a row names %s, then it says so in words and links nowhere', (_, row, label) => {
     const found = { recordId: null, recordFound: 0, recordA: null, recordB: null, recordC: null };
     expect(recordOf({ ...row, ...found })).toEqual({ label, link: null });
+  });
+
+  it('when a row names the review-health thresholds, then it says so as their screen does, with its link', () => {
+    const row = { entityType: 'Settings', entityId: 'review-health', recordId: null, recordFound: 0 };
+    expect(recordOf({ ...row, recordA: null, recordB: null, recordC: null })).toEqual({
+      label: 'review-health thresholds',
+      link: '/review-health',
+    });
   });
 
   it('when compliance opens the person filter, then the people in the trail are listed by name', async () => {

@@ -99,6 +99,11 @@ export const REQUEST_FIELDS: Record<string, string> = {
   // A period's ends (audit trail, review health): the screens' own words.
   from: 'From',
   to: 'To',
+  // The audit trail's other filters, as its screen labels them.
+  userId: 'Person',
+  calcId: 'Calc',
+  entityType: 'Record type',
+  action: 'Action',
   reason: 'Reason',
   reasonForChange: 'Reason for the change',
   password: 'Your password',

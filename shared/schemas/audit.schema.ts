@@ -1,7 +1,8 @@
 import { z } from 'zod';
 import { decimalId, pageQuerySchema } from './common.schema';
 
-const id = decimalId().optional();
+// An id in the address: a whole number from 1 (a negative one is a number too, so the message says which).
+const id = decimalId('a whole number from 1').optional();
 const day = z.iso.date({ error: 'must be a date (YYYY-MM-DD)' }).optional();
 
 export const auditQuerySchema = pageQuerySchema

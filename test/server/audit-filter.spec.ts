@@ -93,4 +93,18 @@ describe('audit trail filters', () => {
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ items: [], total: 0, totalIsAtLeast: false, next: null });
   });
+
+  it.each([
+    ['userId=-1', 'userId', 'Person'],
+    ['calcId=1e309', 'calcId', 'Calc'],
+    ['projectId=__proto__', 'projectId', 'Project'],
+  ])('when the address says %s, then 400 naming the filter as the screen does', async (query, field, label) => {
+    const { session: auditor } = await signedInAs(app, ['compliance']);
+
+    const res = await auditor.get(`/api/audit?${query}`);
+
+    expect(res.status).toBe(400);
+    expect(res.body.fieldErrors).toEqual({ [`query.${field}`]: ['must be a whole number from 1'] });
+    expect(res.body.message).toBe(`Invalid input — ${label}: must be a whole number from 1`);
+  });
 });

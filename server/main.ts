@@ -5,6 +5,7 @@ import { createSequelize } from './db';
 import { closeApp, createApp } from './app';
 import { logger } from './logger';
 import { startMailSender } from './mail/start-sender';
+import { startSearchRestamp } from './calcs/search-restamp';
 
 async function main(): Promise<void> {
   const config = loadConfig();
@@ -17,6 +18,7 @@ async function main(): Promise<void> {
   }
   const app = createApp({ sequelize, config });
   const mailSender = startMailSender(sequelize, config);
+  const restamp = startSearchRestamp(sequelize);
   const server: Server = app.listen(config.PORT, config.HOST, () => {
     const address = server.address();
     const port = typeof address === 'object' && address ? address.port : config.PORT;
@@ -35,6 +37,7 @@ async function main(): Promise<void> {
       () =>
         void closeApp(app)
           .then(() => mailSender.stop())
+          .then(() => restamp.stop())
           .then(() => sequelize.close())
           .finally(() => process.exit(0)),
     );

@@ -25,6 +25,12 @@ export interface Driver {
   where: string[];
   params: unknown[];
   columns: KeyColumn[];
+  /**
+   * A word's index walked by last change: calcs saved since their terms were written keep their last change in
+   * `calc_search_moved`, not in the term rows (migration 20261231-16), so the walk leaves them out of the index and
+   * takes them from that table at their true time (calc-search.ts, `walkSql`).
+   */
+  moved?: boolean;
   /** True when the driver's own condition is the whole search, so every candidate matches. */
   isExact: boolean;
   /** A word's index: the word every candidate has, and whether its condition holds the state filter too. */
@@ -51,6 +57,7 @@ function termDriver(word: string, words: string[], filter: SearchFilter, sort: C
     where: hasState ? ['t.term = ?', 't.latest_status = ?'] : ['t.term = ?'],
     params: hasState ? [word, filter.status] : [word],
     columns: sortColumns(sort, 't', 'calc_id'),
+    moved: sort === 'updatedAt' || sort === 'status',
     isExact: words.length === 1 && !filter.projectId && (!filter.status || hasState),
     term: { word, hasState },
   };

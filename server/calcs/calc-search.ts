@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import { TOTAL_CAP, cappedCountSql, cappedTotal, keysetCondition, orderBy } from '../http/keyset';
+import { TOTAL_CAP, cappedCountSql, cappedTotal, keysetCondition, orderBy, type KeyColumn } from '../http/keyset';
 import {
   CALC_ROW_COLUMNS,
   CALC_ROW_JOINS,
@@ -71,28 +71,24 @@ async function candidates(
   after: KeyValue[] | null,
   limit: number,
 ): Promise<Chunk> {
-  const where = [...d.where];
-  const params = [...d.params];
-  if (after) {
-    const k = keysetCondition(d.columns, after, r.dir);
-    where.push(k.sql);
-    params.push(...k.replacements);
-  }
-  const keys = d.columns.map((c, i) => `${c.sql} AS k${i}`).join(', ');
-  const match = matchColumn(d, r);
-  const chunk = `SELECT ${keys}, ${match.sql} AS ok FROM ${d.from} WHERE ${where.join(' AND ')}
-      ORDER BY ${orderBy(d.columns, r.dir)} LIMIT ${limit}`;
+  // With calcs from two sources, the match is checked on the merged walk's candidates (`merged`: the match's own
+  // look-ups name their tables w and c).
+  const match = matchColumn(d.moved ? { ...d, columns: keyAliases(d, 'merged') } : d, r);
+  const walk = walkSql(d, r.dir, after, limit, d.moved ? undefined : match);
+  const chunk = d.moved
+    ? {
+        sql: `SELECT merged.*, ${match.sql} AS ok FROM (${walk.sql}) merged`,
+        params: [...match.params, ...walk.params],
+      }
+    : walk;
   // The chunk's rows keep their column types (an ENUM still sorts by its declared order), so numbering them in
   // the same order finds the last one.
-  const numbered = orderBy(
-    d.columns.map((c, i) => ({ ...c, sql: `y.k${i}` })),
-    r.dir,
-  );
+  const numbered = orderBy(keyAliases(d, 'y'), r.dir);
   const rows = await select<Record<string, string | number | Date>>(
     db,
     `SELECT * FROM (SELECT y.*, ROW_NUMBER() OVER (ORDER BY ${numbered}) AS rn, COUNT(*) OVER () AS seen
-        FROM (${chunk}) y) z WHERE z.ok = 1 OR z.rn = z.seen ORDER BY z.rn`,
-    [...match.params, ...params],
+        FROM (${chunk.sql}) y) z WHERE z.ok = 1 OR z.rn = z.seen ORDER BY z.rn`,
+    chunk.params,
   );
   const list = rows.map((row): Candidate => {
     const key = d.columns.map((c, i) => (c.isDate ? new Date(row[`k${i}`]).toISOString() : row[`k${i}`])) as KeyValue[];
@@ -101,6 +97,55 @@ async function candidates(
   const seen = Number(rows[0]?.seen ?? 0);
   return { matches: list.filter((c) => c.ok), seen, last: list.length ? list[list.length - 1].key : null };
 }
+
+/** The driver's key columns as the walk's output names them (k0, k1, …) on a derived table. */
+const keyAliases = (d: Driver, table: string) => d.columns.map((c, i) => ({ ...c, sql: `${table}.k${i}` }));
+
+/**
+ * The driver's next `limit` candidates after `after`, in the list's order, as key columns k0, k1, … (the last the
+ * calc id), with the match as `ok` when given. A walk by last change (`moved`) merges two sources: the word's index
+ * without the calcs saved since their terms were written, and those calcs from `calc_search_moved` at their true
+ * last change, each read no further than `limit`.
+ */
+function walkSql(
+  d: Driver,
+  dir: 'asc' | 'desc',
+  after: KeyValue[] | null,
+  limit: number,
+  match?: { sql: string; params: unknown[] },
+): { sql: string; params: unknown[] } {
+  const source = (columns: KeyColumn[], from: string, where: string[], params: unknown[]) => {
+    const all = [...where];
+    const values = [...params];
+    if (after) {
+      const k = keysetCondition(columns, after, dir);
+      all.push(k.sql);
+      values.push(...k.replacements);
+    }
+    const keys = columns.map((c, i) => `${c.sql} AS k${i}`).join(', ');
+    const ok = match ? `, ${match.sql} AS ok` : '';
+    return {
+      sql: `SELECT ${keys}${ok} FROM ${from} WHERE ${all.join(' AND ')} ORDER BY ${orderBy(columns, dir)} LIMIT ${limit}`,
+      params: [...(match?.params ?? []), ...values],
+    };
+  };
+  if (!d.moved) return source(d.columns, d.from, d.where, d.params);
+  const saved = d.columns.map((c) => (c.sql === 't.latest_updated_at' ? { ...c, sql: 'm.latest_updated_at' } : c));
+  const indexed = source(d.columns, d.from, [...d.where, `NOT EXISTS (${MOVED_ROW} m.calc_id = t.calc_id)`], d.params);
+  const moved = source(
+    saved,
+    `calc_search_moved m JOIN calc_search_terms t ON t.calc_id = m.calc_id`,
+    d.where,
+    d.params,
+  );
+  return {
+    sql: `SELECT u.* FROM ((${indexed.sql}) UNION ALL (${moved.sql})) u
+      ORDER BY ${orderBy(keyAliases(d, 'u'), dir)} LIMIT ${limit}`,
+    params: [...indexed.params, ...moved.params],
+  };
+}
+
+const MOVED_ROW = 'SELECT 1 FROM calc_search_moved m WHERE';
 
 /**
  * One page of a search: walks the driver's index in the list's order, each chunk of candidates
@@ -178,26 +223,18 @@ async function rowsOf(db: Sequelize, shown: Candidate[]): Promise<CalcRow[]> {
  * transaction), so the rows sort as the walk.
  */
 async function exactPage(db: Sequelize, d: Driver, r: SearchRequest): Promise<SearchPage> {
-  const where = [...d.where];
-  const params = [...d.params];
-  if (r.after) {
-    const k = keysetCondition(d.columns, r.after, r.dir);
-    where.push(k.sql);
-    params.push(...k.replacements);
-  }
-  const id = d.columns[d.columns.length - 1].sql;
   const cap = SEARCH_LIMITS.countCap;
   const count = r.after
     ? ''
     : `, ${cappedCountSql(`FROM ${d.from} WHERE ${d.where.join(' AND ')}`, cap)} AS listed_total`;
+  const walk = walkSql(d, r.dir, r.after, r.size + 1);
   const rows = await select<CalcRow & { listed_total?: number }>(
     db,
     `SELECT ${CALC_ROW_COLUMNS}${count}
-    FROM (SELECT ${id} AS calc_id FROM ${d.from} WHERE ${where.join(' AND ')}
-      ORDER BY ${orderBy(d.columns, r.dir)} LIMIT ${r.size + 1}) y
-    JOIN calcs c ON c.id = y.calc_id ${CALC_ROW_JOINS}
+    FROM (${walk.sql}) y
+    JOIN calcs c ON c.id = y.k${d.columns.length - 1} ${CALC_ROW_JOINS}
     ORDER BY ${orderBy(sortColumns(r.sort, 'c', 'id'), r.dir)}`,
-    [...(r.after ? [] : d.params), ...params],
+    [...(r.after ? [] : d.params), ...walk.params],
   );
   const shown = rows.slice(0, r.size);
   const next = rows.length > r.size ? keyOf(shown[shown.length - 1], r.sort) : null;

@@ -220,7 +220,7 @@ async function rowsOf(db: Sequelize, shown: Candidate[]): Promise<CalcRow[]> {
  * A one-word search with no other condition in one statement: the word's index entries of the page in the list's
  * order, their calcs' rows, and on a first page the word's count (index entries alone, up to
  * SEARCH_LIMITS.countCap). The entries carry their calc's sort values (kept by the same triggers, in the same
- * transaction), so the rows sort as the walk.
+ * transaction; a last change a save moved, from `calc_search_moved`, see `walkSql`), so the rows sort as the walk.
  */
 async function exactPage(db: Sequelize, d: Driver, r: SearchRequest): Promise<SearchPage> {
   const cap = SEARCH_LIMITS.countCap;

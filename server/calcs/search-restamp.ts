@@ -12,22 +12,27 @@ export const RESTAMP = { quietSeconds: 300, batch: 200, pollSeconds: 60 };
  * writes a new one; a save that came first made its row too new to be taken. Returns the calcs folded back.
  */
 export async function restampOnce(sequelize: Sequelize, quietSeconds = RESTAMP.quietSeconds): Promise<number> {
-  return runTransaction(sequelize, async (transaction) => {
-    const rows = await sequelize.query<{ calc_id: number }>(
-      `SELECT calc_id FROM calc_search_moved FORCE INDEX (moved_updated)
+  return runTransaction(
+    sequelize,
+    async (transaction) => {
+      const rows = await sequelize.query<{ calc_id: number }>(
+        `SELECT calc_id FROM calc_search_moved FORCE INDEX (moved_updated)
       WHERE latest_updated_at < NOW(3) - INTERVAL ? SECOND ORDER BY latest_updated_at LIMIT ? FOR UPDATE`,
-      { replacements: [quietSeconds, RESTAMP.batch], type: QueryTypes.SELECT, transaction },
-    );
-    if (rows.length === 0) return 0;
-    const ids = rows.map((r) => Number(r.calc_id));
-    await sequelize.query(
-      `UPDATE calc_search_terms t JOIN calc_search_moved m ON m.calc_id = t.calc_id
+        { replacements: [quietSeconds, RESTAMP.batch], type: QueryTypes.SELECT, transaction },
+      );
+      if (rows.length === 0) return 0;
+      const ids = rows.map((r) => Number(r.calc_id));
+      await sequelize.query(
+        `UPDATE calc_search_terms t JOIN calc_search_moved m ON m.calc_id = t.calc_id
       SET t.latest_updated_at = m.latest_updated_at WHERE m.calc_id IN (?)`,
-      { replacements: [ids], transaction },
-    );
-    await sequelize.query('DELETE FROM calc_search_moved WHERE calc_id IN (?)', { replacements: [ids], transaction });
-    return ids.length;
-  });
+        { replacements: [ids], transaction },
+      );
+      await sequelize.query('DELETE FROM calc_search_moved WHERE calc_id IN (?)', { replacements: [ids], transaction });
+      return ids.length;
+    },
+    // Run again after a COMMIT that may have landed, it finds the rows gone, or unchanged: the same fold.
+    { idempotent: true },
+  );
 }
 
 /**

@@ -71,24 +71,18 @@ async function candidates(
   after: KeyValue[] | null,
   limit: number,
 ): Promise<Chunk> {
-  // With calcs from two sources, the match is checked on the merged walk's candidates (`merged`: the match's own
-  // look-ups name their tables w and c).
-  const match = matchColumn(d.moved ? { ...d, columns: keyAliases(d, 'merged') } : d, r);
+  // With calcs from two sources, the match is checked on the merged walk's candidates, as they are numbered.
+  const match = matchColumn(d.moved ? { ...d, columns: keyAliases(d, 'y') } : d, r);
   const walk = walkSql(d, r.dir, after, limit, d.moved ? undefined : match);
-  const chunk = d.moved
-    ? {
-        sql: `SELECT merged.*, ${match.sql} AS ok FROM (${walk.sql}) merged`,
-        params: [...match.params, ...walk.params],
-      }
-    : walk;
+  const ok = d.moved ? `, ${match.sql} AS ok` : '';
   // The chunk's rows keep their column types (an ENUM still sorts by its declared order), so numbering them in
   // the same order finds the last one.
   const numbered = orderBy(keyAliases(d, 'y'), r.dir);
   const rows = await select<Record<string, string | number | Date>>(
     db,
-    `SELECT * FROM (SELECT y.*, ROW_NUMBER() OVER (ORDER BY ${numbered}) AS rn, COUNT(*) OVER () AS seen
-        FROM (${chunk.sql}) y) z WHERE z.ok = 1 OR z.rn = z.seen ORDER BY z.rn`,
-    chunk.params,
+    `SELECT * FROM (SELECT y.*${ok}, ROW_NUMBER() OVER (ORDER BY ${numbered}) AS rn, COUNT(*) OVER () AS seen
+        FROM (${walk.sql}) y) z WHERE z.ok = 1 OR z.rn = z.seen ORDER BY z.rn`,
+    d.moved ? [...match.params, ...walk.params] : walk.params,
   );
   const list = rows.map((row): Candidate => {
     const key = d.columns.map((c, i) => (c.isDate ? new Date(row[`k${i}`]).toISOString() : row[`k${i}`])) as KeyValue[];
@@ -98,8 +92,15 @@ async function candidates(
   return { matches: list.filter((c) => c.ok), seen, last: list.length ? list[list.length - 1].key : null };
 }
 
-/** The driver's key columns as the walk's output names them (k0, k1, …) on a derived table. */
-const keyAliases = (d: Driver, table: string) => d.columns.map((c, i) => ({ ...c, sql: `${table}.k${i}` }));
+/**
+ * The driver's key columns as the walk's output names them (k0, k1, …) on a derived table. A state sorts by its
+ * place in the workflow, written out: the merged walk's UNION turns the ENUM into text, which would sort it by name.
+ */
+const keyAliases = (d: Driver, table: string) =>
+  d.columns.map((c, i) => {
+    const name = `${table}.k${i}`;
+    return { ...c, sql: c.domain ? `FIELD(${name}, ${c.domain.map((v) => `'${v}'`).join(', ')})` : name };
+  });
 
 /**
  * The driver's next `limit` candidates after `after`, in the list's order, as key columns k0, k1, … (the last the

@@ -9,16 +9,25 @@ export const RESTAMP = { quietSeconds: 300, batch: 200, pollSeconds: 60 };
 /**
  * One batch: the moved rows whose last change is older than `quietSeconds`, locked, copied into their calcs' term rows
  * and deleted, in one transaction. A save of one of those calcs meanwhile waits for the lock on its moved row and then
- * writes a new one; a save that came first made its row too new to be taken. Returns the calcs folded back.
+ * writes a new one; a save that came first made its row too new to be taken. Returns the calcs folded back (a batch
+ * whose rows a save took in the meantime folds fewer than it saw; the next round takes the rest).
  */
 export async function restampOnce(sequelize: Sequelize, quietSeconds = RESTAMP.quietSeconds): Promise<number> {
   return runTransaction(
     sequelize,
     async (transaction) => {
+      // The candidates by a plain read, then locked one by one by primary key and taken if still quiet: a locking
+      // read of the time range would also lock the gap where saves add their rows, and deadlocked with them.
+      const quiet = `latest_updated_at < NOW(3) - INTERVAL ${Number(quietSeconds)} SECOND`;
+      const seen = await sequelize.query<{ calc_id: number }>(
+        `SELECT calc_id FROM calc_search_moved FORCE INDEX (moved_updated) WHERE ${quiet}
+        ORDER BY latest_updated_at LIMIT ${RESTAMP.batch}`,
+        { type: QueryTypes.SELECT, transaction },
+      );
+      if (seen.length === 0) return 0;
       const rows = await sequelize.query<{ calc_id: number }>(
-        `SELECT calc_id FROM calc_search_moved FORCE INDEX (moved_updated)
-      WHERE latest_updated_at < NOW(3) - INTERVAL ? SECOND ORDER BY latest_updated_at LIMIT ? FOR UPDATE`,
-        { replacements: [quietSeconds, RESTAMP.batch], type: QueryTypes.SELECT, transaction },
+        `SELECT calc_id FROM calc_search_moved WHERE calc_id IN (?) AND ${quiet} FOR UPDATE`,
+        { replacements: [seen.map((r) => Number(r.calc_id))], type: QueryTypes.SELECT, transaction },
       );
       if (rows.length === 0) return 0;
       const ids = rows.map((r) => Number(r.calc_id));

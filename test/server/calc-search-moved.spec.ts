@@ -1,6 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import { startTestApp } from '../support/api-harness';
-import { calcTeam, fixtureInput, sign } from '../support/calc-harness';
+import { calcTeam, fixtureInput, sign, tickAll } from '../support/calc-harness';
 import { SEARCH_LIMITS } from '../../server/calcs/calc-search-plan';
 import { restampOnce } from '../../server/calcs/search-restamp';
 
@@ -57,7 +57,7 @@ async function heldTimes(id: number): Promise<{ moved: string | null; terms: str
 
 describe('a search by last change takes saved calcs at their true time', () => {
   it('when some calcs were saved since their search terms were written and others not, then every page of a search by last change lists what the plain list lists', async () => {
-    // Arrange: eleven calcs with the word, five with a second word too, two of them submitted; every last change
+    // Arrange: eleven calcs with the word, five with a second word too, one submitted, one checked; every last change
     // moved as a save moves it, folded into the terms, then six moved again (some ahead of the others, some behind
     // what their terms still hold), two pairs at the same millisecond; ids not in time order
     const t = await calcTeam(app);
@@ -66,6 +66,9 @@ describe('a search by last change takes saved calcs at their true time', () => {
     const calcs: { id: number; revisionId: number }[] = [];
     for (let i = 0; i < 11; i++) calcs.push(await addCalc(t, `M-${i}`, both.includes(i) ? `${w} ${v}` : w));
     for (const i of [4, 7]) expect((await sign(t.author.session, calcs[i].revisionId, 'authored')).status).toBe(200);
+    // Checked sorts after in check in the workflow, before draft by name.
+    await tickAll(t.checker.session, calcs[7].revisionId);
+    expect((await sign(t.checker.session, calcs[7].revisionId, 'checked')).status).toBe(200);
     for (const [i, c] of calcs.entries()) await setLastChange(c.id, `2026-11-30T08:${String(10 + i * 3)}:00.000Z`);
     while ((await restampOnce(sequelize, 0)) > 0);
     const again: [number, string][] = [

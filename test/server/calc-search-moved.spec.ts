@@ -2,7 +2,7 @@ import { randomBytes } from 'node:crypto';
 import { startTestApp } from '../support/api-harness';
 import { calcTeam, fixtureInput, sign, tickAll } from '../support/calc-harness';
 import { SEARCH_LIMITS } from '../../server/calcs/calc-search-plan';
-import { restampOnce } from '../../server/calcs/search-restamp';
+import { RESTAMP, restampOnce, startSearchRestamp } from '../../server/calcs/search-restamp';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
@@ -181,5 +181,26 @@ describe('a search by last change takes saved calcs at their true time', () => {
       expect(held.moved === truth || (held.moved === null && held.terms.join() === truth)).toBe(true);
       expect(held.moved === null || held.moved === truth).toBe(true);
     }
+  });
+
+  it('when the folding runs in an instance, then a quiet moved row is folded back by one of its rounds', async () => {
+    // Arrange: a calc saved long ago, its change still in a moved row; rounds every 20 ms
+    const t = await calcTeam(app);
+    const { id } = await addCalc(t, 'M-L', `${uniqueWord()} keyway`);
+    await setLastChange(id, '2026-11-30T07:00:00.000Z');
+    expect((await heldTimes(id)).moved).toBe('07:00:00.000000');
+    const saved = { ...RESTAMP };
+    Object.assign(RESTAMP, { pollSeconds: 0.02 });
+    const folding = startSearchRestamp(sequelize);
+    try {
+      // Act: wait for the fold (a bound on the wait, not on its speed)
+      for (let i = 0; i < 500 && (await heldTimes(id)).moved !== null; i++) await new Promise((r) => setTimeout(r, 20));
+    } finally {
+      await folding.stop();
+      Object.assign(RESTAMP, saved);
+    }
+
+    // Assert
+    expect(await heldTimes(id)).toEqual({ moved: null, terms: ['07:00:00.000000'] });
   });
 });

@@ -19,6 +19,16 @@ export function encodeCursor(values: KeyValue[]): string {
   return Buffer.from(JSON.stringify(values)).toString('base64url');
 }
 
+/**
+ * A cursor's value for its column: one of a state's values, a time as the lists write it (a time that is no date
+ * compared as text and answered an empty page), or a string or number.
+ */
+function fitsColumn(column: KeyColumn, v: unknown): boolean {
+  if (column.domain) return column.domain.includes(v as string);
+  if (column.isDate) return typeof v === 'string' && /^\d{4}-\d{2}-\d{2}T/.test(v) && !Number.isNaN(Date.parse(v));
+  return typeof v === 'string' || typeof v === 'number';
+}
+
 export function decodeCursor(cursor: string, columns: KeyColumn[]): KeyValue[] {
   let values: unknown;
   try {
@@ -27,11 +37,7 @@ export function decodeCursor(cursor: string, columns: KeyColumn[]): KeyValue[] {
     values = null;
   }
   const fits =
-    Array.isArray(values) &&
-    values.length === columns.length &&
-    values.every((v, i) =>
-      columns[i].domain ? columns[i].domain!.includes(v as string) : typeof v === 'string' || typeof v === 'number',
-    );
+    Array.isArray(values) && values.length === columns.length && values.every((v, i) => fitsColumn(columns[i], v));
   if (!fits)
     throw new AppError('validation', 400, 'The page cursor is not valid for this list', {
       fieldErrors: { after: ['is not a page cursor of this list; start from the first page'] },

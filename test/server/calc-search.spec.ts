@@ -367,6 +367,27 @@ describe('hostile search input', () => {
   });
 
   it.each([
+    ['the plain list', ''],
+    ['a search by last change', '&q=shaft'],
+    ['a search by state', '&q=shaft&sort=status'],
+  ])(
+    'when %s is asked for the page after a time that is no date, then it is a 400 naming the cursor',
+    async (_w, q) => {
+      const t = await calcTeam(app);
+      const status = q.includes('status') ? ['draft'] : [];
+      for (const at of ['9999-99-99', '2026-02-30T25:00:00.000Z', 'yesterday']) {
+        const after = Buffer.from(JSON.stringify([...status, at, 1])).toString('base64url');
+        const res = await t.author.session.get(`/api/calcs?projectId=${t.project.id}${q}&after=${after}`);
+        expect([at, res.status, res.body.fieldErrors]).toEqual([
+          at,
+          400,
+          { after: ['is not a page cursor of this list; start from the first page'] },
+        ]);
+      }
+    },
+  );
+
+  it.each([
     ['signs only', '+*', 'needs a letter or digit to search for'],
     ['quotes and wildcards only', '"%_*"', 'needs a letter or digit to search for'],
     ['10,000 characters', 'x'.repeat(10_000), 'must be at most 100 characters'],

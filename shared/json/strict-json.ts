@@ -76,6 +76,36 @@ function findInTree(node: AnyNode, path: (string | number)[], text: string): Jso
 
 const pathOf = (parts: readonly Part[]): string => pathText(parts, '') || ROOT_PATH;
 
+/*
+ * The syntax tree is built only when the text may hold what JSON.parse hid (a repeated key, an underflow): it costs
+ * ten times the parse. A repeated key leaves the parsed value with fewer keys than the text writes. In text that
+ * JSON.parse accepted, a quote outside a string is always the start of one, so reading string after string from the
+ * start finds every string; one followed by a colon is a key. An underflow needs a negative exponent or hundreds of
+ * digits (the smallest double is about 4.9e-324); a text with either anywhere, even inside a string, takes the tree.
+ */
+const STRING_TOKEN = /"[^"\\]*(?:\\.[^"\\]*)*"([ \t\n\r]*:)?/g;
+const MAY_UNDERFLOW = /[eE]-|[0-9]{300}/;
+
+function keysWritten(text: string): number {
+  let keys = 0;
+  for (const m of text.matchAll(STRING_TOKEN)) if (m[1] !== undefined) keys++;
+  return keys;
+}
+
+// Iterative: jsonValueProblem has capped the depth and the count of values, not the recursion of a reader.
+function keyCountOf(value: object): number {
+  let keys = 0;
+  const stack: unknown[] = [value];
+  while (stack.length > 0) {
+    const v = stack.pop();
+    if (v === null || typeof v !== 'object') continue;
+    const children = Array.isArray(v) ? v : Object.values(v);
+    if (!Array.isArray(v)) keys += children.length;
+    for (const c of children) if (c !== null && typeof c === 'object') stack.push(c);
+  }
+  return keys;
+}
+
 /**
  * Parses JSON text like JSON.parse, but refuses what JSON.parse would silently change or what later
  * code cannot hold (see above), within `limits`. Never throws: a problem comes back as
@@ -92,6 +122,7 @@ export function parseStrictJson(text: string, limits: JsonLimits = JSON_LIMITS):
   const problem = jsonValueProblem(value, limits);
   if (problem) return { ok: false, issue: { path: problem.path || ROOT_PATH, message: problem.message } };
   if (value === null || typeof value !== 'object') return { ok: true, value };
+  if (keyCountOf(value) === keysWritten(body) && !MAY_UNDERFLOW.test(body)) return { ok: true, value };
   const found = findInTree(parse(body, { mode: 'json' }).body, [], body);
   return found ? { ok: false, issue: found } : { ok: true, value };
 }

@@ -78,6 +78,8 @@ describe('parseStrictJson on hostile input', () => {
     ['{"a":[0,1e-400]}', 'a[1]', /too small/],
     ['{"x":{"y":-2e-324}}', 'x.y', /too small/],
     [`{"z":0.${'0'.repeat(400)}1}`, 'z', /too small/],
+    [`{"z":[1,0.${'0'.repeat(240)}1e-99]}`, 'z[1]', /too small/],
+    ['{"k\\"":1, "k\\""  :2}', 'k"', /appears twice/],
   ])('when the text is %s, then the problem is at %s', (text, path, message) => {
     const parsed = parseStrictJson(text);
     expect(parsed.ok).toBe(false);
@@ -91,6 +93,48 @@ describe('parseStrictJson on hostile input', () => {
     expect(parseStrictJson('[{"a":1},{"a":2}]').ok).toBe(true);
     expect(parseStrictJson('{"a":"{\\"a\\":1,\\"a\\":2}","b":{"a":1}}').ok).toBe(true);
     expect(parseStrictJson('{"a":0e5,"b":-0.0,"c":5e-324,"d":[0,-0]}').ok).toBe(true);
+  });
+
+  // The tree is built only for a text whose key count differs from its value's or that may underflow (strict-json.ts):
+  // written here with spacing anywhere JSON allows it, keys holding quotes, colons and escapes, and now and then a key
+  // written twice; a text is refused exactly when it repeats a key. Independent of how strict-json counts keys.
+  it('when texts are spaced at random and some repeat a key, then exactly those that repeat one are refused', () => {
+    const spaces = ['', ' ', '\n', '\t ', '\r\n  '];
+    const key = fc.oneof(fc.string({ maxLength: 4 }), fc.constantFrom('a', 'a"', 'a\\', ':', '\\":', 'é', 'a b'));
+    const value = fc
+      .letrec<{ v: unknown }>((tie) => ({
+        v: fc.oneof(
+          { depthSize: 'small', withCrossShrink: true },
+          fc.oneof(fc.integer(), fc.double({ noNaN: true, noDefaultInfinity: true, min: -1e6, max: 1e6 }), fc.string()),
+          fc.array(tie('v'), { maxLength: 3 }),
+          fc.dictionary(key, tie('v'), { maxKeys: 4 }),
+        ),
+      }))
+      .v.filter((v) => !/"(__proto__|constructor|prototype)"/.test(JSON.stringify(v)));
+    fc.assert(
+      fc.property(value, fc.array(fc.nat(99), { minLength: 1, maxLength: 64 }), (v, dice) => {
+        let turn = 0;
+        const roll = () => dice[turn++ % dice.length];
+        let repeated = false;
+        const sp = () => spaces[roll() % spaces.length];
+        const write = (x: unknown): string => {
+          if (Array.isArray(x)) return `[${sp()}${x.map((e) => `${write(e)}${sp()}`).join(`,${sp()}`)}]`;
+          if (x === null || typeof x !== 'object') return JSON.stringify(x);
+          const members = Object.entries(x).flatMap(([k, e]) => {
+            const once = `${JSON.stringify(k)}${sp()}:${sp()}${write(e)}`;
+            if (roll() >= 8) return [once];
+            repeated = true;
+            return [once, `${JSON.stringify(k)}${sp()}:${sp()}${write(e)}`];
+          });
+          return `{${sp()}${members.join(`${sp()},${sp()}`)}${sp()}}`;
+        };
+        const text = write(v);
+        const parsed = parseStrictJson(text);
+        if (repeated) expect(parsed.ok ? 'accepted' : parsed.issue.message).toMatch(/appears twice/);
+        else expect(parsed).toEqual({ ok: true, value: JSON.parse(text) });
+      }),
+      { numRuns: 1_000 },
+    );
   });
 
   it('when a document is 100,000 levels deep, then the check stops at the limit without overflowing the stack', () => {

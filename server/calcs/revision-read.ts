@@ -73,8 +73,9 @@ export async function readRevision(
     timed('names', () => namesOf(findings, transaction)),
     timed('input', () => inputIssuesOf(revision)),
   ]);
-  // A hash computed for these texts (now, or remembered under their digest) parsed them: they need no parse again.
-  const parsed = [...currentHashes.values()].some((h) => h !== null);
+  // A hash computed for these texts (now, or remembered under their digest) parsed them, and a save has just written
+  // them from computed values (stringifyFinite): they need no parse again.
+  const parsed = context.written === true || [...currentHashes.values()].some((h) => h !== null);
   const asStored = (text: string | null) => text && (parsed ? StoredJson.parsed(text) : new StoredJson(text));
   const dto = toRevisionDto(revision, {
     result: stored ? asStored(revision.result) : result,
@@ -98,6 +99,8 @@ interface Known {
   editorIds: number[] | null;
   has?: SaveContext['has'];
   calc?: HashSources['calc'];
+  /** The result and checklist texts are the ones this process has just written from computed values (a save). */
+  written?: boolean;
 }
 
 async function contextOf(id: number, transaction?: Transaction): Promise<Known> {

@@ -124,7 +124,7 @@ export async function saveRevision(
           transaction,
         ),
       );
-      return { revision, result, editorIds, has: context.has };
+      return { revision, result, editorIds, has: context.has, written: true };
     },
     { idempotent: true },
   );

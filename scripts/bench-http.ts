@@ -28,13 +28,17 @@ export function figuresOf(latencies: number[], seconds: number, errors: number):
 }
 
 /**
- * Starts server/main.ts under tsx on a free port and resolves with its base URL once it listens.
+ * Starts server/main.ts (or another server `script`) under tsx on a free port and resolves with its base URL once it
+ * listens.
  * BENCH_CPU_PROF=<folder> has the server write a V8 CPU profile there when it stops (open it in Chrome's DevTools).
  */
-export function startServer(env: Record<string, string>): Promise<{ url: string; child: ChildProcess }> {
+export function startServer(
+  env: Record<string, string>,
+  script = join(__dirname, '..', 'server', 'main.ts'),
+): Promise<{ url: string; child: ChildProcess }> {
   const profile = process.env.BENCH_CPU_PROF ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_CPU_PROF}`] : [];
   return new Promise((resolve, reject) => {
-    const child = fork(join(__dirname, '..', 'server', 'main.ts'), [], {
+    const child = fork(script, [], {
       execArgv: ['--import', 'tsx', ...profile],
       env: { ...process.env, ...env, PORT: '0' },
       stdio: ['ignore', 'ignore', 'inherit', 'ipc'],

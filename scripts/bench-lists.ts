@@ -6,7 +6,8 @@ import { QueryTypes } from 'sequelize';
 import { loadConfig } from '../server/config';
 import { createSequelize } from '../server/db';
 import { BENCH_PASSWORD } from './bench-seed-data';
-import { line, load, msText, signIn, startServer } from './bench-http';
+import { join } from 'node:path';
+import { line, load, msText, signIn, startServer, type Session } from './bench-http';
 import { endpointsOf } from './bench-lists-endpoints';
 import { chainCeiling, cpuSeconds, databasePid, dbStatus, saves } from './bench-writes';
 
@@ -24,6 +25,14 @@ const ALONE_SECONDS = Number(process.env.BENCH_ALONE_SECONDS ?? 5);
 const APPS = Math.max(1, Math.trunc(Number(process.env.BENCH_APPS ?? 1)) || 1);
 /** BENCH_ONLY=search runs only the endpoints whose name matches (and the saves only if it matches "saves"). */
 const ONLY = process.env.BENCH_ONLY ? new RegExp(process.env.BENCH_ONLY, 'i') : null;
+/**
+ * Not the product: node:http answering at once, then after one `SELECT 1` through the MariaDB driver's pool
+ * (scripts/bench-floor-server.ts). What any answer costs on this machine before the app does anything.
+ */
+const FLOORS: [string, string][] = [
+  ['for scale · node:http alone, no framework', '/no-db'],
+  ['for scale · node:http + SELECT 1, no framework', '/'],
+];
 
 async function main(): Promise<void> {
   const sequelize = createSequelize(loadConfig());
@@ -64,6 +73,35 @@ async function main(): Promise<void> {
     const endpoints = endpointsOf({ compliance, worker, auditorId: auditor.id, projects, revisions, deep }).filter(
       ([name]) => !ONLY || ONLY.test(name),
     );
+    /**
+     * One line: alone, then under load; with the CPU each answer took in the server (`cpu`, its process or processes),
+     * in MariaDB and in this process (the load generator), and the statements sent per answer.
+     */
+    const measure = async (
+      name: string,
+      session: Session,
+      paths: string[],
+      target: { url: string; urls: string[]; cpu: () => number },
+    ): Promise<void> => {
+      const alone = await load(target.url, session, paths, 1, ALONE_SECONDS);
+      const cpuBefore = target.cpu();
+      const dbBefore = cpuSeconds(dbPid);
+      const clientBefore = process.cpuUsage();
+      const statusBefore = await dbStatus(sequelize);
+      const busy = await load(target.urls, session, paths, CONNECTIONS, SECONDS);
+      // Statements the app sent per answer (the session's look-up included), each a round trip and a parse.
+      const statements = ((await dbStatus(sequelize)).Questions - statusBefore.Questions - 1) / busy.requests;
+      // The app process's CPU per answer moves far less with other jobs' load than the wall-clock figures; MariaDB's
+      // (its whole process, so other clients of the same server count too) says what the statements cost, and the load
+      // generator's (this process: autocannon's requests and reading the answers) what the two cores lose to it.
+      const cpu = ((target.cpu() - cpuBefore) * 1000) / busy.requests;
+      const dbCpu = ((cpuSeconds(dbPid) - dbBefore) * 1000) / busy.requests;
+      const client = process.cpuUsage(clientBefore);
+      const clientCpu = (client.user + client.system) / 1000 / busy.requests;
+      console.log(
+        `${line(name, busy).replace(name.padEnd(46), `${name.padEnd(46)} ${msText(alone.p50)}`)}  ${loadavg()[0].toFixed(1)}  app CPU ${cpu.toFixed(2)} ms, MariaDB ${dbCpu.toFixed(2)} ms, load generator ${clientCpu.toFixed(2)} ms, statements ${statements.toFixed(1)}${alone.errors ? `  (alone: ${alone.errors} failed or timed out)` : ''}`,
+      );
+    };
     console.log(
       `Lists and reads · alone (1 connection, ${ALONE_SECONDS} s) then ${CONNECTIONS} concurrent connections (${SECONDS} s) · ${APPS === 1 ? 'one app process' : `${APPS} app processes`} (DB_POOL_MAX ${process.env.DB_POOL_MAX ?? 10}) · ${cpus().length} cores`,
     );
@@ -71,27 +109,20 @@ async function main(): Promise<void> {
     console.log(
       `  ${'endpoint'.padEnd(46)} ${'alone p50'.padStart(10)} ${'p50'.padStart(10)} ${'p95'.padStart(10)} ${'p99'.padStart(10)} ${'rate'.padStart(13)}  load`,
     );
-    for (const [name, session, paths] of endpoints) {
-      const alone = await load(server.url, session, paths, 1, ALONE_SECONDS);
-      const cpuBefore = appCpu();
-      const dbBefore = cpuSeconds(dbPid);
-      const clientBefore = process.cpuUsage();
-      const statusBefore = await dbStatus(sequelize);
-      const busy = await load(urls, session, paths, CONNECTIONS, SECONDS);
-      // Statements the app sent per answer (the session's look-up included), each a round trip and a parse.
-      const statements = ((await dbStatus(sequelize)).Questions - statusBefore.Questions - 1) / busy.requests;
-      // The app process's CPU per answer moves far less with other jobs' load than the wall-clock figures; MariaDB's
-      // (its whole process, so other clients of the same server count too) says what the statements cost, and the load
-      // generator's (this process: autocannon's requests and reading the answers) what the two cores lose to it.
-      const cpu = ((appCpu() - cpuBefore) * 1000) / busy.requests;
-      const dbCpu = ((cpuSeconds(dbPid) - dbBefore) * 1000) / busy.requests;
-      const client = process.cpuUsage(clientBefore);
-      const clientCpu = (client.user + client.system) / 1000 / busy.requests;
-      console.log(
-        `${line(name, busy).replace(name.padEnd(46), `${name.padEnd(46)} ${msText(alone.p50)}`)}  ${loadavg()[0].toFixed(1)}  app CPU ${cpu.toFixed(1)} ms, MariaDB ${dbCpu.toFixed(1)} ms, load generator ${clientCpu.toFixed(1)} ms, statements ${statements.toFixed(1)}${alone.errors ? `  (alone: ${alone.errors} failed or timed out)` : ''}`,
-      );
+    // The machine's own floor first: what the load generator, node:http and one statement cost here, no framework.
+    const floors = FLOORS.filter(([name]) => !ONLY || ONLY.test(name));
+    if (floors.length) {
+      const floor = await startServer(env, join(__dirname, 'bench-floor-server.ts'));
+      try {
+        const target = { url: floor.url, urls: [floor.url], cpu: () => cpuSeconds(floor.child.pid) };
+        for (const [name, path] of floors) await measure(name, { cookie: '', csrf: '' }, [path], target);
+      } finally {
+        floor.child.kill('SIGTERM');
+      }
     }
-    console.log('  targets: p95 ≤ 50 ms each (32 concurrent), every line but the first ("for scale")');
+    for (const [name, session, paths] of endpoints)
+      await measure(name, session, paths, { url: server.url, urls, cpu: appCpu });
+    console.log('  targets: p95 ≤ 50 ms each (32 concurrent), every line but the first three ("for scale")');
     if (!ONLY || ONLY.test('saves')) await saves(urls, sequelize, SECONDS, appCpu);
   } finally {
     for (const s of servers) s.child.kill('SIGTERM');

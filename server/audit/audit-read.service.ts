@@ -1,5 +1,5 @@
+import { plainSelect } from '../db/plain-query';
 import { ForbiddenError } from '@casl/ability';
-import { QueryTypes } from 'sequelize';
 import type { AuditChainStatus, AuditEventDto, AuditQuery } from '../../shared/schemas/audit.schema';
 import type { KeysetPage } from '../../shared/schemas/common.schema';
 import type { AppAbility } from '../../shared/authz/app-ability';
@@ -81,11 +81,12 @@ export async function listAudit(
   // A page past the first by offset counts on its own: past the end it has no row to carry the count.
   const inline = count && offset === 0 ? count : null;
   // Sent plain: through findAll, even with plain rows, the statement cost more CPU than the rest of the answer.
-  const rows = await sequelize.query<Listed & RecordColumns & { listedTotal?: number }>(
+  const rows = await plainSelect<Listed & RecordColumns & { listedTotal?: number }>(
+    sequelize,
     `SELECT ${listColumnsOf()}, \`AuditEvent\`.diff IS NOT NULL AS hasDiff, ${RECORDS.columns}
       ${inline ? `, ${cappedCountSql(inline.fromWhere)} AS listedTotal` : ''}
       ${FROM} ${RECORDS.joins} ${filter}`,
-    { replacements: inline?.params ?? [], type: QueryTypes.SELECT },
+    inline?.params ?? [],
   );
   const counted = inline
     ? cappedTotal(Number(rows[0]?.listedTotal ?? 0))

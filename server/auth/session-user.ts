@@ -1,5 +1,6 @@
 import type { Request, RequestHandler } from 'express';
-import { QueryTypes, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
+import { plainSelect, sqlTime } from '../db/plain-query';
 import type { SessionUser } from '../../shared/schemas/auth.schema';
 import type { Role } from '../../shared/authz/roles';
 
@@ -54,11 +55,12 @@ export async function readSession(
   sid: string,
   req: Request | undefined,
 ): Promise<{ data: string | null; expires: Date | null } | null> {
-  const [row] = await sequelize.query<Row>(
+  const [row] = await plainSelect<Row>(
+    sequelize,
     `SELECT s.data, s.expires, u.id, u.username, u.display_name, u.email, u.active,
        (SELECT GROUP_CONCAT(r.role) FROM user_roles r WHERE r.user_id = u.id) AS roles
      FROM sessions s LEFT JOIN users u ON u.id = s.user_id WHERE s.sid = ? AND s.expires > ?`,
-    { replacements: [sid, new Date()], type: QueryTypes.SELECT },
+    [sid, sqlTime(new Date())],
   );
   if (req && row) {
     const user: SessionUser | false =

@@ -1,5 +1,5 @@
+import { plainSelect } from '../db/plain-query';
 import { ForbiddenError } from '@casl/ability';
-import { QueryTypes } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { CalcListPage } from '../../shared/schemas/calc-dto';
 import type { CalcListQuery } from '../../shared/schemas/revision.schema';
@@ -43,10 +43,11 @@ async function plainPage(query: CalcListQuery, after: (string | number)[] | null
     whereParams.push(...k.replacements);
   }
   const count = after ? null : listedCount(query);
-  const rows = await Calc.sequelize!.query<CalcRow & { listed_total?: number }>(
+  const rows = await plainSelect<CalcRow & { listed_total?: number }>(
+    Calc.sequelize!,
     `SELECT ${CALC_ROW_COLUMNS}${count ? `, (${count.sql}) AS listed_total` : ''} ${CALC_ROW_FROM}
     WHERE ${where.join(' AND ')} ORDER BY ${orderBy(columns, query.dir)} LIMIT ${query.size + 1}`,
-    { replacements: [...(count?.params ?? []), ...whereParams], type: QueryTypes.SELECT },
+    [...(count?.params ?? []), ...whereParams],
   );
   const more = rows.length > query.size;
   const shown = rows.slice(0, query.size);

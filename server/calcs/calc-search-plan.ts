@@ -1,5 +1,6 @@
 // Where a search starts: the rarest of its words, or the project's own list when that is smaller.
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { plainSelect } from '../db/plain-query';
+import type { Sequelize } from 'sequelize';
 import type { RevisionState } from '../../shared/schemas/revision.schema';
 import { TOTAL_CAP, type KeyColumn } from '../http/keyset';
 import { sortColumns, type CalcSort } from './calc-list-rows';
@@ -111,9 +112,10 @@ export async function chooseDriver(
     { from: 'calcs c', where: ['TRUE'], params: [] as unknown[] },
     ...(filter.status ? [{ from: 'calcs c', where: ['c.latest_status = ?'], params: [filter.status] }] : []),
   ];
-  const plan = await sequelize.query<{ id: number | null; rows: number | null }>(
+  const plan = await plainSelect<{ id: number | null; rows: number | null }>(
+    sequelize,
     `EXPLAIN ${ranges.map((d) => `SELECT 1 FROM ${d.from} WHERE ${d.where.join(' AND ')}`).join(' UNION ALL ')}`,
-    { replacements: ranges.flatMap((d) => d.params), type: QueryTypes.SELECT },
+    ranges.flatMap((d) => d.params),
   );
   // The plan's rows are numbered by SELECT, 1 for the first; no figure (an impossible condition) means no rows.
   const [calcs, inState, ...sizes] = [drivers.length, drivers.length + 1, ...drivers.keys()].map((i) =>

@@ -1,4 +1,5 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { plainSelect } from '../db/plain-query';
+import type { Sequelize } from 'sequelize';
 import { TOTAL_CAP, cappedCountSql, cappedTotal, keysetCondition, orderBy, type KeyColumn } from '../http/keyset';
 import {
   CALC_ROW_COLUMNS,
@@ -38,7 +39,7 @@ interface Candidate {
 }
 
 const select = <T extends object>(db: Sequelize, sql: string, replacements: unknown[]) =>
-  db.query<T>(sql, { replacements, type: QueryTypes.SELECT });
+  plainSelect<T>(db, sql, replacements);
 
 /**
  * Whether a candidate satisfies the rest of the search, as a column of the walk itself (look-ups by primary key, a

@@ -1,4 +1,4 @@
-import { QueryTypes } from 'sequelize';
+import { plainSelect } from '../db/plain-query';
 import { columnsOf, instanceOf } from '../db/plain-rows';
 import { Revision, RuleSetRecord, Signature } from '../db/models';
 import { AppError } from '../errors/app-error';
@@ -38,10 +38,7 @@ let signaturesSql: string | undefined;
  */
 export async function readContextOf(id: number): Promise<ReadContext> {
   contextSql ??= contextStatement();
-  const [row] = await Revision.sequelize!.query<Record<string, unknown>>(contextSql, {
-    type: QueryTypes.SELECT,
-    replacements: [id],
-  });
+  const [row] = await plainSelect<Record<string, unknown>>(Revision.sequelize!, contextSql, [id]);
   if (!row) throw AppError.notFound(`Revision ${id}`);
   return contextOfRow(row);
 }
@@ -112,9 +109,6 @@ async function ruleSetOf(ctx: Record<string, unknown>): Promise<RuleSetRecord | 
 /** A revision's signatures in signing order, as `Signature.findAll` gives them, through one plain statement. */
 export async function signaturesOf(revisionId: number): Promise<Signature[]> {
   signaturesSql ??= `SELECT ${columnsOf(Signature, 'g')} FROM signatures g WHERE g.revision_id = ? ORDER BY g.signed_at, g.id`;
-  const rows = await Signature.sequelize!.query<Record<string, unknown>>(signaturesSql, {
-    type: QueryTypes.SELECT,
-    replacements: [revisionId],
-  });
+  const rows = await plainSelect<Record<string, unknown>>(Signature.sequelize!, signaturesSql, [revisionId]);
   return rows.map((r) => instanceOf(Signature, r));
 }

@@ -1,4 +1,5 @@
-import { QueryTypes, type Transaction } from 'sequelize';
+import { plainSelect } from '../db/plain-query';
+import type { Transaction } from 'sequelize';
 import { Calc, Project, Revision } from '../db/models';
 import { attachKnown } from './calc-access';
 import { columnsOf, instanceOf } from '../db/plain-rows';
@@ -65,7 +66,8 @@ export async function saveContextOf(
     const id = revision[`${role}Id`];
     return `${id == null ? 'NULL' : `(SELECT display_name FROM users WHERE id = ${Number(id)})`} AS ${role}`;
   });
-  const [row] = await Calc.sequelize!.query<Record<string, unknown>>(
+  const [row] = await plainSelect<Record<string, unknown>>(
+    Calc.sequelize!,
     [
       'SELECT c.id, c.number, c.title, c.part_ref AS partRef, c.project_id AS projectId,',
       'p.id AS projectKey, p.code AS projectCode, p.status AS projectStatus,',
@@ -78,7 +80,8 @@ export async function saveContextOf(
       HANGING.map((t) => `EXISTS(SELECT 1 FROM ${t} WHERE revision_id = ${Number(revision.id)}) AS ${t}`).join(', '),
       `FROM calcs c LEFT JOIN projects p ON p.id = c.project_id WHERE c.id = ${calcKey}`,
     ].join('\n'),
-    { type: QueryTypes.SELECT, transaction },
+    [],
+    transaction,
   );
   if (!row) throw AppError.notFound(`Calc ${revision.calcId}`);
   const lockVersion = row.ruleSetLockVersion;
@@ -116,11 +119,7 @@ let lockedSql: string | undefined;
  */
 export async function lockWithContext(revisionId: number, userId: number, transaction: Transaction) {
   lockedSql ??= `SELECT ${columnsOf(Revision, 'r', REPLACED)} FROM revisions r WHERE r.id = ? FOR UPDATE`;
-  const [row] = await Revision.sequelize!.query<Record<string, unknown>>(lockedSql, {
-    type: QueryTypes.SELECT,
-    replacements: [revisionId],
-    transaction,
-  });
+  const [row] = await plainSelect<Record<string, unknown>>(Revision.sequelize!, lockedSql, [revisionId], transaction);
   if (!row) throw AppError.notFound(`Revision ${revisionId}`);
   const revision = instanceOf(Revision, row);
   const context = await saveContextOf(revision, userId, transaction);

@@ -1,4 +1,4 @@
-import { QueryTypes } from 'sequelize';
+import { plainSelect } from '../db/plain-query';
 import { z } from 'zod';
 import type { SessionUser } from '../../shared/schemas/auth.schema';
 import { cursorSchema } from '../../shared/schemas/common.schema';
@@ -179,9 +179,10 @@ async function queueRows(
     ...f.params,
     ...keyset.replacements,
   ]);
-  const rows = await Calc.sequelize!.query<Row & { q: number; n: number | null }>(
+  const rows = await plainSelect<Row & { q: number; n: number | null }>(
+    Calc.sequelize!,
     `${pages.join(' UNION ALL ')} ORDER BY q, latest_since, id`,
-    { replacements, type: QueryTypes.SELECT },
+    replacements,
   );
   return keys.map((_, i) => {
     const own = rows.filter((r) => Number(r.q) === i);

@@ -30,7 +30,8 @@ export function sequelizeOptions(
     port: config.DB_PORT,
     dialect: 'mariadb',
     timezone: '+00:00',
-    logging: (sql) => logger.trace({ sql }, 'sql'),
+    // Only when tracing: Sequelize builds each statement's log line before calling this (plain-query.ts too).
+    logging: logger.isLevelEnabled('trace') ? (sql) => logger.trace({ sql }, 'sql') : false,
     pool: { max: config.DB_POOL_MAX, min: 0, idle: 10_000, acquire: config.DB_ACQUIRE_MS },
     dialectOptions: { connectTimeout: 10_000, ...(decoding === 'driver' ? DRIVER_DECODING : {}) },
     define: { underscored: true },

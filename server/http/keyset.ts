@@ -1,4 +1,5 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { plainSelect } from '../db/plain-query';
+import type { Sequelize } from 'sequelize';
 import { AppError } from '../errors/app-error';
 
 /**
@@ -101,9 +102,10 @@ export async function cappedCount(
   replacements: unknown[],
   cap = TOTAL_CAP,
 ): Promise<{ total: number; totalIsAtLeast: boolean }> {
-  const [row] = await sequelize.query<{ n: number }>(`SELECT ${cappedCountSql(fromWhere, cap)} AS n`, {
+  const [row] = await plainSelect<{ n: number }>(
+    sequelize,
+    `SELECT ${cappedCountSql(fromWhere, cap)} AS n`,
     replacements,
-    type: QueryTypes.SELECT,
-  });
+  );
   return cappedTotal(Number(row.n), cap);
 }

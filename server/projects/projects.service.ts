@@ -1,5 +1,6 @@
+import { plainSelect } from '../db/plain-query';
 import { ForbiddenError, subject } from '@casl/ability';
-import { literal, Op, QueryTypes, type Sequelize } from 'sequelize';
+import { literal, Op, type Sequelize } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { Page, PageQuery } from '../../shared/schemas/common.schema';
 import type { CreateProjectRequest, ProjectDto, UpdateProjectRequest } from '../../shared/schemas/project.schema';
@@ -65,7 +66,7 @@ export class ProjectsService {
       offset: query.page * query.size,
       limit: query.size,
     });
-    const rows = await this.sequelize.query<ProjectRow & { total: number }>(sql, { type: QueryTypes.SELECT });
+    const rows = await plainSelect<ProjectRow & { total: number }>(this.sequelize, sql);
     const total = rows.length ? Number(rows[0].total) : query.page ? await Project.count({ where }) : 0;
     return { items: rows.map(toProjectDto), total, page: query.page, size: query.size };
   }

@@ -1,5 +1,6 @@
+import { plainSelect } from '../db/plain-query';
 import { ForbiddenError } from '@casl/ability';
-import { QueryTypes, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { RuleSetDto, RuleSetSummary } from '../../shared/schemas/rule-set.schema';
 import { RuleSetRecord } from '../db/models';
@@ -96,7 +97,7 @@ async function libraryOf(sequelize: Sequelize): Promise<{ rows: RuleSetRecord[];
       p.display_name AS \`ctx.proposer\`, c.display_name AS \`ctx.confirmer\`
     FROM rule_sets r LEFT JOIN users p ON p.id = r.proposed_by LEFT JOIN users c ON c.id = r.confirmed_by
     ORDER BY r.code ASC, r.version DESC`;
-  const found = await sequelize.query<Record<string, unknown>>(librarySql, { type: QueryTypes.SELECT });
+  const found = await plainSelect<Record<string, unknown>>(sequelize, librarySql);
   const names = new Map<number, string>();
   const rows = found.map(({ 'ctx.proposer': proposer, 'ctx.confirmer': confirmer, ...row }) => {
     const record = instanceOf(RuleSetRecord, row);

@@ -1,5 +1,6 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import { QueryTypes } from 'sequelize';
+import { plainRun } from '../db/plain-query';
 import canonicalize from 'canonicalize';
 import type { ChainedContent } from './audit-chain';
 import { committedByDatabase, runTransaction } from '../db/transaction';
@@ -63,12 +64,11 @@ export async function appendAudit(
     const params = [c.actorId, c.actorName, c.action, c.entityType, c.entityId, c.payload, c.diff, c.ip];
     // `chain`: waiting for the head, then the append; `chain-held`: from the append to the commit that frees it.
     await timed('chain', () =>
-      sequelize.query(
+      plainRun(
+        sequelize,
         `CALL ${entry.commits ? 'audit_append_commit' : 'audit_append'}(?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
-        {
-          replacements: [...params, scope.calcId, scope.projectId, before, after],
-          transaction: t,
-        },
+        [...params, scope.calcId, scope.projectId, before, after],
+        t,
       ),
     );
     // An append that commits has already freed the head, and ended the transaction: runTransaction sends no COMMIT.

@@ -48,16 +48,36 @@ export async function plainSelect<T extends object>(
   values: readonly unknown[] = [],
   transaction?: Transaction | null,
 ): Promise<T[]> {
+  const rows = (await send(sequelize, sql, values, transaction, 'SELECT')) as T[] & { meta?: unknown };
+  // The driver's column metadata rides on the array; Sequelize's rows do not carry it.
+  delete rows.meta;
+  return rows;
+}
+
+/** A statement whose answer is not read (a CALL that appends to the audit chain), as plainSelect sends a SELECT. */
+export async function plainRun(
+  sequelize: Sequelize,
+  sql: string,
+  values: readonly unknown[],
+  transaction: Transaction,
+): Promise<void> {
+  await send(sequelize, sql, values, transaction, 'SQL');
+}
+
+async function send(
+  sequelize: Sequelize,
+  sql: string,
+  values: readonly unknown[],
+  transaction: Transaction | null | undefined,
+  type: 'SELECT' | 'SQL',
+): Promise<unknown> {
   const manager = managerOf(sequelize);
   const sent = values.map(valueOf);
   const own = (transaction as unknown as { connection?: DriverConnection } | null | undefined)?.connection;
-  const connection = own ?? (await manager.getConnection({ type: 'SELECT' }));
+  const connection = own ?? (await manager.getConnection({ type }));
   logged(sequelize, sql, sent);
   try {
-    const rows = (await connection.query(sql, sent)) as T[] & { meta?: unknown };
-    // The driver's column metadata rides on the array; Sequelize's rows do not carry it.
-    delete rows.meta;
-    return rows;
+    return await connection.query(sql, sent);
   } catch (err) {
     const Query = (sequelize as unknown as { dialect: { Query: QueryClass } }).dialect.Query;
     throw new Query(connection, sequelize, { transaction }).formatError(

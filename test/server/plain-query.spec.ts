@@ -2,7 +2,7 @@ import { DatabaseError, QueryTypes, Sequelize, type Transaction } from 'sequeliz
 import { loadConfig } from '../../server/config';
 import { sequelizeOptions } from '../../server/db';
 import { classifyDbError } from '../../server/db/db-errors';
-import { plainSelect, sqlTime } from '../../server/db/plain-query';
+import { plainRun, plainSelect, sqlTime } from '../../server/db/plain-query';
 
 // Hot reads go to the driver on Sequelize's pooled connections (server/db/plain-query.ts). Whatever is read through
 // it must be what `sequelize.query(…, { type: SELECT })` gives: the same rows in both decodings the app uses, the same
@@ -115,6 +115,19 @@ describe('a plain statement', () => {
     } finally {
       await holder.rollback();
     }
+  });
+
+  it('when a statement whose answer is not read runs in a transaction, then it counts in that transaction only', async () => {
+    const t = await driver.transaction();
+    await plainRun(driver, `UPDATE ${table} SET body = ? WHERE id = ?`, ['run inside', 3], t);
+    const [seen] = await plainSelect<{ body: string }>(driver, `SELECT body FROM ${table} WHERE id = 3`, [], t);
+    await t.rollback();
+    const [after] = await plainSelect<{ body: string | null }>(driver, `SELECT body FROM ${table} WHERE id = 3`);
+    expect([seen.body, after.body]).toEqual(['run inside', null]);
+    const bad = await driver.transaction();
+    const err = await plainRun(driver, `UPDATE ${table} SET nothing_here = 1`, [], bad).catch((e: unknown) => e);
+    await bad.rollback();
+    expect(err).toBeInstanceOf(DatabaseError);
   });
 
   it('when Sequelize logs statements, then a plain one is logged with its values written in', async () => {

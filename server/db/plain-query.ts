@@ -73,7 +73,12 @@ async function send(
 ): Promise<unknown> {
   const manager = managerOf(sequelize);
   const sent = values.map(valueOf);
-  const own = (transaction as unknown as { connection?: DriverConnection } | null | undefined)?.connection;
+  // As Sequelize refuses it: a finished transaction's connection is back in the pool, perhaps another request's now.
+  const held = transaction as unknown as { connection?: DriverConnection; finished?: string } | null | undefined;
+  if (held && (held.finished || !held.connection)) {
+    throw new Error(`${held.finished ?? 'end'} has been called on this transaction; it can no longer be used`);
+  }
+  const own = held?.connection;
   const connection = own ?? (await manager.getConnection({ type }));
   logged(sequelize, sql, sent);
   try {

@@ -81,6 +81,12 @@ describe('a plain statement', () => {
     expect(after.body).toBeNull();
   });
 
+  it('when its transaction has ended, then it is refused, never sent on a connection back in the pool', async () => {
+    const t = await driver.transaction();
+    await t.commit();
+    await expect(plainSelect(driver, 'SELECT 1 AS one', [], t)).rejects.toThrow(/commit has been called/);
+  });
+
   it('when a time is sent, then it is the database session UTC text whatever the zone', () => {
     expect(sqlTime(new Date('2026-12-05T09:04:05.067Z'))).toBe('2026-12-05 09:04:05.067');
   });

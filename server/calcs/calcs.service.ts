@@ -1,5 +1,5 @@
 import { ForbiddenError } from '@casl/ability';
-import type { Sequelize, Transaction } from 'sequelize';
+import { UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { CalcDto, RevisionDto } from '../../shared/schemas/calc-dto';
 import type { CreateCalcRequest, SaveRevisionRequest } from '../../shared/schemas/revision.schema';
@@ -70,18 +70,22 @@ export class CalcsService {
         fieldErrors: { ruleSetId: ['is not an effective version'] },
       });
     }
-    if (await Calc.findOne({ where: { projectId: dto.projectId, number: dto.number } })) {
-      throw new AppError('conflict', 409, `Calc number ${dto.number} is already used in ${project.code}`, {
+    const numberTaken = () =>
+      new AppError('conflict', 409, `Calc number ${dto.number} is already used in ${project.code}`, {
         fieldErrors: { number: ['is already used in this project'] },
       });
-    }
+    if (await Calc.findOne({ where: { projectId: dto.projectId, number: dto.number } })) throw numberTaken();
     const computed = await computeRecord(dto.input, doc);
     await registerEngineMetadata(this.sequelize);
     const calcId = await runTransaction(this.sequelize, async (transaction) => {
+      // The check above reads outside the transaction: a create racing this one, or one committed on another
+      // database node whose write this node has not applied yet (a failover), is found by the unique key instead.
       const calc = await Calc.create(
         { projectId: project.id, number: dto.number, title: dto.title, partRef: dto.partRef, createdBy: actor.id },
         { transaction },
-      );
+      ).catch((err: unknown) => {
+        throw err instanceof UniqueConstraintError ? numberTaken() : err;
+      });
       const revision = await Revision.create(
         {
           calcId: calc.id,

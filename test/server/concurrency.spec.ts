@@ -1,5 +1,14 @@
 import { startTestApp, person, type Session } from '../support/api-harness';
-import { advanceTo, createCalc, revisionOf, sign, tickAll } from '../support/calc-harness';
+import {
+  advanceTo,
+  calcTeam,
+  createCalc,
+  effectiveRuleSetId,
+  fixtureInput,
+  revisionOf,
+  sign,
+  tickAll,
+} from '../support/calc-harness';
 import { auditOf } from '../support/audit-harness';
 
 const { app, sequelize } = startTestApp();
@@ -83,6 +92,32 @@ describe('many writers', () => {
     expect(saved).toHaveLength(N);
     expect(saved.map((e) => e.payload.lockVersion)).toEqual(outcomes.map((o) => o.lockVersion).sort((a, b) => a - b));
     for (const e of saved) expect(e.diff).toMatch(/^\+\s+"title": ".*\[w\d\]",?$/m);
+  });
+});
+
+describe('one calc number asked for at once', () => {
+  it('when eight creates of the same number race, then one is made and the rest are told the number is used', async () => {
+    // Arrange: a project and an author; the check before the transaction cannot see a create still in flight
+    const t = await calcTeam(app);
+    const number = `C-RACE-${Date.now() % 100_000}`;
+    const body = {
+      projectId: t.project.id,
+      number,
+      title: 'Racing head shaft',
+      partRef: 'DRG-2',
+      ruleSetId: await effectiveRuleSetId(),
+      input: fixtureInput(),
+    };
+
+    // Act
+    const answers = await Promise.all(Array.from({ length: 8 }, () => t.author.session.post('/api/calcs', body)));
+
+    // Assert: never the index's own name, always the field as the form names it
+    expect(answers.filter((r) => r.status === 201)).toHaveLength(1);
+    for (const r of answers.filter((a) => a.status !== 201)) {
+      expect(r.status).toBe(409);
+      expect(r.body.fieldErrors).toEqual({ number: ['is already used in this project'] });
+    }
   });
 });
 

@@ -7,6 +7,7 @@ import { appendAudit } from '../audit/audit.service';
 import { jsonDiff } from '../calcs/content-diff';
 import { documentHash } from './rule-set-mapping';
 import { runTransaction } from '../db/transaction';
+import { plainSelect } from '../db/plain-query';
 import { assertDraft, loadRuleSet, validDocument, type Person } from './rule-set-records';
 
 /**
@@ -23,11 +24,15 @@ export class RuleSetDrafts {
       .throwUnlessCan('create', subject('RuleSet', { status: 'draft' }));
     return runTransaction(this.sequelize, async (transaction) => {
       const from = await loadRuleSet(fromId, transaction);
-      const latest = await RuleSetRecord.max<number, RuleSetRecord>('version', {
-        where: { code: from.code },
+      // Locked: a second draft of the same standard started meanwhile waits and numbers itself after this one (read
+      // plainly, both took the same number and the second was refused on the unique code and version).
+      const [{ latest }] = await plainSelect<{ latest: number }>(
+        this.sequelize,
+        'SELECT MAX(version) AS latest FROM rule_sets WHERE code = ? FOR UPDATE',
+        [from.code],
         transaction,
-      });
-      const record = await insertDraft(from, latest + 1, actor, transaction);
+      );
+      const record = await insertDraft(from, Number(latest) + 1, actor, transaction);
       await appendAudit(
         this.sequelize,
         actor,
@@ -35,7 +40,7 @@ export class RuleSetDrafts {
           action: 'rule_set.drafted',
           entityType: 'RuleSet',
           entityId: record.id,
-          payload: { code: from.code, version: latest + 1, from: from.version },
+          payload: { code: from.code, version: Number(latest) + 1, from: from.version },
         },
         transaction,
       );

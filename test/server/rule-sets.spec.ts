@@ -43,6 +43,22 @@ describe.each([
 });
 
 describe('drafting a version', () => {
+  it('when two compliance people start drafts of one standard at once, then each gets a version of its own', async () => {
+    // Arrange
+    const standard = await testStandard();
+    const [one, two] = [await person(app, ['compliance']), await person(app, ['compliance'])];
+
+    // Act
+    const answers = await Promise.all(
+      [one, two, one, two].map((p) => p.session.post('/api/rule-sets', { fromId: standard.id })),
+    );
+
+    // Assert: four drafts numbered one after another, none refused for a number another took
+    expect(answers.map((r) => r.status)).toEqual([201, 201, 201, 201]);
+    const versions = answers.map((r) => r.body.version as number).sort((a, b) => a - b);
+    expect(versions).toEqual([2, 3, 4, 5]);
+  });
+
   it.each(['author', 'checker', 'approver', 'admin'] as Role[])(
     'when someone with the %s role starts a draft, then it is refused with 403',
     async (role) => {

@@ -8,16 +8,20 @@ import { QueryTypes } from 'sequelize';
 import { loadConfig } from '../server/config';
 import { createSequelize } from '../server/db';
 import { BENCH_PASSWORD } from './bench-seed-data';
-import { load, signIn, startServer } from './bench-http';
-import { cpuSeconds } from './bench-writes';
+import { figuresOf, load, signIn, startServer } from './bench-http';
+import { cpuSeconds, saveFor, writersOf } from './bench-writes';
 
 const SLICES = Number(process.env.BENCH_AB_SLICES ?? 6);
 const SLICE_SECONDS = Number(process.env.BENCH_AB_SECONDS ?? 3);
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 32);
+/** Not a path: the list bench's twenty writers saving their own drafts (scripts/bench-writes.ts), alternated alike. */
+const SAVES = 'saves';
 
 function usage(problem: string): never {
   console.error(`bench:ab: ${problem}`);
-  console.error('usage: npm run bench:ab -- <other checkout> [API path …]   (this checkout is B, the other A)');
+  console.error(
+    'usage: npm run bench:ab -- <other checkout> [API path or "saves" …]   (this checkout is B, the other A)',
+  );
   process.exit(2);
 }
 
@@ -29,7 +33,7 @@ async function main(): Promise<void> {
     if (!existsSync(join(dir, 'server', 'main.ts'))) usage(`${dir} is not a Torquetrail checkout (no server/main.ts)`);
     if (!existsSync(join(dir, 'node_modules'))) usage(`${dir} has no node_modules (npm ci there, or link this one's)`);
   }
-  if (asked.some((p) => !p.startsWith('/api/'))) usage('each path starts with /api/');
+  if (asked.some((p) => !p.startsWith('/api/') && p !== SAVES)) usage(`each path starts with /api/, or is "${SAVES}"`);
   const sequelize = createSequelize(loadConfig());
   const q = <T extends object>(sql: string) => sequelize.query<T>(sql, { type: QueryTypes.SELECT });
   const [person] = await q<{ username: string }>(
@@ -50,11 +54,13 @@ async function main(): Promise<void> {
         `/api/revisions/${revision.id}`,
         '/api/projects?size=50',
         '/api/rule-sets',
+        SAVES,
       ];
   const env = { LOG_LEVEL: 'silent', MAIL_SENDER: 'false', LOGIN_RATE_LIMIT: '10000', NODE_ENV: 'production' };
   const servers = await Promise.all(checkouts.map((dir) => startServer(env, join(dir, 'server', 'main.ts'))));
   try {
     const sessions = await Promise.all(servers.map((s) => signIn(s.url, person.username, BENCH_PASSWORD)));
+    const writers = paths.includes(SAVES) ? await writersOf(servers[0].url, sequelize) : undefined;
     console.log(
       `A ${checkouts[0]} against B ${checkouts[1]} · ${CONNECTIONS} connections · ${SLICES} slices of ${SLICE_SECONDS} s each, alternated`,
     );
@@ -64,7 +70,12 @@ async function main(): Promise<void> {
         // Each slice pair in the other order from the last, so neither side always runs second.
         for (const i of k % 2 ? [1, 0] : [0, 1]) {
           const before = cpuSeconds(servers[i].child.pid!);
-          const figures = await load(servers[i].url, sessions[i], [path], CONNECTIONS, SLICE_SECONDS);
+          const figures =
+            path === SAVES && writers
+              ? await saveFor(writers, [servers[i].url], SLICE_SECONDS).then((r) =>
+                  figuresOf(r.latencies, SLICE_SECONDS, r.failures),
+                )
+              : await load(servers[i].url, sessions[i], [path], CONNECTIONS, SLICE_SECONDS);
           sides[i].cpu += cpuSeconds(servers[i].child.pid!) - before;
           sides[i].answers += figures.requests;
           sides[i].failed += figures.errors;

@@ -4,7 +4,7 @@ import { performance } from 'node:perf_hooks';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { appendAudit } from '../server/audit/audit.service';
 import { BENCH_PASSWORD } from './bench-seed-data';
-import { figuresOf, line, signIn } from './bench-http';
+import { figuresOf, line, signIn, type Session } from './bench-http';
 import { REVISION_FORM_HEADER, STORED_FORM } from '../shared/schemas/revision-form';
 
 const WRITERS = 20;
@@ -14,6 +14,70 @@ interface Draft {
   revisionId: number;
   lockVersion: number;
   input: string;
+}
+
+/** The bench's writers: twenty authors, each with a draft of their own and a signed-in session (valid everywhere). */
+export interface Writers {
+  drafts: Draft[];
+  sessions: Session[];
+  /** Each draft's lock version as last saved, carried from one run of saves to the next. */
+  lockVersions: number[];
+}
+
+export async function writersOf(url: string, sequelize: Sequelize): Promise<Writers> {
+  const drafts = await sequelize.query<Draft>(
+    `SELECT u.username, r.id AS revisionId, r.lock_version AS lockVersion, r.input FROM users u
+     JOIN calcs c ON c.id = (SELECT c2.id FROM calcs c2 WHERE c2.latest_author_id = u.id AND c2.latest_status = 'draft' ORDER BY c2.id LIMIT 1)
+     JOIN revisions r ON r.id = c.latest_revision_id WHERE u.username LIKE 'kfd-%' ORDER BY u.id LIMIT ${WRITERS}`,
+    { type: QueryTypes.SELECT },
+  );
+  // Sessions live in the database, so one signed in on the first instance is signed in on every other.
+  const sessions = await Promise.all(drafts.map((d) => signIn(url, d.username, BENCH_PASSWORD)));
+  return { drafts, sessions, lockVersions: drafts.map((d) => d.lockVersion) };
+}
+
+/** Every writer saves its draft as fast as the server answers, for `seconds`, shared out among `urls`. */
+export async function saveFor(
+  writers: Writers,
+  urls: string[],
+  seconds: number,
+): Promise<{ latencies: number[]; phases: Map<string, number[]>; failures: number }> {
+  const urlOf = (w: number) => urls[w % urls.length];
+  const latencies: number[] = [];
+  const phases = new Map<string, number[]>();
+  let failures = 0;
+  const until = performance.now() + seconds * 1000;
+  await Promise.all(
+    writers.drafts.map(async (draft, w) => {
+      const input = JSON.parse(draft.input);
+      for (let n = 0; performance.now() < until; n++) {
+        // Each save changes the body diameter a little, so the engine and the diff have real work.
+        input.segments[3].od = 60 + (n % 5);
+        const t0 = performance.now();
+        const res = await fetch(`${urlOf(w)}/api/revisions/${draft.revisionId}`, {
+          method: 'PUT',
+          // As the browser saves: the answer's result and checklist as stored (shared/schemas/revision-form.ts).
+          headers: {
+            'content-type': 'application/json',
+            cookie: writers.sessions[w].cookie,
+            'x-csrf-token': writers.sessions[w].csrf,
+            [REVISION_FORM_HEADER]: STORED_FORM,
+          },
+          body: JSON.stringify({ input, lockVersion: writers.lockVersions[w] }),
+        });
+        const body = (await res.json()) as { lockVersion?: number };
+        if (res.status === 200 && body.lockVersion != null) {
+          latencies.push(performance.now() - t0);
+          collectPhases(phases, res.headers.get('server-timing'));
+          writers.lockVersions[w] = body.lockVersion;
+        } else {
+          // The first refusal says why (a 409 from an earlier run's lock version, a 503 …); the rest are counted.
+          if (failures++ === 0) console.log(`  first refused: ${res.status} ${JSON.stringify(body).slice(0, 200)}`);
+        }
+      }
+    }),
+  );
+  return { latencies, phases, failures };
 }
 
 /**
@@ -26,52 +90,12 @@ export async function saves(
   seconds: number,
   appCpu: () => number,
 ): Promise<void> {
-  const drafts = await sequelize.query<Draft>(
-    `SELECT u.username, r.id AS revisionId, r.lock_version AS lockVersion, r.input FROM users u
-     JOIN calcs c ON c.id = (SELECT c2.id FROM calcs c2 WHERE c2.latest_author_id = u.id AND c2.latest_status = 'draft' ORDER BY c2.id LIMIT 1)
-     JOIN revisions r ON r.id = c.latest_revision_id WHERE u.username LIKE 'kfd-%' ORDER BY u.id LIMIT ${WRITERS}`,
-    { type: QueryTypes.SELECT },
-  );
-  const urlOf = (w: number) => urls[w % urls.length];
-  const sessions = await Promise.all(drafts.map((d, w) => signIn(urlOf(w), d.username, BENCH_PASSWORD)));
-  const latencies: number[] = [];
-  const phases = new Map<string, number[]>();
-  let failures = 0;
-  const until = performance.now() + seconds * 1000;
+  const writers = await writersOf(urls[0], sequelize);
+  const { drafts } = writers;
   const dbPid = await databasePid(sequelize);
   const cpuBefore = appCpu();
   const dbBefore = { cpu: cpuSeconds(dbPid), status: await dbStatus(sequelize) };
-  await Promise.all(
-    drafts.map(async (draft, w) => {
-      const input = JSON.parse(draft.input);
-      let lockVersion = draft.lockVersion;
-      for (let n = 0; performance.now() < until; n++) {
-        // Each save changes the body diameter a little, so the engine and the diff have real work.
-        input.segments[3].od = 60 + (n % 5);
-        const t0 = performance.now();
-        const res = await fetch(`${urlOf(w)}/api/revisions/${draft.revisionId}`, {
-          method: 'PUT',
-          // As the browser saves: the answer's result and checklist as stored (shared/schemas/revision-form.ts).
-          headers: {
-            'content-type': 'application/json',
-            cookie: sessions[w].cookie,
-            'x-csrf-token': sessions[w].csrf,
-            [REVISION_FORM_HEADER]: STORED_FORM,
-          },
-          body: JSON.stringify({ input, lockVersion }),
-        });
-        const body = (await res.json()) as { lockVersion?: number };
-        if (res.status === 200 && body.lockVersion != null) {
-          latencies.push(performance.now() - t0);
-          collectPhases(phases, res.headers.get('server-timing'));
-          lockVersion = body.lockVersion;
-        } else {
-          // The first refusal says why (a 409 from an earlier run's lock version, a 503 …); the rest are counted.
-          if (failures++ === 0) console.log(`  first refused: ${res.status} ${JSON.stringify(body).slice(0, 200)}`);
-        }
-      }
-    }),
-  );
+  const { latencies, phases, failures } = await saveFor(writers, urls, seconds);
   console.log(
     `Saves · ${drafts.length} writers on their own drafts · ${seconds} s (engine, checklist, diff, hash, audit entry, answer)`,
   );

@@ -1,6 +1,6 @@
 import type { Request, RequestHandler } from 'express';
 import type { Sequelize } from 'sequelize';
-import { plainSelect, sqlTime } from '../db/plain-query';
+import { plainSelect } from '../db/plain-query';
 import type { SessionUser } from '../../shared/schemas/auth.schema';
 import type { Role } from '../../shared/authz/roles';
 
@@ -60,7 +60,7 @@ export async function readSession(
     `SELECT s.data, s.expires, u.id, u.username, u.display_name, u.email, u.active,
        (SELECT GROUP_CONCAT(r.role) FROM user_roles r WHERE r.user_id = u.id) AS roles
      FROM sessions s LEFT JOIN users u ON u.id = s.user_id WHERE s.sid = ? AND s.expires > ?`,
-    [sid, sqlTime(new Date())],
+    [sid, new Date()],
   );
   if (req && row) {
     const user: SessionUser | false =

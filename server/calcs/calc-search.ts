@@ -38,9 +38,6 @@ interface Candidate {
   ok: boolean;
 }
 
-const select = <T extends object>(db: Sequelize, sql: string, replacements: unknown[]) =>
-  plainSelect<T>(db, sql, replacements);
-
 /**
  * Whether a candidate satisfies the rest of the search, as a column of the walk itself (look-ups by primary key, a
  * few per candidate), leaving out what the driver's own condition holds (calc-search-plan.ts, `matchCondition`).
@@ -79,7 +76,7 @@ async function candidates(
   // The chunk's rows keep their column types (an ENUM still sorts by its declared order), so numbering them in
   // the same order finds the last one.
   const numbered = orderBy(keyAliases(d, 'y'), r.dir);
-  const rows = await select<Record<string, string | number | Date>>(
+  const rows = await plainSelect<Record<string, string | number | Date>>(
     db,
     `SELECT * FROM (SELECT y.*${ok}, ROW_NUMBER() OVER (ORDER BY ${numbered}) AS rn, COUNT(*) OVER () AS seen
         FROM (${walk.sql}) y) z WHERE z.ok = 1 OR z.rn = z.seen ORDER BY z.rn`,
@@ -213,7 +210,7 @@ function nextChunk(previous: number, matched: number, examined: number, wanted: 
 
 async function rowsOf(db: Sequelize, shown: Candidate[]): Promise<CalcRow[]> {
   if (shown.length === 0) return [];
-  const rows = await select<CalcRow>(db, `${CALC_ROW_SQL} WHERE c.id IN (?)`, [shown.map((c) => c.id)]);
+  const rows = await plainSelect<CalcRow>(db, `${CALC_ROW_SQL} WHERE c.id IN (?)`, [shown.map((c) => c.id)]);
   const byId = new Map(rows.map((row) => [Number(row.id), row]));
   return shown.flatMap((c) => byId.get(c.id) ?? []);
 }
@@ -230,7 +227,7 @@ async function exactPage(db: Sequelize, d: Driver, r: SearchRequest): Promise<Se
     ? ''
     : `, ${cappedCountSql(`FROM ${d.from} WHERE ${d.where.join(' AND ')}`, cap)} AS listed_total`;
   const walk = walkSql(d, r.dir, r.after, r.size + 1);
-  const rows = await select<CalcRow & { listed_total?: number }>(
+  const rows = await plainSelect<CalcRow & { listed_total?: number }>(
     db,
     `SELECT ${CALC_ROW_COLUMNS}${count}
     FROM (${walk.sql}) y

@@ -1,4 +1,5 @@
 // Where a search starts: the rarest of its words, or the project's own list when that is smaller.
+import { LRUCache } from 'lru-cache';
 import { plainSelect } from '../db/plain-query';
 import type { Sequelize } from 'sequelize';
 import type { RevisionState } from '../../shared/schemas/revision.schema';
@@ -96,6 +97,8 @@ function filterDriver(filter: SearchFilter, sort: CalcSort): Driver {
  * tie at the cap went to the longest word ("DRG-4" walked DRG, in every calc, instead of 4). A word no calc has is
  * estimated at one row or none, so its empty range is walked (or one as small) and the answer is empty at once.
  * The same EXPLAIN estimates the calcs in all (and in the state filtered on), from which the driver's `share`.
+ * Each range's estimate is kept a minute (`rangeEstimates`), so a search whose ranges were all estimated lately sends
+ * no EXPLAIN.
  */
 export async function chooseDriver(
   sequelize: Sequelize,
@@ -112,20 +115,43 @@ export async function chooseDriver(
     { from: 'calcs c', where: ['TRUE'], params: [] as unknown[] },
     ...(filter.status ? [{ from: 'calcs c', where: ['c.latest_status = ?'], params: [filter.status] }] : []),
   ];
-  const plan = await plainSelect<{ id: number | null; rows: number | null }>(
-    sequelize,
-    `EXPLAIN ${ranges.map((d) => `SELECT 1 FROM ${d.from} WHERE ${d.where.join(' AND ')}`).join(' UNION ALL ')}`,
-    ranges.flatMap((d) => d.params),
-  );
-  // The plan's rows are numbered by SELECT, 1 for the first; no figure (an impossible condition) means no rows.
-  const [calcs, inState, ...sizes] = [drivers.length, drivers.length + 1, ...drivers.keys()].map((i) =>
-    Number(plan.find((r) => Number(r.id) === i + 1)?.rows ?? 0),
-  );
+  const estimates = await estimateRanges(sequelize, ranges);
+  const [calcs, inState, ...sizes] = [drivers.length, drivers.length + 1, ...drivers.keys()].map((i) => estimates[i]);
   // Ties go to the longest word, which is the likelier to be rare.
   const best = sizes
     .map((n, i) => ({ n, i, length: words[i]?.length ?? 0 }))
     .sort((a, b) => a.n - b.n || b.length - a.length)[0];
   return { ...drivers[best.i], share: matchShare(sizes, best.i, { calcs, inState, drivers, filter }) };
+}
+
+/**
+ * Estimates of index ranges, kept per instance: a minute old at most, up to 5,000 ranges (a word, a project, a
+ * state). They only choose where a walk starts and how large its first chunk is; the walk reads the index itself, so
+ * an estimate a minute stale can make a search slower, never its answer different. Each EXPLAIN cost a round trip and
+ * about 0.35 ms of MariaDB's time on every search of two words or within a project (DEVELOPERS.md, "Measuring speed").
+ */
+const rangeEstimates = new LRUCache<string, number>({ max: 5_000, ttl: 60_000 });
+
+type Range = Pick<Driver, 'from' | 'where' | 'params'>;
+
+/** Each range's estimated rows, those not estimated lately in one EXPLAIN. */
+async function estimateRanges(sequelize: Sequelize, ranges: Range[]): Promise<number[]> {
+  const keys = ranges.map((d) => `${d.from} WHERE ${d.where.join(' AND ')} ${JSON.stringify(d.params)}`);
+  const known = keys.map((key) => rangeEstimates.get(key));
+  const missing = ranges.flatMap((d, i) => (known[i] === undefined ? [{ d, i }] : []));
+  if (missing.length) {
+    const plan = await plainSelect<{ id: number | null; rows: number | null }>(
+      sequelize,
+      `EXPLAIN ${missing.map(({ d }) => `SELECT 1 FROM ${d.from} WHERE ${d.where.join(' AND ')}`).join(' UNION ALL ')}`,
+      missing.flatMap(({ d }) => d.params),
+    );
+    // The plan's rows are numbered by SELECT, 1 for the first; no figure (an impossible condition) means no rows.
+    missing.forEach(({ i }, at) => {
+      known[i] = Number(plan.find((r) => Number(r.id) === at + 1)?.rows ?? 0);
+      rangeEstimates.set(keys[i], known[i]);
+    });
+  }
+  return known.map((n) => n ?? 0);
 }
 
 /**

@@ -307,6 +307,37 @@ describe('where a search starts', () => {
     expect((await search(t, `q=${rare}%20${broad}&size=50`)).items).toHaveLength(3);
   });
 
+  it('when the ranges of a search were estimated within the minute, then it sends no EXPLAIN, and a stale estimate changes no answer', async () => {
+    // Arrange: the first word in eight calcs, the second in three of them; a search estimates both.
+    const t = await calcTeam(app);
+    const [a, b] = [uniqueWord(), uniqueWord()];
+    for (let i = 0; i < 8; i++) await addCalc(t, `G-${i}`, i < 3 ? `${a} ${b} shaft` : `${a} shaft`);
+    const statements = async (query: string): Promise<{ sent: string[]; page: Page }> => {
+      const sent: string[] = [];
+      const options = (sequelize as unknown as { options: { logging: unknown } }).options;
+      const before = options.logging;
+      options.logging = (sql: string) => sent.push(sql.replace(/^Executing \([^)]*\): /, ''));
+      try {
+        return { page: await search(t, query), sent };
+      } finally {
+        options.logging = before;
+      }
+    };
+    const first = await statements(`q=${a}%20${b}&size=50`);
+    // The second word becomes the broader, which the kept estimates do not know yet.
+    for (let i = 0; i < 12; i++) await addCalc(t, `H-${i}`, i < 2 ? `${a} ${b} shaft` : `${b} shaft`);
+
+    // Act
+    const again = await statements(`q=${a}%20${b}&size=50`);
+
+    // Assert
+    expect(first.sent.filter((sql) => /^\s*EXPLAIN/i.test(sql))).toHaveLength(1);
+    expect(first.page.items).toHaveLength(3);
+    expect(again.sent.filter((sql) => /^\s*EXPLAIN/i.test(sql))).toHaveLength(0);
+    expect(again.page.items.map((r) => r.number).sort()).toEqual(['G-0', 'G-1', 'G-2', 'H-0', 'H-1']);
+    expect(again.page).toMatchObject({ total: 5, totalIsAtLeast: false, next: null });
+  });
+
   it('when a walk is chosen, then the share of its candidates expected to match is a fraction, whatever the filters', async () => {
     // Arrange: the share sizes the first read (fewer candidates when most match): never negative, NaN or above 1.
     const t = await calcTeam(app);

@@ -25,6 +25,8 @@ innodb-buffer-pool-size = 128M
 innodb-log-file-size = 48M
 max-allowed-packet = 64M
 skip-name-resolve
+# Statements on a pool of threads, as README's "What a production operator sets" advises for every node.
+thread-handling = pool-of-threads
 character-set-server = utf8mb4
 collation-server = utf8mb4_unicode_ci
 # Galera's requirements: row-based replication and interleaved auto-increment locks.

@@ -36,7 +36,13 @@ export type QueueQuery = z.infer<typeof queueQuerySchema>;
 // oldest first by when it entered its state; indexes calcs_author_state and calcs_state_since serve them.
 const KEY: KeyColumn[] = [{ sql: 'c.latest_since', isDate: true }, { sql: 'c.id' }];
 
-const NOT_EDITED_BY = 'NOT EXISTS (SELECT 1 FROM calc_editors e WHERE e.calc_id = c.id AND e.user_id = ?)';
+/**
+ * No editor row of the reader for the calc: a look-up by primary key per candidate the walk reaches. Written as
+ * `NOT EXISTS (…)`, MariaDB turned it into an anti-join that first gathered every calc the reader ever edited (980 for
+ * a checker of the bench's library) on each read: the overview's statement 0.90 → 0.67 ms alone, the queue of calcs
+ * waiting for a check 0.63 → 0.40 ms.
+ */
+const NOT_EDITED_BY = '(SELECT COUNT(*) FROM calc_editors e WHERE e.calc_id = c.id AND e.user_id = ?) = 0';
 type Filter = { sql: string; params: unknown[] };
 
 // How each relation of the workflow table (shared/workflow/relations.ts) reads on the calcs' summary columns.

@@ -18,6 +18,7 @@ import { lockWithContext, withEditor, withStoredResult } from './save-context';
 import { assertOpen } from '../projects/project-open';
 import { rememberValidation } from './content-hash-memo';
 import { timed } from '../http/server-timing';
+import { plainUpdate } from '../db/plain-update';
 import type { RevisionForm } from '../../shared/schemas/revision-form';
 
 /** Saves the author's input. A stale `lockVersion` is a 409 carrying the stored version, never an overwrite. */
@@ -99,7 +100,7 @@ export async function saveRevision(
           attachments: context.has.attachments ? undefined : [],
         }),
       );
-      await timed('write', () => revision.save({ transaction }));
+      await timed('write', () => plainUpdate(revision, transaction));
       if (!context.edited) await timed('editor', () => recordEditor(revision.calcId, actor.id, transaction));
       const editorIds = context.edited ? context.editorIds : withEditor(context.editorIds, actor.id);
       await timed('audit', () =>

@@ -1,8 +1,9 @@
-import { DatabaseError, QueryTypes, Sequelize, type Transaction } from 'sequelize';
+import { DataTypes, DatabaseError, Model, QueryTypes, Sequelize, type Transaction } from 'sequelize';
 import { loadConfig } from '../../server/config';
 import { sequelizeOptions } from '../../server/db';
 import { classifyDbError } from '../../server/db/db-errors';
 import { plainRun, plainSelect, sqlTime } from '../../server/db/plain-query';
+import { plainUpdate } from '../../server/db/plain-update';
 
 // Hot reads go to the driver on Sequelize's pooled connections (server/db/plain-query.ts). Whatever is read through
 // it must be what `sequelize.query(…, { type: SELECT })` gives: the same rows in both decodings the app uses, the same
@@ -147,5 +148,72 @@ describe('a plain statement', () => {
       options.logging = before;
     }
     expect(seen).toEqual([`Executing (default): SELECT id FROM ${table} WHERE id IN (1, 2) AND body <> 'it\\'s'`]);
+  });
+});
+
+describe('a plain update', () => {
+  class Probe extends Model {
+    declare id: number;
+    declare bodyText: string;
+    declare lockVersion: number;
+    declare state: 'draft' | 'approved';
+    declare updatedAt: Date;
+  }
+  Probe.init(
+    {
+      id: { type: DataTypes.INTEGER.UNSIGNED, primaryKey: true },
+      bodyText: { type: DataTypes.TEXT('long'), allowNull: false },
+      lockVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+      state: { type: DataTypes.ENUM('draft', 'approved'), allowNull: false },
+      createdAt: DataTypes.DATE(3),
+      updatedAt: DataTypes.DATE(3),
+    },
+    { sequelize: driver, tableName: `plain_update_${process.pid}`, underscored: true },
+  );
+  beforeAll(() => Probe.sync());
+  afterAll(() => Probe.drop());
+
+  it('when an instance changed, then its row is written as save() writes it, and the instance is left unchanged', async () => {
+    // Arrange: two equal rows; the state of the second changed in the database behind the instance's back.
+    const [bySave, byPlain] = await Promise.all(
+      [1, 2].map((id) => Probe.create({ id, bodyText: 'before', lockVersion: 0, state: 'draft' })),
+    );
+    await driver.query(`UPDATE plain_update_${process.pid} SET state = 'approved' WHERE id = 2`);
+    const started = Date.now();
+    for (const p of [bySave, byPlain]) p.set({ bodyText: "Ø 40 mm — “shaft” ? it's", lockVersion: 1 });
+
+    // Act
+    await driver.transaction(async (transaction) => {
+      await bySave.save({ transaction });
+      await plainUpdate(byPlain, transaction);
+    });
+
+    // Assert: the changed columns and the time written; the column the instance did not change left as stored.
+    const rows = await driver.query<Record<string, unknown>>(
+      `SELECT id, body_text, lock_version, state, updated_at FROM plain_update_${process.pid} ORDER BY id`,
+      { type: QueryTypes.SELECT },
+    );
+    expect(rows.map(({ id, ...r }) => ({ ...r, updated_at: undefined, id }))).toEqual([
+      { id: 1, body_text: "Ø 40 mm — “shaft” ? it's", lock_version: 1, state: 'draft', updated_at: undefined },
+      { id: 2, body_text: "Ø 40 mm — “shaft” ? it's", lock_version: 1, state: 'approved', updated_at: undefined },
+    ]);
+    const written = new Date(rows[1].updated_at as Date).getTime();
+    expect(written).toBeGreaterThanOrEqual(Math.floor(started / 1000) * 1000);
+    expect(written).toBe(byPlain.updatedAt.getTime());
+    expect(byPlain.changed()).toBe(false);
+    expect(byPlain.previous('bodyText')).toBe("Ø 40 mm — “shaft” ? it's");
+    // Nothing changed since: nothing is sent.
+    const sent: string[] = [];
+    await driver.transaction(async (transaction) => {
+      const options = (driver as unknown as { options: { logging: unknown } }).options;
+      const before = options.logging;
+      options.logging = (sql: string) => sent.push(sql);
+      try {
+        await plainUpdate(byPlain, transaction);
+      } finally {
+        options.logging = before;
+      }
+    });
+    expect(sent.filter((sql) => /UPDATE/.test(sql))).toEqual([]);
   });
 });

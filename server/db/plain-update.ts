@@ -17,7 +17,8 @@ export async function plainUpdate(instance: Model, transaction: Transaction): Pr
   const attributes = model.getAttributes() as Record<string, { field?: string }>;
   if (!instance.changed()) return;
   if (attributes.updatedAt) instance.set('updatedAt' as never, new Date() as never);
-  const keys = instance.changed() as string[];
+  // As save() does: only the model's own attributes (a value hung on the instance by other code is not a column).
+  const keys = (instance.changed() as string[]).filter((k) => attributes[k]);
   const key = model.primaryKeyAttribute;
   const column = (name: string) => `\`${attributes[name].field ?? name}\``;
   await plainRun(

@@ -7,7 +7,7 @@ import { join, resolve } from 'node:path';
 import { QueryTypes } from 'sequelize';
 import { loadConfig } from '../server/config';
 import { createSequelize } from '../server/db';
-import { BENCH_PASSWORD } from './bench-seed-data';
+import { BENCH_AUDITOR_SQL, BENCH_PASSWORD, BENCH_WORKER_SQL } from './bench-seed-data';
 import { figuresOf, load, signIn, startServer } from './bench-http';
 import { cpuSeconds, saveFor, writersOf } from './bench-writes';
 
@@ -38,9 +38,7 @@ async function main(): Promise<void> {
   const q = <T extends object>(sql: string) => sequelize.query<T>(sql, { type: QueryTypes.SELECT });
   // BENCH_AB_AS=worker signs in as the list bench's author and checker (whose queues are full), else compliance.
   const [person] = await q<{ username: string }>(
-    process.env.BENCH_AB_AS === 'worker'
-      ? "SELECT u.username FROM users u JOIN user_roles a ON a.user_id = u.id AND a.role = 'author' JOIN user_roles c ON c.user_id = u.id AND c.role = 'checker' WHERE u.username LIKE 'kfd-%' LIMIT 1"
-      : "SELECT u.username FROM users u JOIN user_roles r ON r.user_id = u.id AND r.role = 'compliance' WHERE u.username LIKE 'kfd-%' LIMIT 1",
+    process.env.BENCH_AB_AS === 'worker' ? BENCH_WORKER_SQL : BENCH_AUDITOR_SQL,
   );
   const [project] = await q<{ id: number }>("SELECT id FROM projects WHERE code LIKE 'KFD-B%' ORDER BY id LIMIT 1");
   const [revision] = await q<{ id: number }>(

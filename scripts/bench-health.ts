@@ -7,7 +7,7 @@ import mariadb from 'mariadb';
 import { QueryTypes } from 'sequelize';
 import { loadConfig } from '../server/config';
 import { createSequelize } from '../server/db';
-import { BENCH_PASSWORD } from './bench-seed-data';
+import { BENCH_AUDITOR_SQL, BENCH_PASSWORD } from './bench-seed-data';
 import { signIn, startServer } from './bench-http';
 import { seedHealthMaterial } from './bench-health-seed';
 import { replaceStandardForBench } from './bench-health-standard';
@@ -44,10 +44,7 @@ async function main(): Promise<void> {
     await count('SELECT COUNT(*) AS n FROM signatures'),
     await count('SELECT COUNT(*) AS n FROM findings'),
   ];
-  const [auditor] = await sequelize.query<{ username: string }>(
-    "SELECT u.username FROM users u JOIN user_roles r ON r.user_id = u.id AND r.role = 'compliance' WHERE u.username LIKE 'kfd-%' LIMIT 1",
-    { type: QueryTypes.SELECT },
-  );
+  const [auditor] = await sequelize.query<{ username: string }>(BENCH_AUDITOR_SQL, { type: QueryTypes.SELECT });
   const [project] = await sequelize.query<{ id: number }>(
     "SELECT id FROM projects WHERE code LIKE 'KFD-B%' ORDER BY id LIMIT 1",
     { type: QueryTypes.SELECT },

@@ -5,7 +5,7 @@ import { cpus, loadavg } from 'node:os';
 import { QueryTypes } from 'sequelize';
 import { loadConfig } from '../server/config';
 import { createSequelize } from '../server/db';
-import { BENCH_PASSWORD } from './bench-seed-data';
+import { BENCH_AUDITOR_SQL, BENCH_PASSWORD, BENCH_WORKER_SQL } from './bench-seed-data';
 import { join } from 'node:path';
 import { line, load, msText, signIn, startServer, type Session } from './bench-http';
 import { endpointsOf } from './bench-lists-endpoints';
@@ -45,12 +45,8 @@ async function main(): Promise<void> {
       "SELECT latest_revision_id AS id FROM calcs WHERE latest_status = 'approved' ORDER BY id DESC LIMIT 500",
     )
   ).map((r) => r.id);
-  const [dual] = await q<{ username: string }>(
-    "SELECT u.username FROM users u JOIN user_roles a ON a.user_id = u.id AND a.role = 'author' JOIN user_roles c ON c.user_id = u.id AND c.role = 'checker' WHERE u.username LIKE 'kfd-%' LIMIT 1",
-  );
-  const [auditor] = await q<{ username: string; id: number }>(
-    "SELECT u.username, u.id FROM users u JOIN user_roles r ON r.user_id = u.id AND r.role = 'compliance' WHERE u.username LIKE 'kfd-%' LIMIT 1",
-  );
+  const [dual] = await q<{ username: string }>(BENCH_WORKER_SQL);
+  const [auditor] = await q<{ username: string; id: number }>(BENCH_AUDITOR_SQL);
   const dbPid = await databasePid(sequelize);
   const env = {
     LOG_LEVEL: 'silent',

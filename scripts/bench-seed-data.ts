@@ -15,6 +15,11 @@ export const BENCH = {
   audit: Math.round(1_000_000 * scale),
 };
 export const BENCH_PASSWORD = 'bench-only password 1';
+/** The seeded people the benches sign in as: a compliance officer (reads everything), an author who also checks. */
+export const BENCH_AUDITOR_SQL =
+  "SELECT u.username, u.id FROM users u JOIN user_roles r ON r.user_id = u.id AND r.role = 'compliance' WHERE u.username LIKE 'kfd-%' LIMIT 1";
+export const BENCH_WORKER_SQL =
+  "SELECT u.username, u.id FROM users u JOIN user_roles a ON a.user_id = u.id AND a.role = 'author' JOIN user_roles c ON c.user_id = u.id AND c.role = 'checker' WHERE u.username LIKE 'kfd-%' LIMIT 1";
 
 /** A small deterministic generator, so two seeds of the same size hold the same rows. */
 export function prng(seed: number): () => number {

@@ -32,7 +32,8 @@ export class RuleSetDrafts {
         [from.code],
         transaction,
       );
-      const record = await insertDraft(from, Number(latest) + 1, actor, transaction);
+      const version = Number(latest) + 1;
+      const record = await insertDraft(from, version, actor, transaction);
       await appendAudit(
         this.sequelize,
         actor,
@@ -40,7 +41,7 @@ export class RuleSetDrafts {
           action: 'rule_set.drafted',
           entityType: 'RuleSet',
           entityId: record.id,
-          payload: { code: from.code, version: Number(latest) + 1, from: from.version },
+          payload: { code: from.code, version, from: from.version },
         },
         transaction,
       );

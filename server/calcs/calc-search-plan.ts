@@ -174,19 +174,42 @@ function matchShare(
 }
 
 /**
- * The rest of the search as SQL on the candidate whose calc id is `id`: every word as a look-up of its term, and the
- * filters on `calcs c`. What the driver's own condition already holds is left out: its word (every candidate of a
- * word's index has it), and the state when that index holds it too; with no filter left, the calc row is not read.
+ * The rest of the search on the candidate whose calc id is `id`: each word its term's row joined by primary key, then
+ * the filters on the calc's row, as LEFT JOINs for the candidate's table (`joins`, with `params`); `ok` says whether
+ * every one was found. Each join is tried only when the one before it found its row, as `EXISTS (…) AND EXISTS (…)`
+ * stops at the first that fails. What the driver's own condition already holds is left out: its word (every candidate
+ * of a word's index has it), and the state when that index holds it too; with no filter left, the calc row is not
+ * read. As dependent `EXISTS` subqueries the same look-ups cost MariaDB 7–17 % more of a chunk's statement, the
+ * subquery set up again for every candidate (DEVELOPERS.md, "Measuring speed").
  */
-export function matchCondition(
+export function matchJoins(
   words: string[],
   filter: SearchFilter,
   id: string,
   term?: Driver['term'],
-): { sql: string; params: unknown[] } {
+): { joins: string; ok: string; params: unknown[] } {
   const others = words.filter((w) => w !== term?.word);
-  const parts = others.map(() => `EXISTS (SELECT 1 FROM calc_search_terms w WHERE w.calc_id = ${id} AND w.term = ?)`);
-  const own = filterConditions(term?.hasState ? { ...filter, status: undefined } : filter);
-  if (own.parts.length) parts.push(`EXISTS (SELECT 1 FROM calcs c WHERE c.id = ${id} AND ${own.parts.join(' AND ')})`);
-  return { sql: parts.length ? `(${parts.join(' AND ')})` : 'TRUE', params: [...others, ...own.params] };
+  const own = filterConditions(term?.hasState ? { ...filter, status: undefined } : filter, {
+    project: 'wc.project_id',
+    state: 'wc.latest_status',
+  });
+  const lookups = [
+    ...others.map((_, i) => ({
+      found: `w${i}.calc_id`,
+      join: `calc_search_terms w${i}`,
+      on: `w${i}.calc_id = ${id} AND w${i}.term = ?`,
+    })),
+    ...(own.parts.length
+      ? [{ found: 'wc.id', join: 'calcs wc', on: `wc.id = ${id} AND ${own.parts.join(' AND ')}` }]
+      : []),
+  ];
+  const joins = lookups.map(
+    (l, i) => `LEFT JOIN ${l.join} ON ${i ? `${lookups[i - 1].found} IS NOT NULL AND ` : ''}${l.on}`,
+  );
+  return {
+    joins: joins.join(' '),
+    // The last look-up is tried only when every one before it found its row.
+    ok: lookups.length ? `${lookups[lookups.length - 1].found} IS NOT NULL` : 'TRUE',
+    params: [...others, ...own.params],
+  };
 }

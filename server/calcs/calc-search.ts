@@ -10,7 +10,7 @@ import {
   type CalcRow,
   type CalcSort,
 } from './calc-list-rows';
-import { SEARCH_LIMITS, chooseDriver, matchCondition, type Driver, type SearchFilter } from './calc-search-plan';
+import { SEARCH_LIMITS, chooseDriver, matchJoins, type Driver, type SearchFilter } from './calc-search-plan';
 
 type KeyValue = string | number;
 
@@ -39,14 +39,16 @@ interface Candidate {
 }
 
 /**
- * Whether a candidate satisfies the rest of the search, as a column of the walk itself (look-ups by primary key, a
- * few per candidate), leaving out what the driver's own condition holds (calc-search-plan.ts, `matchCondition`).
+ * Whether a candidate satisfies the rest of the search, as look-ups by primary key joined to the walk itself (a few
+ * per candidate), leaving out what the driver's own condition holds (calc-search-plan.ts, `matchJoins`).
  */
-function matchColumn(d: Driver, r: SearchRequest): { sql: string; params: unknown[] } {
+function matchOf(d: Driver, r: SearchRequest): Match {
   // The list's own rows: the driver's condition is the filter, so only the words are left.
-  if (!d.term) return matchCondition(r.words, {}, 'c.id');
-  return matchCondition(r.words, r.filter, d.columns[d.columns.length - 1].sql, d.term);
+  if (!d.term) return matchJoins(r.words, {}, 'c.id');
+  return matchJoins(r.words, r.filter, d.columns[d.columns.length - 1].sql, d.term);
 }
+
+type Match = ReturnType<typeof matchJoins>;
 
 interface Chunk {
   /** The candidates of the chunk that satisfy every word and filter, in the list's order. */
@@ -71,17 +73,18 @@ async function candidates(
   limit: number,
 ): Promise<Chunk> {
   // With calcs from two sources, the match is checked on the merged walk's candidates, as they are numbered.
-  const match = matchColumn(d.moved ? { ...d, columns: keyAliases(d, 'y') } : d, r);
+  const match = matchOf(d.moved ? { ...d, columns: keyAliases(d, 'y') } : d, r);
   const walk = walkSql(d, r.dir, after, limit, d.moved ? undefined : match);
-  const ok = d.moved ? `, ${match.sql} AS ok` : '';
+  const ok = d.moved ? `, ${match.ok} AS ok` : '';
+  const joins = d.moved ? match.joins : '';
   // The chunk's rows keep their column types (an ENUM still sorts by its declared order), so numbering them in
   // the same order finds the last one.
   const numbered = orderBy(keyAliases(d, 'y'), r.dir);
   const rows = await plainSelect<Record<string, string | number | Date>>(
     db,
     `SELECT * FROM (SELECT y.*${ok}, ROW_NUMBER() OVER (ORDER BY ${numbered}) AS rn
-        FROM (${walk.sql}) y) z WHERE z.ok = 1 OR z.rn = ${limit} ORDER BY z.rn`,
-    d.moved ? [...match.params, ...walk.params] : walk.params,
+        FROM (${walk.sql}) y ${joins}) z WHERE z.ok = 1 OR z.rn = ${limit} ORDER BY z.rn`,
+    d.moved ? [...walk.params, ...match.params] : walk.params,
   );
   const list = rows.map((row): Candidate & { rn: number } => {
     const key = d.columns.map((c, i) => (c.isDate ? new Date(row[`k${i}`]).toISOString() : row[`k${i}`])) as KeyValue[];
@@ -112,7 +115,7 @@ function walkSql(
   dir: 'asc' | 'desc',
   after: KeyValue[] | null,
   limit: number,
-  match?: { sql: string; params: unknown[] },
+  match?: Match,
 ): { sql: string; params: unknown[] } {
   const source = (columns: KeyColumn[], from: string, where: string[], params: unknown[]) => {
     const all = [...where];
@@ -123,9 +126,10 @@ function walkSql(
       values.push(...k.replacements);
     }
     const keys = columns.map((c, i) => `${c.sql} AS k${i}`).join(', ');
-    const ok = match ? `, ${match.sql} AS ok` : '';
+    const ok = match ? `, ${match.ok} AS ok` : '';
     return {
-      sql: `SELECT ${keys}${ok} FROM ${from} WHERE ${all.join(' AND ')} ORDER BY ${orderBy(columns, dir)} LIMIT ${limit}`,
+      sql: `SELECT ${keys}${ok} FROM ${from} ${match?.joins ?? ''} WHERE ${all.join(' AND ')}
+        ORDER BY ${orderBy(columns, dir)} LIMIT ${limit}`,
       params: [...(match?.params ?? []), ...values],
     };
   };

@@ -10,6 +10,11 @@ import { sortColumns, type CalcSort } from './calc-list-rows';
 export const SEARCH_LIMITS = {
   /** Calcs looked at for one page: a page not full by then says so, and its `next` searches on. */
   pageBudget: 2_000,
+  /**
+   * Candidates a streamed page examines, about (as MariaDB counts the rows it examines: the walked entries and their
+   * look-ups), before it gives the page up to the walk in chunks (calc-search.ts, `streamedPage`).
+   */
+  streamed: 1_000,
   /** Candidates read at once (fewer when most are estimated to match), growing fourfold while the page is not full. */
   firstChunk: 200,
   /** A one-word search counts its matches this far, as every walked total (TOTAL_CAP, "at least 1,000"). */
@@ -42,6 +47,8 @@ export interface Driver {
    * condition as if they were independent; absent when nothing was estimated (one word and no project).
    */
   share?: number;
+  /** The indexes' estimate of the driver's own range (absent when nothing was estimated). */
+  size?: number;
 }
 
 const TERM_INDEX: Record<CalcSort, string> = {
@@ -121,7 +128,11 @@ export async function chooseDriver(
   const best = sizes
     .map((n, i) => ({ n, i, length: words[i]?.length ?? 0 }))
     .sort((a, b) => a.n - b.n || b.length - a.length)[0];
-  return { ...drivers[best.i], share: matchShare(sizes, best.i, { calcs, inState, drivers, filter }) };
+  return {
+    ...drivers[best.i],
+    share: matchShare(sizes, best.i, { calcs, inState, drivers, filter }),
+    size: best.n,
+  };
 }
 
 /**
@@ -187,7 +198,8 @@ export function matchJoins(
   filter: SearchFilter,
   id: string,
   term?: Driver['term'],
-): { joins: string; ok: string; params: unknown[] } {
+  inner = false,
+): { joins: string; ok: string; params: unknown[]; lookups: number } {
   const others = words.filter((w) => w !== term?.word);
   const own = filterConditions(term?.hasState ? { ...filter, status: undefined } : filter, {
     project: 'wc.project_id',
@@ -203,13 +215,18 @@ export function matchJoins(
       ? [{ found: 'wc.id', join: 'calcs wc', on: `wc.id = ${id} AND ${own.parts.join(' AND ')}` }]
       : []),
   ];
-  const joins = lookups.map(
-    (l, i) => `LEFT JOIN ${l.join} ON ${i ? `${lookups[i - 1].found} IS NOT NULL AND ` : ''}${l.on}`,
+  // Inner joins keep only the candidates that match (a streamed page, calc-search.ts), each tried in turn as well;
+  // written STRAIGHT_JOIN, or MariaDB may read a filter's calcs first and sort them (a state filter, by title).
+  const joins = lookups.map((l, i) =>
+    inner
+      ? `STRAIGHT_JOIN ${l.join} ON ${l.on}`
+      : `LEFT JOIN ${l.join} ON ${i ? `${lookups[i - 1].found} IS NOT NULL AND ` : ''}${l.on}`,
   );
   return {
     joins: joins.join(' '),
     // The last look-up is tried only when every one before it found its row.
-    ok: lookups.length ? `${lookups[lookups.length - 1].found} IS NOT NULL` : 'TRUE',
+    ok: lookups.length && !inner ? `${lookups[lookups.length - 1].found} IS NOT NULL` : 'TRUE',
     params: [...others, ...own.params],
+    lookups: lookups.length,
   };
 }

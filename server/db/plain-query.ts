@@ -64,12 +64,34 @@ export async function plainRun(
   await send(sequelize, sql, values, transaction, 'SQL');
 }
 
+/**
+ * Rows of a SELECT sent as plainSelect sends it, with the number of warnings it raised when `asked(rows)` says they
+ * matter: read as `@@warning_count` on the same connection before it goes back to the pool (the driver does not pass
+ * on the count the server sends with the rows). A statement cut short by `LIMIT … ROWS EXAMINED` says so only so.
+ */
+export async function plainSelectWarned<T extends object>(
+  sequelize: Sequelize,
+  sql: string,
+  values: readonly unknown[],
+  asked: (rows: T[]) => boolean,
+): Promise<{ rows: T[]; warnings: number }> {
+  let warnings = 0;
+  const rows = (await send(sequelize, sql, values, null, 'SELECT', async (connection, result) => {
+    if (!asked(result as T[])) return;
+    const [row] = (await connection.query('SELECT @@warning_count AS n')) as { n: number | bigint }[];
+    warnings = Number(row.n);
+  })) as T[] & { meta?: unknown };
+  delete rows.meta;
+  return { rows, warnings };
+}
+
 async function send(
   sequelize: Sequelize,
   sql: string,
   values: readonly unknown[],
   transaction: Transaction | null | undefined,
   type: 'SELECT' | 'SQL',
+  then?: (connection: DriverConnection, result: unknown) => Promise<void>,
 ): Promise<unknown> {
   const manager = managerOf(sequelize);
   const sent = values.map(valueOf);
@@ -82,7 +104,9 @@ async function send(
   const connection = own ?? (await manager.getConnection({ type }));
   logged(sequelize, sql, sent);
   try {
-    return await connection.query(sql, sent);
+    const result = await connection.query(sql, sent);
+    await then?.(connection, result);
+    return result;
   } catch (err) {
     const Query = (sequelize as unknown as { dialect: { Query: QueryClass } }).dialect.Query;
     throw new Query(connection, sequelize, { transaction }).formatError(

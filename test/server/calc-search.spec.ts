@@ -49,6 +49,19 @@ async function allPages(t: Team, query: string): Promise<Page[]> {
   return pages;
 }
 
+/** What `act` returned, with the statements the app sent meanwhile (as Sequelize's logging sees them). */
+async function sentDuring<T>(act: () => Promise<T>): Promise<{ sent: string[]; result: T }> {
+  const sent: string[] = [];
+  const options = (sequelize as unknown as { options: { logging: unknown } }).options;
+  const before = options.logging;
+  options.logging = (sql: string) => sent.push(sql.replace(/^Executing \([^)]*\): /, ''));
+  try {
+    return { result: await act(), sent };
+  } finally {
+    options.logging = before;
+  }
+}
+
 describe('the search box finds calcs by the starts of their words', () => {
   it('when every typed word starts a word of the calc, then it is found, and only then', async () => {
     // Arrange
@@ -276,6 +289,48 @@ describe('search pages', () => {
   });
 });
 
+describe('a page read in one statement', () => {
+  it('when a streamed page is cut short by the rows it may examine, then the page is walked in chunks and lists the same calcs', async () => {
+    // Arrange: the first word in twelve calcs, the second in ten, both in four; pages of one, so that every walk is
+    // longer than a first chunk would read whole (on the library's 100,000 calcs a walk is hundreds of candidates).
+    const t = await calcTeam(app);
+    const [a, b] = [uniqueWord(), uniqueWord()];
+    for (let i = 0; i < 12; i++) await addCalc(t, `R-${i}`, i % 3 === 0 ? `${a} ${b} shaft` : `${a} shaft`);
+    for (let i = 0; i < 6; i++) await addCalc(t, `Q-${i}`, `${b} shaft`);
+    const saved = { ...SEARCH_LIMITS };
+    Object.assign(SEARCH_LIMITS, { firstChunk: 1 });
+    const ids = (pages: Page[]) => pages.flatMap((p) => p.items.map((r) => r.id));
+    const streams = (sql: string) => /ROWS EXAMINED/.test(sql);
+    const chunks = (sql: string) => /ROW_NUMBER\(\)/.test(sql);
+    try {
+      for (const order of [
+        'sort=number&dir=asc',
+        'sort=title&dir=desc',
+        'sort=updatedAt&dir=desc',
+        'sort=status&dir=asc',
+      ]) {
+        // Act: whole, then cut short after about two candidates
+        const plain = (await search(t, `projectId=${t.project.id}&size=50&${order}`)).items;
+        const whole = await sentDuring(() => allPages(t, `q=${a}%20${b}&size=1&${order}`));
+        Object.assign(SEARCH_LIMITS, { streamed: 2 });
+        const cut = await sentDuring(() => allPages(t, `q=${a}%20${b}&size=1&${order}`));
+        Object.assign(SEARCH_LIMITS, { streamed: saved.streamed });
+
+        // Assert
+        const wanted = plain.filter((r) => ['R-0', 'R-3', 'R-6', 'R-9'].includes(r.number)).map((r) => r.id);
+        expect({ order, ids: ids(whole.result) }).toEqual({ order, ids: wanted });
+        expect({ order, ids: ids(cut.result) }).toEqual({ order, ids: wanted });
+        expect(whole.sent.filter(streams).length).toBe(whole.result.length);
+        expect(whole.sent.filter(chunks)).toEqual([]);
+        expect(cut.sent.filter(streams).length).toBe(cut.result.length);
+        expect(cut.sent.filter(chunks).length).toBeGreaterThan(0);
+      }
+    } finally {
+      Object.assign(SEARCH_LIMITS, saved);
+    }
+  });
+});
+
 describe('where a search starts', () => {
   it("when two words are searched, then the walk starts from the rarer word's index, by the index's own estimate", async () => {
     // Arrange: the first word in twelve calcs, the second in three of them.
@@ -312,16 +367,9 @@ describe('where a search starts', () => {
     const t = await calcTeam(app);
     const [a, b] = [uniqueWord(), uniqueWord()];
     for (let i = 0; i < 8; i++) await addCalc(t, `G-${i}`, i < 3 ? `${a} ${b} shaft` : `${a} shaft`);
-    const statements = async (query: string): Promise<{ sent: string[]; page: Page }> => {
-      const sent: string[] = [];
-      const options = (sequelize as unknown as { options: { logging: unknown } }).options;
-      const before = options.logging;
-      options.logging = (sql: string) => sent.push(sql.replace(/^Executing \([^)]*\): /, ''));
-      try {
-        return { page: await search(t, query), sent };
-      } finally {
-        options.logging = before;
-      }
+    const statements = async (query: string) => {
+      const { sent, result } = await sentDuring(() => search(t, query));
+      return { sent, page: result };
     };
     const first = await statements(`q=${a}%20${b}&size=50`);
     // The second word becomes the broader, which the kept estimates do not know yet.

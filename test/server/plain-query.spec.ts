@@ -2,7 +2,7 @@ import { DataTypes, DatabaseError, Model, QueryTypes, Sequelize, type Transactio
 import { loadConfig } from '../../server/config';
 import { sequelizeOptions } from '../../server/db';
 import { classifyDbError } from '../../server/db/db-errors';
-import { plainRun, plainSelect, sqlTime } from '../../server/db/plain-query';
+import { plainRun, plainSelect, plainSelectWarned, sqlTime } from '../../server/db/plain-query';
 import { plainUpdate } from '../../server/db/plain-update';
 
 // Hot reads go to the driver on Sequelize's pooled connections (server/db/plain-query.ts). Whatever is read through
@@ -148,6 +148,22 @@ describe('a plain statement', () => {
       options.logging = before;
     }
     expect(seen).toEqual([`Executing (default): SELECT id FROM ${table} WHERE id IN (1, 2) AND body <> 'it\\'s'`]);
+  });
+
+  it("when its warnings are asked for, then they are the statement's own, read on its connection, and only when asked", async () => {
+    // Three connections, each pair of statements sent at once: a count read on another connection would be its own.
+    const cut = `SELECT a.id FROM ${table} a JOIN ${table} b ORDER BY a.id LIMIT 9 ROWS EXAMINED 2`;
+    const clean = `SELECT id FROM ${table} ORDER BY id`;
+    const runs = await Promise.all(
+      Array.from({ length: 12 }, (_, i) =>
+        plainSelectWarned<{ id: number }>(driver, i % 2 ? cut : clean, [], (rows) => i % 4 < 2 || rows.length > 99),
+      ),
+    );
+    expect(runs.map((r) => r.warnings > 0)).toEqual(Array.from({ length: 12 }, (_, i) => i % 4 === 1));
+    expect(runs.filter((_, i) => i % 2 === 0).map((r) => r.rows.map((row) => Number(row.id)))).toEqual(
+      Array.from({ length: 6 }, () => [1, 2, 3]),
+    );
+    expect(runs.every((r) => !('meta' in r.rows))).toBe(true);
   });
 });
 

@@ -197,41 +197,49 @@ export async function searchCalcs(db: Sequelize, r: SearchRequest): Promise<Sear
 }
 
 /**
- * A page of a walked search in one statement: the walk joined to its look-ups, so that MariaDB reads candidates in
- * the list's order and stops at the page's last match (plus one), where the chunks checked every candidate of each
- * chunk, numbered them all and cost a statement each (the bench's two-word searches read 569 and 380 candidates in
- * two chunks for a page of 50). It gives up after examining about SEARCH_LIMITS.streamed candidates
- * (`LIMIT … ROWS EXAMINED`, as MariaDB counts rows: the walked entries and their look-ups); cut short, it does not
- * say how far it read, so the page is then walked in chunks from its start, which count their candidates against
- * the page's budget and say where they stopped (null here). A walk merged from two sources sorts what both found
- * only after both ran, so its warnings are read even for a full page.
+ * A page of a walked search in one statement with its calcs' rows: the walk joined to its look-ups, so that MariaDB
+ * reads candidates in the list's order and stops at the page's last match (plus one), where the chunks checked every
+ * candidate of each chunk, numbered them all and cost a statement each, and the rows another (the bench's two-word
+ * searches read 569 and 380 candidates in two chunks for a page of 50). It gives up after examining about
+ * SEARCH_LIMITS.streamed candidates (`LIMIT … ROWS EXAMINED`, as MariaDB counts rows: the walked entries and their
+ * look-ups); cut short, it does not say how far it read, so the page is then walked in chunks from its start, which
+ * count their candidates against the page's budget and say where they stopped (null here). A walk merged from two
+ * sources sorts what both found only after both ran, so its warnings are read even for a full page.
  */
 async function streamedPage(db: Sequelize, d: Driver, r: SearchRequest): Promise<SearchPage | null> {
   // A range the first chunk reads whole is walked in chunks: they count every match in it.
   if (d.size === undefined || d.size <= firstChunk(d, r.size + 1)) return null;
   const match = matchOf(d, r, true);
   const walk = walkSql(d, r.dir, r.after, r.size + 1, match);
-  const examined = Math.min(SEARCH_LIMITS.streamed, SEARCH_LIMITS.pageBudget) * (1 + match.lookups);
-  const { rows, warnings } = await plainSelectWarned<Record<string, string | number | Date>>(
+  // The page's calcs are read in the same statement, each row a few look-ups more (the calc, its standard, project).
+  const examined = Math.min(SEARCH_LIMITS.streamed, SEARCH_LIMITS.pageBudget) * (1 + match.lookups) + 4 * (r.size + 1);
+  const { rows, warnings } = await plainSelectWarned<CalcRow>(
     db,
-    `${walk.sql} ROWS EXAMINED ${examined}`,
+    `${rowsOfWalk(d, r, walk.sql)} LIMIT ${r.size + 1} ROWS EXAMINED ${examined}`,
     walk.params,
     (found) => d.moved === true || found.length <= r.size,
   );
   if (warnings > 0) return null;
-  const found = rows.map((row): Candidate => {
-    const key = keyOfRow(d, row);
-    return { id: Number(key[key.length - 1]), key, ok: true };
-  });
-  const full = found.length > r.size;
-  const shown = found.slice(0, r.size);
+  const full = rows.length > r.size;
+  const shown = rows.slice(0, r.size);
   return {
-    rows: await rowsOf(db, shown),
-    next: full ? shown[shown.length - 1].key : null,
+    rows: shown,
+    next: full ? keyOf(shown[shown.length - 1], r.sort) : null,
     stoppedEarly: false,
-    counted: r.after ? null : countOf(found.length, !full),
+    counted: r.after ? null : countOf(rows.length, !full),
   };
 }
+
+/**
+ * The calcs' rows of a walk's page, in the list's order: its entries carry their calc's sort values (kept by the same
+ * triggers, in the same transaction; a last change a save moved, from `calc_search_moved`, see `walkSql`), so the
+ * rows sort as the walk.
+ */
+const rowsOfWalk = (d: Driver, r: SearchRequest, walk: string, extra = '') =>
+  `SELECT ${CALC_ROW_COLUMNS}${extra}
+    FROM (${walk}) y
+    JOIN calcs c ON c.id = y.k${d.columns.length - 1} ${CALC_ROW_JOINS}
+    ORDER BY ${orderBy(sortColumns(r.sort, 'c', 'id'), r.dir)}`;
 
 /**
  * The first chunk's size: fourfold the matches wanted, or fewer when the indexes' estimate says most candidates match
@@ -266,9 +274,8 @@ async function rowsOf(db: Sequelize, shown: Candidate[]): Promise<CalcRow[]> {
 
 /**
  * A one-word search with no other condition in one statement: the word's index entries of the page in the list's
- * order, their calcs' rows, and on a first page the word's count (index entries alone, up to
- * SEARCH_LIMITS.countCap). The entries carry their calc's sort values (kept by the same triggers, in the same
- * transaction; a last change a save moved, from `calc_search_moved`, see `walkSql`), so the rows sort as the walk.
+ * order, their calcs' rows (`rowsOfWalk`), and on a first page the word's count (index entries alone, up to
+ * SEARCH_LIMITS.countCap).
  */
 async function exactPage(db: Sequelize, d: Driver, r: SearchRequest): Promise<SearchPage> {
   const cap = SEARCH_LIMITS.countCap;
@@ -276,14 +283,10 @@ async function exactPage(db: Sequelize, d: Driver, r: SearchRequest): Promise<Se
     ? ''
     : `, ${cappedCountSql(`FROM ${d.from} WHERE ${d.where.join(' AND ')}`, cap)} AS listed_total`;
   const walk = walkSql(d, r.dir, r.after, r.size + 1);
-  const rows = await plainSelect<CalcRow & { listed_total?: number }>(
-    db,
-    `SELECT ${CALC_ROW_COLUMNS}${count}
-    FROM (${walk.sql}) y
-    JOIN calcs c ON c.id = y.k${d.columns.length - 1} ${CALC_ROW_JOINS}
-    ORDER BY ${orderBy(sortColumns(r.sort, 'c', 'id'), r.dir)}`,
-    [...(r.after ? [] : d.params), ...walk.params],
-  );
+  const rows = await plainSelect<CalcRow & { listed_total?: number }>(db, rowsOfWalk(d, r, walk.sql, count), [
+    ...(r.after ? [] : d.params),
+    ...walk.params,
+  ]);
   const shown = rows.slice(0, r.size);
   const next = rows.length > r.size ? keyOf(shown[shown.length - 1], r.sort) : null;
   const counted = r.after ? null : cappedTotal(Number(rows[0]?.listed_total ?? 0), cap);

@@ -33,6 +33,32 @@ describe('KeysetPager', () => {
     expect(pager.length()).toBe(10_000);
   });
 
+  it('when a lower bound is paged past, then the line beside the table grows with the rows read, as the paginator does', () => {
+    const pager = new KeysetPager(25);
+    pager.remember(page('c1', 26, true));
+    expect([pager.totalOf('calc', 'calcs'), pager.length()]).toEqual(['at least 26 calcs', 26]);
+    pager.turn({ pageIndex: 1, pageSize: 25, previousPageIndex: 0, length: 26 });
+    pager.remember(page('c2'));
+    expect([pager.totalOf('calc', 'calcs'), pager.length()]).toEqual(['at least 51 calcs', 51]);
+    pager.turn({ pageIndex: 2, pageSize: 25, previousPageIndex: 1, length: 51 });
+    pager.remember(page(null, null, false, 3));
+    expect([pager.totalOf('calc', 'calcs'), pager.length()]).toEqual(['at least 53 calcs', 53]);
+    // Back on the first page, what was read stays read.
+    pager.turn({ pageIndex: 0, pageSize: 25, previousPageIndex: 2, length: 53 });
+    pager.remember(page('c1'));
+    expect(pager.totalLabel()).toBe('at least 53');
+    // A search page that stopped early holds fewer rows and offers a next cursor: no row more is claimed for it.
+    pager.reset();
+    pager.remember(page('c1', 3, true, 3));
+    expect(pager.totalLabel()).toBe('at least 3');
+    // An exact count is never grown.
+    pager.reset();
+    pager.remember(page('c1', 30, false));
+    pager.turn({ pageIndex: 1, pageSize: 25, previousPageIndex: 0, length: 30 });
+    pager.remember(page(null, null, false, 5));
+    expect(pager.totalLabel()).toBe('30');
+  });
+
   it('when the server still offers a next page past the counted total, then the paginator can go on', () => {
     const pager = new KeysetPager(2);
     pager.remember(page('c1', 2, false, 2));

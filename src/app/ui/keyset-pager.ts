@@ -17,6 +17,8 @@ export class KeysetPager {
   private readonly next = signal<string | null>(null);
   /** Rows on the page shown; a page being fetched counts as full (every page before the last is). */
   private readonly rows = signal(0);
+  /** Rows each page read so far held (a search's page that stopped early may hold fewer than a page). */
+  private readonly pageRows = signal<number[]>([]);
   private cursors: (string | undefined)[] = [undefined];
 
   constructor(size: number) {
@@ -38,8 +40,23 @@ export class KeysetPager {
    */
   readonly totalLabel = computed(() => {
     const t = this.total();
-    return t ? `${t.isAtLeast ? 'at least ' : ''}${t.total.toLocaleString('en-US')}` : '';
+    return t ? `${t.isAtLeast ? 'at least ' : ''}${this.atLeast(t).toLocaleString('en-US')}` : '';
   });
+
+  /**
+   * A lower bound grows with the rows read since it was counted on the first page, and by one while a full page is
+   * followed by another, as the paginator's length: a search that counted "at least 26" on its first page of 25 reads
+   * "at least 51" on its second, where the paginator shows "26 – 50 of at least 51". An exact count stays as counted.
+   */
+  private atLeast(t: { total: number; isAtLeast: boolean }): number {
+    if (!t.isAtLeast) return t.total;
+    const rows = this.pageRows();
+    const read = rows.reduce((sum, n) => sum + (n ?? 0), 0);
+    // One more only past the last page read, whose rows are not counted yet.
+    const unread = rows[this.pageIndex() + 1] === undefined;
+    const more = this.next() && unread && this.rows() === this.size() ? 1 : 0;
+    return Math.max(t.total, read + more);
+  }
 
   /** Whether the count is only a lower bound (a capped count, or a search's bounded walk). */
   readonly isAtLeast = computed(() => this.total()?.isAtLeast ?? false);
@@ -56,6 +73,8 @@ export class KeysetPager {
       if (page.total !== null) this.total.set({ total: page.total, isAtLeast: page.totalIsAtLeast });
       this.next.set(page.next);
       this.rows.set(page.items.length);
+      const index = this.pageIndex();
+      this.pageRows.update((rows) => Object.assign([...rows], { [index]: page.items.length }));
       this.cursors[this.pageIndex() + 1] = page.next ?? undefined;
     });
   }
@@ -67,6 +86,7 @@ export class KeysetPager {
     this.total.set(null);
     this.next.set(null);
     this.rows.set(0);
+    this.pageRows.set([]);
     this.pageIndex.set(0);
     this.after.set(undefined);
   }

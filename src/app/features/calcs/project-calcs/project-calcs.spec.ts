@@ -33,6 +33,62 @@ describe("a project's calcs page", () => {
     d.http.verify();
   });
 
+  it('when the search box is left for the next page after Enter, then the next page is read, not the first again', async () => {
+    const d = await open();
+    (await d.request(isProject)).flush({ id: 7, code: 'KF-0007', name: 'Fen pumps', status: 'active' });
+    (await d.request(isList)).flush(emptyPage);
+    await d.settle();
+    const row = (n: number) => ({
+      id: n,
+      projectId: 7,
+      projectCode: 'KF-0007',
+      number: `C-${n}`,
+      title: 'Mixer agitator shaft',
+      partRef: 'DRG-1',
+      projectArchived: false,
+      latest: {
+        id: n,
+        label: 'A',
+        status: 'draft',
+        verdict: 'compliant',
+        author: { id: 1, name: 'Ada Jessop' },
+        ruleSet: { id: 3, code: 'KFD-ENG-014', version: 4 },
+        updatedAt: '2026-12-05T12:00:00.000Z',
+      },
+    });
+    const found = (from: number, rows: number, next: string | null, total: number | null) => ({
+      ...emptyPage,
+      items: Array.from({ length: rows }, (_, i) => row(from + i)),
+      next,
+      total,
+      totalIsAtLeast: total !== null,
+    });
+
+    // Act: a search by Enter, then a click on "next page", which first takes the focus from the search box
+    const box = d.element.querySelector('input') as HTMLInputElement;
+    box.value = 'mixer agitator';
+    box.dispatchEvent(new KeyboardEvent('keyup', { key: 'Enter' }));
+    const first = await d.request((r) => isList(r) && r.params.get('q') === 'mixer agitator');
+    expect(first.request.params.get('after')).toBeNull();
+    first.flush(found(1, 25, 'c1', 26));
+    await d.settle();
+    box.dispatchEvent(new Event('blur'));
+    await d.settle();
+    // Leaving the box with the same words asks for nothing new.
+    expect(d.http.match(isList)).toHaveLength(0);
+    const paginator = await d.loader.getHarness(MatPaginatorHarness);
+    const second = await d.answerDuring(() => paginator.goToNextPage(), isList, found(26, 25, 'c2', null));
+    await d.settle();
+
+    // Assert
+    expect(second.params.get('after')).toBe('c1');
+    expect(d.text()).toContain('C-26');
+    expect(d.text()).not.toContain('C-1 ');
+    expect(d.text()).toContain('26 – 50 of at least 51');
+    expect(d.text()).toContain('at least 51 calcs');
+    d.http.verify();
+  });
+
   it('when the project has no calcs yet, then the count says 0 calcs beside the pages', async () => {
     const d = await open();
     (await d.request(isProject)).flush({ id: 7, code: 'KF-0007', name: 'Fen pumps', status: 'active' });

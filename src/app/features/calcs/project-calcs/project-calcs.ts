@@ -1,13 +1,4 @@
-import {
-  ChangeDetectionStrategy,
-  Component,
-  computed,
-  effect,
-  inject,
-  input,
-  numberAttribute,
-  signal,
-} from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, numberAttribute } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { Router, RouterLink } from '@angular/router';
 import { MatTableModule } from '@angular/material/table';
@@ -30,6 +21,7 @@ import { StateBadge } from '../../../ui/state-badge';
 import { VerdictBadge } from '../../../ui/verdict-badge';
 import { CalcsApi, type CalcListParams } from '../calcs-api';
 import { KEYSET_PAGINATOR_INTL, keysetPager } from '../../../ui/keyset-paginator-intl';
+import { ListFilters } from '../../../ui/list-filters';
 import { NewCalcDialog } from '../new-calc/new-calc-dialog';
 
 @Component({
@@ -64,12 +56,17 @@ export default class ProjectCalcs {
 
   protected readonly project = inject(ProjectsApi).one(this.id);
   protected readonly projectInfo = computed(() => (this.project.hasValue() ? this.project.value() : undefined));
-  protected readonly params = signal<Omit<CalcListParams, 'projectId' | 'size' | 'after'>>({
-    q: '',
-    sort: 'updatedAt',
-    dir: 'desc',
-  });
   protected readonly pager = keysetPager(25);
+  /**
+   * Search, state and order; a change goes back to the first page, one that changes nothing keeps the page: leaving
+   * the search box (blur) after Enter, by clicking "next page", used to send the pager back while the click turned it,
+   * and the first page's rows showed as "26 – 50".
+   */
+  private readonly filters = new ListFilters<Omit<CalcListParams, 'projectId' | 'size' | 'after'>>(
+    { q: '', sort: 'updatedAt', dir: 'desc' },
+    () => this.pager.reset(),
+  );
+  protected readonly params = this.filters.value;
   protected readonly calcs = inject(CalcsApi).list(
     computed(() => ({ ...this.params(), projectId: this.id(), size: this.pager.size(), after: this.pager.after() })),
   );
@@ -90,17 +87,11 @@ export default class ProjectCalcs {
   }
 
   protected filter(patch: Partial<CalcListParams>): void {
-    this.pager.reset();
-    this.params.update((p) => ({ ...p, ...patch }));
+    this.filters.set(patch);
   }
 
   protected sortBy(sort: Sort): void {
-    this.pager.reset();
-    this.params.update((p) => ({
-      ...p,
-      sort: sort.direction ? sort.active : 'updatedAt',
-      dir: sort.direction || 'desc',
-    }));
+    this.filters.set({ sort: sort.direction ? sort.active : 'updatedAt', dir: sort.direction || 'desc' });
   }
 
   protected changePage(e: PageEvent): void {

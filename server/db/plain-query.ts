@@ -48,10 +48,7 @@ export async function plainSelect<T extends object>(
   values: readonly unknown[] = [],
   transaction?: Transaction | null,
 ): Promise<T[]> {
-  const rows = (await send(sequelize, sql, values, transaction, 'SELECT')) as T[] & { meta?: unknown };
-  // The driver's column metadata rides on the array; Sequelize's rows do not carry it.
-  delete rows.meta;
-  return rows;
+  return rowsOnly<T>(await send(sequelize, sql, values, transaction, 'SELECT'));
 }
 
 /** A statement whose answer is not read (a CALL that appends to the audit chain), as plainSelect sends a SELECT. */
@@ -76,13 +73,19 @@ export async function plainSelectWarned<T extends object>(
   asked: (rows: T[]) => boolean,
 ): Promise<{ rows: T[]; warnings: number }> {
   let warnings = 0;
-  const rows = (await send(sequelize, sql, values, null, 'SELECT', async (connection, result) => {
-    if (!asked(result as T[])) return;
+  const result = await send(sequelize, sql, values, null, 'SELECT', async (connection, found) => {
+    if (!asked(found as T[])) return;
     const [row] = (await connection.query('SELECT @@warning_count AS n')) as { n: number | bigint }[];
     warnings = Number(row.n);
-  })) as T[] & { meta?: unknown };
+  });
+  return { rows: rowsOnly<T>(result), warnings };
+}
+
+/** A driver's rows as Sequelize gives them: the column metadata the driver hangs on the array left off. */
+function rowsOnly<T>(result: unknown): T[] {
+  const rows = result as T[] & { meta?: unknown };
   delete rows.meta;
-  return { rows, warnings };
+  return rows;
 }
 
 async function send(

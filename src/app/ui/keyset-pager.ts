@@ -75,7 +75,7 @@ export class KeysetPager {
       this.rows.set(page.items.length);
       const index = this.pageIndex();
       this.pageRows.update((rows) => Object.assign([...rows], { [index]: page.items.length }));
-      this.cursors[this.pageIndex() + 1] = page.next ?? undefined;
+      this.cursors[index + 1] = page.next ?? undefined;
     });
   }
 

@@ -3,6 +3,23 @@ import { calcTeam, effectiveRuleSetId, fixtureInput, sign } from '../support/cal
 import { signedInAs } from '../support/api-harness';
 
 const { app, sequelize } = startTestApp();
+
+type AuditRow = { id: number; action: string };
+type Team = Awaited<ReturnType<typeof calcTeam>>;
+
+/** A second calc in the team's project, by its author. */
+async function secondCalc(author: Team['author'], projectId: number, number: string) {
+  const res = await author.session.post('/api/calcs', {
+    projectId,
+    number,
+    title: 'Second shaft',
+    partRef: 'DRG-2',
+    ruleSetId: await effectiveRuleSetId(),
+    input: fixtureInput(),
+  });
+  expect(res.status).toBe(201);
+  return res;
+}
 afterAll(() => sequelize.close());
 
 describe('audit trail filters', () => {
@@ -46,15 +63,7 @@ describe('audit trail filters', () => {
   it("when filtered by project and an action group, then the total counts exactly that project's entries of it", async () => {
     // Two calcs in one project: two creations and two submissions; another project's calc stays out.
     const { author, project, revisionId } = await calcTeam(app);
-    const second = await author.session.post('/api/calcs', {
-      projectId: project.id,
-      number: `C2-${revisionId}`,
-      title: 'Second shaft',
-      partRef: 'DRG-2',
-      ruleSetId: await effectiveRuleSetId(),
-      input: fixtureInput(),
-    });
-    expect(second.status).toBe(201);
+    const second = await secondCalc(author, project.id, `C2-${revisionId}`);
     await sign(author.session, revisionId, 'authored');
     await sign(author.session, second.body.latest.id, 'authored');
     const other = await calcTeam(app);
@@ -70,6 +79,35 @@ describe('audit trail filters', () => {
     expect(created.body.total).toBe(2);
     expect(created.body.items.map((e: { action: string }) => e.action)).toEqual(['calc.created', 'calc.created']);
     expect(none.body).toEqual(expect.objectContaining({ total: 0, items: [] }));
+  });
+
+  it("when an action within a project is paged, then the pages list that project's entries of it, newest first", async () => {
+    // Arrange: two calcs in one project, each signed, with creations between (the walk must pass over them).
+    const { author, project, revisionId } = await calcTeam(app);
+    await sign(author.session, revisionId, 'authored');
+    const second = await secondCalc(author, project.id, `W2-${revisionId}`);
+    await sign(author.session, second.body.latest.id, 'authored');
+    const { session: auditor } = await signedInAs(app, ['compliance']);
+    const all = (await auditor.get(`/api/audit?projectId=${project.id}&size=50`)).body.items as AuditRow[];
+    const expected = all.filter((e) => e.action.startsWith('revision.signed')).map((e) => e.id);
+
+    // Act: by keyset, one entry a page, and the second page by number
+    const walked: number[] = [];
+    let after: string | null = null;
+    do {
+      const page = await auditor.get(
+        `/api/audit?projectId=${project.id}&action=revision.signed&size=1${after ? `&after=${after}` : ''}`,
+      );
+      walked.push(...(page.body.items as AuditRow[]).map((e) => e.id));
+      after = page.body.next;
+    } while (after);
+    const second1 = await auditor.get(`/api/audit?projectId=${project.id}&action=revision.signed&size=1&page=1`);
+
+    // Assert
+    expect(expected).toHaveLength(2);
+    expect(walked).toEqual(expected);
+    expect((second1.body.items as AuditRow[]).map((e) => e.id)).toEqual([expected[1]]);
+    expect(all.some((e) => !e.action.startsWith('revision.signed'))).toBe(true);
   });
 
   it('when "from" is after "to", then it is a 400 naming the field', async () => {

@@ -1,5 +1,6 @@
+import { QueryTypes } from 'sequelize';
 import { startTestApp } from '../support/api-harness';
-import { calcTeam, effectiveRuleSetId, fixtureInput, sign } from '../support/calc-harness';
+import { calcTeam, effectiveRuleSetId, fixtureInput, revisionOf, sign } from '../support/calc-harness';
 import { signedInAs } from '../support/api-harness';
 
 const { app, sequelize } = startTestApp();
@@ -108,6 +109,38 @@ describe('audit trail filters', () => {
     expect(walked).toEqual(expected);
     expect((second1.body.items as AuditRow[]).map((e) => e.id)).toEqual([expected[1]]);
     expect(all.some((e) => !e.action.startsWith('revision.signed'))).toBe(true);
+  });
+
+  it('when an action group alone is paged, then its pages merge every matching action newest first', async () => {
+    // Arrange: entries of several revision actions (created, signed), then a window closed at the newest of them,
+    // which entries appended meanwhile by other spec files cannot enter (their ids are larger).
+    const { author, project, revisionId } = await calcTeam(app);
+    const draft = await revisionOf(author.session, revisionId);
+    const input = { ...(draft.input as object), title: 'Saved before signing' };
+    expect(
+      (await author.session.put(`/api/revisions/${revisionId}`, { input, lockVersion: draft.lockVersion })).status,
+    ).toBe(200);
+    await sign(author.session, revisionId, 'authored');
+    await sign(author.session, (await secondCalc(author, project.id, `G2-${revisionId}`)).body.latest.id, 'authored');
+    const { session: auditor } = await signedInAs(app, ['compliance']);
+    const newest = (await auditor.get('/api/audit?action=revision.&size=1')).body.items[0] as AuditRow;
+    const expected = await sequelize.query<AuditRow>(
+      "SELECT id, action FROM audit_events WHERE action LIKE 'revision.%' AND id <= ? ORDER BY id DESC LIMIT 12",
+      { replacements: [newest.id], type: QueryTypes.SELECT },
+    );
+
+    // Act: four pages of three by keyset, from just above the window's newest entry
+    const walked: AuditRow[] = [];
+    let after: string | null = String(newest.id + 1);
+    while (after && walked.length < 12) {
+      const page = await auditor.get(`/api/audit?action=revision.&size=3&after=${after}`);
+      walked.push(...(page.body.items as AuditRow[]).map(({ id, action }) => ({ id, action })));
+      after = page.body.next;
+    }
+
+    // Assert
+    expect(new Set(expected.map((e) => e.action)).size).toBeGreaterThan(1);
+    expect(walked).toEqual(expected.map(({ id, action }) => ({ id: Number(id), action })));
   });
 
   it('when "from" is after "to", then it is a 400 naming the field', async () => {

@@ -103,12 +103,13 @@ export async function listAudit(
 }
 
 /**
- * The page's ids picked from an index narrower than the rows, for an action group alone or within a project (and
- * nothing else but the keyset or page), else null: read as one walk of the rows newest first, each row read to test
- * its action, a project whose recent entries are mostly saves read thousands of rows for a page of signatures, and
- * the whole trail over a hundred thousand (100 ms alone on the bench library). The rows and what they are about are
- * then read for the page's ids alone.
- * - Within a project: the project's index holds the action (migration 20261231-17), so the walk reads index entries.
+ * The page's ids picked from an index narrower than the rows, for an action group alone, within a project or of one
+ * person (and nothing else but the keyset or page), else null: read as one walk of the rows newest first, each row
+ * read to test its action, a project whose recent entries are mostly saves read thousands of rows for a page of
+ * signatures, and the whole trail over a hundred thousand (100 ms alone on the bench library). The rows and what
+ * they are about are then read for the page's ids alone.
+ * - Within a project or of one person: their index holds the action (migrations 20261231-17 and -18), so the walk
+ *   reads index entries only.
  * - Alone: one range of the action index per action the group matches (each already in id order), merged; the
  *   actions are read from the table first (a loose index scan), so one never written by this version is listed too.
  */
@@ -117,10 +118,11 @@ async function narrowPick(
   filter: string,
   offset: number,
 ): Promise<{ from: string; params: unknown[] } | null> {
-  if (!query.action || query.userId || query.calcId || query.entityType || query.from || query.to) return null;
-  if (query.projectId) {
-    const ids = `SELECT \`AuditEvent\`.id FROM \`audit_events\` AS \`AuditEvent\`
-      FORCE INDEX (audit_events_project_walk) ${filter}`;
+  if (!query.action || query.calcId || query.entityType || query.from || query.to) return null;
+  if (query.projectId && query.userId) return null;
+  const walk = query.projectId ? 'audit_events_project_walk' : query.userId ? 'audit_events_actor_walk' : null;
+  if (walk) {
+    const ids = `SELECT \`AuditEvent\`.id FROM \`audit_events\` AS \`AuditEvent\` FORCE INDEX (${walk}) ${filter}`;
     return { from: pickedFrom(ids), params: [] };
   }
   const actions = await plainSelect<{ action: string }>(AuditEvent.sequelize!, MATCHING_ACTIONS, [

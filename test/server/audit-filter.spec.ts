@@ -82,7 +82,7 @@ describe('audit trail filters', () => {
     expect(none.body).toEqual(expect.objectContaining({ total: 0, items: [] }));
   });
 
-  it("when an action within a project is paged, then the pages list that project's entries of it, newest first", async () => {
+  it('when an action within a project or of one person is paged, then the pages list their entries of it, newest first', async () => {
     // Arrange: two calcs in one project, each signed, with creations between (the walk must pass over them).
     const { author, project, revisionId } = await calcTeam(app);
     await sign(author.session, revisionId, 'authored');
@@ -103,11 +103,23 @@ describe('audit trail filters', () => {
       after = page.body.next;
     } while (after);
     const second1 = await auditor.get(`/api/audit?projectId=${project.id}&action=revision.signed&size=1&page=1`);
+    const byPerson = async (after?: string) =>
+      (
+        await auditor.get(
+          `/api/audit?userId=${author.user.id}&action=revision.signed&size=1${after ? `&after=${after}` : ''}`,
+        )
+      ).body;
+    const first = await byPerson();
+    const personWalked = [first, await byPerson(first.next)].flatMap((page) =>
+      (page.items as AuditRow[]).map((e) => e.id),
+    );
 
     // Assert
     expect(expected).toHaveLength(2);
     expect(walked).toEqual(expected);
     expect((second1.body.items as AuditRow[]).map((e) => e.id)).toEqual([expected[1]]);
+    // The same two entries as the author's own: they signed both, and nothing else in the trail is theirs to sign.
+    expect(personWalked).toEqual(expected);
     expect(all.some((e) => !e.action.startsWith('revision.signed'))).toBe(true);
   });
 

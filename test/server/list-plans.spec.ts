@@ -69,6 +69,8 @@ const LISTS: [string, () => Promise<string>][] = [
     'audit list of a project by action',
     async () => `/api/audit?projectId=${seeded.projectId}&action=revision.signed&size=50`,
   ],
+  ['audit list of a person by action', async () => `/api/audit?userId=${seeded.authorId}&action=revision.&size=50`],
+  ['audit list by action, third page', async () => '/api/audit?action=revision.&size=50&page=2'],
   [
     'audit list, second page by keyset',
     async () =>

@@ -108,7 +108,7 @@ export async function listAudit(
  * read to test its action, a project whose recent entries are mostly saves read thousands of rows for a page of
  * signatures, and the whole trail over a hundred thousand (100 ms alone on the bench library). The rows and what
  * they are about are then read for the page's ids alone.
- * - Within a project or of one person: their index holds the action (migrations 20261231-17 and -18), so the walk
+ * - Within a project or of one person: their index holds the action (migration 20261231-17), so the walk
  *   reads index entries only.
  * - Alone: one range of the action index per action the group matches (each already in id order), merged; the
  *   actions are read from the table first (a loose index scan), so one never written by this version is listed too.

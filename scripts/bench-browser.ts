@@ -23,7 +23,12 @@ export async function signInPage(page: Page, username: string): Promise<void> {
 /** Starts the server and Chromium, runs `work` with them, stops both after; a failure is printed and exits 1. */
 export function runInBrowser(work: (browser: Browser, url: string) => Promise<void>): void {
   const run = async () => {
-    const { url, child } = await startServer({ LOG_LEVEL: 'silent', MAIL_SENDER: 'false' });
+    // Phases on: the screens and signing benches print where the server's time went (off by default, config.ts).
+    const { url, child } = await startServer({
+      LOG_LEVEL: 'silent',
+      MAIL_SENDER: 'false',
+      SERVER_TIMING_PHASES: 'true',
+    });
     const browser = await launchChromium();
     try {
       await work(browser, url);

@@ -56,6 +56,8 @@ async function main(): Promise<void> {
     LOGIN_RATE_LIMIT: '10000',
     NODE_ENV: 'production',
     TLS: 'false',
+    // The bench prints each signal's phase (off by default, server/config.ts).
+    SERVER_TIMING_PHASES: 'true',
   });
   try {
     const session = await signIn(server.url, auditor.username, BENCH_PASSWORD);

@@ -154,7 +154,9 @@ function printPhases(phases: Map<string, number[]>): void {
     const mean = ms.reduce((a, b) => a + b, 0) / ms.length;
     return `${name} ${mean.toFixed(1)}/${f.p95.toFixed(1)}`;
   });
-  console.log(`  phases, mean/p95 ms: ${cells.join(' · ')}`);
+  // Only `app` (the whole answer) unless the server was started with SERVER_TIMING_PHASES=true (server/config.ts).
+  const note = phases.size > 1 ? '' : ' (each phase: SERVER_TIMING_PHASES=true npm run bench)';
+  console.log(`  phases, mean/p95 ms: ${cells.join(' · ')}${note}`);
 }
 
 /**

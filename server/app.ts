@@ -7,7 +7,7 @@ import { serverTiming } from './http/server-timing';
 import { apiNoStore, securityHeaders } from './http/security-headers';
 import { jsonBody } from './http/json-body';
 import { sessionMiddleware, absoluteSessionLimit } from './auth/session';
-import { createPassport } from './auth/passport';
+import { createPassport, sessionPerson } from './auth/passport';
 import { csrfProtection } from './auth/csrf';
 import { healthCheck } from './http/health';
 import { attachAbility } from './authz/actor';
@@ -40,7 +40,7 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   app.use('/api', jsonBody('1mb'));
   const sessions = sessionMiddleware(sequelize, config);
   app.use('/api', sessions.middleware, absoluteSessionLimit(config));
-  app.use('/api', passport.session(), attachAbility);
+  app.use('/api', ...sessionPerson(passport), attachAbility);
   app.use('/api', csrfProtection);
 
   const services = createServices(sequelize, config);

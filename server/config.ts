@@ -49,9 +49,10 @@ const envSchema = z.object({
   SENT_MAIL_SCREEN: z.stringbool().default(true),
   // Every answer's Server-Timing header gives its whole time; this adds each phase (read, lock, engine, commit …).
   // Finding a request's phases deep in its work needs Node's async context tracking, a step on every promise the
-  // process makes. Per answer the bench shows no clear cost; npm test, where test clients share the server's process,
-  // switches it off (its API specs: 196–207 CPU-seconds with it, 173 without; DEVELOPERS.md, "Tests").
-  SERVER_TIMING_PHASES: z.stringbool().default(true),
+  // process makes: 4–7 % of the app's CPU an answer on the list bench (DEVELOPERS.md, "Measuring speed"), so it is
+  // off unless an operator switches it on while finding where a slow answer's time goes. The screen and signing
+  // benches switch it on for themselves.
+  SERVER_TIMING_PHASES: z.stringbool().default(false),
   // Attachments live in object storage through the S3 API; the defaults match scripts/fake-services.ts.
   S3_ENDPOINT: z.url().default('http://127.0.0.1:4569'),
   S3_REGION: z.string().default('us-east-1'),

@@ -21,6 +21,8 @@ declare module 'express-session' {
     /** Where the session signed in from, shown on the person's list of sessions. */
     clientIp: string;
     userAgent: string;
+    /** Whom the session signed in: passport writes the person's id at sign-in (server/auth/passport.ts). */
+    passport: { user?: number };
   }
 }
 

@@ -6,12 +6,13 @@ import type { Role } from '../../shared/authz/roles';
 
 /**
  * Every signed-in request used to read its session row, then its person and their roles: two round trips before
- * any work. `readSession` reads both in one statement, and the person it found waits on the request for
- * passport's deserializer (`userReadWithSession`), so roles and deactivation still take effect on the next request.
+ * any work. `readSession` reads both in one statement, and the person it found waits on the request for the step
+ * that signs the request in (`sessionPerson` in passport.ts), so roles and deactivation still take effect on the
+ * next request.
  *
  * The store's get is not handed the request. express-session's middleware calls it synchronously, before anything
  * is awaited, so the request is left in `reading` for the length of that call and the get takes it on its first
- * line. A get outside that call (a session reload) finds none, and passport reads the person itself, as it would
+ * line. A get outside that call (a session reload) finds none, and that step reads the person itself, as it would
  * anyway. (An AsyncLocalStorage would carry the request too, but it would keep Node's async context tracking on
  * where npm test switches it off: see SERVER_TIMING_PHASES in config.ts.)
  */

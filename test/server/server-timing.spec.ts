@@ -2,7 +2,7 @@ import { startTestApp, signedInAs } from '../support/api-harness';
 import { calcTeam } from '../support/calc-harness';
 
 // Speed is measured, not asserted: the header is there to read in the browser's network panel.
-// Phases are on by default and off in npm test (SERVER_TIMING_PHASES, server/config.ts): both are set here.
+// Phases are off by default, and in npm test (SERVER_TIMING_PHASES, server/config.ts): both are set here.
 const { app, sequelize } = startTestApp({ SERVER_TIMING_PHASES: false });
 const phased = startTestApp({ SERVER_TIMING_PHASES: true });
 afterAll(async () => {

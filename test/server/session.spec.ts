@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { Session } from '../../server/db/models';
+import { Session, User, UserRole } from '../../server/db/models';
 import { sessionCookieOf, signedInAs, startTestApp } from '../support/api-harness';
 import { capturedSelects } from '../support/explain-harness';
 import { CLOCK_SLACK_MS } from '../support/wall-clock';
@@ -147,5 +147,36 @@ describe('who is asking', () => {
     const asked = Array.from({ length: 40 }, (_, i) => people[i % people.length]);
     const answers = await Promise.all(asked.map(({ session }) => session.get('/api/session')));
     expect(answers.map((res) => res.body.user?.username)).toEqual(asked.map(({ user }) => user.username));
+  });
+
+  it('when the person a session names is made inactive behind the app, then the next request is signed out and the session no longer names them', async () => {
+    const { user, session } = await signedInAs(standard.app, ['author'], 'gone-quiet');
+    const { sid } = await sessionRowOf(user.id);
+    // Straight in the table: no session of theirs is ended, as the app's own deactivation would.
+    await User.update({ active: false }, { where: { id: user.id } });
+
+    const res = await session.get('/api/session');
+    const projects = await session.get('/api/projects');
+
+    expect(res.body.user).toBeNull();
+    expect(res.body.rules).toEqual([]);
+    expect(projects.status).toBe(401);
+    const row = await Session.findByPk(sid);
+    expect(row).not.toBeNull();
+    expect(row!.userId).toBeNull();
+    expect(JSON.parse(row!.data!).passport).toEqual({});
+  });
+
+  it("when a person's roles change behind the app, then their next request is judged by the new roles", async () => {
+    const { user, session } = await signedInAs(standard.app, ['author'], 'role-moved');
+    expect((await session.get('/api/audit?size=1')).status).toBe(403);
+
+    await UserRole.create({ userId: user.id, role: 'compliance' });
+    const audit = await session.get('/api/audit?size=1');
+    await UserRole.destroy({ where: { userId: user.id, role: 'compliance' } });
+    const after = await session.get('/api/audit?size=1');
+
+    expect(audit.status).toBe(200);
+    expect(after.status).toBe(403);
   });
 });

@@ -6,8 +6,9 @@ import type { Config } from './config';
 import { serverTiming } from './http/server-timing';
 import { apiNoStore, securityHeaders } from './http/security-headers';
 import { jsonBody } from './http/json-body';
+import { inSequence } from './http/in-sequence';
 import { sessionMiddleware, absoluteSessionLimit } from './auth/session';
-import { createPassport, sessionPerson } from './auth/passport';
+import { createPassport, installSignInMethods, sessionPerson } from './auth/passport';
 import { csrfProtection } from './auth/csrf';
 import { healthCheck } from './http/health';
 import { attachAbility } from './authz/actor';
@@ -34,14 +35,25 @@ export function createApp({ sequelize, config }: AppDeps): Express {
   app.set('etag', false);
   app.set('trust proxy', config.TRUST_PROXY);
 
+  installSignInMethods(app, passport);
+
   app.use(securityHeaders(config));
   app.get('/api/health', healthCheck(sequelize));
-  app.use('/api', apiNoStore, serverTiming(config.SERVER_TIMING_PHASES));
-  app.use('/api', jsonBody('1mb'));
   const sessions = sessionMiddleware(sequelize, config);
-  app.use('/api', sessions.middleware, absoluteSessionLimit(config));
-  app.use('/api', ...sessionPerson(passport), attachAbility);
-  app.use('/api', csrfProtection);
+  // What every API request passes through before its route, in this order, as one layer (in-sequence.ts).
+  app.use(
+    '/api',
+    inSequence(
+      apiNoStore,
+      serverTiming(config.SERVER_TIMING_PHASES),
+      ...jsonBody('1mb'),
+      sessions.middleware,
+      absoluteSessionLimit(config),
+      sessionPerson,
+      attachAbility,
+      csrfProtection,
+    ),
+  );
 
   const services = createServices(sequelize, config);
   for (const mount of apiMounts({ sequelize, config, passport, services })) {

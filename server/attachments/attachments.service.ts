@@ -1,5 +1,4 @@
 import { createHash } from 'node:crypto';
-import { ForbiddenError } from '@casl/ability';
 import type { Sequelize, Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { AttachmentDto, AttachmentListDto, UploadFields } from '../../shared/schemas/attachment.schema';
@@ -14,6 +13,7 @@ import { assertMayAdd, assertMayRemove, mayAddFiles, toAttachmentDto } from './a
 import { addAttachmentRow, removeAttachmentRow, type CheckedUpload, type UploadedFile } from './attachment-records';
 import { isProjectArchived } from '../projects/project-open';
 import { runTransaction } from '../db/transaction';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 /** Drawings, certificates and supporting files of a revision: checked by content, stored by hash. */
 export class AttachmentsService {
@@ -24,7 +24,7 @@ export class AttachmentsService {
   ) {}
 
   async list(ability: AppAbility, revisionId: number): Promise<AttachmentListDto> {
-    ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
+    forbiddenCheck(ability).throwUnlessCan('read', 'Revision');
     const revision = await loadRevision(revisionId);
     const rows = await Attachment.findAll({ where: { revisionId }, order: [['id', 'ASC']] });
     return {
@@ -69,7 +69,7 @@ export class AttachmentsService {
   }
 
   async download(ability: AppAbility, id: number): Promise<{ attachment: AttachmentDto; bytes: Buffer }> {
-    ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
+    forbiddenCheck(ability).throwUnlessCan('read', 'Revision');
     const row = await Attachment.findByPk(id);
     if (!row) throw AppError.notFound(`Attachment ${id}`);
     return { attachment: toAttachmentDto(row), bytes: await this.store.get(row.storageKey) };

@@ -1,5 +1,4 @@
 import { plainSelect } from '../db/plain-query';
-import { ForbiddenError } from '@casl/ability';
 import type { AuditChainStatus, AuditEventDto, AuditQuery } from '../../shared/schemas/audit.schema';
 import type { KeysetPage } from '../../shared/schemas/common.schema';
 import type { AppAbility } from '../../shared/authz/app-ability';
@@ -11,6 +10,7 @@ import { auditWhere } from './audit-filter';
 import { likePrefix } from '../db/like-pattern';
 import { recordLookup, recordOf, type RecordColumns } from './audit-records';
 import { columnsOf, selectSql } from '../db/plain-rows';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 type Listed = AuditEvent & { hasDiff?: number };
 
@@ -63,7 +63,7 @@ export async function listAudit(
   ability: AppAbility,
   query: Omit<AuditQuery, 'page'> & { page?: number },
 ): Promise<KeysetPage<AuditEventDto>> {
-  ForbiddenError.from(ability).throwUnlessCan('read', 'AuditEvent');
+  forbiddenCheck(ability).throwUnlessCan('read', 'AuditEvent');
   const sequelize = AuditEvent.sequelize!;
   const offset = query.after ? 0 : (query.page ?? 0) * query.size;
   // Sequelize writes the filter, order and bounds; the row is read with its record, so the columns are named here.
@@ -182,7 +182,7 @@ const selectOne = (query: Omit<AuditQuery, 'page'>): string =>
  * accounts). Read from the people table, not grouped out of the trail, which would scan every audit entry.
  */
 export async function auditPeople(ability: AppAbility): Promise<{ id: number; name: string }[]> {
-  ForbiddenError.from(ability).throwUnlessCan('read', 'AuditEvent');
+  forbiddenCheck(ability).throwUnlessCan('read', 'AuditEvent');
   const order: [string, string][] = [
     ['displayName', 'ASC'],
     ['id', 'ASC'],
@@ -192,12 +192,12 @@ export async function auditPeople(ability: AppAbility): Promise<{ id: number; na
 }
 
 export async function checkAuditChain(ability: AppAbility): Promise<AuditChainStatus> {
-  ForbiddenError.from(ability).throwUnlessCan('read', 'AuditEvent');
+  forbiddenCheck(ability).throwUnlessCan('read', 'AuditEvent');
   return { ...(await verifyAuditChain()), checkedAt: new Date().toISOString() };
 }
 
 export async function auditEntry(ability: AppAbility, id: number): Promise<AuditEventDto> {
-  ForbiddenError.from(ability).throwUnlessCan('read', 'AuditEvent');
+  forbiddenCheck(ability).throwUnlessCan('read', 'AuditEvent');
   const event = await AuditEvent.findByPk(id);
   if (!event) throw AppError.notFound(`Audit entry ${id}`);
   return toAuditDto(event);

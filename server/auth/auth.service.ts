@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import { ForbiddenError, subject } from '@casl/ability';
+import { subject } from '@casl/ability';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import { User } from '../db/models';
 import { AppError } from '../errors/app-error';
@@ -7,6 +7,7 @@ import { appendAudit, type Actor } from '../audit/audit.service';
 import { hashPassword, verifyPassword } from './password';
 import { SessionsService } from './sessions.service';
 import { runTransaction } from '../db/transaction';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 /** Sign-in bookkeeping and the user's own password change. */
 export class AuthService {
@@ -50,7 +51,7 @@ export class AuthService {
     next: string,
     currentSid: string,
   ): Promise<void> {
-    ForbiddenError.from(ability).throwUnlessCan('changePassword', subject('User', { id: actor.id }));
+    forbiddenCheck(ability).throwUnlessCan('changePassword', subject('User', { id: actor.id }));
     const user = await User.scope('withPassword').findByPk(actor.id);
     if (!user) throw AppError.notFound('Your account');
     if (!(await verifyPassword(user.passwordHash, current))) {

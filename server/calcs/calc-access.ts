@@ -1,10 +1,11 @@
-import { ForbiddenError, subject } from '@casl/ability';
+import { subject } from '@casl/ability';
 import type { Transaction } from 'sequelize';
 import type { Action, AppAbility } from '../../shared/authz/app-ability';
 import { Calc, CalcEditor, Revision, RuleSetRecord, User } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { REVISION_INCLUDE } from './calc-mapping';
 import { assertProjectOpen } from '../projects/project-open';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 /** The fields ability conditions look at; the same shape the client wraps with `subject()`. */
 export function revisionSubject(r: Revision) {
@@ -19,7 +20,7 @@ export function revisionSubject(r: Revision) {
 }
 
 export function assertCan(ability: AppAbility, action: Action, r: Revision, message?: string): void {
-  const check = ForbiddenError.from(ability);
+  const check = forbiddenCheck(ability);
   if (message) check.setMessage(message);
   check.throwUnlessCan(action, revisionSubject(r));
 }

@@ -1,5 +1,4 @@
 import { plainSelect } from '../db/plain-query';
-import { ForbiddenError } from '@casl/ability';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { CalcListPage } from '../../shared/schemas/calc-dto';
 import type { CalcListQuery } from '../../shared/schemas/revision.schema';
@@ -10,6 +9,7 @@ import { blindRevisionIds } from '../independent/blind-lists';
 import { CALC_ROW_COLUMNS, CALC_ROW_FROM, keyOf, sortColumns, toItem, type CalcRow } from './calc-list-rows';
 import { searchCalcs, type SearchPage } from './calc-search';
 import { filterConditions } from './calc-search-plan';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 const listedOf = (r: CalcRow) => ({
   revisionId: r.latest_revision_id,
@@ -60,7 +60,7 @@ async function plainPage(query: CalcListQuery, after: (string | number)[] | null
  * columns. Search words go through the term index (server/calcs/calc-search.ts).
  */
 export async function listCalcs(ability: AppAbility, query: CalcListQuery): Promise<CalcListPage> {
-  ForbiddenError.from(ability).throwUnlessCan('read', 'Calc');
+  forbiddenCheck(ability).throwUnlessCan('read', 'Calc');
   const after = query.after ? decodeCursor(query.after, sortColumns(query.sort, 'c', 'id')) : null;
   const words = query.q ? searchWords(query.q) : [];
   const found = words.length

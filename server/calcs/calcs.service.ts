@@ -1,4 +1,3 @@
-import { ForbiddenError } from '@casl/ability';
 import { UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { CalcDto, RevisionDto } from '../../shared/schemas/calc-dto';
@@ -17,6 +16,7 @@ import { runTransaction } from '../db/transaction';
 import { registerEngineMetadata } from './stored-result';
 import { blindRevisionIds } from '../independent/blind-lists';
 import type { RevisionForm } from '../../shared/schemas/revision-form';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 // A save's stored columns: scripts and specs import them from here.
 export { stored } from './revision-save';
@@ -26,7 +26,7 @@ export class CalcsService {
   constructor(private readonly sequelize: Sequelize) {}
 
   async get(ability: AppAbility, id: number): Promise<CalcDto> {
-    ForbiddenError.from(ability).throwUnlessCan('read', 'Calc');
+    forbiddenCheck(ability).throwUnlessCan('read', 'Calc');
     const calc = await Calc.findByPk(id, { include: [Project] });
     if (!calc) throw AppError.notFound(`Calc ${id}`);
     // The history lists revisions: their input, result and checklist texts stay in the database.
@@ -50,14 +50,14 @@ export class CalcsService {
    * calc instead of after it, so the two reads no longer wait for each other.
    */
   async latestRevision(ability: AppAbility, calcId: number, form: RevisionForm = 'full'): Promise<RevisionDto> {
-    ForbiddenError.from(ability).throwUnlessCan('read', 'Calc');
+    forbiddenCheck(ability).throwUnlessCan('read', 'Calc');
     const latest = await Revision.findOne({ where: { calcId }, order: [['seq', 'DESC']], attributes: ['id'] });
     if (!latest) throw AppError.notFound(`Calc ${calcId}`);
     return readRevision(ability, latest.id, undefined, undefined, form);
   }
 
   async create(ability: AppAbility, actor: Actor & { id: number }, dto: CreateCalcRequest): Promise<CalcDto> {
-    ForbiddenError.from(ability).setMessage('Only authors start calcs').throwUnlessCan('create', 'Calc');
+    forbiddenCheck(ability).setMessage('Only authors start calcs').throwUnlessCan('create', 'Calc');
     const project = await Project.findByPk(dto.projectId);
     if (!project || project.status !== 'active') {
       throw new AppError('validation', 400, 'Choose an active project', {

@@ -1,4 +1,3 @@
-import { ForbiddenError } from '@casl/ability';
 import type { Sequelize } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { RevisionDto } from '../../shared/schemas/calc-dto';
@@ -15,6 +14,7 @@ import { stored } from './revision-save';
 import { carryOver } from '../attachments/carry-over';
 import { runTransaction } from '../db/transaction';
 import { WITHDRAWN_STATE, WORKFLOW, type RevisionState } from '../../shared/workflow/revision-states';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 /** Starting and ending revisions: a new revision after approval, or withdrawing a draft. */
 export class LifecycleService {
@@ -34,7 +34,7 @@ export class LifecycleService {
     reasonForChange: string,
     carryAttachments = false,
   ): Promise<RevisionDto> {
-    ForbiddenError.from(ability).setMessage('Only authors start new revisions').throwUnlessCan('create', 'Calc');
+    forbiddenCheck(ability).setMessage('Only authors start new revisions').throwUnlessCan('create', 'Calc');
     const id = await runTransaction(this.sequelize, async (transaction) => {
       const calc = await loadCalcForChange(calcId, transaction);
       const latest = await Revision.findOne({

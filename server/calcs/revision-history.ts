@@ -1,10 +1,10 @@
-import { ForbiddenError } from '@casl/ability';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import { Revision } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { jsonDiff } from './content-diff';
 import { expandChecklist } from './stored-checklist';
 import { blindError, blindRevisionIds } from '../independent/blind-lists';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 export interface RevisionDiffDto {
   from: { id: number; label: string };
@@ -20,7 +20,7 @@ export async function diffRevisions(
   fromId: number,
   toId: number,
 ): Promise<RevisionDiffDto> {
-  ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
+  forbiddenCheck(ability).throwUnlessCan('read', 'Revision');
   const [from, to] = await Promise.all([Revision.findByPk(fromId), Revision.findByPk(toId)]);
   if (!from || from.calcId !== calcId) throw AppError.notFound(`Revision ${fromId} of calc ${calcId}`);
   if (!to || to.calcId !== calcId) throw AppError.notFound(`Revision ${toId} of calc ${calcId}`);

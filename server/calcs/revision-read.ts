@@ -1,4 +1,3 @@
-import { ForbiddenError } from '@casl/ability';
 import { Op, type Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { InputIssue, RevisionDto } from '../../shared/schemas/calc-dto';
@@ -18,6 +17,7 @@ import { currentHashesOf, type HashSources } from './current-hash';
 import { readContextOf, signaturesOf } from './revision-read-context';
 import type { SaveContext } from './save-context';
 import type { RevisionForm } from '../../shared/schemas/revision-form';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 // Where the hashes were first written; callers keep importing them from here.
 export { currentHashOf, currentHashesOf } from './current-hash';
@@ -41,7 +41,7 @@ export async function readRevision(
 ): Promise<RevisionDto> {
   const context = known ?? (await timed('read', () => contextOf(id, transaction)));
   const { revision, has } = context;
-  ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
+  forbiddenCheck(ability).throwUnlessCan('read', 'Revision');
   const stored = form === 'stored';
   const [result, signatures, findings, editorIds] = await timed('read', () =>
     Promise.all([

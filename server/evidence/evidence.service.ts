@@ -1,4 +1,3 @@
-import { ForbiddenError } from '@casl/ability';
 import type { Sequelize } from 'sequelize';
 import type { Writable } from 'node:stream';
 import type { AppAbility } from '../../shared/authz/app-ability';
@@ -9,6 +8,7 @@ import type { ReportContext } from '../reports/report-data';
 import { packContents, readme } from './pack-contents';
 import { MANIFEST_FORMAT, type Manifest } from './pack-verify';
 import { sha256 } from './record-json';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 export interface SealedPack {
   fileName: string;
@@ -34,9 +34,7 @@ export class EvidenceService {
     calcId: number,
     ctx: ReportContext,
   ): Promise<SealedPack> {
-    ForbiddenError.from(ability)
-      .setMessage('Evidence packs are exported by compliance')
-      .throwUnlessCan('audit', 'Calc');
+    forbiddenCheck(ability).setMessage('Evidence packs are exported by compliance').throwUnlessCan('audit', 'Calc');
     const { calc, files } = await packContents(ability, calcId, this.store, this.reports, ctx);
     const label = `${calc.Project.code} ${calc.number}`;
     const exportedAt = new Date().toISOString();

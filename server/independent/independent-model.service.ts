@@ -1,5 +1,4 @@
 import type { Sequelize, Transaction } from 'sequelize';
-import { ForbiddenError } from '@casl/ability';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { IndependentModelDto } from '../../shared/schemas/independent-model.schema';
 import { IndependentModel, Revision, User } from '../db/models';
@@ -17,6 +16,7 @@ import { viewerOf } from './viewer';
 import { toModelDto } from './model-dto';
 import { assertModelReader, assertModelWriter } from './model-rules';
 import { lockAndCompare } from './model-lock';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 type Checker = Actor & { id: number };
 
@@ -29,7 +29,7 @@ export class IndependentModelService {
 
   async read(ability: AppAbility, revisionId: number): Promise<IndependentModelDto> {
     const revision = await loadRevision(revisionId);
-    ForbiddenError.from(ability).throwUnlessCan('read', 'Revision');
+    forbiddenCheck(ability).throwUnlessCan('read', 'Revision');
     const model = await modelOfRevision(revisionId);
     if (!model) throw AppError.notFound(`The independent model of revision ${revision.label}`);
     const viewer = viewerOf(ability);

@@ -1,10 +1,10 @@
-import { ForbiddenError } from '@casl/ability';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { Page } from '../../shared/schemas/common.schema';
 import type { SentMailDto, SentMailQuery } from '../../shared/schemas/mail.schema';
 import { MailOutbox } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { messageIdOf } from './message-id';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 function toDto(row: MailOutbox, from: string, withBody: boolean): SentMailDto {
   return {
@@ -49,9 +49,7 @@ export class SentMailService {
   }
 
   private assertAllowed(ability: AppAbility): void {
-    ForbiddenError.from(ability)
-      .setMessage('The sent-mail screen is for administrators')
-      .throwUnlessCan('read', 'SentMail');
+    forbiddenCheck(ability).setMessage('The sent-mail screen is for administrators').throwUnlessCan('read', 'SentMail');
     if (!this.isEnabled)
       throw new AppError(
         'not_found',

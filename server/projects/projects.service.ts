@@ -1,5 +1,5 @@
 import { plainSelect } from '../db/plain-query';
-import { ForbiddenError, subject } from '@casl/ability';
+import { subject } from '@casl/ability';
 import { literal, Op, type Sequelize } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { Page, PageQuery } from '../../shared/schemas/common.schema';
@@ -11,6 +11,7 @@ import { appendAudit, type Actor } from '../audit/audit.service';
 import { runTransaction } from '../db/transaction';
 import { selectSql } from '../db/plain-rows';
 import { likeContaining } from '../db/like-pattern';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 /** A project row, as a model or as the plain values a list reads (`raw`: no model built per row). */
 type ProjectRow = Pick<
@@ -74,12 +75,12 @@ export class ProjectsService {
   async get(ability: AppAbility, id: number): Promise<ProjectDto> {
     const project = await Project.findByPk(id);
     if (!project) throw AppError.notFound(`Project ${id}`);
-    ForbiddenError.from(ability).throwUnlessCan('read', subject('Project', toProjectDto(project)));
+    forbiddenCheck(ability).throwUnlessCan('read', subject('Project', toProjectDto(project)));
     return toProjectDto(project);
   }
 
   async create(ability: AppAbility, actor: Actor, dto: CreateProjectRequest): Promise<ProjectDto> {
-    ForbiddenError.from(ability).throwUnlessCan('create', 'Project');
+    forbiddenCheck(ability).throwUnlessCan('create', 'Project');
     if (await Project.findOne({ where: { code: dto.code } })) {
       throw new AppError('conflict', 409, `Project code ${dto.code} is already in use`, {
         fieldErrors: { code: ['is already in use'] },
@@ -101,7 +102,7 @@ export class ProjectsService {
     return runTransaction(this.sequelize, async (transaction) => {
       const project = await Project.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
       if (!project) throw AppError.notFound(`Project ${id}`);
-      ForbiddenError.from(ability).throwUnlessCan('update', subject('Project', toProjectDto(project)));
+      forbiddenCheck(ability).throwUnlessCan('update', subject('Project', toProjectDto(project)));
       if (project.version !== dto.version)
         throw AppError.conflict(`Project ${project.code} was changed by someone else; reload and try again`);
       const { version: _v, ...changes } = dto;

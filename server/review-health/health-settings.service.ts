@@ -1,4 +1,3 @@
-import { ForbiddenError } from '@casl/ability';
 import type { Sequelize, Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import {
@@ -12,6 +11,7 @@ import { ReviewHealthSettings, User } from '../db/models';
 import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { runTransaction } from '../db/transaction';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 const KEYS = Object.keys(HEALTH_SETTING_FIELDS) as HealthSettingKey[];
 
@@ -41,7 +41,7 @@ export class HealthSettingsService {
   constructor(private readonly sequelize: Sequelize) {}
 
   async get(ability: AppAbility): Promise<HealthSettingsDto> {
-    ForbiddenError.from(ability)
+    forbiddenCheck(ability)
       .setMessage('Review-health settings are for compliance and administrators')
       .throwUnlessCan('read', 'HealthSettings');
     return toDto(await loadHealthSettings());
@@ -52,7 +52,7 @@ export class HealthSettingsService {
     actor: Actor & { id: number },
     dto: UpdateHealthSettings,
   ): Promise<HealthSettingsDto> {
-    ForbiddenError.from(ability)
+    forbiddenCheck(ability)
       .setMessage('Review-health settings are changed by compliance or administrators')
       .throwUnlessCan('update', 'HealthSettings');
     const { lockVersion, ...next } = dto;

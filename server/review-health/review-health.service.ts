@@ -1,4 +1,3 @@
-import { ForbiddenError } from '@casl/ability';
 import { Op, type Sequelize } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import {
@@ -21,6 +20,7 @@ import { findingRates } from './rate-signals';
 import { versionFacts } from './standard-versions';
 import { listedPairs } from './listed-pairs';
 import { listSignal, type SignalContext } from './signal-lists';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 /**
  * Review-health signals for one project (or every project the reader may see) and a period of UTC days.
@@ -65,7 +65,7 @@ export class ReviewHealthService {
     ability: AppAbility,
     query: HealthQuery,
   ): Promise<{ ctx: SignalContext; project: HealthReport['project'] }> {
-    ForbiddenError.from(ability)
+    forbiddenCheck(ability)
       .setMessage('Review-health signals are for compliance and administrators')
       .throwUnlessCan('read', 'ReviewHealth');
     const { scope, project } = await this.scope(ability, query);

@@ -1,5 +1,4 @@
 import { placeOf } from '../../shared/engine/field-places';
-import { ForbiddenError } from '@casl/ability';
 import { Op, type Sequelize } from 'sequelize';
 import { evaluateValidInput, validateCalcInput } from '../../shared/engine';
 import { applyRuleSetMethods, diffRuleSets, evaluateChecklistSync } from '../../shared/rules';
@@ -14,6 +13,7 @@ import { enqueueMail, emailsOfRole } from '../mail/outbox';
 import { loadRuleSet } from './rule-set-cache';
 import { readRevision } from '../calcs/revision-read';
 import { runTransaction } from '../db/transaction';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 const BATCH = 1000;
 
@@ -22,7 +22,7 @@ export class ImpactService {
   constructor(private readonly sequelize: Sequelize) {}
 
   async analyse(ability: AppAbility, ruleSetId: number): Promise<ImpactReport> {
-    ForbiddenError.from(ability).setMessage('Impact analysis is for compliance').throwUnlessCan('impact', 'RuleSet');
+    forbiddenCheck(ability).setMessage('Impact analysis is for compliance').throwUnlessCan('impact', 'RuleSet');
     return this.run(ruleSetId);
   }
 
@@ -57,7 +57,7 @@ export class ImpactService {
   }
 
   async diff(ability: AppAbility, fromId: number, toId: number) {
-    ForbiddenError.from(ability).throwUnlessCan('read', 'RuleSet');
+    forbiddenCheck(ability).throwUnlessCan('read', 'RuleSet');
     const [a, b] = await Promise.all([loadRuleSet(fromId), loadRuleSet(toId)]);
     return {
       from: { id: a.record.id, code: a.record.code, version: a.record.version },
@@ -68,7 +68,7 @@ export class ImpactService {
 
   /** "Try it": evaluate a draft (or any version) against one revision's input, without storing anything. */
   async tryIt(ability: AppAbility, ruleSetId: number, revisionId: number) {
-    ForbiddenError.from(ability).throwUnlessCan('read', 'RuleSet');
+    forbiddenCheck(ability).throwUnlessCan('read', 'RuleSet');
     const { record, doc } = await loadRuleSet(ruleSetId);
     const revision = await readRevision(ability, revisionId);
     const validated = validateCalcInput(revision.input);

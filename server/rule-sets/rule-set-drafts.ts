@@ -1,4 +1,4 @@
-import { ForbiddenError, subject } from '@casl/ability';
+import { subject } from '@casl/ability';
 import type { Sequelize, Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import { RuleSetRecord } from '../db/models';
@@ -9,6 +9,7 @@ import { documentHash } from './rule-set-mapping';
 import { runTransaction } from '../db/transaction';
 import { plainSelect } from '../db/plain-query';
 import { assertDraft, loadRuleSet, validDocument, type Person } from './rule-set-records';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 /**
  * A new version's life as a draft: compliance copies one from an existing version, saves its document, and
@@ -19,7 +20,7 @@ export class RuleSetDrafts {
 
   /** A draft copied from version `fromId`, numbered after the standard's latest version; returns its id. */
   async create(ability: AppAbility, actor: Person, fromId: number): Promise<number> {
-    ForbiddenError.from(ability)
+    forbiddenCheck(ability)
       .setMessage('Only compliance drafts design standards')
       .throwUnlessCan('create', subject('RuleSet', { status: 'draft' }));
     return runTransaction(this.sequelize, async (transaction) => {

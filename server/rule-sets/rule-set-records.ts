@@ -1,4 +1,4 @@
-import { ForbiddenError, subject } from '@casl/ability';
+import { subject } from '@casl/ability';
 import { Op, type Transaction } from 'sequelize';
 import { validateRuleSet } from '../../shared/rules';
 import type { RuleSet } from '../../shared/rules/rule-set-schema';
@@ -6,6 +6,7 @@ import type { AppAbility } from '../../shared/authz/app-ability';
 import { RuleSetRecord, User } from '../db/models';
 import { AppError } from '../errors/app-error';
 import type { Actor } from '../audit/audit.service';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 /** A signed-in compliance user acting on a design standard. */
 export type Person = Actor & { id: number };
@@ -23,7 +24,7 @@ export async function loadRuleSet(id: number, transaction?: Transaction, lock = 
 /** A version may change only while it is a draft that nobody has confirmed yet. */
 export function assertDraft(ability: AppAbility, record: RuleSetRecord, action: 'update' | 'publish'): void {
   // Who may act comes first (403); only then whether the version can still change (409).
-  ForbiddenError.from(ability)
+  forbiddenCheck(ability)
     .setMessage('Only compliance edits and publishes design standards')
     .throwUnlessCan(action, subject('RuleSet', { status: 'draft' }));
   if (record.status !== 'draft')

@@ -1,5 +1,4 @@
 import { plainSelect } from '../db/plain-query';
-import { ForbiddenError } from '@casl/ability';
 import type { Sequelize } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { RuleSetDto, RuleSetSummary } from '../../shared/schemas/rule-set.schema';
@@ -10,6 +9,7 @@ import { toRuleSetDto, toRuleSetSummary } from './rule-set-mapping';
 import { loadRuleSet, namesOf, type Person } from './rule-set-records';
 import { RuleSetDrafts } from './rule-set-drafts';
 import { RuleSetPublication } from './rule-set-publication';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 /**
  * Design standards as controlled documents. Compliance drafts a new version, proposes it with an
@@ -29,7 +29,7 @@ export class RuleSetsService {
   }
 
   async list(ability: AppAbility): Promise<RuleSetSummary[]> {
-    ForbiddenError.from(ability).throwUnlessCan('read', 'RuleSet');
+    forbiddenCheck(ability).throwUnlessCan('read', 'RuleSet');
     // Versions due to come into force do so before the list is shown, which is then read again.
     let library = await libraryOf(this.sequelize);
     if (await this.publication.promoteDue(library.rows)) library = await libraryOf(this.sequelize);
@@ -37,7 +37,7 @@ export class RuleSetsService {
   }
 
   async get(ability: AppAbility, id: number): Promise<RuleSetDto> {
-    ForbiddenError.from(ability).throwUnlessCan('read', 'RuleSet');
+    forbiddenCheck(ability).throwUnlessCan('read', 'RuleSet');
     const record = await loadRuleSet(id);
     return toRuleSetDto(record, await namesOf([record.proposedBy, record.confirmedBy]));
   }

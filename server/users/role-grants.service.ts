@@ -1,4 +1,4 @@
-import { ForbiddenError, subject } from '@casl/ability';
+import { subject } from '@casl/ability';
 import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import { SIGNING_ROLES, type Role } from '../../shared/authz/roles';
@@ -10,6 +10,7 @@ import { runTransaction } from '../db/transaction';
 import { verifyPassword } from '../auth/password';
 import { recordRoleChange, type RoleChangeFacts } from './role-change-record';
 import { toRoleGrantDtos } from './role-grant-dto';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 type Person = Actor & { id: number };
 
@@ -51,7 +52,7 @@ export class RoleGrantsService {
   }
 
   async listPending(ability: AppAbility): Promise<RoleGrantDto[]> {
-    ForbiddenError.from(ability)
+    forbiddenCheck(ability)
       .setMessage('Role confirmations are for administrators and compliance')
       .throwUnlessCan('read', 'RoleGrant');
     const grants = await RoleGrant.findAll({
@@ -140,7 +141,7 @@ function assertMayDecide(ability: AppAbility, actor: Person, grant: RoleGrant): 
   if (grant.requestedBy === actor.id)
     throw new AppError('forbidden', 403, 'A second person must decide; you asked for this role');
   if (grant.userId === actor.id) throw new AppError('forbidden', 403, 'Nobody decides on their own roles');
-  ForbiddenError.from(ability)
+  forbiddenCheck(ability)
     .setMessage('Only an administrator or compliance officer confirms roles')
     .throwUnlessCan('confirm', subject('RoleGrant', { userId: grant.userId, requestedBy: grant.requestedBy }));
 }

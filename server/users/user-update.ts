@@ -1,4 +1,4 @@
-import { ForbiddenError, subject } from '@casl/ability';
+import { subject } from '@casl/ability';
 import type { Sequelize, Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { Role } from '../../shared/authz/roles';
@@ -8,6 +8,7 @@ import { AppError } from '../errors/app-error';
 import { appendAudit, type Actor } from '../audit/audit.service';
 import { toUserDto } from './user-dto';
 import type { RoleGrantsService } from './role-grants.service';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 const EDITABLE_FIELDS = ['displayName', 'email', 'secondFactorRequired'] as const;
 type EditableField = (typeof EDITABLE_FIELDS)[number];
@@ -26,7 +27,7 @@ export async function applyUserUpdate(
 ): Promise<void> {
   const before = toUserDto(user);
   // Checked before the version and even when no field is given, so a bare `{ version }` is no back door.
-  ForbiddenError.from(ability).throwUnlessCan('update', subject('User', before));
+  forbiddenCheck(ability).throwUnlessCan('update', subject('User', before));
   if (user.version !== dto.version)
     throw AppError.conflict(`User ${user.username} was changed by someone else; reload and try again`);
   const rolesChange = dto.roles && !sameRoles(dto.roles, [...before.roles, ...(await pendingOf(grants, user.id))]);
@@ -61,8 +62,8 @@ export async function pendingOf(grants: RoleGrantsService, id: number): Promise<
 
 function assertMayChange(ability: AppAbility, before: UserDto, fields: EditableField[], rolesChange: boolean): void {
   for (const field of [...fields, ...(rolesChange ? ['roles' as const] : [])])
-    ForbiddenError.from(ability).throwUnlessCan('update', subject('User', before), field);
-  if (rolesChange) ForbiddenError.from(ability).throwUnlessCan('assignRoles', subject('User', before));
+    forbiddenCheck(ability).throwUnlessCan('update', subject('User', before), field);
+  if (rolesChange) forbiddenCheck(ability).throwUnlessCan('assignRoles', subject('User', before));
 }
 
 function sameRoles(a: readonly Role[], b: readonly Role[]): boolean {

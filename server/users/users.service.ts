@@ -1,4 +1,4 @@
-import { ForbiddenError, subject } from '@casl/ability';
+import { subject } from '@casl/ability';
 import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { AppAbility } from '../../shared/authz/app-ability';
 import type { Page, PageQuery } from '../../shared/schemas/common.schema';
@@ -13,6 +13,7 @@ import { applyUserUpdate, pendingOf } from './user-update';
 import { RoleGrantsService } from './role-grants.service';
 import { runTransaction } from '../db/transaction';
 import { likeContaining } from '../db/like-pattern';
+import { forbiddenCheck } from '../authz/forbidden-check';
 
 const withRoles = { model: UserRole, as: 'roleRows' } as const;
 
@@ -56,12 +57,12 @@ export class UsersService {
 
   async get(ability: AppAbility, id: number): Promise<UserDto> {
     const user = await this.load(id);
-    ForbiddenError.from(ability).throwUnlessCan('read', subject('User', toUserDto(user)));
+    forbiddenCheck(ability).throwUnlessCan('read', subject('User', toUserDto(user)));
     return this.dto(user);
   }
 
   async create(ability: AppAbility, actor: Actor, dto: CreateUserRequest): Promise<UserDto> {
-    ForbiddenError.from(ability).throwUnlessCan('create', 'User');
+    forbiddenCheck(ability).throwUnlessCan('create', 'User');
     const taken = await User.findOne({ where: { username: dto.username } });
     if (taken)
       throw new AppError('conflict', 409, `Username "${dto.username}" is taken (usernames are never reused)`, {
@@ -104,7 +105,7 @@ export class UsersService {
   async setActive(ability: AppAbility, actor: Actor, id: number, active: boolean): Promise<UserDto> {
     await runTransaction(this.sequelize, async (transaction) => {
       const user = await this.load(id, transaction);
-      ForbiddenError.from(ability).throwUnlessCan('deactivate', subject('User', toUserDto(user)));
+      forbiddenCheck(ability).throwUnlessCan('deactivate', subject('User', toUserDto(user)));
       if (actor.id === id && !active)
         throw new AppError('self_deactivation', 400, 'You cannot deactivate your own account');
       user.active = active;

@@ -15,8 +15,6 @@ export interface ReadContext {
   editorIds: number[];
   /** Which rows hang off the revision: those it has none of are not read. */
   has: SaveContext['has'];
-  /** Its signatures in signing order, read in the same statement (the same view as its state). */
-  signatures: Signature[];
 }
 
 const RULE_SET_COLUMNS = {
@@ -32,29 +30,11 @@ let contextSql: string | undefined;
 let signaturesSql: string | undefined;
 
 /**
- * A revision's signatures as one JSON array, in signing order, each under its attributes' names. The signing time
- * goes as whole milliseconds since 1970 counted from the stored UTC text (no time zone involved), so it becomes the
- * same Date the driver gives for the column (`signatureOf`).
- */
-function signaturesJson(alias: string): string {
-  const pairs = Object.entries(Signature.getAttributes()).map(([name, a]) => {
-    const column = `${alias}.\`${a.field ?? name}\``;
-    const value = name === 'signedAt' ? `TIMESTAMPDIFF(MICROSECOND, '1970-01-01', ${column}) DIV 1000` : column;
-    return `'${name}', ${value}`;
-  });
-  return `JSON_ARRAYAGG(JSON_OBJECT(${pairs.join(', ')}) ORDER BY ${alias}.signed_at, ${alias}.id)`;
-}
-
-function signatureOf(value: Record<string, unknown>): Signature {
-  return instanceOf(Signature, { ...value, signedAt: new Date(Number(value.signedAt)) });
-}
-
-/**
- * A revision as a screen, a report or an evidence pack reads it (no transaction, no lock), with what took seven
+ * A revision as a screen, a report or an evidence pack reads it (no transaction, no lock), with what took six
  * statements read in one: the row, its standard's stamp (the ~15 kB document comes from memory while the stamp
- * matches), its people's names, the calc and project code its hash covers, the calc's editors, which rows hang
- * off it and its signatures. One statement is one consistent view, so the state, the signatures and the rows
- * hanging off it cannot disagree, where separate statements could each see a different moment.
+ * matches), its people's names, the calc and project code its hash covers, the calc's editors and which rows hang
+ * off it. One statement is one consistent view, so the state and the rows hanging off it cannot disagree, where
+ * separate statements could each see a different moment.
  */
 export async function readContextOf(id: number): Promise<ReadContext> {
   contextSql ??= contextStatement();
@@ -76,8 +56,7 @@ function contextStatement(): string {
     // Read by contextColumns (save-context.ts), as a save's context statement reads them.
     `(SELECT GROUP_CONCAT(e.user_id ORDER BY e.user_id) ${editors}) AS \`ctx.editorList\`,`,
     `(SELECT COUNT(*) ${editors}) AS \`ctx.editorCount\`,`,
-    HANGING.map((t) => `EXISTS(SELECT 1 FROM ${t} h WHERE h.revision_id = r.id) AS \`ctx.${t}\``).join(', ') + ',',
-    `(SELECT ${signaturesJson('g')} FROM signatures g WHERE g.revision_id = r.id) AS \`ctx.signatureList\``,
+    HANGING.map((t) => `EXISTS(SELECT 1 FROM ${t} h WHERE h.revision_id = r.id) AS \`ctx.${t}\``).join(', '),
     'FROM revisions r JOIN calcs c ON c.id = r.calc_id JOIN projects p ON p.id = c.project_id',
     'LEFT JOIN rule_sets s ON s.id = r.rule_set_id',
     ...PEOPLE.map((role) => `LEFT JOIN users ${role} ON ${role}.id = r.${role}_id`),
@@ -103,15 +82,11 @@ async function contextOfRow(row: Record<string, unknown>): Promise<ReadContext> 
     projectId: ctx.projectId,
     Project: { code: ctx.projectCode },
   } as unknown as HashSources['calc'];
-  // The driver gives a JSON value as parsed already (its JSON column mapping); a text would be parsed here.
-  const list = ctx.signatureList;
-  const signatures = (typeof list === 'string' ? JSON.parse(list) : (list ?? [])) as Record<string, unknown>[];
   return {
     revision,
     calc,
     editorIds: editorIds ?? (await editorIdsOf(revision.calcId)),
     has,
-    signatures: signatures.map(signatureOf),
   };
 }
 

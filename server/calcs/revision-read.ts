@@ -51,12 +51,11 @@ export async function readRevision(
         : stored
           ? undefined
           : expandResult(Revision.sequelize!, revision.result, transaction),
-      context.signatures ??
-        (has?.signatures === false
-          ? []
-          : transaction
-            ? Signature.findAll({ where: { revisionId: id }, order: [['signedAt', 'ASC']], transaction })
-            : signaturesOf(id)),
+      has?.signatures === false
+        ? []
+        : transaction
+          ? Signature.findAll({ where: { revisionId: id }, order: [['signedAt', 'ASC']], transaction })
+          : signaturesOf(id),
       has?.findings === false
         ? []
         : Finding.findAll({ where: { revisionId: id }, order: [['id', 'ASC']], transaction }),
@@ -102,8 +101,6 @@ interface Known {
   calc?: HashSources['calc'];
   /** The result and checklist texts are the ones this process has just written from computed values (a save). */
   written?: boolean;
-  /** Its signatures, when read with the row (a plain read, revision-read-context.ts). */
-  signatures?: Signature[];
 }
 
 async function contextOf(id: number, transaction?: Transaction): Promise<Known> {

@@ -6,7 +6,6 @@ import { auditOf, lastAuditId } from '../support/audit-harness';
 import { mailAbout } from '../support/mail-harness';
 import { testStandard } from '../support/standard-harness';
 import { CLOCK_SLACK_MS } from '../support/wall-clock';
-import { capturedSelects } from '../support/explain-harness';
 
 const { app, sequelize } = startTestApp();
 afterAll(() => sequelize.close());
@@ -264,39 +263,4 @@ describe('tampering', () => {
       expect(r.ruleSet.code).toBe(row === 'standard' ? `${standard.code}-X` : standard.code);
     },
   );
-});
-
-describe('signatures read with their revision', () => {
-  it('when an approved revision is read, then its signatures come in the statement that reads its row, as stored, odd names and all', async () => {
-    // Arrange: a printed name with quotes, a backslash, accents, an emoji and a tab, written straight in the table
-    const t = await team();
-    await advanceTo('approved', t.sessions, t.revisionId);
-    const odd = 'Zoë "Quote" O\'Brien \\ back — 🔧\ttab';
-    await sequelize.query("UPDATE signatures SET printed_name = ? WHERE revision_id = ? AND meaning = 'checked'", {
-      replacements: [odd, t.revisionId],
-    });
-    const stored = await sequelize.query<{
-      printed_name: string;
-      meaning: string;
-      signed_at: Date;
-      content_hash: string;
-    }>(
-      'SELECT printed_name, meaning, signed_at, content_hash FROM signatures WHERE revision_id = ? ORDER BY signed_at, id',
-      { replacements: [t.revisionId], type: QueryTypes.SELECT },
-    );
-
-    // Act
-    let read: { signatures: SignatureView[] } | undefined;
-    const selects = await capturedSelects(sequelize, async () => {
-      read = await revisionOf(t.author.session, t.revisionId);
-    });
-
-    // Assert
-    expect(read!.signatures.map((s) => [s.printedName, s.meaning, s.signedAt, s.contentHash])).toEqual(
-      stored.map((s) => [s.printed_name, s.meaning, s.signed_at.toISOString(), s.content_hash]),
-    );
-    expect(read!.signatures.map((s) => s.printedName)).toContain(odd);
-    // No statement of its own for the signatures (the row's statement reads them as a JSON array).
-    expect(selects.filter((sql) => /FROM signatures g WHERE g\.revision_id = \d+/.test(sql))).toEqual([]);
-  });
 });

@@ -1,20 +1,19 @@
 import { Router, type Request } from 'express';
 import type { AppPassport as Passport } from './passport';
 import type { Sequelize } from 'sequelize';
-import { defineRulesFor } from '../../shared/authz/app-ability';
 import { changePasswordSchema, loginSchema, type SessionUser } from '../../shared/schemas/auth.schema';
 import type { Config } from '../config';
 import { AppError } from '../errors/app-error';
 import { validate } from '../http/validate';
 import { requireSignIn } from '../authz/require-sign-in';
-import { actorOf, signedInActor } from '../authz/actor';
+import { abilityOf, actorOf, signedInActor } from '../authz/actor';
 import { AuthService } from './auth.service';
 import { csrfToken } from './csrf';
 import { clientIp } from '../http/client-ip';
 import { loginRateLimit } from './login-rate-limit';
 
 function sessionBody(req: Request, user: SessionUser | null, config: Config) {
-  return { user, rules: defineRulesFor(user), csrfToken: csrfToken(req, false), organisation: config.ORG_NAME };
+  return { user, rules: abilityOf(user).rules, csrfToken: csrfToken(req, false), organisation: config.ORG_NAME };
 }
 
 function authenticate(

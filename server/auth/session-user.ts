@@ -13,8 +13,8 @@ import type { Role } from '../../shared/authz/roles';
  * The store's get is not handed the request. express-session's middleware calls it synchronously, before anything
  * is awaited, so the request is left in `reading` for the length of that call and the get takes it on its first
  * line. A get outside that call (a session reload) finds none, and that step reads the person itself, as it would
- * anyway. (An AsyncLocalStorage would carry the request too, but it would keep Node's async context tracking on
- * where npm test switches it off: see SERVER_TIMING_PHASES in config.ts.)
+ * anyway. (An AsyncLocalStorage would carry the request too, but it would switch Node's async context tracking on
+ * for every request: see SERVER_TIMING_PHASES in config.ts.)
  */
 let reading: Request | undefined;
 // The person read with this request's own session row (false: the row names nobody, or someone inactive).

@@ -8,7 +8,7 @@ const phases = new AsyncLocalStorage<Map<string, number>>();
  * A `Server-Timing` header on every API answer: `app` is the whole answer, then each phase that `timed` measured
  * (e.g. `read`, `hash`): the browser's network panel then shows how much of a slow screen is the server, and which
  * part of it, and how much the page itself, which is where speed work starts. The phases only with `withPhases`
- * (config SERVER_TIMING_PHASES, on by default): their store switches on Node's async context tracking.
+ * (config SERVER_TIMING_PHASES, off by default): their store switches on Node's async context tracking.
  */
 export function serverTiming(withPhases: boolean): RequestHandler {
   return (_req, res, next) => {
